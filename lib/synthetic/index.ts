@@ -1,0 +1,8 @@
+export { makeStripes, type StripesOptions } from "./make-stripes";
+export { makeHexSpots, type HexSpotsOptions } from "./make-hex-spots";
+export { makeLabyrinth, type LabyrinthOptions } from "./make-labyrinth";
+export { makeNoise, type NoiseOptions } from "./make-noise";
+export { makeGradientStripes, gradientWavelengthAtPx, type GradientStripesOptions } from "./make-gradient-stripes";
+export { SyntheticOptionError, MAX_SYNTHETIC_SIDE_PX } from "./check-options";
+export { createRng, type Rng } from "./random";
+export type { GreyImage } from "../imaging/grey-image";

@@ -1,0 +1,40 @@
+/**
+ * `npm run bench`: runs every `tests/bench/*.bench.ts` (or the ones named on the command line)
+ * and prints a table of figures. Each bench file default-exports an async function returning rows.
+ * Benchmarks measure; they never fail a build. Targets are printed beside the figures.
+ */
+import { readdirSync } from "node:fs";
+import path from "node:path";
+
+export interface BenchRow {
+  name: string;
+  value: number;
+  unit: string;
+  target?: string;
+  note?: string;
+}
+
+async function main() {
+  const dir = import.meta.dirname;
+  const only = process.argv.slice(2);
+  const files = readdirSync(dir)
+    .filter((f) => f.endsWith(".bench.ts"))
+    .filter((f) => only.length === 0 || only.some((o) => f.includes(o)))
+    .sort();
+  const rows: BenchRow[] = [];
+  for (const f of files) {
+    const mod = (await import(path.join(dir, f))) as { default: () => Promise<BenchRow[]> };
+    process.stderr.write(`running ${f} …\n`);
+    rows.push(...(await mod.default()));
+  }
+  const fmt = (v: number) => (Math.abs(v) >= 100 ? v.toFixed(0) : Math.abs(v) >= 1 ? v.toFixed(2) : v.toPrecision(3));
+  console.log(["benchmark".padEnd(58), "value".padStart(12), "unit".padEnd(12), "target"].join(" "));
+  for (const r of rows) {
+    console.log([r.name.padEnd(58), fmt(r.value).padStart(12), r.unit.padEnd(12), r.target ?? "", r.note ? `(${r.note})` : ""].join(" "));
+  }
+}
+
+main().catch((err) => {
+  console.error(err);
+  process.exit(1);
+});

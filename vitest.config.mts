@@ -1,0 +1,11 @@
+import { defineConfig } from "vitest/config";
+
+export default defineConfig({
+  resolve: { alias: { "@": import.meta.dirname } },
+  test: {
+    include: ["tests/**/*.test.ts"],
+    environment: "node",
+    pool: "forks",
+    testTimeout: 30_000,
+  },
+});
