@@ -23,6 +23,12 @@ export function checkPositive(field: string, v: number, min = 0): void {
   }
 }
 
+export function checkAtLeast(field: string, v: number, min: number): void {
+  if (!Number.isFinite(v) || v < min) {
+    throw new SyntheticOptionError(field, `${field} must be a finite number of at least ${min} (got ${v}).`);
+  }
+}
+
 export function checkRange(field: string, v: number, lo: number, hi: number): void {
   if (!Number.isFinite(v) || v < lo || v > hi) {
     throw new SyntheticOptionError(field, `${field} must be from ${lo} to ${hi} (got ${v}).`);

@@ -1,5 +1,5 @@
 import type { GreyImage } from "../imaging/grey-image";
-import { addNoiseAndClamp, checkPositive, checkRange, checkSize } from "./check-options";
+import { addNoiseAndClamp, checkAtLeast, checkPositive, checkRange, checkSize } from "./check-options";
 import { createRng } from "./random";
 
 export interface GradientStripesOptions {
@@ -25,8 +25,8 @@ export interface GradientStripesOptions {
 export function makeGradientStripes(options: GradientStripesOptions): GreyImage {
   const { width, height, wavelengthStartPx: l0, wavelengthEndPx: l1, contrast = 1, noise = 0, seed = 1 } = options;
   checkSize(width, height);
-  checkPositive("wavelengthStartPx", l0, 2 - 1e-12);
-  checkPositive("wavelengthEndPx", l1, 2 - 1e-12);
+  checkAtLeast("wavelengthStartPx", l0, 2);
+  checkAtLeast("wavelengthEndPx", l1, 2);
   checkRange("contrast", contrast, 0, 1);
   checkRange("noise", noise, 0, 10);
   const g = width > 1 ? (l1 - l0) / (width - 1) : 0;

@@ -1,5 +1,5 @@
 import type { GreyImage } from "../imaging/grey-image";
-import { addNoiseAndClamp, checkPositive, checkRange, checkSize } from "./check-options";
+import { addNoiseAndClamp, checkAtLeast, checkPositive, checkRange, checkSize } from "./check-options";
 import { createRng } from "./random";
 
 export interface HexSpotsOptions {
@@ -23,7 +23,7 @@ export interface HexSpotsOptions {
 export function makeHexSpots(options: HexSpotsOptions): GreyImage {
   const { width, height, spacingPx: a, angleDeg = 0, jitterPx = 0, noise = 0, seed = 1 } = options;
   checkSize(width, height);
-  checkPositive("spacingPx", a, 3 - 1e-12);
+  checkAtLeast("spacingPx", a, 3);
   const spotRadiusPx = options.spotRadiusPx ?? 0.25 * a;
   checkRange("angleDeg", angleDeg, -360, 360);
   checkPositive("spotRadiusPx", spotRadiusPx);

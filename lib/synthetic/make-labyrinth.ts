@@ -1,5 +1,5 @@
 import type { GreyImage } from "../imaging/grey-image";
-import { SyntheticOptionError, addNoiseAndClamp, checkPositive, checkRange, checkSize } from "./check-options";
+import { SyntheticOptionError, addNoiseAndClamp, checkAtLeast, checkPositive, checkRange, checkSize } from "./check-options";
 import { createRng } from "./random";
 
 export interface LabyrinthOptions {
@@ -25,7 +25,7 @@ export interface LabyrinthOptions {
 export function makeLabyrinth(options: LabyrinthOptions): GreyImage {
   const { width, height, wavelengthPx, waves = 48, sharpness = 3, noise = 0, seed = 1 } = options;
   checkSize(width, height);
-  checkPositive("wavelengthPx", wavelengthPx, 2 - 1e-12);
+  checkAtLeast("wavelengthPx", wavelengthPx, 2);
   if (!Number.isInteger(waves) || waves < 1 || waves > 1000) {
     throw new SyntheticOptionError("waves", `waves must be an integer from 1 to 1000 (got ${waves}).`);
   }

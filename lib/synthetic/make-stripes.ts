@@ -1,5 +1,5 @@
 import type { GreyImage } from "../imaging/grey-image";
-import { addNoiseAndClamp, checkPositive, checkRange, checkSize } from "./check-options";
+import { addNoiseAndClamp, checkAtLeast, checkPositive, checkRange, checkSize } from "./check-options";
 import { createRng } from "./random";
 
 export interface StripesOptions {
@@ -28,7 +28,7 @@ export interface StripesOptions {
 export function makeStripes(options: StripesOptions): GreyImage {
   const { width, height, wavelengthPx, angleDeg, contrast = 1, noise = 0, seed = 1, phaseRad = 0 } = options;
   checkSize(width, height);
-  checkPositive("wavelengthPx", wavelengthPx, 2 - 1e-12);
+  checkAtLeast("wavelengthPx", wavelengthPx, 2);
   checkRange("angleDeg", angleDeg, -360, 360);
   checkRange("contrast", contrast, 0, 1);
   checkRange("noise", noise, 0, 10);
