@@ -1,0 +1,8 @@
+import { describeInvitation } from "@/lib/server/data/invitations";
+import { json } from "@/lib/server/http";
+import { publicRoute } from "@/lib/server/lab-route";
+
+export const runtime = "nodejs";
+
+/** What the invitation link offers (lab, role, whether the address has an account). */
+export const GET = publicRoute<{ token: string }>(async (_request, p) => json(await describeInvitation(p.token)));

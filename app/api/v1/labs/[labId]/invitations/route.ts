@@ -1,0 +1,13 @@
+import { invitationCreateSchema } from "@/lib/contracts/lab";
+import { createInvitation, listInvitations } from "@/lib/server/data/invitations";
+import { json, readJson } from "@/lib/server/http";
+import { labRoute } from "@/lib/server/lab-route";
+
+export const runtime = "nodejs";
+
+export const GET = labRoute("invitation.manage", async (ctx) => json({ items: await listInvitations(ctx) }));
+
+export const POST = labRoute("invitation.manage", async (ctx, request) => {
+  const { email, role } = await readJson(request, invitationCreateSchema);
+  return json(await createInvitation(ctx, email, role), 201);
+});

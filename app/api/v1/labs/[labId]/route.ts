@@ -1,0 +1,6 @@
+import { json } from "@/lib/server/http";
+import { labRoute } from "@/lib/server/lab-route";
+
+export const runtime = "nodejs";
+
+export const GET = labRoute("lab.read", async (ctx) => json({ id: ctx.labId, name: ctx.labName, role: ctx.role }));

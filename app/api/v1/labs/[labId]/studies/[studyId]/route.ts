@@ -1,0 +1,17 @@
+import { studyUpdateSchema } from "@/lib/contracts/study";
+import { deleteStudy, getStudy, updateStudy } from "@/lib/server/data/studies";
+import { json, readJson } from "@/lib/server/http";
+import { labRoute } from "@/lib/server/lab-route";
+
+export const runtime = "nodejs";
+
+type P = { labId: string; studyId: string };
+
+export const GET = labRoute<P>("lab.read", async (ctx, _request, p) => json(await getStudy(ctx, p.studyId)));
+
+export const PATCH = labRoute<P>("study.edit", async (ctx, request, p) => json(await updateStudy(ctx, p.studyId, await readJson(request, studyUpdateSchema))));
+
+export const DELETE = labRoute<P>("study.delete", async (ctx, _request, p) => {
+  await deleteStudy(ctx, p.studyId);
+  return new Response(null, { status: 204 });
+});

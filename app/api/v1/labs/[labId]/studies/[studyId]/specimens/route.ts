@@ -1,0 +1,13 @@
+import { specimenCreateSchema } from "@/lib/contracts/study";
+import { createSpecimen, listSpecimens, SPECIMEN_SORTS } from "@/lib/server/data/specimens";
+import { json, readJson } from "@/lib/server/http";
+import { labRoute } from "@/lib/server/lab-route";
+import { parseListQuery } from "@/lib/server/list";
+
+export const runtime = "nodejs";
+
+type P = { labId: string; studyId: string };
+
+export const GET = labRoute<P>("lab.read", async (ctx, request, p) => json(await listSpecimens(ctx, p.studyId, parseListQuery(request.url, SPECIMEN_SORTS, "label", "asc"))));
+
+export const POST = labRoute<P>("specimen.create", async (ctx, request, p) => json(await createSpecimen(ctx, p.studyId, await readJson(request, specimenCreateSchema)), 201));

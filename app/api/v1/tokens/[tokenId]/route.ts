@@ -1,0 +1,9 @@
+import { revokeToken } from "@/lib/server/data/tokens";
+import { userRoute } from "@/lib/server/lab-route";
+
+export const runtime = "nodejs";
+
+export const DELETE = userRoute<{ tokenId: string }>(async (actor, _request, p) => {
+  await revokeToken(actor, p.tokenId);
+  return new Response(null, { status: 204 });
+});

@@ -1,0 +1,34 @@
+import { z } from "zod";
+
+export const PASSWORD_MIN = 10;
+
+export const emailSchema = z.email("enter a valid e-mail address").max(254).transform((s) => s.trim().toLowerCase());
+export const passwordSchema = z.string().min(PASSWORD_MIN, `at least ${PASSWORD_MIN} characters`).max(200, "at most 200 characters");
+
+export const signupSchema = z.object({
+  name: z.string().trim().min(1, "enter your name").max(120),
+  email: emailSchema,
+  password: passwordSchema,
+  labName: z.string().trim().min(2, "at least 2 characters").max(120, "at most 120 characters"),
+});
+export type SignupInput = z.input<typeof signupSchema>;
+
+export const loginSchema = z.object({
+  email: emailSchema,
+  password: z.string().min(1, "enter your password"),
+});
+
+export const magicLinkSchema = z.object({ email: emailSchema });
+
+export const acceptInvitationSchema = z.object({
+  name: z.string().trim().min(1, "enter your name").max(120).optional(),
+  password: passwordSchema,
+});
+
+export const tokenCreateSchema = z.object({
+  name: z.string().trim().min(1, "give the token a name").max(80, "at most 80 characters"),
+});
+
+export const settingsSchema = z.object({
+  notifyByEmail: z.boolean(),
+});

@@ -1,0 +1,29 @@
+import { z } from "zod";
+
+const optionalText = (max: number) =>
+  z.string().trim().max(max, `at most ${max} characters`).optional().nullable().transform((s) => (s ? s : null));
+
+export const studyCreateSchema = z.object({
+  name: z.string().trim().min(1, "give the study a name").max(200, "at most 200 characters"),
+  tissue: z.string().trim().min(1, "name the tissue (e.g. dorsal skin)").max(120, "at most 120 characters"),
+  organism: z.string().trim().min(1, "name the organism").max(120, "at most 120 characters"),
+  description: optionalText(5000),
+});
+export const studyUpdateSchema = studyCreateSchema.partial();
+export type StudyInput = z.input<typeof studyCreateSchema>;
+
+export const specimenCreateSchema = z.object({
+  label: z.string().trim().min(1, "give the specimen a label").max(120, "at most 120 characters"),
+  condition: z.string().trim().min(1, "name the condition (e.g. control)").max(120, "at most 120 characters"),
+  stage: optionalText(60),
+  genotype: optionalText(120),
+  notes: optionalText(5000),
+});
+export const specimenUpdateSchema = specimenCreateSchema.partial();
+export type SpecimenInput = z.input<typeof specimenCreateSchema>;
+
+/** Pixel size typed by the uploader, µm/px; used when the file carries none. */
+export const pixelSizeSchema = z.coerce
+  .number("pixel size must be a number in µm/px")
+  .positive("pixel size must be above 0 µm/px")
+  .max(10_000, "pixel size must be at most 10000 µm/px");

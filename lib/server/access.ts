@@ -1,0 +1,48 @@
+/**
+ * Lab access: membership decides what exists for you. A lab you are not a member of, and every
+ * object in it, answers 404 (not 403), so ids cannot be probed.
+ */
+import { can, type Action } from "@/lib/access/permissions";
+import type { Role } from "@/lib/access/roles";
+import type { Actor } from "./actor";
+import { AppError, forbidden, notFound } from "./errors";
+import { database } from "./services";
+
+export interface LabContext {
+  actor: Actor;
+  labId: string;
+  labName: string;
+  role: Role;
+}
+
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
+export function isUuid(s: string): boolean {
+  return UUID.test(s);
+}
+
+export async function requireLab(actor: Actor, labId: string): Promise<LabContext> {
+  if (!isUuid(labId)) throw notFound("lab");
+  const m = await database();
+  const membership = await m.Membership.findOne({ where: { labId, userId: actor.userId } });
+  if (!membership) throw notFound("lab");
+  const lab = await m.Lab.findByPk(labId);
+  if (!lab) throw notFound("lab");
+  return { actor, labId, labName: lab.name, role: membership.role };
+}
+
+/** Throws 403 unless the role allows the action (on an object created by `ownerId`). */
+export function authorize(ctx: LabContext, action: Action, ownerId?: string | null): void {
+  const allowed = ownerId === undefined ? can(ctx.role, action) : can(ctx.role, action, { ownerId, actorId: ctx.actor.userId });
+  if (!allowed) {
+    throw ownerId === undefined ? forbidden() : forbidden("only its creator or a lab manager may change or delete this");
+  }
+}
+
+export async function requireLabAction(actor: Actor, labId: string, action: Action): Promise<LabContext> {
+  const ctx = await requireLab(actor, labId);
+  authorize(ctx, action);
+  return ctx;
+}
+
+export { AppError };

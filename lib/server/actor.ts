@@ -1,0 +1,56 @@
+/**
+ * Who is asking: a signed-in browser session (next-auth JWT cookie) or a script with
+ * `Authorization: Bearer mk_…` (a personal API token). Returns a small DTO, never a user row.
+ */
+import { getServerSession } from "next-auth";
+import { cache } from "react";
+import { Op } from "sequelize";
+import { authOptions } from "./auth";
+import { AppError } from "./errors";
+import { sha256Hex } from "./secrets";
+import { database } from "./services";
+
+export interface Actor {
+  userId: string;
+  email: string;
+  name: string | null;
+  via: "session" | "token";
+}
+
+async function actorFromToken(secret: string): Promise<Actor | null> {
+  const m = await database();
+  const token = await m.ApiToken.findOne({ where: { tokenHash: sha256Hex(secret), revokedAt: { [Op.is]: null } } });
+  if (!token) return null;
+  const user = await m.User.findByPk(token.userId);
+  if (!user) return null;
+  await token.update({ lastUsedAt: new Date() });
+  return { userId: user.id, email: user.email, name: user.name, via: "token" };
+}
+
+const actorFromSession = cache(async (): Promise<Actor | null> => {
+  const session = await getServerSession(authOptions());
+  const id = session?.user?.id;
+  if (!id) return null;
+  const m = await database();
+  const user = await m.User.findByPk(id);
+  return user ? { userId: user.id, email: user.email, name: user.name, via: "session" } : null;
+});
+
+/** The actor or null. With a request, a Bearer header wins over the cookie. */
+export async function getActor(request?: Request): Promise<Actor | null> {
+  const header = request?.headers.get("authorization");
+  if (header) {
+    const match = /^Bearer\s+(\S+)$/i.exec(header);
+    if (!match) throw new AppError("unauthenticated", "the Authorization header must be `Bearer <token>`");
+    const actor = await actorFromToken(match[1]);
+    if (!actor) throw new AppError("unauthenticated", "that API token is unknown or revoked");
+    return actor;
+  }
+  return actorFromSession();
+}
+
+export async function requireActor(request?: Request): Promise<Actor> {
+  const actor = await getActor(request);
+  if (!actor) throw new AppError("unauthenticated", "sign in first (or send an API token)");
+  return actor;
+}

@@ -1,0 +1,42 @@
+/**
+ * Configuration from environment variables, with embedded defaults that run everything on one
+ * laptop (SQLite file under storage/data, the fakes from fake-services/ on 127.0.0.1).
+ * Pointing at real services is configuration only: see README "Configuration".
+ */
+import path from "node:path";
+
+function num(name: string, fallback: number): number {
+  const raw = process.env[name];
+  if (raw === undefined || raw === "") return fallback;
+  const n = Number(raw);
+  if (!Number.isFinite(n)) throw new Error(`${name} must be a number, got "${raw}"`);
+  return n;
+}
+
+export function readConfig() {
+  const dataDir = path.resolve(process.env.MORPHOKIN_DATA_DIR ?? "storage/data");
+  return {
+    dataDir,
+    databasePath: process.env.DATABASE_PATH ?? path.join(dataDir, "morphokin.sqlite"),
+    appUrl: process.env.NEXTAUTH_URL ?? "http://127.0.0.1:3000",
+    s3: {
+      endpoint: process.env.S3_ENDPOINT ?? "http://127.0.0.1:4569",
+      region: process.env.S3_REGION ?? "us-east-1",
+      bucket: process.env.S3_BUCKET ?? "morphokin-dev",
+      accessKeyId: process.env.S3_ACCESS_KEY_ID ?? "S3RVER",
+      secretAccessKey: process.env.S3_SECRET_ACCESS_KEY ?? "S3RVER",
+      forcePathStyle: (process.env.S3_FORCE_PATH_STYLE ?? "true") === "true",
+    },
+    smtp: {
+      url: process.env.SMTP_URL ?? "smtp://127.0.0.1:2525",
+      from: process.env.MAIL_FROM ?? "Morphokin <noreply@morphokin.test>",
+    },
+    /** HTTP listing of the fake SMTP server's mailbox; unset in production (no mailbox page). */
+    devMailboxUrl: process.env.DEV_MAILBOX_URL ?? (process.env.NODE_ENV === "production" && !process.env.MORPHOKIN_DEMO ? "" : "http://127.0.0.1:2526"),
+    /** Largest upload accepted, bytes. */
+    maxUploadBytes: num("MAX_UPLOAD_BYTES", 200 * 1024 * 1024),
+    invitationDays: num("INVITATION_DAYS", 7),
+  };
+}
+
+export type Config = ReturnType<typeof readConfig>;

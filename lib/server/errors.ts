@@ -1,0 +1,32 @@
+/**
+ * The one error type route handlers turn into `{ error: { code, message, details? } }`.
+ * `message` is what the user sees; internals are logged, never shown.
+ */
+export const ERROR_STATUS = {
+  bad_input: 400,
+  unauthenticated: 401,
+  forbidden: 403,
+  not_found: 404,
+  conflict: 409,
+  too_large: 413,
+  unprocessable: 422,
+  unavailable: 503,
+} as const;
+export type ErrorCode = keyof typeof ERROR_STATUS;
+
+export class AppError extends Error {
+  constructor(
+    public code: ErrorCode,
+    message: string,
+    public details?: unknown,
+  ) {
+    super(message);
+    this.name = "AppError";
+  }
+  get status(): number {
+    return ERROR_STATUS[this.code];
+  }
+}
+
+export const notFound = (what: string) => new AppError("not_found", `${what} not found`);
+export const forbidden = (message = "your role in this lab does not allow this") => new AppError("forbidden", message);

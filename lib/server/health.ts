@@ -1,0 +1,26 @@
+/** Health of each part: database, object storage, mail. */
+import { services } from "./services";
+
+export type PartStatus = { ok: true } | { ok: false; error: string };
+
+async function probe(fn: () => Promise<unknown>, ms = 3000): Promise<PartStatus> {
+  try {
+    await Promise.race([fn(), new Promise((_, reject) => setTimeout(() => reject(new Error(`no answer within ${ms} ms`)), ms))]);
+    return { ok: true };
+  } catch (err) {
+    return { ok: false, error: err instanceof Error ? err.message : String(err) };
+  }
+}
+
+export async function checkHealth() {
+  const s = services();
+  const [database, storage, mail] = await Promise.all([
+    probe(async () => {
+      await s.db.ready;
+      await s.db.sequelize.query("SELECT 1");
+    }),
+    probe(() => s.store.check()),
+    probe(() => s.mailer.check()),
+  ]);
+  return { ok: database.ok && storage.ok && mail.ok, database, storage, mail };
+}

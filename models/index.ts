@@ -1,0 +1,48 @@
+/**
+ * All models of one Sequelize instance, initialised together with their associations.
+ * Always reach models through the object this returns (never by importing a class and using it
+ * directly): Next may evaluate a module twice, and only these classes are bound to the instance.
+ */
+import type { Sequelize } from "sequelize";
+import { initApiToken } from "./api-token";
+import { initAuditEvent } from "./audit-event";
+import { initAuthRecords } from "./auth-records";
+import { initInvitation } from "./invitation";
+import { initLab } from "./lab";
+import { initMembership } from "./membership";
+import { initSpecimen } from "./specimen";
+import { initStudy } from "./study";
+import { initUpload } from "./upload";
+import { initUser } from "./user";
+
+export function createModels(sequelize: Sequelize) {
+  const models = {
+    User: initUser(sequelize),
+    ...initAuthRecords(sequelize),
+    Lab: initLab(sequelize),
+    Membership: initMembership(sequelize),
+    Invitation: initInvitation(sequelize),
+    AuditEvent: initAuditEvent(sequelize),
+    Study: initStudy(sequelize),
+    Specimen: initSpecimen(sequelize),
+    Upload: initUpload(sequelize),
+    ApiToken: initApiToken(sequelize),
+  };
+  const { User, Lab, Membership, Invitation, Study, Specimen, Upload, ApiToken } = models;
+  Membership.belongsTo(User, { as: "user", foreignKey: "userId" });
+  Membership.belongsTo(Lab, { as: "lab", foreignKey: "labId" });
+  Lab.hasMany(Membership, { as: "memberships", foreignKey: "labId" });
+  User.hasMany(Membership, { as: "memberships", foreignKey: "userId" });
+  Invitation.belongsTo(Lab, { as: "lab", foreignKey: "labId" });
+  Study.hasMany(Specimen, { as: "specimens", foreignKey: "studyId" });
+  Specimen.belongsTo(Study, { as: "study", foreignKey: "studyId" });
+  Specimen.hasMany(Upload, { as: "uploads", foreignKey: "specimenId" });
+  Upload.belongsTo(Specimen, { as: "specimen", foreignKey: "specimenId" });
+  Upload.belongsTo(User, { as: "uploader", foreignKey: "createdBy" });
+  Study.belongsTo(User, { as: "creator", foreignKey: "createdBy" });
+  Specimen.belongsTo(User, { as: "creator", foreignKey: "createdBy" });
+  ApiToken.belongsTo(User, { as: "user", foreignKey: "userId" });
+  return models;
+}
+
+export type Models = ReturnType<typeof createModels>;

@@ -1,0 +1,44 @@
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
+
+export type UploadKind = "image" | "table";
+
+export class Upload extends Model<InferAttributes<Upload>, InferCreationAttributes<Upload>> {
+  declare id: string;
+  declare labId: string;
+  declare specimenId: string;
+  declare filename: string;
+  declare kind: UploadKind;
+  /** Judged from the file's content, not its name. */
+  declare contentType: string;
+  declare sizeBytes: number;
+  declare sha256: string;
+  declare storageKey: string;
+  declare pixelSizeUm: number | null;
+  /** `metadata` (read from the file) or `uploader` (typed in). */
+  declare pixelSizeSource: string | null;
+  declare createdBy: string | null;
+  declare createdAt: CreationOptional<Date>;
+}
+
+export function initUpload(sequelize: Sequelize) {
+  const M = class extends Upload {};
+  M.init(
+    {
+      id: { type: DataTypes.UUID, primaryKey: true },
+      labId: { type: DataTypes.UUID, allowNull: false },
+      specimenId: { type: DataTypes.UUID, allowNull: false },
+      filename: { type: DataTypes.STRING(255), allowNull: false },
+      kind: { type: DataTypes.STRING(10), allowNull: false },
+      contentType: { type: DataTypes.STRING(100), allowNull: false },
+      sizeBytes: { type: DataTypes.INTEGER, allowNull: false },
+      sha256: { type: DataTypes.STRING(64), allowNull: false },
+      storageKey: { type: DataTypes.STRING(300), allowNull: false, unique: true },
+      pixelSizeUm: { type: DataTypes.FLOAT },
+      pixelSizeSource: { type: DataTypes.STRING(20) },
+      createdBy: { type: DataTypes.UUID },
+      createdAt: DataTypes.DATE,
+    },
+    { sequelize, modelName: "upload", tableName: "uploads", underscored: true, updatedAt: false },
+  );
+  return M;
+}

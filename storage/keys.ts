@@ -1,0 +1,12 @@
+/**
+ * Object key naming: everything of a lab sits under `labs/<labId>/`, so a lab can be exported or
+ * removed by prefix. Originals keep no user-supplied name in the key (names can hold anything).
+ */
+export function uploadOriginalKey(labId: string, uploadId: string): string {
+  return `labs/${labId}/uploads/${uploadId}/original`;
+}
+
+export function uploadDerivedKey(labId: string, uploadId: string, name: string): string {
+  if (!/^[a-z0-9][a-z0-9._-]*$/.test(name)) throw new Error(`derived object name "${name}" is not a plain lowercase name`);
+  return `labs/${labId}/uploads/${uploadId}/${name}`;
+}
