@@ -1,0 +1,15 @@
+export { FitError, type FitErrorCode } from "./errors";
+export type { LeastSquaresProblem, LocalSolution, StopReason } from "./types";
+export { CONVERGED_REASONS } from "./types";
+export type { LeastSquaresOptions } from "./check-solver-options";
+export type { LibraryStageOptions } from "./library-stage";
+export type { PolishOptions } from "./polish-levenberg-marquardt";
+export { solveLeastSquares, type LeastSquaresResult, type StartReport } from "./solve-least-squares";
+export { analyseFit, type AnalysisOptions, type FitAnalysis } from "./analyse-fit";
+export { fitCurve, createCurveProblem, type CurveData, type CurveModel, type CurveFit } from "./fit-curve";
+export type { CovarianceReport } from "./covariance";
+export { SINGULAR_RATIO_LIMIT } from "./covariance";
+export { PROFILE_DELTA_95, type ParameterProfile, type ProfileSide } from "./profile-likelihood";
+export type { Valley, ValleyPoint } from "./trace-valley";
+export type { Identifiability } from "./identifiability";
+export { computeAicc, computeBic, computeAkaikeWeights } from "./information-criteria";

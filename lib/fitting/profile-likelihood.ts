@@ -1,0 +1,121 @@
+import { fitWithFixed, type SolverContext } from "./fit-with-fixed";
+
+/** Δχ² for a 95 % interval on one parameter: the 0.95 quantile of χ² with 1 degree of freedom (1.959964²). */
+export const PROFILE_DELTA_95 = 3.841458820694124;
+
+/** One side of a profile-likelihood interval. */
+export interface ProfileSide {
+  /** The limit (natural units), or null when Δχ² never reached the threshold on this side. */
+  limit: number | null;
+  /** `bound`: the parameter's bound was reached first; `range`: the search range ran out. */
+  openReason: "bound" | "range" | null;
+}
+
+/** Profile of one parameter: the re-optimised χ² as the parameter is moved away from its estimate. */
+export interface ParameterProfile {
+  lower: ProfileSide;
+  upper: ProfileSide;
+  /** Visited points, sorted by value: the parameter (natural units), Δχ² and the full re-optimised parameter vector. */
+  points: { value: number; deltaChiSquare: number; params: number[] }[];
+  /** Neither side rose by the threshold: the data do not bound this parameter. */
+  flat: boolean;
+  /** Lowest χ² met while profiling, when it is below the fit's (the fit was then not the global minimum). */
+  lowerChiSquareFound: number | null;
+}
+
+export interface ProfileOptions {
+  /** Δχ² defining the interval. @default 3.841458820694124 (95 %, 1 parameter) */
+  delta: number;
+  /** Doubling steps before a side is declared open. @default 12 */
+  maxSteps: number;
+  /** Root-finding iterations on each side. @default 30 */
+  maxRootIterations: number;
+}
+
+export const DEFAULT_PROFILE: ProfileOptions = { delta: PROFILE_DELTA_95, maxSteps: 12, maxRootIterations: 30 };
+
+/**
+ * Profile likelihood of coordinate `j` (Raue et al. 2009, Bioinformatics 25:1923): hold θⱼ at
+ * trial values, re-optimise the others, and find where χ² has risen by `delta` above its
+ * minimum. Each side is bracketed by doubling steps from `firstStep` (solver coordinates; about
+ * one standard error), then the crossing is located by the Illinois variant of regula falsi.
+ */
+export function profileParameter(
+  ctx: SolverContext,
+  uHat: readonly number[],
+  chiMin: number,
+  j: number,
+  firstStep: number,
+  toNaturalValue: (u: number[]) => number[],
+  options: ProfileOptions = DEFAULT_PROFILE,
+): ParameterProfile {
+  const points: ParameterProfile["points"] = [{ value: toNaturalValue(uHat.slice())[j], deltaChiSquare: 0, params: toNaturalValue(uHat.slice()) }];
+  let lowest = chiMin;
+  const evaluate = (value: number, warm: readonly number[]) => {
+    const fit = fitWithFixed(ctx, j, value, warm);
+    const d = fit.chiSquare - chiMin;
+    const params = toNaturalValue(fit.u);
+    points.push({ value: params[j], deltaChiSquare: d, params });
+    if (fit.chiSquare < lowest) lowest = fit.chiSquare;
+    return { d, u: fit.u };
+  };
+  const side = (dir: 1 | -1): ProfileSide => {
+    const bound = dir > 0 ? ctx.space.upperU[j] : ctx.space.lowerU[j];
+    let a = uHat[j];
+    let da = 0;
+    let warm = uHat.slice();
+    let h = firstStep;
+    for (let step = 0; step < options.maxSteps; step++) {
+      const raw = uHat[j] + dir * h;
+      const hitBound = dir > 0 ? raw >= bound : raw <= bound;
+      const b = hitBound ? bound : raw;
+      const { d: db, u } = evaluate(b, warm);
+      if (db >= options.delta) return { limit: toNaturalValue(locate(a, da, b, db, warm))[j], openReason: null };
+      if (hitBound) return { limit: null, openReason: "bound" };
+      a = b;
+      da = db;
+      warm = u;
+      h *= 2;
+    }
+    return { limit: null, openReason: "range" };
+  };
+  // Illinois regula falsi on g(v) = Δχ²(v) − delta between a (g < 0) and b (g ≥ 0).
+  const locate = (a0: number, da0: number, b0: number, db0: number, warm0: number[]): number[] => {
+    let [a, b] = [a0, b0];
+    let [ga, gb] = [da0 - options.delta, Number.isFinite(db0) ? db0 - options.delta : 1e6];
+    let warm = warm0;
+    let best = warm0.slice();
+    best[j] = b;
+    let lastSide = 0;
+    for (let it = 0; it < options.maxRootIterations; it++) {
+      const c = Math.abs(gb - ga) > 0 && Number.isFinite(gb) ? b - (gb * (b - a)) / (gb - ga) : (a + b) / 2;
+      const { d, u } = evaluate(c, warm);
+      const gc = Number.isFinite(d) ? d - options.delta : 1e6;
+      best = u;
+      if (Math.abs(gc) < 1e-4 || Math.abs(b - a) < 1e-10 * (Math.abs(c) + ctx.typical[j])) break;
+      if (gc < 0) {
+        a = c;
+        ga = gc;
+        warm = u;
+        if (lastSide === -1) gb /= 2;
+        lastSide = -1;
+      } else {
+        b = c;
+        gb = gc;
+        if (lastSide === 1) ga /= 2;
+        lastSide = 1;
+      }
+    }
+    return best;
+  };
+  const upper = side(1);
+  const lower = side(-1);
+  points.sort((p, q) => p.value - q.value);
+  return {
+    lower,
+    upper,
+    points,
+    flat: lower.limit === null && upper.limit === null,
+    lowerChiSquareFound: lowest < chiMin - 1e-9 * Math.max(1, chiMin) ? lowest : null,
+  };
+}
