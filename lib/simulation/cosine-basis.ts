@@ -1,0 +1,71 @@
+import { DctPlan } from "./dct";
+import type { Grid } from "./grid";
+
+/**
+ * The zero-flux (Neumann) eigenbasis of a grid: forward maps a real field to its cosine
+ * coefficients, inverse maps back; `k2PerUm2[j]` is the Laplacian eigenvalue k² (1/µm²) of
+ * coefficient j, with k = mπ/L per axis (SCIENCE.md §2).
+ *
+ * 2-D coefficient layout is transposed, index = kx·ny + ky: the column pass works on
+ * contiguous rows after one transpose, and diffusion only multiplies pointwise, so the inverse
+ * undoes the transpose and no second one is needed.
+ */
+export interface CosineBasis {
+  readonly grid: Grid;
+  readonly k2PerUm2: Float64Array;
+  /** src (real, length cellCount) → dst (coefficients). src is left unchanged; src ≠ dst in 2-D. */
+  forward(src: Float64Array, dst: Float64Array): void;
+  /** src (coefficients) → dst (real). src is left unchanged. */
+  inverse(src: Float64Array, dst: Float64Array): void;
+}
+
+/** Builds the cosine basis of `grid` (one DCT plan per distinct axis size, one scratch field). */
+export function createCosineBasis(grid: Grid): CosineBasis {
+  const { nx, ny } = grid;
+  const px = new DctPlan(nx);
+  const k2 = new Float64Array(grid.cellCount);
+  const kx2 = Float64Array.from({ length: nx }, (_, m) => ((m * Math.PI) / grid.lengthXUm) ** 2);
+  if (grid.dimensions === 1) {
+    k2.set(kx2);
+    return {
+      grid,
+      k2PerUm2: k2,
+      forward: (src, dst) => px.forwardRows(src, dst, 1),
+      inverse: (src, dst) => px.inverseRows(src, dst, 1),
+    };
+  }
+  const py = ny === nx ? px : new DctPlan(ny);
+  const ky2 = Float64Array.from({ length: ny }, (_, m) => ((m * Math.PI) / grid.lengthYUm) ** 2);
+  for (let a = 0; a < nx; a++) for (let b = 0; b < ny; b++) k2[a * ny + b] = kx2[a] + ky2[b];
+  const scratch = new Float64Array(grid.cellCount);
+  return {
+    grid,
+    k2PerUm2: k2,
+    forward(src, dst) {
+      px.forwardRows(src, scratch, ny); // along x, rows iy
+      transpose(scratch, dst, ny, nx); // → [kx][iy]
+      py.forwardRows(dst, dst, nx); // along y
+    },
+    inverse(src, dst) {
+      py.inverseRows(src, scratch, nx); // [kx][iy]
+      transpose(scratch, dst, nx, ny); // → [iy][kx]
+      px.inverseRows(dst, dst, ny);
+    },
+  };
+}
+
+const BLOCK = 32;
+
+/** dst[c·rows + r] = src[r·cols + c], cache-blocked. */
+export function transpose(src: Float64Array, dst: Float64Array, rows: number, cols: number): void {
+  for (let r0 = 0; r0 < rows; r0 += BLOCK) {
+    const r1 = Math.min(rows, r0 + BLOCK);
+    for (let c0 = 0; c0 < cols; c0 += BLOCK) {
+      const c1 = Math.min(cols, c0 + BLOCK);
+      for (let r = r0; r < r1; r++) {
+        const base = r * cols;
+        for (let c = c0; c < c1; c++) dst[c * rows + r] = src[base + c];
+      }
+    }
+  }
+}

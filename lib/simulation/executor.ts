@@ -1,0 +1,48 @@
+import { createCosineBasis } from "./cosine-basis";
+import { runDiffusionStage, type SpeciesBuffers, type StageMode } from "./diffusion-stage";
+import type { Grid } from "./grid";
+import type { SpeciesCoefficients } from "./schemes";
+
+/** Everything the spectral stage needs, allocated once per run through the executor. */
+export interface DiffusionLayout {
+  grid: Grid;
+  buffers: SpeciesBuffers[];
+  coefficients: SpeciesCoefficients[];
+}
+
+/**
+ * Runs the spectral stage of every species. The serial executor lives here; a worker-thread
+ * executor (lib/simulation/parallel) shares buffers through SharedArrayBuffer. `run` is
+ * synchronous so the step loop stays synchronous.
+ */
+export interface DiffusionExecutor {
+  /** A zeroed Float64Array of `length` the executor can reach (shared memory for workers). */
+  allocate(length: number): Float64Array;
+  /** Called once, after every buffer and coefficient of `layout` is allocated and filled. */
+  prepare(layout: DiffusionLayout): void;
+  /** Runs the stage for all species on work buffer `workIndex`. */
+  run(mode: StageMode, workIndex: 0 | 1): void;
+  /** Releases threads, if any. */
+  dispose(): void;
+}
+
+/** Runs every species on the calling thread. */
+export function createSerialExecutor(): DiffusionExecutor {
+  let layout: DiffusionLayout | null = null;
+  let basis: ReturnType<typeof createCosineBasis> | null = null;
+  return {
+    allocate: (length) => new Float64Array(length),
+    prepare(l) {
+      layout = l;
+      basis = createCosineBasis(l.grid);
+    },
+    run(mode, workIndex) {
+      const l = layout!;
+      for (let s = 0; s < l.buffers.length; s++) runDiffusionStage(basis!, l.coefficients[s], l.buffers[s], mode, workIndex);
+    },
+    dispose() {
+      layout = null;
+      basis = null;
+    },
+  };
+}

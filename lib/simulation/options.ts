@@ -1,0 +1,107 @@
+import { failOption } from "./errors";
+import type { DiffusionExecutor } from "./executor";
+import type { GridOptions } from "./grid";
+import type { InitialState } from "./initial-state";
+import { SIMULATION_LIMITS } from "./limits";
+import { SCHEME_NAMES, type SchemeName } from "./schemes";
+import type { ParameterProfile } from "./spatial-parameters";
+
+/** Progress report, given every `progressEverySteps` steps and at the end. */
+export interface SimulationProgress {
+  /** Simulated time reached (s). */
+  timeS: number;
+  /** timeS / endTimeS, 0 … 1. */
+  fraction: number;
+  steps: number;
+}
+
+/** Stationarity criterion (see README): relative L2 change per unit time over one window. */
+export interface StationarityOptions {
+  /** Threshold of ‖c(t) − c(t − W)‖₂ / (‖c(t)‖₂ W) (1/s). @default 1e-5 · max(ρ, 1/endTimeS) */
+  tolerancePerS?: number;
+  /** Window W (s), rounded to whole steps. @default 10/ρ (endTimeS/20 when ρ = 0), at least one step */
+  windowS?: number;
+  /** No stationarity stop before this time (s). @default 0 */
+  minTimeS?: number;
+}
+
+/** Options of {@link simulateReactionDiffusion}. */
+export interface SimulationOptions {
+  grid: GridOptions;
+  /** Diagonal diffusivities, one per species (µm²/s, or model units). */
+  diffusionUm2PerS: readonly number[];
+  /** Uniform parameter values by name. @default {} */
+  params?: Readonly<Record<string, number>>;
+  /** Parameters varying in space; they override `params` of the same name. @default {} */
+  spatialParams?: Readonly<Record<string, ParameterProfile>>;
+  initial: InitialState;
+  /** Simulated time at which the run stops (s). */
+  endTimeS: number;
+  /** Cap on the time step (s). @default none (the stiffness rule alone) */
+  dtS?: number;
+  /** Factor c of the stiffness rule h ≤ c/ρ. @default 0.1 */
+  stiffnessSafety?: number;
+  /** @default "etd2" */
+  scheme?: SchemeName;
+  /** Stop as soon as the stationarity criterion holds. @default false */
+  stopWhenStationary?: boolean;
+  stationarity?: StationarityOptions;
+  /** Times (s) at which to keep a copy of the fields; taken at the first step at or after each. @default [] */
+  snapshotTimesS?: readonly number[];
+  /** A field value with |c| above this counts as blow-up. @default 1e12 */
+  blowUpAbs?: number;
+  onProgress?: (progress: SimulationProgress) => void;
+  /** @default ⌈steps/100⌉ */
+  progressEverySteps?: number;
+  /** Checked between steps; an aborted signal stops the run with reason `cancelled`. */
+  signal?: AbortSignal;
+  /** Checked between steps; returning true stops the run with reason `cancelled`. */
+  shouldStop?: () => boolean;
+  /** Where the spectral stage runs. @default the serial executor */
+  executor?: DiffusionExecutor;
+}
+
+/** Checks the options that need no grid or reaction system; throws SimulationOptionError. */
+export function validateSimulationOptions(options: SimulationOptions, species: number): void {
+  if (!Number.isInteger(species) || species < 1 || species > SIMULATION_LIMITS.maxSpecies) {
+    failOption("system.species", `system.species must be an integer from 1 to ${SIMULATION_LIMITS.maxSpecies}, got ${species}.`);
+  }
+  const d = options.diffusionUm2PerS;
+  if (!Array.isArray(d) || d.length !== species) {
+    failOption("diffusionUm2PerS", `diffusionUm2PerS must have ${species} values (one per species), got ${Array.isArray(d) ? d.length : typeof d}.`);
+  }
+  d.forEach((v, s) => {
+    if (!Number.isFinite(v) || v < 0) failOption("diffusionUm2PerS", `diffusionUm2PerS[${s}] must be a finite number ≥ 0, got ${v}.`);
+  });
+  positive(options.endTimeS, "endTimeS");
+  if (options.dtS !== undefined) positive(options.dtS, "dtS");
+  const safety = options.stiffnessSafety;
+  if (safety !== undefined && !(safety > 0 && safety <= 2)) {
+    failOption("stiffnessSafety", `stiffnessSafety must be in (0, 2], got ${safety}.`);
+  }
+  if (options.scheme !== undefined && !SCHEME_NAMES.includes(options.scheme)) {
+    failOption("scheme", `scheme must be one of ${SCHEME_NAMES.join(", ")}, got ${String(options.scheme)}.`);
+  }
+  for (const [name, v] of Object.entries(options.params ?? {})) {
+    if (!Number.isFinite(v)) failOption(`params.${name}`, `params.${name} must be a finite number, got ${v}.`);
+  }
+  const st = options.stationarity ?? {};
+  if (st.tolerancePerS !== undefined) positive(st.tolerancePerS, "stationarity.tolerancePerS");
+  if (st.windowS !== undefined) positive(st.windowS, "stationarity.windowS");
+  if (st.minTimeS !== undefined && !(st.minTimeS >= 0)) failOption("stationarity.minTimeS", `stationarity.minTimeS must be ≥ 0, got ${st.minTimeS}.`);
+  const snaps = options.snapshotTimesS ?? [];
+  if (snaps.length > SIMULATION_LIMITS.maxSnapshots) {
+    failOption("snapshotTimesS", `snapshotTimesS may list at most ${SIMULATION_LIMITS.maxSnapshots} times, got ${snaps.length}.`);
+  }
+  snaps.forEach((t, i) => {
+    if (!(t >= 0 && t <= options.endTimeS)) failOption("snapshotTimesS", `snapshotTimesS[${i}] must be in [0, endTimeS = ${options.endTimeS}], got ${t}.`);
+    if (i > 0 && !(t > snaps[i - 1])) failOption("snapshotTimesS", "snapshotTimesS must increase strictly.");
+  });
+  if (options.blowUpAbs !== undefined) positive(options.blowUpAbs, "blowUpAbs");
+  const pe = options.progressEverySteps;
+  if (pe !== undefined && !(Number.isInteger(pe) && pe >= 1)) failOption("progressEverySteps", `progressEverySteps must be an integer ≥ 1, got ${pe}.`);
+}
+
+function positive(v: number, field: string): void {
+  if (!(Number.isFinite(v) && v > 0)) failOption(field, `${field} must be a positive finite number, got ${v}.`);
+}

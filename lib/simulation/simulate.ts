@@ -1,0 +1,181 @@
+import { createCosineBasis } from "./cosine-basis";
+import { StageMode, type SpeciesBuffers } from "./diffusion-stage";
+import { failOption } from "./errors";
+import { createSerialExecutor } from "./executor";
+import { computeFieldStats, computeMaxAbs, computeRelativeChangeRate } from "./field-stats";
+import { createGrid, type Grid } from "./grid";
+import { fillInitialState } from "./initial-state";
+import { SIMULATION_LIMITS } from "./limits";
+import { validateSimulationOptions, type SimulationOptions } from "./options";
+import type { ReactionParams, ReactionSystem } from "./reaction-system";
+import type { BlowUpInfo, SimulationResult, Snapshot, StopReason } from "./result";
+import { coefficientNames, fillSchemeCoefficients, type SpeciesCoefficients } from "./schemes";
+import { resolveParameterProfile } from "./spatial-parameters";
+import { chooseTimeStep, computeReactionStiffness } from "./step-size";
+
+/**
+ * Simulates ∂c/∂t = R(c) + D∇²c on a zero-flux interval or rectangle with a semi-implicit
+ * spectral scheme (diffusion per cosine mode, reactions explicit; see schemes.ts and README).
+ * Synchronous; progress, cancellation and snapshots are handled between steps.
+ */
+export function simulateReactionDiffusion(system: ReactionSystem, options: SimulationOptions): SimulationResult {
+  validateSimulationOptions(options, system.species);
+  const grid = createGrid(options.grid);
+  const params = resolveParams(options, grid);
+  const executor = options.executor ?? createSerialExecutor();
+  try {
+    return run(system, options, grid, params, executor);
+  } finally {
+    if (!options.executor) executor.dispose();
+  }
+}
+
+function resolveParams(options: SimulationOptions, grid: Grid): ReactionParams {
+  const params: Record<string, number | Float64Array> = { ...(options.params ?? {}) };
+  for (const [name, profile] of Object.entries(options.spatialParams ?? {})) {
+    params[name] = resolveParameterProfile(profile, grid, `spatialParams.${name}`);
+  }
+  return params;
+}
+
+function run(
+  system: ReactionSystem,
+  options: SimulationOptions,
+  grid: Grid,
+  params: ReactionParams,
+  executor: NonNullable<SimulationOptions["executor"]>,
+): SimulationResult {
+  const n = system.species, cells = grid.cellCount, scheme = options.scheme ?? "etd2";
+  const buffers: SpeciesBuffers[] = [];
+  for (let s = 0; s < n; s++) {
+    buffers.push({
+      fields: [executor.allocate(cells), executor.allocate(cells)],
+      spec: executor.allocate(cells),
+      chat: scheme === "etd2" ? executor.allocate(cells) : undefined,
+      rprev: scheme === "etd2" ? executor.allocate(cells) : undefined,
+    });
+  }
+  const views = [buffers.map((b) => b.fields[0]), buffers.map((b) => b.fields[1])];
+  const seed = fillInitialState(options.initial, views[0]);
+  const reference = options.initial.kind === "steady-state-noise"
+    ? [...options.initial.steadyState]
+    : views[0].map((f) => computeFieldStats(f).mean);
+
+  const rho = computeReactionStiffness(system, reference, params, cells);
+  const rule = chooseTimeStep(options.endTimeS, rho, options.stiffnessSafety ?? 0.1, options.dtS ?? null);
+  if (rule.steps > SIMULATION_LIMITS.maxSteps) {
+    failOption("dtS", `endTimeS / dtS needs ${rule.steps} steps; the limit is ${SIMULATION_LIMITS.maxSteps}.`);
+  }
+  const h = rule.dtS;
+  const basis = createCosineBasis(grid);
+  const coefficients: SpeciesCoefficients[] = buffers.map((_, s) => {
+    const c: SpeciesCoefficients = {};
+    for (const name of coefficientNames(scheme)) c[name] = executor.allocate(cells);
+    fillSchemeCoefficients(scheme, basis.k2PerUm2, options.diffusionUm2PerS[s], h, c);
+    return c;
+  });
+  if (scheme === "etd2") buffers.forEach((b) => basis.forward(b.fields[0], b.chat!));
+  executor.prepare({ grid, buffers, coefficients });
+
+  const st = options.stationarity ?? {};
+  const tol = st.tolerancePerS ?? 1e-5 * Math.max(rho, 1 / options.endTimeS);
+  const windowSteps = Math.max(1, Math.round((st.windowS ?? (rho > 0 ? 10 / rho : options.endTimeS / 20)) / h));
+  const minTime = st.minTimeS ?? 0;
+  const ref = views[0].map((f) => Float64Array.from(f));
+  const blowUpAbs = options.blowUpAbs ?? 1e12;
+  const snapTimes = options.snapshotTimesS ?? [];
+  const snapshots: Snapshot[] = [];
+  const progressEvery = options.progressEverySteps ?? Math.ceil(rule.steps / 100);
+
+  let cur: 0 | 1 = 0, steps = 0, nextSnap = 0, lastRate: number | null = null;
+  let reason: StopReason = "end-time";
+  let blowUp: BlowUpInfo | null = null;
+  const takeSnapshots = () => {
+    const t = steps * h;
+    while (nextSnap < snapTimes.length && t >= snapTimes[nextSnap] - 1e-9 * h) {
+      snapshots.push({ requestedTimeS: snapTimes[nextSnap++], timeS: t, step: steps, fields: views[cur].map((f) => Float64Array.from(f)) });
+    }
+  };
+  takeSnapshots();
+
+  while (steps < rule.steps) {
+    if (options.signal?.aborted || options.shouldStop?.()) {
+      reason = "cancelled";
+      break;
+    }
+    const c = views[cur], w = views[1 - cur];
+    system.evaluate(c, params, w);
+    if (scheme !== "etd2") {
+      for (let s = 0; s < n; s++) {
+        const cs = c[s], ws = w[s];
+        for (let i = 0; i < cells; i++) ws[i] = cs[i] + h * ws[i];
+      }
+    }
+    const mode = scheme !== "etd2" ? StageMode.FirstOrder : steps === 0 ? StageMode.EtdStart : StageMode.Etd2;
+    executor.run(mode, (1 - cur) as 0 | 1);
+    const maxAbs = computeMaxAbs(w);
+    if (!(maxAbs <= blowUpAbs)) {
+      blowUp = { step: steps + 1, timeS: (steps + 1) * h, lastGoodTimeS: steps * h, maxAbs };
+      reason = "blow-up";
+      break;
+    }
+    cur = (1 - cur) as 0 | 1;
+    steps++;
+    takeSnapshots();
+    if (steps % windowSteps === 0) {
+      lastRate = computeRelativeChangeRate(views[cur], ref, windowSteps * h);
+      ref.forEach((r, s) => r.set(views[cur][s]));
+      if (options.stopWhenStationary && lastRate < tol && steps * h >= minTime) {
+        reason = "stationary";
+        break;
+      }
+    }
+    if (options.onProgress && steps % progressEvery === 0 && steps < rule.steps) {
+      options.onProgress({ timeS: steps * h, fraction: steps / rule.steps, steps });
+    }
+  }
+  const timeS = steps * h;
+  options.onProgress?.({ timeS, fraction: steps / rule.steps, steps });
+  const fields = views[cur].map((f) => Float64Array.from(f));
+  return {
+    grid,
+    speciesNames: Array.from({ length: n }, (_, s) => system.speciesNames?.[s] ?? `c${s + 1}`),
+    scheme,
+    fields,
+    timeS,
+    steps,
+    timeStep: rule,
+    stopReason: reason,
+    message: stopMessage(reason, { timeS, steps, endTimeS: options.endTimeS, rate: lastRate, tol, windowS: windowSteps * h, blowUp, blowUpAbs }),
+    stationary: lastRate !== null && lastRate < tol,
+    lastChangeRatePerS: lastRate,
+    stationarityTolerancePerS: tol,
+    stationarityWindowS: windowSteps * h,
+    blowUp,
+    snapshots,
+    stats: fields.map(computeFieldStats),
+    seed,
+  };
+}
+
+interface MessageFacts {
+  timeS: number;
+  steps: number;
+  endTimeS: number;
+  rate: number | null;
+  tol: number;
+  windowS: number;
+  blowUp: BlowUpInfo | null;
+  blowUpAbs: number;
+}
+
+function stopMessage(reason: StopReason, f: MessageFacts): string {
+  if (reason === "end-time") return `Reached endTimeS = ${f.endTimeS} s after ${f.steps} steps.`;
+  if (reason === "cancelled") return `Cancelled at t = ${f.timeS} s after ${f.steps} steps.`;
+  if (reason === "stationary") {
+    return `Stationary at t = ${f.timeS} s: relative change ${f.rate!.toExponential(3)} /s is below ${f.tol.toExponential(3)} /s over a window of ${f.windowS} s.`;
+  }
+  const b = f.blowUp!;
+  const what = Number.isNaN(b.maxAbs) || !Number.isFinite(b.maxAbs) ? "a field value became NaN or infinite" : `|c| reached ${b.maxAbs.toExponential(3)}, above blowUpAbs = ${f.blowUpAbs}`;
+  return `Blow-up at step ${b.step} (t = ${b.timeS} s): ${what}; the fields are the last good state, at t = ${b.lastGoodTimeS} s. Reduce dtS or check the parameters.`;
+}
