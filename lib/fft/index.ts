@@ -1,0 +1,3 @@
+export { fft2dInPlace } from "./fft2d";
+export { realFft2d, inverseRealFft2d, halfPowerSpectrum, type HalfSpectrum } from "./real-fft2d";
+export { isPowerOfTwo, nextPowerOfTwo } from "./plans";

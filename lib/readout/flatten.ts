@@ -1,0 +1,92 @@
+/** How the slow background is removed before the FFT. */
+export type FlattenMethod = "plane" | "blur" | "none";
+
+/**
+ * Least-squares plane z = c₀ + c₁x + c₂y over the included pixels, subtracted in place
+ * (normal equations, 3×3, solved by Cramer's rule).
+ */
+export function subtractPlane(data: Float32Array, width: number, height: number, included: Uint8Array | null): void {
+  let n = 0, sx = 0, sy = 0, sxx = 0, syy = 0, sxy = 0, sz = 0, sxz = 0, syz = 0;
+  for (let y = 0; y < height; y++) {
+    for (let x = 0; x < width; x++) {
+      const i = y * width + x;
+      if (included && !included[i]) continue;
+      const z = data[i];
+      n++; sx += x; sy += y; sxx += x * x; syy += y * y; sxy += x * y; sz += z; sxz += x * z; syz += y * z;
+    }
+  }
+  const det3 = (a: number[]) => a[0] * (a[4] * a[8] - a[5] * a[7]) - a[1] * (a[3] * a[8] - a[5] * a[6]) + a[2] * (a[3] * a[7] - a[4] * a[6]);
+  const m = [n, sx, sy, sx, sxx, sxy, sy, sxy, syy];
+  const d = det3(m);
+  if (!(Math.abs(d) > 1e-9 * Math.max(1, n) ** 3)) {
+    subtractMean(data, included);
+    return;
+  }
+  const c0 = det3([sz, sx, sy, sxz, sxx, sxy, syz, sxy, syy]) / d;
+  const c1 = det3([n, sz, sy, sx, sxz, sxy, sy, syz, syy]) / d;
+  const c2 = det3([n, sx, sz, sx, sxx, sxz, sy, sxy, syz]) / d;
+  for (let y = 0; y < height; y++) for (let x = 0; x < width; x++) data[y * width + x] -= c0 + c1 * x + c2 * y;
+}
+
+/** One pass of a running-box mean of half-width r along rows (stride 1) or columns (stride width). */
+function boxPass(src: Float32Array, dst: Float32Array, len: number, count: number, step: number, stride: number, r: number): void {
+  for (let line = 0; line < count; line++) {
+    const base = line * stride;
+    let acc = 0;
+    for (let k = 0; k <= Math.min(r, len - 1); k++) acc += src[base + k * step];
+    for (let k = 0; k < len; k++) {
+      const lo = k - r, hi = k + r;
+      dst[base + k * step] = acc / (Math.min(hi, len - 1) - Math.max(lo, 0) + 1);
+      if (hi + 1 < len) acc += src[base + (hi + 1) * step];
+      if (lo >= 0) acc -= src[base + lo * step];
+    }
+  }
+}
+
+/** Three box passes per axis approximate a Gaussian of SD σ (Wells 1986, IEEE PAMI 8:234). */
+function blur(data: Float32Array, width: number, height: number, sigmaPx: number): Float32Array {
+  const r = Math.max(1, Math.round(Math.sqrt(sigmaPx * sigmaPx + 1) - 0.5)); // 3 boxes of width 2r+1: σ² = 3·((2r+1)²−1)/12 ≈ r²
+  let a = Float32Array.from(data);
+  let b = new Float32Array(data.length);
+  for (let p = 0; p < 3; p++) {
+    boxPass(a, b, width, height, 1, width, r);
+    [a, b] = [b, a];
+    boxPass(a, b, height, width, width, 1, r);
+    [a, b] = [b, a];
+  }
+  return a;
+}
+
+/**
+ * Subtracts a heavily blurred copy (normalised convolution, so excluded pixels do not leak in:
+ * Knutsson & Westin 1993, CVPR). σ should be several wavelengths so the pattern survives.
+ */
+export function subtractBlur(data: Float32Array, width: number, height: number, included: Uint8Array | null, sigmaPx: number): void {
+  if (!included) {
+    const bg = blur(data, width, height, sigmaPx);
+    for (let i = 0; i < data.length; i++) data[i] -= bg[i];
+    return;
+  }
+  const masked = new Float32Array(data.length);
+  const weight = new Float32Array(data.length);
+  for (let i = 0; i < data.length; i++) if (included[i]) { masked[i] = data[i]; weight[i] = 1; }
+  const num = blur(masked, width, height, sigmaPx);
+  const den = blur(weight, width, height, sigmaPx);
+  for (let i = 0; i < data.length; i++) data[i] -= den[i] > 1e-6 ? num[i] / den[i] : 0;
+}
+
+/** Subtracts the mean of the included pixels, sets excluded pixels to 0; returns the SD (n − 1). */
+export function subtractMean(data: Float32Array, included: Uint8Array | null): number {
+  let n = 0, s = 0;
+  for (let i = 0; i < data.length; i++) if (!included || included[i]) { s += data[i]; n++; }
+  const mean = n > 0 ? s / n : 0;
+  let ss = 0;
+  for (let i = 0; i < data.length; i++) {
+    if (!included || included[i]) {
+      const v = data[i] - mean;
+      data[i] = v;
+      ss += v * v;
+    } else data[i] = 0;
+  }
+  return n > 1 ? Math.sqrt(ss / (n - 1)) : 0;
+}

@@ -1,0 +1,43 @@
+import { halfPowerSpectrum, nextPowerOfTwo, realFft2d } from "../fft";
+
+/** |F|² of a prepared (flattened, windowed) region, zero-padded to powers of two; half plane kx ≥ 0. */
+export interface PowerSpectrum {
+  /** Transform size (power of two ≥ the region size). */
+  padWidth: number;
+  padHeight: number;
+  /** Stored columns padWidth/2 + 1. */
+  halfWidth: number;
+  /** Row-major `padHeight × halfWidth`. */
+  power: Float32Array;
+  /** Ring width is 1/ringN cycles/px: ringN = the shorter unpadded side (the coarsest resolution). */
+  ringN: number;
+}
+
+export function computePowerSpectrum(data: Float32Array, width: number, height: number): PowerSpectrum {
+  const padWidth = nextPowerOfTwo(width);
+  const padHeight = nextPowerOfTwo(height);
+  const half = realFft2d(data, width, height, padWidth, padHeight);
+  return { padWidth, padHeight, halfWidth: half.halfWidth, power: halfPowerSpectrum(half), ringN: Math.min(width, height) };
+}
+
+/** Signed frequency (cycles/px) of row ky of a transform of height padHeight. */
+export function rowFrequency(ky: number, padHeight: number): number {
+  return (ky <= padHeight / 2 ? ky : ky - padHeight) / padHeight;
+}
+
+/** Hermitian multiplicity of a stored column: columns 0 and W/2 are their own mirror. */
+export function columnWeight(kx: number, padWidth: number): number {
+  return kx === 0 || kx === padWidth / 2 ? 1 : 2;
+}
+
+/**
+ * Power at an integer bin (kx, ky) of the full plane, kx may be negative: uses
+ * P(−kx, −ky) = P(kx, ky) for a real image.
+ */
+export function powerAt(s: PowerSpectrum, kx: number, ky: number): number {
+  let x = kx, y = ky;
+  if (x < 0) { x = -x; y = -y; }
+  y = ((y % s.padHeight) + s.padHeight) % s.padHeight;
+  if (x > s.padWidth / 2) x = s.padWidth - x; // only reachable at the Nyquist edge
+  return s.power[y * s.halfWidth + x];
+}

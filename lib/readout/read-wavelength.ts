@@ -1,0 +1,90 @@
+import type { GreyImage } from "../imaging/grey-image";
+import { analyseSpectrum } from "./analyse-spectrum";
+import { checkAutocorrelation } from "./autocorrelation";
+import { evaluatePowerLaw } from "./background-fit";
+import { resolveReadoutSettings, type ReadoutOptions } from "./options";
+import { computePowerSpectrum } from "./power-spectrum";
+import { prepareRegion } from "./prepare-region";
+import type { WavelengthReadout } from "./result";
+import { measureSubregionSpread } from "./subregion-uncertainty";
+import { applyWindow } from "./window";
+
+/**
+ * Reads the dominant wavelength of a grey image (SCIENCE.md §5): ROI → flatten → mean → window →
+ * zero-padded 2-D FFT → radial spectrum → peak (2-D refined) → significance, uncertainty,
+ * orientation, symmetry, autocorrelation cross-check.
+ * @throws ReadoutError with code too_large, missing_pixel_size, zero_area_roi, too_small, no_variation, bad_option
+ */
+export function readWavelength(image: GreyImage, options: ReadoutOptions): WavelengthReadout {
+  const settings = resolveReadoutSettings(options, image.width, image.height);
+  const region = prepareRegion(image, settings);
+  const flattened = region.data.slice();
+  applyWindow(region.data, region.width, region.height, settings.window, settings.tukeyAlpha);
+  const spec = computePowerSpectrum(region.data, region.width, region.height);
+  const a = analyseSpectrum(spec, settings.lowCutCycles);
+  const px = region.pixelSizeUm; // µm per analysed pixel
+  const periodFound = a.significance >= settings.significanceThreshold;
+  const warnings: string[] = [];
+  if (region.binFactor > 1) warnings.push(`The region was binned ${region.binFactor}×${region.binFactor} to fit the ${settings.maxAnalysisSidePx} px analysis limit.`);
+  const lambdaPx = 1 / a.frequencyPerPx; // analysed grid
+  const halfWidthPx = (lambdaPx * a.halfWidthRings) / a.refinedRing; // Δλ = λ·Δf/f
+  let semPx: number | null = null, subregionCount = 0;
+  if (periodFound && settings.subregions) {
+    const spread = measureSubregionSpread({ ...region, data: flattened }, settings, a.frequencyPerPx);
+    semPx = spread.semPx;
+    subregionCount = spread.wavelengthsPx.length;
+    if (semPx === null) warnings.push(`Too few usable sub-regions (${subregionCount} of 9) for a spread-based uncertainty; the peak half-width is reported instead.`);
+  }
+  const uncertaintyPx = semPx ?? halfWidthPx;
+  const method = semPx !== null ? "subregion-sem" : "peak-half-width";
+  if (periodFound && lambdaPx * settings.lowCutCycles * 2 > Math.min(region.width, region.height)) {
+    warnings.push("Fewer than 4 periods fit across the region; the wavelength is poorly constrained.");
+  }
+  let autocorrelation: WavelengthReadout["autocorrelation"] = null;
+  if (periodFound && settings.autocorrelation) {
+    const ac = checkAutocorrelation(spec, a.frequencyPerPx, a.symmetry, a.angular.orientationDeg, a.angular.orientation6Deg);
+    if (ac) {
+      const tol = 3 * Math.hypot(uncertaintyPx, ac.lagStepPx / 2, 0.01 * lambdaPx);
+      const agrees = Math.abs(ac.impliedWavelengthPx - lambdaPx) <= tol;
+      autocorrelation = { firstMaximumUm: ac.firstMaximumPx * px, impliedWavelengthUm: ac.impliedWavelengthPx * px, direction: ac.direction, agrees };
+      if (!agrees) warnings.push(`The autocorrelation implies λ = ${(ac.impliedWavelengthPx * px).toPrecision(4)} µm, beyond the uncertainty of the spectral ${(lambdaPx * px).toPrecision(4)} µm.`);
+    } else warnings.push("The autocorrelation has no clear first maximum; cross-check skipped.");
+  }
+  if (!periodFound) warnings.push(`No significant period: the peak is ${a.significance.toPrecision(3)}× the background, below the threshold ${settings.significanceThreshold}.`);
+  const hex = periodFound && a.symmetry === "hexagonal";
+  const nn = 2 / Math.sqrt(3);
+  const { excludeMask, ...rest } = settings;
+  return {
+    periodFound,
+    wavelengthUm: periodFound ? lambdaPx * px : null,
+    wavelengthPx: periodFound ? lambdaPx * region.binFactor : null,
+    uncertaintyUm: periodFound ? uncertaintyPx * px : null,
+    uncertaintyPx: periodFound ? uncertaintyPx * region.binFactor : null,
+    uncertaintyMethod: periodFound ? method : null,
+    subregionSemUm: semPx !== null ? semPx * px : null,
+    subregionCount,
+    halfWidthUm: periodFound ? halfWidthPx * px : null,
+    significance: a.significance,
+    significanceThreshold: settings.significanceThreshold,
+    orientationDeg: periodFound ? (hex ? a.angular.orientation6Deg : a.angular.orientationDeg) : null,
+    anisotropy: a.angular.h2,
+    symmetry: periodFound ? a.symmetry : null,
+    symmetryScores: { h2: a.angular.h2, h4: a.angular.h4, h6: a.angular.h6 },
+    nearestNeighbourUm: hex ? nn * lambdaPx * px : null,
+    nearestNeighbourUncertaintyUm: hex ? nn * uncertaintyPx * px : null,
+    autocorrelation,
+    radialSpectrum: {
+      frequencyPerUm: Array.from(a.radial.frequencyPerPx, (f) => f / px),
+      power: Array.from(a.radial.power),
+      background: Array.from(a.radial.frequencyPerPx, (f) => (f > 0 ? evaluatePowerLaw(a.background, f) : 0)),
+      lowCutPerUm: settings.lowCutCycles / spec.ringN / px,
+    },
+    angularPower: Array.from(a.angular.angularPower),
+    settings: {
+      ...rest, excludeMaskPixels: excludeMask ? excludeMask.reduce((s, v) => s + (v ? 1 : 0), 0) : 0,
+      analysedWidthPx: region.width, analysedHeightPx: region.height, binFactor: region.binFactor,
+      paddedWidthPx: spec.padWidth, paddedHeightPx: spec.padHeight,
+    },
+    warnings,
+  };
+}
