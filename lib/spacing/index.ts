@@ -1,0 +1,7 @@
+export { readSpacingTable, type SpacingTableReadout } from "./read-spacing-table";
+export { parseTable, type ColumnMapping, type TableUnit } from "./parse-table";
+export { summarize, type Summary } from "./summarize";
+export { spacingsFromPositions, type PositionSpacings } from "./positions-1d";
+export { computeNearestNeighbours, type NearestNeighbourResult, type Field } from "./nearest-neighbours";
+export { welchTTest, type WelchResult } from "./welch-test";
+export { SpacingError } from "./errors";
