@@ -7,3 +7,5 @@ export type { PatternSymmetry } from "./angular";
 export { SYMMETRY_THRESHOLDS } from "./angular";
 export type { FlattenMethod } from "./flatten";
 export type { WindowKind } from "./window";
+export { mapLocalWavelength, type LocalWavelengthMap, type LocalWavelengthOptions } from "./local-wavelength";
+export { renderFftMagnitude, renderPreview } from "./render-images";
