@@ -9,14 +9,14 @@ export interface PixelSizeInfo {
   pixelSizeNote: string | null;
 }
 
-/** Writers' default densities (dpi) that describe a screen or printer, not a microscope. */
-const DEFAULT_DPI = [72, 96, 150, 300, 600];
+/** Writers' default densities (dpi) that describe a screen or printer, not a microscope; 25.4 dpi is libvips' 1 px/mm. */
+const DEFAULT_DPI = [25.4, 72, 96, 150, 300, 600];
 const UNIT_UM: Record<string, number> = { "µm": 1, "μm": 1, um: 1, micron: 1, nm: 1e-3, mm: 1e3, cm: 1e4, m: 1e6, "Å": 1e-4 };
 
 const none = (note: string | null = null): PixelSizeInfo => ({ pixelSizeUm: null, pixelSizeSource: null, pixelSizeNote: note });
 
 function fromDpi(dpi: number, source: PixelSizeSource): PixelSizeInfo {
-  if (DEFAULT_DPI.some((d) => Math.abs(dpi - d) < 0.5)) return none(`The file's resolution (${Math.round(dpi)} dpi) is a writer's default, not a pixel size.`);
+  if (DEFAULT_DPI.some((d) => Math.abs(dpi - d) < 0.05)) return none(`The file's resolution (${Number(dpi.toFixed(1))} dpi) is a writer's default, not a pixel size.`);
   return { pixelSizeUm: 25400 / dpi, pixelSizeSource: source, pixelSizeNote: null };
 }
 
@@ -56,7 +56,7 @@ export function readPixelSize(bytes: Uint8Array, format: string, density?: numbe
     const xres = tags.xResolution;
     if (!xres || !(xres > 0)) return none();
     const unit = tags.resolutionUnit ?? 2;
-    if (unit === 3) return { pixelSizeUm: 1e4 / xres, pixelSizeSource: "tiff-resolution", pixelSizeNote: null };
+    if (unit === 3) return fromDpi(xres * 2.54, "tiff-resolution");
     if (unit === 2) return fromDpi(xres, "tiff-resolution");
     return none("The TIFF resolution has no unit (ResolutionUnit = 1).");
   }

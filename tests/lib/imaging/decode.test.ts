@@ -23,6 +23,9 @@ describe("decodeImage round trips with encode (values to the quantisation step)"
     expect(info.pixelSizeUm).toBeNull();
     expect(info.pixelSizeNote).toContain("72 dpi");
   });
+  it("an image written without a resolution (libvips' 1 px/mm default) has no pixel size", async () => {
+    expect((await decodeImage(await encodePng(img))).info.pixelSizeUm).toBeNull();
+  });
   it("picks one channel of an RGB image, or Rec. 709 luminance (ITU-R BT.709 weights)", async () => {
     const rgb = new Uint8Array(4 * 4 * 3);
     for (let i = 0; i < 16; i++) { rgb[3 * i] = 200; rgb[3 * i + 1] = 100; rgb[3 * i + 2] = 50; }

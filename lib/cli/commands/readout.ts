@@ -1,0 +1,94 @@
+import { readFileSync } from "node:fs";
+import { CliError, parseOptions, type CliCommand } from "../command";
+import { decodeImage, ImagingError, sniffFileKind } from "../../imaging";
+import { readWavelength, ReadoutError } from "../../readout";
+import { readSpacingTable, SpacingError, type TableUnit } from "../../spacing";
+
+const help = `readout FILE [options] [--json]
+
+Reads the dominant wavelength of an image (PNG, JPEG, TIFF; 8/16-bit) or summarises a spacing table
+(CSV/TSV). The file type is judged from its content.
+
+Image options:
+  --pixel-size UM      pixel size in µm/px (default: from the file's metadata; required if absent)
+  --channel N|luminance  channel index from 0, or luminance (default luminance)
+  --roi x,y,w,h        rectangle in pixels (default: whole image)
+  --invert             dark-on-light pattern (negates intensities)
+Table options (give one of):
+  --x COL --y COL      2-D centroids: nearest-neighbour statistics, Clark-Evans R
+  --position COL       1-D positions: successive spacings
+  --spacing COL        a list of spacings
+  --unit um|nm|mm|px   unit of the table's numbers (default um; px needs --pixel-size)
+`;
+
+function num(v: string | true | undefined, name: string): number | undefined {
+  if (v === undefined) return undefined;
+  const n = Number(v);
+  if (v === true || !Number.isFinite(n)) throw new CliError(`--${name} needs a number (got ${String(v)}).`);
+  return n;
+}
+
+function str(v: string | true | undefined, name: string): string | undefined {
+  if (v === true) throw new CliError(`--${name} needs a value.`);
+  return v;
+}
+
+const command: CliCommand = {
+  name: "readout",
+  summary: "Dominant wavelength of an image, or spacing statistics of a table",
+  help,
+  async run(args) {
+    const { options, positional } = parseOptions(args, ["invert"]);
+    if (positional.length !== 1) throw new CliError("Give exactly one FILE.");
+    let bytes: Buffer;
+    try {
+      bytes = readFileSync(positional[0]);
+    } catch (e) {
+      throw new CliError(`Cannot read ${positional[0]}: ${(e as Error).message}`);
+    }
+    const kind = sniffFileKind(bytes);
+    const pixelSize = num(options["pixel-size"], "pixel-size");
+    try {
+      if (kind === "csv" || kind === "tsv") {
+        const table = readSpacingTable(bytes.toString("utf8"), {
+          x: str(options.x, "x"), y: str(options.y, "y"), position: str(options.position, "position"), spacing: str(options.spacing, "spacing"),
+          unit: (str(options.unit, "unit") ?? "um") as TableUnit, pixelSizeUm: pixelSize,
+        });
+        return { json: { file: positional[0], fileKind: kind, ...table }, text: JSON.stringify(table, null, 2) };
+      }
+      if (!kind) throw new CliError("The file is neither a PNG, JPEG or TIFF image nor a CSV/TSV table.", "unsupported");
+      const ch = str(options.channel, "channel");
+      const channel = ch === undefined || ch === "luminance" ? "luminance" : num(ch, "channel")!;
+      const { image, info } = await decodeImage(bytes, { channel });
+      let roi;
+      const roiText = str(options.roi, "roi");
+      if (roiText) {
+        const p = roiText.split(",").map(Number);
+        if (p.length !== 4 || p.some((v) => !Number.isFinite(v))) throw new CliError(`--roi needs x,y,w,h in pixels (got ${roiText}).`);
+        roi = { kind: "rect" as const, x: p[0], y: p[1], width: p[2], height: p[3] };
+      }
+      const pixelSizeUm = pixelSize ?? info.pixelSizeUm;
+      const r = readWavelength(image, { pixelSizeUm, roi, invert: options.invert === true });
+      const json = {
+        file: positional[0], fileKind: kind, format: info.format, widthPx: info.width, heightPx: info.height, channels: info.channels, bitDepth: info.bitDepth,
+        pixelSizeUm, pixelSizeSource: pixelSize !== undefined ? "option" : info.pixelSizeSource,
+        periodFound: r.periodFound, wavelengthUm: r.wavelengthUm, wavelengthPx: r.wavelengthPx, uncertaintyUm: r.uncertaintyUm, uncertaintyPx: r.uncertaintyPx,
+        uncertaintyMethod: r.uncertaintyMethod, significance: r.significance, significanceThreshold: r.significanceThreshold,
+        orientationDeg: r.orientationDeg, anisotropy: r.anisotropy, symmetry: r.symmetry, symmetryScores: r.symmetryScores,
+        nearestNeighbourUm: r.nearestNeighbourUm, nearestNeighbourUncertaintyUm: r.nearestNeighbourUncertaintyUm, autocorrelation: r.autocorrelation,
+        warnings: [...(info.pixelSizeNote ? [info.pixelSizeNote] : []), ...r.warnings],
+      };
+      const text = r.periodFound
+        ? `λ = ${r.wavelengthUm!.toPrecision(4)} ± ${r.uncertaintyUm!.toPrecision(2)} µm (${r.wavelengthPx!.toPrecision(4)} px), ${r.symmetry}, significance ${r.significance.toPrecision(3)}` +
+          (r.nearestNeighbourUm ? `, nearest-neighbour a = ${r.nearestNeighbourUm.toPrecision(4)} µm` : "")
+        : `No significant period (significance ${r.significance.toPrecision(3)} < ${r.significanceThreshold}).`;
+      return { json, text: [text, ...json.warnings.map((w) => `warning: ${w}`)].join("\n") };
+    } catch (e) {
+      if (e instanceof ReadoutError || e instanceof ImagingError) throw new CliError(e.message, e.code, e.code === "too_large" ? 3 : 2);
+      if (e instanceof SpacingError) throw new CliError(e.message, "bad_table");
+      throw e;
+    }
+  },
+};
+
+export default command;
