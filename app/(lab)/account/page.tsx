@@ -1,0 +1,43 @@
+import type { Metadata } from "next";
+import { AppShell } from "@/components/layout/app-shell";
+import { PageHeader, Panel } from "@/components/ui/panel";
+import { ROLE_LABELS, type Role } from "@/lib/access/roles";
+import { getMe } from "@/lib/server/data/accounts";
+import { pageActor } from "@/lib/server/page-access";
+import Link from "next/link";
+import { CreateLabForm } from "./create-lab-form";
+import { SettingsForm } from "./settings-form";
+import { TokensView } from "./tokens-view";
+
+export const metadata: Metadata = { title: "Account" };
+export const dynamic = "force-dynamic";
+
+export default async function AccountPage() {
+  const me = await getMe(await pageActor("/account"));
+  return (
+    <AppShell me={me}>
+      <PageHeader title="Your account" subtitle={<span className="num">{me.email}</span>} />
+      <div className="grid gap-6 lg:grid-cols-2">
+        <Panel title="Your labs">
+          <ul className="mb-4 space-y-1 text-sm" data-testid="my-labs">
+            {me.labs.map((l) => (
+              <li key={l.id} className="flex justify-between">
+                <Link href={`/labs/${l.id}`} className="text-moss hover:underline">{l.name}</Link>
+                <span className="text-ink-soft">{ROLE_LABELS[l.role as Role]}</span>
+              </li>
+            ))}
+          </ul>
+          <CreateLabForm />
+        </Panel>
+        <Panel title="Notifications">
+          <SettingsForm notifyByEmail={me.notifyByEmail} />
+        </Panel>
+      </div>
+      <div className="mt-6">
+        <Panel title="API tokens">
+          <TokensView />
+        </Panel>
+      </div>
+    </AppShell>
+  );
+}

@@ -1,0 +1,82 @@
+import Link from "next/link";
+import { EmptyState, PageHeader, Panel } from "@/components/ui/panel";
+import { can } from "@/lib/access/permissions";
+import { ROLE_LABELS } from "@/lib/access/roles";
+import { formatDateTime } from "@/lib/client/format";
+import { listAudit } from "@/lib/server/data/audit";
+import { listStudies } from "@/lib/server/data/studies";
+import { pageLab } from "@/lib/server/page-access";
+
+export const dynamic = "force-dynamic";
+
+export default async function Dashboard({ params }: { params: Promise<{ labId: string }> }) {
+  const { labId } = await params;
+  const ctx = await pageLab(labId);
+  const studies = await listStudies(ctx, { page: 1, pageSize: 6, sort: "updatedAt", dir: "desc", q: "" });
+  const audit = can(ctx.role, "audit.read") ? await listAudit(ctx, { page: 1, pageSize: 8, sort: "at", dir: "desc", q: "" }) : null;
+  return (
+    <div className="space-y-6">
+      <PageHeader title={ctx.labName} subtitle={`You are ${ROLE_LABELS[ctx.role].toLowerCase()} here.`} />
+      <div className="grid gap-6 lg:grid-cols-[2fr_1fr]">
+        <Panel title="Recent studies" actions={<Link href={`/labs/${labId}/studies`} className="text-sm text-moss hover:underline">All studies →</Link>}>
+          {studies.total === 0 ? (
+            <EmptyState title="No studies yet.">
+              {can(ctx.role, "study.create") ? (
+                <Link href={`/labs/${labId}/studies`} className="text-moss hover:underline">
+                  Create the first study
+                </Link>
+              ) : (
+                "A bench scientist or lab manager creates studies; they will appear here."
+              )}
+            </EmptyState>
+          ) : (
+            <ul className="divide-y divide-rule" data-testid="recent-studies">
+              {studies.items.map((s) => (
+                <li key={s.id} className="flex items-baseline justify-between gap-4 py-2">
+                  <Link href={`/labs/${labId}/studies/${s.id}`} className="font-medium text-ink hover:text-moss">
+                    {s.name}
+                  </Link>
+                  <span className="text-sm text-ink-soft">
+                    {s.tissue} · {s.organism} · <span className="num">{s.specimenCount}</span> specimens
+                  </span>
+                </li>
+              ))}
+            </ul>
+          )}
+        </Panel>
+        <Panel title="Next steps">
+          <ul className="space-y-2 text-sm text-ink-soft">
+            <li>Spacing readouts, kinetics, fits and discussions arrive in this workspace as they are built; studies, specimens and uploads work now.</li>
+            {can(ctx.role, "invitation.manage") && (
+              <li>
+                <Link href={`/labs/${labId}/members`} className="text-moss hover:underline">
+                  Invite your lab
+                </Link>{" "}
+                with a role each.
+              </li>
+            )}
+            <li>
+              Scripts can use the same API with a personal{" "}
+              <Link href="/account" className="text-moss hover:underline">
+                API token
+              </Link>
+              .
+            </li>
+          </ul>
+        </Panel>
+      </div>
+      {audit && (
+        <Panel title="Latest in the audit trail" actions={<Link href={`/labs/${labId}/audit`} className="text-sm text-moss hover:underline">Audit trail →</Link>}>
+          <ul className="space-y-1 text-sm">
+            {audit.items.map((e) => (
+              <li key={e.id} className="flex gap-3">
+                <span className="num shrink-0 text-xs text-ink-soft">{formatDateTime(e.at)}</span>
+                <span>{e.summary}</span>
+              </li>
+            ))}
+          </ul>
+        </Panel>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,96 @@
+/**
+ * The local stack used by `npm start`, `npm run dev` and the browser tests: fake services as a
+ * child process, a persistent session secret, migrations, demo data, then Next itself.
+ */
+import { spawn, type ChildProcess } from "node:child_process";
+import { randomBytes } from "node:crypto";
+import { existsSync, mkdirSync, readFileSync, statSync, writeFileSync, readdirSync } from "node:fs";
+import net from "node:net";
+import path from "node:path";
+import { readConfig } from "@/lib/server/config";
+
+export const ROOT = path.resolve(import.meta.dirname, "../..");
+
+export function ensureSecret(dataDir: string): string {
+  if (process.env.NEXTAUTH_SECRET) return process.env.NEXTAUTH_SECRET;
+  mkdirSync(dataDir, { recursive: true });
+  const file = path.join(dataDir, ".nextauth-secret");
+  if (!existsSync(file)) writeFileSync(file, randomBytes(32).toString("base64url"), { mode: 0o600 });
+  return readFileSync(file, "utf8").trim();
+}
+
+function portOpen(port: number, host = "127.0.0.1"): Promise<boolean> {
+  return new Promise((resolve) => {
+    const s = net.connect({ port, host });
+    s.once("connect", () => { s.destroy(); resolve(true); });
+    s.once("error", () => resolve(false));
+  });
+}
+
+export async function waitForPort(port: number, what: string, ms = 30_000) {
+  const until = Date.now() + ms;
+  while (Date.now() < until) {
+    if (await portOpen(port)) return;
+    await new Promise((r) => setTimeout(r, 200));
+  }
+  throw new Error(`${what} did not start listening on 127.0.0.1:${port} within ${ms / 1000} s`);
+}
+
+const portOf = (url: string) => Number(new URL(url).port);
+
+/** Starts the fakes unless something already listens on their ports. */
+export async function startFakes(env: NodeJS.ProcessEnv): Promise<ChildProcess | null> {
+  const config = readConfig();
+  const s3Port = portOf(config.s3.endpoint);
+  if (await portOpen(s3Port)) {
+    process.stdout.write(`fake services: already running on port ${s3Port}, reusing them\n`);
+    return null;
+  }
+  const child = spawn(process.execPath, ["--import", "tsx", path.join(ROOT, "fake-services/run.ts")], { cwd: ROOT, env, stdio: ["ignore", "inherit", "inherit"] });
+  await waitForPort(s3Port, "fake object storage");
+  await waitForPort(portOf(config.smtp.url), "fake mail server");
+  return child;
+}
+
+function newestMtime(dir: string): number {
+  let newest = 0;
+  for (const entry of readdirSync(dir, { withFileTypes: true })) {
+    if (entry.name === "node_modules" || entry.name.startsWith(".")) continue;
+    const p = path.join(dir, entry.name);
+    newest = Math.max(newest, entry.isDirectory() ? newestMtime(p) : statSync(p).mtimeMs);
+  }
+  return newest;
+}
+
+/** True when there is no production build or a source file is newer than it. */
+export function buildIsStale(): boolean {
+  const buildId = path.join(ROOT, ".next/BUILD_ID");
+  if (!existsSync(buildId)) return true;
+  const built = statSync(buildId).mtimeMs;
+  const sources = ["app", "components", "lib", "models", "storage", "migrations"].map((d) => path.join(ROOT, d)).filter(existsSync);
+  return sources.some((d) => newestMtime(d) > built);
+}
+
+export function run(cmd: string, args: string[], env: NodeJS.ProcessEnv): Promise<void> {
+  return new Promise((resolve, reject) => {
+    const child = spawn(cmd, args, { cwd: ROOT, env, stdio: "inherit" });
+    child.once("exit", (code) => (code === 0 ? resolve() : reject(new Error(`${cmd} ${args.join(" ")} exited with ${code}`))));
+  });
+}
+
+export function nextBin(): string {
+  return path.join(ROOT, "node_modules/next/dist/bin/next");
+}
+
+export function appEnv(): NodeJS.ProcessEnv {
+  const config = readConfig();
+  const port = process.env.PORT ?? "3000";
+  return {
+    ...process.env,
+    NEXT_TELEMETRY_DISABLED: "1",
+    NEXTAUTH_URL: process.env.NEXTAUTH_URL ?? `http://127.0.0.1:${port}`,
+    NEXTAUTH_SECRET: ensureSecret(config.dataDir),
+    DEV_MAILBOX_URL: process.env.DEV_MAILBOX_URL ?? "http://127.0.0.1:2526",
+    PORT: port,
+  };
+}

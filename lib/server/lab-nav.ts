@@ -1,0 +1,16 @@
+/** The navigation of a lab, showing only what the role may open. */
+import { can } from "@/lib/access/permissions";
+import type { Role } from "@/lib/access/roles";
+import { mailboxEnabled } from "./data/mailbox";
+
+export function labNav(labId: string, role: Role) {
+  const base = `/labs/${labId}`;
+  const items = [
+    { href: base, label: "Dashboard" },
+    { href: `${base}/studies`, label: "Studies" },
+    { href: `${base}/members`, label: "Members" },
+  ];
+  if (can(role, "audit.read")) items.push({ href: `${base}/audit`, label: "Audit trail" });
+  if (can(role, "mailbox.read") && mailboxEnabled()) items.push({ href: `${base}/mailbox`, label: "Mailbox (dev)" });
+  return items;
+}
