@@ -17,3 +17,4 @@ export { createSerialExecutor, type DiffusionExecutor, type DiffusionLayout } fr
 export { runDiffusionStage, StageMode, type SpeciesBuffers } from "./diffusion-stage";
 export { schnakenbergReaction, schnakenbergSteadyState, createLinearDecayReaction } from "./reference-kinetics";
 export { phi1, phi2 } from "./phi-functions";
+export { createReactionSystemFromKinetics, readKineticsDiffusion, readKineticsSteadyState } from "./from-kinetics";

@@ -1,0 +1,102 @@
+import { createRequire } from "node:module";
+import { fileURLToPath } from "node:url";
+import { Worker } from "node:worker_threads";
+import { createCosineBasis } from "../cosine-basis";
+import { runDiffusionStage, type StageMode } from "../diffusion-stage";
+import type { DiffusionExecutor, DiffusionLayout } from "../executor";
+
+/** Options of {@link createWorkerExecutor}. */
+export interface WorkerExecutorOptions {
+  /** Worker threads besides the calling thread. @default 1 (two cores in all) */
+  workers?: number;
+}
+
+/** Control words per worker in the shared Int32Array: generation, mode, work index, done generation. */
+const WORDS = 4;
+const STOP = -1;
+
+/**
+ * Runs the spectral stage of different species on different threads: species s goes to thread
+ * s mod (workers + 1), thread 0 being the caller. Buffers live in SharedArrayBuffer; each step
+ * the caller bumps a generation word, wakes the workers with Atomics.notify, does its own
+ * species and waits (Atomics.wait, allowed on Node's main thread) until every worker echoes
+ * the generation. Results are bit-identical to the serial executor (same code, same order per species).
+ */
+export function createWorkerExecutor(options: WorkerExecutorOptions = {}): DiffusionExecutor {
+  const workerCount = options.workers ?? 1;
+  const ctrl = new Int32Array(new SharedArrayBuffer(4 * WORDS * Math.max(1, workerCount)));
+  const threads: Worker[] = [];
+  let own: number[] = [];
+  let layout: DiffusionLayout | null = null;
+  let basis: ReturnType<typeof createCosineBasis> | null = null;
+  let generation = 0;
+  const stopThreads = () => {
+    generation++;
+    for (let w = 0; w < threads.length; w++) {
+      ctrl[w * WORDS + 1] = STOP;
+      Atomics.store(ctrl, w * WORDS, generation);
+      Atomics.notify(ctrl, w * WORDS);
+    }
+    for (const t of threads) void t.terminate();
+    threads.length = 0;
+  };
+  return {
+    allocate: (length) => new Float64Array(new SharedArrayBuffer(8 * length)),
+    prepare(l) {
+      stopThreads(); // an executor reused for a second run restarts its threads
+      ctrl.fill(0);
+      generation = 0;
+      layout = l;
+      basis = createCosineBasis(l.grid);
+      const n = l.buffers.length;
+      const active = Math.min(workerCount, n - 1);
+      own = [];
+      for (let s = 0; s < n; s++) if (s % (active + 1) === 0) own.push(s);
+      for (let w = 0; w < active; w++) {
+        const species = [];
+        for (let s = 0; s < n; s++) if (s % (active + 1) === w + 1) species.push(s);
+        threads.push(spawnDiffusionWorker({ layout: l, species, ctrl, slot: w }));
+      }
+    },
+    run(mode: StageMode, workIndex: 0 | 1) {
+      const l = layout!;
+      generation++;
+      for (let w = 0; w < threads.length; w++) {
+        ctrl[w * WORDS + 1] = mode;
+        ctrl[w * WORDS + 2] = workIndex;
+        Atomics.store(ctrl, w * WORDS, generation);
+        Atomics.notify(ctrl, w * WORDS);
+      }
+      for (const s of own) runDiffusionStage(basis!, l.coefficients[s], l.buffers[s], mode, workIndex);
+      for (let w = 0; w < threads.length; w++) {
+        for (;;) {
+          const done = Atomics.load(ctrl, w * WORDS + 3);
+          if (done === generation) break;
+          Atomics.wait(ctrl, w * WORDS + 3, done, 10_000);
+        }
+      }
+    },
+    dispose() {
+      stopThreads();
+      layout = null;
+      basis = null;
+    },
+  };
+}
+
+/**
+ * Starts diffusion-worker.ts. Workers do not inherit tsx's loader hooks, so when the entry is
+ * TypeScript the worker first registers tsx's CommonJS hook and then requires the entry.
+ */
+function spawnDiffusionWorker(workerData: unknown): Worker {
+  const entry = fileURLToPath(new URL("./diffusion-worker.ts", import.meta.url));
+  const api = createRequire(import.meta.url).resolve("tsx/cjs/api");
+  const code = `require(${JSON.stringify(api)}).register(); require(${JSON.stringify(entry)});`;
+  const worker = new Worker(code, { eval: true, workerData });
+  worker.on("error", (err) => {
+    // A worker that fails to start would leave run() waiting: report and end the process.
+    console.error("simulation worker failed:", err);
+    process.exit(70);
+  });
+  return worker;
+}
