@@ -18,6 +18,8 @@ export interface LeastSquaresOptions {
    * @default 0
    */
   seededStarts?: number;
+  /** Further explicit starting points (natural units, each within the bounds). @default [] */
+  extraStarts?: readonly (readonly number[])[];
   /** Seed of the extra starts; the same seed gives the same starts. @default "morphokin" */
   seed?: string;
   /**
@@ -38,6 +40,7 @@ export interface CheckedSolverOptions {
   upper: number[];
   log: boolean[];
   seededStarts: number;
+  extraStarts: number[][];
   seed: string;
   libraryStage: "fallback" | "always" | "off";
   library: LibraryStageOptions;
@@ -73,6 +76,14 @@ export function checkSolverOptions(options: LeastSquaresOptions, parameterCount:
     if (log[j] && !(start[j] > 0)) throw badOption(`start[${j}]`, `start[${j}] must be positive for a log-scaled parameter; got ${start[j]}.`);
     if (log[j] && lower[j] < 0) throw badOption(`lower[${j}]`, `lower[${j}] must be 0 or more for a log-scaled parameter; got ${lower[j]}.`);
   }
+  const extraStarts = (options.extraStarts ?? []).map((s, k) => {
+    if (s.length !== p) throw badOption(`extraStarts[${k}]`, `extraStarts[${k}] must hold ${p} values (one per parameter); got ${s.length}.`);
+    s.forEach((x, j) => {
+      if (!(x >= lower[j] && x <= upper[j]) || (log[j] && !(x > 0)))
+        throw badOption(`extraStarts[${k}]`, `extraStarts[${k}][${j}] (${x}) must lie within [lower, upper] = [${lower[j]}, ${upper[j]}].`);
+    });
+    return Array.from(s);
+  });
   const seededStarts = options.seededStarts ?? 0;
   if (!Number.isInteger(seededStarts) || seededStarts < 0 || seededStarts > 1000)
     throw badOption("seededStarts", `seededStarts must be an integer from 0 to 1000; got ${seededStarts}.`);
@@ -85,5 +96,5 @@ export function checkSolverOptions(options: LeastSquaresOptions, parameterCount:
   const library = { ...DEFAULT_LIBRARY_STAGE, ...options.library };
   if (!Number.isInteger(library.maxIterations) || library.maxIterations < 1)
     throw badOption("library.maxIterations", `library.maxIterations must be a positive integer; got ${library.maxIterations}.`);
-  return { start, lower, upper, log, seededStarts, seed: options.seed ?? "morphokin", libraryStage, library, polish };
+  return { start, lower, upper, log, seededStarts, extraStarts, seed: options.seed ?? "morphokin", libraryStage, library, polish };
 }

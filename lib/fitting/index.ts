@@ -13,3 +13,11 @@ export { PROFILE_DELTA_95, type ParameterProfile, type ProfileSide } from "./pro
 export type { Valley, ValleyPoint } from "./trace-valley";
 export type { Identifiability } from "./identifiability";
 export { computeAicc, computeBic, computeAkaikeWeights } from "./information-criteria";
+export { fitWavelengths } from "./fit-wavelengths";
+export { compareFits, type LabelledFit, type RankedFit, type FitComparison } from "./compare-fits";
+export { HEX_SPACING_TO_FOURIER } from "./check-wavelength-spec";
+export type {
+  MeasurementKind, WavelengthDatum, ParameterSetting, FixedParameter, FreeParameter, PerConditionParameter,
+  WavelengthFitOptions, WavelengthFitSpec, WavelengthPrediction, WavelengthPredictor,
+} from "./wavelength-spec";
+export type { WavelengthFitResult, WavelengthVerdict, FittedParameter, FittedDatum, IntervalSide } from "./wavelength-result";

@@ -9,13 +9,18 @@ export interface ProfileSide {
   limit: number | null;
   /** `bound`: the parameter's bound was reached first; `range`: the search range ran out. */
   openReason: "bound" | "range" | null;
+  /**
+   * The limit is where the model stops giving an admissible prediction (for wavelength fits: the
+   * edge of the Turing region), reached before Δχ² rose by the threshold.
+   */
+  edge: boolean;
 }
 
 /** Profile of one parameter: the re-optimised χ² as the parameter is moved away from its estimate. */
 export interface ParameterProfile {
   lower: ProfileSide;
   upper: ProfileSide;
-  /** Visited points, sorted by value: the parameter (natural units), Δχ² and the full re-optimised parameter vector. */
+  /** Visited admissible points, sorted by value: the parameter (natural units), Δχ² and the full re-optimised parameter vector. */
   points: { value: number; deltaChiSquare: number; params: number[] }[];
   /** Neither side rose by the threshold: the data do not bound this parameter. */
   flat: boolean;
@@ -55,7 +60,7 @@ export function profileParameter(
     const fit = fitWithFixed(ctx, j, value, warm);
     const d = fit.chiSquare - chiMin;
     const params = toNaturalValue(fit.u);
-    points.push({ value: params[j], deltaChiSquare: d, params });
+    if (Number.isFinite(d)) points.push({ value: params[j], deltaChiSquare: d, params });
     if (fit.chiSquare < lowest) lowest = fit.chiSquare;
     return { d, u: fit.u };
   };
@@ -70,43 +75,57 @@ export function profileParameter(
       const hitBound = dir > 0 ? raw >= bound : raw <= bound;
       const b = hitBound ? bound : raw;
       const { d: db, u } = evaluate(b, warm);
-      if (db >= options.delta) return { limit: toNaturalValue(locate(a, da, b, db, warm))[j], openReason: null };
-      if (hitBound) return { limit: null, openReason: "bound" };
+      if (!(db < options.delta)) {
+        const found = locate(a, da, b, db, warm);
+        return { limit: toNaturalValue(found.u)[j], openReason: null, edge: found.edge };
+      }
+      if (hitBound) return { limit: null, openReason: "bound", edge: false };
       a = b;
       da = db;
       warm = u;
       h *= 2;
     }
-    return { limit: null, openReason: "range" };
+    return { limit: null, openReason: "range", edge: false };
   };
-  // Illinois regula falsi on g(v) = Δχ²(v) − delta between a (g < 0) and b (g ≥ 0).
-  const locate = (a0: number, da0: number, b0: number, db0: number, warm0: number[]): number[] => {
+  // Illinois regula falsi on g(v) = Δχ²(v) − delta between a (g < 0) and b (g ≥ 0); plain
+  // bisection while b is inadmissible (χ² = ∞), which converges on the edge of the admissible region.
+  const locate = (a0: number, da0: number, b0: number, db0: number, warm0: number[]): { u: number[]; edge: boolean } => {
     let [a, b] = [a0, b0];
-    let [ga, gb] = [da0 - options.delta, Number.isFinite(db0) ? db0 - options.delta : 1e6];
-    let warm = warm0;
-    let best = warm0.slice();
-    best[j] = b;
+    let [ga, gb] = [da0 - options.delta, db0 - options.delta];
+    let bInf = !Number.isFinite(db0);
+    let warmA = warm0;
+    let last: number[] | null = null;
     let lastSide = 0;
     for (let it = 0; it < options.maxRootIterations; it++) {
-      const c = Math.abs(gb - ga) > 0 && Number.isFinite(gb) ? b - (gb * (b - a)) / (gb - ga) : (a + b) / 2;
-      const { d, u } = evaluate(c, warm);
-      const gc = Number.isFinite(d) ? d - options.delta : 1e6;
-      best = u;
-      if (Math.abs(gc) < 1e-4 || Math.abs(b - a) < 1e-10 * (Math.abs(c) + ctx.typical[j])) break;
-      if (gc < 0) {
-        a = c;
-        ga = gc;
-        warm = u;
-        if (lastSide === -1) gb /= 2;
-        lastSide = -1;
-      } else {
+      const c = bInf || !(gb > ga) ? (a + b) / 2 : b - (gb * (b - a)) / (gb - ga);
+      const { d, u } = evaluate(c, warmA);
+      if (!Number.isFinite(d)) {
         b = c;
-        gb = gc;
-        if (lastSide === 1) ga /= 2;
-        lastSide = 1;
+        bInf = true;
+      } else {
+        const gc = d - options.delta;
+        if (Math.abs(gc) < 1e-4) return { u, edge: false };
+        if (gc < 0) {
+          a = c;
+          ga = gc;
+          warmA = u;
+          if (lastSide === -1 && !bInf) gb /= 2;
+          lastSide = -1;
+        } else {
+          b = c;
+          gb = gc;
+          bInf = false;
+          last = u;
+          if (lastSide === 1) ga /= 2;
+          lastSide = 1;
+        }
       }
+      if (Math.abs(b - a) < 1e-10 * (Math.abs(b) + ctx.typical[j])) break;
     }
-    return best;
+    if (bInf) return { u: warmA, edge: true };
+    const u = last ?? warmA.slice();
+    u[j] = b;
+    return { u, edge: false };
   };
   const upper = side(1);
   const lower = side(-1);

@@ -10,8 +10,8 @@ import { CONVERGED_REASONS, type LeastSquaresProblem, type LocalSolution } from 
 export interface StartReport {
   /** The starting point, natural units. */
   start: number[];
-  /** `given` is the caller's start; `seeded` one of the deterministic extra starts. */
-  origin: "given" | "seeded";
+  /** `given` is the caller's start, `extra` one of `extraStarts`, `seeded` one of the deterministic random starts. */
+  origin: "given" | "extra" | "seeded";
   chiSquare: number;
   converged: boolean;
   reason: LocalSolution["reason"];
@@ -49,8 +49,8 @@ function atBound(space: ParameterSpace, u: readonly number[]): number[] {
 }
 
 /**
- * Weighted nonlinear least squares: minimise χ² = Σ rᵢ(θ)² within bounds, from the given start
- * and `seededStarts` deterministic extra starts. Each start is polished by a bounded
+ * Weighted nonlinear least squares: minimise χ² = Σ rᵢ(θ)² within bounds, from the given start,
+ * any `extraStarts`, and `seededStarts` deterministic random starts. Each start is polished by a bounded
  * Levenberg–Marquardt with QR steps; ml-levenberg-marquardt runs first when `libraryStage` asks
  * for it (by default only as a second attempt when the direct polish does not converge). The
  * answer is the converged start with the lowest χ² (the lowest χ² overall, flagged not converged,
@@ -62,7 +62,9 @@ export function solveLeastSquares(problem: LeastSquaresProblem, options: LeastSq
   const u0 = toInternal(space, checked.start);
   const typical = typicalScale(space, u0);
   const { f, jacobian } = internalFunctions(problem, space);
-  const startsU = [u0, ...drawSeededStarts(space, u0, typical, checked.seededStarts, checked.seed)];
+  const explicit = checked.extraStarts.map((s) => toInternal(space, s));
+  const startsU = [u0, ...explicit, ...drawSeededStarts(space, u0, typical, checked.seededStarts, checked.seed)];
+  const originOf = (k: number): StartReport["origin"] => (k === 0 ? "given" : k <= explicit.length ? "extra" : "seeded");
   let evaluations = 0;
   const outcomes = startsU.map((s) => {
     const run = (from: readonly number[]) => polishLevenbergMarquardt(f, from, space, typical, checked.polish, jacobian);
@@ -102,7 +104,7 @@ export function solveLeastSquares(problem: LeastSquaresProblem, options: LeastSq
     residuals: winner.result.residuals,
     starts: outcomes.map((o, k) => ({
       start: toNatural(space, startsU[k]),
-      origin: k === 0 ? "given" : "seeded",
+      origin: originOf(k),
       chiSquare: o.result.chiSquare,
       converged: isOk(o),
       reason: o.result.reason,
