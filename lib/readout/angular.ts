@@ -1,5 +1,5 @@
 import { evaluatePowerLaw, type PowerLaw } from "./background-fit";
-import { columnWeight, rowFrequency, type PowerSpectrum } from "./power-spectrum";
+import { annulusBox, columnWeight, rowFrequency, type PowerSpectrum } from "./power-spectrum";
 
 /** Symmetry call from angular harmonics of the power on the peak ring. */
 export type PatternSymmetry = "stripes" | "hexagonal" | "labyrinth";
@@ -26,9 +26,12 @@ export function computeAngularStats(s: PowerSpectrum, ringLo: number, ringHi: nu
   const c = [0, 0, 0, 0, 0, 0, 0], sn = [0, 0, 0, 0, 0, 0, 0];
   let total = 0;
   const angularPower = new Float64Array(180);
-  for (let ky = 0; ky < s.padHeight; ky++) {
+  const { kyMax, kxMax } = annulusBox(s, ringHi);
+  for (let kys = -kyMax; kys <= kyMax; kys++) {
+    if (kys === s.padHeight / 2 && kys !== -kyMax) continue; // the Nyquist row is reached once, as −H/2
+    const ky = (kys + s.padHeight) % s.padHeight;
     const fy = rowFrequency(ky, s.padHeight);
-    for (let kx = 0; kx < s.halfWidth; kx++) {
+    for (let kx = 0; kx <= kxMax; kx++) {
       const fx = kx / s.padWidth;
       const f = Math.sqrt(fx * fx + fy * fy);
       const ring = f * s.ringN;

@@ -1,5 +1,5 @@
 import { evaluatePowerLaw, type PowerLaw } from "./background-fit";
-import { columnWeight, powerAt, rowFrequency, type PowerSpectrum } from "./power-spectrum";
+import { annulusBox, powerAt, rowFrequency, type PowerSpectrum } from "./power-spectrum";
 import type { RadialSpectrum } from "./radial-spectrum";
 
 /** Vertex offset of the parabola through (−1, a), (0, b), (1, c), clamped to ±½ (three-point interpolation). */
@@ -62,13 +62,16 @@ export interface Peak2d {
  */
 export function refinePeak2d(s: PowerSpectrum, ringLo: number, ringHi: number): Peak2d | null {
   let bestKx = -1, bestKy = 0, best = -Infinity;
-  for (let ky = 0; ky < s.padHeight; ky++) {
+  const { kyMax, kxMax } = annulusBox(s, ringHi);
+  for (let kys = -kyMax; kys <= kyMax; kys++) {
+    const ky = (kys + s.padHeight) % s.padHeight;
+    if (kys === s.padHeight / 2 && kyMax === s.padHeight / 2 && kys !== -kyMax) continue; // Nyquist row once
     const fy = rowFrequency(ky, s.padHeight);
-    for (let kx = 0; kx < s.halfWidth; kx++) {
+    for (let kx = 0; kx <= kxMax; kx++) {
       const fx = kx / s.padWidth;
       const ring = Math.sqrt(fx * fx + fy * fy) * s.ringN;
       if (ring < ringLo || ring > ringHi) continue;
-      const p = s.power[ky * s.halfWidth + kx] * (columnWeight(kx, s.padWidth) > 0 ? 1 : 0);
+      const p = s.power[ky * s.halfWidth + kx];
       if (p > best) { best = p; bestKx = kx; bestKy = ky; }
     }
   }

@@ -41,3 +41,12 @@ export function powerAt(s: PowerSpectrum, kx: number, ky: number): number {
   if (x > s.padWidth / 2) x = s.padWidth - x; // only reachable at the Nyquist edge
   return s.power[y * s.halfWidth + x];
 }
+
+/**
+ * Rows (as signed ky) and columns kx whose bins can lie within `maxRing` rings of the origin: the
+ * bounding box of the annulus, so ring-restricted loops skip most of a large spectrum.
+ */
+export function annulusBox(s: PowerSpectrum, maxRing: number): { kyMax: number; kxMax: number } {
+  const f = (maxRing + 1) / s.ringN;
+  return { kyMax: Math.min(s.padHeight / 2, Math.ceil(f * s.padHeight)), kxMax: Math.min(s.halfWidth - 1, Math.ceil(f * s.padWidth)) };
+}

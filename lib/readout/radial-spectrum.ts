@@ -14,14 +14,21 @@ export function computeRadialSpectrum(s: PowerSpectrum): RadialSpectrum {
   const rings = Math.floor(s.ringN / 2) + 1;
   const sum = new Float64Array(rings);
   const count = new Float64Array(rings);
+  const n2 = s.ringN * s.ringN;
+  const fx2 = new Float64Array(s.halfWidth);
+  const weight = new Float64Array(s.halfWidth);
+  for (let kx = 0; kx < s.halfWidth; kx++) {
+    fx2[kx] = ((kx / s.padWidth) ** 2) * n2; // in ring units²
+    weight[kx] = columnWeight(kx, s.padWidth);
+  }
   for (let ky = 0; ky < s.padHeight; ky++) {
-    const fy = rowFrequency(ky, s.padHeight);
+    const fy2 = rowFrequency(ky, s.padHeight) ** 2 * n2;
+    if (fy2 > (rings - 0.5) ** 2) continue;
     const row = ky * s.halfWidth;
     for (let kx = 0; kx < s.halfWidth; kx++) {
-      const fx = kx / s.padWidth;
-      const r = Math.round(Math.sqrt(fx * fx + fy * fy) * s.ringN);
-      if (r >= rings) continue;
-      const w = columnWeight(kx, s.padWidth);
+      const r = (Math.sqrt(fx2[kx] + fy2) + 0.5) | 0;
+      if (r >= rings) break; // fx grows along the row
+      const w = weight[kx];
       sum[r] += w * s.power[row + kx];
       count[r] += w;
     }
