@@ -14,7 +14,7 @@ export class Upload extends Model<InferAttributes<Upload>, InferCreationAttribut
   declare sha256: string;
   declare storageKey: string;
   declare pixelSizeUm: number | null;
-  /** `metadata` (read from the file) or `uploader` (typed in). */
+  /** Where the pixel size came from: `uploader` (typed in) or the file's metadata (`tiff-resolution`, `ome-xml`, `png-phys`, `jfif-density`). */
   declare pixelSizeSource: string | null;
   declare createdBy: string | null;
   declare createdAt: CreationOptional<Date>;

@@ -91,7 +91,7 @@ export async function seedDemo(): Promise<boolean> {
         kind: "image",
         contentType: tiff ? "image/tiff" : "image/png",
         pixelSizeUm,
-        pixelSizeSource: tiff ? "metadata" : "uploader",
+        pixelSizeSource: tiff ? "tiff-resolution" : "uploader",
       });
     }
     // A spacing table: 1-D positions of ridges along a transect, µm (invented numbers).

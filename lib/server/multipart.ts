@@ -37,6 +37,8 @@ export async function parseUpload(request: Request, maxBytes: number): Promise<P
   const cleanup = () => rmSync(dir, { recursive: true, force: true });
   const stream = Readable.fromWeb(request.body as import("node:stream/web").ReadableStream) as Readable & { headers?: Record<string, string> };
   stream.headers = Object.fromEntries(request.headers.entries());
+  // formidable skips parsing when it sees no length; a chunked body is still limited by maxFileSize.
+  stream.headers["content-length"] ??= String(maxBytes);
   try {
     const [fields, files] = await formidable({
       uploadDir: dir,

@@ -86,7 +86,7 @@ export interface IncomingFile {
   kind: UploadKind;
   contentType: string;
   pixelSizeUm: number | null;
-  pixelSizeSource: "metadata" | "uploader" | null;
+  pixelSizeSource: string | null;
 }
 
 export async function storeUpload(ctx: LabContext, specimenId: string, file: IncomingFile): Promise<UploadDto> {

@@ -1,0 +1,62 @@
+/**
+ * A real, isolated back end for API tests: SQLite in a temp folder, the fake S3 server and the
+ * fake SMTP server on free ports, wired in through the composition root.
+ */
+import { mkdtempSync, rmSync } from "node:fs";
+import net from "node:net";
+import { tmpdir } from "node:os";
+import path from "node:path";
+import { startFakeS3 } from "@/fake-services/fake-s3";
+import { startFakeSmtp } from "@/fake-services/fake-smtp";
+import { readConfig } from "@/lib/server/config";
+import { createServices, setServicesForTest, type Services } from "@/lib/server/services";
+
+export async function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const srv = net.createServer();
+    srv.once("error", reject);
+    srv.listen(0, "127.0.0.1", () => {
+      const port = (srv.address() as net.AddressInfo).port;
+      srv.close(() => resolve(port));
+    });
+  });
+}
+
+export interface TestStack {
+  services: Services;
+  dir: string;
+  mailboxUrl: string;
+  close(): Promise<void>;
+}
+
+export async function startTestStack(): Promise<TestStack> {
+  const dir = mkdtempSync(path.join(tmpdir(), "morphokin-test-"));
+  const [s3Port, smtpPort, httpPort] = [await freePort(), await freePort(), await freePort()];
+  const s3 = await startFakeS3({ port: s3Port, directory: path.join(dir, "s3"), bucket: "morphokin-test" });
+  const smtp = await startFakeSmtp({ smtpPort, httpPort, directory: path.join(dir, "mail") });
+  const base = readConfig();
+  const config = {
+    ...base,
+    dataDir: dir,
+    databasePath: path.join(dir, "test.sqlite"),
+    appUrl: "http://127.0.0.1:3999",
+    s3: { ...base.s3, endpoint: `http://127.0.0.1:${s3Port}`, bucket: "morphokin-test" },
+    smtp: { ...base.smtp, url: `smtp://127.0.0.1:${smtpPort}` },
+    devMailboxUrl: `http://127.0.0.1:${httpPort}`,
+    maxUploadBytes: 2 * 1024 * 1024,
+  };
+  const services = createServices(config);
+  await services.db.ready;
+  setServicesForTest(services);
+  return {
+    services,
+    dir,
+    mailboxUrl: config.devMailboxUrl,
+    async close() {
+      setServicesForTest(undefined);
+      await services.db.sequelize.close();
+      await Promise.allSettled([s3.close(), smtp.close()]);
+      rmSync(dir, { recursive: true, force: true });
+    },
+  };
+}
