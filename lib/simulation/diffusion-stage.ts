@@ -1,4 +1,5 @@
 import type { CosineBasis } from "./cosine-basis";
+import { computeMaxAbs } from "./field-stats";
 import type { SpeciesCoefficients } from "./schemes";
 
 /**
@@ -22,8 +23,10 @@ export interface SpeciesBuffers {
 }
 
 /**
- * Runs the spectral stage for one species in place on `buffers.fields[workIndex]`.
- * Pure over its arguments so the serial path and worker threads share it.
+ * Runs the spectral stage for one species in place on `buffers.fields[workIndex]` and returns
+ * the largest |value| of the new field (NaN when a value is NaN or infinite), so blow-up
+ * detection runs on the thread that owns the species. Pure over its arguments so the serial
+ * path and worker threads share it.
  */
 export function runDiffusionStage(
   basis: CosineBasis,
@@ -31,7 +34,7 @@ export function runDiffusionStage(
   buffers: SpeciesBuffers,
   mode: StageMode,
   workIndex: 0 | 1,
-): void {
+): number {
   const work = buffers.fields[workIndex];
   const spec = buffers.spec;
   basis.forward(work, spec);
@@ -40,7 +43,7 @@ export function runDiffusionStage(
     const m = coeffs.m!;
     for (let j = 0; j < n; j++) spec[j] *= m[j];
     basis.inverse(spec, work);
-    return;
+    return computeMaxAbs([work]);
   }
   const chat = buffers.chat!, rprev = buffers.rprev!, e = coeffs.e!;
   if (mode === StageMode.EtdStart) {
@@ -52,4 +55,5 @@ export function runDiffusionStage(
   }
   rprev.set(spec);
   basis.inverse(chat, work);
+  return computeMaxAbs([work]);
 }

@@ -20,8 +20,11 @@ export interface DiffusionExecutor {
   allocate(length: number): Float64Array;
   /** Called once, after every buffer and coefficient of `layout` is allocated and filled. */
   prepare(layout: DiffusionLayout): void;
-  /** Runs the stage for all species on work buffer `workIndex`. */
-  run(mode: StageMode, workIndex: 0 | 1): void;
+  /**
+   * Runs the stage for all species on work buffer `workIndex`; returns the largest |value| of
+   * the new fields (NaN when any value is NaN or infinite).
+   */
+  run(mode: StageMode, workIndex: 0 | 1): number;
   /** Releases threads, if any. */
   dispose(): void;
 }
@@ -38,7 +41,12 @@ export function createSerialExecutor(): DiffusionExecutor {
     },
     run(mode, workIndex) {
       const l = layout!;
-      for (let s = 0; s < l.buffers.length; s++) runDiffusionStage(basis!, l.coefficients[s], l.buffers[s], mode, workIndex);
+      let maxAbs = 0;
+      for (let s = 0; s < l.buffers.length; s++) {
+        const m = runDiffusionStage(basis!, l.coefficients[s], l.buffers[s], mode, workIndex);
+        if (!(m <= maxAbs)) maxAbs = Number.isNaN(maxAbs) ? maxAbs : m; // NaN sticks
+      }
+      return maxAbs;
     },
     dispose() {
       layout = null;

@@ -19,17 +19,18 @@ export function computeFieldStats(field: FieldArray): FieldStats {
   return { min, max, mean: sum / field.length };
 }
 
-/** Largest |value| over all fields; NaN when any value is NaN. */
+/** Largest |value| over all fields; NaN when any value is NaN or infinite. */
 export function computeMaxAbs(fields: readonly FieldArray[]): number {
-  let m = 0;
+  let m = 0, sum = 0;
   for (const f of fields) {
     for (let i = 0; i < f.length; i++) {
-      const a = Math.abs(f[i]);
-      if (!(a <= m)) m = a; // NaN fails every comparison and propagates
-      if (m !== m) return NaN;
+      const v = f[i];
+      sum += v; // NaN or ±Infinity anywhere makes the sum non-finite
+      const a = v < 0 ? -v : v;
+      if (a > m) m = a;
     }
   }
-  return m;
+  return Number.isFinite(sum) ? m : NaN;
 }
 
 /**

@@ -2,7 +2,7 @@ import { createCosineBasis } from "./cosine-basis";
 import { StageMode, type SpeciesBuffers } from "./diffusion-stage";
 import { failOption } from "./errors";
 import { createSerialExecutor } from "./executor";
-import { computeFieldStats, computeMaxAbs, computeRelativeChangeRate } from "./field-stats";
+import { computeFieldStats, computeRelativeChangeRate } from "./field-stats";
 import { createGrid, type Grid } from "./grid";
 import { fillInitialState } from "./initial-state";
 import { SIMULATION_LIMITS } from "./limits";
@@ -112,8 +112,7 @@ function run(
       }
     }
     const mode = scheme !== "etd2" ? StageMode.FirstOrder : steps === 0 ? StageMode.EtdStart : StageMode.Etd2;
-    executor.run(mode, (1 - cur) as 0 | 1);
-    const maxAbs = computeMaxAbs(w);
+    const maxAbs = executor.run(mode, (1 - cur) as 0 | 1);
     if (!(maxAbs <= blowUpAbs)) {
       blowUp = { step: steps + 1, timeS: (steps + 1) * h, lastGoodTimeS: steps * h, maxAbs };
       reason = "blow-up";

@@ -4,17 +4,33 @@ import { createCosineBasis } from "../cosine-basis";
 import { runDiffusionStage, type StageMode } from "../diffusion-stage";
 import type { DiffusionLayout } from "../executor";
 
-const { layout, species, ctrl, slot } = workerData as { layout: DiffusionLayout; species: number[]; ctrl: Int32Array; slot: number };
+const { layout, species, ctrl, maxAbsOut, slot } = workerData as {
+  layout: DiffusionLayout;
+  species: number[];
+  ctrl: Int32Array;
+  maxAbsOut: Float64Array;
+  slot: number;
+};
 const WORDS = 4;
+const SPIN_LOOPS = 200_000;
 const basis = createCosineBasis(layout.grid);
 let seen = 0;
 for (;;) {
-  Atomics.wait(ctrl, slot * WORDS, seen);
+  // Spin briefly for the next generation, then sleep (same reasoning as awaitWord).
+  let spin = 0;
+  while (Atomics.load(ctrl, slot * WORDS) === seen) {
+    if (++spin > SPIN_LOOPS) Atomics.wait(ctrl, slot * WORDS, seen, 10_000);
+  }
   seen = Atomics.load(ctrl, slot * WORDS);
   const mode = ctrl[slot * WORDS + 1];
   if (mode < 0) break;
   const workIndex = ctrl[slot * WORDS + 2] as 0 | 1;
-  for (const s of species) runDiffusionStage(basis, layout.coefficients[s], layout.buffers[s], mode as StageMode, workIndex);
+  let maxAbs = 0;
+  for (const s of species) {
+    const m = runDiffusionStage(basis, layout.coefficients[s], layout.buffers[s], mode as StageMode, workIndex);
+    if (!(m <= maxAbs)) maxAbs = Number.isNaN(maxAbs) ? maxAbs : m;
+  }
+  maxAbsOut[slot] = maxAbs;
   Atomics.store(ctrl, slot * WORDS + 3, seen);
   Atomics.notify(ctrl, slot * WORDS + 3);
 }

@@ -14,6 +14,8 @@ export interface WorkerExecutorOptions {
 /** Control words per worker in the shared Int32Array: generation, mode, work index, done generation. */
 const WORDS = 4;
 const STOP = -1;
+/** Busy-wait iterations before sleeping (~0.1–0.5 ms). */
+const SPIN_LOOPS = 200_000;
 
 /**
  * Runs the spectral stage of different species on different threads: species s goes to thread
@@ -25,6 +27,7 @@ const STOP = -1;
 export function createWorkerExecutor(options: WorkerExecutorOptions = {}): DiffusionExecutor {
   const workerCount = options.workers ?? 1;
   const ctrl = new Int32Array(new SharedArrayBuffer(4 * WORDS * Math.max(1, workerCount)));
+  const maxAbsOut = new Float64Array(new SharedArrayBuffer(8 * Math.max(1, workerCount)));
   const threads: Worker[] = [];
   let own: number[] = [];
   let layout: DiffusionLayout | null = null;
@@ -55,7 +58,7 @@ export function createWorkerExecutor(options: WorkerExecutorOptions = {}): Diffu
       for (let w = 0; w < active; w++) {
         const species = [];
         for (let s = 0; s < n; s++) if (s % (active + 1) === w + 1) species.push(s);
-        threads.push(spawnDiffusionWorker({ layout: l, species, ctrl, slot: w }));
+        threads.push(spawnDiffusionWorker({ layout: l, species, ctrl, maxAbsOut, slot: w }));
       }
     },
     run(mode: StageMode, workIndex: 0 | 1) {
@@ -67,14 +70,16 @@ export function createWorkerExecutor(options: WorkerExecutorOptions = {}): Diffu
         Atomics.store(ctrl, w * WORDS, generation);
         Atomics.notify(ctrl, w * WORDS);
       }
-      for (const s of own) runDiffusionStage(basis!, l.coefficients[s], l.buffers[s], mode, workIndex);
+      let maxAbs = 0;
+      const take = (m: number) => {
+        if (!(m <= maxAbs)) maxAbs = Number.isNaN(maxAbs) ? maxAbs : m; // NaN sticks
+      };
+      for (const s of own) take(runDiffusionStage(basis!, l.coefficients[s], l.buffers[s], mode, workIndex));
       for (let w = 0; w < threads.length; w++) {
-        for (;;) {
-          const done = Atomics.load(ctrl, w * WORDS + 3);
-          if (done === generation) break;
-          Atomics.wait(ctrl, w * WORDS + 3, done, 10_000);
-        }
+        awaitWord(ctrl, w * WORDS + 3, generation);
+        take(maxAbsOut[w]);
       }
+      return maxAbs;
     },
     dispose() {
       stopThreads();
@@ -82,6 +87,19 @@ export function createWorkerExecutor(options: WorkerExecutorOptions = {}): Diffu
       basis = null;
     },
   };
+}
+
+/**
+ * Waits until ctrl[index] === value: spins briefly (a step's stages take milliseconds, and a
+ * futex wake-up costs tens of microseconds), then sleeps in Atomics.wait.
+ */
+export function awaitWord(ctrl: Int32Array, index: number, value: number): void {
+  for (let spin = 0; spin < SPIN_LOOPS; spin++) if (Atomics.load(ctrl, index) === value) return;
+  for (;;) {
+    const seen = Atomics.load(ctrl, index);
+    if (seen === value) return;
+    Atomics.wait(ctrl, index, seen, 10_000);
+  }
 }
 
 /**
