@@ -48,7 +48,7 @@ export interface FitAnalysis {
 }
 
 /** Looser tolerances for the many re-optimisations inside profiles and valleys. */
-const INNER_POLISH = { maxIterations: 100, relativeReduction: 1e-11, stepTolerance: 1e-9, gradientTolerance: 1e-9, initialDamping: 1e-3, divergenceFactor: 1e12 };
+const INNER_POLISH = { maxIterations: 100, relativeReduction: 1e-9, stepTolerance: 1e-7, gradientTolerance: 1e-7, initialDamping: 1e-3, divergenceFactor: 1e12 };
 
 /**
  * Statistics of a solved problem (SCIENCE.md §7): covariance (JᵀWJ)⁻¹ and standard errors,

@@ -33,11 +33,14 @@ export interface ProfileOptions {
   delta: number;
   /** Doubling steps before a side is declared open. @default 12 */
   maxSteps: number;
-  /** Root-finding iterations on each side. @default 30 */
+  /** Root-finding iterations on each side. @default 20 */
   maxRootIterations: number;
 }
 
-export const DEFAULT_PROFILE: ProfileOptions = { delta: PROFILE_DELTA_95, maxSteps: 12, maxRootIterations: 30 };
+/** The crossing is accepted when |Δχ² − delta| is below this fraction of delta (limits to ~0.1 % of the interval width). */
+const ROOT_TOLERANCE = 1e-3;
+
+export const DEFAULT_PROFILE: ProfileOptions = { delta: PROFILE_DELTA_95, maxSteps: 12, maxRootIterations: 20 };
 
 /**
  * Profile likelihood of coordinate `j` (Raue et al. 2009, Bioinformatics 25:1923): hold θⱼ at
@@ -104,7 +107,7 @@ export function profileParameter(
         bInf = true;
       } else {
         const gc = d - options.delta;
-        if (Math.abs(gc) < 1e-4) return { u, edge: false };
+        if (Math.abs(gc) < ROOT_TOLERANCE * options.delta) return { u, edge: false };
         if (gc < 0) {
           a = c;
           ga = gc;
