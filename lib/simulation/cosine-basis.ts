@@ -2,15 +2,10 @@ import { DctPlan } from "./dct";
 import type { Grid } from "./grid";
 
 /**
- * The zero-flux (Neumann) eigenbasis of a grid: forward maps a real field to its cosine
- * coefficients, inverse maps back; `k2PerUm2[j]` is the Laplacian eigenvalue k² (1/µm²) of
- * coefficient j, with k = mπ/L per axis (SCIENCE.md §2).
- *
- * 2-D coefficient layout is transposed, index = kx·ny + ky: the column pass works on
- * contiguous rows after one transpose, and diffusion only multiplies pointwise, so the inverse
- * undoes the transpose and no second one is needed.
+ * An eigenbasis of the Laplacian on a grid: forward maps a real field to its coefficients,
+ * inverse maps back; `k2PerUm2[j]` is the eigenvalue k² (1/µm²) of coefficient j.
  */
-export interface CosineBasis {
+export interface SpectralBasis {
   readonly grid: Grid;
   readonly k2PerUm2: Float64Array;
   /** src (real, length cellCount) → dst (coefficients). src is left unchanged; src ≠ dst in 2-D. */
@@ -19,8 +14,13 @@ export interface CosineBasis {
   inverse(src: Float64Array, dst: Float64Array): void;
 }
 
-/** Builds the cosine basis of `grid` (one DCT plan per distinct axis size, one scratch field). */
-export function createCosineBasis(grid: Grid): CosineBasis {
+/**
+ * The zero-flux (Neumann) basis: cosine coefficients with k = mπ/L per axis (SCIENCE.md §2).
+ * 2-D coefficient layout is transposed, index = kx·ny + ky: the column pass works on
+ * contiguous rows after one transpose, and diffusion only multiplies pointwise, so the inverse
+ * undoes the transpose and no second one is needed. One DCT plan per distinct axis size.
+ */
+export function createCosineBasis(grid: Grid): SpectralBasis {
   const { nx, ny } = grid;
   const px = new DctPlan(nx);
   const k2 = new Float64Array(grid.cellCount);

@@ -1,4 +1,4 @@
-import type { CosineBasis } from "./cosine-basis";
+import type { SpectralBasis } from "./cosine-basis";
 import { computeMaxAbs } from "./field-stats";
 import type { SpeciesCoefficients } from "./schemes";
 
@@ -29,7 +29,7 @@ export interface SpeciesBuffers {
  * path and worker threads share it.
  */
 export function runDiffusionStage(
-  basis: CosineBasis,
+  basis: SpectralBasis,
   coeffs: SpeciesCoefficients,
   buffers: SpeciesBuffers,
   mode: StageMode,

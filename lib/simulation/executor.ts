@@ -1,4 +1,4 @@
-import { createCosineBasis } from "./cosine-basis";
+import { createSpectralBasis } from "./spectral-basis";
 import { runDiffusionStage, type SpeciesBuffers, type StageMode } from "./diffusion-stage";
 import type { Grid } from "./grid";
 import type { SpeciesCoefficients } from "./schemes";
@@ -32,12 +32,12 @@ export interface DiffusionExecutor {
 /** Runs every species on the calling thread. */
 export function createSerialExecutor(): DiffusionExecutor {
   let layout: DiffusionLayout | null = null;
-  let basis: ReturnType<typeof createCosineBasis> | null = null;
+  let basis: ReturnType<typeof createSpectralBasis> | null = null;
   return {
     allocate: (length) => new Float64Array(length),
     prepare(l) {
       layout = l;
-      basis = createCosineBasis(l.grid);
+      basis = createSpectralBasis(l.grid);
     },
     run(mode, workIndex) {
       const l = layout!;

@@ -7,7 +7,12 @@ export interface GridOptions {
   lengthUm: readonly number[];
   /** Cells per axis, same order as `lengthUm`; each a power of two (fft.js sizes). */
   cells: readonly number[];
+  /** Boundary condition on every side. @default "zero-flux" */
+  boundary?: Boundary;
 }
+
+/** Zero-flux (Neumann, cosine modes k = mπ/L) or periodic (Fourier modes k = 2πm/L). */
+export type Boundary = "zero-flux" | "periodic";
 
 /**
  * A cell-centred grid: cell j of an axis with n cells and spacing h = L/n sits at x_j = (j + ½)h.
@@ -17,6 +22,7 @@ export interface GridOptions {
  */
 export interface Grid {
   dimensions: 1 | 2;
+  boundary: Boundary;
   nx: number;
   ny: number;
   lengthXUm: number;
@@ -36,6 +42,10 @@ export function createGrid(options: GridOptions): Grid {
     failOption("grid.cells", "grid.cells must list one cell count per entry of grid.lengthUm.");
   }
   const dims = lengthUm.length as 1 | 2;
+  const boundary = options.boundary ?? "zero-flux";
+  if (boundary !== "zero-flux" && boundary !== "periodic") {
+    failOption("grid.boundary", `grid.boundary must be "zero-flux" or "periodic", got ${String(boundary)}.`);
+  }
   const max = dims === 1 ? SIMULATION_LIMITS.maxCells1D : SIMULATION_LIMITS.maxCellsPerAxis2D;
   lengthUm.forEach((l, i) => {
     if (!Number.isFinite(l) || l <= 0) failOption("grid.lengthUm", `grid.lengthUm[${i}] must be a positive finite length, got ${l}.`);
@@ -55,6 +65,7 @@ export function createGrid(options: GridOptions): Grid {
   const ly = dims === 2 ? lengthUm[1] : 0;
   return {
     dimensions: dims,
+    boundary,
     nx,
     ny,
     lengthXUm: lx,

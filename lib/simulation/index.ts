@@ -3,11 +3,14 @@ export type { SimulationOptions, SimulationProgress, StationarityOptions } from 
 export type { SimulationResult, Snapshot, BlowUpInfo, StopReason } from "./result";
 export type { ReactionSystem, ReactionParams, FieldArray, CellRange } from "./reaction-system";
 export { paramAt } from "./reaction-system";
-export { createGrid, cellCentreXUm, cellCentreYUm, type Grid, type GridOptions } from "./grid";
+export { createGrid, cellCentreXUm, cellCentreYUm, type Grid, type GridOptions, type Boundary } from "./grid";
 export { SIMULATION_LIMITS } from "./limits";
 export { SimulationOptionError } from "./errors";
 export { DctPlan } from "./dct";
-export { createCosineBasis, type CosineBasis } from "./cosine-basis";
+export { createCosineBasis, type SpectralBasis } from "./cosine-basis";
+export { createPeriodicBasis } from "./periodic-basis";
+export { createSpectralBasis } from "./spectral-basis";
+export { RealFftPlan } from "./real-fft";
 export { SCHEME_NAMES, SCHEME_ORDER, type SchemeName } from "./schemes";
 export type { InitialState } from "./initial-state";
 export { resolveParameterProfile, type ParameterProfile, type ProfileAxis } from "./spatial-parameters";

@@ -1,4 +1,4 @@
-import { createCosineBasis } from "./cosine-basis";
+import { createSpectralBasis } from "./spectral-basis";
 import { StageMode, type SpeciesBuffers } from "./diffusion-stage";
 import { failOption } from "./errors";
 import { createSerialExecutor } from "./executor";
@@ -67,7 +67,7 @@ function run(
     failOption("dtS", `endTimeS / dtS needs ${rule.steps} steps; the limit is ${SIMULATION_LIMITS.maxSteps}.`);
   }
   const h = rule.dtS;
-  const basis = createCosineBasis(grid);
+  const basis = createSpectralBasis(grid);
   const coefficients: SpeciesCoefficients[] = buffers.map((_, s) => {
     const c: SpeciesCoefficients = {};
     for (const name of coefficientNames(scheme)) c[name] = executor.allocate(cells);

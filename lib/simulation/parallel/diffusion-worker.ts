@@ -1,6 +1,6 @@
 /** Worker side of createWorkerExecutor: runs the spectral stage of its species on shared buffers. */
 import { workerData } from "node:worker_threads";
-import { createCosineBasis } from "../cosine-basis";
+import { createSpectralBasis } from "../spectral-basis";
 import { runDiffusionStage, type StageMode } from "../diffusion-stage";
 import type { DiffusionLayout } from "../executor";
 
@@ -13,7 +13,7 @@ const { layout, species, ctrl, maxAbsOut, slot } = workerData as {
 };
 const WORDS = 4;
 const SPIN_LOOPS = 200_000;
-const basis = createCosineBasis(layout.grid);
+const basis = createSpectralBasis(layout.grid);
 let seen = 0;
 for (;;) {
   // Spin briefly for the next generation, then sleep (same reasoning as awaitWord).

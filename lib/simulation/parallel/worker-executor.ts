@@ -1,7 +1,7 @@
 import { createRequire } from "node:module";
 import { fileURLToPath } from "node:url";
 import { Worker } from "node:worker_threads";
-import { createCosineBasis } from "../cosine-basis";
+import { createSpectralBasis } from "../spectral-basis";
 import { runDiffusionStage, type StageMode } from "../diffusion-stage";
 import type { DiffusionExecutor, DiffusionLayout } from "../executor";
 
@@ -31,7 +31,7 @@ export function createWorkerExecutor(options: WorkerExecutorOptions = {}): Diffu
   const threads: Worker[] = [];
   let own: number[] = [];
   let layout: DiffusionLayout | null = null;
-  let basis: ReturnType<typeof createCosineBasis> | null = null;
+  let basis: ReturnType<typeof createSpectralBasis> | null = null;
   let generation = 0;
   const stopThreads = () => {
     generation++;
@@ -50,7 +50,7 @@ export function createWorkerExecutor(options: WorkerExecutorOptions = {}): Diffu
       ctrl.fill(0);
       generation = 0;
       layout = l;
-      basis = createCosineBasis(l.grid);
+      basis = createSpectralBasis(l.grid);
       const n = l.buffers.length;
       const active = Math.min(workerCount, n - 1);
       own = [];
