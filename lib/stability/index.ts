@@ -11,3 +11,8 @@ export { eigenvalues, leadingEigenvalue } from "./eigen";
 export { resolveScales, type ResolvedScales } from "./scales";
 export { findSteadyStates, MAX_STEADY_STATES, type SteadyState, type SteadyStateOptions } from "./steady-states";
 export { computeTuringConditions, type TuringCondition, type TwoSpeciesTuringConditions } from "./turing-conditions";
+export { computeTuringMap, summariseTuringMap, type TuringMapResult } from "./turing-map";
+export { DEFAULT_MAP_TIME_LIMIT_MS, MAX_MAP_CELLS, MAX_MAP_WAVENUMBERS, MAX_MAP_WORK, planTuringMap, type MapAxis, type MapPlan, type TuringMapOptions } from "./map-plan";
+export { computeMapRows, type MapRows } from "./map-rows";
+export { computeElasticities, predictWavelengthAfterScaling, type Elasticity, type ElasticityOptions, type ElasticityResult, type ScaledWavelength } from "./sensitivities";
+export { computeGradientDispersion, type GradientOptions, type GradientPoint, type GradientProfile, type GradientResult } from "./gradients";
