@@ -1,5 +1,5 @@
 import type { GreyImage } from "../imaging/grey-image";
-import { SyntheticOptionError, addNoiseAndClamp, checkAtLeast, checkPositive, checkRange, checkSize } from "./check-options";
+import { SyntheticOptionError, addNoiseAndClamp, checkAtLeast, checkRange, checkSize } from "./check-options";
 import { createRng } from "./random";
 
 export interface LabyrinthOptions {

@@ -1,5 +1,5 @@
 import type { GreyImage } from "../imaging/grey-image";
-import { addNoiseAndClamp, checkAtLeast, checkPositive, checkRange, checkSize } from "./check-options";
+import { addNoiseAndClamp, checkAtLeast, checkRange, checkSize } from "./check-options";
 import { createRng } from "./random";
 
 export interface StripesOptions {

@@ -52,6 +52,6 @@ export async function call(handler: Handler, method: Method, routePath: string, 
 export function multipart(file: { name: string; bytes: Uint8Array; type?: string }, fields: Record<string, string> = {}): FormData {
   const form = new FormData();
   for (const [k, v] of Object.entries(fields)) form.set(k, v);
-  form.set("file", new Blob([file.bytes], { type: file.type ?? "application/octet-stream" }), file.name);
+  form.set("file", new Blob([file.bytes as Uint8Array<ArrayBuffer>], { type: file.type ?? "application/octet-stream" }), file.name);
   return form;
 }
