@@ -20,7 +20,8 @@ RUN.json fields:
   kinetics           {"catalogue": "schnakenberg"} or {"definition": {...}} (lab kinetics)
   parameters         {name: value}; defaults of the kinetics otherwise
   spatialParameters  {name: {"kind": "linear"|"exponential"|"table"|"field", ...}}
-  grid               {"lengthUm": [L] or [Lx, Ly], "cells": [n] or [nx, ny]} (powers of two;
+  grid               {"lengthUm": [L] or [Lx, Ly], "cells": [n] or [nx, ny], "boundary"?:
+                     "zero-flux" (default) | "periodic"} (cells: powers of two; lengths in
                      model length units for non-dimensional kinetics)
   endTimeS           simulated time (s, or model time units)
   dtS, scheme        step cap, "etd2" (default) | "implicit-euler" | "integrating-factor"

@@ -1,0 +1,53 @@
+import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import path from "node:path";
+import { afterAll, describe, expect, it } from "vitest";
+import command from "@/lib/cli/commands/simulate";
+import { CliError } from "@/lib/cli/command";
+
+const dir = mkdtempSync(path.join(tmpdir(), "sim-cli-"));
+afterAll(() => rmSync(dir, { recursive: true, force: true }));
+
+function writeSpec(spec: unknown): string {
+  const file = path.join(dir, `spec-${Math.random().toString(36).slice(2)}.json`);
+  writeFileSync(file, JSON.stringify(spec));
+  return file;
+}
+
+describe("cli simulate", () => {
+  it("runs a catalogue kinetics, writes raw fields, PNGs and result.json, and reports a readout", async () => {
+    const spec = writeSpec({
+      kinetics: { catalogue: "schnakenberg" }, parameters: { gamma: 1, a: 0.1, b: 0.9, d: 40 },
+      grid: { lengthUm: [40, 40], cells: [32, 32] }, endTimeS: 20, initial: { seed: 2 },
+    });
+    const out = path.join(dir, "out");
+    const { json } = (await command.run(["--spec", spec, "--out", out], { json: true })) as { json: Record<string, unknown> };
+    expect(json).toMatchObject({ kinetics: "schnakenberg", stopReason: "end-time", steps: 200, timeS: 20, seed: "2", lengthUnit: "model" });
+    expect((json.fields as { species: string }[]).map((f) => f.species)).toEqual(["u", "v"]);
+    expect(json.readout).toHaveProperty("periodFound");
+    const raw = readFileSync(path.join(out, "final-u.f64"));
+    expect(raw.byteLength).toBe(32 * 32 * 8);
+    // The mean written in the summary equals the mean of the raw field (same data).
+    const field = new Float64Array(raw.buffer, raw.byteOffset, 32 * 32);
+    expect((json.fields as { mean: number }[])[0].mean).toBeCloseTo(field.reduce((a, b) => a + b, 0) / field.length, 12);
+    expect(existsSync(path.join(out, "final-v.png"))).toBe(true);
+    expect(JSON.parse(readFileSync(path.join(out, "result.json"), "utf8")).steps).toBe(200);
+  });
+
+  it.each([
+    [[], "Give --spec RUN.json."],
+    [["--spec", "/nonexistent/run.json"], /^Cannot read \/nonexistent\/run.json as JSON/],
+    [["--spec", "SPEC", "--threads", "3"], "--threads must be 1 or 2 (got 3)."],
+  ])("%j fails with a CliError", async (args, message) => {
+    const spec = writeSpec({ kinetics: { catalogue: "schnakenberg" }, grid: { lengthUm: [10], cells: [16] }, endTimeS: 1 });
+    const argv = (args as string[]).map((a) => (a === "SPEC" ? spec : a));
+    const p = command.run(argv, { json: true });
+    await expect(p).rejects.toBeInstanceOf(CliError);
+    await expect(p).rejects.toThrow(message);
+  });
+
+  it("passes solver option errors through as CliError with the solver's sentence", async () => {
+    const spec = writeSpec({ kinetics: { catalogue: "schnakenberg" }, grid: { lengthUm: [10], cells: [12] }, endTimeS: 1 });
+    await expect(command.run(["--spec", spec], { json: true })).rejects.toThrow("grid.cells[0] must be a power of two (fft.js sizes), got 12; use 8 or 16.");
+  });
+});
