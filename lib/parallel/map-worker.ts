@@ -10,8 +10,11 @@ const cache = new Map<string, CompiledKinetics>();
 // mathjs (for lab kinetics) loads only when a definition arrives: worker start stays fast.
 async function resolve(task: MapTask): Promise<CompiledKinetics> {
   if ("catalogue" in task.source) return getCatalogueKinetics(task.source.catalogue);
-  const { compileKinetics } = await import("../kinetics/compile-kinetics");
-  return compileKinetics(task.source.definition);
+  type CompileModule = typeof import("../kinetics/compile-kinetics");
+  // Under the tsx CommonJS hook (worker-bootstrap.cjs) only require() sees .ts files; a
+  // compiled ESM build has no require, and import() resolves there.
+  const mod: CompileModule = typeof require === "function" ? require("../kinetics/compile-kinetics") : await import("../kinetics/compile-kinetics");
+  return mod.compileKinetics(task.source.definition);
 }
 
 parentPort?.on("message", async (task: MapTask) => {
