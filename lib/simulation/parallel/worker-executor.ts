@@ -26,7 +26,9 @@ const SPIN_LOOPS = 200_000;
  */
 export function createWorkerExecutor(options: WorkerExecutorOptions = {}): DiffusionExecutor {
   const workerCount = options.workers ?? 1;
-  const ctrl = new Int32Array(new SharedArrayBuffer(4 * WORDS * Math.max(1, workerCount)));
+  // One block of WORDS per worker, then one failure word set by a worker that throws.
+  const ctrl = new Int32Array(new SharedArrayBuffer(4 * (WORDS * Math.max(1, workerCount) + 1)));
+  const failIndex = ctrl.length - 1;
   const maxAbsOut = new Float64Array(new SharedArrayBuffer(8 * Math.max(1, workerCount)));
   const threads: Worker[] = [];
   let own: number[] = [];
@@ -58,7 +60,7 @@ export function createWorkerExecutor(options: WorkerExecutorOptions = {}): Diffu
       for (let w = 0; w < active; w++) {
         const species = [];
         for (let s = 0; s < n; s++) if (s % (active + 1) === w + 1) species.push(s);
-        threads.push(spawnDiffusionWorker({ layout: l, species, ctrl, maxAbsOut, slot: w }));
+        threads.push(spawnDiffusionWorker({ layout: l, species, ctrl, maxAbsOut, slot: w, failIndex }));
       }
     },
     run(mode: StageMode, workIndex: 0 | 1) {
@@ -76,7 +78,7 @@ export function createWorkerExecutor(options: WorkerExecutorOptions = {}): Diffu
       };
       for (const s of own) take(runDiffusionStage(basis!, l.coefficients[s], l.buffers[s], mode, workIndex));
       for (let w = 0; w < threads.length; w++) {
-        awaitWord(ctrl, w * WORDS + 3, generation);
+        awaitWord(ctrl, w * WORDS + 3, generation, failIndex);
         take(maxAbsOut[w]);
       }
       return maxAbs;
@@ -91,14 +93,18 @@ export function createWorkerExecutor(options: WorkerExecutorOptions = {}): Diffu
 
 /**
  * Waits until ctrl[index] === value: spins briefly (a step's stages take milliseconds, and a
- * futex wake-up costs tens of microseconds), then sleeps in Atomics.wait.
+ * futex wake-up costs tens of microseconds), then sleeps in Atomics.wait, re-checking the
+ * failure word every 100 ms (the main thread cannot see a worker's "error" event while it blocks).
  */
-export function awaitWord(ctrl: Int32Array, index: number, value: number): void {
+export function awaitWord(ctrl: Int32Array, index: number, value: number, failIndex: number): void {
   for (let spin = 0; spin < SPIN_LOOPS; spin++) if (Atomics.load(ctrl, index) === value) return;
   for (;;) {
     const seen = Atomics.load(ctrl, index);
     if (seen === value) return;
-    Atomics.wait(ctrl, index, seen, 10_000);
+    if (Atomics.load(ctrl, failIndex) !== 0) {
+      throw new Error("A simulation worker thread failed (its error is printed above); the run cannot continue.");
+    }
+    Atomics.wait(ctrl, index, seen, 100);
   }
 }
 
@@ -106,15 +112,14 @@ export function awaitWord(ctrl: Int32Array, index: number, value: number): void 
  * Starts diffusion-worker.ts. Workers do not inherit tsx's loader hooks, so when the entry is
  * TypeScript the worker first registers tsx's CommonJS hook and then requires the entry.
  */
-function spawnDiffusionWorker(workerData: unknown): Worker {
+function spawnDiffusionWorker(workerData: { ctrl: Int32Array; failIndex: number; [key: string]: unknown }): Worker {
   const entry = fileURLToPath(new URL("./diffusion-worker.ts", import.meta.url));
   const api = createRequire(import.meta.url).resolve("tsx/cjs/api");
-  const code = `require(${JSON.stringify(api)}).register(); require(${JSON.stringify(entry)});`;
+  // Any throw (start-up or a stage) sets the shared failure word so run() stops waiting.
+  const code = `const { workerData: d } = require("node:worker_threads");
+try { require(${JSON.stringify(api)}).register(); require(${JSON.stringify(entry)}); }
+catch (e) { console.error("simulation worker failed:", e); Atomics.store(d.ctrl, d.failIndex, 1); }`;
   const worker = new Worker(code, { eval: true, workerData });
-  worker.on("error", (err) => {
-    // A worker that fails to start would leave run() waiting: report and end the process.
-    console.error("simulation worker failed:", err);
-    process.exit(70);
-  });
+  worker.on("error", (err) => console.error("simulation worker failed:", err));
   return worker;
 }

@@ -19,3 +19,14 @@ describe("worker-thread executor", () => {
     }
   });
 });
+
+describe("awaitWord", () => {
+  it("returns once the word holds the value, and throws when a worker set the failure word", async () => {
+    const { awaitWord } = await import("@/lib/simulation/parallel/worker-executor");
+    const ctrl = new Int32Array(new SharedArrayBuffer(16));
+    ctrl[1] = 5;
+    expect(() => awaitWord(ctrl, 1, 5, 3)).not.toThrow();
+    ctrl[3] = 1;
+    expect(() => awaitWord(ctrl, 1, 6, 3)).toThrow("A simulation worker thread failed (its error is printed above); the run cannot continue.");
+  });
+});
