@@ -54,7 +54,7 @@ export function createCosineBasis(grid: Grid): SpectralBasis {
   };
 }
 
-const BLOCK = 32;
+const BLOCK = 16;
 
 /** dst[c·rows + r] = src[r·cols + c], cache-blocked. */
 export function transpose(src: Float64Array, dst: Float64Array, rows: number, cols: number): void {

@@ -15,8 +15,10 @@ export class DctPlan {
   private readonly fft: FFT;
   private readonly cosTw: Float64Array;
   private readonly sinTw: Float64Array;
-  private readonly z: number[];
-  private readonly zOut: number[];
+  // Float64Array scratch: fft.js accepts any indexable; its own createComplexArray gives holey
+  // JS arrays, which measured slower in the pair loops.
+  private readonly z: Float64Array;
+  private readonly zOut: Float64Array;
 
   constructor(size: number) {
     this.size = size;
@@ -27,8 +29,8 @@ export class DctPlan {
       this.cosTw[k] = Math.cos((Math.PI * k) / (2 * size));
       this.sinTw[k] = Math.sin((Math.PI * k) / (2 * size));
     }
-    this.z = this.fft.createComplexArray();
-    this.zOut = this.fft.createComplexArray();
+    this.z = new Float64Array(2 * size);
+    this.zOut = new Float64Array(2 * size);
   }
 
   /**
@@ -37,53 +39,68 @@ export class DctPlan {
    */
   forwardPair(src: Float64Array, dst: Float64Array, a: number, b: number): void {
     const N = this.size, z = this.z, Z = this.zOut, cw = this.cosTw, sw = this.sinTw;
-    const half = N >> 1;
-    for (let n = 0; n < half; n++) {
-      const j = 2 * (N - 1 - n);
-      z[2 * n] = src[a + 2 * n];
-      z[j] = src[a + 2 * n + 1];
-      z[2 * n + 1] = b >= 0 ? src[b + 2 * n] : 0;
-      z[j + 1] = b >= 0 ? src[b + 2 * n + 1] : 0;
+    const half = N >> 1, two = b >= 0;
+    if (two) {
+      for (let n = 0; n < half; n++) {
+        const j = 2 * (N - 1 - n);
+        z[2 * n] = src[a + 2 * n];
+        z[j] = src[a + 2 * n + 1];
+        z[2 * n + 1] = src[b + 2 * n];
+        z[j + 1] = src[b + 2 * n + 1];
+      }
+    } else {
+      for (let n = 0; n < half; n++) {
+        const j = 2 * (N - 1 - n);
+        z[2 * n] = src[a + 2 * n];
+        z[j] = src[a + 2 * n + 1];
+        z[2 * n + 1] = 0;
+        z[j + 1] = 0;
+      }
     }
     this.fft.transform(Z, z);
-    for (let k = 0; k < N; k++) {
-      const m = k === 0 ? 0 : N - k;
+    // k = 0: V^a_0 = Re Z_0, V^b_0 = Im Z_0, twiddle 1.
+    dst[a] = Z[0];
+    if (two) dst[b] = Z[1];
+    for (let k = 1; k < N; k++) {
+      const m = N - k;
       const zr = Z[2 * k], zi = Z[2 * k + 1], mr = Z[2 * m], mi = Z[2 * m + 1];
+      const c = cw[k], s = sw[k];
       // Split the packed spectrum: V^a = (Z_k + conj Z_{N−k})/2, V^b = (Z_k − conj Z_{N−k})/(2i).
-      const ar = 0.5 * (zr + mr), ai = 0.5 * (zi - mi);
-      dst[a + k] = cw[k] * ar + sw[k] * ai;
-      if (b >= 0) {
-        const br = 0.5 * (zi + mi), bi = 0.5 * (mr - zr);
-        dst[b + k] = cw[k] * br + sw[k] * bi;
-      }
+      dst[a + k] = 0.5 * (c * (zr + mr) + s * (zi - mi));
+      if (two) dst[b + k] = 0.5 * (c * (zi + mi) + s * (mr - zr));
     }
   }
 
   /** Inverse (DCT-III, scaled so it undoes {@link forwardPair}) of rows a and b; b = −1 for one row. */
   inversePair(src: Float64Array, dst: Float64Array, a: number, b: number): void {
     const N = this.size, z = this.z, Z = this.zOut, cw = this.cosTw, sw = this.sinTw;
-    for (let k = 0; k < N; k++) {
-      // V_k = e^{iπk/2N} (X_k − i X_{N−k}), X_N = 0; then Z = V^a + i V^b.
-      const xa = src[a + k], ya = k === 0 ? 0 : src[a + N - k];
-      let re = cw[k] * xa + sw[k] * ya;
-      let im = sw[k] * xa - cw[k] * ya;
-      if (b >= 0) {
-        const xb = src[b + k], yb = k === 0 ? 0 : src[b + N - k];
-        re -= sw[k] * xb - cw[k] * yb;
-        im += cw[k] * xb + sw[k] * yb;
+    const two = b >= 0;
+    // V_k = e^{iπk/2N} (X_k − i X_{N−k}), X_N = 0; Z = V^a + i V^b. The inverse FFT is taken as
+    // conj(FFT(conj Z))/N so the 1/N and the conjugations fold into these two loops.
+    z[0] = src[a];
+    z[1] = two ? -src[b] : 0;
+    for (let k = 1; k < N; k++) {
+      const c = cw[k], s = sw[k];
+      const xa = src[a + k], ya = src[a + N - k];
+      let re = c * xa + s * ya;
+      let im = s * xa - c * ya;
+      if (two) {
+        const xb = src[b + k], yb = src[b + N - k];
+        re -= s * xb - c * yb;
+        im += c * xb + s * yb;
       }
       z[2 * k] = re;
-      z[2 * k + 1] = im;
+      z[2 * k + 1] = -im;
     }
-    this.fft.inverseTransform(Z, z);
-    const half = N >> 1;
+    this.fft.transform(Z, z);
+    const half = N >> 1, inv = 1 / N;
     for (let n = 0; n < half; n++) {
       const j = 2 * (N - 1 - n);
-      dst[a + 2 * n] = Z[2 * n];
-      dst[a + 2 * n + 1] = Z[j];
-      if (b >= 0) {
-        dst[b + 2 * n] = Z[2 * n + 1];
-        dst[b + 2 * n + 1] = Z[j + 1];
+      dst[a + 2 * n] = Z[2 * n] * inv;
+      dst[a + 2 * n + 1] = Z[j] * inv;
+      if (two) {
+        dst[b + 2 * n] = -Z[2 * n + 1] * inv;
+        dst[b + 2 * n + 1] = -Z[j + 1] * inv;
       }
     }
   }
