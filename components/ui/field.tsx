@@ -10,8 +10,10 @@ interface FieldProps {
 }
 
 function Wrap({ label, error, hint, name, children }: FieldProps & { children: React.ReactNode }) {
+  // Nesting labels the field's own control; `htmlFor={name}` would label the first element with
+  // that id on the page (two forms with a "name" field on /account).
   return (
-    <label className="block space-y-1" htmlFor={name}>
+    <label className="block space-y-1">
       <span className="text-sm font-medium text-ink">{label}</span>
       {children}
       {hint && !error && <span className="block text-xs text-ink-soft">{hint}</span>}

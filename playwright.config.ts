@@ -1,0 +1,43 @@
+/**
+ * Browser tests: Debian's Chromium against a fresh, isolated stack on 127.0.0.1:3100
+ * (tests/e2e/serve.ts). Needs a production build (`npx next build`) first.
+ */
+import { defineConfig } from "@playwright/test";
+
+export default defineConfig({
+  testDir: "tests/e2e",
+  testMatch: "*.spec.ts",
+  outputDir: "test-results",
+  workers: 1,
+  fullyParallel: false,
+  retries: 0,
+  timeout: 45_000,
+  expect: { timeout: 10_000 },
+  reporter: "list",
+  use: {
+    baseURL: "http://127.0.0.1:3100",
+    screenshot: "only-on-failure",
+    trace: "off",
+    video: "off",
+  },
+  projects: [
+    {
+      name: "chromium",
+      use: {
+        browserName: "chromium",
+        launchOptions: {
+          executablePath: "/usr/bin/chromium",
+          args: ["--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run", "--disable-background-networking", "--disable-component-update", "--disable-sync"],
+        },
+      },
+    },
+  ],
+  webServer: {
+    command: "npx tsx tests/e2e/serve.ts",
+    url: "http://127.0.0.1:3100/api/health",
+    reuseExistingServer: false,
+    timeout: 120_000,
+    stdout: "ignore",
+    stderr: "pipe",
+  },
+});

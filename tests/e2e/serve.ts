@@ -1,0 +1,71 @@
+/**
+ * The browser tests' own stack: a fresh data folder, the fakes on their own ports, the demo data,
+ * then `next start` on 127.0.0.1:3100. Playwright starts this file as its web server and stops
+ * it (with its whole process group) when the run ends. It never builds: `npm run test:e2e`
+ * expects `next build` to have run.
+ */
+import { existsSync, rmSync } from "node:fs";
+import net from "node:net";
+import path from "node:path";
+import { spawn } from "node:child_process";
+
+const ROOT = path.resolve(import.meta.dirname, "../..");
+
+export const E2E_ENV = {
+  MORPHOKIN_DATA_DIR: path.join(ROOT, "storage/data-e2e"),
+  PORT: "3100",
+  NEXTAUTH_URL: "http://127.0.0.1:3100",
+  S3_ENDPOINT: "http://127.0.0.1:4570",
+  SMTP_URL: "smtp://127.0.0.1:2527",
+  DEV_MAILBOX_URL: "http://127.0.0.1:2528",
+} as const;
+
+function fail(message: string): never {
+  process.stderr.write(`e2e server: ${message}\n`);
+  process.exit(1);
+}
+
+function portInUse(port: number): Promise<boolean> {
+  return new Promise((resolve) => {
+    const s = net.connect({ port, host: "127.0.0.1" });
+    s.once("connect", () => { s.destroy(); resolve(true); });
+    s.once("error", () => resolve(false));
+  });
+}
+
+async function main() {
+  if (!existsSync(path.join(ROOT, ".next/BUILD_ID"))) {
+    fail("no production build (.next/BUILD_ID is missing); run `npx next build` first, then the tests again");
+  }
+  // Reusing a leftover stack would mix its data into this run; refuse instead.
+  for (const port of [3100, 4570, 2527, 2528]) {
+    if (await portInUse(port)) fail(`port ${port} on 127.0.0.1 is already in use (a leftover test stack?); stop it and run again`);
+  }
+  rmSync(E2E_ENV.MORPHOKIN_DATA_DIR, { recursive: true, force: true });
+  // readConfig() reads the environment when called, so set it before anything asks.
+  Object.assign(process.env, E2E_ENV);
+
+  const { appEnv, nextBin, startFakes } = await import("@/lib/cli/local-stack");
+  const { seedDemo } = await import("@/lib/cli/seed-demo");
+  const { services } = await import("@/lib/server/services");
+
+  const env = appEnv();
+  const fakes = await startFakes(env);
+  if (!(await seedDemo())) fail("the fresh e2e database already had users; the data folder was not cleared");
+  await services().db.sequelize.close();
+  process.stdout.write("e2e server: demo data seeded, starting next on 127.0.0.1:3100\n");
+
+  const app = spawn(process.execPath, [nextBin(), "start", "-H", "127.0.0.1", "-p", E2E_ENV.PORT], { cwd: ROOT, env, stdio: "inherit" });
+  const stop = () => {
+    app.kill("SIGTERM");
+    fakes?.kill("SIGTERM");
+  };
+  process.on("SIGINT", stop);
+  process.on("SIGTERM", stop);
+  app.once("exit", (code) => {
+    fakes?.kill("SIGTERM");
+    process.exit(code ?? 0);
+  });
+}
+
+main().catch((err) => fail(err instanceof Error ? err.stack ?? err.message : String(err)));

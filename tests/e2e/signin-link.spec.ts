@@ -1,0 +1,50 @@
+/** Sign-in by e-mailed link: the link signs in once; the second use is refused. */
+import { expect, test } from "@playwright/test";
+import { DEMO, DEMO_LAB } from "./support/demo";
+import { linkTo, mailIds, waitForMail } from "./support/mailbox";
+import { DASHBOARD_URL } from "./support/session";
+
+test("a sign-in link works once", async ({ page, browser }) => {
+  const email = DEMO.scientist.email;
+  const seen = await mailIds(email);
+  await page.goto("/login");
+  await page.getByLabel("E-mail for the link").fill(email);
+  await page.getByTestId("send-link").click();
+  await expect(page).toHaveURL(/\/login\/check-email/);
+  await expect(page.getByTestId("check-email")).toContainText("a sign-in link is on its way");
+
+  const mail = await waitForMail(email, seen);
+  expect(mail.subject).toBe("Your Morphokin sign-in link");
+  const link = linkTo(mail, "/api/auth/callback/email");
+  expect(new URL(link).origin).toBe("http://127.0.0.1:3100");
+
+  await page.goto(link);
+  await expect(page).toHaveURL(DASHBOARD_URL);
+  await expect(page.getByRole("heading", { level: 1 })).toHaveText(DEMO_LAB);
+  await expect(page.getByTestId("current-role")).toHaveText("Bench scientist");
+  expect((await (await page.request.get("/api/v1/me")).json()).email).toBe(email);
+
+  // A second browser (no session) with the same link: back to sign-in, told why.
+  const other = await browser.newContext();
+  try {
+    const p = await other.newPage();
+    await p.goto(link);
+    await expect(p).toHaveURL(/\/login\?.*error=Verification/);
+    await expect(p.getByTestId("login-error")).toHaveText("That sign-in link has expired or was already used. Ask for a new one below.");
+    expect((await p.request.get("/api/v1/me")).status()).toBe(401);
+  } finally {
+    await other.close();
+  }
+});
+
+test("an unknown address gets the same check-your-mail page and no mail", async ({ page }) => {
+  const email = "nobody-here@e2e.example";
+  await page.goto("/login");
+  await page.getByLabel("E-mail for the link").fill(email);
+  await page.getByTestId("send-link").click();
+  await expect(page).toHaveURL(/\/login\/check-email/);
+  await expect(page.getByTestId("check-email")).toBeVisible();
+  // Give a mistaken send time to arrive before concluding none was sent.
+  await page.waitForTimeout(1000);
+  expect(await mailIds(email)).toEqual(new Set());
+});
