@@ -12,6 +12,8 @@ export interface SimulationProgress {
   timeS: number;
   /** timeS / endTimeS, 0 … 1. */
   fraction: number;
+  /** 100 · fraction. */
+  percent: number;
   steps: number;
 }
 

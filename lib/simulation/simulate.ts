@@ -130,11 +130,11 @@ function run(
       }
     }
     if (options.onProgress && steps % progressEvery === 0 && steps < rule.steps) {
-      options.onProgress({ timeS: steps * h, fraction: steps / rule.steps, steps });
+      options.onProgress({ timeS: steps * h, fraction: steps / rule.steps, percent: (100 * steps) / rule.steps, steps });
     }
   }
   const timeS = steps * h;
-  options.onProgress?.({ timeS, fraction: steps / rule.steps, steps });
+  options.onProgress?.({ timeS, fraction: steps / rule.steps, percent: (100 * steps) / rule.steps, steps });
   const fields = views[cur].map((f) => Float64Array.from(f));
   return {
     grid,

@@ -28,6 +28,8 @@ RUN.json fields:
   initial            {"steadyState"?: [...], "noiseAmplitude"?: a, "seed"?: s}; the steady state
                      defaults to the kinetics' closed-form one
   stopWhenStationary, stationarity {"tolerancePerS", "windowS", "minTimeS"}, snapshotTimesS
+  scales             {"lengthScaleUm", "timeScaleS"} of a non-dimensional kinetics: adds a
+                     "physical" block (wavelength in µm, time in s; SCIENCE.md §3)
 Options:
   --out DIR      writes final-<species>.f64 (raw little-endian float64, row-major),
                  final-<species>.png (min–max scaled) and result.json
@@ -46,6 +48,7 @@ interface RunSpec {
   stopWhenStationary?: boolean;
   stationarity?: SimulationOptions["stationarity"];
   snapshotTimesS?: number[];
+  scales?: { lengthScaleUm?: number; timeScaleS?: number };
 }
 
 function readSpec(file: string): RunSpec {
@@ -151,6 +154,18 @@ const command: CliCommand = {
       const json: Record<string, unknown> = {
         kinetics: kinetics.id, units: kinetics.units, lengthUnit: kinetics.units === "dimensional" ? "µm" : "model", ...summarise(result), readout: readPattern(result),
       };
+      const sc = spec.scales;
+      if (kinetics.units === "non-dimensional" && sc) {
+        const ro = json.readout as { wavelengthUm?: number | null; nearestNeighbourUm?: number | null };
+        const l = sc.lengthScaleUm, t = sc.timeScaleS;
+        json.physical = {
+          wavelengthUm: l && ro.wavelengthUm ? ro.wavelengthUm * l : null,
+          nearestNeighbourUm: l && ro.nearestNeighbourUm ? ro.nearestNeighbourUm * l : null,
+          timeS: t ? result.timeS * t : null,
+          lengthScaleUm: l ?? null,
+          timeScaleS: t ?? null,
+        };
+      }
       if (typeof options.out === "string") json.files = await writeOutputs(options.out, result, json);
       const text = `${result.message}\n${result.speciesNames.map((n, s) => `${n}: min ${result.stats[s].min.toPrecision(4)}, max ${result.stats[s].max.toPrecision(4)}, mean ${result.stats[s].mean.toPrecision(4)}`).join("\n")}`;
       return { json, text };

@@ -19,12 +19,15 @@ describe("cli simulate", () => {
     const spec = writeSpec({
       kinetics: { catalogue: "schnakenberg" }, parameters: { gamma: 1, a: 0.1, b: 0.9, d: 40 },
       grid: { lengthUm: [40, 40], cells: [32, 32] }, endTimeS: 20, initial: { seed: 2 },
+      scales: { lengthScaleUm: 3, timeScaleS: 60 },
     });
     const out = path.join(dir, "out");
     const { json } = (await command.run(["--spec", spec, "--out", out], { json: true })) as { json: Record<string, unknown> };
     expect(json).toMatchObject({ kinetics: "schnakenberg", stopReason: "end-time", steps: 200, timeS: 20, seed: "2", lengthUnit: "model" });
     expect((json.fields as { species: string }[]).map((f) => f.species)).toEqual(["u", "v"]);
     expect(json.readout).toHaveProperty("periodFound");
+    // SCIENCE.md §3: physical time = model time × τ.
+    expect(json.physical).toMatchObject({ timeS: 20 * 60, lengthScaleUm: 3, timeScaleS: 60 });
     const raw = readFileSync(path.join(out, "final-u.f64"));
     expect(raw.byteLength).toBe(32 * 32 * 8);
     // The mean written in the summary equals the mean of the raw field (same data).

@@ -115,12 +115,14 @@ describe("stopping, snapshots, progress, cancellation, blow-up", () => {
 
   it("snapshots at requested times, progress fractions increase to 1", () => {
     const seen: number[] = [];
+    const percents: number[] = [];
     const r = simulateReactionDiffusion(schnakenbergReaction, {
-      ...base, dtS: 0.1, snapshotTimesS: [0, 2.5, 5], onProgress: (p) => seen.push(p.fraction), progressEverySteps: 10,
+      ...base, dtS: 0.1, snapshotTimesS: [0, 2.5, 5], onProgress: (p) => { seen.push(p.fraction); percents.push(p.percent); }, progressEverySteps: 10,
     });
     expect(r.snapshots.map((s) => [s.requestedTimeS, s.step])).toEqual([[0, 0], [2.5, 25], [5, 50]]);
     expect(r.snapshots[2].timeS).toBeCloseTo(5, 12);
     expect(seen.at(-1)).toBe(1);
+    expect(percents).toEqual(seen.map((f) => 100 * f));
     expect(seen.length).toBe(10);
     expect(seen.every((v, i) => i === 0 || v > seen[i - 1])).toBe(true);
     expect(r.stopReason).toBe("end-time");
