@@ -8,6 +8,10 @@ import { initApiToken } from "./api-token";
 import { initAuditEvent } from "./audit-event";
 import { initAuthRecords } from "./auth-records";
 import { initInvitation } from "./invitation";
+import { initJob } from "./job";
+import { initKineticsVersion } from "./kinetics-version";
+import { initLabKinetics } from "./lab-kinetics";
+import { initReadout } from "./readout";
 import { initLab } from "./lab";
 import { initMembership } from "./membership";
 import { initSpecimen } from "./specimen";
@@ -27,8 +31,12 @@ export function createModels(sequelize: Sequelize) {
     Specimen: initSpecimen(sequelize),
     Upload: initUpload(sequelize),
     ApiToken: initApiToken(sequelize),
+    LabKinetics: initLabKinetics(sequelize),
+    KineticsVersion: initKineticsVersion(sequelize),
+    Job: initJob(sequelize),
+    Readout: initReadout(sequelize),
   };
-  const { User, Lab, Membership, Invitation, Study, Specimen, Upload, ApiToken } = models;
+  const { User, Lab, Membership, Invitation, Study, Specimen, Upload, ApiToken, LabKinetics, KineticsVersion, Readout } = models;
   Membership.belongsTo(User, { as: "user", foreignKey: "userId" });
   Membership.belongsTo(Lab, { as: "lab", foreignKey: "labId" });
   Lab.hasMany(Membership, { as: "memberships", foreignKey: "labId" });
@@ -42,6 +50,10 @@ export function createModels(sequelize: Sequelize) {
   Study.belongsTo(User, { as: "creator", foreignKey: "createdBy" });
   Specimen.belongsTo(User, { as: "creator", foreignKey: "createdBy" });
   ApiToken.belongsTo(User, { as: "user", foreignKey: "userId" });
+  LabKinetics.hasMany(KineticsVersion, { as: "versions", foreignKey: "kineticsId" });
+  KineticsVersion.belongsTo(LabKinetics, { as: "kinetics", foreignKey: "kineticsId" });
+  Upload.hasMany(Readout, { as: "readouts", foreignKey: "uploadId" });
+  Readout.belongsTo(Upload, { as: "upload", foreignKey: "uploadId" });
   return models;
 }
 

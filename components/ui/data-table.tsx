@@ -4,7 +4,7 @@
  * server-side sorting, filtering and pagination through the API's `?page&pageSize&sort&dir&q`.
  */
 import { flexRender, getCoreRowModel, useReactTable, type ColumnDef, type SortingState } from "@tanstack/react-table";
-import { useEffect, useState } from "react";
+import { useEffect, useMemo, useState } from "react";
 import useSWR from "swr";
 import { fetchJson } from "@/lib/client/api";
 
@@ -46,9 +46,15 @@ export function DataTable<T>({ url, columns, defaultSort, pageSize = 25, filterP
   useEffect(() => {
     if (refreshKey) void mutate();
   }, [refreshKey, mutate]);
+  // Sorting happens on the server by column id; TanStack only lets a column sort when it has an
+  // accessor, so give every column one that reads the field of the same name.
+  const sortableColumns = useMemo(
+    () => columns.map((c) => ("accessorFn" in c || "accessorKey" in c ? c : ({ accessorFn: (row: T) => (row as Record<string, unknown>)[c.id!], ...c } as ColumnDef<T, unknown>))),
+    [columns],
+  );
   const table = useReactTable({
     data: data?.items ?? [],
-    columns,
+    columns: sortableColumns,
     state: { sorting },
     onSortingChange: (s) => {
       setSorting(s);

@@ -29,6 +29,7 @@ export const ACTIONS = [
   "comment.create",
   "kinetics.edit",
   "fit.create",
+  "job.cancel",
 ] as const;
 export type Action = (typeof ACTIONS)[number];
 
@@ -52,6 +53,7 @@ const table: Record<Action, Record<Role, Scope>> = {
   "comment.create": { manager: "any", scientist: "any", modeller: "any", collaborator: "any" },
   "kinetics.edit": { manager: "any", scientist: false, modeller: "own", collaborator: false },
   "fit.create": { manager: "any", scientist: "any", modeller: "any", collaborator: false },
+  "job.cancel": { manager: "any", scientist: "own", modeller: "own", collaborator: false },
 };
 
 /** Whether `role` may do `action`; pass `ownerId`/`actorId` for actions on an existing object. */

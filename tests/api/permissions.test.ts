@@ -1,125 +1,30 @@
 /**
  * Every API route × every role × own lab / another lab / signed out, against the permission
  * table in PRODUCT.md ("common practice, no source": expected statuses are the product rules).
- * A route file that is not listed in CASES makes the first test fail.
+ * Cases live in ./permission-cases/*.ts, one file per area. A route file that is not listed
+ * there makes the first test fail.
  */
-import sharp from "sharp";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
-import { ROLES, type Role } from "@/lib/access/roles";
-import type { LabContext } from "@/lib/server/access";
-import { createSpecimen } from "@/lib/server/data/specimens";
+import { ROLES } from "@/lib/access/roles";
+import { readdirSync } from "node:fs";
+import path from "node:path";
 import { createStudy } from "@/lib/server/data/studies";
-import { newSecret, sha256Hex } from "@/lib/server/secrets";
-import { database } from "@/lib/server/services";
-import { call, discoverRoutes, multipart, type Method } from "../support/api";
+import { call, discoverRoutes, type Method } from "../support/api";
 import { startTestStack, type TestStack } from "../support/stack";
-import { makePerson, makeWorld, type World } from "../support/world";
+import { makeWorld, type World } from "../support/world";
+import { study, type Case, type Who } from "./permission-cases/shared";
 
 vi.mock("next-auth", async (original) => ({ ...(await original<typeof import("next-auth")>()), getServerSession: async () => null }));
 
-type Who = Role | "outsider" | "anonymous";
-type Expect = Record<Who, number>;
-interface Setup {
-  params?: Record<string, string>;
-  json?: unknown;
-  form?: FormData;
-  query?: string;
+const CASES: Record<string, Case> = {};
+const casesDir = path.join(import.meta.dirname, "permission-cases");
+for (const f of readdirSync(casesDir).filter((x) => x.endsWith(".ts") && x !== "shared.ts").sort()) {
+  const mod = (await import(path.join(casesDir, f))) as { cases: Record<string, Case> };
+  for (const [k, v] of Object.entries(mod.cases)) {
+    if (CASES[k]) throw new Error(`${k} is listed in two permission-case files`);
+    CASES[k] = v;
+  }
 }
-interface Case {
-  setup: (w: World, who: Who) => Promise<Setup>;
-  expect: Expect;
-}
-
-const ALL = (s: number, outsider = 404, anonymous = 401): Expect => ({ manager: s, scientist: s, modeller: s, collaborator: s, outsider, anonymous });
-const MANAGER_ONLY = (s: number): Expect => ({ manager: s, scientist: 403, modeller: 403, collaborator: 403, outsider: 404, anonymous: 401 });
-const NOT_COLLAB = (s: number): Expect => ({ manager: s, scientist: s, modeller: s, collaborator: 403, outsider: 404, anonymous: 401 });
-const USER = (s: number): Expect => ({ manager: s, scientist: s, modeller: s, collaborator: s, outsider: s, anonymous: 401 });
-const PUBLIC = (s: number): Expect => ({ manager: s, scientist: s, modeller: s, collaborator: s, outsider: s, anonymous: s });
-
-let png: Uint8Array;
-let seq = 0;
-const managerCtx = (w: World): LabContext => ({ actor: w.people.manager.actor, labId: w.labId, labName: "Test Lab", role: "manager" });
-const study = async (w: World) => createStudy(managerCtx(w), { name: `S${++seq}`, tissue: "skin", organism: "chick", description: null });
-const specimen = async (w: World) => createSpecimen(managerCtx(w), (await study(w)).id, { label: `X${++seq}`, condition: "control", stage: null, genotype: null, notes: null });
-const upload = async (w: World) => {
-  const sp = await specimen(w);
-  const { storeUpload } = await import("@/lib/server/data/uploads");
-  const { writeFileSync, mkdtempSync } = await import("node:fs");
-  const { tmpdir } = await import("node:os");
-  const file = `${mkdtempSync(`${tmpdir()}/mk-`)}/a.png`;
-  writeFileSync(file, png);
-  return storeUpload(managerCtx(w), sp.id, { path: file, filename: "a.png", sizeBytes: png.length, sha256: sha256Hex(Buffer.from(png)), kind: "image", contentType: "image/png", pixelSizeUm: 1, pixelSizeSource: "uploader" });
-};
-const invitation = async (w: World) => {
-  const m = await database();
-  const token = newSecret("inv");
-  const inv = await m.Invitation.create({ labId: w.labId, email: `inv${++seq}@lab.test`, role: "scientist", tokenHash: sha256Hex(token), invitedBy: w.people.manager.userId, expiresAt: new Date(Date.now() + 86_400_000) });
-  return { inv, token };
-};
-const lab = (w: World, extra: Record<string, string> = {}) => ({ labId: w.labId, ...extra });
-
-const CASES: Record<string, Case> = {
-  "POST /api/v1/signup": { setup: async () => ({ json: { name: "N", email: `new${++seq}@lab.test`, password: "long-enough-pw", labName: "New Lab" } }), expect: PUBLIC(201) },
-  "GET /api/v1/me": { setup: async () => ({}), expect: USER(200) },
-  "PATCH /api/v1/me": { setup: async () => ({ json: { notifyByEmail: false } }), expect: USER(200) },
-  "GET /api/v1/labs": { setup: async () => ({}), expect: USER(200) },
-  "POST /api/v1/labs": { setup: async () => ({ json: { name: `Lab ${++seq}` } }), expect: USER(201) },
-  "GET /api/v1/tokens": { setup: async () => ({}), expect: USER(200) },
-  "POST /api/v1/tokens": { setup: async () => ({ json: { name: "script" } }), expect: USER(201) },
-  "DELETE /api/v1/tokens/[tokenId]": {
-    // Always the manager's token: only the manager may revoke it; for anyone else it does not exist.
-    setup: async (w) => {
-      const { createToken } = await import("@/lib/server/data/tokens");
-      return { params: { tokenId: (await createToken(w.people.manager.actor, "victim")).id } };
-    },
-    expect: { manager: 204, scientist: 404, modeller: 404, collaborator: 404, outsider: 404, anonymous: 401 },
-  },
-  "GET /api/v1/invitations/[token]": { setup: async (w) => ({ params: { token: (await invitation(w)).token } }), expect: PUBLIC(200) },
-  "POST /api/v1/invitations/[token]/accept": { setup: async (w) => ({ params: { token: (await invitation(w)).token }, json: { name: "Invitee", password: "long-enough-pw" } }), expect: PUBLIC(200) },
-  "GET /api/v1/labs/[labId]": { setup: async (w) => ({ params: lab(w) }), expect: ALL(200) },
-  "GET /api/v1/labs/[labId]/members": { setup: async (w) => ({ params: lab(w) }), expect: ALL(200) },
-  "PATCH /api/v1/labs/[labId]/members/[memberId]": {
-    setup: async (w) => {
-      const p = await makePerson("scientist", w.labId, "extra");
-      const m = await database();
-      const ms = await m.Membership.findOne({ where: { labId: w.labId, userId: p.userId } });
-      return { params: lab(w, { memberId: ms!.id }), json: { role: "modeller" } };
-    },
-    expect: MANAGER_ONLY(200),
-  },
-  "DELETE /api/v1/labs/[labId]/members/[memberId]": {
-    setup: async (w) => {
-      const p = await makePerson("scientist", w.labId, "extra");
-      const m = await database();
-      const ms = await m.Membership.findOne({ where: { labId: w.labId, userId: p.userId } });
-      return { params: lab(w, { memberId: ms!.id }) };
-    },
-    expect: MANAGER_ONLY(204),
-  },
-  "GET /api/v1/labs/[labId]/invitations": { setup: async (w) => ({ params: lab(w) }), expect: MANAGER_ONLY(200) },
-  "POST /api/v1/labs/[labId]/invitations": { setup: async (w) => ({ params: lab(w), json: { email: `fresh${++seq}@lab.test`, role: "collaborator" } }), expect: MANAGER_ONLY(201) },
-  "DELETE /api/v1/labs/[labId]/invitations/[invitationId]": { setup: async (w) => ({ params: lab(w, { invitationId: (await invitation(w)).inv.id }) }), expect: MANAGER_ONLY(204) },
-  "GET /api/v1/labs/[labId]/audit": { setup: async (w) => ({ params: lab(w) }), expect: MANAGER_ONLY(200) },
-  "GET /api/v1/labs/[labId]/mailbox": { setup: async (w) => ({ params: lab(w) }), expect: MANAGER_ONLY(200) },
-  "GET /api/v1/labs/[labId]/studies": { setup: async (w) => ({ params: lab(w), query: "sort=name&dir=asc" }), expect: ALL(200) },
-  "POST /api/v1/labs/[labId]/studies": { setup: async (w) => ({ params: lab(w), json: { name: "Mine", tissue: "skin", organism: "chick" } }), expect: NOT_COLLAB(201) },
-  "GET /api/v1/labs/[labId]/studies/[studyId]": { setup: async (w) => ({ params: lab(w, { studyId: (await study(w)).id }) }), expect: ALL(200) },
-  "PATCH /api/v1/labs/[labId]/studies/[studyId]": { setup: async (w) => ({ params: lab(w, { studyId: (await study(w)).id }), json: { name: "Renamed" } }), expect: MANAGER_ONLY(200) },
-  "DELETE /api/v1/labs/[labId]/studies/[studyId]": { setup: async (w) => ({ params: lab(w, { studyId: (await study(w)).id }) }), expect: MANAGER_ONLY(204) },
-  "GET /api/v1/labs/[labId]/studies/[studyId]/specimens": { setup: async (w) => ({ params: lab(w, { studyId: (await study(w)).id }) }), expect: ALL(200) },
-  "POST /api/v1/labs/[labId]/studies/[studyId]/specimens": { setup: async (w) => ({ params: lab(w, { studyId: (await study(w)).id }), json: { label: "A1", condition: "control" } }), expect: NOT_COLLAB(201) },
-  "GET /api/v1/labs/[labId]/specimens/[specimenId]": { setup: async (w) => ({ params: lab(w, { specimenId: (await specimen(w)).id }) }), expect: ALL(200) },
-  "PATCH /api/v1/labs/[labId]/specimens/[specimenId]": { setup: async (w) => ({ params: lab(w, { specimenId: (await specimen(w)).id }), json: { stage: "E12" } }), expect: MANAGER_ONLY(200) },
-  "DELETE /api/v1/labs/[labId]/specimens/[specimenId]": { setup: async (w) => ({ params: lab(w, { specimenId: (await specimen(w)).id }) }), expect: MANAGER_ONLY(204) },
-  "GET /api/v1/labs/[labId]/specimens/[specimenId]/uploads": { setup: async (w) => ({ params: lab(w, { specimenId: (await specimen(w)).id }) }), expect: ALL(200) },
-  "POST /api/v1/labs/[labId]/specimens/[specimenId]/uploads": {
-    setup: async (w) => ({ params: lab(w, { specimenId: (await specimen(w)).id }), form: multipart({ name: "p.png", bytes: png }, { pixelSizeUm: "0.65" }) }),
-    expect: NOT_COLLAB(201),
-  },
-  "GET /api/v1/labs/[labId]/uploads/[uploadId]": { setup: async (w) => ({ params: lab(w, { uploadId: (await upload(w)).id }) }), expect: ALL(200) },
-  "DELETE /api/v1/labs/[labId]/uploads/[uploadId]": { setup: async (w) => ({ params: lab(w, { uploadId: (await upload(w)).id }) }), expect: MANAGER_ONLY(204) },
-  "GET /api/v1/labs/[labId]/uploads/[uploadId]/content": { setup: async (w) => ({ params: lab(w, { uploadId: (await upload(w)).id }) }), expect: ALL(200) },
-};
 
 let stack: TestStack;
 let world: World;
@@ -129,7 +34,6 @@ beforeAll(async () => {
   stack = await startTestStack();
   world = await makeWorld();
   routes = await discoverRoutes();
-  png = new Uint8Array(await sharp({ create: { width: 32, height: 32, channels: 3, background: { r: 90, g: 120, b: 100 } } }).png().toBuffer());
 });
 afterAll(async () => stack?.close());
 

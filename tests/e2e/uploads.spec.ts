@@ -102,10 +102,6 @@ test("the studies table filters on the server", async ({ page }) => {
 });
 
 test("the studies table sorts by name on the server", async ({ page }) => {
-  // Known bug: components/ui/data-table.tsx renders a sort button only when TanStack's
-  // column.getCanSort() is true, which needs an accessor; the app's columns define only id + cell,
-  // so no header is sortable. Remove this line when the table gets accessors.
-  test.fail(true, "data-table columns have no accessor, so no header offers sorting");
   const labId = await signIn(page, DEMO.modeller.email);
   await page.goto(`/labs/${labId}/studies`);
   const table = page.getByTestId("studies-table");

@@ -10,6 +10,7 @@ import { startFakeS3 } from "@/fake-services/fake-s3";
 import { startFakeSmtp } from "@/fake-services/fake-smtp";
 import { readConfig } from "@/lib/server/config";
 import { createServices, setServicesForTest, type Services } from "@/lib/server/services";
+import { resumeJobs, stopJobs } from "@/lib/server/jobs/runner";
 
 export async function freePort(): Promise<number> {
   return new Promise((resolve, reject) => {
@@ -48,11 +49,13 @@ export async function startTestStack(): Promise<TestStack> {
   const services = createServices(config);
   await services.db.ready;
   setServicesForTest(services);
+  resumeJobs();
   return {
     services,
     dir,
     mailboxUrl: config.devMailboxUrl,
     async close() {
+      await stopJobs();
       setServicesForTest(undefined);
       await services.db.sequelize.close();
       await Promise.allSettled([s3.close(), smtp.close()]);

@@ -1,0 +1,14 @@
+import { cancelOwnJob } from "@/lib/server/data/jobs";
+import { json } from "@/lib/server/http";
+import { labRoute } from "@/lib/server/lab-route";
+import { getJob } from "@/lib/server/jobs/runner";
+
+export const runtime = "nodejs";
+
+type P = { labId: string; jobId: string };
+
+/** Status and progress of one job (poll this while it runs). */
+export const GET = labRoute<P>("lab.read", async (ctx, _request, p) => json(await getJob(ctx.labId, p.jobId)));
+
+/** Cancels a queued or running job (its requester or a lab manager). */
+export const DELETE = labRoute<P>("job.cancel", async (ctx, _request, p) => json(await cancelOwnJob(ctx, p.jobId)));

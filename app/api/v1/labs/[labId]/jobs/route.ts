@@ -1,0 +1,8 @@
+import { listJobs } from "@/lib/server/data/jobs";
+import { json } from "@/lib/server/http";
+import { labRoute } from "@/lib/server/lab-route";
+
+export const runtime = "nodejs";
+
+/** The lab's recent jobs; `?mine=1` for the caller's own. */
+export const GET = labRoute("lab.read", async (ctx, request) => json({ items: await listJobs(ctx, new URL(request.url).searchParams.get("mine") === "1") }));

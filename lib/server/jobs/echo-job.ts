@@ -1,0 +1,15 @@
+/** A trivial job kind used by the runner's own tests: waits `ms`, checks cancellation, echoes. */
+import { registerJobHandler } from "./registry";
+import { JobCancelledError } from "./types";
+
+registerJobHandler("echo", async (job, ctx) => {
+  const ms = Number(job.payload.ms ?? 0);
+  const steps = 10;
+  for (let i = 0; i < steps; i++) {
+    if (ctx.signal.aborted) throw new JobCancelledError();
+    await new Promise((r) => setTimeout(r, ms / steps));
+    await ctx.progress((i + 1) / steps, `step ${i + 1} of ${steps}`);
+  }
+  if (job.payload.fail) throw new Error(String(job.payload.fail));
+  return { echo: job.payload.value ?? null };
+});

@@ -1,0 +1,171 @@
+/**
+ * Background jobs behind one interface: a `jobs` table in SQLite, run in this process, one at a
+ * time by default (JOB_CONCURRENCY). The same interface could sit on a queue engine with workers
+ * on many machines; callers only enqueue and read job rows.
+ */
+import type { Transaction } from "sequelize";
+import type { JobStatus } from "@/models/job";
+import { AppError, notFound } from "../errors";
+import { database } from "../services";
+import { JOB_HANDLERS } from "./registry";
+import { JobCancelledError, type JobInput } from "./types";
+import "./handlers";
+
+const g = globalThis as unknown as { __morphokinJobs?: { running: Map<string, AbortController>; recovered: boolean; kicking: boolean; stopped: boolean; finishing: Set<Promise<void>> } };
+const state = (g.__morphokinJobs ??= { running: new Map(), recovered: false, kicking: false, stopped: false, finishing: new Set() });
+const concurrency = () => Math.max(1, Number(process.env.JOB_CONCURRENCY ?? "1") || 1);
+
+export interface JobDto {
+  id: string;
+  kind: string;
+  status: JobStatus;
+  progress: number;
+  progressNote: string | null;
+  error: string | null;
+  result: Record<string, unknown> | null;
+  requestedBy: string | null;
+  createdAt: string;
+  startedAt: string | null;
+  finishedAt: string | null;
+}
+
+type JobRow = InstanceType<Awaited<ReturnType<typeof database>>["Job"]>;
+
+export function toJobDto(j: JobRow): JobDto {
+  return {
+    id: j.id,
+    kind: j.kind,
+    status: j.status,
+    progress: j.progress,
+    progressNote: j.progressNote,
+    error: j.error,
+    result: j.result,
+    requestedBy: j.requestedBy,
+    createdAt: j.createdAt.toISOString(),
+    startedAt: j.startedAt?.toISOString() ?? null,
+    finishedAt: j.finishedAt?.toISOString() ?? null,
+  };
+}
+
+/** Queues a job; it starts after the surrounding transaction (if any) commits. */
+export async function enqueueJob(input: { labId: string; kind: string; payload: Record<string, unknown>; requestedBy: string | null }, transaction?: Transaction): Promise<JobRow> {
+  if (!JOB_HANDLERS[input.kind]) throw new Error(`no handler for job kind "${input.kind}"`);
+  const m = await database();
+  const job = await m.Job.create({ ...input, status: "queued" }, { transaction });
+  if (transaction) transaction.afterCommit(() => kickJobs());
+  else kickJobs();
+  return job;
+}
+
+async function recover() {
+  if (state.recovered) return;
+  state.recovered = true;
+  const m = await database();
+  // A job that was running when the server stopped starts again from the beginning.
+  await m.Job.update({ status: "queued", progress: 0, progressNote: "restarted after a server restart" }, { where: { status: "running" } });
+}
+
+/** Starts queued jobs while there is capacity. Safe to call often. */
+export function kickJobs(): void {
+  if (state.kicking || state.stopped) return;
+  state.kicking = true;
+  void (async () => {
+    try {
+      await recover();
+      const m = await database();
+      while (state.running.size < concurrency() && !state.stopped) {
+        const next = await m.Job.findOne({ where: { status: "queued" }, order: [["createdAt", "asc"]] });
+        if (!next) break;
+        const [claimed] = await m.Job.update({ status: "running", startedAt: new Date(), progress: 0 }, { where: { id: next.id, status: "queued" } });
+        if (claimed === 0) continue;
+        const controller = new AbortController();
+        state.running.set(next.id, controller);
+        const done: Promise<void> = execute(next, controller).finally(() => {
+          state.running.delete(next.id);
+          state.finishing.delete(done);
+          kickJobs();
+        });
+        state.finishing.add(done);
+      }
+    } catch (err) {
+      console.error("job runner:", err);
+    } finally {
+      state.kicking = false;
+    }
+  })();
+}
+
+async function execute(row: JobRow, controller: AbortController) {
+  const m = await database();
+  const handler = JOB_HANDLERS[row.kind];
+  const input: JobInput = { id: row.id, labId: row.labId, kind: row.kind, payload: row.payload, requestedBy: row.requestedBy };
+  let last = 0;
+  const progress = async (fraction: number, note?: string) => {
+    const now = Date.now();
+    if (now - last < 250 && fraction < 1) return;
+    last = now;
+    await m.Job.update({ progress: Math.min(1, Math.max(0, fraction)), progressNote: note ?? null }, { where: { id: row.id } });
+  };
+  try {
+    // Let the request that queued the job answer first.
+    await new Promise((r) => setImmediate(r));
+    const result = await handler(input, { progress, signal: controller.signal });
+    if (controller.signal.aborted) throw new JobCancelledError();
+    await m.Job.update({ status: "succeeded", progress: 1, result, finishedAt: new Date() }, { where: { id: row.id } });
+  } catch (err) {
+    const cancelled = err instanceof JobCancelledError || controller.signal.aborted;
+    const message = err instanceof AppError || err instanceof JobCancelledError ? err.message : err instanceof Error ? err.message : String(err);
+    if (!cancelled && !(err instanceof AppError)) console.error(`job ${row.kind} ${row.id} failed:`, err);
+    await m.Job.update({ status: cancelled ? "cancelled" : "failed", error: message, finishedAt: new Date() }, { where: { id: row.id } });
+  }
+}
+
+export async function getJob(labId: string, jobId: string): Promise<JobDto> {
+  const m = await database();
+  const job = await m.Job.findOne({ where: { id: jobId, labId } });
+  if (!job) throw notFound("job");
+  return toJobDto(job);
+}
+
+export async function cancelJob(labId: string, jobId: string): Promise<JobDto> {
+  const m = await database();
+  const job = await m.Job.findOne({ where: { id: jobId, labId } });
+  if (!job) throw notFound("job");
+  if (job.status === "queued") {
+    await job.update({ status: "cancelled", error: "the job was cancelled", finishedAt: new Date() });
+  } else if (job.status === "running") {
+    state.running.get(job.id)?.abort();
+  } else {
+    throw new AppError("conflict", `this job has already ${job.status === "succeeded" ? "finished" : job.status}`);
+  }
+  return toJobDto((await m.Job.findByPk(job.id))!);
+}
+
+/** Waits until a job leaves queued/running (tests and the CLI). */
+export async function waitForJob(jobId: string, timeoutMs = 60_000): Promise<JobDto> {
+  const m = await database();
+  const until = Date.now() + timeoutMs;
+  for (;;) {
+    const j = await m.Job.findByPk(jobId);
+    if (!j) throw notFound("job");
+    if (j.status !== "queued" && j.status !== "running") return toJobDto(j);
+    if (Date.now() > until) throw new Error(`job ${jobId} still ${j.status} after ${timeoutMs} ms`);
+    await new Promise((r) => setTimeout(r, 50));
+  }
+}
+
+
+
+/** Cancels running jobs and waits for them to record it; no new job starts until `resumeJobs`. */
+export async function stopJobs(): Promise<void> {
+  state.stopped = true;
+  while (state.kicking) await new Promise((r) => setTimeout(r, 10));
+  for (const c of state.running.values()) c.abort();
+  while (state.finishing.size > 0) await Promise.allSettled([...state.finishing]);
+}
+
+export function resumeJobs(): void {
+  state.stopped = false;
+  state.recovered = false;
+  kickJobs();
+}
