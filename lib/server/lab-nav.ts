@@ -8,6 +8,7 @@ export function labNav(labId: string, role: Role) {
   const items = [
     { href: base, label: "Dashboard" },
     { href: `${base}/studies`, label: "Studies" },
+    { href: `${base}/kinetics`, label: "Kinetics" },
     { href: `${base}/members`, label: "Members" },
   ];
   if (can(role, "audit.read")) items.push({ href: `${base}/audit`, label: "Audit trail" });
