@@ -13,6 +13,7 @@ async function resolve(task: MapTask): Promise<CompiledKinetics> {
   type CompileModule = typeof import("../kinetics/compile-kinetics");
   // Under the tsx CommonJS hook (worker-bootstrap.cjs) only require() sees .ts files; a
   // compiled ESM build has no require, and import() resolves there.
+  // eslint-disable-next-line @typescript-eslint/no-require-imports -- see above
   const mod: CompileModule = typeof require === "function" ? require("../kinetics/compile-kinetics") : await import("../kinetics/compile-kinetics");
   return mod.compileKinetics(task.source.definition);
 }
