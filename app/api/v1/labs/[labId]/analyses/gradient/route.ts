@@ -1,0 +1,9 @@
+import { gradientRequestSchema } from "@/lib/contracts/kinetics";
+import { analyseGradient } from "@/lib/server/data/kinetics-analyses";
+import { json, readJson } from "@/lib/server/http";
+import { labRoute } from "@/lib/server/lab-route";
+
+export const runtime = "nodejs";
+
+/** Computed on request for a catalogue kinetics or a lab kinetics at a version; nothing is stored. */
+export const POST = labRoute("lab.read", async (ctx, request) => json(await analyseGradient(ctx, await readJson(request, gradientRequestSchema))));

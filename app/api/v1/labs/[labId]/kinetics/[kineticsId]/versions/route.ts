@@ -1,0 +1,8 @@
+import { listKineticsVersions } from "@/lib/server/data/kinetics";
+import { json } from "@/lib/server/http";
+import { labRoute } from "@/lib/server/lab-route";
+
+export const runtime = "nodejs";
+
+/** Every version, newest first, with its definition. */
+export const GET = labRoute<{ labId: string; kineticsId: string }>("lab.read", async (ctx, _request, p) => json({ items: await listKineticsVersions(ctx, p.kineticsId) }));
