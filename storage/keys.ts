@@ -10,3 +10,8 @@ export function uploadDerivedKey(labId: string, uploadId: string, name: string):
   if (!/^[a-z0-9][a-z0-9._-]*$/.test(name)) throw new Error(`derived object name "${name}" is not a plain lowercase name`);
   return `labs/${labId}/uploads/${uploadId}/${name}`;
 }
+
+/** A derived product of one readout (spectrum JSON, preview or FFT PNG), next to the upload's original. */
+export function readoutDerivedKey(labId: string, uploadId: string, readoutId: string, product: string): string {
+  return uploadDerivedKey(labId, uploadId, `readout-${readoutId.toLowerCase()}-${product}`);
+}

@@ -3,13 +3,16 @@
  * file's metadata (or the uploader), then store object + row together.
  */
 import { readFileSync } from "node:fs";
+import sharp from "sharp";
 import { readPixelSize, sniffFileKind, type FileKind } from "@/lib/imaging";
+import { MAX_READOUT_PIXELS } from "@/lib/readout";
 import { pixelSizeSchema } from "@/lib/contracts/study";
 import type { LabContext } from "./access";
 import { AppError } from "./errors";
 import { parseUpload } from "./multipart";
 import { services } from "./services";
 import { findSpecimen } from "./data/specimens";
+import { startReadout, type ReadoutDto } from "./data/readouts";
 import { storeUpload, type UploadDto } from "./data/uploads";
 
 export const CONTENT_TYPES: Record<FileKind, string> = {
@@ -22,7 +25,23 @@ export const CONTENT_TYPES: Record<FileKind, string> = {
 
 const isImage = (kind: FileKind) => kind === "png" || kind === "jpeg" || kind === "tiff";
 
-export async function receiveUpload(ctx: LabContext, specimenId: string, request: Request): Promise<UploadDto> {
+/**
+ * Refuses an image above the readout's pixel limit from its header alone (sharp reads no pixel
+ * data for metadata). An unreadable header is left to the readout, which fails with the reason
+ * while the upload is kept.
+ */
+async function checkPixelLimit(path: string, name: string): Promise<void> {
+  const meta = await sharp(path, { limitInputPixels: false }).metadata().catch(() => null);
+  const px = (meta?.width ?? 0) * (meta?.height ?? 0);
+  if (px > MAX_READOUT_PIXELS) {
+    throw new AppError("too_large", `“${name}” is ${meta!.width}×${meta!.height} = ${px} pixels, above the limit of ${MAX_READOUT_PIXELS} pixels (8192×8192); crop or bin it before uploading`);
+  }
+}
+
+/** The stored upload and the readout it started (null when it could not start; `readoutError` says why). */
+export type ReceivedUpload = UploadDto & { readout: ReadoutDto | null; readoutError: string | null };
+
+export async function receiveUpload(ctx: LabContext, specimenId: string, request: Request): Promise<ReceivedUpload> {
   await findSpecimen(ctx, specimenId); // 404 before reading a byte of the body
   const parsed = await parseUpload(request, services().config.maxUploadBytes);
   try {
@@ -30,6 +49,7 @@ export async function receiveUpload(ctx: LabContext, specimenId: string, request
     if (!kind) {
       throw new AppError("bad_input", `“${parsed.file.originalName}” is not a PNG, JPEG or TIFF image nor a CSV/TSV table (judged by its content, not its name)`);
     }
+    if (isImage(kind)) await checkPixelLimit(parsed.file.path, parsed.file.originalName);
     let typed: number | null = null;
     if (parsed.fields.pixelSizeUm !== undefined && parsed.fields.pixelSizeUm.trim() !== "") {
       const p = pixelSizeSchema.safeParse(parsed.fields.pixelSizeUm);
@@ -46,7 +66,7 @@ export async function receiveUpload(ctx: LabContext, specimenId: string, request
       pixelSizeUm = fromFile.pixelSizeUm;
       pixelSizeSource = fromFile.pixelSizeSource;
     }
-    return await storeUpload(ctx, specimenId, {
+    const upload = await storeUpload(ctx, specimenId, {
       path: parsed.file.path,
       filename: parsed.file.originalName,
       sizeBytes: parsed.file.sizeBytes,
@@ -56,6 +76,13 @@ export async function receiveUpload(ctx: LabContext, specimenId: string, request
       pixelSizeUm,
       pixelSizeSource,
     });
+    // Every upload gets its readout with default settings, as a background job.
+    try {
+      return { ...upload, readout: await startReadout(ctx, upload.id, {}), readoutError: null };
+    } catch (err) {
+      if (!(err instanceof AppError)) throw err;
+      return { ...upload, readout: null, readoutError: err.message };
+    }
   } finally {
     parsed.cleanup();
   }

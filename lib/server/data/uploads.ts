@@ -123,15 +123,27 @@ export async function deleteUpload(ctx: LabContext, uploadId: string): Promise<v
   const { store, db } = services();
   const u = await findUpload(ctx, uploadId);
   authorize(ctx, "upload.delete", u.createdBy);
+  let jobIds: string[] = [];
   try {
     await db.sequelize.transaction(async (transaction) => {
+      // Its readouts and their derived objects go with it; objects are deleted last, inside the
+      // transaction, so a storage failure keeps every row.
+      const readouts = await m.Readout.findAll({ where: { uploadId: u.id }, transaction });
+      jobIds = readouts.filter((r) => r.jobId && (r.status === "queued" || r.status === "running")).map((r) => r.jobId!);
+      await m.Readout.destroy({ where: { uploadId: u.id }, transaction });
       await u.destroy({ transaction });
-      await recordAudit(m, { labId: ctx.labId, actor: ctx.actor, action: "upload.deleted", targetType: "upload", targetId: u.id, summary: `${ctx.actor.email} deleted the upload “${u.filename}”`, details: { sha256: u.sha256 } }, transaction);
+      await recordAudit(m, { labId: ctx.labId, actor: ctx.actor, action: "upload.deleted", targetType: "upload", targetId: u.id, summary: `${ctx.actor.email} deleted the upload “${u.filename}”${readouts.length ? ` and its ${readouts.length} readout(s)` : ""}`, details: { sha256: u.sha256, readouts: readouts.length } }, transaction);
+      for (const r of readouts) for (const key of Object.values(r.derivedKeys ?? {})) await store.delete(key);
       await store.delete(u.storageKey);
     });
   } catch (err) {
     if (err instanceof StorageUnavailableError) throw new AppError("unavailable", "object storage is unreachable, so the file was not deleted; try again later");
     throw err;
+  }
+  // A readout still queued or running finds its row gone and removes what it wrote; stop it early.
+  if (jobIds.length) {
+    const { cancelJob } = await import("../jobs/runner");
+    for (const id of jobIds) await cancelJob(ctx.labId, id).catch(() => undefined);
   }
 }
 

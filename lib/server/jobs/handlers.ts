@@ -2,3 +2,4 @@
  * Imports every job handler module so that it registers itself. One line per module.
  */
 import "./echo-job";
+import "./readout-job";

@@ -20,9 +20,9 @@ function fastestK2(j: number[], du: number, dv: number): number {
 // Pattern selection: a quadratic nonlinearity favours hexagonal spots, a nonlinearity odd under
 // c − c* → −(c − c*) has no quadratic term and favours stripes (Ermentrout B. (1991) Proc. R. Soc. A
 // 434:413; Cross M.C. & Hohenberg P.C. (1993) Rev. Mod. Phys. 65:851, §VI).
-const cases = [
-  { id: "schnakenberg", values: { gamma: 1, a: 0.1, b: 0.9, d: 20 }, endTimeS: 300, expect: "spots" as const },
-  { id: "fitzhugh-nagumo", values: { gamma: 1, eps: 3, a: 0, b: 0.5, d: 20 }, endTimeS: 100, expect: "stripes" as const },
+const cases: { id: string; values: Record<string, number>; endTimeS: number; expect: "spots" | "stripes" }[] = [
+  { id: "schnakenberg", values: { gamma: 1, a: 0.1, b: 0.9, d: 20 }, endTimeS: 300, expect: "spots" },
+  { id: "fitzhugh-nagumo", values: { gamma: 1, eps: 3, a: 0, b: 0.5, d: 20 }, endTimeS: 100, expect: "stripes" },
 ];
 
 describe("a long run ends in the pattern its nonlinearity selects, read by the tissue readout", () => {
