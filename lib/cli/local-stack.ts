@@ -94,3 +94,22 @@ export function appEnv(): NodeJS.ProcessEnv {
     PORT: port,
   };
 }
+
+/**
+ * Runs `next start` or `next dev` in the foreground with the fakes beside it; Ctrl+C or SIGTERM
+ * stops both, and the process exits with Next's exit code.
+ */
+export function serveNext(mode: "start" | "dev", env: NodeJS.ProcessEnv, fakes: ChildProcess | null): ChildProcess {
+  const app = spawn(process.execPath, [nextBin(), mode, "-H", "127.0.0.1", "-p", env.PORT ?? "3000"], { cwd: ROOT, env, stdio: "inherit" });
+  const stop = () => {
+    app.kill("SIGTERM");
+    fakes?.kill("SIGTERM");
+  };
+  process.on("SIGINT", stop);
+  process.on("SIGTERM", stop);
+  app.once("exit", (code) => {
+    fakes?.kill("SIGTERM");
+    process.exit(code ?? 0);
+  });
+  return app;
+}

@@ -2,8 +2,7 @@
  * `npm start`: the whole app on one machine with the embedded defaults — fake storage and mail,
  * SQLite under storage/data, migrations, demo data on first start, a production build, next start.
  */
-import { spawn } from "node:child_process";
-import { appEnv, buildIsStale, nextBin, run, startFakes, ROOT } from "./local-stack";
+import { appEnv, buildIsStale, nextBin, run, serveNext, startFakes } from "./local-stack";
 import { seedDemo } from "./seed-demo";
 
 async function main() {
@@ -16,18 +15,8 @@ async function main() {
     process.stdout.write("building the app (next build)…\n");
     await run(process.execPath, [nextBin(), "build"], env);
   }
-  const app = spawn(process.execPath, [nextBin(), "start", "-H", "127.0.0.1", "-p", env.PORT!], { cwd: ROOT, env, stdio: "inherit" });
+  serveNext("start", env, fakes);
   process.stdout.write(`\nMorphokin is starting on ${env.NEXTAUTH_URL}  (stop with Ctrl+C)\n\n`);
-  const stop = () => {
-    app.kill("SIGTERM");
-    fakes?.kill("SIGTERM");
-  };
-  process.on("SIGINT", stop);
-  process.on("SIGTERM", stop);
-  app.once("exit", (code) => {
-    fakes?.kill("SIGTERM");
-    process.exit(code ?? 0);
-  });
 }
 
 main().catch((err) => {

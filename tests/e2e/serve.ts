@@ -7,7 +7,6 @@
 import { existsSync, rmSync } from "node:fs";
 import net from "node:net";
 import path from "node:path";
-import { spawn } from "node:child_process";
 
 const ROOT = path.resolve(import.meta.dirname, "../..");
 
@@ -45,7 +44,7 @@ async function main() {
   // readConfig() reads the environment when called, so set it before anything asks.
   Object.assign(process.env, E2E_ENV);
 
-  const { appEnv, nextBin, startFakes } = await import("@/lib/cli/local-stack");
+  const { appEnv, serveNext, startFakes } = await import("@/lib/cli/local-stack");
   const { seedDemo } = await import("@/lib/cli/seed-demo");
   const { services } = await import("@/lib/server/services");
 
@@ -55,17 +54,7 @@ async function main() {
   await services().db.sequelize.close();
   process.stdout.write("e2e server: demo data seeded, starting next on 127.0.0.1:3100\n");
 
-  const app = spawn(process.execPath, [nextBin(), "start", "-H", "127.0.0.1", "-p", E2E_ENV.PORT], { cwd: ROOT, env, stdio: "inherit" });
-  const stop = () => {
-    app.kill("SIGTERM");
-    fakes?.kill("SIGTERM");
-  };
-  process.on("SIGINT", stop);
-  process.on("SIGTERM", stop);
-  app.once("exit", (code) => {
-    fakes?.kill("SIGTERM");
-    process.exit(code ?? 0);
-  });
+  serveNext("start", env, fakes);
 }
 
 main().catch((err) => fail(err instanceof Error ? err.stack ?? err.message : String(err)));
