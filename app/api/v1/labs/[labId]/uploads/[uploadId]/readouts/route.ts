@@ -1,0 +1,30 @@
+import { listReadouts, READOUT_SORTS, startReadout } from "@/lib/server/data/readouts";
+import { AppError } from "@/lib/server/errors";
+import { json } from "@/lib/server/http";
+import { labRoute } from "@/lib/server/lab-route";
+import { parseListQuery } from "@/lib/server/list";
+
+export const runtime = "nodejs";
+
+type P = { labId: string; uploadId: string };
+
+/** Every readout of one upload, newest first (old ones stay: readouts are immutable). */
+export const GET = labRoute<P>("upload.read", async (ctx, request, p) => json(await listReadouts(ctx, { uploadId: p.uploadId }, parseListQuery(request.url, READOUT_SORTS, "createdAt", "desc"))));
+
+/**
+ * Starts a new readout as a background job (202). JSON body, all optional — images: `roi`
+ * ({kind:"rect",x,y,width,height} or {kind:"polygon",points}), `channel`, `invert`, `flatten`,
+ * `window`, `profileAxis`, `pixelSizeUm`; tables: `columns` {x,y | position | spacing}, `unit`, `pixelSizeUm`.
+ */
+export const POST = labRoute<P>("readout.create", async (ctx, request, p) => {
+  const text = await request.text();
+  let body: unknown = {};
+  if (text.trim() !== "") {
+    try {
+      body = JSON.parse(text);
+    } catch {
+      throw new AppError("bad_input", "the request body is not valid JSON");
+    }
+  }
+  return json(await startReadout(ctx, p.uploadId, body), 202);
+});

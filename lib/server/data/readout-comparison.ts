@@ -1,0 +1,132 @@
+/**
+ * Condition comparison of a study: the latest finished readout of each upload, grouped by the
+ * specimen's condition, with mean ± 95 % CI (t, n − 1) per condition and Welch's t-test with
+ * Hedges' g between two chosen conditions (SCIENCE.md §6).
+ */
+import { summarize, welchTTest, type WelchResult } from "@/lib/spacing";
+import type { LabContext } from "../access";
+import { AppError } from "../errors";
+import { database } from "../services";
+import { headlineOf, MEASURE_LABELS, type ReadoutResult, type WavelengthMeasure } from "./readout-result";
+import { findStudy } from "./studies";
+
+export interface ComparisonPoint {
+  condition: string;
+  specimenId: string;
+  specimenLabel: string;
+  uploadId: string;
+  filename: string;
+  readoutId: string;
+  measure: WavelengthMeasure;
+  wavelengthUm: number;
+  uncertaintyUm: number | null;
+  pixelSizeUm: number | null;
+  readoutCreatedAt: string;
+}
+
+export interface ConditionGroup {
+  condition: string;
+  n: number;
+  meanUm: number;
+  sdUm: number | null;
+  semUm: number | null;
+  /** 95 % CI of the mean (t with n − 1 df); null for n < 2. */
+  ci95Um: [number, number] | null;
+  points: ComparisonPoint[];
+}
+
+export interface ConditionComparison {
+  studyId: string;
+  studyName: string;
+  conditions: string[];
+  groups: ConditionGroup[];
+  /** Uploads left out, with why (no finished readout, or no significant period). */
+  excluded: Array<{ uploadId: string; filename: string; specimenLabel: string; condition: string; reason: string }>;
+  test: { a: string | null; b: string | null; welch: WelchResult | null; note: string | null };
+  measures: Record<string, string>;
+  warnings: string[];
+}
+
+export async function compareConditions(ctx: LabContext, studyId: string, query: { a?: string; b?: string }): Promise<ConditionComparison> {
+  const m = await database();
+  const study = await findStudy(ctx, studyId);
+  const specimens = await m.Specimen.findAll({ where: { labId: ctx.labId, studyId }, order: [["label", "asc"]] });
+  const bySpecimen = new Map(specimens.map((s) => [s.id, s]));
+  const uploads = specimens.length ? await m.Upload.findAll({ where: { labId: ctx.labId, specimenId: specimens.map((s) => s.id) }, order: [["createdAt", "asc"]] }) : [];
+  const readouts = uploads.length ? await m.Readout.findAll({ where: { labId: ctx.labId, uploadId: uploads.map((u) => u.id), status: "succeeded" }, order: [["createdAt", "desc"], ["id", "desc"]] }) : [];
+  const latest = new Map<string, (typeof readouts)[number]>();
+  for (const r of readouts) if (!latest.has(r.uploadId)) latest.set(r.uploadId, r);
+
+  const points: ComparisonPoint[] = [];
+  const excluded: ConditionComparison["excluded"] = [];
+  for (const u of uploads) {
+    const s = bySpecimen.get(u.specimenId)!;
+    const r = latest.get(u.id);
+    const base = { uploadId: u.id, filename: u.filename, specimenLabel: s.label, condition: s.condition };
+    if (!r || !r.result) { excluded.push({ ...base, reason: "no finished readout yet" }); continue; }
+    const h = headlineOf(r.result as unknown as ReadoutResult);
+    if (h.wavelengthUm === null) { excluded.push({ ...base, reason: "its latest readout found no significant period" }); continue; }
+    points.push({ ...base, specimenId: s.id, readoutId: r.id, measure: h.measure, wavelengthUm: h.wavelengthUm, uncertaintyUm: h.uncertaintyUm, pixelSizeUm: r.pixelSizeUm, readoutCreatedAt: r.createdAt.toISOString() });
+  }
+  const conditions = [...new Set(specimens.map((s) => s.condition))].sort((x, y) => x.localeCompare(y));
+  const groups: ConditionGroup[] = conditions.flatMap((condition): ConditionGroup[] => {
+    const mine = points.filter((p) => p.condition === condition);
+    if (mine.length === 0) return [];
+    const values = mine.map((p) => p.wavelengthUm);
+    if (values.length < 2) return [{ condition, n: 1, meanUm: values[0], sdUm: null, semUm: null, ci95Um: null, points: mine }];
+    const s = summarize(values);
+    return [{ condition, n: s.n, meanUm: s.mean, sdUm: s.sd, semUm: s.sem, ci95Um: s.ci95, points: mine }];
+  });
+
+  for (const [k, v] of Object.entries(query)) {
+    if (v && !conditions.includes(v)) throw new AppError("bad_input", `${k}: the study has no condition “${v}” (its conditions are: ${conditions.join(", ") || "none"})`);
+  }
+  const withData = groups.map((g) => g.condition);
+  const a = query.a || withData[0] || null;
+  const b = query.b || withData.find((c) => c !== a) || null;
+  let welch: WelchResult | null = null;
+  let note: string | null = null;
+  if (!a || !b) note = "Welch's t-test needs two conditions with readouts.";
+  else if (a === b) note = "Choose two different conditions.";
+  else {
+    const ga = groups.find((g) => g.condition === a), gb = groups.find((g) => g.condition === b);
+    if (!ga || !gb || ga.n < 2 || gb.n < 2) note = `Welch's t-test needs at least 2 readouts per condition (${a}: ${ga?.n ?? 0}, ${b}: ${gb?.n ?? 0}).`;
+    else {
+      try {
+        welch = welchTTest(ga.points.map((p) => p.wavelengthUm), gb.points.map((p) => p.wavelengthUm));
+      } catch (err) {
+        note = err instanceof Error ? err.message : String(err);
+      }
+    }
+  }
+  const used = [...new Set(points.map((p) => p.measure))];
+  const warnings: string[] = [];
+  if (used.length > 1) warnings.push(`The values mix ${used.map((u) => MEASURE_LABELS[u]).join(", ")}; spacings of spots were converted to Fourier wavelengths (√3/2 · a) so like is compared with like.`);
+  return {
+    studyId, studyName: study.name, conditions, groups, excluded, test: { a, b, welch, note },
+    measures: Object.fromEntries(used.map((u) => [u, MEASURE_LABELS[u]])), warnings,
+  };
+}
+
+const cell = (v: string | number | null) => {
+  if (v === null) return "";
+  const s = String(v);
+  return /[",\n\r]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
+};
+
+/** One row per readout used, with its condition's summary repeated; Welch's result in # lines on top. */
+export function comparisonToCsv(c: ConditionComparison): string {
+  const lines: string[] = [];
+  lines.push(`# Condition comparison of study ${cell(c.studyName)}; lengths in µm; latest finished readout per upload`);
+  if (c.test.welch) {
+    const w = c.test.welch;
+    lines.push(`# Welch t-test ${c.test.a} vs ${c.test.b}: difference ${w.meanDifference} um; t ${w.t}; df ${w.df}; p ${w.pValue}; 95% CI ${w.ci95[0]} to ${w.ci95[1]} um; Hedges g ${w.hedgesG}`);
+  } else if (c.test.note) lines.push(`# ${c.test.note}`);
+  lines.push(["condition", "specimen", "file", "readout_id", "measure", "wavelength_um", "uncertainty_um", "pixel_size_um_per_px", "readout_created_at", "condition_n", "condition_mean_um", "condition_sd_um", "condition_ci95_low_um", "condition_ci95_high_um"].join(","));
+  for (const g of c.groups) {
+    for (const p of g.points) {
+      lines.push([p.condition, p.specimenLabel, p.filename, p.readoutId, p.measure, p.wavelengthUm, p.uncertaintyUm, p.pixelSizeUm, p.readoutCreatedAt, g.n, g.meanUm, g.sdUm, g.ci95Um?.[0] ?? null, g.ci95Um?.[1] ?? null].map(cell).join(","));
+    }
+  }
+  return lines.join("\n") + "\n";
+}
