@@ -1,0 +1,39 @@
+"use client";
+/**
+ * Debounced analysis calls: the body settles for `delayMs` before it is sent, SWR keeps the
+ * previous result on screen while the next one computes, and `computing` drives the small indicator.
+ */
+import { useEffect, useState } from "react";
+import useSWR from "swr";
+import { ApiError, sendJson } from "@/lib/client/api";
+
+function useDebounced<T>(value: T, delayMs: number): T {
+  const [v, setV] = useState(value);
+  useEffect(() => {
+    const t = setTimeout(() => setV(value), delayMs);
+    return () => clearTimeout(t);
+  }, [value, delayMs]);
+  return v;
+}
+
+export function useAnalysis<T>(url: string, body: unknown, delayMs = 300) {
+  const key = body === null ? null : JSON.stringify(body);
+  const settled = useDebounced(key, delayMs);
+  const swr = useSWR<T, ApiError, [string, string] | null>(settled ? [url, settled] : null, ([u, b]: [string, string]) => sendJson<T>("POST", u, JSON.parse(b)), {
+    keepPreviousData: true,
+    revalidateOnFocus: false,
+    revalidateIfStale: false,
+    shouldRetryOnError: false,
+  });
+  return { data: swr.data, error: swr.error, computing: swr.isValidating || key !== settled };
+}
+
+const NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
+/** A number when the text is one, otherwise the text (so the server's message names the field). */
+export function numberOrText(s: string): number | string {
+  return NUMBER.test(s.trim()) ? Number(s.trim()) : s.trim();
+}
+/** A number, or undefined when blank (optional fields). */
+export function optionalNumber(s: string): number | string | undefined {
+  return s.trim() === "" ? undefined : numberOrText(s);
+}
