@@ -1,8 +1,10 @@
 /** The ordered list of migrations. Add a new file here; never edit one that has shipped. */
 import * as m0001 from "./20261201-0001-foundation";
 import * as m0002 from "./20261201-0002-kinetics-jobs-readouts";
+import * as m0005 from "./20261201-0005-discussions";
 
 export const migrationModules = [
   { name: "20261201-0001-foundation", module: m0001 },
   { name: "20261201-0002-kinetics-jobs-readouts", module: m0002 },
+  { name: "20261201-0005-discussions", module: m0005 },
 ];

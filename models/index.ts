@@ -7,6 +7,8 @@ import type { Sequelize } from "sequelize";
 import { initApiToken } from "./api-token";
 import { initAuditEvent } from "./audit-event";
 import { initAuthRecords } from "./auth-records";
+import { initComment } from "./comment";
+import { initCommentThread } from "./comment-thread";
 import { initInvitation } from "./invitation";
 import { initJob } from "./job";
 import { initKineticsVersion } from "./kinetics-version";
@@ -35,6 +37,8 @@ export function createModels(sequelize: Sequelize) {
     KineticsVersion: initKineticsVersion(sequelize),
     Job: initJob(sequelize),
     Readout: initReadout(sequelize),
+    CommentThread: initCommentThread(sequelize),
+    Comment: initComment(sequelize),
   };
   const { User, Lab, Membership, Invitation, Study, Specimen, Upload, ApiToken, LabKinetics, KineticsVersion, Readout } = models;
   Membership.belongsTo(User, { as: "user", foreignKey: "userId" });
@@ -54,6 +58,8 @@ export function createModels(sequelize: Sequelize) {
   KineticsVersion.belongsTo(LabKinetics, { as: "kinetics", foreignKey: "kineticsId" });
   Upload.hasMany(Readout, { as: "readouts", foreignKey: "uploadId" });
   Readout.belongsTo(Upload, { as: "upload", foreignKey: "uploadId" });
+  models.CommentThread.hasMany(models.Comment, { as: "comments", foreignKey: "threadId" });
+  models.Comment.belongsTo(models.CommentThread, { as: "thread", foreignKey: "threadId" });
   return models;
 }
 

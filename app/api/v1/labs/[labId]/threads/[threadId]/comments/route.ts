@@ -1,0 +1,11 @@
+import { commentCreateSchema } from "@/lib/contracts/discussion";
+import { addComment } from "@/lib/server/data/discussions";
+import { json, readJson } from "@/lib/server/http";
+import { labRoute } from "@/lib/server/lab-route";
+
+export const runtime = "nodejs";
+
+type P = { labId: string; threadId: string };
+
+/** A comment or a reply (`parentId`); answers the thread, the comment and whether e-mail went out. */
+export const POST = labRoute<P>("comment.create", async (ctx, request, p) => json(await addComment(ctx, p.threadId, await readJson(request, commentCreateSchema)), 201));

@@ -1,0 +1,13 @@
+import { threadUpdateSchema } from "@/lib/contracts/discussion";
+import { getThread, setThreadStatus } from "@/lib/server/data/discussions";
+import { json, readJson } from "@/lib/server/http";
+import { labRoute } from "@/lib/server/lab-route";
+
+export const runtime = "nodejs";
+
+type P = { labId: string; threadId: string };
+
+export const GET = labRoute<P>("lab.read", async (ctx, _request, p) => json(await getThread(ctx, p.threadId)));
+
+/** { status: "open" | "resolved" }: resolve or reopen. */
+export const PATCH = labRoute<P>("comment.create", async (ctx, request, p) => json(await setThreadStatus(ctx, p.threadId, (await readJson(request, threadUpdateSchema)).status)));
