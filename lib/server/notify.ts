@@ -86,6 +86,6 @@ export async function notifyDiscussion(ctx: LabContext, n: DiscussionNotice): Pr
   return {
     notified: false,
     recipients: recipients.length - failed.length,
-    reason: `the mail server could not be reached; the comment is saved but ${failed.length} of ${recipients.length} notification e-mail(s) were not sent`,
+    reason: `the mail server could not be reached or refused the message; the comment is saved but ${failed.length} of ${recipients.length} notification e-mail(s) were not sent`,
   };
 }
