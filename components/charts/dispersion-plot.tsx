@@ -40,7 +40,7 @@ export function DispersionPlot({ k, sigma, imSigma, bands, kStar, modes, units, 
           )}
           <Line dataKey="re" name={`Re σ (${units.sigma})`} type="monotone" dot={false} stroke="#5b3c8f" strokeWidth={2} isAnimationActive={false} />
           {hasIm && <Line dataKey="im" name={`Im σ (${units.sigma})`} type="monotone" dot={false} stroke="#5b3c8f" strokeOpacity={0.5} strokeDasharray="5 4" isAnimationActive={false} />}
-          {points.length > 0 && <Scatter data={points} dataKey="mode" name={`admissible mode σ (${units.sigma})`} fill="#1f5c45" shape="circle" isAnimationActive={false} />}
+          {points.length > 0 && <Scatter data={points} dataKey="mode" name={`admissible mode σ (${units.sigma})`} fill="#1f5c45" shape={(d: { cx?: number; cy?: number }) => <circle cx={d.cx} cy={d.cy} r={points.length > 60 ? 1.6 : 3} fill="#1f5c45" fillOpacity={0.8} />} isAnimationActive={false} />}
           <Tooltip formatter={(v) => formatNumber(Number(v))} labelFormatter={(v) => `k = ${formatNumber(Number(v))} ${units.k}`} contentStyle={{ fontSize: 12, fontFamily: "IBM Plex Mono" }} />
         </ComposedChart>
       </ResponsiveContainer>

@@ -144,6 +144,24 @@ describe("analyses", () => {
     expect((await analysis("dispersion", { kinetics: k.id, version: 2 })).status).toBe(404);
   });
 
+  it("a three-species lab kinetics with cross-diffusion (full matrix) is saved and analysed by the general eigenvalue path", async () => {
+    // The Brusselator of the catalogue plus a third, inert species coupled through cross-diffusion only
+    // in the third row: its growth rates must equal the catalogue Brusselator's (block-triangular J − k²D, linear algebra).
+    const definition = {
+      name: "Brusselator + tracer", species: ["u", "v", "w"],
+      parameters: [{ name: "a", default: 1.5, min: 0.01, max: 10 }, { name: "b", default: 2.5, min: 0, max: 100 }],
+      reactions: ["a - (b + 1) * u + u^2 * v", "b * u - u^2 * v", "1 - w"],
+      diffusion: [[1, 0, 0], [0, 10, 0], [0.5, 0, 1]],
+    };
+    const k = await api("POST", KIN, { json: { definition } });
+    expect(k.status).toBe(201);
+    const lab = await analysis("dispersion", { kinetics: k.body.id });
+    const cat = await analysis("dispersion", { kinetics: "brusselator", parameters: { a: 1.5, b: 2.5, Du: 1, Dv: 10 } });
+    expect(lab.body.turingConditions).toBeNull();
+    expect(lab.body.classification.classes).toEqual(cat.body.classification.classes);
+    expect(lab.body.fastest.kStar).toBeCloseTo(cat.body.fastest.kStar, 5);
+  });
+
   it("Turing map: cells agree with the dispersion relation at their parameters, fraction and target cells are reported", async () => {
     const r = await analysis("turing-map", { kinetics: "schnakenberg", x: { name: "a", min: 0.02, max: 0.4, n: 12 }, y: { name: "b", min: 0.2, max: 2, n: 10, scale: "log" }, wavenumbers: 64, target: { wavelength: 13, tolerance: 2 } });
     expect(r.status).toBe(200);
@@ -183,6 +201,7 @@ describe("analyses", () => {
     ["a map too large", "turing-map", { kinetics: "schnakenberg", x: { name: "a", min: 0, max: 1, n: 201 }, y: { name: "b", min: 0, max: 1, n: 200 } }, 413, "x.n × y.n = 40200 cells; an interactive map has at most 40000 cells (e.g. 200 × 200)."],
     ["too many wavenumbers", "turing-map", { kinetics: "schnakenberg", x: { name: "a", min: 0, max: 1, n: 5 }, y: { name: "b", min: 0, max: 1, n: 5 }, wavenumbers: 500 }, 413, "wavenumbers: 500 asked; an interactive map has at most 200 per cell."],
     ["one parameter on both axes", "turing-map", { kinetics: "schnakenberg", x: { name: "a", min: 0, max: 1, n: 5 }, y: { name: "a", min: 0, max: 1, n: 5 } }, 400, 'The two axes sweep the same parameter "a"; choose two different parameters.'],
+    ["a map over the time limit", "turing-map", { kinetics: "brusselator-three-species", x: { name: "a", min: 1, max: 3, n: 200 }, y: { name: "b", min: 5, max: 15, n: 200 }, wavenumbers: 200 }, 422, "The Turing map exceeded its time limit of 1000 ms."],
     ["too many gradient samples", "gradient", { kinetics: "schnakenberg", parameter: "d", profile: { kind: "linear", from: 2, to: 40 }, length: 10, samples: 500 }, 413, "samples: 500 positions asked; the limit is 201."],
     ["a bad table row", "gradient", { kinetics: "schnakenberg", parameter: "d", profile: { kind: "table", text: "0,2\n5;x\n" }, length: 10 }, 400, "profile.text line 2: expected two numbers \"position,value\" (got “5;x”)"],
   ])("refuses %s", async (_what, name, body, status, message) => {

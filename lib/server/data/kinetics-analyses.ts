@@ -18,6 +18,31 @@ import { parseProfileTable } from "./kinetics-table";
 
 /** Most admissible modes returned for plotting (the fastest are always in the result's `domain`). */
 export const MAX_PLOTTED_MODES = 400;
+/** Estimated compute one sensitivity or gradient request may take, ms (a design choice: about a second). */
+export const ANALYSIS_BUDGET_MS = 1500;
+
+/**
+ * Times one dispersion relation and refuses (422) when `count` of them would exceed the budget,
+ * so a slow lab kinetics (many species, Newton steady states) cannot hold the server.
+ */
+function checkBudget(compiled: CompiledKinetics, parameters: Record<string, number>, options: object, count: number, field: string, what: string) {
+  const time = () => {
+    const t0 = performance.now();
+    try {
+      computeDispersion(compiled, parameters, options);
+    } catch {
+      // the real call reports the error
+    }
+    return Math.max(performance.now() - t0, 0.01);
+  };
+  let each = time();
+  // The first evaluation of freshly compiled expressions runs cold (JIT); time a second one before refusing.
+  if (each * count > ANALYSIS_BUDGET_MS) each = Math.min(each, time());
+  if (each * count > ANALYSIS_BUDGET_MS) {
+    const most = Math.max(1, Math.floor(ANALYSIS_BUDGET_MS / each));
+    throw new AppError("unprocessable", `${field}: ${what} needs ${count} dispersion relations at about ${Math.round(each)} ms each, over the ${ANALYSIS_BUDGET_MS} ms limit of one request; at most ${most} fit.`, { field });
+  }
+}
 
 export interface ResolvedKinetics {
   compiled: CompiledKinetics;
@@ -84,6 +109,7 @@ export async function analyseSensitivities(ctx: LabContext, req: SensitivityRequ
   return withKineticsErrors(() => {
     const parameters = req.parameters ?? {};
     const options = scalesOf(req);
+    checkBudget(compiled, parameters, options, 2 * compiled.parameters.length + 3, "parameters", `the elasticities of ${compiled.parameters.length} parameters`);
     const base = computeDispersion(compiled, parameters, options);
     const scaled = req.scale ? predictWavelengthAfterScaling(compiled, parameters, req.scale.name, req.scale.factor, options) : null;
     if (!base.fastest) return { info, elasticities: null, reason: `No mode at k > 0 grows here (${base.classification.label}), so the predicted wavelength and its elasticities are undefined.`, scaled };
@@ -101,6 +127,7 @@ export async function analyseGradient(ctx: LabContext, req: GradientRequest): Pr
   if (samples > MAX_GRADIENT_SAMPLES) throw new AppError("too_large", `samples: ${samples} positions asked; the limit is ${MAX_GRADIENT_SAMPLES}.`, { field: "samples" });
   const { compiled, info } = await resolveAnalysisKinetics(ctx, req.kinetics, req.version);
   const profile = req.profile.kind === "table" ? { kind: "table" as const, ...parseProfileTable(req.profile.text) } : req.profile;
+  checkBudget(compiled, req.parameters ?? {}, scalesOf(req), samples, "samples", `a gradient of ${samples} positions`);
   return withKineticsErrors(() => ({
     ...computeGradientDispersion(compiled, req.parameters ?? {}, { ...scalesOf(req), parameter: req.parameter, profile, length: req.length, samples }),
     info,

@@ -16,24 +16,28 @@ const field = "w-full rounded-md border border-rule bg-card px-2 py-1 text-sm te
 interface AxisDraft { name: string; min: string; max: string; n: string; scale: "linear" | "log" }
 
 /** Default sweep: default/5 … default×5 inside the allowed range (or the range itself when the default is 0). */
-function defaultAxis(p: KineticsParameterDto): AxisDraft {
+function defaultAxis(p: KineticsParameterDto, n: number): AxisDraft {
   const lo = p.min ?? -Infinity, hi = p.max ?? Infinity;
   const [a, b] = p.default > 0 ? [Math.max(lo, p.default / 5), Math.min(hi, p.default * 5)] : [Number.isFinite(lo) ? lo : 0, Number.isFinite(hi) ? hi : 1];
-  return { name: p.name, min: String(Number(a.toPrecision(3))), max: String(Number(b.toPrecision(3))), n: "60", scale: "linear" };
+  return { name: p.name, min: String(Number(a.toPrecision(3))), max: String(Number(b.toPrecision(3))), n: String(n), scale: "linear" };
 }
 
 export function TuringMapPanel({ labId, info, base }: { labId: string; info: KineticsInfoDto; base: AnalysisBase }) {
   const swept = info.parameters.filter((p) => p.name !== "gamma");
   const pick = swept.length >= 2 ? swept : info.parameters;
-  const [x, setX] = useState<AxisDraft>(() => defaultAxis(pick[0]));
-  const [y, setY] = useState<AxisDraft>(() => defaultAxis(pick[1] ?? pick[0]));
-  const [wavenumbers, setWavenumbers] = useState("120");
+  // Two species with diagonal diffusion use the engine's closed-form cells; anything else needs a
+  // general eigenvalue solver per wavenumber, about ten times slower, so it starts smaller.
+  const fast = info.species.length === 2 && info.diffusion.every((row, i) => row.every((d, j) => i === j || d === "0"));
+  const cells = fast ? 60 : 24;
+  const [x, setX] = useState<AxisDraft>(() => defaultAxis(pick[0], cells));
+  const [y, setY] = useState<AxisDraft>(() => defaultAxis(pick[1] ?? pick[0], cells));
+  const [wavenumbers, setWavenumbers] = useState(fast ? "120" : "60");
   const [target, setTarget] = useState({ wavelength: "", tolerance: "" });
   const axisBody = (a: AxisDraft) => ({ name: a.name, min: numberOrText(a.min), max: numberOrText(a.max), n: numberOrText(a.n), scale: a.scale });
   const targetWavelength = optionalNumber(target.wavelength);
   const body = info.parameters.length < 2 ? null : {
     ...base, x: axisBody(x), y: axisBody(y), wavenumbers: numberOrText(wavenumbers),
-    ...(targetWavelength !== undefined ? { target: { wavelength: targetWavelength, tolerance: optionalNumber(target.tolerance) ?? 0 } } : {}),
+    ...(targetWavelength !== undefined ? { target: { wavelength: targetWavelength, tolerance: optionalNumber(target.tolerance) ?? (typeof targetWavelength === "number" ? 0.05 * targetWavelength : 0) } } : {}),
   };
   const map = useAnalysis<TuringMapDto>(`/api/v1/labs/${labId}/analyses/turing-map`, body, 500);
   const m = map.data;
@@ -43,7 +47,7 @@ export function TuringMapPanel({ labId, info, base }: { labId: string; info: Kin
   const axisControls = (label: string, a: AxisDraft, set: (a: AxisDraft) => void, testId: string) => (
     <div className="grid grid-cols-[6rem_1fr_1fr_4rem_5rem] items-end gap-2" data-testid={testId}>
       <label className="block text-xs">{label} axis
-        <select className={field} value={a.name} onChange={(e) => set(defaultAxis(info.parameters.find((p) => p.name === e.target.value)!))}>
+        <select className={field} value={a.name} onChange={(e) => set(defaultAxis(info.parameters.find((p) => p.name === e.target.value)!, Number(a.n) || cells))}>
           {info.parameters.map((p) => <option key={p.name} value={p.name}>{p.name}</option>)}
         </select>
       </label>
@@ -66,7 +70,7 @@ export function TuringMapPanel({ labId, info, base }: { labId: string; info: Kin
             <div className="grid grid-cols-3 gap-2">
               <label className="block text-xs">wavenumbers per cell<input className={field} value={wavenumbers} onChange={(e) => setWavenumbers(e.target.value)} /></label>
               <label className="block text-xs">target λ ({lengthUnit})<input className={field} value={target.wavelength} placeholder="none" onChange={(e) => setTarget({ ...target, wavelength: e.target.value })} data-testid="map-target" /></label>
-              <label className="block text-xs">± tolerance ({lengthUnit})<input className={field} value={target.tolerance} placeholder="0" onChange={(e) => setTarget({ ...target, tolerance: e.target.value })} /></label>
+              <label className="block text-xs">± tolerance ({lengthUnit})<input className={field} value={target.tolerance} placeholder="5 % of λ" onChange={(e) => setTarget({ ...target, tolerance: e.target.value })} /></label>
             </div>
             <p className="text-xs text-ink-soft">The other parameters stay at the values on the left. Interactive maps: at most 40 000 cells (200 × 200) and 200 wavenumbers, computed within 1 s.</p>
             {m && (
