@@ -15,7 +15,9 @@ import type { Role } from "@/lib/access/roles";
 import type { LabContext } from "@/lib/server/access";
 import { createSpecimen } from "@/lib/server/data/specimens";
 import { createStudy } from "@/lib/server/data/studies";
+import { startReadout, type ReadoutDto } from "@/lib/server/data/readouts";
 import { storeUpload } from "@/lib/server/data/uploads";
+import { waitForJob } from "@/lib/server/jobs/runner";
 import { hashPassword } from "@/lib/server/passwords";
 import { database } from "@/lib/server/services";
 import { recordAudit } from "@/lib/server/data/audit";
@@ -58,6 +60,7 @@ export async function seedDemo(): Promise<boolean> {
       organism: "mouse",
       description: "Synthetic demo study: stripe patterns at 1.5 µm/px, wild type against an invented mutant line.",
     });
+    const readouts: ReadoutDto[] = [];
     const plan: { study: string; label: string; condition: string; stage: string; genotype: string | null; image: () => Promise<{ name: string; bytes: Buffer; pixelSizeUm: number }> }[] = [];
     const spots = (spacingPx: number, seed: number) => async () => {
       const img = makeHexSpots({ width: 512, height: 512, spacingPx, angleDeg: 12 + seed, spotRadiusPx: spacingPx * 0.28, jitterPx: 0.8, noise: 0.08, seed });
@@ -83,7 +86,7 @@ export async function seedDemo(): Promise<boolean> {
       const file = path.join(tmp, name);
       writeFileSync(file, bytes);
       const tiff = name.endsWith(".tif");
-      await storeUpload(ctx, s.id, {
+      const u = await storeUpload(ctx, s.id, {
         path: file,
         filename: name,
         sizeBytes: bytes.length,
@@ -93,6 +96,7 @@ export async function seedDemo(): Promise<boolean> {
         pixelSizeUm,
         pixelSizeSource: tiff ? "tiff-resolution" : "uploader",
       });
+      readouts.push(await startReadout(ctx, u.id, {}));
     }
     // A spacing table: 1-D positions of ridges along a transect, µm (invented numbers).
     const table = await createSpecimen(manager, rugae.id, { label: "PR-13", condition: "wild type", stage: "E14.5", genotype: "+/+", notes: "Ridge positions measured along the midline." });
@@ -100,7 +104,11 @@ export async function seedDemo(): Promise<boolean> {
     const csv = `position_um\n${positions.join("\n")}\n`;
     const csvFile = path.join(tmp, "ridge-positions.csv");
     writeFileSync(csvFile, csv);
-    await storeUpload(manager, table.id, { path: csvFile, filename: "ridge-positions.csv", sizeBytes: Buffer.byteLength(csv), sha256: createHash("sha256").update(csv).digest("hex"), kind: "table", contentType: "text/csv", pixelSizeUm: null, pixelSizeSource: null });
+    const t = await storeUpload(manager, table.id, { path: csvFile, filename: "ridge-positions.csv", sizeBytes: Buffer.byteLength(csv), sha256: createHash("sha256").update(csv).digest("hex"), kind: "table", contentType: "text/csv", pixelSizeUm: null, pixelSizeSource: null });
+    readouts.push(await startReadout(manager, t.id, {}));
+    // The demo images are small (≤ 640×480), so their readouts take well under a second each;
+    // wait here so callers that close the database right after seeding find them finished.
+    for (const r of readouts) await waitForJob(r.jobId!, 120_000);
   } finally {
     rmSync(tmp, { recursive: true, force: true });
   }

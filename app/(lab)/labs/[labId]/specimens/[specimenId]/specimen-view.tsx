@@ -12,6 +12,7 @@ import { formatBytes, formatDateTime } from "@/lib/client/format";
 import type { SpecimenDto } from "@/lib/server/data/specimens";
 import type { UploadDto } from "@/lib/server/data/uploads";
 import { SpecimenForm } from "../../studies/[studyId]/study-view";
+import { ReadoutsPanel } from "./readouts-panel";
 
 export function SpecimenView({ labId, specimen, canUpload, maxUploadBytes }: { labId: string; specimen: SpecimenDto; canUpload: boolean; maxUploadBytes: number }) {
   const router = useRouter();
@@ -72,6 +73,7 @@ export function SpecimenView({ labId, specimen, canUpload, maxUploadBytes }: { l
           empty={<EmptyState title="No files yet.">{canUpload ? "Upload a stained image or a spacing table above." : "Files uploaded by the lab appear here."}</EmptyState>}
         />
       </Panel>
+      <ReadoutsPanel labId={labId} specimenId={specimen.id} refreshKey={refresh} />
     </div>
   );
 }

@@ -3,6 +3,7 @@ import { PageHeader } from "@/components/ui/panel";
 import { can } from "@/lib/access/permissions";
 import { getStudy } from "@/lib/server/data/studies";
 import { orNotFound, pageLab } from "@/lib/server/page-access";
+import { ConditionComparison } from "./condition-comparison";
 import { StudyView } from "./study-view";
 
 export const dynamic = "force-dynamic";
@@ -19,6 +20,9 @@ export default async function StudyPage({ params }: { params: Promise<{ labId: s
         subtitle={`${study.tissue} · ${study.organism}${study.createdByEmail ? ` · created by ${study.createdByEmail}` : ""}`}
       />
       <StudyView labId={labId} study={study} canAddSpecimen={can(ctx.role, "specimen.create")} />
+      <div className="mt-5">
+        <ConditionComparison labId={labId} studyId={study.id} />
+      </div>
     </>
   );
 }

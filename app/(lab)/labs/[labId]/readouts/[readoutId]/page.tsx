@@ -1,0 +1,30 @@
+import Link from "next/link";
+import { PageHeader } from "@/components/ui/panel";
+import { can } from "@/lib/access/permissions";
+import { getReadout } from "@/lib/server/data/readouts";
+import { orNotFound, pageLab } from "@/lib/server/page-access";
+import { ReadoutView } from "./readout-view";
+
+export const dynamic = "force-dynamic";
+
+export default async function ReadoutPage({ params }: { params: Promise<{ labId: string; readoutId: string }> }) {
+  const { labId, readoutId } = await params;
+  const ctx = await pageLab(labId, "upload.read");
+  const readout = await orNotFound(getReadout(ctx, readoutId));
+  return (
+    <>
+      <PageHeader
+        crumbs={
+          <>
+            <Link href={`/labs/${labId}/studies`} className="hover:underline">Studies</Link> /{" "}
+            <Link href={`/labs/${labId}/studies/${readout.studyId}`} className="hover:underline">{readout.studyName}</Link> /{" "}
+            <Link href={`/labs/${labId}/specimens/${readout.specimenId}`} className="hover:underline">Specimen {readout.specimenLabel}</Link>
+          </>
+        }
+        title={`Readout of ${readout.filename}`}
+        subtitle={`${readout.condition} · ${readout.kind === "image" ? "image" : "table"} · started ${readout.createdAt.slice(0, 16).replace("T", " ")} UTC${readout.createdByEmail ? ` by ${readout.createdByEmail}` : ""}`}
+      />
+      <ReadoutView labId={labId} initial={readout} canRerun={can(ctx.role, "readout.create")} />
+    </>
+  );
+}
