@@ -1,4 +1,5 @@
 import Link from "next/link";
+import { OpenDiscussions } from "@/components/discussion/open-discussions";
 import { EmptyState, PageHeader, Panel } from "@/components/ui/panel";
 import { can } from "@/lib/access/permissions";
 import { ROLE_LABELS } from "@/lib/access/roles";
@@ -65,6 +66,9 @@ export default async function Dashboard({ params }: { params: Promise<{ labId: s
           </ul>
         </Panel>
       </div>
+      <Panel title="Open discussions">
+        <OpenDiscussions labId={labId} />
+      </Panel>
       {audit && (
         <Panel title="Latest in the audit trail" actions={<Link href={`/labs/${labId}/audit`} className="text-sm text-moss hover:underline">Audit trail →</Link>}>
           <ul className="space-y-1 text-sm">
