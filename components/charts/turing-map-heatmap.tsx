@@ -95,7 +95,7 @@ export function TuringMapHeatmap(p: TuringMapHeatmapProps) {
       <div className="flex flex-wrap items-center gap-x-4 gap-y-1 text-xs text-ink-soft">
         <span className="inline-flex items-center gap-1">
           <span className="inline-block h-3 w-16" style={{ background: `linear-gradient(to right, ${turingShade(0)}, ${turingShade(1)})` }} />
-          Turing: λ* <span className="num">{formatNumber(lo)}</span>–<span className="num">{formatNumber(hi)} {p.wavelengthUnit}</span> (<span className="num">{p.counts.turing ?? 0}</span> cells)
+          {lambdas.length ? <>Turing: λ* <span className="num">{formatNumber(lo)}</span>–<span className="num">{formatNumber(hi)} {p.wavelengthUnit}</span> (<span className="num">{p.counts.turing ?? 0}</span> cells)</> : "Turing: no cell in this box"}
         </span>
         {Object.keys(CLASS_COLOUR).filter((c) => (p.counts[c] ?? 0) > 0).map((c) => (
           <span key={c} className="inline-flex items-center gap-1">

@@ -45,7 +45,7 @@ export function TuringMapPanel({ labId, info, base }: { labId: string; info: Kin
   const lf = m?.lengthScaleUm ?? 1;
 
   const axisControls = (label: string, a: AxisDraft, set: (a: AxisDraft) => void, testId: string) => (
-    <div className="grid grid-cols-[6rem_1fr_1fr_4rem_5rem] items-end gap-2" data-testid={testId}>
+    <div className="grid grid-cols-[5rem_1fr_1fr_3.5rem_6rem] items-end gap-2" data-testid={testId}>
       <label className="block text-xs">{label} axis
         <select className={field} value={a.name} onChange={(e) => set(defaultAxis(info.parameters.find((p) => p.name === e.target.value)!, Number(a.n) || cells))}>
           {info.parameters.map((p) => <option key={p.name} value={p.name}>{p.name}</option>)}
