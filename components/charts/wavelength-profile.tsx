@@ -24,7 +24,7 @@ export function WavelengthProfile({ axis, positionUm, wavelengthUm, sdUm, global
         <ComposedChart data={data} margin={{ top: 8, right: 16, bottom: 28, left: 16 }}>
           <CartesianGrid stroke="#d9cfbb" strokeDasharray="2 4" />
           <XAxis dataKey="p" type="number" domain={["dataMin", "dataMax"]} tickFormatter={(v: number) => formatSig(v, 3)} tick={{ fontSize: 11, fontFamily: "IBM Plex Mono" }} label={{ value: `tile centre along ${axis} (µm)`, position: "insideBottom", offset: -16, fill: "#5c574c", fontSize: 12 }} />
-          <YAxis type="number" domain={["auto", "auto"]} tickFormatter={(v: number) => formatSig(v, 3)} tick={{ fontSize: 11, fontFamily: "IBM Plex Mono" }} width={56} label={{ value: "local λ (µm)", angle: -90, position: "insideLeft", dy: 36, fill: "#5c574c", fontSize: 12 }} />
+          <YAxis type="number" domain={["auto", "auto"]} tickFormatter={(v: number) => formatSig(v, 5)} tick={{ fontSize: 11, fontFamily: "IBM Plex Mono" }} width={56} label={{ value: "local λ (µm)", angle: -90, position: "insideLeft", dy: 36, fill: "#5c574c", fontSize: 12 }} />
           {globalWavelengthUm !== null && <ReferenceLine y={globalWavelengthUm} stroke="#5c574c" strokeDasharray="4 3" />}
           <Line dataKey="lambda" type="linear" stroke="#1f5c45" strokeWidth={2} dot={{ r: 3, fill: "#1f5c45" }} connectNulls={false} isAnimationActive={false}>
             <ErrorBar dataKey="sd" width={4} stroke="#1f5c45" strokeOpacity={0.6} direction="y" />

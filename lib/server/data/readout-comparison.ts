@@ -81,7 +81,8 @@ export async function compareConditions(ctx: LabContext, studyId: string, query:
   for (const [k, v] of Object.entries(query)) {
     if (v && !conditions.includes(v)) throw new AppError("bad_input", `${k}: the study has no condition “${v}” (its conditions are: ${conditions.join(", ") || "none"})`);
   }
-  const withData = groups.map((g) => g.condition);
+  // Default pair: the conditions with the most readouts (a test needs n ≥ 2 on both sides).
+  const withData = [...groups].sort((x, y) => Number(y.n >= 2) - Number(x.n >= 2)).map((g) => g.condition);
   const a = query.a || withData[0] || null;
   const b = query.b || withData.find((c) => c !== a) || null;
   let welch: WelchResult | null = null;
@@ -101,7 +102,10 @@ export async function compareConditions(ctx: LabContext, studyId: string, query:
   }
   const used = [...new Set(points.map((p) => p.measure))];
   const warnings: string[] = [];
-  if (used.length > 1) warnings.push(`The values mix ${used.map((u) => MEASURE_LABELS[u]).join(", ")}; spacings of spots were converted to Fourier wavelengths (√3/2 · a) so like is compared with like.`);
+  if (used.length > 1) {
+    const converted = used.includes("hex-equivalent-from-nn") ? "; nearest-neighbour distances of spots were converted to Fourier wavelengths (√3/2 · a) so like is compared with like" : "";
+    warnings.push(`The values mix ${used.map((u) => MEASURE_LABELS[u]).join(" and ")}; check that they measure the same period${converted}.`);
+  }
   return {
     studyId, studyName: study.name, conditions, groups, excluded, test: { a, b, welch, note },
     measures: Object.fromEntries(used.map((u) => [u, MEASURE_LABELS[u]])), warnings,

@@ -15,7 +15,7 @@ const SOURCES: Record<string, string> = {
 };
 
 export function pixelSizeLabel(pixelSizeUm: number | null, source: string | null): string {
-  if (pixelSizeUm === null) return "no pixel size";
+  if (pixelSizeUm === null) return "none (not needed for a table in µm, nm or mm)";
   return `${formatSig(pixelSizeUm, 4)} µm/px (${source ? (SOURCES[source] ?? source) : "source not recorded"})`;
 }
 
