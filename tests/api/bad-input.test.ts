@@ -13,7 +13,7 @@ import { authOptions } from "@/lib/server/auth";
 import { database, setServicesForTest } from "@/lib/server/services";
 import { newSecret, sha256Hex } from "@/lib/server/secrets";
 import { call, discoverRoutes, multipart } from "../support/api";
-import { freePort, startTestStack, type TestStack } from "../support/stack";
+import { DEAD_PORT, startTestStack, type TestStack } from "../support/stack";
 import { makeWorld, type World } from "../support/world";
 
 vi.mock("next-auth", async (original) => ({ ...(await original<typeof import("next-auth")>()), getServerSession: async () => null }));
@@ -225,7 +225,7 @@ describe("uploads", () => {
 
   it("with storage unreachable the upload is a 503 and leaves no row behind", async () => {
     const before = await counts();
-    const dead = createS3ObjectStore({ ...stack.services.config.s3, endpoint: `http://127.0.0.1:${await freePort()}` });
+    const dead = createS3ObjectStore({ ...stack.services.config.s3, endpoint: `http://127.0.0.1:${DEAD_PORT}` });
     setServicesForTest({ ...stack.services, store: dead });
     try {
       const res = await upload(multipart({ name: "tile.png", bytes: png }, { pixelSizeUm: "1" }));
@@ -241,7 +241,7 @@ describe("uploads", () => {
     const res = await upload(multipart({ name: "keep.png", bytes: png }, { pixelSizeUm: "1" }));
     const u = (await res.json()) as { id: string };
     const before = await counts();
-    const dead = createS3ObjectStore({ ...stack.services.config.s3, endpoint: `http://127.0.0.1:${await freePort()}` });
+    const dead = createS3ObjectStore({ ...stack.services.config.s3, endpoint: `http://127.0.0.1:${DEAD_PORT}` });
     setServicesForTest({ ...stack.services, store: dead });
     try {
       const del = await call(R("DELETE /api/v1/labs/[labId]/uploads/[uploadId]"), "DELETE", "/api/v1/labs/[labId]/uploads/[uploadId]", { token: w.people.scientist.token, params: { labId: w.labId, uploadId: u.id } });

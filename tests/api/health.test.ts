@@ -4,7 +4,7 @@ import { GET } from "@/app/api/health/route";
 import { createS3ObjectStore } from "@/storage/s3-object-store";
 import { createSmtpMailer } from "@/lib/server/mail";
 import { setServicesForTest } from "@/lib/server/services";
-import { freePort, startTestStack, type TestStack } from "../support/stack";
+import { DEAD_PORT, startTestStack, type TestStack } from "../support/stack";
 
 let stack: TestStack;
 beforeAll(async () => {
@@ -20,7 +20,7 @@ describe("health", () => {
   });
 
   it("is 503 and names the part that is down", async () => {
-    const port = await freePort();
+    const port = DEAD_PORT;
     setServicesForTest({ ...stack.services, store: createS3ObjectStore({ ...stack.services.config.s3, endpoint: `http://127.0.0.1:${port}` }), mailer: createSmtpMailer({ url: `smtp://127.0.0.1:${port}`, from: "x@y.test" }) });
     try {
       const res = await GET();

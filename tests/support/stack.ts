@@ -23,6 +23,12 @@ export async function freePort(): Promise<number> {
   });
 }
 
+/**
+ * A port where nothing listens, for "service is down" tests. Port 1 (tcpmux) is privileged and
+ * unused on these machines; a free port from `freePort()` could be taken by a parallel test.
+ */
+export const DEAD_PORT = 1;
+
 export interface TestStack {
   services: Services;
   dir: string;
