@@ -104,6 +104,7 @@ describe("image readouts", () => {
     expect(spectrum.angularPower).toHaveLength(180);
     expect(spectrum.localWavelength.profile.axis).toBe("x");
     expect((await get("other.png")).status).toBe(404);
+    expect((await get("toString")).status).toBe(404);
   });
 
   it("re-running with an ROI makes a second readout and keeps the first unchanged", async () => {

@@ -144,9 +144,9 @@ export async function startReadout(ctx: LabContext, uploadId: string, body: unkn
 
 /** A stored derived product of a finished readout. */
 export async function openDerived(ctx: LabContext, readoutId: string, product: string) {
-  if (!(product in DERIVED_PRODUCTS)) throw notFound("derived product");
+  if (!Object.hasOwn(DERIVED_PRODUCTS, product)) throw notFound("derived product");
   const r = await findReadout(ctx, readoutId);
-  const key = r.status === "succeeded" ? r.derivedKeys?.[product] : undefined;
+  const key = r.status === "succeeded" && r.derivedKeys && Object.hasOwn(r.derivedKeys, product) ? r.derivedKeys[product] : undefined;
   if (!key) throw notFound("derived product");
   try {
     const obj = await services().store.get(key);
