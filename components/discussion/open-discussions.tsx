@@ -25,6 +25,11 @@ function OpenThread({ labId, threadId, onClose }: { labId: string; threadId: str
   return (
     <div className="space-y-2 py-2">
       {notice && <Notice tone={notice.tone} testId="discussion-notice">{notice.text}</Notice>}
+      {detail.data && (
+        <p className="text-sm">
+          About {detail.data.target.path ? <Link href={detail.data.target.path} className="font-medium text-moss hover:underline">{detail.data.target.label}</Link> : <span className="text-ink-soft">{detail.data.target.label}</span>}
+        </p>
+      )}
       {detail.data ? <ThreadCard thread={detail.data} members={members} actions={actions} /> : <p className="text-sm text-ink-soft">Loading the discussion…</p>}
       <Button size="sm" variant="ghost" onClick={onClose} data-testid="close-thread">Close</Button>
     </div>
