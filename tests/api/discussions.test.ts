@@ -9,7 +9,7 @@ import type { Role } from "@/lib/access/roles";
 import { createSmtpMailer } from "@/lib/server/mail";
 import { database } from "@/lib/server/services";
 import { call, discoverRoutes, type Method } from "../support/api";
-import { freePort, startTestStack, type TestStack } from "../support/stack";
+import { DEAD_PORT, startTestStack, type TestStack } from "../support/stack";
 import { makePerson, makeWorld, type Person, type World } from "../support/world";
 import { discussedUpload } from "./permission-cases/discussions";
 
@@ -248,8 +248,8 @@ describe("mentions and e-mail", () => {
     const author = await makePerson("scientist", w.labId, "down-author");
     const target = await makePerson("modeller", w.labId, "down-target");
     const working = stack.services.mailer;
-    // Nothing listens on a port just found free: the SMTP connection is refused.
-    stack.services.mailer = createSmtpMailer({ url: `smtp://127.0.0.1:${await freePort()}`, from: "Morphokin <noreply@morphokin.test>" });
+    // Nothing listens on DEAD_PORT: the SMTP connection is refused.
+    stack.services.mailer = createSmtpMailer({ url: `smtp://127.0.0.1:${DEAD_PORT}`, from: "Morphokin <noreply@morphokin.test>" });
     try {
       const res = await start(author, `@${target.email} the mail server is down`);
       expect(res.status).toBe(201);
