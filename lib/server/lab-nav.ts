@@ -8,6 +8,7 @@ export function labNav(labId: string, role: Role) {
   const items = [
     { href: base, label: "Dashboard" },
     { href: `${base}/studies`, label: "Studies" },
+    { href: `${base}/readouts`, label: "Readouts" },
     { href: `${base}/kinetics`, label: "Kinetics" },
     { href: `${base}/members`, label: "Members" },
   ];

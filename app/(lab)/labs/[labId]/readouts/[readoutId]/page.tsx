@@ -3,6 +3,7 @@ import { PageHeader } from "@/components/ui/panel";
 import { can } from "@/lib/access/permissions";
 import { getReadout } from "@/lib/server/data/readouts";
 import { orNotFound, pageLab } from "@/lib/server/page-access";
+import { Discussion } from "@/components/discussion/discussion";
 import { ReadoutView } from "./readout-view";
 
 export const dynamic = "force-dynamic";
@@ -25,6 +26,9 @@ export default async function ReadoutPage({ params }: { params: Promise<{ labId:
         subtitle={`${readout.condition} · ${readout.kind === "image" ? "image" : "table"} · started ${readout.createdAt.slice(0, 16).replace("T", " ")} UTC${readout.createdByEmail ? ` by ${readout.createdByEmail}` : ""}`}
       />
       <ReadoutView labId={labId} initial={readout} canRerun={can(ctx.role, "readout.create")} />
+      <div className="mt-8" id="discussion">
+        <Discussion labId={labId} targetType="readout" targetId={readout.id} />
+      </div>
     </>
   );
 }
