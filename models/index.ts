@@ -14,6 +14,7 @@ import { initJob } from "./job";
 import { initKineticsVersion } from "./kinetics-version";
 import { initLabKinetics } from "./lab-kinetics";
 import { initReadout } from "./readout";
+import { initSimulationRun } from "./simulation-run";
 import { initLab } from "./lab";
 import { initMembership } from "./membership";
 import { initSpecimen } from "./specimen";
@@ -39,6 +40,7 @@ export function createModels(sequelize: Sequelize) {
     Readout: initReadout(sequelize),
     CommentThread: initCommentThread(sequelize),
     Comment: initComment(sequelize),
+    SimulationRun: initSimulationRun(sequelize),
   };
   const { User, Lab, Membership, Invitation, Study, Specimen, Upload, ApiToken, LabKinetics, KineticsVersion, Readout } = models;
   Membership.belongsTo(User, { as: "user", foreignKey: "userId" });

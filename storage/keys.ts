@@ -15,3 +15,9 @@ export function uploadDerivedKey(labId: string, uploadId: string, name: string):
 export function readoutDerivedKey(labId: string, uploadId: string, readoutId: string, product: string): string {
   return uploadDerivedKey(labId, uploadId, `readout-${readoutId.toLowerCase()}-${product}`);
 }
+
+/** A stored output of one simulation run (final fields, snapshot images, readout products). */
+export function simulationRunKey(labId: string, runId: string, name: string): string {
+  if (!/^[a-z0-9][a-z0-9._-]*$/.test(name)) throw new Error(`run output name "${name}" is not a plain lowercase name`);
+  return `labs/${labId}/runs/${runId.toLowerCase()}/${name}`;
+}

@@ -33,6 +33,7 @@ export const ACTIONS = [
   "kinetics.edit",
   "fit.create",
   "job.cancel",
+  "run.create",
 ] as const;
 export type Action = (typeof ACTIONS)[number];
 
@@ -60,6 +61,7 @@ const table: Record<Action, Record<Role, Scope>> = {
   "kinetics.edit": { manager: "any", scientist: false, modeller: "own", collaborator: false },
   "fit.create": { manager: "any", scientist: "any", modeller: "any", collaborator: false },
   "job.cancel": { manager: "any", scientist: "own", modeller: "own", collaborator: false },
+  "run.create": { manager: "any", scientist: false, modeller: "any", collaborator: false },
 };
 
 /** Whether `role` may do `action`; pass `ownerId`/`actorId` for actions on an existing object. */

@@ -11,6 +11,7 @@ export function labNav(labId: string, role: Role) {
     { href: `${base}/readouts`, label: "Readouts" },
     { href: `${base}/kinetics`, label: "Kinetics" },
     { href: `${base}/members`, label: "Members" },
+    { href: `${base}/runs`, label: "Runs" },
   ];
   if (can(role, "audit.read")) items.push({ href: `${base}/audit`, label: "Audit trail" });
   if (can(role, "mailbox.read") && mailboxEnabled()) items.push({ href: `${base}/mailbox`, label: "Mailbox (dev)" });

@@ -10,7 +10,7 @@ import {
 } from "../../simulation";
 import { createWorkerExecutor } from "../../simulation/parallel/worker-executor";
 
-const help = `simulate --spec RUN.json [--out DIR] [--threads 1|2] [--json]
+const help = `simulate --spec RUN.json [--out DIR] [--threads 1|2] [--progress] [--json]
 
 Simulates a kinetics on a zero-flux interval or rectangle (semi-implicit spectral solver) and
 summarises the final pattern; on a 2-D grid with square cells it also reads the wavelength of the
@@ -32,7 +32,11 @@ RUN.json fields:
                      "physical" block (wavelength in µm, time in s; SCIENCE.md §3)
 Options:
   --out DIR      writes final-<species>.f64 (raw little-endian float64, row-major),
-                 final-<species>.png (min–max scaled) and result.json
+                 final-<species>.png (min–max scaled), snapshot-<i>-<species>.f64 for each
+                 snapshot (i from 0, in the order of snapshotTimesS) and result.json
+  --progress     prints one line "progress {timeS, fraction, steps}" (JSON) to stderr at each
+                 progress report of the solver (about every 1 % of the steps), for a caller
+                 that runs this command as a child process
   --threads N    1 (default) or 2: run the spectral stage of the species on two threads
 `;
 
@@ -121,6 +125,12 @@ async function writeOutputs(dir: string, result: SimulationResult, json: unknown
     const png = path.join(dir, `final-${name}.png`);
     writeFileSync(png, await encodePng(toGrey(result.fields[s], g.nx, g.dimensions === 2 ? g.ny : 32)));
     written.push(f64, png);
+    result.snapshots.forEach((snap, i) => {
+      const file = path.join(dir, `snapshot-${i}-${name}.f64`);
+      const f = snap.fields[s];
+      writeFileSync(file, Buffer.from(f.buffer, f.byteOffset, f.byteLength));
+      written.push(file);
+    });
   }
   const meta = path.join(dir, "result.json");
   writeFileSync(meta, JSON.stringify(json, null, 2));
@@ -132,7 +142,7 @@ const command: CliCommand = {
   summary: "Simulate a kinetics on an interval or rectangle and read the final pattern",
   help,
   async run(args) {
-    const { options } = parseOptions(args);
+    const { options } = parseOptions(args, ["progress"]);
     if (typeof options.spec !== "string") throw new CliError("Give --spec RUN.json.");
     const threads = options.threads === undefined ? 1 : Number(options.threads);
     if (threads !== 1 && threads !== 2) throw new CliError(`--threads must be 1 or 2 (got ${String(options.threads)}).`);
@@ -150,6 +160,7 @@ const command: CliCommand = {
         initial: { kind: "steady-state-noise", steadyState, noiseAmplitude: spec.initial?.noiseAmplitude, seed: spec.initial?.seed ?? 1 },
         endTimeS: spec.endTimeS, dtS: spec.dtS, scheme: spec.scheme, stopWhenStationary: spec.stopWhenStationary,
         stationarity: spec.stationarity, snapshotTimesS: spec.snapshotTimesS, executor,
+        onProgress: options.progress === true ? (q) => process.stderr.write(`progress ${JSON.stringify({ timeS: q.timeS, fraction: q.fraction, steps: q.steps })}\n`) : undefined,
       });
       const json: Record<string, unknown> = {
         kinetics: kinetics.id, units: kinetics.units, lengthUnit: kinetics.units === "dimensional" ? "µm" : "model", ...summarise(result), readout: readPattern(result),

@@ -3,3 +3,4 @@
  */
 import "./echo-job";
 import "./readout-job";
+import "./simulation-job";

@@ -1,0 +1,8 @@
+import { getRun } from "@/lib/server/data/simulation-runs";
+import { json } from "@/lib/server/http";
+import { labRoute } from "@/lib/server/lab-route";
+
+export const runtime = "nodejs";
+
+/** One run: status and progress while it runs, then the plan, the result and links to its files. */
+export const GET = labRoute<{ labId: string; runId: string }>("lab.read", async (ctx, _request, p) => json(await getRun(ctx, p.runId)));

@@ -1,0 +1,182 @@
+/**
+ * Job kind "simulation": runs the `simulate` CLI on the run's stored RUN.json in a child process
+ * (a 256² run is about a minute of CPU; in-process it would stop the server answering), reads its
+ * progress lines, kills it on cancel, then colours the final fields and snapshots, reads the final
+ * pattern with the tissue readout (lib/server/data/readout-image.ts) and stores everything.
+ * Nothing half-written: objects are put first, the row becomes "succeeded" in one update, and a
+ * failure removes the objects again.
+ */
+import { spawn } from "node:child_process";
+import { createHash } from "node:crypto";
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import path from "node:path";
+import { encodePng } from "@/lib/imaging";
+import { ReadoutError } from "@/lib/readout";
+import { imageReadoutSettingsSchema } from "@/lib/contracts/readout";
+import { simulationRunKey } from "@/storage/keys";
+import { AppError } from "../errors";
+import { database, services } from "../services";
+import { runImageReadout } from "../data/readout-image";
+import { compareWithPrediction } from "../data/simulation-run-compare";
+import { fieldRange, fieldToGrey, renderFieldPng } from "../data/simulation-run-images";
+import type { RunPlan, RunResult, RunSpec } from "../data/simulation-run-types";
+import { registerJobHandler } from "./registry";
+import { JobCancelledError, type JobHandler } from "./types";
+
+const GONE = "the run was removed before it finished";
+
+interface CliOutput {
+  stopReason: RunResult["stopReason"];
+  message: string;
+  timeS: number;
+  steps: number;
+  dtS: number;
+  stationary: boolean;
+  lastChangeRatePerS: number | null;
+  blowUp: RunResult["blowUp"];
+  fields: RunResult["fields"];
+  snapshots: { requestedTimeS: number; timeS: number; step: number }[];
+}
+
+/** Runs the CLI; resolves with its JSON, rejects with its error message. */
+function runCli(specFile: string, outDir: string, signal: AbortSignal, onProgress: (fraction: number, timeS: number) => void): Promise<CliOutput> {
+  return new Promise((resolve, reject) => {
+    const child = spawn(process.execPath, ["--import", "tsx", "lib/cli/main.ts", "simulate", "--spec", specFile, "--out", outDir, "--progress", "--json"], { cwd: process.cwd(), stdio: ["ignore", "pipe", "pipe"] });
+    let stdout = "", stderr = "", pending = "";
+    const abort = () => child.kill("SIGKILL");
+    signal.addEventListener("abort", abort, { once: true });
+    child.stdout.on("data", (d: Buffer) => (stdout += d.toString()));
+    child.stderr.on("data", (d: Buffer) => {
+      pending += d.toString();
+      const lines = pending.split("\n");
+      pending = lines.pop() ?? "";
+      for (const line of lines) {
+        if (line.startsWith("progress ")) {
+          try {
+            const q = JSON.parse(line.slice(9)) as { fraction: number; timeS: number };
+            onProgress(q.fraction, q.timeS);
+          } catch {
+            // a torn line; the next one will do
+          }
+        } else stderr += line + "\n";
+      }
+    });
+    child.on("error", (err) => reject(err));
+    child.on("close", (code) => {
+      signal.removeEventListener("abort", abort);
+      if (signal.aborted) return reject(new JobCancelledError());
+      if (code !== 0) {
+        const last = stderr.trim().split("\n").pop() ?? "";
+        let message = last || `the simulation process exited with code ${code}`;
+        try {
+          message = (JSON.parse(last) as { error: { message: string } }).error.message;
+        } catch {
+          // plain text
+        }
+        return reject(new AppError("unprocessable", `the simulation stopped with an error: ${message}`));
+      }
+      resolve(JSON.parse(stdout) as CliOutput);
+    });
+  });
+}
+
+const readField = (file: string) => {
+  const b = readFileSync(file);
+  return new Float64Array(b.buffer.slice(b.byteOffset, b.byteOffset + b.byteLength));
+};
+
+export const runSimulationJob: JobHandler = async (job, ctx) => {
+  const m = await database();
+  const { store } = services();
+  const row = await m.SimulationRun.findOne({ where: { id: String(job.payload.runId ?? ""), labId: job.labId } });
+  if (!row) throw new AppError("not_found", GONE);
+  if (row.status !== "queued" && row.status !== "running") throw new AppError("conflict", `this run has already ${row.status}; start a new one instead`);
+  const spec = row.spec as unknown as RunSpec, plan = row.plan as unknown as RunPlan;
+  const dir = mkdtempSync(path.join(tmpdir(), "morphokin-run-"));
+  const written: string[] = [];
+  const put = async (name: string, body: Buffer, contentType: string) => {
+    const key = simulationRunKey(row.labId, row.id, name);
+    written.push(key);
+    await store.put(key, body, { contentType, contentLength: body.length });
+    return key;
+  };
+  try {
+    await row.update({ status: "running" });
+    const specFile = path.join(dir, "RUN.json");
+    writeFileSync(specFile, JSON.stringify(spec, null, 2));
+    const t0 = Date.now();
+    const unit = plan.timeUnit === "s" ? "s" : "model time";
+    const tf = plan.timeFactor ?? 1;
+    const out = await runCli(specFile, path.join(dir, "out"), ctx.signal, (f, t) => void ctx.progress(0.9 * f, `simulated t = ${Number((t * tf).toPrecision(4))} of ${Number((spec.endTimeS * tf).toPrecision(4))} ${unit} (${Math.round(100 * f)} %)`));
+    const wallS = (Date.now() - t0) / 1000;
+    await ctx.progress(0.9, "storing fields and images");
+    const [nx, ny] = [spec.grid.cells[0], spec.grid.cells[1] ?? 1];
+    const fileKeys: Record<string, string> = {};
+    const finals = plan.species.map((_, s) => readField(path.join(dir, "out", `final-${plan.species[s].replace(/[^A-Za-z0-9_-]/g, "_")}.f64`)));
+    for (let s = 0; s < finals.length; s++) {
+      const bytes = Buffer.from(finals[s].buffer);
+      fileKeys[`final-${s}.f64`] = await put(`final-${s}.f64`, bytes, "application/octet-stream");
+      fileKeys[`final-${s}.png`] = await put(`final-${s}.png`, await renderFieldPng(finals[s], nx, ny), "image/png");
+    }
+    const snapshots: RunResult["snapshots"] = [];
+    for (let i = 0; i < out.snapshots.length; i++) {
+      const range: { min: number; max: number }[] = [];
+      for (let s = 0; s < plan.species.length; s++) {
+        const f = readField(path.join(dir, "out", `snapshot-${i}-${plan.species[s].replace(/[^A-Za-z0-9_-]/g, "_")}.f64`));
+        range.push(fieldRange(f));
+        fileKeys[`snapshot-${i}-${s}.png`] = await put(`snapshot-${i}-${s}.png`, await renderFieldPng(f, nx, ny), "image/png");
+      }
+      snapshots.push({ ...out.snapshots[i], range });
+    }
+    if (ctx.signal.aborted) throw new JobCancelledError();
+    await ctx.progress(0.95, "reading the final pattern");
+    let readout: RunResult["readout"] = null, readoutSkipped: string | null = null;
+    const cellX = spec.grid.lengthUm[0] / nx, cellY = ny > 1 ? spec.grid.lengthUm[1] / ny : cellX;
+    if (Math.abs(cellX / cellY - 1) > 1e-9) readoutSkipped = "The cells are not square, so the image readout (one pixel size) cannot read this grid.";
+    else {
+      try {
+        const png = await encodePng(fieldToGrey(finals[0], nx, ny), { bitDepth: 16 });
+        const settings = { ...imageReadoutSettingsSchema.parse({}), pixelSizeUm: cellX, pixelSizeSource: "simulation cell size" };
+        const r = await runImageReadout(png, settings, async () => undefined);
+        readout = r.result;
+        for (const [name, body] of Object.entries(r.derived)) fileKeys[name] = await put(name, body, name.endsWith(".json") ? "application/json" : "image/png");
+      } catch (err) {
+        if (!(err instanceof ReadoutError)) throw err;
+        readoutSkipped = err.message;
+      }
+    }
+    const lf = plan.lengthFactor ?? 1;
+    const w = readout?.wavelength;
+    const comparison = readout && plan.prediction ? compareWithPrediction(w?.wavelengthUm != null ? w.wavelengthUm * lf : null, w?.uncertaintyUm != null ? w.uncertaintyUm * lf : null, plan.prediction.wavelength * lf, plan.lengthUnit) : null;
+    const result: RunResult = {
+      stopReason: out.stopReason, message: out.message, timeS: out.timeS, steps: out.steps, dtS: out.dtS, stationary: out.stationary,
+      lastChangeRatePerS: out.lastChangeRatePerS, blowUp: out.blowUp, fields: out.fields, snapshots, readout, readoutSkipped, comparison,
+      finalSha256: finals.map((f) => createHash("sha256").update(Buffer.from(f.buffer)).digest("hex")), wallS,
+    };
+    fileKeys["result.json"] = await put("result.json", Buffer.from(JSON.stringify(result)), "application/json");
+    fileKeys["run.json"] = await put("run.json", Buffer.from(JSON.stringify(spec, null, 2)), "application/json");
+    const [updated] = await m.SimulationRun.update(
+      {
+        status: "succeeded", result: result as unknown as Record<string, unknown>, stopReason: out.stopReason, error: out.stopReason === "blow-up" ? out.message : null,
+        wavelengthUm: comparison?.simulatedWavelength ?? null, uncertaintyUm: comparison?.uncertainty ?? null, agrees: comparison?.withinUncertainty ?? null,
+        fileKeys, finishedAt: new Date(),
+      },
+      { where: { id: row.id, status: "running" } },
+    );
+    if (updated === 0) throw new AppError("not_found", GONE);
+    written.length = 0;
+    return { runId: row.id, stopReason: out.stopReason, wavelength: comparison?.simulatedWavelength ?? null, wallS };
+  } catch (err) {
+    for (const key of written) await store.delete(key).catch((e) => console.error(`could not remove run object ${key}`, e));
+    const cancelled = err instanceof JobCancelledError || ctx.signal.aborted;
+    const message = cancelled ? "the run was cancelled" : err instanceof AppError ? err.message : "the run failed on the server; the error was logged";
+    await m.SimulationRun.update({ status: cancelled ? "cancelled" : "failed", error: message, result: null, fileKeys: null, finishedAt: new Date() }, { where: { id: row.id } }).catch(() => undefined);
+    if (cancelled) throw new JobCancelledError();
+    throw err;
+  } finally {
+    rmSync(dir, { recursive: true, force: true });
+  }
+};
+
+registerJobHandler("simulation", runSimulationJob);
