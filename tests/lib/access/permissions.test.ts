@@ -8,9 +8,11 @@ describe("permission table", () => {
     for (const a of ACTIONS) expect(can("manager", a, { ownerId: "someone", actorId: "me" })).toBe(true);
   });
 
-  it("a collaborator may read and comment, nothing else", () => {
+  it("a collaborator may read and comment (and edit or delete their own comments), nothing else", () => {
     const allowed = ACTIONS.filter((a) => scopeOf("collaborator", a) !== false);
-    expect(allowed.sort()).toEqual(["comment.create", "lab.read", "member.list", "upload.read"]);
+    expect(allowed.sort()).toEqual(["comment.create", "comment.delete", "comment.edit", "lab.read", "member.list", "upload.read"]);
+    expect(scopeOf("collaborator", "comment.edit")).toBe("own");
+    expect(scopeOf("collaborator", "comment.delete")).toBe("own");
   });
 
   it("scientists and modellers edit only what they created", () => {
