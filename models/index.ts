@@ -8,6 +8,7 @@ import { initApiToken } from "./api-token";
 import { initAuditEvent } from "./audit-event";
 import { initAuthRecords } from "./auth-records";
 import { initComment } from "./comment";
+import { initFit } from "./fit";
 import { initCommentThread } from "./comment-thread";
 import { initInvitation } from "./invitation";
 import { initJob } from "./job";
@@ -40,6 +41,7 @@ export function createModels(sequelize: Sequelize) {
     Readout: initReadout(sequelize),
     CommentThread: initCommentThread(sequelize),
     Comment: initComment(sequelize),
+    Fit: initFit(sequelize),
     SimulationRun: initSimulationRun(sequelize),
   };
   const { User, Lab, Membership, Invitation, Study, Specimen, Upload, ApiToken, LabKinetics, KineticsVersion, Readout } = models;

@@ -4,3 +4,4 @@
 import "./echo-job";
 import "./readout-job";
 import "./simulation-job";
+import "./fit-job";

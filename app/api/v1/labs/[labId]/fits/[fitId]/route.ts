@@ -1,0 +1,8 @@
+import { getFit } from "@/lib/server/data/fits";
+import { json } from "@/lib/server/http";
+import { labRoute } from "@/lib/server/lab-route";
+
+export const runtime = "nodejs";
+
+/** One fit: stored spec, provenance, status, and the result once finished. */
+export const GET = labRoute<{ labId: string; fitId: string }>("lab.read", async (ctx, _request, p) => json(await getFit(ctx, p.fitId)));
