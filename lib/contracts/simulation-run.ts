@@ -37,6 +37,12 @@ export const simulationRunRequestSchema = z.object({
   snapshots: z.number().int("snapshots must be a whole number").min(2, "snapshots must be at least 2").max(MAX_RUN_SNAPSHOTS, `snapshots must be at most ${MAX_RUN_SNAPSHOTS}`).optional(),
   /** One parameter varying along x, in the gradient forms of the kinetics page (positions in grid length units). */
   gradient: z.object({ parameter: z.string().min(1).max(32), profile: gradientProfileSchema }).optional(),
+  /** Start from a finished fit: its kinetics, parameters and scales for one condition replace those above. */
+  fit: z.object({
+    fitId: z.uuid("fit.fitId must be a fit id"),
+    model: z.string().max(200).optional(),
+    condition: z.string("fit.condition must name a condition of the fit").min(1, "fit.condition must name a condition of the fit").max(200),
+  }).optional(),
   lengthScaleUm: positive("lengthScaleUm (µm)").optional(),
   timeScaleS: positive("timeScaleS (s)").optional(),
 });

@@ -1,7 +1,7 @@
 /**
  * Colour images of simulated fields in Morphokin's palette: warm paper (low) → deep green → ink
- * (high), min–max scaled per image (the page prints the range beside it). A 1-D field is drawn
- * as a strip 24 px high.
+ * (high), min–max scaled per image (the page prints the range beside it; components/charts/
+ * field-image.tsx draws the same stops as its colour bar). A 1-D field is drawn as a strip 24 px high.
  */
 import sharp from "sharp";
 
@@ -18,15 +18,6 @@ function colourAt(t: number, out: Uint8Array, o: number) {
   const [t0, c0] = STOPS[i - 1], [t1, c1] = STOPS[i];
   const f = Math.min(1, Math.max(0, (t - t0) / (t1 - t0)));
   for (let c = 0; c < 3; c++) out[o + c] = Math.round(c0[c] + f * (c1[c] - c0[c]));
-}
-
-/** The palette's colours at n evenly spaced levels, as CSS hex (for the colour bar). */
-export function paletteStops(n = 5): string[] {
-  const px = new Uint8Array(3);
-  return Array.from({ length: n }, (_, i) => {
-    colourAt(i / (n - 1), px, 0);
-    return `#${[...px].map((v) => v.toString(16).padStart(2, "0")).join("")}`;
-  });
 }
 
 export function fieldRange(field: Float64Array): { min: number; max: number } {

@@ -19,6 +19,7 @@ import { resolveAnalysisKinetics } from "./kinetics-analyses";
 import { getLabKineticsVersion } from "./kinetics";
 import { withKineticsErrors } from "./kinetics-engine";
 import { parseProfileTable } from "./kinetics-table";
+import { readFitStart } from "./simulation-run-fit";
 import type { RunPlan, RunSpec } from "./simulation-run-types";
 
 /** Stiffness safety factor of the step rule h ≤ c/ρ (the solver's default, which the CLI uses). */
@@ -69,13 +70,16 @@ export interface PlannedRun {
   seed: string;
 }
 
-export async function planRun(ctx: LabContext, req: SimulationRunRequest): Promise<PlannedRun> {
+export async function planRun(ctx: LabContext, asked: SimulationRunRequest): Promise<PlannedRun> {
+  const fit = asked.fit ? await readFitStart(ctx, asked.fit) : null;
+  const req = fit ? { ...asked, kinetics: fit.kinetics, version: fit.version, lengthScaleUm: fit.lengthScaleUm, timeScaleS: fit.timeScaleS } : asked;
   const { compiled, info } = await resolveAnalysisKinetics(ctx, req.kinetics, req.version);
   let definition: KineticsDefinition | null = null;
   if (info.kind === "lab") definition = (await getLabKineticsVersion(ctx, req.kinetics, info.version ?? undefined)).definition;
   const dimensional = info.units === "dimensional";
   const scales = dimensional ? {} : { lengthScaleUm: req.lengthScaleUm, timeScaleS: req.timeScaleS };
-  const p = withKineticsErrors(() => resolveParameters(compiled, req.parameters ?? {}, "parameters"));
+  const given = fit ? Object.fromEntries(compiled.parameters.map((q) => [q.name, fit.parameters[q.name]]).filter(([, v]) => v !== undefined)) : (req.parameters ?? {});
+  const p = withKineticsErrors(() => resolveParameters(compiled, given, "parameters"));
   const params: Record<string, number> = Object.fromEntries(compiled.parameters.map((s, i) => [s.name, p[i]]));
   const grid: Grid = solverError(() => createGrid(req.grid));
   const units = dimensional ? "um" as const : "model" as const;
@@ -164,6 +168,7 @@ export async function planRun(ctx: LabContext, req: SimulationRunRequest): Promi
       domainMode: r.domain && r.domain.fastestMode.k > 0 ? { k: r.domain.fastestMode.k, wavelength: (2 * Math.PI) / r.domain.fastestMode.k, indices: r.domain.fastestMode.indices, growing: r.domain.patterningExpected } : null,
     } : null,
     gradientPrediction,
+    fromFit: fit?.fromFit ?? null,
     warnings,
   };
   return { spec, plan, kineticsKind: info.kind, kineticsRef: info.id, kineticsVersion: info.version, kineticsName: info.name, seed: String(seed) };

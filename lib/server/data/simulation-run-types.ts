@@ -45,6 +45,17 @@ export interface RunPlan {
   prediction: { kStar: number; wavelength: number; domainMode: { k: number; wavelength: number; indices: number[]; growing: boolean } | null } | null;
   /** Local 2π/k* along x when a parameter varies (positions in grid units). */
   gradientPrediction: { parameter: string; positions: number[]; values: number[]; wavelengths: Array<number | null> } | null;
+  /** Set when the run started from a fit: the measurement the fit used for this condition (µm). */
+  fromFit: {
+    fitId: string;
+    fitName: string;
+    model: string;
+    condition: string;
+    measuredMeanUm: number;
+    measuredSeUm: number;
+    n: number;
+    readouts: { readoutId: string; filename: string | null; measure: string | null }[];
+  } | null;
   warnings: string[];
 }
 
@@ -84,6 +95,8 @@ export interface RunResult {
   readout: ImageReadoutResult | null;
   readoutSkipped: string | null;
   comparison: RunComparison | null;
+  /** Against the fit's measured mean (µm), when the run started from a fit and a length scale is known. */
+  measurementComparison: RunComparison | null;
   /** SHA-256 of each species' final field bytes (float64, little-endian): equal seeds give equal hashes. */
   finalSha256: string[];
   /** Wall-clock time of the simulation process (s), start-up included. */

@@ -2,7 +2,9 @@
  * Verification runs: a kinetics simulated from a stored RUN.json (the `simulate` CLI's spec) in a
  * background job of kind "simulation", its final pattern read by the tissue readout and set
  * beside the linear prediction 2π/k*. Starting one checks everything first (simulation-run-plan.ts)
- * and writes the row and its job in one transaction. Runs start from a kinetics and parameters.
+ * and writes the row and its job in one transaction. A run starts from a kinetics and parameters,
+ * or from a finished fit (simulation-run-fit.ts). The runner's mail hook tells the requester when a
+ * long run ends (payload title and path).
  */
 import { randomUUID } from "node:crypto";
 import { Op } from "sequelize";
@@ -88,7 +90,7 @@ export async function startRun(ctx: LabContext, req: SimulationRunRequest): Prom
   const lf = planned.plan.lengthFactor ?? 1;
   const name = req.name || `${planned.kineticsName}${planned.kineticsVersion ? ` v${planned.kineticsVersion}` : ""}, ${planned.spec.grid.cells.join("×")}, seed ${planned.seed}`;
   await services().db.sequelize.transaction(async (transaction) => {
-    const job = await enqueueJob({ labId: ctx.labId, kind: "simulation", payload: { runId: id }, requestedBy: ctx.actor.userId }, transaction);
+    const job = await enqueueJob({ labId: ctx.labId, kind: "simulation", payload: { runId: id, title: `the verification run “${name}”`, path: `/labs/${ctx.labId}/runs/${id}` }, requestedBy: ctx.actor.userId }, transaction);
     await m.SimulationRun.create(
       {
         id, labId: ctx.labId, jobId: job.id, status: "queued", name, kineticsKind: planned.kineticsKind, kineticsRef: planned.kineticsRef,

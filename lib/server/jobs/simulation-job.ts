@@ -149,9 +149,13 @@ export const runSimulationJob: JobHandler = async (job, ctx) => {
     const lf = plan.lengthFactor ?? 1;
     const w = readout?.wavelength;
     const comparison = readout && plan.prediction ? compareWithPrediction(w?.wavelengthUm != null ? w.wavelengthUm * lf : null, w?.uncertaintyUm != null ? w.uncertaintyUm * lf : null, plan.prediction.wavelength * lf, plan.lengthUnit) : null;
+    const ff = plan.fromFit;
+    const measurementComparison = ff && comparison?.simulatedWavelength != null && plan.lengthUnit === "µm"
+      ? compareWithPrediction(comparison.simulatedWavelength, comparison.uncertainty, ff.measuredMeanUm, "µm", { what: `the measured mean of “${ff.condition}” (n = ${ff.n})`, referenceUncertainty: ff.measuredSeUm })
+      : null;
     const result: RunResult = {
       stopReason: out.stopReason, message: out.message, timeS: out.timeS, steps: out.steps, dtS: out.dtS, stationary: out.stationary,
-      lastChangeRatePerS: out.lastChangeRatePerS, blowUp: out.blowUp, fields: out.fields, snapshots, readout, readoutSkipped, comparison,
+      lastChangeRatePerS: out.lastChangeRatePerS, blowUp: out.blowUp, fields: out.fields, snapshots, readout, readoutSkipped, comparison, measurementComparison,
       finalSha256: finals.map((f) => createHash("sha256").update(Buffer.from(f.buffer)).digest("hex")), wallS,
     };
     fileKeys["result.json"] = await put("result.json", Buffer.from(JSON.stringify(result)), "application/json");

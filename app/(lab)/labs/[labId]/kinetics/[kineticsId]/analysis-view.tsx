@@ -7,6 +7,7 @@
 import { useMemo, useState } from "react";
 import { DispersionPlot } from "@/components/charts/dispersion-plot";
 import { unitsFor } from "@/components/charts/dispersion-format";
+import { LinkButton } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { Panel } from "@/components/ui/panel";
 import type { DispersionDto } from "@/lib/server/data/kinetics-analyses";
@@ -30,7 +31,7 @@ export interface AnalysisBase {
 
 type DomainKind = "unbounded" | "interval" | "rectangle" | "sphere";
 
-export function AnalysisView({ labId, info }: { labId: string; info: KineticsInfoDto }) {
+export function AnalysisView({ labId, info, canSimulate = false }: { labId: string; info: KineticsInfoDto; canSimulate?: boolean }) {
   const dimensional = info.units === "dimensional";
   const [values, setValues] = useState<Record<string, string>>(() => Object.fromEntries(info.parameters.map((p) => [p.name, String(p.default)])));
   const [lengthScale, setLengthScale] = useState("");
@@ -98,6 +99,11 @@ export function AnalysisView({ labId, info }: { labId: string; info: KineticsInf
                 <label className="block text-xs">length scale ℓ (µm)<input className={field} value={lengthScale} placeholder="none" onChange={(e) => setLengthScale(e.target.value)} data-testid="length-scale" /></label>
                 <label className="block text-xs">time scale τ (s)<input className={field} value={timeScale} placeholder="none" onChange={(e) => setTimeScale(e.target.value)} data-testid="time-scale" /></label>
               </div>
+            </div>
+          )}
+          {canSimulate && (
+            <div className="mt-4 border-t border-rule pt-3">
+              <LinkButton variant="secondary" size="sm" data-testid="simulate-link" href={`/labs/${labId}/runs/new?${new URLSearchParams({ kinetics: info.id, ...(info.version ? { version: String(info.version) } : {}), ...Object.fromEntries(Object.entries(values).map(([k, v]) => [`p.${k}`, v])), ...(!dimensional && lengthScale ? { lengthScaleUm: lengthScale } : {}), ...(!dimensional && timeScale ? { timeScaleS: timeScale } : {}) })}`}>Simulate with these parameters</LinkButton>
             </div>
           )}
         </Panel>

@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { LinkButton } from "@/components/ui/button";
+import { can } from "@/lib/access/permissions";
 import { Badge, PageHeader, Panel } from "@/components/ui/panel";
 import { formatDateTime } from "@/lib/client/format";
 import { isUuid } from "@/lib/server/access";
@@ -69,7 +70,7 @@ export default async function KineticsAnalysisPage({ params, searchParams }: { p
           </Panel>
         )}
       </div>
-      <AnalysisView key={`${info.id}@${info.version ?? 0}`} labId={labId} info={info} />
+      <AnalysisView key={`${info.id}@${info.version ?? 0}`} labId={labId} info={info} canSimulate={can(ctx.role, "run.create")} />
     </>
   );
 }

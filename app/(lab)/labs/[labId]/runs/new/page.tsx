@@ -1,0 +1,57 @@
+import Link from "next/link";
+import { PageHeader } from "@/components/ui/panel";
+import { SIMULATION_LIMITS } from "@/lib/simulation";
+import { definitionInfo, getLabKineticsVersion, listCatalogue, listLabKinetics, type KineticsInfoDto } from "@/lib/server/data/kinetics";
+import { RUN_WORK_LIMIT, SOLVER_CELL_STEPS_PER_S } from "@/lib/server/data/simulation-run-plan";
+import { Notice } from "@/components/ui/notice";
+import { AppError } from "@/lib/server/errors";
+import { readFitStart } from "@/lib/server/data/simulation-run-fit";
+import { pageLab } from "@/lib/server/page-access";
+import { RunForm, type RunPrefill } from "./run-form";
+
+export const dynamic = "force-dynamic";
+
+type Search = Record<string, string | string[] | undefined>;
+
+export default async function NewRunPage({ params, searchParams }: { params: Promise<{ labId: string }>; searchParams: Promise<Search> }) {
+  const { labId } = await params;
+  const q = await searchParams;
+  const ctx = await pageLab(labId, "run.create");
+  const lab = await listLabKinetics(ctx, { page: 1, pageSize: 200, sort: "name", dir: "asc", q: "" });
+  const labInfos: KineticsInfoDto[] = [];
+  for (const k of lab.items) {
+    const v = await getLabKineticsVersion(ctx, k.id);
+    labInfos.push(definitionInfo(k.id, v.version, v.definition));
+  }
+  const one = (k: string) => (typeof q[k] === "string" ? (q[k] as string) : undefined);
+  const parameters: Record<string, string> = {};
+  for (const [k, v] of Object.entries(q)) if (k.startsWith("p.") && typeof v === "string") parameters[k.slice(2)] = v;
+  let prefill: RunPrefill = { kinetics: one("kinetics"), version: one("version"), parameters, lengthScaleUm: one("lengthScaleUm"), timeScaleS: one("timeScaleS") };
+  let fitNotice: string | null = null;
+  const fitId = one("fit"), condition = one("condition");
+  if (fitId && condition) {
+    try {
+      const f = await readFitStart(ctx, { fitId, condition, model: one("model") });
+      prefill = {
+        kinetics: f.kinetics, version: f.version ? String(f.version) : undefined, parameters: Object.fromEntries(Object.entries(f.parameters).map(([k, v]) => [k, String(v)])),
+        lengthScaleUm: f.lengthScaleUm !== undefined ? String(f.lengthScaleUm) : undefined, timeScaleS: f.timeScaleS !== undefined ? String(f.timeScaleS) : undefined,
+        fit: { fitId, condition, model: f.fromFit.model, label: `${f.fromFit.fitName} (${f.fromFit.model}), condition “${condition}”: measured ${Number(f.fromFit.measuredMeanUm.toPrecision(4))} ± ${Number(f.fromFit.measuredSeUm.toPrecision(2))} µm, n = ${f.fromFit.n}` },
+      };
+    } catch (err) {
+      if (!(err instanceof AppError)) throw err;
+      fitNotice = err.message;
+    }
+  }
+  const limits = [
+    `cells per axis: a power of two, ${SIMULATION_LIMITS.minCellsPerAxis} … ${SIMULATION_LIMITS.maxCellsPerAxis2D} on a rectangle, up to ${SIMULATION_LIMITS.maxCells1D} on an interval`,
+    `at most ${SIMULATION_LIMITS.maxSteps.toLocaleString("en")} time steps (the step is the smaller of your cap and 0.1/ρ, ρ the spectral radius of the reaction Jacobian)`,
+    `at most ${RUN_WORK_LIMIT.toLocaleString("en")} cell-species-steps per run (256² cells × 2 species × 20 000 steps, about ${Math.round(RUN_WORK_LIMIT / SOLVER_CELL_STEPS_PER_S)} s of CPU)`,
+  ];
+  return (
+    <>
+      <PageHeader crumbs={<Link href={`/labs/${labId}/runs`} className="hover:underline">Runs</Link>} title="New verification run" subtitle="Simulate a kinetics from its homogeneous steady state plus seeded noise; the final pattern is read like a tissue image and compared with 2π/k*." />
+      {fitNotice && <div className="mb-4"><Notice tone="warning">{fitNotice}</Notice></div>}
+      <RunForm labId={labId} kinetics={[...listCatalogue(), ...labInfos]} prefill={prefill} limits={limits} />
+    </>
+  );
+}
