@@ -20,7 +20,9 @@ export function ReadoutView({ labId, initial, canRerun }: { labId: string; initi
     refreshInterval: (d) => (d && active(d.status) ? 800 : 0),
   });
   const r = data ?? initial;
-  const { data: siblings } = useSWR<ListResult<ReadoutDto>>(`/api/v1/labs/${labId}/uploads/${r.uploadId}/readouts?pageSize=50`, fetchJson, { refreshInterval: active(r.status) ? 2000 : 0 });
+  // Keyed by this readout too: after a re-run the new page must not reuse the list the previous
+  // page fetched a moment ago (SWR dedupes identical keys for 2 s).
+  const { data: siblings } = useSWR<ListResult<ReadoutDto>>(`/api/v1/labs/${labId}/uploads/${r.uploadId}/readouts?pageSize=50&seenFrom=${r.id}`, fetchJson, { refreshInterval: active(r.status) ? 2000 : 0 });
   return (
     <div className="space-y-5" data-testid="readout-view">
       <div className="flex flex-wrap items-center gap-3 text-sm">
