@@ -10,6 +10,7 @@ export function labNav(labId: string, role: Role) {
     { href: `${base}/studies`, label: "Studies" },
     { href: `${base}/readouts`, label: "Readouts" },
     { href: `${base}/kinetics`, label: "Kinetics" },
+    { href: `${base}/fits`, label: "Fits" },
     { href: `${base}/members`, label: "Members" },
     { href: `${base}/runs`, label: "Runs" },
   ];

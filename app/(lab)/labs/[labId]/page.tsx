@@ -6,6 +6,9 @@ import { ROLE_LABELS } from "@/lib/access/roles";
 import { formatDateTime } from "@/lib/client/format";
 import { listAudit } from "@/lib/server/data/audit";
 import { listStudies } from "@/lib/server/data/studies";
+import { listFits } from "@/lib/server/data/fits";
+import { listReadouts } from "@/lib/server/data/readouts";
+import { RunningJobs } from "./fits/running-jobs";
 import { pageLab } from "@/lib/server/page-access";
 
 export const dynamic = "force-dynamic";
@@ -14,6 +17,8 @@ export default async function Dashboard({ params }: { params: Promise<{ labId: s
   const { labId } = await params;
   const ctx = await pageLab(labId);
   const studies = await listStudies(ctx, { page: 1, pageSize: 6, sort: "updatedAt", dir: "desc", q: "" });
+  const fits = await listFits(ctx, { page: 1, pageSize: 5, sort: "createdAt", dir: "desc", q: "" });
+  const readouts = await listReadouts(ctx, {}, { page: 1, pageSize: 5, sort: "createdAt", dir: "desc", q: "" });
   const audit = can(ctx.role, "audit.read") ? await listAudit(ctx, { page: 1, pageSize: 8, sort: "at", dir: "desc", q: "" }) : null;
   return (
     <div className="space-y-6">
@@ -64,6 +69,35 @@ export default async function Dashboard({ params }: { params: Promise<{ labId: s
               .
             </li>
           </ul>
+        </Panel>
+      </div>
+      <div className="grid gap-6 lg:grid-cols-[1fr_1fr_20rem]">
+        <Panel title="Recent fits" actions={<Link href={`/labs/${labId}/fits`} className="text-sm text-moss hover:underline">All fits →</Link>}>
+          {fits.total === 0 ? <p className="text-sm text-ink-soft">No fits yet. {can(ctx.role, "fit.create") ? <Link href={`/labs/${labId}/fits/new`} className="text-moss hover:underline">Fit a kinetics to your readouts</Link> : "They appear here when a lab member starts one."}</p> : (
+            <ul className="divide-y divide-rule text-sm" data-testid="recent-fits">
+              {fits.items.map((f) => (
+                <li key={f.id} className="flex items-baseline justify-between gap-3 py-1.5">
+                  <Link href={`/labs/${labId}/fits/${f.id}`} className="font-medium text-ink hover:text-moss">{f.name}</Link>
+                  <span className="shrink-0 text-xs text-ink-soft">{f.verdict ?? f.status}</span>
+                </li>
+              ))}
+            </ul>
+          )}
+        </Panel>
+        <Panel title="Recent readouts" actions={<Link href={`/labs/${labId}/readouts`} className="text-sm text-moss hover:underline">All readouts →</Link>}>
+          {readouts.total === 0 ? <p className="text-sm text-ink-soft">No readouts yet. Upload an image or spacing table to a specimen; its readout starts by itself.</p> : (
+            <ul className="divide-y divide-rule text-sm" data-testid="recent-readouts">
+              {readouts.items.map((r) => (
+                <li key={r.id} className="flex items-baseline justify-between gap-3 py-1.5">
+                  <Link href={`/labs/${labId}/readouts/${r.id}`} className="font-medium text-ink hover:text-moss">{r.filename}</Link>
+                  <span className="num shrink-0 text-xs text-moss">{r.headline?.wavelengthUm != null && r.headline.periodFound ? `${r.headline.wavelengthUm.toPrecision(4)} ± ${r.headline.uncertaintyUm?.toPrecision(2) ?? "?"} µm` : <span className="text-ink-soft">{r.status}</span>}</span>
+                </li>
+              ))}
+            </ul>
+          )}
+        </Panel>
+        <Panel title="My running jobs">
+          <RunningJobs labId={labId} />
         </Panel>
       </div>
       <Panel title="Open discussions">

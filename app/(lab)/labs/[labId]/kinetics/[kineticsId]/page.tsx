@@ -43,7 +43,7 @@ export default async function KineticsAnalysisPage({ params, searchParams }: { p
         crumbs={<Link href={`/labs/${labId}/kinetics`} className="hover:underline">Kinetics</Link>}
         title={info.name}
         subtitle={lab ? <><span data-testid="kinetics-version">Version {info.version}</span> of {lab.latestVersion} · by {lab.createdByEmail ?? "a former member"} · {n} species</> : <>{info.source}</>}
-        actions={lab?.canEdit ? <><LinkButton variant="secondary" href={`/labs/${labId}/kinetics/${kineticsId}/edit`} data-testid="edit-kinetics">Edit (new version)</LinkButton><DeleteKineticsButton labId={labId} kineticsId={kineticsId} name={lab.name} /></> : null}
+        actions={<>{can(ctx.role, "fit.create") && <LinkButton variant="secondary" href={`/labs/${labId}/fits/new?kinetics=${kineticsId}${lab ? `&version=${info.version}` : ""}`} data-testid="fit-this-kinetics">Fit this kinetics</LinkButton>}{lab?.canEdit ? <><LinkButton variant="secondary" href={`/labs/${labId}/kinetics/${kineticsId}/edit`} data-testid="edit-kinetics">Edit (new version)</LinkButton><DeleteKineticsButton labId={labId} kineticsId={kineticsId} name={lab.name} /></> : null}</>}
       />
       <div className="mb-6 grid gap-6 lg:grid-cols-[1fr_24rem]">
         <Panel title="Equations">

@@ -1,0 +1,27 @@
+import Link from "next/link";
+import { Discussion } from "@/components/discussion/discussion";
+import { PageHeader } from "@/components/ui/panel";
+import { getFit } from "@/lib/server/data/fits";
+import { orNotFound, pageLab } from "@/lib/server/page-access";
+import { FitView } from "./fit-view";
+
+export const dynamic = "force-dynamic";
+
+export default async function FitPage({ params }: { params: Promise<{ labId: string; fitId: string }> }) {
+  const { labId, fitId } = await params;
+  const ctx = await pageLab(labId);
+  const fit = await orNotFound(getFit(ctx, fitId));
+  return (
+    <>
+      <PageHeader
+        crumbs={<Link href={`/labs/${labId}/fits`} className="hover:underline">Fits</Link>}
+        title={fit.name}
+        subtitle={<>{fit.kind === "comparison" ? `Comparison of ${fit.kinetics.join(", ")}` : fit.kinetics[0]} · {fit.n} measurements in {fit.conditions.join(", ")} · started {fit.createdAt.slice(0, 16).replace("T", " ")} UTC{fit.createdByEmail ? ` by ${fit.createdByEmail}` : ""}{fit.rerunOf && <> · re-run of <Link className="text-moss hover:underline" href={`/labs/${labId}/fits/${fit.rerunOf}`}>an earlier fit</Link></>}</>}
+      />
+      <FitView labId={labId} initial={fit} />
+      <div className="mt-8" id="discussion">
+        <Discussion labId={labId} targetType="fit" targetId={fit.id} />
+      </div>
+    </>
+  );
+}
