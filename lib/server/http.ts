@@ -46,6 +46,7 @@ export async function readJson<S extends ZodType>(request: Request, schema: S): 
   return parsed.data;
 }
 
+/** JSON answers describe live lab data: never let a browser or proxy keep a copy. */
 export function json(data: unknown, status = 200): Response {
-  return Response.json(data, { status });
+  return Response.json(data, { status, headers: { "cache-control": "no-store" } });
 }

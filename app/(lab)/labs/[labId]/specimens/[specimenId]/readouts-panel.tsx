@@ -40,6 +40,9 @@ function Numbers({ r }: { r: ReadoutDto }) {
 export function ReadoutsPanel({ labId, specimenId, refreshKey }: { labId: string; specimenId: string; refreshKey: number }) {
   const { data, mutate } = useSWR<ListResult<ReadoutDto>>(`/api/v1/labs/${labId}/readouts?specimenId=${specimenId}&pageSize=200`, fetchJson, {
     refreshInterval: (d) => (d?.items.some((r) => active(r.status)) ? 1000 : 0),
+    // Coming back from a readout page (maybe after a re-run) must show the new readouts.
+    revalidateOnMount: true,
+    dedupingInterval: 0,
   });
   useEffect(() => {
     if (refreshKey) void mutate();
