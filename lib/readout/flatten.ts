@@ -7,12 +7,30 @@ export type FlattenMethod = "plane" | "blur" | "none";
  */
 export function subtractPlane(data: Float32Array, width: number, height: number, included: Uint8Array | null): void {
   let n = 0, sx = 0, sy = 0, sxx = 0, syy = 0, sxy = 0, sz = 0, sxz = 0, syz = 0;
-  for (let y = 0; y < height; y++) {
-    for (let x = 0; x < width; x++) {
-      const i = y * width + x;
-      if (included && !included[i]) continue;
-      const z = data[i];
-      n++; sx += x; sy += y; sxx += x * x; syy += y * y; sxy += x * y; sz += z; sxz += x * z; syz += y * z;
+  if (included) {
+    for (let y = 0; y < height; y++) {
+      const row = y * width;
+      for (let x = 0; x < width; x++) {
+        if (!included[row + x]) continue;
+        const z = data[row + x];
+        n++; sx += x; sy += y; sxx += x * x; syy += y * y; sxy += x * y; sz += z; sxz += x * z; syz += y * z;
+      }
+    }
+  } else {
+    // Full grid: the coordinate sums have closed forms, so one pass only sums z and x·z per row.
+    n = width * height;
+    const Sx = ((width - 1) * width) / 2, Sxx = ((width - 1) * width * (2 * width - 1)) / 6;
+    const Sy = ((height - 1) * height) / 2, Syy = ((height - 1) * height * (2 * height - 1)) / 6;
+    sx = Sx * height; sxx = Sxx * height; sy = Sy * width; syy = Syy * width; sxy = Sx * Sy;
+    for (let y = 0; y < height; y++) {
+      const row = y * width;
+      let rz = 0, rxz = 0;
+      for (let x = 0; x < width; x++) {
+        const z = data[row + x];
+        rz += z;
+        rxz += x * z;
+      }
+      sz += rz; sxz += rxz; syz += y * rz;
     }
   }
   const det3 = (a: number[]) => a[0] * (a[4] * a[8] - a[5] * a[7]) - a[1] * (a[3] * a[8] - a[5] * a[6]) + a[2] * (a[3] * a[7] - a[4] * a[6]);
@@ -25,7 +43,11 @@ export function subtractPlane(data: Float32Array, width: number, height: number,
   const c0 = det3([sz, sx, sy, sxz, sxx, sxy, syz, sxy, syy]) / d;
   const c1 = det3([n, sz, sy, sx, sxz, sxy, sy, syz, syy]) / d;
   const c2 = det3([n, sx, sz, sx, sxx, sxz, sy, sxy, syz]) / d;
-  for (let y = 0; y < height; y++) for (let x = 0; x < width; x++) data[y * width + x] -= c0 + c1 * x + c2 * y;
+  for (let y = 0; y < height; y++) {
+    const row = y * width;
+    const base = c0 + c2 * y;
+    for (let x = 0; x < width; x++) data[row + x] -= base + c1 * x;
+  }
 }
 
 /** One pass of a running-box mean of half-width r along rows (stride 1) or columns (stride width). */
