@@ -26,7 +26,7 @@ const frameworkFree = (extra) => [
 const config = [
   ...nextVitals,
   ...nextTs,
-  { ignores: ["tmp/**", "tmp-*", ".next/**", "node_modules/**", "storage/data*/**", "test-results/**", "playwright-report/**", "next-env.d.ts"] },
+  { ignores: ["tmp/**", "tmp-*", ".next/**", ".next-*/**", "node_modules/**", "storage/data*/**", "test-results/**", "playwright-report/**", "next-env.d.ts"] },
   {
     rules: {
       "@typescript-eslint/no-explicit-any": "error",
