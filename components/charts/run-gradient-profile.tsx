@@ -1,12 +1,13 @@
 "use client";
-/** Along a parameter gradient: the local wavelength read from the simulated pattern (green, ± 1 SD) and the local linear prediction 2π/k*(x) (violet). */
+/** The local wavelength read from the simulated pattern (green, ± 1 SD) along x, and the local linear prediction 2π/k*(x) (violet; constant without a gradient). */
 import { CartesianGrid, ComposedChart, ErrorBar, Line, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
 import { formatSig } from "./spectrum-format";
 
 export interface RunGradientProfileProps {
   measured: { positions: number[]; wavelengths: Array<number | null>; sd: Array<number | null> };
   predicted: { positions: number[]; wavelengths: Array<number | null> };
-  parameter: string;
+  /** The parameter that varies, or null when all are uniform (the prediction is then one constant 2π/k*). */
+  parameter: string | null;
   unit: string;
   height?: number;
 }
@@ -30,7 +31,7 @@ export function RunGradientProfile({ measured, predicted, parameter, unit, heigh
           <Tooltip formatter={(v, name) => [`${formatSig(Number(v), 4)} ${unit}`, String(name)]} labelFormatter={(v) => `x = ${formatSig(Number(v), 4)} ${unit}`} contentStyle={{ fontSize: 12, fontFamily: "IBM Plex Mono" }} />
         </ComposedChart>
       </ResponsiveContainer>
-      <p className="mt-1 text-xs text-ink-soft"><span className="inline-block h-0.5 w-4 align-middle bg-iris" /> local linear prediction 2π/k* as {parameter} varies · <span className="inline-block h-2 w-2 rounded-full align-middle bg-moss" /> local wavelength of the simulated pattern (tiles, ± 1 SD)</p>
+      <p className="mt-1 text-xs text-ink-soft"><span className="inline-block h-0.5 w-4 align-middle bg-iris" /> {parameter ? `local linear prediction 2π/k* as ${parameter} varies` : "linear prediction 2π/k* (uniform parameters)"} · <span className="inline-block h-2 w-2 rounded-full align-middle bg-moss" /> local wavelength of the simulated pattern (tiles, ± 1 SD)</p>
     </div>
   );
 }

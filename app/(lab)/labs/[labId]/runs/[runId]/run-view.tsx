@@ -8,7 +8,6 @@ import { RunGradientProfile } from "@/components/charts/run-gradient-profile";
 import { RunScrubber } from "@/components/charts/run-scrubber";
 import { RunWavelengthBars } from "@/components/charts/run-wavelength-bars";
 import { SpectrumPlot } from "@/components/charts/spectrum-plot";
-import { WavelengthProfile } from "@/components/charts/wavelength-profile";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { Badge, Panel } from "@/components/ui/panel";
@@ -24,7 +23,7 @@ const SYMMETRY_WORDS: Record<string, string> = { stripes: "stripes", hexagonal: 
 
 export function RunView({ labId, initial }: { labId: string; initial: RunDetailDto }) {
   const url = `/api/v1/labs/${labId}/runs/${initial.id}`;
-  const { data, mutate } = useSWR<RunDetailDto>(url, fetchJson, { fallbackData: initial, refreshInterval: (d) => (d && active(d.status) ? 700 : 0) });
+  const { data, mutate } = useSWR<RunDetailDto>(url, fetchJson, { fallbackData: initial, refreshInterval: (d) => (active((d ?? initial).status) ? 700 : 0) });
   const r = data ?? initial;
   const [cancelError, setCancelError] = useState<string | null>(null);
   const res = r.result, plan = r.plan;
@@ -45,7 +44,7 @@ export function RunView({ labId, initial }: { labId: string; initial: RunDetailD
       <div className="flex flex-wrap items-center gap-3 text-sm">
         <Badge tone={res?.stopReason === "blow-up" ? "brick" : STATUS_TONE[r.status]}><span data-testid="run-status">{r.status === "succeeded" && res ? STOP_WORDS[res.stopReason] : STATUS_WORDS[r.status]}</span></Badge>
         <span className="text-ink-soft">Seed <span className="num text-ink" data-testid="run-seed">{r.seed}</span></span>
-        <span className="text-ink-soft">Step <span className="num text-ink">{formatSig(plan.dtS * tf, 4)} {plan.timeUnit}</span> × <span className="num text-ink">{plan.steps}</span></span>
+        <span className="text-ink-soft">Step <span className="num text-ink">{formatSig(plan.dtS * tf, 4)} {plan.timeUnit}</span> × <span className="num text-ink">{plan.steps}</span> steps</span>
       </div>
       {plan.warnings.map((x) => <Notice key={x} tone="warning">{x}</Notice>)}
       {active(r.status) && (
@@ -100,19 +99,27 @@ export function RunView({ labId, initial }: { labId: string; initial: RunDetailD
           {res.readout && w && (
             <>
               <Panel title="Radially averaged power spectrum of the final pattern">
-                {spectrum ? <SpectrumPlot {...spectrum.radialSpectrum} wavelengthUm={w.wavelengthUm} uncertaintyUm={w.uncertaintyUm} /> : <p className="text-sm text-ink-soft">Loading the spectrum…</p>}
-                {plan.lengthFactor !== 1 && <p className="mt-1 text-xs text-ink-soft">Frequencies here are per {plan.units === "dimensional" ? "µm" : "model length"} of the grid{plan.lengthFactor ? ` (one model length = ${formatSig(plan.lengthFactor, 4)} µm)` : ""}.</p>}
+                {spectrum ? (
+                  <SpectrumPlot
+                    {...spectrum.radialSpectrum} frequencyPerUm={spectrum.radialSpectrum.frequencyPerUm.map((f) => f / lf)} lowCutPerUm={spectrum.radialSpectrum.lowCutPerUm / lf}
+                    wavelengthUm={w.wavelengthUm !== null ? w.wavelengthUm * lf : null} uncertaintyUm={w.uncertaintyUm !== null ? w.uncertaintyUm * lf : null}
+                  />
+                ) : <p className="text-sm text-ink-soft">Loading the spectrum…</p>}
+                {!plan.lengthFactor && <p className="mt-1 text-xs text-ink-soft" data-testid="model-units-note">This kinetics is non-dimensional and the run has no length scale ℓ: read “µm” on this plot as “model length” (frequencies in cycles per model length). Give ℓ in the run form for µm.</p>}
               </Panel>
               <div className="grid gap-5 lg:grid-cols-[auto_1fr]">
                 <Panel title="Orientation">{spectrum ? <OrientationRose angularPower={spectrum.angularPower} orientationDeg={w.orientationDeg} anisotropy={w.anisotropy} /> : <p className="text-sm text-ink-soft">Loading…</p>}</Panel>
                 <Panel title="Local wavelength along x">
-                  {!spectrum ? <p className="text-sm text-ink-soft">Loading…</p> : plan.gradientPrediction ? (
+                  {!spectrum ? <p className="text-sm text-ink-soft">Loading…</p> : (
                     <RunGradientProfile
                       measured={{ positions: spectrum.localWavelength.profile.positionUm.map((x) => x * lf), wavelengths: spectrum.localWavelength.profile.wavelengthUm.map((v) => (v === null ? null : v * lf)), sd: spectrum.localWavelength.profile.sdUm.map((v) => (v === null ? null : v * lf)) }}
-                      predicted={{ positions: plan.gradientPrediction.positions.map((x) => x * lf), wavelengths: plan.gradientPrediction.wavelengths.map((v) => (v === null ? null : v * lf)) }}
-                      parameter={plan.gradientPrediction.parameter} unit={unit}
+                      predicted={plan.gradientPrediction
+                        ? { positions: plan.gradientPrediction.positions.map((x) => x * lf), wavelengths: plan.gradientPrediction.wavelengths.map((v) => (v === null ? null : v * lf)) }
+                        : { positions: [0, r.spec.grid.lengthUm[0] * lf], wavelengths: plan.prediction ? [plan.prediction.wavelength * lf, plan.prediction.wavelength * lf] : [null, null] }}
+                      parameter={plan.gradientPrediction?.parameter ?? null} unit={unit}
                     />
-                  ) : <WavelengthProfile {...spectrum.localWavelength.profile} globalWavelengthUm={w.wavelengthUm} tileSizeUm={spectrum.localWavelength.tileSizePx * res.readout.pixelSizeUm} />}
+                  )}
+                  <p className="mt-1 text-xs text-ink-soft">Tiles of <span className="num">{formatSig(spectrum ? spectrum.localWavelength.tileSizePx * res.readout.pixelSizeUm * lf : null, 3)} {unit}</span>, half overlapping.</p>
                 </Panel>
               </div>
             </>
