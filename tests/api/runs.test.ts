@@ -6,7 +6,7 @@
  */
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { getCatalogueKinetics } from "@/lib/kinetics";
-import { computeDispersion } from "@/lib/stability";
+import { computeDispersion, computeGradientDispersion } from "@/lib/stability";
 import type { RunDetailDto } from "@/lib/server/data/simulation-run-types";
 import { getJob, waitForJob } from "@/lib/server/jobs/runner";
 import { database } from "@/lib/server/services";
@@ -116,6 +116,21 @@ describe("a verification run", () => {
     expect(b.lastGoodTimeS).toBeLessThan(b.timeS);
     expect(r.error).toMatch(new RegExp(`^Blow-up at step ${b.step} \\(t = [\\d.]+ s\\): .*the fields are the last good state, at t = ${b.lastGoodTimeS} s\\.`));
     expect(r.result!.fields.every((f) => Number.isFinite(f.max))).toBe(true);
+  }, 60_000);
+});
+
+describe("a parameter varying in space", () => {
+  it("runs with the kinetics page's linear gradient and keeps the local prediction 2π/k*(x) beside the local readout", async () => {
+    const gradient = { parameter: "d", profile: { kind: "linear", from: 15, to: 40 } };
+    const started = await api("POST", RUNS, { json: { kinetics: "schnakenberg", grid: { lengthUm: [200, 25], cells: [128, 16] }, endTimeS: 200, seed: 4, snapshots: 2, gradient } });
+    expect(started.status).toBe(202);
+    expect(started.body.spec.spatialParameters).toEqual({ d: { kind: "linear", axis: "x", fromValue: 15, toValue: 40 } });
+    // Known answer from the stability core: the local dispersion along the same profile (SCIENCE.md §1, local reading).
+    const local = computeGradientDispersion(getCatalogueKinetics("schnakenberg"), {}, { parameter: "d", profile: { kind: "linear", from: 15, to: 40 }, length: 200, samples: 101 });
+    expect(started.body.plan.gradientPrediction.wavelengths).toEqual(local.points.map((q) => q.wavelength));
+    const r = await finished(started.body.id);
+    expect(r.status).toBe("succeeded");
+    expect(Object.keys(r.files)).toContain("spectrum.json");
   }, 60_000);
 });
 

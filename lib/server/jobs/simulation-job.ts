@@ -25,6 +25,9 @@ import { registerJobHandler } from "./registry";
 import { JobCancelledError, type JobHandler } from "./types";
 
 const GONE = "the run was removed before it finished";
+/** Wall-clock limit of the simulation process: RUN_TIME_FACTOR × the CPU estimate + RUN_START_ALLOWANCE_S (design choice). */
+const RUN_TIME_FACTOR = 10;
+const RUN_START_ALLOWANCE_S = 120;
 
 interface CliOutput {
   stopReason: RunResult["stopReason"];
@@ -40,12 +43,19 @@ interface CliOutput {
 }
 
 /** Runs the CLI; resolves with its JSON, rejects with its error message. */
-function runCli(specFile: string, outDir: string, signal: AbortSignal, onProgress: (fraction: number, timeS: number) => void): Promise<CliOutput> {
+function runCli(specFile: string, outDir: string, signal: AbortSignal, limitS: number, onProgress: (fraction: number, timeS: number) => void): Promise<CliOutput> {
   return new Promise((resolve, reject) => {
+    let timedOut = false;
     const child = spawn(process.execPath, ["--import", "tsx", "lib/cli/main.ts", "simulate", "--spec", specFile, "--out", outDir, "--progress", "--json"], { cwd: process.cwd(), stdio: ["ignore", "pipe", "pipe"] });
     let stdout = "", stderr = "", pending = "";
     const abort = () => child.kill("SIGKILL");
     signal.addEventListener("abort", abort, { once: true });
+    // A run that takes far longer than its estimate (a stuck or starved process) must not hold the job queue.
+    const watchdog = setTimeout(() => {
+      timedOut = true;
+      child.kill("SIGKILL");
+    }, limitS * 1000);
+    watchdog.unref();
     child.stdout.on("data", (d: Buffer) => (stdout += d.toString()));
     child.stderr.on("data", (d: Buffer) => {
       pending += d.toString();
@@ -65,7 +75,9 @@ function runCli(specFile: string, outDir: string, signal: AbortSignal, onProgres
     child.on("error", (err) => reject(err));
     child.on("close", (code) => {
       signal.removeEventListener("abort", abort);
+      clearTimeout(watchdog);
       if (signal.aborted) return reject(new JobCancelledError());
+      if (timedOut) return reject(new AppError("unprocessable", `the simulation was stopped after ${Math.round(limitS)} s, far beyond its estimated ${Math.round((limitS - RUN_START_ALLOWANCE_S) / RUN_TIME_FACTOR)} s of CPU; the server may be overloaded — start it again later or make it smaller`));
       if (code !== 0) {
         const last = stderr.trim().split("\n").pop() ?? "";
         let message = last || `the simulation process exited with code ${code}`;
@@ -76,7 +88,11 @@ function runCli(specFile: string, outDir: string, signal: AbortSignal, onProgres
         }
         return reject(new AppError("unprocessable", `the simulation stopped with an error: ${message}`));
       }
-      resolve(JSON.parse(stdout) as CliOutput);
+      try {
+        resolve(JSON.parse(stdout) as CliOutput);
+      } catch {
+        reject(new Error(`the simulation process printed no JSON result (${stdout.slice(0, 200)})`));
+      }
     });
   });
 }
@@ -108,7 +124,7 @@ export const runSimulationJob: JobHandler = async (job, ctx) => {
     const t0 = Date.now();
     const unit = plan.timeUnit === "s" ? "s" : "model time";
     const tf = plan.timeFactor ?? 1;
-    const out = await runCli(specFile, path.join(dir, "out"), ctx.signal, (f, t) => void ctx.progress(0.9 * f, `simulated t = ${Number((t * tf).toPrecision(4))} of ${Number((spec.endTimeS * tf).toPrecision(4))} ${unit} (${Math.round(100 * f)} %)`));
+    const out = await runCli(specFile, path.join(dir, "out"), ctx.signal, RUN_TIME_FACTOR * plan.estimatedCpuS + RUN_START_ALLOWANCE_S, (f, t) => void ctx.progress(0.9 * f, `simulated t = ${Number((t * tf).toPrecision(4))} of ${Number((spec.endTimeS * tf).toPrecision(4))} ${unit} (${Math.round(100 * f)} %)`));
     const wallS = (Date.now() - t0) / 1000;
     await ctx.progress(0.9, "storing fields and images");
     const [nx, ny] = [spec.grid.cells[0], spec.grid.cells[1] ?? 1];
