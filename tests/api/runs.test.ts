@@ -79,6 +79,23 @@ describe("a verification run", () => {
     expect(c.result!.finalSha256[0]).not.toBe(a.result!.finalSha256[0]);
   }, 120_000);
 
+  it("e-mails the requester when the run ends, through the runner's mail hook", async () => {
+    process.env.JOB_MAIL_AFTER_S = "0";
+    try {
+      const started = await api("POST", RUNS, { json: { ...TINY_RUN, name: "Mailed run" } });
+      await finished(started.body.id);
+      let mails: { subject: string; text: string }[] = [];
+      for (let i = 0; i < 50 && mails.length === 0; i++) {
+        mails = ((await (await fetch(`${stack.mailboxUrl}/messages?to=${encodeURIComponent(w.people.modeller.email)}`)).json()) as { messages: { subject: string; text: string }[] }).messages;
+        if (mails.length === 0) await new Promise((r) => setTimeout(r, 100));
+      }
+      expect(mails.map((x) => x.subject)).toContain("[Test Lab] The verification run “Mailed run” finished");
+      expect(mails.find((x) => x.subject.includes("Mailed run"))!.text).toContain(`/labs/${w.labId}/runs/${started.body.id}`);
+    } finally {
+      delete process.env.JOB_MAIL_AFTER_S;
+    }
+  }, 60_000);
+
   it("cancel stops the simulation process; the run and its job end cancelled with no files", async () => {
     const started = await api("POST", RUNS, { json: { kinetics: "schnakenberg", grid: { lengthUm: [100, 100], cells: [128, 128] }, endTimeS: 1500, seed: 5 } });
     expect(started.status).toBe(202);
