@@ -19,6 +19,7 @@ test("modeller: Simulate with these parameters → progress → snapshot scrubbe
   await page.getByTestId("run-end-time").fill("3000000");
   await page.getByTestId("start-run").click();
   await expect(page.getByTestId("run-error")).toHaveText("endTimeS / dtS needs 30000000 steps; the limit is 10000000.");
+  await page.screenshot({ path: "test-results/run-form.png", fullPage: true });
 
   await page.getByTestId("run-end-time").fill("400");
   await page.getByTestId("run-seed").fill("7");
@@ -43,6 +44,7 @@ test("modeller: Simulate with these parameters → progress → snapshot scrubbe
 
   await page.goto(`/labs/${labId}/runs`);
   await expect(page.getByTestId("runs-table")).toContainText("Schnakenberg");
+  await page.screenshot({ path: "test-results/runs-list.png", fullPage: true });
 });
 
 test("bench scientist: no New run, no Simulate link, and the form answers not-found", async ({ page }) => {

@@ -20,8 +20,8 @@ export function RunsList({ labId, canRun }: { labId: string; canRun: boolean }) 
         </Badge>
       ),
     },
-    { id: "wavelength", header: "Simulated λ", enableSorting: false, cell: ({ row }) => <span className="num text-moss">{withUnit(row.original.wavelength, row.original.lengthUnit, row.original.uncertainty)}</span> },
-    { id: "predicted", header: "2π/k*", enableSorting: false, cell: ({ row }) => <span className="num text-iris">{withUnit(row.original.predictedWavelength, row.original.lengthUnit)}</span> },
+    { id: "wavelength", header: () => <span className="normal-case">Simulated λ</span>, enableSorting: false, cell: ({ row }) => <span className="num text-moss">{withUnit(row.original.wavelength, row.original.lengthUnit, row.original.uncertainty)}</span> },
+    { id: "predicted", header: () => <span className="normal-case">Predicted 2π/k*</span>, enableSorting: false, cell: ({ row }) => <span className="num text-iris">{withUnit(row.original.predictedWavelength, row.original.lengthUnit)}</span> },
     { id: "grid", header: "Grid", enableSorting: false, cell: ({ row }) => <span className="num text-xs text-ink-soft">{row.original.gridLabel}</span> },
     { id: "createdAt", header: "Started", cell: ({ row }) => <span className="text-ink-soft"><span className="num">{formatDateTime(row.original.createdAt)}</span><br />{row.original.createdByEmail}</span> },
   ];
