@@ -33,9 +33,18 @@ export default async function bench(): Promise<BenchRow[]> {
   }
   compareFits(fits);
   const comparison = performance.now() - t;
+  // One prediction: the fast fastest-mode path against the full dispersion relation (same numbers).
+  const general = createKineticsPredictor(getCatalogueKinetics("schnakenberg"), { lengthScaleUm: 10, fastPath: false });
+  const perCall = (pred: typeof schnak, calls: number) => {
+    const t0 = performance.now();
+    for (let i = 0; i < calls; i++) pred({ gamma: 1 + (i % 97) * 1e-3, a: 0.1, d: 20, b: 1 }, "c1", undefined);
+    return ((performance.now() - t0) / calls) * 1000;
+  };
   return [
     { name: "fit: 3 free parameters, 4 conditions, with profiles", value: single, unit: "ms", target: "< 1000 ms" },
     { name: "fit: 3 free parameters, 4 conditions, no profiles", value: singleNoProfiles, unit: "ms" },
     { name: "compare: 6 fits (2 free parameters each, no profiles)", value: comparison, unit: "ms", target: "< 5000 ms", note: "schnakenberg at six length scales; the catalogue's other kinetics need their own specs" },
+    { name: "predictor: one call, fast path (2 species, diagonal D)", value: perCall(schnak, 20000), unit: "µs" },
+    { name: "predictor: one call, general path (computeDispersion)", value: perCall(general, 2000), unit: "µs" },
   ];
 }
