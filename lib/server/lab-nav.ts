@@ -11,8 +11,8 @@ export function labNav(labId: string, role: Role) {
     { href: `${base}/readouts`, label: "Readouts" },
     { href: `${base}/kinetics`, label: "Kinetics" },
     { href: `${base}/fits`, label: "Fits" },
-    { href: `${base}/members`, label: "Members" },
     { href: `${base}/runs`, label: "Runs" },
+    { href: `${base}/members`, label: "Members" },
   ];
   if (can(role, "audit.read")) items.push({ href: `${base}/audit`, label: "Audit trail" });
   if (can(role, "mailbox.read") && mailboxEnabled()) items.push({ href: `${base}/mailbox`, label: "Mailbox (dev)" });

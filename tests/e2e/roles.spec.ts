@@ -36,7 +36,7 @@ for (const { role, managerNav, canCreate } of ROLES) {
     await expect(page.getByTestId("lab-switcher")).toHaveValue(labId);
 
     const nav = await navLabels(page);
-    expect(nav.slice(0, 6)).toEqual(["Dashboard", "Studies", "Readouts", "Kinetics", "Fits", "Members"]);
+    expect(nav.slice(0, 7)).toEqual(["Dashboard", "Studies", "Readouts", "Kinetics", "Fits", "Runs", "Members"]);
     expect(nav.includes("Audit trail")).toBe(managerNav);
     expect(nav.includes("Mailbox (dev)")).toBe(managerNav);
 

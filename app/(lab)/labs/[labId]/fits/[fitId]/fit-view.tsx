@@ -17,7 +17,7 @@ import { FitProvenance } from "./fit-provenance";
 export function FitView({ labId, initial }: { labId: string; initial: FitDetailDto }) {
   const router = useRouter();
   const base = `/api/v1/labs/${labId}/fits/${initial.id}`;
-  const fit = useSWR<FitDetailDto>(base, fetchJson, { fallbackData: initial, refreshInterval: (d) => (d && isActive(d.status) ? 1500 : 0) });
+  const fit = useSWR<FitDetailDto>(base, fetchJson, { fallbackData: initial, refreshInterval: (d) => (isActive((d ?? initial).status) ? 1500 : 0) });
   const d = fit.data ?? initial;
   const job = useSWR<JobDto>(d.jobId && isActive(d.status) ? `/api/v1/labs/${labId}/jobs/${d.jobId}` : null, fetchJson, {
     refreshInterval: 800,

@@ -17,7 +17,8 @@ const active = (s: string) => s === "queued" || s === "running";
 export function ReadoutView({ labId, initial, canRerun }: { labId: string; initial: ReadoutDetailDto; canRerun: boolean }) {
   const { data } = useSWR<ReadoutDetailDto>(`/api/v1/labs/${labId}/readouts/${initial.id}`, fetchJson, {
     fallbackData: initial,
-    refreshInterval: (d) => (d && active(d.status) ? 800 : 0),
+    // `d` is undefined while only the server-rendered fallback is known: poll from that status too.
+    refreshInterval: (d) => (active((d ?? initial).status) ? 800 : 0),
   });
   const r = data ?? initial;
   // Keyed by this readout too: after a re-run the new page must not reuse the list the previous
