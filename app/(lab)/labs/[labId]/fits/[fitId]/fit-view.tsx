@@ -1,4 +1,5 @@
 "use client";
+import Link from "next/link";
 /** A fit while it runs (progress from its job) and when done: ranking, one kinetics in detail, provenance, exports. */
 import { useRouter } from "next/navigation";
 import { useState } from "react";
@@ -14,7 +15,7 @@ import { FIT_STATUS_TONE, FIT_STATUS_WORDS, isActive, VERDICT_TONE } from "../fi
 import { FitModelDetail } from "./fit-model-detail";
 import { FitProvenance } from "./fit-provenance";
 
-export function FitView({ labId, initial }: { labId: string; initial: FitDetailDto }) {
+export function FitView({ labId, initial, canSimulate = false }: { labId: string; initial: FitDetailDto; canSimulate?: boolean }) {
   const router = useRouter();
   const base = `/api/v1/labs/${labId}/fits/${initial.id}`;
   const fit = useSWR<FitDetailDto>(base, fetchJson, { fallbackData: initial, refreshInterval: (d) => (isActive((d ?? initial).status) ? 1500 : 0) });
@@ -49,6 +50,11 @@ export function FitView({ labId, initial }: { labId: string; initial: FitDetailD
         <div className="flex flex-wrap items-center gap-2" data-testid="fit-actions">
           {r && (["csv", "json", "methods"] as const).map((x) => <a key={x} className="rounded-md border border-rule bg-card px-2.5 py-1 text-sm hover:bg-paper-deep" href={`${base}/export?format=${x}`} data-testid={`export-${x}`}>{x === "methods" ? "Methods text" : x.toUpperCase()}</a>)}
           {d.canRerun && !isActive(d.status) && <Button variant="secondary" size="sm" onClick={rerun} data-testid="rerun-fit">Re-run</Button>}
+          {canSimulate && d.status === "succeeded" && d.kind !== "comparison" && (
+            <Link className="rounded-md border border-rule bg-card px-2.5 py-1 text-sm hover:bg-paper-deep" href={`/labs/${labId}/runs/new?fit=${d.id}&condition=${encodeURIComponent(d.conditions[0] ?? "")}`} data-testid="simulate-fit">
+              Verify by simulation
+            </Link>
+          )}
         </div>
       </div>
       {rerunError && <Notice tone="error">{rerunError}</Notice>}

@@ -1,6 +1,7 @@
 import Link from "next/link";
 import { Discussion } from "@/components/discussion/discussion";
 import { PageHeader } from "@/components/ui/panel";
+import { can } from "@/lib/access/permissions";
 import { getFit } from "@/lib/server/data/fits";
 import { orNotFound, pageLab } from "@/lib/server/page-access";
 import { FitView } from "./fit-view";
@@ -18,7 +19,7 @@ export default async function FitPage({ params }: { params: Promise<{ labId: str
         title={fit.name}
         subtitle={<>{fit.kind === "comparison" ? `Comparison of ${fit.kinetics.join(", ")}` : fit.kinetics[0]} · {fit.n} measurements in {fit.conditions.join(", ")} · started {fit.createdAt.slice(0, 16).replace("T", " ")} UTC{fit.createdByEmail ? ` by ${fit.createdByEmail}` : ""}{fit.rerunOf && <> · re-run of <Link className="text-moss hover:underline" href={`/labs/${labId}/fits/${fit.rerunOf}`}>an earlier fit</Link></>}</>}
       />
-      <FitView labId={labId} initial={fit} />
+      <FitView labId={labId} initial={fit} canSimulate={can(ctx.role, "run.create")} />
       <div className="mt-8" id="discussion">
         <Discussion labId={labId} targetType="fit" targetId={fit.id} />
       </div>
