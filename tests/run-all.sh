@@ -5,7 +5,8 @@
 set -euo pipefail
 cd "$(dirname "$0")/.."
 export NEXT_TELEMETRY_DISABLED=1
-mkdir -p test-results
+# Playwright empties test-results/ when it starts, so the runners' JSON reports live apart.
+mkdir -p .test-reports
 
 step() { printf '\n=== %s\n' "$*"; }
 t0=$(date +%s)
@@ -25,16 +26,16 @@ npx eslint .
 step "typecheck"
 npx tsc --noEmit -p tsconfig.json
 step "unit and API tests (vitest)"
-npx vitest run --reporter=default --reporter=json --outputFile.json=test-results/vitest.json
+npx vitest run --reporter=default --reporter=json --outputFile.json=.test-reports/vitest.json
 step "production build"
 npx next build
 step "browser tests (Playwright + Debian Chromium)"
-PLAYWRIGHT_JSON_OUTPUT_NAME=test-results/playwright.json npx playwright test --reporter=list,json
+PLAYWRIGHT_JSON_OUTPUT_NAME=.test-reports/playwright.json npx playwright test --reporter=list,json
 
 node -e '
 const fs = require("fs");
-const v = JSON.parse(fs.readFileSync("test-results/vitest.json", "utf8"));
-const p = JSON.parse(fs.readFileSync("test-results/playwright.json", "utf8"));
+const v = JSON.parse(fs.readFileSync(".test-reports/vitest.json", "utf8"));
+const p = JSON.parse(fs.readFileSync(".test-reports/playwright.json", "utf8"));
 const passed = v.numPassedTests + (p.stats.expected ?? 0);
 const failed = v.numFailedTests + (p.stats.unexpected ?? 0) + (p.stats.flaky ?? 0);
 const skipped = v.numPendingTests + v.numTodoTests + (p.stats.skipped ?? 0);
