@@ -55,7 +55,8 @@ describe("permission matrix", () => {
         if (process.env.DEBUG_MATRIX && res.status >= 400) console.log(key, who, await res.clone().text());
       }
       expect(got).toEqual(c.expect);
-    });
+      // Some setups run a real job (a simulation in a child process): generous on a loaded 2-core machine.
+    }, 120_000);
   }
 });
 
