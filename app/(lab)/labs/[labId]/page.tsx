@@ -52,7 +52,25 @@ export default async function Dashboard({ params }: { params: Promise<{ labId: s
         </Panel>
         <Panel title="Next steps">
           <ul className="space-y-2 text-sm text-ink-soft">
-            <li>Spacing readouts, kinetics, fits and discussions arrive in this workspace as they are built; studies, specimens and uploads work now.</li>
+            {can(ctx.role, "upload.create") && (
+              <li>
+                Upload a stained image or a spacing table to a specimen in a{" "}
+                <Link href={`/labs/${labId}/studies`} className="text-moss hover:underline">study</Link>; its spacing is read automatically.
+              </li>
+            )}
+            {can(ctx.role, "fit.create") && (
+              <li>
+                Compare the measured spacing with a model: open a{" "}
+                <Link href={`/labs/${labId}/kinetics`} className="text-moss hover:underline">kinetics</Link> or start a{" "}
+                <Link href={`/labs/${labId}/fits`} className="text-moss hover:underline">fit</Link>.
+              </li>
+            )}
+            {!can(ctx.role, "upload.create") && (
+              <li>
+                Read the lab&apos;s <Link href={`/labs/${labId}/readouts`} className="text-moss hover:underline">readouts</Link> and{" "}
+                <Link href={`/labs/${labId}/fits`} className="text-moss hover:underline">fits</Link>, and comment at the bottom of each.
+              </li>
+            )}
             {can(ctx.role, "invitation.manage") && (
               <li>
                 <Link href={`/labs/${labId}/members`} className="text-moss hover:underline">
