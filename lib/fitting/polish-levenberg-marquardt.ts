@@ -57,7 +57,7 @@ function norm(v: readonly number[]): number {
  * Bounded Levenberg–Marquardt refinement. Each step solves the damped problem
  * min ‖Jδ + r‖² + λ‖Dδ‖² as an augmented least-squares system by QR (not via the normal equations,
  * which square the condition number), with Moré's scaling D = running max of column norms
- * (Moré 1978, Lecture Notes in Math. 630:105) and Nielsen's damping update
+ * (Moré 1978, in Numerical Analysis, Springer LNM 630:105–116) and Nielsen's damping update
  * λ ← λ·max(1/3, 1 − (2ρ − 1)³) (Nielsen 1999, IMM-REP-1999-05). Bounds: coordinates on a bound whose
  * gradient points outward are held (active set), the rest of the step is projected onto the box.
  */
