@@ -98,6 +98,12 @@ export const fitCreateSchema = z
     data: z.array(fitDatumSchema, "data must be a list of measurements").max(MAX_FIT_DATA, `data: at most ${MAX_FIT_DATA} measurements`),
     models: z.array(fitModelSchema, "models must be a list of kinetics").min(1, "models: choose at least one kinetics").max(MAX_FIT_MODELS, `models: at most ${MAX_FIT_MODELS} kinetics in one comparison`),
     options: fitOptionsSchema.optional(),
+    /**
+     * `per-readout` (default): each readout weighs by its own uncertainty. `with-specimen-spread`:
+     * the sample SD of each condition's replicate specimens is added in quadrature, so biological
+     * variation between specimens counts too.
+     */
+    uncertainty: z.enum(["per-readout", "with-specimen-spread"], 'uncertainty must be "per-readout" or "with-specimen-spread"').optional(),
   })
   .strict();
 export type FitCreateInput = z.input<typeof fitCreateSchema>;

@@ -16,6 +16,7 @@ export { computeAicc, computeBic, computeAkaikeWeights } from "./information-cri
 export { fitWavelengths } from "./fit-wavelengths";
 export { compareFits, type LabelledFit, type RankedFit, type FitComparison } from "./compare-fits";
 export { HEX_SPACING_TO_FOURIER } from "./check-wavelength-spec";
+export { addReplicateSpread, type ConditionSpread } from "./replicate-spread";
 export type {
   MeasurementKind, WavelengthDatum, ParameterSetting, FixedParameter, FreeParameter, PerConditionParameter,
   WavelengthFitOptions, WavelengthFitSpec, WavelengthPrediction, WavelengthPredictor,

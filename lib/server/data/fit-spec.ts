@@ -6,7 +6,7 @@
  * no Turing region in the box) answer 400/422 with the field named.
  */
 import { createHash } from "node:crypto";
-import { FitError, type ParameterSetting } from "@/lib/fitting";
+import { addReplicateSpread, FitError, type ParameterSetting } from "@/lib/fitting";
 import { checkWavelengthSpec } from "@/lib/fitting/check-wavelength-spec";
 import { createKineticsPredictor, SCALE_PARAMETERS } from "@/lib/fitting/kinetics-predictor";
 import { sampleTuringBox } from "@/lib/fitting/sample-turing-box";
@@ -126,7 +126,10 @@ export interface BuiltFit {
 
 /** Validates a request and writes the stored spec; throws 400/422 naming the field. */
 export async function buildFitSpec(ctx: LabContext, input: FitCreate, softwareVersion: string, runner: FitProvenance["runner"]): Promise<BuiltFit> {
-  const { data, sources } = await resolveFitData(ctx, input.data);
+  const resolved = await resolveFitData(ctx, input.data);
+  const sources = resolved.sources;
+  const spread = input.uncertainty === "with-specimen-spread" ? addReplicateSpread(resolved.data) : null;
+  const data = spread ? spread.data : resolved.data;
   const models: ResolvedModel[] = [];
   for (const [i, mi] of input.models.entries()) models.push(await resolveModel(ctx, mi, i));
   const labels = new Set<string>();
@@ -147,6 +150,17 @@ export async function buildFitSpec(ctx: LabContext, input: FitCreate, softwareVe
     kind: models.length === 1 ? "fit" : "comparison",
     spec,
     inputSha256,
-    provenance: { data: sources, kinetics: models.map((m) => m.source), settings: { ...defaults }, softwareVersion, specSha256: inputSha256, runner },
+    provenance: {
+      data: sources,
+      kinetics: models.map((m) => m.source),
+      settings: {
+        ...defaults,
+        uncertainty: input.uncertainty ?? "per-readout",
+        ...(spread ? { specimenSpreadUm: spread.spreads.map((x) => `${x.condition}: SD ${x.sdUm.toPrecision(3)} µm (n = ${x.n})`).join("; ") } : {}),
+      },
+      softwareVersion,
+      specSha256: inputSha256,
+      runner,
+    },
   };
 }

@@ -31,6 +31,7 @@ export function FitBuilder({ labId, candidates, kinetics, initialKinetics }: { l
   const [tissues, setTissues] = useState<Record<string, Tissue>>({});
   const [models, setModels] = useState<ModelDraft[]>(() => [newModel(first, "m0")]);
   const [profiles, setProfiles] = useState(true);
+  const [uncertainty, setUncertainty] = useState<"per-readout" | "with-specimen-spread">("per-readout");
   const [error, setError] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
 
@@ -52,7 +53,7 @@ export function FitBuilder({ labId, candidates, kinetics, initialKinetics }: { l
       }),
       ...typed.map((t) => ({ condition: t.condition.trim(), kind: t.kind, wavelengthUm: num(t.wavelengthUm), uncertaintyUm: num(t.uncertaintyUm), ...domainOf(t.condition.trim()) })),
     ];
-    const body = { name: name.trim() || `${models.map((m) => kinetics.find((k) => keyOf(k) === m.kinetics)?.name).join(" vs ")} — ${conditions.join(" vs ")}`, data, models: models.map((m) => modelBody(m, kinetics)), options: { profiles } };
+    const body = { name: name.trim() || `${models.map((m) => kinetics.find((k) => keyOf(k) === m.kinetics)?.name).join(" vs ")} — ${conditions.join(" vs ")}`, data, models: models.map((m) => modelBody(m, kinetics)), options: { profiles }, uncertainty };
     try {
       const fit = await sendJson<FitDetailDto>("POST", `/api/v1/labs/${labId}/fits`, body);
       router.push(`/labs/${labId}/fits/${fit.id}`);
@@ -147,6 +148,13 @@ export function FitBuilder({ labId, candidates, kinetics, initialKinetics }: { l
           <label className="block text-sm">Name<input className={field} value={name} onChange={(e) => setName(e.target.value)} placeholder="e.g. Placode spacing, control vs inhibitor" data-testid="fit-name" /></label>
           <label className="flex items-center gap-2 pb-1 text-sm"><input type="checkbox" checked={profiles} onChange={(e) => setProfiles(e.target.checked)} /> 95 % profile-likelihood intervals (slower)</label>
         </div>
+        <label className="mt-3 block text-sm">
+          Uncertainty of each datum
+          <select className={field} value={uncertainty} onChange={(e) => setUncertainty(e.target.value as typeof uncertainty)} data-testid="fit-uncertainty">
+            <option value="per-readout">the readout&apos;s own uncertainty (how well one image pins its wavelength)</option>
+            <option value="with-specimen-spread">plus the spread between specimens of the same condition (SD, added in quadrature)</option>
+          </select>
+        </label>
         <p className="mt-2 text-xs text-ink-soft">Weighted least squares of predicted against measured wavelength (Levenberg–Marquardt, several starts); only Turing-unstable states count as predictions. Runs as a background job; you can leave the page.</p>
         {error && <div className="mt-3"><Notice tone="error" testId="fit-error">{error}</Notice></div>}
         <div className="mt-3"><Button onClick={submit} disabled={busy} data-testid="start-fit">{busy ? "Checking…" : models.length > 1 ? "Start comparison" : "Start fit"}</Button></div>
