@@ -4,6 +4,7 @@ export default defineConfig({
   resolve: { alias: { "@": import.meta.dirname } },
   test: {
     include: ["tests/**/*.test.ts"],
+    setupFiles: ["tests/support/no-session.ts"],
     environment: "node",
     pool: "forks",
     testTimeout: 30_000,

@@ -5,7 +5,7 @@
  */
 import { createHash } from "node:crypto";
 import sharp from "sharp";
-import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { createSpecimen } from "@/lib/server/data/specimens";
 import { createStudy } from "@/lib/server/data/studies";
 import { createS3ObjectStore } from "@/storage/s3-object-store";
@@ -15,8 +15,6 @@ import { newSecret, sha256Hex } from "@/lib/server/secrets";
 import { call, discoverRoutes, multipart } from "../support/api";
 import { DEAD_PORT, startTestStack, type TestStack } from "../support/stack";
 import { makeWorld, type World } from "../support/world";
-
-vi.mock("next-auth", async (original) => ({ ...(await original<typeof import("next-auth")>()), getServerSession: async () => null }));
 
 let stack: TestStack;
 let w: World;

@@ -3,14 +3,12 @@
  * condition's sample SD, in the stored spec and its provenance (hand-computed; common practice,
  * no source).
  */
-import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { FitDetailDto } from "@/lib/server/data/fits";
 import { cancelJob } from "@/lib/server/jobs/runner";
 import { call, discoverRoutes } from "../support/api";
 import { startTestStack, type TestStack } from "../support/stack";
 import { makeWorld, type World } from "../support/world";
-
-vi.mock("next-auth", async (original) => ({ ...(await original<typeof import("next-auth")>()), getServerSession: async () => null }));
 
 let stack: TestStack;
 let w: World;

@@ -7,7 +7,7 @@
  */
 import { randomUUID } from "node:crypto";
 import Papa from "papaparse";
-import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import packageJson from "@/package.json";
 import { createKineticsPredictor } from "@/lib/fitting/kinetics-predictor";
 import { getCatalogueKinetics } from "@/lib/kinetics";
@@ -19,8 +19,6 @@ import { database } from "@/lib/server/services";
 import { call, discoverRoutes } from "../support/api";
 import { startTestStack, type TestStack } from "../support/stack";
 import { makePerson, makeWorld, type Person, type World } from "../support/world";
-
-vi.mock("next-auth", async (original) => ({ ...(await original<typeof import("next-auth")>()), getServerSession: async () => null }));
 
 let stack: TestStack;
 let w: World;

@@ -4,7 +4,7 @@
  * Cases live in ./permission-cases/*.ts, one file per area. A route file that is not listed
  * there makes the first test fail.
  */
-import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { ROLES } from "@/lib/access/roles";
 import { readdirSync } from "node:fs";
 import path from "node:path";
@@ -13,8 +13,6 @@ import { call, discoverRoutes, type Method } from "../support/api";
 import { startTestStack, type TestStack } from "../support/stack";
 import { makeWorld, type World } from "../support/world";
 import { study, type Case, type Who } from "./permission-cases/shared";
-
-vi.mock("next-auth", async (original) => ({ ...(await original<typeof import("next-auth")>()), getServerSession: async () => null }));
 
 const CASES: Record<string, Case> = {};
 const casesDir = path.join(import.meta.dirname, "permission-cases");

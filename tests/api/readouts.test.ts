@@ -9,7 +9,7 @@ import { crc32 } from "node:zlib";
 import Papa from "papaparse";
 import sharp from "sharp";
 import { jStat } from "jstat";
-import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import packageJson from "@/package.json";
 import { encodePng } from "@/lib/imaging";
 import { READOUT_MESSAGES } from "@/lib/readout";
@@ -23,8 +23,6 @@ import { database, services } from "@/lib/server/services";
 import { call, discoverRoutes, multipart } from "../support/api";
 import { startTestStack, type TestStack } from "../support/stack";
 import { makeWorld, type World } from "../support/world";
-
-vi.mock("next-auth", async (original) => ({ ...(await original<typeof import("next-auth")>()), getServerSession: async () => null }));
 
 let stack: TestStack;
 let w: World;

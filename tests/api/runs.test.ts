@@ -4,7 +4,7 @@
  * the seed reproduces the fields bit for bit; cancel kills the process; limits answer 422 with
  * exact sentences before any job exists; a blow-up is recorded with when and why.
  */
-import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { getCatalogueKinetics } from "@/lib/kinetics";
 import { computeDispersion, computeGradientDispersion } from "@/lib/stability";
 import type { RunDetailDto } from "@/lib/server/data/simulation-run-types";
@@ -14,8 +14,6 @@ import { call, discoverRoutes } from "../support/api";
 import { startTestStack, type TestStack } from "../support/stack";
 import { makeWorld, type World } from "../support/world";
 import { TINY_RUN } from "./permission-cases/runs";
-
-vi.mock("next-auth", async (original) => ({ ...(await original<typeof import("next-auth")>()), getServerSession: async () => null }));
 
 let stack: TestStack;
 let w: World;
