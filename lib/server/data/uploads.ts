@@ -5,6 +5,7 @@
  */
 import { createReadStream } from "node:fs";
 import { randomUUID } from "node:crypto";
+import { Op } from "sequelize";
 import { can } from "@/lib/access/permissions";
 import { uploadOriginalKey } from "@/storage/keys";
 import { StorageUnavailableError } from "@/storage/object-store";
@@ -61,7 +62,6 @@ async function toDtos(ctx: LabContext, rows: UploadRow[]): Promise<UploadDto[]> 
 export async function listUploads(ctx: LabContext, specimenId: string, q: ListQuery<(typeof UPLOAD_SORTS)[number]>): Promise<ListResult<UploadDto>> {
   const m = await database();
   await findSpecimen(ctx, specimenId);
-  const { Op } = await import("sequelize");
   const where = { labId: ctx.labId, specimenId, ...(q.q ? { filename: { [Op.like]: `%${q.q}%` } } : {}) };
   const { rows, count } = await m.Upload.findAndCountAll({ where, order: [[q.sort, q.dir], ["id", "asc"]], limit: q.pageSize, offset: (q.page - 1) * q.pageSize });
   return { items: await toDtos(ctx, rows), page: q.page, pageSize: q.pageSize, total: count };
