@@ -1,5 +1,5 @@
 import type { CompiledKinetics } from "../kinetics/types";
-import { failOption } from "./errors";
+import { decomposeDiffusion, isDiagonalMatrix } from "./cross-diffusion";
 import type { ReactionSystem } from "./reaction-system";
 
 /**
@@ -44,21 +44,19 @@ export function createReactionSystemFromKinetics(kinetics: CompiledKinetics): Re
 }
 
 /**
- * Diagonal diffusivities of `kinetics` at parameter vector `p` (its own units: µm²/s when
- * dimensional, model units otherwise). Cross-diffusion is not supported by the solver yet.
+ * Diffusivities of `kinetics` at parameter vector `p` (its own units: µm²/s when dimensional,
+ * model units otherwise): one per species when D is diagonal, else the full matrix, checked here
+ * so a matrix the solver cannot take (complex or negative eigenvalues, not diagonalisable) is
+ * refused before a run starts (cross-diffusion.ts).
  */
-export function readKineticsDiffusion(kinetics: CompiledKinetics, p: ArrayLike<number>): number[] {
+export function readKineticsDiffusion(kinetics: CompiledKinetics, p: ArrayLike<number>): number[] | number[][] {
   const n = kinetics.species.length;
   const d = new Float64Array(n * n);
   kinetics.diffusion(p, d);
-  for (let i = 0; i < n; i++) {
-    for (let j = 0; j < n; j++) {
-      if (i !== j && d[i * n + j] !== 0) {
-        failOption("kinetics.diffusion", `The kinetics has cross-diffusion (D[${i}][${j}] = ${d[i * n + j]}); the solver supports diagonal diffusion only.`);
-      }
-    }
-  }
-  return Array.from({ length: n }, (_, i) => d[i * n + i]);
+  const matrix = Array.from({ length: n }, (_, i) => Array.from(d.subarray(i * n, (i + 1) * n)));
+  if (isDiagonalMatrix(matrix)) return matrix.map((row, i) => row[i]);
+  decomposeDiffusion(matrix, "kinetics.diffusion");
+  return matrix;
 }
 
 /** The first closed-form homogeneous steady state of `kinetics` at `p`, or null when none is known. */

@@ -21,3 +21,4 @@ export { runDiffusionStage, StageMode, type SpeciesBuffers } from "./diffusion-s
 export { schnakenbergReaction, schnakenbergSteadyState, createLinearDecayReaction } from "./reference-kinetics";
 export { phi1, phi2 } from "./phi-functions";
 export { createReactionSystemFromKinetics, readKineticsDiffusion, readKineticsSteadyState } from "./from-kinetics";
+export { decomposeDiffusion, isDiagonalMatrix, createModeReactionSystem, MAX_MODE_CONDITION, type DiffusionModes } from "./cross-diffusion";

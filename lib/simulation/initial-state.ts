@@ -16,9 +16,17 @@ export type InitialState =
       /** Seed of the noise; recorded in the result. @default a random 32-bit integer */
       seed?: string | number;
     }
-  | { kind: "fields"; fields: readonly ArrayLike<number>[] };
+  | {
+      kind: "fields";
+      /** One value per cell for each species (row-major, like the result's fields). */
+      fields: readonly ArrayLike<number>[];
+      /** Optional seeded noise a_s·U(−1, 1) added on top (to perturb an earlier pattern). @default 0 */
+      noiseAmplitude?: number | readonly number[];
+      /** Seed of that noise; recorded in the result. @default a random 32-bit integer (only when noise is added) */
+      seed?: string | number;
+    };
 
-/** Writes the initial state into `fields` and returns the seed used (null for given fields). */
+/** Writes the initial state into `fields` and returns the seed used (null for given fields without noise). */
 export function fillInitialState(state: InitialState, fields: Float64Array[]): string | null {
   const n = fields.length, cells = fields[0].length;
   if (state.kind === "fields") {
@@ -30,7 +38,13 @@ export function fillInitialState(state: InitialState, fields: Float64Array[]): s
         fields[s][i] = f[i];
       }
     });
-    return null;
+    const a = state.noiseAmplitude;
+    const amps = Array.from({ length: n }, (_, s) => (a === undefined ? 0 : typeof a === "number" ? a : a[s]));
+    amps.forEach((v, s) => {
+      if (!(v >= 0) || !Number.isFinite(v)) failOption("initial.noiseAmplitude", `initial.noiseAmplitude[${s}] must be a finite number ≥ 0, got ${v}.`);
+    });
+    if (amps.every((v) => v === 0)) return null;
+    return addNoise(fields, amps, state.seed);
   }
   const cs = state.steadyState;
   if (cs.length !== n) failOption("initial.steadyState", `initial.steadyState must have ${n} values (one per species), got ${cs.length}.`);
@@ -41,12 +55,18 @@ export function fillInitialState(state: InitialState, fields: Float64Array[]): s
     if (!(v >= 0) || !Number.isFinite(v)) failOption("initial.noiseAmplitude", `initial.noiseAmplitude[${s}] must be a finite number ≥ 0, got ${v}.`);
     return v;
   });
-  const seed = String(state.seed ?? ((Math.random() * 2 ** 32) >>> 0));
+  for (let s = 0; s < n; s++) fields[s].fill(cs[s]);
+  return addNoise(fields, amps, state.seed);
+}
+
+/** Adds a_s·U(−1, 1) from seedrandom(seed) to every cell; returns the seed as a string. */
+function addNoise(fields: Float64Array[], amps: readonly number[], seedGiven: string | number | undefined): string {
+  const seed = String(seedGiven ?? ((Math.random() * 2 ** 32) >>> 0));
   const rng = seedrandom(seed);
   // Species-major order: all cells of species 0, then species 1, … (part of the reproducibility contract).
-  for (let s = 0; s < n; s++) {
-    const f = fields[s];
-    for (let i = 0; i < cells; i++) f[i] = cs[s] + amps[s] * (2 * rng() - 1);
+  for (let s = 0; s < fields.length; s++) {
+    const f = fields[s], a = amps[s];
+    for (let i = 0; i < f.length; i++) f[i] += a * (2 * rng() - 1);
   }
   return seed;
 }

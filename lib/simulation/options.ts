@@ -30,8 +30,12 @@ export interface StationarityOptions {
 /** Options of {@link simulateReactionDiffusion}. */
 export interface SimulationOptions {
   grid: GridOptions;
-  /** Diagonal diffusivities, one per species (µm²/s, or model units). */
-  diffusionUm2PerS: readonly number[];
+  /**
+   * Diffusivities (µm²/s, or model units): one per species (diagonal), or a full n×n matrix
+   * D[i][j] (row i = species i) for cross-diffusion, simulated in the eigen-coordinates of D
+   * (cross-diffusion.ts; D must have real eigenvalues ≥ 0).
+   */
+  diffusionUm2PerS: readonly number[] | readonly (readonly number[])[];
   /** Uniform parameter values by name. @default {} */
   params?: Readonly<Record<string, number>>;
   /** Parameters varying in space; they override `params` of the same name. @default {} */
@@ -72,9 +76,21 @@ export function validateSimulationOptions(options: SimulationOptions, species: n
   if (!Array.isArray(d) || d.length !== species) {
     failOption("diffusionUm2PerS", `diffusionUm2PerS must have ${species} values (one per species), got ${Array.isArray(d) ? d.length : typeof d}.`);
   }
-  d.forEach((v, s) => {
-    if (!Number.isFinite(v) || v < 0) failOption("diffusionUm2PerS", `diffusionUm2PerS[${s}] must be a finite number ≥ 0, got ${v}.`);
-  });
+  if (Array.isArray(d[0])) {
+    (d as readonly (readonly number[])[]).forEach((row, i) => {
+      if (!Array.isArray(row) || row.length !== species) {
+        failOption("diffusionUm2PerS", `diffusionUm2PerS[${i}] must be a row of ${species} values (a ${species}×${species} matrix), got ${Array.isArray(row) ? row.length : typeof row}.`);
+      }
+      row.forEach((v, j) => {
+        if (!Number.isFinite(v)) failOption("diffusionUm2PerS", `diffusionUm2PerS[${i}][${j}] must be a finite number, got ${v}.`);
+        if (i === j && v < 0) failOption("diffusionUm2PerS", `diffusionUm2PerS[${i}][${i}] must be ≥ 0, got ${v}.`);
+      });
+    });
+  } else {
+    (d as readonly number[]).forEach((v, s) => {
+      if (typeof v !== "number" || !Number.isFinite(v) || v < 0) failOption("diffusionUm2PerS", `diffusionUm2PerS[${s}] must be a finite number ≥ 0, got ${v}.`);
+    });
+  }
   positive(options.endTimeS, "endTimeS");
   if (options.dtS !== undefined) positive(options.dtS, "dtS");
   const safety = options.stiffnessSafety;

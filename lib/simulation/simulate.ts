@@ -1,6 +1,7 @@
 import { createSpectralBasis } from "./spectral-basis";
 import { StageMode, type SpeciesBuffers } from "./diffusion-stage";
 import { failOption } from "./errors";
+import { createModeReactionSystem, decomposeDiffusion, isDiagonalMatrix, mixSpecies, mixSpeciesInPlace, type DiffusionModes } from "./cross-diffusion";
 import { createSerialExecutor } from "./executor";
 import { computeFieldStats, computeRelativeChangeRate } from "./field-stats";
 import { createGrid, type Grid } from "./grid";
@@ -38,14 +39,26 @@ function resolveParams(options: SimulationOptions, grid: Grid): ReactionParams {
   return params;
 }
 
+/** Diagonal diffusivities, or the mode decomposition of a cross-diffusion matrix. */
+function resolveDiffusion(d: SimulationOptions["diffusionUm2PerS"]): { diagonal: number[]; modes: DiffusionModes | null } {
+  if (!Array.isArray(d[0])) return { diagonal: [...(d as readonly number[])], modes: null };
+  const m = d as readonly (readonly number[])[];
+  if (isDiagonalMatrix(m)) return { diagonal: m.map((row, i) => row[i]), modes: null };
+  const modes = decomposeDiffusion(m);
+  return { diagonal: modes.diffusivities, modes };
+}
+
 function run(
-  system: ReactionSystem,
+  physicalSystem: ReactionSystem,
   options: SimulationOptions,
   grid: Grid,
   params: ReactionParams,
   executor: NonNullable<SimulationOptions["executor"]>,
 ): SimulationResult {
-  const n = system.species, cells = grid.cellCount, scheme = options.scheme ?? "etd2";
+  const n = physicalSystem.species, cells = grid.cellCount, scheme = options.scheme ?? "etd2";
+  const { diagonal, modes } = resolveDiffusion(options.diffusionUm2PerS);
+  // With cross-diffusion the solver steps the mode coordinates w = V⁻¹c (cross-diffusion.ts).
+  const system = modes ? createModeReactionSystem(physicalSystem, modes, cells) : physicalSystem;
   const buffers: SpeciesBuffers[] = [];
   for (let s = 0; s < n; s++) {
     buffers.push({
@@ -61,7 +74,8 @@ function run(
     ? [...options.initial.steadyState]
     : views[0].map((f) => computeFieldStats(f).mean);
 
-  const rho = computeReactionStiffness(system, reference, params, cells);
+  // ρ is the same in mode coordinates (V⁻¹JV is similar to J).
+  const rho = computeReactionStiffness(physicalSystem, reference, params, cells);
   const rule = chooseTimeStep(options.endTimeS, rho, options.stiffnessSafety ?? 0.1, options.dtS ?? null);
   if (rule.steps > SIMULATION_LIMITS.maxSteps) {
     failOption("dtS", `endTimeS / dtS needs ${rule.steps} steps; the limit is ${SIMULATION_LIMITS.maxSteps}.`);
@@ -71,9 +85,10 @@ function run(
   const coefficients: SpeciesCoefficients[] = buffers.map((_, s) => {
     const c: SpeciesCoefficients = {};
     for (const name of coefficientNames(scheme)) c[name] = executor.allocate(cells);
-    fillSchemeCoefficients(scheme, basis.k2PerUm2, options.diffusionUm2PerS[s], h, c);
+    fillSchemeCoefficients(scheme, basis.k2PerUm2, diagonal[s], h, c);
     return c;
   });
+  if (modes) mixSpeciesInPlace(modes.toModes, views[0]);
   if (scheme === "etd2") buffers.forEach((b) => basis.forward(b.fields[0], b.chat!));
   executor.prepare({ grid, buffers, coefficients });
 
@@ -81,7 +96,14 @@ function run(
   const tol = st.tolerancePerS ?? 1e-5 * Math.max(rho, 1 / options.endTimeS);
   const windowSteps = Math.max(1, Math.round((st.windowS ?? (rho > 0 ? 10 / rho : options.endTimeS / 20)) / h));
   const minTime = st.minTimeS ?? 0;
-  const ref = views[0].map((f) => Float64Array.from(f));
+  // Copies of the current state in species coordinates (snapshots, stationarity, result).
+  const physical = (fields: Float64Array[]): Float64Array[] => {
+    if (!modes) return fields.map((f) => Float64Array.from(f));
+    const out = fields.map((f) => new Float64Array(f.length));
+    mixSpecies(modes.toSpecies, fields, out);
+    return out;
+  };
+  const ref = physical(views[0]);
   const blowUpAbs = options.blowUpAbs ?? 1e12;
   const snapTimes = options.snapshotTimesS ?? [];
   const snapshots: Snapshot[] = [];
@@ -93,7 +115,7 @@ function run(
   const takeSnapshots = () => {
     const t = steps * h;
     while (nextSnap < snapTimes.length && t >= snapTimes[nextSnap] - 1e-9 * h) {
-      snapshots.push({ requestedTimeS: snapTimes[nextSnap++], timeS: t, step: steps, fields: views[cur].map((f) => Float64Array.from(f)) });
+      snapshots.push({ requestedTimeS: snapTimes[nextSnap++], timeS: t, step: steps, fields: physical(views[cur]) });
     }
   };
   takeSnapshots();
@@ -122,8 +144,9 @@ function run(
     steps++;
     takeSnapshots();
     if (steps % windowSteps === 0) {
-      lastRate = computeRelativeChangeRate(views[cur], ref, windowSteps * h);
-      ref.forEach((r, s) => r.set(views[cur][s]));
+      const now = modes ? physical(views[cur]) : views[cur];
+      lastRate = computeRelativeChangeRate(now, ref, windowSteps * h);
+      ref.forEach((r, s) => r.set(now[s]));
       if (options.stopWhenStationary && lastRate < tol && steps * h >= minTime) {
         reason = "stationary";
         break;
@@ -135,7 +158,7 @@ function run(
   }
   const timeS = steps * h;
   options.onProgress?.({ timeS, fraction: steps / rule.steps, percent: (100 * steps) / rule.steps, steps });
-  const fields = views[cur].map((f) => Float64Array.from(f));
+  const fields = physical(views[cur]);
   return {
     grid,
     speciesNames: Array.from({ length: n }, (_, s) => system.speciesNames?.[s] ?? `c${s + 1}`),

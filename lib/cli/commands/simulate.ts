@@ -26,7 +26,11 @@ RUN.json fields:
   endTimeS           simulated time (s, or model time units)
   dtS, scheme        step cap, "etd2" (default) | "implicit-euler" | "integrating-factor"
   initial            {"steadyState"?: [...], "noiseAmplitude"?: a, "seed"?: s}; the steady state
-                     defaults to the kinetics' closed-form one
+                     defaults to the kinetics' closed-form one. Or a chosen initial field:
+                     {"fieldFiles": ["u.f64", "v.f64"]} (one per species, raw little-endian
+                     float64, row-major, as --out writes them; paths relative to RUN.json) or
+                     {"fields": [[...], [...]]}, optionally with "noiseAmplitude" and "seed"
+                     for seeded noise on top
   stopWhenStationary, stationarity {"tolerancePerS", "windowS", "minTimeS"}, snapshotTimesS
   scales             {"lengthScaleUm", "timeScaleS"} of a non-dimensional kinetics: adds a
                      "physical" block (wavelength in µm, time in s; SCIENCE.md §3)
@@ -48,7 +52,7 @@ interface RunSpec {
   endTimeS: number;
   dtS?: number;
   scheme?: SchemeName;
-  initial?: { steadyState?: number[]; noiseAmplitude?: number | number[]; seed?: string | number };
+  initial?: { steadyState?: number[]; noiseAmplitude?: number | number[]; seed?: string | number; fields?: number[][]; fieldFiles?: string[] };
   stopWhenStationary?: boolean;
   stationarity?: SimulationOptions["stationarity"];
   snapshotTimesS?: number[];
@@ -68,6 +72,41 @@ function readSpec(file: string): RunSpec {
   if (typeof spec.grid !== "object" || spec.grid === null) throw new CliError('The spec needs "grid": {"lengthUm": [...], "cells": [...]}.');
   if (typeof spec.endTimeS !== "number") throw new CliError('The spec needs "endTimeS" (a number).');
   return spec;
+}
+
+/** The chosen initial field of the spec, read and checked against the grid; null when none is given. */
+function readInitialFields(spec: RunSpec, specFile: string, species: number): Float64Array[] | null {
+  const init = spec.initial ?? {};
+  if (init.fields !== undefined && init.fieldFiles !== undefined) throw new CliError("initial: give fields or fieldFiles, not both.");
+  const cells = (spec.grid.cells ?? []).reduce((a, b) => a * b, 1);
+  if (init.fieldFiles !== undefined) {
+    if (!Array.isArray(init.fieldFiles) || init.fieldFiles.length !== species) {
+      throw new CliError(`initial.fieldFiles must list ${species} files (one per species), got ${Array.isArray(init.fieldFiles) ? init.fieldFiles.length : typeof init.fieldFiles}.`);
+    }
+    return init.fieldFiles.map((name, s) => {
+      const file = path.resolve(path.dirname(specFile), String(name));
+      let bytes: Buffer;
+      try {
+        bytes = readFileSync(file);
+      } catch (e) {
+        throw new CliError(`initial.fieldFiles[${s}]: cannot read ${name} (${(e as NodeJS.ErrnoException).code ?? (e as Error).message}).`);
+      }
+      if (bytes.length !== 8 * cells) {
+        throw new CliError(`initial.fieldFiles[${s}] (${name}) has ${bytes.length} bytes; the grid ${spec.grid.cells.join(" × ")} needs ${8 * cells} (8 bytes of float64 per cell).`);
+      }
+      return new Float64Array(bytes.buffer.slice(bytes.byteOffset, bytes.byteOffset + bytes.byteLength));
+    });
+  }
+  if (init.fields !== undefined) {
+    if (!Array.isArray(init.fields) || init.fields.length !== species) {
+      throw new CliError(`initial.fields must have ${species} arrays (one per species), got ${Array.isArray(init.fields) ? init.fields.length : typeof init.fields}.`);
+    }
+    return init.fields.map((f, s) => {
+      if (!Array.isArray(f) || !f.every((v) => typeof v === "number")) throw new CliError(`initial.fields[${s}] must be an array of numbers.`);
+      return Float64Array.from(f);
+    });
+  }
+  return null;
 }
 
 function summarise(result: SimulationResult) {
@@ -153,11 +192,15 @@ const command: CliCommand = {
       const p = resolveParameters(kinetics, spec.parameters ?? {}, "parameters");
       const params: Record<string, number> = {};
       kinetics.parameters.forEach((s, i) => (params[s.name] = p[i]));
-      const steadyState = spec.initial?.steadyState ?? readKineticsSteadyState(kinetics, p);
-      if (!steadyState) throw new CliError("This kinetics has no closed-form steady state; give initial.steadyState.");
+      const given = readInitialFields(spec, options.spec, kinetics.species.length);
+      const steadyState = given ? null : (spec.initial?.steadyState ?? readKineticsSteadyState(kinetics, p));
+      if (!given && !steadyState) throw new CliError("This kinetics has no closed-form steady state; give initial.steadyState.");
+      const initial: SimulationOptions["initial"] = given
+        ? { kind: "fields", fields: given, noiseAmplitude: spec.initial?.noiseAmplitude, seed: spec.initial?.seed }
+        : { kind: "steady-state-noise", steadyState: steadyState!, noiseAmplitude: spec.initial?.noiseAmplitude, seed: spec.initial?.seed ?? 1 };
       const result = simulateReactionDiffusion(createReactionSystemFromKinetics(kinetics), {
         grid: spec.grid, diffusionUm2PerS: readKineticsDiffusion(kinetics, p), params, spatialParams: spec.spatialParameters,
-        initial: { kind: "steady-state-noise", steadyState, noiseAmplitude: spec.initial?.noiseAmplitude, seed: spec.initial?.seed ?? 1 },
+        initial,
         endTimeS: spec.endTimeS, dtS: spec.dtS, scheme: spec.scheme, stopWhenStationary: spec.stopWhenStationary,
         stationarity: spec.stationarity, snapshotTimesS: spec.snapshotTimesS, executor,
         onProgress: options.progress === true ? (q) => process.stderr.write(`progress ${JSON.stringify({ timeS: q.timeS, fraction: q.fraction, steps: q.steps })}\n`) : undefined,

@@ -33,7 +33,8 @@ export interface RunPlan {
   lengthFactor: number | null;
   timeFactor: number | null;
   steadyState: number[];
-  diffusion: number[];
+  /** One diffusivity per species, or the full matrix D[i][j] for cross-diffusion. */
+  diffusion: number[] | number[][];
   dtS: number;
   steps: number;
   spectralRadiusPerS: number;

@@ -53,4 +53,34 @@ describe("cli simulate", () => {
     const spec = writeSpec({ kinetics: { catalogue: "schnakenberg" }, grid: { lengthUm: [10], cells: [12] }, endTimeS: 1 });
     await expect(command.run(["--spec", spec], { json: true })).rejects.toThrow("grid.cells[0] must be a power of two (fft.js sizes), got 12; use 8 or 16.");
   });
+
+  it("continues from chosen initial fields: 20 s then 10 s from the written fields equals 30 s in one go, to the bit", async () => {
+    // A one-step scheme restarted from its own state repeats the same steps (common practice, no source).
+    const base = { kinetics: { catalogue: "schnakenberg" }, parameters: { gamma: 1, a: 0.1, b: 0.9, d: 40 }, grid: { lengthUm: [20, 20], cells: [16, 16] }, dtS: 0.01, scheme: "implicit-euler" };
+    const first = path.join(dir, "first"), whole = path.join(dir, "whole"), second = path.join(dir, "second");
+    await command.run(["--spec", writeSpec({ ...base, endTimeS: 20, initial: { seed: 9 } }), "--out", first], { json: true });
+    await command.run(["--spec", writeSpec({ ...base, endTimeS: 30, initial: { seed: 9 } }), "--out", whole], { json: true });
+    const cont = path.join(first, "continue.json");
+    writeFileSync(cont, JSON.stringify({ ...base, endTimeS: 10, initial: { fieldFiles: ["final-u.f64", "final-v.f64"] } }));
+    const { json } = (await command.run(["--spec", cont, "--out", second], { json: true })) as { json: Record<string, unknown> };
+    expect(json).toMatchObject({ steps: 1000, seed: null });
+    for (const f of ["final-u.f64", "final-v.f64"]) expect(readFileSync(path.join(second, f)).equals(readFileSync(path.join(whole, f)))).toBe(true);
+    // Seeded noise on top of given fields is recorded and changes the result.
+    writeFileSync(cont, JSON.stringify({ ...base, endTimeS: 10, initial: { fieldFiles: ["final-u.f64", "final-v.f64"], noiseAmplitude: 0.01, seed: 4 } }));
+    const noisy = (await command.run(["--spec", cont], { json: true })) as { json: { seed: string; fields: { mean: number }[] } };
+    expect(noisy.json.seed).toBe("4");
+    expect(noisy.json.fields[0].mean).not.toBe((json.fields as { mean: number }[])[0].mean);
+  });
+
+  it.each([
+    [{ fieldFiles: ["short.f64", "short.f64"] }, "initial.fieldFiles[0] (short.f64) has 80 bytes; the grid 16 × 16 needs 2048 (8 bytes of float64 per cell)."],
+    [{ fieldFiles: ["short.f64"] }, "initial.fieldFiles must list 2 files (one per species), got 1."],
+    [{ fieldFiles: ["missing.f64", "missing.f64"] }, "initial.fieldFiles[0]: cannot read missing.f64 (ENOENT)."],
+    [{ fields: [[1], [2]], fieldFiles: ["a", "b"] }, "initial: give fields or fieldFiles, not both."],
+    [{ fields: [[1, 2], [3, 4]] }, "initial.fields[0] must have 256 values (one per cell), got 2."],
+  ])("refuses a bad chosen initial field: %j", async (initial, message) => {
+    writeFileSync(path.join(dir, "short.f64"), Buffer.alloc(80));
+    const spec = writeSpec({ kinetics: { catalogue: "schnakenberg" }, grid: { lengthUm: [20, 20], cells: [16, 16] }, endTimeS: 1, initial });
+    await expect(command.run(["--spec", spec], { json: true })).rejects.toThrow(message);
+  });
 });

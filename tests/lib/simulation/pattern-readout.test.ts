@@ -51,7 +51,7 @@ describe("a long run ends in the pattern its nonlinearity selects, read by the t
     // (nonlinear selection shifts it, Murray 2003 ch. 2).
     const j = new Float64Array(4);
     k.jacobian(steady, p, j);
-    const d = readKineticsDiffusion(k, p);
+    const d = readKineticsDiffusion(k, p) as number[]; // catalogue Gierer–Meinhardt: diagonal
     const predicted = (2 * Math.PI) / Math.sqrt(fastestK2(Array.from(j), d[0], d[1]));
     expect(Math.abs(readout.wavelengthUm! / predicted - 1)).toBeLessThan(0.2);
   });
