@@ -32,7 +32,12 @@ export const simulationRunRequestSchema = z.object({
   stopWhenStationary: z.boolean().optional(),
   /** Whole number 0 … 2³²−1; a random one is drawn and recorded when left out. */
   seed: z.number().int("seed must be a whole number").min(0, "seed must be 0 or more").max(4294967295, "seed must be at most 4294967295").optional(),
-  /** Noise amplitude around the steady state (same for every species). @default 1 % of |c*| */
+  /**
+   * A chosen initial field: the final fields of an earlier finished run of this lab (same cells and
+   * species count), e.g. to see whether a pattern persists when a parameter changes.
+   */
+  startFrom: z.object({ runId: z.uuid("startFrom.runId must be a run id") }).optional(),
+  /** Noise amplitude around the steady state (same for every species). @default 1 % of |c*|; 0 with startFrom */
   noiseAmplitude: finite("noiseAmplitude").min(0, "noiseAmplitude must be 0 or more").optional(),
   snapshots: z.number().int("snapshots must be a whole number").min(2, "snapshots must be at least 2").max(MAX_RUN_SNAPSHOTS, `snapshots must be at most ${MAX_RUN_SNAPSHOTS}`).optional(),
   /** One parameter varying along x, in the gradient forms of the kinetics page (positions in grid length units). */

@@ -42,6 +42,24 @@ test("modeller: Simulate with these parameters → progress → snapshot scrubbe
   await expect(page.getByTestId("spectrum-plot")).toBeVisible();
   await page.screenshot({ path: "test-results/run-page.png", fullPage: true });
 
+  // Start a second run from this pattern at d = 5, where the steady state is stable: does the pattern persist?
+  const firstUrl = page.url();
+  await page.getByTestId("continue-run").click();
+  await expect(page.getByRole("heading", { level: 1 })).toHaveText("New verification run");
+  await expect(page.getByTestId("run-start-note")).toContainText("Starts from the final fields of");
+  await expect(page.getByTestId("run-param-d")).toHaveValue("25");
+  await expect(page.getByTestId("run-cells")).toHaveValue("64");
+  await page.getByTestId("run-param-d").fill("5");
+  await page.getByTestId("run-end-time").fill("50");
+  await page.getByTestId("start-run").click();
+  await expect(page).toHaveURL(/\/runs\/[0-9a-f-]{36}$/);
+  expect(page.url()).not.toBe(firstUrl);
+  await expect(page.getByText("the run shows whether the earlier pattern persists")).toBeVisible();
+  await expect(page.getByTestId("run-status")).toHaveText("reached the end time", { timeout: 90_000 });
+  await expect(page.getByTestId("run-initial-state")).toContainText("the final fields of the run");
+  await expect(page.getByTestId("run-initial-state")).toContainText("no added noise");
+  await page.screenshot({ path: "test-results/run-continued.png", fullPage: true });
+
   await page.goto(`/labs/${labId}/runs`);
   await expect(page.getByTestId("runs-table")).toContainText("Schnakenberg");
   await page.screenshot({ path: "test-results/runs-list.png", fullPage: true });

@@ -20,6 +20,7 @@ import { getLabKineticsVersion } from "./kinetics";
 import { withKineticsErrors } from "./kinetics-engine";
 import { parseProfileTable } from "./kinetics-table";
 import { readFitStart } from "./simulation-run-fit";
+import { initialFieldFile, readRunStart } from "./simulation-run-start";
 import type { RunPlan, RunSpec } from "./simulation-run-types";
 
 /** Stiffness safety factor of the step rule h ≤ c/ρ (the solver's default, which the CLI uses). */
@@ -92,11 +93,14 @@ export async function planRun(ctx: LabContext, asked: SimulationRunRequest): Pro
   if (!steadyState.every(Number.isFinite) || !rates.every(Number.isFinite)) {
     throw unprocessable("parameters", `parameters: the reaction expressions do not give finite values at the steady state (${compiled.species.map((s, i) => `${s} = ${steadyState[i]}`).join(", ")}); check the expressions and parameter values.`);
   }
-  const warnings: string[] = [];
-  if (r.bands.length === 0) {
+  const start = asked.startFrom ? await readRunStart(ctx, asked.startFrom.runId, compiled.species, grid) : null;
+  const warnings: string[] = [...(start?.warnings ?? [])];
+  if (r.bands.length === 0 && start) {
+    warnings.push(`The homogeneous steady state is ${r.classification.label} at these parameter values, so no new pattern would form from noise; the run shows whether the earlier pattern persists.`);
+  } else if (r.bands.length === 0) {
     throw unprocessable("parameters", `parameters: the homogeneous steady state is ${r.classification.label} at these parameter values — no mode grows, so the noise decays and there is no pattern to read. Choose parameters inside the Turing space (see the Turing-space map of this kinetics).`);
   }
-  if (!r.fastest) {
+  if (!r.fastest && r.bands.length > 0) {
     warnings.push(`The steady state is ${r.classification.label} at these parameter values and no mode with k > 0 grows fastest, so there is no linear prediction 2π/k* to compare with; the run is started anyway.`);
   } else if (!r.classification.classes.includes("turing")) {
     warnings.push(`The steady state is ${r.classification.label}, not Turing-unstable, at these parameter values: the run is started, but 2π/k* of the fastest-growing mode is not a Turing prediction and the final pattern may oscillate or leave the steady state altogether.`);
@@ -115,7 +119,8 @@ export async function planRun(ctx: LabContext, asked: SimulationRunRequest): Pro
   const cellParams: Record<string, number | Float64Array> = { ...params };
   for (const [name, profile] of Object.entries(spatialParameters ?? {})) cellParams[name] = solverError(() => resolveParameterProfile(profile, grid, `gradient.profile`));
   const system = createReactionSystemFromKinetics(compiled);
-  const rho = computeReactionStiffness(system, steadyState, cellParams, grid.cellCount);
+  // The solver takes ρ at the mean of given fields (lib/simulation/simulate.ts), so the plan does too.
+  const rho = computeReactionStiffness(system, start ? start.plan.speciesMeans : steadyState, cellParams, grid.cellCount);
   const rule = chooseTimeStep(req.endTimeS, rho, STIFFNESS_SAFETY, req.dtS ?? null);
   if (rule.steps > SIMULATION_LIMITS.maxSteps) throw unprocessable("dtS", `endTimeS / dtS needs ${rule.steps} steps; the limit is ${SIMULATION_LIMITS.maxSteps}.`);
   if (req.dtS !== undefined && req.dtS > rule.stiffnessLimitS) {
@@ -141,7 +146,9 @@ export async function planRun(ctx: LabContext, asked: SimulationRunRequest): Pro
     endTimeS: req.endTimeS,
     ...(req.dtS !== undefined ? { dtS: req.dtS } : {}),
     scheme: req.scheme ?? "etd2",
-    initial: { steadyState, ...(req.noiseAmplitude !== undefined ? { noiseAmplitude: req.noiseAmplitude } : {}), seed },
+    initial: start
+      ? { fieldFiles: compiled.species.map((_, s) => initialFieldFile(s)), fromRun: start.fromRun, noiseAmplitude: req.noiseAmplitude ?? 0, seed }
+      : { steadyState, ...(req.noiseAmplitude !== undefined ? { noiseAmplitude: req.noiseAmplitude } : {}), seed },
     stopWhenStationary: req.stopWhenStationary ?? false,
     snapshotTimesS,
     ...(!dimensional && (req.lengthScaleUm || req.timeScaleS) ? { scales: { lengthScaleUm: req.lengthScaleUm, timeScaleS: req.timeScaleS } } : {}),
@@ -169,6 +176,7 @@ export async function planRun(ctx: LabContext, asked: SimulationRunRequest): Pro
     } : null,
     gradientPrediction,
     fromFit: fit?.fromFit ?? null,
+    startFrom: start?.plan ?? null,
     warnings,
   };
   return { spec, plan, kineticsKind: info.kind, kineticsRef: info.id, kineticsVersion: info.version, kineticsName: info.name, seed: String(seed) };

@@ -16,7 +16,13 @@ export interface RunSpec {
   endTimeS: number;
   dtS?: number;
   scheme: "etd2" | "implicit-euler" | "integrating-factor";
-  initial: { steadyState: number[]; noiseAmplitude?: number; seed: number };
+  /**
+   * The homogeneous steady state plus seeded noise, or a chosen initial field: `fieldFiles` next to
+   * RUN.json (the job writes the earlier run's final fields there, checked against `fromRun.finalSha256`).
+   */
+  initial:
+    | { steadyState: number[]; noiseAmplitude?: number; seed: number }
+    | { fieldFiles: string[]; fromRun: { runId: string; name: string; finalSha256: string[] }; noiseAmplitude: number; seed: number };
   stopWhenStationary: boolean;
   snapshotTimesS: number[];
   scales?: { lengthScaleUm?: number; timeScaleS?: number };
@@ -57,6 +63,8 @@ export interface RunPlan {
     n: number;
     readouts: { readoutId: string; filename: string | null; measure: string | null }[];
   } | null;
+  /** Set when the run starts from an earlier run's final fields. */
+  startFrom: { runId: string; name: string; kineticsName: string; timeS: number; grid: string; speciesMeans: number[] } | null;
   warnings: string[];
 }
 

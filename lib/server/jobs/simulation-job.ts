@@ -20,6 +20,7 @@ import { database, services } from "../services";
 import { runImageReadout } from "../data/readout-image";
 import { compareWithPrediction } from "../data/simulation-run-compare";
 import { fieldRange, fieldToGrey, renderFieldPng } from "../data/simulation-run-images";
+import { initialFieldFile, loadRunStartFields } from "../data/simulation-run-start";
 import type { RunPlan, RunResult, RunSpec } from "../data/simulation-run-types";
 import { registerJobHandler } from "./registry";
 import { JobCancelledError, type JobHandler } from "./types";
@@ -121,6 +122,8 @@ export const runSimulationJob: JobHandler = async (job, ctx) => {
     await row.update({ status: "running" });
     const specFile = path.join(dir, "RUN.json");
     writeFileSync(specFile, JSON.stringify(spec, null, 2));
+    const initialFields = "fieldFiles" in spec.initial ? await loadRunStartFields(row.labId, spec.initial.fromRun, plan.species.length, (key) => store.getBuffer(key)) : [];
+    initialFields.forEach((bytes, s) => writeFileSync(path.join(dir, initialFieldFile(s)), bytes));
     const t0 = Date.now();
     const unit = plan.timeUnit === "s" ? "s" : "model time";
     const tf = plan.timeFactor ?? 1;
@@ -135,6 +138,7 @@ export const runSimulationJob: JobHandler = async (job, ctx) => {
       fileKeys[`final-${s}.f64`] = await put(`final-${s}.f64`, bytes, "application/octet-stream");
       fileKeys[`final-${s}.png`] = await put(`final-${s}.png`, await renderFieldPng(finals[s], nx, ny), "image/png");
     }
+    for (let s = 0; s < initialFields.length; s++) fileKeys[initialFieldFile(s)] = await put(initialFieldFile(s), initialFields[s], "application/octet-stream");
     const snapshots: RunResult["snapshots"] = [];
     for (let i = 0; i < out.snapshots.length; i++) {
       const range: { min: number; max: number }[] = [];

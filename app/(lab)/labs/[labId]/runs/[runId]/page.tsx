@@ -1,5 +1,6 @@
 import Link from "next/link";
 import { PageHeader } from "@/components/ui/panel";
+import { can } from "@/lib/access/permissions";
 import { getRun } from "@/lib/server/data/simulation-runs";
 import { orNotFound, pageLab } from "@/lib/server/page-access";
 import { RunView } from "./run-view";
@@ -18,7 +19,7 @@ export default async function RunPage({ params }: { params: Promise<{ labId: str
         title={run.name}
         subtitle={<>Verification run of <Link className="text-moss hover:underline" href={`/labs/${labId}/kinetics/${k.ref}${k.version ? `?version=${k.version}` : ""}`}>{k.name}{k.version ? ` v${k.version}` : ""}</Link> · {run.gridLabel} · started {run.createdAt.slice(0, 16).replace("T", " ")} UTC{run.createdByEmail ? ` by ${run.createdByEmail}` : ""}</>}
       />
-      <RunView labId={labId} initial={run} />
+      <RunView labId={labId} initial={run} canStart={can(ctx.role, "run.create")} />
     </>
   );
 }

@@ -21,7 +21,17 @@ import { RunProvenance } from "./run-provenance";
 const active = (s: string) => s === "queued" || s === "running";
 const SYMMETRY_WORDS: Record<string, string> = { stripes: "stripes", hexagonal: "spots on a hexagonal lattice", labyrinth: "labyrinth or disordered" };
 
-export function RunView({ labId, initial }: { labId: string; initial: RunDetailDto }) {
+/** The new-run form prefilled with this run's kinetics, parameters and grid, starting from its final fields. */
+function continueHref(labId: string, r: RunDetailDto): string {
+  const q = new URLSearchParams({ from: r.id, kinetics: r.kinetics.ref });
+  if (r.kinetics.version) q.set("version", String(r.kinetics.version));
+  for (const [k, v] of Object.entries(r.spec.parameters)) q.set(`p.${k}`, String(v));
+  if (r.spec.scales?.lengthScaleUm) q.set("lengthScaleUm", String(r.spec.scales.lengthScaleUm));
+  if (r.spec.scales?.timeScaleS) q.set("timeScaleS", String(r.spec.scales.timeScaleS));
+  return `/labs/${labId}/runs/new?${q.toString()}`;
+}
+
+export function RunView({ labId, initial, canStart }: { labId: string; initial: RunDetailDto; canStart: boolean }) {
   const url = `/api/v1/labs/${labId}/runs/${initial.id}`;
   const { data, mutate } = useSWR<RunDetailDto>(url, fetchJson, { fallbackData: initial, refreshInterval: (d) => (active((d ?? initial).status) ? 700 : 0) });
   const r = data ?? initial;
@@ -45,6 +55,9 @@ export function RunView({ labId, initial }: { labId: string; initial: RunDetailD
         <Badge tone={res?.stopReason === "blow-up" ? "brick" : STATUS_TONE[r.status]}><span data-testid="run-status">{r.status === "succeeded" && res ? STOP_WORDS[res.stopReason] : STATUS_WORDS[r.status]}</span></Badge>
         <span className="text-ink-soft">Seed <span className="num text-ink" data-testid="run-seed">{r.seed}</span></span>
         <span className="text-ink-soft">Step <span className="num text-ink">{formatSig(plan.dtS * tf, 4)} {plan.timeUnit}</span> × <span className="num text-ink">{plan.steps}</span> steps</span>
+        {r.status === "succeeded" && canStart && (
+          <Link className="ml-auto text-moss hover:underline" href={continueHref(labId, r)} data-testid="continue-run">Start a run from this pattern →</Link>
+        )}
       </div>
       {plan.warnings.map((x) => <Notice key={x} tone="warning">{x}</Notice>)}
       {active(r.status) && (
@@ -126,7 +139,7 @@ export function RunView({ labId, initial }: { labId: string; initial: RunDetailD
           )}
         </>
       )}
-      <RunProvenance r={r} />
+      <RunProvenance r={r} labId={labId} />
     </div>
   );
 }

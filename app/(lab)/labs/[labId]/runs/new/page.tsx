@@ -6,6 +6,7 @@ import { RUN_WORK_LIMIT, SOLVER_CELL_STEPS_PER_S } from "@/lib/server/data/simul
 import { Notice } from "@/components/ui/notice";
 import { AppError } from "@/lib/server/errors";
 import { readFitStart } from "@/lib/server/data/simulation-run-fit";
+import { listRunStartOptions } from "@/lib/server/data/simulation-run-start";
 import { pageLab } from "@/lib/server/page-access";
 import { RunForm, type RunPrefill } from "./run-form";
 
@@ -26,7 +27,9 @@ export default async function NewRunPage({ params, searchParams }: { params: Pro
   const one = (k: string) => (typeof q[k] === "string" ? (q[k] as string) : undefined);
   const parameters: Record<string, string> = {};
   for (const [k, v] of Object.entries(q)) if (k.startsWith("p.") && typeof v === "string") parameters[k.slice(2)] = v;
-  let prefill: RunPrefill = { kinetics: one("kinetics"), version: one("version"), parameters, lengthScaleUm: one("lengthScaleUm"), timeScaleS: one("timeScaleS") };
+  const earlierRuns = await listRunStartOptions(ctx);
+  const from = one("from");
+  let prefill: RunPrefill = { kinetics: one("kinetics"), version: one("version"), parameters, lengthScaleUm: one("lengthScaleUm"), timeScaleS: one("timeScaleS"), startFrom: earlierRuns.some((r) => r.id === from) ? from : undefined };
   let fitNotice: string | null = null;
   const fitId = one("fit"), condition = one("condition");
   if (fitId && condition) {
@@ -49,9 +52,9 @@ export default async function NewRunPage({ params, searchParams }: { params: Pro
   ];
   return (
     <>
-      <PageHeader crumbs={<Link href={`/labs/${labId}/runs`} className="hover:underline">Runs</Link>} title="New verification run" subtitle="Simulate a kinetics from its homogeneous steady state plus seeded noise; the final pattern is read like a tissue image and compared with 2π/k*." />
+      <PageHeader crumbs={<Link href={`/labs/${labId}/runs`} className="hover:underline">Runs</Link>} title="New verification run" subtitle="Simulate a kinetics from its homogeneous steady state plus seeded noise, or from an earlier run's final pattern; the final pattern is read like a tissue image and compared with 2π/k*." />
       {fitNotice && <div className="mb-4"><Notice tone="warning">{fitNotice}</Notice></div>}
-      <RunForm labId={labId} kinetics={[...listCatalogue(), ...labInfos]} prefill={prefill} limits={limits} />
+      <RunForm labId={labId} kinetics={[...listCatalogue(), ...labInfos]} prefill={prefill} limits={limits} earlierRuns={earlierRuns} />
     </>
   );
 }

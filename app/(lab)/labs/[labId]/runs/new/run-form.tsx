@@ -8,6 +8,7 @@ import { Panel } from "@/components/ui/panel";
 import { ApiError, sendJson } from "@/lib/client/api";
 import type { KineticsInfoDto } from "@/lib/server/data/kinetics";
 import type { RunDetailDto } from "@/lib/server/data/simulation-run-types";
+import type { RunStartOption } from "@/lib/server/data/simulation-run-start";
 
 export interface RunPrefill {
   kinetics?: string;
@@ -15,6 +16,8 @@ export interface RunPrefill {
   parameters: Record<string, string>;
   lengthScaleUm?: string;
   timeScaleS?: string;
+  /** Id of an earlier finished run whose final fields start this one. */
+  startFrom?: string;
   /** Start from a finished fit: kinetics, parameters and scales come from it. */
   fit?: { fitId: string; condition: string; model: string; label: string };
 }
@@ -27,14 +30,18 @@ function Label({ text, children }: { text: React.ReactNode; children: React.Reac
   return <label className="block text-xs text-ink-soft">{text}{children}</label>;
 }
 
-export function RunForm({ labId, kinetics, prefill, limits }: { labId: string; kinetics: KineticsInfoDto[]; prefill: RunPrefill; limits: string[] }) {
+export function RunForm({ labId, kinetics, prefill, limits, earlierRuns }: { labId: string; kinetics: KineticsInfoDto[]; prefill: RunPrefill; limits: string[]; earlierRuns: RunStartOption[] }) {
   const router = useRouter();
   const [id, setId] = useState(kinetics.some((k) => k.id === prefill.kinetics) ? prefill.kinetics! : (kinetics[0]?.id ?? ""));
   const info = kinetics.find((k) => k.id === id);
   const [values, setValues] = useState<Record<string, string>>(() => Object.fromEntries((info?.parameters ?? []).map((p) => [p.name, prefill.parameters[p.name] ?? String(p.default)])));
-  const [dims, setDims] = useState<"1" | "2">("2");
-  const [lx, setLx] = useState("100"), [ly, setLy] = useState("100"), [cells, setCells] = useState("64");
-  const [boundary, setBoundary] = useState<"zero-flux" | "periodic">("zero-flux");
+  const source0 = earlierRuns.find((r) => r.id === prefill.startFrom);
+  const [startFrom, setStartFrom] = useState(source0?.id ?? "");
+  const source = earlierRuns.find((r) => r.id === startFrom);
+  const [dims, setDims] = useState<"1" | "2">(source0 ? (source0.cells.length === 2 ? "2" : "1") : "2");
+  const [lx, setLx] = useState(source0 ? String(source0.lengthUm[0]) : "100"), [ly, setLy] = useState(source0?.lengthUm[1] !== undefined ? String(source0.lengthUm[1]) : "100");
+  const [cells, setCells] = useState(source0 ? String(source0.cells[0]) : "64");
+  const [boundary, setBoundary] = useState<"zero-flux" | "periodic">(source0?.boundary ?? "zero-flux");
   const [endTime, setEndTime] = useState("300"), [dt, setDt] = useState(""), [stationary, setStationary] = useState(false);
   const [seed, setSeed] = useState(""), [noise, setNoise] = useState(""), [snapshots, setSnapshots] = useState("9");
   const [lengthScale, setLengthScale] = useState(prefill.lengthScaleUm ?? ""), [timeScale, setTimeScale] = useState(prefill.timeScaleS ?? "");
@@ -44,6 +51,18 @@ export function RunForm({ labId, kinetics, prefill, limits }: { labId: string; k
   const dimensional = info?.units === "dimensional";
   const lengthUnit = dimensional ? "µm" : "model length";
   const timeUnit = dimensional ? "s" : "model time";
+
+  // A chosen initial field needs the earlier run's cells: take its grid (lengths stay editable).
+  const chooseStart = (next: string) => {
+    setStartFrom(next);
+    const r = earlierRuns.find((x) => x.id === next);
+    if (!r) return;
+    setDims(r.cells.length === 2 ? "2" : "1");
+    setCells(String(r.cells[0]));
+    setLx(String(r.lengthUm[0]));
+    if (r.lengthUm[1] !== undefined) setLy(String(r.lengthUm[1]));
+    setBoundary(r.boundary);
+  };
 
   const choose = (next: string) => {
     setId(next);
@@ -68,6 +87,7 @@ export function RunForm({ labId, kinetics, prefill, limits }: { labId: string; k
       seed: num(seed),
       noiseAmplitude: num(noise),
       snapshots: num(snapshots),
+      ...(startFrom ? { startFrom: { runId: startFrom } } : {}),
       ...(gradParam ? { gradient: { parameter: gradParam, profile: { kind: "linear", from: Number(gradFrom), to: Number(gradTo) } } } : {}),
       ...(!dimensional ? { lengthScaleUm: num(lengthScale), timeScaleS: num(timeScale) } : {}),
       ...(prefill.fit ? { fit: { fitId: prefill.fit.fitId, condition: prefill.fit.condition, model: prefill.fit.model } } : {}),
@@ -118,9 +138,17 @@ export function RunForm({ labId, kinetics, prefill, limits }: { labId: string; k
           </div>
         </Panel>
         <Panel title="Initial state and output">
-          <div className="grid grid-cols-2 gap-2">
+          <Label text="start from">
+            <select className={field} value={startFrom} onChange={(e) => chooseStart(e.target.value)} data-testid="run-start-from">
+              <option value="">the homogeneous steady state + seeded noise</option>
+              {earlierRuns.map((r) => <option key={r.id} value={r.id}>final pattern of “{r.name}” ({r.cells.join("×")}, {r.species.join(", ")})</option>)}
+            </select>
+          </Label>
+          {source && <p className="mt-1 text-xs text-ink-soft" data-testid="run-start-note">Starts from the final fields of “{source.name}” ({source.kineticsName}, t = {source.timeS}); the grid below is set to its {source.cells.join(" × ")} cells. Noise is added only if you give an amplitude.</p>}
+          {source && kinetics.find((k) => k.id === id)?.species.length !== source.species.length && <Notice tone="warning">This kinetics has a different number of species than that run.</Notice>}
+          <div className="mt-3 grid grid-cols-2 gap-2">
             <Label text="seed (blank: random, recorded)"><input className={field} value={seed} placeholder="random" onChange={(e) => setSeed(e.target.value)} data-testid="run-seed" /></Label>
-            <Label text="noise amplitude"><input className={field} value={noise} placeholder="1 % of c*" onChange={(e) => setNoise(e.target.value)} /></Label>
+            <Label text="noise amplitude"><input className={field} value={noise} placeholder={startFrom ? "0 (none)" : "1 % of c*"} onChange={(e) => setNoise(e.target.value)} data-testid="run-noise" /></Label>
             <Label text="snapshots (2 … 24)"><input className={field} value={snapshots} onChange={(e) => setSnapshots(e.target.value)} data-testid="run-snapshots" /></Label>
           </div>
           <div className="mt-3 grid grid-cols-3 gap-2 border-t border-rule pt-3">
