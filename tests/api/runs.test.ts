@@ -176,6 +176,34 @@ describe("a run started from a fit", () => {
   }, 60_000);
 });
 
+describe("cross-diffusion", () => {
+  async function labKinetics(name: string, diffusion: unknown) {
+    const m = await database();
+    const k = await m.LabKinetics.create({ labId: w.labId, name, description: null, latestVersion: 1, createdBy: w.people.modeller.userId });
+    await m.KineticsVersion.create({ kineticsId: k.id, labId: w.labId, version: 1, createdBy: w.people.modeller.userId, definition: { name, species: ["u", "v"], parameters: [{ name: "a", default: 0.1 }, { name: "b", default: 0.9 }, { name: "d", default: 20 }], reactions: ["a - u + u^2 * v", "b - u^2 * v"], diffusion } });
+    return k.id;
+  }
+  it("a lab kinetics with a full diffusion matrix runs, and the run records the matrix", async () => {
+    const id = await labKinetics("Schnakenberg with cross terms", [[1, 0.5], [-0.2, "d"]]);
+    const started = await api("POST", RUNS, { json: { kinetics: id, grid: { lengthUm: [60], cells: [64] }, endTimeS: 50, seed: 31, snapshots: 2 } });
+    expect(started.status).toBe(202);
+    expect(started.body.plan.diffusion).toEqual([[1, 0.5], [-0.2, 20]]);
+    const r = await finished(started.body.id);
+    expect(r.status).toBe("succeeded");
+    expect(r.stopReason).toBe("end-time");
+  }, 60_000);
+  it("a matrix with a negative eigenvalue is refused before any job exists", async () => {
+    const id = await labKinetics("Backward", [[1, 3], [3, 1]]);
+    const m = await database();
+    const before = await m.Job.count();
+    const res = await api("POST", RUNS, { json: { kinetics: id, grid: { lengthUm: [60], cells: [64] }, endTimeS: 5 } });
+    // The dispersion engine refuses it first (lib/stability/diffusion-check.ts), with the same reason the solver would give.
+    expect(res.status).toBe(400);
+    expect(res.body.error.message).toBe("The diffusion matrix must have eigenvalues with positive real part (smallest is -2.00000); otherwise short waves grow without bound.");
+    expect(await m.Job.count()).toBe(before);
+  });
+});
+
 describe("a chosen initial field: the final pattern of an earlier run", () => {
   const base = { kinetics: "schnakenberg", parameters: { a: 0.1, b: 0.9, d: 20 }, grid: { lengthUm: [60], cells: [64] }, scheme: "implicit-euler", dtS: 0.01, snapshots: 2 };
   it("20 then 10 time units from the stored fields give the fields of 30 in one go, to the bit; the initial fields are kept", async () => {
@@ -199,7 +227,9 @@ describe("a chosen initial field: the final pattern of an earlier run", () => {
     const first = await finished((await api("POST", RUNS, { json: { ...base, endTimeS: 5, seed: 22 } })).body.id);
     const res = await api("POST", RUNS, { json: { ...base, parameters: { a: 0.1, b: 0.9, d: 5 }, endTimeS: 1, startFrom: { runId: first.id } } });
     expect(res.status).toBe(202);
-    expect(res.body.plan.warnings).toContain("The homogeneous steady state is stable at these parameter values, so no new pattern would form from noise; the run shows whether the earlier pattern persists.");
+    expect(res.body.plan.warnings).toEqual(["The homogeneous steady state is stable at these parameter values, so no new pattern would form from noise; the run shows whether the earlier pattern persists."]);
+    expect(res.body.seed).toBe("none"); // no noise added: no random numbers drawn
+    expect(res.body.name).toBe(`Schnakenberg, 64, from “${first.name}”`);
     await finished(res.body.id);
   }, 60_000);
 

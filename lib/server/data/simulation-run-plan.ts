@@ -100,9 +100,9 @@ export async function planRun(ctx: LabContext, asked: SimulationRunRequest): Pro
   } else if (r.bands.length === 0) {
     throw unprocessable("parameters", `parameters: the homogeneous steady state is ${r.classification.label} at these parameter values — no mode grows, so the noise decays and there is no pattern to read. Choose parameters inside the Turing space (see the Turing-space map of this kinetics).`);
   }
-  if (!r.fastest && r.bands.length > 0) {
+  if (r.bands.length > 0 && !r.fastest) {
     warnings.push(`The steady state is ${r.classification.label} at these parameter values and no mode with k > 0 grows fastest, so there is no linear prediction 2π/k* to compare with; the run is started anyway.`);
-  } else if (!r.classification.classes.includes("turing")) {
+  } else if (r.bands.length > 0 && !r.classification.classes.includes("turing")) {
     warnings.push(`The steady state is ${r.classification.label}, not Turing-unstable, at these parameter values: the run is started, but 2π/k* of the fastest-growing mode is not a Turing prediction and the final pattern may oscillate or leave the steady state altogether.`);
   }
   const diffusion = solverError(() => readKineticsDiffusion(compiled, p));
@@ -179,5 +179,7 @@ export async function planRun(ctx: LabContext, asked: SimulationRunRequest): Pro
     startFrom: start?.plan ?? null,
     warnings,
   };
-  return { spec, plan, kineticsKind: info.kind, kineticsRef: info.id, kineticsVersion: info.version, kineticsName: info.name, seed: String(seed) };
+  // A run from given fields without added noise draws no random numbers: it has no seed to show.
+  const shownSeed = start && !req.noiseAmplitude ? "none" : String(seed);
+  return { spec, plan, kineticsKind: info.kind, kineticsRef: info.id, kineticsVersion: info.version, kineticsName: info.name, seed: shownSeed };
 }

@@ -88,7 +88,8 @@ export async function startRun(ctx: LabContext, req: SimulationRunRequest): Prom
   const m = await database();
   const id = randomUUID();
   const lf = planned.plan.lengthFactor ?? 1;
-  const name = req.name || `${planned.kineticsName}${planned.kineticsVersion ? ` v${planned.kineticsVersion}` : ""}, ${planned.spec.grid.cells.join("×")}, seed ${planned.seed}`;
+  const from = planned.plan.startFrom;
+  const name = req.name || `${planned.kineticsName}${planned.kineticsVersion ? ` v${planned.kineticsVersion}` : ""}, ${planned.spec.grid.cells.join("×")}, ${from ? `from “${from.name}”${planned.seed !== "none" ? ` + noise, seed ${planned.seed}` : ""}` : `seed ${planned.seed}`}`;
   await services().db.sequelize.transaction(async (transaction) => {
     const job = await enqueueJob({ labId: ctx.labId, kind: "simulation", payload: { runId: id, title: `the verification run “${name}”`, path: `/labs/${ctx.labId}/runs/${id}` }, requestedBy: ctx.actor.userId }, transaction);
     await m.SimulationRun.create(
