@@ -16,9 +16,10 @@ export interface SpectralBasis {
 
 /**
  * The zero-flux (Neumann) basis: cosine coefficients with k = mπ/L per axis (SCIENCE.md §2).
- * 2-D coefficient layout is transposed, index = kx·ny + ky: the column pass works on
- * contiguous rows after one transpose, and diffusion only multiplies pointwise, so the inverse
- * undoes the transpose and no second one is needed. One DCT plan per distinct axis size.
+ * 2-D coefficient layout is transposed, index = kx·ny + ky: the second pass of each direction
+ * reads two columns of the first pass's output at a time (no separate transpose), and
+ * diffusion only multiplies pointwise, so the inverse undoes the transposed layout. Axis sizes
+ * are even (powers of two ≥ 4), so columns always come in pairs. One DCT plan per axis size.
  */
 export function createCosineBasis(grid: Grid): SpectralBasis {
   const { nx, ny } = grid;
@@ -42,14 +43,14 @@ export function createCosineBasis(grid: Grid): SpectralBasis {
     grid,
     k2PerUm2: k2,
     forward(src, dst) {
-      px.forwardRows(src, scratch, ny); // along x, rows iy
-      transpose(scratch, dst, ny, nx); // → [kx][iy]
-      py.forwardRows(dst, dst, nx); // along y
+      px.forwardRows(src, scratch, ny); // along x: scratch[iy][kx]
+      // Along y, reading two columns of scratch at a time; writes dst[kx][ky] row by row.
+      for (let kx = 0; kx < nx; kx += 2) py.forwardColumnPair(scratch, nx, kx, dst, kx * ny, (kx + 1) * ny);
     },
     inverse(src, dst) {
-      py.inverseRows(src, scratch, nx); // [kx][iy]
-      transpose(scratch, dst, nx, ny); // → [iy][kx]
-      px.inverseRows(dst, dst, ny);
+      py.inverseRows(src, scratch, nx); // along y: scratch[kx][iy]
+      // Along x, reading two columns of scratch at a time; writes dst[iy][ix] row by row.
+      for (let iy = 0; iy < ny; iy += 2) px.inverseColumnPair(scratch, ny, iy, dst, iy * nx, (iy + 1) * nx);
     },
   };
 }

@@ -9,12 +9,21 @@ import FFT from "fft.js";
  *
  * Convention: X_k = Σ_n x_n cos(πk(2n+1)/(2N)) (unnormalised); the inverse returns
  * x_n = (1/N)[X_0 + 2 Σ_{k≥1} X_k cos(πk(2n+1)/(2N))], so inverse(forward(x)) = x.
+ *
+ * Besides rows (contiguous), a pair of adjacent columns of a row-major block can be read
+ * directly ({@link forwardColumnPair}, {@link inverseColumnPair}), so a 2-D transform needs no
+ * transpose: the gather touches each cache line of the block for four column pairs in a row,
+ * which stay in L1.
  */
 export class DctPlan {
   readonly size: number;
   private readonly fft: FFT;
-  private readonly cosTw: Float64Array;
-  private readonly sinTw: Float64Array;
+  /** ½cos(πk/2N), ½sin(πk/2N): the forward post-twiddle with the ½ of the spectrum split. */
+  private readonly cosHalf: Float64Array;
+  private readonly sinHalf: Float64Array;
+  /** cos(πk/2N)/N, sin(πk/2N)/N: the inverse pre-twiddle with the 1/N of the inverse FFT. */
+  private readonly cosInv: Float64Array;
+  private readonly sinInv: Float64Array;
   // Float64Array scratch: fft.js accepts any indexable; its own createComplexArray gives holey
   // JS arrays, which measured slower in the pair loops.
   private readonly z: Float64Array;
@@ -23,11 +32,17 @@ export class DctPlan {
   constructor(size: number) {
     this.size = size;
     this.fft = new FFT(size);
-    this.cosTw = new Float64Array(size);
-    this.sinTw = new Float64Array(size);
+    this.cosHalf = new Float64Array(size);
+    this.sinHalf = new Float64Array(size);
+    this.cosInv = new Float64Array(size);
+    this.sinInv = new Float64Array(size);
+    // ½ and 1/N are powers of two, so folding them into the twiddles changes no rounding.
     for (let k = 0; k < size; k++) {
-      this.cosTw[k] = Math.cos((Math.PI * k) / (2 * size));
-      this.sinTw[k] = Math.sin((Math.PI * k) / (2 * size));
+      const c = Math.cos((Math.PI * k) / (2 * size)), s = Math.sin((Math.PI * k) / (2 * size));
+      this.cosHalf[k] = 0.5 * c;
+      this.sinHalf[k] = 0.5 * s;
+      this.cosInv[k] = c / size;
+      this.sinInv[k] = s / size;
     }
     this.z = new Float64Array(2 * size);
     this.zOut = new Float64Array(2 * size);
@@ -38,9 +53,8 @@ export class DctPlan {
    * same offsets. `src` may equal `dst`. Pass b = −1 for a single row.
    */
   forwardPair(src: Float64Array, dst: Float64Array, a: number, b: number): void {
-    const N = this.size, z = this.z, Z = this.zOut, cw = this.cosTw, sw = this.sinTw;
-    const half = N >> 1, two = b >= 0;
-    if (two) {
+    const N = this.size, z = this.z, half = N >> 1;
+    if (b >= 0) {
       for (let n = 0; n < half; n++) {
         const j = 2 * (N - 1 - n);
         z[2 * n] = src[a + 2 * n];
@@ -48,60 +62,126 @@ export class DctPlan {
         z[2 * n + 1] = src[b + 2 * n];
         z[j + 1] = src[b + 2 * n + 1];
       }
-    } else {
-      for (let n = 0; n < half; n++) {
-        const j = 2 * (N - 1 - n);
-        z[2 * n] = src[a + 2 * n];
-        z[j] = src[a + 2 * n + 1];
-        z[2 * n + 1] = 0;
-        z[j + 1] = 0;
-      }
+      this.fft.transform(this.zOut, z);
+      this.splitForward(dst, a, b);
+      return;
     }
-    this.fft.transform(Z, z);
+    for (let n = 0; n < half; n++) {
+      const j = 2 * (N - 1 - n);
+      z[2 * n] = src[a + 2 * n];
+      z[j] = src[a + 2 * n + 1];
+      z[2 * n + 1] = 0;
+      z[j + 1] = 0;
+    }
+    this.fft.transform(this.zOut, z);
+    const Z = this.zOut, cw = this.cosHalf, sw = this.sinHalf;
+    dst[a] = Z[0];
+    for (let k = 1; k < N; k++) {
+      const m = N - k;
+      dst[a + k] = cw[k] * (Z[2 * k] + Z[2 * m]) + sw[k] * (Z[2 * k + 1] - Z[2 * m + 1]);
+    }
+  }
+
+  /**
+   * Forward DCT-II along columns `col` and `col + 1` of a row-major block whose rows are
+   * `stride` apart (`size` rows), into the rows at offsets a and b of `dst` (dst ≠ src).
+   */
+  forwardColumnPair(src: Float64Array, stride: number, col: number, dst: Float64Array, a: number, b: number): void {
+    const N = this.size, z = this.z, half = N >> 1;
+    let p = col;
+    for (let n = 0; n < half; n++) {
+      const j = 2 * (N - 1 - n);
+      z[2 * n] = src[p];
+      z[2 * n + 1] = src[p + 1];
+      p += stride;
+      z[j] = src[p];
+      z[j + 1] = src[p + 1];
+      p += stride;
+    }
+    this.fft.transform(this.zOut, z);
+    this.splitForward(dst, a, b);
+  }
+
+  /** Post-twiddle of a packed pair: V^a = (Z_k + conj Z_{N−k})/2, V^b = (Z_k − conj Z_{N−k})/(2i). */
+  private splitForward(dst: Float64Array, a: number, b: number): void {
+    const N = this.size, Z = this.zOut, cw = this.cosHalf, sw = this.sinHalf;
     // k = 0: V^a_0 = Re Z_0, V^b_0 = Im Z_0, twiddle 1.
     dst[a] = Z[0];
-    if (two) dst[b] = Z[1];
+    dst[b] = Z[1];
     for (let k = 1; k < N; k++) {
       const m = N - k;
       const zr = Z[2 * k], zi = Z[2 * k + 1], mr = Z[2 * m], mi = Z[2 * m + 1];
       const c = cw[k], s = sw[k];
-      // Split the packed spectrum: V^a = (Z_k + conj Z_{N−k})/2, V^b = (Z_k − conj Z_{N−k})/(2i).
-      dst[a + k] = 0.5 * (c * (zr + mr) + s * (zi - mi));
-      if (two) dst[b + k] = 0.5 * (c * (zi + mi) + s * (mr - zr));
+      dst[a + k] = c * (zr + mr) + s * (zi - mi);
+      dst[b + k] = c * (zi + mi) + s * (mr - zr);
     }
   }
 
   /** Inverse (DCT-III, scaled so it undoes {@link forwardPair}) of rows a and b; b = −1 for one row. */
   inversePair(src: Float64Array, dst: Float64Array, a: number, b: number): void {
-    const N = this.size, z = this.z, Z = this.zOut, cw = this.cosTw, sw = this.sinTw;
-    const two = b >= 0;
+    const N = this.size, z = this.z, cw = this.cosInv, sw = this.sinInv;
     // V_k = e^{iπk/2N} (X_k − i X_{N−k}), X_N = 0; Z = V^a + i V^b. The inverse FFT is taken as
     // conj(FFT(conj Z))/N so the 1/N and the conjugations fold into these two loops.
-    z[0] = src[a];
-    z[1] = two ? -src[b] : 0;
+    const inv = 1 / N;
+    if (b >= 0) {
+      z[0] = src[a] * inv;
+      z[1] = -src[b] * inv;
+      for (let k = 1; k < N; k++) {
+        const c = cw[k], s = sw[k];
+        const xa = src[a + k], ya = src[a + N - k], xb = src[b + k], yb = src[b + N - k];
+        z[2 * k] = c * xa + s * ya - (s * xb - c * yb);
+        z[2 * k + 1] = -(s * xa - c * ya + (c * xb + s * yb));
+      }
+      this.fft.transform(this.zOut, z);
+      this.scatterInverse(dst, a, b);
+      return;
+    }
+    z[0] = src[a] * inv;
+    z[1] = 0;
     for (let k = 1; k < N; k++) {
       const c = cw[k], s = sw[k];
       const xa = src[a + k], ya = src[a + N - k];
-      let re = c * xa + s * ya;
-      let im = s * xa - c * ya;
-      if (two) {
-        const xb = src[b + k], yb = src[b + N - k];
-        re -= s * xb - c * yb;
-        im += c * xb + s * yb;
-      }
-      z[2 * k] = re;
-      z[2 * k + 1] = -im;
+      z[2 * k] = c * xa + s * ya;
+      z[2 * k + 1] = -(s * xa - c * ya);
     }
-    this.fft.transform(Z, z);
-    const half = N >> 1, inv = 1 / N;
+    this.fft.transform(this.zOut, z);
+    const Z = this.zOut, half = N >> 1;
+    for (let n = 0; n < half; n++) {
+      dst[a + 2 * n] = Z[2 * n];
+      dst[a + 2 * n + 1] = Z[2 * (N - 1 - n)];
+    }
+  }
+
+  /**
+   * Inverse along columns `col` and `col + 1` of a row-major block of coefficients whose rows
+   * are `stride` apart (`size` rows), into the rows at offsets a and b of `dst` (dst ≠ src).
+   */
+  inverseColumnPair(src: Float64Array, stride: number, col: number, dst: Float64Array, a: number, b: number): void {
+    const N = this.size, z = this.z, cw = this.cosInv, sw = this.sinInv, inv = 1 / N;
+    z[0] = src[col] * inv;
+    z[1] = -src[col + 1] * inv;
+    let p = col + stride, q = col + (N - 1) * stride;
+    for (let k = 1; k < N; k++) {
+      const c = cw[k], s = sw[k];
+      const xa = src[p], xb = src[p + 1], ya = src[q], yb = src[q + 1];
+      z[2 * k] = c * xa + s * ya - (s * xb - c * yb);
+      z[2 * k + 1] = -(s * xa - c * ya + (c * xb + s * yb));
+      p += stride;
+      q -= stride;
+    }
+    this.fft.transform(this.zOut, z);
+    this.scatterInverse(dst, a, b);
+  }
+
+  /** Undoes Makhoul's reordering for a packed pair (the conjugation gives row b's sign). */
+  private scatterInverse(dst: Float64Array, a: number, b: number): void {
+    const N = this.size, Z = this.zOut, half = N >> 1;
     for (let n = 0; n < half; n++) {
       const j = 2 * (N - 1 - n);
-      dst[a + 2 * n] = Z[2 * n] * inv;
-      dst[a + 2 * n + 1] = Z[j] * inv;
-      if (two) {
-        dst[b + 2 * n] = -Z[2 * n + 1] * inv;
-        dst[b + 2 * n + 1] = -Z[j + 1] * inv;
-      }
+      dst[a + 2 * n] = Z[2 * n];
+      dst[a + 2 * n + 1] = Z[j];
+      dst[b + 2 * n] = -Z[2 * n + 1];
+      dst[b + 2 * n + 1] = -Z[j + 1];
     }
   }
 
