@@ -140,7 +140,7 @@ export function RunForm({ labId, kinetics, prefill, limits, earlierRuns }: { lab
         <Panel title="Initial state and output">
           <Label text="start from">
             <select className={field} value={startFrom} onChange={(e) => chooseStart(e.target.value)} data-testid="run-start-from">
-              <option value="">the homogeneous steady state + seeded noise</option>
+              <option value="">steady state c* + seeded noise</option>
               {earlierRuns.map((r) => <option key={r.id} value={r.id}>final pattern of “{r.name}” ({r.cells.join("×")}, {r.species.join(", ")})</option>)}
             </select>
           </Label>
