@@ -24,10 +24,12 @@ export class DctPlan {
   /** cos(πk/2N)/N, sin(πk/2N)/N: the inverse pre-twiddle with the 1/N of the inverse FFT. */
   private readonly cosInv: Float64Array;
   private readonly sinInv: Float64Array;
-  // Float64Array scratch: fft.js accepts any indexable; its own createComplexArray gives holey
-  // JS arrays, which measured slower in the pair loops.
-  private readonly z: Float64Array;
-  private readonly zOut: Float64Array;
+  // fft.js's own complex arrays (JS arrays of doubles): fft.js's transform measured ≈ 30 %
+  // faster on them than on Float64Array (tests/bench/simulation.bench.ts). fft.js's code is
+  // shared by every caller in a process, so a process that also passes Float64Array to
+  // fft.js's transform (lib/fft) makes its element accesses polymorphic, slower for both.
+  private readonly z: number[];
+  private readonly zOut: number[];
 
   constructor(size: number) {
     this.size = size;
@@ -44,8 +46,8 @@ export class DctPlan {
       this.cosInv[k] = c / size;
       this.sinInv[k] = s / size;
     }
-    this.z = new Float64Array(2 * size);
-    this.zOut = new Float64Array(2 * size);
+    this.z = this.fft.createComplexArray() as number[];
+    this.zOut = this.fft.createComplexArray() as number[];
   }
 
   /**
