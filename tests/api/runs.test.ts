@@ -177,7 +177,7 @@ describe("a run started from a fit", () => {
 });
 
 describe("cross-diffusion", () => {
-  async function labKinetics(name: string, diffusion: unknown) {
+  async function labKinetics(name: string, diffusion: (string | number)[][]) {
     const m = await database();
     const k = await m.LabKinetics.create({ labId: w.labId, name, description: null, latestVersion: 1, createdBy: w.people.modeller.userId });
     await m.KineticsVersion.create({ kineticsId: k.id, labId: w.labId, version: 1, createdBy: w.people.modeller.userId, definition: { name, species: ["u", "v"], parameters: [{ name: "a", default: 0.1 }, { name: "b", default: 0.9 }, { name: "d", default: 20 }], reactions: ["a - u + u^2 * v", "b - u^2 * v"], diffusion } });

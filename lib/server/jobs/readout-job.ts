@@ -1,9 +1,8 @@
 /**
  * Job kind "readout": reads one upload with the settings stored on its readout row.
  *
- * Runs in-process: the FFT work is synchronous, so a large image (4096² and up) holds the event
- * loop for ~2–3 s between progress steps. Acceptable on one machine for now; the job interface
- * lets it move to worker threads or a queue without touching callers.
+ * Images are read in a child process (data/readout-process.ts), so a large image never holds the
+ * server's event loop; tables (papaparse and a k-d tree, fast) are read in-process.
  *
  * Nothing half-written: derived objects are put first, then the row becomes "succeeded" with its
  * result in one conditional update; if that update finds no running row (the upload was deleted
@@ -17,7 +16,7 @@ import { DERIVED_PRODUCTS, type DerivedProduct } from "@/lib/contracts/readout";
 import { AppError } from "../errors";
 import { database, services } from "../services";
 import { toReadoutAppError } from "../data/readout-errors";
-import { runImageReadout } from "../data/readout-image";
+import { readImage } from "../data/readout-process";
 import { headlineOf, type ReadoutResult } from "../data/readout-result";
 import type { StoredImageSettings, StoredReadoutSettings, StoredTableSettings } from "../data/readout-settings";
 import { runTableReadout } from "../data/readout-table";
@@ -51,7 +50,7 @@ export const runReadoutJob: JobHandler = async (job, ctx) => {
     let result: ReadoutResult;
     const derivedKeys: Record<string, string> = {};
     if (settings.kind === "image") {
-      const out = await runImageReadout(bytes, settings as StoredImageSettings, async (f, note) => {
+      const out = await readImage(bytes, settings as StoredImageSettings, ctx.signal, async (f, note) => {
         check();
         await ctx.progress(f, note);
       });

@@ -17,7 +17,7 @@ import { imageReadoutSettingsSchema } from "@/lib/contracts/readout";
 import { simulationRunKey } from "@/storage/keys";
 import { AppError } from "../errors";
 import { database, services } from "../services";
-import { runImageReadout } from "../data/readout-image";
+import { readImage } from "../data/readout-process";
 import { compareWithPrediction } from "../data/simulation-run-compare";
 import { fieldRange, fieldToGrey, renderFieldPng } from "../data/simulation-run-images";
 import { initialFieldFile, loadRunStartFields } from "../data/simulation-run-start";
@@ -158,11 +158,12 @@ export const runSimulationJob: JobHandler = async (job, ctx) => {
       try {
         const png = await encodePng(fieldToGrey(finals[0], nx, ny), { bitDepth: 16 });
         const settings = { ...imageReadoutSettingsSchema.parse({}), pixelSizeUm: cellX, pixelSizeSource: "simulation cell size" };
-        const r = await runImageReadout(png, settings, async () => undefined);
+        const r = await readImage(png, { ...settings, kind: "image" }, ctx.signal, async () => undefined);
         readout = r.result;
         for (const [name, body] of Object.entries(r.derived)) fileKeys[name] = await put(name, body, name.endsWith(".json") ? "application/json" : "image/png");
       } catch (err) {
-        if (!(err instanceof ReadoutError)) throw err;
+        // A pattern the readout cannot read (ReadoutError in-process, its AppError from the child process) is said, not fatal.
+        if (!(err instanceof ReadoutError) && !(err instanceof AppError && err.code !== "unavailable")) throw err;
         readoutSkipped = err.message;
       }
     }

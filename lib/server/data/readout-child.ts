@@ -1,0 +1,40 @@
+/**
+ * Child-process entry of an image readout, so decoding and FFTs of a large image never hold the
+ * server's event loop: `node --import tsx lib/server/data/readout-child.ts --input FILE
+ * --settings FILE --out DIR` runs {@link runImageReadout}, writes the derived products into DIR,
+ * prints the result as one JSON object on stdout and reports progress on stderr as lines
+ * `progress {"fraction", "note"}`. A readout error is printed as `error {"code", "message", "details"}`
+ * (exit code 2) so the parent can rebuild the same AppError; anything else exits 1 with its stack.
+ */
+import { readFileSync, writeFileSync } from "node:fs";
+import path from "node:path";
+import { toReadoutAppError } from "./readout-errors";
+import { runImageReadout } from "./readout-image";
+import type { StoredImageSettings } from "./readout-settings";
+
+function arg(name: string): string {
+  const i = process.argv.indexOf(name);
+  if (i < 0 || !process.argv[i + 1]) throw new Error(`${name} is required.`);
+  return process.argv[i + 1];
+}
+
+async function main() {
+  const bytes = readFileSync(arg("--input"));
+  const settings = JSON.parse(readFileSync(arg("--settings"), "utf8")) as StoredImageSettings;
+  const out = arg("--out");
+  const r = await runImageReadout(bytes, settings, async (fraction, note) => {
+    process.stderr.write(`progress ${JSON.stringify({ fraction, note })}\n`);
+  });
+  for (const [name, body] of Object.entries(r.derived)) writeFileSync(path.join(out, name), body);
+  process.stdout.write(JSON.stringify(r.result) + "\n");
+}
+
+main().catch((err: unknown) => {
+  const app = toReadoutAppError(err);
+  if (app) {
+    process.stderr.write(`error ${JSON.stringify({ code: app.code, message: app.message, details: app.details ?? null })}\n`);
+    process.exit(2);
+  }
+  console.error(err);
+  process.exit(1);
+});
