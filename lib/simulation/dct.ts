@@ -78,10 +78,14 @@ export class DctPlan {
     this.fft.transform(this.zOut, z);
     const Z = this.zOut, cw = this.cosHalf, sw = this.sinHalf;
     dst[a] = Z[0];
-    for (let k = 1; k < N; k++) {
+    const h = N >> 1;
+    for (let k = 1; k < h; k++) {
       const m = N - k;
-      dst[a + k] = cw[k] * (Z[2 * k] + Z[2 * m]) + sw[k] * (Z[2 * k + 1] - Z[2 * m + 1]);
+      const zr = Z[2 * k], zi = Z[2 * k + 1], mr = Z[2 * m], mi = Z[2 * m + 1];
+      dst[a + k] = cw[k] * (zr + mr) + sw[k] * (zi - mi);
+      dst[a + m] = cw[m] * (mr + zr) + sw[m] * (mi - zi);
     }
+    dst[a + h] = cw[h] * (Z[2 * h] + Z[2 * h]) + sw[h] * (Z[2 * h + 1] - Z[2 * h + 1]);
   }
 
   /**
@@ -107,16 +111,23 @@ export class DctPlan {
   /** Post-twiddle of a packed pair: V^a = (Z_k + conj Z_{N−k})/2, V^b = (Z_k − conj Z_{N−k})/(2i). */
   private splitForward(dst: Float64Array, a: number, b: number): void {
     const N = this.size, Z = this.zOut, cw = this.cosHalf, sw = this.sinHalf;
-    // k = 0: V^a_0 = Re Z_0, V^b_0 = Im Z_0, twiddle 1.
+    // k = 0: V^a_0 = Re Z_0, V^b_0 = Im Z_0, twiddle 1. Modes k and N − k read the same four
+    // numbers, so one iteration writes both (k = N/2 is its own partner).
     dst[a] = Z[0];
     dst[b] = Z[1];
-    for (let k = 1; k < N; k++) {
+    const h = N >> 1;
+    for (let k = 1; k < h; k++) {
       const m = N - k;
       const zr = Z[2 * k], zi = Z[2 * k + 1], mr = Z[2 * m], mi = Z[2 * m + 1];
-      const c = cw[k], s = sw[k];
-      dst[a + k] = c * (zr + mr) + s * (zi - mi);
-      dst[b + k] = c * (zi + mi) + s * (mr - zr);
+      const ck = cw[k], sk = sw[k], cm = cw[m], sm = sw[m];
+      dst[a + k] = ck * (zr + mr) + sk * (zi - mi);
+      dst[b + k] = ck * (zi + mi) + sk * (mr - zr);
+      dst[a + m] = cm * (mr + zr) + sm * (mi - zi);
+      dst[b + m] = cm * (mi + zi) + sm * (zr - mr);
     }
+    const hr = Z[2 * h], hi = Z[2 * h + 1], ch = cw[h], sh = sw[h];
+    dst[a + h] = ch * (hr + hr) + sh * (hi - hi);
+    dst[b + h] = ch * (hi + hi) + sh * (hr - hr);
   }
 
   /** Inverse (DCT-III, scaled so it undoes {@link forwardPair}) of rows a and b; b = −1 for one row. */
@@ -128,12 +139,20 @@ export class DctPlan {
     if (b >= 0) {
       z[0] = src[a] * inv;
       z[1] = -src[b] * inv;
-      for (let k = 1; k < N; k++) {
-        const c = cw[k], s = sw[k];
-        const xa = src[a + k], ya = src[a + N - k], xb = src[b + k], yb = src[b + N - k];
-        z[2 * k] = c * xa + s * ya - (s * xb - c * yb);
-        z[2 * k + 1] = -(s * xa - c * ya + (c * xb + s * yb));
+      const h = N >> 1;
+      // Modes k and N − k read the same four numbers, so one iteration writes both.
+      for (let k = 1; k < h; k++) {
+        const m = N - k;
+        const xa = src[a + k], ya = src[a + m], xb = src[b + k], yb = src[b + m];
+        const ck = cw[k], sk = sw[k], cm = cw[m], sm = sw[m];
+        z[2 * k] = ck * xa + sk * ya - (sk * xb - ck * yb);
+        z[2 * k + 1] = -(sk * xa - ck * ya + (ck * xb + sk * yb));
+        z[2 * m] = cm * ya + sm * xa - (sm * yb - cm * xb);
+        z[2 * m + 1] = -(sm * ya - cm * xa + (cm * yb + sm * xb));
       }
+      const xa = src[a + h], xb = src[b + h], ch = cw[h], sh = sw[h];
+      z[2 * h] = ch * xa + sh * xa - (sh * xb - ch * xb);
+      z[2 * h + 1] = -(sh * xa - ch * xa + (ch * xb + sh * xb));
       this.fft.transform(this.zOut, z);
       this.scatterInverse(dst, a, b);
       return;
@@ -162,15 +181,23 @@ export class DctPlan {
     const N = this.size, z = this.z, cw = this.cosInv, sw = this.sinInv, inv = 1 / N;
     z[0] = src[col] * inv;
     z[1] = -src[col + 1] * inv;
+    const h = N >> 1;
     let p = col + stride, q = col + (N - 1) * stride;
-    for (let k = 1; k < N; k++) {
-      const c = cw[k], s = sw[k];
+    // As in inversePair: modes k and N − k in one iteration.
+    for (let k = 1; k < h; k++) {
+      const m = N - k;
       const xa = src[p], xb = src[p + 1], ya = src[q], yb = src[q + 1];
-      z[2 * k] = c * xa + s * ya - (s * xb - c * yb);
-      z[2 * k + 1] = -(s * xa - c * ya + (c * xb + s * yb));
+      const ck = cw[k], sk = sw[k], cm = cw[m], sm = sw[m];
+      z[2 * k] = ck * xa + sk * ya - (sk * xb - ck * yb);
+      z[2 * k + 1] = -(sk * xa - ck * ya + (ck * xb + sk * yb));
+      z[2 * m] = cm * ya + sm * xa - (sm * yb - cm * xb);
+      z[2 * m + 1] = -(sm * ya - cm * xa + (cm * yb + sm * xb));
       p += stride;
       q -= stride;
     }
+    const xa = src[p], xb = src[p + 1], ch = cw[h], sh = sw[h];
+    z[2 * h] = ch * xa + sh * xa - (sh * xb - ch * xb);
+    z[2 * h + 1] = -(sh * xa - ch * xa + (ch * xb + sh * xb));
     this.fft.transform(this.zOut, z);
     this.scatterInverse(dst, a, b);
   }
