@@ -123,6 +123,22 @@ describe("invitations", () => {
     const token = /\/invite\/(\S+)/.exec(mail.messages[0].text)![1];
     expect((await accept(token)).status).toBe(200);
   });
+
+  it("a lab's development mailbox shows its invitees' mail and not another lab's", async () => {
+    const ours = `ours${Date.now()}@lab.test`, theirs = `theirs${Date.now()}@lab.test`;
+    const invite = (labId: string, token: string, email: string) => call(R("POST /api/v1/labs/[labId]/invitations"), "POST", "/api/v1/labs/[labId]/invitations", { token, params: { labId }, json: { email, role: "collaborator" } });
+    expect((await invite(w.labId, w.people.manager.token, ours)).status).toBe(201);
+    expect((await invite(w.otherLabId, w.outsider.token, theirs)).status).toBe(201);
+    const box = async (labId: string, token: string) => {
+      const res = await call(R("GET /api/v1/labs/[labId]/mailbox"), "GET", "/api/v1/labs/[labId]/mailbox", { token, params: { labId } });
+      return ((await res.json()) as { items: { to: string[] }[] }).items.flatMap((x) => x.to);
+    };
+    const mine = await box(w.labId, w.people.manager.token), other = await box(w.otherLabId, w.outsider.token);
+    expect(mine).toContain(ours);
+    expect(mine).not.toContain(theirs);
+    expect(other).toContain(theirs);
+    expect(other).not.toContain(ours);
+  });
 });
 
 describe("members", () => {

@@ -24,18 +24,18 @@ function linkify(text: string) {
 
 export default async function MailboxPage({ params }: { params: Promise<{ labId: string }> }) {
   const { labId } = await params;
-  await pageLab(labId, "mailbox.read");
+  const ctx = await pageLab(labId, "mailbox.read");
   if (!mailboxEnabled()) notFound();
   let messages: MailDto[] = [];
   let problem: string | null = null;
   try {
-    messages = await listMail();
+    messages = await listMail(ctx);
   } catch (err) {
     problem = err instanceof AppError ? err.message : "the mailbox could not be read";
   }
   return (
     <>
-      <PageHeader title="Mailbox" subtitle="Development only: every message the local fake mail server received, newest first, so sign-in links and invitations work on a laptop." />
+      <PageHeader title="Mailbox" subtitle="Development only: the messages the local fake mail server received for this lab's members and invitees, newest first, so sign-in links and invitations work on a laptop." />
       {problem && <Notice tone="error">{problem}</Notice>}
       {!problem && messages.length === 0 && <EmptyState title="No mail yet.">Invite someone or ask for a sign-in link; the message appears here.</EmptyState>}
       <ul className="space-y-3" data-testid="mailbox">
