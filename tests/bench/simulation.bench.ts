@@ -11,11 +11,16 @@ import type { BenchRow } from "./run";
 
 const N = 256;
 
+/** Mean time of `reps` calls in ms, the best of 5 rounds after one warm-up round (the machine is shared, so the best round is the least disturbed). */
 function timeMs(fn: () => void, reps: number): number {
-  for (let i = 0; i < Math.max(3, reps / 10); i++) fn();
-  const t = performance.now();
   for (let i = 0; i < reps; i++) fn();
-  return (performance.now() - t) / reps;
+  let best = Infinity;
+  for (let round = 0; round < 5; round++) {
+    const t = performance.now();
+    for (let i = 0; i < reps; i++) fn();
+    best = Math.min(best, (performance.now() - t) / reps);
+  }
+  return best;
 }
 
 function dctVariants(): BenchRow[] {
@@ -47,9 +52,18 @@ function dctVariants(): BenchRow[] {
     }
   };
   const pair = () => plan.forwardRows(data, out, rows);
+  const inversePair = () => plan.inverseRows(out, data, rows);
+  // The bare complex FFT of a row pair, on fft.js's own arrays as DctPlan uses them.
+  const za = f.createComplexArray(), Za = f.createComplexArray();
+  for (let i = 0; i < za.length; i++) za[i] = Math.sin(i * 0.37);
+  const bare = () => {
+    for (let r = 0; r < rows; r += 2) f.transform(Za, za);
+  };
   const per = (ms: number) => (ms * 1000) / rows;
   return [
+    { name: "fft.js complex transform 256 (one row pair), per row", value: per(timeMs(bare, 200)), unit: "µs/row" },
     { name: "DCT-II 256: Makhoul, 2 rows per complex FFT (used)", value: per(timeMs(pair, 200)), unit: "µs/row" },
+    { name: "DCT-III 256 (inverse of the above, used)", value: per(timeMs(inversePair, 200)), unit: "µs/row" },
     { name: "DCT-II 256: Makhoul, fft.js realTransform per row", value: per(timeMs(makhoulReal, 200)), unit: "µs/row" },
     { name: "DCT-II 256: 2N even extension, realTransform(512)", value: per(timeMs(extension, 200)), unit: "µs/row" },
   ];
