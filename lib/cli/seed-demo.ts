@@ -21,6 +21,9 @@ import { waitForJob } from "@/lib/server/jobs/runner";
 import { hashPassword } from "@/lib/server/passwords";
 import { database } from "@/lib/server/services";
 import { recordAudit } from "@/lib/server/data/audit";
+import { createThread } from "@/lib/server/data/discussions";
+import { startFit } from "@/lib/server/data/fits";
+import { startRun } from "@/lib/server/data/simulation-runs";
 
 export const DEMO_PASSWORD = "morphokin-demo";
 export const DEMO_LAB = "Bracken Hill Patterning Lab";
@@ -44,6 +47,8 @@ export async function seedDemo(): Promise<boolean> {
   }
   const manager: LabContext = { actor: { userId: users[0].id, email: users[0].email, name: users[0].name, via: "session" }, labId: lab.id, labName: lab.name, role: "manager" };
   const scientist: LabContext = { actor: { userId: users[1].id, email: users[1].email, name: users[1].name, via: "session" }, labId: lab.id, labName: lab.name, role: "scientist" };
+  const modeller: LabContext = { actor: { userId: users[2].id, email: users[2].email, name: users[2].name, via: "session" }, labId: lab.id, labName: lab.name, role: "modeller" };
+  const collaborator: LabContext = { actor: { userId: users[3].id, email: users[3].email, name: users[3].name, via: "session" }, labId: lab.id, labName: lab.name, role: "collaborator" };
   await recordAudit(m, { labId: lab.id, actor: manager.actor, action: "lab.created", targetType: "lab", targetId: lab.id, summary: `Demo data: ${manager.actor.email} created the lab “${lab.name}” with four members` });
 
   const tmp = mkdtempSync(path.join(tmpdir(), "morphokin-seed-"));
@@ -109,6 +114,21 @@ export async function seedDemo(): Promise<boolean> {
     // The demo images are small (≤ 640×480), so their readouts take well under a second each;
     // wait here so callers that close the database right after seeding find them finished.
     for (const r of readouts) await waitForJob(r.jobId!, 120_000);
+
+    // The modeller's side of the path: Schnakenberg fitted to the placode readouts with γ free per
+    // condition (the spread between replicate specimens counted), then a verification run from the
+    // fit for the control condition (64² cells, ≈ 10 s), and a collaborator's question on the fit.
+    const placodeReadouts = readouts.slice(0, 4);
+    const fit = await startFit(modeller, {
+      name: "Placode spacing: Schnakenberg, γ per condition",
+      data: placodeReadouts.map((r) => ({ readoutId: r.id })),
+      uncertainty: "with-specimen-spread",
+      models: [{ kinetics: "schnakenberg", lengthScaleUm: 40, parameters: { gamma: { mode: "per-condition", start: 100, lower: 10, upper: 1000, log: true }, d: { mode: "fixed", value: 20 } } }],
+    });
+    await waitForJob(fit.jobId!, 120_000);
+    const run = await startRun(modeller, { name: "Control placodes, from the fit", kinetics: "schnakenberg", grid: { lengthUm: [8, 8], cells: [64, 64] }, endTimeS: 8, seed: 5, fit: { fitId: fit.id, condition: "control" } });
+    await waitForJob(run.jobId!, 300_000);
+    await createThread(collaborator, { targetType: "fit", targetId: fit.id, body: "Does the inhibitor only change γ here? It would help to see a fit with d free per condition as well, before we read the 5 µM result as a change in reaction rate." });
   } finally {
     rmSync(tmp, { recursive: true, force: true });
   }

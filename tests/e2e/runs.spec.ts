@@ -61,7 +61,7 @@ test("modeller: Simulate with these parameters → progress → snapshot scrubbe
   await page.screenshot({ path: "test-results/run-continued.png", fullPage: true });
 
   await page.goto(`/labs/${labId}/runs`);
-  await expect(page.getByTestId("runs-table")).toContainText("Schnakenberg");
+  await expect(page.getByTestId("runs-table")).toContainText("Schnakenberg, 64×64, seed 7");
   await page.screenshot({ path: "test-results/runs-list.png", fullPage: true });
 });
 
