@@ -36,6 +36,8 @@ export function readConfig() {
     /** Largest upload accepted, bytes. */
     maxUploadBytes: num("MAX_UPLOAD_BYTES", 200 * 1024 * 1024),
     invitationDays: num("INVITATION_DAYS", 7),
+    /** Threads of one verification run: 2 = the main thread and a worker (species side by side), 1 = serial. */
+    simulationThreads: (num("SIMULATION_THREADS", 2) === 1 ? 1 : 2) as 1 | 2,
   };
 }
 

@@ -15,6 +15,7 @@ import { computeDispersion, computeGradientDispersion, type DomainSpec } from "@
 import { DEFAULT_RUN_SNAPSHOTS, type SimulationRunRequest } from "@/lib/contracts/simulation-run";
 import type { LabContext } from "../access";
 import { AppError } from "../errors";
+import { services } from "../services";
 import { resolveAnalysisKinetics } from "./kinetics-analyses";
 import { getLabKineticsVersion } from "./kinetics";
 import { withKineticsErrors } from "./kinetics-engine";
@@ -26,14 +27,17 @@ import type { RunPlan, RunSpec } from "./simulation-run-types";
 /** Stiffness safety factor of the step rule h ≤ c/ρ (the solver's default, which the CLI uses). */
 const STIFFNESS_SAFETY = 0.1;
 /**
- * Most cell-species-steps of one run: 256² cells × 2 species × 20 000 steps. At the measured
- * 1.55·10⁷ cell-species-steps per second (lib/simulation/README.md: 84.6 s for 256², 2 species,
- * 10 000 steps) that is about 3 min of CPU — a design choice so one run cannot hold the job queue
- * for long.
+ * Measured solver speed in cell-species-steps per second by thread count: 256², 2 species, ETD2,
+ * medians of 108 steps/s on one thread and 195 with a worker thread (lib/simulation/README.md, Speed).
+ */
+export const SOLVER_CELL_STEPS_PER_S: Readonly<Record<1 | 2, number>> = { 1: 256 * 256 * 2 * 108, 2: 256 * 256 * 2 * 195 };
+/**
+ * Most cell-species-steps of one run: 256² cells × 2 species × 20 000 steps, about 100 s with two
+ * threads (185 s with one) — a design choice so one run cannot hold the job queue for long.
  */
 export const RUN_WORK_LIMIT = 256 * 256 * 2 * 20_000;
-/** Measured solver speed, cell-species-steps per second (lib/simulation/README.md). */
-export const SOLVER_CELL_STEPS_PER_S = (256 * 256 * 2 * 10_000) / 84.6;
+/** Seconds the solver needs for `work` cell-species-steps on this server's thread count. */
+export const estimateSolverS = (work: number) => work / SOLVER_CELL_STEPS_PER_S[services().config.simulationThreads];
 /** Most field values kept in snapshots (8 bytes each in memory: 128 MiB). */
 export const RUN_SNAPSHOT_VALUES_LIMIT = 2 ** 24;
 /** Fraction by which the simulated wavelength may differ from 2π/k* (the lib tests' tolerance, 20 %: common practice, no source). */
@@ -129,7 +133,7 @@ export async function planRun(ctx: LabContext, asked: SimulationRunRequest): Pro
   const n = compiled.species.length;
   const work = grid.cellCount * n * rule.steps;
   if (work > RUN_WORK_LIMIT) {
-    throw unprocessable("grid.cells", `grid.cells: ${grid.cellCount} cells × ${n} species × ${rule.steps} steps = ${work} cell-steps; one run may take at most ${RUN_WORK_LIMIT} (256² cells × 2 species × 20000 steps, about ${Math.round(RUN_WORK_LIMIT / SOLVER_CELL_STEPS_PER_S)} s of CPU). Use fewer cells or a shorter endTimeS.`);
+    throw unprocessable("grid.cells", `grid.cells: ${grid.cellCount} cells × ${n} species × ${rule.steps} steps = ${work} cell-steps; one run may take at most ${RUN_WORK_LIMIT} (256² cells × 2 species × 20000 steps, about ${Math.round(estimateSolverS(RUN_WORK_LIMIT))} s on this server). Use fewer cells or a shorter endTimeS.`);
   }
   const snapshotCount = req.snapshots ?? DEFAULT_RUN_SNAPSHOTS;
   if (grid.cellCount * n * snapshotCount > RUN_SNAPSHOT_VALUES_LIMIT) {
@@ -167,7 +171,7 @@ export async function planRun(ctx: LabContext, asked: SimulationRunRequest): Pro
     spectralRadiusPerS: rho,
     stiffnessLimitS: rule.stiffnessLimitS,
     workCellSteps: work,
-    estimatedCpuS: work / SOLVER_CELL_STEPS_PER_S,
+    estimatedCpuS: estimateSolverS(work),
     classification: r.classification.label,
     prediction: r.fastest ? {
       kStar: r.fastest.kStar,

@@ -46,6 +46,7 @@ export interface RunPlan {
   spectralRadiusPerS: number;
   stiffnessLimitS: number;
   workCellSteps: number;
+  /** Estimated solver time (s) on the server's thread count (SIMULATION_THREADS), start-up not included. */
   estimatedCpuS: number;
   classification: string;
   /** Linear theory at the steady state: fastest-growing k* (grid units⁻¹) and 2π/k*; on a zero-flux box also the fastest admissible mode. */

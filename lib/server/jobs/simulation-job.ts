@@ -1,6 +1,7 @@
 /**
  * Job kind "simulation": runs the `simulate` CLI on the run's stored RUN.json in a child process
- * (a 256² run is about a minute of CPU; in-process it would stop the server answering), reads its
+ * on SIMULATION_THREADS threads (a 256² run of 10 000 steps is about a minute; in-process it would
+ * stop the server answering), reads its
  * progress lines, kills it on cancel, then colours the final fields and snapshots, reads the final
  * pattern with the tissue readout (lib/server/data/readout-image.ts) and stores everything.
  * Nothing half-written: objects are put first, the row becomes "succeeded" in one update, and a
@@ -47,7 +48,7 @@ interface CliOutput {
 function runCli(specFile: string, outDir: string, signal: AbortSignal, limitS: number, onProgress: (fraction: number, timeS: number) => void): Promise<CliOutput> {
   return new Promise((resolve, reject) => {
     let timedOut = false;
-    const child = spawn(process.execPath, ["--import", "tsx", "lib/cli/main.ts", "simulate", "--spec", specFile, "--out", outDir, "--progress", "--json"], { cwd: process.cwd(), stdio: ["ignore", "pipe", "pipe"] });
+    const child = spawn(process.execPath, ["--import", "tsx", "lib/cli/main.ts", "simulate", "--spec", specFile, "--out", outDir, "--threads", String(services().config.simulationThreads), "--progress", "--json"], { cwd: process.cwd(), stdio: ["ignore", "pipe", "pipe"] });
     let stdout = "", stderr = "", pending = "";
     const abort = () => child.kill("SIGKILL");
     signal.addEventListener("abort", abort, { once: true });
@@ -78,7 +79,7 @@ function runCli(specFile: string, outDir: string, signal: AbortSignal, limitS: n
       signal.removeEventListener("abort", abort);
       clearTimeout(watchdog);
       if (signal.aborted) return reject(new JobCancelledError());
-      if (timedOut) return reject(new AppError("unprocessable", `the simulation was stopped after ${Math.round(limitS)} s, far beyond its estimated ${Math.round((limitS - RUN_START_ALLOWANCE_S) / RUN_TIME_FACTOR)} s of CPU; the server may be overloaded — start it again later or make it smaller`));
+      if (timedOut) return reject(new AppError("unprocessable", `the simulation was stopped after ${Math.round(limitS)} s, far beyond its estimated ${Math.round((limitS - RUN_START_ALLOWANCE_S) / RUN_TIME_FACTOR)} s; the server may be overloaded — start it again later or make it smaller`));
       if (code !== 0) {
         const last = stderr.trim().split("\n").pop() ?? "";
         let message = last || `the simulation process exited with code ${code}`;

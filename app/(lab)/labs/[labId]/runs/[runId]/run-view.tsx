@@ -66,7 +66,7 @@ export function RunView({ labId, initial, canStart }: { labId: string; initial: 
             <div className="h-full bg-moss transition-all" style={{ width: `${Math.round(r.progress * 100)}%` }} />
           </div>
           <p className="mt-2 text-sm text-ink-soft" data-testid="run-progress"><span className="num">{Math.round(r.progress * 100)} %</span>{r.progressNote ? ` · ${r.progressNote}` : r.status === "queued" ? " · waiting for earlier jobs" : " · starting the solver"}</p>
-          <p className="mt-1 text-xs text-ink-soft">Estimated CPU time <span className="num">{formatSig(plan.estimatedCpuS, 2)} s</span> for <span className="num">{plan.workCellSteps.toLocaleString("en")}</span> cell-species-steps, plus a few seconds to start.</p>
+          <p className="mt-1 text-xs text-ink-soft">Estimated solver time <span className="num">{formatSig(plan.estimatedCpuS, 2)} s</span> for <span className="num">{plan.workCellSteps.toLocaleString("en")}</span> cell-species-steps, plus a few seconds to start.</p>
           {cancelError && <Notice tone="error">{cancelError}</Notice>}
         </Panel>
       )}

@@ -2,7 +2,7 @@ import Link from "next/link";
 import { PageHeader } from "@/components/ui/panel";
 import { SIMULATION_LIMITS } from "@/lib/simulation";
 import { definitionInfo, getLabKineticsVersion, listCatalogue, listLabKinetics, type KineticsInfoDto } from "@/lib/server/data/kinetics";
-import { RUN_WORK_LIMIT, SOLVER_CELL_STEPS_PER_S } from "@/lib/server/data/simulation-run-plan";
+import { estimateSolverS, RUN_WORK_LIMIT } from "@/lib/server/data/simulation-run-plan";
 import { Notice } from "@/components/ui/notice";
 import { AppError } from "@/lib/server/errors";
 import { readFitStart } from "@/lib/server/data/simulation-run-fit";
@@ -48,7 +48,7 @@ export default async function NewRunPage({ params, searchParams }: { params: Pro
   const limits = [
     `cells per axis: a power of two, ${SIMULATION_LIMITS.minCellsPerAxis} … ${SIMULATION_LIMITS.maxCellsPerAxis2D} on a rectangle, up to ${SIMULATION_LIMITS.maxCells1D} on an interval`,
     `at most ${SIMULATION_LIMITS.maxSteps.toLocaleString("en")} time steps (the step is the smaller of your cap and 0.1/ρ, ρ the spectral radius of the reaction Jacobian)`,
-    `at most ${RUN_WORK_LIMIT.toLocaleString("en")} cell-species-steps per run (256² cells × 2 species × 20 000 steps, about ${Math.round(RUN_WORK_LIMIT / SOLVER_CELL_STEPS_PER_S)} s of CPU)`,
+    `at most ${RUN_WORK_LIMIT.toLocaleString("en")} cell-species-steps per run (256² cells × 2 species × 20 000 steps, about ${Math.round(estimateSolverS(RUN_WORK_LIMIT))} s on this server)`,
   ];
   return (
     <>
