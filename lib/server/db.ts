@@ -1,6 +1,8 @@
 /**
  * One Sequelize instance (SQLite via sqlite3) per process, with its models and migrations applied.
- * WAL mode, a busy timeout and foreign keys are set on the connection.
+ * WAL mode and foreign keys are set on the connection; every connection waits up to
+ * BUSY_TIMEOUT_MS for another's write lock (Sequelize opens one sqlite3 connection per
+ * transaction, and a PRAGMA on the default connection would not reach those).
  */
 import { mkdirSync } from "node:fs";
 import path from "node:path";
@@ -16,13 +18,24 @@ export interface Database {
   ready: Promise<void>;
 }
 
+/** How long a connection waits for another connection's write lock before SQLITE_BUSY (ms). */
+export const BUSY_TIMEOUT_MS = 5000;
+
+/** sqlite3 whose every Database (one per Sequelize transaction) waits for locks. */
+class BusyWaitingDatabase extends sqlite3.Database {
+  constructor(filename: string, mode?: number, callback?: (err: Error | null) => void) {
+    super(filename, mode as number, callback);
+    this.configure("busyTimeout", BUSY_TIMEOUT_MS);
+  }
+}
+const dialectModule = { ...sqlite3, Database: BusyWaitingDatabase };
+
 export function createDatabase(storage: string, options: { migrate?: boolean } = {}): Database {
   if (storage !== ":memory:") mkdirSync(path.dirname(storage), { recursive: true });
-  const sequelize = new Sequelize({ dialect: "sqlite", storage, dialectModule: sqlite3, logging: false });
+  const sequelize = new Sequelize({ dialect: "sqlite", storage, dialectModule, logging: false });
   const models = createModels(sequelize);
   const ready = (async () => {
     if (storage !== ":memory:") await sequelize.query("PRAGMA journal_mode = WAL;");
-    await sequelize.query("PRAGMA busy_timeout = 5000;");
     await sequelize.query("PRAGMA foreign_keys = ON;");
     if (options.migrate !== false) await migrateUp(sequelize);
   })();
