@@ -6,7 +6,7 @@
  */
 import { mkdirSync } from "node:fs";
 import path from "node:path";
-import { Sequelize } from "sequelize";
+import { Sequelize, Transaction } from "sequelize";
 import sqlite3 from "sqlite3";
 import { createModels, type Models } from "@/models";
 import { migrateUp } from "./migrate";
@@ -32,7 +32,12 @@ const dialectModule = { ...sqlite3, Database: BusyWaitingDatabase };
 
 export function createDatabase(storage: string, options: { migrate?: boolean } = {}): Database {
   if (storage !== ":memory:") mkdirSync(path.dirname(storage), { recursive: true });
-  const sequelize = new Sequelize({ dialect: "sqlite", storage, dialectModule, logging: false });
+  // IMMEDIATE: a transaction takes the write lock when it begins. A deferred one that read first
+  // and writes later fails with SQLITE_BUSY, whatever the timeout, when another connection wrote in
+  // between (a stale read snapshot cannot be upgraded to a write; SQLite docs, "Transaction",
+  // lang_transaction.html, from memory); with IMMEDIATE it waits its turn. The test
+  // tests/api/db-concurrency.test.ts fails with DEFERRED.
+  const sequelize = new Sequelize({ dialect: "sqlite", storage, dialectModule, logging: false, transactionType: Transaction.TYPES.IMMEDIATE });
   const models = createModels(sequelize);
   const ready = (async () => {
     if (storage !== ":memory:") await sequelize.query("PRAGMA journal_mode = WAL;");

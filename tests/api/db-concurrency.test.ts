@@ -33,4 +33,18 @@ describe("SQLite connections", () => {
     ]);
     expect([a, b]).toEqual([BUSY_TIMEOUT_MS, BUSY_TIMEOUT_MS]);
   });
+
+  it("a transaction that reads, then writes after another connection wrote, still commits", async () => {
+    await db.sequelize.query("CREATE TABLE IF NOT EXISTS t (n INTEGER)");
+    let outside: Promise<unknown> | null = null;
+    await db.sequelize.transaction(async (transaction) => {
+      await db.sequelize.query("SELECT COUNT(*) FROM t", { transaction }); // a read snapshot
+      outside = db.sequelize.query("INSERT INTO t VALUES (1)"); // another connection writes meanwhile
+      await new Promise((r) => setTimeout(r, 200));
+      await db.sequelize.query("INSERT INTO t VALUES (2)", { transaction });
+    });
+    await outside;
+    const [rows] = await db.sequelize.query("SELECT n FROM t ORDER BY n");
+    expect(rows).toEqual([{ n: 1 }, { n: 2 }]);
+  }, 30_000);
 });
