@@ -11,10 +11,10 @@ export function fft2dInPlace(data: Float64Array, width: number, height: number, 
   }
   const row = getPlan(width);
   for (let y = 0; y < height; y++) {
-    const off = 2 * y * width;
-    row.a.set(data.subarray(off, off + 2 * width));
-    if (inverse) row.fft.inverseTransform(row.b, row.a);
-    else row.fft.transform(row.b, row.a);
+    const off = 2 * y * width, a = row.a;
+    for (let i = 0; i < 2 * width; i++) a[i] = data[off + i];
+    if (inverse) row.fft.inverseTransform(row.b, a);
+    else row.fft.transform(row.b, a);
     data.set(row.b, off);
   }
   transformColumns(data, width, height, width, inverse);
@@ -30,29 +30,27 @@ const BLOCK = 8;
  */
 export function transformColumns(data: Float64Array, stride: number, height: number, columns: number, inverse: boolean): void {
   const col = getPlan(height);
-  const n2 = 2 * height;
-  const gathered = new Float64Array(BLOCK * n2);
-  const out = col.b;
+  // One input and one output array per gathered column, all of fft.js's own kind (plans.ts).
+  const gathered = Array.from({ length: BLOCK }, () => col.fft.createComplexArray() as number[]);
+  const out = Array.from({ length: BLOCK }, () => col.fft.createComplexArray() as number[]);
   for (let x0 = 0; x0 < columns; x0 += BLOCK) {
     const nb = Math.min(BLOCK, columns - x0);
     for (let y = 0; y < height; y++) {
       const base = 2 * (y * stride + x0);
       for (let c = 0; c < nb; c++) {
-        gathered[c * n2 + 2 * y] = data[base + 2 * c];
-        gathered[c * n2 + 2 * y + 1] = data[base + 2 * c + 1];
+        gathered[c][2 * y] = data[base + 2 * c];
+        gathered[c][2 * y + 1] = data[base + 2 * c + 1];
       }
     }
     for (let c = 0; c < nb; c++) {
-      const seg = gathered.subarray(c * n2, (c + 1) * n2);
-      if (inverse) col.fft.inverseTransform(out, seg);
-      else col.fft.transform(out, seg);
-      seg.set(out);
+      if (inverse) col.fft.inverseTransform(out[c], gathered[c]);
+      else col.fft.transform(out[c], gathered[c]);
     }
     for (let y = 0; y < height; y++) {
       const base = 2 * (y * stride + x0);
       for (let c = 0; c < nb; c++) {
-        data[base + 2 * c] = gathered[c * n2 + 2 * y];
-        data[base + 2 * c + 1] = gathered[c * n2 + 2 * y + 1];
+        data[base + 2 * c] = out[c][2 * y];
+        data[base + 2 * c + 1] = out[c][2 * y + 1];
       }
     }
   }
