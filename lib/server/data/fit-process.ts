@@ -6,12 +6,12 @@
  *
  * FIT_IN_PROCESS=1 runs the same function in this process instead (measurements, debugging).
  */
-import { spawn } from "node:child_process";
 import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import type { WavelengthFitResult } from "@/lib/fitting";
 import { AppError } from "../errors";
+import { runTsxChild } from "../jobs/child-process";
 import { JobCancelledError } from "../jobs/types";
 import { fitStoredModel, singleModelFile } from "./fit-model-run";
 import type { StoredFitModel, StoredFitSpec } from "./fit-spec-types";
@@ -22,9 +22,7 @@ export const FIT_MODEL_TIME_LIMIT_MS = 10 * 60_000;
 export const fitRunner = (): "child-process" | "in-process" => (process.env.FIT_IN_PROCESS === "1" ? "in-process" : "child-process");
 
 function commandFor(file: string, model: StoredFitModel): string[] {
-  return model.definition
-    ? ["--import", "tsx", "lib/server/data/fit-child.ts", "--spec", file]
-    : ["--import", "tsx", "lib/cli/main.ts", "fit", "--spec", file, "--json"];
+  return model.definition ? ["lib/server/data/fit-child.ts", "--spec", file] : ["lib/cli/main.ts", "fit", "--spec", file, "--json"];
 }
 
 /** Fits one model; the result is exactly what `cli fit --spec … --json` prints (without `kinetics`). */
@@ -35,32 +33,16 @@ export async function fitModel(spec: StoredFitSpec, model: StoredFitModel, signa
   const file = path.join(dir, "fit.json");
   writeFileSync(file, JSON.stringify(singleModelFile(spec, model)));
   try {
-    return await new Promise<WavelengthFitResult>((resolve, reject) => {
-      const child = spawn(process.execPath, commandFor(file, model), { cwd: process.cwd(), stdio: ["ignore", "pipe", "pipe"], env: { ...process.env, NODE_OPTIONS: "" } });
-      const out: Buffer[] = [], err: Buffer[] = [];
-      child.stdout.on("data", (b: Buffer) => out.push(b));
-      child.stderr.on("data", (b: Buffer) => err.push(b));
-      const kill = () => child.kill("SIGTERM");
-      signal.addEventListener("abort", kill, { once: true });
-      const timer = setTimeout(() => {
-        kill();
-        reject(new AppError("unprocessable", `fitting ${model.label} took longer than ${FIT_MODEL_TIME_LIMIT_MS / 60_000} minutes and was stopped; free fewer parameters or lower options.turingSamples`));
-      }, FIT_MODEL_TIME_LIMIT_MS);
-      child.on("error", (e) => reject(e));
-      child.on("close", (code) => {
-        clearTimeout(timer);
-        signal.removeEventListener("abort", kill);
-        if (signal.aborted) return reject(new JobCancelledError());
-        const stderr = Buffer.concat(err).toString("utf8").trim();
-        if (code !== 0) return reject(new AppError("unprocessable", `fitting ${model.label} failed: ${stderr.split("\n").filter(Boolean).pop() ?? `exit code ${code}`}`));
-        try {
-          const { kinetics: _k, ...result } = JSON.parse(Buffer.concat(out).toString("utf8")) as WavelengthFitResult & { kinetics: string };
-          resolve(result);
-        } catch (e) {
-          reject(new Error(`the fit process printed no JSON result (${(e as Error).message}); stderr: ${stderr.slice(0, 500)}`));
-        }
-      });
-    });
+    const r = await runTsxChild(commandFor(file, model), { signal, timeLimitMs: FIT_MODEL_TIME_LIMIT_MS });
+    if (r.timedOut) throw new AppError("unprocessable", `fitting ${model.label} took longer than ${FIT_MODEL_TIME_LIMIT_MS / 60_000} minutes and was stopped; free fewer parameters or lower options.turingSamples`);
+    const stderr = r.stderr.trim();
+    if (r.code !== 0) throw new AppError("unprocessable", `fitting ${model.label} failed: ${stderr.split("\n").filter(Boolean).pop() ?? `exit code ${r.code}`}`);
+    try {
+      const { kinetics: _k, ...result } = JSON.parse(r.stdout) as WavelengthFitResult & { kinetics: string };
+      return result;
+    } catch (e) {
+      throw new Error(`the fit process printed no JSON result (${(e as Error).message}); stderr: ${stderr.slice(0, 500)}`);
+    }
   } finally {
     rmSync(dir, { recursive: true, force: true });
   }

@@ -1,13 +1,12 @@
 /**
  * Job kind "simulation": runs the `simulate` CLI on the run's stored RUN.json in a child process
- * on SIMULATION_THREADS threads (a 256² run of 10 000 steps is about a minute; in-process it would
- * stop the server answering), reads its
- * progress lines, kills it on cancel, then colours the final fields and snapshots, reads the final
- * pattern with the tissue readout (lib/server/data/readout-image.ts) and stores everything.
+ * (jobs/child-process.ts) on SIMULATION_THREADS threads (a 256² run of 10 000 steps is about a
+ * minute; in-process it would stop the server answering), reads its progress lines, kills it on
+ * cancel, then colours the final fields and snapshots, reads the final pattern with the tissue
+ * readout (data/readout-process.ts) and stores everything.
  * Nothing half-written: objects are put first, the row becomes "succeeded" in one update, and a
  * failure removes the objects again.
  */
-import { spawn } from "node:child_process";
 import { createHash } from "node:crypto";
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
@@ -23,6 +22,7 @@ import { compareWithPrediction } from "../data/simulation-run-compare";
 import { fieldRange, fieldToGrey, renderFieldPng } from "../data/simulation-run-images";
 import { initialFieldFile, loadRunStartFields } from "../data/simulation-run-start";
 import type { RunPlan, RunResult, RunSpec } from "../data/simulation-run-types";
+import { parseProtocolLine, runTsxChild } from "./child-process";
 import { registerJobHandler } from "./registry";
 import { JobCancelledError, type JobHandler } from "./types";
 
@@ -45,58 +45,33 @@ interface CliOutput {
 }
 
 /** Runs the CLI; resolves with its JSON, rejects with its error message. */
-function runCli(specFile: string, outDir: string, signal: AbortSignal, limitS: number, onProgress: (fraction: number, timeS: number) => void): Promise<CliOutput> {
-  return new Promise((resolve, reject) => {
-    let timedOut = false;
-    const child = spawn(process.execPath, ["--import", "tsx", "lib/cli/main.ts", "simulate", "--spec", specFile, "--out", outDir, "--threads", String(services().config.simulationThreads), "--progress", "--json"], { cwd: process.cwd(), stdio: ["ignore", "pipe", "pipe"] });
-    let stdout = "", stderr = "", pending = "";
-    const abort = () => child.kill("SIGKILL");
-    signal.addEventListener("abort", abort, { once: true });
-    // A run that takes far longer than its estimate (a stuck or starved process) must not hold the job queue.
-    const watchdog = setTimeout(() => {
-      timedOut = true;
-      child.kill("SIGKILL");
-    }, limitS * 1000);
-    watchdog.unref();
-    child.stdout.on("data", (d: Buffer) => (stdout += d.toString()));
-    child.stderr.on("data", (d: Buffer) => {
-      pending += d.toString();
-      const lines = pending.split("\n");
-      pending = lines.pop() ?? "";
-      for (const line of lines) {
-        if (line.startsWith("progress ")) {
-          try {
-            const q = JSON.parse(line.slice(9)) as { fraction: number; timeS: number };
-            onProgress(q.fraction, q.timeS);
-          } catch {
-            // a torn line; the next one will do
-          }
-        } else stderr += line + "\n";
-      }
-    });
-    child.on("error", (err) => reject(err));
-    child.on("close", (code) => {
-      signal.removeEventListener("abort", abort);
-      clearTimeout(watchdog);
-      if (signal.aborted) return reject(new JobCancelledError());
-      if (timedOut) return reject(new AppError("unprocessable", `the simulation was stopped after ${Math.round(limitS)} s, far beyond its estimated ${Math.round((limitS - RUN_START_ALLOWANCE_S) / RUN_TIME_FACTOR)} s; the server may be overloaded — start it again later or make it smaller`));
-      if (code !== 0) {
-        const last = stderr.trim().split("\n").pop() ?? "";
-        let message = last || `the simulation process exited with code ${code}`;
-        try {
-          message = (JSON.parse(last) as { error: { message: string } }).error.message;
-        } catch {
-          // plain text
-        }
-        return reject(new AppError("unprocessable", `the simulation stopped with an error: ${message}`));
-      }
-      try {
-        resolve(JSON.parse(stdout) as CliOutput);
-      } catch {
-        reject(new Error(`the simulation process printed no JSON result (${stdout.slice(0, 200)})`));
-      }
-    });
+async function runCli(specFile: string, outDir: string, signal: AbortSignal, limitS: number, onProgress: (fraction: number, timeS: number) => void): Promise<CliOutput> {
+  const r = await runTsxChild(["lib/cli/main.ts", "simulate", "--spec", specFile, "--out", outDir, "--threads", String(services().config.simulationThreads), "--progress", "--json"], {
+    signal,
+    timeLimitMs: limitS * 1000,
+    onLine(line) {
+      if (!line.startsWith("progress ")) return false;
+      const q = parseProtocolLine<{ fraction: number; timeS: number }>(line, "progress");
+      if (q) onProgress(q.fraction, q.timeS);
+      return true;
+    },
   });
+  if (r.timedOut) throw new AppError("unprocessable", `the simulation was stopped after ${Math.round(limitS)} s, far beyond its estimated ${Math.round((limitS - RUN_START_ALLOWANCE_S) / RUN_TIME_FACTOR)} s; the server may be overloaded — start it again later or make it smaller`);
+  if (r.code !== 0) {
+    const last = r.stderr.trim().split("\n").pop() ?? "";
+    let message = last || `the simulation process exited with code ${r.code}`;
+    try {
+      message = (JSON.parse(last) as { error: { message: string } }).error.message;
+    } catch {
+      // plain text
+    }
+    throw new AppError("unprocessable", `the simulation stopped with an error: ${message}`);
+  }
+  try {
+    return JSON.parse(r.stdout) as CliOutput;
+  } catch {
+    throw new Error(`the simulation process printed no JSON result (${r.stdout.slice(0, 200)})`);
+  }
 }
 
 const readField = (file: string) => {

@@ -1,0 +1,63 @@
+/**
+ * The one way jobs run heavy work off the event loop: a child Node process running a TypeScript
+ * entry under tsx, from the project folder, with the parent's NODE_OPTIONS cleared. Its stderr is
+ * split into lines; each line goes to `onLine` first (progress and error lines of the entry's own
+ * protocol) and is kept as plain stderr when `onLine` does not take it. The child is killed when
+ * `signal` aborts (the promise then rejects with JobCancelledError) or after `timeLimitMs`
+ * (resolves with `timedOut: true`); every other end resolves, and the caller reads the exit code.
+ * Used by image readouts (data/readout-process.ts), fits (data/fit-process.ts) and simulations.
+ */
+import { spawn } from "node:child_process";
+import { JobCancelledError } from "./types";
+
+export interface ChildOutcome {
+  code: number | null;
+  stdout: string;
+  /** stderr lines `onLine` did not take. */
+  stderr: string;
+  timedOut: boolean;
+}
+
+export function runTsxChild(
+  entryAndArgs: string[],
+  options: { signal: AbortSignal; timeLimitMs: number; onLine?: (line: string) => boolean },
+): Promise<ChildOutcome> {
+  return new Promise((resolve, reject) => {
+    if (options.signal.aborted) return reject(new JobCancelledError());
+    const child = spawn(process.execPath, ["--import", "tsx", ...entryAndArgs], { cwd: process.cwd(), stdio: ["ignore", "pipe", "pipe"], env: { ...process.env, NODE_OPTIONS: "" } });
+    const out: Buffer[] = [];
+    let stderr = "", pending = "", timedOut = false;
+    const kill = () => child.kill("SIGKILL");
+    options.signal.addEventListener("abort", kill, { once: true });
+    // A process far past its limit (stuck or starved) must not hold the job queue.
+    const timer = setTimeout(() => {
+      timedOut = true;
+      kill();
+    }, options.timeLimitMs);
+    timer.unref();
+    child.stdout.on("data", (b: Buffer) => out.push(b));
+    child.stderr.on("data", (b: Buffer) => {
+      const lines = (pending + b.toString()).split("\n");
+      pending = lines.pop() ?? "";
+      for (const line of lines) if (!options.onLine?.(line)) stderr += line + "\n";
+    });
+    child.on("error", (err) => reject(err));
+    child.on("close", (code) => {
+      clearTimeout(timer);
+      options.signal.removeEventListener("abort", kill);
+      if (pending && !options.onLine?.(pending)) stderr += pending;
+      if (options.signal.aborted) return reject(new JobCancelledError());
+      resolve({ code, stdout: Buffer.concat(out).toString("utf8"), stderr, timedOut });
+    });
+  });
+}
+
+/** Parses `<prefix> {json}` lines of a child's stderr protocol; null for other lines or torn JSON. */
+export function parseProtocolLine<T>(line: string, prefix: string): T | null {
+  if (!line.startsWith(`${prefix} `)) return null;
+  try {
+    return JSON.parse(line.slice(prefix.length + 1)) as T;
+  } catch {
+    return null; // a torn line; the next one will do
+  }
+}
