@@ -39,16 +39,14 @@ export async function seedDemo(): Promise<boolean> {
   if ((await m.User.count()) > 0) return false;
   const passwordHash = await hashPassword(DEMO_PASSWORD);
   const lab = await m.Lab.create({ name: DEMO_LAB, createdBy: null });
-  const users = [];
+  const users: { id: string; email: string; name: string | null }[] = [];
   for (const p of DEMO_PEOPLE) {
     const u = await m.User.create({ name: p.name, email: p.email, passwordHash, emailVerified: new Date() });
     await m.Membership.create({ labId: lab.id, userId: u.id, role: p.role });
     users.push(u);
   }
-  const manager: LabContext = { actor: { userId: users[0].id, email: users[0].email, name: users[0].name, via: "session" }, labId: lab.id, labName: lab.name, role: "manager" };
-  const scientist: LabContext = { actor: { userId: users[1].id, email: users[1].email, name: users[1].name, via: "session" }, labId: lab.id, labName: lab.name, role: "scientist" };
-  const modeller: LabContext = { actor: { userId: users[2].id, email: users[2].email, name: users[2].name, via: "session" }, labId: lab.id, labName: lab.name, role: "modeller" };
-  const collaborator: LabContext = { actor: { userId: users[3].id, email: users[3].email, name: users[3].name, via: "session" }, labId: lab.id, labName: lab.name, role: "collaborator" };
+  const as = (i: number): LabContext => ({ actor: { userId: users[i].id, email: users[i].email, name: users[i].name, via: "session" }, labId: lab.id, labName: lab.name, role: DEMO_PEOPLE[i].role });
+  const [manager, scientist, modeller, collaborator] = [0, 1, 2, 3].map(as);
   await recordAudit(m, { labId: lab.id, actor: manager.actor, action: "lab.created", targetType: "lab", targetId: lab.id, summary: `Demo data: ${manager.actor.email} created the lab “${lab.name}” with four members` });
 
   const tmp = mkdtempSync(path.join(tmpdir(), "morphokin-seed-"));

@@ -99,14 +99,12 @@ export async function planRun(ctx: LabContext, asked: SimulationRunRequest): Pro
   }
   const start = asked.startFrom ? await readRunStart(ctx, asked.startFrom.runId, compiled.species, grid) : null;
   const warnings: string[] = [...(start?.warnings ?? [])];
-  if (r.bands.length === 0 && start) {
+  if (r.bands.length === 0) {
+    if (!start) throw unprocessable("parameters", `parameters: the homogeneous steady state is ${r.classification.label} at these parameter values — no mode grows, so the noise decays and there is no pattern to read. Choose parameters inside the Turing space (see the Turing-space map of this kinetics).`);
     warnings.push(`The homogeneous steady state is ${r.classification.label} at these parameter values, so no new pattern would form from noise; the run shows whether the earlier pattern persists.`);
-  } else if (r.bands.length === 0) {
-    throw unprocessable("parameters", `parameters: the homogeneous steady state is ${r.classification.label} at these parameter values — no mode grows, so the noise decays and there is no pattern to read. Choose parameters inside the Turing space (see the Turing-space map of this kinetics).`);
-  }
-  if (r.bands.length > 0 && !r.fastest) {
+  } else if (!r.fastest) {
     warnings.push(`The steady state is ${r.classification.label} at these parameter values and no mode with k > 0 grows fastest, so there is no linear prediction 2π/k* to compare with; the run is started anyway.`);
-  } else if (r.bands.length > 0 && !r.classification.classes.includes("turing")) {
+  } else if (!r.classification.classes.includes("turing")) {
     warnings.push(`The steady state is ${r.classification.label}, not Turing-unstable, at these parameter values: the run is started, but 2π/k* of the fastest-growing mode is not a Turing prediction and the final pattern may oscillate or leave the steady state altogether.`);
   }
   const diffusion = solverError(() => readKineticsDiffusion(compiled, p));
