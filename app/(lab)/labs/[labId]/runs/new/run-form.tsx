@@ -145,7 +145,7 @@ export function RunForm({ labId, kinetics, prefill, limits, earlierRuns }: { lab
             </select>
           </Label>
           {source && <p className="mt-1 text-xs text-ink-soft" data-testid="run-start-note">Starts from the final fields of “{source.name}” ({source.kineticsName}, t = {source.timeS}); the grid below is set to its {source.cells.join(" × ")} cells. Noise is added only if you give an amplitude.</p>}
-          {source && kinetics.find((k) => k.id === id)?.species.length !== source.species.length && <Notice tone="warning">This kinetics has a different number of species than that run.</Notice>}
+          {source && info?.species.length !== source.species.length && <Notice tone="warning">This kinetics has a different number of species than that run.</Notice>}
           <div className="mt-3 grid grid-cols-2 gap-2">
             <Label text="seed (blank: random, recorded)"><input className={field} value={seed} placeholder="random" onChange={(e) => setSeed(e.target.value)} data-testid="run-seed" /></Label>
             <Label text="noise amplitude"><input className={field} value={noise} placeholder={startFrom ? "0 (none)" : "1 % of c*"} onChange={(e) => setNoise(e.target.value)} data-testid="run-noise" /></Label>
