@@ -17,6 +17,7 @@ import { numbersOf } from "@/lib/server/data/fit-result";
 import { waitForJob } from "@/lib/server/jobs/runner";
 import { database } from "@/lib/server/services";
 import { call, discoverRoutes } from "../support/api";
+import { waitForMailWithSubject } from "../support/mail";
 import { startTestStack, type TestStack } from "../support/stack";
 import { makePerson, makeWorld, type Person, type World } from "../support/world";
 
@@ -257,14 +258,9 @@ describe("job-finish e-mail", () => {
     await (await database()).User.update({ notifyByEmail: false }, { where: { id: quiet.userId } });
     const a = await startAndWait({ ...roundTrip, name: "Mailed", options: { profiles: false } }, loud);
     await startAndWait({ ...roundTrip, name: "Not mailed", options: { profiles: false } }, quiet);
-    let mails: { subject: string; text: string }[] = [];
-    for (let i = 0; i < 50 && mails.length === 0; i++) {
-      mails = await inbox(loud.email);
-      if (mails.length === 0) await new Promise((r) => setTimeout(r, 100));
-    }
-    expect(mails).toHaveLength(1);
-    expect(mails[0].subject).toBe("[Test Lab] The fit “Mailed” finished");
-    expect(mails[0].text).toContain(`/labs/${w.labId}/fits/${a.id}`);
+    const mail = await waitForMailWithSubject(stack.mailboxUrl, loud.email, "[Test Lab] The fit “Mailed” finished");
+    expect(mail.text).toContain(`/labs/${w.labId}/fits/${a.id}`);
+    expect(await inbox(loud.email)).toHaveLength(1);
     expect(await inbox(quiet.email)).toEqual([]);
   });
 
