@@ -1,8 +1,9 @@
 /**
- * Browser tests: Debian's Chromium against a fresh, isolated stack on 127.0.0.1:3100
+ * Browser tests: Debian's Chromium against a fresh, isolated stack on 127.0.0.1:3100 (moved by E2E_PORT_OFFSET)
  * (tests/e2e/serve.ts). Needs a production build (`npx next build`) first.
  */
 import { defineConfig } from "@playwright/test";
+import { E2E_BASE_URL } from "./tests/e2e/support/ports";
 
 export default defineConfig({
   testDir: "tests/e2e",
@@ -15,7 +16,7 @@ export default defineConfig({
   expect: { timeout: 10_000 },
   reporter: "list",
   use: {
-    baseURL: "http://127.0.0.1:3100",
+    baseURL: E2E_BASE_URL,
     screenshot: "only-on-failure",
     trace: "off",
     video: "off",
@@ -34,7 +35,7 @@ export default defineConfig({
   ],
   webServer: {
     command: "npx tsx tests/e2e/serve.ts",
-    url: "http://127.0.0.1:3100/api/health",
+    url: `${E2E_BASE_URL}/api/health`,
     reuseExistingServer: false,
     timeout: 120_000,
     stdout: "ignore",

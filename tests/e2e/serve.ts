@@ -7,17 +7,18 @@
 import { existsSync, rmSync } from "node:fs";
 import net from "node:net";
 import path from "node:path";
+import { E2E_BASE_URL, E2E_MAILBOX_URL, E2E_PORTS } from "./support/ports";
 
 const ROOT = path.resolve(import.meta.dirname, "../..");
 
 export const E2E_ENV = {
   MORPHOKIN_DATA_DIR: path.join(ROOT, "storage/data-e2e"),
-  PORT: "3100",
-  NEXTAUTH_URL: "http://127.0.0.1:3100",
-  S3_ENDPOINT: "http://127.0.0.1:4570",
-  SMTP_URL: "smtp://127.0.0.1:2527",
-  DEV_MAILBOX_URL: "http://127.0.0.1:2528",
-} as const;
+  PORT: String(E2E_PORTS.app),
+  NEXTAUTH_URL: E2E_BASE_URL,
+  S3_ENDPOINT: `http://127.0.0.1:${E2E_PORTS.s3}`,
+  SMTP_URL: `smtp://127.0.0.1:${E2E_PORTS.smtp}`,
+  DEV_MAILBOX_URL: E2E_MAILBOX_URL,
+};
 
 function fail(message: string): never {
   process.stderr.write(`e2e server: ${message}\n`);
@@ -37,7 +38,7 @@ async function main() {
     fail("no production build (.next/BUILD_ID is missing); run `npx next build` first, then the tests again");
   }
   // Reusing a leftover stack would mix its data into this run; refuse instead.
-  for (const port of [3100, 4570, 2527, 2528]) {
+  for (const port of Object.values(E2E_PORTS)) {
     if (await portInUse(port)) fail(`port ${port} on 127.0.0.1 is already in use (a leftover test stack?); stop it and run again`);
   }
   rmSync(E2E_ENV.MORPHOKIN_DATA_DIR, { recursive: true, force: true });
@@ -52,7 +53,7 @@ async function main() {
   const fakes = await startFakes(env);
   if (!(await seedDemo())) fail("the fresh e2e database already had users; the data folder was not cleared");
   await services().db.sequelize.close();
-  process.stdout.write("e2e server: demo data seeded, starting next on 127.0.0.1:3100\n");
+  process.stdout.write(`e2e server: demo data seeded, starting next on ${E2E_BASE_URL}\n`);
 
   serveNext("start", env, fakes);
 }

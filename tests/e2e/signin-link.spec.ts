@@ -1,6 +1,7 @@
 /** Sign-in by e-mailed link: the link signs in once; the second use is refused. */
 import { expect, test } from "@playwright/test";
 import { DEMO, DEMO_LAB } from "./support/demo";
+import { E2E_BASE_URL } from "./support/ports";
 import { linkTo, mailIds, waitForMail } from "./support/mailbox";
 import { DASHBOARD_URL } from "./support/session";
 
@@ -16,7 +17,7 @@ test("a sign-in link works once", async ({ page, browser }) => {
   const mail = await waitForMail(email, seen);
   expect(mail.subject).toBe("Your Morphokin sign-in link");
   const link = linkTo(mail, "/api/auth/callback/email");
-  expect(new URL(link).origin).toBe("http://127.0.0.1:3100");
+  expect(new URL(link).origin).toBe(E2E_BASE_URL);
 
   await page.goto(link);
   await expect(page).toHaveURL(DASHBOARD_URL);

@@ -2,6 +2,7 @@
  * What the e2e stack seeds (lib/cli/seed-demo.ts), written out here on purpose: the tests check
  * the app against these facts instead of reading them back from the code under test.
  */
+import { E2E_BASE_URL } from "./ports";
 export const DEMO_PASSWORD = "morphokin-demo";
 export const DEMO_LAB = "Bracken Hill Patterning Lab";
 
@@ -14,7 +15,7 @@ export const DEMO: Record<DemoRole, { email: string; label: string }> = {
   collaborator: { email: "collaborator@brackenhill.example", label: "Collaborator" },
 };
 
-export const BASE_URL = "http://127.0.0.1:3100";
+export const BASE_URL = E2E_BASE_URL;
 
 /** A suffix that keeps names and addresses of one run apart from every other. */
 export function unique(prefix: string): string {

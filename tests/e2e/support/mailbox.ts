@@ -1,10 +1,11 @@
 /**
- * Reads the fake SMTP server's HTTP listing (tests/e2e/serve.ts puts it on 127.0.0.1:2528) and
+ * Reads the fake SMTP server's HTTP listing (tests/e2e/serve.ts puts it on E2E_PORTS.mailbox) and
  * pulls links out of messages.
  */
 import { expect } from "@playwright/test";
+import { E2E_MAILBOX_URL } from "./ports";
 
-const MAILBOX = "http://127.0.0.1:2528";
+const MAILBOX = E2E_MAILBOX_URL;
 
 export interface Mail {
   id: string;
