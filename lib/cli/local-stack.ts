@@ -52,23 +52,39 @@ export async function startFakes(env: NodeJS.ProcessEnv): Promise<ChildProcess |
   return child;
 }
 
-function newestMtime(dir: string): number {
+/** What counts as source for the build: these folders and root files, by extension. */
+const SOURCE_DIRS = ["app", "components", "lib", "models", "storage", "migrations"];
+const SOURCE_ROOT_FILES = ["package.json", "package-lock.json", "next.config.ts", "tsconfig.json", "postcss.config.mjs"];
+const SOURCE_EXTENSIONS = /\.(ts|tsx|js|mjs|cjs|css|json|svg|png|woff2?)$/;
+/** Run-time data that lives beside the sources (the data folders, the fakes' files): never source. */
+const DATA_DIRS = [/^storage\/data/, /^storage\/objects$/, /^storage\/mail$/];
+
+function newestSourceMtime(root: string, rel: string): number {
   let newest = 0;
-  for (const entry of readdirSync(dir, { withFileTypes: true })) {
+  for (const entry of readdirSync(path.join(root, rel), { withFileTypes: true })) {
     if (entry.name === "node_modules" || entry.name.startsWith(".")) continue;
-    const p = path.join(dir, entry.name);
-    newest = Math.max(newest, entry.isDirectory() ? newestMtime(p) : statSync(p).mtimeMs);
+    const child = rel ? `${rel}/${entry.name}` : entry.name;
+    if (entry.isDirectory()) {
+      if (!DATA_DIRS.some((d) => d.test(child))) newest = Math.max(newest, newestSourceMtime(root, child));
+    } else if (SOURCE_EXTENSIONS.test(entry.name)) {
+      newest = Math.max(newest, statSync(path.join(root, child)).mtimeMs);
+    }
   }
   return newest;
 }
 
-/** True when there is no production build or a source file is newer than it. */
-export function buildIsStale(): boolean {
-  const buildId = path.join(ROOT, ".next/BUILD_ID");
+/**
+ * True when there is no production build or a source file is newer than it. Only source files
+ * count: the SQLite file and stored objects under storage/ change with every use of the app and
+ * must not make `npm start` rebuild.
+ */
+export function buildIsStale(root = ROOT): boolean {
+  const buildId = path.join(root, ".next/BUILD_ID");
   if (!existsSync(buildId)) return true;
   const built = statSync(buildId).mtimeMs;
-  const sources = ["app", "components", "lib", "models", "storage", "migrations"].map((d) => path.join(ROOT, d)).filter(existsSync);
-  return sources.some((d) => newestMtime(d) > built);
+  const dirs = SOURCE_DIRS.filter((d) => existsSync(path.join(root, d)));
+  const files = SOURCE_ROOT_FILES.map((f) => path.join(root, f)).filter(existsSync);
+  return dirs.some((d) => newestSourceMtime(root, d) > built) || files.some((f) => statSync(f).mtimeMs > built);
 }
 
 export function run(cmd: string, args: string[], env: NodeJS.ProcessEnv): Promise<void> {
