@@ -4,7 +4,9 @@
  * shaded by predicted wavelength, other classes in paper tones, the contour where the predicted
  * wavelength equals the measured one in green, and the fitted point marked.
  */
+import { classOf, MAP_CLASSES } from "@/lib/stability/classes";
 import { formatNumber } from "./dispersion-format";
+import { cellFill, MAP_CLASS_COLOUR, turingShade as shade } from "./map-classes";
 
 export interface FitTuringMapProps {
   nx: number;
@@ -12,7 +14,6 @@ export interface FitTuringMapProps {
   x: { name: string; scale: "linear" | "log"; values: number[] };
   y: { name: string; scale: "linear" | "log"; values: number[] };
   classes: number[];
-  legend: Record<string, number>;
   /** Wavelength per cell, µm (null where none). */
   wavelengthUm: (number | null)[];
   contour: [number, number, number, number][] | null;
@@ -27,14 +28,9 @@ function frac(axis: FitTuringMapProps["x"], v: number): number {
   return axis.scale === "log" ? Math.log(v / a) / Math.log(b / a) : (v - a) / (b - a);
 }
 
-function shade(t: number): string {
-  const a = [233, 225, 244], b = [61, 36, 102];
-  const c = a.map((v, i) => Math.round(v + (b[i] - v) * t));
-  return `rgb(${c[0]},${c[1]},${c[2]})`;
-}
-
 export function FitTuringMap(p: FitTuringMapProps) {
-  const turing = (i: number) => (p.classes[i] & p.legend.turing) !== 0 && (p.classes[i] & (p.legend["no-steady-state"] | p.legend.invalid | p.legend.hopf | p.legend["unstable-k0"])) === 0;
+  const turing = (i: number) => classOf(p.classes[i]) === "turing";
+  const present = new Set(p.classes.map(classOf));
   const ls = p.wavelengthUm.filter((v, i): v is number => v !== null && turing(i));
   const lo = ls.length ? Math.min(...ls) : 0, hi = ls.length ? Math.max(...ls) : 1;
   const cw = W / p.nx, ch = H / p.ny;
@@ -46,8 +42,8 @@ export function FitTuringMap(p: FitTuringMapProps) {
     <div data-testid="fit-turing-map" className="space-y-2">
       <svg width={W + pad.l + pad.r} height={H + pad.t + pad.b} role="img" aria-label={`Turing-space map of ${p.y.name} against ${p.x.name} around the fit`}>
         {p.classes.map((f, i) => {
-          const ix = i % p.nx, iy = Math.floor(i / p.nx), l = p.wavelengthUm[i];
-          const fill = turing(i) && l !== null ? shade(hi > lo ? (l - lo) / (hi - lo) : 0.5) : f & p.legend["no-steady-state"] ? "#9e978a" : f & p.legend["unstable-k0"] ? "#f6dcd6" : f & p.legend.hopf ? "#c8d5e6" : f & p.legend.wave ? "#b9dcd0" : "#ece4d3";
+          const ix = i % p.nx, iy = Math.floor(i / p.nx);
+          const fill = cellFill(f, p.wavelengthUm[i], lo, hi);
           return <rect key={i} x={pad.l + ix * cw} y={pad.t + H - (iy + 1) * ch} width={cw + 0.3} height={ch + 0.3} fill={fill} />;
         })}
         <rect x={pad.l} y={pad.t} width={W} height={H} fill="none" stroke="#d9cfbb" />
@@ -65,7 +61,9 @@ export function FitTuringMap(p: FitTuringMapProps) {
         <span className="inline-flex items-center gap-1"><span className="inline-block h-3 w-16" style={{ background: `linear-gradient(to right, ${shade(0)}, ${shade(1)})` }} />{ls.length ? <>Turing: λ* <span className="num">{formatNumber(lo)}–{formatNumber(hi)} µm</span></> : "no Turing cell in this box"}</span>
         <span className="inline-flex items-center gap-1"><span className="inline-block h-0.5 w-5 bg-moss" /> predicted = measured (<span className="num">{formatNumber(p.measuredUm)} µm</span>)</span>
         <span className="inline-flex items-center gap-1"><span className="inline-block h-3 w-3 rounded-full border-2 border-ink" /> fitted point</span>
-        <span className="inline-flex items-center gap-1"><span className="inline-block h-3 w-3 border border-rule" style={{ background: "#ece4d3" }} /> stable / other</span>
+        {MAP_CLASSES.filter((c) => c.name !== "turing" && present.has(c.name)).map((c) => (
+          <span key={c.name} className="inline-flex items-center gap-1"><span className="inline-block h-3 w-3 border border-rule" style={{ background: MAP_CLASS_COLOUR[c.name as Exclude<typeof c.name, "turing">] }} /> {c.label}</span>
+        ))}
       </div>
     </div>
   );

@@ -1,11 +1,13 @@
 "use client";
 /**
- * Turing-space map as a heat map: one cell per parameter pair, coloured by instability class;
+ * Turing-space map as a heat map: one cell per parameter pair, coloured by its exclusive class;
  * Turing cells shaded by predicted wavelength (light = short, dark = long); cells matching the
  * target wavelength outlined, and the target contour drawn. Plain arrays in, row-major iy·nx + ix.
  */
 import { useEffect, useRef } from "react";
+import { classOf, MAP_CLASSES } from "@/lib/stability/classes";
 import { formatNumber } from "./dispersion-format";
+import { cellFill, MAP_CLASS_COLOUR, turingShade } from "./map-classes";
 
 export interface TuringMapHeatmapProps {
   nx: number;
@@ -16,35 +18,10 @@ export interface TuringMapHeatmapProps {
   /** Wavelength per cell in display units (null where none). */
   wavelength: (number | null)[];
   wavelengthUnit: string;
-  legend: Record<string, number>;
   counts: Record<string, number>;
   match: number[] | null;
   /** Target contour segments in parameter values. */
   contour: [number, number, number, number][] | null;
-}
-
-/** Class colours: Turing is the model-prediction violet; the rest calm paper tones, brick for unstable at k = 0. */
-const CLASS_COLOUR: Record<string, string> = {
-  stable: "#ece4d3", hopf: "#c8d5e6", wave: "#b9dcd0", "unstable-k0": "#f6dcd6", "no-steady-state": "#9e978a", invalid: "#ffffff",
-};
-const CLASS_LABEL: Record<string, string> = {
-  stable: "stable", turing: "Turing", hopf: "Hopf (k = 0)", wave: "wave (k > 0)", "unstable-k0": "unstable at k = 0", "no-steady-state": "no steady state", invalid: "invalid",
-};
-
-function turingShade(t: number): string {
-  // violet ramp from #e9e1f4 (short λ) to #3d2466 (long λ)
-  const a = [233, 225, 244], b = [61, 36, 102];
-  const c = a.map((v, i) => Math.round(v + (b[i] - v) * t));
-  return `rgb(${c[0]},${c[1]},${c[2]})`;
-}
-
-function cellColour(flags: number, legend: Record<string, number>): string {
-  if (flags & legend["no-steady-state"]) return CLASS_COLOUR["no-steady-state"];
-  if (flags & legend.invalid) return CLASS_COLOUR.invalid;
-  if (flags & legend["unstable-k0"]) return CLASS_COLOUR["unstable-k0"];
-  if (flags & legend.hopf) return CLASS_COLOUR.hopf;
-  if (flags & legend.wave) return CLASS_COLOUR.wave;
-  return CLASS_COLOUR.stable;
 }
 
 /** Parameter value → fractional cell-centre coordinate. */
@@ -56,20 +33,19 @@ function toIndex(axis: { scale: "linear" | "log"; values: number[] }, v: number)
 
 export function TuringMapHeatmap(p: TuringMapHeatmapProps) {
   const canvas = useRef<HTMLCanvasElement>(null);
-  const lambdas = p.wavelength.filter((v, i): v is number => v !== null && (p.classes[i] & p.legend.turing) !== 0);
+  const lambdas = p.wavelength.filter((v, i): v is number => v !== null && classOf(p.classes[i]) === "turing");
   const lo = lambdas.length ? Math.min(...lambdas) : 0, hi = lambdas.length ? Math.max(...lambdas) : 1;
   useEffect(() => {
     const ctx = canvas.current?.getContext("2d");
     if (!ctx) return;
     for (let iy = 0; iy < p.ny; iy++) {
       for (let ix = 0; ix < p.nx; ix++) {
-        const i = iy * p.nx + ix, f = p.classes[i], l = p.wavelength[i];
-        const turing = (f & p.legend.turing) !== 0 && (f & (p.legend["no-steady-state"] | p.legend.invalid)) === 0;
-        ctx.fillStyle = turing && l !== null ? turingShade(hi > lo ? (l - lo) / (hi - lo) : 0.5) : cellColour(f, p.legend);
+        const i = iy * p.nx + ix;
+        ctx.fillStyle = cellFill(p.classes[i], p.wavelength[i], lo, hi);
         ctx.fillRect(ix, p.ny - 1 - iy, 1, 1);
       }
     }
-  }, [p.nx, p.ny, p.classes, p.wavelength, p.legend, lo, hi]);
+  }, [p.nx, p.ny, p.classes, p.wavelength, lo, hi]);
   const W = 420, H = 420, pad = { l: 64, b: 44, t: 8, r: 8 };
   const ticks = (axis: { values: number[] }) => [0, Math.floor((axis.values.length - 1) / 2), axis.values.length - 1];
   const sx = (ix: number) => pad.l + (ix / p.nx) * W, sy = (iy: number) => pad.t + H - (iy / p.ny) * H;
@@ -97,10 +73,10 @@ export function TuringMapHeatmap(p: TuringMapHeatmapProps) {
           <span className="inline-block h-3 w-16" style={{ background: `linear-gradient(to right, ${turingShade(0)}, ${turingShade(1)})` }} />
           {lambdas.length ? <>Turing: λ* <span className="num">{formatNumber(lo)}</span>–<span className="num">{formatNumber(hi)} {p.wavelengthUnit}</span> (<span className="num">{p.counts.turing ?? 0}</span> cells)</> : "Turing: no cell in this box"}
         </span>
-        {Object.keys(CLASS_COLOUR).filter((c) => (p.counts[c] ?? 0) > 0).map((c) => (
-          <span key={c} className="inline-flex items-center gap-1">
-            <span className="inline-block h-3 w-3 border border-rule" style={{ background: CLASS_COLOUR[c] }} />
-            {CLASS_LABEL[c]} (<span className="num">{p.counts[c]}</span>)
+        {MAP_CLASSES.filter((c) => c.name !== "turing" && (p.counts[c.name] ?? 0) > 0).map((c) => (
+          <span key={c.name} className="inline-flex items-center gap-1" data-testid={`map-class-${c.name}`}>
+            <span className="inline-block h-3 w-3 border border-rule" style={{ background: MAP_CLASS_COLOUR[c.name as Exclude<typeof c.name, "turing">] }} />
+            {c.label} (<span className="num">{p.counts[c.name]}</span>)
           </span>
         ))}
         {p.match && <span className="inline-flex items-center gap-1"><span className="inline-block h-3 w-3 border-2 border-moss" /> target wavelength ± tolerance</span>}

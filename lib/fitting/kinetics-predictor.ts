@@ -1,6 +1,6 @@
 import type { CompiledKinetics } from "../kinetics";
 import { resolveParameters } from "../kinetics/parameters";
-import { CLASS_HOPF, CLASS_INVALID, CLASS_NO_STEADY_STATE, CLASS_TURING, CLASS_UNSTABLE_K0, computeDispersion, resolveScales, type DomainSpec } from "../stability";
+import { computeDispersion, isTuring, resolveScales, type DomainSpec } from "../stability";
 import { computeFastestMode, createFastestModeWorkspace, type FastestMode } from "../stability/fastest-mode";
 import type { WavelengthPrediction, WavelengthPredictor } from "./wavelength-spec";
 
@@ -21,8 +21,6 @@ export interface KineticsPredictorOptions {
    */
   fastPath?: boolean;
 }
-
-const TURING_BLOCKERS = CLASS_HOPF | CLASS_UNSTABLE_K0 | CLASS_NO_STEADY_STATE | CLASS_INVALID;
 
 /**
  * The wavelength predictor of a kinetics from the stability engine: 2π/k* of the fastest-growing
@@ -53,7 +51,7 @@ export function createKineticsPredictor(kinetics: CompiledKinetics, options: Kin
     }
     const r = computeDispersion(kinetics, kineticsParams, { lengthScaleUm, timeScaleS, gridSize: options.gridSize, domain });
     const flags = r.classification.flags;
-    const turing = (flags & CLASS_TURING) !== 0 && (flags & TURING_BLOCKERS) === 0;
+    const turing = isTuring(flags);
     if (domain && r.domain) {
       const m = r.domain.fastestMode;
       if (m.wavelengthUm === null) return null;
@@ -68,6 +66,6 @@ export function createKineticsPredictor(kinetics: CompiledKinetics, options: Kin
 /** The general path's answer from the fast path's numbers (wavelength as in stability/scales: 2πℓ/k). */
 function fastPrediction(m: FastestMode, lengthScaleUm: number | null): WavelengthPrediction | null {
   if (!(m.kStar > 0) || lengthScaleUm === null) return null;
-  const turing = (m.flags & CLASS_TURING) !== 0 && (m.flags & TURING_BLOCKERS) === 0;
+  const turing = isTuring(m.flags);
   return { wavelengthUm: (2 * Math.PI * lengthScaleUm) / m.kStar, turing: turing && m.kind === "turing" };
 }

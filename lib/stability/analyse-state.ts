@@ -4,7 +4,6 @@
  * the class flags (SCIENCE.md §1).
  */
 import type { CompiledKinetics } from "../kinetics/types";
-import { CLASS_HOPF, CLASS_UNSTABLE_K0 } from "./classes";
 import { checkDiffusion } from "./diffusion-check";
 import {
   chooseKMax, classifyAtZero, classifyPeak, createScanWorkspace, isInteriorMax, refinePeak, scanGrid,
@@ -87,9 +86,4 @@ function findBands(ws: ScanWorkspace, kMax: number): [number, number][] {
   }
   if (!Number.isNaN(start)) bands.push([start, ws.k[ws.size - 1]]);
   return bands;
-}
-
-/** True when the state is stable without diffusion (no Hopf, no real growth at k = 0). */
-export function isStableAtZero(flags: number): boolean {
-  return (flags & (CLASS_HOPF | CLASS_UNSTABLE_K0)) === 0;
 }

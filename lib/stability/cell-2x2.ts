@@ -7,7 +7,7 @@
  * with S = Du + Dv, P = Du·Dv, c = Dv f_u + Du g_v, T₀ = tr J, Δ₀ = det J (derived here from
  * the characteristic polynomial of J − qD, Murray 2003 §2.3). Allocation-free.
  */
-import { CLASS_HOPF, CLASS_TURING, CLASS_UNSTABLE_K0 } from "./classes";
+import { CLASS_HOPF, CLASS_PEAK, CLASS_UNSTABLE_K0 } from "./classes";
 import { maximiseGolden } from "./roots";
 
 export interface Cell2x2Peak {
@@ -83,7 +83,7 @@ export function analyseCell2x2(J: ArrayLike<number>, Du: number, Dv: number, kMa
   else k = maximiseGolden((x) => sigma2(fu, fv, gu, gv, Du, Dv, x * x), lo, hi, 1e-10 * hi);
   const sk = sigma2(fu, fv, gu, gv, Du, Dv, k * k);
   if (sk > tol) {
-    flags |= CLASS_TURING;
+    flags |= CLASS_PEAK;
     peak.k = k;
     peak.sigma = sk;
   }

@@ -7,8 +7,8 @@
 import { KineticsInputError } from "../kinetics/errors";
 import { resolveParameters } from "../kinetics/parameters";
 import type { CompiledKinetics, PhysicalScales } from "../kinetics/types";
-import { analyseState, isStableAtZero, type ScanOptions, type StateAnalysis } from "./analyse-state";
-import { CLASS_TURING, classLabel, classNames, type InstabilityClass } from "./classes";
+import { analyseState, type ScanOptions, type StateAnalysis } from "./analyse-state";
+import { classLabel, classNames, isStableAtZero, isTuring, type InstabilityClass } from "./classes";
 import { describeDomain, type DomainResult } from "./describe-domain";
 import type { DomainSpec } from "./domains";
 import { growthRatePerS, resolveScales, wavelengthUm, wavenumberPerUm, type ResolvedScales } from "./scales";
@@ -108,7 +108,7 @@ export function pickSteadyState(analyses: Pick<StateAnalysis, "flags">[], choice
     }
     return choice;
   }
-  const turing = analyses.findIndex((a) => isStableAtZero(a.flags) && (a.flags & CLASS_TURING) !== 0);
+  const turing = analyses.findIndex((a) => isTuring(a.flags));
   if (turing >= 0) return turing;
   const stable = analyses.findIndex((a) => isStableAtZero(a.flags));
   return stable >= 0 ? stable : 0;

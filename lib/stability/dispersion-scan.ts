@@ -3,7 +3,7 @@
  * (SCIENCE.md §1): a grid over k, local maxima refined by golden section, and the flags of
  * {@link ./classes}. Allocation-free for 2 species so Turing maps can call it per cell.
  */
-import { CLASS_HOPF, CLASS_TURING, CLASS_UNSTABLE_K0, CLASS_WAVE } from "./classes";
+import { CLASS_HOPF, CLASS_PEAK, CLASS_UNSTABLE_K0, CLASS_WAVE } from "./classes";
 import { eigenvalues, frobeniusNorm, leadingEigenvalue, shiftedJacobian } from "./eigen";
 import { maximiseGolden } from "./roots";
 
@@ -133,7 +133,7 @@ export function classifyAtZero(ws: ScanWorkspace, tol: number, imTol: number): n
 /** Flag of one refined peak: Turing if real, wave if complex, 0 if not growing. */
 export function classifyPeak(peak: Peak, tol: number, imTol: number): number {
   if (!(peak.sigma > tol)) return 0;
-  return peak.imSigma > imTol ? CLASS_WAVE : CLASS_TURING;
+  return peak.imSigma > imTol ? CLASS_WAVE : CLASS_PEAK;
 }
 
 /** Tolerances relative to the size of J: growth below tol counts as zero, |Im| below imTol as real. */

@@ -13,7 +13,7 @@
  * such differences, so the fast path must reproduce computeDispersion, not improve on it.
  */
 import type { CompiledKinetics } from "../kinetics/types";
-import { CLASS_HOPF, CLASS_TURING, CLASS_UNSTABLE_K0 } from "./classes";
+import { CLASS_HOPF, CLASS_PEAK, CLASS_UNSTABLE_K0 } from "./classes";
 import {
   chooseKMax, classifyAtZero, classifyPeak, createScanWorkspace, refinePeak, scanGrid, tolerancesFor, type Peak, type ScanWorkspace,
 } from "./dispersion-scan";
@@ -23,7 +23,7 @@ import { findSteadyStates, MAX_STEADY_STATES } from "./steady-states";
 export interface FastestMode {
   /** Index of the analysed state among the found ones ("auto" choice of computeDispersion). */
   stateIndex: number;
-  /** Class flags of that state (CLASS_TURING, CLASS_HOPF, CLASS_UNSTABLE_K0), as computeDispersion's. */
+  /** Class flags of that state (CLASS_PEAK, CLASS_HOPF, CLASS_UNSTABLE_K0), as computeDispersion's. */
   flags: number;
   /** Fastest-growing k > 0 (model units⁻¹), or NaN when no k > 0 mode grows. */
   kStar: number;
@@ -95,7 +95,7 @@ export function computeFastestMode(kinetics: CompiledKinetics, p: ArrayLike<numb
       }
     }
     const stable0 = (flags & (CLASS_HOPF | CLASS_UNSTABLE_K0)) === 0;
-    const r = stable0 && flags & CLASS_TURING ? 3 : stable0 ? 2 : 1;
+    const r = stable0 && flags & CLASS_PEAK ? 3 : stable0 ? 2 : 1;
     if (r > rank) {
       rank = r;
       chosen = { stateIndex: s, flags, kStar: bestK, sigmaStar: bestSigma, imSigmaStar: bestIm, kind };

@@ -1,8 +1,8 @@
 /** Public API of the linear-stability core: steady states, dispersion relation, Turing maps, sensitivities, gradients. */
 export { analyseState, type ClassifiedPeak, type ScanOptions, type StateAnalysis } from "./analyse-state";
 export {
-  CLASS_HOPF, CLASS_INVALID, CLASS_LEGEND, CLASS_NO_STEADY_STATE, CLASS_STABLE, CLASS_TURING, CLASS_UNSTABLE_K0, CLASS_WAVE,
-  classLabel, classNames, type InstabilityClass,
+  CLASS_HOPF, CLASS_INVALID, CLASS_LEGEND, CLASS_NO_STEADY_STATE, CLASS_STABLE, CLASS_PEAK, CLASS_UNSTABLE_K0, CLASS_WAVE,
+  classLabel, classNames, classOf, isStableAtZero, isTuring, MAP_CLASSES, type InstabilityClass, type MapClass,
 } from "./classes";
 export { computeDispersion, pickSteadyState, type DispersionOptions, type DispersionResult, type GrowthPeak } from "./compute-dispersion";
 export type { DomainResult, ModeGrowth } from "./describe-domain";

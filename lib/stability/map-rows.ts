@@ -7,7 +7,7 @@
  */
 import { KineticsAnalysisError } from "../kinetics/errors";
 import type { CompiledKinetics } from "../kinetics/types";
-import { CLASS_HOPF, CLASS_INVALID, CLASS_NO_STEADY_STATE, CLASS_TURING, CLASS_UNSTABLE_K0 } from "./classes";
+import { CLASS_HOPF, CLASS_INVALID, CLASS_NO_STEADY_STATE, CLASS_PEAK, CLASS_UNSTABLE_K0 } from "./classes";
 import { analyseCell2x2 } from "./cell-2x2";
 import { checkDiffusion } from "./diffusion-check";
 import {
@@ -54,7 +54,7 @@ export function computeMapRows(kinetics: CompiledKinetics, plan: MapPlan, y0: nu
       for (let s = 0; s < m; s++) {
         const flags = analyseCell(kinetics, p, states, s, ws, plan.wavenumbers, peak);
         const stable0 = flags >= 0 && (flags & (CLASS_HOPF | CLASS_UNSTABLE_K0)) === 0;
-        const r = flags < 0 ? 0 : stable0 && flags & CLASS_TURING ? 3 : stable0 ? 2 : 1;
+        const r = flags < 0 ? 0 : stable0 && flags & CLASS_PEAK ? 3 : stable0 ? 2 : 1;
         if (r > rank) {
           rank = r; chosen = s; chosenFlags = flags; chosenSigma = peak.sigma; chosenK = peak.k;
           if (r === 3) break;

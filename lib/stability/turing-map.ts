@@ -4,7 +4,7 @@
  * equals a target ± tolerance. In-process; `lib/parallel` runs the same rows on worker threads.
  */
 import type { CompiledKinetics } from "../kinetics/types";
-import { CLASS_INVALID, CLASS_LEGEND, CLASS_NO_STEADY_STATE, CLASS_TURING } from "./classes";
+import { CLASS_LEGEND, classOf, isTuring, MAP_CLASSES } from "./classes";
 import { contourSegments } from "./map-contour";
 import { planTuringMap, type MapPlan, type TuringMapOptions } from "./map-plan";
 import { computeMapRows, type MapRows } from "./map-rows";
@@ -24,15 +24,15 @@ export interface TuringMapResult {
   /** ℓ: multiply `wavelength` by this for µm (null without a length scale). */
   lengthScaleUm: number | null;
   timeScaleS: number | null;
-  /** Fraction of the cells with the Turing flag. */
+  /** Fraction of the cells that are Turing (stable at k = 0, unstable at some k > 0; see isTuring). */
   turingFraction: number;
-  /** Cells per class name (a cell with two flags counts in both). */
+  /** Cells per exclusive class (see classOf and MAP_CLASSES); they add up to nx·ny. */
   counts: Record<string, number>;
   target: null | {
     /** Target and tolerance in model units (µm = × lengthScaleUm). */
     wavelength: number;
     tolerance: number;
-    /** 1 where the Turing wavelength is within target ± tolerance. */
+    /** 1 where the cell is Turing and its wavelength is within target ± tolerance. */
     match: Uint8Array;
     matchCount: number;
     /** Segments [x1, y1, x2, y2] in parameter values where the wavelength equals the target. */
@@ -60,12 +60,8 @@ export function summariseTuringMap(kinetics: Pick<CompiledKinetics, "id" | "name
     wavelength.set(b.wavelength, b.y0 * nx);
     sigmaStar.set(b.sigmaStar, b.y0 * nx);
   }
-  const counts: Record<string, number> = Object.fromEntries(Object.keys(CLASS_LEGEND).map((k) => [k, 0]));
-  for (let i = 0; i < size; i++) {
-    const c = classes[i];
-    if (c === 0) counts.stable++;
-    for (const [name, bit] of Object.entries(CLASS_LEGEND)) if (bit !== 0 && (c & bit) !== 0) counts[name]++;
-  }
+  const counts: Record<string, number> = Object.fromEntries(MAP_CLASSES.map((c) => [c.name, 0]));
+  for (let i = 0; i < size; i++) counts[classOf(classes[i])]++;
   let target: TuringMapResult["target"] = null;
   if (plan.target) {
     const { wavelength: lt, tolerance } = plan.target;
@@ -73,7 +69,7 @@ export function summariseTuringMap(kinetics: Pick<CompiledKinetics, "id" | "name
     const field = new Float64Array(size);
     let matchCount = 0;
     for (let i = 0; i < size; i++) {
-      const turing = (classes[i] & CLASS_TURING) !== 0 && (classes[i] & (CLASS_NO_STEADY_STATE | CLASS_INVALID)) === 0;
+      const turing = isTuring(classes[i]);
       field[i] = turing ? wavelength[i] - lt : NaN;
       if (turing && Math.abs(wavelength[i] - lt) <= tolerance) {
         match[i] = 1;

@@ -10,10 +10,12 @@ const command: CliCommand = {
   summary: "Sweep two parameters and map where the kinetics is Turing unstable, with wavelengths",
   help: `Usage: cli turing-map --kinetics <id> --x name:min:max:n[:log] --y name:min:max:n[:log] [options] [--json]
 
-Classifies every cell of an nx × ny parameter box (stable, Turing, Hopf, wave, unstable at
-k = 0; combinations are bit flags, see "legend"), with the predicted wavelength 2π/k* per cell,
-the fraction of the box that is Turing unstable, and the cells and contour where the wavelength
-equals a target. Rows run in parallel on worker threads.
+Classifies every cell of an nx × ny parameter box, with the predicted wavelength 2π/k* per cell,
+the fraction of the box that is Turing unstable (stable at k = 0, unstable at some k > 0), and
+the cells and contour where the wavelength equals a target. "classes" holds bit flags per cell
+(see "legend"); "counts" gives the cells of each exclusive class (stable, Turing, Turing with
+Hopf, unstable at k = 0 with a peak at k > 0, wave, Hopf, unstable at k = 0, no steady state,
+invalid) and adds up to nx × ny. Rows run in parallel on worker threads.
 
 Options:
   --kinetics <id>          catalogue id (see \`cli kinetics list\`)
@@ -74,7 +76,7 @@ Limit: at most ${MAX_MAP_CELLS} cells.`,
       const labels = Object.entries(r.counts).filter(([, c]) => c > 0).map(([k, c]) => `${k} ${c}`).join(", ");
       const text = `${r.kinetics.name}: ${r.nx} × ${r.ny} cells over ${r.x.name} × ${r.y.name} in ${r.elapsedMs} ms (${r.workers} workers)\nTuring fraction ${(100 * r.turingFraction).toFixed(2)} %; ${labels}` +
         (r.target ? `\ncells within target: ${r.target.matchCount}; contour segments: ${r.target.contour.length}` : "") +
-        `\nlegend: ${Object.keys(r.legend).map((k) => `${k}=${r.legend[k]}`).join(", ")} (${classLabel(3)} = 3)`;
+        `\nlegend of the bit flags: ${Object.keys(r.legend).map((k) => `${k}=${r.legend[k]}`).join(", ")} (3 = ${classLabel(3)})`;
       return { json, text };
     } catch (err) {
       throw asCliError(err);

@@ -19,8 +19,9 @@ describe("classification (SCIENCE.md §1)", () => {
 
   it("Turing + Hopf together: Brusselator with b above both thresholds", () => {
     const r = computeDispersion(brusselator, { a: 1.5, b: 3.4, Du: 1, Dv: 10 }); // b_c ≈ 2.17, b_H = 3.25
-    expect(r.classification.classes).toEqual(["turing", "hopf"]);
-    expect(r.classification.label).toBe("Turing + Hopf (k = 0)");
+    // One definition of Turing (stable at k = 0; Murray 2003 ch. 2): a k > 0 peak on top of Hopf is a mixed class of its own.
+    expect(r.classification.classes).toEqual(["turing-hopf"]);
+    expect(r.classification.label).toBe("Turing with Hopf (k = 0)");
     expect(r.fastest!.kind).toBe("turing");
   });
 
@@ -35,7 +36,9 @@ describe("classification (SCIENCE.md §1)", () => {
   it("unstable at k = 0: a saddle (FitzHugh–Nagumo with b = 2, det J = ε(1 − b) < 0 at u* = 0)", () => {
     const r = computeDispersion(getCatalogueKinetics("fitzhugh-nagumo"), { b: 2 }, { steadyState: 1 });
     expect(r.steadyState.values.u).toBeCloseTo(0, 12);
-    expect(r.classification.classes).toContain("unstable-k0");
+    // A saddle is unstable at k = 0 whatever grows at k > 0; with a k > 0 peak it is its own mixed class.
+    expect(r.classification.classes).toHaveLength(1);
+    expect(["unstable-k0", "peak-unstable-k0"]).toContain(r.classification.classes[0]);
   });
 
   it("wave (k > 0): the three-species catalogue model at its defaults, and a linear constructed case", () => {

@@ -44,7 +44,7 @@ export function FitMapPanel({ labId, model, condition, slug }: { labId: string; 
             {map.error && <Notice tone="error">{map.error.message}</Notice>}
             {m ? (
               <FitFigure filename={`${slug}-turing-map-${condition}`} testId="fit-map-figure">
-                <FitTuringMap nx={m.nx} ny={m.ny} x={m.x} y={m.y} classes={m.classes} legend={m.legend} wavelengthUm={m.wavelength.map((v) => (v === null ? null : v * ell))}
+                <FitTuringMap nx={m.nx} ny={m.ny} x={m.x} y={m.y} classes={m.classes} wavelengthUm={m.wavelength.map((v) => (v === null ? null : v * ell))}
                   contour={m.target?.contour ?? null} point={{ x: pred.parameters[x], y: pred.parameters[y] }} measuredUm={pred.measuredMeanUm} />
               </FitFigure>
             ) : !map.error && <p className="text-sm text-ink-soft">Computing the map…</p>}

@@ -85,7 +85,7 @@ export function TuringMapPanel({ labId, info, base }: { labId: string; info: Kin
             {map.error && <div className="mb-3"><Notice tone="error" testId="map-error">{map.error.message}</Notice></div>}
             {m ? (
               <div className={map.error ? "opacity-50" : ""}>
-                <TuringMapHeatmap nx={m.nx} ny={m.ny} x={m.x} y={m.y} classes={m.classes} wavelength={m.wavelength.map((v) => (v === null ? null : v * lf))} wavelengthUnit={lengthUnit} legend={m.legend} counts={m.counts} match={m.target?.match ?? null} contour={m.target?.contour ?? null} />
+                <TuringMapHeatmap nx={m.nx} ny={m.ny} x={m.x} y={m.y} classes={m.classes} wavelength={m.wavelength.map((v) => (v === null ? null : v * lf))} wavelengthUnit={lengthUnit} counts={m.counts} match={m.target?.match ?? null} contour={m.target?.contour ?? null} />
               </div>
             ) : !map.error && <p className="text-sm text-ink-soft">Computing the map…</p>}
           </div>
