@@ -59,6 +59,7 @@ export type RoiInput = z.infer<typeof roiSchema>;
 export const comparisonQuerySchema = z.object({
   a: z.string().trim().max(120, "a: at most 120 characters").optional(),
   b: z.string().trim().max(120, "b: at most 120 characters").optional(),
+  replicate: z.enum(["specimen", "image"], { message: "replicate: choose “specimen” (biological replicates, the default) or “image”" }).optional(),
 });
 
 /** Derived products a finished image readout stores next to the original. */

@@ -2,6 +2,13 @@
  * Condition comparison of a study: the latest finished readout of each upload, grouped by the
  * specimen's condition, with mean ± 95 % CI (t, n − 1) per condition and Welch's t-test with
  * Hedges' g between two chosen conditions (SCIENCE.md §6).
+ *
+ * Replicates as biologists count them: specimens are the biological replicates; several images
+ * of one specimen are technical replicates and are averaged first, so n counts specimens and the
+ * statistics use one value per specimen (treating images as independent is pseudo-replication;
+ * Hurlbert 1984, Ecol. Monogr. 54:187–211; Lazic 2010, BMC Neurosci. 11:5). An identical file
+ * (same SHA-256) uploaded again to a specimen is counted once. `replicate: "image"` counts every
+ * image instead, with a warning.
  */
 import { summarize, welchTTest, type WelchResult } from "@/lib/spacing";
 import type { LabContext } from "../access";
@@ -24,14 +31,28 @@ export interface ComparisonPoint {
   readoutCreatedAt: string;
 }
 
+/** One biological replicate: the mean of its images' wavelengths (technical replicates). */
+export interface SpecimenValue {
+  specimenId: string;
+  specimenLabel: string;
+  wavelengthUm: number;
+  images: number;
+}
+
+export type ReplicateUnit = "specimen" | "image";
+
 export interface ConditionGroup {
   condition: string;
+  /** The replicates the statistics use: specimens (default) or images (`replicate: "image"`). */
   n: number;
+  nSpecimens: number;
+  nImages: number;
   meanUm: number;
   sdUm: number | null;
   semUm: number | null;
   /** 95 % CI of the mean (t with n − 1 df); null for n < 2. */
   ci95Um: [number, number] | null;
+  specimens: SpecimenValue[];
   points: ComparisonPoint[];
 }
 
@@ -39,6 +60,7 @@ export interface ConditionComparison {
   studyId: string;
   studyName: string;
   conditions: string[];
+  replicate: ReplicateUnit;
   groups: ConditionGroup[];
   /** Uploads left out, with why (no finished readout, or no significant period). */
   excluded: Array<{ uploadId: string; filename: string; specimenLabel: string; condition: string; reason: string }>;
@@ -47,7 +69,8 @@ export interface ConditionComparison {
   warnings: string[];
 }
 
-export async function compareConditions(ctx: LabContext, studyId: string, query: { a?: string; b?: string }): Promise<ConditionComparison> {
+export async function compareConditions(ctx: LabContext, studyId: string, query: { a?: string; b?: string; replicate?: ReplicateUnit }): Promise<ConditionComparison> {
+  const replicate: ReplicateUnit = query.replicate ?? "specimen";
   const m = await database();
   const study = await findStudy(ctx, studyId);
   const specimens = await m.Specimen.findAll({ where: { labId: ctx.labId, studyId }, order: [["label", "asc"]] });
@@ -59,10 +82,16 @@ export async function compareConditions(ctx: LabContext, studyId: string, query:
 
   const points: ComparisonPoint[] = [];
   const excluded: ConditionComparison["excluded"] = [];
+  const firstOfFile = new Map<string, string>(); // specimenId + SHA-256 → the first upload's file name
+  const specimensOfFile = new Map<string, Set<string>>();
   for (const u of uploads) {
     const s = bySpecimen.get(u.specimenId)!;
     const r = latest.get(u.id);
     const base = { uploadId: u.id, filename: u.filename, specimenLabel: s.label, condition: s.condition };
+    const same = firstOfFile.get(`${u.specimenId}:${u.sha256}`);
+    if (same !== undefined) { excluded.push({ ...base, reason: `the same file as “${same}” of this specimen (identical SHA-256), counted once` }); continue; }
+    firstOfFile.set(`${u.specimenId}:${u.sha256}`, u.filename);
+    specimensOfFile.set(u.sha256, (specimensOfFile.get(u.sha256) ?? new Set()).add(s.label));
     if (!r || !r.result) { excluded.push({ ...base, reason: "no finished readout yet" }); continue; }
     const h = headlineOf(r.result as unknown as ReadoutResult);
     if (h.wavelengthUm === null) { excluded.push({ ...base, reason: "its latest readout found no significant period" }); continue; }
@@ -72,13 +101,17 @@ export async function compareConditions(ctx: LabContext, studyId: string, query:
   const groups: ConditionGroup[] = conditions.flatMap((condition): ConditionGroup[] => {
     const mine = points.filter((p) => p.condition === condition);
     if (mine.length === 0) return [];
-    const values = mine.map((p) => p.wavelengthUm);
-    if (values.length < 2) return [{ condition, n: 1, meanUm: values[0], sdUm: null, semUm: null, ci95Um: null, points: mine }];
+    const perSpecimen = averageBySpecimen(mine);
+    const values = replicate === "specimen" ? perSpecimen.map((x) => x.wavelengthUm) : mine.map((p) => p.wavelengthUm);
+    const counts = { nSpecimens: perSpecimen.length, nImages: mine.length, specimens: perSpecimen, points: mine };
+    if (values.length < 2) return [{ condition, n: values.length, meanUm: values[0], sdUm: null, semUm: null, ci95Um: null, ...counts }];
     const s = summarize(values);
-    return [{ condition, n: s.n, meanUm: s.mean, sdUm: s.sd, semUm: s.sem, ci95Um: s.ci95, points: mine }];
+    return [{ condition, n: s.n, meanUm: s.mean, sdUm: s.sd, semUm: s.sem, ci95Um: s.ci95, ...counts }];
   });
+  const valuesOf = (g: ConditionGroup) => (replicate === "specimen" ? g.specimens.map((x) => x.wavelengthUm) : g.points.map((p) => p.wavelengthUm));
+  const unit = replicate === "specimen" ? "specimens" : "images";
 
-  for (const [k, v] of Object.entries(query)) {
+  for (const [k, v] of Object.entries({ a: query.a, b: query.b })) {
     if (v && !conditions.includes(v)) throw new AppError("bad_input", `${k}: the study has no condition “${v}” (its conditions are: ${conditions.join(", ") || "none"})`);
   }
   // Default pair: the conditions with the most readouts (a test needs n ≥ 2 on both sides).
@@ -91,10 +124,10 @@ export async function compareConditions(ctx: LabContext, studyId: string, query:
   else if (a === b) note = "Choose two different conditions.";
   else {
     const ga = groups.find((g) => g.condition === a), gb = groups.find((g) => g.condition === b);
-    if (!ga || !gb || ga.n < 2 || gb.n < 2) note = `Welch's t-test needs at least 2 readouts per condition (${a}: ${ga?.n ?? 0}, ${b}: ${gb?.n ?? 0}).`;
+    if (!ga || !gb || ga.n < 2 || gb.n < 2) note = `Welch's t-test needs at least 2 ${unit} with a readout per condition (${a}: ${ga?.n ?? 0}, ${b}: ${gb?.n ?? 0}).`;
     else {
       try {
-        welch = welchTTest(ga.points.map((p) => p.wavelengthUm), gb.points.map((p) => p.wavelengthUm));
+        welch = welchTTest(valuesOf(ga), valuesOf(gb));
       } catch (err) {
         note = err instanceof Error ? err.message : String(err);
       }
@@ -102,14 +135,32 @@ export async function compareConditions(ctx: LabContext, studyId: string, query:
   }
   const used = [...new Set(points.map((p) => p.measure))];
   const warnings: string[] = [];
+  if (replicate === "image" && groups.some((g) => g.nImages > g.nSpecimens)) {
+    warnings.push("Every image counts as a replicate here, but images of one specimen are not independent (pseudo-replication): the CI and the p-value are too small. Count specimens for inference.");
+  }
+  for (const labels of specimensOfFile.values()) {
+    if (labels.size > 1) warnings.push(`One identical file (same SHA-256) was uploaded to ${labels.size} specimens (${[...labels].sort().join(", ")}); check that each specimen has its own image.`);
+  }
   if (used.length > 1) {
     const converted = used.includes("hex-equivalent-from-nn") ? "; nearest-neighbour distances of spots were converted to Fourier wavelengths (√3/2 · a) so like is compared with like" : "";
     warnings.push(`The values mix ${used.map((u) => MEASURE_LABELS[u]).join(" and ")}; check that they measure the same period${converted}.`);
   }
   return {
-    studyId, studyName: study.name, conditions, groups, excluded, test: { a, b, welch, note },
+    studyId, studyName: study.name, conditions, replicate, groups, excluded, test: { a, b, welch, note },
     measures: Object.fromEntries(used.map((u) => [u, MEASURE_LABELS[u]])), warnings,
   };
+}
+
+/** Technical replicates first: the mean wavelength of each specimen's images, in first-seen order. */
+function averageBySpecimen(points: ComparisonPoint[]): SpecimenValue[] {
+  const by = new Map<string, SpecimenValue & { sum: number }>();
+  for (const p of points) {
+    const x = by.get(p.specimenId) ?? { specimenId: p.specimenId, specimenLabel: p.specimenLabel, wavelengthUm: 0, images: 0, sum: 0 };
+    x.sum += p.wavelengthUm;
+    x.images++;
+    by.set(p.specimenId, x);
+  }
+  return [...by.values()].map(({ sum, ...x }) => ({ ...x, wavelengthUm: sum / x.images }));
 }
 
 const cell = (v: string | number | null) => {
@@ -121,15 +172,17 @@ const cell = (v: string | number | null) => {
 /** One row per readout used, with its condition's summary repeated; Welch's result in # lines on top. */
 export function comparisonToCsv(c: ConditionComparison): string {
   const lines: string[] = [];
-  lines.push(`# Condition comparison of study ${cell(c.studyName)}; lengths in µm; latest finished readout per upload`);
+  lines.push(`# Condition comparison of study ${cell(c.studyName)}; lengths in µm; latest finished readout per upload; replicates: ${c.replicate === "specimen" ? "specimens (the images of a specimen averaged first)" : "images (pseudo-replicated)"}`);
   if (c.test.welch) {
     const w = c.test.welch;
     lines.push(`# Welch t-test ${c.test.a} vs ${c.test.b}: difference ${w.meanDifference} um; t ${w.t}; df ${w.df}; p ${w.pValue}; 95% CI ${w.ci95[0]} to ${w.ci95[1]} um; Hedges g ${w.hedgesG}`);
   } else if (c.test.note) lines.push(`# ${c.test.note}`);
-  lines.push(["condition", "specimen", "file", "readout_id", "measure", "wavelength_um", "uncertainty_um", "pixel_size_um_per_px", "readout_created_at", "condition_n", "condition_mean_um", "condition_sd_um", "condition_ci95_low_um", "condition_ci95_high_um"].join(","));
+  lines.push(["condition", "specimen", "file", "readout_id", "measure", "wavelength_um", "uncertainty_um", "pixel_size_um_per_px", "readout_created_at", "specimen_mean_um", "specimen_images", "condition_n", "condition_specimens", "condition_images", "condition_mean_um", "condition_sd_um", "condition_ci95_low_um", "condition_ci95_high_um"].join(","));
   for (const g of c.groups) {
+    const ofSpecimen = new Map(g.specimens.map((x) => [x.specimenId, x]));
     for (const p of g.points) {
-      lines.push([p.condition, p.specimenLabel, p.filename, p.readoutId, p.measure, p.wavelengthUm, p.uncertaintyUm, p.pixelSizeUm, p.readoutCreatedAt, g.n, g.meanUm, g.sdUm, g.ci95Um?.[0] ?? null, g.ci95Um?.[1] ?? null].map(cell).join(","));
+      const sp = ofSpecimen.get(p.specimenId)!;
+      lines.push([p.condition, p.specimenLabel, p.filename, p.readoutId, p.measure, p.wavelengthUm, p.uncertaintyUm, p.pixelSizeUm, p.readoutCreatedAt, sp.wavelengthUm, sp.images, g.n, g.nSpecimens, g.nImages, g.meanUm, g.sdUm, g.ci95Um?.[0] ?? null, g.ci95Um?.[1] ?? null].map(cell).join(","));
     }
   }
   return lines.join("\n") + "\n";

@@ -18,7 +18,8 @@ function formatP(p: number): string {
 export function ConditionComparison({ labId, studyId }: { labId: string; studyId: string }) {
   const [a, setA] = useState("");
   const [b, setB] = useState("");
-  const query = new URLSearchParams({ ...(a ? { a } : {}), ...(b ? { b } : {}) }).toString();
+  const [replicate, setReplicate] = useState<"specimen" | "image">("specimen");
+  const query = new URLSearchParams({ ...(a ? { a } : {}), ...(b ? { b } : {}), ...(replicate === "image" ? { replicate } : {}) }).toString();
   const base = `/api/v1/labs/${labId}/studies/${studyId}/comparison`;
   const { data, error } = useSWR<Comparison>(`${base}${query ? `?${query}` : ""}`, fetchJson, { keepPreviousData: true, refreshInterval: 5000 });
   const csvHref = `${base}/csv${query ? `?${query}` : ""}`;
@@ -33,18 +34,27 @@ export function ConditionComparison({ labId, studyId }: { labId: string; studyId
         {data && data.groups.length > 0 && (
           <>
             <p className="text-sm text-ink-soft">The latest finished readout of each upload, grouped by the specimen&apos;s condition. Values: {Object.values(data.measures).join("; ")} (µm).</p>
+            <div className="flex flex-wrap items-center gap-2 text-sm" data-testid="replicate-choice">
+              <span className="text-ink-soft">Replicates:</span>
+              <select className={selectClass} value={replicate} onChange={(e) => setReplicate(e.target.value === "image" ? "image" : "specimen")} aria-label="what counts as a replicate" data-testid="replicate">
+                <option value="specimen">specimens (images of a specimen averaged first)</option>
+                <option value="image">every image (pseudo-replicated)</option>
+              </select>
+              {data.replicate === "specimen" && <span className="text-xs text-ink-soft">Specimens are the biological replicates; several images of one specimen are technical replicates, averaged before the statistics.</span>}
+            </div>
             <div className="grid gap-5 lg:grid-cols-[1fr_auto]">
               <table className="h-fit w-full text-sm" data-testid="comparison-table">
                 <thead>
                   <tr className="border-b border-rule text-left text-xs uppercase tracking-wide text-ink-soft">
-                    <th className="py-1.5 pr-3 font-medium">Condition</th><th className="py-1.5 pr-3 font-medium">n</th><th className="py-1.5 pr-3 font-medium">Mean</th><th className="py-1.5 pr-3 font-medium">SD</th><th className="py-1.5 font-medium">95 % CI of the mean</th>
+                    <th className="py-1.5 pr-3 font-medium">Condition</th><th className="py-1.5 pr-3 font-medium">n</th><th className="py-1.5 pr-3 font-medium">Specimens · images</th><th className="py-1.5 pr-3 font-medium">Mean</th><th className="py-1.5 pr-3 font-medium">SD</th><th className="py-1.5 font-medium">95 % CI of the mean</th>
                   </tr>
                 </thead>
                 <tbody>
                   {data.groups.map((g) => (
                     <tr key={g.condition} className="border-b border-rule/60" data-testid="comparison-row">
                       <td className="py-1.5 pr-3 font-medium">{g.condition}</td>
-                      <td className="num py-1.5 pr-3">{g.n}</td>
+                      <td className="num py-1.5 pr-3" data-testid="comparison-n">{g.n}</td>
+                      <td className="num py-1.5 pr-3" data-testid="comparison-counts">{g.nSpecimens} · {g.nImages}</td>
                       <td className="num py-1.5 pr-3 text-moss">{formatSig(g.meanUm)} µm</td>
                       <td className="num py-1.5 pr-3">{g.sdUm === null ? "—" : `${formatSig(g.sdUm, 3)} µm`}</td>
                       <td className="num py-1.5">{g.ci95Um ? `${formatSig(g.ci95Um[0])} – ${formatSig(g.ci95Um[1])} µm` : "— (n < 2)"}</td>
@@ -52,7 +62,7 @@ export function ConditionComparison({ labId, studyId }: { labId: string; studyId
                   ))}
                 </tbody>
               </table>
-              <ConditionDots groups={data.groups.map((g) => ({ condition: g.condition, mean: g.meanUm, ci95: g.ci95Um, values: g.points.map((p) => ({ value: p.wavelengthUm, label: `${p.specimenLabel} · ${p.filename}` })) }))} yLabel="wavelength (µm)" />
+              <ConditionDots groups={data.groups.map((g) => ({ condition: g.condition, mean: g.meanUm, ci95: g.ci95Um, values: data.replicate === "specimen" ? g.specimens.map((x) => ({ value: x.wavelengthUm, label: `${x.specimenLabel} · mean of ${x.images} image${x.images === 1 ? "" : "s"}` })) : g.points.map((p) => ({ value: p.wavelengthUm, label: `${p.specimenLabel} · ${p.filename}` })) }))} yLabel="wavelength (µm)" />
             </div>
             <div className="space-y-2 rounded-md border border-rule bg-paper px-3 py-2" data-testid="welch">
               <div className="flex flex-wrap items-center gap-2 text-sm">
