@@ -5,3 +5,4 @@ export { spacingsFromPositions, type PositionSpacings } from "./positions-1d";
 export { computeNearestNeighbours, type NearestNeighbourResult, type Field } from "./nearest-neighbours";
 export { welchTTest, type WelchResult } from "./welch-test";
 export { SpacingError } from "./errors";
+export { collectConditionSpellings, conditionKey, type ConditionSpellings } from "./condition-key";

@@ -56,4 +56,17 @@ describe("fit uncertainty with the spread between specimens", () => {
     expect(bad.status).toBe(400);
     expect(((await bad.json()) as { error: { message: string } }).error.message).toBe('uncertainty: uncertainty must be "per-readout" or "with-specimen-spread"');
   });
+
+  it("takes “Control” and “ CONTROL” as one condition, spelled as first given", async () => {
+    const b = body("with-specimen-spread");
+    b.data[1] = { ...b.data[1], condition: " CONTROL" };
+    b.data[0] = { ...b.data[0], condition: "Control" };
+    const res = await start(b);
+    expect(res.status).toBe(202);
+    const fit = (await res.json()) as FitDetailDto;
+    await cancelJob(w.labId, fit.jobId!).catch(() => undefined);
+    expect(fit.spec.data.map((d) => d.condition)).toEqual(["Control", "Control", "treated", "treated"]);
+    // One condition, so one spread: SD{40, 42} = √2 as above (hand-computed; common practice, no source).
+    expect(fit.provenance.settings.specimenSpreadUm).toBe("Control: SD 1.41 µm (n = 2); treated: SD 2.12 µm (n = 2)");
+  });
 });

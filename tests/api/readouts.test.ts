@@ -343,4 +343,17 @@ describe("condition comparison", () => {
     expect(wrong.status).toBe(400);
     expect((await errorOf(wrong)).message).toBe("replicate: choose “specimen” (biological replicates, the default) or “image”");
   }, 120_000);
+
+  it("takes “Kontrolle” and “kontrolle” as one condition, shown as first spelled, with a warning", async () => {
+    const study = await createStudy(ctxOf(), { name: "Spelling study", tissue: "skin", organism: "chick", description: null });
+    for (const [label, condition, x] of [["K1", "Kontrolle", 20], ["K2", "kontrolle", 22], ["T1", "treated", 30], ["T2", "Treated ", 31]] as const) {
+      const sp = await createSpecimen(ctxOf(), study.id, { label, condition, stage: null, genotype: null, notes: null });
+      await finished((await uploadFile(sp.id, `${label}.csv`, new TextEncoder().encode(`spacing_um\n${x - 1}\n${x + 1}\n`))).body.readout);
+    }
+    const c = (await (await api("GET /api/v1/labs/[labId]/studies/[studyId]/comparison", { studyId: study.id }, { query: "a=KONTROLLE&b=treated" })).json()) as ConditionComparison;
+    expect(c.conditions).toEqual(["Kontrolle", "treated"]);
+    expect(c.groups.map((g) => [g.condition, g.n, g.meanUm])).toEqual([["Kontrolle", 2, 21], ["treated", 2, 30.5]]);
+    expect(c.test.a).toBe("Kontrolle");
+    expect(c.warnings).toContain("“Kontrolle” and “kontrolle” were taken as one condition (conditions are matched without regard to case and spaces).");
+  }, 60_000);
 });

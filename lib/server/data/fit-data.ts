@@ -10,6 +10,7 @@ import type { FitDatumInput } from "@/lib/contracts/fit";
 import type { LabContext } from "../access";
 import { AppError } from "../errors";
 import { database } from "../services";
+import { collectConditionSpellings } from "@/lib/spacing";
 import { headlineOf, MEASURE_LABELS, type ReadoutResult } from "./readout-result";
 import type { FitDatumSource } from "./fit-spec-types";
 
@@ -41,6 +42,8 @@ export async function resolveFitData(ctx: LabContext, input: FitDatumInput[]): P
 
   const data: WavelengthDatum<DomainSpec>[] = [];
   const sources: FitDatumSource[] = [];
+  // Conditions are matched without regard to case and spaces ("Kontrolle" = "kontrolle"), shown as first spelled.
+  const spellings = collectConditionSpellings(input.map((d) => d.condition ?? (d.readoutId ? specimens.get(readouts.get(d.readoutId)?.specimenId ?? "")?.condition : undefined) ?? ""));
   input.forEach((d, i) => {
     const f = `data[${i}]`;
     const domain = toDomain(d.domain);
@@ -48,8 +51,9 @@ export async function resolveFitData(ctx: LabContext, input: FitDatumInput[]): P
       for (const k of ["condition", "kind", "wavelengthUm", "uncertaintyUm"] as const) {
         if (d[k] === undefined) throw bad(`${f}.${k}`, `a typed measurement needs ${k} (or give a readoutId instead)`);
       }
-      data.push({ condition: d.condition!, wavelengthUm: d.wavelengthUm!, uncertaintyUm: d.uncertaintyUm!, kind: d.kind!, ...(domain ? { domain } : {}) });
-      sources.push({ index: i, source: "typed", condition: d.condition!, kind: d.kind!, readoutId: null, measure: null, filename: null, specimenLabel: null, studyId: null, studyName: null, inputSha256: null, readoutSoftwareVersion: null });
+      const typedCondition = spellings.displayOf(d.condition!);
+      data.push({ condition: typedCondition, wavelengthUm: d.wavelengthUm!, uncertaintyUm: d.uncertaintyUm!, kind: d.kind!, ...(domain ? { domain } : {}) });
+      sources.push({ index: i, source: "typed", condition: typedCondition, kind: d.kind!, readoutId: null, measure: null, filename: null, specimenLabel: null, studyId: null, studyName: null, inputSha256: null, readoutSoftwareVersion: null });
       return;
     }
     for (const k of ["wavelengthUm", "uncertaintyUm"] as const) {
@@ -77,7 +81,7 @@ export async function resolveFitData(ctx: LabContext, input: FitDatumInput[]): P
     }
     if (!(uncertaintyUm !== null && uncertaintyUm > 0)) throw cannot(`${f}.readoutId`, `the readout of “${filename}” has no uncertainty, so it cannot be weighted; type the measurement with an uncertainty instead`);
     const s = specimens.get(r.specimenId);
-    const condition = d.condition ?? s?.condition ?? "";
+    const condition = spellings.displayOf(d.condition ?? s?.condition ?? "");
     if (!condition) throw bad(`${f}.condition`, "the readout's specimen has no condition; give one");
     const study = s ? studies.get(s.studyId) : undefined;
     data.push({ condition, wavelengthUm, uncertaintyUm, kind, ...(domain ? { domain } : {}) });

@@ -10,7 +10,7 @@
  * (same SHA-256) uploaded again to a specimen is counted once. `replicate: "image"` counts every
  * image instead, with a warning.
  */
-import { summarize, welchTTest, type WelchResult } from "@/lib/spacing";
+import { collectConditionSpellings, summarize, welchTTest, type WelchResult } from "@/lib/spacing";
 import type { LabContext } from "../access";
 import { AppError } from "../errors";
 import { database } from "../services";
@@ -75,6 +75,9 @@ export async function compareConditions(ctx: LabContext, studyId: string, query:
   const study = await findStudy(ctx, studyId);
   const specimens = await m.Specimen.findAll({ where: { labId: ctx.labId, studyId }, order: [["label", "asc"]] });
   const bySpecimen = new Map(specimens.map((s) => [s.id, s]));
+  // "Kontrolle" and "kontrolle" are one condition, shown as first spelled (SCIENCE.md §6).
+  const spellings = collectConditionSpellings(specimens.map((s) => s.condition));
+  const conditionOf = (s: { condition: string }) => spellings.displayOf(s.condition);
   const uploads = specimens.length ? await m.Upload.findAll({ where: { labId: ctx.labId, specimenId: specimens.map((s) => s.id) }, order: [["createdAt", "asc"]] }) : [];
   const readouts = uploads.length ? await m.Readout.findAll({ where: { labId: ctx.labId, uploadId: uploads.map((u) => u.id), status: "succeeded" }, order: [["createdAt", "desc"], ["id", "desc"]] }) : [];
   const latest = new Map<string, (typeof readouts)[number]>();
@@ -87,7 +90,7 @@ export async function compareConditions(ctx: LabContext, studyId: string, query:
   for (const u of uploads) {
     const s = bySpecimen.get(u.specimenId)!;
     const r = latest.get(u.id);
-    const base = { uploadId: u.id, filename: u.filename, specimenLabel: s.label, condition: s.condition };
+    const base = { uploadId: u.id, filename: u.filename, specimenLabel: s.label, condition: conditionOf(s) };
     const same = firstOfFile.get(`${u.specimenId}:${u.sha256}`);
     if (same !== undefined) { excluded.push({ ...base, reason: `the same file as “${same}” of this specimen (identical SHA-256), counted once` }); continue; }
     firstOfFile.set(`${u.specimenId}:${u.sha256}`, u.filename);
@@ -97,7 +100,7 @@ export async function compareConditions(ctx: LabContext, studyId: string, query:
     if (h.wavelengthUm === null) { excluded.push({ ...base, reason: "its latest readout found no significant period" }); continue; }
     points.push({ ...base, specimenId: s.id, readoutId: r.id, measure: h.measure, wavelengthUm: h.wavelengthUm, uncertaintyUm: h.uncertaintyUm, pixelSizeUm: r.pixelSizeUm, readoutCreatedAt: r.createdAt.toISOString() });
   }
-  const conditions = [...new Set(specimens.map((s) => s.condition))].sort((x, y) => x.localeCompare(y));
+  const conditions = [...new Set(specimens.map(conditionOf))].sort((x, y) => x.localeCompare(y));
   const groups: ConditionGroup[] = conditions.flatMap((condition): ConditionGroup[] => {
     const mine = points.filter((p) => p.condition === condition);
     if (mine.length === 0) return [];
@@ -111,13 +114,14 @@ export async function compareConditions(ctx: LabContext, studyId: string, query:
   const valuesOf = (g: ConditionGroup) => (replicate === "specimen" ? g.specimens.map((x) => x.wavelengthUm) : g.points.map((p) => p.wavelengthUm));
   const unit = replicate === "specimen" ? "specimens" : "images";
 
-  for (const [k, v] of Object.entries({ a: query.a, b: query.b })) {
+  const chosen = { a: query.a ? spellings.displayOf(query.a) : undefined, b: query.b ? spellings.displayOf(query.b) : undefined };
+  for (const [k, v] of Object.entries(chosen)) {
     if (v && !conditions.includes(v)) throw new AppError("bad_input", `${k}: the study has no condition “${v}” (its conditions are: ${conditions.join(", ") || "none"})`);
   }
   // Default pair: the conditions with the most readouts (a test needs n ≥ 2 on both sides).
   const withData = [...groups].sort((x, y) => Number(y.n >= 2) - Number(x.n >= 2)).map((g) => g.condition);
-  const a = query.a || withData[0] || null;
-  const b = query.b || withData.find((c) => c !== a) || null;
+  const a = chosen.a || withData[0] || null;
+  const b = chosen.b || withData.find((c) => c !== a) || null;
   let welch: WelchResult | null = null;
   let note: string | null = null;
   if (!a || !b) note = "Welch's t-test needs two conditions with readouts.";
@@ -138,6 +142,7 @@ export async function compareConditions(ctx: LabContext, studyId: string, query:
   if (replicate === "image" && groups.some((g) => g.nImages > g.nSpecimens)) {
     warnings.push("Every image counts as a replicate here, but images of one specimen are not independent (pseudo-replication): the CI and the p-value are too small. Count specimens for inference.");
   }
+  for (const group of spellings.merged()) warnings.push(`${group.map((x) => `“${x}”`).join(" and ")} were taken as one condition (conditions are matched without regard to case and spaces).`);
   for (const labels of specimensOfFile.values()) {
     if (labels.size > 1) warnings.push(`One identical file (same SHA-256) was uploaded to ${labels.size} specimens (${[...labels].sort().join(", ")}); check that each specimen has its own image.`);
   }
