@@ -13,17 +13,28 @@ function stretch(data: Float32Array, lowPct: number, highPct: number): Float32Ar
   return data.map((v) => Math.min(1, Math.max(0, (v - lo) / span)));
 }
 
+/** The Fourier image and where its frequencies lie, for drawing the peak ring over it. */
+export interface FftImage {
+  image: GreyImage;
+  /** Frequency at the image's edge, cycles/µm (the image spans ± this on both axes). */
+  maxFrequencyPerUm: number;
+  /** The peak's radius as a fraction of the half-width (null without a peak). */
+  ringFraction: number | null;
+}
+
 /**
  * log(1 + |F|²) of the analysed region, zero frequency at the centre (fftshift), 0..1 for
- * encodePng. Size = the padded transform (powers of two).
+ * encodePng. With a peak (`peakWavelengthPx`, source pixels) the image is cropped to ± 3 × the
+ * peak frequency (at least ± 16 bins), where the pattern's ring and its harmonics lie; the
+ * rest is only noise and would hide the ring.
  */
-export function renderFftMagnitude(image: GreyImage, options: ReadoutOptions): GreyImage {
+export function renderFftMagnitude(image: GreyImage, options: ReadoutOptions, peakWavelengthPx: number | null = null): FftImage {
   const settings = resolveReadoutSettings(options, image.width, image.height);
   const region = prepareRegion(image, settings);
   applyWindow(region.data, region.width, region.height, settings.window, settings.tukeyAlpha);
   const s = computePowerSpectrum(region.data, region.width, region.height);
   const W = s.padWidth, H = s.padHeight;
-  const out = new Float32Array(W * H);
+  const full = new Float32Array(W * H);
   let peak = 0;
   for (const p of s.power) if (p > peak) peak = p;
   const norm = peak > 0 ? 1e6 / peak : 1; // show six decades below the peak
@@ -31,13 +42,24 @@ export function renderFftMagnitude(image: GreyImage, options: ReadoutOptions): G
     for (let kx = 0; kx < s.halfWidth; kx++) {
       const v = Math.log10(1 + s.power[ky * s.halfWidth + kx] * norm);
       const y = (ky + H / 2) % H;
-      out[y * W + ((kx + W / 2) % W)] = v;
+      full[y * W + ((kx + W / 2) % W)] = v;
       // Hermitian mirror (−kx, −ky)
-      out[((H - ky + H / 2) % H) * W + ((W - kx + W / 2) % W)] = v;
+      full[((H - ky + H / 2) % H) * W + ((W - kx + W / 2) % W)] = v;
     }
   }
-  out[(H / 2) * W + W / 2] = 0; // the removed mean
-  return { width: W, height: H, data: stretch(out, 0, 1) };
+  full[(H / 2) * W + W / 2] = 0; // the removed mean
+  // Frequencies in cycles per analysed pixel; the peak's from the source-pixel wavelength.
+  const fPeak = peakWavelengthPx !== null && peakWavelengthPx > 0 ? region.binFactor / peakWavelengthPx : null;
+  const fMax = fPeak === null ? 0.5 : Math.min(0.5, Math.max(3 * fPeak, 16 / Math.min(W, H)));
+  const bx = Math.min(W / 2, Math.round(fMax * W)), by = Math.min(H / 2, Math.round(fMax * H));
+  const out = new Float32Array(4 * bx * by);
+  for (let y = 0; y < 2 * by; y++) out.set(full.subarray((H / 2 - by + y) * W + W / 2 - bx, (H / 2 - by + y) * W + W / 2 + bx), y * 2 * bx);
+  const edge = bx / W; // cycles per analysed pixel at the image's left/right edge
+  return {
+    image: { width: 2 * bx, height: 2 * by, data: stretch(out, 0, 1) },
+    maxFrequencyPerUm: edge / region.pixelSizeUm,
+    ringFraction: fPeak === null ? null : fPeak / edge,
+  };
 }
 
 /** The analysed region after ROI, inversion and flattening (before the window), stretched 0.5–99.5 %. */

@@ -40,7 +40,8 @@ export async function runImageReadout(
   const local = mapLocalWavelength(image, { ...options, axis: settings.profileAxis });
   await step(0.7, "local wavelength");
   await yieldToLoop();
-  const fft = await encodePng(renderFftMagnitude(image, options));
+  const fftImage = renderFftMagnitude(image, options, readout.wavelengthPx);
+  const fft = await encodePng(fftImage.image);
   const whole = renderPreview(image, { pixelSizeUm: settings.pixelSizeUm, flatten: "none" });
   const computeMs = Date.now() - t0;
   const scale = Math.min(1, PREVIEW_MAX_SIDE / Math.max(image.width, image.height));
@@ -69,6 +70,7 @@ export async function runImageReadout(
     pixelSizeSource: settings.pixelSizeSource,
     wavelength: numbers,
     preview: { width: previewWidth, height: previewHeight, scale: previewWidth / info.width },
+    fft: { maxFrequencyPerUm: fftImage.maxFrequencyPerUm, ringFraction: fftImage.ringFraction },
     computeMs,
   };
   return {

@@ -15,6 +15,8 @@ export interface ImageReadoutResult {
   wavelength: Omit<WavelengthReadout, "radialSpectrum" | "angularPower">;
   /** Stored preview size (px) and preview px per source px. */
   preview: { width: number; height: number; scale: number };
+  /** The Fourier image spans ± maxFrequencyPerUm on both axes; the peak ring at ringFraction of the half-width (absent on readouts made before it was cropped). */
+  fft?: { maxFrequencyPerUm: number; ringFraction: number | null };
   computeMs: number;
 }
 

@@ -80,9 +80,22 @@ export function ImageResult({ readout, result }: { readout: ReadoutDetailDto; re
           <p className="mt-1 text-xs text-ink-soft">Whole image, contrast stretched; amber outline: the ROI ({roi ? "as set" : "none — the whole image was read"}).</p>
         </Panel>
         <Panel title="FFT magnitude">
-          {/* eslint-disable-next-line @next/next/no-img-element -- a stored PNG served by the API */}
-          {readout.derived["fft.png"] && <img src={readout.derived["fft.png"]} alt="log power of the 2-D Fourier transform, zero frequency at the centre" className="block h-auto w-full max-w-md rounded border border-rule" data-testid="readout-fft" style={{ imageRendering: "pixelated" }} />}
-          <p className="mt-1 text-xs text-ink-soft">log(1 + |F|²) of the analysed region after flattening and window; zero frequency at the centre, six decades shown. Bright ring or spots = the dominant period.</p>
+          {readout.derived["fft.png"] && (
+            <div className="relative w-full max-w-md">
+              {/* eslint-disable-next-line @next/next/no-img-element -- a stored PNG served by the API */}
+              <img src={readout.derived["fft.png"]} alt="log power of the 2-D Fourier transform, zero frequency at the centre" className="block h-auto w-full rounded border border-rule" data-testid="readout-fft" style={{ imageRendering: "pixelated" }} />
+              {result.fft?.ringFraction != null && w.periodFound && (
+                <svg viewBox="-1 -1 2 2" preserveAspectRatio="none" className="pointer-events-none absolute inset-0 h-full w-full" aria-hidden="true" data-testid="readout-fft-ring">
+                  <ellipse cx={0} cy={0} rx={result.fft.ringFraction} ry={result.fft.ringFraction} fill="none" stroke="#1f5c45" strokeWidth={1.5} strokeDasharray="4 3" vectorEffect="non-scaling-stroke" />
+                </svg>
+              )}
+            </div>
+          )}
+          <p className="mt-1 text-xs text-ink-soft">
+            log(1 + |F|²) of the analysed region after flattening and window; zero frequency at the centre, six decades shown
+            {result.fft ? <>, frequencies up to <span className="num">± {formatSig(result.fft.maxFrequencyPerUm, 3)}</span> cycles/µm on both axes</> : null}.
+            {result.fft?.ringFraction != null && w.periodFound ? " Dashed green ring: the peak frequency 1/λ." : " Bright ring or spots = the dominant period."}
+          </p>
         </Panel>
       </div>
       <Panel title="Radially averaged power spectrum">
