@@ -88,7 +88,7 @@ function analyseCell(kinetics: CompiledKinetics, p: Float64Array, states: Float6
     if (!(dMin > 0)) return -1;
     const J = ws.J;
     if (!(Number.isFinite(J[0]) && Number.isFinite(J[1]) && Number.isFinite(J[2]) && Number.isFinite(J[3]))) return -1;
-    return analyseCell2x2(J, ws.D[0], ws.D[3], chooseKMax(J, 2, dMin), grid, peak);
+    return analyseCell2x2(J, ws.D[0], ws.D[3], peak);
   } else {
     try {
       dMin = checkDiffusion(ws.D, n, kinetics.species);
