@@ -96,7 +96,10 @@ describe("image readouts", () => {
     const meta = await sharp(Buffer.from(await preview.arrayBuffer())).metadata();
     expect([meta.width, meta.height]).toEqual([192, 160]); // the source size (under the 1024 px cap)
     const fft = await get("fft.png");
-    expect((await sharp(Buffer.from(await fft.arrayBuffer())).metadata()).width).toBe(256); // padded to the next power of two
+    // Cropped to ± 3 × the peak frequency of the 256-point padded transform: 2 · round(3/16 · 256) = 96 px.
+    expect((await sharp(Buffer.from(await fft.arrayBuffer())).metadata()).width).toBe(96);
+    const fftInfo = (stripes.first.result as { fft?: { ringFraction: number | null } }).fft;
+    expect(fftInfo?.ringFraction).toBeCloseTo(1 / 3, 2); // the ring at 1/λ, a third of the way to the edge
     const spectrum = await (await get("spectrum.json")).json();
     expect(spectrum.radialSpectrum.frequencyPerUm.length).toBe(spectrum.radialSpectrum.power.length);
     expect(spectrum.angularPower).toHaveLength(180);
