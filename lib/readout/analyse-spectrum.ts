@@ -1,5 +1,5 @@
 import { computeAngularStats, classifySymmetry, type AngularStats, type PatternSymmetry } from "./angular";
-import { evaluatePowerLaw, fitPowerLaw, type PowerLaw } from "./background-fit";
+import { evaluatePowerLaw, fitPowerLaw, localLogQuadraticAt, type PowerLaw } from "./background-fit";
 import { findPeakRing, peakHalfWidthRings, refinePeak2d, refineRing, type Peak2d } from "./peak";
 import type { PowerSpectrum } from "./power-spectrum";
 import { computeRadialSpectrum, type RadialSpectrum } from "./radial-spectrum";
@@ -23,6 +23,27 @@ export interface SpectrumAnalysis {
   searchTo: number;
 }
 
+/** True when ring r is a local maximum of the radial spectrum. */
+function isLocalMaximum(radial: RadialSpectrum, r: number): boolean {
+  const p = radial.power;
+  return r > 0 && r + 1 < p.length && p[r] > p[r - 1] && p[r] >= p[r + 1];
+}
+
+/**
+ * The background under ring r: a power law fitted over rings [r/2, 2r] (one octave either side)
+ * leaving out r ± max(3, r/4), where the peak and its shoulders lie. Local, so a background that
+ * is not one power law over the whole spectrum (a residual illumination at low frequencies, a
+ * blur roll-off at high ones) does not lift noise to a "peak".
+ */
+function localBackground(radial: RadialSpectrum, r: number, fitFrom: number, last: number, global: PowerLaw): number {
+  const ex = Math.max(3, Math.ceil(r / 4));
+  // An octave either side, but at least 8 rings beyond the left-out band on each side.
+  const from = Math.max(fitFrom, Math.min(Math.floor(r / 2), r - ex - 8)), to = Math.min(last, Math.max(Math.ceil(2 * r), r + ex + 8));
+  if (r - ex - from < 4 || to - (r + ex) < 4) return evaluatePowerLaw(global, radial.frequencyPerPx[r]);
+  const bent = localLogQuadraticAt(radial.frequencyPerPx, radial.power, from, to, r - ex, r + ex, r);
+  return Number.isFinite(bent) ? bent : evaluatePowerLaw(global, radial.frequencyPerPx[r]);
+}
+
 /**
  * Finds and measures the dominant ring of a power spectrum. `searchRings` restricts the search
  * (used on sub-regions and tiles, which look near the whole region's peak).
@@ -32,17 +53,18 @@ export function analyseSpectrum(s: PowerSpectrum, lowCutRings: number, searchRin
   const last = radial.power.length - 1;
   const fitFrom = Math.max(1, Math.ceil(lowCutRings));
   const searchFrom = Math.max(fitFrom, Math.ceil(searchRings?.[0] ?? fitFrom));
-  const searchTo = Math.min(last - 1, Math.floor(searchRings?.[1] ?? last - 1));
-  // Fit, pick the most prominent ring, refit without it, pick again (two passes suffice in practice).
-  let bg = fitPowerLaw(radial.frequencyPerPx, radial.power, fitFrom, last, -1, -1);
-  let peakRing = findPeakRing(radial, searchFrom, Math.max(searchFrom, searchTo), bg);
-  let halfWidthRings = 1;
-  for (let pass = 0; pass < 2; pass++) {
-    const ex = Math.max(3, Math.ceil(2.5 * halfWidthRings));
-    bg = fitPowerLaw(radial.frequencyPerPx, radial.power, fitFrom, last, peakRing - ex, peakRing + ex);
-    peakRing = findPeakRing(radial, searchFrom, Math.max(searchFrom, searchTo), bg);
-    halfWidthRings = peakHalfWidthRings(radial, peakRing, bg, last);
-  }
+  // A period shorter than 3 px is not resolved (Nyquist is 2 px), and a peak needs rings above it for its background.
+  const searchTo = Math.min(last - 4, Math.floor(s.ringN / 3), Math.floor(searchRings?.[1] ?? last - 1));
+  // The peak: the local maximum of the radial spectrum that stands highest above a background
+  // fitted around it without it (a slope of the background is never a peak).
+  const global = fitPowerLaw(radial.frequencyPerPx, radial.power, fitFrom, last, -1, -1);
+  const peakRing = findPeakRing(radial, searchFrom, Math.max(searchFrom, searchTo), (r) => localBackground(radial, r, fitFrom, last, global));
+  // The background of the whole spectrum without the peak, for its width, the angular statistics and the plot.
+  let bg = fitPowerLaw(radial.frequencyPerPx, radial.power, fitFrom, last, peakRing - 3, peakRing + 3);
+  let halfWidthRings = peakHalfWidthRings(radial, peakRing, bg, last);
+  const ex = Math.max(3, Math.ceil(2.5 * halfWidthRings));
+  bg = fitPowerLaw(radial.frequencyPerPx, radial.power, fitFrom, last, peakRing - ex, peakRing + ex);
+  halfWidthRings = peakHalfWidthRings(radial, peakRing, bg, last);
   const refinedRing = refineRing(radial, peakRing);
   const band = Math.max(1, Math.min(halfWidthRings, 0.15 * peakRing));
   const angular = computeAngularStats(s, peakRing - band, peakRing + band, bg);
@@ -51,6 +73,7 @@ export function analyseSpectrum(s: PowerSpectrum, lowCutRings: number, searchRin
   const fRing = refinedRing / s.ringN;
   const f2d = peak2d ? Math.hypot(peak2d.fx, peak2d.fy) : fRing;
   const frequencyPerPx = symmetry === "labyrinth" ? fRing : f2d;
-  const significance = radial.power[peakRing] / evaluatePowerLaw(bg, radial.frequencyPerPx[peakRing]);
+  const local = localBackground(radial, peakRing, fitFrom, last, bg);
+  const significance = isLocalMaximum(radial, peakRing) ? radial.power[peakRing] / local : 0;
   return { radial, background: bg, peakRing, refinedRing, halfWidthRings, peak2d, frequencyPerPx, significance, angular, symmetry, searchFrom, searchTo };
 }

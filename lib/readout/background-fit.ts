@@ -39,3 +39,26 @@ export function fitPowerLaw(freq: Float64Array, power: Float64Array, from: numbe
   }
   return fit;
 }
+
+/**
+ * log P = c₀ + c₁ ln f + c₂ (ln f)² fitted by least squares over rings [from, to] without
+ * [excludeFrom, excludeTo]: a local background that also follows a bent spectrum (a blur's
+ * roll-off, a residual illumination), where one power law would leave the middle above its chord.
+ * Returns the background at ring r's frequency, or NaN with fewer than 4 usable rings.
+ */
+export function localLogQuadraticAt(freq: Float64Array, power: Float64Array, from: number, to: number, excludeFrom: number, excludeTo: number, r: number): number {
+  const x0 = Math.log(freq[r]);
+  // Normal equations of the centred fit (x = ln f − ln f_r), so the value at r is c₀.
+  let n = 0, s1 = 0, s2 = 0, s3 = 0, s4 = 0, t0 = 0, t1 = 0, t2 = 0;
+  for (let k = from; k <= to; k++) {
+    if ((k >= excludeFrom && k <= excludeTo) || !(power[k] > 0) || !(freq[k] > 0)) continue;
+    const x = Math.log(freq[k]) - x0, y = Math.log(power[k]), x2 = x * x;
+    n++; s1 += x; s2 += x2; s3 += x2 * x; s4 += x2 * x2; t0 += y; t1 += x * y; t2 += x2 * y;
+  }
+  if (n < 4) return NaN;
+  // Solve [[n, s1, s2], [s1, s2, s3], [s2, s3, s4]] c = [t0, t1, t2] for c₀ by Cramer's rule.
+  const det = n * (s2 * s4 - s3 * s3) - s1 * (s1 * s4 - s3 * s2) + s2 * (s1 * s3 - s2 * s2);
+  if (!(Math.abs(det) > 1e-12)) return NaN;
+  const c0 = (t0 * (s2 * s4 - s3 * s3) - s1 * (t1 * s4 - s3 * t2) + s2 * (t1 * s3 - s2 * t2)) / det;
+  return Math.exp(c0);
+}

@@ -12,12 +12,18 @@ export function parabolaOffset(a: number, b: number, c: number): number {
 
 const safeLog = (v: number) => Math.log(Math.max(v, 1e-300));
 
-/** Ring in [from, to] with the largest power relative to the background (or absolute, without one). */
-export function findPeakRing(radial: RadialSpectrum, from: number, to: number, bg: PowerLaw | null): number {
+/**
+ * Ring in [from, to] with the largest power relative to the background (or absolute, without one),
+ * among the local maxima of the radial spectrum: a slope of the background is never a peak.
+ * Falls back to `from` when no ring is a local maximum (the caller's significance then says no).
+ */
+export function findPeakRing(radial: RadialSpectrum, from: number, to: number, background: ((ring: number) => number) | null): number {
   let best = from, bestScore = -Infinity;
+  const p = radial.power;
   for (let r = from; r <= to; r++) {
     if (radial.count[r] === 0) continue;
-    const score = safeLog(radial.power[r]) - (bg ? safeLog(evaluatePowerLaw(bg, radial.frequencyPerPx[r])) : 0);
+    if (!(p[r] > p[r - 1] && p[r] >= p[r + 1])) continue;
+    const score = safeLog(radial.power[r]) - (background ? safeLog(background(r)) : 0);
     if (score > bestScore) { bestScore = score; best = r; }
   }
   return best;

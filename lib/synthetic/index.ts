@@ -6,3 +6,4 @@ export { makeGradientStripes, gradientWavelengthAtPx, type GradientStripesOption
 export { SyntheticOptionError, MAX_SYNTHETIC_SIDE_PX } from "./check-options";
 export { createRng, type Rng } from "./random";
 export type { GreyImage } from "../imaging/grey-image";
+export { makeMicroscopeFrame, type MicroscopeFrameOptions } from "./make-microscope-frame";
