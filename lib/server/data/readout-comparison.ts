@@ -6,6 +6,7 @@
 import { summarize, welchTTest, type WelchResult } from "@/lib/spacing";
 import type { LabContext } from "../access";
 import { AppError } from "../errors";
+import { csvComment, csvRow } from "../export/csv";
 import { database } from "../services";
 import { headlineOf, MEASURE_LABELS, type ReadoutResult, type WavelengthMeasure } from "./readout-result";
 import { findStudy } from "./studies";
@@ -112,24 +113,18 @@ export async function compareConditions(ctx: LabContext, studyId: string, query:
   };
 }
 
-const cell = (v: string | number | null) => {
-  if (v === null) return "";
-  const s = String(v);
-  return /[",\n\r]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
-};
-
 /** One row per readout used, with its condition's summary repeated; Welch's result in # lines on top. */
 export function comparisonToCsv(c: ConditionComparison): string {
   const lines: string[] = [];
-  lines.push(`# Condition comparison of study ${cell(c.studyName)}; lengths in µm; latest finished readout per upload`);
+  lines.push(csvComment(`Condition comparison of study ${c.studyName}; lengths in µm; latest finished readout per upload`));
   if (c.test.welch) {
     const w = c.test.welch;
-    lines.push(`# Welch t-test ${c.test.a} vs ${c.test.b}: difference ${w.meanDifference} um; t ${w.t}; df ${w.df}; p ${w.pValue}; 95% CI ${w.ci95[0]} to ${w.ci95[1]} um; Hedges g ${w.hedgesG}`);
-  } else if (c.test.note) lines.push(`# ${c.test.note}`);
+    lines.push(csvComment(`Welch t-test ${c.test.a} vs ${c.test.b}: difference ${w.meanDifference} um; t ${w.t}; df ${w.df}; p ${w.pValue}; 95% CI ${w.ci95[0]} to ${w.ci95[1]} um; Hedges g ${w.hedgesG}`));
+  } else if (c.test.note) lines.push(csvComment(c.test.note));
   lines.push(["condition", "specimen", "file", "readout_id", "measure", "wavelength_um", "uncertainty_um", "pixel_size_um_per_px", "readout_created_at", "condition_n", "condition_mean_um", "condition_sd_um", "condition_ci95_low_um", "condition_ci95_high_um"].join(","));
   for (const g of c.groups) {
     for (const p of g.points) {
-      lines.push([p.condition, p.specimenLabel, p.filename, p.readoutId, p.measure, p.wavelengthUm, p.uncertaintyUm, p.pixelSizeUm, p.readoutCreatedAt, g.n, g.meanUm, g.sdUm, g.ci95Um?.[0] ?? null, g.ci95Um?.[1] ?? null].map(cell).join(","));
+      lines.push(csvRow([p.condition, p.specimenLabel, p.filename, p.readoutId, p.measure, p.wavelengthUm, p.uncertaintyUm, p.pixelSizeUm, p.readoutCreatedAt, g.n, g.meanUm, g.sdUm, g.ci95Um?.[0] ?? null, g.ci95Um?.[1] ?? null]));
     }
   }
   return lines.join("\n") + "\n";
