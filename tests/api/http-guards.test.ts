@@ -54,7 +54,8 @@ describe("cross-site requests (CSRF)", () => {
   });
 
   it("lets the app's own origin through (then the session decides: none here, so 401)", async () => {
-    for (const headers of [{ origin: APP }, { origin: "http://127.0.0.1:3999" }, { referer: `${APP}/labs/x/studies` }]) {
+    const own: Record<string, string>[] = [{ origin: APP }, { origin: "http://127.0.0.1:3999" }, { referer: `${APP}/labs/x/studies` }];
+    for (const headers of own) {
       const res = await createStudy({ cookie: COOKIE, ...headers });
       expect(res.status).toBe(401);
     }
