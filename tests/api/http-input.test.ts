@@ -35,12 +35,6 @@ describe("kinetics expressions", () => {
     expect(r.body.error.message).toBe(`definition.reactions[0]: unknown symbol "${name}" (${SPECIES}).`);
   });
 
-  it("an analysis of a catalogue kinetics refuses a constructor parameter by name", async () => {
-    const r = await api("POST", "/api/v1/labs/[labId]/analyses/dispersion", { json: { kinetics: "schnakenberg", parameters: { constructor: 1 } } });
-    expect(r.status).toBe(400);
-    expect(r.body.error.message).toMatch(/^Unknown parameter "constructor"/);
-  });
-
   it("995 nested brackets are a 400 naming the limit, not a stack overflow", async () => {
     const deep = "(".repeat(995) + "u" + ")".repeat(995);
     const r = await api("POST", KIN, { json: { definition: { ...labSchnakenberg("Deep"), reactions: ["a - u + u^2 * v", deep] } } });

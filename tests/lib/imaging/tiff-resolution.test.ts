@@ -31,14 +31,12 @@ describe("TIFF resolution", () => {
       pixelSizeUm: null, pixelSizeSource: null,
       pixelSizeNote: "The TIFF resolution (1/0 pixels per unit) is not a positive number, so it gives no pixel size.",
     });
+    // A real resolution still gives its pixel size: 20000 px/cm = 0.5 µm/px (1 cm = 10⁴ µm).
+    expect(readPixelSize(tiffWithResolution(20000, 1), "tiff")).toEqual({ pixelSizeUm: 0.5, pixelSizeSource: "tiff-resolution", pixelSizeNote: null });
   });
 
   it("0/1 is treated as absent, with a note", () => {
     expect(readPixelSize(tiffWithResolution(0, 1), "tiff").pixelSizeUm).toBeNull();
     expect(readPixelSize(tiffWithResolution(0, 1), "tiff").pixelSizeNote).toBe("The TIFF resolution (0/1 pixels per unit) is not a positive number, so it gives no pixel size.");
-  });
-
-  it("a real resolution still gives its pixel size: 20000 px/cm = 0.5 µm/px (1 cm = 10⁴ µm)", () => {
-    expect(readPixelSize(tiffWithResolution(20000, 1), "tiff")).toEqual({ pixelSizeUm: 0.5, pixelSizeSource: "tiff-resolution", pixelSizeNote: null });
   });
 });
