@@ -1,4 +1,5 @@
 import type { NextConfig } from "next";
+import { API_CSP, FIXED_SECURITY_HEADERS } from "./lib/server/security-headers";
 
 const nextConfig: NextConfig = {
   // sqlite3, sharp and @aws-sdk/client-s3 are on Next's built-in external list; sequelize is not.
@@ -9,6 +10,18 @@ const nextConfig: NextConfig = {
   // `npm test` type-checks the whole tree (tsc --noEmit) before it builds; the build itself
   // does not repeat it, so a type error is reported once, by the typecheck step.
   typescript: { ignoreBuildErrors: true },
+  experimental: {
+    // proxy.ts sees pages and /api/auth only (never uploads or /api/v1); Next buffers a body it
+    // passes through the proxy up to this size, so a large body cannot fill memory there.
+    proxyClientMaxBodySize: 1024 * 1024,
+  },
+  // Security headers on every response; the pages' CSP (with its nonce) comes from proxy.ts.
+  async headers() {
+    return [
+      { source: "/:path*", headers: [...FIXED_SECURITY_HEADERS] },
+      { source: "/api/:path*", headers: [{ key: "Content-Security-Policy", value: API_CSP }] },
+    ];
+  },
 };
 
 export default nextConfig;

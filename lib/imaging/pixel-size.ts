@@ -16,8 +16,10 @@ const UNIT_UM: Record<string, number> = { "µm": 1, "μm": 1, um: 1, micron: 1, 
 const none = (note: string | null = null): PixelSizeInfo => ({ pixelSizeUm: null, pixelSizeSource: null, pixelSizeNote: note });
 
 function fromDpi(dpi: number, source: PixelSizeSource): PixelSizeInfo {
+  const um = 25400 / dpi;
+  if (!(Number.isFinite(um) && um > 0)) return none(`The file's resolution (${dpi} dpi) gives no usable pixel size.`);
   if (DEFAULT_DPI.some((d) => Math.abs(dpi - d) < 0.05)) return none(`The file's resolution (${Number(dpi.toFixed(1))} dpi) is a writer's default, not a pixel size.`);
-  return { pixelSizeUm: 25400 / dpi, pixelSizeSource: source, pixelSizeNote: null };
+  return { pixelSizeUm: um, pixelSizeSource: source, pixelSizeNote: null };
 }
 
 /** OME-XML `<Pixels PhysicalSizeX="…" PhysicalSizeXUnit="…">` (OME data model; unit default µm). */
@@ -54,7 +56,10 @@ export function readPixelSize(bytes: Uint8Array, format: string, density?: numbe
       if (um) return { pixelSizeUm: um, pixelSizeSource: "ome-xml", pixelSizeNote: null };
     }
     const xres = tags.xResolution;
-    if (!xres || !(xres > 0)) return none();
+    if (xres === undefined) return none();
+    if (!(Number.isFinite(xres) && xres > 0)) {
+      return none(`The TIFF resolution (${tags.xResolutionText ?? String(xres)} pixels per unit) is not a positive number, so it gives no pixel size.`);
+    }
     const unit = tags.resolutionUnit ?? 2;
     if (unit === 3) return fromDpi(xres * 2.54, "tiff-resolution");
     if (unit === 2) return fromDpi(xres, "tiff-resolution");

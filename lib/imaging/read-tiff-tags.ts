@@ -8,8 +8,10 @@ export interface TiffTags {
   height?: number;
   bitsPerSample?: number;
   samplesPerPixel?: number;
-  /** Pixels per resolution unit, X direction. */
+  /** Pixels per resolution unit, X direction; NaN when the stored rational has denominator 0. */
   xResolution?: number;
+  /** The X resolution as stored, e.g. "1/0" (for messages). */
+  xResolutionText?: string;
   yResolution?: number;
   /** 1 none, 2 inch, 3 centimetre (TIFF 6.0 tag 296); absent means 2. */
   resolutionUnit?: number;
@@ -42,13 +44,15 @@ export function readTiffTags(bytes: Uint8Array): TiffTags | null {
     const off = size <= 4 ? at + 8 : view.getUint32(at + 8, le);
     if (off + size > bytes.length) continue;
     const num = (): number => (type === 3 ? view.getUint16(off, le) : type === 4 ? view.getUint32(off, le) : type === 1 ? view.getUint8(off) : Number.NaN);
-    const rational = (): number => (type === 5 ? view.getUint32(off, le) / view.getUint32(off + 4, le) : num());
+    // A rational with denominator 0 is no number (1/0 would read as Infinity, then a pixel size of 0).
+    const rational = (): number => (type === 5 ? (view.getUint32(off + 4, le) === 0 ? Number.NaN : view.getUint32(off, le) / view.getUint32(off + 4, le)) : num());
+    const rationalText = (): string => (type === 5 ? `${view.getUint32(off, le)}/${view.getUint32(off + 4, le)}` : String(num()));
     switch (tag) {
       case TAG.width: tags.width = num(); break;
       case TAG.height: tags.height = num(); break;
       case TAG.bits: tags.bitsPerSample = num(); break;
       case TAG.spp: tags.samplesPerPixel = num(); break;
-      case TAG.xres: tags.xResolution = rational(); break;
+      case TAG.xres: tags.xResolution = rational(); tags.xResolutionText = rationalText(); break;
       case TAG.yres: tags.yResolution = rational(); break;
       case TAG.unit: tags.resolutionUnit = num(); break;
       case TAG.description:

@@ -47,6 +47,7 @@ export function compileKinetics(definition: unknown): CompiledKinetics {
   const { fns: jacFns, numeric } = compileJacobian(reactionNodes, def.species, table);
   const diffusionStrings = diffusionMatrix(def, n);
   const diffusionFns = diffusionStrings.map((row, i) => row.map((e, j) => compileDiffusion(e, table, diffusionField(def, i, j))));
+  checkDiffusivities(diffusionStrings, diffusionFns, parameters, (i) => diffusionField(def, i, i));
   const diagonal = diffusionStrings.every((row, i) => row.every((e, j) => i === j || Number(e) === 0));
 
   const hPlus = new Float64Array(n);
@@ -138,6 +139,23 @@ function diffusionMatrix(def: KineticsDefinition, n: number): string[][] {
     throw new KineticsInputError("diffusion", `diffusion must be a list of ${n} diagonal entries or a ${n}×${n} matrix.`);
   }
   return rows.map((r) => r.map(String));
+}
+
+/**
+ * A species' own diffusivity (a diagonal entry) cannot be negative: backward diffusion is not a
+ * physical transport and makes every short wavelength grow without bound. Checked at the default
+ * parameters; off-diagonal (cross-diffusion) entries may be negative.
+ */
+function checkDiffusivities(texts: string[][], fns: CompiledExpression[][], parameters: ParameterSpec[], field: (i: number) => string): void {
+  const p = Float64Array.from(parameters, (s) => s.default);
+  const none = new Float64Array(texts.length);
+  texts.forEach((row, i) => {
+    const d = fns[i][i](none, p);
+    if (d >= 0) return;
+    const f = field(i);
+    const what = Number.isFinite(Number(row[i])) ? `${f} is ${d}` : `${f} = ${row[i]} is ${d} at the default parameters`;
+    throw new KineticsInputError(f, Number.isNaN(d) ? `${f} = ${row[i]} is not a number at the default parameters; a diffusivity must be 0 or more.` : `${what}; a diffusivity must be 0 or more.`);
+  });
 }
 
 function diffusionField(def: KineticsDefinition, i: number, j: number): string {

@@ -13,6 +13,13 @@ import { KineticsInputError } from "./errors";
 export const MAX_EXPRESSION_LENGTH = 2000;
 /** Largest accepted expression tree, nodes (operators, symbols, numbers). */
 export const MAX_EXPRESSION_NODES = 500;
+/**
+ * Deepest accepted nesting of brackets. The parser recurses through about twenty functions per
+ * bracket level, and 995 levels overflowed the call stack; a reaction term a person writes stays
+ * far below 50 levels (common practice, no source). Other chains (signs, powers, sums) are bounded
+ * by the length and term limits, and parse within the stack.
+ */
+export const MAX_EXPRESSION_DEPTH = 50;
 
 /** A compiled expression: c = species values, p = parameter values. */
 export type CompiledExpression = (c: ArrayLike<number>, p: ArrayLike<number>) => number;
@@ -23,22 +30,24 @@ export interface SymbolTable {
   parameters: ReadonlyMap<string, number>;
 }
 
-const FUNCTIONS: Record<string, (...x: number[]) => number> = {
+// Maps, not object literals: a name such as "constructor" or "toString" must not be found
+// through Object.prototype.
+const FUNCTIONS: ReadonlyMap<string, (...x: number[]) => number> = new Map(Object.entries({
   exp: Math.exp, log: Math.log, log10: Math.log10, sqrt: Math.sqrt, cbrt: Math.cbrt, abs: Math.abs,
   sin: Math.sin, cos: Math.cos, tan: Math.tan, sinh: Math.sinh, cosh: Math.cosh, tanh: Math.tanh,
   asin: Math.asin, acos: Math.acos, atan: Math.atan, min: Math.min, max: Math.max, pow: Math.pow,
-};
-const CONSTANTS: Record<string, number> = { pi: Math.PI, e: Math.E };
+}));
+const CONSTANTS: ReadonlyMap<string, number> = new Map([["pi", Math.PI], ["e", Math.E]]);
 
 /** Names nobody may use for a species or parameter (functions, constants, mathjs literals). */
 export const RESERVED_NAMES: ReadonlySet<string> = new Set([
-  ...Object.keys(FUNCTIONS), ...Object.keys(CONSTANTS),
+  ...FUNCTIONS.keys(), ...CONSTANTS.keys(),
   "PI", "E", "i", "Infinity", "NaN", "true", "false", "null", "undefined", "end", "to", "in", "mod",
   "not", "and", "or", "xor", "constructor", "prototype", "__proto__",
 ]);
 
 /** Names of the functions expressions may call. */
-export const ALLOWED_FUNCTIONS: readonly string[] = Object.keys(FUNCTIONS);
+export const ALLOWED_FUNCTIONS: readonly string[] = [...FUNCTIONS.keys()];
 
 /** Parses `text` with mathjs and checks length and grammar; `field` names the input in errors. */
 export function parseExpression(text: unknown, field: string): MathNode {
@@ -50,10 +59,13 @@ export function parseExpression(text: unknown, field: string): MathNode {
   if (s.length > MAX_EXPRESSION_LENGTH) {
     throw new KineticsInputError(field, `${field} is ${s.length} characters long; the limit is ${MAX_EXPRESSION_LENGTH}.`);
   }
+  const brackets = bracketDepth(s);
+  if (brackets > MAX_EXPRESSION_DEPTH) throw tooDeep(field, `${brackets} levels`);
   let node: MathNode;
   try {
     node = parse(s);
   } catch (err) {
+    if (err instanceof RangeError) throw tooDeep(field, "too many levels"); // the call stack ran out all the same
     throw new KineticsInputError(field, `${field} does not parse: ${(err as Error).message}.`);
   }
   const count = countNodes(node);
@@ -61,6 +73,20 @@ export function parseExpression(text: unknown, field: string): MathNode {
     throw new KineticsInputError(field, `${field} has ${count} terms; the limit is ${MAX_EXPRESSION_NODES}.`);
   }
   return node;
+}
+
+const tooDeep = (field: string, what: string) =>
+  new KineticsInputError(field, `${field} nests brackets ${what} deep; the limit is ${MAX_EXPRESSION_DEPTH} levels.`);
+
+/** Deepest nesting of (), [] and {} in the text, counted without recursion. */
+function bracketDepth(s: string): number {
+  let depth = 0;
+  let most = 0;
+  for (const ch of s) {
+    if (ch === "(" || ch === "[" || ch === "{") most = Math.max(most, ++depth);
+    else if (ch === ")" || ch === "]" || ch === "}") depth = Math.max(0, depth - 1);
+  }
+  return most;
 }
 
 /** Number of nodes of a tree (function-name symbols not counted). */
@@ -99,10 +125,8 @@ export function compileNode(node: MathNode, table: SymbolTable, field: string): 
       if (si !== undefined) return (c) => c[si];
       const pi = table.parameters.get(name);
       if (pi !== undefined) return (_c, p) => p[pi];
-      if (name in CONSTANTS) {
-        const v = CONSTANTS[name];
-        return () => v;
-      }
+      const v = CONSTANTS.get(name);
+      if (v !== undefined) return () => v;
       throw new KineticsInputError(field, unknownSymbolMessage(field, name, table));
     }
     case "ParenthesisNode":
@@ -148,7 +172,7 @@ function compileOperator(node: MathNode, table: SymbolTable, field: string): Com
 function compileFunction(node: MathNode, table: SymbolTable, field: string): CompiledExpression {
   const fnNode = node as unknown as { fn: MathNode & { name?: string }; args: MathNode[] };
   const name = fnNode.fn.type === "SymbolNode" ? fnNode.fn.name ?? "" : "";
-  const fn = Object.prototype.hasOwnProperty.call(FUNCTIONS, name) ? FUNCTIONS[name] : undefined;
+  const fn = FUNCTIONS.get(name);
   if (!fn) {
     throw new KineticsInputError(field, `${field}: function "${name || fnNode.fn.toString()}" is not allowed (allowed: ${ALLOWED_FUNCTIONS.join(", ")}).`);
   }

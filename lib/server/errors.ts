@@ -9,6 +9,7 @@ export const ERROR_STATUS = {
   not_found: 404,
   conflict: 409,
   too_large: 413,
+  unsupported_media_type: 415,
   unprocessable: 422,
   unavailable: 503,
 } as const;

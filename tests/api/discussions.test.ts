@@ -155,7 +155,7 @@ describe("threads and comments", () => {
     expect((await start("scientist", "   ")).body.error.message).toBe("body: write a comment");
     expect((await start("scientist", "x".repeat(10_001))).body.error.message).toBe("body: at most 10000 characters");
     expect((await start("scientist", "x", { targetType: "study" })).body.error.message).toBe("targetType: must be one of readout, fit, upload");
-    expect((await start("scientist", "x", { targetId: "nope" })).body.error.message).toBe("targetId: targetId must be a UUID");
+    expect((await start("scientist", "x", { targetId: "nope" })).body.error.message).toBe("targetId must be a UUID");
     const half = await api("GET", T, "scientist", { query: "targetType=upload" });
     expect(half.status).toBe(400);
     expect(half.body.error.message).toBe("targetId: give targetType and targetId together");

@@ -54,7 +54,7 @@ describe("fit uncertainty with the spread between specimens", () => {
     expect(fit.provenance.settings.uncertainty).toBe("per-readout");
     const bad = await start(body("guess"));
     expect(bad.status).toBe(400);
-    expect(((await bad.json()) as { error: { message: string } }).error.message).toBe('uncertainty: uncertainty must be "per-readout" or "with-specimen-spread"');
+    expect(((await bad.json()) as { error: { message: string } }).error.message).toBe('uncertainty must be "per-readout" or "with-specimen-spread"');
   });
 
   it("takes “Control” and “ CONTROL” as one condition, spelled as first given", async () => {

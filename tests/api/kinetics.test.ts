@@ -197,7 +197,7 @@ describe("analyses", () => {
     ["a parameter out of range", "dispersion", { kinetics: "schnakenberg", parameters: { a: 500 } }, 400, "Parameter a = 500 is outside its allowed range [0, 100]."],
     ["an unknown kinetics", "dispersion", { kinetics: "turing-1952" }, 400, 'Unknown kinetics "turing-1952"; the catalogue has: schnakenberg, gierer-meinhardt, gierer-meinhardt-saturation, brusselator, lengyel-epstein, fitzhugh-nagumo, thomas, gray-scott, brusselator-three-species.'],
     ["no steady state", "dispersion", { kinetics: "schnakenberg", parameters: { a: 0, b: 0 } }, 422, "No homogeneous steady state: the closed form of Schnakenberg has no non-negative solution for these parameters."],
-    ["a negative domain", "dispersion", { kinetics: "schnakenberg", domain: { kind: "interval", length: -3 } }, 400, "domain.length: domain.length must be above 0"],
+    ["a negative domain", "dispersion", { kinetics: "schnakenberg", domain: { kind: "interval", length: -3 } }, 400, "domain.length must be above 0"],
     ["a map too large", "turing-map", { kinetics: "schnakenberg", x: { name: "a", min: 0, max: 1, n: 201 }, y: { name: "b", min: 0, max: 1, n: 200 } }, 413, "x.n × y.n = 40200 cells; an interactive map has at most 40000 cells (e.g. 200 × 200)."],
     ["too many wavenumbers", "turing-map", { kinetics: "schnakenberg", x: { name: "a", min: 0, max: 1, n: 5 }, y: { name: "b", min: 0, max: 1, n: 5 }, wavenumbers: 500 }, 413, "wavenumbers: 500 asked; an interactive map has at most 200 per cell."],
     ["one parameter on both axes", "turing-map", { kinetics: "schnakenberg", x: { name: "a", min: 0, max: 1, n: 5 }, y: { name: "a", min: 0, max: 1, n: 5 } }, 400, 'The two axes sweep the same parameter "a"; choose two different parameters.'],

@@ -26,7 +26,8 @@ test("collaborator asks about a readout, the scientist is e-mailed and replies, 
 
   const question = unique("Is the spacing narrower near the midline");
   const seenByScientist = await mailIds(DEMO.scientist.email);
-  const started = await page.request.post(`/api/v1/labs/${labId}/threads`, { data: { targetType: "readout", targetId: readout.id, body: `@${DEMO.scientist.email} ${question}?` } });
+  // Sent as the page's own fetch would be: with the session cookie and the app's Origin (CSRF check).
+  const started = await page.request.post(`/api/v1/labs/${labId}/threads`, { headers: { origin: BASE_URL }, data: { targetType: "readout", targetId: readout.id, body: `@${DEMO.scientist.email} ${question}?` } });
   expect(started.status()).toBe(201);
   expect(await started.json()).toMatchObject({ notified: true, recipients: 1 });
 

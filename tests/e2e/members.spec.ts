@@ -1,6 +1,6 @@
 /** The manager changes roles; the last lab manager cannot demote themselves. */
 import { expect, test, type Page } from "@playwright/test";
-import { DEMO } from "./support/demo";
+import { BASE_URL, DEMO } from "./support/demo";
 import { signIn } from "./support/session";
 
 async function setRole(page: Page, email: string, label: string, value: string) {
@@ -41,7 +41,7 @@ test("the manager changes a member's role and back; the audit trail records both
     // Leave the demo lab as seeded for the other specs, even when an assertion failed midway.
     const members = await (await page.request.get(`/api/v1/labs/${labId}/members?pageSize=100`)).json();
     const sci = members.items.find((m: { email: string }) => m.email === DEMO.scientist.email);
-    if (sci && sci.role !== "scientist") await page.request.patch(`/api/v1/labs/${labId}/members/${sci.id}`, { data: { role: "scientist" } });
+    if (sci && sci.role !== "scientist") await page.request.patch(`/api/v1/labs/${labId}/members/${sci.id}`, { headers: { origin: BASE_URL }, data: { role: "scientist" } });
   }
 });
 

@@ -2,7 +2,7 @@ import { Op, type Transaction } from "sequelize";
 import type { Models } from "@/models";
 import type { Actor } from "../actor";
 import type { LabContext } from "../access";
-import type { ListQuery, ListResult } from "../list";
+import { containsText, type ListQuery, type ListResult } from "../list";
 import { database } from "../services";
 
 export interface AuditEntry {
@@ -47,7 +47,7 @@ export async function listAudit(ctx: LabContext, q: ListQuery<(typeof AUDIT_SORT
   const m = await database();
   const where = {
     labId: ctx.labId,
-    ...(q.q ? { [Op.or]: [{ summary: { [Op.like]: `%${q.q}%` } }, { action: { [Op.like]: `%${q.q}%` } }, { actorEmail: { [Op.like]: `%${q.q}%` } }] } : {}),
+    ...(q.q ? { [Op.or]: [{ summary: containsText(q.q) }, { action: containsText(q.q) }, { actorEmail: containsText(q.q) }] } : {}),
   };
   const column = q.sort === "at" ? "createdAt" : q.sort;
   const { rows, count } = await m.AuditEvent.findAndCountAll({ where, order: [[column, q.dir], ["id", "asc"]], limit: q.pageSize, offset: (q.page - 1) * q.pageSize });

@@ -8,7 +8,7 @@ import type { CommentPosted, DiscussionTargetType, ThreadDto, ThreadFilter, Thre
 import type { LabContext } from "../access";
 import { authorize } from "../access";
 import { AppError, notFound } from "../errors";
-import type { ListQuery, ListResult } from "../list";
+import { containsText, type ListQuery, type ListResult } from "../list";
 import { notifyDiscussion } from "../notify";
 import { database, services } from "../services";
 import { recordAudit } from "./audit";
@@ -40,7 +40,7 @@ export async function listThreads(ctx: LabContext, filter: ThreadFilter, q: List
   if (filter.targetType && filter.targetId) Object.assign(where, { targetType: filter.targetType, targetId: filter.targetId });
   if (filter.status) Object.assign(where, { status: filter.status });
   if (q.q) {
-    const hits = await m.Comment.findAll({ where: { labId: ctx.labId, deletedAt: { [Op.is]: null }, body: { [Op.like]: `%${q.q}%` } }, attributes: ["threadId"] });
+    const hits = await m.Comment.findAll({ where: { labId: ctx.labId, deletedAt: { [Op.is]: null }, body: containsText(q.q) }, attributes: ["threadId"] });
     Object.assign(where, { id: { [Op.in]: [...new Set(hits.map((h) => h.threadId))] } });
   }
   const forTarget = filter.targetId !== undefined;

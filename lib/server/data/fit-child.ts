@@ -4,6 +4,7 @@
  * object, `{ kinetics, ...result }` like `cli fit --json`; errors go to stderr with exit code 2.
  */
 import { readFileSync } from "node:fs";
+import { prefixField } from "../field-message";
 import { fitStoredModel } from "./fit-model-run";
 import type { StoredFitModel, StoredFitSpec } from "./fit-spec-types";
 
@@ -19,6 +20,6 @@ try {
   main();
 } catch (err) {
   const e = err as { field?: string; message?: string };
-  process.stderr.write(`${e.field ? `${e.field}: ` : ""}${e.message ?? String(err)}\n`);
+  process.stderr.write(`${prefixField(e.field, e.message ?? String(err))}\n`);
   process.exit(2);
 }

@@ -5,14 +5,13 @@
  * with status "succeeded" and is never changed: a re-run is a new fit with the same stored spec.
  */
 import { randomUUID } from "node:crypto";
-import { Op } from "sequelize";
 import { can } from "@/lib/access/permissions";
 import type { FitCreate } from "@/lib/contracts/fit";
 import type { JobStatus } from "@/models/job";
 import { authorize, isUuid, type LabContext } from "../access";
 import { notFound } from "../errors";
 import { enqueueJob } from "../jobs/runner";
-import type { ListQuery, ListResult } from "../list";
+import { containsText, type ListQuery, type ListResult } from "../list";
 import { database, services } from "../services";
 import { recordAudit } from "./audit";
 import { fitRunner } from "./fit-process";
@@ -81,7 +80,7 @@ async function toSummaries(rows: Row[]): Promise<FitSummaryDto[]> {
 
 export async function listFits(ctx: LabContext, q: ListQuery<"createdAt" | "name" | "status">): Promise<ListResult<FitSummaryDto>> {
   const m = await database();
-  const where = { labId: ctx.labId, ...(q.q ? { name: { [Op.like]: `%${q.q}%` } } : {}) };
+  const where = { labId: ctx.labId, ...(q.q ? { name: containsText(q.q) } : {}) };
   const { rows, count } = await m.Fit.findAndCountAll({ where, order: [[q.sort, q.dir], ["createdAt", "desc"], ["id", "asc"]], limit: q.pageSize, offset: (q.page - 1) * q.pageSize });
   return { items: await toSummaries(rows), page: q.page, pageSize: q.pageSize, total: count };
 }

@@ -9,7 +9,7 @@ import { findSteadyStates } from "@/lib/stability";
 import type { LabContext } from "../access";
 import { authorize, isUuid } from "../access";
 import { AppError, notFound } from "../errors";
-import type { ListQuery, ListResult } from "../list";
+import { containsText, type ListQuery, type ListResult } from "../list";
 import { database, services } from "../services";
 import { recordAudit } from "./audit";
 import { compileDefinition, toAppError } from "./kinetics-engine";
@@ -120,7 +120,7 @@ async function toDtos(ctx: LabContext, rows: Row[]): Promise<LabKineticsDto[]> {
 
 export async function listLabKinetics(ctx: LabContext, q: ListQuery<(typeof LAB_KINETICS_SORTS)[number]>): Promise<ListResult<LabKineticsDto>> {
   const m = await database();
-  const where = { labId: ctx.labId, ...(q.q ? { [Op.or]: [{ name: { [Op.like]: `%${q.q}%` } }, { description: { [Op.like]: `%${q.q}%` } }] } : {}) };
+  const where = { labId: ctx.labId, ...(q.q ? { [Op.or]: [{ name: containsText(q.q) }, { description: containsText(q.q) }] } : {}) };
   const { rows, count } = await m.LabKinetics.findAndCountAll({ where, order: [[q.sort, q.dir], ["id", "asc"]], limit: q.pageSize, offset: (q.page - 1) * q.pageSize });
   return { items: await toDtos(ctx, rows), page: q.page, pageSize: q.pageSize, total: count };
 }

@@ -5,7 +5,7 @@
  * objects together. The row always has a status; a result exists only with status "succeeded".
  */
 import { randomUUID } from "node:crypto";
-import { Op, type WhereOptions } from "sequelize";
+import type { WhereOptions } from "sequelize";
 import packageJson from "@/package.json";
 import { DERIVED_PRODUCTS, type DerivedProduct } from "@/lib/contracts/readout";
 import type { JobStatus } from "@/models/job";
@@ -14,7 +14,7 @@ import { StorageUnavailableError } from "@/storage/object-store";
 import { authorize, type LabContext } from "../access";
 import { AppError, notFound } from "../errors";
 import { enqueueJob } from "../jobs/runner";
-import type { ListQuery, ListResult } from "../list";
+import { containsText, type ListQuery, type ListResult } from "../list";
 import { database, services } from "../services";
 import { headlineOf, type ReadoutHeadline, type ReadoutResult } from "./readout-result";
 import { resolveStartSettings, type StoredReadoutSettings } from "./readout-settings";
@@ -93,7 +93,7 @@ export async function listReadouts(ctx: LabContext, filter: ReadoutFilter, q: Li
   if (filter.uploadId) await findUpload(ctx, filter.uploadId);
   const where: WhereOptions<Readout> = { labId: ctx.labId, ...(filter.uploadId ? { uploadId: filter.uploadId } : {}), ...(filter.specimenId ? { specimenId: filter.specimenId } : {}) };
   if (q.q) {
-    const uploads = await m.Upload.findAll({ where: { labId: ctx.labId, filename: { [Op.like]: `%${q.q}%` } }, attributes: ["id"] });
+    const uploads = await m.Upload.findAll({ where: { labId: ctx.labId, filename: containsText(q.q) }, attributes: ["id"] });
     Object.assign(where, { uploadId: filter.uploadId ? [filter.uploadId].filter((id) => uploads.some((u) => u.id === id)) : uploads.map((u) => u.id) });
   }
   const { rows, count } = await m.Readout.findAndCountAll({ where, order: [[q.sort, q.dir], ["createdAt", "desc"], ["id", "asc"]], limit: q.pageSize, offset: (q.page - 1) * q.pageSize });

@@ -15,7 +15,7 @@ import { StorageUnavailableError } from "@/storage/object-store";
 import { authorize, isUuid, type LabContext } from "../access";
 import { AppError, notFound } from "../errors";
 import { cancelJob, enqueueJob } from "../jobs/runner";
-import type { ListQuery, ListResult } from "../list";
+import { containsText, type ListQuery, type ListResult } from "../list";
 import { database, services } from "../services";
 import { recordAudit } from "./audit";
 import { SOFTWARE_VERSION } from "./readouts";
@@ -56,7 +56,7 @@ async function toDtos(rows: Row[]): Promise<RunDto[]> {
 
 export async function listRuns(ctx: LabContext, q: ListQuery<(typeof RUN_SORTS)[number]>): Promise<ListResult<RunDto>> {
   const m = await database();
-  const where = { labId: ctx.labId, ...(q.q ? { [Op.or]: [{ name: { [Op.like]: `%${q.q}%` } }, { kineticsName: { [Op.like]: `%${q.q}%` } }] } : {}) };
+  const where = { labId: ctx.labId, ...(q.q ? { [Op.or]: [{ name: containsText(q.q) }, { kineticsName: containsText(q.q) }] } : {}) };
   const { rows, count } = await m.SimulationRun.findAndCountAll({ where, order: [[q.sort, q.dir], ["createdAt", "desc"], ["id", "asc"]], limit: q.pageSize, offset: (q.page - 1) * q.pageSize });
   return { items: await toDtos(rows), page: q.page, pageSize: q.pageSize, total: count };
 }

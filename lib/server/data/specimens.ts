@@ -4,7 +4,7 @@ import { can } from "@/lib/access/permissions";
 import type { LabContext } from "../access";
 import { authorize } from "../access";
 import { AppError, notFound } from "../errors";
-import type { ListQuery, ListResult } from "../list";
+import { containsText, type ListQuery, type ListResult } from "../list";
 import { database, services } from "../services";
 import { recordAudit } from "./audit";
 import { findStudy } from "./studies";
@@ -61,7 +61,7 @@ async function toDtos(ctx: LabContext, rows: SpecimenRow[]): Promise<SpecimenDto
 export async function listSpecimens(ctx: LabContext, studyId: string, q: ListQuery<(typeof SPECIMEN_SORTS)[number]>): Promise<ListResult<SpecimenDto>> {
   const m = await database();
   await findStudy(ctx, studyId);
-  const like = { [Op.like]: `%${q.q}%` };
+  const like = containsText(q.q);
   const where = { labId: ctx.labId, studyId, ...(q.q ? { [Op.or]: [{ label: like }, { condition: like }, { stage: like }, { genotype: like }] } : {}) };
   const { rows, count } = await m.Specimen.findAndCountAll({ where, order: [[q.sort, q.dir], ["id", "asc"]], limit: q.pageSize, offset: (q.page - 1) * q.pageSize });
   return { items: await toDtos(ctx, rows), page: q.page, pageSize: q.pageSize, total: count };

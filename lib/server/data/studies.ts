@@ -4,7 +4,7 @@ import { can } from "@/lib/access/permissions";
 import type { LabContext } from "../access";
 import { authorize } from "../access";
 import { AppError, notFound } from "../errors";
-import type { ListQuery, ListResult } from "../list";
+import { containsText, type ListQuery, type ListResult } from "../list";
 import { database, services } from "../services";
 import { recordAudit } from "./audit";
 
@@ -54,7 +54,7 @@ async function toDtos(ctx: LabContext, studies: InstanceType<Awaited<ReturnType<
 
 export async function listStudies(ctx: LabContext, q: ListQuery<(typeof STUDY_SORTS)[number]>): Promise<ListResult<StudyDto>> {
   const m = await database();
-  const like = { [Op.like]: `%${q.q}%` };
+  const like = containsText(q.q);
   const where = { labId: ctx.labId, ...(q.q ? { [Op.or]: [{ name: like }, { tissue: like }, { organism: like }] } : {}) };
   const { rows, count } = await m.Study.findAndCountAll({ where, order: [[q.sort, q.dir], ["id", "asc"]], limit: q.pageSize, offset: (q.page - 1) * q.pageSize });
   return { items: await toDtos(ctx, rows), page: q.page, pageSize: q.pageSize, total: count };

@@ -5,7 +5,6 @@
  */
 import { createReadStream } from "node:fs";
 import { randomUUID } from "node:crypto";
-import { Op } from "sequelize";
 import { can } from "@/lib/access/permissions";
 import { uploadOriginalKey } from "@/storage/keys";
 import { StorageUnavailableError } from "@/storage/object-store";
@@ -13,7 +12,7 @@ import type { UploadKind } from "@/models/upload";
 import type { LabContext } from "../access";
 import { authorize } from "../access";
 import { AppError, notFound } from "../errors";
-import type { ListQuery, ListResult } from "../list";
+import { containsText, type ListQuery, type ListResult } from "../list";
 import { database, services } from "../services";
 import { recordAudit } from "./audit";
 import { findSpecimen } from "./specimens";
@@ -62,7 +61,7 @@ async function toDtos(ctx: LabContext, rows: UploadRow[]): Promise<UploadDto[]> 
 export async function listUploads(ctx: LabContext, specimenId: string, q: ListQuery<(typeof UPLOAD_SORTS)[number]>): Promise<ListResult<UploadDto>> {
   const m = await database();
   await findSpecimen(ctx, specimenId);
-  const where = { labId: ctx.labId, specimenId, ...(q.q ? { filename: { [Op.like]: `%${q.q}%` } } : {}) };
+  const where = { labId: ctx.labId, specimenId, ...(q.q ? { filename: containsText(q.q) } : {}) };
   const { rows, count } = await m.Upload.findAndCountAll({ where, order: [[q.sort, q.dir], ["id", "asc"]], limit: q.pageSize, offset: (q.page - 1) * q.pageSize });
   return { items: await toDtos(ctx, rows), page: q.page, pageSize: q.pageSize, total: count };
 }

@@ -1,6 +1,5 @@
 import { listReadouts, READOUT_SORTS, startReadout } from "@/lib/server/data/readouts";
-import { AppError } from "@/lib/server/errors";
-import { json } from "@/lib/server/http";
+import { json, readJsonValue } from "@/lib/server/http";
 import { labRoute } from "@/lib/server/lab-route";
 import { parseListQuery } from "@/lib/server/list";
 
@@ -17,14 +16,5 @@ export const GET = labRoute<P>("upload.read", async (ctx, request, p) => json(aw
  * `window`, `profileAxis`, `pixelSizeUm`; tables: `columns` {x,y | position | spacing}, `unit`, `pixelSizeUm`.
  */
 export const POST = labRoute<P>("readout.create", async (ctx, request, p) => {
-  const text = await request.text();
-  let body: unknown = {};
-  if (text.trim() !== "") {
-    try {
-      body = JSON.parse(text);
-    } catch {
-      throw new AppError("bad_input", "the request body is not valid JSON");
-    }
-  }
-  return json(await startReadout(ctx, p.uploadId, body), 202);
+  return json(await startReadout(ctx, p.uploadId, await readJsonValue(request)), 202);
 });
