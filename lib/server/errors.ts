@@ -10,6 +10,7 @@ export const ERROR_STATUS = {
   conflict: 409,
   too_large: 413,
   unprocessable: 422,
+  rate_limited: 429,
   unavailable: 503,
 } as const;
 export type ErrorCode = keyof typeof ERROR_STATUS;
