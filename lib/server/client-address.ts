@@ -27,8 +27,8 @@ export function dropClientForwardedFor(): void {
   if (g.__morphokinXffGuard) return;
   g.__morphokinXffGuard = true;
   const emit = http.Server.prototype.emit;
-  http.Server.prototype.emit = function patchedEmit(this: http.Server, event: string | symbol, ...args: unknown[]) {
+  http.Server.prototype.emit = function patchedEmit(this: http.Server, event: string | symbol, ...args: unknown[]): boolean {
     if (event === "request") delete (args[0] as http.IncomingMessage).headers["x-forwarded-for"];
-    return emit.call(this, event, ...args);
+    return (emit as (this: http.Server, event: string | symbol, ...a: unknown[]) => boolean).call(this, event, ...args);
   } as typeof emit;
 }

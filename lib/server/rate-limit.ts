@@ -9,6 +9,7 @@
  */
 import { QueryTypes } from "sequelize";
 import type { Config } from "./config";
+import { clientAddress } from "./client-address";
 import { AppError } from "./errors";
 import { services } from "./services";
 
@@ -110,4 +111,9 @@ export async function recordFailedPassword(email: string): Promise<void> {
 export async function clearFailedPasswords(email: string): Promise<void> {
   const { db } = services();
   await db.sequelize.query("DELETE FROM rate_limits WHERE key = :key AND (locked_until_ms IS NULL OR locked_until_ms <= :now)", { replacements: { key: lockKey(email), now: Date.now() } });
+}
+
+/** The request's client address as configured (TRUST_PROXY). */
+export function addressOf(request: Request): string {
+  return clientAddress(request, services().config.trustProxyHops);
 }
