@@ -48,14 +48,16 @@ async function hit(key: string, windowMs: number, now = Date.now()): Promise<{ c
   const { db } = services();
   await db.ready;
   // Every SET expression reads the row's old values, so both CASEs test the same old window.
-  const rows = await db.sequelize.query<CounterRow>(
+  // (Sequelize's sqlite dialect runs an INSERT without returning rows, so the count is read after;
+  // a hit from elsewhere in between can only make this count higher, never let one through.)
+  await db.sequelize.query(
     `INSERT INTO rate_limits (key, count, window_started_ms) VALUES (:key, 1, :now)
      ON CONFLICT (key) DO UPDATE SET
        count = CASE WHEN rate_limits.window_started_ms <= :stale THEN 1 ELSE rate_limits.count + 1 END,
-       window_started_ms = CASE WHEN rate_limits.window_started_ms <= :stale THEN :now ELSE rate_limits.window_started_ms END
-     RETURNING count, window_started_ms`,
-    { replacements: { key, now, stale: now - windowMs }, type: QueryTypes.SELECT },
+       window_started_ms = CASE WHEN rate_limits.window_started_ms <= :stale THEN :now ELSE rate_limits.window_started_ms END`,
+    { replacements: { key, now, stale: now - windowMs } },
   );
+  const rows = await db.sequelize.query<CounterRow>("SELECT count, window_started_ms FROM rate_limits WHERE key = :key", { replacements: { key }, type: QueryTypes.SELECT });
   const row = rows[0];
   return { count: Number(row.count), resetsAtMs: Number(row.window_started_ms) + windowMs };
 }
