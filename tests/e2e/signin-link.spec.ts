@@ -1,9 +1,9 @@
-/** Sign-in by e-mailed link: the link signs in once; the second use is refused. */
+/** Sign-in by e-mailed link: the link signs in once; the second use is refused. Signing out ends the session. */
 import { expect, test } from "@playwright/test";
 import { DEMO, DEMO_LAB } from "./support/demo";
 import { E2E_BASE_URL } from "./support/ports";
 import { linkTo, mailIds, waitForMail } from "./support/mailbox";
-import { DASHBOARD_URL } from "./support/session";
+import { DASHBOARD_URL, signIn } from "./support/session";
 
 test("a sign-in link works once", async ({ page, browser }) => {
   const email = DEMO.scientist.email;
@@ -48,4 +48,24 @@ test("an unknown address gets the same check-your-mail page and no mail", async 
   // Give a mistaken send time to arrive before concluding none was sent.
   await page.waitForTimeout(1000);
   expect(await mailIds(email)).toEqual(new Set());
+});
+
+test("signing out ends the session: the cookie that worked before answers 401 after it", async ({ page, browser }) => {
+  await signIn(page, DEMO.collaborator.email);
+  const cookies = await page.context().cookies();
+  expect(cookies.some((c) => c.name.includes("next-auth.session-token"))).toBe(true);
+  const replay = async () => {
+    const other = await browser.newContext();
+    try {
+      await other.addCookies(cookies);
+      return (await other.request.get(`${E2E_BASE_URL}/api/v1/me`)).status();
+    } finally {
+      await other.close();
+    }
+  };
+  expect(await replay()).toBe(200);
+
+  await page.getByTestId("sign-out").click();
+  await expect(page).toHaveURL(/\/login/);
+  expect(await replay()).toBe(401);
 });
