@@ -58,6 +58,10 @@ async function hit(key: string, windowMs: number, now = Date.now()): Promise<{ c
     { replacements: { key, now, stale: now - windowMs } },
   );
   const rows = await db.sequelize.query<CounterRow>("SELECT count, window_started_ms FROM rate_limits WHERE key = :key", { replacements: { key }, type: QueryTypes.SELECT });
+  // Now and then, forget counters whose window ended a day ago and that lock nothing.
+  if (Math.random() < 0.01) {
+    await db.sequelize.query("DELETE FROM rate_limits WHERE window_started_ms < :old AND (locked_until_ms IS NULL OR locked_until_ms < :now)", { replacements: { old: now - 86_400_000, now } });
+  }
   const row = rows[0];
   return { count: Number(row.count), resetsAtMs: Number(row.window_started_ms) + windowMs };
 }
