@@ -1,9 +1,9 @@
 /** Creating an account with its lab (by the e-mailed confirmation link), a taken address, a wrong password and the lockout. */
 import { expect, test } from "@playwright/test";
 import { DEMO, DEMO_LAB, DEMO_PASSWORD, unique, uniqueEmail } from "./support/demo";
-import { mailIds, waitForMail } from "./support/mailbox";
+import { linkTo, mailIds, waitForMail } from "./support/mailbox";
 import { E2E_MAILBOX_URL } from "./support/ports";
-import { fillSignup, signIn, signUp } from "./support/session";
+import { DASHBOARD_URL, fillSignup, signIn, signUp } from "./support/session";
 
 test("sign-up creates the account and a lab, and lands on it as lab manager", async ({ page }) => {
   const account = { name: "Rowan Teale", email: uniqueEmail("signup"), password: "placode-spacing-42", labName: unique("Feather Tract Group") };
@@ -27,7 +27,7 @@ test("sign-up creates the account and a lab, and lands on it as lab manager", as
 
 // Changed by issue 10, item 9 (no account enumeration): a taken address no longer gets an error
 // naming it; the page is the same as for a new address, and the mail tells the owner.
-test("signing up again with an address that has an account shows the same page and mails the owner", async ({ page }) => {
+test("signing up again with an address that has an account shows the same page and mails the owner", async ({ page, browser }) => {
   const seen = await mailIds(DEMO.scientist.email);
   await page.goto("/signup");
   await fillSignup(page, { name: "Someone Else", email: DEMO.scientist.email, password: "another-password-1", labName: unique("Duplicate Lab") });
@@ -40,6 +40,17 @@ test("signing up again with an address that has an account shows the same page a
   expect(mail.subject).toBe("You already have a Morphokin account");
 
   expect((await page.request.get("/api/v1/me")).status()).toBe(401);
+
+  // The mail's one-time sign-in link signs the owner in (made like next-auth's own links).
+  const owner = await browser.newContext();
+  try {
+    const o = await owner.newPage();
+    await o.goto(linkTo(mail, "/api/auth/callback/email"));
+    await expect(o).toHaveURL(DASHBOARD_URL);
+    expect((await (await o.request.get("/api/v1/me")).json()).email).toBe(DEMO.scientist.email);
+  } finally {
+    await owner.close();
+  }
 
   // The existing account is untouched: same password, still only the demo lab.
   await signIn(page, DEMO.scientist.email);
