@@ -15,6 +15,7 @@ import { initJob } from "./job";
 import { initKineticsVersion } from "./kinetics-version";
 import { initLabKinetics } from "./lab-kinetics";
 import { initReadout } from "./readout";
+import { initSignupRequest } from "./signup-request";
 import { initSimulationRun } from "./simulation-run";
 import { initLab } from "./lab";
 import { initMembership } from "./membership";
@@ -43,6 +44,7 @@ export function createModels(sequelize: Sequelize) {
     Comment: initComment(sequelize),
     Fit: initFit(sequelize),
     SimulationRun: initSimulationRun(sequelize),
+    SignupRequest: initSignupRequest(sequelize),
   };
   const { User, Lab, Membership, Invitation, Study, Specimen, Upload, ApiToken, LabKinetics, KineticsVersion, Readout } = models;
   Membership.belongsTo(User, { as: "user", foreignKey: "userId" });

@@ -107,6 +107,9 @@ export function appEnv(): NodeJS.ProcessEnv {
     NEXTAUTH_URL: process.env.NEXTAUTH_URL ?? `http://127.0.0.1:${port}`,
     NEXTAUTH_SECRET: ensureSecret(config.dataDir),
     DEV_MAILBOX_URL: process.env.DEV_MAILBOX_URL ?? "http://127.0.0.1:2526",
+    // The local demo serves the development mailbox with its production build (the app still
+    // turns it off unless the app's and the mail catcher's URLs are on loopback).
+    MORPHOKIN_DEV_MAILBOX: process.env.MORPHOKIN_DEV_MAILBOX ?? "1",
     PORT: port,
   };
 }

@@ -20,9 +20,20 @@ export const loginSchema = z.object({
 
 export const magicLinkSchema = z.object({ email: emailSchema });
 
+/** `password` is the new account's, or the existing account's to confirm; none when signed in as the invitee. */
 export const acceptInvitationSchema = z.object({
   name: z.string().trim().min(1, "enter your name").max(120).optional(),
-  password: passwordSchema,
+  password: passwordSchema.optional(),
+});
+
+export const signupConfirmSchema = z.object({
+  token: z.string().min(1, "the link's token is missing").max(200),
+  password: z.string().min(1, "enter the password you chose when you signed up").max(200),
+});
+
+export const changePasswordSchema = z.object({
+  currentPassword: z.string().min(1, "enter your current password").max(200),
+  newPassword: passwordSchema,
 });
 
 export const tokenCreateSchema = z.object({

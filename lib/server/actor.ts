@@ -27,14 +27,25 @@ async function actorFromToken(secret: string): Promise<Actor | null> {
   return { userId: user.id, email: user.email, name: user.name, via: "token" };
 }
 
-const actorFromSession = cache(async (): Promise<Actor | null> => {
+/**
+ * The signed-in browser session, if its server-side record is still open: next-auth's session
+ * callback (lib/server/auth.ts) drops the user of a closed session, so a cookie kept after
+ * sign-out or a password change answers as signed out.
+ */
+const actorFromSession = cache(async (): Promise<(Actor & { sid: string | null }) | null> => {
   const session = await getServerSession(authOptions());
   const id = session?.user?.id;
   if (!id) return null;
   const m = await database();
   const user = await m.User.findByPk(id);
-  return user ? { userId: user.id, email: user.email, name: user.name, via: "session" } : null;
+  return user ? { userId: user.id, email: user.email, name: user.name, via: "session", sid: session.sid ?? null } : null;
 });
+
+/** The session id of the signed-in browser, for "end my other sessions" (null for API tokens). */
+export async function currentSessionId(request?: Request): Promise<string | null> {
+  if (request?.headers.get("authorization")) return null;
+  return (await actorFromSession())?.sid ?? null;
+}
 
 /** The actor or null. With a request, a Bearer header wins over the cookie. */
 export async function getActor(request?: Request): Promise<Actor | null> {
@@ -46,7 +57,8 @@ export async function getActor(request?: Request): Promise<Actor | null> {
     if (!actor) throw new AppError("unauthenticated", "that API token is unknown or revoked");
     return actor;
   }
-  return actorFromSession();
+  const s = await actorFromSession();
+  return s ? { userId: s.userId, email: s.email, name: s.name, via: s.via } : null;
 }
 
 export async function requireActor(request?: Request): Promise<Actor> {

@@ -33,6 +33,31 @@ export function readConfig() {
     },
     /** HTTP listing of the fake SMTP server's mailbox; unset in production (no mailbox page). */
     devMailboxUrl: process.env.DEV_MAILBOX_URL ?? (process.env.NODE_ENV === "production" && !process.env.MORPHOKIN_DEMO ? "" : "http://127.0.0.1:2526"),
+    /**
+     * A production build serves the development mailbox only with this explicit opt-in
+     * (`npm start`, the local demo, sets it); see lib/server/data/mailbox.ts for the other conditions.
+     */
+    devMailboxOptIn: process.env.MORPHOKIN_DEV_MAILBOX === "1",
+    productionBuild: process.env.NODE_ENV === "production",
+    /**
+     * Reverse proxies in front of the app whose X-Forwarded-For entries are trusted (0: none, the
+     * app is reached directly; see lib/server/client-address.ts).
+     */
+    trustProxyHops: num("TRUST_PROXY", 0),
+    /** Per-window limits (lib/server/rate-limit.ts): attempts per account (e-mail) and per client address. */
+    rateLimits: {
+      windowMinutes: num("RATE_LIMIT_WINDOW_MINUTES", 15),
+      signIn: { perAccount: num("RATE_LIMIT_SIGNIN_PER_ACCOUNT", 30), perAddress: num("RATE_LIMIT_SIGNIN_PER_ADDRESS", 100) },
+      signInLink: { perAccount: num("RATE_LIMIT_SIGNIN_LINK_PER_ACCOUNT", 5), perAddress: num("RATE_LIMIT_SIGNIN_LINK_PER_ADDRESS", 30) },
+      signUp: { perAccount: num("RATE_LIMIT_SIGNUP_PER_ACCOUNT", 5), perAddress: num("RATE_LIMIT_SIGNUP_PER_ADDRESS", 20) },
+      invitation: { perAccount: num("RATE_LIMIT_INVITATION_PER_ACCOUNT", 5), perAddress: num("RATE_LIMIT_INVITATION_PER_ADDRESS", 100) },
+      passwordReset: { perAccount: num("RATE_LIMIT_PASSWORD_RESET_PER_ACCOUNT", 5), perAddress: num("RATE_LIMIT_PASSWORD_RESET_PER_ADDRESS", 30) },
+    },
+    /** Failed passwords for one account before it is locked, and for how long. */
+    lockoutFailures: num("LOCKOUT_FAILURES", 10),
+    lockoutMinutes: num("LOCKOUT_MINUTES", 15),
+    /** How long a sign-up confirmation link works. */
+    signupLinkHours: num("SIGNUP_LINK_HOURS", 24),
     /** Largest upload accepted, bytes. */
     maxUploadBytes: num("MAX_UPLOAD_BYTES", 200 * 1024 * 1024),
     invitationDays: num("INVITATION_DAYS", 7),

@@ -11,6 +11,7 @@ export const ERROR_STATUS = {
   too_large: 413,
   unsupported_media_type: 415,
   unprocessable: 422,
+  rate_limited: 429,
   unavailable: 503,
 } as const;
 export type ErrorCode = keyof typeof ERROR_STATUS;

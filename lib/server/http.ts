@@ -7,7 +7,10 @@ import { crossSiteRefusal } from "./same-origin";
 
 export function errorResponse(err: unknown): Response {
   if (err instanceof AppError) {
-    return Response.json({ error: { code: err.code, message: err.message, ...(err.details ? { details: err.details } : {}) } }, { status: err.status });
+    // A rate-limited answer says when to come back (RFC 9110 §10.2.3 Retry-After, in seconds).
+    const retry = (err as { retryAfterS?: number }).retryAfterS;
+    const headers: Record<string, string> = retry ? { "retry-after": String(retry) } : {};
+    return Response.json({ error: { code: err.code, message: err.message, ...(err.details ? { details: err.details } : {}) } }, { status: err.status, headers });
   }
   if (err instanceof ZodError) {
     return Response.json({ error: { code: "bad_input", message: describeZodError(err), details: z.flattenError(err) } }, { status: 400 });

@@ -50,10 +50,12 @@ describe("accounts", () => {
     expect(await provider.options.authorize({ email: w.people.manager.email, password: "long-enough-pw" })).toMatchObject({ email: w.people.manager.email });
   });
 
-  it("a duplicate e-mail at sign-up is a 409 naming the address", async () => {
+  // Changed by issue 10, item 9 (no account enumeration): a taken address is no longer a 409 that
+  // names it; it answers like a new one, and the mail says the rest (tests/api/auth-signup.test.ts).
+  it("a duplicate e-mail at sign-up answers like a new one (202, check your e-mail)", async () => {
     const res = await call(R("POST /api/v1/signup"), "POST", "/api/v1/signup", { json: { name: "X", email: w.people.manager.email.toUpperCase(), password: "long-enough-pw", labName: "Dup Lab" } });
-    expect(res.status).toBe(409);
-    expect((await errorOf(res)).message).toBe(`an account with the e-mail ${w.people.manager.email} already exists; sign in instead`);
+    expect(res.status).toBe(202);
+    expect(await res.json()).toEqual({ status: "check-email", email: w.people.manager.email, message: `Check your e-mail: a message to ${w.people.manager.email} tells you how to go on.` });
   });
 
   it("a short password and a bad e-mail are 400 with both fields named", async () => {

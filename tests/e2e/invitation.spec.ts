@@ -82,3 +82,25 @@ test("a revoked invitation's link says it was revoked", async ({ page, browser }
   await page.getByTestId("audit-table").getByLabel("Filter rows").fill(email);
   await expect(page.getByTestId("audit-table").getByRole("row").filter({ hasText: "invitation.revoked" })).toContainText(`${DEMO.manager.email} revoked the invitation of ${email}`);
 });
+
+test("an invitation link opened while signed in as someone else is refused until they sign out", async ({ page }) => {
+  const labId = await signIn(page, DEMO.manager.email);
+  const email = uniqueEmail("bound");
+  const link = await invite(page, labId, email, "Collaborator");
+
+  // The manager (who could have copied the link) opens it: refused, nothing to submit.
+  await page.goto(link);
+  await expect(page.getByTestId("invite-error")).toHaveText(`You are signed in as ${DEMO.manager.email}; this invitation is for ${email}. Sign out first.`);
+  await expect(page.getByTestId("accept-invitation")).toHaveCount(0);
+  const res = await page.request.post(`${new URL(link).pathname.replace("/invite/", "/api/v1/invitations/")}/accept`, { data: { name: "Not Me", password: "not-me-password" } });
+  expect(res.status()).toBe(403);
+
+  // Signed out, the invitee's form is there and still works.
+  await page.getByTestId("invite-sign-out").click();
+  await expect(page.getByTestId("accept-invitation")).toBeVisible();
+  await page.getByLabel("Your name").fill("Ines Okafor");
+  await page.getByLabel(/^Choose a password/).fill("bound-invitee-pass");
+  await page.getByTestId("accept-invitation").click();
+  await expect(page).toHaveURL(`/labs/${labId}`);
+  await expect(page.getByTestId("current-role")).toHaveText("Collaborator");
+});

@@ -18,6 +18,11 @@ export const E2E_ENV = {
   S3_ENDPOINT: `http://127.0.0.1:${E2E_PORTS.s3}`,
   SMTP_URL: `smtp://127.0.0.1:${E2E_PORTS.smtp}`,
   DEV_MAILBOX_URL: E2E_MAILBOX_URL,
+  // Every browser test signs in from 127.0.0.1: per-address limits sized for one person would trip.
+  RATE_LIMIT_SIGNIN_PER_ADDRESS: "10000",
+  RATE_LIMIT_SIGNIN_LINK_PER_ADDRESS: "10000",
+  RATE_LIMIT_SIGNUP_PER_ADDRESS: "10000",
+  RATE_LIMIT_INVITATION_PER_ADDRESS: "10000",
 };
 
 function fail(message: string): never {

@@ -1,9 +1,9 @@
-/** Sign-in by e-mailed link: the link signs in once; the second use is refused. */
+/** Sign-in by e-mailed link: the link signs in once; the second use is refused. Signing out ends the session. */
 import { expect, test } from "@playwright/test";
-import { DEMO, DEMO_LAB } from "./support/demo";
+import { DEMO, DEMO_LAB, unique, uniqueEmail } from "./support/demo";
 import { E2E_BASE_URL } from "./support/ports";
 import { linkTo, mailIds, waitForMail } from "./support/mailbox";
-import { DASHBOARD_URL } from "./support/session";
+import { DASHBOARD_URL, signIn, signUp } from "./support/session";
 
 test("a sign-in link works once", async ({ page, browser }) => {
   const email = DEMO.scientist.email;
@@ -48,4 +48,47 @@ test("an unknown address gets the same check-your-mail page and no mail", async 
   // Give a mistaken send time to arrive before concluding none was sent.
   await page.waitForTimeout(1000);
   expect(await mailIds(email)).toEqual(new Set());
+});
+
+test("signing out ends the session: the cookie that worked before answers 401 after it", async ({ page, browser }) => {
+  await signIn(page, DEMO.collaborator.email);
+  const cookies = await page.context().cookies();
+  expect(cookies.some((c) => c.name.includes("next-auth.session-token"))).toBe(true);
+  const replay = async () => {
+    const other = await browser.newContext();
+    try {
+      await other.addCookies(cookies);
+      return (await other.request.get(`${E2E_BASE_URL}/api/v1/me`)).status();
+    } finally {
+      await other.close();
+    }
+  };
+  expect(await replay()).toBe(200);
+
+  await page.getByTestId("sign-out").click();
+  await expect(page).toHaveURL(/\/login/);
+  expect(await replay()).toBe(401);
+});
+
+test("changing the password on the Account page signs out the account's other sessions", async ({ page, browser }) => {
+  const account = { name: "Noor Vesel", email: uniqueEmail("pwchange"), password: "first-password-1", labName: unique("Vesel Lab") };
+  await signUp(page, account);
+  const other = await browser.newContext();
+  try {
+    const o = await other.newPage();
+    await signIn(o, account.email, account.password);
+    expect((await o.request.get("/api/v1/me")).status()).toBe(200);
+
+    await page.goto("/account");
+    const form = page.getByTestId("password-form");
+    await form.getByLabel(/^Current password/).fill(account.password);
+    await form.getByLabel(/^New password/).fill("second-password-2");
+    await page.getByTestId("change-password").click();
+    await expect(page.getByTestId("password-message")).toHaveText("Password changed. Signed out 1 other session.");
+
+    expect((await o.request.get("/api/v1/me")).status()).toBe(401);
+    expect((await page.request.get("/api/v1/me")).status()).toBe(200);
+  } finally {
+    await other.close();
+  }
 });

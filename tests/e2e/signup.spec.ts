@@ -1,7 +1,9 @@
-/** Creating an account with its lab, the duplicate-address error, and a wrong password. */
+/** Creating an account with its lab (by the e-mailed confirmation link), a taken address, a wrong password and the lockout. */
 import { expect, test } from "@playwright/test";
 import { DEMO, DEMO_LAB, DEMO_PASSWORD, unique, uniqueEmail } from "./support/demo";
-import { fillSignup, signIn, signUp } from "./support/session";
+import { linkTo, mailIds, waitForMail } from "./support/mailbox";
+import { E2E_MAILBOX_URL } from "./support/ports";
+import { DASHBOARD_URL, fillSignup, signIn, signUp } from "./support/session";
 
 test("sign-up creates the account and a lab, and lands on it as lab manager", async ({ page }) => {
   const account = { name: "Rowan Teale", email: uniqueEmail("signup"), password: "placode-spacing-42", labName: unique("Feather Tract Group") };
@@ -23,18 +25,60 @@ test("sign-up creates the account and a lab, and lands on it as lab manager", as
   expect(me.labs).toEqual([{ id: labId, name: account.labName, role: "manager" }]);
 });
 
-test("signing up again with an address that has an account is refused with a clear message", async ({ page }) => {
+// Changed by issue 10, item 9 (no account enumeration): a taken address no longer gets an error
+// naming it; the page is the same as for a new address, and the mail tells the owner.
+test("signing up again with an address that has an account shows the same page and mails the owner", async ({ page, browser }) => {
+  const seen = await mailIds(DEMO.scientist.email);
   await page.goto("/signup");
   await fillSignup(page, { name: "Someone Else", email: DEMO.scientist.email, password: "another-password-1", labName: unique("Duplicate Lab") });
   await page.getByTestId("create-account").click();
-  await expect(page.getByTestId("signup-error")).toHaveText(`an account with the e-mail ${DEMO.scientist.email} already exists; sign in instead`);
-  await expect(page).toHaveURL(/\/signup$/);
+  await expect(page).toHaveURL(/\/signup\/check-email/);
+  await expect(page.getByTestId("signup-check-email")).toHaveText(`We sent a message to ${DEMO.scientist.email}. Open the link in it to finish creating your account and lab.`);
+  // In this local setup the page says where local mail is read (the catcher's listing).
+  await expect(page.getByTestId("local-mail-catcher")).toContainText(E2E_MAILBOX_URL);
+  const mail = await waitForMail(DEMO.scientist.email, seen);
+  expect(mail.subject).toBe("You already have a Morphokin account");
 
   expect((await page.request.get("/api/v1/me")).status()).toBe(401);
+
+  // The mail's one-time sign-in link signs the owner in (made like next-auth's own links).
+  const owner = await browser.newContext();
+  try {
+    const o = await owner.newPage();
+    await o.goto(linkTo(mail, "/api/auth/callback/email"));
+    await expect(o).toHaveURL(DASHBOARD_URL);
+    expect((await (await o.request.get("/api/v1/me")).json()).email).toBe(DEMO.scientist.email);
+  } finally {
+    await owner.close();
+  }
 
   // The existing account is untouched: same password, still only the demo lab.
   await signIn(page, DEMO.scientist.email);
   await expect(page.getByTestId("lab-switcher").locator("option")).toHaveText([DEMO_LAB]);
+});
+
+test("ten wrong passwords lock the account, and the sign-in page says for how long", async ({ page }) => {
+  const account = { name: "Lia Brandt", email: uniqueEmail("lockout"), password: "lockout-password-1", labName: unique("Lockout Lab") };
+  await signUp(page, account);
+  await page.context().clearCookies();
+  await page.goto("/login");
+  await page.getByLabel(/^E-mail$/).fill(account.email);
+  // LOCKOUT_FAILURES defaults to 10 (lib/server/config.ts).
+  for (let i = 0; i < 10; i++) {
+    await page.getByLabel(/^Password/).fill(`wrong-password-${i}`);
+    // Wait for the answer itself, so every failure is counted before the next try.
+    const answer = page.waitForResponse((r) => r.url().includes("/api/auth/callback/credentials"));
+    await page.getByTestId("sign-in").click();
+    expect((await answer).status()).toBe(401);
+    await expect(page.getByTestId("login-error")).toHaveText("Wrong e-mail or password.");
+  }
+  await page.getByLabel(/^Password/).fill(account.password);
+  const locked = page.waitForResponse((r) => r.url().includes("/api/auth/callback/credentials"));
+  await page.getByTestId("sign-in").click();
+  expect((await locked).status()).toBe(429);
+  expect(Number((await locked).headers()["retry-after"])).toBeGreaterThan(14 * 60);
+  await expect(page.getByTestId("login-error")).toHaveText("Too many failed sign-ins for this account; try again in 15 minutes or use a sign-in link.");
+  expect((await page.request.get("/api/v1/me")).status()).toBe(401);
 });
 
 test("a wrong password on the sign-in form says so and stays on the form", async ({ page }) => {

@@ -6,6 +6,7 @@ import { getMe } from "@/lib/server/data/accounts";
 import { pageActor } from "@/lib/server/page-access";
 import Link from "next/link";
 import { CreateLabForm } from "./create-lab-form";
+import { PasswordForm } from "./password-form";
 import { SettingsForm } from "./settings-form";
 import { TokensView } from "./tokens-view";
 
@@ -31,6 +32,9 @@ export default async function AccountPage() {
         </Panel>
         <Panel title="Notifications">
           <SettingsForm notifyByEmail={me.notifyByEmail} />
+        </Panel>
+        <Panel title="Change password">
+          <PasswordForm />
         </Panel>
       </div>
       <div className="mt-6">

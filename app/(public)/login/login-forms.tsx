@@ -18,11 +18,20 @@ const ERRORS: Record<string, string> = {
   SessionRequired: "Sign in to open that page.",
 };
 
+/** "Locked:14" / "RateLimited:3" (lib/server/auth-limits.ts) → a sentence with the minutes; else a known code. */
+function describeError(code: string): string {
+  const [kind, minutes] = code.split(":");
+  const wait = minutes === "1" ? "1 minute" : `${minutes} minutes`;
+  if (kind === "Locked" && minutes) return `Too many failed sign-ins for this account; try again in ${wait} or use a sign-in link.`;
+  if (kind === "RateLimited" && minutes) return `Too many attempts from here; try again in ${wait}.`;
+  return ERRORS[code] ?? "Sign-in failed; try again.";
+}
+
 export function LoginForms() {
   const router = useRouter();
   const params = useSearchParams();
   const callbackUrl = params.get("callbackUrl") ?? "/labs";
-  const [error, setError] = useState<string | null>(params.get("error") ? (ERRORS[params.get("error")!] ?? "Sign-in failed; try again.") : null);
+  const [error, setError] = useState<string | null>(params.get("error") ? describeError(params.get("error")!) : null);
   const pw = useForm<z.input<typeof loginSchema>>({ resolver: zodResolver(loginSchema) });
   const link = useForm<z.input<typeof magicLinkSchema>>({ resolver: zodResolver(magicLinkSchema) });
 
@@ -30,7 +39,7 @@ export function LoginForms() {
     setError(null);
     const res = await signIn("credentials", { email: values.email, password: values.password, redirect: false });
     if (!res || res.error) {
-      setError(ERRORS[res?.error ?? ""] ?? ERRORS.CredentialsSignin);
+      setError(res?.error && res.error !== "CredentialsSignin" ? describeError(res.error) : ERRORS.CredentialsSignin);
       return;
     }
     router.push(callbackUrl);

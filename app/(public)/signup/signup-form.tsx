@@ -1,6 +1,5 @@
 "use client";
 import { zodResolver } from "@hookform/resolvers/zod";
-import { signIn } from "next-auth/react";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
@@ -19,10 +18,8 @@ export function SignupForm() {
   async function onSubmit(values: SignupInput) {
     setError(null);
     try {
-      const { labId } = await sendJson<{ labId: string }>("POST", "/api/v1/signup", values);
-      await signIn("credentials", { email: values.email, password: values.password, redirect: false });
-      router.push(`/labs/${labId}`);
-      router.refresh();
+      const { email } = await sendJson<{ email: string }>("POST", "/api/v1/signup", values);
+      router.push(`/signup/check-email?email=${encodeURIComponent(email)}`);
     } catch (err) {
       setError(err instanceof ApiError ? err.message : "Could not create the account.");
     }

@@ -6,7 +6,9 @@ import { Op } from "sequelize";
 import { ROLE_LABELS, type Role } from "@/lib/access/roles";
 import type { LabContext } from "../access";
 import { AppError, notFound } from "../errors";
+import type { Actor } from "../actor";
 import { hashPassword, verifyPassword } from "../passwords";
+import { enforceRateLimit, lockedForS, lockoutMessage, RateLimitedError, recordFailedPassword } from "../rate-limit";
 import { newSecret, sha256Hex } from "../secrets";
 import { database, services } from "../services";
 import { recordAudit } from "./audit";
@@ -35,7 +37,8 @@ export async function listInvitations(ctx: LabContext): Promise<InvitationDto[]>
   return rows.map((i) => ({ id: i.id, email: i.email, role: i.role, status: statusOf(i), invitedAt: i.createdAt.toISOString(), expiresAt: i.expiresAt.toISOString() }));
 }
 
-export async function createInvitation(ctx: LabContext, email: string, role: Role): Promise<InvitationDto> {
+export async function createInvitation(ctx: LabContext, email: string, role: Role, address?: string): Promise<InvitationDto> {
+  await enforceRateLimit("invitation", { account: email, address: address ?? `user:${ctx.actor.userId}` });
   const m = await database();
   const { config, mailer, db } = services();
   const user = await m.User.findOne({ where: { email } });
@@ -110,18 +113,36 @@ export async function describeInvitation(token: string): Promise<InvitationPubli
   return { labName: lab?.name ?? "", email: inv.email, role: inv.role, roleLabel: ROLE_LABELS[inv.role], status: statusOf(inv), accountExists: !!user, expiresAt: inv.expiresAt.toISOString() };
 }
 
-/** New people set a name and password; people with an account confirm with their password. */
-export async function acceptInvitation(token: string, input: { name?: string; password: string }) {
+/** The refusal when someone else's session opens the link (the link alone must not be enough). */
+export function wrongAccountMessage(signedInAs: string, invitedEmail: string): string {
+  return `You are signed in as ${signedInAs}; this invitation is for ${invitedEmail}. Sign out first.`;
+}
+
+/**
+ * Accepting needs the e-mailed link (the token) and the invitee: a new person sets a name and
+ * password; an existing account confirms with its password or is signed in as itself. A session
+ * (or API token) of any other account is refused.
+ */
+export async function acceptInvitation(token: string, input: { name?: string; password?: string }, actor: Actor | null = null) {
   const m = await database();
   const inv = await findByToken(token);
   const status = statusOf(inv);
   if (status !== "pending") throw explainUnusable(status);
+  if (actor && actor.email.toLowerCase() !== inv.email.toLowerCase()) throw new AppError("forbidden", wrongAccountMessage(actor.email, inv.email));
   const existing = await m.User.findOne({ where: { email: inv.email } });
-  if (existing && !(await verifyPassword(input.password, existing.passwordHash))) {
-    throw new AppError("unauthenticated", `wrong password for the existing account ${inv.email}`);
+  const signedInAsInvitee = !!actor && !!existing && actor.userId === existing.id;
+  if (existing && !signedInAsInvitee) {
+    const locked = await lockedForS(inv.email);
+    if (locked > 0) throw new RateLimitedError(lockoutMessage(locked), locked);
+    if (!input.password) throw new AppError("bad_input", `password: enter the password of your account ${inv.email}`);
+    if (!(await verifyPassword(input.password, existing.passwordHash))) {
+      await recordFailedPassword(inv.email);
+      throw new AppError("unauthenticated", `wrong password for the existing account ${inv.email}`);
+    }
   }
   if (!existing && !input.name) throw new AppError("bad_input", "name: enter your name");
-  const passwordHash = existing ? null : await hashPassword(input.password);
+  if (!existing && !input.password) throw new AppError("bad_input", "password: choose a password");
+  const passwordHash = existing ? null : await hashPassword(input.password!);
   return services().db.sequelize.transaction(async (transaction) => {
     // Re-read inside the transaction so two clicks cannot both accept.
     const fresh = await m.Invitation.findByPk(inv.id, { transaction });

@@ -7,7 +7,7 @@ import { makePerson } from "../../support/world";
 import { ALL, MANAGER_ONLY, NOT_COLLAB, PUBLIC, USER, invitation, lab, next, png, specimen, study, upload, type Case } from "./shared";
 
 export const cases: Record<string, Case> = {
-  "POST /api/v1/signup": { setup: async () => ({ json: { name: "N", email: `new${next()}@lab.test`, password: "long-enough-pw", labName: "New Lab" } }), expect: PUBLIC(201) },
+  "POST /api/v1/signup": { setup: async () => ({ json: { name: "N", email: `new${next()}@lab.test`, password: "long-enough-pw", labName: "New Lab" } }), expect: PUBLIC(202) },
   "GET /api/v1/me": { setup: async () => ({}), expect: USER(200) },
   "PATCH /api/v1/me": { setup: async () => ({ json: { notifyByEmail: false } }), expect: USER(200) },
   "GET /api/v1/labs": { setup: async () => ({}), expect: USER(200) },
@@ -22,7 +22,8 @@ export const cases: Record<string, Case> = {
     expect: { manager: 204, scientist: 404, modeller: 404, collaborator: 404, outsider: 404, anonymous: 401 },
   },
   "GET /api/v1/invitations/[token]": { setup: async (w) => ({ params: { token: (await invitation(w)).token } }), expect: PUBLIC(200) },
-  "POST /api/v1/invitations/[token]/accept": { setup: async (w) => ({ params: { token: (await invitation(w)).token }, json: { name: "Invitee", password: "long-enough-pw" } }), expect: PUBLIC(200) },
+  // Bound to the invitee (issue 10, item 14): anyone signed in as another account is refused.
+  "POST /api/v1/invitations/[token]/accept": { setup: async (w) => ({ params: { token: (await invitation(w)).token }, json: { name: "Invitee", password: "long-enough-pw" } }), expect: { ...PUBLIC(403), anonymous: 200 } },
   "GET /api/v1/labs/[labId]": { setup: async (w) => ({ params: lab(w) }), expect: ALL(200) },
   "GET /api/v1/labs/[labId]/members": { setup: async (w) => ({ params: lab(w) }), expect: ALL(200) },
   "PATCH /api/v1/labs/[labId]/members/[memberId]": {

@@ -1,6 +1,7 @@
 /** Signing in and out through the real forms, and small page-level look-ups. */
 import { expect, type Page } from "@playwright/test";
 import { DEMO_PASSWORD } from "./demo";
+import { linkTo, mailIds, waitForMail } from "./mailbox";
 
 /** Matches a lab dashboard URL and captures the lab id. */
 export const DASHBOARD_URL = /\/labs\/([^/?#]+)$/;
@@ -28,11 +29,21 @@ export interface NewAccount {
   labName: string;
 }
 
-/** Creates an account and its lab through /signup; returns the new lab's id. */
+/**
+ * Creates an account and its lab through /signup: the form, the "check your e-mail" page, the
+ * confirmation link from the fake mailbox and the password; returns the new lab's id.
+ */
 export async function signUp(page: Page, account: NewAccount): Promise<string> {
+  const seen = await mailIds(account.email);
   await page.goto("/signup");
   await fillSignup(page, account);
   await page.getByTestId("create-account").click();
+  await expect(page).toHaveURL(/\/signup\/check-email/);
+  const mail = await waitForMail(account.email, seen);
+  expect(mail.subject).toBe("Confirm your Morphokin account");
+  await page.goto(linkTo(mail, "/signup/confirm/"));
+  await page.getByLabel(/^Your password/).fill(account.password);
+  await page.getByTestId("confirm-account").click();
   await expect(page).toHaveURL(DASHBOARD_URL);
   return labIdOf(page);
 }

@@ -9,22 +9,28 @@ import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { ApiError, sendJson } from "@/lib/client/api";
-import { acceptInvitationSchema, PASSWORD_MIN } from "@/lib/contracts/account";
+import { acceptInvitationSchema, PASSWORD_MIN, passwordSchema } from "@/lib/contracts/account";
 
 type Values = z.input<typeof acceptInvitationSchema>;
 
-export function AcceptForm({ token, email, accountExists }: { token: string; email: string; accountExists: boolean }) {
+export function AcceptForm({ token, email, accountExists, signedInAsInvitee }: { token: string; email: string; accountExists: boolean; signedInAsInvitee: boolean }) {
   const router = useRouter();
   const [error, setError] = useState<string | null>(null);
-  const schema = accountExists ? acceptInvitationSchema : acceptInvitationSchema.extend({ name: z.string().trim().min(1, "enter your name").max(120) });
+  const schema = signedInAsInvitee
+    ? acceptInvitationSchema
+    : accountExists
+      ? acceptInvitationSchema.extend({ password: z.string().min(1, "enter your password") })
+      : acceptInvitationSchema.extend({ name: z.string().trim().min(1, "enter your name").max(120), password: passwordSchema });
   const form = useForm<Values>({ resolver: zodResolver(schema) });
 
   async function onSubmit(values: Values) {
     setError(null);
     try {
       const { labId } = await sendJson<{ labId: string }>("POST", `/api/v1/invitations/${encodeURIComponent(token)}/accept`, values);
-      const res = await signIn("credentials", { email, password: values.password, redirect: false });
-      if (res?.error) throw new Error("Joined the lab, but signing in failed; sign in from the sign-in page.");
+      if (!signedInAsInvitee) {
+        const res = await signIn("credentials", { email, password: values.password, redirect: false });
+        if (res?.error) throw new Error("Joined the lab, but signing in failed; sign in from the sign-in page.");
+      }
       router.push(`/labs/${labId}`);
       router.refresh();
     } catch (err) {
@@ -39,19 +45,21 @@ export function AcceptForm({ token, email, accountExists }: { token: string; ema
           {error}
         </Notice>
       )}
-      {accountExists ? (
+      {signedInAsInvitee ? (
+        <p className="text-sm text-ink-soft">You are signed in as {email}.</p>
+      ) : accountExists ? (
         <p className="text-sm text-ink-soft">You already have a Morphokin account. Confirm with its password to join this lab.</p>
       ) : (
         <TextField label="Your name" autoComplete="name" {...form.register("name")} error={form.formState.errors.name?.message} />
       )}
-      <TextField
+      {!signedInAsInvitee && <TextField
         label={accountExists ? "Your password" : "Choose a password"}
         type="password"
         autoComplete={accountExists ? "current-password" : "new-password"}
         hint={accountExists ? undefined : `At least ${PASSWORD_MIN} characters.`}
         {...form.register("password")}
         error={form.formState.errors.password?.message}
-      />
+      />}
       <Button type="submit" className="w-full" disabled={form.formState.isSubmitting} data-testid="accept-invitation">
         Join the lab
       </Button>

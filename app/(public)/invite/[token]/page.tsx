@@ -1,8 +1,10 @@
 import type { Metadata } from "next";
-import { describeInvitation } from "@/lib/server/data/invitations";
+import { getActor } from "@/lib/server/actor";
+import { describeInvitation, wrongAccountMessage } from "@/lib/server/data/invitations";
 import { AppError } from "@/lib/server/errors";
 import { Notice } from "@/components/ui/notice";
 import { AcceptForm } from "./accept-form";
+import { SignOutHere } from "./sign-out-here";
 
 export const metadata: Metadata = { title: "Invitation" };
 export const dynamic = "force-dynamic";
@@ -30,14 +32,23 @@ export default async function InvitePage({ params }: { params: Promise<{ token: 
     }
     throw err;
   }
+  const actor = await getActor();
+  const otherAccount = actor && actor.email.toLowerCase() !== inv.email.toLowerCase() ? actor.email : null;
   return (
     <div className="mx-auto max-w-md space-y-5 py-6">
       <h1 className="text-2xl font-semibold">Join {inv.labName}</h1>
       <p className="text-sm text-ink-soft">
         You are invited as <strong className="text-ink">{inv.roleLabel}</strong> with the address <span className="num">{inv.email}</span>.
       </p>
-      {inv.status === "pending" ? (
-        <AcceptForm token={token} email={inv.email} accountExists={inv.accountExists} />
+      {inv.status === "pending" && otherAccount ? (
+        <div className="space-y-3">
+          <Notice tone="error" testId="invite-error">
+            {wrongAccountMessage(otherAccount, inv.email)}
+          </Notice>
+          <SignOutHere path={`/invite/${encodeURIComponent(token)}`} />
+        </div>
+      ) : inv.status === "pending" ? (
+        <AcceptForm token={token} email={inv.email} accountExists={inv.accountExists} signedInAsInvitee={!!actor} />
       ) : (
         <Notice tone="error" testId="invite-error">
           {UNUSABLE[inv.status]}

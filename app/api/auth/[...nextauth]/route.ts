@@ -1,9 +1,12 @@
 import NextAuth from "next-auth";
 import { authOptions } from "@/lib/server/auth";
+import { guardAuthRequest } from "@/lib/server/auth-limits";
 
 export const runtime = "nodejs";
 
-function handler(request: Request, ctx: { params: Promise<{ nextauth: string[] }> }) {
+async function handler(request: Request, ctx: { params: Promise<{ nextauth: string[] }> }) {
+  const limited = await guardAuthRequest(request, (await ctx.params).nextauth ?? []);
+  if (limited) return limited;
   return NextAuth(authOptions())(request, ctx);
 }
 

@@ -1,12 +1,16 @@
 import { signupSchema } from "@/lib/contracts/account";
-import { signUp } from "@/lib/server/data/accounts";
+import { requestSignup } from "@/lib/server/data/accounts";
 import { json, readJson } from "@/lib/server/http";
 import { publicRoute } from "@/lib/server/lab-route";
+import { addressOf } from "@/lib/server/rate-limit";
 
 export const runtime = "nodejs";
 
-/** Creates an account and its lab, with the new user as lab manager. */
+/**
+ * Starts a sign-up: mails a confirmation link (or, to an address with an account, a note saying
+ * so). 202 with the same body either way, so the answer does not tell whether an address is taken.
+ */
 export const POST = publicRoute(async (request) => {
   const input = await readJson(request, signupSchema);
-  return json(await signUp(input), 201);
+  return json(await requestSignup(input, addressOf(request)), 202);
 });

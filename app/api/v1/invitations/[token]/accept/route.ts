@@ -1,8 +1,13 @@
 import { acceptInvitationSchema } from "@/lib/contracts/account";
+import { getActor } from "@/lib/server/actor";
 import { acceptInvitation } from "@/lib/server/data/invitations";
 import { json, readJson } from "@/lib/server/http";
 import { publicRoute } from "@/lib/server/lab-route";
 
 export const runtime = "nodejs";
 
-export const POST = publicRoute<{ token: string }>(async (request, p) => json(await acceptInvitation(p.token, await readJson(request, acceptInvitationSchema))));
+/** Public (the link is the credential), but bound to the invitee: another account's session is refused. */
+export const POST = publicRoute<{ token: string }>(async (request, p) => {
+  const input = await readJson(request, acceptInvitationSchema);
+  return json(await acceptInvitation(p.token, input, await getActor(request)));
+});

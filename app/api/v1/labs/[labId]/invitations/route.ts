@@ -2,6 +2,7 @@ import { invitationCreateSchema } from "@/lib/contracts/lab";
 import { createInvitation, listInvitations } from "@/lib/server/data/invitations";
 import { json, readJson } from "@/lib/server/http";
 import { labRoute } from "@/lib/server/lab-route";
+import { addressOf } from "@/lib/server/rate-limit";
 
 export const runtime = "nodejs";
 
@@ -9,5 +10,5 @@ export const GET = labRoute("invitation.manage", async (ctx) => json({ items: aw
 
 export const POST = labRoute("invitation.manage", async (ctx, request) => {
   const { email, role } = await readJson(request, invitationCreateSchema);
-  return json(await createInvitation(ctx, email, role), 201);
+  return json(await createInvitation(ctx, email, role, addressOf(request)), 201);
 });
