@@ -20,7 +20,7 @@ import { readImage } from "../data/readout-process";
 import { headlineOf, type ReadoutResult } from "../data/readout-result";
 import type { StoredImageSettings, StoredReadoutSettings, StoredTableSettings } from "../data/readout-settings";
 import { runTableReadout } from "../data/readout-table";
-import { registerJobHandler } from "./registry";
+import { registerJobCleanup, registerJobHandler } from "./registry";
 import { JobCancelledError, type JobHandler } from "./types";
 
 const GONE = "the readout was removed (with its upload) before it finished";
@@ -31,8 +31,11 @@ export const runReadoutJob: JobHandler = async (job, ctx) => {
   const readoutId = String(job.payload.readoutId ?? "");
   const row = await m.Readout.findOne({ where: { id: readoutId, labId: job.labId } });
   if (!row) throw new AppError("not_found", GONE);
-  // Immutable: a finished readout is never read again (a restarted job may find it "running").
-  if (row.status !== "queued" && row.status !== "running") throw new AppError("conflict", `this readout has already ${row.status === "succeeded" ? "finished" : row.status}; start a new one instead`);
+  // Immutable: a finished readout is never read again. A job restarted after a server stop may
+  // find it "running" (read it again, overwriting the same derived keys) or "succeeded" (the
+  // process died after the row was written, before the job was: the job succeeds with it).
+  if (row.status === "succeeded") return { readoutId: row.id, wavelengthUm: row.wavelengthUm, periodFound: row.periodFound };
+  if (row.status !== "queued" && row.status !== "running") throw new AppError("conflict", `this readout has already ${row.status}; start a new one instead`);
   const check = () => {
     if (ctx.signal.aborted) throw new JobCancelledError();
   };
@@ -86,3 +89,11 @@ export const runReadoutJob: JobHandler = async (job, ctx) => {
 };
 
 registerJobHandler("readout", runReadoutJob);
+
+// A killed attempt may have put derived objects; their keys are fixed by the readout's ids.
+registerJobCleanup("readout", async (job) => {
+  const m = await database();
+  const row = await m.Readout.findOne({ where: { id: String(job.payload.readoutId ?? ""), labId: job.labId } });
+  if (!row || row.status === "succeeded") return;
+  for (const name of Object.keys(DERIVED_PRODUCTS)) await services().store.delete(readoutDerivedKey(row.labId, row.uploadId, row.id, name));
+});

@@ -1,0 +1,10 @@
+/**
+ * Next's start-up hook: `register` runs once per server process before it answers requests
+ * (node_modules/next/dist/docs/01-app/03-api-reference/03-file-conventions/instrumentation.md).
+ * The start-up tasks use node:fs, sqlite3 and child processes, so only the Node.js runtime runs them.
+ */
+export async function register() {
+  if (process.env.NEXT_RUNTIME !== "nodejs") return;
+  const { runStartupTasks } = await import("./lib/server/startup");
+  await runStartupTasks();
+}
