@@ -1,8 +1,8 @@
 /**
  * Job kind "readout": reads one upload with the settings stored on its readout row.
  *
- * Images are read in a child process (data/readout-process.ts), so a large image never holds the
- * server's event loop; tables (papaparse and a k-d tree, fast) are read in-process.
+ * Images and tables are read in a child process (data/readout-process.ts), so a large image or a
+ * table of a million rows never holds the server's event loop.
  *
  * Nothing half-written: derived objects are put first, then the row becomes "succeeded" with its
  * result in one conditional update; if that update finds no running row (the upload was deleted
@@ -16,10 +16,9 @@ import { DERIVED_PRODUCTS, type DerivedProduct } from "@/lib/contracts/readout";
 import { AppError } from "../errors";
 import { database, services } from "../services";
 import { toReadoutAppError } from "../data/readout-errors";
-import { readImage } from "../data/readout-process";
+import { readImage, readTable } from "../data/readout-process";
 import { headlineOf, type ReadoutResult } from "../data/readout-result";
 import type { StoredImageSettings, StoredReadoutSettings, StoredTableSettings } from "../data/readout-settings";
-import { runTableReadout } from "../data/readout-table";
 import { registerJobCleanup, registerJobHandler } from "./registry";
 import { JobCancelledError, type JobHandler } from "./types";
 
@@ -66,7 +65,7 @@ export const runReadoutJob: JobHandler = async (job, ctx) => {
       }
       result = out.result;
     } else {
-      result = runTableReadout(bytes.toString("utf8"), settings as StoredTableSettings);
+      result = await readTable(bytes, settings as StoredTableSettings, ctx.signal);
     }
     await ctx.progress(0.95, "saving");
     const h = headlineOf(result);
