@@ -3,6 +3,7 @@
  * instrumentation.ts, Next's start-up hook, in the Node.js runtime only). Each task logs its own
  * failure and never stops the others or the server from starting.
  */
+import { startTokenExpirySweep } from "./data/tokens";
 import { recoverJobs } from "./jobs/runner";
 
 export interface StartupTask {
@@ -16,6 +17,8 @@ export const STARTUP_TASKS: StartupTask[] = [
   // ── re-queued readouts never see a half-stored upload.
   // Jobs left "running" by a dead process are re-queued once (failed the second time), then queued jobs start.
   { name: "recover interrupted jobs", run: recoverJobs },
+  // API tokens that expired while the server was down get their audit entry; then hourly.
+  { name: "record expired API tokens", run: startTokenExpirySweep },
 ];
 
 /** Runs every start-up task in order; resolves when all have ended (succeeded or logged). */
