@@ -4,14 +4,10 @@
  * being parsed can be cancelled — in-process, a synchronous parse could not be interrupted.
  */
 import { describe, expect, it } from "vitest";
-import { readTable, readoutRunner } from "@/lib/server/data/readout-process";
+import { readTable } from "@/lib/server/data/readout-process";
 import { JobCancelledError } from "@/lib/server/jobs/types";
 
 describe("table readouts in a child process", () => {
-  it("the default runner is the child process", () => {
-    expect(readoutRunner()).toBe("child-process");
-  });
-
   it("gives the hand-computed numbers and can be cancelled while the table is read", async () => {
     // 1-D positions 0, 10, 21, 30, 41 µm: spacings 10, 11, 9, 11, mean 10.25 (by hand).
     const small = new TextEncoder().encode("position_um\n0\n10\n21\n30\n41\n");
