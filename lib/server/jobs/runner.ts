@@ -87,9 +87,17 @@ export interface RecoveryReport {
  * jobs on a database: a second would take the first one's running jobs for dead ones.
  */
 export async function recoverJobs(): Promise<RecoveryReport> {
-  const report = await (state.recovery ??= recoverInterruptedJobs());
+  const report = await recoverOnce();
   kickJobs();
   return report;
+}
+
+/** The process's one recovery; a failed one (database unreachable) is tried again by the next call. */
+function recoverOnce(): Promise<RecoveryReport> {
+  return (state.recovery ??= recoverInterruptedJobs().catch((err: unknown) => {
+    state.recovery = undefined;
+    throw err;
+  }));
 }
 
 async function recoverInterruptedJobs(): Promise<RecoveryReport> {
@@ -127,7 +135,7 @@ export function kickJobs(): void {
   state.kicking = true;
   void (async () => {
     try {
-      await (state.recovery ??= recoverInterruptedJobs());
+      await recoverOnce();
       const m = await database();
       while (state.running.size < concurrency() && !state.stopped) {
         const next = await m.Job.findOne({ where: { status: "queued" }, order: [["createdAt", "asc"]] });
