@@ -5,6 +5,7 @@
  */
 import { startTokenExpirySweep } from "./data/tokens";
 import { recoverJobs } from "./jobs/runner";
+import { removeStaleJobFolders } from "./jobs/temp-folders";
 
 export interface StartupTask {
   name: string;
@@ -17,6 +18,8 @@ export const STARTUP_TASKS: StartupTask[] = [
   // ── re-queued readouts never see a half-stored upload.
   // Jobs left "running" by a dead process are re-queued once (failed the second time), then queued jobs start.
   { name: "recover interrupted jobs", run: recoverJobs },
+  // Temporary folders of readout, fit and run child processes killed with an earlier server process.
+  { name: "remove stale job folders", run: () => removeStaleJobFolders() },
   // API tokens that expired while the server was down get their audit entry; then hourly.
   { name: "record expired API tokens", run: startTokenExpirySweep },
 ];

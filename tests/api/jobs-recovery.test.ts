@@ -2,12 +2,13 @@
  * Jobs survive a server stop: at start-up (lib/server/startup.ts, called by instrumentation.ts)
  * a job a dead process left "running" is re-queued once and completes, a second interruption
  * fails it with the reason, its readout ends in the job's state, objects a killed attempt wrote
- * are overwritten or removed, and queued jobs start without any new job being queued. The last
- * test kills a real second process mid-job (SIGKILL) and recovers its job here.
+ * are overwritten or removed, and queued jobs start without any new job being queued. One test
+ * kills a real second process mid-job (SIGKILL) and recovers its job here; the last one checks
+ * that killed jobs' temporary folders are removed at start-up.
  */
 import { spawn, type ChildProcess } from "node:child_process";
 import { createHash } from "node:crypto";
-import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
+import { existsSync, mkdirSync, mkdtempSync, rmSync, utimesSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
@@ -19,6 +20,7 @@ import { createSpecimen } from "@/lib/server/data/specimens";
 import { createStudy } from "@/lib/server/data/studies";
 import { storeUpload } from "@/lib/server/data/uploads";
 import { forgetRunnerStateForTest, INTERRUPTED_TWICE, RESTARTED_NOTE, stopJobs, waitForJob } from "@/lib/server/jobs/runner";
+import { removeStaleJobFolders, STALE_AFTER_MS } from "@/lib/server/jobs/temp-folders";
 import { runStartupTasks } from "@/lib/server/startup";
 import { database, services } from "@/lib/server/services";
 import { readoutDerivedKey } from "@/storage/keys";
@@ -156,6 +158,25 @@ describe("jobs after a server stop", () => {
       expect(await waitForJob(jobId, 30_000)).toMatchObject({ status: "succeeded", restarts: 1, result: { echo: "from the killed process" } });
     } finally {
       if (child && child.exitCode === null && child.signalCode === null) child.kill("SIGKILL");
+    }
+  });
+});
+
+describe("temporary folders of killed jobs", () => {
+  it("folders older than a day are removed at start-up, younger ones and other names kept", async () => {
+    const root = mkdtempSync(path.join(tmpdir(), "morphokin-stale-test-"));
+    try {
+      const now = Date.now();
+      const old = path.join(root, "morphokin-run-old"), young = path.join(root, "morphokin-readout-young"), other = path.join(root, "something-else-old");
+      for (const d of [old, young, other]) mkdirSync(d);
+      writeFileSync(path.join(old, "RUN.json"), "{}");
+      const aged = (now - STALE_AFTER_MS - 60_000) / 1000;
+      utimesSync(old, aged, aged);
+      utimesSync(other, aged, aged);
+      expect(await removeStaleJobFolders(now, root)).toBe(1);
+      expect([existsSync(old), existsSync(young), existsSync(other)]).toEqual([false, true, true]);
+    } finally {
+      rmSync(root, { recursive: true, force: true });
     }
   });
 });
