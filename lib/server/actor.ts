@@ -23,7 +23,7 @@ async function actorFromToken(secret: string): Promise<Actor | null> {
   const token = await m.ApiToken.findOne({ where: { tokenHash: sha256Hex(secret), revokedAt: { [Op.is]: null } } });
   if (!token) return null;
   if (isExpired(token)) {
-    await recordTokenExpiry(token.id);
+    if (!token.expiryRecordedAt) await recordTokenExpiry(token.id); // once per token
     throw new AppError("unauthenticated", `that API token expired on ${expiryDate(token.expiresAt!)}; create a new one on your account page`);
   }
   const user = await m.User.findByPk(token.userId);

@@ -125,6 +125,15 @@ describe("jobs after a server stop", () => {
     expect(await services().store.exists(previewKey)).toBe(false);
   });
 
+  it("a readout written before the kill, whose job row was not, makes its re-queued job succeed without reading again", async () => {
+    const { readout } = await readoutLeftRunning(0);
+    const m = await database();
+    await m.Readout.update({ status: "succeeded", wavelengthUm: 8.01, periodFound: true }, { where: { id: readout.id } });
+    await restartServer();
+    expect(await waitForJob(readout.jobId!, 10_000)).toMatchObject({ status: "succeeded", restarts: 1, result: { readoutId: readout.id, wavelengthUm: 8.01, periodFound: true } });
+    expect((await m.Readout.findByPk(readout.id))!.status).toBe("succeeded");
+  });
+
   it("a job of a process killed with SIGKILL mid-job is recovered and completes here", { timeout: 90_000 }, async () => {
     await stopJobs(); // this process must not run the other process's job while it is alive
     const m = await database();
