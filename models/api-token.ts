@@ -10,6 +10,10 @@ export class ApiToken extends Model<InferAttributes<ApiToken>, InferCreationAttr
   declare prefix: string;
   declare lastUsedAt: CreationOptional<Date | null>;
   declare revokedAt: CreationOptional<Date | null>;
+  /** After this instant the token answers 401; null = never expires. */
+  declare expiresAt: CreationOptional<Date | null>;
+  /** When the expiry was written to the audit trail (once per token). */
+  declare expiryRecordedAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
 }
 
@@ -24,6 +28,8 @@ export function initApiToken(sequelize: Sequelize) {
       prefix: { type: DataTypes.STRING(16), allowNull: false },
       lastUsedAt: { type: DataTypes.DATE },
       revokedAt: { type: DataTypes.DATE },
+      expiresAt: { type: DataTypes.DATE },
+      expiryRecordedAt: { type: DataTypes.DATE },
       createdAt: DataTypes.DATE,
     },
     { sequelize, modelName: "apiToken", tableName: "api_tokens", underscored: true, updatedAt: false },

@@ -4,6 +4,7 @@
  * directly): Next may evaluate a module twice, and only these classes are bound to the instance.
  */
 import type { Sequelize } from "sequelize";
+import { initAccountEvent } from "./account-event";
 import { initApiToken } from "./api-token";
 import { initAuditEvent } from "./audit-event";
 import { initAuthRecords } from "./auth-records";
@@ -45,6 +46,7 @@ export function createModels(sequelize: Sequelize) {
     Fit: initFit(sequelize),
     SimulationRun: initSimulationRun(sequelize),
     SignupRequest: initSignupRequest(sequelize),
+    AccountEvent: initAccountEvent(sequelize),
   };
   const { User, Lab, Membership, Invitation, Study, Specimen, Upload, ApiToken, LabKinetics, KineticsVersion, Readout } = models;
   Membership.belongsTo(User, { as: "user", foreignKey: "userId" });

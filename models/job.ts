@@ -15,6 +15,8 @@ export class Job extends Model<InferAttributes<Job>, InferCreationAttributes<Job
   declare result: CreationOptional<Record<string, unknown> | null>;
   declare error: CreationOptional<string | null>;
   declare requestedBy: string | null;
+  /** How often a server stop interrupted this job while it ran (re-queued once, then failed). */
+  declare restarts: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare startedAt: CreationOptional<Date | null>;
   declare finishedAt: CreationOptional<Date | null>;
@@ -34,6 +36,7 @@ export function initJob(sequelize: Sequelize) {
       result: { type: DataTypes.JSON },
       error: { type: DataTypes.TEXT },
       requestedBy: { type: DataTypes.UUID },
+      restarts: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
       createdAt: DataTypes.DATE,
       startedAt: { type: DataTypes.DATE },
       finishedAt: { type: DataTypes.DATE },

@@ -36,8 +36,16 @@ export const changePasswordSchema = z.object({
   newPassword: passwordSchema,
 });
 
+/** How long a new API token lasts, days (the form's choices; 90 by default). No "never": see tokens.ts. */
+export const TOKEN_LIFETIMES_DAYS = [30, 90, 365] as const;
+export const DEFAULT_TOKEN_LIFETIME_DAYS = 90;
+
 export const tokenCreateSchema = z.object({
   name: z.string().trim().min(1, "give the token a name").max(80, "at most 80 characters"),
+  expiresInDays: z
+    .number({ error: "“Expires after” must be a number of days: 30, 90 or 365" })
+    .refine((d) => (TOKEN_LIFETIMES_DAYS as readonly number[]).includes(d), "“Expires after” must be 30, 90 or 365 days")
+    .optional(),
 });
 
 export const settingsSchema = z.object({

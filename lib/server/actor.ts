@@ -6,6 +6,7 @@ import { getServerSession } from "next-auth";
 import { cache } from "react";
 import { Op } from "sequelize";
 import { authOptions } from "./auth";
+import { expiryDate, isExpired, recordTokenExpiry } from "./data/tokens";
 import { AppError } from "./errors";
 import { sha256Hex } from "./secrets";
 import { database } from "./services";
@@ -21,6 +22,10 @@ async function actorFromToken(secret: string): Promise<Actor | null> {
   const m = await database();
   const token = await m.ApiToken.findOne({ where: { tokenHash: sha256Hex(secret), revokedAt: { [Op.is]: null } } });
   if (!token) return null;
+  if (isExpired(token)) {
+    if (!token.expiryRecordedAt) await recordTokenExpiry(token.id); // once per token
+    throw new AppError("unauthenticated", `that API token expired on ${expiryDate(token.expiresAt!)}; create a new one on your account page`);
+  }
   const user = await m.User.findByPk(token.userId);
   if (!user) return null;
   await token.update({ lastUsedAt: new Date() });

@@ -13,6 +13,7 @@ import CredentialsProvider from "next-auth/providers/credentials";
 import EmailProvider from "next-auth/providers/email";
 import { loginSchema } from "@/lib/contracts/account";
 import type { OutgoingMail } from "./mail";
+import { recordSignIn } from "./data/audit";
 import { verifyPassword } from "./passwords";
 import { clearFailedPasswords, lockedForS, recordFailedPassword } from "./rate-limit";
 import { services } from "./services";
@@ -65,7 +66,10 @@ export async function checkPassword(raw: unknown): Promise<{ id: string; email: 
   const user = await db.models.User.findOne({ where: { email } });
   const ok = await verifyPassword(password, user?.passwordHash);
   if (!user || !ok) {
-    await recordFailedPassword(email);
+    const lockedUntil = await recordFailedPassword(email);
+    // The same audit work for known and unknown addresses; the reason never says which it was.
+    await recordSignIn({ outcome: "failed", email, method: "password", reason: "wrong e-mail or password" });
+    if (lockedUntil) await recordSignIn({ outcome: "locked", email, method: "password", lockedUntil });
     return null;
   }
   await clearFailedPasswords(email);
@@ -126,6 +130,9 @@ function buildAuthOptions(): NextAuthOptions {
       },
     },
     events: {
+      async signIn({ user, account }) {
+        await recordSignIn({ outcome: "succeeded", email: String(user.email ?? ""), method: account?.provider === "email" ? "an e-mailed link" : "password" });
+      },
       async signOut({ token }) {
         await closeSession(token?.sid);
       },

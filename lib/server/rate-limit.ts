@@ -102,15 +102,20 @@ export function lockoutMessage(seconds: number): string {
   return `Too many failed sign-ins for this account; try again in ${minutesText(seconds)} or use a sign-in link.`;
 }
 
-/** Counts a wrong password; the LOCKOUT_FAILURES-th within LOCKOUT_MINUTES locks the account for LOCKOUT_MINUTES. */
-export async function recordFailedPassword(email: string): Promise<void> {
+/**
+ * Counts a wrong password; the LOCKOUT_FAILURES-th within LOCKOUT_MINUTES locks the account for
+ * LOCKOUT_MINUTES. Returns the end of the lockout this failure started, else null.
+ */
+export async function recordFailedPassword(email: string): Promise<Date | null> {
   const { config, db } = services();
   const lockMs = config.lockoutMinutes * 60_000;
   const now = Date.now();
   const { count } = await hit(lockKey(email), lockMs, now);
   if (count >= config.lockoutFailures) {
     await db.sequelize.query("UPDATE rate_limits SET locked_until_ms = :until, count = 0, window_started_ms = :now WHERE key = :key", { replacements: { key: lockKey(email), until: now + lockMs, now } });
+    return new Date(now + lockMs);
   }
+  return null;
 }
 
 /** A correct password clears the failure count (not a running lockout: that is checked first). */

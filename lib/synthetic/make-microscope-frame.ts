@@ -48,7 +48,7 @@ export function makeMicroscopeFrame(o: MicroscopeFrameOptions): GreyImage {
       : { width, height, data: new Float32Array(width * height) };
   const rng = createRng(seed);
   const cx = width / 2, cy = height / 2, r2 = cx * cx + cy * cy;
-  let data = new Float32Array(width * height);
+  let data: Float32Array = new Float32Array(width * height);
   for (let y = 0; y < height; y++) {
     for (let x = 0; x < width; x++) {
       const i = y * width + x;

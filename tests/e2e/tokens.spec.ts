@@ -1,4 +1,4 @@
-/** A personal API token: shown once, works as Bearer, stops working when revoked. */
+/** A personal API token: shown once, works as Bearer, expires after 90 days unless chosen otherwise, stops working when revoked. */
 import { expect, test } from "@playwright/test";
 import { BASE_URL, DEMO, DEMO_LAB, unique } from "./support/demo";
 import { signIn } from "./support/session";
@@ -10,6 +10,7 @@ test("create a token, call the API with it, revoke it", async ({ page }) => {
   await page.goto("/account");
   const name = unique("batch readouts");
   await page.getByLabel("Token name").fill(name);
+  await expect(page.getByLabel("Expires after")).toHaveValue("90"); // the default lifetime, days
   await page.getByTestId("create-token").click();
 
   const shown = page.getByTestId("token-secret");
@@ -19,6 +20,10 @@ test("create a token, call the API with it, revoke it", async ({ page }) => {
   const row = page.getByTestId("tokens-table").getByRole("row").filter({ hasText: name });
   await expect(row).toContainText("active");
   await expect(row).toContainText("never");
+  // Expires 90 days from now (either side of midnight UTC while the test runs).
+  const day = (ms: number) => new Date(ms).toISOString().slice(0, 10);
+  const created = Date.now();
+  await expect(row.locator("td").nth(4)).toHaveText(new RegExp(`^(${day(created + 90 * 86_400_000 - 60_000)}|${day(created + 90 * 86_400_000 + 60_000)})$`));
   // The list shows only the start of the secret.
   await expect(row.locator("td").nth(1)).toHaveText(/^.+…$/);
   const prefix = (await row.locator("td").nth(1).textContent())!.replace("…", "");

@@ -3,8 +3,10 @@ import { AppShell } from "@/components/layout/app-shell";
 import { PageHeader, Panel } from "@/components/ui/panel";
 import { ROLE_LABELS, type Role } from "@/lib/access/roles";
 import { getMe } from "@/lib/server/data/accounts";
+import { listOwnAccountEvents } from "@/lib/server/data/audit";
 import { pageActor } from "@/lib/server/page-access";
 import Link from "next/link";
+import { AccountEventsList } from "./account-events-list";
 import { CreateLabForm } from "./create-lab-form";
 import { PasswordForm } from "./password-form";
 import { SettingsForm } from "./settings-form";
@@ -14,7 +16,9 @@ export const metadata: Metadata = { title: "Account" };
 export const dynamic = "force-dynamic";
 
 export default async function AccountPage() {
-  const me = await getMe(await pageActor("/account"));
+  const actor = await pageActor("/account");
+  const me = await getMe(actor);
+  const events = await listOwnAccountEvents(actor.userId, 20);
   return (
     <AppShell me={me}>
       <PageHeader title="Your account" subtitle={<span className="num">{me.email}</span>} />
@@ -40,6 +44,12 @@ export default async function AccountPage() {
       <div className="mt-6">
         <Panel title="API tokens">
           <TokensView />
+        </Panel>
+      </div>
+      <div className="mt-6">
+        <Panel title="Recent sign-ins and API tokens">
+          <p className="mb-3 text-sm text-ink-soft">The last 20, newest first. The managers of your labs see these too. If you see a sign-in that was not you, change your password and revoke your tokens.</p>
+          <AccountEventsList items={events} empty="Nothing recorded yet." testId="account-events" />
         </Panel>
       </div>
     </AppShell>

@@ -1,7 +1,9 @@
 /**
- * Child-process entry of an image readout, so decoding and FFTs of a large image never hold the
- * server's event loop: `node --import tsx lib/server/data/readout-child.ts --input FILE
- * --settings FILE --out DIR` runs {@link runImageReadout}, writes the derived products into DIR,
+ * Child-process entry of a readout, so decoding and FFTs of a large image, or parsing and
+ * statistics of a large table, never hold the server's event loop: `node --import tsx
+ * lib/server/data/readout-child.ts --input FILE --settings FILE --out DIR` runs
+ * {@link runImageReadout} (settings of kind "image"; writes the derived products into DIR) or
+ * {@link runTableReadout} (kind "table"; no derived products),
  * prints the result as one JSON object on stdout and reports progress on stderr as lines
  * `progress {"fraction", "note"}`. A readout error is printed as `error {"code", "message", "details"}`
  * (exit code 2) so the parent can rebuild the same AppError; anything else exits 1 with its stack.
@@ -10,7 +12,8 @@ import { readFileSync, writeFileSync } from "node:fs";
 import path from "node:path";
 import { toReadoutAppError } from "./readout-errors";
 import { runImageReadout } from "./readout-image";
-import type { StoredImageSettings } from "./readout-settings";
+import type { StoredImageSettings, StoredReadoutSettings, StoredTableSettings } from "./readout-settings";
+import { runTableReadout } from "./readout-table";
 
 function arg(name: string): string {
   const i = process.argv.indexOf(name);
@@ -20,9 +23,14 @@ function arg(name: string): string {
 
 async function main() {
   const bytes = readFileSync(arg("--input"));
-  const settings = JSON.parse(readFileSync(arg("--settings"), "utf8")) as StoredImageSettings;
+  const settings = JSON.parse(readFileSync(arg("--settings"), "utf8")) as StoredReadoutSettings;
+  if (settings.kind === "table") {
+    const result = runTableReadout(bytes.toString("utf8"), settings as StoredTableSettings);
+    process.stdout.write(JSON.stringify(result) + "\n");
+    return;
+  }
   const out = arg("--out");
-  const r = await runImageReadout(bytes, settings, async (fraction, note) => {
+  const r = await runImageReadout(bytes, settings as StoredImageSettings, async (fraction, note) => {
     process.stderr.write(`progress ${JSON.stringify({ fraction, note })}\n`);
   });
   for (const [name, body] of Object.entries(r.derived)) writeFileSync(path.join(out, name), body);

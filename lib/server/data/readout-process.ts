@@ -1,11 +1,11 @@
 /**
- * Runs an image readout off the event loop in a child Node process (readout-child.ts, through
- * jobs/child-process.ts), killed
- * when the job is cancelled or runs past READOUT_TIME_LIMIT_MS. A 4096² image is ~2 s of pure
- * computation; in-process every other request would wait for it. Readout errors come back as the
- * same AppError (code, message, details) the in-process path throws.
+ * Runs an image or table readout off the event loop in a child Node process (readout-child.ts,
+ * through jobs/child-process.ts), killed when the job is cancelled or runs past
+ * READOUT_TIME_LIMIT_MS. A 4096² image is ~2 s of pure computation, and parsing a 1 000 000-row
+ * CSV with its statistics ~5 s; in-process every other request would wait for it. Readout errors
+ * come back as the same AppError (code, message, details) the in-process path throws.
  *
- * READOUT_IN_PROCESS=1 runs the same function in this process instead (measurements, debugging).
+ * READOUT_IN_PROCESS=1 runs the same functions in this process instead (measurements, debugging).
  */
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
@@ -14,8 +14,9 @@ import { AppError, type ErrorCode } from "../errors";
 import { parseProtocolLine, runTsxChild } from "../jobs/child-process";
 import { JobCancelledError } from "../jobs/types";
 import { runImageReadout, type ImageReadoutOutput } from "./readout-image";
-import type { ImageReadoutResult } from "./readout-result";
-import type { StoredImageSettings } from "./readout-settings";
+import type { ImageReadoutResult, TableReadoutResult } from "./readout-result";
+import type { StoredImageSettings, StoredTableSettings } from "./readout-settings";
+import { runTableReadout } from "./readout-table";
 
 /** Longest one image readout may run, ms (design choice: 20× the 4096² bench figure, and start-up). */
 export const READOUT_TIME_LIMIT_MS = 3 * 60_000;
@@ -32,6 +33,28 @@ export async function readImage(
 ): Promise<ImageReadoutOutput> {
   if (signal.aborted) throw new JobCancelledError();
   if (readoutRunner() === "in-process") return runImageReadout(bytes, settings, step);
+  return inChild(bytes, settings, signal, step, (stdout, dir) => {
+    const result = JSON.parse(stdout) as ImageReadoutResult;
+    const derived = Object.fromEntries(DERIVED.map((name) => [name, readFileSync(path.join(dir, name))])) as ImageReadoutOutput["derived"];
+    return { result, derived };
+  });
+}
+
+/** A CSV/TSV table readout (parsing, column guess, spacing statistics); no derived objects. */
+export async function readTable(bytes: Uint8Array, settings: StoredTableSettings, signal: AbortSignal): Promise<TableReadoutResult> {
+  if (signal.aborted) throw new JobCancelledError();
+  if (readoutRunner() === "in-process") return runTableReadout(Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength).toString("utf8"), settings);
+  return inChild(bytes, settings, signal, async () => undefined, (stdout) => JSON.parse(stdout) as TableReadoutResult);
+}
+
+/** Runs readout-child.ts on the bytes and settings; `read` turns its stdout (and out folder) into the result. */
+async function inChild<T>(
+  bytes: Uint8Array,
+  settings: StoredImageSettings | StoredTableSettings,
+  signal: AbortSignal,
+  step: (fraction: number, note: string) => Promise<void>,
+  read: (stdout: string, dir: string) => T,
+): Promise<T> {
   const dir = mkdtempSync(path.join(tmpdir(), "morphokin-readout-"));
   try {
     const input = path.join(dir, "input"), settingsFile = path.join(dir, "settings.json");
@@ -51,14 +74,11 @@ export async function readImage(
       },
     });
     await progress;
-    if (r.timedOut) throw new AppError("unprocessable", `the readout took longer than ${READOUT_TIME_LIMIT_MS / 60_000} minutes and was stopped; draw a smaller region of interest or try again when the server is less busy`);
+    if (r.timedOut) throw new AppError("unprocessable", `the readout took longer than ${READOUT_TIME_LIMIT_MS / 60_000} minutes and was stopped; ${settings.kind === "table" ? "split the table" : "draw a smaller region of interest"} or try again when the server is less busy`);
     const f = failure as Failure | null; // assigned in the callback, which TypeScript cannot follow
     if (f) throw new AppError(f.code, f.message, f.details ?? undefined);
     if (r.code !== 0) throw new Error(`the readout process exited with code ${r.code}: ${r.stderr.trim().slice(-500)}`);
-    const stdout = r.stdout;
-    const result = JSON.parse(stdout) as ImageReadoutResult;
-    const derived = Object.fromEntries(DERIVED.map((name) => [name, readFileSync(path.join(dir, name))])) as ImageReadoutOutput["derived"];
-    return { result, derived };
+    return read(r.stdout, dir);
   } finally {
     rmSync(dir, { recursive: true, force: true });
   }

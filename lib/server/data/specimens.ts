@@ -6,7 +6,7 @@ import { authorize } from "../access";
 import { AppError, notFound } from "../errors";
 import { containsText, type ListQuery, type ListResult } from "../list";
 import { database, services } from "../services";
-import { recordAudit } from "./audit";
+import { changedFields, describeChanges, fitSummary, recordAudit } from "./audit";
 import { findStudy } from "./studies";
 
 export interface SpecimenDto {
@@ -93,7 +93,14 @@ export async function createSpecimen(ctx: LabContext, studyId: string, input: Sp
 export async function updateSpecimen(ctx: LabContext, specimenId: string, input: Partial<SpecimenFields>): Promise<SpecimenDto> {
   const s = await findSpecimen(ctx, specimenId);
   authorize(ctx, "specimen.edit", s.createdBy);
-  await s.update(input);
+  const m = await database();
+  const changes = changedFields(s.get({ plain: true }), input, { label: "Label", condition: "Condition", stage: "Stage", genotype: "Genotype", notes: "Notes" });
+  const before = s.label;
+  await services().db.sequelize.transaction(async (transaction) => {
+    await s.update(input, { transaction });
+    if (changes.length === 0) return; // nothing changed, nothing to record
+    await recordAudit(m, { labId: ctx.labId, actor: ctx.actor, action: "specimen.edited", targetType: "specimen", targetId: s.id, summary: fitSummary(`${ctx.actor.email} edited specimen “${before}”: ${describeChanges(changes)}`), details: { changes } }, transaction);
+  });
   return (await toDtos(ctx, [s]))[0];
 }
 

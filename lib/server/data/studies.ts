@@ -6,7 +6,7 @@ import { authorize } from "../access";
 import { AppError, notFound } from "../errors";
 import { containsText, type ListQuery, type ListResult } from "../list";
 import { database, services } from "../services";
-import { recordAudit } from "./audit";
+import { changedFields, describeChanges, fitSummary, recordAudit } from "./audit";
 
 export interface StudyDto {
   id: string;
@@ -85,7 +85,14 @@ export async function createStudy(ctx: LabContext, input: { name: string; tissue
 export async function updateStudy(ctx: LabContext, studyId: string, input: Partial<{ name: string; tissue: string; organism: string; description: string | null }>): Promise<StudyDto> {
   const study = await findStudy(ctx, studyId);
   authorize(ctx, "study.edit", study.createdBy);
-  await study.update(input);
+  const m = await database();
+  const changes = changedFields(study.get({ plain: true }), input, { name: "Name", tissue: "Tissue", organism: "Organism", description: "Description" });
+  const before = study.name;
+  await services().db.sequelize.transaction(async (transaction) => {
+    await study.update(input, { transaction });
+    if (changes.length === 0) return; // nothing changed, nothing to record
+    await recordAudit(m, { labId: ctx.labId, actor: ctx.actor, action: "study.edited", targetType: "study", targetId: study.id, summary: fitSummary(`${ctx.actor.email} edited the study “${before}”: ${describeChanges(changes)}`), details: { changes } }, transaction);
+  });
   return (await toDtos(ctx, [study]))[0];
 }
 

@@ -25,7 +25,9 @@ export const runFitJob: JobHandler = async (job, ctx) => {
   const m = await database();
   const row = await m.Fit.findOne({ where: { id: String(job.payload.fitId ?? ""), labId: job.labId } });
   if (!row) throw new AppError("not_found", GONE);
-  if (row.status !== "queued" && row.status !== "running") throw new AppError("conflict", `this fit has already ${row.status === "succeeded" ? "finished" : row.status}; re-run it instead`);
+  // A job restarted after a server stop finds its fit "succeeded" if the process died after the row was written, before the job was.
+  if (row.status === "succeeded") return { fitId: row.id, restored: true };
+  if (row.status !== "queued" && row.status !== "running") throw new AppError("conflict", `this fit has already ${row.status}; re-run it instead`);
   const spec = row.spec as unknown as StoredFitSpec;
   const prov = row.provenance as unknown as FitProvenance;
   const t0 = Date.now();

@@ -1,8 +1,8 @@
 /**
  * Job kind "readout": reads one upload with the settings stored on its readout row.
  *
- * Images are read in a child process (data/readout-process.ts), so a large image never holds the
- * server's event loop; tables (papaparse and a k-d tree, fast) are read in-process.
+ * Images and tables are read in a child process (data/readout-process.ts), so a large image or a
+ * table of a million rows never holds the server's event loop.
  *
  * Nothing half-written: derived objects are put first, then the row becomes "succeeded" with its
  * result in one conditional update; if that update finds no running row (the upload was deleted
@@ -16,11 +16,10 @@ import { DERIVED_PRODUCTS, type DerivedProduct } from "@/lib/contracts/readout";
 import { AppError } from "../errors";
 import { database, services } from "../services";
 import { toReadoutAppError } from "../data/readout-errors";
-import { readImage } from "../data/readout-process";
+import { readImage, readTable } from "../data/readout-process";
 import { headlineOf, type ReadoutResult } from "../data/readout-result";
 import type { StoredImageSettings, StoredReadoutSettings, StoredTableSettings } from "../data/readout-settings";
-import { runTableReadout } from "../data/readout-table";
-import { registerJobHandler } from "./registry";
+import { registerJobCleanup, registerJobHandler } from "./registry";
 import { JobCancelledError, type JobHandler } from "./types";
 
 const GONE = "the readout was removed (with its upload) before it finished";
@@ -31,8 +30,11 @@ export const runReadoutJob: JobHandler = async (job, ctx) => {
   const readoutId = String(job.payload.readoutId ?? "");
   const row = await m.Readout.findOne({ where: { id: readoutId, labId: job.labId } });
   if (!row) throw new AppError("not_found", GONE);
-  // Immutable: a finished readout is never read again (a restarted job may find it "running").
-  if (row.status !== "queued" && row.status !== "running") throw new AppError("conflict", `this readout has already ${row.status === "succeeded" ? "finished" : row.status}; start a new one instead`);
+  // Immutable: a finished readout is never read again. A job restarted after a server stop may
+  // find it "running" (read it again, overwriting the same derived keys) or "succeeded" (the
+  // process died after the row was written, before the job was: the job succeeds with it).
+  if (row.status === "succeeded") return { readoutId: row.id, wavelengthUm: row.wavelengthUm, periodFound: row.periodFound };
+  if (row.status !== "queued" && row.status !== "running") throw new AppError("conflict", `this readout has already ${row.status}; start a new one instead`);
   const check = () => {
     if (ctx.signal.aborted) throw new JobCancelledError();
   };
@@ -63,7 +65,7 @@ export const runReadoutJob: JobHandler = async (job, ctx) => {
       }
       result = out.result;
     } else {
-      result = runTableReadout(bytes.toString("utf8"), settings as StoredTableSettings);
+      result = await readTable(bytes, settings as StoredTableSettings, ctx.signal);
     }
     await ctx.progress(0.95, "saving");
     const h = headlineOf(result);
@@ -86,3 +88,11 @@ export const runReadoutJob: JobHandler = async (job, ctx) => {
 };
 
 registerJobHandler("readout", runReadoutJob);
+
+// A killed attempt may have put derived objects; their keys are fixed by the readout's ids.
+registerJobCleanup("readout", async (job) => {
+  const m = await database();
+  const row = await m.Readout.findOne({ where: { id: String(job.payload.readoutId ?? ""), labId: job.labId } });
+  if (!row || row.status === "succeeded") return;
+  for (const name of Object.keys(DERIVED_PRODUCTS)) await services().store.delete(readoutDerivedKey(row.labId, row.uploadId, row.id, name));
+});

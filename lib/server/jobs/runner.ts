@@ -3,16 +3,25 @@
  * time by default (JOB_CONCURRENCY). The same interface could sit on a queue engine with workers
  * on many machines; callers only enqueue and read job rows.
  */
-import type { Transaction } from "sequelize";
+import { Op, type Transaction } from "sequelize";
 import type { JobStatus } from "@/models/job";
 import { AppError, notFound } from "../errors";
 import { database, services } from "../services";
-import { JOB_HANDLERS } from "./registry";
+import { settleAllDerivedRows, settleDerivedRows } from "./derived-rows";
+import { JOB_CLEANUPS, JOB_HANDLERS } from "./registry";
 import { JobCancelledError, type JobInput } from "./types";
 import "./handlers";
 
-const g = globalThis as unknown as { __morphokinJobs?: { running: Map<string, AbortController>; recovered: boolean; kicking: boolean; stopped: boolean; finishing: Set<Promise<void>> } };
-const state = (g.__morphokinJobs ??= { running: new Map(), recovered: false, kicking: false, stopped: false, finishing: new Set() });
+interface RunnerState {
+  running: Map<string, AbortController>;
+  /** The one recovery of this process (start-up hook or first kick, whichever comes first). */
+  recovery?: Promise<RecoveryReport>;
+  kicking: boolean;
+  stopped: boolean;
+  finishing: Set<Promise<void>>;
+}
+const g = globalThis as unknown as { __morphokinJobs?: RunnerState };
+const state: RunnerState = (g.__morphokinJobs ??= { running: new Map(), kicking: false, stopped: false, finishing: new Set() });
 const concurrency = () => Math.max(1, Number(process.env.JOB_CONCURRENCY ?? "1") || 1);
 
 export interface JobDto {
@@ -24,6 +33,8 @@ export interface JobDto {
   error: string | null;
   result: Record<string, unknown> | null;
   requestedBy: string | null;
+  /** How often a server stop interrupted it (it is re-queued once, then failed). */
+  restarts: number;
   createdAt: string;
   startedAt: string | null;
   finishedAt: string | null;
@@ -41,6 +52,7 @@ export function toJobDto(j: JobRow): JobDto {
     error: j.error,
     result: j.result,
     requestedBy: j.requestedBy,
+    restarts: j.restarts,
     createdAt: j.createdAt.toISOString(),
     startedAt: j.startedAt?.toISOString() ?? null,
     finishedAt: j.finishedAt?.toISOString() ?? null,
@@ -57,12 +69,64 @@ export async function enqueueJob(input: { labId: string; kind: string; payload: 
   return job;
 }
 
-async function recover() {
-  if (state.recovered) return;
-  state.recovered = true;
+/** Progress note of a job re-queued because the server stopped while it ran. */
+export const RESTARTED_NOTE = "restarted after a server restart";
+/** Error of a job that a second server stop interrupted: it is not tried a third time. */
+export const INTERRUPTED_TWICE = "failed: the server stopped twice while this job ran, so it was not started a third time; start it again, and if it keeps failing, make it smaller";
+
+export interface RecoveryReport {
+  requeued: string[];
+  failed: string[];
+}
+
+/**
+ * Jobs left "running" by a process that died (killed, crashed, restarted) are re-queued once and
+ * failed with a reason the second time; rows of ended jobs still open are settled; then queued
+ * jobs start. Run once per process at start-up (instrumentation.ts → lib/server/startup.ts), and
+ * lazily by the first kick in a process without that hook (CLI, tests). Only one process may run
+ * jobs on a database: a second would take the first one's running jobs for dead ones.
+ */
+export async function recoverJobs(): Promise<RecoveryReport> {
+  const report = await recoverOnce();
+  kickJobs();
+  return report;
+}
+
+/** The process's one recovery; a failed one (database unreachable) is tried again by the next call. */
+function recoverOnce(): Promise<RecoveryReport> {
+  return (state.recovery ??= recoverInterruptedJobs().catch((err: unknown) => {
+    state.recovery = undefined;
+    throw err;
+  }));
+}
+
+async function recoverInterruptedJobs(): Promise<RecoveryReport> {
   const m = await database();
-  // A job that was running when the server stopped starts again from the beginning.
-  await m.Job.update({ status: "queued", progress: 0, progressNote: "restarted after a server restart" }, { where: { status: "running" } });
+  const report: RecoveryReport = { requeued: [], failed: [] };
+  // Jobs this process runs itself are alive, whatever their row says.
+  const stale = await m.Job.findAll({ where: { status: "running", id: { [Op.notIn]: [...state.running.keys()] } } });
+  for (const job of stale) {
+    if (job.restarts >= 1) {
+      const [n] = await m.Job.update({ status: "failed", error: INTERRUPTED_TWICE, finishedAt: new Date() }, { where: { id: job.id, status: "running" } });
+      if (n === 0) continue;
+      report.failed.push(job.id);
+      await settleDerivedRows([{ id: job.id, status: "failed", error: INTERRUPTED_TWICE }]);
+      await cleanUpAfterInterruption(job);
+    } else {
+      const [n] = await m.Job.update({ status: "queued", progress: 0, progressNote: RESTARTED_NOTE, startedAt: null, restarts: job.restarts + 1 }, { where: { id: job.id, status: "running" } });
+      if (n > 0) report.requeued.push(job.id);
+    }
+  }
+  await settleAllDerivedRows();
+  if (report.requeued.length + report.failed.length > 0) console.warn(`jobs: ${report.requeued.length} re-queued and ${report.failed.length} failed after a server stop`);
+  return report;
+}
+
+/** Removes the objects an interrupted attempt may have left (its own clean-up never ran). */
+async function cleanUpAfterInterruption(job: JobRow): Promise<void> {
+  const cleanup = JOB_CLEANUPS[job.kind];
+  if (!cleanup) return;
+  await cleanup({ id: job.id, labId: job.labId, kind: job.kind, payload: job.payload, requestedBy: job.requestedBy }).catch((err) => console.error(`job ${job.kind} ${job.id}: clean-up after a server stop failed`, err));
 }
 
 /** Starts queued jobs while there is capacity. Safe to call often. */
@@ -71,7 +135,7 @@ export function kickJobs(): void {
   state.kicking = true;
   void (async () => {
     try {
-      await recover();
+      await recoverOnce();
       const m = await database();
       while (state.running.size < concurrency() && !state.stopped) {
         const next = await m.Job.findOne({ where: { status: "queued" }, order: [["createdAt", "asc"]] });
@@ -118,7 +182,10 @@ async function execute(row: JobRow, controller: AbortController) {
     const cancelled = err instanceof JobCancelledError || controller.signal.aborted;
     const message = err instanceof AppError || err instanceof JobCancelledError ? err.message : err instanceof Error ? err.message : String(err);
     if (!cancelled && !(err instanceof AppError)) console.error(`job ${row.kind} ${row.id} failed:`, err);
-    await m.Job.update({ status: cancelled ? "cancelled" : "failed", error: message, finishedAt: new Date() }, { where: { id: row.id } });
+    const status = cancelled ? "cancelled" : "failed";
+    await m.Job.update({ status, error: message, finishedAt: new Date() }, { where: { id: row.id } });
+    await settleDerivedRows([{ id: row.id, status, error: message }]).catch((e) => console.error(`job ${row.kind} ${row.id}: could not settle its row`, e));
+    if (row.restarts > 0) await cleanUpAfterInterruption(row);
     if (!cancelled) mailIfLong(input, "failed", message, startedMs);
   }
 }
@@ -163,6 +230,7 @@ export async function cancelJob(labId: string, jobId: string): Promise<JobDto> {
   if (!job) throw notFound("job");
   if (job.status === "queued") {
     await job.update({ status: "cancelled", error: "the job was cancelled", finishedAt: new Date() });
+    await settleDerivedRows([{ id: job.id, status: "cancelled", error: "the job was cancelled" }]);
   } else if (job.status === "running") {
     state.running.get(job.id)?.abort();
   } else {
@@ -194,8 +262,14 @@ export async function stopJobs(): Promise<void> {
   while (state.finishing.size > 0) await Promise.allSettled([...state.finishing]);
 }
 
+/** A runner as in a new process, recovered nothing yet, not kicked (tests of the start-up hook). */
+export function forgetRunnerStateForTest(): void {
+  state.stopped = false;
+  state.recovery = undefined;
+}
+
 export function resumeJobs(): void {
   state.stopped = false;
-  state.recovered = false;
+  state.recovery = undefined;
   kickJobs();
 }

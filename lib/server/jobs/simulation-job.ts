@@ -23,7 +23,7 @@ import { fieldRange, fieldToGrey, renderFieldPng } from "../data/simulation-run-
 import { initialFieldFile, loadRunStartFields } from "../data/simulation-run-start";
 import type { RunPlan, RunResult, RunSpec } from "../data/simulation-run-types";
 import { parseProtocolLine, runTsxChild } from "./child-process";
-import { registerJobHandler } from "./registry";
+import { registerJobCleanup, registerJobHandler } from "./registry";
 import { JobCancelledError, type JobHandler } from "./types";
 
 const GONE = "the run was removed before it finished";
@@ -84,6 +84,8 @@ export const runSimulationJob: JobHandler = async (job, ctx) => {
   const { store } = services();
   const row = await m.SimulationRun.findOne({ where: { id: String(job.payload.runId ?? ""), labId: job.labId } });
   if (!row) throw new AppError("not_found", GONE);
+  // A job restarted after a server stop finds its run "succeeded" if the process died after the row was written, before the job was.
+  if (row.status === "succeeded") return { runId: row.id, stopReason: row.stopReason, wavelength: row.wavelengthUm };
   if (row.status !== "queued" && row.status !== "running") throw new AppError("conflict", `this run has already ${row.status}; start a new one instead`);
   const spec = row.spec as unknown as RunSpec, plan = row.plan as unknown as RunPlan;
   const dir = mkdtempSync(path.join(tmpdir(), "morphokin-run-"));
@@ -181,3 +183,21 @@ export const runSimulationJob: JobHandler = async (job, ctx) => {
 };
 
 registerJobHandler("simulation", runSimulationJob);
+
+/** Every object name a run may store (its keys are fixed by the run's id; a re-run overwrites them). */
+function runObjectNames(spec: RunSpec, plan: RunPlan): string[] {
+  const names = ["result.json", "run.json", "spectrum.json", "preview.png", "fft.png"];
+  plan.species.forEach((_, s) => {
+    names.push(`final-${s}.f64`, `final-${s}.png`, initialFieldFile(s));
+    spec.snapshotTimesS.forEach((_t, i) => names.push(`snapshot-${i}-${s}.png`));
+  });
+  return names;
+}
+
+// A killed attempt may have put objects; remove them all when the run ends without success.
+registerJobCleanup("simulation", async (job) => {
+  const m = await database();
+  const row = await m.SimulationRun.findOne({ where: { id: String(job.payload.runId ?? ""), labId: job.labId } });
+  if (!row || row.status === "succeeded") return;
+  for (const name of runObjectNames(row.spec as unknown as RunSpec, row.plan as unknown as RunPlan)) await services().store.delete(simulationRunKey(row.labId, row.id, name));
+});

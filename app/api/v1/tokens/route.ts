@@ -7,5 +7,8 @@ export const runtime = "nodejs";
 
 export const GET = userRoute(async (actor) => json({ items: await listTokens(actor) }));
 
-/** The response holds `secret` once; only its hash is kept. */
-export const POST = userRoute(async (actor, request) => json(await createToken(actor, (await readJson(request, tokenCreateSchema)).name), 201));
+/** The response holds `secret` once; only its hash is kept. `expiresInDays`: 30, 90 (default) or 365. */
+export const POST = userRoute(async (actor, request) => {
+  const body = await readJson(request, tokenCreateSchema);
+  return json(await createToken(actor, body.name, body.expiresInDays), 201);
+});

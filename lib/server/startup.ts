@@ -1,0 +1,36 @@
+/**
+ * What the server does once when its process starts, before it answers requests (called from
+ * instrumentation.ts, Next's start-up hook, in the Node.js runtime only). Each task logs its own
+ * failure and never stops the others or the server from starting.
+ */
+import { startTokenExpirySweep } from "./data/tokens";
+import { recoverJobs } from "./jobs/runner";
+import { removeStaleJobFolders } from "./jobs/temp-folders";
+
+export interface StartupTask {
+  name: string;
+  run(): Promise<unknown>;
+}
+
+export const STARTUP_TASKS: StartupTask[] = [
+  // ── Upload sweep goes here (another change): remove temporary upload folders and stored objects
+  // ── without their row, left by a process killed mid-upload. Keep it BEFORE job recovery, so
+  // ── re-queued readouts never see a half-stored upload.
+  // Jobs left "running" by a dead process are re-queued once (failed the second time), then queued jobs start.
+  { name: "recover interrupted jobs", run: recoverJobs },
+  // Temporary folders of readout, fit and run child processes killed with an earlier server process.
+  { name: "remove stale job folders", run: () => removeStaleJobFolders() },
+  // API tokens that expired while the server was down get their audit entry; then hourly.
+  { name: "record expired API tokens", run: startTokenExpirySweep },
+];
+
+/** Runs every start-up task in order; resolves when all have ended (succeeded or logged). */
+export async function runStartupTasks(tasks: StartupTask[] = STARTUP_TASKS): Promise<void> {
+  for (const task of tasks) {
+    try {
+      await task.run();
+    } catch (err) {
+      console.error(`start-up task "${task.name}" failed:`, err);
+    }
+  }
+}
