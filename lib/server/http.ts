@@ -1,10 +1,11 @@
 /** Route-handler glue: JSON bodies validated by a schema, errors mapped to status codes. */
 import { z, ZodError, type ZodType } from "zod";
-import { AppError } from "./errors";
+import { AppError, ServerBusyError } from "./errors";
 
 export function errorResponse(err: unknown): Response {
   if (err instanceof AppError) {
-    return Response.json({ error: { code: err.code, message: err.message, ...(err.details ? { details: err.details } : {}) } }, { status: err.status });
+    const headers = err instanceof ServerBusyError ? { "retry-after": String(err.retryAfterS) } : undefined;
+    return Response.json({ error: { code: err.code, message: err.message, ...(err.details ? { details: err.details } : {}) } }, { status: err.status, headers });
   }
   if (err instanceof ZodError) {
     return Response.json({ error: { code: "bad_input", message: describeZodError(err), details: z.flattenError(err) } }, { status: 400 });
