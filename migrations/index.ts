@@ -4,6 +4,7 @@ import * as m0002 from "./20261201-0002-kinetics-jobs-readouts";
 import * as m0005 from "./20261201-0005-discussions";
 import * as m0006 from "./20261201-0006-fits";
 import * as m0007 from "./20261201-0007-simulation-runs";
+import * as m0020 from "./20261203-0020-upload-state";
 
 export const migrationModules = [
   { name: "20261201-0001-foundation", module: m0001 },
@@ -11,4 +12,5 @@ export const migrationModules = [
   { name: "20261201-0005-discussions", module: m0005 },
   { name: "20261201-0006-fits", module: m0006 },
   { name: "20261201-0007-simulation-runs", module: m0007 },
+  { name: "20261203-0020-upload-state", module: m0020 },
 ];
