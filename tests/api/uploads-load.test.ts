@@ -6,7 +6,7 @@
  * temporary upload folder is left. Before the write queue this run saw 500s (SQLITE_BUSY) and
  * p95 of many seconds (figures in the commit that added this file).
  */
-import { readdirSync } from "node:fs";
+import { existsSync, readdirSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { ListObjectsV2Command, S3Client } from "@aws-sdk/client-s3";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
@@ -15,8 +15,10 @@ import { encodePng } from "@/lib/imaging";
 import { makeStripes } from "@/lib/synthetic";
 import { createSpecimen } from "@/lib/server/data/specimens";
 import { createStudy } from "@/lib/server/data/studies";
+import { uploadGate } from "@/lib/server/back-pressure";
 import { stopJobs } from "@/lib/server/jobs/runner";
-import { database } from "@/lib/server/services";
+import { uploadTempRoot } from "@/lib/server/multipart";
+import { database, setServicesForTest } from "@/lib/server/services";
 import { call, discoverRoutes, multipart } from "../support/api";
 import { startTestStack, type TestStack } from "../support/stack";
 import { makeWorld, type World } from "../support/world";
@@ -49,7 +51,11 @@ async function listKeys(prefix: string): Promise<string[]> {
   return keys;
 }
 
-const tempUploadFolders = () => readdirSync(tmpdir()).filter((n) => n.startsWith("morphokin-upload-"));
+/** Temporary upload folders: ours under the data dir, and the system temp folder (where they were once kept). */
+const tempUploadFolders = () => [
+  ...(existsSync(uploadTempRoot(stack.services.config.dataDir)) ? readdirSync(uploadTempRoot(stack.services.config.dataDir)) : []),
+  ...readdirSync(tmpdir()).filter((n) => n.startsWith("morphokin-upload-")),
+];
 
 beforeAll(async () => {
   stack = await startTestStack();
@@ -105,4 +111,43 @@ describe("uploads under load", () => {
     expect(new Set(readouts.map((r) => r.uploadId))).toEqual(new Set(rows.map((r) => r.id)));
     expect(tempUploadFolders().filter((n) => !tempBefore.has(n))).toEqual([]);
   }, 120_000);
+
+  it("a saturated server refuses an upload at once with 503 + Retry-After, without reading its body", async () => {
+    // One slot, no waiting room: the slot taken here leaves none for the request.
+    const config = { ...stack.services.config, uploadsInFlight: 1, uploadsWaiting: 0 };
+    setServicesForTest({ ...stack.services, config });
+    const leave = await uploadGate().enter({ inFlight: 1, waiting: 0, waitMs: 1000 });
+    try {
+      const request = new Request(`http://127.0.0.1:3999/api/v1/labs/${w.labId}/specimens/${specimenId}/uploads`, {
+        method: "POST",
+        headers: { authorization: `Bearer ${w.people.scientist.token}` },
+        body: multipart({ name: "tile.png", bytes: png }, { pixelSizeUm: "0.5" }),
+      });
+      const t0 = Date.now();
+      const res = await routes.get("POST /api/v1/labs/[labId]/specimens/[specimenId]/uploads")!(request, { params: Promise.resolve({ labId: w.labId, specimenId }) });
+      expect(Date.now() - t0).toBeLessThan(1000); // at once, not after a wait (common practice, no source)
+      expect(res.status).toBe(503);
+      expect(Number(res.headers.get("retry-after"))).toBeGreaterThanOrEqual(1);
+      expect(((await res.json()) as { error: { message: string } }).error.message).toMatch(/^the server is busy \(it is receiving as many uploads as it can\); try again in \d+ s$/);
+      expect(request.bodyUsed).toBe(false);
+    } finally {
+      leave();
+      setServicesForTest(stack.services);
+    }
+  });
+});
+
+describe("upload input", () => {
+  it("two files in one upload are a 400 naming the count, not a 413", async () => {
+    const form = multipart({ name: "a.png", bytes: png }, { pixelSizeUm: "0.5" });
+    form.append("file", new Blob([png as Uint8Array<ArrayBuffer>], { type: "image/png" }), "b.png");
+    const before = (await database()).Upload.unscoped().count();
+    const res = await call(routes.get("POST /api/v1/labs/[labId]/specimens/[specimenId]/uploads")!, "POST", "/api/v1/labs/[labId]/specimens/[specimenId]/uploads", {
+      token: w.people.scientist.token, params: { labId: w.labId, specimenId }, body: form,
+    });
+    expect(res.status).toBe(400);
+    expect(((await res.json()) as { error: { message: string } }).error.message).toBe("send one file per upload; this request had 2 files");
+    expect(await (await database()).Upload.unscoped().count()).toBe(await before);
+    expect(readdirSync(uploadTempRoot(stack.services.config.dataDir))).toEqual([]);
+  });
 });
