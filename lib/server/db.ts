@@ -54,7 +54,7 @@ function isRead(sql: unknown, options: { type?: string } | undefined): boolean {
 /**
  * Routes every transaction and every write outside a transaction through `queue`. Statements
  * inside a transaction carry it in their options and run at once (the transaction holds the
- * turn). A transaction made without a callback (unmanaged) is not queued: nothing here uses one.
+ * turn); an unmanaged transaction (no callback) holds the turn until its commit or rollback.
  */
 function installWriteQueue(sequelize: Sequelize, queue: WriteQueue): void {
   const query = sequelize.query.bind(sequelize) as (sql: unknown, options?: Record<string, unknown>) => Promise<unknown>;
@@ -62,7 +62,24 @@ function installWriteQueue(sequelize: Sequelize, queue: WriteQueue): void {
   Object.assign(sequelize, {
     query: (sql: unknown, options?: { transaction?: unknown; type?: string }) =>
       options?.transaction || isRead(sql, options) ? query(sql, options) : queue.run(() => query(sql, options)),
-    transaction: (...args: unknown[]) => (args.some((a) => typeof a === "function") ? queue.run(() => transaction(...args)) : transaction(...args)),
+    transaction: async (...args: unknown[]) => {
+      if (args.some((a) => typeof a === "function")) return queue.run(() => transaction(...args));
+      // Unmanaged (Sequelize's findOrCreate makes one): the turn ends with its commit or rollback.
+      const leave = await queue.acquire();
+      try {
+        const t = (await transaction(...args)) as Transaction;
+        const commit = t.commit.bind(t);
+        const rollback = t.rollback.bind(t);
+        Object.assign(t, {
+          commit: () => commit().finally(leave),
+          rollback: () => rollback().finally(leave),
+        });
+        return t;
+      } catch (err) {
+        leave();
+        throw err;
+      }
+    },
   });
 }
 

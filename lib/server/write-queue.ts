@@ -10,6 +10,8 @@ import { serverBusy } from "./errors";
 
 export interface WriteQueue {
   run<T>(fn: () => Promise<T>): Promise<T>;
+  /** Waits for the turn and returns its release (call it exactly once; later calls do nothing). */
+  acquire(): Promise<() => void>;
   /** Callers waiting now (not counting the holder). */
   readonly waiting: number;
 }
@@ -37,7 +39,7 @@ export function createWriteQueue(options: { maxWaitMs: number; what?: string }):
     }
   };
 
-  const acquire = (): Promise<void> => {
+  const wait = (): Promise<void> => {
     if (!held) {
       held = true;
       return Promise.resolve();
@@ -55,17 +57,28 @@ export function createWriteQueue(options: { maxWaitMs: number; what?: string }):
     });
   };
 
+  const acquire = async (): Promise<() => void> => {
+    await wait();
+    const t0 = performance.now();
+    let done = false;
+    return () => {
+      if (done) return;
+      done = true;
+      holdMs = 0.8 * holdMs + 0.2 * (performance.now() - t0);
+      release();
+    };
+  };
+
   return {
     async run<T>(fn: () => Promise<T>): Promise<T> {
-      await acquire();
-      const t0 = performance.now();
+      const leave = await acquire();
       try {
         return await fn();
       } finally {
-        holdMs = 0.8 * holdMs + 0.2 * (performance.now() - t0);
-        release();
+        leave();
       }
     },
+    acquire,
     get waiting() {
       return queue.length;
     },
