@@ -133,3 +133,59 @@ describe("an upload cut short by kill -9", () => {
     expect(await originalsInBucket()).toEqual(new Set(before.map((r) => r.storageKey)));
   });
 });
+
+describe("an upload cut short in the server", () => {
+  const handler = async () => (await discoverRoutes()).get("POST /api/v1/labs/[labId]/specimens/[specimenId]/uploads")!;
+
+  it("a client that goes away mid-body leaves no row, object or temporary folder", async () => {
+    const before = await uploadRows();
+    const originals = await originalsInBucket();
+    const boundary = "----cut";
+    let pulls = 0;
+    const body = new ReadableStream<Uint8Array>({
+      pull(controller) {
+        pulls++;
+        if (pulls === 1) controller.enqueue(new TextEncoder().encode(`--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="t.csv"\r\nContent-Type: text/csv\r\n\r\nx,y\n1,2\n`));
+        else controller.error(new Error("the client went away")); // as Node reports an aborted request
+      },
+    });
+    const request = new Request(`http://127.0.0.1:3999/api/v1/labs/${w.labId}/specimens/${specimenId}/uploads`, {
+      method: "POST",
+      headers: { authorization: `Bearer ${w.people.scientist.token}`, "content-type": `multipart/form-data; boundary=${boundary}` },
+      body,
+      duplex: "half",
+    } as RequestInit);
+    const res = await (await handler())(request, { params: Promise.resolve({ labId: w.labId, specimenId }) });
+    expect(res.status).toBe(400);
+    expect((await uploadRows()).length).toBe(before.length);
+    expect(await originalsInBucket()).toEqual(originals);
+    expect(readdirSync(tempRoot())).toEqual([]);
+  });
+
+  it("an upload whose row vanished while its original was stored removes the object again", async () => {
+    const before = await uploadRows();
+    const originals = await originalsInBucket();
+    const store = stack.services.store;
+    const m = await database();
+    // The row is removed while the put runs, as a sweep with a too-short grace period would.
+    const put = store.put.bind(store);
+    store.put = async (key, body, options) => {
+      await m.Upload.unscoped().destroy({ where: { storageKey: key } });
+      return put(key, body, options);
+    };
+    try {
+      const png = await encodePng(makeStripes({ width: 32, height: 32, wavelengthPx: 8, angleDeg: 0 }));
+      const res = await (await handler())(
+        new Request(`http://127.0.0.1:3999/api/v1/labs/${w.labId}/specimens/${specimenId}/uploads`, { method: "POST", headers: { authorization: `Bearer ${w.people.scientist.token}` }, body: multipart({ name: "gone.png", bytes: png }, { pixelSizeUm: "1" }) }),
+        { params: Promise.resolve({ labId: w.labId, specimenId }) },
+      );
+      expect(res.status).toBe(503);
+      expect(((await res.json()) as { error: { message: string } }).error.message).toBe("storing the file took longer than the server waits for an upload, so it was discarded; try again");
+    } finally {
+      store.put = put;
+    }
+    expect((await uploadRows()).length).toBe(before.length);
+    expect(await originalsInBucket()).toEqual(originals);
+    expect(readdirSync(tempRoot())).toEqual([]);
+  });
+});

@@ -139,7 +139,8 @@ export async function storeUpload<T = void>(
   try {
     const { row, also } = await db.sequelize.transaction(async (transaction) => {
       const [marked] = await m.Upload.unscoped().update({ state: "stored" }, { where: { id, state: "receiving" }, transaction });
-      if (marked !== 1) throw new Error(`upload ${id} was removed while its original was being stored (older than the sweep's grace period?)`);
+      // Only the sweep removes a "receiving" row: this upload outlived the grace period.
+      if (marked !== 1) throw new AppError("unavailable", "storing the file took longer than the server waits for an upload, so it was discarded; try again");
       const r = (await m.Upload.findByPk(id, { transaction }))!;
       await recordAudit(m, { labId: ctx.labId, actor: ctx.actor, action: "upload.created", targetType: "upload", targetId: id, summary: `${ctx.actor.email} uploaded “${file.filename}” to specimen “${specimen.label}”`, details: { sha256: file.sha256, sizeBytes: file.sizeBytes } }, transaction);
       return { row: r, also: alsoInTransaction ? await alsoInTransaction(r, transaction) : undefined };
