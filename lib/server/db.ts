@@ -93,11 +93,12 @@ export function createDatabase(storage: string, options: { migrate?: boolean; wr
   const sequelize = new Sequelize({ dialect: "sqlite", storage, dialectModule, logging: false, transactionType: Transaction.TYPES.IMMEDIATE });
   const models = createModels(sequelize);
   const writeQueue = createWriteQueue({ maxWaitMs: options.writeWaitMs ?? WRITE_WAIT_MS, what: "too many writes at once" });
-  installWriteQueue(sequelize, writeQueue);
+  // SQLite has one writer per database file; a server database (PostgreSQL) would need no queue.
+  if (sequelize.getDialect() === "sqlite") installWriteQueue(sequelize, writeQueue);
   const ready = (async () => {
     if (storage !== ":memory:") await sequelize.query("PRAGMA journal_mode = WAL;");
     await sequelize.query("PRAGMA foreign_keys = ON;");
     if (options.migrate !== false) await migrateUp(sequelize);
   })();
-  return { sequelize, models, ready, writeQueue };
+  return { sequelize, models, ready, writeQueue: sequelize.getDialect() === "sqlite" ? writeQueue : null };
 }

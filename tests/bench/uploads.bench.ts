@@ -100,19 +100,40 @@ export default async function bench(): Promise<BenchRow[]> {
       try {
         const res = server
           ? await fetch(`${server.url}/api/v1/labs/${w.labId}/specimens/${specimenId}/uploads`, { method: "POST", headers: { authorization: `Bearer ${w.people.scientist.token}` }, body, signal: AbortSignal.timeout(ANSWER_WITHIN_MS) })
-          : await call(routes!.get(`POST ${routePath}`)!, "POST", routePath, { token: w.people.scientist.token, params: { labId: w.labId, specimenId }, body });
+          : await Promise.race([
+              call(routes!.get(`POST ${routePath}`)!, "POST", routePath, { token: w.people.scientist.token, params: { labId: w.labId, specimenId }, body }),
+              new Promise<never>((_, reject) => setTimeout(() => reject(new Error("no answer")), ANSWER_WITHIN_MS).unref()),
+            ]);
         await res.arrayBuffer();
         return { status: res.status, ms: performance.now() - t0, retryAfter: res.headers.get("retry-after") };
       } catch {
         return { status: 0, ms: performance.now() - t0, retryAfter: null }; // no answer (timeout, reset)
       }
     };
+    const probeHealth = async () => {
+      const t = performance.now();
+      const ok = server
+        ? await fetch(`${server.url}/api/health`, { signal: AbortSignal.timeout(10_000) }).then((r) => r.ok, () => false)
+        : await (await import("../../app/api/health/route")).GET().then((r) => r.ok, () => false);
+      return { ok, ms: performance.now() - t };
+    };
     const tempBefore = new Set(tempFolders(stack.services.config.dataDir));
     const t0 = performance.now();
+    // The health check every 500 ms during the burst: does the server still answer anything?
+    const healthDuring: { ok: boolean; ms: number }[] = [];
+    let bursting = true;
+    const prober = (async () => {
+      while (bursting) {
+        healthDuring.push(await probeHealth());
+        await new Promise((r) => setTimeout(r, 500));
+      }
+    })();
     const answers = await Promise.all(Array.from({ length: N }, (_, i) => send(i)));
     const wallS = (performance.now() - t0) / 1000;
+    bursting = false;
+    await prober;
 
-    const healthOk = server ? await fetch(`${server.url}/api/health`, { signal: AbortSignal.timeout(10_000) }).then((r) => r.ok, () => false) : (await (await import("../../app/api/health/route")).GET()).ok;
+    const healthOk = (await probeHealth()).ok;
     server?.stop();
     const m = await database();
     const rows = await m.Upload.unscoped().findAll({ where: { labId: w.labId } });
@@ -135,6 +156,8 @@ export default async function bench(): Promise<BenchRow[]> {
       { name: name("p95 of the 201 answers"), value: q(0.95, createdMs) ?? NaN, unit: "ms" },
       { name: name("slowest answer"), value: ms.at(-1)!, unit: "ms", target: `< ${ANSWER_WITHIN_MS}` },
       { name: name("wall time"), value: wallS, unit: "s" },
+      { name: name("health checks during the burst that failed"), value: healthDuring.filter((h) => !h.ok).length, unit: `of ${healthDuring.length}`, target: "0" },
+      { name: name("slowest health check during the burst"), value: Math.max(...healthDuring.map((h) => h.ms)), unit: "ms" },
       { name: name("health ok afterwards (1 = yes)"), value: healthOk ? 1 : 0, unit: "", target: "1" },
       { name: name("upload rows − 201 answers"), value: rows.length - created, unit: "rows", target: "0" },
       { name: name("originals in bucket − 201 answers"), value: originals.size - created, unit: "objects", target: "0" },
