@@ -5,6 +5,7 @@ import * as m0005 from "./20261201-0005-discussions";
 import * as m0006 from "./20261201-0006-fits";
 import * as m0007 from "./20261201-0007-simulation-runs";
 import * as m0010auth from "./20261203-0010-rate-limits-signup-requests";
+import * as m0020 from "./20261203-0020-upload-state";
 import * as m0030 from "./20261203-0030-job-restarts-token-expiry-account-events";
 
 export const migrationModules = [
@@ -14,5 +15,6 @@ export const migrationModules = [
   { name: "20261201-0006-fits", module: m0006 },
   { name: "20261201-0007-simulation-runs", module: m0007 },
   { name: "20261203-0010-rate-limits-signup-requests", module: m0010auth },
+  { name: "20261203-0020-upload-state", module: m0020 },
   { name: "20261203-0030-job-restarts-token-expiry-account-events", module: m0030 },
 ];

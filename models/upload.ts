@@ -1,6 +1,8 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
 
 export type UploadKind = "image" | "table";
+/** `receiving`: the row exists, the original may not yet; hidden everywhere but the sweep. */
+export type UploadState = "receiving" | "stored";
 
 export class Upload extends Model<InferAttributes<Upload>, InferCreationAttributes<Upload>> {
   declare id: string;
@@ -13,6 +15,7 @@ export class Upload extends Model<InferAttributes<Upload>, InferCreationAttribut
   declare sizeBytes: number;
   declare sha256: string;
   declare storageKey: string;
+  declare state: CreationOptional<UploadState>;
   declare pixelSizeUm: number | null;
   /** Where the pixel size came from: `uploader` (typed in) or the file's metadata (`tiff-resolution`, `ome-xml`, `png-phys`, `jfif-density`). */
   declare pixelSizeSource: string | null;
@@ -33,12 +36,17 @@ export function initUpload(sequelize: Sequelize) {
       sizeBytes: { type: DataTypes.INTEGER, allowNull: false },
       sha256: { type: DataTypes.STRING(64), allowNull: false },
       storageKey: { type: DataTypes.STRING(300), allowNull: false, unique: true },
+      state: { type: DataTypes.STRING(10), allowNull: false, defaultValue: "stored" },
       pixelSizeUm: { type: DataTypes.FLOAT },
       pixelSizeSource: { type: DataTypes.STRING(20) },
       createdBy: { type: DataTypes.UUID },
       createdAt: DataTypes.DATE,
     },
-    { sequelize, modelName: "upload", tableName: "uploads", underscored: true, updatedAt: false },
+    {
+      sequelize, modelName: "upload", tableName: "uploads", underscored: true, updatedAt: false,
+      // Every query sees stored uploads only; the upload path and the sweep use `unscoped()`.
+      defaultScope: { where: { state: "stored" } },
+    },
   );
   return M;
 }

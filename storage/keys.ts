@@ -21,3 +21,9 @@ export function simulationRunKey(labId: string, runId: string, name: string): st
   if (!/^[a-z0-9][a-z0-9._-]*$/.test(name)) throw new Error(`run output name "${name}" is not a plain lowercase name`);
   return `labs/${labId}/runs/${runId.toLowerCase()}/${name}`;
 }
+
+/** The upload a key under `labs/<labId>/uploads/<uploadId>/` belongs to, or null for any other key. */
+export function uploadIdOfKey(key: string): { labId: string; uploadId: string } | null {
+  const m = /^labs\/([^/]+)\/uploads\/([^/]+)\//.exec(key);
+  return m ? { labId: m[1], uploadId: m[2] } : null;
+}

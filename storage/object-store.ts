@@ -5,6 +5,8 @@ export interface ObjectStore {
   getBuffer(key: string): Promise<Buffer>;
   delete(key: string): Promise<void>;
   exists(key: string): Promise<boolean>;
+  /** Every object whose key starts with `prefix`, with its last-modified time (the sweep's input). */
+  list(prefix: string): Promise<{ key: string; lastModified: Date }[]>;
   /** Throws when the store cannot be reached or the bucket is missing. */
   check(): Promise<void>;
 }

@@ -5,6 +5,7 @@ import {
   GetObjectCommand,
   HeadBucketCommand,
   HeadObjectCommand,
+  ListObjectsV2Command,
   PutObjectCommand,
   S3Client,
 } from "@aws-sdk/client-s3";
@@ -72,6 +73,16 @@ export function createS3ObjectStore(settings: S3Settings): ObjectStore {
         if ((err as { name?: string }).name === "NotFound") return false;
         throw err;
       }
+    },
+    async list(prefix) {
+      const found: { key: string; lastModified: Date }[] = [];
+      let ContinuationToken: string | undefined;
+      do {
+        const out = await wrap("list", () => client.send(new ListObjectsV2Command({ Bucket, Prefix: prefix, ContinuationToken })));
+        for (const o of out.Contents ?? []) if (o.Key) found.push({ key: o.Key, lastModified: o.LastModified ?? new Date(0) });
+        ContinuationToken = out.IsTruncated ? out.NextContinuationToken : undefined;
+      } while (ContinuationToken);
+      return found;
     },
     async check() {
       await wrap("head bucket", () => client.send(new HeadBucketCommand({ Bucket })));

@@ -9,14 +9,15 @@ import { authOptions } from "./auth";
 import { expiryDate, isExpired, recordTokenExpiry } from "./data/tokens";
 import { AppError } from "./errors";
 import { sha256Hex } from "./secrets";
+import type { Actor } from "./actor-type";
 import { database } from "./services";
 
-export interface Actor {
-  userId: string;
-  email: string;
-  name: string | null;
-  via: "session" | "token";
-}
+export type { Actor } from "./actor-type";
+
+/** A token's lastUsedAt is written at most once per this interval (ms). */
+const LAST_USED_EVERY_MS = 60_000;
+/** When this process last wrote each token's lastUsedAt: concurrent requests write it once. */
+const lastUsedWrites = new Map<string, number>();
 
 async function actorFromToken(secret: string): Promise<Actor | null> {
   const m = await database();
@@ -28,7 +29,14 @@ async function actorFromToken(secret: string): Promise<Actor | null> {
   }
   const user = await m.User.findByPk(token.userId);
   if (!user) return null;
-  await token.update({ lastUsedAt: new Date() });
+  // lastUsedAt is for people ("used 3 minutes ago"), so a minute's precision is enough: writing it
+  // on every request made every API call a write and queued behind uploads.
+  const now = Date.now();
+  const last = Math.max(token.lastUsedAt?.getTime() ?? 0, lastUsedWrites.get(token.id) ?? 0);
+  if (now - last >= LAST_USED_EVERY_MS) {
+    lastUsedWrites.set(token.id, now);
+    await token.update({ lastUsedAt: new Date(now) }).catch((err) => console.error(`could not record the last use of token ${token.id}`, err));
+  }
   return { userId: user.id, email: user.email, name: user.name, via: "token" };
 }
 

@@ -60,6 +60,14 @@ export function readConfig() {
     signupLinkHours: num("SIGNUP_LINK_HOURS", 24),
     /** Largest upload accepted, bytes. */
     maxUploadBytes: num("MAX_UPLOAD_BYTES", 200 * 1024 * 1024),
+    /** Uploads received at once per process; the next UPLOADS_WAITING wait up to UPLOAD_WAIT_MS, the rest get a 503. */
+    uploadsInFlight: Math.max(1, num("UPLOADS_IN_FLIGHT", 8)),
+    uploadsWaiting: Math.max(0, num("UPLOADS_WAITING", 16)),
+    uploadWaitMs: num("UPLOAD_WAIT_MS", 10_000),
+    /** How long a database write waits for its turn before a 503 (ms). */
+    dbWriteWaitMs: num("DB_WRITE_WAIT_MS", 10_000),
+    /** An upload still "receiving" after this long (s) was abandoned by a stopped server; the sweep removes it and its object. */
+    uploadGraceS: num("UPLOAD_GRACE_S", 900),
     invitationDays: num("INVITATION_DAYS", 7),
     /** Threads of one verification run: 2 = the main thread and a worker (species side by side), 1 = serial. */
     simulationThreads: (num("SIMULATION_THREADS", 2) === 1 ? 1 : 2) as 1 | 2,

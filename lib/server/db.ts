@@ -3,20 +3,32 @@
  * WAL mode and foreign keys are set on the connection; every connection waits up to
  * BUSY_TIMEOUT_MS for another's write lock (Sequelize opens one sqlite3 connection per
  * transaction, and a PRAGMA on the default connection would not reach those).
+ *
+ * Writes of this process take turns in a JS write queue (write-queue.ts) in front of SQLite:
+ * every transaction, and every write outside one, waits there (bounded: 503 with Retry-After)
+ * instead of in sqlite3's busy handler on a libuv thread. Reads never queue (WAL lets them run
+ * beside the one writer). The busy timeout stays for other processes (CLI, migrations).
+ * The queue sits behind this module only: a PostgreSQL back end would install none.
  */
 import { mkdirSync } from "node:fs";
 import path from "node:path";
-import { Sequelize, Transaction } from "sequelize";
+import { QueryTypes, Sequelize, Transaction } from "sequelize";
 import sqlite3 from "sqlite3";
 import { createModels, type Models } from "@/models";
 import { migrateUp } from "./migrate";
+import { createWriteQueue, type WriteQueue } from "./write-queue";
 
 export interface Database {
   sequelize: Sequelize;
   models: Models;
   /** Resolves once pragmas are set and migrations are applied. */
   ready: Promise<void>;
+  /** The queue this process's writes take turns in (SQLite); null where the database needs none. */
+  writeQueue: WriteQueue | null;
 }
+
+/** How long a write waits for its turn in the write queue before a 503 (ms), unless configured. */
+export const WRITE_WAIT_MS = 10_000;
 
 /** How long a connection waits for another connection's write lock before SQLITE_BUSY (ms). */
 export const BUSY_TIMEOUT_MS = 5000;
@@ -30,7 +42,48 @@ class BusyWaitingDatabase extends sqlite3.Database {
 }
 const dialectModule = { ...sqlite3, Database: BusyWaitingDatabase };
 
-export function createDatabase(storage: string, options: { migrate?: boolean } = {}): Database {
+const READ_TYPES = new Set<string>([QueryTypes.SELECT, QueryTypes.SHOWTABLES, QueryTypes.SHOWINDEXES, QueryTypes.DESCRIBE, QueryTypes.FOREIGNKEYS]);
+
+/** A statement that only reads: SELECT, or a PRAGMA that sets nothing. */
+function isRead(sql: unknown, options: { type?: string } | undefined): boolean {
+  if (options?.type && READ_TYPES.has(options.type)) return true;
+  const text = typeof sql === "string" ? sql : ((sql as { query?: string } | null)?.query ?? "");
+  return /^\s*SELECT\b/i.test(text) || /^\s*PRAGMA\s+[\w.]+\s*;?\s*$/i.test(text);
+}
+
+/**
+ * Routes every transaction and every write outside a transaction through `queue`. Statements
+ * inside a transaction carry it in their options and run at once (the transaction holds the
+ * turn); an unmanaged transaction (no callback) holds the turn until its commit or rollback.
+ */
+function installWriteQueue(sequelize: Sequelize, queue: WriteQueue): void {
+  const query = sequelize.query.bind(sequelize) as (sql: unknown, options?: Record<string, unknown>) => Promise<unknown>;
+  const transaction = sequelize.transaction.bind(sequelize) as (...args: unknown[]) => Promise<unknown>;
+  Object.assign(sequelize, {
+    query: (sql: unknown, options?: { transaction?: unknown; type?: string }) =>
+      options?.transaction || isRead(sql, options) ? query(sql, options) : queue.run(() => query(sql, options)),
+    transaction: async (...args: unknown[]) => {
+      if (args.some((a) => typeof a === "function")) return queue.run(() => transaction(...args));
+      // Unmanaged (Sequelize's findOrCreate makes one): the turn ends with its commit or rollback.
+      const leave = await queue.acquire();
+      try {
+        const t = (await transaction(...args)) as Transaction;
+        const commit = t.commit.bind(t);
+        const rollback = t.rollback.bind(t);
+        Object.assign(t, {
+          commit: () => commit().finally(leave),
+          rollback: () => rollback().finally(leave),
+        });
+        return t;
+      } catch (err) {
+        leave();
+        throw err;
+      }
+    },
+  });
+}
+
+export function createDatabase(storage: string, options: { migrate?: boolean; writeWaitMs?: number } = {}): Database {
   if (storage !== ":memory:") mkdirSync(path.dirname(storage), { recursive: true });
   // IMMEDIATE: a transaction takes the write lock when it begins. A deferred one that read first
   // and writes later fails with SQLITE_BUSY, whatever the timeout, when another connection wrote in
@@ -39,10 +92,13 @@ export function createDatabase(storage: string, options: { migrate?: boolean } =
   // tests/api/db-concurrency.test.ts fails with DEFERRED.
   const sequelize = new Sequelize({ dialect: "sqlite", storage, dialectModule, logging: false, transactionType: Transaction.TYPES.IMMEDIATE });
   const models = createModels(sequelize);
+  const writeQueue = createWriteQueue({ maxWaitMs: options.writeWaitMs ?? WRITE_WAIT_MS, what: "too many writes at once" });
+  // SQLite has one writer per database file; a server database (PostgreSQL) would need no queue.
+  if (sequelize.getDialect() === "sqlite") installWriteQueue(sequelize, writeQueue);
   const ready = (async () => {
     if (storage !== ":memory:") await sequelize.query("PRAGMA journal_mode = WAL;");
     await sequelize.query("PRAGMA foreign_keys = ON;");
     if (options.migrate !== false) await migrateUp(sequelize);
   })();
-  return { sequelize, models, ready };
+  return { sequelize, models, ready, writeQueue: sequelize.getDialect() === "sqlite" ? writeQueue : null };
 }

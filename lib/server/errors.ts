@@ -32,3 +32,14 @@ export class AppError extends Error {
 
 export const notFound = (what: string) => new AppError("not_found", `${what} not found`);
 export const forbidden = (message = "your role in this lab does not allow this") => new AppError("forbidden", message);
+
+/**
+ * The server is saturated: a 503 whose message says when to come back, sent with the same
+ * `Retry-After` header (RFC 9110 §10.2.3), so scripts and people both know to retry.
+ */
+export class ServerBusyError extends AppError {
+  constructor(public retryAfterS: number, reason: string) {
+    super("unavailable", `the server is busy (${reason}); try again in ${retryAfterS} s`);
+  }
+}
+export const serverBusy = (retryAfterS: number, reason: string) => new ServerBusyError(retryAfterS, reason);

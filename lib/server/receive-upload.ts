@@ -1,18 +1,20 @@
 /**
- * An upload request: stream the file, judge its type by content, take the pixel size from the
- * file's metadata (or the uploader), then store object + row together.
+ * An upload request: wait for a slot, stream the file, judge its type by content, take the pixel
+ * size from the file's metadata (or the uploader), then store object + row + readout together.
  */
-import { readFileSync } from "node:fs";
+import { readFile } from "node:fs/promises";
 import sharp from "sharp";
 import { readPixelSize, sniffFileKind, type FileKind } from "@/lib/imaging";
 import { MAX_READOUT_PIXELS } from "@/lib/readout";
 import { pixelSizeSchema } from "@/lib/contracts/study";
-import type { LabContext } from "./access";
+import { authorize, type LabContext } from "./access";
 import { AppError } from "./errors";
-import { parseUpload } from "./multipart";
+import { uploadGate } from "./back-pressure";
+import { parseUpload, uploadTempRoot, type ParsedUpload } from "./multipart";
 import { services } from "./services";
 import { findSpecimen } from "./data/specimens";
-import { startReadout, type ReadoutDto } from "./data/readouts";
+import { queueReadout, toReadoutDto, type ReadoutDto } from "./data/readouts";
+import { resolveStartSettings, type StoredReadoutSettings } from "./data/readout-settings";
 import { storeUpload, type UploadDto } from "./data/uploads";
 
 export const CONTENT_TYPES: Record<FileKind, string> = {
@@ -41,49 +43,70 @@ async function checkPixelLimit(path: string, name: string): Promise<void> {
 /** The stored upload and the readout it started (null when it could not start; `readoutError` says why). */
 export type ReceivedUpload = UploadDto & { readout: ReadoutDto | null; readoutError: string | null };
 
+/**
+ * One upload, start to end. A slot of the upload gate is taken first (a 503 with Retry-After when
+ * the server is saturated, before the body is read); the upload and its readout are then stored
+ * together (see `storeUpload`).
+ */
 export async function receiveUpload(ctx: LabContext, specimenId: string, request: Request): Promise<ReceivedUpload> {
-  await findSpecimen(ctx, specimenId); // 404 before reading a byte of the body
-  const parsed = await parseUpload(request, services().config.maxUploadBytes);
+  const { config } = services();
+  const leave = await uploadGate().enter({ inFlight: config.uploadsInFlight, waiting: config.uploadsWaiting, waitMs: config.uploadWaitMs });
   try {
-    const kind = sniffFileKind(parsed.head);
-    if (!kind) {
-      throw new AppError("bad_input", `“${parsed.file.originalName}” is not a PNG, JPEG or TIFF image nor a CSV/TSV table (judged by its content, not its name)`);
-    }
-    if (isImage(kind)) await checkPixelLimit(parsed.file.path, parsed.file.originalName);
-    let typed: number | null = null;
-    if (parsed.fields.pixelSizeUm !== undefined && parsed.fields.pixelSizeUm.trim() !== "") {
-      const p = pixelSizeSchema.safeParse(parsed.fields.pixelSizeUm);
-      if (!p.success) throw new AppError("bad_input", `pixelSizeUm: ${p.error.issues[0].message}`);
-      typed = p.data;
-    }
-    let pixelSizeUm: number | null = typed;
-    let pixelSizeSource: string | null = typed === null ? null : "uploader";
-    if (isImage(kind) && typed === null) {
-      const fromFile = readPixelSize(readFileSync(parsed.file.path), kind);
-      if (fromFile.pixelSizeUm === null) {
-        throw new AppError("bad_input", `pixelSizeUm: “${parsed.file.originalName}” carries no pixel size in its metadata${fromFile.pixelSizeNote ? ` (${fromFile.pixelSizeNote})` : ""}; enter the pixel size in µm/px`);
-      }
-      pixelSizeUm = fromFile.pixelSizeUm;
-      pixelSizeSource = fromFile.pixelSizeSource;
-    }
-    const upload = await storeUpload(ctx, specimenId, {
-      path: parsed.file.path,
-      filename: parsed.file.originalName,
-      sizeBytes: parsed.file.sizeBytes,
-      sha256: parsed.file.sha256,
-      kind: isImage(kind) ? "image" : "table",
-      contentType: CONTENT_TYPES[kind],
-      pixelSizeUm,
-      pixelSizeSource,
-    });
-    // Every upload gets its readout with default settings, as a background job.
+    await findSpecimen(ctx, specimenId); // 404 before reading a byte of the body
+    const parsed = await parseUpload(request, config.maxUploadBytes, uploadTempRoot(config.dataDir));
     try {
-      return { ...upload, readout: await startReadout(ctx, upload.id, {}), readoutError: null };
-    } catch (err) {
-      if (!(err instanceof AppError)) throw err;
-      return { ...upload, readout: null, readoutError: err.message };
+      return await storeParsed(ctx, specimenId, parsed);
+    } finally {
+      parsed.cleanup();
     }
   } finally {
-    parsed.cleanup();
+    leave();
   }
+}
+
+async function storeParsed(ctx: LabContext, specimenId: string, parsed: ParsedUpload): Promise<ReceivedUpload> {
+  const kind = sniffFileKind(parsed.head);
+  if (!kind) {
+    throw new AppError("bad_input", `“${parsed.file.originalName}” is not a PNG, JPEG or TIFF image nor a CSV/TSV table (judged by its content, not its name)`);
+  }
+  if (isImage(kind)) await checkPixelLimit(parsed.file.path, parsed.file.originalName);
+  let typed: number | null = null;
+  if (parsed.fields.pixelSizeUm !== undefined && parsed.fields.pixelSizeUm.trim() !== "") {
+    const p = pixelSizeSchema.safeParse(parsed.fields.pixelSizeUm);
+    if (!p.success) throw new AppError("bad_input", `pixelSizeUm: ${p.error.issues[0].message}`);
+    typed = p.data;
+  }
+  let pixelSizeUm: number | null = typed;
+  let pixelSizeSource: string | null = typed === null ? null : "uploader";
+  if (isImage(kind) && typed === null) {
+    const fromFile = readPixelSize(await readFile(parsed.file.path), kind);
+    if (fromFile.pixelSizeUm === null) {
+      throw new AppError("bad_input", `pixelSizeUm: “${parsed.file.originalName}” carries no pixel size in its metadata${fromFile.pixelSizeNote ? ` (${fromFile.pixelSizeNote})` : ""}; enter the pixel size in µm/px`);
+    }
+    pixelSizeUm = fromFile.pixelSizeUm;
+    pixelSizeSource = fromFile.pixelSizeSource;
+  }
+  const file = {
+    path: parsed.file.path,
+    filename: parsed.file.originalName,
+    sizeBytes: parsed.file.sizeBytes,
+    sha256: parsed.file.sha256,
+    kind: isImage(kind) ? ("image" as const) : ("table" as const),
+    contentType: CONTENT_TYPES[kind],
+    pixelSizeUm,
+    pixelSizeSource,
+  };
+  // Every upload gets its readout with default settings, as a background job, written in the same
+  // transaction that makes the upload visible. Settings that cannot start one keep the upload.
+  let settings: StoredReadoutSettings | null = null;
+  let readoutError: string | null = null;
+  try {
+    authorize(ctx, "readout.create");
+    settings = resolveStartSettings(file, {});
+  } catch (err) {
+    if (!(err instanceof AppError)) throw err;
+    readoutError = err.message;
+  }
+  const { also: readoutRow, ...upload } = await storeUpload(ctx, specimenId, file, settings ? (row, transaction) => queueReadout(ctx, row, settings, transaction) : undefined);
+  return { ...upload, readout: readoutRow ? await toReadoutDto(readoutRow) : null, readoutError };
 }

@@ -6,6 +6,7 @@
 import { startTokenExpirySweep } from "./data/tokens";
 import { recoverJobs } from "./jobs/runner";
 import { removeStaleJobFolders } from "./jobs/temp-folders";
+import { recoverUploadsAtStart } from "./upload-recovery";
 
 export interface StartupTask {
   name: string;
@@ -13,9 +14,10 @@ export interface StartupTask {
 }
 
 export const STARTUP_TASKS: StartupTask[] = [
-  // ── Upload sweep goes here (another change): remove temporary upload folders and stored objects
-  // ── without their row, left by a process killed mid-upload. Keep it BEFORE job recovery, so
-  // ── re-queued readouts never see a half-stored upload.
+  // Uploads a killed process left half-written: rows still "receiving" after the grace period with
+  // their objects, objects without a row, temporary upload folders of dead processes; then hourly.
+  // Before job recovery, so re-queued readouts never see a half-stored upload.
+  { name: "sweep half-written uploads", run: recoverUploadsAtStart },
   // Jobs left "running" by a dead process are re-queued once (failed the second time), then queued jobs start.
   { name: "recover interrupted jobs", run: recoverJobs },
   // Temporary folders of readout, fit and run child processes killed with an earlier server process.

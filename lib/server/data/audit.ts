@@ -1,6 +1,6 @@
 import { Op, type Transaction } from "sequelize";
 import type { Models } from "@/models";
-import type { Actor } from "../actor";
+import type { Actor } from "../actor-type";
 import { authorize, type LabContext } from "../access";
 import { containsText, type ListQuery, type ListResult } from "../list";
 import { database } from "../services";

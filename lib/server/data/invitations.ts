@@ -48,20 +48,22 @@ export async function createInvitation(ctx: LabContext, email: string, role: Rol
   const token = newSecret("inv", 24);
   const expiresAt = new Date(Date.now() + config.invitationDays * 24 * 3600 * 1000);
   const link = `${config.appUrl.replace(/\/$/, "")}/invite/${token}`;
+  // The mail goes out before the transaction, never inside it: a slow mail server must not hold
+  // the database's write turn. Should the write then fail, the mailed link finds no invitation.
+  try {
+    await mailer.send({
+      to: email,
+      subject: `You are invited to ${ctx.labName} on Morphokin`,
+      text: `${ctx.actor.name ?? ctx.actor.email} invited you to join the lab “${ctx.labName}” on Morphokin as ${ROLE_LABELS[role]}.\n\nAccept the invitation here:\n${link}\n\nThe link works once and expires on ${expiresAt.toUTCString()}.`,
+    });
+  } catch (err) {
+    throw new AppError("unavailable", "the invitation e-mail could not be sent (mail server unreachable); nothing was saved, try again", { cause: String(err) });
+  }
   return db.sequelize.transaction(async (transaction) => {
     // A new invitation to the same address replaces any pending one.
     await m.Invitation.update({ revokedAt: new Date() }, { where: { labId: ctx.labId, email, acceptedAt: { [Op.is]: null }, revokedAt: { [Op.is]: null } }, transaction });
     const inv = await m.Invitation.create({ labId: ctx.labId, email, role, tokenHash: sha256Hex(token), invitedBy: ctx.actor.userId, expiresAt }, { transaction });
     await recordAudit(m, { labId: ctx.labId, actor: ctx.actor, action: "invitation.created", targetType: "invitation", targetId: inv.id, summary: `${ctx.actor.email} invited ${email} as ${ROLE_LABELS[role]}`, details: { role } }, transaction);
-    try {
-      await mailer.send({
-        to: email,
-        subject: `You are invited to ${ctx.labName} on Morphokin`,
-        text: `${ctx.actor.name ?? ctx.actor.email} invited you to join the lab “${ctx.labName}” on Morphokin as ${ROLE_LABELS[role]}.\n\nAccept the invitation here:\n${link}\n\nThe link works once and expires on ${expiresAt.toUTCString()}.`,
-      });
-    } catch (err) {
-      throw new AppError("unavailable", "the invitation e-mail could not be sent (mail server unreachable); nothing was saved, try again", { cause: String(err) });
-    }
     return { id: inv.id, email, role, status: "pending" as const, invitedAt: inv.createdAt.toISOString(), expiresAt: expiresAt.toISOString() };
   });
 }

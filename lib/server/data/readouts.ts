@@ -5,7 +5,7 @@
  * objects together. The row always has a status; a result exists only with status "succeeded".
  */
 import { randomUUID } from "node:crypto";
-import type { WhereOptions } from "sequelize";
+import type { Transaction, WhereOptions } from "sequelize";
 import packageJson from "@/package.json";
 import { DERIVED_PRODUCTS, type DerivedProduct } from "@/lib/contracts/readout";
 import type { JobStatus } from "@/models/job";
@@ -124,21 +124,30 @@ export async function getReadout(ctx: LabContext, readoutId: string): Promise<Re
 /** Queues a readout of an upload with the given settings (a JSON body; {} = defaults). */
 export async function startReadout(ctx: LabContext, uploadId: string, body: unknown): Promise<ReadoutDto> {
   authorize(ctx, "readout.create");
-  const m = await database();
   const upload = await findUpload(ctx, uploadId);
   const settings = resolveStartSettings(upload, body);
+  const row = await services().db.sequelize.transaction((transaction) => queueReadout(ctx, upload, settings, transaction));
+  return toReadoutDto(row);
+}
+
+type UploadForReadout = { id: string; specimenId: string; kind: "image" | "table"; sha256: string };
+
+/** Writes a queued readout of `upload` and its job inside the caller's transaction (an upload's first readout). */
+export async function queueReadout(ctx: LabContext, upload: UploadForReadout, settings: StoredReadoutSettings, transaction: Transaction): Promise<Row> {
+  const m = await database();
   const id = randomUUID();
-  const row = await services().db.sequelize.transaction(async (transaction) => {
-    const job = await enqueueJob({ labId: ctx.labId, kind: "readout", payload: { readoutId: id }, requestedBy: ctx.actor.userId }, transaction);
-    return m.Readout.create(
-      {
-        id, labId: ctx.labId, uploadId, specimenId: upload.specimenId, jobId: job.id, status: "queued", kind: upload.kind,
-        settings: settings as unknown as Record<string, unknown>, pixelSizeUm: settings.pixelSizeUm, inputSha256: upload.sha256,
-        softwareVersion: SOFTWARE_VERSION, createdBy: ctx.actor.userId,
-      },
-      { transaction },
-    );
-  });
+  const job = await enqueueJob({ labId: ctx.labId, kind: "readout", payload: { readoutId: id }, requestedBy: ctx.actor.userId }, transaction);
+  return m.Readout.create(
+    {
+      id, labId: ctx.labId, uploadId: upload.id, specimenId: upload.specimenId, jobId: job.id, status: "queued", kind: upload.kind,
+      settings: settings as unknown as Record<string, unknown>, pixelSizeUm: settings.pixelSizeUm, inputSha256: upload.sha256,
+      softwareVersion: SOFTWARE_VERSION, createdBy: ctx.actor.userId,
+    },
+    { transaction },
+  );
+}
+
+export async function toReadoutDto(row: Row): Promise<ReadoutDto> {
   return (await toDtos([row]))[0];
 }
 

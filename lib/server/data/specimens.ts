@@ -108,7 +108,7 @@ export async function deleteSpecimen(ctx: LabContext, specimenId: string): Promi
   const m = await database();
   const s = await findSpecimen(ctx, specimenId);
   authorize(ctx, "specimen.delete", s.createdBy);
-  const uploads = await m.Upload.count({ where: { specimenId } });
+  const uploads = await m.Upload.unscoped().count({ where: { specimenId } }); // one still being received counts too (its row holds the specimen)
   if (uploads > 0) throw new AppError("conflict", `this specimen still has ${uploads} uploaded file(s); delete them first`);
   await services().db.sequelize.transaction(async (transaction) => {
     await s.destroy({ transaction });

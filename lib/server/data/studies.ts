@@ -102,7 +102,7 @@ export async function deleteStudy(ctx: LabContext, studyId: string): Promise<voi
   const study = await findStudy(ctx, studyId);
   authorize(ctx, "study.delete", study.createdBy);
   const specimens = await m.Specimen.findAll({ where: { studyId }, attributes: ["id"] });
-  const uploads = specimens.length ? await m.Upload.count({ where: { specimenId: specimens.map((s) => s.id) } }) : 0;
+  const uploads = specimens.length ? await m.Upload.unscoped().count({ where: { specimenId: specimens.map((s) => s.id) } }) : 0;
   if (uploads > 0) throw new AppError("conflict", `this study still has ${uploads} uploaded file(s); delete them first`);
   await services().db.sequelize.transaction(async (transaction) => {
     await m.Specimen.destroy({ where: { studyId }, transaction });

@@ -7,7 +7,7 @@
  */
 import { Op } from "sequelize";
 import { DEFAULT_TOKEN_LIFETIME_DAYS } from "@/lib/contracts/account";
-import type { Actor } from "../actor";
+import type { Actor } from "../actor-type";
 import { AppError, notFound } from "../errors";
 import { newSecret, sha256Hex } from "../secrets";
 import { database, services } from "../services";

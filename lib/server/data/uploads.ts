@@ -1,10 +1,12 @@
 /**
  * Uploaded files. The original goes to object storage, its row to SQLite; the two are written
- * and removed together: a failed store write leaves no row, a failed row write removes the object,
- * a failed object delete keeps the row.
+ * and removed together (see `storeUpload`): a failed store write leaves no row, a failed row write
+ * removes the object, an upload cut short by a killed process is swept at the next start, and a
+ * delete refused while storage is unreachable keeps the row. No transaction waits on storage.
  */
 import { createReadStream } from "node:fs";
 import { randomUUID } from "node:crypto";
+import type { Transaction } from "sequelize";
 import { can } from "@/lib/access/permissions";
 import { uploadOriginalKey } from "@/storage/keys";
 import { StorageUnavailableError } from "@/storage/object-store";
@@ -88,31 +90,64 @@ export interface IncomingFile {
   pixelSizeSource: string | null;
 }
 
-export async function storeUpload(ctx: LabContext, specimenId: string, file: IncomingFile): Promise<UploadDto> {
+/** Removes what an unfinished upload left: its object, then its row (kept while the object may remain). */
+export async function abandonUpload(uploadId: string, key: string): Promise<void> {
+  const m = await database();
+  try {
+    await services().store.delete(key);
+  } catch (err) {
+    console.error(`upload ${uploadId}: could not remove its object ${key}; the sweep will`, err);
+    return; // the "receiving" row stays, so the sweep knows to retry the object
+  }
+  await m.Upload.unscoped()
+    .destroy({ where: { id: uploadId, state: "receiving" } })
+    .catch((err) => console.error(`upload ${uploadId}: could not remove its unfinished row; the sweep will`, err));
+}
+
+/**
+ * Stores an upload's original and its row so that neither survives without the other:
+ * 1. the row, in state "receiving" (hidden from every list and readout by the model's scope);
+ * 2. the object (no transaction is open meanwhile: writes of others go on);
+ * 3. one short transaction: the row becomes "stored", the audit entry, and whatever `alsoInTransaction`
+ *    adds (the upload's readout), so the upload appears with its readout or not at all.
+ * A failure after step 1 removes object and row (`abandonUpload`); a process killed between the
+ * steps leaves a "receiving" row that the sweep (upload-recovery.ts) removes with its object.
+ */
+export async function storeUpload<T = void>(
+  ctx: LabContext,
+  specimenId: string,
+  file: IncomingFile,
+  alsoInTransaction?: (upload: UploadRow, transaction: Transaction) => Promise<T>,
+): Promise<UploadDto & { also: T | undefined }> {
   authorize(ctx, "upload.create");
   const m = await database();
   const { store, db } = services();
   const specimen = await findSpecimen(ctx, specimenId);
   const id = randomUUID();
   const key = uploadOriginalKey(ctx.labId, id);
+  await m.Upload.create({
+    id, labId: ctx.labId, specimenId, filename: file.filename, kind: file.kind, contentType: file.contentType, sizeBytes: file.sizeBytes, sha256: file.sha256,
+    storageKey: key, state: "receiving", pixelSizeUm: file.pixelSizeUm, pixelSizeSource: file.pixelSizeSource, createdBy: ctx.actor.userId,
+  });
   try {
     await store.put(key, createReadStream(file.path), { contentType: file.contentType, contentLength: file.sizeBytes, sha256Hex: file.sha256 });
   } catch (err) {
+    await abandonUpload(id, key);
     if (err instanceof StorageUnavailableError) throw new AppError("unavailable", "object storage is unreachable, so the file was not saved; try again later");
     throw err;
   }
   try {
-    const row = await db.sequelize.transaction(async (transaction) => {
-      const r = await m.Upload.create(
-        { id, labId: ctx.labId, specimenId, filename: file.filename, kind: file.kind, contentType: file.contentType, sizeBytes: file.sizeBytes, sha256: file.sha256, storageKey: key, pixelSizeUm: file.pixelSizeUm, pixelSizeSource: file.pixelSizeSource, createdBy: ctx.actor.userId },
-        { transaction },
-      );
+    const { row, also } = await db.sequelize.transaction(async (transaction) => {
+      const [marked] = await m.Upload.unscoped().update({ state: "stored" }, { where: { id, state: "receiving" }, transaction });
+      // Only the sweep removes a "receiving" row: this upload outlived the grace period.
+      if (marked !== 1) throw new AppError("unavailable", "storing the file took longer than the server waits for an upload, so it was discarded; try again");
+      const r = (await m.Upload.findByPk(id, { transaction }))!;
       await recordAudit(m, { labId: ctx.labId, actor: ctx.actor, action: "upload.created", targetType: "upload", targetId: id, summary: `${ctx.actor.email} uploaded “${file.filename}” to specimen “${specimen.label}”`, details: { sha256: file.sha256, sizeBytes: file.sizeBytes } }, transaction);
-      return r;
+      return { row: r, also: alsoInTransaction ? await alsoInTransaction(r, transaction) : undefined };
     });
-    return (await toDtos(ctx, [row]))[0];
+    return { ...(await toDtos(ctx, [row]))[0], also };
   } catch (err) {
-    await store.delete(key).catch((e) => console.error(`could not remove orphan object ${key}`, e));
+    await abandonUpload(id, key);
     throw err;
   }
 }
@@ -122,23 +157,24 @@ export async function deleteUpload(ctx: LabContext, uploadId: string): Promise<v
   const { store, db } = services();
   const u = await findUpload(ctx, uploadId);
   authorize(ctx, "upload.delete", u.createdBy);
-  let jobIds: string[] = [];
+  // Refuse while storage is unreachable, so the rows are not removed with their objects kept.
   try {
-    await db.sequelize.transaction(async (transaction) => {
-      // Its readouts and their derived objects go with it; objects are deleted last, inside the
-      // transaction, so a storage failure keeps every row.
-      const readouts = await m.Readout.findAll({ where: { uploadId: u.id }, transaction });
-      jobIds = readouts.filter((r) => r.jobId && (r.status === "queued" || r.status === "running")).map((r) => r.jobId!);
-      await m.Readout.destroy({ where: { uploadId: u.id }, transaction });
-      await u.destroy({ transaction });
-      await recordAudit(m, { labId: ctx.labId, actor: ctx.actor, action: "upload.deleted", targetType: "upload", targetId: u.id, summary: `${ctx.actor.email} deleted the upload “${u.filename}”${readouts.length ? ` and its ${readouts.length} readout(s)` : ""}`, details: { sha256: u.sha256, readouts: readouts.length } }, transaction);
-      for (const r of readouts) for (const key of Object.values(r.derivedKeys ?? {})) await store.delete(key);
-      await store.delete(u.storageKey);
-    });
+    await store.check();
   } catch (err) {
     if (err instanceof StorageUnavailableError) throw new AppError("unavailable", "object storage is unreachable, so the file was not deleted; try again later");
     throw err;
   }
+  // Rows first, in one short transaction without storage I/O; then the objects. An object whose
+  // delete fails after that has no row, and the sweep (upload-recovery.ts) removes it.
+  const { readouts, jobIds } = await db.sequelize.transaction(async (transaction) => {
+    const rs = await m.Readout.findAll({ where: { uploadId: u.id }, transaction });
+    await m.Readout.destroy({ where: { uploadId: u.id }, transaction });
+    await u.destroy({ transaction });
+    await recordAudit(m, { labId: ctx.labId, actor: ctx.actor, action: "upload.deleted", targetType: "upload", targetId: u.id, summary: `${ctx.actor.email} deleted the upload “${u.filename}”${rs.length ? ` and its ${rs.length} readout(s)` : ""}`, details: { sha256: u.sha256, readouts: rs.length } }, transaction);
+    return { readouts: rs, jobIds: rs.filter((r) => r.jobId && (r.status === "queued" || r.status === "running")).map((r) => r.jobId!) };
+  });
+  const keys = [...readouts.flatMap((r) => Object.values(r.derivedKeys ?? {})), u.storageKey];
+  for (const key of keys) await store.delete(key).catch((err) => console.error(`upload ${u.id} deleted: could not remove ${key}; the sweep will`, err));
   // A readout still queued or running finds its row gone and removes what it wrote; stop it early.
   if (jobIds.length) {
     const { cancelJob } = await import("../jobs/runner");
