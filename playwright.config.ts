@@ -37,7 +37,8 @@ export default defineConfig({
     command: "npx tsx tests/e2e/serve.ts",
     url: `${E2E_BASE_URL}/api/health`,
     reuseExistingServer: false,
-    timeout: 120_000,
+    // Seeding the demo (readouts, a fit and a verification run) takes ~30 s on a quiet 2-core machine, far more under load.
+    timeout: 300_000,
     stdout: "ignore",
     stderr: "pipe",
   },

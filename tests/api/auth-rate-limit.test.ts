@@ -8,6 +8,7 @@
 import http from "node:http";
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from "vitest";
 import { checkPassword } from "@/lib/server/auth";
+import { database } from "@/lib/server/services";
 import { guardAuthRequest } from "@/lib/server/auth-limits";
 import { clientAddress, dropClientForwardedFor } from "@/lib/server/client-address";
 import { lockedForS } from "@/lib/server/rate-limit";
@@ -73,6 +74,11 @@ describe("password sign-in", () => {
     const body = (await res!.json()) as { url: string; error: { message: string } };
     expect(new URL(body.url).searchParams.get("error")).toBe("Locked:15");
     expect(body.error.message).toBe("Too many failed sign-ins for this account; try again in 15 minutes or use a sign-in link.");
+    // The audit trail has the three failures and the one lockout they started (issue 10, item 12).
+    const events = await (await database()).AccountEvent.findAll({ where: { email } });
+    expect(events.filter((e) => e.action === "signin.failed")).toHaveLength(3);
+    expect(events.filter((e) => e.action === "signin.locked")).toHaveLength(1);
+    expect(events.find((e) => e.action === "signin.failed")!.summary).toBe(`Failed sign-in as ${email} with password: wrong e-mail or password`);
   });
 
   it("a right password clears the failure count before the lockout", async () => {
