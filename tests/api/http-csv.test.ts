@@ -49,7 +49,8 @@ describe("the study comparison CSV", () => {
     });
     const c = {
       studyId: "s", studyName: "=evil\n=1+1", conditions: [], excluded: [], measures: {}, warnings: [],
-      groups: [{ condition: EVIL[0], n: 6, meanUm: -2, sdUm: 1, semUm: 0.5, ci95Um: [-3, -1] as [number, number], points: EVIL.map((_, i) => point(i)) }],
+      replicate: "specimen",
+      groups: [{ condition: EVIL[0], n: 6, nSpecimens: 1, nImages: EVIL.length, specimens: [{ specimenId: "s", specimenLabel: EVIL[1], wavelengthUm: -1.5, images: EVIL.length }], meanUm: -2, sdUm: 1, semUm: 0.5, ci95Um: [-3, -1] as [number, number], points: EVIL.map((_, i) => point(i)) }],
       test: { a: "=a\n=2+2", b: "b", welch: null, note: null },
     } as unknown as ConditionComparison;
     const text = comparisonToCsv(c);
