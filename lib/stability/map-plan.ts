@@ -33,7 +33,7 @@ export interface TuringMapOptions extends PhysicalScales {
   y: MapAxis;
   /** Values of the parameters that are not swept (defaults otherwise). */
   parameters?: Record<string, number>;
-  /** Wavenumbers per cell (equal steps from 0 to k_max). @default 200 */
+  /** Wavenumbers per cell (equal steps from 0 to k_max) of the general path; two-species cells with diagonal D are exact and use none. @default 200 */
   wavenumbers?: number;
   /** Cells whose predicted wavelength is within target ± tolerance (µm with a length scale, else model units). */
   target?: { wavelength: number; tolerance: number };

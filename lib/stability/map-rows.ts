@@ -1,7 +1,8 @@
 /**
  * The inner loop of a Turing map: for each cell, steady state (closed form, or Newton warm-
- * started from the neighbouring cell), Jacobian, σ(k) on the k grid (2×2 closed form), the
- * largest local maximum at k > 0 refined by golden section, and the class flags.
+ * started from the neighbouring cell), Jacobian, and the class flags with the fastest k > 0
+ * peak: exact and grid-free for two species with diagonal D (cell-2x2.ts), otherwise σ(k) on
+ * the k grid with the largest local maximum refined by golden section.
  * Buffers are allocated once per call; the per-cell work allocates nothing for catalogue
  * two-species kinetics.
  */
