@@ -20,15 +20,26 @@ export interface Gate {
   readonly waiting: number;
 }
 
-const REASON = "it is receiving as many uploads as it can";
+export interface GateOptions {
+  /** Why a refused caller waits, in the 503's words: "the server is busy (<reason>); try again in N s". */
+  reason: string;
+  /** First guess of how long one holder keeps its slot (ms), before any was measured. */
+  initialHoldMs: number;
+  /** Largest Retry-After to suggest (s). */
+  maxRetryAfterS: number;
+}
 
-export function createGate(): Gate {
+const UPLOADS: GateOptions = { reason: "it is receiving as many uploads as it can", initialHoldMs: 1000, maxRetryAfterS: 120 };
+
+/** Slots taken first come, first served; waiters wait as promises (the write queue is a gate of one slot). */
+export function createGate(options: GateOptions = UPLOADS): Gate {
   let inFlight = 0;
   const queue: { start: () => void; timer: NodeJS.Timeout }[] = [];
-  /** Smoothed time one upload holds its slot (ms), for an honest Retry-After. */
-  let holdMs = 1000;
+  /** Smoothed time one holder keeps its slot (ms), for an honest Retry-After. */
+  let holdMs = options.initialHoldMs;
+  const REASON = options.reason;
 
-  const retryAfterS = (limits: GateLimits) => Math.min(120, Math.max(1, Math.ceil(((queue.length + 1) * holdMs) / Math.max(1, limits.inFlight) / 1000)));
+  const retryAfterS = (limits: GateLimits) => Math.min(options.maxRetryAfterS, Math.max(1, Math.ceil(((queue.length + 1) * holdMs) / Math.max(1, limits.inFlight) / 1000)));
 
   const admit = (): (() => void) => {
     inFlight++;

@@ -6,7 +6,7 @@
  * holder cannot finish and every waiter times out with SQLITE_BUSY. The wait is bounded: a
  * caller that would wait longer gets a 503 "busy, try again in N s" instead of a hang.
  */
-import { serverBusy } from "./errors";
+import { createGate } from "./back-pressure";
 
 export interface WriteQueue {
   run<T>(fn: () => Promise<T>): Promise<T>;
@@ -16,59 +16,11 @@ export interface WriteQueue {
   readonly waiting: number;
 }
 
-interface Waiter {
-  start: () => void;
-  timer: NodeJS.Timeout;
-}
-
+/** A gate of one slot with no limit on waiters, each waiting at most `maxWaitMs`. */
 export function createWriteQueue(options: { maxWaitMs: number; what?: string }): WriteQueue {
-  const queue: Waiter[] = [];
-  let held = false;
-  /** Smoothed time one holder keeps the lock (ms), for an honest Retry-After. */
-  let holdMs = 20;
-
-  const retryAfterS = () => Math.min(60, Math.max(1, Math.ceil(((queue.length + 1) * holdMs) / 1000)));
-
-  const release = () => {
-    const next = queue.shift();
-    if (next) {
-      clearTimeout(next.timer);
-      next.start();
-    } else {
-      held = false;
-    }
-  };
-
-  const wait = (): Promise<void> => {
-    if (!held) {
-      held = true;
-      return Promise.resolve();
-    }
-    return new Promise<void>((resolve, reject) => {
-      const waiter: Waiter = {
-        start: resolve,
-        timer: setTimeout(() => {
-          const i = queue.indexOf(waiter);
-          if (i >= 0) queue.splice(i, 1);
-          reject(serverBusy(retryAfterS(), options.what ?? "the database is busy with other writes"));
-        }, options.maxWaitMs),
-      };
-      queue.push(waiter);
-    });
-  };
-
-  const acquire = async (): Promise<() => void> => {
-    await wait();
-    const t0 = performance.now();
-    let done = false;
-    return () => {
-      if (done) return;
-      done = true;
-      holdMs = 0.8 * holdMs + 0.2 * (performance.now() - t0);
-      release();
-    };
-  };
-
+  const gate = createGate({ reason: options.what ?? "the database is busy with other writes", initialHoldMs: 20, maxRetryAfterS: 60 });
+  const limits = { inFlight: 1, waiting: Infinity, waitMs: options.maxWaitMs };
+  const acquire = () => gate.enter(limits);
   return {
     async run<T>(fn: () => Promise<T>): Promise<T> {
       const leave = await acquire();
@@ -80,7 +32,7 @@ export function createWriteQueue(options: { maxWaitMs: number; what?: string }):
     },
     acquire,
     get waiting() {
-      return queue.length;
+      return gate.waiting;
     },
   };
 }
