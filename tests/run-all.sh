@@ -23,6 +23,7 @@ fi
 
 step "lint"
 npx eslint .
+npx prettier --check . >/dev/null || { npx prettier --check . ; echo "run: npm run format" >&2; exit 1; }
 step "typecheck"
 npx tsc --noEmit -p tsconfig.json
 step "unit and API tests (vitest)"
