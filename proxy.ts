@@ -14,7 +14,8 @@ import { newNonce, pageCsp } from "@/lib/server/security-headers";
 /** Largest body of a next-auth request (a sign-in form: e-mail, password, CSRF token), bytes. */
 export const AUTH_BODY_LIMIT_BYTES = 16 * 1024;
 
-const refuse = (status: number, code: string, message: string) => NextResponse.json({ error: { code, message } }, { status });
+const refuse = (status: number, code: string, message: string) =>
+  NextResponse.json({ error: { code, message } }, { status });
 
 function checkAuthRequest(request: NextRequest): NextResponse | null {
   const refusal = crossSiteRefusal(request, readConfig().appUrl);
@@ -22,11 +23,16 @@ function checkAuthRequest(request: NextRequest): NextResponse | null {
   if (request.method === "GET" || request.method === "HEAD") return null;
   const length = request.headers.get("content-length");
   if (length === null) {
-    if (request.headers.get("transfer-encoding")) return refuse(411, "length_required", "send the request body with a Content-Length header");
+    if (request.headers.get("transfer-encoding"))
+      return refuse(411, "length_required", "send the request body with a Content-Length header");
     return null;
   }
   if (Number(length) > AUTH_BODY_LIMIT_BYTES) {
-    return refuse(413, "too_large", `the request body is larger than the limit of ${AUTH_BODY_LIMIT_BYTES / 1024} KiB for this request; send less data`);
+    return refuse(
+      413,
+      "too_large",
+      `the request body is larger than the limit of ${AUTH_BODY_LIMIT_BYTES / 1024} KiB for this request; send less data`,
+    );
   }
   return null;
 }
@@ -34,7 +40,10 @@ function checkAuthRequest(request: NextRequest): NextResponse | null {
 export function proxy(request: NextRequest) {
   if (request.nextUrl.pathname.startsWith("/api/")) return checkAuthRequest(request) ?? NextResponse.next();
   const nonce = newNonce();
-  const csp = pageCsp(nonce, { development: process.env.NODE_ENV === "development", https: readConfig().appUrl.startsWith("https:") });
+  const csp = pageCsp(nonce, {
+    development: process.env.NODE_ENV === "development",
+    https: readConfig().appUrl.startsWith("https:"),
+  });
   const headers = new Headers(request.headers);
   headers.set("x-nonce", nonce);
   headers.set("content-security-policy", csp);

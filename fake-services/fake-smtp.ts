@@ -39,7 +39,15 @@ export async function startFakeSmtp(options: { smtpPort: number; httpPort: numbe
           const receivedAt = new Date();
           const id = `${receivedAt.getTime()}-${String(++counter).padStart(4, "0")}`;
           const to = (session.envelope.rcptTo ?? []).map((r) => r.address);
-          const msg: FiledMessage = { id, receivedAt: receivedAt.toISOString(), from: m.from?.text, to, subject: m.subject, text: m.text, html: typeof m.html === "string" ? m.html : undefined };
+          const msg: FiledMessage = {
+            id,
+            receivedAt: receivedAt.toISOString(),
+            from: m.from?.text,
+            to,
+            subject: m.subject,
+            text: m.text,
+            html: typeof m.html === "string" ? m.html : undefined,
+          };
           writeFileSync(path.join(options.directory, `${id}.json`), JSON.stringify(msg, null, 2));
           callback();
         })

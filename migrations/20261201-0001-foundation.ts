@@ -150,7 +150,20 @@ export const up: MigrationFn<QueryInterface> = async ({ context: qi }) => {
 };
 
 export const down: MigrationFn<QueryInterface> = async ({ context: qi }) => {
-  for (const t of ["api_tokens", "uploads", "specimens", "studies", "audit_events", "invitations", "memberships", "labs", "verification_tokens", "sessions", "accounts", "users"]) {
+  for (const t of [
+    "api_tokens",
+    "uploads",
+    "specimens",
+    "studies",
+    "audit_events",
+    "invitations",
+    "memberships",
+    "labs",
+    "verification_tokens",
+    "sessions",
+    "accounts",
+    "users",
+  ]) {
     await qi.dropTable(t);
   }
 };

@@ -8,7 +8,12 @@ import type { MigrationFn } from "umzug";
 
 const id = { type: DataTypes.UUID, primaryKey: true, allowNull: false };
 const at = { type: DataTypes.DATE, allowNull: false };
-const ref = (table: string, onDelete: "CASCADE" | "SET NULL" | "RESTRICT" = "CASCADE", allowNull = false) => ({ type: DataTypes.UUID, allowNull, references: { model: table, key: "id" }, onDelete });
+const ref = (table: string, onDelete: "CASCADE" | "SET NULL" | "RESTRICT" = "CASCADE", allowNull = false) => ({
+  type: DataTypes.UUID,
+  allowNull,
+  references: { model: table, key: "id" },
+  onDelete,
+});
 
 export const up: MigrationFn<QueryInterface> = async ({ context: qi }) => {
   await qi.createTable("comment_threads", {

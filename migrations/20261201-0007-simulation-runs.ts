@@ -5,7 +5,12 @@
 import { DataTypes, type QueryInterface } from "sequelize";
 import type { MigrationFn } from "umzug";
 
-const ref = (table: string, onDelete: "CASCADE" | "SET NULL", allowNull = false) => ({ type: DataTypes.UUID, allowNull, references: { model: table, key: "id" }, onDelete });
+const ref = (table: string, onDelete: "CASCADE" | "SET NULL", allowNull = false) => ({
+  type: DataTypes.UUID,
+  allowNull,
+  references: { model: table, key: "id" },
+  onDelete,
+});
 
 export const up: MigrationFn<QueryInterface> = async ({ context: qi }) => {
   await qi.createTable("simulation_runs", {

@@ -13,6 +13,10 @@ export function initAuthRecords(sequelize: Sequelize) {
   const S = class extends AuthSession {};
   S.init(authModels.Session, { ...options, modelName: "session", tableName: "sessions" });
   const V = class extends VerificationToken {};
-  V.init(authModels.VerificationToken, { ...options, modelName: "verificationToken", tableName: "verification_tokens" });
+  V.init(authModels.VerificationToken, {
+    ...options,
+    modelName: "verificationToken",
+    tableName: "verification_tokens",
+  });
   return { Account: A, AuthSession: S, VerificationToken: V };
 }

@@ -48,7 +48,19 @@ export function createModels(sequelize: Sequelize) {
     SignupRequest: initSignupRequest(sequelize),
     AccountEvent: initAccountEvent(sequelize),
   };
-  const { User, Lab, Membership, Invitation, Study, Specimen, Upload, ApiToken, LabKinetics, KineticsVersion, Readout } = models;
+  const {
+    User,
+    Lab,
+    Membership,
+    Invitation,
+    Study,
+    Specimen,
+    Upload,
+    ApiToken,
+    LabKinetics,
+    KineticsVersion,
+    Readout,
+  } = models;
   Membership.belongsTo(User, { as: "user", foreignKey: "userId" });
   Membership.belongsTo(Lab, { as: "lab", foreignKey: "labId" });
   Lab.hasMany(Membership, { as: "memberships", foreignKey: "labId" });

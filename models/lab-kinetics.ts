@@ -1,4 +1,11 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type Sequelize,
+} from "sequelize";
 
 /** A lab's own kinetics; its definitions live in KineticsVersion rows (never edited in place). */
 export class LabKinetics extends Model<InferAttributes<LabKinetics>, InferCreationAttributes<LabKinetics>> {

@@ -1,4 +1,11 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type Sequelize,
+} from "sequelize";
 
 export type UploadKind = "image" | "table";
 /** `receiving`: the row exists, the original may not yet; hidden everywhere but the sweep. */
@@ -43,7 +50,11 @@ export function initUpload(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
     },
     {
-      sequelize, modelName: "upload", tableName: "uploads", underscored: true, updatedAt: false,
+      sequelize,
+      modelName: "upload",
+      tableName: "uploads",
+      underscored: true,
+      updatedAt: false,
       // Every query sees stored uploads only; the upload path and the sweep use `unscoped()`.
       defaultScope: { where: { state: "stored" } },
     },

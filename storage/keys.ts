@@ -7,7 +7,8 @@ export function uploadOriginalKey(labId: string, uploadId: string): string {
 }
 
 export function uploadDerivedKey(labId: string, uploadId: string, name: string): string {
-  if (!/^[a-z0-9][a-z0-9._-]*$/.test(name)) throw new Error(`derived object name "${name}" is not a plain lowercase name`);
+  if (!/^[a-z0-9][a-z0-9._-]*$/.test(name))
+    throw new Error(`derived object name "${name}" is not a plain lowercase name`);
   return `labs/${labId}/uploads/${uploadId}/${name}`;
 }
 

@@ -1,6 +1,10 @@
 /** The object-storage port the app uses for originals and derived products. */
 export interface ObjectStore {
-  put(key: string, body: Buffer | NodeJS.ReadableStream, options: { contentType: string; contentLength?: number; sha256Hex?: string }): Promise<void>;
+  put(
+    key: string,
+    body: Buffer | NodeJS.ReadableStream,
+    options: { contentType: string; contentLength?: number; sha256Hex?: string },
+  ): Promise<void>;
   get(key: string): Promise<{ body: NodeJS.ReadableStream; contentLength?: number; contentType?: string }>;
   getBuffer(key: string): Promise<Buffer>;
   delete(key: string): Promise<void>;

@@ -24,8 +24,12 @@ function isNetworkError(err: unknown): boolean {
   const e = err as { code?: string; name?: string; cause?: { code?: string }; $metadata?: { httpStatusCode?: number } };
   const code = e?.code ?? e?.cause?.code;
   return (
-    code === "ECONNREFUSED" || code === "ECONNRESET" || code === "ETIMEDOUT" || code === "EHOSTUNREACH" ||
-    e?.name === "TimeoutError" || (e?.$metadata?.httpStatusCode ?? 0) >= 500
+    code === "ECONNREFUSED" ||
+    code === "ECONNRESET" ||
+    code === "ETIMEDOUT" ||
+    code === "EHOSTUNREACH" ||
+    e?.name === "TimeoutError" ||
+    (e?.$metadata?.httpStatusCode ?? 0) >= 500
   );
 }
 
@@ -44,14 +48,24 @@ export function createS3ObjectStore(settings: S3Settings): ObjectStore {
     try {
       return await fn();
     } catch (err) {
-      if (isNetworkError(err)) throw new StorageUnavailableError(`object storage is unreachable (${what})`, { cause: err });
+      if (isNetworkError(err))
+        throw new StorageUnavailableError(`object storage is unreachable (${what})`, { cause: err });
       throw err;
     }
   };
   return {
     async put(key, body, options) {
       await wrap("put", () =>
-        client.send(new PutObjectCommand({ Bucket, Key: key, Body: body as Buffer, ContentType: options.contentType, ContentLength: options.contentLength, Metadata: options.sha256Hex ? { sha256: options.sha256Hex } : undefined })),
+        client.send(
+          new PutObjectCommand({
+            Bucket,
+            Key: key,
+            Body: body as Buffer,
+            ContentType: options.contentType,
+            ContentLength: options.contentLength,
+            Metadata: options.sha256Hex ? { sha256: options.sha256Hex } : undefined,
+          }),
+        ),
       );
     },
     async get(key) {
@@ -78,8 +92,11 @@ export function createS3ObjectStore(settings: S3Settings): ObjectStore {
       const found: { key: string; lastModified: Date }[] = [];
       let ContinuationToken: string | undefined;
       do {
-        const out = await wrap("list", () => client.send(new ListObjectsV2Command({ Bucket, Prefix: prefix, ContinuationToken })));
-        for (const o of out.Contents ?? []) if (o.Key) found.push({ key: o.Key, lastModified: o.LastModified ?? new Date(0) });
+        const out = await wrap("list", () =>
+          client.send(new ListObjectsV2Command({ Bucket, Prefix: prefix, ContinuationToken })),
+        );
+        for (const o of out.Contents ?? [])
+          if (o.Key) found.push({ key: o.Key, lastModified: o.LastModified ?? new Date(0) });
         ContinuationToken = out.IsTruncated ? out.NextContinuationToken : undefined;
       } while (ContinuationToken);
       return found;

@@ -22,12 +22,23 @@ function niceTicks(lo: number, hi: number, count = 5): number[] {
   return ticks;
 }
 
-export function ConditionDots({ groups, yLabel, height = 280 }: { groups: ConditionDotsGroup[]; yLabel: string; height?: number }) {
+export function ConditionDots({
+  groups,
+  yLabel,
+  height = 280,
+}: {
+  groups: ConditionDotsGroup[];
+  yLabel: string;
+  height?: number;
+}) {
   const slot = 120;
-  const left = 64, bottom = 44, top = 12;
+  const left = 64,
+    bottom = 44,
+    top = 12;
   const width = left + Math.max(1, groups.length) * slot + 16;
   const all = groups.flatMap((g) => [...g.values.map((v) => v.value), ...(g.ci95 ?? [])]);
-  let lo = Math.min(...all), hi = Math.max(...all);
+  let lo = Math.min(...all),
+    hi = Math.max(...all);
   const pad = (hi - lo || Math.abs(hi) * 0.1 || 1) * 0.12;
   lo -= pad;
   hi += pad;
@@ -39,32 +50,83 @@ export function ConditionDots({ groups, yLabel, height = 280 }: { groups: Condit
         {ticks.map((t) => (
           <g key={t}>
             <line x1={left} x2={width - 8} y1={y(t)} y2={y(t)} stroke="#d9cfbb" strokeDasharray="2 4" />
-            <text x={left - 6} y={y(t)} fontSize={11} fontFamily="IBM Plex Mono" fill="#5c574c" textAnchor="end" dominantBaseline="middle">{formatSig(t, 4)}</text>
+            <text
+              x={left - 6}
+              y={y(t)}
+              fontSize={11}
+              fontFamily="IBM Plex Mono"
+              fill="#5c574c"
+              textAnchor="end"
+              dominantBaseline="middle"
+            >
+              {formatSig(t, 4)}
+            </text>
           </g>
         ))}
-        <text transform={`translate(14 ${(height - bottom + top) / 2}) rotate(-90)`} fontSize={12} fill="#5c574c" textAnchor="middle">{yLabel}</text>
+        <text
+          transform={`translate(14 ${(height - bottom + top) / 2}) rotate(-90)`}
+          fontSize={12}
+          fill="#5c574c"
+          textAnchor="middle"
+        >
+          {yLabel}
+        </text>
         {groups.map((g, gi) => {
           const cx = left + gi * slot + slot / 2;
           return (
             <g key={g.condition} data-testid="condition-dots-group">
-              {g.ci95 && <line x1={cx + 22} x2={cx + 22} y1={y(g.ci95[0])} y2={y(g.ci95[1])} stroke="#22201b" strokeWidth={1.5} />}
-              {g.ci95 && [g.ci95[0], g.ci95[1]].map((v, k) => <line key={k} x1={cx + 17} x2={cx + 27} y1={y(v)} y2={y(v)} stroke="#22201b" strokeWidth={1.5} />)}
+              {g.ci95 && (
+                <line
+                  x1={cx + 22}
+                  x2={cx + 22}
+                  y1={y(g.ci95[0])}
+                  y2={y(g.ci95[1])}
+                  stroke="#22201b"
+                  strokeWidth={1.5}
+                />
+              )}
+              {g.ci95 &&
+                [g.ci95[0], g.ci95[1]].map((v, k) => (
+                  <line key={k} x1={cx + 17} x2={cx + 27} y1={y(v)} y2={y(v)} stroke="#22201b" strokeWidth={1.5} />
+                ))}
               <line x1={cx - 26} x2={cx + 30} y1={y(g.mean)} y2={y(g.mean)} stroke="#22201b" strokeWidth={2} />
               {g.values.map((v, i) => {
-                const jitter = g.values.length > 1 ? ((i / (g.values.length - 1)) - 0.5) * 28 : 0;
+                const jitter = g.values.length > 1 ? (i / (g.values.length - 1) - 0.5) * 28 : 0;
                 return (
-                  <circle key={i} cx={cx - 6 + jitter} cy={y(v.value)} r={4.5} fill="#1f5c45" fillOpacity={0.75} stroke="#15422f">
+                  <circle
+                    key={i}
+                    cx={cx - 6 + jitter}
+                    cy={y(v.value)}
+                    r={4.5}
+                    fill="#1f5c45"
+                    fillOpacity={0.75}
+                    stroke="#15422f"
+                  >
                     <title>{`${v.label}: ${formatSig(v.value, 4)} µm`}</title>
                   </circle>
                 );
               })}
-              <text x={cx} y={height - bottom + 18} fontSize={12} fill="#22201b" textAnchor="middle">{g.condition.length > 18 ? `${g.condition.slice(0, 17)}…` : g.condition}</text>
-              <text x={cx} y={height - bottom + 33} fontSize={10} fontFamily="IBM Plex Mono" fill="#5c574c" textAnchor="middle">n = {g.values.length}</text>
+              <text x={cx} y={height - bottom + 18} fontSize={12} fill="#22201b" textAnchor="middle">
+                {g.condition.length > 18 ? `${g.condition.slice(0, 17)}…` : g.condition}
+              </text>
+              <text
+                x={cx}
+                y={height - bottom + 33}
+                fontSize={10}
+                fontFamily="IBM Plex Mono"
+                fill="#5c574c"
+                textAnchor="middle"
+              >
+                n = {g.values.length}
+              </text>
             </g>
           );
         })}
       </svg>
-      <figcaption className="text-xs text-ink-soft">Dots: one upload each (its latest finished readout). Bar: condition mean; whisker: 95 % CI of the mean (t, n − 1).</figcaption>
+      <figcaption className="text-xs text-ink-soft">
+        Dots: one upload each (its latest finished readout). Bar: condition mean; whisker: 95 % CI of the mean (t, n −
+        1).
+      </figcaption>
     </figure>
   );
 }

@@ -18,7 +18,10 @@ export interface AxisUnits {
 }
 
 /** Units and factors that turn model numbers physical: k/ℓ, σ/τ, λ·ℓ (SCIENCE.md §3). */
-export function unitsFor(lengthScaleUm: number | null, timeScaleS: number | null): AxisUnits & { kFactor: number; sigmaFactor: number; lengthFactor: number } {
+export function unitsFor(
+  lengthScaleUm: number | null,
+  timeScaleS: number | null,
+): AxisUnits & { kFactor: number; sigmaFactor: number; lengthFactor: number } {
   return {
     k: lengthScaleUm ? "1/µm" : "1/model length",
     sigma: timeScaleS ? "1/s" : "1/model time",

@@ -28,22 +28,42 @@ export interface FieldImageProps {
   testId?: string;
 }
 
-export function FieldImage({ src, alt, width, unit, min, max, species, oneDimensional = false, testId = "field-image" }: FieldImageProps) {
+export function FieldImage({
+  src,
+  alt,
+  width,
+  unit,
+  min,
+  max,
+  species,
+  oneDimensional = false,
+  testId = "field-image",
+}: FieldImageProps) {
   const bar = scaleBarLength(width);
   return (
     <figure className="w-full max-w-md" data-testid={testId}>
       <div className="relative">
         {/* eslint-disable-next-line @next/next/no-img-element -- a stored PNG served by the API */}
-        <img src={src} alt={alt} className={`block w-full rounded border border-rule ${oneDimensional ? "h-12" : "h-auto"}`} style={{ imageRendering: "pixelated" }} />
+        <img
+          src={src}
+          alt={alt}
+          className={`block w-full rounded border border-rule ${oneDimensional ? "h-12" : "h-auto"}`}
+          style={{ imageRendering: "pixelated" }}
+        />
         <div className="absolute bottom-2 left-2 rounded bg-card/85 px-1.5 py-0.5" data-testid="scale-bar">
           <div className="h-1 bg-ink" style={{ width: `${(bar / width) * 100}%`, minWidth: 8 }} />
-          <span className="num text-[11px] text-ink">{formatSig(bar, 3)} {unit}</span>
+          <span className="num text-[11px] text-ink">
+            {formatSig(bar, 3)} {unit}
+          </span>
         </div>
       </div>
       <figcaption className="mt-1 flex items-center gap-2 text-xs text-ink-soft">
         <span className="num">{species}</span>
         <span className="num">{formatSig(min, 4)}</span>
-        <span className="inline-block h-2.5 w-28 rounded-sm border border-rule" style={{ background: FIELD_GRADIENT }} />
+        <span
+          className="inline-block h-2.5 w-28 rounded-sm border border-rule"
+          style={{ background: FIELD_GRADIENT }}
+        />
         <span className="num">{formatSig(max, 4)}</span>
         <span>(concentration, min–max of this image)</span>
       </figcaption>

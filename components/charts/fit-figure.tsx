@@ -6,10 +6,14 @@
 import { useRef } from "react";
 
 function largestSvg(root: HTMLElement): SVGSVGElement | null {
-  let best: SVGSVGElement | null = null, area = 0;
+  let best: SVGSVGElement | null = null,
+    area = 0;
   root.querySelectorAll("svg").forEach((s) => {
     const r = s.getBoundingClientRect();
-    if (r.width * r.height > area) { area = r.width * r.height; best = s; }
+    if (r.width * r.height > area) {
+      area = r.width * r.height;
+      best = s;
+    }
   });
   return best;
 }
@@ -21,7 +25,9 @@ function serialise(svg: SVGSVGElement): { text: string; width: number; height: n
   copy.setAttribute("width", String(Math.round(r.width)));
   copy.setAttribute("height", String(Math.round(r.height)));
   const bg = document.createElementNS("http://www.w3.org/2000/svg", "rect");
-  bg.setAttribute("width", "100%"); bg.setAttribute("height", "100%"); bg.setAttribute("fill", "#fbf8f1");
+  bg.setAttribute("width", "100%");
+  bg.setAttribute("height", "100%");
+  bg.setAttribute("fill", "#fbf8f1");
   copy.insertBefore(bg, copy.firstChild);
   return { text: new XMLSerializer().serializeToString(copy), width: r.width, height: r.height };
 }
@@ -34,7 +40,15 @@ function download(blob: Blob, filename: string) {
   setTimeout(() => URL.revokeObjectURL(a.href), 1000);
 }
 
-export function FitFigure({ filename, children, testId }: { filename: string; children: React.ReactNode; testId?: string }) {
+export function FitFigure({
+  filename,
+  children,
+  testId,
+}: {
+  filename: string;
+  children: React.ReactNode;
+  testId?: string;
+}) {
   const ref = useRef<HTMLDivElement>(null);
   const svgOut = () => {
     const svg = ref.current && largestSvg(ref.current);
@@ -47,7 +61,8 @@ export function FitFigure({ filename, children, testId }: { filename: string; ch
     const img = new Image();
     img.onload = () => {
       const canvas = document.createElement("canvas");
-      canvas.width = Math.round(width * 2); canvas.height = Math.round(height * 2);
+      canvas.width = Math.round(width * 2);
+      canvas.height = Math.round(height * 2);
       const ctx = canvas.getContext("2d")!;
       ctx.scale(2, 2);
       ctx.drawImage(img, 0, 0);
@@ -59,8 +74,12 @@ export function FitFigure({ filename, children, testId }: { filename: string; ch
     <figure className="space-y-1" data-testid={testId}>
       <div ref={ref}>{children}</div>
       <figcaption className="flex justify-end gap-2 text-xs text-ink-soft">
-        <button type="button" className="hover:text-ink hover:underline" onClick={svgOut}>SVG</button>
-        <button type="button" className="hover:text-ink hover:underline" onClick={pngOut}>PNG</button>
+        <button type="button" className="hover:text-ink hover:underline" onClick={svgOut}>
+          SVG
+        </button>
+        <button type="button" className="hover:text-ink hover:underline" onClick={pngOut}>
+          PNG
+        </button>
       </figcaption>
     </figure>
   );

@@ -3,7 +3,17 @@
  * Predicted against measured wavelength per condition: every measurement in green with its
  * uncertainty (on the Fourier scale the model predicts), the model's 2π/k* at the fit in violet.
  */
-import { CartesianGrid, ComposedChart, ErrorBar, Legend, ResponsiveContainer, Scatter, Tooltip, XAxis, YAxis } from "recharts";
+import {
+  CartesianGrid,
+  ComposedChart,
+  ErrorBar,
+  Legend,
+  ResponsiveContainer,
+  Scatter,
+  Tooltip,
+  XAxis,
+  YAxis,
+} from "recharts";
 import { formatNumber } from "./dispersion-format";
 
 export interface PredictedMeasuredProps {
@@ -21,16 +31,44 @@ export function FitPredictedMeasured({ conditions, measured, predicted }: Predic
     seen.set(d.condition, j + 1);
     return { x: x(d.condition) - 0.12 + 0.06 * (j % 5), y: d.valueUm, err: d.uncertaintyUm };
   });
-  const p = predicted.filter((d) => d.valueUm !== null).map((d) => ({ x: x(d.condition) + 0.18, y: d.valueUm as number }));
+  const p = predicted
+    .filter((d) => d.valueUm !== null)
+    .map((d) => ({ x: x(d.condition) + 0.18, y: d.valueUm as number }));
   return (
     <div data-testid="predicted-measured">
       <ResponsiveContainer width="100%" height={300}>
         <ComposedChart margin={{ top: 12, right: 16, bottom: 28, left: 16 }}>
           <CartesianGrid stroke="#d9cfbb" strokeDasharray="2 4" />
-          <XAxis type="number" dataKey="x" domain={[-0.5, conditions.length - 0.5]} ticks={conditions.map((_, i) => i)} tickFormatter={(i: number) => conditions[i] ?? ""} tick={{ fontSize: 11 }} label={{ value: "condition", position: "insideBottom", offset: -16, fill: "#5c574c", fontSize: 12 }} />
-          <YAxis type="number" dataKey="y" domain={["auto", "auto"]} tickFormatter={(v: number) => formatNumber(v, 3)} tick={{ fontSize: 11, fontFamily: "IBM Plex Mono" }} width={64}
-            label={{ value: "Fourier wavelength λ (µm)", angle: -90, position: "insideLeft", fill: "#5c574c", fontSize: 12, style: { textAnchor: "middle" } }} />
-          <Tooltip formatter={(v) => `${formatNumber(Number(v))} µm`} labelFormatter={() => ""} contentStyle={{ fontSize: 12, fontFamily: "IBM Plex Mono" }} />
+          <XAxis
+            type="number"
+            dataKey="x"
+            domain={[-0.5, conditions.length - 0.5]}
+            ticks={conditions.map((_, i) => i)}
+            tickFormatter={(i: number) => conditions[i] ?? ""}
+            tick={{ fontSize: 11 }}
+            label={{ value: "condition", position: "insideBottom", offset: -16, fill: "#5c574c", fontSize: 12 }}
+          />
+          <YAxis
+            type="number"
+            dataKey="y"
+            domain={["auto", "auto"]}
+            tickFormatter={(v: number) => formatNumber(v, 3)}
+            tick={{ fontSize: 11, fontFamily: "IBM Plex Mono" }}
+            width={64}
+            label={{
+              value: "Fourier wavelength λ (µm)",
+              angle: -90,
+              position: "insideLeft",
+              fill: "#5c574c",
+              fontSize: 12,
+              style: { textAnchor: "middle" },
+            }}
+          />
+          <Tooltip
+            formatter={(v) => `${formatNumber(Number(v))} µm`}
+            labelFormatter={() => ""}
+            contentStyle={{ fontSize: 12, fontFamily: "IBM Plex Mono" }}
+          />
           <Legend verticalAlign="top" height={24} wrapperStyle={{ fontSize: 12 }} />
           <Scatter name="measured ± uncertainty" data={m} fill="#1f5c45" isAnimationActive={false}>
             <ErrorBar dataKey="err" direction="y" width={4} stroke="#1f5c45" />

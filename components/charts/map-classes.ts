@@ -18,7 +18,8 @@ export const MAP_CLASS_COLOUR: Record<Exclude<MapClass, "turing">, string> = {
 
 /** Violet ramp from #e9e1f4 (t = 0, short λ) to #3d2466 (t = 1, long λ). */
 export function turingShade(t: number): string {
-  const a = [233, 225, 244], b = [61, 36, 102];
+  const a = [233, 225, 244],
+    b = [61, 36, 102];
   const c = a.map((v, i) => Math.round(v + (b[i] - v) * t));
   return `rgb(${c[0]},${c[1]},${c[2]})`;
 }
@@ -26,6 +27,7 @@ export function turingShade(t: number): string {
 /** Fill of one cell: Turing cells by their wavelength's place in [lo, hi], the rest by class. */
 export function cellFill(flags: number, wavelength: number | null, lo: number, hi: number): string {
   const c = classOf(flags);
-  if (c === "turing") return wavelength === null ? turingShade(0.5) : turingShade(hi > lo ? (wavelength - lo) / (hi - lo) : 0.5);
+  if (c === "turing")
+    return wavelength === null ? turingShade(0.5) : turingShade(hi > lo ? (wavelength - lo) / (hi - lo) : 0.5);
   return MAP_CLASS_COLOUR[c];
 }

@@ -25,11 +25,22 @@ export function OrientationRose({ angularPower, orientationDeg, anisotropy, size
     const a = (d * Math.PI) / 180;
     pts.push(`${(c + R * v * Math.cos(a)).toFixed(2)},${(c + R * v * Math.sin(a)).toFixed(2)}`);
   }
-  const ray = (deg: number, r: number) => [c + r * Math.cos((deg * Math.PI) / 180), c + r * Math.sin((deg * Math.PI) / 180)];
+  const ray = (deg: number, r: number) => [
+    c + r * Math.cos((deg * Math.PI) / 180),
+    c + r * Math.sin((deg * Math.PI) / 180),
+  ];
   return (
     <figure data-testid="orientation-rose" className="inline-block">
-      <svg width={size} height={size} viewBox={`0 0 ${size} ${size}`} role="img" aria-label="orientation rose of the peak-ring power">
-        {[0.25, 0.5, 0.75, 1].map((f) => <circle key={f} cx={c} cy={c} r={R * f} fill="none" stroke="#d9cfbb" strokeDasharray="2 4" />)}
+      <svg
+        width={size}
+        height={size}
+        viewBox={`0 0 ${size} ${size}`}
+        role="img"
+        aria-label="orientation rose of the peak-ring power"
+      >
+        {[0.25, 0.5, 0.75, 1].map((f) => (
+          <circle key={f} cx={c} cy={c} r={R * f} fill="none" stroke="#d9cfbb" strokeDasharray="2 4" />
+        ))}
         {[0, 45, 90, 135].map((deg) => {
           const [x1, y1] = ray(deg, R);
           const [x2, y2] = ray(deg + 180, R);
@@ -37,19 +48,32 @@ export function OrientationRose({ angularPower, orientationDeg, anisotropy, size
           return (
             <g key={deg}>
               <line x1={x1} y1={y1} x2={x2} y2={y2} stroke="#d9cfbb" />
-              <text x={tx} y={ty} fontSize={10} fontFamily="IBM Plex Mono" fill="#5c574c" textAnchor="middle" dominantBaseline="middle">{deg}°</text>
+              <text
+                x={tx}
+                y={ty}
+                fontSize={10}
+                fontFamily="IBM Plex Mono"
+                fill="#5c574c"
+                textAnchor="middle"
+                dominantBaseline="middle"
+              >
+                {deg}°
+              </text>
             </g>
           );
         })}
         <polygon points={pts.join(" ")} fill="#dcebe2" fillOpacity={0.8} stroke="#1f5c45" strokeWidth={1.5} />
-        {orientationDeg !== null && (() => {
-          const [x1, y1] = ray(orientationDeg, R);
-          const [x2, y2] = ray(orientationDeg + 180, R);
-          return <line x1={x1} y1={y1} x2={x2} y2={y2} stroke="#1f5c45" strokeWidth={2} strokeDasharray="5 3" />;
-        })()}
+        {orientationDeg !== null &&
+          (() => {
+            const [x1, y1] = ray(orientationDeg, R);
+            const [x2, y2] = ray(orientationDeg + 180, R);
+            return <line x1={x1} y1={y1} x2={x2} y2={y2} stroke="#1f5c45" strokeWidth={2} strokeDasharray="5 3" />;
+          })()}
       </svg>
       <figcaption className="mt-1 max-w-[260px] text-xs text-ink-soft">
-        Peak-ring power by wave-vector direction θ (°, from +x towards +y, image rows downwards); dashed line: θ = <span className="num">{orientationDeg === null ? "—" : `${formatSig(orientationDeg, 3)}°`}</span>; anisotropy <span className="num">{formatSig(anisotropy, 3)}</span> (0 isotropic … 1 one direction).
+        Peak-ring power by wave-vector direction θ (°, from +x towards +y, image rows downwards); dashed line: θ ={" "}
+        <span className="num">{orientationDeg === null ? "—" : `${formatSig(orientationDeg, 3)}°`}</span>; anisotropy{" "}
+        <span className="num">{formatSig(anisotropy, 3)}</span> (0 isotropic … 1 one direction).
       </figcaption>
     </figure>
   );

@@ -17,10 +17,21 @@ export interface CommentBoxProps {
   onCancel?: () => void;
 }
 
-export function CommentBox({ label, submitLabel, members, initial = "", placeholder, testId, onSubmit, onCancel }: CommentBoxProps) {
+export function CommentBox({
+  label,
+  submitLabel,
+  members,
+  initial = "",
+  placeholder,
+  testId,
+  onSubmit,
+  onCancel,
+}: CommentBoxProps) {
   const ref = useRef<HTMLTextAreaElement>(null);
   const [text, setText] = useState(initial);
-  const [hint, setHint] = useState<{ start: number; caret: number; options: MemberOption[]; active: number } | null>(null);
+  const [hint, setHint] = useState<{ start: number; caret: number; options: MemberOption[]; active: number } | null>(
+    null,
+  );
   const [busy, setBusy] = useState(false);
   const [error, setError] = useState<string | null>(null);
 
@@ -88,22 +99,45 @@ export function CommentBox({ label, submitLabel, members, initial = "", placehol
           />
         </label>
         {hint && (
-          <ul role="listbox" aria-label="Mention a lab member" className="absolute left-2 top-full z-10 mt-1 w-72 rounded-md border border-rule bg-card py-1 text-sm shadow-md" data-testid="mention-hint">
+          <ul
+            role="listbox"
+            aria-label="Mention a lab member"
+            className="absolute left-2 top-full z-10 mt-1 w-72 rounded-md border border-rule bg-card py-1 text-sm shadow-md"
+            data-testid="mention-hint"
+          >
             {hint.options.map((o, i) => (
               <li key={o.userId} role="option" aria-selected={i === hint.active}>
-                <button type="button" onMouseDown={(e) => e.preventDefault()} onClick={() => pick(o)} className={`block w-full px-3 py-1 text-left ${i === hint.active ? "bg-moss-soft text-moss-dark" : "hover:bg-paper-deep"}`}>
-                  <span className="font-medium">{o.name ?? o.email}</span> {o.name && <span className="text-xs text-ink-soft">{o.email}</span>}
+                <button
+                  type="button"
+                  onMouseDown={(e) => e.preventDefault()}
+                  onClick={() => pick(o)}
+                  className={`block w-full px-3 py-1 text-left ${i === hint.active ? "bg-moss-soft text-moss-dark" : "hover:bg-paper-deep"}`}
+                >
+                  <span className="font-medium">{o.name ?? o.email}</span>{" "}
+                  {o.name && <span className="text-xs text-ink-soft">{o.email}</span>}
                 </button>
               </li>
             ))}
           </ul>
         )}
       </div>
-      {error && <p className="text-xs text-brick" data-testid={`${testId}-error`}>{error}</p>}
+      {error && (
+        <p className="text-xs text-brick" data-testid={`${testId}-error`}>
+          {error}
+        </p>
+      )}
       <div className="flex items-center gap-2">
-        <Button type="submit" size="sm" disabled={busy} data-testid={`${testId}-submit`}>{busy ? "Saving…" : submitLabel}</Button>
-        {onCancel && <Button size="sm" variant="ghost" onClick={onCancel}>Cancel</Button>}
-        <span className="text-xs text-ink-soft">Type @ to mention a member; **bold**, *italic*, `code`, lists and links work.</span>
+        <Button type="submit" size="sm" disabled={busy} data-testid={`${testId}-submit`}>
+          {busy ? "Saving…" : submitLabel}
+        </Button>
+        {onCancel && (
+          <Button size="sm" variant="ghost" onClick={onCancel}>
+            Cancel
+          </Button>
+        )}
+        <span className="text-xs text-ink-soft">
+          Type @ to mention a member; **bold**, *italic*, `code`, lists and links work.
+        </span>
       </div>
     </form>
   );

@@ -30,16 +30,28 @@ export function CommentItem({ comment, members, onEdit, onDelete }: CommentItemP
   return (
     <div className="py-2" data-testid="comment">
       <div className="flex flex-wrap items-baseline gap-x-2 text-xs text-ink-soft">
-        <span className="font-medium text-ink" data-testid="comment-author">{who}</span>
+        <span className="font-medium text-ink" data-testid="comment-author">
+          {who}
+        </span>
         <span className="num">{formatDateTime(comment.createdAt)}</span>
         {comment.editedAt && <span title={`edited ${formatDateTime(comment.editedAt)}`}>(edited)</span>}
         {!editing && comment.canEdit && (
-          <button type="button" className="text-moss hover:underline" onClick={() => setEditing(true)} data-testid="edit-comment">
+          <button
+            type="button"
+            className="text-moss hover:underline"
+            onClick={() => setEditing(true)}
+            data-testid="edit-comment"
+          >
             Edit
           </button>
         )}
         {!editing && comment.canDelete && (
-          <button type="button" className="text-brick hover:underline" onClick={() => onDelete(comment)} data-testid="delete-comment">
+          <button
+            type="button"
+            className="text-brick hover:underline"
+            onClick={() => onDelete(comment)}
+            data-testid="delete-comment"
+          >
             Delete
           </button>
         )}

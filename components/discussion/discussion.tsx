@@ -21,9 +21,20 @@ interface Page<T> {
 
 const NOUN: Record<DiscussionTargetType, string> = { readout: "readout", fit: "fit", upload: "file" };
 
-export function Discussion({ labId, targetType, targetId }: { labId: string; targetType: DiscussionTargetType; targetId: string }) {
+export function Discussion({
+  labId,
+  targetType,
+  targetId,
+}: {
+  labId: string;
+  targetType: DiscussionTargetType;
+  targetId: string;
+}) {
   const base = `/api/v1/labs/${labId}/threads`;
-  const threads = useSWR<Page<ThreadDto>>(`${base}?targetType=${targetType}&targetId=${targetId}&pageSize=100`, fetchJson);
+  const threads = useSWR<Page<ThreadDto>>(
+    `${base}?targetType=${targetType}&targetId=${targetId}&pageSize=100`,
+    fetchJson,
+  );
   const people = useMembers(labId);
   const { actions, start, notice } = useThreadActions(labId, () => threads.mutate());
 
@@ -39,11 +50,21 @@ export function Discussion({ labId, targetType, targetId }: { labId: string; tar
           </span>
         )}
       </header>
-      {notice && <Notice tone={notice.tone} testId="discussion-notice">{notice.text}</Notice>}
-      {threads.error && <Notice tone="error">{threads.error instanceof ApiError ? threads.error.message : "The discussion could not be loaded."}</Notice>}
+      {notice && (
+        <Notice tone={notice.tone} testId="discussion-notice">
+          {notice.text}
+        </Notice>
+      )}
+      {threads.error && (
+        <Notice tone="error">
+          {threads.error instanceof ApiError ? threads.error.message : "The discussion could not be loaded."}
+        </Notice>
+      )}
       {threads.isLoading && <p className="text-sm text-ink-soft">Loading the discussion…</p>}
       {threads.data && items.length === 0 && (
-        <EmptyState title={`No discussion about this ${NOUN[targetType]} yet.`}>Ask a question or note what you see below; type @ to bring a lab member in by e-mail.</EmptyState>
+        <EmptyState title={`No discussion about this ${NOUN[targetType]} yet.`}>
+          Ask a question or note what you see below; type @ to bring a lab member in by e-mail.
+        </EmptyState>
       )}
       {items.map((t) => (
         <ThreadCard key={t.id} thread={t} members={people} actions={actions} />

@@ -15,7 +15,9 @@ export function mentionQueryAt(text: string, caret: number): { start: number; qu
 
 /** Members whose name or e-mail contains the query, at most `limit`. */
 export function matchMembers(members: MemberOption[], query: string, limit = 6): MemberOption[] {
-  return members.filter((x) => (x.name ?? "").toLowerCase().includes(query) || x.email.toLowerCase().includes(query)).slice(0, limit);
+  return members
+    .filter((x) => (x.name ?? "").toLowerCase().includes(query) || x.email.toLowerCase().includes(query))
+    .slice(0, limit);
 }
 
 /** How a member is written in a body: by name when they have one, else by address. */
@@ -24,7 +26,12 @@ export function mentionText(member: MemberOption): string {
 }
 
 /** The text with the partial mention at `start…caret` replaced; returns the new text and caret. */
-export function insertMention(text: string, start: number, caret: number, member: MemberOption): { text: string; caret: number } {
+export function insertMention(
+  text: string,
+  start: number,
+  caret: number,
+  member: MemberOption,
+): { text: string; caret: number } {
   const insert = `${mentionText(member)} `;
   return { text: text.slice(0, start) + insert + text.slice(caret), caret: start + insert.length };
 }

@@ -16,7 +16,15 @@ export interface ThreadActions {
   setStatus: (thread: ThreadDto, status: "open" | "resolved") => Promise<void>;
 }
 
-export function ThreadCard({ thread, members, actions }: { thread: ThreadDto; members: MemberOption[]; actions: ThreadActions }) {
+export function ThreadCard({
+  thread,
+  members,
+  actions,
+}: {
+  thread: ThreadDto;
+  members: MemberOption[];
+  actions: ThreadActions;
+}) {
   const [replyTo, setReplyTo] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
   const comments = thread.comments ?? [];
@@ -31,15 +39,28 @@ export function ThreadCard({ thread, members, actions }: { thread: ThreadDto; me
       setBusy(false);
     }
   }
-  const item = (c: CommentDto) => <CommentItem comment={c} members={members} onEdit={(x, body) => actions.edit(thread, x, body)} onDelete={(x) => actions.remove(thread, x)} />;
+  const item = (c: CommentDto) => (
+    <CommentItem
+      comment={c}
+      members={members}
+      onEdit={(x, body) => actions.edit(thread, x, body)}
+      onDelete={(x) => actions.remove(thread, x)}
+    />
+  );
 
   return (
-    <article className={`rounded-md border px-4 py-3 ${resolved ? "border-rule bg-paper" : "border-moss/30 bg-card"}`} data-testid="thread" data-status={thread.status}>
+    <article
+      className={`rounded-md border px-4 py-3 ${resolved ? "border-rule bg-paper" : "border-moss/30 bg-card"}`}
+      data-testid="thread"
+      data-status={thread.status}
+    >
       <header className="flex flex-wrap items-center justify-between gap-2 border-b border-rule pb-2">
         <div className="flex flex-wrap items-center gap-2 text-xs text-ink-soft">
           <Badge tone={resolved ? "plain" : "moss"}>{resolved ? "Resolved" : "Open"}</Badge>
           <span>
-            started by {thread.createdByName ?? "a former member"} · <span className="num">{thread.commentCount}</span> comment{thread.commentCount === 1 ? "" : "s"} · last activity <span className="num">{formatDateTime(thread.lastActivityAt)}</span>
+            started by {thread.createdByName ?? "a former member"} · <span className="num">{thread.commentCount}</span>{" "}
+            comment{thread.commentCount === 1 ? "" : "s"} · last activity{" "}
+            <span className="num">{formatDateTime(thread.lastActivityAt)}</span>
           </span>
           {resolved && thread.resolvedByName && thread.resolvedAt && (
             <span data-testid="resolved-by">
@@ -47,7 +68,13 @@ export function ThreadCard({ thread, members, actions }: { thread: ThreadDto; me
             </span>
           )}
         </div>
-        <Button size="sm" variant="secondary" disabled={busy} onClick={toggleStatus} data-testid={resolved ? "reopen-thread" : "resolve-thread"}>
+        <Button
+          size="sm"
+          variant="secondary"
+          disabled={busy}
+          onClick={toggleStatus}
+          data-testid={resolved ? "reopen-thread" : "resolve-thread"}
+        >
           {resolved ? "Reopen" : "Resolve"}
         </Button>
       </header>
@@ -56,9 +83,11 @@ export function ThreadCard({ thread, members, actions }: { thread: ThreadDto; me
           <div key={c.id}>
             {item(c)}
             <div className="ml-6 border-l-2 border-rule pl-3">
-              {comments.filter((r) => r.parentId === c.id).map((r) => (
-                <div key={r.id}>{item(r)}</div>
-              ))}
+              {comments
+                .filter((r) => r.parentId === c.id)
+                .map((r) => (
+                  <div key={r.id}>{item(r)}</div>
+                ))}
               {replyTo === c.id ? (
                 <div className="py-2">
                   <CommentBox
@@ -74,7 +103,12 @@ export function ThreadCard({ thread, members, actions }: { thread: ThreadDto; me
                   />
                 </div>
               ) : (
-                <button type="button" className="py-1 text-xs text-moss hover:underline" onClick={() => setReplyTo(c.id)} data-testid="reply-toggle">
+                <button
+                  type="button"
+                  className="py-1 text-xs text-moss hover:underline"
+                  onClick={() => setReplyTo(c.id)}
+                  data-testid="reply-toggle"
+                >
                   Reply
                 </button>
               )}

@@ -13,8 +13,16 @@ export function useThreadActions(labId: string, refresh: () => Promise<unknown>)
   const [notice, setNotice] = useState<DiscussionNotice>(null);
 
   function report(outcome: Pick<CommentPosted, "notified" | "recipients" | "reason">) {
-    if (!outcome.notified) setNotice({ tone: "warning", text: `Your comment is saved, but e-mail notifications were not sent: ${outcome.reason ?? "the mail server failed"}.` });
-    else if (outcome.recipients > 0) setNotice({ tone: "success", text: `Saved; ${outcome.recipients} ${outcome.recipients === 1 ? "person was" : "people were"} notified by e-mail.` });
+    if (!outcome.notified)
+      setNotice({
+        tone: "warning",
+        text: `Your comment is saved, but e-mail notifications were not sent: ${outcome.reason ?? "the mail server failed"}.`,
+      });
+    else if (outcome.recipients > 0)
+      setNotice({
+        tone: "success",
+        text: `Saved; ${outcome.recipients} ${outcome.recipients === 1 ? "person was" : "people were"} notified by e-mail.`,
+      });
     else setNotice(null);
   }
   async function attempt(what: string, fn: () => Promise<void>) {

@@ -29,7 +29,11 @@ export function AppShell({ me, lab, nav = [], children }: ShellProps) {
           )}
           <nav className="flex flex-wrap items-center gap-1 text-sm" aria-label="Lab">
             {nav.map((n) => (
-              <Link key={n.href} href={n.href} className="rounded px-2 py-1 text-ink-soft hover:bg-paper-deep hover:text-ink">
+              <Link
+                key={n.href}
+                href={n.href}
+                className="rounded px-2 py-1 text-ink-soft hover:bg-paper-deep hover:text-ink"
+              >
                 {n.label}
               </Link>
             ))}

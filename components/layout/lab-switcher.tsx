@@ -1,7 +1,13 @@
 "use client";
 import { useRouter } from "next/navigation";
 
-export function LabSwitcher({ labs, currentId }: { labs: { id: string; name: string; role: string }[]; currentId?: string }) {
+export function LabSwitcher({
+  labs,
+  currentId,
+}: {
+  labs: { id: string; name: string; role: string }[];
+  currentId?: string;
+}) {
   const router = useRouter();
   if (labs.length === 0) return null;
   return (

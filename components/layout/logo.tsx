@@ -5,7 +5,13 @@ export function Logo({ className = "h-6 w-6" }: { className?: string }) {
   return (
     <svg viewBox="0 0 28 24" className={className} aria-hidden>
       {dots.map(([x, y], i) => (
-        <circle key={i} cx={x} cy={y} r={i === 4 ? 3 : 2.2} fill={i === 4 ? "var(--color-iris)" : "var(--color-moss)"} />
+        <circle
+          key={i}
+          cx={x}
+          cy={y}
+          r={i === 4 ? 3 : 2.2}
+          fill={i === 4 ? "var(--color-iris)" : "var(--color-moss)"}
+        />
       ))}
     </svg>
   );

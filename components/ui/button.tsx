@@ -15,10 +15,20 @@ export function buttonClass(variant: Variant = "primary", size: "sm" | "md" = "m
   return `inline-flex items-center justify-center gap-1.5 rounded-md font-medium transition-colors disabled:cursor-not-allowed disabled:opacity-50 ${pad} ${styles[variant]}`;
 }
 
-export function Button({ variant = "primary", size = "md", className = "", ...props }: ButtonHTMLAttributes<HTMLButtonElement> & { variant?: Variant; size?: "sm" | "md" }) {
+export function Button({
+  variant = "primary",
+  size = "md",
+  className = "",
+  ...props
+}: ButtonHTMLAttributes<HTMLButtonElement> & { variant?: Variant; size?: "sm" | "md" }) {
   return <button type="button" {...props} className={`${buttonClass(variant, size)} ${className}`} />;
 }
 
-export function LinkButton({ variant = "primary", size = "md", className = "", ...props }: ComponentProps<typeof Link> & { variant?: Variant; size?: "sm" | "md" }) {
+export function LinkButton({
+  variant = "primary",
+  size = "md",
+  className = "",
+  ...props
+}: ComponentProps<typeof Link> & { variant?: Variant; size?: "sm" | "md" }) {
   return <Link {...props} className={`${buttonClass(variant, size)} ${className}`} />;
 }

@@ -28,7 +28,16 @@ export interface DataTableProps<T> {
   refreshKey?: number;
 }
 
-export function DataTable<T>({ url, columns, defaultSort, pageSize = 25, filterPlaceholder = "Filter…", empty, testId, refreshKey = 0 }: DataTableProps<T>) {
+export function DataTable<T>({
+  url,
+  columns,
+  defaultSort,
+  pageSize = 25,
+  filterPlaceholder = "Filter…",
+  empty,
+  testId,
+  refreshKey = 0,
+}: DataTableProps<T>) {
   const [sorting, setSorting] = useState<SortingState>([defaultSort]);
   const [page, setPage] = useState(1);
   const [filter, setFilter] = useState("");
@@ -49,7 +58,12 @@ export function DataTable<T>({ url, columns, defaultSort, pageSize = 25, filterP
   // Sorting happens on the server by column id; TanStack only lets a column sort when it has an
   // accessor, so give every column one that reads the field of the same name.
   const sortableColumns = useMemo(
-    () => columns.map((c) => ("accessorFn" in c || "accessorKey" in c ? c : ({ accessorFn: (row: T) => (row as Record<string, unknown>)[c.id!], ...c } as ColumnDef<T, unknown>))),
+    () =>
+      columns.map((c) =>
+        "accessorFn" in c || "accessorKey" in c
+          ? c
+          : ({ accessorFn: (row: T) => (row as Record<string, unknown>)[c.id!], ...c } as ColumnDef<T, unknown>),
+      ),
     [columns],
   );
   const table = useReactTable({
@@ -69,11 +83,21 @@ export function DataTable<T>({ url, columns, defaultSort, pageSize = 25, filterP
   return (
     <div className="space-y-3" data-testid={testId}>
       <div className="flex items-center justify-between gap-3">
-        <input value={filter} onChange={(e) => setFilter(e.target.value)} placeholder={filterPlaceholder} aria-label="Filter rows" className="w-64 rounded-md border border-rule bg-card px-3 py-1.5 text-sm focus:border-moss focus:outline-none" />
-        <span className="num text-xs text-ink-soft">{data ? `${data.total} row${data.total === 1 ? "" : "s"}` : isLoading ? "loading…" : ""}</span>
+        <input
+          value={filter}
+          onChange={(e) => setFilter(e.target.value)}
+          placeholder={filterPlaceholder}
+          aria-label="Filter rows"
+          className="w-64 rounded-md border border-rule bg-card px-3 py-1.5 text-sm focus:border-moss focus:outline-none"
+        />
+        <span className="num text-xs text-ink-soft">
+          {data ? `${data.total} row${data.total === 1 ? "" : "s"}` : isLoading ? "loading…" : ""}
+        </span>
       </div>
       {error ? (
-        <div className="rounded-md border border-brick/40 bg-brick-soft px-3 py-2 text-sm text-brick">{(error as Error).message}</div>
+        <div className="rounded-md border border-brick/40 bg-brick-soft px-3 py-2 text-sm text-brick">
+          {(error as Error).message}
+        </div>
       ) : data && data.total === 0 && !q ? (
         empty
       ) : (
@@ -88,7 +112,12 @@ export function DataTable<T>({ url, columns, defaultSort, pageSize = 25, filterP
                     return (
                       <th key={h.id} className="px-3 py-2 font-medium">
                         {canSort ? (
-                          <button type="button" onClick={h.column.getToggleSortingHandler()} className="inline-flex items-center gap-1 hover:text-ink" data-testid={`sort-${h.column.id}`}>
+                          <button
+                            type="button"
+                            onClick={h.column.getToggleSortingHandler()}
+                            className="inline-flex items-center gap-1 hover:text-ink"
+                            data-testid={`sort-${h.column.id}`}
+                          >
                             {flexRender(h.column.columnDef.header, h.getContext())}
                             <span aria-hidden>{dir === "asc" ? "▲" : dir === "desc" ? "▼" : "↕"}</span>
                           </button>
@@ -124,13 +153,24 @@ export function DataTable<T>({ url, columns, defaultSort, pageSize = 25, filterP
       )}
       {data && data.total > data.pageSize && (
         <div className="flex items-center justify-end gap-2 text-sm">
-          <button type="button" className="rounded border border-rule px-2 py-1 disabled:opacity-40" disabled={page <= 1} onClick={() => setPage(page - 1)}>
+          <button
+            type="button"
+            className="rounded border border-rule px-2 py-1 disabled:opacity-40"
+            disabled={page <= 1}
+            onClick={() => setPage(page - 1)}
+          >
             ← Previous
           </button>
           <span className="num text-ink-soft">
             page {page} of {pages}
           </span>
-          <button type="button" className="rounded border border-rule px-2 py-1 disabled:opacity-40" disabled={page >= pages} onClick={() => setPage(page + 1)} data-testid="next-page">
+          <button
+            type="button"
+            className="rounded border border-rule px-2 py-1 disabled:opacity-40"
+            disabled={page >= pages}
+            onClick={() => setPage(page + 1)}
+            data-testid="next-page"
+          >
             Next →
           </button>
         </div>

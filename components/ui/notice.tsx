@@ -1,4 +1,12 @@
-export function Notice({ tone = "info", children, testId }: { tone?: "info" | "error" | "success" | "warning"; children: React.ReactNode; testId?: string }) {
+export function Notice({
+  tone = "info",
+  children,
+  testId,
+}: {
+  tone?: "info" | "error" | "success" | "warning";
+  children: React.ReactNode;
+  testId?: string;
+}) {
   const cls = {
     info: "border-rule bg-card text-ink",
     error: "border-brick/40 bg-brick-soft text-brick",

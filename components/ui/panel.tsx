@@ -1,4 +1,14 @@
-export function Panel({ title, actions, children, className = "" }: { title?: React.ReactNode; actions?: React.ReactNode; children: React.ReactNode; className?: string }) {
+export function Panel({
+  title,
+  actions,
+  children,
+  className = "",
+}: {
+  title?: React.ReactNode;
+  actions?: React.ReactNode;
+  children: React.ReactNode;
+  className?: string;
+}) {
   return (
     <section className={`rounded-lg border border-rule bg-card ${className}`}>
       {(title || actions) && (
@@ -12,7 +22,17 @@ export function Panel({ title, actions, children, className = "" }: { title?: Re
   );
 }
 
-export function PageHeader({ title, subtitle, actions, crumbs }: { title: string; subtitle?: React.ReactNode; actions?: React.ReactNode; crumbs?: React.ReactNode }) {
+export function PageHeader({
+  title,
+  subtitle,
+  actions,
+  crumbs,
+}: {
+  title: string;
+  subtitle?: React.ReactNode;
+  actions?: React.ReactNode;
+  crumbs?: React.ReactNode;
+}) {
   return (
     <div className="mb-6 flex flex-wrap items-end justify-between gap-4">
       <div>
@@ -27,14 +47,23 @@ export function PageHeader({ title, subtitle, actions, crumbs }: { title: string
 
 export function EmptyState({ title, children }: { title: string; children?: React.ReactNode }) {
   return (
-    <div className="rounded-lg border border-dashed border-rule bg-paper px-6 py-10 text-center" data-testid="empty-state">
+    <div
+      className="rounded-lg border border-dashed border-rule bg-paper px-6 py-10 text-center"
+      data-testid="empty-state"
+    >
       <p className="font-medium text-ink">{title}</p>
       {children && <div className="mt-2 text-sm text-ink-soft">{children}</div>}
     </div>
   );
 }
 
-export function Badge({ children, tone = "plain" }: { children: React.ReactNode; tone?: "plain" | "moss" | "iris" | "ochre" | "brick" }) {
+export function Badge({
+  children,
+  tone = "plain",
+}: {
+  children: React.ReactNode;
+  tone?: "plain" | "moss" | "iris" | "ochre" | "brick";
+}) {
   const cls = {
     plain: "bg-paper-deep text-ink-soft",
     moss: "bg-moss-soft text-moss-dark",
@@ -42,5 +71,7 @@ export function Badge({ children, tone = "plain" }: { children: React.ReactNode;
     ochre: "bg-ochre-soft text-ochre",
     brick: "bg-brick-soft text-brick",
   }[tone];
-  return <span className={`inline-flex items-center rounded px-1.5 py-0.5 text-xs font-medium ${cls}`}>{children}</span>;
+  return (
+    <span className={`inline-flex items-center rounded px-1.5 py-0.5 text-xs font-medium ${cls}`}>{children}</span>
+  );
 }

@@ -25,11 +25,41 @@ const clamp = (v: number, lo: number, hi: number) => Math.min(hi, Math.max(lo, v
 
 export function RoiShape({ roi, width }: { roi: RoiInput; width: number }) {
   const stroke = Math.max(1, width / 300);
-  if (roi.kind === "rect") return <rect x={roi.x} y={roi.y} width={Math.max(0, roi.width)} height={Math.max(0, roi.height)} fill="#1f5c45" fillOpacity={0.12} stroke="#a8650a" strokeWidth={stroke * 2} data-testid="roi-shape" />;
-  return <polygon points={roi.points.map((p) => p.join(",")).join(" ")} fill="#1f5c45" fillOpacity={0.12} stroke="#a8650a" strokeWidth={stroke * 2} data-testid="roi-shape" />;
+  if (roi.kind === "rect")
+    return (
+      <rect
+        x={roi.x}
+        y={roi.y}
+        width={Math.max(0, roi.width)}
+        height={Math.max(0, roi.height)}
+        fill="#1f5c45"
+        fillOpacity={0.12}
+        stroke="#a8650a"
+        strokeWidth={stroke * 2}
+        data-testid="roi-shape"
+      />
+    );
+  return (
+    <polygon
+      points={roi.points.map((p) => p.join(",")).join(" ")}
+      fill="#1f5c45"
+      fillOpacity={0.12}
+      stroke="#a8650a"
+      strokeWidth={stroke * 2}
+      data-testid="roi-shape"
+    />
+  );
 }
 
-export function RoiEditor({ imageUrl, width, height, value, onChange, readOnly = false, testId = "roi-editor" }: RoiEditorProps) {
+export function RoiEditor({
+  imageUrl,
+  width,
+  height,
+  value,
+  onChange,
+  readOnly = false,
+  testId = "roi-editor",
+}: RoiEditorProps) {
   const svgRef = useRef<SVGSVGElement>(null);
   const [mode, setMode] = useState<Mode>(value?.kind === "polygon" ? "polygon" : "rect");
   const [drag, setDrag] = useState<{ x0: number; y0: number } | null>(null);
@@ -53,7 +83,13 @@ export function RoiEditor({ imageUrl, width, height, value, onChange, readOnly =
   const move = (e: React.PointerEvent) => {
     if (!drag) return;
     const [x, y] = toImage(e);
-    onChange?.({ kind: "rect", x: Math.min(x, drag.x0), y: Math.min(y, drag.y0), width: Math.abs(x - drag.x0), height: Math.abs(y - drag.y0) });
+    onChange?.({
+      kind: "rect",
+      x: Math.min(x, drag.x0),
+      y: Math.min(y, drag.y0),
+      width: Math.abs(x - drag.x0),
+      height: Math.abs(y - drag.y0),
+    });
   };
   const click = (e: React.MouseEvent) => {
     if (readOnly || mode !== "polygon") return;
@@ -85,31 +121,85 @@ export function RoiEditor({ imageUrl, width, height, value, onChange, readOnly =
         role="img"
         aria-label={`preview of the image, ${width}×${height} px, with the region of interest`}
       >
-        {imageUrl ? <image href={imageUrl} x={0} y={0} width={width} height={height} preserveAspectRatio="none" /> : <rect x={0} y={0} width={width} height={height} fill="#ece4d3" />}
+        {imageUrl ? (
+          <image href={imageUrl} x={0} y={0} width={width} height={height} preserveAspectRatio="none" />
+        ) : (
+          <rect x={0} y={0} width={width} height={height} fill="#ece4d3" />
+        )}
         {value && <RoiShape roi={value} width={width} />}
-        {draft.length > 0 && <polyline points={draft.map((p) => p.join(",")).join(" ")} fill="none" stroke="#a8650a" strokeDasharray={`${stroke * 4} ${stroke * 3}`} strokeWidth={stroke * 2} />}
-        {draft.map(([x, y], i) => <circle key={i} cx={x} cy={y} r={stroke * 3} fill="#a8650a" />)}
+        {draft.length > 0 && (
+          <polyline
+            points={draft.map((p) => p.join(",")).join(" ")}
+            fill="none"
+            stroke="#a8650a"
+            strokeDasharray={`${stroke * 4} ${stroke * 3}`}
+            strokeWidth={stroke * 2}
+          />
+        )}
+        {draft.map(([x, y], i) => (
+          <circle key={i} cx={x} cy={y} r={stroke * 3} fill="#a8650a" />
+        ))}
       </svg>
       {!readOnly && (
         <div className="space-y-2 text-sm">
           <div className="flex flex-wrap items-center gap-3">
             <span className="font-medium">Region of interest</span>
-            <label className="flex items-center gap-1"><input type="radio" name="roi-mode" checked={mode === "rect"} onChange={() => { setMode("rect"); setDraft([]); }} /> rectangle (drag)</label>
-            <label className="flex items-center gap-1"><input type="radio" name="roi-mode" checked={mode === "polygon"} onChange={() => setMode("polygon")} /> polygon (click vertices, double-click to close)</label>
-            {mode === "polygon" && draft.length >= 3 && <button type="button" className="text-moss underline" onClick={closePolygon}>Close polygon ({draft.length} points)</button>}
-            <button type="button" className="text-ink-soft underline" onClick={() => { setDraft([]); onChange?.(null); }} data-testid="roi-clear">Whole image</button>
+            <label className="flex items-center gap-1">
+              <input
+                type="radio"
+                name="roi-mode"
+                checked={mode === "rect"}
+                onChange={() => {
+                  setMode("rect");
+                  setDraft([]);
+                }}
+              />{" "}
+              rectangle (drag)
+            </label>
+            <label className="flex items-center gap-1">
+              <input type="radio" name="roi-mode" checked={mode === "polygon"} onChange={() => setMode("polygon")} />{" "}
+              polygon (click vertices, double-click to close)
+            </label>
+            {mode === "polygon" && draft.length >= 3 && (
+              <button type="button" className="text-moss underline" onClick={closePolygon}>
+                Close polygon ({draft.length} points)
+              </button>
+            )}
+            <button
+              type="button"
+              className="text-ink-soft underline"
+              onClick={() => {
+                setDraft([]);
+                onChange?.(null);
+              }}
+              data-testid="roi-clear"
+            >
+              Whole image
+            </button>
           </div>
           {mode === "rect" && (
             <div className="flex flex-wrap gap-3">
               {(["x", "y", "width", "height"] as const).map((k) => (
                 <label key={k} className="flex items-center gap-1">
                   <span className="text-ink-soft">{k} (px)</span>
-                  <input type="number" step={1} className="num w-20 rounded border border-rule bg-card px-2 py-1" aria-label={`ROI ${k} (px)`} data-testid={`roi-${k}`} value={rect ? rect[k] : ""} placeholder={k === "width" ? String(width) : k === "height" ? String(height) : "0"} onChange={(e) => setRect(k, e.target.value)} />
+                  <input
+                    type="number"
+                    step={1}
+                    className="num w-20 rounded border border-rule bg-card px-2 py-1"
+                    aria-label={`ROI ${k} (px)`}
+                    data-testid={`roi-${k}`}
+                    value={rect ? rect[k] : ""}
+                    placeholder={k === "width" ? String(width) : k === "height" ? String(height) : "0"}
+                    onChange={(e) => setRect(k, e.target.value)}
+                  />
                 </label>
               ))}
             </div>
           )}
-          <p className="text-xs text-ink-soft">Coordinates are pixels of the original image ({width}×{height} px). {value ? describeRoi(value) : "No ROI: the whole image is read."}</p>
+          <p className="text-xs text-ink-soft">
+            Coordinates are pixels of the original image ({width}×{height} px).{" "}
+            {value ? describeRoi(value) : "No ROI: the whole image is read."}
+          </p>
         </div>
       )}
     </div>

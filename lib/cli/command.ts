@@ -12,7 +12,11 @@ export interface CliCommand {
 
 /** An error the user caused (bad option, unreadable file): printed without a stack trace. */
 export class CliError extends Error {
-  constructor(message: string, public code = "bad_input", public exitCode = 2) {
+  constructor(
+    message: string,
+    public code = "bad_input",
+    public exitCode = 2,
+  ) {
     super(message);
   }
 }
@@ -21,7 +25,10 @@ export class CliError extends Error {
  * Minimal `--name value` / `--flag` parser shared by the commands.
  * Returns the options and the positional words; an option given twice keeps the last value.
  */
-export function parseOptions(args: string[], flags: string[] = []): { options: Record<string, string | true>; positional: string[] } {
+export function parseOptions(
+  args: string[],
+  flags: string[] = [],
+): { options: Record<string, string | true>; positional: string[] } {
   const options: Record<string, string | true> = {};
   const positional: string[] = [];
   for (let i = 0; i < args.length; i++) {

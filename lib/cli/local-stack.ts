@@ -22,7 +22,10 @@ export function ensureSecret(dataDir: string): string {
 function portOpen(port: number, host = "127.0.0.1"): Promise<boolean> {
   return new Promise((resolve) => {
     const s = net.connect({ port, host });
-    s.once("connect", () => { s.destroy(); resolve(true); });
+    s.once("connect", () => {
+      s.destroy();
+      resolve(true);
+    });
     s.once("error", () => resolve(false));
   });
 }
@@ -46,7 +49,11 @@ export async function startFakes(env: NodeJS.ProcessEnv): Promise<ChildProcess |
     process.stdout.write(`fake services: already running on port ${s3Port}, reusing them\n`);
     return null;
   }
-  const child = spawn(process.execPath, ["--import", "tsx", path.join(ROOT, "fake-services/run.ts")], { cwd: ROOT, env, stdio: ["ignore", "inherit", "inherit"] });
+  const child = spawn(process.execPath, ["--import", "tsx", path.join(ROOT, "fake-services/run.ts")], {
+    cwd: ROOT,
+    env,
+    stdio: ["ignore", "inherit", "inherit"],
+  });
   await waitForPort(s3Port, "fake object storage");
   await waitForPort(portOf(config.smtp.url), "fake mail server");
   return child;
@@ -54,7 +61,13 @@ export async function startFakes(env: NodeJS.ProcessEnv): Promise<ChildProcess |
 
 /** What counts as source for the build: these folders and root files, by extension. */
 const SOURCE_DIRS = ["app", "components", "lib", "models", "storage", "migrations"];
-const SOURCE_ROOT_FILES = ["package.json", "package-lock.json", "next.config.ts", "tsconfig.json", "postcss.config.mjs"];
+const SOURCE_ROOT_FILES = [
+  "package.json",
+  "package-lock.json",
+  "next.config.ts",
+  "tsconfig.json",
+  "postcss.config.mjs",
+];
 const SOURCE_EXTENSIONS = /\.(ts|tsx|js|mjs|cjs|css|json|svg|png|woff2?)$/;
 /** Run-time data that lives beside the sources (the data folders, the fakes' files): never source. */
 const DATA_DIRS = [/^storage\/data/, /^storage\/objects$/, /^storage\/mail$/];
@@ -90,7 +103,9 @@ export function buildIsStale(root = ROOT): boolean {
 export function run(cmd: string, args: string[], env: NodeJS.ProcessEnv): Promise<void> {
   return new Promise((resolve, reject) => {
     const child = spawn(cmd, args, { cwd: ROOT, env, stdio: "inherit" });
-    child.once("exit", (code) => (code === 0 ? resolve() : reject(new Error(`${cmd} ${args.join(" ")} exited with ${code}`))));
+    child.once("exit", (code) =>
+      code === 0 ? resolve() : reject(new Error(`${cmd} ${args.join(" ")} exited with ${code}`)),
+    );
   });
 }
 
@@ -119,7 +134,11 @@ export function appEnv(): NodeJS.ProcessEnv {
  * stops both, and the process exits with Next's exit code.
  */
 export function serveNext(mode: "start" | "dev", env: NodeJS.ProcessEnv, fakes: ChildProcess | null): ChildProcess {
-  const app = spawn(process.execPath, [nextBin(), mode, "-H", "127.0.0.1", "-p", env.PORT ?? "3000"], { cwd: ROOT, env, stdio: "inherit" });
+  const app = spawn(process.execPath, [nextBin(), mode, "-H", "127.0.0.1", "-p", env.PORT ?? "3000"], {
+    cwd: ROOT,
+    env,
+    stdio: "inherit",
+  });
   const stop = () => {
     app.kill("SIGTERM");
     fakes?.kill("SIGTERM");

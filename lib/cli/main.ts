@@ -22,7 +22,13 @@ async function loadCommands(): Promise<Map<string, CliCommand>> {
 }
 
 function printHelp(commands: Map<string, CliCommand>) {
-  const lines = ["Morphokin command line", "", "Usage: npm run -s cli -- <command> [options] [--json]", "", "Commands:"];
+  const lines = [
+    "Morphokin command line",
+    "",
+    "Usage: npm run -s cli -- <command> [options] [--json]",
+    "",
+    "Commands:",
+  ];
   for (const c of [...commands.values()].sort((a, b) => a.name.localeCompare(b.name))) {
     lines.push(`  ${c.name.padEnd(16)} ${c.summary}`);
   }
@@ -48,13 +54,19 @@ async function main(argv: string[]) {
   }
   const json = rest.includes("--json");
   try {
-    const result = await command.run(rest.filter((a) => a !== "--json"), { json });
+    const result = await command.run(
+      rest.filter((a) => a !== "--json"),
+      { json },
+    );
     if (json) process.stdout.write(JSON.stringify(result.json) + "\n");
     else process.stdout.write((result.text ?? JSON.stringify(result.json, null, 2)).trimEnd() + "\n");
     return 0;
   } catch (err) {
     const message = err instanceof Error ? err.message : String(err);
-    if (json) process.stderr.write(JSON.stringify({ error: { code: err instanceof CliError ? err.code : "failed", message } }) + "\n");
+    if (json)
+      process.stderr.write(
+        JSON.stringify({ error: { code: err instanceof CliError ? err.code : "failed", message } }) + "\n",
+      );
     else process.stderr.write(`error: ${message}\n`);
     return err instanceof CliError ? err.exitCode : 1;
   }

@@ -8,7 +8,9 @@ async function main() {
   const db = createDatabase(config.databasePath, { migrate: false });
   await db.ready;
   const applied = await migrateUp(db.sequelize);
-  process.stdout.write(applied.length ? `applied: ${applied.join(", ")}\n` : `database ${config.databasePath} is up to date\n`);
+  process.stdout.write(
+    applied.length ? `applied: ${applied.join(", ")}\n` : `database ${config.databasePath} is up to date\n`,
+  );
   await db.sequelize.close();
 }
 

@@ -7,10 +7,16 @@ import { seedDemo } from "./seed-demo";
 
 async function main() {
   const env = appEnv();
-  Object.assign(process.env, { NEXTAUTH_URL: env.NEXTAUTH_URL, DEV_MAILBOX_URL: env.DEV_MAILBOX_URL, MORPHOKIN_DEV_MAILBOX: env.MORPHOKIN_DEV_MAILBOX });
+  Object.assign(process.env, {
+    NEXTAUTH_URL: env.NEXTAUTH_URL,
+    DEV_MAILBOX_URL: env.DEV_MAILBOX_URL,
+    MORPHOKIN_DEV_MAILBOX: env.MORPHOKIN_DEV_MAILBOX,
+  });
   const fakes = await startFakes(env);
   const seeded = await seedDemo();
-  process.stdout.write(seeded ? "demo data: seeded the demo lab (see README for the accounts)\n" : "demo data: already present\n");
+  process.stdout.write(
+    seeded ? "demo data: seeded the demo lab (see README for the accounts)\n" : "demo data: already present\n",
+  );
   if (buildIsStale()) {
     process.stdout.write("building the app (next build)…\n");
     await run(process.execPath, [nextBin(), "build"], env);

@@ -2,8 +2,14 @@ import { z } from "zod";
 
 export const PASSWORD_MIN = 10;
 
-export const emailSchema = z.email("enter a valid e-mail address").max(254).transform((s) => s.trim().toLowerCase());
-export const passwordSchema = z.string().min(PASSWORD_MIN, `at least ${PASSWORD_MIN} characters`).max(200, "at most 200 characters");
+export const emailSchema = z
+  .email("enter a valid e-mail address")
+  .max(254)
+  .transform((s) => s.trim().toLowerCase());
+export const passwordSchema = z
+  .string()
+  .min(PASSWORD_MIN, `at least ${PASSWORD_MIN} characters`)
+  .max(200, "at most 200 characters");
 
 export const signupSchema = z.object({
   name: z.string().trim().min(1, "enter your name").max(120),
@@ -44,7 +50,10 @@ export const tokenCreateSchema = z.object({
   name: z.string().trim().min(1, "give the token a name").max(80, "at most 80 characters"),
   expiresInDays: z
     .number({ error: "“Expires after” must be a number of days: 30, 90 or 365" })
-    .refine((d) => (TOKEN_LIFETIMES_DAYS as readonly number[]).includes(d), "“Expires after” must be 30, 90 or 365 days")
+    .refine(
+      (d) => (TOKEN_LIFETIMES_DAYS as readonly number[]).includes(d),
+      "“Expires after” must be 30, 90 or 365 days",
+    )
     .optional(),
 });
 

@@ -50,7 +50,10 @@ export const threadFilterSchema = z
     targetId: uuid("targetId").optional(),
     status: z.enum(THREAD_STATUSES, `must be “open” or “resolved”`).optional(),
   })
-  .refine((f) => (f.targetType === undefined) === (f.targetId === undefined), { message: "give targetType and targetId together", path: ["targetId"] });
+  .refine((f) => (f.targetType === undefined) === (f.targetId === undefined), {
+    message: "give targetType and targetId together",
+    path: ["targetId"],
+  });
 export type ThreadFilter = z.infer<typeof threadFilterSchema>;
 
 export interface DiscussionTarget {

@@ -17,7 +17,10 @@ const finite = (what: string) => z.number(`${what} must be a finite number`);
 const positive = (what: string) => finite(what).positive(`${what} must be above 0`);
 
 export const MEASUREMENT_KINDS = ["fourier", "nearest-neighbour"] as const;
-const kind = z.enum(MEASUREMENT_KINDS, 'kind must be "fourier" (a Fourier wavelength) or "nearest-neighbour" (spacing of hexagonal spots)');
+const kind = z.enum(
+  MEASUREMENT_KINDS,
+  'kind must be "fourier" (a Fourier wavelength) or "nearest-neighbour" (spacing of hexagonal spots)',
+);
 
 /** The tissue's size in µm, so only its admissible modes count (zero-flux boundaries). */
 export const fitDomainSchema = z.discriminatedUnion(
@@ -38,7 +41,12 @@ export const fitDatumSchema = z
   .object({
     readoutId: z.uuid("readoutId must be a readout id").optional(),
     /** Condition label; for a readout, its specimen's condition unless given. */
-    condition: z.string("condition must be text").trim().min(1, "condition must not be empty").max(120, "condition: at most 120 characters").optional(),
+    condition: z
+      .string("condition must be text")
+      .trim()
+      .min(1, "condition must not be empty")
+      .max(120, "condition: at most 120 characters")
+      .optional(),
     kind: kind.optional(),
     wavelengthUm: positive("wavelengthUm (µm)").optional(),
     uncertaintyUm: positive("uncertaintyUm (µm)").optional(),
@@ -67,13 +75,21 @@ export const parameterSettingSchema = z.discriminatedUnion(
 export const fitModelSchema = z
   .object({
     /** A catalogue id (e.g. `schnakenberg`) or a lab kinetics id. */
-    kinetics: z.string("kinetics must be a catalogue id or a lab kinetics id").min(1, "name the kinetics").max(64, "kinetics: at most 64 characters"),
+    kinetics: z
+      .string("kinetics must be a catalogue id or a lab kinetics id")
+      .min(1, "name the kinetics")
+      .max(64, "kinetics: at most 64 characters"),
     /** Lab kinetics: the version fitted (default: the latest, recorded). */
     version: z.number().int("version must be a whole number").min(1, "version must be 1 or more").optional(),
     label: z.string().trim().min(1).max(80, "label: at most 80 characters").optional(),
     lengthScaleUm: positive("lengthScaleUm (µm)").optional(),
     timeScaleS: positive("timeScaleS (s)").optional(),
-    gridSize: z.number().int("gridSize must be a whole number").min(32, "gridSize must be at least 32").max(1000, "gridSize must be at most 1000").optional(),
+    gridSize: z
+      .number()
+      .int("gridSize must be a whole number")
+      .min(32, "gridSize must be at least 32")
+      .max(1000, "gridSize must be at most 1000")
+      .optional(),
     /** Settings by parameter name; parameters left out stay fixed at their defaults. */
     parameters: z.record(z.string().min(1).max(32), parameterSettingSchema, "parameters must map names to settings"),
   })
@@ -95,15 +111,22 @@ export const fitOptionsSchema = z
 export const fitCreateSchema = z
   .object({
     name: z.string("name the fit").trim().min(1, "name the fit").max(200, "name: at most 200 characters"),
-    data: z.array(fitDatumSchema, "data must be a list of measurements").max(MAX_FIT_DATA, `data: at most ${MAX_FIT_DATA} measurements`),
-    models: z.array(fitModelSchema, "models must be a list of kinetics").min(1, "models: choose at least one kinetics").max(MAX_FIT_MODELS, `models: at most ${MAX_FIT_MODELS} kinetics in one comparison`),
+    data: z
+      .array(fitDatumSchema, "data must be a list of measurements")
+      .max(MAX_FIT_DATA, `data: at most ${MAX_FIT_DATA} measurements`),
+    models: z
+      .array(fitModelSchema, "models must be a list of kinetics")
+      .min(1, "models: choose at least one kinetics")
+      .max(MAX_FIT_MODELS, `models: at most ${MAX_FIT_MODELS} kinetics in one comparison`),
     options: fitOptionsSchema.optional(),
     /**
      * `per-readout` (default): each readout weighs by its own uncertainty. `with-specimen-spread`:
      * the sample SD of each condition's replicate specimens is added in quadrature, so biological
      * variation between specimens counts too.
      */
-    uncertainty: z.enum(["per-readout", "with-specimen-spread"], 'uncertainty must be "per-readout" or "with-specimen-spread"').optional(),
+    uncertainty: z
+      .enum(["per-readout", "with-specimen-spread"], 'uncertainty must be "per-readout" or "with-specimen-spread"')
+      .optional(),
   })
   .strict();
 export type FitCreateInput = z.input<typeof fitCreateSchema>;

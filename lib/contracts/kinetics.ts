@@ -25,7 +25,13 @@ const finite = (what: string) => z.number(`${what} must be a finite number (text
 const positive = (what: string) => finite(what).positive(`${what} must be above 0`);
 
 const optionalText = (max: number) =>
-  z.string().trim().max(max, `at most ${max} characters`).optional().nullable().transform((s) => (s ? s : null));
+  z
+    .string()
+    .trim()
+    .max(max, `at most ${max} characters`)
+    .optional()
+    .nullable()
+    .transform((s) => (s ? s : null));
 
 export const labKineticsCreateSchema = z.object({
   description: optionalText(5000),
@@ -37,8 +43,15 @@ export type LabKineticsInput = z.input<typeof labKineticsCreateSchema>;
 
 /** Which kinetics: a catalogue id (e.g. `schnakenberg`) or a lab kinetics id, at a version (default: latest). */
 const kineticsRef = {
-  kinetics: z.string("kinetics must be a catalogue id or a lab kinetics id").min(1, "name the kinetics (a catalogue id or a lab kinetics id)").max(64, "kinetics: at most 64 characters"),
-  version: z.number("version must be a whole number").int("version must be a whole number").min(1, "version must be 1 or more").optional(),
+  kinetics: z
+    .string("kinetics must be a catalogue id or a lab kinetics id")
+    .min(1, "name the kinetics (a catalogue id or a lab kinetics id)")
+    .max(64, "kinetics: at most 64 characters"),
+  version: z
+    .number("version must be a whole number")
+    .int("version must be a whole number")
+    .min(1, "version must be 1 or more")
+    .optional(),
   parameters: z.record(z.string().max(32), finite("each parameter value")).optional(),
   lengthScaleUm: positive("lengthScaleUm (µm)").optional(),
   timeScaleS: positive("timeScaleS (s)").optional(),
@@ -60,7 +73,12 @@ export type DomainInput = z.infer<typeof domainSchema>;
 export const dispersionRequestSchema = z.object({
   ...kineticsRef,
   domain: domainSchema.optional(),
-  gridSize: z.number().int("gridSize must be a whole number").min(16, "gridSize must be at least 16").max(MAX_DISPERSION_GRID, `gridSize must be at most ${MAX_DISPERSION_GRID}`).optional(),
+  gridSize: z
+    .number()
+    .int("gridSize must be a whole number")
+    .min(16, "gridSize must be at least 16")
+    .max(MAX_DISPERSION_GRID, `gridSize must be at most ${MAX_DISPERSION_GRID}`)
+    .optional(),
 });
 export type DispersionRequest = z.infer<typeof dispersionRequestSchema>;
 
@@ -68,7 +86,10 @@ const axis = z.object({
   name: z.string("name the parameter of this axis").min(1).max(32),
   min: finite("axis min"),
   max: finite("axis max"),
-  n: z.number("n must be a whole number of cells").int("n must be a whole number of cells").min(2, "n must be at least 2"),
+  n: z
+    .number("n must be a whole number of cells")
+    .int("n must be a whole number of cells")
+    .min(2, "n must be at least 2"),
   scale: z.enum(["linear", "log"], 'scale must be "linear" or "log"').optional(),
 });
 
@@ -76,8 +97,17 @@ export const turingMapRequestSchema = z.object({
   ...kineticsRef,
   x: axis,
   y: axis,
-  wavenumbers: z.number().int("wavenumbers must be a whole number").min(16, "wavenumbers must be at least 16").optional(),
-  target: z.object({ wavelength: positive("target.wavelength"), tolerance: finite("target.tolerance").min(0, "target.tolerance must be 0 or more") }).optional(),
+  wavenumbers: z
+    .number()
+    .int("wavenumbers must be a whole number")
+    .min(16, "wavenumbers must be at least 16")
+    .optional(),
+  target: z
+    .object({
+      wavelength: positive("target.wavelength"),
+      tolerance: finite("target.tolerance").min(0, "target.tolerance must be 0 or more"),
+    })
+    .optional(),
 });
 export type TuringMapRequest = z.infer<typeof turingMapRequestSchema>;
 
@@ -91,7 +121,12 @@ export const gradientProfileSchema = z.discriminatedUnion(
   "kind",
   [
     z.object({ kind: z.literal("linear"), from: finite("profile.from"), to: finite("profile.to") }),
-    z.object({ kind: z.literal("exponential"), source: finite("profile.source"), decayLength: positive("profile.decayLength"), floor: finite("profile.floor").optional() }),
+    z.object({
+      kind: z.literal("exponential"),
+      source: finite("profile.source"),
+      decayLength: positive("profile.decayLength"),
+      floor: finite("profile.floor").optional(),
+    }),
     /** A pasted table: one `position,value` pair per line (a header line is allowed). */
     z.object({ kind: z.literal("table"), text: z.string().max(200_000, "profile.text: at most 200000 characters") }),
   ],

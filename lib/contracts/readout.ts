@@ -5,49 +5,92 @@
  */
 import { z } from "zod";
 
-const px = (what: string) => z.number(`${what} must be a number of pixels`).finite(`${what} must be a finite number of pixels`);
+const px = (what: string) =>
+  z.number(`${what} must be a number of pixels`).finite(`${what} must be a finite number of pixels`);
 
-export const rectRoiSchema = z.object({
-  kind: z.literal("rect"),
-  x: px("roi.x"),
-  y: px("roi.y"),
-  width: px("roi.width"),
-  height: px("roi.height"),
-}).strict();
+export const rectRoiSchema = z
+  .object({
+    kind: z.literal("rect"),
+    x: px("roi.x"),
+    y: px("roi.y"),
+    width: px("roi.width"),
+    height: px("roi.height"),
+  })
+  .strict();
 
-export const polygonRoiSchema = z.object({
-  kind: z.literal("polygon"),
-  points: z.array(z.tuple([px("roi point x"), px("roi point y")]), "roi.points must be a list of [x, y] pixel pairs").max(500, "roi.points: at most 500 vertices"),
-}).strict();
+export const polygonRoiSchema = z
+  .object({
+    kind: z.literal("polygon"),
+    points: z
+      .array(z.tuple([px("roi point x"), px("roi point y")]), "roi.points must be a list of [x, y] pixel pairs")
+      .max(500, "roi.points: at most 500 vertices"),
+  })
+  .strict();
 
-export const roiSchema = z.discriminatedUnion("kind", [rectRoiSchema, polygonRoiSchema], "roi.kind must be \"rect\" or \"polygon\"");
+export const roiSchema = z.discriminatedUnion(
+  "kind",
+  [rectRoiSchema, polygonRoiSchema],
+  'roi.kind must be "rect" or "polygon"',
+);
 
 /** Pixel size typed for this readout (µm/px); overrides the upload's. */
-const pixelSizeOverride = z.number("pixelSizeUm must be a number in µm/px").positive("pixelSizeUm must be above 0 µm/px").max(10_000, "pixelSizeUm must be at most 10000 µm/px").nullable().optional();
+const pixelSizeOverride = z
+  .number("pixelSizeUm must be a number in µm/px")
+  .positive("pixelSizeUm must be above 0 µm/px")
+  .max(10_000, "pixelSizeUm must be at most 10000 µm/px")
+  .nullable()
+  .optional();
 
-export const imageReadoutSettingsSchema = z.object({
-  /** Region of interest in source pixels; null = the whole image. */
-  roi: roiSchema.nullable().default(null),
-  /** Channel index from 0, or "luminance" (Rec. 709 weights). */
-  channel: z.union([z.literal("luminance"), z.number().int("channel must be a whole number").min(0, "channel must be 0 or more").max(15, "channel must be at most 15")]).default("luminance"),
-  /** Negate intensities (dark spots on a light background). */
-  invert: z.boolean("invert must be true or false").default(false),
-  /** Background flattening: fitted plane, heavy blur, or off. */
-  flatten: z.enum(["plane", "blur", "none"], "flatten must be \"plane\", \"blur\" or \"none\"").default("plane"),
-  window: z.enum(["hann", "tukey", "none"], "window must be \"hann\", \"tukey\" or \"none\"").default("hann"),
-  /** Axis of the local-wavelength profile. */
-  profileAxis: z.enum(["x", "y"], "profileAxis must be \"x\" or \"y\"").default("x"),
-  pixelSizeUm: pixelSizeOverride,
-}).strict();
+export const imageReadoutSettingsSchema = z
+  .object({
+    /** Region of interest in source pixels; null = the whole image. */
+    roi: roiSchema.nullable().default(null),
+    /** Channel index from 0, or "luminance" (Rec. 709 weights). */
+    channel: z
+      .union([
+        z.literal("luminance"),
+        z
+          .number()
+          .int("channel must be a whole number")
+          .min(0, "channel must be 0 or more")
+          .max(15, "channel must be at most 15"),
+      ])
+      .default("luminance"),
+    /** Negate intensities (dark spots on a light background). */
+    invert: z.boolean("invert must be true or false").default(false),
+    /** Background flattening: fitted plane, heavy blur, or off. */
+    flatten: z.enum(["plane", "blur", "none"], 'flatten must be "plane", "blur" or "none"').default("plane"),
+    window: z.enum(["hann", "tukey", "none"], 'window must be "hann", "tukey" or "none"').default("hann"),
+    /** Axis of the local-wavelength profile. */
+    profileAxis: z.enum(["x", "y"], 'profileAxis must be "x" or "y"').default("x"),
+    pixelSizeUm: pixelSizeOverride,
+  })
+  .strict();
 
-const column = (what: string) => z.string(`${what} must be a column name`).trim().min(1, `${what} must name a column`).max(200, `${what}: at most 200 characters`).optional();
+const column = (what: string) =>
+  z
+    .string(`${what} must be a column name`)
+    .trim()
+    .min(1, `${what} must name a column`)
+    .max(200, `${what}: at most 200 characters`)
+    .optional();
 
-export const tableReadoutSettingsSchema = z.object({
-  columns: z.object({ x: column("columns.x"), y: column("columns.y"), position: column("columns.position"), spacing: column("columns.spacing") }).strict().optional(),
-  /** Unit of the table's numbers; "px" needs a pixel size. */
-  unit: z.enum(["um", "nm", "mm", "px"], "unit must be \"um\", \"nm\", \"mm\" or \"px\"").optional(),
-  pixelSizeUm: pixelSizeOverride,
-}).strict();
+export const tableReadoutSettingsSchema = z
+  .object({
+    columns: z
+      .object({
+        x: column("columns.x"),
+        y: column("columns.y"),
+        position: column("columns.position"),
+        spacing: column("columns.spacing"),
+      })
+      .strict()
+      .optional(),
+    /** Unit of the table's numbers; "px" needs a pixel size. */
+    unit: z.enum(["um", "nm", "mm", "px"], 'unit must be "um", "nm", "mm" or "px"').optional(),
+    pixelSizeUm: pixelSizeOverride,
+  })
+  .strict();
 
 export type ImageReadoutSettingsInput = z.input<typeof imageReadoutSettingsSchema>;
 export type ImageReadoutSettings = z.output<typeof imageReadoutSettingsSchema>;
@@ -59,7 +102,11 @@ export type RoiInput = z.infer<typeof roiSchema>;
 export const comparisonQuerySchema = z.object({
   a: z.string().trim().max(120, "a: at most 120 characters").optional(),
   b: z.string().trim().max(120, "b: at most 120 characters").optional(),
-  replicate: z.enum(["specimen", "image"], { message: "replicate: choose “specimen” (biological replicates, the default) or “image”" }).optional(),
+  replicate: z
+    .enum(["specimen", "image"], {
+      message: "replicate: choose “specimen” (biological replicates, the default) or “image”",
+    })
+    .optional(),
 });
 
 /** Derived products a finished image readout stores next to the original. */

@@ -1,7 +1,13 @@
 import { z } from "zod";
 
 const optionalText = (max: number) =>
-  z.string().trim().max(max, `at most ${max} characters`).optional().nullable().transform((s) => (s ? s : null));
+  z
+    .string()
+    .trim()
+    .max(max, `at most ${max} characters`)
+    .optional()
+    .nullable()
+    .transform((s) => (s ? s : null));
 
 export const studyCreateSchema = z.object({
   name: z.string().trim().min(1, "give the study a name").max(200, "at most 200 characters"),

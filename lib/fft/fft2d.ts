@@ -11,7 +11,8 @@ export function fft2dInPlace(data: Float64Array, width: number, height: number, 
   }
   const row = getPlan(width);
   for (let y = 0; y < height; y++) {
-    const off = 2 * y * width, a = row.a;
+    const off = 2 * y * width,
+      a = row.a;
     for (let i = 0; i < 2 * width; i++) a[i] = data[off + i];
     if (inverse) row.fft.inverseTransform(row.b, a);
     else row.fft.transform(row.b, a);
@@ -28,7 +29,13 @@ const BLOCK = 8;
  * `stride` complex values. Shared by the full and the half-spectrum (real-input) transforms.
  * Columns are gathered in blocks so each row's cache line is read once per block, not per column.
  */
-export function transformColumns(data: Float64Array, stride: number, height: number, columns: number, inverse: boolean): void {
+export function transformColumns(
+  data: Float64Array,
+  stride: number,
+  height: number,
+  columns: number,
+  inverse: boolean,
+): void {
   const col = getPlan(height);
   // One input and one output array per gathered column, all of fft.js's own kind (plans.ts).
   const gathered = Array.from({ length: BLOCK }, () => col.fft.createComplexArray() as number[]);

@@ -21,9 +21,17 @@ export interface HalfSpectrum {
  * `width × height` transform (zero padding). Rows are transformed two at a time (one complex transform
  * per pair of real rows), then the columns of the half spectrum.
  */
-export function realFft2d(src: Float32Array | Float64Array, srcWidth: number, srcHeight: number, width: number, height: number): HalfSpectrum {
-  if (src.length !== srcWidth * srcHeight) throw new RangeError(`src must hold srcWidth·srcHeight = ${srcWidth * srcHeight} values (got ${src.length}).`);
-  if (srcWidth > width || srcHeight > height) throw new RangeError(`the image (${srcWidth}×${srcHeight}) must fit in the transform (${width}×${height}).`);
+export function realFft2d(
+  src: Float32Array | Float64Array,
+  srcWidth: number,
+  srcHeight: number,
+  width: number,
+  height: number,
+): HalfSpectrum {
+  if (src.length !== srcWidth * srcHeight)
+    throw new RangeError(`src must hold srcWidth·srcHeight = ${srcWidth * srcHeight} values (got ${src.length}).`);
+  if (srcWidth > width || srcHeight > height)
+    throw new RangeError(`the image (${srcWidth}×${srcHeight}) must fit in the transform (${width}×${height}).`);
   const halfWidth = width / 2 + 1;
   const data = new Float64Array(2 * halfWidth * height);
   const plan = getPlan(width);
@@ -42,7 +50,10 @@ export function realFft2d(src: Float32Array | Float64Array, srcWidth: number, sr
     const o2 = o1 + 2 * halfWidth;
     for (let k = 0; k < halfWidth; k++) {
       const m = k === 0 ? 0 : width - k;
-      const zr = b[2 * k], zi = b[2 * k + 1], wr = b[2 * m], wi = b[2 * m + 1];
+      const zr = b[2 * k],
+        zi = b[2 * k + 1],
+        wr = b[2 * m],
+        wi = b[2 * m + 1];
       data[o1 + 2 * k] = 0.5 * (zr + wr);
       data[o1 + 2 * k + 1] = 0.5 * (zi - wi);
       if (second) {
@@ -71,7 +82,10 @@ export function inverseRealFft2d(spectrum: HalfSpectrum): Float64Array {
     const o1 = 2 * y * halfWidth;
     const o2 = o1 + 2 * halfWidth;
     for (let k = 0; k < halfWidth; k++) {
-      const r1 = work[o1 + 2 * k], i1 = work[o1 + 2 * k + 1], r2 = work[o2 + 2 * k], i2 = work[o2 + 2 * k + 1];
+      const r1 = work[o1 + 2 * k],
+        i1 = work[o1 + 2 * k + 1],
+        r2 = work[o2 + 2 * k],
+        i2 = work[o2 + 2 * k + 1];
       a[2 * k] = r1 - i2;
       a[2 * k + 1] = i1 + r2;
       if (k > 0 && k < width / 2) {

@@ -48,18 +48,30 @@ export interface FitAnalysis {
 }
 
 /** Looser tolerances for the many re-optimisations inside profiles and valleys. */
-const INNER_POLISH = { maxIterations: 100, relativeReduction: 1e-9, stepTolerance: 1e-7, gradientTolerance: 1e-7, initialDamping: 1e-3, divergenceFactor: 1e12 };
+const INNER_POLISH = {
+  maxIterations: 100,
+  relativeReduction: 1e-9,
+  stepTolerance: 1e-7,
+  gradientTolerance: 1e-7,
+  initialDamping: 1e-3,
+  divergenceFactor: 1e12,
+};
 
 /**
  * Statistics of a solved problem (SCIENCE.md §7): covariance (JᵀWJ)⁻¹ and standard errors,
  * χ² and reduced χ², AICc and BIC, 95 % profile-likelihood intervals, identifiability, and
  * for a non-identifiable fit the valley of equally good solutions.
  */
-export function analyseFit(problem: LeastSquaresProblem, solution: LeastSquaresResult, options: AnalysisOptions = {}): FitAnalysis {
+export function analyseFit(
+  problem: LeastSquaresProblem,
+  solution: LeastSquaresResult,
+  options: AnalysisOptions = {},
+): FitAnalysis {
   const p = problem.parameterCount;
   const n = problem.residualCount;
   const names = options.names ?? Array.from({ length: p }, (_, j) => `θ${j + 1}`);
-  if (names.length !== p) throw badOption("names", `names must hold ${p} entries (one per parameter); got ${names.length}.`);
+  if (names.length !== p)
+    throw badOption("names", `names must hold ${p} entries (one per parameter); got ${names.length}.`);
   const valleyPoints = options.valleyPoints ?? 21;
   if (!Number.isInteger(valleyPoints) || valleyPoints < 0 || (valleyPoints > 0 && valleyPoints < 3))
     throw badOption("valleyPoints", `valleyPoints must be 0 or an integer of at least 3; got ${valleyPoints}.`);
@@ -71,9 +83,16 @@ export function analyseFit(problem: LeastSquaresProblem, solution: LeastSquaresR
   const ctx: SolverContext = { f, space, typical, polish: INNER_POLISH, jacobian };
   const Ju = (jacobian ?? ((u, r) => computeJacobian(f, u, r, space, typical)))(uHat, solution.residuals).jacobian;
   const Jtheta = Ju.clone();
-  for (let j = 0; j < p; j++) if (log[j]) for (let i = 0; i < n; i++) Jtheta.set(i, j, Ju.get(i, j) / solution.params[j]);
+  for (let j = 0; j < p; j++)
+    if (log[j]) for (let i = 0; i < n; i++) Jtheta.set(i, j, Ju.get(i, j) / solution.params[j]);
   const typicalNatural = typical.map((t, j) => (log[j] ? Math.abs(solution.params[j]) : t));
-  const covariance = computeCovariance(Jtheta, solution.params, typicalNatural, solution.chiSquare, options.absoluteUncertainties ?? true);
+  const covariance = computeCovariance(
+    Jtheta,
+    solution.params,
+    typicalNatural,
+    solution.chiSquare,
+    options.absoluteUncertainties ?? true,
+  );
   const warnings: string[] = [];
   // With relative uncertainties the likelihood is in units of χ²/s², s² = χ²/(n − p), so the
   // interval threshold scales the same way as the covariance.
@@ -96,7 +115,8 @@ export function analyseFit(problem: LeastSquaresProblem, solution: LeastSquaresR
         );
     });
   }
-  for (const j of solution.atBound) warnings.push(`${names[j]} ended on its bound (${solution.params[j]}); its standard error ignores the bound.`);
+  for (const j of solution.atBound)
+    warnings.push(`${names[j]} ended on its bound (${solution.params[j]}); its standard error ignores the bound.`);
   const identifiability = assessIdentifiability(n, names, covariance, profiles, delta);
   let valley: Valley | null = null;
   if (!identifiability.identifiable && p >= 2 && valleyPoints > 0) {
@@ -130,7 +150,14 @@ function pickValleyParameter(id: Identifiability, cov: CovarianceReport): number
 }
 
 /** The box where it is finite; otherwise the range the profile explored (or ±10 typical magnitudes). */
-function valleyRange(lo: number, hi: number, u: number, typ: number, prof: ParameterProfile | undefined, log: boolean): [number, number] {
+function valleyRange(
+  lo: number,
+  hi: number,
+  u: number,
+  typ: number,
+  prof: ParameterProfile | undefined,
+  log: boolean,
+): [number, number] {
   if (Number.isFinite(lo) && Number.isFinite(hi)) return [lo, hi];
   const spread = 10 * typ;
   let a = Number.isFinite(lo) ? lo : u - spread;

@@ -59,8 +59,10 @@ function checkVector(name: string, v: readonly number[] | undefined, p: number, 
 /** Validate and default the solver options once, before any residual is evaluated. */
 export function checkSolverOptions(options: LeastSquaresOptions, parameterCount: number): CheckedSolverOptions {
   const p = parameterCount;
-  if (!Array.isArray(options.start) || options.start.length === 0) throw badOption("start", "start must hold at least one parameter value.");
-  if (options.start.length !== p) throw badOption("start", `start must hold ${p} values (one per parameter); got ${options.start.length}.`);
+  if (!Array.isArray(options.start) || options.start.length === 0)
+    throw badOption("start", "start must hold at least one parameter value.");
+  if (options.start.length !== p)
+    throw badOption("start", `start must hold ${p} values (one per parameter); got ${options.start.length}.`);
   const start = Array.from(options.start);
   start.forEach((x, j) => {
     if (!Number.isFinite(x)) throw badOption(`start[${j}]`, `start[${j}] must be a finite number; got ${x}.`);
@@ -70,17 +72,30 @@ export function checkSolverOptions(options: LeastSquaresOptions, parameterCount:
   const log = options.log === undefined ? new Array<boolean>(p).fill(false) : Array.from(options.log);
   if (log.length !== p) throw badOption("log", `log must hold ${p} flags (one per parameter); got ${log.length}.`);
   for (let j = 0; j < p; j++) {
-    if (!(lower[j] < upper[j])) throw badOption(`lower[${j}]`, `lower[${j}] (${lower[j]}) must be below upper[${j}] (${upper[j]}).`);
+    if (!(lower[j] < upper[j]))
+      throw badOption(`lower[${j}]`, `lower[${j}] (${lower[j]}) must be below upper[${j}] (${upper[j]}).`);
     if (start[j] < lower[j] || start[j] > upper[j])
-      throw badOption(`start[${j}]`, `start[${j}] (${start[j]}) must lie within [lower, upper] = [${lower[j]}, ${upper[j]}].`);
-    if (log[j] && !(start[j] > 0)) throw badOption(`start[${j}]`, `start[${j}] must be positive for a log-scaled parameter; got ${start[j]}.`);
-    if (log[j] && lower[j] < 0) throw badOption(`lower[${j}]`, `lower[${j}] must be 0 or more for a log-scaled parameter; got ${lower[j]}.`);
+      throw badOption(
+        `start[${j}]`,
+        `start[${j}] (${start[j]}) must lie within [lower, upper] = [${lower[j]}, ${upper[j]}].`,
+      );
+    if (log[j] && !(start[j] > 0))
+      throw badOption(`start[${j}]`, `start[${j}] must be positive for a log-scaled parameter; got ${start[j]}.`);
+    if (log[j] && lower[j] < 0)
+      throw badOption(`lower[${j}]`, `lower[${j}] must be 0 or more for a log-scaled parameter; got ${lower[j]}.`);
   }
   const extraStarts = (options.extraStarts ?? []).map((s, k) => {
-    if (s.length !== p) throw badOption(`extraStarts[${k}]`, `extraStarts[${k}] must hold ${p} values (one per parameter); got ${s.length}.`);
+    if (s.length !== p)
+      throw badOption(
+        `extraStarts[${k}]`,
+        `extraStarts[${k}] must hold ${p} values (one per parameter); got ${s.length}.`,
+      );
     s.forEach((x, j) => {
       if (!(x >= lower[j] && x <= upper[j]) || (log[j] && !(x > 0)))
-        throw badOption(`extraStarts[${k}]`, `extraStarts[${k}][${j}] (${x}) must lie within [lower, upper] = [${lower[j]}, ${upper[j]}].`);
+        throw badOption(
+          `extraStarts[${k}]`,
+          `extraStarts[${k}][${j}] (${x}) must lie within [lower, upper] = [${lower[j]}, ${upper[j]}].`,
+        );
     });
     return Array.from(s);
   });
@@ -92,9 +107,26 @@ export function checkSolverOptions(options: LeastSquaresOptions, parameterCount:
     throw badOption("libraryStage", `libraryStage must be "fallback", "always" or "off"; got "${libraryStage}".`);
   const polish = { ...DEFAULT_POLISH, ...options.polish };
   if (!Number.isInteger(polish.maxIterations) || polish.maxIterations < 1)
-    throw badOption("polish.maxIterations", `polish.maxIterations must be a positive integer; got ${polish.maxIterations}.`);
+    throw badOption(
+      "polish.maxIterations",
+      `polish.maxIterations must be a positive integer; got ${polish.maxIterations}.`,
+    );
   const library = { ...DEFAULT_LIBRARY_STAGE, ...options.library };
   if (!Number.isInteger(library.maxIterations) || library.maxIterations < 1)
-    throw badOption("library.maxIterations", `library.maxIterations must be a positive integer; got ${library.maxIterations}.`);
-  return { start, lower, upper, log, seededStarts, extraStarts, seed: options.seed ?? "morphokin", libraryStage, library, polish };
+    throw badOption(
+      "library.maxIterations",
+      `library.maxIterations must be a positive integer; got ${library.maxIterations}.`,
+    );
+  return {
+    start,
+    lower,
+    upper,
+    log,
+    seededStarts,
+    extraStarts,
+    seed: options.seed ?? "morphokin",
+    libraryStage,
+    library,
+    polish,
+  };
 }

@@ -36,10 +36,16 @@ export interface FitComparison {
  * @throws FitError when the list is empty, labels repeat, or the fits used different data.
  */
 export function compareFits(fits: readonly LabelledFit[]): FitComparison {
-  if (!Array.isArray(fits) || fits.length === 0) throw new FitError("bad_option", "fits must hold at least one fit; got none.", "fits");
+  if (!Array.isArray(fits) || fits.length === 0)
+    throw new FitError("bad_option", "fits must hold at least one fit; got none.", "fits");
   const seen = new Set<string>();
   fits.forEach((f, i) => {
-    if (seen.has(f.label)) throw new FitError("bad_option", `fits[${i}].label "${f.label}" is used twice; labels must be unique.`, `fits[${i}].label`);
+    if (seen.has(f.label))
+      throw new FitError(
+        "bad_option",
+        `fits[${i}].label "${f.label}" is used twice; labels must be unique.`,
+        `fits[${i}].label`,
+      );
     seen.add(f.label);
     if (f.result.dataFingerprint !== fits[0].result.dataFingerprint)
       throw new FitError(
@@ -65,8 +71,14 @@ export function compareFits(fits: readonly LabelledFit[]): FitComparison {
   rows.sort((a, b) => (a.aicc === null ? 1 : 0) - (b.aicc === null ? 1 : 0) || (a.aicc ?? a.bic) - (b.aicc ?? b.bic));
   const notes: string[] = [];
   const undefinedAicc = rows.filter((r) => r.aicc === null).map((r) => `"${r.label}"`);
-  if (undefinedAicc.length > 0) notes.push(`AICc is undefined for ${undefinedAicc.join(", ")} (n − p − 1 ≤ 0: too few measurements for the parameters); listed last, by BIC.`);
+  if (undefinedAicc.length > 0)
+    notes.push(
+      `AICc is undefined for ${undefinedAicc.join(", ")} (n − p − 1 ≤ 0: too few measurements for the parameters); listed last, by BIC.`,
+    );
   const notFitting = rows.filter((r) => r.verdict !== "fits").map((r) => `"${r.label}"`);
-  if (notFitting.length > 0) notes.push(`${notFitting.join(", ")} do not fit within the Turing region; their rank says how close they come, not that they explain the data.`);
+  if (notFitting.length > 0)
+    notes.push(
+      `${notFitting.join(", ")} do not fit within the Turing region; their rank says how close they come, not that they explain the data.`,
+    );
   return { criterion: "AICc", ranking: rows.map((r, k) => ({ rank: k + 1, ...r })), notes };
 }

@@ -52,7 +52,14 @@ export function computeCovariance(
   const nullDirections = basis.filter((_, k) => !(largest > 0) || sv[k] < SINGULAR_RATIO_LIMIT * largest);
   const scale = absolute ? 1 : n > p ? chiSquare / (n - p) : NaN;
   if (nullDirections.length > 0 || !Number.isFinite(scale)) {
-    return { covariance: null, standardErrors: new Array(p).fill(null), scale, singularValues: sv, singularRatio, nullDirections };
+    return {
+      covariance: null,
+      standardErrors: new Array(p).fill(null),
+      scale,
+      singularValues: sv,
+      singularRatio,
+      nullDirections,
+    };
   }
   const cov: number[][] = [];
   for (let a = 0; a < p; a++) {
@@ -63,7 +70,14 @@ export function computeCovariance(
       cov[a].push(s * colScale[a] * colScale[b] * scale);
     }
   }
-  return { covariance: cov, standardErrors: cov.map((row, j) => Math.sqrt(row[j])), scale, singularValues: sv, singularRatio, nullDirections };
+  return {
+    covariance: cov,
+    standardErrors: cov.map((row, j) => Math.sqrt(row[j])),
+    scale,
+    singularValues: sv,
+    singularRatio,
+    nullDirections,
+  };
 }
 
 /** With n < p the SVD returns only n right vectors; add one more orthonormal vector (Gram–Schmidt). */

@@ -26,11 +26,26 @@ export interface CurveFit {
 export function createCurveProblem(data: CurveData, model: CurveModel, parameterCount: number): LeastSquaresProblem {
   const n = data.y.length;
   if (n === 0) throw new FitError("bad_data", "data.y must hold at least one measurement; got none.", "data.y");
-  if (data.x.length !== n) throw new FitError("bad_data", `data.x must hold ${n} values (one per measurement); got ${data.x.length}.`, "data.x");
+  if (data.x.length !== n)
+    throw new FitError(
+      "bad_data",
+      `data.x must hold ${n} values (one per measurement); got ${data.x.length}.`,
+      "data.x",
+    );
   const sigma = data.sigma ? Array.from(data.sigma) : new Array<number>(n).fill(1);
-  if (sigma.length !== n) throw new FitError("bad_data", `data.sigma must hold ${n} values (one per measurement); got ${sigma.length}.`, "data.sigma");
+  if (sigma.length !== n)
+    throw new FitError(
+      "bad_data",
+      `data.sigma must hold ${n} values (one per measurement); got ${sigma.length}.`,
+      "data.sigma",
+    );
   sigma.forEach((s, i) => {
-    if (!(s > 0) || !Number.isFinite(s)) throw new FitError("bad_data", `data.sigma[${i}] must be a positive finite number; got ${s}.`, `data.sigma[${i}]`);
+    if (!(s > 0) || !Number.isFinite(s))
+      throw new FitError(
+        "bad_data",
+        `data.sigma[${i}] must be a positive finite number; got ${s}.`,
+        `data.sigma[${i}]`,
+      );
   });
   const x = Array.from(data.x);
   const y = Array.from(data.y);

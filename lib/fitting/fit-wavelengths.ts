@@ -16,7 +16,8 @@ function bestProfilePoint(profiles: readonly ParameterProfile[] | null): number[
   let best: { d: number; params: number[] } | null = null;
   for (const prof of profiles ?? []) {
     if (prof.lowerChiSquareFound === null) continue;
-    for (const pt of prof.points) if (pt.deltaChiSquare < (best?.d ?? 0)) best = { d: pt.deltaChiSquare, params: pt.params };
+    for (const pt of prof.points)
+      if (pt.deltaChiSquare < (best?.d ?? 0)) best = { d: pt.deltaChiSquare, params: pt.params };
   }
   return best?.params ?? null;
 }
@@ -25,7 +26,9 @@ function bestProfilePoint(profiles: readonly ParameterProfile[] | null): number[
 function boxDistance<T>(spec: CheckedWavelengthSpec<T>, a: readonly number[], b: readonly number[]): number {
   return Math.hypot(
     ...spec.slots.map((s, j) =>
-      s.log ? (Math.log(a[j]) - Math.log(b[j])) / (Math.log(s.upper) - Math.log(s.lower)) : (a[j] - b[j]) / (s.upper - s.lower),
+      s.log
+        ? (Math.log(a[j]) - Math.log(b[j])) / (Math.log(s.upper) - Math.log(s.lower))
+        : (a[j] - b[j]) / (s.upper - s.lower),
     ),
   );
 }
@@ -36,7 +39,9 @@ function side(s: ProfileSide): IntervalSide {
 
 /** Short FNV-1a hash of the measurements, for checking that compared fits used the same data. */
 function fingerprint(spec: WavelengthFitSpec<unknown>): string {
-  const text = JSON.stringify(spec.data.map((d) => [d.condition, d.wavelengthUm, d.uncertaintyUm, d.kind, d.domain ?? null]));
+  const text = JSON.stringify(
+    spec.data.map((d) => [d.condition, d.wavelengthUm, d.uncertaintyUm, d.kind, d.domain ?? null]),
+  );
   let h = 0x811c9dc5;
   for (let i = 0; i < text.length; i++) h = Math.imul(h ^ text.charCodeAt(i), 0x01000193) >>> 0;
   return `${spec.data.length}:${h.toString(16).padStart(8, "0")}`;
@@ -52,7 +57,10 @@ function fingerprint(spec: WavelengthFitSpec<unknown>): string {
  * intervals, goodness of fit, identifiability and a verdict.
  * @throws FitError for invalid specs and when no sampled point of the box is Turing-unstable.
  */
-export function fitWavelengths<TDomain>(spec: WavelengthFitSpec<TDomain>, predictor: WavelengthPredictor<TDomain>): WavelengthFitResult {
+export function fitWavelengths<TDomain>(
+  spec: WavelengthFitSpec<TDomain>,
+  predictor: WavelengthPredictor<TDomain>,
+): WavelengthFitResult {
   const checked = checkWavelengthSpec(spec);
   const { options, slots } = checked;
   const model = createWavelengthModel(checked, predictor);
@@ -74,16 +82,30 @@ export function fitWavelengths<TDomain>(spec: WavelengthFitSpec<TDomain>, predic
     );
   let start = samples[0].free;
   if (!samples[0].turing) {
-    const nearest = inside.reduce((a, b) => (boxDistance(checked, b.free, start) < boxDistance(checked, a.free, start) ? b : a));
-    notes.push(`The given start is outside the Turing region; the fit started from the nearest Turing point of the box sample instead.`);
+    const nearest = inside.reduce((a, b) =>
+      boxDistance(checked, b.free, start) < boxDistance(checked, a.free, start) ? b : a,
+    );
+    notes.push(
+      `The given start is outside the Turing region; the fit started from the nearest Turing point of the box sample instead.`,
+    );
     start = nearest.free;
   }
-  const byChi = (key: keyof Pick<BoxSample, "chiSquareTuring" | "chiSquareAny">) => (a: BoxSample, b: BoxSample) => a[key] - b[key];
-  const extra = inside.filter((s) => s.free !== start).sort(byChi("chiSquareTuring")).slice(0, options.seededStarts).map((s) => s.free);
+  const byChi = (key: keyof Pick<BoxSample, "chiSquareTuring" | "chiSquareAny">) => (a: BoxSample, b: BoxSample) =>
+    a[key] - b[key];
+  const extra = inside
+    .filter((s) => s.free !== start)
+    .sort(byChi("chiSquareTuring"))
+    .slice(0, options.seededStarts)
+    .map((s) => s.free);
   const bounds = { lower: slots.map((s) => s.lower), upper: slots.map((s) => s.upper), log: slots.map((s) => s.log) };
   const problem = model.problem("turing");
   const names = slots.map((s) => s.label);
-  const analysisOptions = { names, absoluteUncertainties: options.absoluteUncertainties, profiles: options.profiles, valleyPoints: options.valleyPoints };
+  const analysisOptions = {
+    names,
+    absoluteUncertainties: options.absoluteUncertainties,
+    profiles: options.profiles,
+    valleyPoints: options.valleyPoints,
+  };
   let solution = solveLeastSquares(problem, { start, extraStarts: extra, ...bounds });
   let analysis = analyseFit(problem, solution, analysisOptions);
   // A step into a non-Turing state is rejected rather than projected, so a fit whose optimum lies
@@ -94,7 +116,9 @@ export function fitWavelengths<TDomain>(spec: WavelengthFitSpec<TDomain>, predic
     if (!better) break;
     const again = solveLeastSquares(problem, { start: better, extraStarts: [solution.params], ...bounds });
     if (!(again.chiSquare < solution.chiSquare)) break;
-    notes.push(`The fit was restarted from a better point found while profiling (χ² ${again.chiSquare.toPrecision(6)} < ${solution.chiSquare.toPrecision(6)}).`);
+    notes.push(
+      `The fit was restarted from a better point found while profiling (χ² ${again.chiSquare.toPrecision(6)} < ${solution.chiSquare.toPrecision(6)}).`,
+    );
     solution = again;
     analysis = analyseFit(problem, solution, analysisOptions);
   }
@@ -116,9 +140,13 @@ export function fitWavelengths<TDomain>(spec: WavelengthFitSpec<TDomain>, predic
   const record = (free: readonly number[]) => Object.fromEntries(names.map((n, j) => [n, free[j]]));
   const judged = judgeFit(checked, model, solution, residuals, samples, record);
   warnings.push(...analysis.warnings, ...judged.warnings);
-  if (!solution.converged) warnings.push(`The solver did not converge (${solution.reason}); the numbers describe the best point it reached.`);
+  if (!solution.converged)
+    warnings.push(`The solver did not converge (${solution.reason}); the numbers describe the best point it reached.`);
   const failures = model.failures();
-  if (failures.count > 0) warnings.push(`The predictor failed ${failures.count} time(s), treated as "no prediction"; first error: ${failures.firstMessage}`);
+  if (failures.count > 0)
+    warnings.push(
+      `The predictor failed ${failures.count} time(s), treated as "no prediction"; first error: ${failures.firstMessage}`,
+    );
   const parameters: FittedParameter[] = slots.map((s, j) => {
     const prof = analysis.profiles?.[j];
     return {
@@ -148,16 +176,31 @@ export function fitWavelengths<TDomain>(spec: WavelengthFitSpec<TDomain>, predic
     aicc: analysis.aicc,
     bic: analysis.bic,
     residuals,
-    turingAtFit: Object.fromEntries(checked.conditions.map((c) => [c, residuals.filter((r) => r.condition === c).every((r) => r.turing)])),
+    turingAtFit: Object.fromEntries(
+      checked.conditions.map((c) => [c, residuals.filter((r) => r.condition === c).every((r) => r.turing)]),
+    ),
     identifiability: {
       identifiable: analysis.identifiability.identifiable,
       reasons: analysis.identifiability.reasons,
       singularRatio: analysis.identifiability.singularRatio,
       valley: valley
-        ? { parameter: names[valley.parameterIndex], points: valley.points.map((pt) => ({ params: record(pt.params), deltaChiSquare: pt.deltaChiSquare, withinConfidence: pt.withinConfidence })) }
+        ? {
+            parameter: names[valley.parameterIndex],
+            points: valley.points.map((pt) => ({
+              params: record(pt.params),
+              deltaChiSquare: pt.deltaChiSquare,
+              withinConfidence: pt.withinConfidence,
+            })),
+          }
         : null,
     },
-    convergence: { converged: solution.converged, reason: solution.reason, iterations: solution.iterations, evaluations: solution.evaluations, starts: solution.starts },
+    convergence: {
+      converged: solution.converged,
+      reason: solution.reason,
+      iterations: solution.iterations,
+      evaluations: solution.evaluations,
+      starts: solution.starts,
+    },
     outsideTuring: judged.outsideTuring,
     notes,
     warnings,

@@ -33,7 +33,12 @@ export function fitWithFixed(ctx: SolverContext, j: number, value: number, warm:
     const chi = r.reduce((s, x) => s + x * x, 0);
     return { u: [value], chiSquare: Number.isFinite(chi) ? chi : Infinity, converged: Number.isFinite(chi) };
   }
-  const sub: ParameterSpace = { size: ctx.space.size - 1, log: drop(ctx.space.log), lowerU: drop(ctx.space.lowerU), upperU: drop(ctx.space.upperU) };
+  const sub: ParameterSpace = {
+    size: ctx.space.size - 1,
+    log: drop(ctx.space.log),
+    lowerU: drop(ctx.space.lowerU),
+    upperU: drop(ctx.space.upperU),
+  };
   const f: ResidualFunction = (w) => ctx.f(insert(w));
   const full = ctx.jacobian;
   const jacobian: JacobianProvider | undefined = full

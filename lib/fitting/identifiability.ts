@@ -48,7 +48,9 @@ export function assessIdentifiability(
     flatParameters.push(j);
     const lo = prof.points[0].value;
     const hi = prof.points[prof.points.length - 1].value;
-    reasons.push(`χ² does not rise by ${fmt(delta)} anywhere between ${names[j]} = ${fmt(lo)} and ${fmt(hi)}: the data do not bound ${names[j]}.`);
+    reasons.push(
+      `χ² does not rise by ${fmt(delta)} anywhere between ${names[j]} = ${fmt(lo)} and ${fmt(hi)}: the data do not bound ${names[j]}.`,
+    );
   });
   return { identifiable: reasons.length === 0, reasons, singularRatio: cov.singularRatio, flatParameters };
 }

@@ -18,7 +18,21 @@ export { compareFits, type LabelledFit, type RankedFit, type FitComparison } fro
 export { HEX_SPACING_TO_FOURIER } from "./check-wavelength-spec";
 export { addReplicateSpread, type ConditionSpread } from "./replicate-spread";
 export type {
-  MeasurementKind, WavelengthDatum, ParameterSetting, FixedParameter, FreeParameter, PerConditionParameter,
-  WavelengthFitOptions, WavelengthFitSpec, WavelengthPrediction, WavelengthPredictor,
+  MeasurementKind,
+  WavelengthDatum,
+  ParameterSetting,
+  FixedParameter,
+  FreeParameter,
+  PerConditionParameter,
+  WavelengthFitOptions,
+  WavelengthFitSpec,
+  WavelengthPrediction,
+  WavelengthPredictor,
 } from "./wavelength-spec";
-export type { WavelengthFitResult, WavelengthVerdict, FittedParameter, FittedDatum, IntervalSide } from "./wavelength-result";
+export type {
+  WavelengthFitResult,
+  WavelengthVerdict,
+  FittedParameter,
+  FittedDatum,
+  IntervalSide,
+} from "./wavelength-result";

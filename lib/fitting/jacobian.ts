@@ -49,7 +49,10 @@ export function computeJacobian(
     }
     const side = plus ? 1 : minus ? -1 : u[j] + 2 * h <= space.upperU[j] ? 1 : -1;
     const near = plus ?? minus ?? at(j, side * h);
-    const far = near && (side > 0 ? u[j] + 2 * h <= space.upperU[j] : u[j] - 2 * h >= space.lowerU[j]) ? at(j, 2 * side * h) : null;
+    const far =
+      near && (side > 0 ? u[j] + 2 * h <= space.upperU[j] : u[j] - 2 * h >= space.lowerU[j])
+        ? at(j, 2 * side * h)
+        : null;
     if (near && far) {
       for (let i = 0; i < n; i++) J.set(i, j, (side * (-3 * r0[i] + 4 * near[i] - far[i])) / (2 * h));
     } else if (near) {
@@ -60,7 +63,11 @@ export function computeJacobian(
 }
 
 /** Analytic Jacobian in natural units → solver coordinates (chain rule: ∂θ/∂u = θ for log scale). */
-export function jacobianToInternal(jacobianNatural: number[][], theta: readonly number[], space: ParameterSpace): Matrix {
+export function jacobianToInternal(
+  jacobianNatural: number[][],
+  theta: readonly number[],
+  space: ParameterSpace,
+): Matrix {
   const J = new Matrix(jacobianNatural);
   for (let j = 0; j < space.size; j++) {
     if (!space.log[j]) continue;

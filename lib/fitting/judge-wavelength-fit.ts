@@ -47,15 +47,26 @@ export function judgeFit<T>(
     .sort((a, b) => a.chiSquareAny - b.chiSquareAny)
     .slice(0, spec.options.seededStarts + 1)
     .map((s) => s.free);
-  const bounds = { lower: spec.slots.map((s) => s.lower), upper: spec.slots.map((s) => s.upper), log: spec.slots.map((s) => s.log) };
+  const bounds = {
+    lower: spec.slots.map((s) => s.lower),
+    upper: spec.slots.map((s) => s.upper),
+    log: spec.slots.map((s) => s.log),
+  };
   const any = solveLeastSquares(anyProblem, { start: solution.params, extraStarts: starts, ...bounds });
   const preds = model.predict(any.params);
   const nonTuring = [...new Set(spec.data.flatMap((d, i) => (preds[i] && !preds[i]!.turing ? [d.condition] : [])))];
   const worstAny = maxAbs(any.residuals);
-  const outsideTuring = { params: record(any.params), chiSquare: any.chiSquare, maxAbsResidual: worstAny, nonTuringConditions: nonTuring };
+  const outsideTuring = {
+    params: record(any.params),
+    chiSquare: any.chiSquare,
+    maxAbsResidual: worstAny,
+    nonTuringConditions: nonTuring,
+  };
   const warnings: string[] = [];
   if (nonTuring.length === 0 && any.chiSquare < solution.chiSquare * (1 - 1e-6))
-    warnings.push(`A better Turing-unstable fit (χ² ${fmt(any.chiSquare)} < ${fmt(solution.chiSquare)}) was found by the second search: the reported fit is a local minimum; increase options.seededStarts.`);
+    warnings.push(
+      `A better Turing-unstable fit (χ² ${fmt(any.chiSquare)} < ${fmt(solution.chiSquare)}) was found by the second search: the reported fit is a local minimum; increase options.seededStarts.`,
+    );
   if (Number.isFinite(worstAny) && worstAny <= reach && nonTuring.length > 0) {
     return {
       verdict: "fits only outside the Turing region",
@@ -64,5 +75,10 @@ export function judgeFit<T>(
       warnings,
     };
   }
-  return { verdict: "cannot reach the measured wavelength", reason: `No state within the bounds reaches the measurements: ${miss}.`, outsideTuring, warnings };
+  return {
+    verdict: "cannot reach the measured wavelength",
+    reason: `No state within the bounds reaches the measurements: ${miss}.`,
+    outsideTuring,
+    warnings,
+  };
 }

@@ -32,14 +32,23 @@ export interface KineticsPredictorOptions {
  * (about 100× cheaper); anything it cannot settle (other kinetics, finite domains, irregular
  * points) goes through `computeDispersion`, which also raises the errors.
  */
-export function createKineticsPredictor(kinetics: CompiledKinetics, options: KineticsPredictorOptions = {}): WavelengthPredictor<DomainSpec> {
+export function createKineticsPredictor(
+  kinetics: CompiledKinetics,
+  options: KineticsPredictorOptions = {},
+): WavelengthPredictor<DomainSpec> {
   const gridSize = options.gridSize ?? 200;
   const fastKinetics =
-    (options.fastPath ?? true) && kinetics.species.length === 2 && kinetics.diagonalDiffusion && Number.isInteger(gridSize) && gridSize >= 16 && gridSize <= 100_000;
+    (options.fastPath ?? true) &&
+    kinetics.species.length === 2 &&
+    kinetics.diagonalDiffusion &&
+    Number.isInteger(gridSize) &&
+    gridSize >= 16 &&
+    gridSize <= 100_000;
   const ws = fastKinetics ? createFastestModeWorkspace(gridSize) : undefined;
   return (params, _condition, domain) => {
     const kineticsParams: Record<string, number> = {};
-    for (const [name, v] of Object.entries(params)) if (!(SCALE_PARAMETERS as readonly string[]).includes(name)) kineticsParams[name] = v;
+    for (const [name, v] of Object.entries(params))
+      if (!(SCALE_PARAMETERS as readonly string[]).includes(name)) kineticsParams[name] = v;
     const lengthScaleUm = params.lengthScaleUm ?? options.lengthScaleUm;
     const timeScaleS = params.timeScaleS ?? options.timeScaleS;
     if (fastKinetics && !domain) {
@@ -49,7 +58,12 @@ export function createKineticsPredictor(kinetics: CompiledKinetics, options: Kin
       const m = computeFastestMode(kinetics, p, gridSize, ws);
       if (m) return fastPrediction(m, scales.lengthScaleUm);
     }
-    const r = computeDispersion(kinetics, kineticsParams, { lengthScaleUm, timeScaleS, gridSize: options.gridSize, domain });
+    const r = computeDispersion(kinetics, kineticsParams, {
+      lengthScaleUm,
+      timeScaleS,
+      gridSize: options.gridSize,
+      domain,
+    });
     const flags = r.classification.flags;
     const turing = isTuring(flags);
     if (domain && r.domain) {

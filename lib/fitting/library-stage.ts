@@ -12,7 +12,11 @@ export interface LibraryStageOptions {
   gradientDifference: number;
 }
 
-export const DEFAULT_LIBRARY_STAGE: LibraryStageOptions = { maxIterations: 40, damping: 1e-2, gradientDifference: 1e-6 };
+export const DEFAULT_LIBRARY_STAGE: LibraryStageOptions = {
+  maxIterations: 40,
+  damping: 1e-2,
+  gradientDifference: 1e-6,
+};
 
 /**
  * Run ml-levenberg-marquardt on the weighted residuals. The library fits y ≈ f(x); here x is the
@@ -44,14 +48,14 @@ export function runLibraryStage(
   let result: { parameterValues: number[]; iterations: number };
   try {
     result = levenbergMarquardt({ x, y }, model, {
-    initialValues: u0.map((v, j) => v / typical[j]),
-    minValues: space.lowerU.map((v, j) => v / typical[j]),
-    maxValues: space.upperU.map((v, j) => v / typical[j]),
-    damping: options.damping,
-    gradientDifference: options.gradientDifference,
-    centralDifference: true,
-    maxIterations: options.maxIterations,
-    errorTolerance: 0,
+      initialValues: u0.map((v, j) => v / typical[j]),
+      minValues: space.lowerU.map((v, j) => v / typical[j]),
+      maxValues: space.upperU.map((v, j) => v / typical[j]),
+      damping: options.damping,
+      gradientDifference: options.gradientDifference,
+      centralDifference: true,
+      maxIterations: options.maxIterations,
+      errorTolerance: 0,
     });
   } catch (err) {
     // v5 throws from its Cholesky step when the approximate Hessian has gone non-finite.

@@ -14,7 +14,11 @@ export interface ParameterSpace {
 }
 
 /** Build the solver coordinates; bounds and flags are assumed validated (`log` ⇒ lower > 0). */
-export function createParameterSpace(lower: readonly number[], upper: readonly number[], log: readonly boolean[]): ParameterSpace {
+export function createParameterSpace(
+  lower: readonly number[],
+  upper: readonly number[],
+  log: readonly boolean[],
+): ParameterSpace {
   const size = lower.length;
   const lowerU: number[] = [];
   const upperU: number[] = [];

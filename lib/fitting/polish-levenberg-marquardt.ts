@@ -122,18 +122,25 @@ export function polishLevenbergMarquardt(
     if (free.length === 0 || cosMax <= options.gradientTolerance) return done("gradient", iter - 1);
     for (;;) {
       const delta = solveDampedStep(J, r, free, scale, lambda, p);
-      const trial = delta ? clampToBox(space, u.map((v, j) => v + delta[j])) : null;
+      const trial = delta
+        ? clampToBox(
+            space,
+            u.map((v, j) => v + delta[j]),
+          )
+        : null;
       if (trial) {
         const step = trial.map((v, j) => (v - u[j]) * scale[j]);
         const uScaled = u.map((v, j) => v * scale[j]);
-        if (norm(step) <= options.stepTolerance * (norm(uScaled) + options.stepTolerance)) return done("step-size", iter);
+        if (norm(step) <= options.stepTolerance * (norm(uScaled) + options.stepTolerance))
+          return done("step-size", iter);
         const rt = f(trial);
         evaluations++;
         const chiT = sumSquares(rt);
         const predicted = chi - linearisedSumSquares(J, r, trial, u);
         if (chiT < chi) {
           const rho = predicted > 0 ? (chi - chiT) / predicted : 1;
-          const small = chi - chiT <= options.relativeReduction * chi && Math.abs(predicted) <= options.relativeReduction * chi;
+          const small =
+            chi - chiT <= options.relativeReduction * chi && Math.abs(predicted) <= options.relativeReduction * chi;
           u = trial;
           r = rt;
           chi = chiT;
@@ -148,13 +155,21 @@ export function polishLevenbergMarquardt(
       nu *= 2;
       if (lambda > 1e16) return done("stalled", iter);
     }
-    if (u.some((v, j) => Math.abs(v) > options.divergenceFactor * Math.max(1, typical[j]))) return done("diverged", iter);
+    if (u.some((v, j) => Math.abs(v) > options.divergenceFactor * Math.max(1, typical[j])))
+      return done("diverged", iter);
   }
   return done("max-iterations", options.maxIterations);
 }
 
 /** Solve [J_F; √λ·D_F] δ_F = [−r; 0] for the free coordinates F; null when QR fails. */
-function solveDampedStep(J: Matrix, r: Float64Array, free: number[], scale: number[], lambda: number, p: number): number[] | null {
+function solveDampedStep(
+  J: Matrix,
+  r: Float64Array,
+  free: number[],
+  scale: number[],
+  lambda: number,
+  p: number,
+): number[] | null {
   const n = r.length;
   const m = free.length;
   const A = new Matrix(n + m, m);

@@ -57,7 +57,9 @@ export function profileParameter(
   toNaturalValue: (u: number[]) => number[],
   options: ProfileOptions = DEFAULT_PROFILE,
 ): ParameterProfile {
-  const points: ParameterProfile["points"] = [{ value: toNaturalValue(uHat.slice())[j], deltaChiSquare: 0, params: toNaturalValue(uHat.slice()) }];
+  const points: ParameterProfile["points"] = [
+    { value: toNaturalValue(uHat.slice())[j], deltaChiSquare: 0, params: toNaturalValue(uHat.slice()) },
+  ];
   let lowest = chiMin;
   const evaluate = (value: number, warm: readonly number[]) => {
     const fit = fitWithFixed(ctx, j, value, warm);
@@ -92,7 +94,13 @@ export function profileParameter(
   };
   // Illinois regula falsi on g(v) = Δχ²(v) − delta between a (g < 0) and b (g ≥ 0); plain
   // bisection while b is inadmissible (χ² = ∞), which converges on the edge of the admissible region.
-  const locate = (a0: number, da0: number, b0: number, db0: number, warm0: number[]): { u: number[]; edge: boolean } => {
+  const locate = (
+    a0: number,
+    da0: number,
+    b0: number,
+    db0: number,
+    warm0: number[],
+  ): { u: number[]; edge: boolean } => {
     let [a, b] = [a0, b0];
     let [ga, gb] = [da0 - options.delta, db0 - options.delta];
     let bInf = !Number.isFinite(db0);

@@ -15,7 +15,10 @@ export interface ConditionSpread {
   sdUm: number;
 }
 
-export function addReplicateSpread<D>(data: readonly WavelengthDatum<D>[]): { data: WavelengthDatum<D>[]; spreads: ConditionSpread[] } {
+export function addReplicateSpread<D>(data: readonly WavelengthDatum<D>[]): {
+  data: WavelengthDatum<D>[];
+  spreads: ConditionSpread[];
+} {
   const groups = new Map<string, number[]>();
   const key = (d: WavelengthDatum<D>) => `${d.kind}\u0000${d.condition}`;
   data.forEach((d, i) => groups.set(key(d), [...(groups.get(key(d)) ?? []), i]));

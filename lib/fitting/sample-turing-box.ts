@@ -22,14 +22,21 @@ const sumSquares = (r: Float64Array) => {
  * The start plus `count` seeded points, uniform in the box (log-uniform for log-scaled
  * parameters), each classified by the predictor: finds the Turing region and good starts.
  */
-export function sampleTuringBox(slots: readonly FreeSlot[], count: number, seed: string, model: WavelengthModel): BoxSample[] {
+export function sampleTuringBox(
+  slots: readonly FreeSlot[],
+  count: number,
+  seed: string,
+  model: WavelengthModel,
+): BoxSample[] {
   const rng = seedrandom(`${seed}:turing-box`);
   const points: number[][] = [slots.map((s) => s.start)];
   for (let k = 0; k < count; k++) {
     points.push(
       slots.map((s) => {
         const t = rng();
-        return s.log ? Math.exp(Math.log(s.lower) + t * (Math.log(s.upper) - Math.log(s.lower))) : s.lower + t * (s.upper - s.lower);
+        return s.log
+          ? Math.exp(Math.log(s.lower) + t * (Math.log(s.upper) - Math.log(s.lower)))
+          : s.lower + t * (s.upper - s.lower);
       }),
     );
   }

@@ -6,7 +6,13 @@ import type { ParameterSpace } from "./parameter-space";
  * bounds are finite (log-uniform for log-scaled parameters, since the box is then in ln θ), else
  * u₀ ± one typical magnitude, clamped into the box. Same seed, same points (seedrandom ARC4).
  */
-export function drawSeededStarts(space: ParameterSpace, u0: readonly number[], typical: readonly number[], count: number, seed: string): number[][] {
+export function drawSeededStarts(
+  space: ParameterSpace,
+  u0: readonly number[],
+  typical: readonly number[],
+  count: number,
+  seed: string,
+): number[][] {
   const rng = seedrandom(seed);
   const starts: number[][] = [];
   for (let s = 0; s < count; s++) {

@@ -31,7 +31,10 @@ export interface LeastSquaresResult extends LocalSolution {
 }
 
 /** The problem's residuals and (optional) Jacobian in solver coordinates. */
-export function internalFunctions(problem: LeastSquaresProblem, space: ParameterSpace): { f: ResidualFunction; jacobian?: JacobianProvider } {
+export function internalFunctions(
+  problem: LeastSquaresProblem,
+  space: ParameterSpace,
+): { f: ResidualFunction; jacobian?: JacobianProvider } {
   const f: ResidualFunction = (u) => problem.residuals(toNatural(space, u));
   const analytic = problem.jacobian;
   if (!analytic) return { f };
@@ -64,10 +67,12 @@ export function solveLeastSquares(problem: LeastSquaresProblem, options: LeastSq
   const { f, jacobian } = internalFunctions(problem, space);
   const explicit = checked.extraStarts.map((s) => toInternal(space, s));
   const startsU = [u0, ...explicit, ...drawSeededStarts(space, u0, typical, checked.seededStarts, checked.seed)];
-  const originOf = (k: number): StartReport["origin"] => (k === 0 ? "given" : k <= explicit.length ? "extra" : "seeded");
+  const originOf = (k: number): StartReport["origin"] =>
+    k === 0 ? "given" : k <= explicit.length ? "extra" : "seeded";
   let evaluations = 0;
   const outcomes = startsU.map((s) => {
-    const run = (from: readonly number[]) => polishLevenbergMarquardt(f, from, space, typical, checked.polish, jacobian);
+    const run = (from: readonly number[]) =>
+      polishLevenbergMarquardt(f, from, space, typical, checked.polish, jacobian);
     let best: PolishResult | null = null;
     let libraryIterations = 0;
     let stages: StartReport["stages"] = "polish";
@@ -81,7 +86,8 @@ export function solveLeastSquares(problem: LeastSquaresProblem, options: LeastSq
       const second = run(lib.u);
       evaluations += lib.evaluations + second.evaluations;
       libraryIterations = lib.iterations;
-      const better = !best || (ok(second) && !ok(best)) || (ok(second) === ok(best) && second.chiSquare < best.chiSquare);
+      const better =
+        !best || (ok(second) && !ok(best)) || (ok(second) === ok(best) && second.chiSquare < best.chiSquare);
       if (better) {
         best = second;
         stages = "library+polish";

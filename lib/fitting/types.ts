@@ -30,7 +30,12 @@ export type StopReason =
   | "non-finite-start";
 
 /** Stop reasons that mean a local minimum was reached. */
-export const CONVERGED_REASONS: readonly StopReason[] = ["relative-reduction", "step-size", "gradient", "zero-residual"];
+export const CONVERGED_REASONS: readonly StopReason[] = [
+  "relative-reduction",
+  "step-size",
+  "gradient",
+  "zero-residual",
+];
 
 /** The outcome of one local optimisation (one start). */
 export interface LocalSolution {

@@ -17,7 +17,10 @@ export interface WavelengthModel {
   failures(): { count: number; firstMessage: string | null };
 }
 
-export function createWavelengthModel<TDomain>(spec: CheckedWavelengthSpec<TDomain>, predictor: WavelengthPredictor<TDomain>): WavelengthModel {
+export function createWavelengthModel<TDomain>(
+  spec: CheckedWavelengthSpec<TDomain>,
+  predictor: WavelengthPredictor<TDomain>,
+): WavelengthModel {
   const keyOf = (i: number) => `${spec.data[i].condition}\u0000${JSON.stringify(spec.data[i].domain ?? null)}`;
   const keys = [...new Set(spec.data.map((_, i) => keyOf(i)))];
   const first = keys.map((k) => spec.data.findIndex((_, i) => keyOf(i) === k));

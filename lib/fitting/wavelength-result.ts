@@ -66,11 +66,25 @@ export interface WavelengthFitResult {
     reasons: string[];
     singularRatio: number;
     /** Curve of equally good solutions when not identifiable: the stepped parameter and the points. */
-    valley: { parameter: string; points: { params: Record<string, number>; deltaChiSquare: number; withinConfidence: boolean }[] } | null;
+    valley: {
+      parameter: string;
+      points: { params: Record<string, number>; deltaChiSquare: number; withinConfidence: boolean }[];
+    } | null;
   };
-  convergence: { converged: boolean; reason: StopReason; iterations: { library: number; polish: number }; evaluations: number; starts: StartReport[] };
+  convergence: {
+    converged: boolean;
+    reason: StopReason;
+    iterations: { library: number; polish: number };
+    evaluations: number;
+    starts: StartReport[];
+  };
   /** Best fit when non-Turing predictions are allowed too; computed only when the Turing fit does not reach the data. */
-  outsideTuring: { params: Record<string, number>; chiSquare: number; maxAbsResidual: number; nonTuringConditions: string[] } | null;
+  outsideTuring: {
+    params: Record<string, number>;
+    chiSquare: number;
+    maxAbsResidual: number;
+    nonTuringConditions: string[];
+  } | null;
   /** Conversions and choices made on the user's behalf (spacing → Fourier wavelength, start moved into the Turing region). */
   notes: string[];
   warnings: string[];

@@ -18,8 +18,18 @@ export interface EncodeTiffOptions {
 
 function checkImage(image: GreyImage): void {
   const { width, height, data } = image;
-  if (!Number.isInteger(width) || !Number.isInteger(height) || width < 1 || height < 1 || data.length !== width * height) {
-    throw new ImagingError("bad_option", `image must have integer width and height ≥ 1 and data of length width·height (got ${width}×${height}, length ${data.length}).`, "image");
+  if (
+    !Number.isInteger(width) ||
+    !Number.isInteger(height) ||
+    width < 1 ||
+    height < 1 ||
+    data.length !== width * height
+  ) {
+    throw new ImagingError(
+      "bad_option",
+      `image must have integer width and height ≥ 1 and data of length width·height (got ${width}×${height}, length ${data.length}).`,
+      "image",
+    );
   }
 }
 
@@ -64,7 +74,11 @@ export async function encodeTiff16(image: GreyImage, options: EncodeTiffOptions)
   checkImage(image);
   const { pixelSizeUm, invert = false } = options;
   if (!Number.isFinite(pixelSizeUm) || pixelSizeUm <= 0 || pixelSizeUm > 1e6) {
-    throw new ImagingError("bad_option", `pixelSizeUm must be a finite number above 0 and at most 1000000 µm/px (got ${pixelSizeUm}).`, "pixelSizeUm");
+    throw new ImagingError(
+      "bad_option",
+      `pixelSizeUm must be a finite number above 0 and at most 1000000 µm/px (got ${pixelSizeUm}).`,
+      "pixelSizeUm",
+    );
   }
   const px = quantise(image.data, new Uint16Array(image.data.length), 65535, invert);
   const pxPerMm = 1000 / pixelSizeUm; // sharp takes xres/yres in px/mm whatever the unit tag

@@ -3,7 +3,11 @@ export type ImagingErrorCode = "too_large" | "corrupt" | "unsupported" | "bad_op
 
 /** A typed error from decoding or encoding; `field` names the offending option when there is one. */
 export class ImagingError extends Error {
-  constructor(public code: ImagingErrorCode, message: string, public field?: string) {
+  constructor(
+    public code: ImagingErrorCode,
+    message: string,
+    public field?: string,
+  ) {
     super(message);
     this.name = "ImagingError";
   }

@@ -11,14 +11,19 @@ export interface PixelSizeInfo {
 
 /** Writers' default densities (dpi) that describe a screen or printer, not a microscope; 25.4 dpi is libvips' 1 px/mm. */
 const DEFAULT_DPI = [25.4, 72, 96, 150, 300, 600];
-const UNIT_UM: Record<string, number> = { "µm": 1, "μm": 1, um: 1, micron: 1, nm: 1e-3, mm: 1e3, cm: 1e4, m: 1e6, "Å": 1e-4 };
+const UNIT_UM: Record<string, number> = { µm: 1, μm: 1, um: 1, micron: 1, nm: 1e-3, mm: 1e3, cm: 1e4, m: 1e6, Å: 1e-4 };
 
-const none = (note: string | null = null): PixelSizeInfo => ({ pixelSizeUm: null, pixelSizeSource: null, pixelSizeNote: note });
+const none = (note: string | null = null): PixelSizeInfo => ({
+  pixelSizeUm: null,
+  pixelSizeSource: null,
+  pixelSizeNote: note,
+});
 
 function fromDpi(dpi: number, source: PixelSizeSource): PixelSizeInfo {
   const um = 25400 / dpi;
   if (!(Number.isFinite(um) && um > 0)) return none(`The file's resolution (${dpi} dpi) gives no usable pixel size.`);
-  if (DEFAULT_DPI.some((d) => Math.abs(dpi - d) < 0.05)) return none(`The file's resolution (${Number(dpi.toFixed(1))} dpi) is a writer's default, not a pixel size.`);
+  if (DEFAULT_DPI.some((d) => Math.abs(dpi - d) < 0.05))
+    return none(`The file's resolution (${Number(dpi.toFixed(1))} dpi) is a writer's default, not a pixel size.`);
   return { pixelSizeUm: um, pixelSizeSource: source, pixelSizeNote: null };
 }
 
@@ -36,7 +41,7 @@ export function readOmePixelSize(xml: string): number | null {
 /** PNG pHYs chunk (PNG spec §11.3.5.3): pixels per unit, unit 1 = metre. */
 function readPngPhys(b: Uint8Array): { x: number; unit: number } | null {
   const view = new DataView(b.buffer, b.byteOffset, b.byteLength);
-  for (let at = 8; at + 12 <= b.length; ) {
+  for (let at = 8; at + 12 <= b.length;) {
     const len = view.getUint32(at);
     const type = String.fromCharCode(b[at + 4], b[at + 5], b[at + 6], b[at + 7]);
     if (type === "pHYs" && len >= 9 && at + 17 <= b.length) return { x: view.getUint32(at + 8), unit: b[at + 16] };
@@ -58,7 +63,9 @@ export function readPixelSize(bytes: Uint8Array, format: string, density?: numbe
     const xres = tags.xResolution;
     if (xres === undefined) return none();
     if (!(Number.isFinite(xres) && xres > 0)) {
-      return none(`The TIFF resolution (${tags.xResolutionText ?? String(xres)} pixels per unit) is not a positive number, so it gives no pixel size.`);
+      return none(
+        `The TIFF resolution (${tags.xResolutionText ?? String(xres)} pixels per unit) is not a positive number, so it gives no pixel size.`,
+      );
     }
     const unit = tags.resolutionUnit ?? 2;
     if (unit === 3) return fromDpi(xres * 2.54, "tiff-resolution");

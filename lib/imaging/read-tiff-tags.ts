@@ -18,7 +18,16 @@ export interface TiffTags {
   imageDescription?: string;
 }
 
-const TAG = { width: 256, height: 257, bits: 258, description: 270, spp: 277, xres: 282, yres: 283, unit: 296 } as const;
+const TAG = {
+  width: 256,
+  height: 257,
+  bits: 258,
+  description: 270,
+  spp: 277,
+  xres: 282,
+  yres: 283,
+  unit: 296,
+} as const;
 const TYPE_SIZE: Record<number, number> = { 1: 1, 2: 1, 3: 2, 4: 4, 5: 8, 6: 1, 7: 1, 8: 2, 9: 4, 10: 8, 11: 4, 12: 8 };
 
 /** Returns the tags, or null when the bytes are not a readable classic TIFF (BigTIFF included). */
@@ -43,20 +52,49 @@ export function readTiffTags(bytes: Uint8Array): TiffTags | null {
     if (size === 0) continue;
     const off = size <= 4 ? at + 8 : view.getUint32(at + 8, le);
     if (off + size > bytes.length) continue;
-    const num = (): number => (type === 3 ? view.getUint16(off, le) : type === 4 ? view.getUint32(off, le) : type === 1 ? view.getUint8(off) : Number.NaN);
+    const num = (): number =>
+      type === 3
+        ? view.getUint16(off, le)
+        : type === 4
+          ? view.getUint32(off, le)
+          : type === 1
+            ? view.getUint8(off)
+            : Number.NaN;
     // A rational with denominator 0 is no number (1/0 would read as Infinity, then a pixel size of 0).
-    const rational = (): number => (type === 5 ? (view.getUint32(off + 4, le) === 0 ? Number.NaN : view.getUint32(off, le) / view.getUint32(off + 4, le)) : num());
-    const rationalText = (): string => (type === 5 ? `${view.getUint32(off, le)}/${view.getUint32(off + 4, le)}` : String(num()));
+    const rational = (): number =>
+      type === 5
+        ? view.getUint32(off + 4, le) === 0
+          ? Number.NaN
+          : view.getUint32(off, le) / view.getUint32(off + 4, le)
+        : num();
+    const rationalText = (): string =>
+      type === 5 ? `${view.getUint32(off, le)}/${view.getUint32(off + 4, le)}` : String(num());
     switch (tag) {
-      case TAG.width: tags.width = num(); break;
-      case TAG.height: tags.height = num(); break;
-      case TAG.bits: tags.bitsPerSample = num(); break;
-      case TAG.spp: tags.samplesPerPixel = num(); break;
-      case TAG.xres: tags.xResolution = rational(); tags.xResolutionText = rationalText(); break;
-      case TAG.yres: tags.yResolution = rational(); break;
-      case TAG.unit: tags.resolutionUnit = num(); break;
+      case TAG.width:
+        tags.width = num();
+        break;
+      case TAG.height:
+        tags.height = num();
+        break;
+      case TAG.bits:
+        tags.bitsPerSample = num();
+        break;
+      case TAG.spp:
+        tags.samplesPerPixel = num();
+        break;
+      case TAG.xres:
+        tags.xResolution = rational();
+        tags.xResolutionText = rationalText();
+        break;
+      case TAG.yres:
+        tags.yResolution = rational();
+        break;
+      case TAG.unit:
+        tags.resolutionUnit = num();
+        break;
       case TAG.description:
-        if (type === 2) tags.imageDescription = new TextDecoder("utf-8").decode(bytes.subarray(off, off + size)).replace(/\0+$/, "");
+        if (type === 2)
+          tags.imageDescription = new TextDecoder("utf-8").decode(bytes.subarray(off, off + size)).replace(/\0+$/, "");
         break;
     }
   }

@@ -8,9 +8,25 @@ export type FileKind = "png" | "jpeg" | "tiff" | "csv" | "tsv";
  */
 export function sniffFileKind(bytes: Uint8Array): FileKind | null {
   const b = bytes;
-  if (b.length >= 8 && b[0] === 0x89 && b[1] === 0x50 && b[2] === 0x4e && b[3] === 0x47 && b[4] === 0x0d && b[5] === 0x0a && b[6] === 0x1a && b[7] === 0x0a) return "png";
+  if (
+    b.length >= 8 &&
+    b[0] === 0x89 &&
+    b[1] === 0x50 &&
+    b[2] === 0x4e &&
+    b[3] === 0x47 &&
+    b[4] === 0x0d &&
+    b[5] === 0x0a &&
+    b[6] === 0x1a &&
+    b[7] === 0x0a
+  )
+    return "png";
   if (b.length >= 3 && b[0] === 0xff && b[1] === 0xd8 && b[2] === 0xff) return "jpeg";
-  if (b.length >= 4 && ((b[0] === 0x49 && b[1] === 0x49 && (b[2] === 0x2a || b[2] === 0x2b) && b[3] === 0) || (b[0] === 0x4d && b[1] === 0x4d && b[2] === 0 && (b[3] === 0x2a || b[3] === 0x2b)))) return "tiff";
+  if (
+    b.length >= 4 &&
+    ((b[0] === 0x49 && b[1] === 0x49 && (b[2] === 0x2a || b[2] === 0x2b) && b[3] === 0) ||
+      (b[0] === 0x4d && b[1] === 0x4d && b[2] === 0 && (b[3] === 0x2a || b[3] === 0x2b)))
+  )
+    return "tiff";
   const head = b.subarray(0, 8192);
   if (head.length === 0 || head.includes(0)) return null;
   let text: string;
@@ -18,10 +34,18 @@ export function sniffFileKind(bytes: Uint8Array): FileKind | null {
     text = new TextDecoder("utf-8", { fatal: true }).decode(head);
   } catch {
     // a multi-byte character cut at the 8 KiB boundary is still text
-    try { text = new TextDecoder("utf-8", { fatal: true }).decode(head.subarray(0, head.length - 3)); } catch { return null; }
+    try {
+      text = new TextDecoder("utf-8", { fatal: true }).decode(head.subarray(0, head.length - 3));
+    } catch {
+      return null;
+    }
   }
   if (/[\x01-\x08\x0e-\x1f]/.test(text)) return null;
-  const lines = text.replace(/^\uFEFF/, "").split(/\r\n|\n|\r/).filter((l) => l.trim() !== "").slice(0, 20);
+  const lines = text
+    .replace(/^\uFEFF/, "")
+    .split(/\r\n|\n|\r/)
+    .filter((l) => l.trim() !== "")
+    .slice(0, 20);
   if (b.length > head.length && lines.length > 1) lines.pop(); // the last line may be cut
   if (lines.length === 0) return null;
   const consistent = (sep: string) => {
@@ -31,6 +55,10 @@ export function sniffFileKind(bytes: Uint8Array): FileKind | null {
   if (consistent("\t")) return "tsv";
   if (consistent(",") || consistent(";")) return "csv";
   // one column of numbers (a plain spacing list) is a CSV with one field
-  if (lines.every((l) => /^\s*[-+]?[\w.µ ()/%-]*\s*$/.test(l)) && lines.slice(1).every((l) => Number.isFinite(Number(l.trim())))) return "csv";
+  if (
+    lines.every((l) => /^\s*[-+]?[\w.µ ()/%-]*\s*$/.test(l)) &&
+    lines.slice(1).every((l) => Number.isFinite(Number(l.trim())))
+  )
+    return "csv";
   return null;
 }

@@ -7,8 +7,13 @@ import { derivative, type MathNode } from "mathjs";
 import { KineticsInputError } from "./errors";
 import { KineticsDefinitionSchema, type KineticsDefinition } from "./definition-schema";
 import {
-  collectSymbols, compileNode, countNodes, parseExpression, RESERVED_NAMES,
-  type CompiledExpression, type SymbolTable,
+  collectSymbols,
+  compileNode,
+  countNodes,
+  parseExpression,
+  RESERVED_NAMES,
+  type CompiledExpression,
+  type SymbolTable,
 } from "./expression-compiler";
 import type { CompiledKinetics, ParameterSpec } from "./types";
 
@@ -28,13 +33,30 @@ export function compileKinetics(definition: unknown): CompiledKinetics {
   const n = def.species.length;
   checkNames(def);
   if (def.reactions.length !== n) {
-    throw new KineticsInputError("reactions", `reactions has ${def.reactions.length} entries but there are ${n} species; give one reaction term per species.`);
+    throw new KineticsInputError(
+      "reactions",
+      `reactions has ${def.reactions.length} entries but there are ${n} species; give one reaction term per species.`,
+    );
   }
   const parameters: ParameterSpec[] = def.parameters.map((p, i) => {
-    const spec = { name: p.name, meaning: p.meaning ?? "", default: p.default, min: p.min ?? -Number.MAX_VALUE, max: p.max ?? Number.MAX_VALUE, unit: p.unit };
-    if (spec.min > spec.max) throw new KineticsInputError(`parameters[${i}].min`, `Parameter ${p.name}: min ${spec.min} is larger than max ${spec.max}.`);
+    const spec = {
+      name: p.name,
+      meaning: p.meaning ?? "",
+      default: p.default,
+      min: p.min ?? -Number.MAX_VALUE,
+      max: p.max ?? Number.MAX_VALUE,
+      unit: p.unit,
+    };
+    if (spec.min > spec.max)
+      throw new KineticsInputError(
+        `parameters[${i}].min`,
+        `Parameter ${p.name}: min ${spec.min} is larger than max ${spec.max}.`,
+      );
     if (spec.default < spec.min || spec.default > spec.max) {
-      throw new KineticsInputError(`parameters[${i}].default`, `Parameter ${p.name}: default ${spec.default} is outside [${spec.min}, ${spec.max}].`);
+      throw new KineticsInputError(
+        `parameters[${i}].default`,
+        `Parameter ${p.name}: default ${spec.default} is outside [${spec.min}, ${spec.max}].`,
+      );
     }
     return spec;
   });
@@ -46,7 +68,9 @@ export function compileKinetics(definition: unknown): CompiledKinetics {
   const reactionFns = reactionNodes.map((node, i) => compileNode(node, table, `reactions[${i}]`));
   const { fns: jacFns, numeric } = compileJacobian(reactionNodes, def.species, table);
   const diffusionStrings = diffusionMatrix(def, n);
-  const diffusionFns = diffusionStrings.map((row, i) => row.map((e, j) => compileDiffusion(e, table, diffusionField(def, i, j))));
+  const diffusionFns = diffusionStrings.map((row, i) =>
+    row.map((e, j) => compileDiffusion(e, table, diffusionField(def, i, j))),
+  );
   checkDiffusivities(diffusionStrings, diffusionFns, parameters, (i) => diffusionField(def, i, i));
   const diagonal = diffusionStrings.every((row, i) => row.every((e, j) => i === j || Number(e) === 0));
 
@@ -82,13 +106,27 @@ export function compileKinetics(definition: unknown): CompiledKinetics {
 
 function checkNames(def: KineticsDefinition): void {
   const seen = new Set<string>();
-  const all = [...def.species.map((s, i) => [s, `species[${i}]`]), ...def.parameters.map((p, i) => [p.name, `parameters[${i}].name`])];
+  const all = [
+    ...def.species.map((s, i) => [s, `species[${i}]`]),
+    ...def.parameters.map((p, i) => [p.name, `parameters[${i}].name`]),
+  ];
   for (const [name, field] of all) {
     if (!NAME_PATTERN.test(name)) {
-      throw new KineticsInputError(field, `${field}: "${name}" is not a valid name (a letter, then letters, digits or _, at most 32 characters).`);
+      throw new KineticsInputError(
+        field,
+        `${field}: "${name}" is not a valid name (a letter, then letters, digits or _, at most 32 characters).`,
+      );
     }
-    if (RESERVED_NAMES.has(name)) throw new KineticsInputError(field, `${field}: "${name}" is a reserved name (a function or constant); choose another.`);
-    if (seen.has(name)) throw new KineticsInputError(field, `${field}: "${name}" is used twice; species and parameter names must be distinct.`);
+    if (RESERVED_NAMES.has(name))
+      throw new KineticsInputError(
+        field,
+        `${field}: "${name}" is a reserved name (a function or constant); choose another.`,
+      );
+    if (seen.has(name))
+      throw new KineticsInputError(
+        field,
+        `${field}: "${name}" is used twice; species and parameter names must be distinct.`,
+      );
     seen.add(name);
   }
 }
@@ -117,7 +155,13 @@ function compileJacobian(nodes: MathNode[], species: string[], table: SymbolTabl
 }
 
 /** ∂f/∂c_j by a central difference, step ∛ε·max(1, |c_j|) (common practice, no source). */
-function centralDifference(f: CompiledExpression, c: ArrayLike<number>, p: ArrayLike<number>, j: number, buf: Float64Array): number {
+function centralDifference(
+  f: CompiledExpression,
+  c: ArrayLike<number>,
+  p: ArrayLike<number>,
+  j: number,
+  buf: Float64Array,
+): number {
   for (let i = 0; i < buf.length; i++) buf[i] = c[i];
   const h = 6.055e-6 * Math.max(1, Math.abs(c[j]));
   buf[j] = c[j] + h;
@@ -131,12 +175,19 @@ function diffusionMatrix(def: KineticsDefinition, n: number): string[][] {
   const d = def.diffusion;
   const full = d.length > 0 && Array.isArray(d[0]);
   if (!full) {
-    if (d.length !== n) throw new KineticsInputError("diffusion", `diffusion has ${d.length} diagonal entries but there are ${n} species.`);
+    if (d.length !== n)
+      throw new KineticsInputError(
+        "diffusion",
+        `diffusion has ${d.length} diagonal entries but there are ${n} species.`,
+      );
     return Array.from({ length: n }, (_, i) => Array.from({ length: n }, (_, j) => (i === j ? String(d[i]) : "0")));
   }
   const rows = d as (string | number)[][];
   if (rows.length !== n || rows.some((r) => !Array.isArray(r) || r.length !== n)) {
-    throw new KineticsInputError("diffusion", `diffusion must be a list of ${n} diagonal entries or a ${n}×${n} matrix.`);
+    throw new KineticsInputError(
+      "diffusion",
+      `diffusion must be a list of ${n} diagonal entries or a ${n}×${n} matrix.`,
+    );
   }
   return rows.map((r) => r.map(String));
 }
@@ -146,15 +197,27 @@ function diffusionMatrix(def: KineticsDefinition, n: number): string[][] {
  * physical transport and makes every short wavelength grow without bound. Checked at the default
  * parameters; off-diagonal (cross-diffusion) entries may be negative.
  */
-function checkDiffusivities(texts: string[][], fns: CompiledExpression[][], parameters: ParameterSpec[], field: (i: number) => string): void {
+function checkDiffusivities(
+  texts: string[][],
+  fns: CompiledExpression[][],
+  parameters: ParameterSpec[],
+  field: (i: number) => string,
+): void {
   const p = Float64Array.from(parameters, (s) => s.default);
   const none = new Float64Array(texts.length);
   texts.forEach((row, i) => {
     const d = fns[i][i](none, p);
     if (d >= 0) return;
     const f = field(i);
-    const what = Number.isFinite(Number(row[i])) ? `${f} is ${d}` : `${f} = ${row[i]} is ${d} at the default parameters`;
-    throw new KineticsInputError(f, Number.isNaN(d) ? `${f} = ${row[i]} is not a number at the default parameters; a diffusivity must be 0 or more.` : `${what}; a diffusivity must be 0 or more.`);
+    const what = Number.isFinite(Number(row[i]))
+      ? `${f} is ${d}`
+      : `${f} = ${row[i]} is ${d} at the default parameters`;
+    throw new KineticsInputError(
+      f,
+      Number.isNaN(d)
+        ? `${f} = ${row[i]} is not a number at the default parameters; a diffusivity must be 0 or more.`
+        : `${what}; a diffusivity must be 0 or more.`,
+    );
   });
 }
 
@@ -165,7 +228,11 @@ function diffusionField(def: KineticsDefinition, i: number, j: number): string {
 function compileDiffusion(text: string, table: SymbolTable, field: string): CompiledExpression {
   const node = parseExpression(text, field);
   for (const s of collectSymbols(node)) {
-    if (table.species.has(s)) throw new KineticsInputError(field, `${field} refers to species ${s}; diffusivities may depend on parameters only.`);
+    if (table.species.has(s))
+      throw new KineticsInputError(
+        field,
+        `${field} refers to species ${s}; diffusivities may depend on parameters only.`,
+      );
   }
   return compileNode(node, { species: new Map(), parameters: table.parameters }, field);
 }

@@ -7,7 +7,9 @@ export function solveCubicReal(a3: number, a2: number, a1: number, a0: number, o
   const scale = Math.max(Math.abs(a3), Math.abs(a2), Math.abs(a1), Math.abs(a0));
   if (scale === 0) return 0;
   if (Math.abs(a3) <= 1e-14 * scale) return solveQuadraticReal(a2, a1, a0, out);
-  const b = a2 / a3, c = a1 / a3, d = a0 / a3;
+  const b = a2 / a3,
+    c = a1 / a3,
+    d = a0 / a3;
   // Depressed cubic t³ + pt + q = 0 with x = t − b/3.
   const p = c - (b * b) / 3;
   const q = (2 * b * b * b) / 27 - (b * c) / 3 + d;

@@ -28,7 +28,11 @@ export const ParameterDefinitionSchema = z.object({
 
 export const KineticsDefinitionSchema = z.object({
   /** kebab-case id; @default "custom" */
-  id: z.string().regex(/^[a-z0-9]+(-[a-z0-9]+)*$/).max(64).optional(),
+  id: z
+    .string()
+    .regex(/^[a-z0-9]+(-[a-z0-9]+)*$/)
+    .max(64)
+    .optional(),
   name: z.string().min(1).max(120),
   source: z.string().max(500).optional(),
   /** @default "non-dimensional" */

@@ -32,18 +32,57 @@ export interface SymbolTable {
 
 // Maps, not object literals: a name such as "constructor" or "toString" must not be found
 // through Object.prototype.
-const FUNCTIONS: ReadonlyMap<string, (...x: number[]) => number> = new Map(Object.entries({
-  exp: Math.exp, log: Math.log, log10: Math.log10, sqrt: Math.sqrt, cbrt: Math.cbrt, abs: Math.abs,
-  sin: Math.sin, cos: Math.cos, tan: Math.tan, sinh: Math.sinh, cosh: Math.cosh, tanh: Math.tanh,
-  asin: Math.asin, acos: Math.acos, atan: Math.atan, min: Math.min, max: Math.max, pow: Math.pow,
-}));
-const CONSTANTS: ReadonlyMap<string, number> = new Map([["pi", Math.PI], ["e", Math.E]]);
+const FUNCTIONS: ReadonlyMap<string, (...x: number[]) => number> = new Map(
+  Object.entries({
+    exp: Math.exp,
+    log: Math.log,
+    log10: Math.log10,
+    sqrt: Math.sqrt,
+    cbrt: Math.cbrt,
+    abs: Math.abs,
+    sin: Math.sin,
+    cos: Math.cos,
+    tan: Math.tan,
+    sinh: Math.sinh,
+    cosh: Math.cosh,
+    tanh: Math.tanh,
+    asin: Math.asin,
+    acos: Math.acos,
+    atan: Math.atan,
+    min: Math.min,
+    max: Math.max,
+    pow: Math.pow,
+  }),
+);
+const CONSTANTS: ReadonlyMap<string, number> = new Map([
+  ["pi", Math.PI],
+  ["e", Math.E],
+]);
 
 /** Names nobody may use for a species or parameter (functions, constants, mathjs literals). */
 export const RESERVED_NAMES: ReadonlySet<string> = new Set([
-  ...FUNCTIONS.keys(), ...CONSTANTS.keys(),
-  "PI", "E", "i", "Infinity", "NaN", "true", "false", "null", "undefined", "end", "to", "in", "mod",
-  "not", "and", "or", "xor", "constructor", "prototype", "__proto__",
+  ...FUNCTIONS.keys(),
+  ...CONSTANTS.keys(),
+  "PI",
+  "E",
+  "i",
+  "Infinity",
+  "NaN",
+  "true",
+  "false",
+  "null",
+  "undefined",
+  "end",
+  "to",
+  "in",
+  "mod",
+  "not",
+  "and",
+  "or",
+  "xor",
+  "constructor",
+  "prototype",
+  "__proto__",
 ]);
 
 /** Names of the functions expressions may call. */
@@ -57,7 +96,10 @@ export function parseExpression(text: unknown, field: string): MathNode {
   const s = String(text);
   if (s.trim() === "") throw new KineticsInputError(field, `${field} is empty.`);
   if (s.length > MAX_EXPRESSION_LENGTH) {
-    throw new KineticsInputError(field, `${field} is ${s.length} characters long; the limit is ${MAX_EXPRESSION_LENGTH}.`);
+    throw new KineticsInputError(
+      field,
+      `${field} is ${s.length} characters long; the limit is ${MAX_EXPRESSION_LENGTH}.`,
+    );
   }
   const brackets = bracketDepth(s);
   if (brackets > MAX_EXPRESSION_DEPTH) throw tooDeep(field, `${brackets} levels`);
@@ -115,7 +157,10 @@ export function compileNode(node: MathNode, table: SymbolTable, field: string): 
     case "ConstantNode": {
       const v = (node as unknown as { value: unknown }).value;
       if (typeof v !== "number" || !Number.isFinite(v)) {
-        throw new KineticsInputError(field, `${field}: only finite numbers are allowed as constants (got ${String(v)}).`);
+        throw new KineticsInputError(
+          field,
+          `${field}: only finite numbers are allowed as constants (got ${String(v)}).`,
+        );
       }
       return () => v;
     }
@@ -136,7 +181,10 @@ export function compileNode(node: MathNode, table: SymbolTable, field: string): 
     case "FunctionNode":
       return compileFunction(node, table, field);
     default:
-      throw new KineticsInputError(field, `${field}: "${node.toString()}" (${node.type}) is not allowed in a reaction or diffusion expression.`);
+      throw new KineticsInputError(
+        field,
+        `${field}: "${node.toString()}" (${node.type}) is not allowed in a reaction or diffusion expression.`,
+      );
   }
 }
 
@@ -151,17 +199,31 @@ function compileOperator(node: MathNode, table: SymbolTable, field: string): Com
   const args = op.args.map((a) => compileNode(a, table, field));
   const [a, b] = args;
   switch (op.fn) {
-    case "unaryMinus": return (c, p) => -a(c, p);
-    case "unaryPlus": return a;
-    case "add": return args.length === 2 ? (c, p) => a(c, p) + b(c, p) : (c, p) => args.reduce((s, f) => s + f(c, p), 0);
-    case "subtract": return (c, p) => a(c, p) - b(c, p);
-    case "multiply": return args.length === 2 ? (c, p) => a(c, p) * b(c, p) : (c, p) => args.reduce((s, f) => s * f(c, p), 1);
-    case "divide": return (c, p) => a(c, p) / b(c, p);
+    case "unaryMinus":
+      return (c, p) => -a(c, p);
+    case "unaryPlus":
+      return a;
+    case "add":
+      return args.length === 2 ? (c, p) => a(c, p) + b(c, p) : (c, p) => args.reduce((s, f) => s + f(c, p), 0);
+    case "subtract":
+      return (c, p) => a(c, p) - b(c, p);
+    case "multiply":
+      return args.length === 2 ? (c, p) => a(c, p) * b(c, p) : (c, p) => args.reduce((s, f) => s * f(c, p), 1);
+    case "divide":
+      return (c, p) => a(c, p) / b(c, p);
     case "pow": {
       const e = op.args[1];
       const ev = e.type === "ConstantNode" ? (e as unknown as { value: number }).value : NaN;
-      if (ev === 2) return (c, p) => { const x = a(c, p); return x * x; };
-      if (ev === 3) return (c, p) => { const x = a(c, p); return x * x * x; };
+      if (ev === 2)
+        return (c, p) => {
+          const x = a(c, p);
+          return x * x;
+        };
+      if (ev === 3)
+        return (c, p) => {
+          const x = a(c, p);
+          return x * x * x;
+        };
       return (c, p) => Math.pow(a(c, p), b(c, p));
     }
     default:
@@ -171,17 +233,29 @@ function compileOperator(node: MathNode, table: SymbolTable, field: string): Com
 
 function compileFunction(node: MathNode, table: SymbolTable, field: string): CompiledExpression {
   const fnNode = node as unknown as { fn: MathNode & { name?: string }; args: MathNode[] };
-  const name = fnNode.fn.type === "SymbolNode" ? fnNode.fn.name ?? "" : "";
+  const name = fnNode.fn.type === "SymbolNode" ? (fnNode.fn.name ?? "") : "";
   const fn = FUNCTIONS.get(name);
   if (!fn) {
-    throw new KineticsInputError(field, `${field}: function "${name || fnNode.fn.toString()}" is not allowed (allowed: ${ALLOWED_FUNCTIONS.join(", ")}).`);
+    throw new KineticsInputError(
+      field,
+      `${field}: function "${name || fnNode.fn.toString()}" is not allowed (allowed: ${ALLOWED_FUNCTIONS.join(", ")}).`,
+    );
   }
   const args = fnNode.args.map((a) => compileNode(a, table, field));
   const arity = name === "min" || name === "max" ? -1 : name === "pow" ? 2 : 1;
   if ((arity > 0 && args.length !== arity) || args.length === 0) {
-    throw new KineticsInputError(field, `${field}: ${name}() takes ${arity > 0 ? arity : "one or more"} argument(s), got ${args.length}.`);
+    throw new KineticsInputError(
+      field,
+      `${field}: ${name}() takes ${arity > 0 ? arity : "one or more"} argument(s), got ${args.length}.`,
+    );
   }
-  if (args.length === 1) { const [a] = args; return (c, p) => fn(a(c, p)); }
-  if (args.length === 2) { const [a, b] = args; return (c, p) => fn(a(c, p), b(c, p)); }
+  if (args.length === 1) {
+    const [a] = args;
+    return (c, p) => fn(a(c, p));
+  }
+  if (args.length === 2) {
+    const [a, b] = args;
+    return (c, p) => fn(a(c, p), b(c, p));
+  }
   return (c, p) => fn(...args.map((f) => f(c, p)));
 }

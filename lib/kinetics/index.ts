@@ -2,8 +2,13 @@
 export { CATALOGUE, getCatalogueKinetics, listCatalogueIds, type CatalogueKinetics } from "./catalogue";
 export { compileKinetics, MAX_DERIVATIVE_NODES } from "./compile-kinetics";
 export {
-  KineticsDefinitionSchema, ParameterDefinitionSchema, MIN_SPECIES, MAX_SPECIES, MAX_PARAMETERS,
-  type KineticsDefinition, type ParameterDefinition,
+  KineticsDefinitionSchema,
+  ParameterDefinitionSchema,
+  MIN_SPECIES,
+  MAX_SPECIES,
+  MAX_PARAMETERS,
+  type KineticsDefinition,
+  type ParameterDefinition,
 } from "./definition-schema";
 export { KineticsAnalysisError, KineticsInputError, KineticsLimitError, type KineticsErrorCode } from "./errors";
 export { ALLOWED_FUNCTIONS, MAX_EXPRESSION_LENGTH, MAX_EXPRESSION_NODES, RESERVED_NAMES } from "./expression-compiler";

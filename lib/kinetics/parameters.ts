@@ -55,7 +55,10 @@ export function parameterIndex(kinetics: Pick<CompiledKinetics, "parameters">, n
 }
 
 /** The parameter vector as a plain name → value object (for results). */
-export function parametersToRecord(kinetics: Pick<CompiledKinetics, "parameters">, p: ArrayLike<number>): Record<string, number> {
+export function parametersToRecord(
+  kinetics: Pick<CompiledKinetics, "parameters">,
+  p: ArrayLike<number>,
+): Record<string, number> {
   const out: Record<string, number> = {};
   kinetics.parameters.forEach((s, i) => (out[s.name] = p[i]));
   return out;

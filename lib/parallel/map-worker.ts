@@ -13,8 +13,11 @@ async function resolve(task: MapTask): Promise<CompiledKinetics> {
   type CompileModule = typeof import("../kinetics/compile-kinetics");
   // Under the tsx CommonJS hook (worker-bootstrap.cjs) only require() sees .ts files; a
   // compiled ESM build has no require, and import() resolves there.
-  // eslint-disable-next-line @typescript-eslint/no-require-imports -- see above
-  const mod: CompileModule = typeof require === "function" ? require("../kinetics/compile-kinetics") : await import("../kinetics/compile-kinetics");
+  const mod: CompileModule =
+    typeof require === "function"
+      ? // eslint-disable-next-line @typescript-eslint/no-require-imports -- see above
+        require("../kinetics/compile-kinetics")
+      : await import("../kinetics/compile-kinetics");
   return mod.compileKinetics(task.source.definition);
 }
 
@@ -30,7 +33,11 @@ parentPort?.on("message", async (task: MapTask) => {
     }
     const rows = computeMapRows(kinetics, task.plan, task.y0, task.y1, task.startedAtMs);
     reply = { id: task.id, ok: true, ...rows };
-    parentPort!.postMessage(reply, [rows.classes.buffer as ArrayBuffer, rows.wavelength.buffer as ArrayBuffer, rows.sigmaStar.buffer as ArrayBuffer]);
+    parentPort!.postMessage(reply, [
+      rows.classes.buffer as ArrayBuffer,
+      rows.wavelength.buffer as ArrayBuffer,
+      rows.sigmaStar.buffer as ArrayBuffer,
+    ]);
   } catch (err) {
     const e = err as Error & { field?: string };
     reply = { id: task.id, ok: false, error: { name: e.name, field: e.field ?? "", message: e.message } };

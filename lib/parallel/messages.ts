@@ -13,5 +13,13 @@ export interface MapTask {
 
 /** Worker → main: the rows, or the error (class name, field, message) to rethrow. */
 export type MapReply =
-  | { id: number; ok: true; y0: number; y1: number; classes: Uint8Array; wavelength: Float64Array; sigmaStar: Float64Array }
+  | {
+      id: number;
+      ok: true;
+      y0: number;
+      y1: number;
+      classes: Uint8Array;
+      wavelength: Float64Array;
+      sigmaStar: Float64Array;
+    }
   | { id: number; ok: false; error: { name: string; field: string; message: string } };

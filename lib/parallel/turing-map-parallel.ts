@@ -18,7 +18,11 @@ export interface ParallelMapOptions {
 }
 
 /** Computes a Turing map, in parallel over rows when workers are available. */
-export async function computeTuringMapParallel(source: KineticsSource, options: TuringMapOptions, parallel: ParallelMapOptions = {}): Promise<TuringMapResult> {
+export async function computeTuringMapParallel(
+  source: KineticsSource,
+  options: TuringMapOptions,
+  parallel: ParallelMapOptions = {},
+): Promise<TuringMapResult> {
   const t0 = Date.now();
   const kinetics = resolveKinetics(source);
   const plan = planTuringMap(kinetics, options);
@@ -33,10 +37,12 @@ export async function computeTuringMapParallel(source: KineticsSource, options: 
     const jobs: Promise<MapRows>[] = [];
     for (let y0 = 0; y0 < plan.y.n; y0 += step) {
       const y1 = Math.min(plan.y.n, y0 + step);
-      jobs.push(pool.run({ source, plan, y0, y1, startedAtMs: t0 }).then((reply) => {
-        if (reply.ok) return reply;
-        throw rebuildError(reply.error);
-      }));
+      jobs.push(
+        pool.run({ source, plan, y0, y1, startedAtMs: t0 }).then((reply) => {
+          if (reply.ok) return reply;
+          throw rebuildError(reply.error);
+        }),
+      );
     }
     const blocks = await Promise.all(jobs);
     return summariseTuringMap(kinetics, plan, blocks, Date.now() - t0, pool.size);

@@ -51,7 +51,8 @@ export async function createMapWorkerPool(size = defaultWorkerCount()): Promise<
   let nextId = 1;
   const pump = () => {
     while (idle.length && queue.length) {
-      const w = idle.pop()!, job = queue.shift()!;
+      const w = idle.pop()!,
+        job = queue.shift()!;
       pending.set(job.task.id, { resolve: job.resolve, reject: job.reject, worker: w });
       w.postMessage(job.task);
     }
@@ -66,7 +67,11 @@ export async function createMapWorkerPool(size = defaultWorkerCount()): Promise<
       pump();
     });
     w.on("error", (err) => {
-      for (const [id, job] of pending) if (job.worker === w) { pending.delete(id); job.reject(err); }
+      for (const [id, job] of pending)
+        if (job.worker === w) {
+          pending.delete(id);
+          job.reject(err);
+        }
     });
   }
   return {
@@ -86,8 +91,17 @@ export async function createMapWorkerPool(size = defaultWorkerCount()): Promise<
 function waitReady(w: Worker): Promise<void> {
   return new Promise((resolve, reject) => {
     const timer = setTimeout(() => reject(new Error("worker start timed out")), WORKER_START_TIMEOUT_MS);
-    w.once("message", () => { clearTimeout(timer); resolve(); });
-    w.once("error", (e) => { clearTimeout(timer); reject(e); });
-    w.once("exit", (code) => { clearTimeout(timer); reject(new Error(`worker exited with ${code}`)); });
+    w.once("message", () => {
+      clearTimeout(timer);
+      resolve();
+    });
+    w.once("error", (e) => {
+      clearTimeout(timer);
+      reject(e);
+    });
+    w.once("exit", (code) => {
+      clearTimeout(timer);
+      reject(new Error(`worker exited with ${code}`));
+    });
   });
 }

@@ -38,7 +38,8 @@ function isLocalMaximum(radial: RadialSpectrum, r: number): boolean {
 function localBackground(radial: RadialSpectrum, r: number, fitFrom: number, last: number, global: PowerLaw): number {
   const ex = Math.max(3, Math.ceil(r / 4));
   // An octave either side, but at least 8 rings beyond the left-out band on each side.
-  const from = Math.max(fitFrom, Math.min(Math.floor(r / 2), r - ex - 8)), to = Math.min(last, Math.max(Math.ceil(2 * r), r + ex + 8));
+  const from = Math.max(fitFrom, Math.min(Math.floor(r / 2), r - ex - 8)),
+    to = Math.min(last, Math.max(Math.ceil(2 * r), r + ex + 8));
   if (r - ex - from < 4 || to - (r + ex) < 4) return evaluatePowerLaw(global, radial.frequencyPerPx[r]);
   const bent = localLogQuadraticAt(radial.frequencyPerPx, radial.power, from, to, r - ex, r + ex, r);
   return Number.isFinite(bent) ? bent : evaluatePowerLaw(global, radial.frequencyPerPx[r]);
@@ -48,7 +49,11 @@ function localBackground(radial: RadialSpectrum, r: number, fitFrom: number, las
  * Finds and measures the dominant ring of a power spectrum. `searchRings` restricts the search
  * (used on sub-regions and tiles, which look near the whole region's peak).
  */
-export function analyseSpectrum(s: PowerSpectrum, lowCutRings: number, searchRings?: [number, number]): SpectrumAnalysis {
+export function analyseSpectrum(
+  s: PowerSpectrum,
+  lowCutRings: number,
+  searchRings?: [number, number],
+): SpectrumAnalysis {
   const radial = computeRadialSpectrum(s);
   const last = radial.power.length - 1;
   const fitFrom = Math.max(1, Math.ceil(lowCutRings));
@@ -58,7 +63,9 @@ export function analyseSpectrum(s: PowerSpectrum, lowCutRings: number, searchRin
   // The peak: the local maximum of the radial spectrum that stands highest above a background
   // fitted around it without it (a slope of the background is never a peak).
   const global = fitPowerLaw(radial.frequencyPerPx, radial.power, fitFrom, last, -1, -1);
-  const peakRing = findPeakRing(radial, searchFrom, Math.max(searchFrom, searchTo), (r) => localBackground(radial, r, fitFrom, last, global));
+  const peakRing = findPeakRing(radial, searchFrom, Math.max(searchFrom, searchTo), (r) =>
+    localBackground(radial, r, fitFrom, last, global),
+  );
   // The background of the whole spectrum without the peak, for its width, the angular statistics and the plot.
   let bg = fitPowerLaw(radial.frequencyPerPx, radial.power, fitFrom, last, peakRing - 3, peakRing + 3);
   let halfWidthRings = peakHalfWidthRings(radial, peakRing, bg, last);
@@ -75,5 +82,18 @@ export function analyseSpectrum(s: PowerSpectrum, lowCutRings: number, searchRin
   const frequencyPerPx = symmetry === "labyrinth" ? fRing : f2d;
   const local = localBackground(radial, peakRing, fitFrom, last, bg);
   const significance = isLocalMaximum(radial, peakRing) ? radial.power[peakRing] / local : 0;
-  return { radial, background: bg, peakRing, refinedRing, halfWidthRings, peak2d, frequencyPerPx, significance, angular, symmetry, searchFrom, searchTo };
+  return {
+    radial,
+    background: bg,
+    peakRing,
+    refinedRing,
+    halfWidthRings,
+    peak2d,
+    frequencyPerPx,
+    significance,
+    angular,
+    symmetry,
+    searchFrom,
+    searchTo,
+  };
 }

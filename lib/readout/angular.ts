@@ -23,7 +23,8 @@ export interface AngularStats {
 }
 
 export function computeAngularStats(s: PowerSpectrum, ringLo: number, ringHi: number, bg: PowerLaw): AngularStats {
-  const c = [0, 0, 0, 0, 0, 0, 0], sn = [0, 0, 0, 0, 0, 0, 0];
+  const c = [0, 0, 0, 0, 0, 0, 0],
+    sn = [0, 0, 0, 0, 0, 0, 0];
   let total = 0;
   const angularPower = new Float64Array(180);
   const { kyMax, kxMax } = annulusBox(s, ringHi);
@@ -39,7 +40,10 @@ export function computeAngularStats(s: PowerSpectrum, ringLo: number, ringHi: nu
       const w = columnWeight(kx, s.padWidth) * Math.max(0, s.power[ky * s.halfWidth + kx] - evaluatePowerLaw(bg, f));
       if (w === 0) continue;
       const theta = Math.atan2(fy, fx);
-      for (const m of [2, 4, 6]) { c[m] += w * Math.cos(m * theta); sn[m] += w * Math.sin(m * theta); }
+      for (const m of [2, 4, 6]) {
+        c[m] += w * Math.cos(m * theta);
+        sn[m] += w * Math.sin(m * theta);
+      }
       total += w;
       const deg = ((theta * 180) / Math.PI + 180) % 180;
       angularPower[Math.min(179, Math.floor(deg))] += w;

@@ -23,10 +23,18 @@ export interface AutocorrelationCheck {
  * at a = (2/√3)λ along a lattice vector (hexagonal spots: geometry), and for an isotropic ring the
  * angular average is J₀(2πr/λ), first maximum at r = 7.0156λ/(2π) ≈ 1.117λ.
  */
-export function checkAutocorrelation(s: PowerSpectrum, frequencyPerPx: number, symmetry: PatternSymmetry, orientationDeg: number, orientation6Deg: number): AutocorrelationCheck | null {
+export function checkAutocorrelation(
+  s: PowerSpectrum,
+  frequencyPerPx: number,
+  symmetry: PatternSymmetry,
+  orientationDeg: number,
+  orientation6Deg: number,
+): AutocorrelationCheck | null {
   const mx = Math.min(s.padWidth / 2, Math.max(8, nextPowerOfTwo(Math.ceil(4 * frequencyPerPx * s.padWidth))));
   const my = Math.min(s.padHeight / 2, Math.max(8, nextPowerOfTwo(Math.ceil(4 * frequencyPerPx * s.padHeight))));
-  const width = 2 * mx, height = 2 * my, halfWidth = mx + 1;
+  const width = 2 * mx,
+    height = 2 * my,
+    halfWidth = mx + 1;
   const data = new Float64Array(2 * halfWidth * height);
   for (let ky = -my; ky < my; ky++) {
     const row = ((ky + height) % height) * halfWidth;
@@ -37,19 +45,32 @@ export function checkAutocorrelation(s: PowerSpectrum, frequencyPerPx: number, s
   }
   const half: HalfSpectrum = { width, height, halfWidth, data };
   const c = inverseRealFft2d(half);
-  const sx = s.padWidth / width, sy = s.padHeight / height; // px of lag per grid step
+  const sx = s.padWidth / width,
+    sy = s.padHeight / height; // px of lag per grid step
   const sample = (lx: number, ly: number): number => {
-    const gx = lx / sx, gy = ly / sy;
-    const x0 = Math.floor(gx), y0 = Math.floor(gy), tx = gx - x0, ty = gy - y0;
-    const at = (x: number, y: number) => c[(((y % height) + height) % height) * width + (((x % width) + width) % width)];
-    return (1 - ty) * ((1 - tx) * at(x0, y0) + tx * at(x0 + 1, y0)) + ty * ((1 - tx) * at(x0, y0 + 1) + tx * at(x0 + 1, y0 + 1));
+    const gx = lx / sx,
+      gy = ly / sy;
+    const x0 = Math.floor(gx),
+      y0 = Math.floor(gy),
+      tx = gx - x0,
+      ty = gy - y0;
+    const at = (x: number, y: number) =>
+      c[(((y % height) + height) % height) * width + (((x % width) + width) % width)];
+    return (
+      (1 - ty) * ((1 - tx) * at(x0, y0) + tx * at(x0 + 1, y0)) +
+      ty * ((1 - tx) * at(x0, y0 + 1) + tx * at(x0 + 1, y0 + 1))
+    );
   };
   const lambda = 1 / frequencyPerPx;
   let direction: AutocorrelationCheck["direction"] = "angular-average";
   let angles: number[] = [];
-  if (symmetry === "stripes") { direction = "wave-vector"; angles = [orientationDeg]; }
-  else if (symmetry === "hexagonal") { direction = "lattice-vector"; angles = [0, 60, 120].map((d) => orientation6Deg + 30 + d); }
-  else for (let d = 0; d < 180; d += 5) angles.push(d);
+  if (symmetry === "stripes") {
+    direction = "wave-vector";
+    angles = [orientationDeg];
+  } else if (symmetry === "hexagonal") {
+    direction = "lattice-vector";
+    angles = [0, 60, 120].map((d) => orientation6Deg + 30 + d);
+  } else for (let d = 0; d < 180; d += 5) angles.push(d);
   const dr = lambda / 50;
   const steps = Math.ceil((2.5 * lambda) / dr);
   const profile = new Float64Array(steps + 1);
@@ -68,6 +89,7 @@ export function checkAutocorrelation(s: PowerSpectrum, frequencyPerPx: number, s
   const den = profile[k - 1] - 2 * profile[k] + profile[k + 1];
   const offset = den < 0 ? (0.5 * (profile[k - 1] - profile[k + 1])) / den : 0;
   const firstMaximumPx = (k + offset) * dr;
-  const factor = symmetry === "stripes" ? 1 : symmetry === "hexagonal" ? Math.sqrt(3) / 2 : (2 * Math.PI) / J0_FIRST_MAX;
+  const factor =
+    symmetry === "stripes" ? 1 : symmetry === "hexagonal" ? Math.sqrt(3) / 2 : (2 * Math.PI) / J0_FIRST_MAX;
   return { firstMaximumPx, impliedWavelengthPx: firstMaximumPx * factor, lagStepPx: Math.max(sx, sy), direction };
 }

@@ -13,16 +13,32 @@ export function evaluatePowerLaw(p: PowerLaw, f: number): number {
   return Math.exp(p.logA + p.beta * Math.log(f));
 }
 
-export function fitPowerLaw(freq: Float64Array, power: Float64Array, from: number, to: number, excludeFrom: number, excludeTo: number): PowerLaw {
+export function fitPowerLaw(
+  freq: Float64Array,
+  power: Float64Array,
+  from: number,
+  to: number,
+  excludeFrom: number,
+  excludeTo: number,
+): PowerLaw {
   const use = new Uint8Array(power.length);
   for (let r = from; r <= to; r++) if ((r < excludeFrom || r > excludeTo) && power[r] > 0 && freq[r] > 0) use[r] = 1;
   let fit: PowerLaw = { logA: 0, beta: 0 };
   for (let pass = 0; pass < 3; pass++) {
-    let n = 0, sx = 0, sy = 0, sxx = 0, sxy = 0;
+    let n = 0,
+      sx = 0,
+      sy = 0,
+      sxx = 0,
+      sxy = 0;
     for (let r = from; r <= to; r++) {
       if (!use[r]) continue;
-      const x = Math.log(freq[r]), y = Math.log(power[r]);
-      n++; sx += x; sy += y; sxx += x * x; sxy += x * y;
+      const x = Math.log(freq[r]),
+        y = Math.log(power[r]);
+      n++;
+      sx += x;
+      sy += y;
+      sxx += x * x;
+      sxy += x * y;
     }
     if (n === 0) return fit;
     const d = n * sxx - sx * sx;
@@ -46,14 +62,38 @@ export function fitPowerLaw(freq: Float64Array, power: Float64Array, from: numbe
  * roll-off, a residual illumination), where one power law would leave the middle above its chord.
  * Returns the background at ring r's frequency, or NaN with fewer than 4 usable rings.
  */
-export function localLogQuadraticAt(freq: Float64Array, power: Float64Array, from: number, to: number, excludeFrom: number, excludeTo: number, r: number): number {
+export function localLogQuadraticAt(
+  freq: Float64Array,
+  power: Float64Array,
+  from: number,
+  to: number,
+  excludeFrom: number,
+  excludeTo: number,
+  r: number,
+): number {
   const x0 = Math.log(freq[r]);
   // Normal equations of the centred fit (x = ln f − ln f_r), so the value at r is c₀.
-  let n = 0, s1 = 0, s2 = 0, s3 = 0, s4 = 0, t0 = 0, t1 = 0, t2 = 0;
+  let n = 0,
+    s1 = 0,
+    s2 = 0,
+    s3 = 0,
+    s4 = 0,
+    t0 = 0,
+    t1 = 0,
+    t2 = 0;
   for (let k = from; k <= to; k++) {
     if ((k >= excludeFrom && k <= excludeTo) || !(power[k] > 0) || !(freq[k] > 0)) continue;
-    const x = Math.log(freq[k]) - x0, y = Math.log(power[k]), x2 = x * x;
-    n++; s1 += x; s2 += x2; s3 += x2 * x; s4 += x2 * x2; t0 += y; t1 += x * y; t2 += x2 * y;
+    const x = Math.log(freq[k]) - x0,
+      y = Math.log(power[k]),
+      x2 = x * x;
+    n++;
+    s1 += x;
+    s2 += x2;
+    s3 += x2 * x;
+    s4 += x2 * x2;
+    t0 += y;
+    t1 += x * y;
+    t2 += x2 * y;
   }
   if (n < 4) return NaN;
   // Solve [[n, s1, s2], [s1, s2, s3], [s2, s3, s4]] c = [t0, t1, t2] for c₀ by Cramer's rule.

@@ -3,18 +3,28 @@
  * Used when a region is larger than the analysis limit: the wavelength in pixels divides by the
  * factor and the pixel size multiplies by it, so the wavelength in µm is unchanged.
  */
-export function binPixels(data: Float32Array, width: number, height: number, included: Uint8Array | null, factor: number) {
+export function binPixels(
+  data: Float32Array,
+  width: number,
+  height: number,
+  included: Uint8Array | null,
+  factor: number,
+) {
   const w = Math.floor(width / factor);
   const h = Math.floor(height / factor);
   const out = new Float32Array(w * h);
   const inc = included ? new Uint8Array(w * h) : null;
   for (let by = 0; by < h; by++) {
     for (let bx = 0; bx < w; bx++) {
-      let s = 0, n = 0;
+      let s = 0,
+        n = 0;
       for (let y = by * factor; y < (by + 1) * factor; y++) {
         for (let x = bx * factor; x < (bx + 1) * factor; x++) {
           const i = y * width + x;
-          if (!included || included[i]) { s += data[i]; n++; }
+          if (!included || included[i]) {
+            s += data[i];
+            n++;
+          }
         }
       }
       out[by * w + bx] = n > 0 ? s / n : 0;

@@ -1,9 +1,14 @@
 /** Why a readout could not be made; the app maps `too_large` to 413 and the rest to 422 (or 400 for `bad_option`). */
-export type ReadoutErrorCode = "zero_area_roi" | "missing_pixel_size" | "no_variation" | "too_large" | "bad_option" | "too_small";
+export type ReadoutErrorCode =
+  "zero_area_roi" | "missing_pixel_size" | "no_variation" | "too_large" | "bad_option" | "too_small";
 
 /** A typed readout error; `field` names the option or input at fault. */
 export class ReadoutError extends Error {
-  constructor(public code: ReadoutErrorCode, message: string, public field?: string) {
+  constructor(
+    public code: ReadoutErrorCode,
+    message: string,
+    public field?: string,
+  ) {
     super(message);
     this.name = "ReadoutError";
   }
@@ -11,8 +16,11 @@ export class ReadoutError extends Error {
 
 export const MESSAGES = {
   missingPixelSize: "pixelSizeUm is required: the image has no pixel size in its metadata, so give it in µm/px.",
-  zeroAreaRoi: "The region of interest contains no pixels: give a rectangle or polygon with a positive area inside the image.",
-  noVariation: "The region of interest has no intensity variation (all included pixels are equal after background flattening), so there is no pattern to read.",
-  tooSmall: (w: number, h: number, min: number) => `The region of interest (${w}×${h} px) is too small: both sides must be at least ${min} px.`,
+  zeroAreaRoi:
+    "The region of interest contains no pixels: give a rectangle or polygon with a positive area inside the image.",
+  noVariation:
+    "The region of interest has no intensity variation (all included pixels are equal after background flattening), so there is no pattern to read.",
+  tooSmall: (w: number, h: number, min: number) =>
+    `The region of interest (${w}×${h} px) is too small: both sides must be at least ${min} px.`,
   tooLarge: (px: number, max: number) => `The image has ${px} pixels, above the readout limit of ${max} pixels.`,
 } as const;

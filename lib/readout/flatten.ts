@@ -6,34 +6,60 @@ export type FlattenMethod = "plane" | "blur" | "none";
  * (normal equations, 3×3, solved by Cramer's rule).
  */
 export function subtractPlane(data: Float32Array, width: number, height: number, included: Uint8Array | null): void {
-  let n = 0, sx = 0, sy = 0, sxx = 0, syy = 0, sxy = 0, sz = 0, sxz = 0, syz = 0;
+  let n = 0,
+    sx = 0,
+    sy = 0,
+    sxx = 0,
+    syy = 0,
+    sxy = 0,
+    sz = 0,
+    sxz = 0,
+    syz = 0;
   if (included) {
     for (let y = 0; y < height; y++) {
       const row = y * width;
       for (let x = 0; x < width; x++) {
         if (!included[row + x]) continue;
         const z = data[row + x];
-        n++; sx += x; sy += y; sxx += x * x; syy += y * y; sxy += x * y; sz += z; sxz += x * z; syz += y * z;
+        n++;
+        sx += x;
+        sy += y;
+        sxx += x * x;
+        syy += y * y;
+        sxy += x * y;
+        sz += z;
+        sxz += x * z;
+        syz += y * z;
       }
     }
   } else {
     // Full grid: the coordinate sums have closed forms, so one pass only sums z and x·z per row.
     n = width * height;
-    const Sx = ((width - 1) * width) / 2, Sxx = ((width - 1) * width * (2 * width - 1)) / 6;
-    const Sy = ((height - 1) * height) / 2, Syy = ((height - 1) * height * (2 * height - 1)) / 6;
-    sx = Sx * height; sxx = Sxx * height; sy = Sy * width; syy = Syy * width; sxy = Sx * Sy;
+    const Sx = ((width - 1) * width) / 2,
+      Sxx = ((width - 1) * width * (2 * width - 1)) / 6;
+    const Sy = ((height - 1) * height) / 2,
+      Syy = ((height - 1) * height * (2 * height - 1)) / 6;
+    sx = Sx * height;
+    sxx = Sxx * height;
+    sy = Sy * width;
+    syy = Syy * width;
+    sxy = Sx * Sy;
     for (let y = 0; y < height; y++) {
       const row = y * width;
-      let rz = 0, rxz = 0;
+      let rz = 0,
+        rxz = 0;
       for (let x = 0; x < width; x++) {
         const z = data[row + x];
         rz += z;
         rxz += x * z;
       }
-      sz += rz; sxz += rxz; syz += y * rz;
+      sz += rz;
+      sxz += rxz;
+      syz += y * rz;
     }
   }
-  const det3 = (a: number[]) => a[0] * (a[4] * a[8] - a[5] * a[7]) - a[1] * (a[3] * a[8] - a[5] * a[6]) + a[2] * (a[3] * a[7] - a[4] * a[6]);
+  const det3 = (a: number[]) =>
+    a[0] * (a[4] * a[8] - a[5] * a[7]) - a[1] * (a[3] * a[8] - a[5] * a[6]) + a[2] * (a[3] * a[7] - a[4] * a[6]);
   const m = [n, sx, sy, sx, sxx, sxy, sy, sxy, syy];
   const d = det3(m);
   if (!(Math.abs(d) > 1e-9 * Math.max(1, n) ** 3)) {
@@ -51,13 +77,22 @@ export function subtractPlane(data: Float32Array, width: number, height: number,
 }
 
 /** One pass of a running-box mean of half-width r along rows (stride 1) or columns (stride width). */
-function boxPass(src: Float32Array, dst: Float32Array, len: number, count: number, step: number, stride: number, r: number): void {
+function boxPass(
+  src: Float32Array,
+  dst: Float32Array,
+  len: number,
+  count: number,
+  step: number,
+  stride: number,
+  r: number,
+): void {
   for (let line = 0; line < count; line++) {
     const base = line * stride;
     let acc = 0;
     for (let k = 0; k <= Math.min(r, len - 1); k++) acc += src[base + k * step];
     for (let k = 0; k < len; k++) {
-      const lo = k - r, hi = k + r;
+      const lo = k - r,
+        hi = k + r;
       dst[base + k * step] = acc / (Math.min(hi, len - 1) - Math.max(lo, 0) + 1);
       if (hi + 1 < len) acc += src[base + (hi + 1) * step];
       if (lo >= 0) acc -= src[base + lo * step];
@@ -83,7 +118,13 @@ function blur(data: Float32Array, width: number, height: number, sigmaPx: number
  * Subtracts a heavily blurred copy (normalised convolution, so excluded pixels do not leak in:
  * Knutsson & Westin 1993, CVPR). σ should be several wavelengths so the pattern survives.
  */
-export function subtractBlur(data: Float32Array, width: number, height: number, included: Uint8Array | null, sigmaPx: number): void {
+export function subtractBlur(
+  data: Float32Array,
+  width: number,
+  height: number,
+  included: Uint8Array | null,
+  sigmaPx: number,
+): void {
   if (!included) {
     const bg = blur(data, width, height, sigmaPx);
     for (let i = 0; i < data.length; i++) data[i] -= bg[i];
@@ -91,7 +132,11 @@ export function subtractBlur(data: Float32Array, width: number, height: number, 
   }
   const masked = new Float32Array(data.length);
   const weight = new Float32Array(data.length);
-  for (let i = 0; i < data.length; i++) if (included[i]) { masked[i] = data[i]; weight[i] = 1; }
+  for (let i = 0; i < data.length; i++)
+    if (included[i]) {
+      masked[i] = data[i];
+      weight[i] = 1;
+    }
   const num = blur(masked, width, height, sigmaPx);
   const den = blur(weight, width, height, sigmaPx);
   for (let i = 0; i < data.length; i++) data[i] -= den[i] > 1e-6 ? num[i] / den[i] : 0;
@@ -99,8 +144,13 @@ export function subtractBlur(data: Float32Array, width: number, height: number, 
 
 /** Subtracts the mean of the included pixels, sets excluded pixels to 0; returns the SD (n − 1). */
 export function subtractMean(data: Float32Array, included: Uint8Array | null): number {
-  let n = 0, s = 0;
-  for (let i = 0; i < data.length; i++) if (!included || included[i]) { s += data[i]; n++; }
+  let n = 0,
+    s = 0;
+  for (let i = 0; i < data.length; i++)
+    if (!included || included[i]) {
+      s += data[i];
+      n++;
+    }
   const mean = n > 0 ? s / n : 0;
   let ss = 0;
   for (let i = 0; i < data.length; i++) {

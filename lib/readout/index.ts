@@ -1,6 +1,12 @@
 export { readWavelength } from "./read-wavelength";
 export type { WavelengthReadout, UncertaintyMethod } from "./result";
-export { resolveReadoutSettings, MAX_READOUT_PIXELS, DEFAULT_SIGNIFICANCE_THRESHOLD, type ReadoutOptions, type ReadoutSettings } from "./options";
+export {
+  resolveReadoutSettings,
+  MAX_READOUT_PIXELS,
+  DEFAULT_SIGNIFICANCE_THRESHOLD,
+  type ReadoutOptions,
+  type ReadoutSettings,
+} from "./options";
 export { ReadoutError, MESSAGES as READOUT_MESSAGES, type ReadoutErrorCode } from "./errors";
 export type { Roi, RectRoi, PolygonRoi } from "./roi";
 export type { PatternSymmetry } from "./angular";

@@ -24,7 +24,13 @@ export interface LocalWavelengthMap {
   /** Row-major rows × columns, µm; null where the tile shows no significant period. */
   wavelengthUm: Array<number | null>;
   /** Mean and SD of the tiles at each position along the axis (µm). */
-  profile: { axis: "x" | "y"; positionUm: number[]; wavelengthUm: Array<number | null>; sdUm: Array<number | null>; tiles: number[] };
+  profile: {
+    axis: "x" | "y";
+    positionUm: number[];
+    wavelengthUm: Array<number | null>;
+    sdUm: Array<number | null>;
+    tiles: number[];
+  };
   /** The whole-region wavelength the tiles searched around (µm), null if none. */
   globalWavelengthUm: number | null;
 }
@@ -36,14 +42,25 @@ export function mapLocalWavelength(image: GreyImage, options: LocalWavelengthOpt
   const region = prepareRegion(image, settings);
   const bin = region.binFactor;
   const lambdaPx = global.wavelengthPx !== null ? global.wavelengthPx / bin : null;
-  const tile = Math.min(options.tileSizePx ?? Math.max(32, nextPowerOfTwo(Math.ceil(6 * (lambdaPx ?? 8)))), region.width, region.height);
+  const tile = Math.min(
+    options.tileSizePx ?? Math.max(32, nextPowerOfTwo(Math.ceil(6 * (lambdaPx ?? 8)))),
+    region.width,
+    region.height,
+  );
   const stride = Math.max(1, Math.floor(tile / 2));
   const columns = Math.floor((region.width - tile) / stride) + 1;
   const rows = Math.floor((region.height - tile) / stride) + 1;
   const axis = options.axis ?? "x";
   const out: LocalWavelengthMap = {
-    tileSizePx: tile * bin, stridePx: stride * bin, columns, rows, centresXPx: [], centresYPx: [], wavelengthUm: [],
-    profile: { axis, positionUm: [], wavelengthUm: [], sdUm: [], tiles: [] }, globalWavelengthUm: global.wavelengthUm,
+    tileSizePx: tile * bin,
+    stridePx: stride * bin,
+    columns,
+    rows,
+    centresXPx: [],
+    centresYPx: [],
+    wavelengthUm: [],
+    profile: { axis, positionUm: [], wavelengthUm: [], sdUm: [], tiles: [] },
+    globalWavelengthUm: global.wavelengthUm,
   };
   for (let c = 0; c < columns; c++) out.centresXPx.push(region.x0 + (c * stride + tile / 2) * bin);
   for (let r = 0; r < rows; r++) out.centresYPx.push(region.y0 + (r * stride + tile / 2) * bin);
@@ -62,7 +79,10 @@ export function mapLocalWavelength(image: GreyImage, options: LocalWavelengthOpt
       if (v !== null) vals.push(v);
     }
     const mean = vals.length ? vals.reduce((s, v) => s + v, 0) / vals.length : null;
-    const sd = vals.length > 1 && mean !== null ? Math.sqrt(vals.reduce((s, v) => s + (v - mean) ** 2, 0) / (vals.length - 1)) : null;
+    const sd =
+      vals.length > 1 && mean !== null
+        ? Math.sqrt(vals.reduce((s, v) => s + (v - mean) ** 2, 0) / (vals.length - 1))
+        : null;
     out.profile.positionUm.push((axis === "x" ? out.centresXPx[k] : out.centresYPx[k]) * settings.pixelSizeUm);
     out.profile.wavelengthUm.push(mean);
     out.profile.sdUm.push(sd);

@@ -16,7 +16,16 @@ export interface TileMeasurement {
  * ±`band` (fraction) of `nearFrequencyPerPx`. Returns null when fewer than half its pixels are
  * included or the peak is below the significance threshold.
  */
-export function measureTile(region: PreparedRegion, x: number, y: number, w: number, h: number, settings: ReadoutSettings, nearFrequencyPerPx: number, band: number): TileMeasurement | null {
+export function measureTile(
+  region: PreparedRegion,
+  x: number,
+  y: number,
+  w: number,
+  h: number,
+  settings: ReadoutSettings,
+  nearFrequencyPerPx: number,
+  band: number,
+): TileMeasurement | null {
   const data = new Float32Array(w * h);
   const inc = region.included ? new Uint8Array(w * h) : null;
   let count = 0;

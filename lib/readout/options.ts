@@ -51,21 +51,26 @@ function bad(field: string, message: string): never {
 }
 
 function checkNumber(field: string, v: number, lo: number, hi: number, unit = ""): void {
-  if (!Number.isFinite(v) || v < lo || v > hi) bad(field, `${field} must be a number from ${lo} to ${hi}${unit} (got ${v}).`);
+  if (!Number.isFinite(v) || v < lo || v > hi)
+    bad(field, `${field} must be a number from ${lo} to ${hi}${unit} (got ${v}).`);
 }
 
 /** Validates and defaults the options once, before any pixel is touched. */
 export function resolveReadoutSettings(o: ReadoutOptions, imageWidth: number, imageHeight: number): ReadoutSettings {
   const maxPixels = o.maxPixels ?? MAX_READOUT_PIXELS;
-  if (imageWidth * imageHeight > maxPixels) throw new ReadoutError("too_large", MESSAGES.tooLarge(imageWidth * imageHeight, maxPixels), "image");
-  if (o.pixelSizeUm === undefined || o.pixelSizeUm === null) throw new ReadoutError("missing_pixel_size", MESSAGES.missingPixelSize, "pixelSizeUm");
+  if (imageWidth * imageHeight > maxPixels)
+    throw new ReadoutError("too_large", MESSAGES.tooLarge(imageWidth * imageHeight, maxPixels), "image");
+  if (o.pixelSizeUm === undefined || o.pixelSizeUm === null)
+    throw new ReadoutError("missing_pixel_size", MESSAGES.missingPixelSize, "pixelSizeUm");
   if (!Number.isFinite(o.pixelSizeUm) || o.pixelSizeUm <= 0 || o.pixelSizeUm > 1e6) {
     bad("pixelSizeUm", `pixelSizeUm must be a number above 0 and at most 1000000 µm/px (got ${o.pixelSizeUm}).`);
   }
   const flatten = o.flatten ?? "plane";
-  if (!["plane", "blur", "none"].includes(flatten)) bad("flatten", `flatten must be "plane", "blur" or "none" (got ${String(flatten)}).`);
+  if (!["plane", "blur", "none"].includes(flatten))
+    bad("flatten", `flatten must be "plane", "blur" or "none" (got ${String(flatten)}).`);
   const window = o.window ?? "hann";
-  if (!["hann", "tukey", "none"].includes(window)) bad("window", `window must be "hann", "tukey" or "none" (got ${String(window)}).`);
+  if (!["hann", "tukey", "none"].includes(window))
+    bad("window", `window must be "hann", "tukey" or "none" (got ${String(window)}).`);
   const tukeyAlpha = o.tukeyAlpha ?? 0.25;
   checkNumber("tukeyAlpha", tukeyAlpha, 0, 1);
   const lowCutCycles = o.lowCutCycles ?? 2;
@@ -76,14 +81,29 @@ export function resolveReadoutSettings(o: ReadoutOptions, imageWidth: number, im
   checkNumber("maxAnalysisSidePx", maxAnalysisSidePx, 64, 8192, " px");
   if (o.blurSigmaPx !== undefined) checkNumber("blurSigmaPx", o.blurSigmaPx, 1, 4096, " px");
   if (o.excludeMask && o.excludeMask.length !== imageWidth * imageHeight) {
-    bad("excludeMask", `excludeMask must have one byte per image pixel, ${imageWidth * imageHeight} (got ${o.excludeMask.length}).`);
+    bad(
+      "excludeMask",
+      `excludeMask must have one byte per image pixel, ${imageWidth * imageHeight} (got ${o.excludeMask.length}).`,
+    );
   }
   if (o.roi?.kind === "rect") {
-    for (const k of ["x", "y", "width", "height"] as const) if (!Number.isFinite(o.roi[k])) bad("roi", `roi.${k} must be a finite number of pixels (got ${o.roi[k]}).`);
+    for (const k of ["x", "y", "width", "height"] as const)
+      if (!Number.isFinite(o.roi[k])) bad("roi", `roi.${k} must be a finite number of pixels (got ${o.roi[k]}).`);
   }
   return {
-    pixelSizeUm: o.pixelSizeUm, roi: o.roi ?? null, excludeMask: o.excludeMask ?? null, invert: o.invert ?? false,
-    flatten, blurSigmaPx: o.blurSigmaPx ?? null, window, tukeyAlpha, lowCutCycles, significanceThreshold,
-    maxAnalysisSidePx, maxPixels, subregions: o.subregions ?? true, autocorrelation: o.autocorrelation ?? true,
+    pixelSizeUm: o.pixelSizeUm,
+    roi: o.roi ?? null,
+    excludeMask: o.excludeMask ?? null,
+    invert: o.invert ?? false,
+    flatten,
+    blurSigmaPx: o.blurSigmaPx ?? null,
+    window,
+    tukeyAlpha,
+    lowCutCycles,
+    significanceThreshold,
+    maxAnalysisSidePx,
+    maxPixels,
+    subregions: o.subregions ?? true,
+    autocorrelation: o.autocorrelation ?? true,
   };
 }

@@ -17,14 +17,23 @@ const safeLog = (v: number) => Math.log(Math.max(v, 1e-300));
  * among the local maxima of the radial spectrum: a slope of the background is never a peak.
  * Falls back to `from` when no ring is a local maximum (the caller's significance then says no).
  */
-export function findPeakRing(radial: RadialSpectrum, from: number, to: number, background: ((ring: number) => number) | null): number {
-  let best = from, bestScore = -Infinity;
+export function findPeakRing(
+  radial: RadialSpectrum,
+  from: number,
+  to: number,
+  background: ((ring: number) => number) | null,
+): number {
+  let best = from,
+    bestScore = -Infinity;
   const p = radial.power;
   for (let r = from; r <= to; r++) {
     if (radial.count[r] === 0) continue;
     if (!(p[r] > p[r - 1] && p[r] >= p[r + 1])) continue;
     const score = safeLog(radial.power[r]) - (background ? safeLog(background(r)) : 0);
-    if (score > bestScore) { bestScore = score; best = r; }
+    if (score > bestScore) {
+      bestScore = score;
+      best = r;
+    }
   }
   return best;
 }
@@ -50,7 +59,8 @@ export function peakHalfWidthRings(radial: RadialSpectrum, r: number, bg: PowerL
     }
     return null;
   };
-  const lo = side(-1), hi = side(1);
+  const lo = side(-1),
+    hi = side(1);
   const found = [lo, hi].filter((v): v is number => v !== null);
   return found.length ? Math.max(0.5, found.reduce((a, b) => a + b, 0) / found.length) : 0.5;
 }
@@ -67,7 +77,9 @@ export interface Peak2d {
  * locate the peak of a plane wave to a small fraction of a bin.
  */
 export function refinePeak2d(s: PowerSpectrum, ringLo: number, ringHi: number): Peak2d | null {
-  let bestKx = -1, bestKy = 0, best = -Infinity;
+  let bestKx = -1,
+    bestKy = 0,
+    best = -Infinity;
   const { kyMax, kxMax } = annulusBox(s, ringHi);
   for (let kys = -kyMax; kys <= kyMax; kys++) {
     const ky = (kys + s.padHeight) % s.padHeight;
@@ -78,7 +90,11 @@ export function refinePeak2d(s: PowerSpectrum, ringLo: number, ringHi: number): 
       const ring = Math.sqrt(fx * fx + fy * fy) * s.ringN;
       if (ring < ringLo || ring > ringHi) continue;
       const p = s.power[ky * s.halfWidth + kx];
-      if (p > best) { best = p; bestKx = kx; bestKy = ky; }
+      if (p > best) {
+        best = p;
+        bestKx = kx;
+        bestKy = ky;
+      }
     }
   }
   if (bestKx < 0) return null;

@@ -17,7 +17,13 @@ export function computePowerSpectrum(data: Float32Array, width: number, height: 
   const padWidth = nextPowerOfTwo(width);
   const padHeight = nextPowerOfTwo(height);
   const half = realFft2d(data, width, height, padWidth, padHeight);
-  return { padWidth, padHeight, halfWidth: half.halfWidth, power: halfPowerSpectrum(half), ringN: Math.min(width, height) };
+  return {
+    padWidth,
+    padHeight,
+    halfWidth: half.halfWidth,
+    power: halfPowerSpectrum(half),
+    ringN: Math.min(width, height),
+  };
 }
 
 /** Signed frequency (cycles/px) of row ky of a transform of height padHeight. */
@@ -35,8 +41,12 @@ export function columnWeight(kx: number, padWidth: number): number {
  * P(−kx, −ky) = P(kx, ky) for a real image.
  */
 export function powerAt(s: PowerSpectrum, kx: number, ky: number): number {
-  let x = kx, y = ky;
-  if (x < 0) { x = -x; y = -y; }
+  let x = kx,
+    y = ky;
+  if (x < 0) {
+    x = -x;
+    y = -y;
+  }
   y = ((y % s.padHeight) + s.padHeight) % s.padHeight;
   if (x > s.padWidth / 2) x = s.padWidth - x; // only reachable at the Nyquist edge
   return s.power[y * s.halfWidth + x];
@@ -48,5 +58,8 @@ export function powerAt(s: PowerSpectrum, kx: number, ky: number): number {
  */
 export function annulusBox(s: PowerSpectrum, maxRing: number): { kyMax: number; kxMax: number } {
   const f = (maxRing + 1) / s.ringN;
-  return { kyMax: Math.min(s.padHeight / 2, Math.ceil(f * s.padHeight)), kxMax: Math.min(s.halfWidth - 1, Math.ceil(f * s.padWidth)) };
+  return {
+    kyMax: Math.min(s.padHeight / 2, Math.ceil(f * s.padHeight)),
+    kxMax: Math.min(s.halfWidth - 1, Math.ceil(f * s.padWidth)),
+  };
 }

@@ -35,8 +35,18 @@ export function prepareRegion(image: GreyImage, settings: ReadoutSettings): Prep
   let scale = 0;
   for (let i = 0; i < data.length; i += 97) scale = Math.max(scale, Math.abs(data[i]));
   if (settings.flatten === "plane") subtractPlane(data, width, height, included);
-  else if (settings.flatten === "blur") subtractBlur(data, width, height, included, settings.blurSigmaPx ?? Math.min(width, height) / 8);
+  else if (settings.flatten === "blur")
+    subtractBlur(data, width, height, included, settings.blurSigmaPx ?? Math.min(width, height) / 8);
   const sd = subtractMean(data, included);
   if (!(sd > 1e-6 * Math.max(1, scale))) throw new ReadoutError("no_variation", MESSAGES.noVariation, "image");
-  return { data, width, height, included, binFactor, pixelSizeUm: settings.pixelSizeUm * binFactor, x0: roi.x0, y0: roi.y0 };
+  return {
+    data,
+    width,
+    height,
+    included,
+    binFactor,
+    pixelSizeUm: settings.pixelSizeUm * binFactor,
+    x0: roi.x0,
+    y0: roi.y0,
+  };
 }

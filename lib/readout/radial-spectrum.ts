@@ -18,7 +18,7 @@ export function computeRadialSpectrum(s: PowerSpectrum): RadialSpectrum {
   const fx2 = new Float64Array(s.halfWidth);
   const weight = new Float64Array(s.halfWidth);
   for (let kx = 0; kx < s.halfWidth; kx++) {
-    fx2[kx] = ((kx / s.padWidth) ** 2) * n2; // in ring units²
+    fx2[kx] = (kx / s.padWidth) ** 2 * n2; // in ring units²
     weight[kx] = columnWeight(kx, s.padWidth);
   }
   for (let ky = 0; ky < s.padHeight; ky++) {

@@ -25,15 +25,22 @@ export function readWavelength(image: GreyImage, options: ReadoutOptions): Wavel
   const px = region.pixelSizeUm; // µm per analysed pixel
   const periodFound = a.significance >= settings.significanceThreshold;
   const warnings: string[] = [];
-  if (region.binFactor > 1) warnings.push(`The region was binned ${region.binFactor}×${region.binFactor} to fit the ${settings.maxAnalysisSidePx} px analysis limit.`);
+  if (region.binFactor > 1)
+    warnings.push(
+      `The region was binned ${region.binFactor}×${region.binFactor} to fit the ${settings.maxAnalysisSidePx} px analysis limit.`,
+    );
   const lambdaPx = 1 / a.frequencyPerPx; // analysed grid
   const halfWidthPx = (lambdaPx * a.halfWidthRings) / a.refinedRing; // Δλ = λ·Δf/f
-  let semPx: number | null = null, subregionCount = 0;
+  let semPx: number | null = null,
+    subregionCount = 0;
   if (periodFound && settings.subregions) {
     const spread = measureSubregionSpread({ ...region, data: flattened }, settings, a.frequencyPerPx);
     semPx = spread.semPx;
     subregionCount = spread.wavelengthsPx.length;
-    if (semPx === null) warnings.push(`Too few usable sub-regions (${subregionCount} of 9) for a spread-based uncertainty; the peak half-width is reported instead.`);
+    if (semPx === null)
+      warnings.push(
+        `Too few usable sub-regions (${subregionCount} of 9) for a spread-based uncertainty; the peak half-width is reported instead.`,
+      );
   }
   const uncertaintyPx = semPx ?? halfWidthPx;
   const method = semPx !== null ? "subregion-sem" : "peak-half-width";
@@ -42,15 +49,32 @@ export function readWavelength(image: GreyImage, options: ReadoutOptions): Wavel
   }
   let autocorrelation: WavelengthReadout["autocorrelation"] = null;
   if (periodFound && settings.autocorrelation) {
-    const ac = checkAutocorrelation(spec, a.frequencyPerPx, a.symmetry, a.angular.orientationDeg, a.angular.orientation6Deg);
+    const ac = checkAutocorrelation(
+      spec,
+      a.frequencyPerPx,
+      a.symmetry,
+      a.angular.orientationDeg,
+      a.angular.orientation6Deg,
+    );
     if (ac) {
       const tol = 3 * Math.hypot(uncertaintyPx, ac.lagStepPx / 2, 0.01 * lambdaPx);
       const agrees = Math.abs(ac.impliedWavelengthPx - lambdaPx) <= tol;
-      autocorrelation = { firstMaximumUm: ac.firstMaximumPx * px, impliedWavelengthUm: ac.impliedWavelengthPx * px, direction: ac.direction, agrees };
-      if (!agrees) warnings.push(`The autocorrelation implies λ = ${(ac.impliedWavelengthPx * px).toPrecision(4)} µm, beyond the uncertainty of the spectral ${(lambdaPx * px).toPrecision(4)} µm.`);
+      autocorrelation = {
+        firstMaximumUm: ac.firstMaximumPx * px,
+        impliedWavelengthUm: ac.impliedWavelengthPx * px,
+        direction: ac.direction,
+        agrees,
+      };
+      if (!agrees)
+        warnings.push(
+          `The autocorrelation implies λ = ${(ac.impliedWavelengthPx * px).toPrecision(4)} µm, beyond the uncertainty of the spectral ${(lambdaPx * px).toPrecision(4)} µm.`,
+        );
     } else warnings.push("The autocorrelation has no clear first maximum; cross-check skipped.");
   }
-  if (!periodFound) warnings.push(`No significant period: the peak is ${a.significance.toPrecision(3)}× the background, below the threshold ${settings.significanceThreshold}.`);
+  if (!periodFound)
+    warnings.push(
+      `No significant period: the peak is ${a.significance.toPrecision(3)}× the background, below the threshold ${settings.significanceThreshold}.`,
+    );
   const hex = periodFound && a.symmetry === "hexagonal";
   const nn = 2 / Math.sqrt(3);
   const { excludeMask, ...rest } = settings;
@@ -81,9 +105,13 @@ export function readWavelength(image: GreyImage, options: ReadoutOptions): Wavel
     },
     angularPower: Array.from(a.angular.angularPower),
     settings: {
-      ...rest, excludeMaskPixels: excludeMask ? excludeMask.reduce((s, v) => s + (v ? 1 : 0), 0) : 0,
-      analysedWidthPx: region.width, analysedHeightPx: region.height, binFactor: region.binFactor,
-      paddedWidthPx: spec.padWidth, paddedHeightPx: spec.padHeight,
+      ...rest,
+      excludeMaskPixels: excludeMask ? excludeMask.reduce((s, v) => s + (v ? 1 : 0), 0) : 0,
+      analysedWidthPx: region.width,
+      analysedHeightPx: region.height,
+      binFactor: region.binFactor,
+      paddedWidthPx: spec.padWidth,
+      paddedHeightPx: spec.padHeight,
     },
     warnings,
   };

@@ -6,7 +6,9 @@ import { applyWindow } from "./window";
 
 /** Scales finite values linearly to 0..1 between the given percentiles (robust contrast). */
 function stretch(data: Float32Array, lowPct: number, highPct: number): Float32Array {
-  const sorted = Float32Array.from(data.filter((_, i) => i % Math.max(1, Math.floor(data.length / 65536)) === 0)).sort();
+  const sorted = Float32Array.from(
+    data.filter((_, i) => i % Math.max(1, Math.floor(data.length / 65536)) === 0),
+  ).sort();
   const lo = sorted[Math.floor(lowPct * (sorted.length - 1))];
   const hi = sorted[Math.floor(highPct * (sorted.length - 1))];
   const span = hi - lo || 1;
@@ -28,12 +30,17 @@ export interface FftImage {
  * peak frequency (at least ± 16 bins), where the pattern's ring and its harmonics lie; the
  * rest is only noise and would hide the ring.
  */
-export function renderFftMagnitude(image: GreyImage, options: ReadoutOptions, peakWavelengthPx: number | null = null): FftImage {
+export function renderFftMagnitude(
+  image: GreyImage,
+  options: ReadoutOptions,
+  peakWavelengthPx: number | null = null,
+): FftImage {
   const settings = resolveReadoutSettings(options, image.width, image.height);
   const region = prepareRegion(image, settings);
   applyWindow(region.data, region.width, region.height, settings.window, settings.tukeyAlpha);
   const s = computePowerSpectrum(region.data, region.width, region.height);
-  const W = s.padWidth, H = s.padHeight;
+  const W = s.padWidth,
+    H = s.padHeight;
   const full = new Float32Array(W * H);
   let peak = 0;
   for (const p of s.power) if (p > peak) peak = p;
@@ -51,9 +58,11 @@ export function renderFftMagnitude(image: GreyImage, options: ReadoutOptions, pe
   // Frequencies in cycles per analysed pixel; the peak's from the source-pixel wavelength.
   const fPeak = peakWavelengthPx !== null && peakWavelengthPx > 0 ? region.binFactor / peakWavelengthPx : null;
   const fMax = fPeak === null ? 0.5 : Math.min(0.5, Math.max(3 * fPeak, 16 / Math.min(W, H)));
-  const bx = Math.min(W / 2, Math.round(fMax * W)), by = Math.min(H / 2, Math.round(fMax * H));
+  const bx = Math.min(W / 2, Math.round(fMax * W)),
+    by = Math.min(H / 2, Math.round(fMax * H));
   const out = new Float32Array(4 * bx * by);
-  for (let y = 0; y < 2 * by; y++) out.set(full.subarray((H / 2 - by + y) * W + W / 2 - bx, (H / 2 - by + y) * W + W / 2 + bx), y * 2 * bx);
+  for (let y = 0; y < 2 * by; y++)
+    out.set(full.subarray((H / 2 - by + y) * W + W / 2 - bx, (H / 2 - by + y) * W + W / 2 + bx), y * 2 * bx);
   const edge = bx / W; // cycles per analysed pixel at the image's left/right edge
   return {
     image: { width: 2 * bx, height: 2 * by, data: stretch(out, 0, 1) },

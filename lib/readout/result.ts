@@ -42,6 +42,13 @@ export interface WavelengthReadout {
   /** Power on the peak ring by angle, 1° bins over 0 … 179° (for plots). */
   angularPower: number[];
   /** Settings used (without the mask bytes), the analysed grid and binning. */
-  settings: Omit<ReadoutSettings, "excludeMask"> & { excludeMaskPixels: number; analysedWidthPx: number; analysedHeightPx: number; binFactor: number; paddedWidthPx: number; paddedHeightPx: number };
+  settings: Omit<ReadoutSettings, "excludeMask"> & {
+    excludeMaskPixels: number;
+    analysedWidthPx: number;
+    analysedHeightPx: number;
+    binFactor: number;
+    paddedWidthPx: number;
+    paddedHeightPx: number;
+  };
   warnings: string[];
 }

@@ -48,7 +48,10 @@ function insidePolygon(px: number, py: number, pts: Array<[number, number]>): bo
  */
 export function extractRoi(image: GreyImage, roi?: Roi, excludeMask?: Uint8Array): RoiPixels {
   const { width: W, height: H } = image;
-  let x0 = 0, y0 = 0, x1 = W, y1 = H;
+  let x0 = 0,
+    y0 = 0,
+    x1 = W,
+    y1 = H;
   if (roi?.kind === "rect") {
     x0 = Math.max(0, Math.floor(roi.x));
     y0 = Math.max(0, Math.floor(roi.y));
@@ -66,7 +69,8 @@ export function extractRoi(image: GreyImage, roi?: Roi, excludeMask?: Uint8Array
   if (!(width > 0 && height > 0)) throw new ReadoutError("zero_area_roi", MESSAGES.zeroAreaRoi, "roi");
   const data = new Float32Array(width * height);
   for (let y = 0; y < height; y++) data.set(image.data.subarray((y + y0) * W + x0, (y + y0) * W + x1), y * width);
-  if (roi?.kind !== "polygon" && !excludeMask) return { x0, y0, width, height, data, included: null, includedCount: width * height };
+  if (roi?.kind !== "polygon" && !excludeMask)
+    return { x0, y0, width, height, data, included: null, includedCount: width * height };
   const included = new Uint8Array(width * height);
   let includedCount = 0;
   for (let y = 0; y < height; y++) {

@@ -21,12 +21,17 @@ export interface SubregionSpread {
  * Overlap makes the λᵢ positively correlated, so n in SD/√n is the number of sub-regions that
  * fit side by side (4 for half-size sub-regions), not 9.
  */
-export function measureSubregionSpread(region: PreparedRegion, settings: ReadoutSettings, frequencyPerPx: number): SubregionSpread {
+export function measureSubregionSpread(
+  region: PreparedRegion,
+  settings: ReadoutSettings,
+  frequencyPerPx: number,
+): SubregionSpread {
   const sw = Math.min(Math.floor(region.width / 2), MAX_SUBREGION_SIDE_PX);
   const sh = Math.min(Math.floor(region.height / 2), MAX_SUBREGION_SIDE_PX);
   const lambda = 1 / frequencyPerPx;
   const out: SubregionSpread = { wavelengthsPx: [], semPx: null, sidePx: [sw, sh] };
-  if (sw < MIN_PERIODS_PER_SUBREGION * lambda || sh < MIN_PERIODS_PER_SUBREGION * lambda || sw < 16 || sh < 16) return out;
+  if (sw < MIN_PERIODS_PER_SUBREGION * lambda || sh < MIN_PERIODS_PER_SUBREGION * lambda || sw < 16 || sh < 16)
+    return out;
   for (const fy of [0, 0.5, 1]) {
     for (const fx of [0, 0.5, 1]) {
       const x = Math.round(fx * (region.width - sw));

@@ -21,7 +21,13 @@ export function makeWindow1d(kind: WindowKind, n: number, tukeyAlpha = 0.25): Fl
 }
 
 /** Multiplies in place by the separable 2-D window w(x)·w(y). */
-export function applyWindow(data: Float32Array, width: number, height: number, kind: WindowKind, tukeyAlpha = 0.25): void {
+export function applyWindow(
+  data: Float32Array,
+  width: number,
+  height: number,
+  kind: WindowKind,
+  tukeyAlpha = 0.25,
+): void {
   if (kind === "none") return;
   const wx = makeWindow1d(kind, width, tukeyAlpha);
   const wy = makeWindow1d(kind, height, tukeyAlpha);

@@ -33,9 +33,12 @@ export async function requireLab(actor: Actor, labId: string): Promise<LabContex
 
 /** Throws 403 unless the role allows the action (on an object created by `ownerId`). */
 export function authorize(ctx: LabContext, action: Action, ownerId?: string | null): void {
-  const allowed = ownerId === undefined ? can(ctx.role, action) : can(ctx.role, action, { ownerId, actorId: ctx.actor.userId });
+  const allowed =
+    ownerId === undefined ? can(ctx.role, action) : can(ctx.role, action, { ownerId, actorId: ctx.actor.userId });
   if (!allowed) {
-    throw ownerId === undefined ? forbidden() : forbidden("only its creator or a lab manager may change or delete this");
+    throw ownerId === undefined
+      ? forbidden()
+      : forbidden("only its creator or a lab manager may change or delete this");
   }
 }
 

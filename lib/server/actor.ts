@@ -25,7 +25,10 @@ async function actorFromToken(secret: string): Promise<Actor | null> {
   if (!token) return null;
   if (isExpired(token)) {
     if (!token.expiryRecordedAt) await recordTokenExpiry(token.id); // once per token
-    throw new AppError("unauthenticated", `that API token expired on ${expiryDate(token.expiresAt!)}; create a new one on your account page`);
+    throw new AppError(
+      "unauthenticated",
+      `that API token expired on ${expiryDate(token.expiresAt!)}; create a new one on your account page`,
+    );
   }
   const user = await m.User.findByPk(token.userId);
   if (!user) return null;
@@ -35,7 +38,9 @@ async function actorFromToken(secret: string): Promise<Actor | null> {
   const last = Math.max(token.lastUsedAt?.getTime() ?? 0, lastUsedWrites.get(token.id) ?? 0);
   if (now - last >= LAST_USED_EVERY_MS) {
     lastUsedWrites.set(token.id, now);
-    await token.update({ lastUsedAt: new Date(now) }).catch((err) => console.error(`could not record the last use of token ${token.id}`, err));
+    await token
+      .update({ lastUsedAt: new Date(now) })
+      .catch((err) => console.error(`could not record the last use of token ${token.id}`, err));
   }
   return { userId: user.id, email: user.email, name: user.name, via: "token" };
 }
@@ -51,7 +56,9 @@ const actorFromSession = cache(async (): Promise<(Actor & { sid: string | null }
   if (!id) return null;
   const m = await database();
   const user = await m.User.findByPk(id);
-  return user ? { userId: user.id, email: user.email, name: user.name, via: "session", sid: session.sid ?? null } : null;
+  return user
+    ? { userId: user.id, email: user.email, name: user.name, via: "session", sid: session.sid ?? null }
+    : null;
 });
 
 /** The session id of the signed-in browser, for "end my other sessions" (null for API tokens). */

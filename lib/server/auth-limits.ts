@@ -3,13 +3,23 @@
  * link request), answered the way next-auth's client reads its answers: JSON `{ url }` whose
  * `error` parameter the sign-in page turns into a sentence ("Locked:14" = locked for 14 minutes).
  */
-import { enforceRateLimit, addressOf, lockedForS, lockoutMessage, RateLimitedError, type LimitName } from "./rate-limit";
+import {
+  enforceRateLimit,
+  addressOf,
+  lockedForS,
+  lockoutMessage,
+  RateLimitedError,
+  type LimitName,
+} from "./rate-limit";
 import { services } from "./services";
 
 function limitedAnswer(code: "Locked" | "RateLimited", retryAfterS: number, message: string): Response {
   const minutes = Math.max(1, Math.ceil(retryAfterS / 60));
   const url = `${services().config.appUrl.replace(/\/$/, "")}/login?error=${code}:${minutes}`;
-  return Response.json({ url, error: { code: "rate_limited", message } }, { status: 429, headers: { "retry-after": String(retryAfterS), "cache-control": "no-store" } });
+  return Response.json(
+    { url, error: { code: "rate_limited", message } },
+    { status: 429, headers: { "retry-after": String(retryAfterS), "cache-control": "no-store" } },
+  );
 }
 
 async function emailOf(request: Request): Promise<string | null> {

@@ -50,7 +50,11 @@ export async function createSignInLink(email: string, callbackPath = "/labs"): P
   await db.ready;
   const token = randomBytes(32).toString("hex");
   const secret = process.env.NEXTAUTH_SECRET ?? "";
-  await db.models.VerificationToken.create({ identifier: email, token: createHash("sha256").update(`${token}${secret}`).digest("hex"), expires: new Date(Date.now() + SIGN_IN_LINK_MINUTES * 60_000) } as never);
+  await db.models.VerificationToken.create({
+    identifier: email,
+    token: createHash("sha256").update(`${token}${secret}`).digest("hex"),
+    expires: new Date(Date.now() + SIGN_IN_LINK_MINUTES * 60_000),
+  } as never);
   const base = config.appUrl.replace(/\/$/, "");
   return `${base}/api/auth/callback/email?${new URLSearchParams({ callbackUrl: `${base}${callbackPath}`, token, email })}`;
 }
@@ -81,7 +85,12 @@ function buildAuthOptions(): NextAuthOptions {
   const m = db.models;
   return {
     adapter: SequelizeAdapter(db.sequelize, {
-      models: { User: m.User as never, Account: m.Account as never, Session: m.AuthSession as never, VerificationToken: m.VerificationToken as never },
+      models: {
+        User: m.User as never,
+        Account: m.Account as never,
+        Session: m.AuthSession as never,
+        VerificationToken: m.VerificationToken as never,
+      },
       synchronize: false,
     }) as Adapter,
     session: { strategy: "jwt", maxAge: 30 * 24 * 3600 },
@@ -110,7 +119,10 @@ function buildAuthOptions(): NextAuthOptions {
         // A link is only ever mailed to an account, but never let the link callback create one.
         if (account?.provider === "email" && !email?.verificationRequest) {
           await db.ready;
-          return !!(await m.User.findOne({ where: { email: String(user.email ?? "").toLowerCase() }, attributes: ["id"] }));
+          return !!(await m.User.findOne({
+            where: { email: String(user.email ?? "").toLowerCase() },
+            attributes: ["id"],
+          }));
         }
         return true;
       },
@@ -123,7 +135,8 @@ function buildAuthOptions(): NextAuthOptions {
       },
       async session({ session, token }) {
         // A closed session (signed out, password changed) is no session, whatever the cookie says.
-        if (!token.uid || !(await sessionIsOpen(token.sid, String(token.uid)))) return { expires: session.expires } as typeof session;
+        if (!token.uid || !(await sessionIsOpen(token.sid, String(token.uid))))
+          return { expires: session.expires } as typeof session;
         session.user = { ...session.user, id: token.uid, email: token.email ?? session.user?.email ?? "" };
         session.sid = String(token.sid);
         return session;
@@ -131,7 +144,11 @@ function buildAuthOptions(): NextAuthOptions {
     },
     events: {
       async signIn({ user, account }) {
-        await recordSignIn({ outcome: "succeeded", email: String(user.email ?? ""), method: account?.provider === "email" ? "an e-mailed link" : "password" });
+        await recordSignIn({
+          outcome: "succeeded",
+          email: String(user.email ?? ""),
+          method: account?.provider === "email" ? "an e-mailed link" : "password",
+        });
       },
       async signOut({ token }) {
         await closeSession(token?.sid);

@@ -29,7 +29,11 @@ export interface GateOptions {
   maxRetryAfterS: number;
 }
 
-const UPLOADS: GateOptions = { reason: "it is receiving as many uploads as it can", initialHoldMs: 1000, maxRetryAfterS: 120 };
+const UPLOADS: GateOptions = {
+  reason: "it is receiving as many uploads as it can",
+  initialHoldMs: 1000,
+  maxRetryAfterS: 120,
+};
 
 /** Slots taken first come, first served; waiters wait as promises (the write queue is a gate of one slot). */
 export function createGate(options: GateOptions = UPLOADS): Gate {
@@ -39,7 +43,11 @@ export function createGate(options: GateOptions = UPLOADS): Gate {
   let holdMs = options.initialHoldMs;
   const REASON = options.reason;
 
-  const retryAfterS = (limits: GateLimits) => Math.min(options.maxRetryAfterS, Math.max(1, Math.ceil(((queue.length + 1) * holdMs) / Math.max(1, limits.inFlight) / 1000)));
+  const retryAfterS = (limits: GateLimits) =>
+    Math.min(
+      options.maxRetryAfterS,
+      Math.max(1, Math.ceil(((queue.length + 1) * holdMs) / Math.max(1, limits.inFlight) / 1000)),
+    );
 
   const admit = (): (() => void) => {
     inFlight++;

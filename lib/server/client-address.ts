@@ -14,7 +14,10 @@ import http from "node:http";
 export function clientAddress(request: Request, trustProxyHops: number): string {
   const header = request.headers.get("x-forwarded-for");
   if (!header) return "unknown";
-  const entries = header.split(",").map((s) => s.trim()).filter(Boolean);
+  const entries = header
+    .split(",")
+    .map((s) => s.trim())
+    .filter(Boolean);
   if (entries.length === 0) return "unknown";
   const index = Math.max(0, entries.length - Math.max(1, trustProxyHops));
   return entries[index].replace(/^::ffff:/, "");
@@ -27,7 +30,11 @@ export function dropClientForwardedFor(): void {
   if (g.__morphokinXffGuard) return;
   g.__morphokinXffGuard = true;
   const emit = http.Server.prototype.emit;
-  http.Server.prototype.emit = function patchedEmit(this: http.Server, event: string | symbol, ...args: unknown[]): boolean {
+  http.Server.prototype.emit = function patchedEmit(
+    this: http.Server,
+    event: string | symbol,
+    ...args: unknown[]
+  ): boolean {
     if (event === "request") delete (args[0] as http.IncomingMessage).headers["x-forwarded-for"];
     return (emit as (this: http.Server, event: string | symbol, ...a: unknown[]) => boolean).call(this, event, ...args);
   } as typeof emit;

@@ -32,7 +32,9 @@ export function readConfig() {
       from: process.env.MAIL_FROM ?? "Morphokin <noreply@morphokin.test>",
     },
     /** HTTP listing of the fake SMTP server's mailbox; unset in production (no mailbox page). */
-    devMailboxUrl: process.env.DEV_MAILBOX_URL ?? (process.env.NODE_ENV === "production" && !process.env.MORPHOKIN_DEMO ? "" : "http://127.0.0.1:2526"),
+    devMailboxUrl:
+      process.env.DEV_MAILBOX_URL ??
+      (process.env.NODE_ENV === "production" && !process.env.MORPHOKIN_DEMO ? "" : "http://127.0.0.1:2526"),
     /**
      * A production build serves the development mailbox only with this explicit opt-in
      * (`npm start`, the local demo, sets it); see lib/server/data/mailbox.ts for the other conditions.
@@ -47,11 +49,26 @@ export function readConfig() {
     /** Per-window limits (lib/server/rate-limit.ts): attempts per account (e-mail) and per client address. */
     rateLimits: {
       windowMinutes: num("RATE_LIMIT_WINDOW_MINUTES", 15),
-      signIn: { perAccount: num("RATE_LIMIT_SIGNIN_PER_ACCOUNT", 30), perAddress: num("RATE_LIMIT_SIGNIN_PER_ADDRESS", 100) },
-      signInLink: { perAccount: num("RATE_LIMIT_SIGNIN_LINK_PER_ACCOUNT", 5), perAddress: num("RATE_LIMIT_SIGNIN_LINK_PER_ADDRESS", 30) },
-      signUp: { perAccount: num("RATE_LIMIT_SIGNUP_PER_ACCOUNT", 5), perAddress: num("RATE_LIMIT_SIGNUP_PER_ADDRESS", 20) },
-      invitation: { perAccount: num("RATE_LIMIT_INVITATION_PER_ACCOUNT", 5), perAddress: num("RATE_LIMIT_INVITATION_PER_ADDRESS", 100) },
-      passwordReset: { perAccount: num("RATE_LIMIT_PASSWORD_RESET_PER_ACCOUNT", 5), perAddress: num("RATE_LIMIT_PASSWORD_RESET_PER_ADDRESS", 30) },
+      signIn: {
+        perAccount: num("RATE_LIMIT_SIGNIN_PER_ACCOUNT", 30),
+        perAddress: num("RATE_LIMIT_SIGNIN_PER_ADDRESS", 100),
+      },
+      signInLink: {
+        perAccount: num("RATE_LIMIT_SIGNIN_LINK_PER_ACCOUNT", 5),
+        perAddress: num("RATE_LIMIT_SIGNIN_LINK_PER_ADDRESS", 30),
+      },
+      signUp: {
+        perAccount: num("RATE_LIMIT_SIGNUP_PER_ACCOUNT", 5),
+        perAddress: num("RATE_LIMIT_SIGNUP_PER_ADDRESS", 20),
+      },
+      invitation: {
+        perAccount: num("RATE_LIMIT_INVITATION_PER_ACCOUNT", 5),
+        perAddress: num("RATE_LIMIT_INVITATION_PER_ADDRESS", 100),
+      },
+      passwordReset: {
+        perAccount: num("RATE_LIMIT_PASSWORD_RESET_PER_ACCOUNT", 5),
+        perAddress: num("RATE_LIMIT_PASSWORD_RESET_PER_ADDRESS", 30),
+      },
     },
     /** Failed passwords for one account before it is locked, and for how long. */
     lockoutFailures: num("LOCKOUT_FAILURES", 10),

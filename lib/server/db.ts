@@ -42,7 +42,13 @@ class BusyWaitingDatabase extends sqlite3.Database {
 }
 const dialectModule = { ...sqlite3, Database: BusyWaitingDatabase };
 
-const READ_TYPES = new Set<string>([QueryTypes.SELECT, QueryTypes.SHOWTABLES, QueryTypes.SHOWINDEXES, QueryTypes.DESCRIBE, QueryTypes.FOREIGNKEYS]);
+const READ_TYPES = new Set<string>([
+  QueryTypes.SELECT,
+  QueryTypes.SHOWTABLES,
+  QueryTypes.SHOWINDEXES,
+  QueryTypes.DESCRIBE,
+  QueryTypes.FOREIGNKEYS,
+]);
 
 /** A statement that only reads: SELECT, or a PRAGMA that sets nothing. */
 function isRead(sql: unknown, options: { type?: string } | undefined): boolean {
@@ -57,7 +63,10 @@ function isRead(sql: unknown, options: { type?: string } | undefined): boolean {
  * turn); an unmanaged transaction (no callback) holds the turn until its commit or rollback.
  */
 function installWriteQueue(sequelize: Sequelize, queue: WriteQueue): void {
-  const query = sequelize.query.bind(sequelize) as (sql: unknown, options?: Record<string, unknown>) => Promise<unknown>;
+  const query = sequelize.query.bind(sequelize) as (
+    sql: unknown,
+    options?: Record<string, unknown>,
+  ) => Promise<unknown>;
   const transaction = sequelize.transaction.bind(sequelize) as (...args: unknown[]) => Promise<unknown>;
   Object.assign(sequelize, {
     query: (sql: unknown, options?: { transaction?: unknown; type?: string }) =>
@@ -90,9 +99,18 @@ export function createDatabase(storage: string, options: { migrate?: boolean; wr
   // between (a stale read snapshot cannot be upgraded to a write; SQLite docs, "Transaction",
   // lang_transaction.html, from memory); with IMMEDIATE it waits its turn. The test
   // tests/api/db-concurrency.test.ts fails with DEFERRED.
-  const sequelize = new Sequelize({ dialect: "sqlite", storage, dialectModule, logging: false, transactionType: Transaction.TYPES.IMMEDIATE });
+  const sequelize = new Sequelize({
+    dialect: "sqlite",
+    storage,
+    dialectModule,
+    logging: false,
+    transactionType: Transaction.TYPES.IMMEDIATE,
+  });
   const models = createModels(sequelize);
-  const writeQueue = createWriteQueue({ maxWaitMs: options.writeWaitMs ?? WRITE_WAIT_MS, what: "too many writes at once" });
+  const writeQueue = createWriteQueue({
+    maxWaitMs: options.writeWaitMs ?? WRITE_WAIT_MS,
+    what: "too many writes at once",
+  });
   // SQLite has one writer per database file; a server database (PostgreSQL) would need no queue.
   if (sequelize.getDialect() === "sqlite") installWriteQueue(sequelize, writeQueue);
   const ready = (async () => {

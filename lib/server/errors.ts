@@ -38,7 +38,10 @@ export const forbidden = (message = "your role in this lab does not allow this")
  * `Retry-After` header (RFC 9110 §10.2.3), so scripts and people both know to retry.
  */
 export class ServerBusyError extends AppError {
-  constructor(public retryAfterS: number, reason: string) {
+  constructor(
+    public retryAfterS: number,
+    reason: string,
+  ) {
     super("unavailable", `the server is busy (${reason}); try again in ${retryAfterS} s`);
   }
 }

@@ -5,7 +5,10 @@ export type PartStatus = { ok: true } | { ok: false; error: string };
 
 async function probe(fn: () => Promise<unknown>, ms = 3000): Promise<PartStatus> {
   try {
-    await Promise.race([fn(), new Promise((_, reject) => setTimeout(() => reject(new Error(`no answer within ${ms} ms`)), ms))]);
+    await Promise.race([
+      fn(),
+      new Promise((_, reject) => setTimeout(() => reject(new Error(`no answer within ${ms} ms`)), ms)),
+    ]);
     return { ok: true };
   } catch (err) {
     return { ok: false, error: err instanceof Error ? err.message : String(err) };

@@ -10,13 +10,22 @@ export function errorResponse(err: unknown): Response {
     // A rate-limited answer says when to come back (RFC 9110 §10.2.3 Retry-After, in seconds).
     const retry = (err as { retryAfterS?: number }).retryAfterS;
     const headers: Record<string, string> = retry ? { "retry-after": String(retry) } : {};
-    return Response.json({ error: { code: err.code, message: err.message, ...(err.details ? { details: err.details } : {}) } }, { status: err.status, headers });
+    return Response.json(
+      { error: { code: err.code, message: err.message, ...(err.details ? { details: err.details } : {}) } },
+      { status: err.status, headers },
+    );
   }
   if (err instanceof ZodError) {
-    return Response.json({ error: { code: "bad_input", message: describeZodError(err), details: z.flattenError(err) } }, { status: 400 });
+    return Response.json(
+      { error: { code: "bad_input", message: describeZodError(err), details: z.flattenError(err) } },
+      { status: 400 },
+    );
   }
   console.error(err);
-  return Response.json({ error: { code: "internal", message: "something went wrong on the server; the error was logged" } }, { status: 500 });
+  return Response.json(
+    { error: { code: "internal", message: "something went wrong on the server; the error was logged" } },
+    { status: 500 },
+  );
 }
 
 /**
@@ -74,7 +83,10 @@ export function formatByteLimit(bytes: number): string {
 }
 
 export const bodyTooLarge = (maxBytes: number) =>
-  new AppError("too_large", `the request body is larger than the limit of ${formatByteLimit(maxBytes)} for this request; send less data`);
+  new AppError(
+    "too_large",
+    `the request body is larger than the limit of ${formatByteLimit(maxBytes)} for this request; send less data`,
+  );
 
 /** The media type of the Content-Type header without parameters, or null when absent. */
 function mediaType(request: Request): string | null {
@@ -83,7 +95,10 @@ function mediaType(request: Request): string | null {
 }
 
 const notJson = (type: string | null) =>
-  new AppError("unsupported_media_type", `the request body must be JSON sent as Content-Type: application/json (it was sent ${type === null ? "without a Content-Type" : `as ${type}`})`);
+  new AppError(
+    "unsupported_media_type",
+    `the request body must be JSON sent as Content-Type: application/json (it was sent ${type === null ? "without a Content-Type" : `as ${type}`})`,
+  );
 
 /**
  * The body as text, at most `maxBytes`: a declared Content-Length above the limit is refused
@@ -128,7 +143,11 @@ export async function readJsonValue(request: Request, options: ReadJsonOptions =
   }
 }
 
-export async function readJson<S extends ZodType>(request: Request, schema: S, options: ReadJsonOptions = {}): Promise<z.infer<S>> {
+export async function readJson<S extends ZodType>(
+  request: Request,
+  schema: S,
+  options: ReadJsonOptions = {},
+): Promise<z.infer<S>> {
   const body = await readJsonValue(request, options);
   const parsed = schema.safeParse(body);
   if (!parsed.success) throw parsed.error;

@@ -8,7 +8,10 @@ import { authorize, requireLab, type LabContext } from "./access";
 import { requireActor, type Actor } from "./actor";
 import { route } from "./http";
 
-export function labRoute<P extends { labId: string }>(action: Action, fn: (ctx: LabContext, request: Request, params: P) => Promise<Response>) {
+export function labRoute<P extends { labId: string }>(
+  action: Action,
+  fn: (ctx: LabContext, request: Request, params: P) => Promise<Response>,
+) {
   return route<P>(async (request, { params }) => {
     const p = await params;
     const actor = await requireActor(request);
@@ -18,7 +21,9 @@ export function labRoute<P extends { labId: string }>(action: Action, fn: (ctx: 
   });
 }
 
-export function userRoute<P = Record<string, never>>(fn: (actor: Actor, request: Request, params: P) => Promise<Response>) {
+export function userRoute<P = Record<string, never>>(
+  fn: (actor: Actor, request: Request, params: P) => Promise<Response>,
+) {
   return route<P>(async (request, { params }) => fn(await requireActor(request), request, await params));
 }
 

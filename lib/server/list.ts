@@ -21,7 +21,12 @@ export interface ListResult<T> {
 
 export const MAX_PAGE_SIZE = 200;
 
-export function parseListQuery<S extends string>(url: string, sortable: readonly S[], defaultSort: S, defaultDir: "asc" | "desc" = "desc"): ListQuery<S> {
+export function parseListQuery<S extends string>(
+  url: string,
+  sortable: readonly S[],
+  defaultSort: S,
+  defaultDir: "asc" | "desc" = "desc",
+): ListQuery<S> {
   const p = new URL(url).searchParams;
   const schema = z.object({
     page: z.coerce.number().int().min(1).default(1),
@@ -29,9 +34,15 @@ export function parseListQuery<S extends string>(url: string, sortable: readonly
     sort: z.enum(sortable as unknown as [S, ...S[]]).default(defaultSort),
     dir: z.enum(["asc", "desc"]).default(defaultDir),
     // A NUL or other control character would end or garble the SQL text; nobody types one.
-    q: z.string().max(200).regex(/^[^\u0000-\u001f\u007f]*$/, "remove control characters from the search text").default(""),
+    q: z
+      .string()
+      .max(200)
+      .regex(/^[^\u0000-\u001f\u007f]*$/, "remove control characters from the search text")
+      .default(""),
   });
-  const parsed = schema.safeParse(Object.fromEntries([...p.entries()].filter(([k]) => ["page", "pageSize", "sort", "dir", "q"].includes(k))));
+  const parsed = schema.safeParse(
+    Object.fromEntries([...p.entries()].filter(([k]) => ["page", "pageSize", "sort", "dir", "q"].includes(k))),
+  );
   if (!parsed.success) {
     throw new AppError("bad_input", parsed.error.issues.map(describeIssue).join("; "));
   }

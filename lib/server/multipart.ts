@@ -46,9 +46,14 @@ const MAX_FILES_COUNTED = 10;
 
 export async function parseUpload(request: Request, maxBytes: number, tempRoot: string): Promise<ParsedUpload> {
   const type = request.headers.get("content-type") ?? "";
-  if (!type.startsWith("multipart/form-data")) throw new AppError("bad_input", "send the file as multipart/form-data with the field name `file`");
+  if (!type.startsWith("multipart/form-data"))
+    throw new AppError("bad_input", "send the file as multipart/form-data with the field name `file`");
   const declared = Number(request.headers.get("content-length") ?? "0");
-  if (declared > maxBytes + 64 * 1024) throw new AppError("too_large", `the file is too large: the limit is ${maxBytes} bytes (${(maxBytes / 1048576).toFixed(0)} MiB)`);
+  if (declared > maxBytes + 64 * 1024)
+    throw new AppError(
+      "too_large",
+      `the file is too large: the limit is ${maxBytes} bytes (${(maxBytes / 1048576).toFixed(0)} MiB)`,
+    );
   if (!request.body) throw new AppError("bad_input", "the request has no body");
   mkdirSync(tempRoot, { recursive: true });
   const dir = mkdtempSync(path.join(tempRoot, `${process.pid}-`));
@@ -58,7 +63,9 @@ export async function parseUpload(request: Request, maxBytes: number, tempRoot: 
     rmSync(dir, { recursive: true, force: true });
     active.delete(dir);
   };
-  const stream = Readable.fromWeb(request.body as import("node:stream/web").ReadableStream) as Readable & { headers?: Record<string, string> };
+  const stream = Readable.fromWeb(request.body as import("node:stream/web").ReadableStream) as Readable & {
+    headers?: Record<string, string>;
+  };
   stream.headers = Object.fromEntries(request.headers.entries());
   // formidable skips parsing when it sees no length; a chunked body is still limited by maxFileSize.
   stream.headers["content-length"] ??= String(maxBytes);
@@ -84,7 +91,12 @@ export async function parseUpload(request: Request, maxBytes: number, tempRoot: 
     for (const [k, v] of Object.entries(fields)) if (v && v.length) flat[k] = String(v[0]);
     return {
       fields: flat,
-      file: { path: f.filepath, originalName: (f.originalFilename ?? "upload").slice(0, 255), sizeBytes: f.size, sha256: String(f.hash) },
+      file: {
+        path: f.filepath,
+        originalName: (f.originalFilename ?? "upload").slice(0, 255),
+        sizeBytes: f.size,
+        sha256: String(f.hash),
+      },
       head: readHead(f.filepath),
       cleanup,
     };
@@ -93,9 +105,20 @@ export async function parseUpload(request: Request, maxBytes: number, tempRoot: 
     if (err instanceof AppError) throw err;
     const e = err as { code?: number; httpCode?: number; message?: string };
     // Before the size check: formidable gives "too many files" the HTTP code 413 too.
-    if (e.code === formidableErrors.maxFilesExceeded) throw new AppError("bad_input", `send one file per upload; this request had more than ${MAX_FILES_COUNTED} files`);
-    if (e.code === formidableErrors.biggerThanMaxFileSize || e.code === formidableErrors.biggerThanTotalMaxFileSize || e.httpCode === 413) {
-      throw new AppError("too_large", `the file is too large: the limit is ${maxBytes} bytes (${(maxBytes / 1048576).toFixed(0)} MiB)`);
+    if (e.code === formidableErrors.maxFilesExceeded)
+      throw new AppError(
+        "bad_input",
+        `send one file per upload; this request had more than ${MAX_FILES_COUNTED} files`,
+      );
+    if (
+      e.code === formidableErrors.biggerThanMaxFileSize ||
+      e.code === formidableErrors.biggerThanTotalMaxFileSize ||
+      e.httpCode === 413
+    ) {
+      throw new AppError(
+        "too_large",
+        `the file is too large: the limit is ${maxBytes} bytes (${(maxBytes / 1048576).toFixed(0)} MiB)`,
+      );
     }
     if (e.code === formidableErrors.smallerThanMinFileSize || e.code === formidableErrors.noEmptyFiles) {
       throw new AppError("bad_input", "the file is empty (0 bytes)");

@@ -33,8 +33,14 @@ async function pickRecipients(ctx: LabContext, n: DiscussionNotice): Promise<Rec
   const ids = [...new Set([...n.mentionedIds, ...n.participantIds])].filter((id) => id !== ctx.actor.userId);
   if (ids.length === 0) return [];
   const m = await database();
-  const members = await m.Membership.findAll({ where: { labId: ctx.labId, userId: { [Op.in]: ids } }, attributes: ["userId"] });
-  const users = await m.User.findAll({ where: { id: members.map((x) => x.userId), notifyByEmail: true }, attributes: ["id", "email"] });
+  const members = await m.Membership.findAll({
+    where: { labId: ctx.labId, userId: { [Op.in]: ids } },
+    attributes: ["userId"],
+  });
+  const users = await m.User.findAll({
+    where: { id: members.map((x) => x.userId), notifyByEmail: true },
+    attributes: ["id", "email"],
+  });
   return users.map((u) => ({ email: u.email, mentioned: n.mentionedIds.includes(u.id) }));
 }
 
@@ -78,7 +84,11 @@ export async function notifyDiscussion(ctx: LabContext, n: DiscussionNotice): Pr
   const settled = await Promise.race([sending, timeout(SEND_BUDGET_MS)]);
   if (settled === "timeout") {
     console.error(`discussion notification: the mail server did not answer within ${SEND_BUDGET_MS / 1000} s`);
-    return { notified: false, recipients: 0, reason: `the mail server did not answer within ${SEND_BUDGET_MS / 1000} s; the comment is saved but ${recipients.length} notification e-mail(s) may not have been sent` };
+    return {
+      notified: false,
+      recipients: 0,
+      reason: `the mail server did not answer within ${SEND_BUDGET_MS / 1000} s; the comment is saved but ${recipients.length} notification e-mail(s) may not have been sent`,
+    };
   }
   const failed = settled.filter((s): s is PromiseRejectedResult => s.status === "rejected");
   if (failed.length === 0) return { notified: true, recipients: recipients.length };

@@ -57,10 +57,16 @@ async function hit(key: string, windowMs: number, now = Date.now()): Promise<{ c
        window_started_ms = CASE WHEN rate_limits.window_started_ms <= :stale THEN :now ELSE rate_limits.window_started_ms END`,
     { replacements: { key, now, stale: now - windowMs } },
   );
-  const rows = await db.sequelize.query<CounterRow>("SELECT count, window_started_ms FROM rate_limits WHERE key = :key", { replacements: { key }, type: QueryTypes.SELECT });
+  const rows = await db.sequelize.query<CounterRow>(
+    "SELECT count, window_started_ms FROM rate_limits WHERE key = :key",
+    { replacements: { key }, type: QueryTypes.SELECT },
+  );
   // Now and then, forget counters whose window ended a day ago and that lock nothing.
   if (Math.random() < 0.01) {
-    await db.sequelize.query("DELETE FROM rate_limits WHERE window_started_ms < :old AND (locked_until_ms IS NULL OR locked_until_ms < :now)", { replacements: { old: now - 86_400_000, now } });
+    await db.sequelize.query(
+      "DELETE FROM rate_limits WHERE window_started_ms < :old AND (locked_until_ms IS NULL OR locked_until_ms < :now)",
+      { replacements: { old: now - 86_400_000, now } },
+    );
   }
   const row = rows[0];
   return { count: Number(row.count), resetsAtMs: Number(row.window_started_ms) + windowMs };
@@ -70,7 +76,10 @@ async function hit(key: string, windowMs: number, now = Date.now()): Promise<{ c
  * Counts this attempt against the per-account and per-address limits of `name`; throws a
  * RateLimitedError (429) when either is over. An unknown address (no header) shares one bucket.
  */
-export async function enforceRateLimit(name: LimitName, who: { account?: string | null; address?: string | null }): Promise<void> {
+export async function enforceRateLimit(
+  name: LimitName,
+  who: { account?: string | null; address?: string | null },
+): Promise<void> {
   const { config } = services();
   const rule = config.rateLimits[name];
   const windowMs = config.rateLimits.windowMinutes * 60_000;
@@ -82,7 +91,10 @@ export async function enforceRateLimit(name: LimitName, who: { account?: string 
     const { count, resetsAtMs } = await hit(key, windowMs, now);
     if (count > limit) {
       const retryAfterS = Math.max(1, Math.ceil((resetsAtMs - now) / 1000));
-      throw new RateLimitedError(`too many ${WHAT[name]} ${scope} (at most ${limit} in ${config.rateLimits.windowMinutes} minutes); try again in ${minutesText(retryAfterS)}`, retryAfterS);
+      throw new RateLimitedError(
+        `too many ${WHAT[name]} ${scope} (at most ${limit} in ${config.rateLimits.windowMinutes} minutes); try again in ${minutesText(retryAfterS)}`,
+        retryAfterS,
+      );
     }
   }
 }
@@ -93,7 +105,10 @@ const lockKey = (email: string) => `lockout:${email.toLowerCase()}`;
 export async function lockedForS(email: string, now = Date.now()): Promise<number> {
   const { db } = services();
   await db.ready;
-  const rows = await db.sequelize.query<{ locked_until_ms: number | null }>("SELECT locked_until_ms FROM rate_limits WHERE key = :key", { replacements: { key: lockKey(email) }, type: QueryTypes.SELECT });
+  const rows = await db.sequelize.query<{ locked_until_ms: number | null }>(
+    "SELECT locked_until_ms FROM rate_limits WHERE key = :key",
+    { replacements: { key: lockKey(email) }, type: QueryTypes.SELECT },
+  );
   const until = Number(rows[0]?.locked_until_ms ?? 0);
   return until > now ? Math.ceil((until - now) / 1000) : 0;
 }
@@ -112,7 +127,10 @@ export async function recordFailedPassword(email: string): Promise<Date | null> 
   const now = Date.now();
   const { count } = await hit(lockKey(email), lockMs, now);
   if (count >= config.lockoutFailures) {
-    await db.sequelize.query("UPDATE rate_limits SET locked_until_ms = :until, count = 0, window_started_ms = :now WHERE key = :key", { replacements: { key: lockKey(email), until: now + lockMs, now } });
+    await db.sequelize.query(
+      "UPDATE rate_limits SET locked_until_ms = :until, count = 0, window_started_ms = :now WHERE key = :key",
+      { replacements: { key: lockKey(email), until: now + lockMs, now } },
+    );
     return new Date(now + lockMs);
   }
   return null;
@@ -121,7 +139,10 @@ export async function recordFailedPassword(email: string): Promise<Date | null> 
 /** A correct password clears the failure count (not a running lockout: that is checked first). */
 export async function clearFailedPasswords(email: string): Promise<void> {
   const { db } = services();
-  await db.sequelize.query("DELETE FROM rate_limits WHERE key = :key AND (locked_until_ms IS NULL OR locked_until_ms <= :now)", { replacements: { key: lockKey(email), now: Date.now() } });
+  await db.sequelize.query(
+    "DELETE FROM rate_limits WHERE key = :key AND (locked_until_ms IS NULL OR locked_until_ms <= :now)",
+    { replacements: { key: lockKey(email), now: Date.now() } },
+  );
 }
 
 /** The request's client address as configured (TRUST_PROXY). */

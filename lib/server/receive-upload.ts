@@ -33,10 +33,15 @@ const isImage = (kind: FileKind) => kind === "png" || kind === "jpeg" || kind ==
  * while the upload is kept.
  */
 async function checkPixelLimit(path: string, name: string): Promise<void> {
-  const meta = await sharp(path, { limitInputPixels: false }).metadata().catch(() => null);
+  const meta = await sharp(path, { limitInputPixels: false })
+    .metadata()
+    .catch(() => null);
   const px = (meta?.width ?? 0) * (meta?.height ?? 0);
   if (px > MAX_READOUT_PIXELS) {
-    throw new AppError("too_large", `“${name}” is ${meta!.width}×${meta!.height} = ${px} pixels, above the limit of ${MAX_READOUT_PIXELS} pixels (8192×8192); crop or bin it before uploading`);
+    throw new AppError(
+      "too_large",
+      `“${name}” is ${meta!.width}×${meta!.height} = ${px} pixels, above the limit of ${MAX_READOUT_PIXELS} pixels (8192×8192); crop or bin it before uploading`,
+    );
   }
 }
 
@@ -50,7 +55,11 @@ export type ReceivedUpload = UploadDto & { readout: ReadoutDto | null; readoutEr
  */
 export async function receiveUpload(ctx: LabContext, specimenId: string, request: Request): Promise<ReceivedUpload> {
   const { config } = services();
-  const leave = await uploadGate().enter({ inFlight: config.uploadsInFlight, waiting: config.uploadsWaiting, waitMs: config.uploadWaitMs });
+  const leave = await uploadGate().enter({
+    inFlight: config.uploadsInFlight,
+    waiting: config.uploadsWaiting,
+    waitMs: config.uploadWaitMs,
+  });
   try {
     await findSpecimen(ctx, specimenId); // 404 before reading a byte of the body
     const parsed = await parseUpload(request, config.maxUploadBytes, uploadTempRoot(config.dataDir));
@@ -67,7 +76,10 @@ export async function receiveUpload(ctx: LabContext, specimenId: string, request
 async function storeParsed(ctx: LabContext, specimenId: string, parsed: ParsedUpload): Promise<ReceivedUpload> {
   const kind = sniffFileKind(parsed.head);
   if (!kind) {
-    throw new AppError("bad_input", `“${parsed.file.originalName}” is not a PNG, JPEG or TIFF image nor a CSV/TSV table (judged by its content, not its name)`);
+    throw new AppError(
+      "bad_input",
+      `“${parsed.file.originalName}” is not a PNG, JPEG or TIFF image nor a CSV/TSV table (judged by its content, not its name)`,
+    );
   }
   if (isImage(kind)) await checkPixelLimit(parsed.file.path, parsed.file.originalName);
   let typed: number | null = null;
@@ -81,7 +93,10 @@ async function storeParsed(ctx: LabContext, specimenId: string, parsed: ParsedUp
   if (isImage(kind) && typed === null) {
     const fromFile = readPixelSize(await readFile(parsed.file.path), kind);
     if (fromFile.pixelSizeUm === null) {
-      throw new AppError("bad_input", `pixelSizeUm: “${parsed.file.originalName}” carries no pixel size in its metadata${fromFile.pixelSizeNote ? ` (${fromFile.pixelSizeNote})` : ""}; enter the pixel size in µm/px`);
+      throw new AppError(
+        "bad_input",
+        `pixelSizeUm: “${parsed.file.originalName}” carries no pixel size in its metadata${fromFile.pixelSizeNote ? ` (${fromFile.pixelSizeNote})` : ""}; enter the pixel size in µm/px`,
+      );
     }
     pixelSizeUm = fromFile.pixelSizeUm;
     pixelSizeSource = fromFile.pixelSizeSource;
@@ -107,6 +122,11 @@ async function storeParsed(ctx: LabContext, specimenId: string, parsed: ParsedUp
     if (!(err instanceof AppError)) throw err;
     readoutError = err.message;
   }
-  const { also: readoutRow, ...upload } = await storeUpload(ctx, specimenId, file, settings ? (row, transaction) => queueReadout(ctx, row, settings, transaction) : undefined);
+  const { also: readoutRow, ...upload } = await storeUpload(
+    ctx,
+    specimenId,
+    file,
+    settings ? (row, transaction) => queueReadout(ctx, row, settings, transaction) : undefined,
+  );
   return { ...upload, readout: readoutRow ? await toReadoutDto(readoutRow) : null, readoutError };
 }

@@ -21,7 +21,11 @@ export async function openSession(userId: string): Promise<string> {
   // Expired records of this account go when it opens a new one, so the table does not grow forever.
   await m.AuthSession.destroy({ where: { userId, expires: { [Op.lt]: new Date() } } });
   const sid = randomBytes(24).toString("base64url");
-  await m.AuthSession.create({ sessionToken: sid, userId, expires: new Date(Date.now() + SESSION_DAYS * 86_400_000) } as never);
+  await m.AuthSession.create({
+    sessionToken: sid,
+    userId,
+    expires: new Date(Date.now() + SESSION_DAYS * 86_400_000),
+  } as never);
   return sid;
 }
 

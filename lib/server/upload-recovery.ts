@@ -71,7 +71,10 @@ export async function sweepUploads(options: { graceMs?: number } = {}): Promise<
   const cutoff = new Date(now - (options.graceMs ?? config.uploadGraceS * 1000));
   const report: SweepReport = { rowsRemoved: 0, objectsRemoved: 0, tempFoldersRemoved: 0 };
 
-  const stale = await m.Upload.unscoped().findAll({ where: { state: "receiving", createdAt: { [Op.lte]: cutoff } }, attributes: ["id", "storageKey"] });
+  const stale = await m.Upload.unscoped().findAll({
+    where: { state: "receiving", createdAt: { [Op.lte]: cutoff } },
+    attributes: ["id", "storageKey"],
+  });
   for (const row of stale) {
     await store.delete(row.storageKey); // deleting a missing key is no error in S3
     report.rowsRemoved += await m.Upload.unscoped().destroy({ where: { id: row.id, state: "receiving" } });
@@ -94,13 +97,17 @@ export async function sweepUploads(options: { graceMs?: number } = {}): Promise<
   return report;
 }
 
-const g = globalThis as unknown as { __morphokinUploadSweep?: { timer: NodeJS.Timeout; first: Promise<SweepReport | null> } };
+const g = globalThis as unknown as {
+  __morphokinUploadSweep?: { timer: NodeJS.Timeout; first: Promise<SweepReport | null> };
+};
 
 async function sweepAndLog(): Promise<SweepReport | null> {
   try {
     const r = await sweepUploads();
     if (r.rowsRemoved || r.objectsRemoved || r.tempFoldersRemoved) {
-      console.log(`upload sweep: removed ${r.rowsRemoved} unfinished upload(s), ${r.objectsRemoved} object(s) without a row, ${r.tempFoldersRemoved} temporary folder(s)`);
+      console.log(
+        `upload sweep: removed ${r.rowsRemoved} unfinished upload(s), ${r.objectsRemoved} object(s) without a row, ${r.tempFoldersRemoved} temporary folder(s)`,
+      );
     }
     return r;
   } catch (err) {

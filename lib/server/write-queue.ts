@@ -18,7 +18,11 @@ export interface WriteQueue {
 
 /** A gate of one slot with no limit on waiters, each waiting at most `maxWaitMs`. */
 export function createWriteQueue(options: { maxWaitMs: number; what?: string }): WriteQueue {
-  const gate = createGate({ reason: options.what ?? "the database is busy with other writes", initialHoldMs: 20, maxRetryAfterS: 60 });
+  const gate = createGate({
+    reason: options.what ?? "the database is busy with other writes",
+    initialHoldMs: 20,
+    maxRetryAfterS: 60,
+  });
   const limits = { inFlight: 1, waiting: Infinity, waitMs: options.maxWaitMs };
   const acquire = () => gate.enter(limits);
   return {

@@ -33,16 +33,29 @@ export function decomposeDiffusion(d: readonly (readonly number[])[], field = "d
   const n = d.length;
   const scale = Math.max(...d.flat().map(Math.abs), 0);
   const eig = new EigenvalueDecomposition(new Matrix(d.map((r) => [...r])));
-  const re = eig.realEigenvalues, im = eig.imaginaryEigenvalues;
+  const re = eig.realEigenvalues,
+    im = eig.imaginaryEigenvalues;
   const tiny = 1e-12 * Math.max(scale, 1e-300);
   if (im.some((v) => Math.abs(v) > tiny)) {
-    const pairs = re.map((r, i) => (Math.abs(im[i]) > tiny ? `${r.toPrecision(4)} ${im[i] < 0 ? "−" : "+"} ${Math.abs(im[i]).toPrecision(4)}i` : null)).filter(Boolean);
-    failOption(field, `${field}: the cross-diffusion matrix has complex eigenvalues (${pairs.join(", ")}); the solver needs real eigenvalues (a matrix diagonalisable over the reals).`);
+    const pairs = re
+      .map((r, i) =>
+        Math.abs(im[i]) > tiny
+          ? `${r.toPrecision(4)} ${im[i] < 0 ? "−" : "+"} ${Math.abs(im[i]).toPrecision(4)}i`
+          : null,
+      )
+      .filter(Boolean);
+    failOption(
+      field,
+      `${field}: the cross-diffusion matrix has complex eigenvalues (${pairs.join(", ")}); the solver needs real eigenvalues (a matrix diagonalisable over the reals).`,
+    );
   }
   const lambda = re.map((v) => (Math.abs(v) <= tiny ? 0 : v));
   const negative = lambda.findIndex((v) => v < 0);
   if (negative >= 0) {
-    failOption(field, `${field}: the cross-diffusion matrix has a negative eigenvalue (${lambda[negative].toPrecision(4)}): that is backward diffusion, an ill-posed problem whose short waves grow without bound; no scheme can simulate it.`);
+    failOption(
+      field,
+      `${field}: the cross-diffusion matrix has a negative eigenvalue (${lambda[negative].toPrecision(4)}): that is backward diffusion, an ill-posed problem whose short waves grow without bound; no scheme can simulate it.`,
+    );
   }
   const V = eig.eigenvectorMatrix;
   for (let j = 0; j < n; j++) {
@@ -54,24 +67,42 @@ export function decomposeDiffusion(d: readonly (readonly number[])[], field = "d
   try {
     Vinv = inverse(V);
   } catch {
-    failOption(field, `${field}: the cross-diffusion matrix is not diagonalisable (its eigenvectors are dependent); the solver needs n independent eigenvectors.`);
+    failOption(
+      field,
+      `${field}: the cross-diffusion matrix is not diagonalisable (its eigenvectors are dependent); the solver needs n independent eigenvectors.`,
+    );
   }
-  const norm1 = (M: Matrix) => Math.max(...Array.from({ length: n }, (_, j) => M.getColumn(j).reduce((s, v) => s + Math.abs(v), 0)));
+  const norm1 = (M: Matrix) =>
+    Math.max(...Array.from({ length: n }, (_, j) => M.getColumn(j).reduce((s, v) => s + Math.abs(v), 0)));
   const cond = norm1(V) * norm1(Vinv);
   if (!(cond <= MAX_MODE_CONDITION)) {
-    failOption(field, `${field}: the cross-diffusion matrix is nearly not diagonalisable (eigenvector condition number ${cond.toExponential(2)} > ${MAX_MODE_CONDITION.toExponential(0)}); the mode coordinates would lose too many digits.`);
+    failOption(
+      field,
+      `${field}: the cross-diffusion matrix is nearly not diagonalisable (eigenvector condition number ${cond.toExponential(2)} > ${MAX_MODE_CONDITION.toExponential(0)}); the mode coordinates would lose too many digits.`,
+    );
   }
-  return { diffusivities: lambda, toSpecies: Float64Array.from(V.to1DArray()), toModes: Float64Array.from(Vinv.to1DArray()) };
+  return {
+    diffusivities: lambda,
+    toSpecies: Float64Array.from(V.to1DArray()),
+    toModes: Float64Array.from(Vinv.to1DArray()),
+  };
 }
 
 /** out[s][i] = Σ_j M[s][j] src[j][i] for cells of `range`; src and out must be different arrays. */
-export function mixSpecies(M: Float64Array, src: readonly FieldArray[], out: readonly FieldArray[], start = 0, end = src[0].length): void {
+export function mixSpecies(
+  M: Float64Array,
+  src: readonly FieldArray[],
+  out: readonly FieldArray[],
+  start = 0,
+  end = src[0].length,
+): void {
   const n = src.length;
   for (let s = 0; s < n; s++) {
     const o = out[s];
     for (let i = start; i < end; i++) o[i] = 0;
     for (let j = 0; j < n; j++) {
-      const m = M[s * n + j], f = src[j];
+      const m = M[s * n + j],
+        f = src[j];
       if (m === 0) continue;
       for (let i = start; i < end; i++) o[i] += m * f[i];
     }
@@ -88,7 +119,11 @@ export function mixSpeciesInPlace(M: Float64Array, fields: readonly Float64Array
  * The reaction system of the mode coordinates: evaluate(w) = V⁻¹ R(V w). Allocates two scratch
  * sets of `cellCount` values per species once; nothing per step.
  */
-export function createModeReactionSystem(system: ReactionSystem, modes: DiffusionModes, cellCount: number): ReactionSystem {
+export function createModeReactionSystem(
+  system: ReactionSystem,
+  modes: DiffusionModes,
+  cellCount: number,
+): ReactionSystem {
   const n = system.species;
   const c = Array.from({ length: n }, () => new Float64Array(cellCount));
   const r = Array.from({ length: n }, () => new Float64Array(cellCount));
@@ -96,7 +131,8 @@ export function createModeReactionSystem(system: ReactionSystem, modes: Diffusio
     species: n,
     speciesNames: system.speciesNames,
     evaluate(fields: readonly FieldArray[], params: ReactionParams, out: readonly FieldArray[], range?: CellRange) {
-      const start = range?.start ?? 0, end = range?.end ?? fields[0].length;
+      const start = range?.start ?? 0,
+        end = range?.end ?? fields[0].length;
       mixSpecies(modes.toSpecies, fields, c, start, end);
       system.evaluate(c, params, r, { start, end });
       mixSpecies(modes.toModes, r, out, start, end);

@@ -40,7 +40,8 @@ export class DctPlan {
     this.sinInv = new Float64Array(size);
     // ½ and 1/N are powers of two, so folding them into the twiddles changes no rounding.
     for (let k = 0; k < size; k++) {
-      const c = Math.cos((Math.PI * k) / (2 * size)), s = Math.sin((Math.PI * k) / (2 * size));
+      const c = Math.cos((Math.PI * k) / (2 * size)),
+        s = Math.sin((Math.PI * k) / (2 * size));
       this.cosHalf[k] = 0.5 * c;
       this.sinHalf[k] = 0.5 * s;
       this.cosInv[k] = c / size;
@@ -55,7 +56,9 @@ export class DctPlan {
    * same offsets. `src` may equal `dst`. Pass b = −1 for a single row.
    */
   forwardPair(src: Float64Array, dst: Float64Array, a: number, b: number): void {
-    const N = this.size, z = this.z, half = N >> 1;
+    const N = this.size,
+      z = this.z,
+      half = N >> 1;
     if (b >= 0) {
       for (let n = 0; n < half; n++) {
         const j = 2 * (N - 1 - n);
@@ -76,12 +79,17 @@ export class DctPlan {
       z[j + 1] = 0;
     }
     this.fft.transform(this.zOut, z);
-    const Z = this.zOut, cw = this.cosHalf, sw = this.sinHalf;
+    const Z = this.zOut,
+      cw = this.cosHalf,
+      sw = this.sinHalf;
     dst[a] = Z[0];
     const h = N >> 1;
     for (let k = 1; k < h; k++) {
       const m = N - k;
-      const zr = Z[2 * k], zi = Z[2 * k + 1], mr = Z[2 * m], mi = Z[2 * m + 1];
+      const zr = Z[2 * k],
+        zi = Z[2 * k + 1],
+        mr = Z[2 * m],
+        mi = Z[2 * m + 1];
       dst[a + k] = cw[k] * (zr + mr) + sw[k] * (zi - mi);
       dst[a + m] = cw[m] * (mr + zr) + sw[m] * (mi - zi);
     }
@@ -93,7 +101,9 @@ export class DctPlan {
    * `stride` apart (`size` rows), into the rows at offsets a and b of `dst` (dst ≠ src).
    */
   forwardColumnPair(src: Float64Array, stride: number, col: number, dst: Float64Array, a: number, b: number): void {
-    const N = this.size, z = this.z, half = N >> 1;
+    const N = this.size,
+      z = this.z,
+      half = N >> 1;
     let p = col;
     for (let n = 0; n < half; n++) {
       const j = 2 * (N - 1 - n);
@@ -110,7 +120,10 @@ export class DctPlan {
 
   /** Post-twiddle of a packed pair: V^a = (Z_k + conj Z_{N−k})/2, V^b = (Z_k − conj Z_{N−k})/(2i). */
   private splitForward(dst: Float64Array, a: number, b: number): void {
-    const N = this.size, Z = this.zOut, cw = this.cosHalf, sw = this.sinHalf;
+    const N = this.size,
+      Z = this.zOut,
+      cw = this.cosHalf,
+      sw = this.sinHalf;
     // k = 0: V^a_0 = Re Z_0, V^b_0 = Im Z_0, twiddle 1. Modes k and N − k read the same four
     // numbers, so one iteration writes both (k = N/2 is its own partner).
     dst[a] = Z[0];
@@ -118,21 +131,33 @@ export class DctPlan {
     const h = N >> 1;
     for (let k = 1; k < h; k++) {
       const m = N - k;
-      const zr = Z[2 * k], zi = Z[2 * k + 1], mr = Z[2 * m], mi = Z[2 * m + 1];
-      const ck = cw[k], sk = sw[k], cm = cw[m], sm = sw[m];
+      const zr = Z[2 * k],
+        zi = Z[2 * k + 1],
+        mr = Z[2 * m],
+        mi = Z[2 * m + 1];
+      const ck = cw[k],
+        sk = sw[k],
+        cm = cw[m],
+        sm = sw[m];
       dst[a + k] = ck * (zr + mr) + sk * (zi - mi);
       dst[b + k] = ck * (zi + mi) + sk * (mr - zr);
       dst[a + m] = cm * (mr + zr) + sm * (mi - zi);
       dst[b + m] = cm * (mi + zi) + sm * (zr - mr);
     }
-    const hr = Z[2 * h], hi = Z[2 * h + 1], ch = cw[h], sh = sw[h];
+    const hr = Z[2 * h],
+      hi = Z[2 * h + 1],
+      ch = cw[h],
+      sh = sw[h];
     dst[a + h] = ch * (hr + hr) + sh * (hi - hi);
     dst[b + h] = ch * (hi + hi) + sh * (hr - hr);
   }
 
   /** Inverse (DCT-III, scaled so it undoes {@link forwardPair}) of rows a and b; b = −1 for one row. */
   inversePair(src: Float64Array, dst: Float64Array, a: number, b: number): void {
-    const N = this.size, z = this.z, cw = this.cosInv, sw = this.sinInv;
+    const N = this.size,
+      z = this.z,
+      cw = this.cosInv,
+      sw = this.sinInv;
     // V_k = e^{iπk/2N} (X_k − i X_{N−k}), X_N = 0; Z = V^a + i V^b. The inverse FFT is taken as
     // conj(FFT(conj Z))/N so the 1/N and the conjugations fold into these two loops.
     const inv = 1 / N;
@@ -143,14 +168,23 @@ export class DctPlan {
       // Modes k and N − k read the same four numbers, so one iteration writes both.
       for (let k = 1; k < h; k++) {
         const m = N - k;
-        const xa = src[a + k], ya = src[a + m], xb = src[b + k], yb = src[b + m];
-        const ck = cw[k], sk = sw[k], cm = cw[m], sm = sw[m];
+        const xa = src[a + k],
+          ya = src[a + m],
+          xb = src[b + k],
+          yb = src[b + m];
+        const ck = cw[k],
+          sk = sw[k],
+          cm = cw[m],
+          sm = sw[m];
         z[2 * k] = ck * xa + sk * ya - (sk * xb - ck * yb);
         z[2 * k + 1] = -(sk * xa - ck * ya + (ck * xb + sk * yb));
         z[2 * m] = cm * ya + sm * xa - (sm * yb - cm * xb);
         z[2 * m + 1] = -(sm * ya - cm * xa + (cm * yb + sm * xb));
       }
-      const xa = src[a + h], xb = src[b + h], ch = cw[h], sh = sw[h];
+      const xa = src[a + h],
+        xb = src[b + h],
+        ch = cw[h],
+        sh = sw[h];
       z[2 * h] = ch * xa + sh * xa - (sh * xb - ch * xb);
       z[2 * h + 1] = -(sh * xa - ch * xa + (ch * xb + sh * xb));
       this.fft.transform(this.zOut, z);
@@ -160,13 +194,16 @@ export class DctPlan {
     z[0] = src[a] * inv;
     z[1] = 0;
     for (let k = 1; k < N; k++) {
-      const c = cw[k], s = sw[k];
-      const xa = src[a + k], ya = src[a + N - k];
+      const c = cw[k],
+        s = sw[k];
+      const xa = src[a + k],
+        ya = src[a + N - k];
       z[2 * k] = c * xa + s * ya;
       z[2 * k + 1] = -(s * xa - c * ya);
     }
     this.fft.transform(this.zOut, z);
-    const Z = this.zOut, half = N >> 1;
+    const Z = this.zOut,
+      half = N >> 1;
     for (let n = 0; n < half; n++) {
       dst[a + 2 * n] = Z[2 * n];
       dst[a + 2 * n + 1] = Z[2 * (N - 1 - n)];
@@ -178,16 +215,27 @@ export class DctPlan {
    * are `stride` apart (`size` rows), into the rows at offsets a and b of `dst` (dst ≠ src).
    */
   inverseColumnPair(src: Float64Array, stride: number, col: number, dst: Float64Array, a: number, b: number): void {
-    const N = this.size, z = this.z, cw = this.cosInv, sw = this.sinInv, inv = 1 / N;
+    const N = this.size,
+      z = this.z,
+      cw = this.cosInv,
+      sw = this.sinInv,
+      inv = 1 / N;
     z[0] = src[col] * inv;
     z[1] = -src[col + 1] * inv;
     const h = N >> 1;
-    let p = col + stride, q = col + (N - 1) * stride;
+    let p = col + stride,
+      q = col + (N - 1) * stride;
     // As in inversePair: modes k and N − k in one iteration.
     for (let k = 1; k < h; k++) {
       const m = N - k;
-      const xa = src[p], xb = src[p + 1], ya = src[q], yb = src[q + 1];
-      const ck = cw[k], sk = sw[k], cm = cw[m], sm = sw[m];
+      const xa = src[p],
+        xb = src[p + 1],
+        ya = src[q],
+        yb = src[q + 1];
+      const ck = cw[k],
+        sk = sw[k],
+        cm = cw[m],
+        sm = sw[m];
       z[2 * k] = ck * xa + sk * ya - (sk * xb - ck * yb);
       z[2 * k + 1] = -(sk * xa - ck * ya + (ck * xb + sk * yb));
       z[2 * m] = cm * ya + sm * xa - (sm * yb - cm * xb);
@@ -195,7 +243,10 @@ export class DctPlan {
       p += stride;
       q -= stride;
     }
-    const xa = src[p], xb = src[p + 1], ch = cw[h], sh = sw[h];
+    const xa = src[p],
+      xb = src[p + 1],
+      ch = cw[h],
+      sh = sw[h];
     z[2 * h] = ch * xa + sh * xa - (sh * xb - ch * xb);
     z[2 * h + 1] = -(sh * xa - ch * xa + (ch * xb + sh * xb));
     this.fft.transform(this.zOut, z);
@@ -204,7 +255,9 @@ export class DctPlan {
 
   /** Undoes Makhoul's reordering for a packed pair (the conjugation gives row b's sign). */
   private scatterInverse(dst: Float64Array, a: number, b: number): void {
-    const N = this.size, Z = this.zOut, half = N >> 1;
+    const N = this.size,
+      Z = this.zOut,
+      half = N >> 1;
     for (let n = 0; n < half; n++) {
       const j = 2 * (N - 1 - n);
       dst[a + 2 * n] = Z[2 * n];

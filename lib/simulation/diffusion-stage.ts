@@ -45,12 +45,15 @@ export function runDiffusionStage(
     basis.inverse(spec, work);
     return computeMaxAbs([work]);
   }
-  const chat = buffers.chat!, rprev = buffers.rprev!, e = coeffs.e!;
+  const chat = buffers.chat!,
+    rprev = buffers.rprev!,
+    e = coeffs.e!;
   if (mode === StageMode.EtdStart) {
     const p1 = coeffs.p1!;
     for (let j = 0; j < n; j++) chat[j] = e[j] * chat[j] + p1[j] * spec[j];
   } else {
-    const a = coeffs.a!, b = coeffs.b!;
+    const a = coeffs.a!,
+      b = coeffs.b!;
     for (let j = 0; j < n; j++) chat[j] = e[j] * chat[j] + a[j] * spec[j] + b[j] * rprev[j];
   }
   rprev.set(spec);

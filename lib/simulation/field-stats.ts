@@ -9,7 +9,9 @@ export interface FieldStats {
 
 /** Min, max and mean of a field (mean = total mass / cell count on a uniform grid). */
 export function computeFieldStats(field: FieldArray): FieldStats {
-  let min = Infinity, max = -Infinity, sum = 0;
+  let min = Infinity,
+    max = -Infinity,
+    sum = 0;
   for (let i = 0; i < field.length; i++) {
     const v = field[i];
     if (v < min) min = v;
@@ -21,7 +23,8 @@ export function computeFieldStats(field: FieldArray): FieldStats {
 
 /** Largest |value| over all fields; NaN when any value is NaN or infinite. */
 export function computeMaxAbs(fields: readonly FieldArray[]): number {
-  let m = 0, sum = 0;
+  let m = 0,
+    sum = 0;
   for (const f of fields) {
     for (let i = 0; i < f.length; i++) {
       const v = f[i];
@@ -37,10 +40,16 @@ export function computeMaxAbs(fields: readonly FieldArray[]): number {
  * Relative L2 change per unit time between two states of all species:
  * ‖c − c_ref‖₂ / (‖c‖₂ · Δt), in 1/s. Returns Infinity when ‖c‖₂ = 0 and the states differ.
  */
-export function computeRelativeChangeRate(fields: readonly FieldArray[], reference: readonly FieldArray[], intervalS: number): number {
-  let diff = 0, norm = 0;
+export function computeRelativeChangeRate(
+  fields: readonly FieldArray[],
+  reference: readonly FieldArray[],
+  intervalS: number,
+): number {
+  let diff = 0,
+    norm = 0;
   for (let s = 0; s < fields.length; s++) {
-    const f = fields[s], r = reference[s];
+    const f = fields[s],
+      r = reference[s];
     for (let i = 0; i < f.length; i++) {
       const d = f[i] - r[i];
       diff += d * d;

@@ -10,7 +10,9 @@ import type { ReactionSystem } from "./reaction-system";
 export function createReactionSystemFromKinetics(kinetics: CompiledKinetics): ReactionSystem {
   const n = kinetics.species.length;
   const specs = kinetics.parameters;
-  const c = new Float64Array(n), r = new Float64Array(n), p = new Float64Array(specs.length);
+  const c = new Float64Array(n),
+    r = new Float64Array(n),
+    p = new Float64Array(specs.length);
   const spatialIndex: number[] = [];
   const spatialValues: Float64Array[] = [];
   return {
@@ -28,7 +30,9 @@ export function createReactionSystemFromKinetics(kinetics: CompiledKinetics): Re
           spatialValues.push(v);
         }
       });
-      const start = range?.start ?? 0, end = range?.end ?? fields[0].length, q = spatialIndex.length;
+      const start = range?.start ?? 0,
+        end = range?.end ?? fields[0].length,
+        q = spatialIndex.length;
       for (let i = start; i < end; i++) {
         for (let s = 0; s < n; s++) c[s] = fields[s][i];
         for (let t = 0; t < q; t++) p[spatialIndex[t]] = spatialValues[t][i];

@@ -48,11 +48,15 @@ export function createGrid(options: GridOptions): Grid {
   }
   const max = dims === 1 ? SIMULATION_LIMITS.maxCells1D : SIMULATION_LIMITS.maxCellsPerAxis2D;
   lengthUm.forEach((l, i) => {
-    if (!Number.isFinite(l) || l <= 0) failOption("grid.lengthUm", `grid.lengthUm[${i}] must be a positive finite length, got ${l}.`);
+    if (!Number.isFinite(l) || l <= 0)
+      failOption("grid.lengthUm", `grid.lengthUm[${i}] must be a positive finite length, got ${l}.`);
   });
   cells.forEach((n, i) => {
     if (!Number.isInteger(n) || n < SIMULATION_LIMITS.minCellsPerAxis || n > max) {
-      failOption("grid.cells", `grid.cells[${i}] must be an integer from ${SIMULATION_LIMITS.minCellsPerAxis} to ${max}, got ${n}.`);
+      failOption(
+        "grid.cells",
+        `grid.cells[${i}] must be an integer from ${SIMULATION_LIMITS.minCellsPerAxis} to ${max}, got ${n}.`,
+      );
     }
     if (!isPowerOfTwo(n)) {
       const [lo, hi] = neighbouringPowersOfTwo(n);

@@ -14,11 +14,23 @@ export { RealFftPlan } from "./real-fft";
 export { SCHEME_NAMES, SCHEME_ORDER, type SchemeName } from "./schemes";
 export type { InitialState } from "./initial-state";
 export { resolveParameterProfile, type ParameterProfile, type ProfileAxis } from "./spatial-parameters";
-export { computeReactionJacobian, computeSpectralRadius, computeReactionStiffness, chooseTimeStep, type TimeStepRule } from "./step-size";
+export {
+  computeReactionJacobian,
+  computeSpectralRadius,
+  computeReactionStiffness,
+  chooseTimeStep,
+  type TimeStepRule,
+} from "./step-size";
 export { computeFieldStats, computeRelativeChangeRate, type FieldStats } from "./field-stats";
 export { createSerialExecutor, type DiffusionExecutor, type DiffusionLayout } from "./executor";
 export { runDiffusionStage, StageMode, type SpeciesBuffers } from "./diffusion-stage";
 export { schnakenbergReaction, schnakenbergSteadyState, createLinearDecayReaction } from "./reference-kinetics";
 export { phi1, phi2 } from "./phi-functions";
 export { createReactionSystemFromKinetics, readKineticsDiffusion, readKineticsSteadyState } from "./from-kinetics";
-export { decomposeDiffusion, isDiagonalMatrix, createModeReactionSystem, MAX_MODE_CONDITION, type DiffusionModes } from "./cross-diffusion";
+export {
+  decomposeDiffusion,
+  isDiagonalMatrix,
+  createModeReactionSystem,
+  MAX_MODE_CONDITION,
+  type DiffusionModes,
+} from "./cross-diffusion";

@@ -28,31 +28,41 @@ export type InitialState =
 
 /** Writes the initial state into `fields` and returns the seed used (null for given fields without noise). */
 export function fillInitialState(state: InitialState, fields: Float64Array[]): string | null {
-  const n = fields.length, cells = fields[0].length;
+  const n = fields.length,
+    cells = fields[0].length;
   if (state.kind === "fields") {
-    if (state.fields.length !== n) failOption("initial.fields", `initial.fields must have ${n} fields (one per species), got ${state.fields.length}.`);
+    if (state.fields.length !== n)
+      failOption(
+        "initial.fields",
+        `initial.fields must have ${n} fields (one per species), got ${state.fields.length}.`,
+      );
     state.fields.forEach((f, s) => {
-      if (f.length !== cells) failOption("initial.fields", `initial.fields[${s}] must have ${cells} values (one per cell), got ${f.length}.`);
+      if (f.length !== cells)
+        failOption("initial.fields", `initial.fields[${s}] must have ${cells} values (one per cell), got ${f.length}.`);
       for (let i = 0; i < cells; i++) {
-        if (!Number.isFinite(f[i])) failOption("initial.fields", `initial.fields[${s}] has a non-finite value at cell ${i}.`);
+        if (!Number.isFinite(f[i]))
+          failOption("initial.fields", `initial.fields[${s}] has a non-finite value at cell ${i}.`);
         fields[s][i] = f[i];
       }
     });
     const a = state.noiseAmplitude;
     const amps = Array.from({ length: n }, (_, s) => (a === undefined ? 0 : typeof a === "number" ? a : a[s]));
     amps.forEach((v, s) => {
-      if (!(v >= 0) || !Number.isFinite(v)) failOption("initial.noiseAmplitude", `initial.noiseAmplitude[${s}] must be a finite number ≥ 0, got ${v}.`);
+      if (!(v >= 0) || !Number.isFinite(v))
+        failOption("initial.noiseAmplitude", `initial.noiseAmplitude[${s}] must be a finite number ≥ 0, got ${v}.`);
     });
     if (amps.every((v) => v === 0)) return null;
     return addNoise(fields, amps, state.seed);
   }
   const cs = state.steadyState;
-  if (cs.length !== n) failOption("initial.steadyState", `initial.steadyState must have ${n} values (one per species), got ${cs.length}.`);
+  if (cs.length !== n)
+    failOption("initial.steadyState", `initial.steadyState must have ${n} values (one per species), got ${cs.length}.`);
   const amps = cs.map((c, s) => {
     const a = state.noiseAmplitude;
     const v = a === undefined ? (c === 0 ? 1e-3 : 0.01 * Math.abs(c)) : typeof a === "number" ? a : a[s];
     if (!Number.isFinite(c)) failOption("initial.steadyState", `initial.steadyState[${s}] must be finite, got ${c}.`);
-    if (!(v >= 0) || !Number.isFinite(v)) failOption("initial.noiseAmplitude", `initial.noiseAmplitude[${s}] must be a finite number ≥ 0, got ${v}.`);
+    if (!(v >= 0) || !Number.isFinite(v))
+      failOption("initial.noiseAmplitude", `initial.noiseAmplitude[${s}] must be a finite number ≥ 0, got ${v}.`);
     return v;
   });
   for (let s = 0; s < n; s++) fields[s].fill(cs[s]);
@@ -61,11 +71,12 @@ export function fillInitialState(state: InitialState, fields: Float64Array[]): s
 
 /** Adds a_s·U(−1, 1) from seedrandom(seed) to every cell; returns the seed as a string. */
 function addNoise(fields: Float64Array[], amps: readonly number[], seedGiven: string | number | undefined): string {
-  const seed = String(seedGiven ?? ((Math.random() * 2 ** 32) >>> 0));
+  const seed = String(seedGiven ?? (Math.random() * 2 ** 32) >>> 0);
   const rng = seedrandom(seed);
   // Species-major order: all cells of species 0, then species 1, … (part of the reproducibility contract).
   for (let s = 0; s < fields.length; s++) {
-    const f = fields[s], a = amps[s];
+    const f = fields[s],
+      a = amps[s];
     for (let i = 0; i < f.length; i++) f[i] += a * (2 * rng() - 1);
   }
   return seed;

@@ -70,25 +70,36 @@ export interface SimulationOptions {
 /** Checks the options that need no grid or reaction system; throws SimulationOptionError. */
 export function validateSimulationOptions(options: SimulationOptions, species: number): void {
   if (!Number.isInteger(species) || species < 1 || species > SIMULATION_LIMITS.maxSpecies) {
-    failOption("system.species", `system.species must be an integer from 1 to ${SIMULATION_LIMITS.maxSpecies}, got ${species}.`);
+    failOption(
+      "system.species",
+      `system.species must be an integer from 1 to ${SIMULATION_LIMITS.maxSpecies}, got ${species}.`,
+    );
   }
   const d = options.diffusionUm2PerS;
   if (!Array.isArray(d) || d.length !== species) {
-    failOption("diffusionUm2PerS", `diffusionUm2PerS must have ${species} values (one per species), got ${Array.isArray(d) ? d.length : typeof d}.`);
+    failOption(
+      "diffusionUm2PerS",
+      `diffusionUm2PerS must have ${species} values (one per species), got ${Array.isArray(d) ? d.length : typeof d}.`,
+    );
   }
   if (Array.isArray(d[0])) {
     (d as readonly (readonly number[])[]).forEach((row, i) => {
       if (!Array.isArray(row) || row.length !== species) {
-        failOption("diffusionUm2PerS", `diffusionUm2PerS[${i}] must be a row of ${species} values (a ${species}×${species} matrix), got ${Array.isArray(row) ? row.length : typeof row}.`);
+        failOption(
+          "diffusionUm2PerS",
+          `diffusionUm2PerS[${i}] must be a row of ${species} values (a ${species}×${species} matrix), got ${Array.isArray(row) ? row.length : typeof row}.`,
+        );
       }
       row.forEach((v, j) => {
-        if (!Number.isFinite(v)) failOption("diffusionUm2PerS", `diffusionUm2PerS[${i}][${j}] must be a finite number, got ${v}.`);
+        if (!Number.isFinite(v))
+          failOption("diffusionUm2PerS", `diffusionUm2PerS[${i}][${j}] must be a finite number, got ${v}.`);
         if (i === j && v < 0) failOption("diffusionUm2PerS", `diffusionUm2PerS[${i}][${i}] must be ≥ 0, got ${v}.`);
       });
     });
   } else {
     (d as readonly number[]).forEach((v, s) => {
-      if (typeof v !== "number" || !Number.isFinite(v) || v < 0) failOption("diffusionUm2PerS", `diffusionUm2PerS[${s}] must be a finite number ≥ 0, got ${v}.`);
+      if (typeof v !== "number" || !Number.isFinite(v) || v < 0)
+        failOption("diffusionUm2PerS", `diffusionUm2PerS[${s}] must be a finite number ≥ 0, got ${v}.`);
     });
   }
   positive(options.endTimeS, "endTimeS");
@@ -106,18 +117,24 @@ export function validateSimulationOptions(options: SimulationOptions, species: n
   const st = options.stationarity ?? {};
   if (st.tolerancePerS !== undefined) positive(st.tolerancePerS, "stationarity.tolerancePerS");
   if (st.windowS !== undefined) positive(st.windowS, "stationarity.windowS");
-  if (st.minTimeS !== undefined && !(st.minTimeS >= 0)) failOption("stationarity.minTimeS", `stationarity.minTimeS must be ≥ 0, got ${st.minTimeS}.`);
+  if (st.minTimeS !== undefined && !(st.minTimeS >= 0))
+    failOption("stationarity.minTimeS", `stationarity.minTimeS must be ≥ 0, got ${st.minTimeS}.`);
   const snaps = options.snapshotTimesS ?? [];
   if (snaps.length > SIMULATION_LIMITS.maxSnapshots) {
-    failOption("snapshotTimesS", `snapshotTimesS may list at most ${SIMULATION_LIMITS.maxSnapshots} times, got ${snaps.length}.`);
+    failOption(
+      "snapshotTimesS",
+      `snapshotTimesS may list at most ${SIMULATION_LIMITS.maxSnapshots} times, got ${snaps.length}.`,
+    );
   }
   snaps.forEach((t, i) => {
-    if (!(t >= 0 && t <= options.endTimeS)) failOption("snapshotTimesS", `snapshotTimesS[${i}] must be in [0, endTimeS = ${options.endTimeS}], got ${t}.`);
+    if (!(t >= 0 && t <= options.endTimeS))
+      failOption("snapshotTimesS", `snapshotTimesS[${i}] must be in [0, endTimeS = ${options.endTimeS}], got ${t}.`);
     if (i > 0 && !(t > snaps[i - 1])) failOption("snapshotTimesS", "snapshotTimesS must increase strictly.");
   });
   if (options.blowUpAbs !== undefined) positive(options.blowUpAbs, "blowUpAbs");
   const pe = options.progressEverySteps;
-  if (pe !== undefined && !(Number.isInteger(pe) && pe >= 1)) failOption("progressEverySteps", `progressEverySteps must be an integer ≥ 1, got ${pe}.`);
+  if (pe !== undefined && !(Number.isInteger(pe) && pe >= 1))
+    failOption("progressEverySteps", `progressEverySteps must be an integer ≥ 1, got ${pe}.`);
 }
 
 function positive(v: number, field: string): void {

@@ -16,7 +16,12 @@ export function createPeriodicBasis(grid: Grid): SpectralBasis {
   const k2 = new Float64Array(grid.cellCount);
   if (grid.dimensions === 1) {
     for (let s = 0; s < nx; s++) k2[s] = kx(s) ** 2;
-    return { grid, k2PerUm2: k2, forward: (a, b) => px.forwardRows(a, b, 1), inverse: (a, b) => px.inverseRows(a, b, 1) };
+    return {
+      grid,
+      k2PerUm2: k2,
+      forward: (a, b) => px.forwardRows(a, b, 1),
+      inverse: (a, b) => px.inverseRows(a, b, 1),
+    };
   }
   const py = ny === nx ? px : new RealFftPlan(ny);
   for (let r = 0; r < nx; r++) {

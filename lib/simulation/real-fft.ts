@@ -24,7 +24,10 @@ export class RealFftPlan {
 
   /** Half-complex forward of rows at offsets a and b (b = −1 for one row); src may equal dst. */
   forwardPair(src: Float64Array, dst: Float64Array, a: number, b: number): void {
-    const N = this.size, z = this.z, Z = this.zOut, half = N >> 1;
+    const N = this.size,
+      z = this.z,
+      Z = this.zOut,
+      half = N >> 1;
     for (let n = 0; n < N; n++) {
       z[2 * n] = src[a + n];
       z[2 * n + 1] = b >= 0 ? src[b + n] : 0;
@@ -37,7 +40,11 @@ export class RealFftPlan {
       dst[b + 1] = Z[2 * half + 1];
     }
     for (let k = 1; k < half; k++) {
-      const m = N - k, zr = Z[2 * k], zi = Z[2 * k + 1], mr = Z[2 * m], mi = Z[2 * m + 1];
+      const m = N - k,
+        zr = Z[2 * k],
+        zi = Z[2 * k + 1],
+        mr = Z[2 * m],
+        mi = Z[2 * m + 1];
       dst[a + 2 * k] = 0.5 * (zr + mr);
       dst[a + 2 * k + 1] = 0.5 * (zi - mi);
       if (b >= 0) {
@@ -49,16 +56,22 @@ export class RealFftPlan {
 
   /** Inverse of {@link forwardPair}. */
   inversePair(src: Float64Array, dst: Float64Array, a: number, b: number): void {
-    const N = this.size, z = this.z, Z = this.zOut, half = N >> 1;
+    const N = this.size,
+      z = this.z,
+      Z = this.zOut,
+      half = N >> 1;
     // Z = A + iB with A, B Hermitian: Z_k = (Ar − Bi) + i(Ai + Br), Z_{N−k} = (Ar + Bi) + i(Br − Ai).
-    const b0 = b >= 0 ? src[b] : 0, bh = b >= 0 ? src[b + 1] : 0;
+    const b0 = b >= 0 ? src[b] : 0,
+      bh = b >= 0 ? src[b + 1] : 0;
     z[0] = src[a];
     z[1] = b0;
     z[2 * half] = src[a + 1];
     z[2 * half + 1] = bh;
     for (let k = 1; k < half; k++) {
-      const ar = src[a + 2 * k], ai = src[a + 2 * k + 1];
-      const br = b >= 0 ? src[b + 2 * k] : 0, bi = b >= 0 ? src[b + 2 * k + 1] : 0;
+      const ar = src[a + 2 * k],
+        ai = src[a + 2 * k + 1];
+      const br = b >= 0 ? src[b + 2 * k] : 0,
+        bi = b >= 0 ? src[b + 2 * k + 1] : 0;
       z[2 * k] = ar - bi;
       z[2 * k + 1] = ai + br;
       z[2 * (N - k)] = ar + bi;
@@ -73,7 +86,9 @@ export class RealFftPlan {
 
   /** Complex forward FFT of the complex row (re at offset a, im at offset b), in place. */
   complexForward(data: Float64Array, a: number, b: number, inverse = false): void {
-    const N = this.size, z = this.z, Z = this.zOut;
+    const N = this.size,
+      z = this.z,
+      Z = this.zOut;
     for (let n = 0; n < N; n++) {
       z[2 * n] = data[a + n];
       z[2 * n + 1] = data[b + n];

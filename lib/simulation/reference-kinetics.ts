@@ -11,9 +11,15 @@ export const schnakenbergReaction: ReactionSystem = {
   species: 2,
   speciesNames: ["u", "v"],
   evaluate(fields, params, out, range) {
-    const u = fields[0], v = fields[1], ru = out[0], rv = out[1];
-    const start = range?.start ?? 0, end = range?.end ?? u.length;
-    const a = params.a, b = params.b, g = params.gamma ?? 1;
+    const u = fields[0],
+      v = fields[1],
+      ru = out[0],
+      rv = out[1];
+    const start = range?.start ?? 0,
+      end = range?.end ?? u.length;
+    const a = params.a,
+      b = params.b,
+      g = params.gamma ?? 1;
     if (typeof a === "number" && typeof b === "number" && typeof g === "number") {
       for (let i = start; i < end; i++) {
         const uv = u[i] * u[i] * v[i];
@@ -32,7 +38,9 @@ export const schnakenbergReaction: ReactionSystem = {
     }
   },
   jacobian(c, p, out) {
-    const g = p.gamma ?? 1, u = c[0], v = c[1];
+    const g = p.gamma ?? 1,
+      u = c[0],
+      v = c[1];
     out[0] = g * (-1 + 2 * u * v);
     out[1] = g * u * u;
     out[2] = g * (-2 * u * v);
@@ -51,9 +59,11 @@ export function createLinearDecayReaction(species: number): ReactionSystem {
     species,
     evaluate(fields, params, out, range) {
       const r = params.rate ?? 0;
-      const start = range?.start ?? 0, end = range?.end ?? fields[0].length;
+      const start = range?.start ?? 0,
+        end = range?.end ?? fields[0].length;
       for (let s = 0; s < species; s++) {
-        const c = fields[s], o = out[s];
+        const c = fields[s],
+          o = out[s];
         for (let i = start; i < end; i++) o[i] = -(typeof r === "number" ? r : r[i]) * c[i];
       }
     },

@@ -48,7 +48,8 @@ export function fillSchemeCoefficients(
     if (scheme === "implicit-euler") target.m![j] = 1 / (1 - z);
     else if (scheme === "integrating-factor") target.m![j] = Math.exp(z);
     else {
-      const f1 = phi1(z), f2 = phi2(z);
+      const f1 = phi1(z),
+        f2 = phi2(z);
       target.e![j] = Math.exp(z);
       target.p1![j] = dtS * f1;
       target.a![j] = dtS * (f1 + f2);

@@ -1,7 +1,14 @@
 import { createSpectralBasis } from "./spectral-basis";
 import { StageMode, type SpeciesBuffers } from "./diffusion-stage";
 import { failOption } from "./errors";
-import { createModeReactionSystem, decomposeDiffusion, isDiagonalMatrix, mixSpecies, mixSpeciesInPlace, type DiffusionModes } from "./cross-diffusion";
+import {
+  createModeReactionSystem,
+  decomposeDiffusion,
+  isDiagonalMatrix,
+  mixSpecies,
+  mixSpeciesInPlace,
+  type DiffusionModes,
+} from "./cross-diffusion";
 import { createSerialExecutor } from "./executor";
 import { computeFieldStats, computeRelativeChangeRate } from "./field-stats";
 import { createGrid, type Grid } from "./grid";
@@ -40,7 +47,10 @@ function resolveParams(options: SimulationOptions, grid: Grid): ReactionParams {
 }
 
 /** Diagonal diffusivities, or the mode decomposition of a cross-diffusion matrix. */
-function resolveDiffusion(d: SimulationOptions["diffusionUm2PerS"]): { diagonal: number[]; modes: DiffusionModes | null } {
+function resolveDiffusion(d: SimulationOptions["diffusionUm2PerS"]): {
+  diagonal: number[];
+  modes: DiffusionModes | null;
+} {
   if (!Array.isArray(d[0])) return { diagonal: [...(d as readonly number[])], modes: null };
   const m = d as readonly (readonly number[])[];
   if (isDiagonalMatrix(m)) return { diagonal: m.map((row, i) => row[i]), modes: null };
@@ -55,7 +65,9 @@ function run(
   params: ReactionParams,
   executor: NonNullable<SimulationOptions["executor"]>,
 ): SimulationResult {
-  const n = physicalSystem.species, cells = grid.cellCount, scheme = options.scheme ?? "etd2";
+  const n = physicalSystem.species,
+    cells = grid.cellCount,
+    scheme = options.scheme ?? "etd2";
   const { diagonal, modes } = resolveDiffusion(options.diffusionUm2PerS);
   // With cross-diffusion the solver steps the mode coordinates w = V⁻¹c (cross-diffusion.ts).
   const system = modes ? createModeReactionSystem(physicalSystem, modes, cells) : physicalSystem;
@@ -70,9 +82,10 @@ function run(
   }
   const views = [buffers.map((b) => b.fields[0]), buffers.map((b) => b.fields[1])];
   const seed = fillInitialState(options.initial, views[0]);
-  const reference = options.initial.kind === "steady-state-noise"
-    ? [...options.initial.steadyState]
-    : views[0].map((f) => computeFieldStats(f).mean);
+  const reference =
+    options.initial.kind === "steady-state-noise"
+      ? [...options.initial.steadyState]
+      : views[0].map((f) => computeFieldStats(f).mean);
 
   // ρ is the same in mode coordinates (V⁻¹JV is similar to J).
   const rho = computeReactionStiffness(physicalSystem, reference, params, cells);
@@ -109,7 +122,10 @@ function run(
   const snapshots: Snapshot[] = [];
   const progressEvery = options.progressEverySteps ?? Math.ceil(rule.steps / 100);
 
-  let cur: 0 | 1 = 0, steps = 0, nextSnap = 0, lastRate: number | null = null;
+  let cur: 0 | 1 = 0,
+    steps = 0,
+    nextSnap = 0,
+    lastRate: number | null = null;
   let reason: StopReason = "end-time";
   let blowUp: BlowUpInfo | null = null;
   const takeSnapshots = () => {
@@ -125,11 +141,13 @@ function run(
       reason = "cancelled";
       break;
     }
-    const c = views[cur], w = views[1 - cur];
+    const c = views[cur],
+      w = views[1 - cur];
     system.evaluate(c, params, w);
     if (scheme !== "etd2") {
       for (let s = 0; s < n; s++) {
-        const cs = c[s], ws = w[s];
+        const cs = c[s],
+          ws = w[s];
         for (let i = 0; i < cells; i++) ws[i] = cs[i] + h * ws[i];
       }
     }
@@ -153,7 +171,12 @@ function run(
       }
     }
     if (options.onProgress && steps % progressEvery === 0 && steps < rule.steps) {
-      options.onProgress({ timeS: steps * h, fraction: steps / rule.steps, percent: (100 * steps) / rule.steps, steps });
+      options.onProgress({
+        timeS: steps * h,
+        fraction: steps / rule.steps,
+        percent: (100 * steps) / rule.steps,
+        steps,
+      });
     }
   }
   const timeS = steps * h;
@@ -168,7 +191,16 @@ function run(
     steps,
     timeStep: rule,
     stopReason: reason,
-    message: stopMessage(reason, { timeS, steps, endTimeS: options.endTimeS, rate: lastRate, tol, windowS: windowSteps * h, blowUp, blowUpAbs }),
+    message: stopMessage(reason, {
+      timeS,
+      steps,
+      endTimeS: options.endTimeS,
+      rate: lastRate,
+      tol,
+      windowS: windowSteps * h,
+      blowUp,
+      blowUpAbs,
+    }),
     stationary: lastRate !== null && lastRate < tol,
     lastChangeRatePerS: lastRate,
     stationarityTolerancePerS: tol,
@@ -198,6 +230,9 @@ function stopMessage(reason: StopReason, f: MessageFacts): string {
     return `Stationary at t = ${f.timeS} s: relative change ${f.rate!.toExponential(3)} /s is below ${f.tol.toExponential(3)} /s over a window of ${f.windowS} s.`;
   }
   const b = f.blowUp!;
-  const what = Number.isNaN(b.maxAbs) || !Number.isFinite(b.maxAbs) ? "a field value became NaN or infinite" : `|c| reached ${b.maxAbs.toExponential(3)}, above blowUpAbs = ${f.blowUpAbs}`;
+  const what =
+    Number.isNaN(b.maxAbs) || !Number.isFinite(b.maxAbs)
+      ? "a field value became NaN or infinite"
+      : `|c| reached ${b.maxAbs.toExponential(3)}, above blowUpAbs = ${f.blowUpAbs}`;
   return `Blow-up at step ${b.step} (t = ${b.timeS} s): ${what}; the fields are the last good state, at t = ${b.lastGoodTimeS} s. Reduce dtS or check the parameters.`;
 }

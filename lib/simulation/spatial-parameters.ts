@@ -22,7 +22,10 @@ export function resolveParameterProfile(profile: ParameterProfile, grid: Grid, f
   const out = new Float64Array(grid.cellCount);
   if (profile.kind === "field") {
     if (profile.values.length !== grid.cellCount) {
-      failOption(field, `${field}.values must have one value per cell (${grid.cellCount}), got ${profile.values.length}.`);
+      failOption(
+        field,
+        `${field}.values must have one value per cell (${grid.cellCount}), got ${profile.values.length}.`,
+      );
     }
     for (let i = 0; i < out.length; i++) out[i] = profile.values[i];
     return checkFinite(out, field);
@@ -39,19 +42,27 @@ export function resolveParameterProfile(profile: ParameterProfile, grid: Grid, f
   return checkFinite(out, field);
 }
 
-function profileFunction(profile: Exclude<ParameterProfile, { kind: "field" }>, lengthUm: number, field: string): (x: number) => number {
+function profileFunction(
+  profile: Exclude<ParameterProfile, { kind: "field" }>,
+  lengthUm: number,
+  field: string,
+): (x: number) => number {
   if (profile.kind === "linear") {
     const { fromValue: a, toValue: b } = profile;
     return (x) => a + ((b - a) * x) / lengthUm;
   }
   if (profile.kind === "exponential") {
-    if (!(profile.decayLengthUm > 0)) failOption(`${field}.decayLengthUm`, `${field}.decayLengthUm must be positive, got ${profile.decayLengthUm}.`);
+    if (!(profile.decayLengthUm > 0))
+      failOption(`${field}.decayLengthUm`, `${field}.decayLengthUm must be positive, got ${profile.decayLengthUm}.`);
     const { value0, decayLengthUm } = profile;
     return (x) => value0 * Math.exp(-x / decayLengthUm);
   }
   const { positionsUm: xs, values: ys } = profile;
   if (xs.length < 2 || xs.length !== ys.length) {
-    failOption(field, `${field} needs at least 2 positions and as many values, got ${xs.length} positions and ${ys.length} values.`);
+    failOption(
+      field,
+      `${field} needs at least 2 positions and as many values, got ${xs.length} positions and ${ys.length} values.`,
+    );
   }
   for (let i = 1; i < xs.length; i++) {
     if (!(xs[i] > xs[i - 1])) failOption(`${field}.positionsUm`, `${field}.positionsUm must increase strictly.`);

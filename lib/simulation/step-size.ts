@@ -5,15 +5,21 @@ import type { ReactionParams, ReactionSystem } from "./reaction-system";
  * Jacobian ∂R_i/∂c_j at one state (row-major n×n): the system's own when it has one, else
  * central differences with step 1e-6·max(1, |c_j|) (common practice, no source).
  */
-export function computeReactionJacobian(system: ReactionSystem, state: readonly number[], params: Readonly<Record<string, number>>): Float64Array {
+export function computeReactionJacobian(
+  system: ReactionSystem,
+  state: readonly number[],
+  params: Readonly<Record<string, number>>,
+): Float64Array {
   const n = system.species;
   const out = new Float64Array(n * n);
   if (system.jacobian) {
     system.jacobian(state, params, out);
     return out;
   }
-  const plus = state.map((c) => Float64Array.of(c)), minus = state.map((c) => Float64Array.of(c));
-  const rp = state.map(() => new Float64Array(1)), rm = state.map(() => new Float64Array(1));
+  const plus = state.map((c) => Float64Array.of(c)),
+    minus = state.map((c) => Float64Array.of(c));
+  const rp = state.map(() => new Float64Array(1)),
+    rm = state.map(() => new Float64Array(1));
   for (let j = 0; j < n; j++) {
     const h = 1e-6 * Math.max(1, Math.abs(state[j]));
     plus[j][0] = state[j] + h;
@@ -43,7 +49,12 @@ export function computeSpectralRadius(matrix: Float64Array, n: number): number {
  * Reaction stiffness ρ (1/s): the largest spectral radius of the Jacobian at `state` over up to
  * 9 evenly spaced sample cells (parameters varying in space change J from cell to cell).
  */
-export function computeReactionStiffness(system: ReactionSystem, state: readonly number[], params: ReactionParams, cellCount: number): number {
+export function computeReactionStiffness(
+  system: ReactionSystem,
+  state: readonly number[],
+  params: ReactionParams,
+  cellCount: number,
+): number {
   const spatial = Object.values(params).some((v) => typeof v !== "number");
   const samples = spatial ? Math.min(9, cellCount) : 1;
   let rho = 0;
@@ -75,7 +86,12 @@ export interface TimeStepRule {
  * steps end exactly at endTimeS. Explicit Euler on a reaction eigenvalue λ is stable only for
  * |1 + hλ| < 1 (h < 2/|λ| for real λ); safety = 0.1 keeps the reaction error well inside that.
  */
-export function chooseTimeStep(endTimeS: number, spectralRadiusPerS: number, safety: number, userDtS: number | null): Omit<TimeStepRule, "steps"> & { steps: number } {
+export function chooseTimeStep(
+  endTimeS: number,
+  spectralRadiusPerS: number,
+  safety: number,
+  userDtS: number | null,
+): Omit<TimeStepRule, "steps"> & { steps: number } {
   const stiffnessLimitS = spectralRadiusPerS > 0 ? safety / spectralRadiusPerS : Infinity;
   const h = Math.min(userDtS ?? Infinity, stiffnessLimitS, endTimeS);
   const steps = Math.ceil(endTimeS / h - 1e-9);

@@ -26,24 +26,40 @@ export interface NearestNeighbourResult {
 }
 
 /** Nearest-neighbour distances of 2-D points with a k-d tree (kdbush), growing the search radius until a neighbour is found. */
-export function computeNearestNeighbours(xs: ArrayLike<number>, ys: ArrayLike<number>, field?: Field): NearestNeighbourResult {
+export function computeNearestNeighbours(
+  xs: ArrayLike<number>,
+  ys: ArrayLike<number>,
+  field?: Field,
+): NearestNeighbourResult {
   const n = xs.length;
-  if (n < 2) throw new SpacingError(`At least 2 points are needed for nearest-neighbour distances (got ${n}).`, "points");
-  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
+  if (n < 2)
+    throw new SpacingError(`At least 2 points are needed for nearest-neighbour distances (got ${n}).`, "points");
+  let minX = Infinity,
+    minY = Infinity,
+    maxX = -Infinity,
+    maxY = -Infinity;
   const index = new KDBush(n);
   for (let i = 0; i < n; i++) {
     index.add(xs[i], ys[i]);
-    minX = Math.min(minX, xs[i]); maxX = Math.max(maxX, xs[i]); minY = Math.min(minY, ys[i]); maxY = Math.max(maxY, ys[i]);
+    minX = Math.min(minX, xs[i]);
+    maxX = Math.max(maxX, xs[i]);
+    minY = Math.min(minY, ys[i]);
+    maxY = Math.max(maxY, ys[i]);
   }
   index.finish();
   const f = field ?? { minX, minY, maxX, maxY };
   const area = (f.maxX - f.minX) * (f.maxY - f.minY);
-  if (!(area > 0)) throw new SpacingError("The points span no area (all on one line), so the density and Clark–Evans ratio are undefined.", "points");
+  if (!(area > 0))
+    throw new SpacingError(
+      "The points span no area (all on one line), so the density and Clark–Evans ratio are undefined.",
+      "points",
+    );
   const density = n / area;
   const start = 1 / Math.sqrt(density); // ~2× the expected random NN distance 0.5/√ρ
   const distances = new Float64Array(n);
   for (let i = 0; i < n; i++) {
-    const x = xs[i], y = ys[i];
+    const x = xs[i],
+      y = ys[i];
     let best = Infinity;
     for (let r = start; best === Infinity; r *= 2) {
       for (const j of index.within(x, y, r)) {
@@ -62,8 +78,12 @@ export function computeNearestNeighbours(xs: ArrayLike<number>, ys: ArrayLike<nu
   }
   const all = summarize(distances);
   return {
-    distances, all, interior: interiorD.length >= 2 ? summarize(interiorD) : null,
-    clarkEvansR: all.mean / (0.5 / Math.sqrt(density)), density, field: f,
+    distances,
+    all,
+    interior: interiorD.length >= 2 ? summarize(interiorD) : null,
+    clarkEvansR: all.mean / (0.5 / Math.sqrt(density)),
+    density,
+    field: f,
     equivalentHexWavelength: (Math.sqrt(3) / 2) * all.mean,
   };
 }

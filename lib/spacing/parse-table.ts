@@ -25,12 +25,15 @@ const TO_UM: Record<Exclude<TableUnit, "px">, number> = { um: 1, nm: 1e-3, mm: 1
  */
 export function parseTable(text: string, mapping: ColumnMapping): Record<string, Float64Array> {
   const columns = (["x", "y", "position", "spacing"] as const).filter((k) => mapping[k] !== undefined);
-  if (columns.length === 0) throw new SpacingError("Say which columns to read: x and y, or position, or spacing.", "mapping");
-  if (columns.includes("x") !== columns.includes("y")) throw new SpacingError("2-D centroids need both an x and a y column.", "mapping");
+  if (columns.length === 0)
+    throw new SpacingError("Say which columns to read: x and y, or position, or spacing.", "mapping");
+  if (columns.includes("x") !== columns.includes("y"))
+    throw new SpacingError("2-D centroids need both an x and a y column.", "mapping");
   const unit = mapping.unit ?? "um";
   let scale: number;
   if (unit === "px") {
-    if (!(mapping.pixelSizeUm && mapping.pixelSizeUm > 0)) throw new SpacingError("unit \"px\" needs pixelSizeUm (µm/px) above 0.", "pixelSizeUm");
+    if (!(mapping.pixelSizeUm && mapping.pixelSizeUm > 0))
+      throw new SpacingError('unit "px" needs pixelSizeUm (µm/px) above 0.', "pixelSizeUm");
     scale = mapping.pixelSizeUm;
   } else if (unit in TO_UM) scale = TO_UM[unit];
   else throw new SpacingError(`unit must be "um", "nm", "mm" or "px" (got ${String(unit)}).`, "unit");
@@ -45,13 +48,24 @@ export function parseTable(text: string, mapping: ColumnMapping): Record<string,
   for (const key of columns) {
     const name = mapping[key]!;
     const c = header.indexOf(name.trim());
-    if (c < 0) throw new SpacingError(`Column "${name}" (${key}) is not in the header; the columns are: ${header.join(", ")}.`, key, 1, name);
+    if (c < 0)
+      throw new SpacingError(
+        `Column "${name}" (${key}) is not in the header; the columns are: ${header.join(", ")}.`,
+        key,
+        1,
+        name,
+      );
     const values = new Float64Array(rows.length - 1);
     for (let r = 1; r < rows.length; r++) {
       const cell = (rows[r][c] ?? "").trim();
       const v = cell === "" ? Number.NaN : Number(cell);
       if (!Number.isFinite(v)) {
-        throw new SpacingError(`Row ${r + 1}, column "${name}": ${cell === "" ? "the cell is empty" : `"${cell}" is not a number`}.`, key, r + 1, name);
+        throw new SpacingError(
+          `Row ${r + 1}, column "${name}": ${cell === "" ? "the cell is empty" : `"${cell}" is not a number`}.`,
+          key,
+          r + 1,
+          name,
+        );
       }
       values[r - 1] = v * scale;
     }

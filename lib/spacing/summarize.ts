@@ -27,7 +27,11 @@ export function summarize(values: ArrayLike<number>): Summary {
   const sd = sampleStandardDeviation(v);
   const sem = sd / Math.sqrt(n);
   const t = jStat.studentt.inv(0.975, n - 1);
-  let min = Infinity, max = -Infinity;
-  for (const x of v) { if (x < min) min = x; if (x > max) max = x; }
+  let min = Infinity,
+    max = -Infinity;
+  for (const x of v) {
+    if (x < min) min = x;
+    if (x > max) max = x;
+  }
   return { n, mean: m, sd, sem, cv: sd / m, median: median(v), min, max, ci95: [m - t * sem, m + t * sem] };
 }

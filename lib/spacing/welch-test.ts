@@ -18,8 +18,10 @@ export interface WelchResult {
 
 /** Welch's unequal-variance t-test (Welch 1947, Biometrika 34:28) with Hedges' g. */
 export function welchTTest(a: ArrayLike<number>, b: ArrayLike<number>): WelchResult {
-  const x = Array.from(a), y = Array.from(b);
-  if (x.length < 2 || y.length < 2) throw new SpacingError(`Each group needs at least 2 values (got ${x.length} and ${y.length}).`, "groups");
+  const x = Array.from(a),
+    y = Array.from(b);
+  if (x.length < 2 || y.length < 2)
+    throw new SpacingError(`Each group needs at least 2 values (got ${x.length} and ${y.length}).`, "groups");
   const [n1, n2] = [x.length, y.length];
   const [v1, v2] = [sampleVariance(x), sampleVariance(y)];
   const d = mean(x) - mean(y);

@@ -6,8 +6,17 @@
 import type { CompiledKinetics } from "../kinetics/types";
 import { checkDiffusion } from "./diffusion-check";
 import {
-  chooseKMax, classifyAtZero, classifyPeak, createScanWorkspace, isInteriorMax, refinePeak, scanGrid,
-  sigmaAt, tolerancesFor, type Peak, type ScanWorkspace,
+  chooseKMax,
+  classifyAtZero,
+  classifyPeak,
+  createScanWorkspace,
+  isInteriorMax,
+  refinePeak,
+  scanGrid,
+  sigmaAt,
+  tolerancesFor,
+  type Peak,
+  type ScanWorkspace,
 } from "./dispersion-scan";
 import { findRootBracketed } from "./roots";
 
@@ -38,7 +47,12 @@ export interface StateAnalysis {
 }
 
 /** Analyses the state `c` of `kinetics` at parameters `p`. */
-export function analyseState(kinetics: CompiledKinetics, p: ArrayLike<number>, c: ArrayLike<number>, options: ScanOptions = {}): StateAnalysis {
+export function analyseState(
+  kinetics: CompiledKinetics,
+  p: ArrayLike<number>,
+  c: ArrayLike<number>,
+  options: ScanOptions = {},
+): StateAnalysis {
   const n = kinetics.species.length;
   const gridSize = options.gridSize ?? 200;
   const ws = createScanWorkspace(n, gridSize);
@@ -67,7 +81,10 @@ export function analyseState(kinetics: CompiledKinetics, p: ArrayLike<number>, c
     }
   }
   const bands = findBands(ws, kMax);
-  const fastest = peaks.reduce<ClassifiedPeak | null>((best, q) => (best === null || q.sigma > best.sigma ? q : best), null);
+  const fastest = peaks.reduce<ClassifiedPeak | null>(
+    (best, q) => (best === null || q.sigma > best.sigma ? q : best),
+    null,
+  );
   return { flags, peaks, fastest, bands, kMax, dMin, tol, imTol, ws };
 }
 
@@ -77,7 +94,8 @@ function findBands(ws: ScanWorkspace, kMax: number): [number, number][] {
   const tol = 1e-13 * kMax;
   let start = ws.re[0] > 0 ? 0 : NaN;
   for (let i = 1; i < ws.size; i++) {
-    const a = ws.re[i - 1], b = ws.re[i];
+    const a = ws.re[i - 1],
+      b = ws.re[i];
     if (a <= 0 && b > 0) start = findRootBracketed(f, ws.k[i - 1], ws.k[i], tol);
     else if (a > 0 && b <= 0) {
       bands.push([start, findRootBracketed(f, ws.k[i - 1], ws.k[i], tol)]);

@@ -15,7 +15,9 @@
 import { CLASS_HOPF, CLASS_PEAK, CLASS_UNSTABLE_K0 } from "./classes";
 
 // Local copies: a module's exported constant may be read through an accessor in the inner loop.
-const PEAK = CLASS_PEAK, HOPF = CLASS_HOPF, UNSTABLE_K0 = CLASS_UNSTABLE_K0;
+const PEAK = CLASS_PEAK,
+  HOPF = CLASS_HOPF,
+  UNSTABLE_K0 = CLASS_UNSTABLE_K0;
 
 export interface Cell2x2Peak {
   k: number;
@@ -24,7 +26,8 @@ export interface Cell2x2Peak {
 
 /** Largest real part of the eigenvalues of J − q·diag(Du, Dv). */
 export function sigmaMax2x2(fu: number, fv: number, gu: number, gv: number, Du: number, Dv: number, q: number): number {
-  const a = fu - q * Du, d = gv - q * Dv;
+  const a = fu - q * Du,
+    d = gv - q * Dv;
   const half = 0.5 * (a + d);
   const disc = half * half - (a * d - fv * gu);
   return disc >= 0 ? half + Math.sqrt(disc) : half;
@@ -35,10 +38,15 @@ export function sigmaMax2x2(fu: number, fv: number, gu: number, gv: number, Du: 
  * peak in `peak` (k = NaN when none). `J` = [f_u, f_v, g_u, g_v], `Du`, `Dv` > 0.
  */
 export function analyseCell2x2(J: ArrayLike<number>, Du: number, Dv: number, peak: Cell2x2Peak): number {
-  const fu = J[0], fv = J[1], gu = J[2], gv = J[3];
+  const fu = J[0],
+    fv = J[1],
+    gu = J[2],
+    gv = J[3];
   const norm = Math.sqrt(fu * fu + fv * fv + gu * gu + gv * gv) || 1;
-  const tol = 1e-9 * norm, imTol = 1e-7 * norm;
-  const T0 = fu + gv, det0 = fu * gv - fv * gu;
+  const tol = 1e-9 * norm,
+    imTol = 1e-7 * norm;
+  const T0 = fu + gv,
+    det0 = fu * gv - fv * gu;
   let flags = 0;
   const disc0 = 0.25 * T0 * T0 - det0;
   if (disc0 >= 0) {
@@ -46,9 +54,14 @@ export function analyseCell2x2(J: ArrayLike<number>, Du: number, Dv: number, pea
   } else if (0.5 * T0 > tol) flags |= Math.sqrt(-disc0) > imTol ? HOPF : UNSTABLE_K0;
   peak.k = NaN;
   peak.sigma = -Infinity;
-  const S = Du + Dv, P = Du * Dv, c = Dv * fu + Du * gv;
-  const A = -P * (Du - Dv) * (Du - Dv), B = 2 * P * (S * T0 - 2 * c), C = c * c - S * T0 * c + S * S * det0;
-  let q1 = NaN, q2 = NaN;
+  const S = Du + Dv,
+    P = Du * Dv,
+    c = Dv * fu + Du * gv;
+  const A = -P * (Du - Dv) * (Du - Dv),
+    B = 2 * P * (S * T0 - 2 * c),
+    C = c * c - S * T0 * c + S * S * det0;
+  let q1 = NaN,
+    q2 = NaN;
   if (Math.abs(A) > 1e-14 * Math.abs(B)) {
     const d = B * B - 4 * A * C;
     if (d >= 0) {
@@ -65,7 +78,20 @@ export function analyseCell2x2(J: ArrayLike<number>, Du: number, Dv: number, pea
 }
 
 /** Keeps root q as the peak when it is a growing local maximum of σ_max on the real branch and beats the current one. */
-function considerRoot(q: number, fu: number, fv: number, gu: number, gv: number, Du: number, Dv: number, S: number, P: number, c: number, tol: number, peak: Cell2x2Peak): void {
+function considerRoot(
+  q: number,
+  fu: number,
+  fv: number,
+  gu: number,
+  gv: number,
+  Du: number,
+  Dv: number,
+  S: number,
+  P: number,
+  c: number,
+  tol: number,
+  peak: Cell2x2Peak,
+): void {
   if (!(q > 0) || !Number.isFinite(q)) return;
   const s = sigmaMax2x2(fu, fv, gu, gv, Du, Dv, q);
   if (!(s > tol) || s <= peak.sigma) return;

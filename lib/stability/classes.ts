@@ -23,7 +23,8 @@ export const CLASS_NO_STEADY_STATE = 16;
 export const CLASS_INVALID = 32;
 
 /** The exclusive classes of a steady state (and of a map cell, which adds the last two). */
-export type InstabilityClass = "stable" | "turing" | "wave" | "hopf" | "turing-hopf" | "unstable-k0" | "peak-unstable-k0";
+export type InstabilityClass =
+  "stable" | "turing" | "wave" | "hopf" | "turing-hopf" | "unstable-k0" | "peak-unstable-k0";
 export type MapClass = InstabilityClass | "no-steady-state" | "invalid";
 
 /** Every map class in legend order, with the words a page shows. */
@@ -47,7 +48,10 @@ export function isStableAtZero(flags: number): boolean {
 
 /** The one definition: stable at k = 0, a real growth peak at some k > 0, and a valid state. */
 export function isTuring(flags: number): boolean {
-  return (flags & CLASS_PEAK) !== 0 && (flags & (CLASS_HOPF | CLASS_UNSTABLE_K0 | CLASS_NO_STEADY_STATE | CLASS_INVALID)) === 0;
+  return (
+    (flags & CLASS_PEAK) !== 0 &&
+    (flags & (CLASS_HOPF | CLASS_UNSTABLE_K0 | CLASS_NO_STEADY_STATE | CLASS_INVALID)) === 0
+  );
 }
 
 /** The exclusive class of a flag set; every flag set has exactly one. */
@@ -73,6 +77,11 @@ export function classLabel(flags: number): string {
 
 /** Map codes of the flag bits for JSON output (bits combine; `classOf` names the combination). */
 export const CLASS_LEGEND: Record<string, number> = {
-  stable: CLASS_STABLE, peak: CLASS_PEAK, hopf: CLASS_HOPF, wave: CLASS_WAVE,
-  "unstable-k0": CLASS_UNSTABLE_K0, "no-steady-state": CLASS_NO_STEADY_STATE, invalid: CLASS_INVALID,
+  stable: CLASS_STABLE,
+  peak: CLASS_PEAK,
+  hopf: CLASS_HOPF,
+  wave: CLASS_WAVE,
+  "unstable-k0": CLASS_UNSTABLE_K0,
+  "no-steady-state": CLASS_NO_STEADY_STATE,
+  invalid: CLASS_INVALID,
 };

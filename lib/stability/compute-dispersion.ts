@@ -55,7 +55,11 @@ export interface DispersionResult {
 }
 
 /** Computes the dispersion relation; `parameters` overrides the kinetics' defaults by name. */
-export function computeDispersion(kinetics: CompiledKinetics, parameters: Readonly<Record<string, number>> = {}, options: DispersionOptions = {}): DispersionResult {
+export function computeDispersion(
+  kinetics: CompiledKinetics,
+  parameters: Readonly<Record<string, number>> = {},
+  options: DispersionOptions = {},
+): DispersionResult {
   const gridSize = options.gridSize ?? 200;
   if (!Number.isInteger(gridSize) || gridSize < 16 || gridSize > 100_000) {
     throw new KineticsInputError("gridSize", `gridSize must be an integer from 16 to 100000 (got ${gridSize}).`);
@@ -72,8 +76,14 @@ export function computeDispersion(kinetics: CompiledKinetics, parameters: Readon
   const n = kinetics.species.length;
   const matrix = (m: Float64Array) => Array.from({ length: n }, (_, i) => Array.from(m.subarray(i * n, i * n + n)));
   const peak = (q: { kind: "turing" | "wave"; k: number; sigma: number; imSigma: number }): GrowthPeak => ({
-    kind: q.kind, kStar: q.k, sigmaStar: q.sigma, imSigmaStar: q.imSigma, wavelength: (2 * Math.PI) / q.k,
-    kStarPerUm: wavenumberPerUm(q.k, scales), wavelengthUm: wavelengthUm(q.k, scales), growthRatePerS: growthRatePerS(q.sigma, scales),
+    kind: q.kind,
+    kStar: q.k,
+    sigmaStar: q.sigma,
+    imSigmaStar: q.imSigma,
+    wavelength: (2 * Math.PI) / q.k,
+    kStarPerUm: wavenumberPerUm(q.k, scales),
+    wavelengthUm: wavelengthUm(q.k, scales),
+    growthRatePerS: growthRatePerS(q.sigma, scales),
   });
   let maxSigma = -Infinity;
   for (let i = 0; i < a.ws.size; i++) maxSigma = Math.max(maxSigma, a.ws.re[i]);
@@ -85,13 +95,28 @@ export function computeDispersion(kinetics: CompiledKinetics, parameters: Readon
     steadyStates: states.map((s, i) => ({ ...s, classes: classNames(analyses[i].flags) })),
     jacobian: matrix(a.ws.J),
     diffusion: matrix(a.ws.D),
-    classification: { classes: classNames(a.flags), label: classLabel(a.flags), flags: a.flags, marginal: Math.abs(maxSigma) <= a.tol },
+    classification: {
+      classes: classNames(a.flags),
+      label: classLabel(a.flags),
+      flags: a.flags,
+      marginal: Math.abs(maxSigma) <= a.tol,
+    },
     fastest: a.fastest ? peak(a.fastest) : null,
     peaks: a.peaks.map(peak),
-    bands: a.bands.map(([lo, hi]) => ({ kLow: lo, kHigh: hi, kLowPerUm: wavenumberPerUm(lo, scales), kHighPerUm: wavenumberPerUm(hi, scales) })),
-    turingConditions: n === 2 && kinetics.diagonalDiffusion ? computeTuringConditions(a.ws.J, a.ws.D[0], a.ws.D[3]) : null,
+    bands: a.bands.map(([lo, hi]) => ({
+      kLow: lo,
+      kHigh: hi,
+      kLowPerUm: wavenumberPerUm(lo, scales),
+      kHighPerUm: wavenumberPerUm(hi, scales),
+    })),
+    turingConditions:
+      n === 2 && kinetics.diagonalDiffusion ? computeTuringConditions(a.ws.J, a.ws.D[0], a.ws.D[3]) : null,
     domain: options.domain ? describeDomain(a, options.domain, scales) : null,
-    curve: { k: Array.from(a.ws.k.subarray(0, a.ws.size)), sigma: Array.from(a.ws.re.subarray(0, a.ws.size)), imSigma: Array.from(a.ws.im.subarray(0, a.ws.size)) },
+    curve: {
+      k: Array.from(a.ws.k.subarray(0, a.ws.size)),
+      sigma: Array.from(a.ws.re.subarray(0, a.ws.size)),
+      imSigma: Array.from(a.ws.im.subarray(0, a.ws.size)),
+    },
     kMax: a.kMax,
   };
 }
@@ -104,7 +129,10 @@ export function computeDispersion(kinetics: CompiledKinetics, parameters: Readon
 export function pickSteadyState(analyses: Pick<StateAnalysis, "flags">[], choice: number | "auto"): number {
   if (choice !== "auto") {
     if (!Number.isInteger(choice) || choice < 0 || choice >= analyses.length) {
-      throw new KineticsInputError("steadyState", `steadyState must be "auto" or an index from 0 to ${analyses.length - 1} (got ${choice}).`);
+      throw new KineticsInputError(
+        "steadyState",
+        `steadyState must be "auto" or an index from 0 to ${analyses.length - 1} (got ${choice}).`,
+      );
     }
     return choice;
   }

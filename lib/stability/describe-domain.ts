@@ -37,9 +37,15 @@ export function describeDomain(a: StateAnalysis, spec: DomainSpec, scales: Resol
   const modes = enumerateModes(domain, a.kMax).map((m): ModeGrowth => {
     const sigma = sigmaAt(a.ws, m.k);
     return {
-      indices: m.indices, k: m.k, kPerUm: wavenumberPerUm(m.k, scales), multiplicity: m.multiplicity,
-      sigma, imSigma: a.ws.eig[1], growthRatePerS: growthRatePerS(sigma, scales),
-      wavelength: (2 * Math.PI) / m.k, wavelengthUm: wavelengthUm(m.k, scales),
+      indices: m.indices,
+      k: m.k,
+      kPerUm: wavenumberPerUm(m.k, scales),
+      multiplicity: m.multiplicity,
+      sigma,
+      imSigma: a.ws.eig[1],
+      growthRatePerS: growthRatePerS(sigma, scales),
+      wavelength: (2 * Math.PI) / m.k,
+      wavelengthUm: wavelengthUm(m.k, scales),
     };
   });
   modes.sort((x, y) => y.sigma - x.sigma || x.k - y.k);

@@ -24,8 +24,15 @@ export interface ScanWorkspace {
 export function createScanWorkspace(n: number, gridSize: number): ScanWorkspace {
   const cap = gridSize + 1;
   return {
-    n, J: new Float64Array(n * n), D: new Float64Array(n * n), M: new Float64Array(n * n), eig: new Float64Array(2),
-    k: new Float64Array(cap), re: new Float64Array(cap), im: new Float64Array(cap), size: 0,
+    n,
+    J: new Float64Array(n * n),
+    D: new Float64Array(n * n),
+    M: new Float64Array(n * n),
+    eig: new Float64Array(2),
+    k: new Float64Array(cap),
+    re: new Float64Array(cap),
+    im: new Float64Array(cap),
+    size: 0,
   };
 }
 
@@ -33,8 +40,13 @@ export function createScanWorkspace(n: number, gridSize: number): ScanWorkspace 
 export function sigmaAt(ws: ScanWorkspace, k: number): number {
   const n = ws.n;
   if (n === 2) {
-    const k2 = k * k, J = ws.J, D = ws.D;
-    const a = J[0] - k2 * D[0], b = J[1] - k2 * D[1], c = J[2] - k2 * D[2], d = J[3] - k2 * D[3];
+    const k2 = k * k,
+      J = ws.J,
+      D = ws.D;
+    const a = J[0] - k2 * D[0],
+      b = J[1] - k2 * D[1],
+      c = J[2] - k2 * D[2],
+      d = J[3] - k2 * D[3];
     const half = 0.5 * (a + d);
     const disc = half * half - (a * d - b * c);
     if (disc >= 0) {
@@ -91,7 +103,8 @@ export interface Peak {
 
 /** Refines the interior grid maximum at index i by golden section on [k_{i−1}, k_{i+1}]. */
 export function refinePeak(ws: ScanWorkspace, i: number, out: Peak): void {
-  const lo = ws.k[i - 1], hi = ws.k[i + 1];
+  const lo = ws.k[i - 1],
+    hi = ws.k[i + 1];
   const f = (k: number) => sigmaAt(ws, k);
   const k = maximiseGolden(f, lo, hi, 1e-12 * Math.max(hi, 1e-300) + 1e-15 * hi);
   const s = sigmaAt(ws, k);

@@ -27,18 +27,29 @@ export interface AdmissibleMode {
 export function toModelDomain(domain: DomainSpec, lengthScaleUm: number | null): DomainSpec {
   const units = domain.units ?? (lengthScaleUm === null ? "model" : "um");
   if (units === "um" && lengthScaleUm === null) {
-    throw new KineticsInputError("domain.units", "Domain sizes in µm need a length scale (lengthScaleUm) for a non-dimensional kinetics; give one or use units \"model\".");
+    throw new KineticsInputError(
+      "domain.units",
+      'Domain sizes in µm need a length scale (lengthScaleUm) for a non-dimensional kinetics; give one or use units "model".',
+    );
   }
   const f = units === "um" ? 1 / (lengthScaleUm as number) : 1;
   const size = (field: string, v: unknown) => {
-    if (typeof v !== "number" || !Number.isFinite(v) || v <= 0) throw new KineticsInputError(`domain.${field}`, `domain.${field} must be a positive finite number (got ${String(v)}).`);
+    if (typeof v !== "number" || !Number.isFinite(v) || v <= 0)
+      throw new KineticsInputError(
+        `domain.${field}`,
+        `domain.${field} must be a positive finite number (got ${String(v)}).`,
+      );
     return v * f;
   };
   switch (domain.kind) {
-    case "interval": return { kind: "interval", length: size("length", domain.length), units: "model" };
-    case "rectangle": return { kind: "rectangle", lx: size("lx", domain.lx), ly: size("ly", domain.ly), units: "model" };
-    case "sphere": return { kind: "sphere", radius: size("radius", domain.radius), units: "model" };
-    default: throw new KineticsInputError("domain.kind", `domain.kind must be "interval", "rectangle" or "sphere".`);
+    case "interval":
+      return { kind: "interval", length: size("length", domain.length), units: "model" };
+    case "rectangle":
+      return { kind: "rectangle", lx: size("lx", domain.lx), ly: size("ly", domain.ly), units: "model" };
+    case "sphere":
+      return { kind: "sphere", radius: size("radius", domain.radius), units: "model" };
+    default:
+      throw new KineticsInputError("domain.kind", `domain.kind must be "interval", "rectangle" or "sphere".`);
   }
 }
 
@@ -47,20 +58,25 @@ export function enumerateModes(domain: DomainSpec, kMax: number): AdmissibleMode
   const modes: AdmissibleMode[] = [];
   const push = (m: AdmissibleMode) => {
     if (modes.length >= MAX_ADMISSIBLE_MODES) {
-      throw new KineticsLimitError("domain", `The domain has more than ${MAX_ADMISSIBLE_MODES} admissible modes in the unstable range; it is effectively unbounded, use the unbounded result.`);
+      throw new KineticsLimitError(
+        "domain",
+        `The domain has more than ${MAX_ADMISSIBLE_MODES} admissible modes in the unstable range; it is effectively unbounded, use the unbounded result.`,
+      );
     }
     modes.push(m);
   };
   if (domain.kind === "interval") {
     const nMax = Math.floor((kMax * domain.length) / Math.PI);
-    for (let n = 1; n <= Math.max(1, nMax); n++) push({ indices: [n], k: (n * Math.PI) / domain.length, multiplicity: 1 });
+    for (let n = 1; n <= Math.max(1, nMax); n++)
+      push({ indices: [n], k: (n * Math.PI) / domain.length, multiplicity: 1 });
   } else if (domain.kind === "rectangle") {
-    const mMax = Math.max(1, Math.floor((kMax * domain.lx) / Math.PI)), nMax = Math.max(1, Math.floor((kMax * domain.ly) / Math.PI));
+    const mMax = Math.max(1, Math.floor((kMax * domain.lx) / Math.PI)),
+      nMax = Math.max(1, Math.floor((kMax * domain.ly) / Math.PI));
     for (let m = 0; m <= mMax; m++) {
       for (let n = 0; n <= nMax; n++) {
         if (m === 0 && n === 0) continue;
         const k = Math.hypot((m * Math.PI) / domain.lx, (n * Math.PI) / domain.ly);
-        if (k <= kMax || (m + n === 1)) push({ indices: [m, n], k, multiplicity: 1 });
+        if (k <= kMax || m + n === 1) push({ indices: [m, n], k, multiplicity: 1 });
       }
     }
   } else {
@@ -82,7 +98,11 @@ export function describeRepeats(domain: DomainSpec, m: AdmissibleMode): Record<s
   }
   if (domain.kind === "rectangle") {
     const [a, b] = m.indices;
-    return { wavelengthsAcrossX: a / 2, wavelengthsAcrossY: b / 2, maxima: (Math.floor(a / 2) + 1) * (Math.floor(b / 2) + 1) };
+    return {
+      wavelengthsAcrossX: a / 2,
+      wavelengthsAcrossY: b / 2,
+      maxima: (Math.floor(a / 2) + 1) * (Math.floor(b / 2) + 1),
+    };
   }
   // On a sphere, Y_l^m has l nodal lines; Y_l^l has l wavelengths around the equator.
   return { degree: m.indices[0], multiplicity: m.multiplicity, wavelengthsAroundGreatCircle: m.indices[0] };

@@ -26,7 +26,8 @@ export function leadingEigenvalue(m: ArrayLike<number>, n: number, out: Float64A
   }
   const { re, im } = eigenvalues(m, n);
   let best = 0;
-  for (let i = 1; i < n; i++) if (re[i] > re[best] || (re[i] === re[best] && Math.abs(im[i]) > Math.abs(im[best]))) best = i;
+  for (let i = 1; i < n; i++)
+    if (re[i] > re[best] || (re[i] === re[best] && Math.abs(im[i]) > Math.abs(im[best]))) best = i;
   out[0] = re[best];
   out[1] = Math.abs(im[best]);
 }
@@ -48,12 +49,22 @@ export function eigenvalues(m: ArrayLike<number>, n: number): { re: number[]; im
   const rows: number[][] = [];
   for (let i = 0; i < n; i++) rows.push(Array.from({ length: n }, (_, j) => m[i * n + j]));
   const e = new EigenvalueDecomposition(new Matrix(rows), { assumeSymmetric: false });
-  const order = e.realEigenvalues.map((_, i) => i).sort((a, b) => e.realEigenvalues[b] - e.realEigenvalues[a] || e.imaginaryEigenvalues[b] - e.imaginaryEigenvalues[a]);
+  const order = e.realEigenvalues
+    .map((_, i) => i)
+    .sort(
+      (a, b) => e.realEigenvalues[b] - e.realEigenvalues[a] || e.imaginaryEigenvalues[b] - e.imaginaryEigenvalues[a],
+    );
   return { re: order.map((i) => e.realEigenvalues[i]), im: order.map((i) => e.imaginaryEigenvalues[i]) };
 }
 
 /** Writes M = J − k²D (n×n row-major) into `out`. */
-export function shiftedJacobian(J: ArrayLike<number>, D: ArrayLike<number>, k2: number, n: number, out: Float64Array): void {
+export function shiftedJacobian(
+  J: ArrayLike<number>,
+  D: ArrayLike<number>,
+  k2: number,
+  n: number,
+  out: Float64Array,
+): void {
   const nn = n * n;
   for (let i = 0; i < nn; i++) out[i] = J[i] - k2 * D[i];
 }

@@ -15,7 +15,15 @@
 import type { CompiledKinetics } from "../kinetics/types";
 import { CLASS_HOPF, CLASS_PEAK, CLASS_UNSTABLE_K0 } from "./classes";
 import {
-  chooseKMax, classifyAtZero, classifyPeak, createScanWorkspace, refinePeak, scanGrid, tolerancesFor, type Peak, type ScanWorkspace,
+  chooseKMax,
+  classifyAtZero,
+  classifyPeak,
+  createScanWorkspace,
+  refinePeak,
+  scanGrid,
+  tolerancesFor,
+  type Peak,
+  type ScanWorkspace,
 } from "./dispersion-scan";
 import { findSteadyStates, MAX_STEADY_STATES } from "./steady-states";
 
@@ -50,7 +58,12 @@ export function createFastestModeWorkspace(gridSize = 200): ScanWorkspace {
  * computeDispersion, which reports those cases with its own errors.
  * @param ws optional workspace from {@link createFastestModeWorkspace}(gridSize), reused across calls
  */
-export function computeFastestMode(kinetics: CompiledKinetics, p: ArrayLike<number>, gridSize = 200, ws?: ScanWorkspace): FastestMode | null {
+export function computeFastestMode(
+  kinetics: CompiledKinetics,
+  p: ArrayLike<number>,
+  gridSize = 200,
+  ws?: ScanWorkspace,
+): FastestMode | null {
   if (kinetics.species.length !== 2 || !kinetics.diagonalDiffusion) return null;
   if (!Number.isInteger(gridSize) || gridSize < 16 || gridSize > 100_000) return null;
   const w = ws ?? createScanWorkspace(2, gridSize);
@@ -64,9 +77,12 @@ export function computeFastestMode(kinetics: CompiledKinetics, p: ArrayLike<numb
   for (let s = 0; s < states.length; s++) {
     kinetics.jacobian(states[s], p, w.J);
     kinetics.diffusion(p, w.D);
-    const J = w.J, D = w.D;
-    if (!(D[0] > 0 && D[3] > 0 && Number.isFinite(D[0]) && Number.isFinite(D[3]) && D[1] === 0 && D[2] === 0)) return null;
-    if (!(Number.isFinite(J[0]) && Number.isFinite(J[1]) && Number.isFinite(J[2]) && Number.isFinite(J[3]))) return null;
+    const J = w.J,
+      D = w.D;
+    if (!(D[0] > 0 && D[3] > 0 && Number.isFinite(D[0]) && Number.isFinite(D[3]) && D[1] === 0 && D[2] === 0))
+      return null;
+    if (!(Number.isFinite(J[0]) && Number.isFinite(J[1]) && Number.isFinite(J[2]) && Number.isFinite(J[3])))
+      return null;
     // From here on, the steps of analyseState in the same order and with the same helpers.
     const dMin = Math.min(D[0], D[3]);
     const kMax = chooseKMax(J, 2, dMin);
@@ -76,7 +92,9 @@ export function computeFastestMode(kinetics: CompiledKinetics, p: ArrayLike<numb
     if (km2 > 0) extra = Math.sqrt(km2);
     scanGrid(w, kMax, gridSize, extra);
     let flags = classifyAtZero(w, tol, imTol);
-    let bestK = NaN, bestSigma = NaN, bestIm = NaN;
+    let bestK = NaN,
+      bestSigma = NaN,
+      bestIm = NaN;
     let kind: FastestMode["kind"] = null;
     const re = w.re;
     for (let i = 1; i < w.size - 1; i++) {

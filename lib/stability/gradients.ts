@@ -43,12 +43,18 @@ export interface GradientResult {
 }
 
 /** Local dispersion along a parameter gradient. */
-export function computeGradientDispersion(kinetics: CompiledKinetics, parameters: Record<string, number>, options: GradientOptions): GradientResult {
+export function computeGradientDispersion(
+  kinetics: CompiledKinetics,
+  parameters: Record<string, number>,
+  options: GradientOptions,
+): GradientResult {
   const i = parameterIndex(kinetics, options.parameter, "parameter");
   const spec = kinetics.parameters[i];
-  if (!(options.length > 0 && Number.isFinite(options.length))) throw new KineticsInputError("length", `length must be a positive finite number (got ${options.length}).`);
+  if (!(options.length > 0 && Number.isFinite(options.length)))
+    throw new KineticsInputError("length", `length must be a positive finite number (got ${options.length}).`);
   const samples = options.samples ?? 101;
-  if (!Number.isInteger(samples) || samples < 2 || samples > 10_000) throw new KineticsInputError("samples", `samples must be an integer from 2 to 10000 (got ${samples}).`);
+  if (!Number.isInteger(samples) || samples < 2 || samples > 10_000)
+    throw new KineticsInputError("samples", `samples must be an integer from 2 to 10000 (got ${samples}).`);
   const valueAt = profileFunction(options.profile, options.length);
   const scales = resolveScales(kinetics, options);
   const points: GradientPoint[] = [];
@@ -61,7 +67,14 @@ export function computeGradientDispersion(kinetics: CompiledKinetics, parameters
     }
     try {
       const r = computeDispersion(kinetics, { ...parameters, [spec.name]: value }, options);
-      points.push({ x, value, classes: r.classification.classes, wavelength: r.fastest?.wavelength ?? null, wavelengthUm: r.fastest?.wavelengthUm ?? null, growthRate: r.fastest?.sigmaStar ?? null });
+      points.push({
+        x,
+        value,
+        classes: r.classification.classes,
+        wavelength: r.fastest?.wavelength ?? null,
+        wavelengthUm: r.fastest?.wavelengthUm ?? null,
+        growthRate: r.fastest?.sigmaStar ?? null,
+      });
     } catch {
       points.push({ x, value, classes: ["no-steady-state"], wavelength: null, wavelengthUm: null, growthRate: null });
     }
@@ -76,32 +89,48 @@ export function computeGradientDispersion(kinetics: CompiledKinetics, parameters
       start = -1;
     }
   });
-  return { parameter: spec.name, points, patterningRegions, positionUnits: scales.lengthScaleUm === null ? "model" : "um" };
+  return {
+    parameter: spec.name,
+    points,
+    patterningRegions,
+    positionUnits: scales.lengthScaleUm === null ? "model" : "um",
+  };
 }
 
 function profileFunction(profile: GradientProfile, length: number): (x: number) => number {
   const finite = (field: string, v: unknown) => {
-    if (typeof v !== "number" || !Number.isFinite(v)) throw new KineticsInputError(`profile.${field}`, `profile.${field} must be a finite number (got ${String(v)}).`);
+    if (typeof v !== "number" || !Number.isFinite(v))
+      throw new KineticsInputError(`profile.${field}`, `profile.${field} must be a finite number (got ${String(v)}).`);
     return v;
   };
   switch (profile?.kind) {
     case "linear": {
-      const a = finite("from", profile.from), b = finite("to", profile.to);
+      const a = finite("from", profile.from),
+        b = finite("to", profile.to);
       return (x) => a + ((b - a) * x) / length;
     }
     case "exponential": {
-      const s = finite("source", profile.source), L = finite("decayLength", profile.decayLength), f = finite("floor", profile.floor ?? 0);
-      if (!(L > 0)) throw new KineticsInputError("profile.decayLength", `profile.decayLength must be positive (got ${L}).`);
+      const s = finite("source", profile.source),
+        L = finite("decayLength", profile.decayLength),
+        f = finite("floor", profile.floor ?? 0);
+      if (!(L > 0))
+        throw new KineticsInputError("profile.decayLength", `profile.decayLength must be positive (got ${L}).`);
       return (x) => f + s * Math.exp(-x / L);
     }
     case "table": {
-      const xs = profile.positions, vs = profile.values;
+      const xs = profile.positions,
+        vs = profile.values;
       if (!Array.isArray(xs) || !Array.isArray(vs) || xs.length !== vs.length || xs.length < 2) {
-        throw new KineticsInputError("profile.positions", "profile.positions and profile.values must be lists of the same length (at least 2).");
+        throw new KineticsInputError(
+          "profile.positions",
+          "profile.positions and profile.values must be lists of the same length (at least 2).",
+        );
       }
       xs.forEach((x, j) => finite(`positions[${j}]`, x));
       vs.forEach((v, j) => finite(`values[${j}]`, v));
-      for (let j = 1; j < xs.length; j++) if (!(xs[j] > xs[j - 1])) throw new KineticsInputError(`profile.positions[${j}]`, "profile.positions must increase strictly.");
+      for (let j = 1; j < xs.length; j++)
+        if (!(xs[j] > xs[j - 1]))
+          throw new KineticsInputError(`profile.positions[${j}]`, "profile.positions must increase strictly.");
       return (x) => {
         if (x <= xs[0]) return vs[0];
         if (x >= xs[xs.length - 1]) return vs[vs.length - 1];

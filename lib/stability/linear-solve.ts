@@ -13,9 +13,13 @@ export function solveLinearInPlace(a: Float64Array, b: Float64Array, n: number, 
     if (Math.abs(a[piv * n + col]) <= singularTol * scale) return false;
     if (piv !== col) {
       for (let j = 0; j < n; j++) {
-        const t = a[col * n + j]; a[col * n + j] = a[piv * n + j]; a[piv * n + j] = t;
+        const t = a[col * n + j];
+        a[col * n + j] = a[piv * n + j];
+        a[piv * n + j] = t;
       }
-      const t = b[col]; b[col] = b[piv]; b[piv] = t;
+      const t = b[col];
+      b[col] = b[piv];
+      b[piv] = t;
     }
     for (let r = col + 1; r < n; r++) {
       const f = a[r * n + col] / a[col * n + col];

@@ -56,18 +56,30 @@ export interface MapPlan {
 export function planTuringMap(kinetics: CompiledKinetics, options: TuringMapOptions): MapPlan {
   const x = planAxis(kinetics, options.x, "x");
   const y = planAxis(kinetics, options.y, "y");
-  if (x.index === y.index) throw new KineticsInputError("y.name", `The two axes sweep the same parameter "${x.name}"; choose two different parameters.`);
+  if (x.index === y.index)
+    throw new KineticsInputError(
+      "y.name",
+      `The two axes sweep the same parameter "${x.name}"; choose two different parameters.`,
+    );
   const cells = x.n * y.n;
-  if (cells > MAX_MAP_CELLS) throw new KineticsLimitError("x.n", `The map has ${cells} cells; the limit is ${MAX_MAP_CELLS}.`);
+  if (cells > MAX_MAP_CELLS)
+    throw new KineticsLimitError("x.n", `The map has ${cells} cells; the limit is ${MAX_MAP_CELLS}.`);
   const wavenumbers = options.wavenumbers ?? 200;
   if (!Number.isInteger(wavenumbers) || wavenumbers < 16 || wavenumbers > MAX_MAP_WAVENUMBERS) {
-    throw new KineticsInputError("wavenumbers", `wavenumbers must be an integer from 16 to ${MAX_MAP_WAVENUMBERS} (got ${wavenumbers}).`);
+    throw new KineticsInputError(
+      "wavenumbers",
+      `wavenumbers must be an integer from 16 to ${MAX_MAP_WAVENUMBERS} (got ${wavenumbers}).`,
+    );
   }
   if (cells * wavenumbers > MAX_MAP_WORK) {
-    throw new KineticsLimitError("wavenumbers", `The map needs ${cells * wavenumbers} dispersion evaluations (cells × wavenumbers); the limit is ${MAX_MAP_WORK}.`);
+    throw new KineticsLimitError(
+      "wavenumbers",
+      `The map needs ${cells * wavenumbers} dispersion evaluations (cells × wavenumbers); the limit is ${MAX_MAP_WORK}.`,
+    );
   }
   const timeLimitMs = options.timeLimitMs ?? DEFAULT_MAP_TIME_LIMIT_MS;
-  if (!(timeLimitMs > 0 && Number.isFinite(timeLimitMs))) throw new KineticsInputError("timeLimitMs", `timeLimitMs must be a positive number (got ${timeLimitMs}).`);
+  if (!(timeLimitMs > 0 && Number.isFinite(timeLimitMs)))
+    throw new KineticsInputError("timeLimitMs", `timeLimitMs must be a positive number (got ${timeLimitMs}).`);
   const scales = resolveScales(kinetics, options);
   const fixed = { ...(options.parameters ?? {}) };
   delete fixed[x.name];
@@ -76,8 +88,16 @@ export function planTuringMap(kinetics: CompiledKinetics, options: TuringMapOpti
   let target: MapPlan["target"] = null;
   if (options.target) {
     const { wavelength, tolerance } = options.target;
-    if (!(wavelength > 0 && Number.isFinite(wavelength))) throw new KineticsInputError("target.wavelength", `target.wavelength must be a positive finite number (got ${wavelength}).`);
-    if (!(tolerance >= 0 && Number.isFinite(tolerance))) throw new KineticsInputError("target.tolerance", `target.tolerance must be a non-negative finite number (got ${tolerance}).`);
+    if (!(wavelength > 0 && Number.isFinite(wavelength)))
+      throw new KineticsInputError(
+        "target.wavelength",
+        `target.wavelength must be a positive finite number (got ${wavelength}).`,
+      );
+    if (!(tolerance >= 0 && Number.isFinite(tolerance)))
+      throw new KineticsInputError(
+        "target.tolerance",
+        `target.tolerance must be a non-negative finite number (got ${tolerance}).`,
+      );
     const f = scales.lengthScaleUm ?? 1;
     target = { wavelength: wavelength / f, tolerance: tolerance / f };
   }
@@ -85,22 +105,33 @@ export function planTuringMap(kinetics: CompiledKinetics, options: TuringMapOpti
 }
 
 function planAxis(kinetics: CompiledKinetics, axis: MapAxis, field: "x" | "y"): MapPlan["x"] {
-  if (!axis || typeof axis.name !== "string") throw new KineticsInputError(`${field}.name`, `${field} needs a parameter name.`);
+  if (!axis || typeof axis.name !== "string")
+    throw new KineticsInputError(`${field}.name`, `${field} needs a parameter name.`);
   const index = parameterIndex(kinetics, axis.name, `${field}.name`);
   const spec = kinetics.parameters[index];
   const scale = axis.scale ?? "linear";
-  if (scale !== "linear" && scale !== "log") throw new KineticsInputError(`${field}.scale`, `${field}.scale must be "linear" or "log".`);
+  if (scale !== "linear" && scale !== "log")
+    throw new KineticsInputError(`${field}.scale`, `${field}.scale must be "linear" or "log".`);
   for (const end of ["min", "max"] as const) {
     const v = axis[end];
-    if (typeof v !== "number" || !Number.isFinite(v)) throw new KineticsInputError(`${field}.${end}`, `${field}.${end} must be a finite number (got ${String(v)}).`);
+    if (typeof v !== "number" || !Number.isFinite(v))
+      throw new KineticsInputError(`${field}.${end}`, `${field}.${end} must be a finite number (got ${String(v)}).`);
     if (v < spec.min || v > spec.max) {
-      throw new KineticsInputError(`${field}.${end}`, `${field}.${end} = ${v} is outside the range of ${spec.name} [${spec.min}, ${spec.max}].`);
+      throw new KineticsInputError(
+        `${field}.${end}`,
+        `${field}.${end} = ${v} is outside the range of ${spec.name} [${spec.min}, ${spec.max}].`,
+      );
     }
   }
-  if (!(axis.max > axis.min)) throw new KineticsInputError(`${field}.max`, `${field}.max must be larger than ${field}.min.`);
-  if (scale === "log" && !(axis.min > 0)) throw new KineticsInputError(`${field}.min`, `${field}.min must be positive on a log axis (got ${axis.min}).`);
+  if (!(axis.max > axis.min))
+    throw new KineticsInputError(`${field}.max`, `${field}.max must be larger than ${field}.min.`);
+  if (scale === "log" && !(axis.min > 0))
+    throw new KineticsInputError(`${field}.min`, `${field}.min must be positive on a log axis (got ${axis.min}).`);
   if (!Number.isInteger(axis.n) || axis.n < 2 || axis.n > MAX_MAP_CELLS) {
-    throw new KineticsInputError(`${field}.n`, `${field}.n must be an integer from 2 to ${MAX_MAP_CELLS} (got ${axis.n}).`);
+    throw new KineticsInputError(
+      `${field}.n`,
+      `${field}.n must be an integer from 2 to ${MAX_MAP_CELLS} (got ${axis.n}).`,
+    );
   }
   const values = Array.from({ length: axis.n }, (_, i) => {
     const t = i / (axis.n - 1);

@@ -12,7 +12,15 @@ import { CLASS_HOPF, CLASS_INVALID, CLASS_NO_STEADY_STATE, CLASS_PEAK, CLASS_UNS
 import { analyseCell2x2 } from "./cell-2x2";
 import { checkDiffusion } from "./diffusion-check";
 import {
-  chooseKMax, classifyAtZero, classifyPeak, createScanWorkspace, isInteriorMax, refinePeak, scanGrid, tolerancesFor, type Peak,
+  chooseKMax,
+  classifyAtZero,
+  classifyPeak,
+  createScanWorkspace,
+  isInteriorMax,
+  refinePeak,
+  scanGrid,
+  tolerancesFor,
+  type Peak,
 } from "./dispersion-scan";
 import type { MapPlan } from "./map-plan";
 import { createNewtonWorkspace, runNewton } from "./newton";
@@ -28,9 +36,23 @@ export interface MapRows {
   sigmaStar: Float64Array;
 }
 
-export function computeMapRows(kinetics: CompiledKinetics, plan: MapPlan, y0: number, y1: number, startedAtMs = Date.now()): MapRows {
-  const n = kinetics.species.length, nx = plan.x.n, size = (y1 - y0) * nx;
-  const out: MapRows = { y0, y1, classes: new Uint8Array(size), wavelength: new Float64Array(size).fill(NaN), sigmaStar: new Float64Array(size).fill(NaN) };
+export function computeMapRows(
+  kinetics: CompiledKinetics,
+  plan: MapPlan,
+  y0: number,
+  y1: number,
+  startedAtMs = Date.now(),
+): MapRows {
+  const n = kinetics.species.length,
+    nx = plan.x.n,
+    size = (y1 - y0) * nx;
+  const out: MapRows = {
+    y0,
+    y1,
+    classes: new Uint8Array(size),
+    wavelength: new Float64Array(size).fill(NaN),
+    sigmaStar: new Float64Array(size).fill(NaN),
+  };
   const p = Float64Array.from(plan.base);
   const ws = createScanWorkspace(n, plan.wavenumbers);
   const states = new Float64Array(n * MAX_STEADY_STATES);
@@ -39,7 +61,11 @@ export function computeMapRows(kinetics: CompiledKinetics, plan: MapPlan, y0: nu
   let warm = false;
   const deadline = startedAtMs + plan.timeLimitMs;
   for (let iy = y0; iy < y1; iy++) {
-    if (Date.now() > deadline) throw new KineticsAnalysisError("timeLimitMs", `The Turing map exceeded its time limit of ${plan.timeLimitMs} ms.`);
+    if (Date.now() > deadline)
+      throw new KineticsAnalysisError(
+        "timeLimitMs",
+        `The Turing map exceeded its time limit of ${plan.timeLimitMs} ms.`,
+      );
     p[plan.y.index] = plan.y.values[iy];
     for (let ix = 0; ix < nx; ix++) {
       p[plan.x.index] = plan.x.values[ix];
@@ -51,13 +77,21 @@ export function computeMapRows(kinetics: CompiledKinetics, plan: MapPlan, y0: nu
         continue;
       }
       // Same choice as computeDispersion's "auto": first stable Turing state, else first stable, else first.
-      let chosen = -1, chosenFlags = 0, chosenSigma = NaN, chosenK = NaN, rank = 0;
+      let chosen = -1,
+        chosenFlags = 0,
+        chosenSigma = NaN,
+        chosenK = NaN,
+        rank = 0;
       for (let s = 0; s < m; s++) {
         const flags = analyseCell(kinetics, p, states, s, ws, plan.wavenumbers, peak);
         const stable0 = flags >= 0 && (flags & (CLASS_HOPF | CLASS_UNSTABLE_K0)) === 0;
         const r = flags < 0 ? 0 : stable0 && flags & CLASS_PEAK ? 3 : stable0 ? 2 : 1;
         if (r > rank) {
-          rank = r; chosen = s; chosenFlags = flags; chosenSigma = peak.sigma; chosenK = peak.k;
+          rank = r;
+          chosen = s;
+          chosenFlags = flags;
+          chosenSigma = peak.sigma;
+          chosenK = peak.k;
           if (r === 3) break;
         }
       }
@@ -79,7 +113,15 @@ export function computeMapRows(kinetics: CompiledKinetics, plan: MapPlan, y0: nu
  * Flags of state s (−1 when the cell cannot be evaluated); `peak` receives the fastest
  * growing k > 0 maximum (k = NaN when none).
  */
-function analyseCell(kinetics: CompiledKinetics, p: Float64Array, states: Float64Array, s: number, ws: ReturnType<typeof createScanWorkspace>, grid: number, peak: Peak): number {
+function analyseCell(
+  kinetics: CompiledKinetics,
+  p: Float64Array,
+  states: Float64Array,
+  s: number,
+  ws: ReturnType<typeof createScanWorkspace>,
+  grid: number,
+  peak: Peak,
+): number {
   const n = ws.n;
   kinetics.jacobian(states.subarray(s * n, s * n + n), p, ws.J);
   kinetics.diffusion(p, ws.D);
@@ -106,14 +148,20 @@ function analyseCell(kinetics: CompiledKinetics, p: Float64Array, states: Float6
   }
   scanGrid(ws, chooseKMax(ws.J, n, dMin), grid, extra);
   let flags = classifyAtZero(ws, tol, imTol);
-  let bestK = NaN, bestSigma = -Infinity, bestIm = 0;
+  let bestK = NaN,
+    bestSigma = -Infinity,
+    bestIm = 0;
   for (let i = 1; i < ws.size - 1; i++) {
     if (!isInteriorMax(ws, i) || !(ws.re[i] > -Math.abs(tol))) continue;
     refinePeak(ws, i, peak);
     const f = classifyPeak(peak, tol, imTol);
     if (f) {
       flags |= f;
-      if (peak.sigma > bestSigma) { bestSigma = peak.sigma; bestK = peak.k; bestIm = peak.imSigma; }
+      if (peak.sigma > bestSigma) {
+        bestSigma = peak.sigma;
+        bestK = peak.k;
+        bestIm = peak.imSigma;
+      }
     }
   }
   peak.k = bestK;
@@ -122,7 +170,13 @@ function analyseCell(kinetics: CompiledKinetics, p: Float64Array, states: Float6
   return flags;
 }
 
-function steadyStatesOfCell(kinetics: CompiledKinetics, p: Float64Array, out: Float64Array, newton: ReturnType<typeof createNewtonWorkspace>, warm: boolean): number {
+function steadyStatesOfCell(
+  kinetics: CompiledKinetics,
+  p: Float64Array,
+  out: Float64Array,
+  newton: ReturnType<typeof createNewtonWorkspace>,
+  warm: boolean,
+): number {
   const n = kinetics.species.length;
   let m = 0;
   if (kinetics.steadyStates) {

@@ -16,8 +16,12 @@ export interface NewtonWorkspace {
 
 export function createNewtonWorkspace(n: number): NewtonWorkspace {
   return {
-    x: new Float64Array(n), r: new Float64Array(n), j: new Float64Array(n * n),
-    step: new Float64Array(n), trial: new Float64Array(n), rTrial: new Float64Array(n),
+    x: new Float64Array(n),
+    r: new Float64Array(n),
+    j: new Float64Array(n * n),
+    step: new Float64Array(n),
+    trial: new Float64Array(n),
+    rTrial: new Float64Array(n),
   };
 }
 

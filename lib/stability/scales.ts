@@ -24,7 +24,10 @@ export function resolveScales(kinetics: Pick<CompiledKinetics, "units">, scales:
   const timeScaleS = check("timeScaleS");
   if (kinetics.units === "dimensional") {
     if (lengthScaleUm !== null || timeScaleS !== null) {
-      throw new KineticsInputError(lengthScaleUm !== null ? "lengthScaleUm" : "timeScaleS", "This kinetics is dimensional (µm, s); length and time scales apply to non-dimensional kinetics only.");
+      throw new KineticsInputError(
+        lengthScaleUm !== null ? "lengthScaleUm" : "timeScaleS",
+        "This kinetics is dimensional (µm, s); length and time scales apply to non-dimensional kinetics only.",
+      );
     }
     return { lengthScaleUm: 1, timeScaleS: 1 };
   }

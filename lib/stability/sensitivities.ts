@@ -29,7 +29,11 @@ export interface ElasticityResult {
   elasticities: Elasticity[];
 }
 
-function wavelengthAt(kinetics: CompiledKinetics, set: Record<string, number>, options: DispersionOptions): number | null {
+function wavelengthAt(
+  kinetics: CompiledKinetics,
+  set: Record<string, number>,
+  options: DispersionOptions,
+): number | null {
   try {
     return computeDispersion(kinetics, set, options).fastest?.wavelength ?? null;
   } catch {
@@ -38,23 +42,38 @@ function wavelengthAt(kinetics: CompiledKinetics, set: Record<string, number>, o
 }
 
 /** Elasticity of λ* with respect to every parameter. */
-export function computeElasticities(kinetics: CompiledKinetics, parameters: Record<string, number> = {}, options: ElasticityOptions = {}): ElasticityResult {
+export function computeElasticities(
+  kinetics: CompiledKinetics,
+  parameters: Record<string, number> = {},
+  options: ElasticityOptions = {},
+): ElasticityResult {
   const h = options.logStep ?? 0.01;
   if (!(h > 0 && h <= 0.5)) throw new KineticsInputError("logStep", `logStep must be in (0, 0.5] (got ${h}).`);
   const base = computeDispersion(kinetics, parameters, options);
-  if (!base.fastest) throw new KineticsInputError("parameters", "No growing mode at k > 0 here, so the predicted wavelength and its elasticities are undefined.");
+  if (!base.fastest)
+    throw new KineticsInputError(
+      "parameters",
+      "No growing mode at k > 0 here, so the predicted wavelength and its elasticities are undefined.",
+    );
   const p = resolveParameters(kinetics, parameters);
   const record = Object.fromEntries(kinetics.parameters.map((s, i) => [s.name, p[i]]));
   const elasticities = kinetics.parameters.map((spec, i): Elasticity => {
     const v = p[i];
     if (v === 0) return { name: spec.name, value: v, elasticity: null, reason: "parameter is 0, so ln p is undefined" };
-    const up = v * Math.exp(h), down = v * Math.exp(-h);
+    const up = v * Math.exp(h),
+      down = v * Math.exp(-h);
     if (Math.max(up, down) > spec.max || Math.min(up, down) < spec.min) {
-      return { name: spec.name, value: v, elasticity: null, reason: `p·e^±${h} leaves the allowed range [${spec.min}, ${spec.max}]` };
+      return {
+        name: spec.name,
+        value: v,
+        elasticity: null,
+        reason: `p·e^±${h} leaves the allowed range [${spec.min}, ${spec.max}]`,
+      };
     }
     const lu = wavelengthAt(kinetics, { ...record, [spec.name]: up }, options);
     const ld = wavelengthAt(kinetics, { ...record, [spec.name]: down }, options);
-    if (lu === null || ld === null) return { name: spec.name, value: v, elasticity: null, reason: "no growing mode at one of p·e^±h" };
+    if (lu === null || ld === null)
+      return { name: spec.name, value: v, elasticity: null, reason: "no growing mode at one of p·e^±h" };
     // d ln λ / d ln p ≈ (ln λ(p e^h) − ln λ(p e^−h)) / 2h, error O(h²) (common practice, no source)
     return { name: spec.name, value: v, elasticity: (Math.log(lu) - Math.log(ld)) / (2 * h) };
   });
@@ -71,17 +90,31 @@ export interface ScaledWavelength {
 }
 
 /** λ* after multiplying parameter `name` by `factor` (the new value must stay in range). */
-export function predictWavelengthAfterScaling(kinetics: CompiledKinetics, parameters: Record<string, number>, name: string, factor: number, options: DispersionOptions = {}): ScaledWavelength {
-  if (!(Number.isFinite(factor) && factor > 0)) throw new KineticsInputError("factor", `factor must be a positive finite number (got ${factor}).`);
+export function predictWavelengthAfterScaling(
+  kinetics: CompiledKinetics,
+  parameters: Record<string, number>,
+  name: string,
+  factor: number,
+  options: DispersionOptions = {},
+): ScaledWavelength {
+  if (!(Number.isFinite(factor) && factor > 0))
+    throw new KineticsInputError("factor", `factor must be a positive finite number (got ${factor}).`);
   const i = parameterIndex(kinetics, name, "name");
   const p = resolveParameters(kinetics, parameters);
   const before = computeDispersion(kinetics, parameters, options);
   const after = computeDispersion(kinetics, { ...parameters, [name]: p[i] * factor }, options);
-  const lb = before.fastest?.wavelength ?? null, la = after.fastest?.wavelength ?? null;
+  const lb = before.fastest?.wavelength ?? null,
+    la = after.fastest?.wavelength ?? null;
   return {
-    name, factor,
+    name,
+    factor,
     before: { value: p[i], wavelength: lb, wavelengthUm: before.fastest?.wavelengthUm ?? null },
-    after: { value: p[i] * factor, wavelength: la, wavelengthUm: after.fastest?.wavelengthUm ?? null, classes: after.classification.classes },
+    after: {
+      value: p[i] * factor,
+      wavelength: la,
+      wavelengthUm: after.fastest?.wavelengthUm ?? null,
+      classes: after.classification.classes,
+    },
     ratio: lb !== null && la !== null ? la / lb : null,
   };
 }

@@ -32,7 +32,11 @@ export interface SteadyState {
 }
 
 /** Finds the steady states; throws {@link KineticsAnalysisError} (field `steadyState`) when none. */
-export function findSteadyStates(kinetics: CompiledKinetics, p: ArrayLike<number>, options: SteadyStateOptions = {}): SteadyState[] {
+export function findSteadyStates(
+  kinetics: CompiledKinetics,
+  p: ArrayLike<number>,
+  options: SteadyStateOptions = {},
+): SteadyState[] {
   const n = kinetics.species.length;
   const raw: number[][] = [];
   let method: SteadyState["method"] = "newton";
@@ -49,9 +53,10 @@ export function findSteadyStates(kinetics: CompiledKinetics, p: ArrayLike<number
     .map((c) => (kinetics.nonNegative ? c.map((x) => (x < 0 && x > -1e-9 * (1 + Math.abs(x)) ? 0 : x)) : c))
     .filter((c) => !kinetics.nonNegative || c.every((x) => x >= 0));
   if (accepted.length === 0) {
-    const how = method === "closed-form"
-      ? `the closed form of ${kinetics.name} has no${kinetics.nonNegative ? " non-negative" : ""} solution for these parameters`
-      : `Newton's method from ${startCount(options)} seeded starting points found no${kinetics.nonNegative ? " non-negative" : ""} solution`;
+    const how =
+      method === "closed-form"
+        ? `the closed form of ${kinetics.name} has no${kinetics.nonNegative ? " non-negative" : ""} solution for these parameters`
+        : `Newton's method from ${startCount(options)} seeded starting points found no${kinetics.nonNegative ? " non-negative" : ""} solution`;
     throw new KineticsAnalysisError("steadyState", `No homogeneous steady state: ${how}.`);
   }
   const J = new Float64Array(n * n);
@@ -73,7 +78,9 @@ function newtonMultiStart(kinetics: CompiledKinetics, p: ArrayLike<number>, opti
   const rng = seedrandom(options.seed ?? "morphokin-steady-states");
   const starts: number[][] = [0.1, 0.5, 1, 2, 10].map((v) => new Array(n).fill(v));
   for (let s = 0; s < (options.starts ?? 48); s++) {
-    starts.push(Array.from({ length: n }, () => (kinetics.nonNegative ? 1 : rng() < 0.5 ? -1 : 1) * Math.pow(10, -3 + 6 * rng())));
+    starts.push(
+      Array.from({ length: n }, () => (kinetics.nonNegative ? 1 : rng() < 0.5 ? -1 : 1) * Math.pow(10, -3 + 6 * rng())),
+    );
   }
   const ws = createNewtonWorkspace(n);
   const found: number[][] = [];

@@ -32,8 +32,12 @@ export interface TwoSpeciesTuringConditions {
 
 /** J = [f_u, f_v, g_u, g_v] row-major, Du and Dv the diagonal of D. */
 export function computeTuringConditions(J: ArrayLike<number>, Du: number, Dv: number): TwoSpeciesTuringConditions {
-  const fu = J[0], fv = J[1], gu = J[2], gv = J[3];
-  const tr = fu + gv, det = fu * gv - fv * gu;
+  const fu = J[0],
+    fv = J[1],
+    gu = J[2],
+    gv = J[3];
+  const tr = fu + gv,
+    det = fu * gv - fv * gu;
   const cross = Dv * fu + Du * gv;
   const disc = cross * cross - 4 * Du * Dv * det;
   const conditions: TuringCondition[] = [

@@ -52,9 +52,19 @@ export function computeTuringMap(kinetics: CompiledKinetics, options: TuringMapO
 }
 
 /** Assembles row blocks (from this thread or workers) into the map result. */
-export function summariseTuringMap(kinetics: Pick<CompiledKinetics, "id" | "name">, plan: MapPlan, blocks: MapRows[], elapsedMs: number, workers: number): TuringMapResult {
-  const nx = plan.x.n, ny = plan.y.n, size = nx * ny;
-  const classes = new Uint8Array(size), wavelength = new Float64Array(size), sigmaStar = new Float64Array(size);
+export function summariseTuringMap(
+  kinetics: Pick<CompiledKinetics, "id" | "name">,
+  plan: MapPlan,
+  blocks: MapRows[],
+  elapsedMs: number,
+  workers: number,
+): TuringMapResult {
+  const nx = plan.x.n,
+    ny = plan.y.n,
+    size = nx * ny;
+  const classes = new Uint8Array(size),
+    wavelength = new Float64Array(size),
+    sigmaStar = new Float64Array(size);
   for (const b of blocks) {
     classes.set(b.classes, b.y0 * nx);
     wavelength.set(b.wavelength, b.y0 * nx);
@@ -76,26 +86,43 @@ export function summariseTuringMap(kinetics: Pick<CompiledKinetics, "id" | "name
         matchCount++;
       }
     }
-    const toX = axisMapper(plan.x), toY = axisMapper(plan.y);
-    const contour = contourSegments(field, nx, ny).map(([a, b, c, d]): [number, number, number, number] => [toX(a), toY(b), toX(c), toY(d)]);
+    const toX = axisMapper(plan.x),
+      toY = axisMapper(plan.y);
+    const contour = contourSegments(field, nx, ny).map(([a, b, c, d]): [number, number, number, number] => [
+      toX(a),
+      toY(b),
+      toX(c),
+      toY(d),
+    ]);
     target = { wavelength: lt, tolerance, match, matchCount, contour };
   }
   return {
     kinetics: { id: kinetics.id, name: kinetics.name },
     x: { name: plan.x.name, scale: plan.x.scale, values: plan.x.values },
     y: { name: plan.y.name, scale: plan.y.scale, values: plan.y.values },
-    nx, ny, classes, wavelength, sigmaStar,
-    lengthScaleUm: plan.scales.lengthScaleUm, timeScaleS: plan.scales.timeScaleS,
+    nx,
+    ny,
+    classes,
+    wavelength,
+    sigmaStar,
+    lengthScaleUm: plan.scales.lengthScaleUm,
+    timeScaleS: plan.scales.timeScaleS,
     turingFraction: counts.turing / size,
-    counts, target, legend: CLASS_LEGEND, elapsedMs, workers,
+    counts,
+    target,
+    legend: CLASS_LEGEND,
+    elapsedMs,
+    workers,
   };
 }
 
 /** Fractional cell index → parameter value (geometric between cells on a log axis). */
 function axisMapper(axis: MapPlan["x"]): (t: number) => number {
   return (t) => {
-    const i = Math.min(Math.floor(t), axis.n - 2), f = t - i;
-    const a = axis.values[i], b = axis.values[i + 1];
+    const i = Math.min(Math.floor(t), axis.n - 2),
+      f = t - i;
+    const a = axis.values[i],
+      b = axis.values[i + 1];
     return axis.scale === "log" ? a * Math.pow(b / a, f) : a + f * (b - a);
   };
 }

@@ -1,6 +1,9 @@
 /** An invalid option of a synthetic generator; `field` names the option. */
 export class SyntheticOptionError extends RangeError {
-  constructor(public field: string, message: string) {
+  constructor(
+    public field: string,
+    message: string,
+  ) {
     super(message);
     this.name = "SyntheticOptionError";
   }
@@ -10,9 +13,15 @@ export class SyntheticOptionError extends RangeError {
 export const MAX_SYNTHETIC_SIDE_PX = 16384;
 
 export function checkSize(width: number, height: number): void {
-  for (const [field, v] of [["width", width], ["height", height]] as const) {
+  for (const [field, v] of [
+    ["width", width],
+    ["height", height],
+  ] as const) {
     if (!Number.isInteger(v) || v < 1 || v > MAX_SYNTHETIC_SIDE_PX) {
-      throw new SyntheticOptionError(field, `${field} must be an integer from 1 to ${MAX_SYNTHETIC_SIDE_PX} px (got ${v}).`);
+      throw new SyntheticOptionError(
+        field,
+        `${field} must be an integer from 1 to ${MAX_SYNTHETIC_SIDE_PX} px (got ${v}).`,
+      );
     }
   }
 }

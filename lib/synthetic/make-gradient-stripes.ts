@@ -42,7 +42,10 @@ export function makeGradientStripes(options: GradientStripesOptions): GreyImage 
 }
 
 /** The exact local wavelength (px) of {@link makeGradientStripes} at column x. */
-export function gradientWavelengthAtPx(options: Pick<GradientStripesOptions, "width" | "wavelengthStartPx" | "wavelengthEndPx">, x: number): number {
+export function gradientWavelengthAtPx(
+  options: Pick<GradientStripesOptions, "width" | "wavelengthStartPx" | "wavelengthEndPx">,
+  x: number,
+): number {
   const { width, wavelengthStartPx: l0, wavelengthEndPx: l1 } = options;
   return width > 1 ? l0 + ((l1 - l0) * x) / (width - 1) : l0;
 }

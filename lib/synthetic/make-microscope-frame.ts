@@ -34,20 +34,34 @@ export interface MicroscopeFrameOptions {
  * noise. With `pattern: "none"` the same frame without a pattern, which must read as no period.
  */
 export function makeMicroscopeFrame(o: MicroscopeFrameOptions): GreyImage {
-  const { width, height, pattern, angleDeg = 0, vignetting = 0, gradient = 0, multiplicative = false, noise = 0, blurSigmaPx = 0, seed = 1 } = o;
+  const {
+    width,
+    height,
+    pattern,
+    angleDeg = 0,
+    vignetting = 0,
+    gradient = 0,
+    multiplicative = false,
+    noise = 0,
+    blurSigmaPx = 0,
+    seed = 1,
+  } = o;
   checkSize(width, height);
   checkRange("vignetting", vignetting, 0, 1000);
   checkRange("gradient", gradient, -1000, 1000);
   checkRange("noise", noise, 0, 100);
   checkRange("blurSigmaPx", blurSigmaPx, 0, 64);
   const lambda = o.wavelengthPx ?? 16;
-  const p = pattern === "stripes"
-    ? makeStripes({ width, height, wavelengthPx: lambda, angleDeg })
-    : pattern === "spots"
-      ? makeHexSpots({ width, height, spacingPx: lambda / (Math.sqrt(3) / 2), angleDeg })
-      : { width, height, data: new Float32Array(width * height) };
+  const p =
+    pattern === "stripes"
+      ? makeStripes({ width, height, wavelengthPx: lambda, angleDeg })
+      : pattern === "spots"
+        ? makeHexSpots({ width, height, spacingPx: lambda / (Math.sqrt(3) / 2), angleDeg })
+        : { width, height, data: new Float32Array(width * height) };
   const rng = createRng(seed);
-  const cx = width / 2, cy = height / 2, r2 = cx * cx + cy * cy;
+  const cx = width / 2,
+    cy = height / 2,
+    r2 = cx * cx + cy * cy;
   let data: Float32Array = new Float32Array(width * height);
   for (let y = 0; y < height; y++) {
     for (let x = 0; x < width; x++) {
@@ -68,7 +82,8 @@ function gaussianBlur(data: Float32Array, width: number, height: number, sigma: 
   const k = Float64Array.from({ length: 2 * r + 1 }, (_, j) => Math.exp(-((j - r) ** 2) / (2 * sigma * sigma)));
   const sum = k.reduce((a, b) => a + b, 0);
   for (let j = 0; j < k.length; j++) k[j] /= sum;
-  const tmp = new Float32Array(data.length), out = new Float32Array(data.length);
+  const tmp = new Float32Array(data.length),
+    out = new Float32Array(data.length);
   for (let y = 0; y < height; y++) {
     for (let x = 0; x < width; x++) {
       let s = 0;

@@ -23,12 +23,17 @@ beforeAll(async () => {
 });
 afterAll(async () => stack?.close());
 
-const create = (token: string, json: unknown) => call(routes.get("POST /api/v1/tokens")!, "POST", "/api/v1/tokens", { token, json });
+const create = (token: string, json: unknown) =>
+  call(routes.get("POST /api/v1/tokens")!, "POST", "/api/v1/tokens", { token, json });
 const me = (token: string) => call(routes.get("GET /api/v1/me")!, "GET", "/api/v1/me", { token });
 
 describe("API token expiry", () => {
   it("a new token expires after 90 days by default, or after 30 or 365 days when chosen", async () => {
-    for (const [json, days] of [[{ name: "default" }, 90], [{ name: "month", expiresInDays: 30 }, 30], [{ name: "year", expiresInDays: 365 }, 365]] as const) {
+    for (const [json, days] of [
+      [{ name: "default" }, 90],
+      [{ name: "month", expiresInDays: 30 }, 30],
+      [{ name: "year", expiresInDays: 365 }, 365],
+    ] as const) {
       const before = Date.now();
       const res = await create(w.people.modeller.token, json);
       expect(res.status).toBe(201);
@@ -38,7 +43,9 @@ describe("API token expiry", () => {
       expect(ms).toBeLessThanOrEqual(days * DAY_MS + 60_000);
       expect(t.expired).toBe(false);
     }
-    const list = (await (await call(routes.get("GET /api/v1/tokens")!, "GET", "/api/v1/tokens", { token: w.people.modeller.token })).json()) as { items: { name: string; expiresAt: string | null }[] };
+    const list = (await (
+      await call(routes.get("GET /api/v1/tokens")!, "GET", "/api/v1/tokens", { token: w.people.modeller.token })
+    ).json()) as { items: { name: string; expiresAt: string | null }[] };
     expect(list.items.find((t) => t.name === "year")!.expiresAt).not.toBeNull();
   });
 
@@ -59,12 +66,16 @@ describe("API token expiry", () => {
     for (let i = 0; i < 2; i++) {
       const r = await me(t.secret);
       expect(r.status).toBe(401);
-      expect(((await r.json()) as { error: { message: string } }).error.message).toBe("that API token expired on 2026-01-15; create a new one on your account page");
+      expect(((await r.json()) as { error: { message: string } }).error.message).toBe(
+        "that API token expired on 2026-01-15; create a new one on your account page",
+      );
     }
     await recordExpiredTokens();
     const expiries = (await listOwnAccountEvents(who.userId)).filter((e) => e.action === "token.expired");
     expect(expiries).toHaveLength(1);
-    expect(expiries[0].summary).toBe(`The API token “short-lived” (${(await m.ApiToken.findByPk(t.id))!.prefix}…) of ${who.email} expired on 2026-01-15`);
+    expect(expiries[0].summary).toBe(
+      `The API token “short-lived” (${(await m.ApiToken.findByPk(t.id))!.prefix}…) of ${who.email} expired on 2026-01-15`,
+    );
   });
 
   it("a token that expired unused is recorded by the sweep, once", async () => {
@@ -81,7 +92,10 @@ describe("API token expiry", () => {
   it("a revoked token that passes its expiry date is not recorded as expired", async () => {
     const who = w.people.manager;
     const t = (await (await create(who.token, { name: "revoked first" })).json()) as { id: string };
-    await call(routes.get("DELETE /api/v1/tokens/[tokenId]")!, "DELETE", "/api/v1/tokens/[tokenId]", { token: who.token, params: { tokenId: t.id } });
+    await call(routes.get("DELETE /api/v1/tokens/[tokenId]")!, "DELETE", "/api/v1/tokens/[tokenId]", {
+      token: who.token,
+      params: { tokenId: t.id },
+    });
     const m = await database();
     await m.ApiToken.update({ expiresAt: new Date(Date.now() - 1000) }, { where: { id: t.id } });
     await recordExpiredTokens();

@@ -26,16 +26,30 @@ afterAll(async () => stack?.close());
 async function invitationFor(email: string): Promise<string> {
   const m = await database();
   const token = newSecret("inv");
-  await m.Invitation.create({ labId: w.labId, email, role: "modeller", tokenHash: sha256Hex(token), invitedBy: w.people.manager.userId, expiresAt: new Date(Date.now() + 86_400_000) });
+  await m.Invitation.create({
+    labId: w.labId,
+    email,
+    role: "modeller",
+    tokenHash: sha256Hex(token),
+    invitedBy: w.people.manager.userId,
+    expiresAt: new Date(Date.now() + 86_400_000),
+  });
   return token;
 }
-const accept = (token: string, json: unknown, bearer?: string) => call(routes.get("POST /api/v1/invitations/[token]/accept")!, "POST", "/api/v1/invitations/[token]/accept", { params: { token }, json, token: bearer });
+const accept = (token: string, json: unknown, bearer?: string) =>
+  call(routes.get("POST /api/v1/invitations/[token]/accept")!, "POST", "/api/v1/invitations/[token]/accept", {
+    params: { token },
+    json,
+    token: bearer,
+  });
 const errorOf = async (res: Response) => ((await res.json()) as { error: { message: string } }).error.message;
 
 /** Someone with an account in the other lab, with a known password. */
 async function existingPerson(): Promise<Person> {
   const p = await makePerson("scientist", w.otherLabId, "existing");
-  await (await database()).User.update({ passwordHash: await hashPassword("their-own-password") }, { where: { id: p.userId } });
+  await (
+    await database()
+  ).User.update({ passwordHash: await hashPassword("their-own-password") }, { where: { id: p.userId } });
   return p;
 }
 
@@ -45,7 +59,9 @@ describe("accepting an invitation", () => {
     const token = await invitationFor(email);
     const res = await accept(token, { name: "New Comer", password: "long-enough-pw" }, w.outsider.token);
     expect(res.status).toBe(403);
-    expect(await errorOf(res)).toBe(`You are signed in as ${w.outsider.email}; this invitation is for ${email}. Sign out first.`);
+    expect(await errorOf(res)).toBe(
+      `You are signed in as ${w.outsider.email}; this invitation is for ${email}. Sign out first.`,
+    );
     expect(await (await database()).User.count({ where: { email } })).toBe(0);
     expect((await accept(token, { name: "New Comer", password: "long-enough-pw" })).status).toBe(200);
   });
@@ -60,7 +76,9 @@ describe("accepting an invitation", () => {
     expect(wrong.status).toBe(401);
     expect((await accept(token, { password: "their-own-password" })).status).toBe(200);
     const m = await database();
-    expect(await m.Membership.findOne({ where: { labId: w.labId, userId: p.userId } })).toMatchObject({ role: "modeller" });
+    expect(await m.Membership.findOne({ where: { labId: w.labId, userId: p.userId } })).toMatchObject({
+      role: "modeller",
+    });
   });
 
   it("an existing account signed in as itself accepts without a password, once", async () => {

@@ -24,17 +24,30 @@ beforeAll(async () => {
 });
 afterAll(async () => stack?.close());
 
-const invite = (labId: string, token: string, email: string) => call(R("POST /api/v1/labs/[labId]/invitations"), "POST", "/api/v1/labs/[labId]/invitations", { token, params: { labId }, json: { email, role: "collaborator" } });
+const invite = (labId: string, token: string, email: string) =>
+  call(R("POST /api/v1/labs/[labId]/invitations"), "POST", "/api/v1/labs/[labId]/invitations", {
+    token,
+    params: { labId },
+    json: { email, role: "collaborator" },
+  });
 const mailbox = async (labId: string, token: string) => {
-  const res = await call(R("GET /api/v1/labs/[labId]/mailbox"), "GET", "/api/v1/labs/[labId]/mailbox", { token, params: { labId } });
+  const res = await call(R("GET /api/v1/labs/[labId]/mailbox"), "GET", "/api/v1/labs/[labId]/mailbox", {
+    token,
+    params: { labId },
+  });
   expect(res.status).toBe(200);
   return ((await res.json()) as { items: { to: string[]; subject: string; text: string }[] }).items;
 };
 
 /** What next-auth does for "E-mail me a sign-in link" (its e-mail provider's send step). */
 async function requestSignInLink(email: string) {
-  const provider = authOptions().providers.find((p) => p.id === "email") as unknown as { options: { sendVerificationRequest: (x: { identifier: string; url: string }) => Promise<void> } };
-  await provider.options.sendVerificationRequest({ identifier: email, url: `http://127.0.0.1:3999/api/auth/callback/email?token=t${Date.now()}&email=${encodeURIComponent(email)}` });
+  const provider = authOptions().providers.find((p) => p.id === "email") as unknown as {
+    options: { sendVerificationRequest: (x: { identifier: string; url: string }) => Promise<void> };
+  };
+  await provider.options.sendVerificationRequest({
+    identifier: email,
+    url: `http://127.0.0.1:3999/api/auth/callback/email?token=t${Date.now()}&email=${encodeURIComponent(email)}`,
+  });
   // The mail leaves off the request path: wait for this very message before looking at the mailbox.
   return waitForMailWithSubject(stack.mailboxUrl, email, "Your Morphokin sign-in link");
 }
@@ -44,9 +57,23 @@ describe("development mailbox", () => {
     const victim = w.outsider.email; // manager of the other lab
     const attacker = w.people.manager;
     expect((await invite(w.labId, attacker.token, victim)).status).toBe(201);
-    const list = await call(R("GET /api/v1/labs/[labId]/invitations"), "GET", "/api/v1/labs/[labId]/invitations", { token: attacker.token, params: { labId: w.labId } });
-    const inv = ((await list.json()) as { items: { id: string; email: string }[] }).items.find((i) => i.email === victim)!;
-    expect((await call(R("DELETE /api/v1/labs/[labId]/invitations/[invitationId]"), "DELETE", "/api/v1/labs/[labId]/invitations/[invitationId]", { token: attacker.token, params: { labId: w.labId, invitationId: inv.id } })).status).toBe(204);
+    const list = await call(R("GET /api/v1/labs/[labId]/invitations"), "GET", "/api/v1/labs/[labId]/invitations", {
+      token: attacker.token,
+      params: { labId: w.labId },
+    });
+    const inv = ((await list.json()) as { items: { id: string; email: string }[] }).items.find(
+      (i) => i.email === victim,
+    )!;
+    expect(
+      (
+        await call(
+          R("DELETE /api/v1/labs/[labId]/invitations/[invitationId]"),
+          "DELETE",
+          "/api/v1/labs/[labId]/invitations/[invitationId]",
+          { token: attacker.token, params: { labId: w.labId, invitationId: inv.id } },
+        )
+      ).status,
+    ).toBe(204);
 
     const link = await requestSignInLink(victim);
     expect(link.text).toContain("/api/auth/callback/email");
@@ -54,7 +81,9 @@ describe("development mailbox", () => {
     expect(seen.flatMap((m) => m.to)).not.toContain(victim);
     expect(seen.some((m) => m.text.includes("/api/auth/callback/email"))).toBe(false);
     // The victim's own lab still sees it (their own mailbox).
-    expect((await mailbox(w.otherLabId, w.outsider.token)).some((m) => m.subject === "Your Morphokin sign-in link")).toBe(true);
+    expect(
+      (await mailbox(w.otherLabId, w.outsider.token)).some((m) => m.subject === "Your Morphokin sign-in link"),
+    ).toBe(true);
   });
 
   it("shows a pending invitation to another lab's member but not their sign-in link", async () => {
@@ -63,7 +92,14 @@ describe("development mailbox", () => {
     // They join the other lab …
     const mail = await waitForMailWithSubject(stack.mailboxUrl, other, "You are invited to Other Lab on Morphokin");
     const token = /\/invite\/(\S+)/.exec(mail.text)![1];
-    expect((await call(R("POST /api/v1/invitations/[token]/accept"), "POST", "/api/v1/invitations/[token]/accept", { params: { token }, json: { name: "Two Labs", password: "long-enough-pw" } })).status).toBe(200);
+    expect(
+      (
+        await call(R("POST /api/v1/invitations/[token]/accept"), "POST", "/api/v1/invitations/[token]/accept", {
+          params: { token },
+          json: { name: "Two Labs", password: "long-enough-pw" },
+        })
+      ).status,
+    ).toBe(200);
     // … and this lab invites them too, and asks for their sign-in link.
     expect((await invite(w.labId, w.people.manager.token, other)).status).toBe(201);
     await requestSignInLink(other);
@@ -76,9 +112,19 @@ describe("development mailbox", () => {
     expect((await invite(w.labId, w.people.manager.token, gone)).status).toBe(201);
     await waitForMailWithSubject(stack.mailboxUrl, gone, "You are invited to Test Lab on Morphokin");
     expect((await mailbox(w.labId, w.people.manager.token)).flatMap((m) => m.to)).toContain(gone);
-    const list = await call(R("GET /api/v1/labs/[labId]/invitations"), "GET", "/api/v1/labs/[labId]/invitations", { token: w.people.manager.token, params: { labId: w.labId } });
-    const inv = ((await list.json()) as { items: { id: string; email: string }[] }).items.find((i) => i.email === gone)!;
-    await call(R("DELETE /api/v1/labs/[labId]/invitations/[invitationId]"), "DELETE", "/api/v1/labs/[labId]/invitations/[invitationId]", { token: w.people.manager.token, params: { labId: w.labId, invitationId: inv.id } });
+    const list = await call(R("GET /api/v1/labs/[labId]/invitations"), "GET", "/api/v1/labs/[labId]/invitations", {
+      token: w.people.manager.token,
+      params: { labId: w.labId },
+    });
+    const inv = ((await list.json()) as { items: { id: string; email: string }[] }).items.find(
+      (i) => i.email === gone,
+    )!;
+    await call(
+      R("DELETE /api/v1/labs/[labId]/invitations/[invitationId]"),
+      "DELETE",
+      "/api/v1/labs/[labId]/invitations/[invitationId]",
+      { token: w.people.manager.token, params: { labId: w.labId, invitationId: inv.id } },
+    );
     expect((await listMail(stack.mailboxUrl, gone)).length).toBe(1);
     expect((await mailbox(w.labId, w.people.manager.token)).flatMap((m) => m.to)).not.toContain(gone);
   });

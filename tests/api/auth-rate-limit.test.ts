@@ -31,13 +31,26 @@ afterAll(async () => stack?.close());
 beforeEach(async () => {
   await stack.services.db.sequelize.query("DELETE FROM rate_limits");
   const c = stack.services.config;
-  Object.assign(c.rateLimits, { signIn: { perAccount: 3, perAddress: 5 }, signInLink: { perAccount: 2, perAddress: 4 }, signUp: { perAccount: 2, perAddress: 3 }, invitation: { perAccount: 2, perAddress: 3 } });
+  Object.assign(c.rateLimits, {
+    signIn: { perAccount: 3, perAddress: 5 },
+    signInLink: { perAccount: 2, perAddress: 4 },
+    signUp: { perAccount: 2, perAddress: 3 },
+    invitation: { perAccount: 2, perAddress: 3 },
+  });
   Object.assign(c, { lockoutFailures: 3, lockoutMinutes: 15 });
 });
 
-const signup = (email: string, address: string) => call(R("POST /api/v1/signup"), "POST", "/api/v1/signup", { json: { name: "Ada Quill", email, password: "long-enough-pw", labName: "Quill Lab" }, headers: { "x-forwarded-for": address } });
+const signup = (email: string, address: string) =>
+  call(R("POST /api/v1/signup"), "POST", "/api/v1/signup", {
+    json: { name: "Ada Quill", email, password: "long-enough-pw", labName: "Quill Lab" },
+    headers: { "x-forwarded-for": address },
+  });
 const authPost = (action: string, email: string, address: string, extra: Record<string, string> = {}) =>
-  new Request(`http://127.0.0.1:3999/api/auth/${action}`, { method: "POST", headers: { "content-type": "application/x-www-form-urlencoded", "x-forwarded-for": address }, body: new URLSearchParams({ email, ...extra }) });
+  new Request(`http://127.0.0.1:3999/api/auth/${action}`, {
+    method: "POST",
+    headers: { "content-type": "application/x-www-form-urlencoded", "x-forwarded-for": address },
+    body: new URLSearchParams({ email, ...extra }),
+  });
 
 describe("sign-up", () => {
   it("answers 429 with Retry-After after the per-account limit, whatever the address", async () => {
@@ -49,7 +62,9 @@ describe("sign-up", () => {
     const retry = Number(res.headers.get("retry-after"));
     expect(retry).toBeGreaterThan(0);
     expect(retry).toBeLessThanOrEqual(15 * 60);
-    expect((await res.json()).error.message).toMatch(/^too many sign-ups for this account \(at most 2 in 15 minutes\); try again in \d+ minutes?$/);
+    expect((await res.json()).error.message).toMatch(
+      /^too many sign-ups for this account \(at most 2 in 15 minutes\); try again in \d+ minutes?$/,
+    );
   });
 
   it("answers 429 after the per-address limit, for any address typed; another client address is not affected", async () => {
@@ -68,17 +83,24 @@ describe("password sign-in", () => {
     expect(await lockedForS(email)).toBeGreaterThan(14 * 60);
     // Even the right password does not get in while locked.
     expect(await checkPassword({ email, password: "long-enough-pw" })).toBeNull();
-    const res = await guardAuthRequest(authPost("callback/credentials", email, "10.3.0.1", { password: "long-enough-pw" }), ["callback", "credentials"]);
+    const res = await guardAuthRequest(
+      authPost("callback/credentials", email, "10.3.0.1", { password: "long-enough-pw" }),
+      ["callback", "credentials"],
+    );
     expect(res?.status).toBe(429);
     expect(Number(res!.headers.get("retry-after"))).toBeGreaterThan(14 * 60);
     const body = (await res!.json()) as { url: string; error: { message: string } };
     expect(new URL(body.url).searchParams.get("error")).toBe("Locked:15");
-    expect(body.error.message).toBe("Too many failed sign-ins for this account; try again in 15 minutes or use a sign-in link.");
+    expect(body.error.message).toBe(
+      "Too many failed sign-ins for this account; try again in 15 minutes or use a sign-in link.",
+    );
     // The audit trail has the three failures and the one lockout they started (issue 10, item 12).
     const events = await (await database()).AccountEvent.findAll({ where: { email } });
     expect(events.filter((e) => e.action === "signin.failed")).toHaveLength(3);
     expect(events.filter((e) => e.action === "signin.locked")).toHaveLength(1);
-    expect(events.find((e) => e.action === "signin.failed")!.summary).toBe(`Failed sign-in as ${email} with password: wrong e-mail or password`);
+    expect(events.find((e) => e.action === "signin.failed")!.summary).toBe(
+      `Failed sign-in as ${email} with password: wrong e-mail or password`,
+    );
   });
 
   it("a right password clears the failure count before the lockout", async () => {
@@ -91,19 +113,26 @@ describe("password sign-in", () => {
   });
 
   it("limits attempts per account and per address before next-auth runs", async () => {
-    const guard = (email: string, address: string) => guardAuthRequest(authPost("callback/credentials", email, address, { password: "x" }), ["callback", "credentials"]);
+    const guard = (email: string, address: string) =>
+      guardAuthRequest(authPost("callback/credentials", email, address, { password: "x" }), [
+        "callback",
+        "credentials",
+      ]);
     for (let i = 0; i < 3; i++) expect(await guard("someone@lab.test", `10.4.0.${i}`)).toBeNull();
     expect((await guard("someone@lab.test", "10.4.0.9"))?.status).toBe(429);
     for (let i = 0; i < 5; i++) expect(await guard(`sprayed-${i}@lab.test`, "10.4.1.1")).toBeNull();
     const res = await guard("sprayed-9@lab.test", "10.4.1.1");
     expect(res?.status).toBe(429);
-    expect(new URL(((await res!.json()) as { url: string }).url).searchParams.get("error")).toMatch(/^RateLimited:\d+$/);
+    expect(new URL(((await res!.json()) as { url: string }).url).searchParams.get("error")).toMatch(
+      /^RateLimited:\d+$/,
+    );
   });
 });
 
 describe("sign-in link requests", () => {
   it("answer 429 with Retry-After after the per-account limit", async () => {
-    const guard = (address: string) => guardAuthRequest(authPost("signin/email", w.people.scientist.email, address), ["signin", "email"]);
+    const guard = (address: string) =>
+      guardAuthRequest(authPost("signin/email", w.people.scientist.email, address), ["signin", "email"]);
     expect(await guard("10.5.0.1")).toBeNull();
     expect(await guard("10.5.0.2")).toBeNull();
     const res = await guard("10.5.0.3");
@@ -115,7 +144,13 @@ describe("sign-in link requests", () => {
 describe("invitations", () => {
   it("answer 429 after the per-invitee limit", async () => {
     const email = `invited-often-${++n}@lab.test`;
-    const invite = () => call(R("POST /api/v1/labs/[labId]/invitations"), "POST", "/api/v1/labs/[labId]/invitations", { token: w.people.manager.token, params: { labId: w.labId }, json: { email, role: "collaborator" }, headers: { "x-forwarded-for": `10.6.0.${++n}` } });
+    const invite = () =>
+      call(R("POST /api/v1/labs/[labId]/invitations"), "POST", "/api/v1/labs/[labId]/invitations", {
+        token: w.people.manager.token,
+        params: { labId: w.labId },
+        json: { email, role: "collaborator" },
+        headers: { "x-forwarded-for": `10.6.0.${++n}` },
+      });
     expect((await invite()).status).toBe(201);
     expect((await invite()).status).toBe(201);
     const res = await invite();

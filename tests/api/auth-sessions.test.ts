@@ -27,12 +27,19 @@ afterAll(async () => stack?.close());
 
 /** A session as next-auth makes it at sign-in: the jwt callback with the signed-in user. */
 async function signIn(userId: string, email: string): Promise<JWT> {
-  return (await authOptions().callbacks!.jwt!({ token: { email }, user: { id: userId, email }, trigger: "signIn" } as never)) as JWT;
+  return (await authOptions().callbacks!.jwt!({
+    token: { email },
+    user: { id: userId, email },
+    trigger: "signIn",
+  } as never)) as JWT;
 }
 /** What the cookie is worth on a later request: the jwt callback without user, then the session callback. */
 async function sessionOf(token: JWT): Promise<Session> {
   const t = (await authOptions().callbacks!.jwt!({ token } as never)) as JWT;
-  return authOptions().callbacks!.session!({ session: { expires: new Date(Date.now() + 3_600_000).toISOString(), user: { email: t.email } }, token: t } as never) as Promise<Session>;
+  return authOptions().callbacks!.session!({
+    session: { expires: new Date(Date.now() + 3_600_000).toISOString(), user: { email: t.email } },
+    token: t,
+  } as never) as Promise<Session>;
 }
 
 describe("sessions", () => {
@@ -62,7 +69,11 @@ describe("sessions", () => {
     const p = w.people.manager; // password long-enough-pw (tests/support/world.ts)
     const here = await signIn(p.userId, p.email);
     const elsewhere = await signIn(p.userId, p.email);
-    const result = await changePassword({ ...p.actor, via: "session" }, { currentPassword: "long-enough-pw", newPassword: "a-new-long-password" }, here.sid!);
+    const result = await changePassword(
+      { ...p.actor, via: "session" },
+      { currentPassword: "long-enough-pw", newPassword: "a-new-long-password" },
+      here.sid!,
+    );
     expect(result).toEqual({ changed: true, endedSessions: 1 });
     expect((await sessionOf(elsewhere)).user).toBeUndefined();
     expect((await sessionOf(here)).user?.id).toBe(p.userId);
@@ -72,13 +83,22 @@ describe("sessions", () => {
 
   it("the password route refuses a wrong current password (401) and a short new one (400, as sign-up)", async () => {
     const route = routes.get("POST /api/v1/me/password")!;
-    const wrong = await call(route, "POST", "/api/v1/me/password", { token: w.outsider.token, json: { currentPassword: "not-it", newPassword: "another-long-password" } });
+    const wrong = await call(route, "POST", "/api/v1/me/password", {
+      token: w.outsider.token,
+      json: { currentPassword: "not-it", newPassword: "another-long-password" },
+    });
     expect(wrong.status).toBe(401);
     expect((await wrong.json()).error.message).toBe("current password: that is not your current password");
-    const short = await call(route, "POST", "/api/v1/me/password", { token: w.outsider.token, json: { currentPassword: "long-enough-pw", newPassword: "short" } });
+    const short = await call(route, "POST", "/api/v1/me/password", {
+      token: w.outsider.token,
+      json: { currentPassword: "long-enough-pw", newPassword: "short" },
+    });
     expect(short.status).toBe(400);
     expect((await short.json()).error.message).toBe("newPassword: at least 10 characters");
-    const ok = await call(route, "POST", "/api/v1/me/password", { token: w.outsider.token, json: { currentPassword: "long-enough-pw", newPassword: "another-long-password" } });
+    const ok = await call(route, "POST", "/api/v1/me/password", {
+      token: w.outsider.token,
+      json: { currentPassword: "long-enough-pw", newPassword: "another-long-password" },
+    });
     expect(ok.status).toBe(200);
   });
 });

@@ -27,8 +27,12 @@ beforeAll(async () => {
 afterAll(async () => stack?.close());
 
 const signup = (email: string, password = "long-enough-pw") =>
-  call(R("POST /api/v1/signup"), "POST", "/api/v1/signup", { json: { name: "Ada Quill", email, password, labName: "Quill Lab" }, headers: { "x-forwarded-for": `10.0.0.${++n % 250}` } });
-const confirm = (token: string, password: string) => call(R("POST /api/v1/signup/confirm"), "POST", "/api/v1/signup/confirm", { json: { token, password } });
+  call(R("POST /api/v1/signup"), "POST", "/api/v1/signup", {
+    json: { name: "Ada Quill", email, password, labName: "Quill Lab" },
+    headers: { "x-forwarded-for": `10.0.0.${++n % 250}` },
+  });
+const confirm = (token: string, password: string) =>
+  call(R("POST /api/v1/signup/confirm"), "POST", "/api/v1/signup/confirm", { json: { token, password } });
 
 async function median(f: () => Promise<unknown>, runs = 5): Promise<number> {
   const times: number[] = [];
@@ -49,7 +53,11 @@ describe("sign-up", () => {
     expect(a.status).toBe(202);
     expect(b.status).toBe(202);
     const [ja, jb] = [await a.json(), await b.json()];
-    expect({ ...ja, email: "x", message: ja.message.replace(fresh, "x") }).toEqual({ ...jb, email: "x", message: jb.message.replace(w.people.manager.email, "x") });
+    expect({ ...ja, email: "x", message: ja.message.replace(fresh, "x") }).toEqual({
+      ...jb,
+      email: "x",
+      message: jb.message.replace(w.people.manager.email, "x"),
+    });
     // … and about the same time (this part alone held before: both paths hashed the password).
     const tNew = await median(() => signup(`timing-${Date.now()}-${++n}@lab.test`));
     const tOld = await median(() => signup(w.outsider.email));
@@ -88,7 +96,12 @@ describe("sign-up", () => {
     const email = w.people.manager.email; // has the password long-enough-pw (tests/support/world.ts)
     const seen = new Set((await listMail(stack.mailboxUrl, email)).map((x) => x.id));
     expect((await signup(email, "someone-elses-guess")).status).toBe(202);
-    await expect.poll(async () => (await listMail(stack.mailboxUrl, email)).filter((x) => !seen.has(x.id!)).map((x) => x.subject), { timeout: 10_000 }).toEqual(["You already have a Morphokin account"]);
+    await expect
+      .poll(
+        async () => (await listMail(stack.mailboxUrl, email)).filter((x) => !seen.has(x.id!)).map((x) => x.subject),
+        { timeout: 10_000 },
+      )
+      .toEqual(["You already have a Morphokin account"]);
     const mail = (await listMail(stack.mailboxUrl, email)).find((x) => !seen.has(x.id!))!;
     expect(mail.text).toContain("/api/auth/callback/email?");
     expect(await m.Lab.count()).toBe(before);
@@ -97,9 +110,16 @@ describe("sign-up", () => {
 });
 
 describe("sign-in link request", () => {
-  type EmailProvider = { options: { sendVerificationRequest: (x: { identifier: string; url: string }) => Promise<void> } };
+  type EmailProvider = {
+    options: { sendVerificationRequest: (x: { identifier: string; url: string }) => Promise<void> };
+  };
   const provider = () => authOptions().providers.find((p) => p.id === "email") as unknown as EmailProvider;
-  const signInCallback = (email: string) => authOptions().callbacks!.signIn!({ user: { id: email, email }, account: { provider: "email", type: "email", providerAccountId: email }, email: { verificationRequest: true } } as never);
+  const signInCallback = (email: string) =>
+    authOptions().callbacks!.signIn!({
+      user: { id: email, email },
+      account: { provider: "email", type: "email", providerAccountId: email },
+      email: { verificationRequest: true },
+    } as never);
 
   it("goes on to the same check-your-e-mail page for a known and an unknown address", async () => {
     expect(await signInCallback(w.people.scientist.email)).toBe(true);
@@ -108,7 +128,11 @@ describe("sign-in link request", () => {
 
   it("takes about the same time for both (the mail leaves off the request path), and mails only the account", async () => {
     const unknown = `nobody-${Date.now()}@lab.test`;
-    const send = (identifier: string) => provider().options.sendVerificationRequest({ identifier, url: `http://127.0.0.1:3999/api/auth/callback/email?token=t${++n}` });
+    const send = (identifier: string) =>
+      provider().options.sendVerificationRequest({
+        identifier,
+        url: `http://127.0.0.1:3999/api/auth/callback/email?token=t${++n}`,
+      });
     const tKnown = await median(() => send(w.people.modeller.email));
     const tUnknown = await median(() => send(unknown));
     expect(similar(tKnown, tUnknown), `known ${tKnown.toFixed(0)} ms vs unknown ${tUnknown.toFixed(0)} ms`).toBe(true);

@@ -89,7 +89,10 @@ describe("the write queue", () => {
         const t0 = Date.now();
         await short.sequelize.query("SELECT COUNT(*) FROM w"); // another connection, no turn needed
         readMs = Date.now() - t0;
-        refused = await short.sequelize.query("INSERT INTO w VALUES (2)").then(() => null, (err: unknown) => err);
+        refused = await short.sequelize.query("INSERT INTO w VALUES (2)").then(
+          () => null,
+          (err: unknown) => err,
+        );
       });
       expect(readMs).toBeGreaterThanOrEqual(0);
       expect(readMs).toBeLessThan(200);

@@ -17,11 +17,13 @@ describe("resolveMentions", () => {
     ["@scientist@lab.example look", ["b"]],
     ['@"Mara Ellwood" and @"teodor varga"', ["a", "b"]],
     ["ends a sentence @guest@partner.example.", ["c"]],
-    ["@nobody@else.example and @\"Someone Else\"", []],
+    ['@nobody@else.example and @"Someone Else"', []],
     ["no mentions, just scientist@lab.example written out", []],
     ['twice: @"Mara Ellwood" @manager@lab.example', ["a"]],
   ];
-  for (const [body, ids] of cases) it(`finds ${JSON.stringify(ids)} in ${JSON.stringify(body)}`, () => expect(resolveMentions(body, MEMBERS)).toEqual(ids));
+  for (const [body, ids] of cases)
+    it(`finds ${JSON.stringify(ids)} in ${JSON.stringify(body)}`, () =>
+      expect(resolveMentions(body, MEMBERS)).toEqual(ids));
 });
 
 describe("the @ hint", () => {

@@ -31,13 +31,25 @@ const COMMENTS = `${ONE}/comments`;
 const COMMENT = `${COMMENTS}/[commentId]`;
 
 type Caller = Role | Person;
-async function api(method: Method, path: string, who: Caller, o: { params?: Record<string, string>; json?: unknown; query?: string; labId?: string } = {}) {
+async function api(
+  method: Method,
+  path: string,
+  who: Caller,
+  o: { params?: Record<string, string>; json?: unknown; query?: string; labId?: string } = {},
+) {
   const token = typeof who === "string" ? w.people[who].token : who.token;
-  const res = await call(routes.get(`${method} ${path}`)!, method, path, { token, params: { labId: o.labId ?? w.labId, ...o.params }, json: o.json, query: o.query });
+  const res = await call(routes.get(`${method} ${path}`)!, method, path, {
+    token,
+    params: { labId: o.labId ?? w.labId, ...o.params },
+    json: o.json,
+    query: o.query,
+  });
   return { status: res.status, body: res.status === 204 ? null : await res.json() };
 }
-const start = (who: Caller, body: string, target: { targetType?: string; targetId?: string } = {}) => api("POST", T, who, { json: { targetType: "upload", targetId: uploadId, body, ...target } });
-const reply = (who: Caller, threadId: string, body: string, parentId?: string) => api("POST", COMMENTS, who, { params: { threadId }, json: { body, parentId } });
+const start = (who: Caller, body: string, target: { targetType?: string; targetId?: string } = {}) =>
+  api("POST", T, who, { json: { targetType: "upload", targetId: uploadId, body, ...target } });
+const reply = (who: Caller, threadId: string, body: string, parentId?: string) =>
+  api("POST", COMMENTS, who, { params: { threadId }, json: { body, parentId } });
 const getThread = (who: Caller, threadId: string) => api("GET", ONE, who, { params: { threadId } });
 
 async function inbox(email: string): Promise<{ subject: string; text: string }[]> {
@@ -49,14 +61,27 @@ describe("threads and comments", () => {
   it("starts a thread, lists it on its target, replies (one level), edits, soft-deletes, resolves and reopens with audit", async () => {
     const created = await start("scientist", "Spacing looks **narrower** near the midline.");
     expect(created.status).toBe(201);
-    expect(created.body.thread).toMatchObject({ status: "open", commentCount: 1, target: { type: "upload", id: uploadId } });
+    expect(created.body.thread).toMatchObject({
+      status: "open",
+      commentCount: 1,
+      target: { type: "upload", id: uploadId },
+    });
     expect(created.body.thread.target.label).toMatch(/^the file “a\.png” of specimen X\d+$/);
-    expect(created.body.comment).toMatchObject({ body: "Spacing looks **narrower** near the midline.", authorEmail: w.people.scientist.email, canEdit: true, canDelete: true, deleted: false, editedAt: null });
+    expect(created.body.comment).toMatchObject({
+      body: "Spacing looks **narrower** near the midline.",
+      authorEmail: w.people.scientist.email,
+      canEdit: true,
+      canDelete: true,
+      deleted: false,
+      editedAt: null,
+    });
     expect(created.body.comment.bodyHtml).toBe("<p>Spacing looks <strong>narrower</strong> near the midline.</p>");
     const threadId = created.body.thread.id as string;
     const first = created.body.comment.id as string;
 
-    const listed = await api("GET", T, "collaborator", { query: `targetType=upload&targetId=${uploadId}&pageSize=100` });
+    const listed = await api("GET", T, "collaborator", {
+      query: `targetType=upload&targetId=${uploadId}&pageSize=100`,
+    });
     expect(listed.status).toBe(200);
     const mine = listed.body.items.find((t: { id: string }) => t.id === threadId);
     expect(mine.comments.map((c: { id: string }) => c.id)).toEqual([first]);
@@ -72,18 +97,34 @@ describe("threads and comments", () => {
     expect(other.status).toBe(404);
     expect(other.body.error.message).toBe("parentId: the comment replied to is not in this thread");
 
-    const edited = await api("PATCH", COMMENT, "modeller", { params: { threadId, commentId: r1.body.comment.id }, json: { body: "Agreed; compare with control 2." } });
+    const edited = await api("PATCH", COMMENT, "modeller", {
+      params: { threadId, commentId: r1.body.comment.id },
+      json: { body: "Agreed; compare with control 2." },
+    });
     expect(edited.status).toBe(200);
     expect(edited.body.comment.body).toBe("Agreed; compare with control 2.");
     expect(edited.body.comment.editedAt).not.toBeNull();
 
     expect((await api("DELETE", COMMENT, "scientist", { params: { threadId, commentId: first } })).status).toBe(204);
     const after = await getThread("collaborator", threadId);
-    expect(after.body.comments.map((c: { deleted: boolean; body: string; bodyHtml: string }) => [c.deleted, c.body === "", c.bodyHtml === ""])).toEqual([[true, true, true], [false, false, false], [false, false, false]]);
+    expect(
+      after.body.comments.map((c: { deleted: boolean; body: string; bodyHtml: string }) => [
+        c.deleted,
+        c.body === "",
+        c.bodyHtml === "",
+      ]),
+    ).toEqual([
+      [true, true, true],
+      [false, false, false],
+      [false, false, false],
+    ]);
     expect(after.body.comments[0].canEdit).toBe(false);
     expect(after.body.commentCount).toBe(2);
     expect(after.body.preview).toBe("(comment deleted)");
-    const editDeleted = await api("PATCH", COMMENT, "scientist", { params: { threadId, commentId: first }, json: { body: "back" } });
+    const editDeleted = await api("PATCH", COMMENT, "scientist", {
+      params: { threadId, commentId: first },
+      json: { body: "back" },
+    });
     expect(editDeleted.status).toBe(409);
 
     const resolved = await api("PATCH", ONE, "collaborator", { params: { threadId }, json: { status: "resolved" } });
@@ -98,21 +139,34 @@ describe("threads and comments", () => {
     expect(bad.body.error.message).toBe("status: must be “open” or “resolved”");
 
     const m = await database();
-    const audit = await m.AuditEvent.findAll({ where: { labId: w.labId, targetId: uploadId }, order: [["createdAt", "asc"]] });
+    const audit = await m.AuditEvent.findAll({
+      where: { labId: w.labId, targetId: uploadId },
+      order: [["createdAt", "asc"]],
+    });
     const actions = audit.map((a) => a.action).filter((a) => a.startsWith("discussion.") || a.startsWith("comment."));
-    expect(actions).toEqual(expect.arrayContaining(["discussion.started", "comment.deleted", "discussion.resolved", "discussion.reopened"]));
-    expect(audit.find((a) => a.action === "discussion.resolved")!.summary).toMatch(new RegExp(`^${w.people.collaborator.email} resolved a discussion on the file “a.png”`));
+    expect(actions).toEqual(
+      expect.arrayContaining(["discussion.started", "comment.deleted", "discussion.resolved", "discussion.reopened"]),
+    );
+    expect(audit.find((a) => a.action === "discussion.resolved")!.summary).toMatch(
+      new RegExp(`^${w.people.collaborator.email} resolved a discussion on the file “a.png”`),
+    );
   });
 
   it("lets a collaborator comment and edit their own comment, but not edit or delete someone else's", async () => {
     const t = await start("collaborator", "Could you share the raw image?");
     expect(t.status).toBe(201);
     const threadId = t.body.thread.id;
-    const own = await api("PATCH", COMMENT, "collaborator", { params: { threadId, commentId: t.body.comment.id }, json: { body: "Could you share the raw TIFF?" } });
+    const own = await api("PATCH", COMMENT, "collaborator", {
+      params: { threadId, commentId: t.body.comment.id },
+      json: { body: "Could you share the raw TIFF?" },
+    });
     expect(own.status).toBe(200);
     const theirs = await reply("scientist", threadId, "Uploaded it.");
     for (const method of ["PATCH", "DELETE"] as const) {
-      const res = await api(method, COMMENT, "collaborator", { params: { threadId, commentId: theirs.body.comment.id }, json: method === "PATCH" ? { body: "hijack" } : undefined });
+      const res = await api(method, COMMENT, "collaborator", {
+        params: { threadId, commentId: theirs.body.comment.id },
+        json: method === "PATCH" ? { body: "hijack" } : undefined,
+      });
       expect(res.status).toBe(403);
       expect(res.body.error.message).toBe("only its creator or a lab manager may change or delete this");
     }
@@ -122,14 +176,23 @@ describe("threads and comments", () => {
   it("lets the lab manager delete anyone's comment, and nobody else", async () => {
     const t = await start("scientist", "Draft conclusion: the inhibitor widens spacing.");
     const threadId = t.body.thread.id;
-    const modellerTry = await api("DELETE", COMMENT, "modeller", { params: { threadId, commentId: t.body.comment.id } });
+    const modellerTry = await api("DELETE", COMMENT, "modeller", {
+      params: { threadId, commentId: t.body.comment.id },
+    });
     expect(modellerTry.status).toBe(403);
     const managerSees = await getThread("manager", threadId);
     expect(managerSees.body.comments[0]).toMatchObject({ canEdit: true, canDelete: true });
-    expect((await api("DELETE", COMMENT, "manager", { params: { threadId, commentId: t.body.comment.id } })).status).toBe(204);
+    expect(
+      (await api("DELETE", COMMENT, "manager", { params: { threadId, commentId: t.body.comment.id } })).status,
+    ).toBe(204);
     const m = await database();
-    const entry = await m.AuditEvent.findOne({ where: { labId: w.labId, action: "comment.deleted" }, order: [["createdAt", "desc"]] });
-    expect(entry!.summary).toBe(`${w.people.manager.email} deleted a comment by ${w.people.scientist.email} on ${t.body.thread.target.label}`);
+    const entry = await m.AuditEvent.findOne({
+      where: { labId: w.labId, action: "comment.deleted" },
+      order: [["createdAt", "desc"]],
+    });
+    expect(entry!.summary).toBe(
+      `${w.people.manager.email} deleted a comment by ${w.people.scientist.email} on ${t.body.thread.target.label}`,
+    );
   });
 
   it("answers 404 for another lab's thread, a target outside the lab, and fits (no fits yet)", async () => {
@@ -140,21 +203,39 @@ describe("threads and comments", () => {
     expect((await api("GET", ONE, w.outsider, asOutsider)).status).toBe(404);
     expect((await api("POST", COMMENTS, w.outsider, { ...asOutsider, json: { body: "hi" } })).status).toBe(404);
     expect((await api("PATCH", ONE, w.outsider, { ...asOutsider, json: { status: "resolved" } })).status).toBe(404);
-    expect((await api("DELETE", COMMENT, w.outsider, { labId: w.otherLabId, params: { threadId, commentId: t.body.comment.id } })).status).toBe(404);
-    const foreignTarget = await api("POST", T, w.outsider, { labId: w.otherLabId, json: { targetType: "upload", targetId: uploadId, body: "x" } });
+    expect(
+      (
+        await api("DELETE", COMMENT, w.outsider, {
+          labId: w.otherLabId,
+          params: { threadId, commentId: t.body.comment.id },
+        })
+      ).status,
+    ).toBe(404);
+    const foreignTarget = await api("POST", T, w.outsider, {
+      labId: w.otherLabId,
+      json: { targetType: "upload", targetId: uploadId, body: "x" },
+    });
     expect(foreignTarget.status).toBe(404);
     expect(foreignTarget.body.error.message).toBe("upload not found");
-    const fit = await start("scientist", "About the fit.", { targetType: "fit", targetId: "7f1c2a8e-3b4d-4c5e-8f60-718293a4b5c6" });
+    const fit = await start("scientist", "About the fit.", {
+      targetType: "fit",
+      targetId: "7f1c2a8e-3b4d-4c5e-8f60-718293a4b5c6",
+    });
     expect(fit.status).toBe(404);
     expect(fit.body.error.message).toBe("fit not found");
-    const readout = await start("scientist", "About a readout.", { targetType: "readout", targetId: "7f1c2a8e-3b4d-4c5e-8f60-718293a4b5c6" });
+    const readout = await start("scientist", "About a readout.", {
+      targetType: "readout",
+      targetId: "7f1c2a8e-3b4d-4c5e-8f60-718293a4b5c6",
+    });
     expect(readout.body.error.message).toBe("readout not found");
   });
 
   it("names the field and the limit in bad input", async () => {
     expect((await start("scientist", "   ")).body.error.message).toBe("body: write a comment");
     expect((await start("scientist", "x".repeat(10_001))).body.error.message).toBe("body: at most 10000 characters");
-    expect((await start("scientist", "x", { targetType: "study" })).body.error.message).toBe("targetType: must be one of readout, fit, upload");
+    expect((await start("scientist", "x", { targetType: "study" })).body.error.message).toBe(
+      "targetType: must be one of readout, fit, upload",
+    );
     expect((await start("scientist", "x", { targetId: "nope" })).body.error.message).toBe("targetId must be a UUID");
     const half = await api("GET", T, "scientist", { query: "targetType=upload" });
     expect(half.status).toBe(400);
@@ -168,7 +249,10 @@ describe("sanitised bodies", () => {
     { name: "script tag", body: "hello <script>alert(1)</script> there" },
     { name: "img onerror", body: `<img src=x onerror="alert(1)"> look` },
     { name: "javascript: markdown link", body: "[x](javascript:alert(1))" },
-    { name: "event handler on an allowed tag", body: `<a href="https://example.org" onclick="alert(1)">ok</a> <strong onmouseover="alert(1)">b</strong>` },
+    {
+      name: "event handler on an allowed tag",
+      body: `<a href="https://example.org" onclick="alert(1)">ok</a> <strong onmouseover="alert(1)">b</strong>`,
+    },
     { name: "encoded javascript: URL", body: `<a href="jav&#x09;ascript:alert(1)">y</a> [z](JaVaScRiPt:alert(1))` },
   ];
   for (const a of ATTACKS) {
@@ -181,7 +265,10 @@ describe("sanitised bodies", () => {
     });
   }
   it("keeps the safe subset: emphasis, code, lists, quotes and http links (with rel=nofollow)", async () => {
-    const res = await start("collaborator", "*a* `k*` \n\n- one\n- two\n\n> quoted\n\n[paper](https://doi.org/10.1000/x)");
+    const res = await start(
+      "collaborator",
+      "*a* `k*` \n\n- one\n- two\n\n> quoted\n\n[paper](https://doi.org/10.1000/x)",
+    );
     const html = res.body.comment.bodyHtml as string;
     expect(html).toContain("<em>a</em>");
     expect(html).toContain("<code>k*</code>");
@@ -201,9 +288,13 @@ describe("mentions and e-mail", () => {
     const res = await start(author, body);
     expect(res.status).toBe(201);
     expect(res.body).toMatchObject({ notified: true, recipients: 2 });
-    expect(res.body.comment.mentions.map((x: { userId: string }) => x.userId).sort()).toEqual([byName.userId, byEmail.userId, author.userId].sort());
+    expect(res.body.comment.mentions.map((x: { userId: string }) => x.userId).sort()).toEqual(
+      [byName.userId, byEmail.userId, author.userId].sort(),
+    );
     const m = await database();
-    expect((await m.Comment.findByPk(res.body.comment.id))!.mentions.sort()).toEqual([byName.userId, byEmail.userId, author.userId].sort());
+    expect((await m.Comment.findByPk(res.body.comment.id))!.mentions.sort()).toEqual(
+      [byName.userId, byEmail.userId, author.userId].sort(),
+    );
 
     for (const p of [byName, byEmail]) {
       const mail = await inbox(p.email);
@@ -226,7 +317,10 @@ describe("mentions and e-mail", () => {
 
     // An edit that adds a mention e-mails only the newly mentioned member.
     const late = await makePerson("modeller", w.labId, "mention-late");
-    const e = await api("PATCH", COMMENT, bystander, { params: { threadId: res.body.thread.id, commentId: r.body.comment.id }, json: { body: `It is 41 µm; @"${late.actor.name}" agrees?` } });
+    const e = await api("PATCH", COMMENT, bystander, {
+      params: { threadId: res.body.thread.id, commentId: r.body.comment.id },
+      json: { body: `It is 41 µm; @"${late.actor.name}" agrees?` },
+    });
     expect(e.body).toMatchObject({ notified: true, recipients: 1 });
     expect(await inbox(late.email)).toHaveLength(1);
     expect(await inbox(author.email)).toHaveLength(1);
@@ -249,13 +343,18 @@ describe("mentions and e-mail", () => {
     const target = await makePerson("modeller", w.labId, "down-target");
     const working = stack.services.mailer;
     // Nothing listens on DEAD_PORT: the SMTP connection is refused.
-    stack.services.mailer = createSmtpMailer({ url: `smtp://127.0.0.1:${DEAD_PORT}`, from: "Morphokin <noreply@morphokin.test>" });
+    stack.services.mailer = createSmtpMailer({
+      url: `smtp://127.0.0.1:${DEAD_PORT}`,
+      from: "Morphokin <noreply@morphokin.test>",
+    });
     try {
       const res = await start(author, `@${target.email} the mail server is down`);
       expect(res.status).toBe(201);
       expect(res.body.notified).toBe(false);
       expect(res.body.recipients).toBe(0);
-      expect(res.body.reason).toBe("the mail server could not be reached or refused the message; the comment is saved but 1 of 1 notification e-mail(s) were not sent");
+      expect(res.body.reason).toBe(
+        "the mail server could not be reached or refused the message; the comment is saved but 1 of 1 notification e-mail(s) were not sent",
+      );
       const saved = await getThread("scientist", res.body.thread.id);
       expect(saved.body.comments[0].body).toBe(`@${target.email} the mail server is down`);
     } finally {

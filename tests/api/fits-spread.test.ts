@@ -28,11 +28,22 @@ const body = (uncertainty?: string) => ({
     { condition: "treated", kind: "fourier", wavelengthUm: 50, uncertaintyUm: 0.2 },
     { condition: "treated", kind: "fourier", wavelengthUm: 53, uncertaintyUm: 0.2 },
   ],
-  models: [{ kinetics: "schnakenberg", lengthScaleUm: 40, parameters: { gamma: { mode: "per-condition", start: 100, lower: 10, upper: 1000, log: true } } }],
+  models: [
+    {
+      kinetics: "schnakenberg",
+      lengthScaleUm: 40,
+      parameters: { gamma: { mode: "per-condition", start: 100, lower: 10, upper: 1000, log: true } },
+    },
+  ],
   options: { profiles: false },
   ...(uncertainty ? { uncertainty } : {}),
 });
-const start = (json: unknown) => call(routes.get("POST /api/v1/labs/[labId]/fits")!, "POST", "/api/v1/labs/[labId]/fits", { token: w.people.modeller.token, params: { labId: w.labId }, json });
+const start = (json: unknown) =>
+  call(routes.get("POST /api/v1/labs/[labId]/fits")!, "POST", "/api/v1/labs/[labId]/fits", {
+    token: w.people.modeller.token,
+    params: { labId: w.labId },
+    json,
+  });
 
 describe("fit uncertainty with the spread between specimens", () => {
   it("adds each condition's SD in quadrature and records it", async () => {
@@ -41,7 +52,9 @@ describe("fit uncertainty with the spread between specimens", () => {
     const fit = (await res.json()) as FitDetailDto;
     await cancelJob(w.labId, fit.jobId!).catch(() => undefined); // the spec is what is checked here
     // control: SD{40, 42} = √2, √(0.01 + 2) = 1.417744688; treated: SD{50, 53} = 2.121320344, √(0.04 + 4.5) = 2.130727575.
-    expect(fit.spec.data.map((d) => Number(d.uncertaintyUm.toFixed(9)))).toEqual([1.417744688, 1.417744688, 2.130727575, 2.130727575]);
+    expect(fit.spec.data.map((d) => Number(d.uncertaintyUm.toFixed(9)))).toEqual([
+      1.417744688, 1.417744688, 2.130727575, 2.130727575,
+    ]);
     expect(fit.provenance.settings.uncertainty).toBe("with-specimen-spread");
     expect(fit.provenance.settings.specimenSpreadUm).toBe("control: SD 1.41 µm (n = 2); treated: SD 2.12 µm (n = 2)");
   });
@@ -54,7 +67,9 @@ describe("fit uncertainty with the spread between specimens", () => {
     expect(fit.provenance.settings.uncertainty).toBe("per-readout");
     const bad = await start(body("guess"));
     expect(bad.status).toBe(400);
-    expect(((await bad.json()) as { error: { message: string } }).error.message).toBe('uncertainty must be "per-readout" or "with-specimen-spread"');
+    expect(((await bad.json()) as { error: { message: string } }).error.message).toBe(
+      'uncertainty must be "per-readout" or "with-specimen-spread"',
+    );
   });
 
   it("takes “Control” and “ CONTROL” as one condition, spelled as first given", async () => {

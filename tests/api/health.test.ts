@@ -21,7 +21,11 @@ describe("health", () => {
 
   it("is 503 and names the part that is down", async () => {
     const port = DEAD_PORT;
-    setServicesForTest({ ...stack.services, store: createS3ObjectStore({ ...stack.services.config.s3, endpoint: `http://127.0.0.1:${port}` }), mailer: createSmtpMailer({ url: `smtp://127.0.0.1:${port}`, from: "x@y.test" }) });
+    setServicesForTest({
+      ...stack.services,
+      store: createS3ObjectStore({ ...stack.services.config.s3, endpoint: `http://127.0.0.1:${port}` }),
+      mailer: createSmtpMailer({ url: `smtp://127.0.0.1:${port}`, from: "x@y.test" }),
+    });
     try {
       const res = await GET();
       expect(res.status).toBe(503);

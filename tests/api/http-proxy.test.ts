@@ -9,14 +9,24 @@ import { describe, expect, it } from "vitest";
 import { AUTH_BODY_LIMIT_BYTES, proxy } from "@/proxy";
 
 const APP = "http://127.0.0.1:3000";
-const post = (path: string, headers: Record<string, string>) => new NextRequest(`${APP}${path}`, { method: "POST", headers });
+const post = (path: string, headers: Record<string, string>) =>
+  new NextRequest(`${APP}${path}`, { method: "POST", headers });
 const messageOf = async (res: Response) => ((await res.json()) as { error: { message: string } }).error.message;
 
 describe("next-auth's endpoints", () => {
   it("a 5 MB sign-in body is a 413 from its Content-Length, before next-auth runs", async () => {
-    const res = proxy(post("/api/auth/callback/credentials", { "content-type": "application/x-www-form-urlencoded", "content-length": String(5_000_000), origin: APP, cookie: "next-auth.csrf-token=x" }));
+    const res = proxy(
+      post("/api/auth/callback/credentials", {
+        "content-type": "application/x-www-form-urlencoded",
+        "content-length": String(5_000_000),
+        origin: APP,
+        cookie: "next-auth.csrf-token=x",
+      }),
+    );
     expect(res.status).toBe(413);
-    expect(await messageOf(res)).toBe(`the request body is larger than the limit of ${AUTH_BODY_LIMIT_BYTES / 1024} KiB for this request; send less data`);
+    expect(await messageOf(res)).toBe(
+      `the request body is larger than the limit of ${AUTH_BODY_LIMIT_BYTES / 1024} KiB for this request; send less data`,
+    );
   });
 
   it("a body without a length is refused (411), so it cannot be large", async () => {
@@ -26,10 +36,18 @@ describe("next-auth's endpoints", () => {
   });
 
   it("a cookie-carrying POST from another site is a 403; the app's own form goes through", async () => {
-    const evil = proxy(post("/api/auth/signout", { cookie: "next-auth.session-token=s", origin: "http://127.0.0.1:8081", "content-length": "10" }));
+    const evil = proxy(
+      post("/api/auth/signout", {
+        cookie: "next-auth.session-token=s",
+        origin: "http://127.0.0.1:8081",
+        "content-length": "10",
+      }),
+    );
     expect(evil.status).toBe(403);
     expect(await messageOf(evil)).toContain("this request comes from another site (Origin http://127.0.0.1:8081)");
-    const own = proxy(post("/api/auth/signout", { cookie: "next-auth.session-token=s", origin: APP, "content-length": "10" }));
+    const own = proxy(
+      post("/api/auth/signout", { cookie: "next-auth.session-token=s", origin: APP, "content-length": "10" }),
+    );
     expect(own.headers.get("x-middleware-next")).toBe("1");
   });
 });

@@ -19,7 +19,13 @@ import { startReadout } from "@/lib/server/data/readouts";
 import { createSpecimen } from "@/lib/server/data/specimens";
 import { createStudy } from "@/lib/server/data/studies";
 import { storeUpload } from "@/lib/server/data/uploads";
-import { forgetRunnerStateForTest, INTERRUPTED_TWICE, RESTARTED_NOTE, stopJobs, waitForJob } from "@/lib/server/jobs/runner";
+import {
+  forgetRunnerStateForTest,
+  INTERRUPTED_TWICE,
+  RESTARTED_NOTE,
+  stopJobs,
+  waitForJob,
+} from "@/lib/server/jobs/runner";
 import { removeStaleJobFolders, STALE_AFTER_MS } from "@/lib/server/jobs/temp-folders";
 import { runStartupTasks } from "@/lib/server/startup";
 import { database, services } from "@/lib/server/services";
@@ -53,22 +59,57 @@ async function restartServer() {
 /** A job row as a killed process leaves it: "running", started, with some progress. */
 async function leftRunning(restarts: number) {
   const m = await database();
-  return m.Job.create({ labId: w.labId, kind: "echo", status: "running", startedAt: new Date(), progress: 0.4, progressNote: "step 4 of 10", payload: { ms: 50, value: "recovered" }, requestedBy: null, restarts });
+  return m.Job.create({
+    labId: w.labId,
+    kind: "echo",
+    status: "running",
+    startedAt: new Date(),
+    progress: 0.4,
+    progressNote: "step 4 of 10",
+    payload: { ms: 50, value: "recovered" },
+    requestedBy: null,
+    restarts,
+  });
 }
 
 /** An image readout whose job and row a killed process left "running", with a torn preview object. */
 async function readoutLeftRunning(restarts: number) {
   await stopJobs(); // so the readout's job does not start before we "kill" it
   const m = await database();
-  const study = await createStudy(ctx, { name: `Recovery ${Math.random().toString(36).slice(2, 7)}`, tissue: "skin", organism: "chick", description: null });
-  const specimen = await createSpecimen(ctx, study.id, { label: "R-1", condition: "control", stage: null, genotype: null, notes: null });
+  const study = await createStudy(ctx, {
+    name: `Recovery ${Math.random().toString(36).slice(2, 7)}`,
+    tissue: "skin",
+    organism: "chick",
+    description: null,
+  });
+  const specimen = await createSpecimen(ctx, study.id, {
+    label: "R-1",
+    condition: "control",
+    stage: null,
+    genotype: null,
+    notes: null,
+  });
   // Geometry is the source: stripes of period 16 px at 0.5 µm/px have λ = 8 µm.
-  const bytes = await encodePng(makeStripes({ width: 128, height: 128, wavelengthPx: 16, angleDeg: 0, noise: 0.05, seed: 3 }));
+  const bytes = await encodePng(
+    makeStripes({ width: 128, height: 128, wavelengthPx: 16, angleDeg: 0, noise: 0.05, seed: 3 }),
+  );
   const file = path.join(tmp, `stripes-${restarts}.png`);
   writeFileSync(file, bytes);
-  const upload = await storeUpload(ctx, specimen.id, { path: file, filename: "stripes.png", sizeBytes: bytes.length, sha256: createHash("sha256").update(bytes).digest("hex"), kind: "image", contentType: "image/png", pixelSizeUm: 0.5, pixelSizeSource: "uploader" });
+  const upload = await storeUpload(ctx, specimen.id, {
+    path: file,
+    filename: "stripes.png",
+    sizeBytes: bytes.length,
+    sha256: createHash("sha256").update(bytes).digest("hex"),
+    kind: "image",
+    contentType: "image/png",
+    pixelSizeUm: 0.5,
+    pixelSizeSource: "uploader",
+  });
   const readout = await startReadout(ctx, upload.id, {});
-  await m.Job.update({ status: "running", startedAt: new Date(), progress: 0.5, restarts }, { where: { id: readout.jobId! } });
+  await m.Job.update(
+    { status: "running", startedAt: new Date(), progress: 0.5, restarts },
+    { where: { id: readout.jobId! } },
+  );
   await m.Readout.update({ status: "running" }, { where: { id: readout.id } });
   const previewKey = readoutDerivedKey(w.labId, upload.id, readout.id, "preview.png");
   await services().store.put(previewKey, Buffer.from("torn"), { contentType: "image/png", contentLength: 4 });
@@ -84,7 +125,12 @@ describe("jobs after a server stop", () => {
     // Either still queued with the note, or already picked up again (the runner starts it at once).
     expect(after!.restarts).toBe(1);
     if (after!.status === "queued") expect(after!.progressNote).toBe(RESTARTED_NOTE);
-    expect(await waitForJob(job.id, 10_000)).toMatchObject({ status: "succeeded", restarts: 1, result: { echo: "recovered" }, error: null });
+    expect(await waitForJob(job.id, 10_000)).toMatchObject({
+      status: "succeeded",
+      restarts: 1,
+      result: { echo: "recovered" },
+      error: null,
+    });
   });
 
   it("a job interrupted a second time fails with the reason", async () => {
@@ -97,7 +143,13 @@ describe("jobs after a server stop", () => {
   it("a queued job starts at start-up without any new job being queued", async () => {
     await stopJobs();
     const m = await database();
-    const job = await m.Job.create({ labId: w.labId, kind: "echo", status: "queued", payload: { ms: 20, value: "waited" }, requestedBy: null });
+    const job = await m.Job.create({
+      labId: w.labId,
+      kind: "echo",
+      status: "queued",
+      payload: { ms: 20, value: "waited" },
+      requestedBy: null,
+    });
     forgetRunnerStateForTest();
     await runStartupTasks();
     expect(await waitForJob(job.id, 10_000)).toMatchObject({ status: "succeeded", result: { echo: "waited" } });
@@ -128,47 +180,76 @@ describe("jobs after a server stop", () => {
   it("a readout written before the kill, whose job row was not, makes its re-queued job succeed without reading again", async () => {
     const { readout } = await readoutLeftRunning(0);
     const m = await database();
-    await m.Readout.update({ status: "succeeded", wavelengthUm: 8.01, periodFound: true }, { where: { id: readout.id } });
+    await m.Readout.update(
+      { status: "succeeded", wavelengthUm: 8.01, periodFound: true },
+      { where: { id: readout.id } },
+    );
     await restartServer();
-    expect(await waitForJob(readout.jobId!, 10_000)).toMatchObject({ status: "succeeded", restarts: 1, result: { readoutId: readout.id, wavelengthUm: 8.01, periodFound: true } });
+    expect(await waitForJob(readout.jobId!, 10_000)).toMatchObject({
+      status: "succeeded",
+      restarts: 1,
+      result: { readoutId: readout.id, wavelengthUm: 8.01, periodFound: true },
+    });
     expect((await m.Readout.findByPk(readout.id))!.status).toBe("succeeded");
   });
 
-  it("a job of a process killed with SIGKILL mid-job is recovered and completes here", { timeout: 90_000 }, async () => {
-    await stopJobs(); // this process must not run the other process's job while it is alive
-    const m = await database();
-    let child: ChildProcess | undefined;
-    try {
-      child = spawn(process.execPath, ["--import", "tsx", "tests/support/job-child.ts", "--db", stack.services.config.databasePath, "--lab", w.labId, "--ms", "6000"], { cwd: process.cwd(), stdio: ["ignore", "pipe", "pipe"], env: { ...process.env, NODE_OPTIONS: "" } });
-      let stderr = "";
-      child.stderr!.on("data", (b: Buffer) => (stderr += b.toString()));
-      const jobId = await new Promise<string>((resolve, reject) => {
-        let out = "";
-        child!.stdout!.on("data", (b: Buffer) => {
-          out += b.toString();
-          if (out.includes("\n")) resolve(out.trim().split("\n")[0]);
+  it(
+    "a job of a process killed with SIGKILL mid-job is recovered and completes here",
+    { timeout: 90_000 },
+    async () => {
+      await stopJobs(); // this process must not run the other process's job while it is alive
+      const m = await database();
+      let child: ChildProcess | undefined;
+      try {
+        child = spawn(
+          process.execPath,
+          [
+            "--import",
+            "tsx",
+            "tests/support/job-child.ts",
+            "--db",
+            stack.services.config.databasePath,
+            "--lab",
+            w.labId,
+            "--ms",
+            "6000",
+          ],
+          { cwd: process.cwd(), stdio: ["ignore", "pipe", "pipe"], env: { ...process.env, NODE_OPTIONS: "" } },
+        );
+        let stderr = "";
+        child.stderr!.on("data", (b: Buffer) => (stderr += b.toString()));
+        const jobId = await new Promise<string>((resolve, reject) => {
+          let out = "";
+          child!.stdout!.on("data", (b: Buffer) => {
+            out += b.toString();
+            if (out.includes("\n")) resolve(out.trim().split("\n")[0]);
+          });
+          child!.on("exit", (code) => reject(new Error(`the job process exited (${code}) before queuing: ${stderr}`)));
         });
-        child!.on("exit", (code) => reject(new Error(`the job process exited (${code}) before queuing: ${stderr}`)));
-      });
-      // Poll for the job itself: running with progress, in the other process.
-      const until = Date.now() + 30_000;
-      for (;;) {
-        const j = await m.Job.findByPk(jobId);
-        if (j?.status === "running" && j.progress > 0) break;
-        if (Date.now() > until) throw new Error(`the job never ran in the other process (${j?.status}): ${stderr}`);
-        await new Promise((r) => setTimeout(r, 25));
+        // Poll for the job itself: running with progress, in the other process.
+        const until = Date.now() + 30_000;
+        for (;;) {
+          const j = await m.Job.findByPk(jobId);
+          if (j?.status === "running" && j.progress > 0) break;
+          if (Date.now() > until) throw new Error(`the job never ran in the other process (${j?.status}): ${stderr}`);
+          await new Promise((r) => setTimeout(r, 25));
+        }
+        const exited = new Promise((r) => child!.once("exit", r));
+        child.kill("SIGKILL");
+        await exited;
+        expect((await m.Job.findByPk(jobId))!.status).toBe("running"); // what the killed process left
+        forgetRunnerStateForTest();
+        await runStartupTasks();
+        expect(await waitForJob(jobId, 30_000)).toMatchObject({
+          status: "succeeded",
+          restarts: 1,
+          result: { echo: "from the killed process" },
+        });
+      } finally {
+        if (child && child.exitCode === null && child.signalCode === null) child.kill("SIGKILL");
       }
-      const exited = new Promise((r) => child!.once("exit", r));
-      child.kill("SIGKILL");
-      await exited;
-      expect((await m.Job.findByPk(jobId))!.status).toBe("running"); // what the killed process left
-      forgetRunnerStateForTest();
-      await runStartupTasks();
-      expect(await waitForJob(jobId, 30_000)).toMatchObject({ status: "succeeded", restarts: 1, result: { echo: "from the killed process" } });
-    } finally {
-      if (child && child.exitCode === null && child.signalCode === null) child.kill("SIGKILL");
-    }
-  });
+    },
+  );
 });
 
 describe("temporary folders of killed jobs", () => {
@@ -176,7 +257,9 @@ describe("temporary folders of killed jobs", () => {
     const root = mkdtempSync(path.join(tmpdir(), "morphokin-stale-test-"));
     try {
       const now = Date.now();
-      const old = path.join(root, "morphokin-run-old"), young = path.join(root, "morphokin-readout-young"), other = path.join(root, "something-else-old");
+      const old = path.join(root, "morphokin-run-old"),
+        young = path.join(root, "morphokin-readout-young"),
+        other = path.join(root, "something-else-old");
       for (const d of [old, young, other]) mkdirSync(d);
       writeFileSync(path.join(old, "RUN.json"), "{}");
       const aged = (now - STALE_AFTER_MS - 60_000) / 1000;

@@ -14,15 +14,29 @@ afterAll(async () => stack?.close());
 
 describe("jobs", () => {
   it("runs a job to success and stores its result", async () => {
-    const job = await enqueueJob({ labId: w.labId, kind: "echo", payload: { ms: 50, value: 42 }, requestedBy: w.people.scientist.userId });
+    const job = await enqueueJob({
+      labId: w.labId,
+      kind: "echo",
+      payload: { ms: 50, value: 42 },
+      requestedBy: w.people.scientist.userId,
+    });
     const done = await waitForJob(job.id);
     expect(done).toMatchObject({ status: "succeeded", progress: 1, result: { echo: 42 }, error: null });
     expect(Date.parse(done.finishedAt!)).toBeGreaterThanOrEqual(Date.parse(done.startedAt!));
   });
 
   it("records why a job failed", async () => {
-    const job = await enqueueJob({ labId: w.labId, kind: "echo", payload: { ms: 0, fail: "the kinetics has no Turing region" }, requestedBy: null });
-    expect(await waitForJob(job.id)).toMatchObject({ status: "failed", error: "the kinetics has no Turing region", result: null });
+    const job = await enqueueJob({
+      labId: w.labId,
+      kind: "echo",
+      payload: { ms: 0, fail: "the kinetics has no Turing region" },
+      requestedBy: null,
+    });
+    expect(await waitForJob(job.id)).toMatchObject({
+      status: "failed",
+      error: "the kinetics has no Turing region",
+      result: null,
+    });
   });
 
   it("cancels a running job and reports progress while it runs", async () => {

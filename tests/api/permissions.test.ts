@@ -16,7 +16,9 @@ import { study, type Case, type Who } from "./permission-cases/shared";
 
 const CASES: Record<string, Case> = {};
 const casesDir = path.join(import.meta.dirname, "permission-cases");
-for (const f of readdirSync(casesDir).filter((x) => x.endsWith(".ts") && x !== "shared.ts").sort()) {
+for (const f of readdirSync(casesDir)
+  .filter((x) => x.endsWith(".ts") && x !== "shared.ts")
+  .sort()) {
   const mod = (await import(path.join(casesDir, f))) as { cases: Record<string, Case> };
   for (const [k, v] of Object.entries(mod.cases)) {
     if (CASES[k]) throw new Error(`${k} is listed in two permission-case files`);
@@ -47,8 +49,15 @@ describe("permission matrix", () => {
       const got: Partial<Record<Who, number>> = {};
       for (const who of WHO) {
         const s = await c.setup(world, who);
-        const token = who === "anonymous" ? undefined : who === "outsider" ? world.outsider.token : world.people[who].token;
-        const res = await call(routes.get(key)!, method, path, { token, params: s.params, json: s.json, body: s.form, query: s.query });
+        const token =
+          who === "anonymous" ? undefined : who === "outsider" ? world.outsider.token : world.people[who].token;
+        const res = await call(routes.get(key)!, method, path, {
+          token,
+          params: s.params,
+          json: s.json,
+          body: s.form,
+          query: s.query,
+        });
         got[who] = res.status;
         if (process.env.DEBUG_MATRIX && res.status >= 400) console.log(key, who, await res.clone().text());
       }
@@ -60,14 +69,36 @@ describe("permission matrix", () => {
 
 describe("ownership", () => {
   it("a bench scientist may edit and delete their own study but not the manager's", async () => {
-    const own = await createStudy({ actor: world.people.scientist.actor, labId: world.labId, labName: "Test Lab", role: "scientist" }, { name: "Own", tissue: "skin", organism: "chick", description: null });
+    const own = await createStudy(
+      { actor: world.people.scientist.actor, labId: world.labId, labName: "Test Lab", role: "scientist" },
+      { name: "Own", tissue: "skin", organism: "chick", description: null },
+    );
     const patch = routes.get("PATCH /api/v1/labs/[labId]/studies/[studyId]")!;
     const del = routes.get("DELETE /api/v1/labs/[labId]/studies/[studyId]")!;
     const t = world.people.scientist.token;
-    expect((await call(patch, "PATCH", "/api/v1/labs/[labId]/studies/[studyId]", { token: t, params: { labId: world.labId, studyId: own.id }, json: { name: "Own renamed" } })).status).toBe(200);
-    expect((await call(del, "DELETE", "/api/v1/labs/[labId]/studies/[studyId]", { token: t, params: { labId: world.labId, studyId: own.id } })).status).toBe(204);
+    expect(
+      (
+        await call(patch, "PATCH", "/api/v1/labs/[labId]/studies/[studyId]", {
+          token: t,
+          params: { labId: world.labId, studyId: own.id },
+          json: { name: "Own renamed" },
+        })
+      ).status,
+    ).toBe(200);
+    expect(
+      (
+        await call(del, "DELETE", "/api/v1/labs/[labId]/studies/[studyId]", {
+          token: t,
+          params: { labId: world.labId, studyId: own.id },
+        })
+      ).status,
+    ).toBe(204);
     const theirs = await study(world);
-    const res = await call(patch, "PATCH", "/api/v1/labs/[labId]/studies/[studyId]", { token: t, params: { labId: world.labId, studyId: theirs.id }, json: { name: "x" } });
+    const res = await call(patch, "PATCH", "/api/v1/labs/[labId]/studies/[studyId]", {
+      token: t,
+      params: { labId: world.labId, studyId: theirs.id },
+      json: { name: "x" },
+    });
     expect(res.status).toBe(403);
     expect((await res.json()).error.message).toBe("only its creator or a lab manager may change or delete this");
   });
@@ -75,7 +106,10 @@ describe("ownership", () => {
   it("an id from another lab answers 404 even to that lab's manager when asked under this lab", async () => {
     const get = routes.get("GET /api/v1/labs/[labId]/studies/[studyId]")!;
     const s = await study(world);
-    const res = await call(get, "GET", "/api/v1/labs/[labId]/studies/[studyId]", { token: world.outsider.token, params: { labId: world.otherLabId, studyId: s.id } });
+    const res = await call(get, "GET", "/api/v1/labs/[labId]/studies/[studyId]", {
+      token: world.outsider.token,
+      params: { labId: world.otherLabId, studyId: s.id },
+    });
     expect(res.status).toBe(404);
   });
 });

@@ -17,7 +17,9 @@ describe("table readouts in a child process", () => {
     expect(r.table.spacingUm.mean).toBeCloseTo(10.25, 12);
 
     // 300 000 positions: the child needs far more than the 100 ms before the abort (tsx start-up alone is ~1 s).
-    const big = new TextEncoder().encode("position_um\n" + Array.from({ length: 300_000 }, (_, i) => String(10 * i)).join("\n") + "\n");
+    const big = new TextEncoder().encode(
+      "position_um\n" + Array.from({ length: 300_000 }, (_, i) => String(10 * i)).join("\n") + "\n",
+    );
     const controller = new AbortController();
     const started = Date.now();
     setTimeout(() => controller.abort(), 100);

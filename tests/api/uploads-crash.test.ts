@@ -30,19 +30,44 @@ let w: World;
 let specimenId: string;
 const children: ChildProcess[] = [];
 
-const ctxOf = () => ({ actor: w.people.scientist.actor, labId: w.labId, labName: "Test Lab", role: "scientist" as const });
+const ctxOf = () => ({
+  actor: w.people.scientist.actor,
+  labId: w.labId,
+  labName: "Test Lab",
+  role: "scientist" as const,
+});
 const tempRoot = () => uploadTempRoot(stack.services.config.dataDir);
 
 function startChild(mode: "slow-body" | "slow-put") {
   const c = stack.services.config;
-  const child = spawn(process.execPath, ["--import", "tsx", path.join(ROOT, "tests/support/upload-child.ts"), mode, w.labId, specimenId, w.people.scientist.token, String(PUT_BYTES)], {
-    cwd: ROOT,
-    stdio: ["ignore", "pipe", "pipe"],
-    env: {
-      ...process.env, NODE_OPTIONS: "", MORPHOKIN_DATA_DIR: c.dataDir, DATABASE_PATH: c.databasePath, MAX_UPLOAD_BYTES: String(4 * PUT_BYTES),
-      S3_ENDPOINT: c.s3.endpoint, S3_BUCKET: c.s3.bucket, SMTP_URL: c.smtp.url, JOB_CONCURRENCY: "1",
+  const child = spawn(
+    process.execPath,
+    [
+      "--import",
+      "tsx",
+      path.join(ROOT, "tests/support/upload-child.ts"),
+      mode,
+      w.labId,
+      specimenId,
+      w.people.scientist.token,
+      String(PUT_BYTES),
+    ],
+    {
+      cwd: ROOT,
+      stdio: ["ignore", "pipe", "pipe"],
+      env: {
+        ...process.env,
+        NODE_OPTIONS: "",
+        MORPHOKIN_DATA_DIR: c.dataDir,
+        DATABASE_PATH: c.databasePath,
+        MAX_UPLOAD_BYTES: String(4 * PUT_BYTES),
+        S3_ENDPOINT: c.s3.endpoint,
+        S3_BUCKET: c.s3.bucket,
+        SMTP_URL: c.smtp.url,
+        JOB_CONCURRENCY: "1",
+      },
     },
-  });
+  );
   children.push(child);
   const out = { text: "", err: "" };
   child.stdout!.on("data", (d: Buffer) => (out.text += d.toString()));
@@ -61,7 +86,11 @@ async function until(what: string, probe: () => Promise<boolean> | boolean, ms =
 }
 
 async function originalsInBucket(): Promise<Set<string>> {
-  return new Set((await stack.services.store.list(`labs/${w.labId}/uploads/`)).map((o) => o.key).filter((k) => k.endsWith("/original")));
+  return new Set(
+    (await stack.services.store.list(`labs/${w.labId}/uploads/`))
+      .map((o) => o.key)
+      .filter((k) => k.endsWith("/original")),
+  );
 }
 
 async function uploadRows() {
@@ -73,14 +102,34 @@ beforeAll(async () => {
   stack = await startTestStack();
   w = await makeWorld();
   await stopJobs(); // readouts stay queued; this test is about the upload's own writes
-  const study = await createStudy(ctxOf(), { name: "Crash study", tissue: "skin", organism: "chick", description: null });
-  specimenId = (await createSpecimen(ctxOf(), study.id, { label: "K-1", condition: "control", stage: null, genotype: null, notes: null })).id;
+  const study = await createStudy(ctxOf(), {
+    name: "Crash study",
+    tissue: "skin",
+    organism: "chick",
+    description: null,
+  });
+  specimenId = (
+    await createSpecimen(ctxOf(), study.id, {
+      label: "K-1",
+      condition: "control",
+      stage: null,
+      genotype: null,
+      notes: null,
+    })
+  ).id;
   // One finished upload, so "rows = objects" compares something.
   const routes = await discoverRoutes();
   const png = await encodePng(makeStripes({ width: 32, height: 32, wavelengthPx: 8, angleDeg: 0 }));
-  const res = await call(routes.get("POST /api/v1/labs/[labId]/specimens/[specimenId]/uploads")!, "POST", "/api/v1/labs/[labId]/specimens/[specimenId]/uploads", {
-    token: w.people.scientist.token, params: { labId: w.labId, specimenId }, body: multipart({ name: "kept.png", bytes: png }, { pixelSizeUm: "1" }),
-  });
+  const res = await call(
+    routes.get("POST /api/v1/labs/[labId]/specimens/[specimenId]/uploads")!,
+    "POST",
+    "/api/v1/labs/[labId]/specimens/[specimenId]/uploads",
+    {
+      token: w.people.scientist.token,
+      params: { labId: w.labId, specimenId },
+      body: multipart({ name: "kept.png", bytes: png }, { pixelSizeUm: "1" }),
+    },
+  );
   expect(res.status).toBe(201);
 }, 60_000);
 afterAll(async () => {
@@ -93,7 +142,9 @@ describe("an upload cut short by kill -9", () => {
     const { child, exited } = startChild("slow-body");
     await until("a temporary upload file with bytes in it", () => {
       if (!existsSync(tempRoot())) return false;
-      return readdirSync(tempRoot()).some((d) => readdirSync(path.join(tempRoot(), d)).some((f) => statSync(path.join(tempRoot(), d, f)).size > 0));
+      return readdirSync(tempRoot()).some((d) =>
+        readdirSync(path.join(tempRoot(), d)).some((f) => statSync(path.join(tempRoot(), d, f)).size > 0),
+      );
     });
     child.kill("SIGKILL");
     await exited; // reaped: its pid no longer runs
@@ -145,13 +196,21 @@ describe("an upload cut short in the server", () => {
     const body = new ReadableStream<Uint8Array>({
       pull(controller) {
         pulls++;
-        if (pulls === 1) controller.enqueue(new TextEncoder().encode(`--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="t.csv"\r\nContent-Type: text/csv\r\n\r\nx,y\n1,2\n`));
+        if (pulls === 1)
+          controller.enqueue(
+            new TextEncoder().encode(
+              `--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="t.csv"\r\nContent-Type: text/csv\r\n\r\nx,y\n1,2\n`,
+            ),
+          );
         else controller.error(new Error("the client went away")); // as Node reports an aborted request
       },
     });
     const request = new Request(`http://127.0.0.1:3999/api/v1/labs/${w.labId}/specimens/${specimenId}/uploads`, {
       method: "POST",
-      headers: { authorization: `Bearer ${w.people.scientist.token}`, "content-type": `multipart/form-data; boundary=${boundary}` },
+      headers: {
+        authorization: `Bearer ${w.people.scientist.token}`,
+        "content-type": `multipart/form-data; boundary=${boundary}`,
+      },
       body,
       duplex: "half",
     } as RequestInit);
@@ -175,12 +234,20 @@ describe("an upload cut short in the server", () => {
     };
     try {
       const png = await encodePng(makeStripes({ width: 32, height: 32, wavelengthPx: 8, angleDeg: 0 }));
-      const res = await (await handler())(
-        new Request(`http://127.0.0.1:3999/api/v1/labs/${w.labId}/specimens/${specimenId}/uploads`, { method: "POST", headers: { authorization: `Bearer ${w.people.scientist.token}` }, body: multipart({ name: "gone.png", bytes: png }, { pixelSizeUm: "1" }) }),
+      const res = await (
+        await handler()
+      )(
+        new Request(`http://127.0.0.1:3999/api/v1/labs/${w.labId}/specimens/${specimenId}/uploads`, {
+          method: "POST",
+          headers: { authorization: `Bearer ${w.people.scientist.token}` },
+          body: multipart({ name: "gone.png", bytes: png }, { pixelSizeUm: "1" }),
+        }),
         { params: Promise.resolve({ labId: w.labId, specimenId }) },
       );
       expect(res.status).toBe(503);
-      expect(((await res.json()) as { error: { message: string } }).error.message).toBe("storing the file took longer than the server waits for an upload, so it was discarded; try again");
+      expect(((await res.json()) as { error: { message: string } }).error.message).toBe(
+        "storing the file took longer than the server waits for an upload, so it was discarded; try again",
+      );
     } finally {
       store.put = put;
     }

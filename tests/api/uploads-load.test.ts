@@ -34,16 +34,28 @@ let routes: Awaited<ReturnType<typeof discoverRoutes>>;
 let specimenId: string;
 let png: Uint8Array;
 
-const ctxOf = () => ({ actor: w.people.scientist.actor, labId: w.labId, labName: "Test Lab", role: "scientist" as const });
+const ctxOf = () => ({
+  actor: w.people.scientist.actor,
+  labId: w.labId,
+  labName: "Test Lab",
+  role: "scientist" as const,
+});
 
 /** Keys under `prefix` in the test bucket, listed straight from the fake S3 (not through the app). */
 async function listKeys(prefix: string): Promise<string[]> {
   const s3 = stack.services.config.s3;
-  const client = new S3Client({ region: s3.region, endpoint: s3.endpoint, forcePathStyle: true, credentials: { accessKeyId: s3.accessKeyId, secretAccessKey: s3.secretAccessKey } });
+  const client = new S3Client({
+    region: s3.region,
+    endpoint: s3.endpoint,
+    forcePathStyle: true,
+    credentials: { accessKeyId: s3.accessKeyId, secretAccessKey: s3.secretAccessKey },
+  });
   const keys: string[] = [];
   let token: string | undefined;
   do {
-    const out = await client.send(new ListObjectsV2Command({ Bucket: s3.bucket, Prefix: prefix, ContinuationToken: token }));
+    const out = await client.send(
+      new ListObjectsV2Command({ Bucket: s3.bucket, Prefix: prefix, ContinuationToken: token }),
+    );
     keys.push(...(out.Contents ?? []).map((o) => o.Key!));
     token = out.NextContinuationToken;
   } while (token);
@@ -53,7 +65,9 @@ async function listKeys(prefix: string): Promise<string[]> {
 
 /** Temporary upload folders: ours under the data dir, and the system temp folder (where they were once kept). */
 const tempUploadFolders = () => [
-  ...(existsSync(uploadTempRoot(stack.services.config.dataDir)) ? readdirSync(uploadTempRoot(stack.services.config.dataDir)) : []),
+  ...(existsSync(uploadTempRoot(stack.services.config.dataDir))
+    ? readdirSync(uploadTempRoot(stack.services.config.dataDir))
+    : []),
   ...readdirSync(tmpdir()).filter((n) => n.startsWith("morphokin-upload-")),
 ];
 
@@ -61,8 +75,21 @@ beforeAll(async () => {
   stack = await startTestStack();
   w = await makeWorld();
   routes = await discoverRoutes();
-  const study = await createStudy(ctxOf(), { name: "Load study", tissue: "skin", organism: "chick", description: null });
-  specimenId = (await createSpecimen(ctxOf(), study.id, { label: "L-1", condition: "control", stage: null, genotype: null, notes: null })).id;
+  const study = await createStudy(ctxOf(), {
+    name: "Load study",
+    tissue: "skin",
+    organism: "chick",
+    description: null,
+  });
+  specimenId = (
+    await createSpecimen(ctxOf(), study.id, {
+      label: "L-1",
+      condition: "control",
+      stage: null,
+      genotype: null,
+      notes: null,
+    })
+  ).id;
   png = await encodePng(makeStripes({ width: 64, height: 64, wavelengthPx: 8, angleDeg: 0 }));
   // Readout jobs stay queued: this test is about the upload path, not the readouts' CPU.
   await stopJobs();
@@ -83,13 +110,20 @@ describe("uploads under load", () => {
           body: multipart({ name: `tile-${i}.png`, bytes: png }, { pixelSizeUm: "0.5" }),
         });
         const body = (await res.json()) as { error?: { message: string } };
-        return { status: res.status, ms: Date.now() - t0, retryAfter: res.headers.get("retry-after"), message: body.error?.message };
+        return {
+          status: res.status,
+          ms: Date.now() - t0,
+          retryAfter: res.headers.get("retry-after"),
+          message: body.error?.message,
+        };
       }),
     );
     const ms = answers.map((a) => a.ms).sort((a, b) => a - b);
     const statuses: Record<number, number> = {};
     for (const a of answers) statuses[a.status] = (statuses[a.status] ?? 0) + 1;
-    console.log(`uploads-load: ${CONCURRENT} in ${Date.now() - started} ms; statuses ${JSON.stringify(statuses)}; p50 ${ms[Math.floor(ms.length * 0.5)]} ms, p95 ${ms[Math.floor(ms.length * 0.95)]} ms, max ${ms.at(-1)} ms`);
+    console.log(
+      `uploads-load: ${CONCURRENT} in ${Date.now() - started} ms; statuses ${JSON.stringify(statuses)}; p50 ${ms[Math.floor(ms.length * 0.5)]} ms, p95 ${ms[Math.floor(ms.length * 0.95)]} ms, max ${ms.at(-1)} ms`,
+    );
 
     expect(answers.filter((a) => a.status !== 201 && a.status !== 503)).toEqual([]);
     for (const a of answers.filter((x) => x.status === 503)) {
@@ -124,11 +158,15 @@ describe("uploads under load", () => {
         body: multipart({ name: "tile.png", bytes: png }, { pixelSizeUm: "0.5" }),
       });
       const t0 = Date.now();
-      const res = await routes.get("POST /api/v1/labs/[labId]/specimens/[specimenId]/uploads")!(request, { params: Promise.resolve({ labId: w.labId, specimenId }) });
+      const res = await routes.get("POST /api/v1/labs/[labId]/specimens/[specimenId]/uploads")!(request, {
+        params: Promise.resolve({ labId: w.labId, specimenId }),
+      });
       expect(Date.now() - t0).toBeLessThan(1000); // at once, not after a wait (common practice, no source)
       expect(res.status).toBe(503);
       expect(Number(res.headers.get("retry-after"))).toBeGreaterThanOrEqual(1);
-      expect(((await res.json()) as { error: { message: string } }).error.message).toMatch(/^the server is busy \(it is receiving as many uploads as it can\); try again in \d+ s$/);
+      expect(((await res.json()) as { error: { message: string } }).error.message).toMatch(
+        /^the server is busy \(it is receiving as many uploads as it can\); try again in \d+ s$/,
+      );
       expect(request.bodyUsed).toBe(false);
     } finally {
       leave();
@@ -142,11 +180,20 @@ describe("upload input", () => {
     const form = multipart({ name: "a.png", bytes: png }, { pixelSizeUm: "0.5" });
     form.append("file", new Blob([png as Uint8Array<ArrayBuffer>], { type: "image/png" }), "b.png");
     const before = (await database()).Upload.unscoped().count();
-    const res = await call(routes.get("POST /api/v1/labs/[labId]/specimens/[specimenId]/uploads")!, "POST", "/api/v1/labs/[labId]/specimens/[specimenId]/uploads", {
-      token: w.people.scientist.token, params: { labId: w.labId, specimenId }, body: form,
-    });
+    const res = await call(
+      routes.get("POST /api/v1/labs/[labId]/specimens/[specimenId]/uploads")!,
+      "POST",
+      "/api/v1/labs/[labId]/specimens/[specimenId]/uploads",
+      {
+        token: w.people.scientist.token,
+        params: { labId: w.labId, specimenId },
+        body: form,
+      },
+    );
     expect(res.status).toBe(400);
-    expect(((await res.json()) as { error: { message: string } }).error.message).toBe("send one file per upload; this request had 2 files");
+    expect(((await res.json()) as { error: { message: string } }).error.message).toBe(
+      "send one file per upload; this request had 2 files",
+    );
     expect(await (await database()).Upload.unscoped().count()).toBe(await before);
     expect(readdirSync(uploadTempRoot(stack.services.config.dataDir))).toEqual([]);
   });

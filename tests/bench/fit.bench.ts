@@ -8,7 +8,12 @@ const B: Record<string, number> = { c0: 0.9, c1: 1.0, c2: 1.1, c3: 1.2 };
 
 export default async function bench(): Promise<BenchRow[]> {
   const schnak = createKineticsPredictor(getCatalogueKinetics("schnakenberg"), { lengthScaleUm: 10 });
-  const data = Object.keys(B).map((c) => ({ condition: c, wavelengthUm: schnak({ gamma: 1, a: 0.1, d: 20, b: B[c] }, c, undefined)!.wavelengthUm * 1.01, uncertaintyUm: 1, kind: "fourier" as const }));
+  const data = Object.keys(B).map((c) => ({
+    condition: c,
+    wavelengthUm: schnak({ gamma: 1, a: 0.1, d: 20, b: B[c] }, c, undefined)!.wavelengthUm * 1.01,
+    uncertaintyUm: 1,
+    kind: "fourier" as const,
+  }));
   const three: Record<string, ParameterSetting> = {
     gamma: { mode: "free", start: 2, lower: 0.1, upper: 10, log: true },
     a: { mode: "free", start: 0.2, lower: 0.01, upper: 0.5 },
@@ -36,7 +41,19 @@ export default async function bench(): Promise<BenchRow[]> {
   ] as const) {
     const pred = createKineticsPredictor(getCatalogueKinetics(id), { lengthScaleUm: 10 });
     try {
-      fits.push({ label: id, result: fitWavelengths({ data: compareData, parameters: { [name]: { mode: "per-condition", start, lower, upper, log: name === "gamma" } as ParameterSetting }, options: { profiles: false } }, pred) });
+      fits.push({
+        label: id,
+        result: fitWavelengths(
+          {
+            data: compareData,
+            parameters: {
+              [name]: { mode: "per-condition", start, lower, upper, log: name === "gamma" } as ParameterSetting,
+            },
+            options: { profiles: false },
+          },
+          pred,
+        ),
+      });
     } catch {
       // A kinetics whose box has no Turing region is reported by the app before any job; here it just drops out.
     }
@@ -54,7 +71,13 @@ export default async function bench(): Promise<BenchRow[]> {
   return [
     { name: "fit: 3 free parameters, 4 conditions, with profiles", value: single, unit: "ms", target: "< 1000 ms" },
     { name: "fit: 3 free parameters, 4 conditions, no profiles", value: singleNoProfiles, unit: "ms" },
-    { name: "compare: 6 catalogue kinetics (scale parameter free per condition)", value: comparison, unit: "ms", target: "< 5000 ms", note: `${compared} of 6 kinetics fitted` },
+    {
+      name: "compare: 6 catalogue kinetics (scale parameter free per condition)",
+      value: comparison,
+      unit: "ms",
+      target: "< 5000 ms",
+      note: `${compared} of 6 kinetics fitted`,
+    },
     { name: "predictor: one call, fast path (2 species, diagonal D)", value: perCall(schnak, 20000), unit: "µs" },
     { name: "predictor: one call, general path (computeDispersion)", value: perCall(general, 2000), unit: "µs" },
   ];

@@ -13,7 +13,10 @@ import { makeHexSpots } from "../../lib/synthetic";
 export default async function bench(): Promise<BenchRow[]> {
   const side = 4096;
   let t = performance.now();
-  const tiff = await encodeTiff16(makeHexSpots({ width: side, height: side, spacingPx: 24, angleDeg: 12, jitterPx: 1, noise: 0.05, seed: 3 }), { pixelSizeUm: 0.5 });
+  const tiff = await encodeTiff16(
+    makeHexSpots({ width: side, height: side, spacingPx: 24, angleDeg: 12, jitterPx: 1, noise: 0.05, seed: 3 }),
+    { pixelSizeUm: 0.5 },
+  );
   const generateS = (performance.now() - t) / 1000;
   const rssBefore = process.resourceUsage().maxRSS / 1024;
 
@@ -28,7 +31,12 @@ export default async function bench(): Promise<BenchRow[]> {
   const fullS = (performance.now() - t) / 1000;
   const peakRssMiB = process.resourceUsage().maxRSS / 1024;
   // How long the server's event loop is held by one readout job of this image, in-process and in a child process.
-  const settings = { ...imageReadoutSettingsSchema.parse({}), kind: "image" as const, pixelSizeUm: 0.5, pixelSizeSource: "bench" };
+  const settings = {
+    ...imageReadoutSettingsSchema.parse({}),
+    kind: "image" as const,
+    pixelSizeUm: 0.5,
+    pixelSizeSource: "bench",
+  };
   const stall: Record<string, { maxMs: number; wallS: number }> = {};
   for (const mode of ["in-process", "child-process"] as const) {
     process.env.READOUT_IN_PROCESS = mode === "in-process" ? "1" : "0";
@@ -49,11 +57,37 @@ export default async function bench(): Promise<BenchRow[]> {
     { name: "readout: core (ROI, flatten, window, FFT, radial, peak)", value: coreS, unit: "s" },
     { name: "readout: decode + core", value: decodeS + coreS, unit: "s", target: "< 2 s" },
     { name: "readout: full (+ 9 sub-regions, autocorrelation)", value: fullS, unit: "s", note },
-    { name: "readout job 4096², in-process: longest event-loop stall", value: stall["in-process"].maxMs, unit: "ms", note: `wall ${stall["in-process"].wallS.toFixed(2)} s` },
-    { name: "readout job 4096², child process: longest event-loop stall", value: stall["child-process"].maxMs, unit: "ms", note: `wall ${stall["child-process"].wallS.toFixed(2)} s (used by the server)` },
-    { name: "table readout job 10⁶ rows, in-process: longest event-loop stall", value: table["in-process"].maxMs, unit: "ms", note: `wall ${table["in-process"].wallS.toFixed(2)} s; ${table.note}` },
-    { name: "table readout job 10⁶ rows, child process: longest event-loop stall", value: table["child-process"].maxMs, unit: "ms", note: `wall ${table["child-process"].wallS.toFixed(2)} s (used by the server)` },
-    { name: "readout: peak RSS (whole process)", value: peakRssMiB, unit: "MiB", target: "< 1024 MiB", note: `${rssBefore.toFixed(0)} MiB after setup` },
+    {
+      name: "readout job 4096², in-process: longest event-loop stall",
+      value: stall["in-process"].maxMs,
+      unit: "ms",
+      note: `wall ${stall["in-process"].wallS.toFixed(2)} s`,
+    },
+    {
+      name: "readout job 4096², child process: longest event-loop stall",
+      value: stall["child-process"].maxMs,
+      unit: "ms",
+      note: `wall ${stall["child-process"].wallS.toFixed(2)} s (used by the server)`,
+    },
+    {
+      name: "table readout job 10⁶ rows, in-process: longest event-loop stall",
+      value: table["in-process"].maxMs,
+      unit: "ms",
+      note: `wall ${table["in-process"].wallS.toFixed(2)} s; ${table.note}`,
+    },
+    {
+      name: "table readout job 10⁶ rows, child process: longest event-loop stall",
+      value: table["child-process"].maxMs,
+      unit: "ms",
+      note: `wall ${table["child-process"].wallS.toFixed(2)} s (used by the server)`,
+    },
+    {
+      name: "readout: peak RSS (whole process)",
+      value: peakRssMiB,
+      unit: "MiB",
+      target: "< 1024 MiB",
+      note: `${rssBefore.toFixed(0)} MiB after setup`,
+    },
   ];
 }
 
@@ -66,10 +100,14 @@ export async function tableStall() {
   const lines = ["x_um,y_um"];
   let seed = 7;
   const jitter = () => ((seed = (seed * 1103515245 + 12345) % 2147483648) / 2147483648 - 0.5) * 0.5;
-  for (let i = 0; i < side; i++) for (let j = 0; j < side; j++) lines.push(`${(10 * i + jitter()).toFixed(3)},${(10 * j + jitter()).toFixed(3)}`);
+  for (let i = 0; i < side; i++)
+    for (let j = 0; j < side; j++) lines.push(`${(10 * i + jitter()).toFixed(3)},${(10 * j + jitter()).toFixed(3)}`);
   const csv = new TextEncoder().encode(lines.join("\n") + "\n");
   const settings = { kind: "table" as const, pixelSizeUm: null, pixelSizeSource: null };
-  const out: Record<"in-process" | "child-process", { maxMs: number; wallS: number }> = { "in-process": { maxMs: 0, wallS: 0 }, "child-process": { maxMs: 0, wallS: 0 } };
+  const out: Record<"in-process" | "child-process", { maxMs: number; wallS: number }> = {
+    "in-process": { maxMs: 0, wallS: 0 },
+    "child-process": { maxMs: 0, wallS: 0 },
+  };
   let note = "";
   // Child first: the in-process run leaves a large heap whose collection would be counted against the child.
   for (const mode of ["child-process", "in-process"] as const) {
@@ -85,7 +123,8 @@ export async function tableStall() {
     await new Promise((resolve) => setTimeout(resolve, 50));
     h.disable();
     out[mode] = { maxMs: h.max / 1e6, wallS };
-    if (r.table.kind === "centroids-2d") note = `${(csv.length / 2 ** 20).toFixed(0)} MiB, NN mean ${r.table.nearestNeighbourUm.mean.toFixed(3)} µm (lattice 10 µm)`;
+    if (r.table.kind === "centroids-2d")
+      note = `${(csv.length / 2 ** 20).toFixed(0)} MiB, NN mean ${r.table.nearestNeighbourUm.mean.toFixed(3)} µm (lattice 10 µm)`;
   }
   delete process.env.READOUT_IN_PROCESS;
   return { ...out, note };

@@ -30,7 +30,15 @@ async function main() {
   const fmt = (v: number) => (Math.abs(v) >= 100 ? v.toFixed(0) : Math.abs(v) >= 1 ? v.toFixed(2) : v.toPrecision(3));
   console.log(["benchmark".padEnd(58), "value".padStart(12), "unit".padEnd(12), "target"].join(" "));
   for (const r of rows) {
-    console.log([r.name.padEnd(58), fmt(r.value).padStart(12), r.unit.padEnd(12), r.target ?? "", r.note ? `(${r.note})` : ""].join(" "));
+    console.log(
+      [
+        r.name.padEnd(58),
+        fmt(r.value).padStart(12),
+        r.unit.padEnd(12),
+        r.target ?? "",
+        r.note ? `(${r.note})` : "",
+      ].join(" "),
+    );
   }
 }
 

@@ -33,12 +33,18 @@ function havePython(): boolean {
   if (probe()) return true;
   if (process.getuid?.() !== 0) return false;
   process.stderr.write("side-by-side: installing Debian's python3-numpy and python3-tifffile …\n");
-  spawnSync("apt-get", ["install", "-y", "-qq", "python3-numpy", "python3-tifffile"], { stdio: "ignore", env: { ...process.env, DEBIAN_FRONTEND: "noninteractive" } });
+  spawnSync("apt-get", ["install", "-y", "-qq", "python3-numpy", "python3-tifffile"], {
+    stdio: "ignore",
+    env: { ...process.env, DEBIAN_FRONTEND: "noninteractive" },
+  });
   return probe();
 }
 
 function numpy(...args: string[]): NumpyFigure {
-  const r = spawnSync(PYTHON, [path.join(SHARED_BENCH, "numpy_reference.py"), WORK, ...args], { encoding: "utf8", maxBuffer: 1 << 20 });
+  const r = spawnSync(PYTHON, [path.join(SHARED_BENCH, "numpy_reference.py"), WORK, ...args], {
+    encoding: "utf8",
+    maxBuffer: 1 << 20,
+  });
   if (r.status !== 0) throw new Error(`numpy_reference.py ${args.join(" ")} failed: ${r.stderr}`);
   return JSON.parse(r.stdout.trim().split("\n").pop()!) as NumpyFigure;
 }
@@ -57,12 +63,16 @@ async function medianMs<T>(fn: () => T | Promise<T>): Promise<{ ms: number; min:
 }
 
 const ratioRow = (name: string, ms: number, np: NumpyFigure | null, goal: string, note: string): BenchRow =>
-  np ? { name, value: ms / (np.median * 1000), unit: "× numpy", target: goal, note } : { name, value: ms, unit: "ms", target: goal, note: `${note}; no numpy here, Morphokin alone` };
+  np
+    ? { name, value: ms / (np.median * 1000), unit: "× numpy", target: goal, note }
+    : { name, value: ms, unit: "ms", target: goal, note: `${note}; no numpy here, Morphokin alone` };
 
 /** The numpy script's map box: Schnakenberg d = 30, a ∈ [0.02, 0.4] × b ∈ [0.4, 2.0], 500 × 500 cells, 200 wavenumbers. */
 const MAP: TuringMapOptions = {
-  x: { name: "a", min: 0.02, max: 0.4, n: 500 }, y: { name: "b", min: 0.4, max: 2.0, n: 500 },
-  parameters: { gamma: 1, d: 30 }, wavenumbers: 200,
+  x: { name: "a", min: 0.02, max: 0.4, n: 500 },
+  y: { name: "b", min: 0.4, max: 2.0, n: 500 },
+  parameters: { gamma: 1, d: 30 },
+  wavenumbers: 200,
 };
 
 async function mapRows(np: NumpyFigure | null): Promise<BenchRow[]> {
@@ -71,14 +81,23 @@ async function mapRows(np: NumpyFigure | null): Promise<BenchRow[]> {
   const pool = await createMapWorkerPool(2);
   const two = await medianMs(() => computeTuringMapParallel({ catalogue: "schnakenberg" }, MAP, { pool }));
   await pool.close();
-  const c = one.value.counts, cells = 500 * 500;
+  const c = one.value.counts,
+    cells = 500 * 500;
   // numpy's figure is the fraction with any growth (σ_max > 0 somewhere on k ∈ [0, 2]), k = 0 included.
   const anyGrowth = (cells - c.stable - c["no-steady-state"] - c.invalid) / cells;
-  const npNote = np ? `numpy ${(np.median * 1000).toFixed(0)} ms (${(np.min * 1000).toFixed(0)}–${(np.max * 1000).toFixed(0)}), any growth ${Number(np.turingFraction).toFixed(6)}` : "";
+  const npNote = np
+    ? `numpy ${(np.median * 1000).toFixed(0)} ms (${(np.min * 1000).toFixed(0)}–${(np.max * 1000).toFixed(0)}), any growth ${Number(np.turingFraction).toFixed(6)}`
+    : "";
   const ours = `Morphokin ${one.ms.toFixed(0)} ms (${one.min.toFixed(0)}–${one.max.toFixed(0)}), any growth ${anyGrowth.toFixed(6)}, Turing ${one.value.turingFraction.toFixed(6)}`;
   return [
     ratioRow("side by side: Turing map 500×500×200, 1 thread", one.ms, np, "≤ 0.6", `${ours}; ${npNote}`),
-    ratioRow("side by side: Turing map 500×500×200, 2 workers", two.ms, np, "≤ 0.33", `Morphokin ${two.ms.toFixed(0)} ms (${two.min.toFixed(0)}–${two.max.toFixed(0)})`),
+    ratioRow(
+      "side by side: Turing map 500×500×200, 2 workers",
+      two.ms,
+      np,
+      "≤ 0.33",
+      `Morphokin ${two.ms.toFixed(0)} ms (${two.min.toFixed(0)}–${two.max.toFixed(0)})`,
+    ),
   ];
 }
 
@@ -93,17 +112,31 @@ async function readoutRows(np: NumpyFigure | null): Promise<BenchRow[]> {
   const r = await medianMs(run);
   const got = r.value.periodFound ? `λ = ${r.value.wavelengthPx!.toFixed(3)} px` : "no significant period";
   const npNote = np ? `numpy ${(np.median * 1000).toFixed(0)} ms, λ = ${Number(np.wavelengthPx).toFixed(3)} px` : "";
-  return [ratioRow("side by side: decode + core readout 4096² (true λ 32 px)", r.ms, np, "≤ 0.75, 32 px ± 2 %", `Morphokin ${r.ms.toFixed(0)} ms, ${got}; ${npNote}`)];
+  return [
+    ratioRow(
+      "side by side: decode + core readout 4096² (true λ 32 px)",
+      r.ms,
+      np,
+      "≤ 0.75, 32 px ± 2 %",
+      `Morphokin ${r.ms.toFixed(0)} ms, ${got}; ${npNote}`,
+    ),
+  ];
 }
 
 export default async function bench(): Promise<BenchRow[]> {
   mkdirSync(WORK, { recursive: true });
   const python = existsSync(SHARED_BENCH) && havePython();
-  if (!python) process.stderr.write("side-by-side: no python3 with numpy and tifffile (or no ../shared/bench): Morphokin's figures alone\n");
-  if (python && !existsSync(path.join(WORK, "img4096.tif"))) spawnSync(PYTHON, [path.join(SHARED_BENCH, "make_frame.py"), WORK], { stdio: "ignore" });
+  if (!python)
+    process.stderr.write(
+      "side-by-side: no python3 with numpy and tifffile (or no ../shared/bench): Morphokin's figures alone\n",
+    );
+  if (python && !existsSync(path.join(WORK, "img4096.tif")))
+    spawnSync(PYTHON, [path.join(SHARED_BENCH, "make_frame.py"), WORK], { stdio: "ignore" });
   const rows: BenchRow[] = [];
   rows.push(...(await mapRows(python ? numpy("map", String(REPS)) : null)));
   rows.push(...(await readoutRows(python ? numpy("readout", String(REPS)) : null)));
-  process.stderr.write("side-by-side: the verification run (numpy_reference.py sim 0 128 64 2000) is not compared yet: Morphokin's solver has zero-flux boundaries, the numpy script a periodic grid\n");
+  process.stderr.write(
+    "side-by-side: the verification run (numpy_reference.py sim 0 128 64 2000) is not compared yet: Morphokin's solver has zero-flux boundaries, the numpy script a periodic grid\n",
+  );
   return rows;
 }

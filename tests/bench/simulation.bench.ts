@@ -6,7 +6,15 @@
  * steps are timed; the 10 000-step figure is extrapolated unless SIM_BENCH_STEPS=10000.
  */
 import FFT from "fft.js";
-import { DctPlan, createCosineBasis, createGrid, schnakenbergReaction, schnakenbergSteadyState, simulateReactionDiffusion, type SimulationOptions } from "@/lib/simulation";
+import {
+  DctPlan,
+  createCosineBasis,
+  createGrid,
+  schnakenbergReaction,
+  schnakenbergSteadyState,
+  simulateReactionDiffusion,
+  type SimulationOptions,
+} from "@/lib/simulation";
 import { createWorkerExecutor } from "@/lib/simulation/parallel/worker-executor";
 import type { BenchRow } from "./run";
 
@@ -29,25 +37,38 @@ function dctVariants(): BenchRow[] {
   const data = Float64Array.from({ length: N * rows }, (_, i) => Math.sin(i * 0.37));
   const out = new Float64Array(N * rows);
   const plan = new DctPlan(N);
-  const f = new FFT(N), f2 = new FFT(2 * N);
-  const v = new Float64Array(N), V = f.createComplexArray(), e = new Float64Array(2 * N), E = f2.createComplexArray();
+  const f = new FFT(N),
+    f2 = new FFT(2 * N);
+  const v = new Float64Array(N),
+    V = f.createComplexArray(),
+    e = new Float64Array(2 * N),
+    E = f2.createComplexArray();
   const c1 = Float64Array.from({ length: N }, (_, k) => Math.cos((Math.PI * k) / (2 * N)));
   const s1 = Float64Array.from({ length: N }, (_, k) => Math.sin((Math.PI * k) / (2 * N)));
   // Makhoul with fft.js realTransform (one row per transform; half spectrum, the rest by symmetry).
   const makhoulReal = () => {
     for (let r = 0; r < rows; r++) {
       const o = r * N;
-      for (let n = 0; n < N / 2; n++) { v[n] = data[o + 2 * n]; v[N - 1 - n] = data[o + 2 * n + 1]; }
+      for (let n = 0; n < N / 2; n++) {
+        v[n] = data[o + 2 * n];
+        v[N - 1 - n] = data[o + 2 * n + 1];
+      }
       f.realTransform(V, v);
       for (let k = 0; k <= N / 2; k++) out[o + k] = c1[k] * V[2 * k] + s1[k] * V[2 * k + 1];
-      for (let k = N / 2 + 1; k < N; k++) { const m = N - k; out[o + k] = c1[k] * V[2 * m] - s1[k] * V[2 * m + 1]; }
+      for (let k = N / 2 + 1; k < N; k++) {
+        const m = N - k;
+        out[o + k] = c1[k] * V[2 * m] - s1[k] * V[2 * m + 1];
+      }
     }
   };
   // 2N even extension with realTransform of length 2N: X_k = ½ Re(e^{−iπk/2N} Y_k).
   const extension = () => {
     for (let r = 0; r < rows; r++) {
       const o = r * N;
-      for (let n = 0; n < N; n++) { e[n] = data[o + n]; e[2 * N - 1 - n] = data[o + n]; }
+      for (let n = 0; n < N; n++) {
+        e[n] = data[o + n];
+        e[2 * N - 1 - n] = data[o + n];
+      }
       f2.realTransform(E, e);
       for (let k = 0; k < N; k++) out[o + k] = 0.5 * (c1[k] * E[2 * k] + s1[k] * E[2 * k + 1]);
     }
@@ -55,7 +76,8 @@ function dctVariants(): BenchRow[] {
   const pair = () => plan.forwardRows(data, out, rows);
   const inversePair = () => plan.inverseRows(out, data, rows);
   // The bare complex FFT of a row pair, on fft.js's own arrays as DctPlan uses them.
-  const za = f.createComplexArray(), Za = f.createComplexArray();
+  const za = f.createComplexArray(),
+    Za = f.createComplexArray();
   for (let i = 0; i < za.length; i++) za[i] = Math.sin(i * 0.37);
   const bare = () => {
     for (let r = 0; r < rows; r += 2) f.transform(Za, za);
@@ -75,25 +97,50 @@ function basisRow(): BenchRow {
   const basis = createCosineBasis(grid);
   const x = Float64Array.from({ length: grid.cellCount }, (_, i) => Math.sin(i * 0.11));
   const y = new Float64Array(x.length);
-  return { name: "2-D cosine basis 256²: forward + inverse", value: timeMs(() => { basis.forward(x, y); basis.inverse(y, x); }, 40), unit: "ms" };
+  return {
+    name: "2-D cosine basis 256²: forward + inverse",
+    value: timeMs(() => {
+      basis.forward(x, y);
+      basis.inverse(y, x);
+    }, 40),
+    unit: "ms",
+  };
 }
 
 function stepRows(): BenchRow[] {
   const steps = Number(process.env.SIM_BENCH_STEPS ?? 1000);
   const [us, vs] = schnakenbergSteadyState(0.1, 0.9);
   const options: SimulationOptions = {
-    grid: { lengthUm: [100, 100], cells: [N, N] }, diffusionUm2PerS: [1, 40], params: { a: 0.1, b: 0.9, gamma: 1 },
-    initial: { kind: "steady-state-noise", steadyState: [us, vs], seed: "bench" }, endTimeS: steps * 0.1, dtS: 0.1,
+    grid: { lengthUm: [100, 100], cells: [N, N] },
+    diffusionUm2PerS: [1, 40],
+    params: { a: 0.1, b: 0.9, gamma: 1 },
+    initial: { kind: "steady-state-noise", steadyState: [us, vs], seed: "bench" },
+    endTimeS: steps * 0.1,
+    dtS: 0.1,
   };
   const rows: BenchRow[] = [];
-  for (const [label, parallel] of [["serial", false], ["1 worker + main thread", true]] as const) {
+  for (const [label, parallel] of [
+    ["serial", false],
+    ["1 worker + main thread", true],
+  ] as const) {
     const executor = parallel ? createWorkerExecutor({ workers: 1 }) : undefined;
     const t = performance.now();
     const r = simulateReactionDiffusion(schnakenbergReaction, { ...options, executor });
     const s = (performance.now() - t) / 1000;
     executor?.dispose();
-    rows.push({ name: `256² Schnakenberg ETD2, ${label}`, value: r.steps / s, unit: "steps/s", note: `${r.steps} steps timed` });
-    rows.push({ name: `256² Schnakenberg ETD2, ${label}: 10 000 steps`, value: (10_000 / r.steps) * s, unit: "s", target: "< 10 s", note: steps === 10_000 ? "measured" : "extrapolated" });
+    rows.push({
+      name: `256² Schnakenberg ETD2, ${label}`,
+      value: r.steps / s,
+      unit: "steps/s",
+      note: `${r.steps} steps timed`,
+    });
+    rows.push({
+      name: `256² Schnakenberg ETD2, ${label}: 10 000 steps`,
+      value: (10_000 / r.steps) * s,
+      unit: "s",
+      target: "< 10 s",
+      note: steps === 10_000 ? "measured" : "extrapolated",
+    });
   }
   return rows;
 }

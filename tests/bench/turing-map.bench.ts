@@ -28,9 +28,25 @@ export default async function bench(): Promise<BenchRow[]> {
   const warmMs = performance.now() - t;
   await pool.close();
   return [
-    { name: "turing map 500×500×200 k, Schnakenberg, 1 thread", value: local, unit: "ms", note: `${(CELLS / local).toFixed(0)}k cells/s` },
-    { name: "turing map 500×500×200 k, 2 workers incl. start", value: coldMs, unit: "ms", note: `${cold.workers} workers` },
+    {
+      name: "turing map 500×500×200 k, Schnakenberg, 1 thread",
+      value: local,
+      unit: "ms",
+      note: `${(CELLS / local).toFixed(0)}k cells/s`,
+    },
+    {
+      name: "turing map 500×500×200 k, 2 workers incl. start",
+      value: coldMs,
+      unit: "ms",
+      note: `${cold.workers} workers`,
+    },
     { name: "turing map cells/s, 2 workers (pool warm)", value: (CELLS / warmMs) * 1e3, unit: "cells/s" },
-    { name: "turing map 500×500×200 k, 2 workers (pool warm)", value: warmMs, unit: "ms", target: "< 1000 ms", note: `${(CELLS / warmMs).toFixed(0)}k cells/s, ${warm.workers} workers` },
+    {
+      name: "turing map 500×500×200 k, 2 workers (pool warm)",
+      value: warmMs,
+      unit: "ms",
+      target: "< 1000 ms",
+      note: `${(CELLS / warmMs).toFixed(0)}k cells/s, ${warm.workers} workers`,
+    },
   ];
 }

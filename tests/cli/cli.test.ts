@@ -13,7 +13,11 @@ import { makeStripes } from "@/lib/synthetic";
 
 const run = promisify(execFile);
 const ROOT = path.resolve(import.meta.dirname, "../..");
-const cli = (args: string[]) => run(process.execPath, ["--import", "tsx", path.join(ROOT, "lib/cli/main.ts"), ...args], { cwd: ROOT, timeout: 60_000 });
+const cli = (args: string[]) =>
+  run(process.execPath, ["--import", "tsx", path.join(ROOT, "lib/cli/main.ts"), ...args], {
+    cwd: ROOT,
+    timeout: 60_000,
+  });
 
 let dir: string;
 beforeAll(() => {
@@ -30,7 +34,10 @@ describe("cli", () => {
   it("readout --json prints one JSON object with the wavelength in µm", async () => {
     // 16 px stripes at 0.5 µm/px: λ = 8 µm by construction (geometry of the generated pattern).
     const file = path.join(dir, "stripes.png");
-    writeFileSync(file, await encodePng(makeStripes({ width: 256, height: 256, wavelengthPx: 16, angleDeg: 30, seed: 3 })));
+    writeFileSync(
+      file,
+      await encodePng(makeStripes({ width: 256, height: 256, wavelengthPx: 16, angleDeg: 30, seed: 3 })),
+    );
     const { stdout, stderr } = await cli(["readout", file, "--pixel-size", "0.5", "--json"]);
     const lines = stdout.trim().split("\n");
     expect(lines).toHaveLength(1);
@@ -41,7 +48,9 @@ describe("cli", () => {
   });
 
   it("an error goes to stderr as JSON with a non-zero exit code", async () => {
-    const err = await cli(["readout", path.join(dir, "missing.png"), "--json"]).catch((e) => e as { code: number; stdout: string; stderr: string });
+    const err = await cli(["readout", path.join(dir, "missing.png"), "--json"]).catch(
+      (e) => e as { code: number; stdout: string; stderr: string },
+    );
     expect((err as { code: number }).code).not.toBe(0);
     expect((err as { stdout: string }).stdout).toBe("");
     const parsed = JSON.parse((err as { stderr: string }).stderr.trim().split("\n").pop()!);

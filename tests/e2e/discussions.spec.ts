@@ -18,16 +18,24 @@ function threadOnDashboard(page: Page, text: string) {
   return page.getByTestId("open-discussion").filter({ hasText: text });
 }
 
-test("collaborator asks about a readout, the scientist is e-mailed and replies, the collaborator resolves", async ({ page, browser }) => {
+test("collaborator asks about a readout, the scientist is e-mailed and replies, the collaborator resolves", async ({
+  page,
+  browser,
+}) => {
   const labId = await signIn(page, DEMO.collaborator.email);
-  const readouts = await (await page.request.get(`/api/v1/labs/${labId}/readouts?pageSize=1&sort=createdAt&dir=asc`)).json();
+  const readouts = await (
+    await page.request.get(`/api/v1/labs/${labId}/readouts?pageSize=1&sort=createdAt&dir=asc`)
+  ).json();
   const readout = readouts.items[0] as { id: string; filename: string };
   expect(readout).toBeDefined();
 
   const question = unique("Is the spacing narrower near the midline");
   const seenByScientist = await mailIds(DEMO.scientist.email);
   // Sent as the page's own fetch would be: with the session cookie and the app's Origin (CSRF check).
-  const started = await page.request.post(`/api/v1/labs/${labId}/threads`, { headers: { origin: BASE_URL }, data: { targetType: "readout", targetId: readout.id, body: `@${DEMO.scientist.email} ${question}?` } });
+  const started = await page.request.post(`/api/v1/labs/${labId}/threads`, {
+    headers: { origin: BASE_URL },
+    data: { targetType: "readout", targetId: readout.id, body: `@${DEMO.scientist.email} ${question}?` },
+  });
   expect(started.status()).toBe(201);
   expect(await started.json()).toMatchObject({ notified: true, recipients: 1 });
 
@@ -58,14 +66,21 @@ test("collaborator asks about a readout, the scientist is e-mailed and replies, 
   const replyBox = thread.getByTestId("reply-box-text");
   await replyBox.pressSequentially("Thanks @Sam");
   await expect(sp.getByTestId("mention-hint")).toContainText(COLLABORATOR_NAME);
-  await sp.getByTestId("mention-hint").getByRole("button", { name: new RegExp(COLLABORATOR_NAME) }).click();
+  await sp
+    .getByTestId("mention-hint")
+    .getByRole("button", { name: new RegExp(COLLABORATOR_NAME) })
+    .click();
   await replyBox.pressSequentially("it is 38 µm in the control, 31 µm under the inhibitor.");
-  await expect(replyBox).toHaveValue(`Thanks @"${COLLABORATOR_NAME}" it is 38 µm in the control, 31 µm under the inhibitor.`);
+  await expect(replyBox).toHaveValue(
+    `Thanks @"${COLLABORATOR_NAME}" it is 38 µm in the control, 31 µm under the inhibitor.`,
+  );
   await thread.getByTestId("reply-box-submit").click();
   await expect(sp.getByTestId("discussion-notice")).toHaveText("Saved; 1 person was notified by e-mail.");
   await expect(thread.getByTestId("comment")).toHaveCount(2);
   await expect(thread.getByTestId("comment").nth(1)).toContainText(SCIENTIST_NAME);
-  await expect(thread.getByTestId("comment").nth(1).getByTestId("comment-body")).toHaveText(`Thanks @"${COLLABORATOR_NAME}" it is 38 µm in the control, 31 µm under the inhibitor.`);
+  await expect(thread.getByTestId("comment").nth(1).getByTestId("comment-body")).toHaveText(
+    `Thanks @"${COLLABORATOR_NAME}" it is 38 µm in the control, 31 µm under the inhibitor.`,
+  );
   await scientistContext.close();
 
   const reply = await waitForMail(DEMO.collaborator.email, seenByCollaborator);

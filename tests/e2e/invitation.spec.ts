@@ -12,7 +12,9 @@ async function invite(page: Page, labId: string, email: string, roleLabel: strin
   await form.getByLabel(/^Role/).selectOption({ label: roleLabel });
   await page.getByTestId("send-invitation").click();
   await expect(page.getByTestId("invite-message")).toContainText(`Invitation e-mailed to ${email} as ${roleLabel}`);
-  await expect(page.getByTestId("invitations-table").getByRole("row").filter({ hasText: email })).toContainText("pending");
+  await expect(page.getByTestId("invitations-table").getByRole("row").filter({ hasText: email })).toContainText(
+    "pending",
+  );
   const mail = await waitForMail(email, seen);
   expect(mail.subject).toBe(`You are invited to ${DEMO_LAB} on Morphokin`);
   expect(mail.text).toContain(`as ${roleLabel}`);
@@ -40,7 +42,9 @@ test("an invited modeller joins through the e-mailed link, once", async ({ page,
 
     // The same link a second time: already used.
     await g.goto(link);
-    await expect(g.getByTestId("invite-error")).toHaveText("This invitation was already used. Sign in with your e-mail and password instead.");
+    await expect(g.getByTestId("invite-error")).toHaveText(
+      "This invitation was already used. Sign in with your e-mail and password instead.",
+    );
     await expect(g.getByTestId("accept-invitation")).toHaveCount(0);
   } finally {
     await guest.close();
@@ -49,12 +53,18 @@ test("an invited modeller joins through the e-mailed link, once", async ({ page,
   // The manager sees the new member and the two audit entries.
   await page.goto(`/labs/${labId}/members`);
   await expect(page.getByTestId(`role-${email}`)).toHaveValue("modeller");
-  await expect(page.getByTestId("invitations-table").getByRole("row").filter({ hasText: email })).toContainText("accepted");
+  await expect(page.getByTestId("invitations-table").getByRole("row").filter({ hasText: email })).toContainText(
+    "accepted",
+  );
   await page.goto(`/labs/${labId}/audit`);
   const audit = page.getByTestId("audit-table");
   await audit.getByLabel("Filter rows").fill(email);
-  await expect(audit.getByRole("row").filter({ hasText: "invitation.created" })).toContainText(`${DEMO.manager.email} invited ${email} as Modeller`);
-  await expect(audit.getByRole("row").filter({ hasText: "member.joined" })).toContainText(`${email} accepted the invitation and joined as Modeller`);
+  await expect(audit.getByRole("row").filter({ hasText: "invitation.created" })).toContainText(
+    `${DEMO.manager.email} invited ${email} as Modeller`,
+  );
+  await expect(audit.getByRole("row").filter({ hasText: "member.joined" })).toContainText(
+    `${email} accepted the invitation and joined as Modeller`,
+  );
   await expect(audit.getByText("2 rows")).toBeVisible();
 });
 
@@ -63,24 +73,32 @@ test("a revoked invitation's link says it was revoked", async ({ page, browser }
   const email = uniqueEmail("revoked");
   const link = await invite(page, labId, email, "Bench scientist");
   await page.getByTestId(`revoke-${email}`).click();
-  await expect(page.getByTestId("invitations-table").getByRole("row").filter({ hasText: email })).toContainText("revoked");
+  await expect(page.getByTestId("invitations-table").getByRole("row").filter({ hasText: email })).toContainText(
+    "revoked",
+  );
   await expect(page.getByTestId(`revoke-${email}`)).toHaveCount(0);
 
   const guest = await browser.newContext();
   try {
     const g = await guest.newPage();
     await g.goto(link);
-    await expect(g.getByTestId("invite-error")).toHaveText("This invitation was revoked by the lab manager. Ask them for a new one.");
+    await expect(g.getByTestId("invite-error")).toHaveText(
+      "This invitation was revoked by the lab manager. Ask them for a new one.",
+    );
     await expect(g.getByTestId("accept-invitation")).toHaveCount(0);
     // The API refuses too, so the form is not the only guard.
-    const res = await g.request.post(`${new URL(link).pathname.replace("/invite/", "/api/v1/invitations/")}/accept`, { data: { name: "Late Comer", password: "late-comer-password" } });
+    const res = await g.request.post(`${new URL(link).pathname.replace("/invite/", "/api/v1/invitations/")}/accept`, {
+      data: { name: "Late Comer", password: "late-comer-password" },
+    });
     expect(res.status()).toBe(409);
   } finally {
     await guest.close();
   }
   await page.goto(`/labs/${labId}/audit`);
   await page.getByTestId("audit-table").getByLabel("Filter rows").fill(email);
-  await expect(page.getByTestId("audit-table").getByRole("row").filter({ hasText: "invitation.revoked" })).toContainText(`${DEMO.manager.email} revoked the invitation of ${email}`);
+  await expect(
+    page.getByTestId("audit-table").getByRole("row").filter({ hasText: "invitation.revoked" }),
+  ).toContainText(`${DEMO.manager.email} revoked the invitation of ${email}`);
 });
 
 test("an invitation link opened while signed in as someone else is refused until they sign out", async ({ page }) => {
@@ -90,9 +108,13 @@ test("an invitation link opened while signed in as someone else is refused until
 
   // The manager (who could have copied the link) opens it: refused, nothing to submit.
   await page.goto(link);
-  await expect(page.getByTestId("invite-error")).toHaveText(`You are signed in as ${DEMO.manager.email}; this invitation is for ${email}. Sign out first.`);
+  await expect(page.getByTestId("invite-error")).toHaveText(
+    `You are signed in as ${DEMO.manager.email}; this invitation is for ${email}. Sign out first.`,
+  );
   await expect(page.getByTestId("accept-invitation")).toHaveCount(0);
-  const res = await page.request.post(`${new URL(link).pathname.replace("/invite/", "/api/v1/invitations/")}/accept`, { data: { name: "Not Me", password: "not-me-password" } });
+  const res = await page.request.post(`${new URL(link).pathname.replace("/invite/", "/api/v1/invitations/")}/accept`, {
+    data: { name: "Not Me", password: "not-me-password" },
+  });
   expect(res.status()).toBe(403);
 
   // Signed out, the invitee's form is there and still works.

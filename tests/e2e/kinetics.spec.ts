@@ -3,7 +3,9 @@ import { expect, test } from "@playwright/test";
 import { DEMO, unique } from "./support/demo";
 import { signIn } from "./support/session";
 
-test("Schnakenberg: classification, wavelength with unit, and a parameter change moves the number", async ({ page }) => {
+test("Schnakenberg: classification, wavelength with unit, and a parameter change moves the number", async ({
+  page,
+}) => {
   const labId = await signIn(page, DEMO.modeller.email);
   await page.goto(`/labs/${labId}/kinetics`);
   await page.getByTestId("catalogue-table").getByRole("link", { name: "Schnakenberg" }).click();
@@ -32,7 +34,9 @@ test("Schnakenberg: classification, wavelength with unit, and a parameter change
 
   // Out of range: the server's message names the parameter and its range.
   await page.getByTestId("param-a").fill("500");
-  await expect(page.getByTestId("dispersion-error")).toHaveText("Parameter a = 500 is outside its allowed range [0, 100].");
+  await expect(page.getByTestId("dispersion-error")).toHaveText(
+    "Parameter a = 500 is outside its allowed range [0, 100].",
+  );
 });
 
 test("a lab kinetics: a typo'd symbol is refused with the exact error, the fix saves version 1", async ({ page }) => {
@@ -47,7 +51,10 @@ test("a lab kinetics: a typo'd symbol is refused with the exact error, the fix s
   await page.getByTestId("param-default-0").fill("0.1");
   await page.getByTestId("param-min-0").fill("0");
   await page.getByTestId("param-max-0").fill("10");
-  for (const [i, [p, v, lo, hi]] of [["b", "0.9", "0", "10"], ["d", "20", "1", "1000"]].entries()) {
+  for (const [i, [p, v, lo, hi]] of [
+    ["b", "0.9", "0", "10"],
+    ["d", "20", "1", "1000"],
+  ].entries()) {
     await page.getByTestId("add-parameter").click();
     await page.getByTestId(`param-name-${i + 1}`).fill(p);
     await page.getByTestId(`param-default-${i + 1}`).fill(v);
@@ -56,7 +63,9 @@ test("a lab kinetics: a typo'd symbol is refused with the exact error, the fix s
   }
   await page.getByTestId("diffusion-1").fill("d");
   await page.getByTestId("save-kinetics").click();
-  await expect(page.getByTestId("kinetics-error")).toHaveText('definition.reactions[0]: unknown symbol "w" (species: u, v; parameters: a, b, d; constants: pi, e).');
+  await expect(page.getByTestId("kinetics-error")).toHaveText(
+    'definition.reactions[0]: unknown symbol "w" (species: u, v; parameters: a, b, d; constants: pi, e).',
+  );
 
   await page.getByTestId("reaction-0").fill("a - u + u^2 * v");
   await page.getByTestId("save-kinetics").click();

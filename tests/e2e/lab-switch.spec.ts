@@ -6,7 +6,12 @@ import { DASHBOARD_URL, labIdOf, signUp } from "./support/session";
 test("a second lab from the account page, then switching between the two", async ({ page }) => {
   const first = unique("Scale Lab");
   const second = unique("Tooth Row Lab");
-  const firstId = await signUp(page, { name: "Ada Quill", email: uniqueEmail("twolabs"), password: "two-labs-password", labName: first });
+  const firstId = await signUp(page, {
+    name: "Ada Quill",
+    email: uniqueEmail("twolabs"),
+    password: "two-labs-password",
+    labName: first,
+  });
 
   await page.getByTestId("account-link").click();
   await expect(page).toHaveURL("/account");

@@ -41,7 +41,11 @@ test("the manager changes a member's role and back; the audit trail records both
     // Leave the demo lab as seeded for the other specs, even when an assertion failed midway.
     const members = await (await page.request.get(`/api/v1/labs/${labId}/members?pageSize=100`)).json();
     const sci = members.items.find((m: { email: string }) => m.email === DEMO.scientist.email);
-    if (sci && sci.role !== "scientist") await page.request.patch(`/api/v1/labs/${labId}/members/${sci.id}`, { headers: { origin: BASE_URL }, data: { role: "scientist" } });
+    if (sci && sci.role !== "scientist")
+      await page.request.patch(`/api/v1/labs/${labId}/members/${sci.id}`, {
+        headers: { origin: BASE_URL },
+        data: { role: "scientist" },
+      });
   }
 });
 
@@ -53,7 +57,9 @@ test("the only lab manager cannot demote themselves", async ({ page }) => {
   const patched = page.waitForResponse((r) => r.request().method() === "PATCH" && r.url().includes("/members/"));
   await mine.selectOption({ label: "Bench scientist" });
   expect((await patched).status()).toBe(409);
-  await expect(page.getByTestId("members-error")).toHaveText("a lab must keep at least one lab manager: make someone else lab manager first");
+  await expect(page.getByTestId("members-error")).toHaveText(
+    "a lab must keep at least one lab manager: make someone else lab manager first",
+  );
   // The table refetches and shows the unchanged role; the nav still has the manager's pages.
   await expect(mine).toHaveValue("manager");
   await page.reload();

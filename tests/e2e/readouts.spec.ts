@@ -71,7 +71,9 @@ test("seeded readout with µm, ROI re-run makes a second readout, study comparis
   await expect(comparison.getByTestId("comparison-row").filter({ hasText: "inhibitor 5 µM" })).toContainText("2");
   // Specimens are the replicates (one image each in the demo): 2 specimens · 2 images.
   await expect(comparison.getByTestId("replicate")).toHaveValue("specimen");
-  await expect(comparison.getByTestId("comparison-row").filter({ hasText: "inhibitor 5 µM" }).getByTestId("comparison-counts")).toHaveText("2 · 2");
+  await expect(
+    comparison.getByTestId("comparison-row").filter({ hasText: "inhibitor 5 µM" }).getByTestId("comparison-counts"),
+  ).toHaveText("2 · 2");
   await expect(comparison.getByTestId("welch-result")).toContainText("p =");
   await expect(comparison.getByTestId("welch-result")).toContainText("Hedges");
   const csv = await page.request.get((await page.getByTestId("comparison-csv").getAttribute("href"))!);

@@ -21,7 +21,9 @@ const ROLES: Expectation[] = [
 async function firstSpecimenPath(page: Page, labId: string): Promise<string> {
   const studies = await (await page.request.get(`/api/v1/labs/${labId}/studies?sort=name&dir=asc`)).json();
   const study = studies.items.find((s: { name: string }) => s.name.startsWith("Dorsal placode"));
-  const specimens = await (await page.request.get(`/api/v1/labs/${labId}/studies/${study.id}/specimens?sort=label&dir=asc`)).json();
+  const specimens = await (
+    await page.request.get(`/api/v1/labs/${labId}/studies/${study.id}/specimens?sort=label&dir=asc`)
+  ).json();
   expect(specimens.items[0].label).toBe("DS-01");
   return `/labs/${labId}/specimens/${specimens.items[0].id}`;
 }
@@ -56,7 +58,9 @@ for (const { role, managerNav, canCreate } of ROLES) {
     if (managerNav) {
       expect(audit?.status()).toBe(200);
       await expect(page.getByRole("heading", { level: 1 })).toHaveText("Audit trail");
-      await expect(page.getByTestId("audit-table")).toContainText("created the lab “Bracken Hill Patterning Lab” with four members");
+      await expect(page.getByTestId("audit-table")).toContainText(
+        "created the lab “Bracken Hill Patterning Lab” with four members",
+      );
     } else {
       expect(audit?.status()).toBe(404);
       await expect(page.getByTestId("not-found")).toBeVisible();

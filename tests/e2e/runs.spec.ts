@@ -3,7 +3,9 @@ import { expect, test } from "@playwright/test";
 import { DEMO } from "./support/demo";
 import { signIn } from "./support/session";
 
-test("modeller: Simulate with these parameters → progress → snapshot scrubber and the comparison sentence", async ({ page }) => {
+test("modeller: Simulate with these parameters → progress → snapshot scrubber and the comparison sentence", async ({
+  page,
+}) => {
   test.setTimeout(120_000);
   const labId = await signIn(page, DEMO.modeller.email);
   await page.goto(`/labs/${labId}/kinetics`);

@@ -30,7 +30,9 @@ function watchCsp(page: Page): string[] {
     if (m.type() === "error" && /Content Security Policy/i.test(m.text())) seen.push(`${page.url()}: ${m.text()}`);
   });
   void page.addInitScript(() => {
-    document.addEventListener("securitypolicyviolation", (e) => console.error(`Content Security Policy violation event: ${e.violatedDirective} ${e.blockedURI}`));
+    document.addEventListener("securitypolicyviolation", (e) =>
+      console.error(`Content Security Policy violation event: ${e.violatedDirective} ${e.blockedURI}`),
+    );
   });
   return seen;
 }
@@ -51,8 +53,12 @@ test("pages, API answers and downloads carry the security headers", async ({ pag
 
   const studies = await (await page.request.get(`/api/v1/labs/${labId}/studies?sort=name&dir=asc`)).json();
   const study = studies.items.find((s: { name: string }) => s.name.startsWith("Dorsal placode"));
-  const specimens = await (await page.request.get(`/api/v1/labs/${labId}/studies/${study.id}/specimens?sort=label&dir=asc`)).json();
-  const uploads = await (await page.request.get(`/api/v1/labs/${labId}/specimens/${specimens.items[0].id}/uploads`)).json();
+  const specimens = await (
+    await page.request.get(`/api/v1/labs/${labId}/studies/${study.id}/specimens?sort=label&dir=asc`)
+  ).json();
+  const uploads = await (
+    await page.request.get(`/api/v1/labs/${labId}/specimens/${specimens.items[0].id}/uploads`)
+  ).json();
   const download = await page.request.get(`/api/v1/labs/${labId}/uploads/${uploads.items[0].id}/content`);
   expect(download.status()).toBe(200);
   expectFixedHeaders(download as unknown as Response, "original download");
@@ -66,7 +72,8 @@ test("the main pages load with no CSP violation", async ({ page }) => {
   await page.goto("/");
   await page.goto("/login");
   const labId = await signIn(page, DEMO.modeller.email);
-  const get = async (path: string) => (await (await page.request.get(path)).json()) as { items: { id: string; name?: string; status?: string }[] };
+  const get = async (path: string) =>
+    (await (await page.request.get(path)).json()) as { items: { id: string; name?: string; status?: string }[] };
 
   const studies = await get(`/api/v1/labs/${labId}/studies?sort=name&dir=asc`);
   const placodes = studies.items.find((s) => s.name?.startsWith("Dorsal placode"))!;

@@ -33,7 +33,10 @@ function fail(message: string): never {
 function portInUse(port: number): Promise<boolean> {
   return new Promise((resolve) => {
     const s = net.connect({ port, host: "127.0.0.1" });
-    s.once("connect", () => { s.destroy(); resolve(true); });
+    s.once("connect", () => {
+      s.destroy();
+      resolve(true);
+    });
     s.once("error", () => resolve(false));
   });
 }
@@ -44,7 +47,8 @@ async function main() {
   }
   // Reusing a leftover stack would mix its data into this run; refuse instead.
   for (const port of Object.values(E2E_PORTS)) {
-    if (await portInUse(port)) fail(`port ${port} on 127.0.0.1 is already in use (a leftover test stack?); stop it and run again`);
+    if (await portInUse(port))
+      fail(`port ${port} on 127.0.0.1 is already in use (a leftover test stack?); stop it and run again`);
   }
   rmSync(E2E_ENV.MORPHOKIN_DATA_DIR, { recursive: true, force: true });
   // readConfig() reads the environment when called, so set it before anything asks.
@@ -63,4 +67,4 @@ async function main() {
   serveNext("start", env, fakes);
 }
 
-main().catch((err) => fail(err instanceof Error ? err.stack ?? err.message : String(err)));
+main().catch((err) => fail(err instanceof Error ? (err.stack ?? err.message) : String(err)));

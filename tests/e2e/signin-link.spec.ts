@@ -31,7 +31,9 @@ test("a sign-in link works once", async ({ page, browser }) => {
     const p = await other.newPage();
     await p.goto(link);
     await expect(p).toHaveURL(/\/login\?.*error=Verification/);
-    await expect(p.getByTestId("login-error")).toHaveText("That sign-in link has expired or was already used. Ask for a new one below.");
+    await expect(p.getByTestId("login-error")).toHaveText(
+      "That sign-in link has expired or was already used. Ask for a new one below.",
+    );
     expect((await p.request.get("/api/v1/me")).status()).toBe(401);
   } finally {
     await other.close();
@@ -71,7 +73,12 @@ test("signing out ends the session: the cookie that worked before answers 401 af
 });
 
 test("changing the password on the Account page signs out the account's other sessions", async ({ page, browser }) => {
-  const account = { name: "Noor Vesel", email: uniqueEmail("pwchange"), password: "first-password-1", labName: unique("Vesel Lab") };
+  const account = {
+    name: "Noor Vesel",
+    email: uniqueEmail("pwchange"),
+    password: "first-password-1",
+    labName: unique("Vesel Lab"),
+  };
   await signUp(page, account);
   const other = await browser.newContext();
   try {

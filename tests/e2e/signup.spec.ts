@@ -6,7 +6,12 @@ import { E2E_MAILBOX_URL } from "./support/ports";
 import { DASHBOARD_URL, fillSignup, signIn, signUp } from "./support/session";
 
 test("sign-up creates the account and a lab, and lands on it as lab manager", async ({ page }) => {
-  const account = { name: "Rowan Teale", email: uniqueEmail("signup"), password: "placode-spacing-42", labName: unique("Feather Tract Group") };
+  const account = {
+    name: "Rowan Teale",
+    email: uniqueEmail("signup"),
+    password: "placode-spacing-42",
+    labName: unique("Feather Tract Group"),
+  };
   const labId = await signUp(page, account);
 
   await expect(page.getByRole("heading", { level: 1 })).toHaveText(account.labName);
@@ -14,7 +19,9 @@ test("sign-up creates the account and a lab, and lands on it as lab manager", as
   await expect(page.getByTestId("current-role")).toHaveText("Lab manager");
   await expect(page.getByTestId("account-link")).toHaveText(account.name);
   await expect(page.getByTestId("lab-switcher").locator("option")).toHaveText([account.labName]);
-  await expect(page.getByRole("navigation", { name: "Lab" }).getByRole("link", { name: "Audit trail" })).toHaveAttribute("href", `/labs/${labId}/audit`);
+  await expect(
+    page.getByRole("navigation", { name: "Lab" }).getByRole("link", { name: "Audit trail" }),
+  ).toHaveAttribute("href", `/labs/${labId}/audit`);
 
   // The lab is empty and says what to do next.
   await expect(page.getByTestId("empty-state").first()).toContainText("No studies yet.");
@@ -27,13 +34,23 @@ test("sign-up creates the account and a lab, and lands on it as lab manager", as
 
 // Changed by issue 10, item 9 (no account enumeration): a taken address no longer gets an error
 // naming it; the page is the same as for a new address, and the mail tells the owner.
-test("signing up again with an address that has an account shows the same page and mails the owner", async ({ page, browser }) => {
+test("signing up again with an address that has an account shows the same page and mails the owner", async ({
+  page,
+  browser,
+}) => {
   const seen = await mailIds(DEMO.scientist.email);
   await page.goto("/signup");
-  await fillSignup(page, { name: "Someone Else", email: DEMO.scientist.email, password: "another-password-1", labName: unique("Duplicate Lab") });
+  await fillSignup(page, {
+    name: "Someone Else",
+    email: DEMO.scientist.email,
+    password: "another-password-1",
+    labName: unique("Duplicate Lab"),
+  });
   await page.getByTestId("create-account").click();
   await expect(page).toHaveURL(/\/signup\/check-email/);
-  await expect(page.getByTestId("signup-check-email")).toHaveText(`We sent a message to ${DEMO.scientist.email}. Open the link in it to finish creating your account and lab.`);
+  await expect(page.getByTestId("signup-check-email")).toHaveText(
+    `We sent a message to ${DEMO.scientist.email}. Open the link in it to finish creating your account and lab.`,
+  );
   // In this local setup the page says where local mail is read (the catcher's listing).
   await expect(page.getByTestId("local-mail-catcher")).toContainText(E2E_MAILBOX_URL);
   const mail = await waitForMail(DEMO.scientist.email, seen);
@@ -58,7 +75,12 @@ test("signing up again with an address that has an account shows the same page a
 });
 
 test("ten wrong passwords lock the account, and the sign-in page says for how long", async ({ page }) => {
-  const account = { name: "Lia Brandt", email: uniqueEmail("lockout"), password: "lockout-password-1", labName: unique("Lockout Lab") };
+  const account = {
+    name: "Lia Brandt",
+    email: uniqueEmail("lockout"),
+    password: "lockout-password-1",
+    labName: unique("Lockout Lab"),
+  };
   await signUp(page, account);
   await page.context().clearCookies();
   await page.goto("/login");
@@ -77,7 +99,9 @@ test("ten wrong passwords lock the account, and the sign-in page says for how lo
   await page.getByTestId("sign-in").click();
   expect((await locked).status()).toBe(429);
   expect(Number((await locked).headers()["retry-after"])).toBeGreaterThan(14 * 60);
-  await expect(page.getByTestId("login-error")).toHaveText("Too many failed sign-ins for this account; try again in 15 minutes or use a sign-in link.");
+  await expect(page.getByTestId("login-error")).toHaveText(
+    "Too many failed sign-ins for this account; try again in 15 minutes or use a sign-in link.",
+  );
   expect((await page.request.get("/api/v1/me")).status()).toBe(401);
 });
 

@@ -23,7 +23,9 @@ test("create a token, call the API with it, revoke it", async ({ page }) => {
   // Expires 90 days from now (either side of midnight UTC while the test runs).
   const day = (ms: number) => new Date(ms).toISOString().slice(0, 10);
   const created = Date.now();
-  await expect(row.locator("td").nth(4)).toHaveText(new RegExp(`^(${day(created + 90 * 86_400_000 - 60_000)}|${day(created + 90 * 86_400_000 + 60_000)})$`));
+  await expect(row.locator("td").nth(4)).toHaveText(
+    new RegExp(`^(${day(created + 90 * 86_400_000 - 60_000)}|${day(created + 90 * 86_400_000 + 60_000)})$`),
+  );
   // The list shows only the start of the secret.
   await expect(row.locator("td").nth(1)).toHaveText(/^.+…$/);
   const prefix = (await row.locator("td").nth(1).textContent())!.replace("…", "");

@@ -8,7 +8,10 @@ import { signIn } from "./support/session";
 const sha256 = (b: Buffer) => createHash("sha256").update(b).digest("hex");
 
 async function greyPng(): Promise<Buffer> {
-  return sharp({ create: { width: 64, height: 64, channels: 3, background: { r: 128, g: 128, b: 128 } } }).greyscale().png().toBuffer();
+  return sharp({ create: { width: 64, height: 64, channels: 3, background: { r: 128, g: 128, b: 128 } } })
+    .greyscale()
+    .png()
+    .toBuffer();
 }
 
 test("study, specimen, upload with checksum, download, a rejected fake PNG, delete", async ({ page }) => {
@@ -48,7 +51,9 @@ test("study, specimen, upload with checksum, download, a rejected fake PNG, dele
   await page.getByTestId("upload-file").setInputFiles({ name: "grey-64.png", mimeType: "image/png", buffer: png });
   await page.getByLabel(/^Pixel size/).fill("0.65");
   await page.getByTestId("upload-submit").click();
-  await expect(page.getByTestId("upload-message")).toHaveText(`Stored “grey-64.png” (${png.length} B, SHA-256 ${digest.slice(0, 12)}…).`);
+  await expect(page.getByTestId("upload-message")).toHaveText(
+    `Stored “grey-64.png” (${png.length} B, SHA-256 ${digest.slice(0, 12)}…).`,
+  );
   const row = page.getByTestId("uploads-table").getByRole("row").filter({ hasText: "grey-64.png" });
   await expect(row).toContainText(`${png.length} B`);
   await expect(row).toContainText("image · png");

@@ -35,8 +35,14 @@ export interface CallOptions {
   query?: string;
 }
 
-export async function call(handler: Handler, method: Method, routePath: string, o: CallOptions = {}): Promise<Response> {
-  let url = "http://127.0.0.1:3999" + routePath.replace(/\[(\w+)\]/g, (_, k: string) => o.params?.[k] ?? `missing-${k}`);
+export async function call(
+  handler: Handler,
+  method: Method,
+  routePath: string,
+  o: CallOptions = {},
+): Promise<Response> {
+  let url =
+    "http://127.0.0.1:3999" + routePath.replace(/\[(\w+)\]/g, (_, k: string) => o.params?.[k] ?? `missing-${k}`);
   if (o.query) url += `?${o.query}`;
   const headers: Record<string, string> = { ...(o.headers ?? {}) };
   if (o.token) headers.authorization = `Bearer ${o.token}`;
@@ -49,9 +55,16 @@ export async function call(handler: Handler, method: Method, routePath: string, 
   return handler(request, { params: Promise.resolve(o.params ?? {}) });
 }
 
-export function multipart(file: { name: string; bytes: Uint8Array; type?: string }, fields: Record<string, string> = {}): FormData {
+export function multipart(
+  file: { name: string; bytes: Uint8Array; type?: string },
+  fields: Record<string, string> = {},
+): FormData {
   const form = new FormData();
   for (const [k, v] of Object.entries(fields)) form.set(k, v);
-  form.set("file", new Blob([file.bytes as Uint8Array<ArrayBuffer>], { type: file.type ?? "application/octet-stream" }), file.name);
+  form.set(
+    "file",
+    new Blob([file.bytes as Uint8Array<ArrayBuffer>], { type: file.type ?? "application/octet-stream" }),
+    file.name,
+  );
   return form;
 }

@@ -17,7 +17,12 @@ async function main() {
   const services = createServices({ ...readConfig(), databasePath: arg("--db") });
   await services.db.ready;
   setServicesForTest(services);
-  const job = await enqueueJob({ labId: arg("--lab"), kind: "echo", payload: { ms: Number(arg("--ms")), value: "from the killed process" }, requestedBy: null });
+  const job = await enqueueJob({
+    labId: arg("--lab"),
+    kind: "echo",
+    payload: { ms: Number(arg("--ms")), value: "from the killed process" },
+    requestedBy: null,
+  });
   process.stdout.write(`${job.id}\n`);
   // Stay alive; the test kills this process while the job runs.
   setInterval(() => undefined, 60_000);

@@ -16,13 +16,21 @@ export async function listMail(mailboxUrl: string, to: string): Promise<TestMail
 }
 
 /** Polls until a message to `to` whose subject is `subject` is listed; fails with what was there. */
-export async function waitForMailWithSubject(mailboxUrl: string, to: string, subject: string, timeoutMs = 30_000): Promise<TestMail> {
+export async function waitForMailWithSubject(
+  mailboxUrl: string,
+  to: string,
+  subject: string,
+  timeoutMs = 30_000,
+): Promise<TestMail> {
   const until = Date.now() + timeoutMs;
   for (;;) {
     const mails = await listMail(mailboxUrl, to);
     const found = mails.find((m) => m.subject === subject);
     if (found) return found;
-    if (Date.now() > until) throw new Error(`no mail to ${to} with subject “${subject}” after ${timeoutMs} ms; there were: ${mails.map((m) => `“${m.subject}”`).join(", ") || "none"}`);
+    if (Date.now() > until)
+      throw new Error(
+        `no mail to ${to} with subject “${subject}” after ${timeoutMs} ms; there were: ${mails.map((m) => `“${m.subject}”`).join(", ") || "none"}`,
+      );
     await new Promise((r) => setTimeout(r, 100));
   }
 }

@@ -5,4 +5,7 @@
  */
 import { vi } from "vitest";
 
-vi.mock("next-auth", async (original) => ({ ...(await original<typeof import("next-auth")>()), getServerSession: async () => null }));
+vi.mock("next-auth", async (original) => ({
+  ...(await original<typeof import("next-auth")>()),
+  getServerSession: async () => null,
+}));

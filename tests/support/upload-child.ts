@@ -17,7 +17,9 @@ import { POST } from "@/app/api/v1/labs/[labId]/specimens/[specimenId]/uploads/r
 const [mode, labId, specimenId, token, bytesArg] = process.argv.slice(2);
 const size = Number(bytesArg);
 const boundary = "----morphokin-crash-test";
-const head = new TextEncoder().encode(`--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="rows.csv"\r\nContent-Type: text/csv\r\n\r\n`);
+const head = new TextEncoder().encode(
+  `--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="rows.csv"\r\nContent-Type: text/csv\r\n\r\n`,
+);
 const tail = new TextEncoder().encode(`\r\n--${boundary}--\r\n`);
 /** A CSV table of `n` bytes: a header line, then rows of two numbers. */
 const csvOf = (n: number) => {

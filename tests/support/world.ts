@@ -35,13 +35,35 @@ export async function makePerson(role: Role, labId: string, prefix = "p"): Promi
 
 export async function makeWorld(): Promise<World> {
   const m = await database();
-  const first = await signUp({ name: "Lead", email: `lead-${++counter}@lab.test`, password: "long-enough-pw", labName: "Test Lab" });
+  const first = await signUp({
+    name: "Lead",
+    email: `lead-${++counter}@lab.test`,
+    password: "long-enough-pw",
+    labName: "Test Lab",
+  });
   const lead = await m.User.findByPk(first.userId);
   const leadActor: Actor = { userId: lead!.id, email: lead!.email, name: lead!.name, via: "token" };
-  const people = { manager: { userId: lead!.id, email: lead!.email, actor: leadActor, token: (await createToken(leadActor, "tests")).secret } } as Record<Role, Person>;
+  const people = {
+    manager: {
+      userId: lead!.id,
+      email: lead!.email,
+      actor: leadActor,
+      token: (await createToken(leadActor, "tests")).secret,
+    },
+  } as Record<Role, Person>;
   for (const role of ROLES) if (role !== "manager") people[role] = await makePerson(role, first.labId);
-  const other = await signUp({ name: "Other", email: `other-${++counter}@lab.test`, password: "long-enough-pw", labName: "Other Lab" });
+  const other = await signUp({
+    name: "Other",
+    email: `other-${++counter}@lab.test`,
+    password: "long-enough-pw",
+    labName: "Other Lab",
+  });
   const o = await m.User.findByPk(other.userId);
   const oActor: Actor = { userId: o!.id, email: o!.email, name: o!.name, via: "token" };
-  return { labId: first.labId, otherLabId: other.labId, people, outsider: { userId: o!.id, email: o!.email, actor: oActor, token: (await createToken(oActor, "tests")).secret } };
+  return {
+    labId: first.labId,
+    otherLabId: other.labId,
+    people,
+    outsider: { userId: o!.id, email: o!.email, actor: oActor, token: (await createToken(oActor, "tests")).secret },
+  };
 }

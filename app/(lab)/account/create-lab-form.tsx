@@ -29,9 +29,22 @@ export function CreateLabForm() {
         }
       })}
     >
-      <div className="flex-1"><TextField label="Start another lab" placeholder="Lab name" {...form.register("name")} error={form.formState.errors.name?.message ?? error ?? undefined} /></div>
-      <Button type="submit" variant="secondary" data-testid="create-lab">Create lab</Button>
-      {error && <span className="sr-only"><Notice tone="error">{error}</Notice></span>}
+      <div className="flex-1">
+        <TextField
+          label="Start another lab"
+          placeholder="Lab name"
+          {...form.register("name")}
+          error={form.formState.errors.name?.message ?? error ?? undefined}
+        />
+      </div>
+      <Button type="submit" variant="secondary" data-testid="create-lab">
+        Create lab
+      </Button>
+      {error && (
+        <span className="sr-only">
+          <Notice tone="error">{error}</Notice>
+        </span>
+      )}
     </form>
   );
 }

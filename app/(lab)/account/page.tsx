@@ -27,7 +27,9 @@ export default async function AccountPage() {
           <ul className="mb-4 space-y-1 text-sm" data-testid="my-labs">
             {me.labs.map((l) => (
               <li key={l.id} className="flex justify-between">
-                <Link href={`/labs/${l.id}`} className="text-moss hover:underline">{l.name}</Link>
+                <Link href={`/labs/${l.id}`} className="text-moss hover:underline">
+                  {l.name}
+                </Link>
                 <span className="text-ink-soft">{ROLE_LABELS[l.role as Role]}</span>
               </li>
             ))}
@@ -48,7 +50,10 @@ export default async function AccountPage() {
       </div>
       <div className="mt-6">
         <Panel title="Recent sign-ins and API tokens">
-          <p className="mb-3 text-sm text-ink-soft">The last 20, newest first. The managers of your labs see these too. If you see a sign-in that was not you, change your password and revoke your tokens.</p>
+          <p className="mb-3 text-sm text-ink-soft">
+            The last 20, newest first. The managers of your labs see these too. If you see a sign-in that was not you,
+            change your password and revoke your tokens.
+          </p>
           <AccountEventsList items={events} empty="Nothing recorded yet." testId="account-events" />
         </Panel>
       </div>

@@ -22,7 +22,10 @@ export function PasswordForm() {
     try {
       const { endedSessions } = await sendJson<{ endedSessions: number }>("POST", "/api/v1/me/password", values);
       form.reset();
-      setMessage({ tone: "success", text: `Password changed.${endedSessions ? ` Signed out ${endedSessions === 1 ? "1 other session" : `${endedSessions} other sessions`}.` : ""}` });
+      setMessage({
+        tone: "success",
+        text: `Password changed.${endedSessions ? ` Signed out ${endedSessions === 1 ? "1 other session" : `${endedSessions} other sessions`}.` : ""}`,
+      });
     } catch (err) {
       setMessage({ tone: "error", text: err instanceof ApiError ? err.message : "Could not change the password." });
     }
@@ -35,8 +38,21 @@ export function PasswordForm() {
           {message.text}
         </Notice>
       )}
-      <TextField label="Current password" type="password" autoComplete="current-password" {...form.register("currentPassword")} error={e.currentPassword?.message} />
-      <TextField label="New password" type="password" autoComplete="new-password" hint={`At least ${PASSWORD_MIN} characters. Your other sessions are signed out.`} {...form.register("newPassword")} error={e.newPassword?.message} />
+      <TextField
+        label="Current password"
+        type="password"
+        autoComplete="current-password"
+        {...form.register("currentPassword")}
+        error={e.currentPassword?.message}
+      />
+      <TextField
+        label="New password"
+        type="password"
+        autoComplete="new-password"
+        hint={`At least ${PASSWORD_MIN} characters. Your other sessions are signed out.`}
+        {...form.register("newPassword")}
+        error={e.newPassword?.message}
+      />
       <Button type="submit" disabled={form.formState.isSubmitting} data-testid="change-password">
         {form.formState.isSubmitting ? "Changing…" : "Change password"}
       </Button>

@@ -22,7 +22,8 @@ const ERRORS: Record<string, string> = {
 function describeError(code: string): string {
   const [kind, minutes] = code.split(":");
   const wait = minutes === "1" ? "1 minute" : `${minutes} minutes`;
-  if (kind === "Locked" && minutes) return `Too many failed sign-ins for this account; try again in ${wait} or use a sign-in link.`;
+  if (kind === "Locked" && minutes)
+    return `Too many failed sign-ins for this account; try again in ${wait} or use a sign-in link.`;
   if (kind === "RateLimited" && minutes) return `Too many attempts from here; try again in ${wait}.`;
   return ERRORS[code] ?? "Sign-in failed; try again.";
 }
@@ -58,17 +59,50 @@ export function LoginForms() {
           {error}
         </Notice>
       )}
-      <form onSubmit={pw.handleSubmit(onPassword)} className="space-y-4 rounded-lg border border-rule bg-card p-5" noValidate>
-        <TextField label="E-mail" type="email" autoComplete="email" {...pw.register("email")} error={pw.formState.errors.email?.message} />
-        <TextField label="Password" type="password" autoComplete="current-password" {...pw.register("password")} error={pw.formState.errors.password?.message} />
+      <form
+        onSubmit={pw.handleSubmit(onPassword)}
+        className="space-y-4 rounded-lg border border-rule bg-card p-5"
+        noValidate
+      >
+        <TextField
+          label="E-mail"
+          type="email"
+          autoComplete="email"
+          {...pw.register("email")}
+          error={pw.formState.errors.email?.message}
+        />
+        <TextField
+          label="Password"
+          type="password"
+          autoComplete="current-password"
+          {...pw.register("password")}
+          error={pw.formState.errors.password?.message}
+        />
         <Button type="submit" disabled={pw.formState.isSubmitting} className="w-full" data-testid="sign-in">
           {pw.formState.isSubmitting ? "Signing in…" : "Sign in"}
         </Button>
       </form>
-      <form onSubmit={link.handleSubmit(onLink)} className="space-y-3 rounded-lg border border-rule bg-card p-5" noValidate>
+      <form
+        onSubmit={link.handleSubmit(onLink)}
+        className="space-y-3 rounded-lg border border-rule bg-card p-5"
+        noValidate
+      >
         <p className="text-sm text-ink-soft">Or get a one-time sign-in link by e-mail.</p>
-        <TextField label="E-mail for the link" type="email" {...link.register("email")} name="linkEmail" error={link.formState.errors.email?.message} onChange={(e) => link.setValue("email", e.target.value)} />
-        <Button type="submit" variant="secondary" disabled={link.formState.isSubmitting} className="w-full" data-testid="send-link">
+        <TextField
+          label="E-mail for the link"
+          type="email"
+          {...link.register("email")}
+          name="linkEmail"
+          error={link.formState.errors.email?.message}
+          onChange={(e) => link.setValue("email", e.target.value)}
+        />
+        <Button
+          type="submit"
+          variant="secondary"
+          disabled={link.formState.isSubmitting}
+          className="w-full"
+          data-testid="send-link"
+        >
           E-mail me a sign-in link
         </Button>
       </form>

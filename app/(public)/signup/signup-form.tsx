@@ -26,16 +26,38 @@ export function SignupForm() {
   }
 
   return (
-    <form onSubmit={form.handleSubmit(onSubmit)} className="space-y-4 rounded-lg border border-rule bg-card p-5" noValidate>
+    <form
+      onSubmit={form.handleSubmit(onSubmit)}
+      className="space-y-4 rounded-lg border border-rule bg-card p-5"
+      noValidate
+    >
       {error && (
         <Notice tone="error" testId="signup-error">
           {error}
         </Notice>
       )}
       <TextField label="Your name" autoComplete="name" {...form.register("name")} error={e.name?.message} />
-      <TextField label="E-mail" type="email" autoComplete="email" {...form.register("email")} error={e.email?.message} />
-      <TextField label="Password" type="password" autoComplete="new-password" hint={`At least ${PASSWORD_MIN} characters.`} {...form.register("password")} error={e.password?.message} />
-      <TextField label="Lab name" placeholder="e.g. Skin Patterning Group" {...form.register("labName")} error={e.labName?.message} />
+      <TextField
+        label="E-mail"
+        type="email"
+        autoComplete="email"
+        {...form.register("email")}
+        error={e.email?.message}
+      />
+      <TextField
+        label="Password"
+        type="password"
+        autoComplete="new-password"
+        hint={`At least ${PASSWORD_MIN} characters.`}
+        {...form.register("password")}
+        error={e.password?.message}
+      />
+      <TextField
+        label="Lab name"
+        placeholder="e.g. Skin Patterning Group"
+        {...form.register("labName")}
+        error={e.labName?.message}
+      />
       <Button type="submit" className="w-full" disabled={form.formState.isSubmitting} data-testid="create-account">
         {form.formState.isSubmitting ? "Creating…" : "Create account and lab"}
       </Button>

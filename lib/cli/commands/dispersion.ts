@@ -1,5 +1,11 @@
 import { readFileSync } from "node:fs";
-import { compileKinetics, getCatalogueKinetics, KineticsAnalysisError, KineticsInputError, type CompiledKinetics } from "../../kinetics";
+import {
+  compileKinetics,
+  getCatalogueKinetics,
+  KineticsAnalysisError,
+  KineticsInputError,
+  type CompiledKinetics,
+} from "../../kinetics";
 import { parseAssignments, parseDomain } from "../../kinetics/parse-cli-values";
 import { computeDispersion, type DomainSpec } from "../../stability";
 import { CliError, parseOptions, type CliCommand } from "../command";
@@ -15,7 +21,10 @@ export function loadKinetics(options: Record<string, string | true>): CompiledKi
     }
     return compileKinetics(json);
   }
-  if (typeof options.kinetics !== "string") throw new CliError("--kinetics <id> (or --kinetics-file <definition.json>) is required; run `cli kinetics list` for the ids.");
+  if (typeof options.kinetics !== "string")
+    throw new CliError(
+      "--kinetics <id> (or --kinetics-file <definition.json>) is required; run `cli kinetics list` for the ids.",
+    );
   return getCatalogueKinetics(options.kinetics);
 }
 
@@ -69,7 +78,8 @@ Options:
       let domain: DomainSpec | undefined;
       if (typeof options.domain === "string") {
         const units = options["domain-units"];
-        if (units !== undefined && units !== "um" && units !== "model") throw new CliError("--domain-units must be um or model.");
+        if (units !== undefined && units !== "um" && units !== "model")
+          throw new CliError("--domain-units must be um or model.");
         domain = { ...parseDomain(options.domain), ...(units ? { units } : {}) } as DomainSpec;
       }
       const ss = options["steady-state"];
@@ -87,10 +97,18 @@ Options:
       const text = [
         `${r.kinetics.name}: ${r.classification.label}`,
         `steady state ${JSON.stringify(r.steadyState.values)}`,
-        f ? `k* = ${f.kStar.toPrecision(6)}, σ(k*) = ${f.sigmaStar.toPrecision(6)}, λ* = 2π/k* = ${f.wavelength.toPrecision(6)}${f.wavelengthUm !== null ? ` (${f.wavelengthUm.toPrecision(6)} µm)` : ""}` : "no growing mode at k > 0",
-        r.turingConditions?.criticalRatio ? `critical ratio d_c = ${r.turingConditions.criticalRatio.toPrecision(6)}, k_c = ${r.turingConditions.criticalWavenumber?.toPrecision(6)}` : "",
-        r.domain ? `domain: fastest mode ${JSON.stringify(r.domain.fastestMode.indices)} ${JSON.stringify(r.domain.fastestMode.repeats)}, patterning expected: ${r.domain.patterningExpected}` : "",
-      ].filter(Boolean).join("\n");
+        f
+          ? `k* = ${f.kStar.toPrecision(6)}, σ(k*) = ${f.sigmaStar.toPrecision(6)}, λ* = 2π/k* = ${f.wavelength.toPrecision(6)}${f.wavelengthUm !== null ? ` (${f.wavelengthUm.toPrecision(6)} µm)` : ""}`
+          : "no growing mode at k > 0",
+        r.turingConditions?.criticalRatio
+          ? `critical ratio d_c = ${r.turingConditions.criticalRatio.toPrecision(6)}, k_c = ${r.turingConditions.criticalWavenumber?.toPrecision(6)}`
+          : "",
+        r.domain
+          ? `domain: fastest mode ${JSON.stringify(r.domain.fastestMode.indices)} ${JSON.stringify(r.domain.fastestMode.repeats)}, patterning expected: ${r.domain.patterningExpected}`
+          : "",
+      ]
+        .filter(Boolean)
+        .join("\n");
       void curve;
       return { json, text };
     } catch (err) {

@@ -1,5 +1,13 @@
 import { readFileSync } from "node:fs";
-import { compareFits, FitError, fitWavelengths, type LabelledFit, type ParameterSetting, type WavelengthDatum, type WavelengthFitOptions } from "../../fitting";
+import {
+  compareFits,
+  FitError,
+  fitWavelengths,
+  type LabelledFit,
+  type ParameterSetting,
+  type WavelengthDatum,
+  type WavelengthFitOptions,
+} from "../../fitting";
 import { createKineticsPredictor } from "../../fitting/kinetics-predictor";
 import { getCatalogueKinetics, KineticsAnalysisError, KineticsInputError } from "../../kinetics";
 import type { DomainSpec } from "../../stability";
@@ -34,7 +42,11 @@ function readSpec(args: string[]): FitFile {
 
 function fitOne(file: FitFile, m: ModelEntry) {
   const kinetics = getCatalogueKinetics(m.kinetics, "kinetics");
-  const predictor = createKineticsPredictor(kinetics, { lengthScaleUm: m.lengthScaleUm, timeScaleS: m.timeScaleS, gridSize: m.gridSize });
+  const predictor = createKineticsPredictor(kinetics, {
+    lengthScaleUm: m.lengthScaleUm,
+    timeScaleS: m.timeScaleS,
+    gridSize: m.gridSize,
+  });
   return fitWavelengths({ data: file.data, parameters: m.parameters, options: file.options }, predictor);
 }
 
@@ -69,12 +81,15 @@ ${FILE_HELP}`,
   async run(args) {
     const file = readSpec(args);
     try {
-      if (!file.kinetics || !file.parameters) throw new CliError("FIT.json needs \"kinetics\" and \"parameters\" (or use `cli compare` with \"models\").");
+      if (!file.kinetics || !file.parameters)
+        throw new CliError('FIT.json needs "kinetics" and "parameters" (or use `cli compare` with "models").');
       const r = fitOne(file, file as ModelEntry);
       const lines = [
         `verdict: ${r.verdict} — ${r.verdictReason}`,
         ...r.parameters.map((p) => {
-          const ci = p.interval95 ? ` 95 % [${p.interval95.lower.value ?? "open"}, ${p.interval95.upper.value ?? "open"}]` : "";
+          const ci = p.interval95
+            ? ` 95 % [${p.interval95.lower.value ?? "open"}, ${p.interval95.upper.value ?? "open"}]`
+            : "";
           return `  ${p.name} = ${p.value.toPrecision(6)} ± ${p.standardError?.toPrecision(3) ?? "n/a"}${ci}`;
         }),
         `χ² = ${r.chiSquare.toPrecision(5)}, reduced χ² = ${r.reducedChiSquare?.toPrecision(4) ?? "n/a"}, AICc = ${r.aicc?.toPrecision(5) ?? "n/a"}, BIC = ${r.bic.toPrecision(5)}`,
@@ -102,11 +117,18 @@ ${FILE_HELP}`,
   async run(args) {
     const file = readSpec(args);
     try {
-      if (!Array.isArray(file.models) || file.models.length === 0) throw new CliError('FIT.json needs "models": a list of { kinetics, parameters } to compare.');
-      const fits: LabelledFit[] = file.models.map((m, i) => ({ label: m.label ?? `${m.kinetics}#${i + 1}`, result: fitOne(file, m) }));
+      if (!Array.isArray(file.models) || file.models.length === 0)
+        throw new CliError('FIT.json needs "models": a list of { kinetics, parameters } to compare.');
+      const fits: LabelledFit[] = file.models.map((m, i) => ({
+        label: m.label ?? `${m.kinetics}#${i + 1}`,
+        result: fitOne(file, m),
+      }));
       const cmp = compareFits(fits);
       const text = cmp.ranking
-        .map((r) => `${r.rank}. ${r.label}: AICc ${r.aicc?.toPrecision(5) ?? "n/a"}, Δ ${r.deltaAicc?.toPrecision(3) ?? "n/a"}, weight ${r.akaikeWeight?.toPrecision(3) ?? "n/a"} (${r.verdict})`)
+        .map(
+          (r) =>
+            `${r.rank}. ${r.label}: AICc ${r.aicc?.toPrecision(5) ?? "n/a"}, Δ ${r.deltaAicc?.toPrecision(3) ?? "n/a"}, weight ${r.akaikeWeight?.toPrecision(3) ?? "n/a"} (${r.verdict})`,
+        )
         .concat(cmp.notes.map((n) => `note: ${n}`))
         .join("\n");
       return { json: { ...cmp, fits: fits.map((f) => ({ label: f.label, ...f.result })) }, text };

@@ -16,12 +16,29 @@ Options:
     const { positional } = parseOptions(args);
     if (positional[0] !== "list") throw new CliError('kinetics: unknown action; use "kinetics list".');
     const kinetics = CATALOGUE.map((k) => ({
-      id: k.id, name: k.name, species: k.species, form: k.form, source: k.source, units: k.units,
-      reactions: k.reactionExpressions, diffusion: k.diffusionExpressions.map((r, i) => r[i]),
+      id: k.id,
+      name: k.name,
+      species: k.species,
+      form: k.form,
+      source: k.source,
+      units: k.units,
+      reactions: k.reactionExpressions,
+      diffusion: k.diffusionExpressions.map((r, i) => r[i]),
       steadyStateForm: k.steadyStateForm ?? null,
-      parameters: k.parameters.map((p) => ({ name: p.name, meaning: p.meaning, default: p.default, min: p.min, max: p.max })),
+      parameters: k.parameters.map((p) => ({
+        name: p.name,
+        meaning: p.meaning,
+        default: p.default,
+        min: p.min,
+        max: p.max,
+      })),
     }));
-    const text = kinetics.map((k) => `${k.id.padEnd(30)} ${k.name}\n  ${k.form}\n  ${k.parameters.map((p) => `${p.name}=${p.default}`).join(", ")}\n  ${k.source}`).join("\n\n");
+    const text = kinetics
+      .map(
+        (k) =>
+          `${k.id.padEnd(30)} ${k.name}\n  ${k.form}\n  ${k.parameters.map((p) => `${p.name}=${p.default}`).join(", ")}\n  ${k.source}`,
+      )
+      .join("\n\n");
     return { json: { kinetics }, text };
   },
 };

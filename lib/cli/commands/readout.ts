@@ -51,12 +51,17 @@ const command: CliCommand = {
     try {
       if (kind === "csv" || kind === "tsv") {
         const table = readSpacingTable(bytes.toString("utf8"), {
-          x: str(options.x, "x"), y: str(options.y, "y"), position: str(options.position, "position"), spacing: str(options.spacing, "spacing"),
-          unit: (str(options.unit, "unit") ?? "um") as TableUnit, pixelSizeUm: pixelSize,
+          x: str(options.x, "x"),
+          y: str(options.y, "y"),
+          position: str(options.position, "position"),
+          spacing: str(options.spacing, "spacing"),
+          unit: (str(options.unit, "unit") ?? "um") as TableUnit,
+          pixelSizeUm: pixelSize,
         });
         return { json: { file: positional[0], fileKind: kind, ...table }, text: JSON.stringify(table, null, 2) };
       }
-      if (!kind) throw new CliError("The file is neither a PNG, JPEG or TIFF image nor a CSV/TSV table.", "unsupported");
+      if (!kind)
+        throw new CliError("The file is neither a PNG, JPEG or TIFF image nor a CSV/TSV table.", "unsupported");
       const ch = str(options.channel, "channel");
       const channel = ch === undefined || ch === "luminance" ? "luminance" : num(ch, "channel")!;
       const { image, info } = await decodeImage(bytes, { channel });
@@ -64,18 +69,37 @@ const command: CliCommand = {
       const roiText = str(options.roi, "roi");
       if (roiText) {
         const p = roiText.split(",").map(Number);
-        if (p.length !== 4 || p.some((v) => !Number.isFinite(v))) throw new CliError(`--roi needs x,y,w,h in pixels (got ${roiText}).`);
+        if (p.length !== 4 || p.some((v) => !Number.isFinite(v)))
+          throw new CliError(`--roi needs x,y,w,h in pixels (got ${roiText}).`);
         roi = { kind: "rect" as const, x: p[0], y: p[1], width: p[2], height: p[3] };
       }
       const pixelSizeUm = pixelSize ?? info.pixelSizeUm;
       const r = readWavelength(image, { pixelSizeUm, roi, invert: options.invert === true });
       const json = {
-        file: positional[0], fileKind: kind, format: info.format, widthPx: info.width, heightPx: info.height, channels: info.channels, bitDepth: info.bitDepth,
-        pixelSizeUm, pixelSizeSource: pixelSize !== undefined ? "option" : info.pixelSizeSource,
-        periodFound: r.periodFound, wavelengthUm: r.wavelengthUm, wavelengthPx: r.wavelengthPx, uncertaintyUm: r.uncertaintyUm, uncertaintyPx: r.uncertaintyPx,
-        uncertaintyMethod: r.uncertaintyMethod, significance: r.significance, significanceThreshold: r.significanceThreshold,
-        orientationDeg: r.orientationDeg, anisotropy: r.anisotropy, symmetry: r.symmetry, symmetryScores: r.symmetryScores,
-        nearestNeighbourUm: r.nearestNeighbourUm, nearestNeighbourUncertaintyUm: r.nearestNeighbourUncertaintyUm, autocorrelation: r.autocorrelation,
+        file: positional[0],
+        fileKind: kind,
+        format: info.format,
+        widthPx: info.width,
+        heightPx: info.height,
+        channels: info.channels,
+        bitDepth: info.bitDepth,
+        pixelSizeUm,
+        pixelSizeSource: pixelSize !== undefined ? "option" : info.pixelSizeSource,
+        periodFound: r.periodFound,
+        wavelengthUm: r.wavelengthUm,
+        wavelengthPx: r.wavelengthPx,
+        uncertaintyUm: r.uncertaintyUm,
+        uncertaintyPx: r.uncertaintyPx,
+        uncertaintyMethod: r.uncertaintyMethod,
+        significance: r.significance,
+        significanceThreshold: r.significanceThreshold,
+        orientationDeg: r.orientationDeg,
+        anisotropy: r.anisotropy,
+        symmetry: r.symmetry,
+        symmetryScores: r.symmetryScores,
+        nearestNeighbourUm: r.nearestNeighbourUm,
+        nearestNeighbourUncertaintyUm: r.nearestNeighbourUncertaintyUm,
+        autocorrelation: r.autocorrelation,
         warnings: [...(info.pixelSizeNote ? [info.pixelSizeNote] : []), ...r.warnings],
       };
       const text = r.periodFound
@@ -84,7 +108,8 @@ const command: CliCommand = {
         : `No significant period (significance ${r.significance.toPrecision(3)} < ${r.significanceThreshold}).`;
       return { json, text: [text, ...json.warnings.map((w) => `warning: ${w}`)].join("\n") };
     } catch (e) {
-      if (e instanceof ReadoutError || e instanceof ImagingError) throw new CliError(e.message, e.code, e.code === "too_large" ? 3 : 2);
+      if (e instanceof ReadoutError || e instanceof ImagingError)
+        throw new CliError(e.message, e.code, e.code === "too_large" ? 3 : 2);
       if (e instanceof SpacingError) throw new CliError(e.message, "bad_table");
       throw e;
     }

@@ -5,8 +5,15 @@ import { encodePng } from "../../imaging";
 import { KineticsInputError, resolveKinetics, resolveParameters, type KineticsSource } from "../../kinetics";
 import { readWavelength, ReadoutError } from "../../readout";
 import {
-  createReactionSystemFromKinetics, readKineticsDiffusion, readKineticsSteadyState, simulateReactionDiffusion,
-  SimulationOptionError, type ParameterProfile, type SchemeName, type SimulationOptions, type SimulationResult,
+  createReactionSystemFromKinetics,
+  readKineticsDiffusion,
+  readKineticsSteadyState,
+  simulateReactionDiffusion,
+  SimulationOptionError,
+  type ParameterProfile,
+  type SchemeName,
+  type SimulationOptions,
+  type SimulationResult,
 } from "../../simulation";
 import { createWorkerExecutor } from "../../simulation/parallel/worker-executor";
 
@@ -52,7 +59,13 @@ interface RunSpec {
   endTimeS: number;
   dtS?: number;
   scheme?: SchemeName;
-  initial?: { steadyState?: number[]; noiseAmplitude?: number | number[]; seed?: string | number; fields?: number[][]; fieldFiles?: string[] };
+  initial?: {
+    steadyState?: number[];
+    noiseAmplitude?: number | number[];
+    seed?: string | number;
+    fields?: number[][];
+    fieldFiles?: string[];
+  };
   stopWhenStationary?: boolean;
   stationarity?: SimulationOptions["stationarity"];
   snapshotTimesS?: number[];
@@ -68,8 +81,10 @@ function readSpec(file: string): RunSpec {
   }
   if (typeof raw !== "object" || raw === null) throw new CliError("The spec must be a JSON object.");
   const spec = raw as RunSpec;
-  if (typeof spec.kinetics !== "object" || spec.kinetics === null) throw new CliError('The spec needs "kinetics": {"catalogue": id} or {"definition": {...}}.');
-  if (typeof spec.grid !== "object" || spec.grid === null) throw new CliError('The spec needs "grid": {"lengthUm": [...], "cells": [...]}.');
+  if (typeof spec.kinetics !== "object" || spec.kinetics === null)
+    throw new CliError('The spec needs "kinetics": {"catalogue": id} or {"definition": {...}}.');
+  if (typeof spec.grid !== "object" || spec.grid === null)
+    throw new CliError('The spec needs "grid": {"lengthUm": [...], "cells": [...]}.');
   if (typeof spec.endTimeS !== "number") throw new CliError('The spec needs "endTimeS" (a number).');
   return spec;
 }
@@ -77,11 +92,14 @@ function readSpec(file: string): RunSpec {
 /** The chosen initial field of the spec, read and checked against the grid; null when none is given. */
 function readInitialFields(spec: RunSpec, specFile: string, species: number): Float64Array[] | null {
   const init = spec.initial ?? {};
-  if (init.fields !== undefined && init.fieldFiles !== undefined) throw new CliError("initial: give fields or fieldFiles, not both.");
+  if (init.fields !== undefined && init.fieldFiles !== undefined)
+    throw new CliError("initial: give fields or fieldFiles, not both.");
   const cells = (spec.grid.cells ?? []).reduce((a, b) => a * b, 1);
   if (init.fieldFiles !== undefined) {
     if (!Array.isArray(init.fieldFiles) || init.fieldFiles.length !== species) {
-      throw new CliError(`initial.fieldFiles must list ${species} files (one per species), got ${Array.isArray(init.fieldFiles) ? init.fieldFiles.length : typeof init.fieldFiles}.`);
+      throw new CliError(
+        `initial.fieldFiles must list ${species} files (one per species), got ${Array.isArray(init.fieldFiles) ? init.fieldFiles.length : typeof init.fieldFiles}.`,
+      );
     }
     return init.fieldFiles.map((name, s) => {
       const file = path.resolve(path.dirname(specFile), String(name));
@@ -89,20 +107,27 @@ function readInitialFields(spec: RunSpec, specFile: string, species: number): Fl
       try {
         bytes = readFileSync(file);
       } catch (e) {
-        throw new CliError(`initial.fieldFiles[${s}]: cannot read ${name} (${(e as NodeJS.ErrnoException).code ?? (e as Error).message}).`);
+        throw new CliError(
+          `initial.fieldFiles[${s}]: cannot read ${name} (${(e as NodeJS.ErrnoException).code ?? (e as Error).message}).`,
+        );
       }
       if (bytes.length !== 8 * cells) {
-        throw new CliError(`initial.fieldFiles[${s}] (${name}) has ${bytes.length} bytes; the grid ${spec.grid.cells.join(" × ")} needs ${8 * cells} (8 bytes of float64 per cell).`);
+        throw new CliError(
+          `initial.fieldFiles[${s}] (${name}) has ${bytes.length} bytes; the grid ${spec.grid.cells.join(" × ")} needs ${8 * cells} (8 bytes of float64 per cell).`,
+        );
       }
       return new Float64Array(bytes.buffer.slice(bytes.byteOffset, bytes.byteOffset + bytes.byteLength));
     });
   }
   if (init.fields !== undefined) {
     if (!Array.isArray(init.fields) || init.fields.length !== species) {
-      throw new CliError(`initial.fields must have ${species} arrays (one per species), got ${Array.isArray(init.fields) ? init.fields.length : typeof init.fields}.`);
+      throw new CliError(
+        `initial.fields must have ${species} arrays (one per species), got ${Array.isArray(init.fields) ? init.fields.length : typeof init.fields}.`,
+      );
     }
     return init.fields.map((f, s) => {
-      if (!Array.isArray(f) || !f.every((v) => typeof v === "number")) throw new CliError(`initial.fields[${s}] must be an array of numbers.`);
+      if (!Array.isArray(f) || !f.every((v) => typeof v === "number"))
+        throw new CliError(`initial.fields[${s}] must be an array of numbers.`);
       return Float64Array.from(f);
     });
   }
@@ -123,30 +148,46 @@ function summarise(result: SimulationResult) {
     stationarityTolerancePerS: result.stationarityTolerancePerS,
     seed: result.seed,
     blowUp: result.blowUp,
-    grid: { cells: result.grid.dimensions === 2 ? [result.grid.nx, result.grid.ny] : [result.grid.nx], lengthUm: result.grid.dimensions === 2 ? [result.grid.lengthXUm, result.grid.lengthYUm] : [result.grid.lengthXUm] },
+    grid: {
+      cells: result.grid.dimensions === 2 ? [result.grid.nx, result.grid.ny] : [result.grid.nx],
+      lengthUm: result.grid.dimensions === 2 ? [result.grid.lengthXUm, result.grid.lengthYUm] : [result.grid.lengthXUm],
+    },
     fields: result.speciesNames.map((name, s) => ({ species: name, ...result.stats[s] })),
     snapshots: result.snapshots.map((s) => ({ requestedTimeS: s.requestedTimeS, timeS: s.timeS, step: s.step })),
   };
 }
 
 function toGrey(field: Float64Array, width: number, height: number) {
-  let min = Infinity, max = -Infinity;
-  for (const v of field) { if (v < min) min = v; if (v > max) max = v; }
+  let min = Infinity,
+    max = -Infinity;
+  for (const v of field) {
+    if (v < min) min = v;
+    if (v > max) max = v;
+  }
   const span = max > min ? max - min : 1;
   const data = new Float32Array(width * height);
-  for (let y = 0; y < height; y++) for (let x = 0; x < width; x++) data[y * width + x] = (field[(height === 1 ? 0 : y) * width + x] - min) / span;
+  for (let y = 0; y < height; y++)
+    for (let x = 0; x < width; x++) data[y * width + x] = (field[(height === 1 ? 0 : y) * width + x] - min) / span;
   return { width, height, data };
 }
 
 function readPattern(result: SimulationResult) {
   const g = result.grid;
   if (g.dimensions !== 2) return { skipped: "1-D grid: the image readout needs a rectangle." };
-  if (Math.abs(g.spacingXUm / g.spacingYUm - 1) > 1e-9) return { skipped: "Cells are not square; the readout needs one pixel size." };
+  if (Math.abs(g.spacingXUm / g.spacingYUm - 1) > 1e-9)
+    return { skipped: "Cells are not square; the readout needs one pixel size." };
   try {
     const r = readWavelength(toGrey(result.fields[0], g.nx, g.ny), { pixelSizeUm: g.spacingXUm });
     return {
-      species: result.speciesNames[0], periodFound: r.periodFound, wavelengthUm: r.wavelengthUm, uncertaintyUm: r.uncertaintyUm,
-      significance: r.significance, symmetry: r.symmetry, nearestNeighbourUm: r.nearestNeighbourUm, orientationDeg: r.orientationDeg, warnings: r.warnings,
+      species: result.speciesNames[0],
+      periodFound: r.periodFound,
+      wavelengthUm: r.wavelengthUm,
+      uncertaintyUm: r.uncertaintyUm,
+      significance: r.significance,
+      symmetry: r.symmetry,
+      nearestNeighbourUm: r.nearestNeighbourUm,
+      orientationDeg: r.orientationDeg,
+      warnings: r.warnings,
     };
   } catch (e) {
     if (e instanceof ReadoutError) return { skipped: e.message };
@@ -156,7 +197,8 @@ function readPattern(result: SimulationResult) {
 
 async function writeOutputs(dir: string, result: SimulationResult, json: unknown): Promise<string[]> {
   mkdirSync(dir, { recursive: true });
-  const g = result.grid, written: string[] = [];
+  const g = result.grid,
+    written: string[] = [];
   for (let s = 0; s < result.fields.length; s++) {
     const name = result.speciesNames[s].replace(/[^A-Za-z0-9_-]/g, "_");
     const f64 = path.join(dir, `final-${name}.f64`);
@@ -184,7 +226,8 @@ const command: CliCommand = {
     const { options } = parseOptions(args, ["progress"]);
     if (typeof options.spec !== "string") throw new CliError("Give --spec RUN.json.");
     const threads = options.threads === undefined ? 1 : Number(options.threads);
-    if (threads !== 1 && threads !== 2) throw new CliError(`--threads must be 1 or 2 (got ${String(options.threads)}).`);
+    if (threads !== 1 && threads !== 2)
+      throw new CliError(`--threads must be 1 or 2 (got ${String(options.threads)}).`);
     const spec = readSpec(options.spec);
     const executor = threads === 2 ? createWorkerExecutor({ workers: 1 }) : undefined;
     try {
@@ -194,24 +237,49 @@ const command: CliCommand = {
       kinetics.parameters.forEach((s, i) => (params[s.name] = p[i]));
       const given = readInitialFields(spec, options.spec, kinetics.species.length);
       const steadyState = given ? null : (spec.initial?.steadyState ?? readKineticsSteadyState(kinetics, p));
-      if (!given && !steadyState) throw new CliError("This kinetics has no closed-form steady state; give initial.steadyState.");
+      if (!given && !steadyState)
+        throw new CliError("This kinetics has no closed-form steady state; give initial.steadyState.");
       const initial: SimulationOptions["initial"] = given
         ? { kind: "fields", fields: given, noiseAmplitude: spec.initial?.noiseAmplitude, seed: spec.initial?.seed }
-        : { kind: "steady-state-noise", steadyState: steadyState!, noiseAmplitude: spec.initial?.noiseAmplitude, seed: spec.initial?.seed ?? 1 };
+        : {
+            kind: "steady-state-noise",
+            steadyState: steadyState!,
+            noiseAmplitude: spec.initial?.noiseAmplitude,
+            seed: spec.initial?.seed ?? 1,
+          };
       const result = simulateReactionDiffusion(createReactionSystemFromKinetics(kinetics), {
-        grid: spec.grid, diffusionUm2PerS: readKineticsDiffusion(kinetics, p), params, spatialParams: spec.spatialParameters,
+        grid: spec.grid,
+        diffusionUm2PerS: readKineticsDiffusion(kinetics, p),
+        params,
+        spatialParams: spec.spatialParameters,
         initial,
-        endTimeS: spec.endTimeS, dtS: spec.dtS, scheme: spec.scheme, stopWhenStationary: spec.stopWhenStationary,
-        stationarity: spec.stationarity, snapshotTimesS: spec.snapshotTimesS, executor,
-        onProgress: options.progress === true ? (q) => process.stderr.write(`progress ${JSON.stringify({ timeS: q.timeS, fraction: q.fraction, steps: q.steps })}\n`) : undefined,
+        endTimeS: spec.endTimeS,
+        dtS: spec.dtS,
+        scheme: spec.scheme,
+        stopWhenStationary: spec.stopWhenStationary,
+        stationarity: spec.stationarity,
+        snapshotTimesS: spec.snapshotTimesS,
+        executor,
+        onProgress:
+          options.progress === true
+            ? (q) =>
+                process.stderr.write(
+                  `progress ${JSON.stringify({ timeS: q.timeS, fraction: q.fraction, steps: q.steps })}\n`,
+                )
+            : undefined,
       });
       const json: Record<string, unknown> = {
-        kinetics: kinetics.id, units: kinetics.units, lengthUnit: kinetics.units === "dimensional" ? "µm" : "model", ...summarise(result), readout: readPattern(result),
+        kinetics: kinetics.id,
+        units: kinetics.units,
+        lengthUnit: kinetics.units === "dimensional" ? "µm" : "model",
+        ...summarise(result),
+        readout: readPattern(result),
       };
       const sc = spec.scales;
       if (kinetics.units === "non-dimensional" && sc) {
         const ro = json.readout as { wavelengthUm?: number | null; nearestNeighbourUm?: number | null };
-        const l = sc.lengthScaleUm, t = sc.timeScaleS;
+        const l = sc.lengthScaleUm,
+          t = sc.timeScaleS;
         json.physical = {
           wavelengthUm: l && ro.wavelengthUm ? ro.wavelengthUm * l : null,
           nearestNeighbourUm: l && ro.nearestNeighbourUm ? ro.nearestNeighbourUm * l : null,

@@ -40,43 +40,77 @@ Limit: at most ${MAX_MAP_CELLS} cells.`,
     const { options } = parseOptions(args, ["summary"]);
     try {
       const kinetics = loadKinetics(options);
-      if (typeof options.x !== "string" || typeof options.y !== "string") throw new CliError("--x and --y are required, each name:min:max:n[:log].");
+      if (typeof options.x !== "string" || typeof options.y !== "string")
+        throw new CliError("--x and --y are required, each name:min:max:n[:log].");
       const target = numberOption(options, "target");
       const tolerance = numberOption(options, "tolerance");
-      if (tolerance !== undefined && target === undefined) throw new KineticsInputError("tolerance", "--tolerance needs --target.");
-      const source = typeof options["kinetics-file"] === "string" ? { definition: JSON.parse((await import("node:fs")).readFileSync(options["kinetics-file"], "utf8")) } : { catalogue: kinetics.id };
+      if (tolerance !== undefined && target === undefined)
+        throw new KineticsInputError("tolerance", "--tolerance needs --target.");
+      const source =
+        typeof options["kinetics-file"] === "string"
+          ? { definition: JSON.parse((await import("node:fs")).readFileSync(options["kinetics-file"], "utf8")) }
+          : { catalogue: kinetics.id };
       const workers = numberOption(options, "workers");
-      const r = await computeTuringMapParallel(source, {
-        x: parseAxis(options.x, "x"),
-        y: parseAxis(options.y, "y"),
-        parameters: typeof options.set === "string" ? parseAssignments(options.set) : {},
-        wavenumbers: numberOption(options, "wavenumbers"),
-        target: target === undefined ? undefined : { wavelength: target, tolerance: tolerance ?? 0.05 * target },
-        lengthScaleUm: numberOption(options, "length-scale"),
-        timeScaleS: numberOption(options, "time-scale"),
-        timeLimitMs: numberOption(options, "time-limit"),
-      }, workers === undefined ? {} : { workers });
+      const r = await computeTuringMapParallel(
+        source,
+        {
+          x: parseAxis(options.x, "x"),
+          y: parseAxis(options.y, "y"),
+          parameters: typeof options.set === "string" ? parseAssignments(options.set) : {},
+          wavenumbers: numberOption(options, "wavenumbers"),
+          target: target === undefined ? undefined : { wavelength: target, tolerance: tolerance ?? 0.05 * target },
+          lengthScaleUm: numberOption(options, "length-scale"),
+          timeScaleS: numberOption(options, "time-scale"),
+          timeLimitMs: numberOption(options, "time-limit"),
+        },
+        workers === undefined ? {} : { workers },
+      );
       const ell = r.lengthScaleUm;
       const nullable = (a: Float64Array, f = 1) => Array.from(a, (v) => (Number.isNaN(v) ? null : v * f));
       const summary = {
-        kinetics: r.kinetics, x: r.x, y: r.y, nx: r.nx, ny: r.ny, legend: r.legend,
-        lengthScaleUm: ell, timeScaleS: r.timeScaleS, turingFraction: r.turingFraction, counts: r.counts,
+        kinetics: r.kinetics,
+        x: r.x,
+        y: r.y,
+        nx: r.nx,
+        ny: r.ny,
+        legend: r.legend,
+        lengthScaleUm: ell,
+        timeScaleS: r.timeScaleS,
+        turingFraction: r.turingFraction,
+        counts: r.counts,
         target: r.target && {
-          wavelength: r.target.wavelength, tolerance: r.target.tolerance,
-          wavelengthUm: ell === null ? null : r.target.wavelength * ell, toleranceUm: ell === null ? null : r.target.tolerance * ell,
-          matchCount: r.target.matchCount, contour: r.target.contour,
+          wavelength: r.target.wavelength,
+          tolerance: r.target.tolerance,
+          wavelengthUm: ell === null ? null : r.target.wavelength * ell,
+          toleranceUm: ell === null ? null : r.target.tolerance * ell,
+          matchCount: r.target.matchCount,
+          contour: r.target.contour,
           ...(options.summary ? {} : { match: Array.from(r.target.match) }),
         },
-        elapsedMs: r.elapsedMs, workers: r.workers,
+        elapsedMs: r.elapsedMs,
+        workers: r.workers,
       };
-      const json = options.summary ? summary : {
-        ...summary, classes: Array.from(r.classes), wavelength: nullable(r.wavelength),
-        wavelengthUm: ell === null ? null : nullable(r.wavelength, ell), sigmaStar: nullable(r.sigmaStar),
-      };
-      const labels = Object.entries(r.counts).filter(([, c]) => c > 0).map(([k, c]) => `${k} ${c}`).join(", ");
-      const text = `${r.kinetics.name}: ${r.nx} × ${r.ny} cells over ${r.x.name} × ${r.y.name} in ${r.elapsedMs} ms (${r.workers} workers)\nTuring fraction ${(100 * r.turingFraction).toFixed(2)} %; ${labels}` +
-        (r.target ? `\ncells within target: ${r.target.matchCount}; contour segments: ${r.target.contour.length}` : "") +
-        `\nlegend of the bit flags: ${Object.keys(r.legend).map((k) => `${k}=${r.legend[k]}`).join(", ")} (3 = ${classLabel(3)})`;
+      const json = options.summary
+        ? summary
+        : {
+            ...summary,
+            classes: Array.from(r.classes),
+            wavelength: nullable(r.wavelength),
+            wavelengthUm: ell === null ? null : nullable(r.wavelength, ell),
+            sigmaStar: nullable(r.sigmaStar),
+          };
+      const labels = Object.entries(r.counts)
+        .filter(([, c]) => c > 0)
+        .map(([k, c]) => `${k} ${c}`)
+        .join(", ");
+      const text =
+        `${r.kinetics.name}: ${r.nx} × ${r.ny} cells over ${r.x.name} × ${r.y.name} in ${r.elapsedMs} ms (${r.workers} workers)\nTuring fraction ${(100 * r.turingFraction).toFixed(2)} %; ${labels}` +
+        (r.target
+          ? `\ncells within target: ${r.target.matchCount}; contour segments: ${r.target.contour.length}`
+          : "") +
+        `\nlegend of the bit flags: ${Object.keys(r.legend)
+          .map((k) => `${k}=${r.legend[k]}`)
+          .join(", ")} (3 = ${classLabel(3)})`;
       return { json, text };
     } catch (err) {
       throw asCliError(err);

@@ -20,13 +20,23 @@ export const brusselatorThreeSpecies = defineCatalogueKinetics({
   reactions: ["a - (1 + b) * x + x^2 * y - c * x + d * z", "b * x - x^2 * y", "c * x - d * z"],
   diffusion: ["Dx", "Dy", "Dz"],
   rates(s, p, out) {
-    const x = s[0], y = s[1], z = s[2], a = p[0], b = p[1], c = p[2], d = p[3];
+    const x = s[0],
+      y = s[1],
+      z = s[2],
+      a = p[0],
+      b = p[1],
+      c = p[2],
+      d = p[3];
     out[0] = a - (1 + b) * x + x * x * y - c * x + d * z;
     out[1] = b * x - x * x * y;
     out[2] = c * x - d * z;
   },
   jacobian(s, p, out) {
-    const x = s[0], y = s[1], b = p[1], c = p[2], d = p[3];
+    const x = s[0],
+      y = s[1],
+      b = p[1],
+      c = p[2],
+      d = p[3];
     out[0] = -(1 + b) + 2 * x * y - c;
     out[1] = x * x;
     out[2] = d;

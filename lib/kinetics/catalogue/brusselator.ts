@@ -16,12 +16,17 @@ export const brusselator = defineCatalogueKinetics({
   reactions: ["a - (b + 1) * u + u^2 * v", "b * u - u^2 * v"],
   diffusion: ["Du", "Dv"],
   rates(c, p, out) {
-    const u = c[0], v = c[1], a = p[0], b = p[1];
+    const u = c[0],
+      v = c[1],
+      a = p[0],
+      b = p[1];
     out[0] = a - (b + 1) * u + u * u * v;
     out[1] = b * u - u * u * v;
   },
   jacobian(c, p, out) {
-    const u = c[0], v = c[1], b = p[1];
+    const u = c[0],
+      v = c[1],
+      b = p[1];
     out[0] = -(b + 1) + 2 * u * v;
     out[1] = u * u;
     out[2] = b - 2 * u * v;

@@ -40,7 +40,9 @@ export function defineCatalogueKinetics(spec: CatalogueSpec): CatalogueKinetics 
     parameters: spec.parameters,
     units: "non-dimensional",
     reactionExpressions: spec.reactions,
-    diffusionExpressions: Array.from({ length: n }, (_, i) => Array.from({ length: n }, (_, j) => (i === j ? spec.diffusion[i] : "0"))),
+    diffusionExpressions: Array.from({ length: n }, (_, i) =>
+      Array.from({ length: n }, (_, j) => (i === j ? spec.diffusion[i] : "0")),
+    ),
     diagonalDiffusion: true,
     nonNegative: spec.nonNegative ?? true,
     rates: spec.rates,

@@ -7,7 +7,8 @@ const roots = new Float64Array(3);
 export const fitzhughNagumo = defineCatalogueKinetics({
   id: "fitzhugh-nagumo",
   name: "FitzHugh–Nagumo type (linear–cubic)",
-  source: "FitzHugh R. (1961) Biophys. J. 1:445–466; Nagumo J., Arimoto S. & Yoshizawa S. (1962) Proc. IRE 50:2061–2070; with diffusion of both species (activator–inhibitor form)",
+  source:
+    "FitzHugh R. (1961) Biophys. J. 1:445–466; Nagumo J., Arimoto S. & Yoshizawa S. (1962) Proc. IRE 50:2061–2070; with diffusion of both species (activator–inhibitor form)",
   form: "u_t = γ(u − u³/3 − v) + ∇²u, v_t = γε(u + a − bv) + d∇²v",
   species: ["u", "v"],
   parameters: [
@@ -20,12 +21,15 @@ export const fitzhughNagumo = defineCatalogueKinetics({
   reactions: ["gamma * (u - u^3 / 3 - v)", "gamma * eps * (u + a - b * v)"],
   diffusion: ["1", "d"],
   rates(c, p, out) {
-    const u = c[0], v = c[1], g = p[0];
+    const u = c[0],
+      v = c[1],
+      g = p[0];
     out[0] = g * (u - (u * u * u) / 3 - v);
     out[1] = g * p[1] * (u + p[2] - p[3] * v);
   },
   jacobian(c, p, out) {
-    const u = c[0], g = p[0];
+    const u = c[0],
+      g = p[0];
     out[0] = g * (1 - u * u);
     out[1] = -g;
     out[2] = g * p[1];
@@ -36,7 +40,8 @@ export const fitzhughNagumo = defineCatalogueKinetics({
   },
   // v = (u + a)/b on the v-nullcline, so b u³ + 3(1 − b) u + 3a = 0 (one or three real roots).
   steadyStates(p, out) {
-    const a = p[2], b = p[3];
+    const a = p[2],
+      b = p[3];
     const n = solveCubicReal(b, 0, 3 * (1 - b), 3 * a, roots);
     for (let i = 0; i < n; i++) {
       out[2 * i] = roots[i];

@@ -1,7 +1,8 @@
 import { solveCubicReal } from "../cubic";
 import { defineCatalogueKinetics, GAMMA, param, writeUnitAndRatio } from "./define";
 
-const SOURCE = "Gierer A. & Meinhardt H. (1972) Kybernetik 12:30–39; non-dimensional form of Murray J.D. (2003) Mathematical Biology II, 3rd ed., Springer, §2.3";
+const SOURCE =
+  "Gierer A. & Meinhardt H. (1972) Kybernetik 12:30–39; non-dimensional form of Murray J.D. (2003) Mathematical Biology II, 3rd ed., Springer, §2.3";
 
 /** p = [gamma, a, b, d] */
 export const giererMeinhardt = defineCatalogueKinetics({
@@ -19,12 +20,16 @@ export const giererMeinhardt = defineCatalogueKinetics({
   reactions: ["gamma * (a - b * u + u^2 / v)", "gamma * (u^2 - v)"],
   diffusion: ["1", "d"],
   rates(c, p, out) {
-    const u = c[0], v = c[1], g = p[0];
+    const u = c[0],
+      v = c[1],
+      g = p[0];
     out[0] = g * (p[1] - p[2] * u + (u * u) / v);
     out[1] = g * (u * u - v);
   },
   jacobian(c, p, out) {
-    const u = c[0], v = c[1], g = p[0];
+    const u = c[0],
+      v = c[1],
+      g = p[0];
     out[0] = g * (-p[2] + (2 * u) / v);
     out[1] = g * (-(u * u) / (v * v));
     out[2] = g * 2 * u;
@@ -62,12 +67,17 @@ export const giererMeinhardtSaturation = defineCatalogueKinetics({
   reactions: ["gamma * (a - b * u + u^2 / (v * (1 + K * u^2)))", "gamma * (u^2 - v)"],
   diffusion: ["1", "d"],
   rates(c, p, out) {
-    const u = c[0], v = c[1], g = p[0];
+    const u = c[0],
+      v = c[1],
+      g = p[0];
     out[0] = g * (p[1] - p[2] * u + (u * u) / (v * (1 + p[3] * u * u)));
     out[1] = g * (u * u - v);
   },
   jacobian(c, p, out) {
-    const u = c[0], v = c[1], g = p[0], s = 1 + p[3] * u * u;
+    const u = c[0],
+      v = c[1],
+      g = p[0],
+      s = 1 + p[3] * u * u;
     out[0] = g * (-p[2] + (2 * u) / (v * s * s));
     out[1] = g * (-(u * u) / (v * v * s));
     out[2] = g * 2 * u;
@@ -78,7 +88,9 @@ export const giererMeinhardtSaturation = defineCatalogueKinetics({
   },
   // v = u², then (a − bu)(1 + Ku²) + 1 = 0: −bK u³ + aK u² − b u + (a + 1) = 0, one positive root.
   steadyStates(p, out) {
-    const a = p[1], b = p[2], K = p[3];
+    const a = p[1],
+      b = p[2],
+      K = p[3];
     const n = solveCubicReal(-b * K, a * K, -b, a + 1, roots);
     let m = 0;
     for (let i = 0; i < n; i++) {

@@ -16,12 +16,15 @@ export const grayScott = defineCatalogueKinetics({
   reactions: ["-u * v^2 + F * (1 - u)", "u * v^2 - (F + k) * v"],
   diffusion: ["Du", "Dv"],
   rates(c, p, out) {
-    const u = c[0], v = c[1], uvv = u * v * v;
+    const u = c[0],
+      v = c[1],
+      uvv = u * v * v;
     out[0] = -uvv + p[0] * (1 - u);
     out[1] = uvv - (p[0] + p[1]) * v;
   },
   jacobian(c, p, out) {
-    const u = c[0], v = c[1];
+    const u = c[0],
+      v = c[1];
     out[0] = -v * v - p[0];
     out[1] = -2 * u * v;
     out[2] = v * v;
@@ -36,7 +39,8 @@ export const grayScott = defineCatalogueKinetics({
   // Nontrivial states: uv = F + k, (F + k)v² − Fv + F(F + k) = 0; u = 1 − (F + k)v/F.
   // Listed first (upper branch, lower branch), then the trivial state (1, 0).
   steadyStates(p, out) {
-    const F = p[0], s = p[0] + p[1];
+    const F = p[0],
+      s = p[0] + p[1];
     let m = 0;
     const disc = F * F - 4 * F * s * s;
     if (F > 0 && s > 0 && disc >= 0) {

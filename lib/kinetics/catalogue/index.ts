@@ -13,8 +13,15 @@ export type { CatalogueKinetics } from "./define";
 
 /** Every catalogue kinetics, in display order. */
 export const CATALOGUE: readonly CatalogueKinetics[] = [
-  schnakenberg, giererMeinhardt, giererMeinhardtSaturation, brusselator, lengyelEpstein,
-  fitzhughNagumo, thomas, grayScott, brusselatorThreeSpecies,
+  schnakenberg,
+  giererMeinhardt,
+  giererMeinhardtSaturation,
+  brusselator,
+  lengyelEpstein,
+  fitzhughNagumo,
+  thomas,
+  grayScott,
+  brusselatorThreeSpecies,
 ];
 
 /** Ids of the catalogue, in display order. */
@@ -25,6 +32,10 @@ export function listCatalogueIds(): string[] {
 /** The catalogue kinetics with this id, or a {@link KineticsInputError} naming `field`. */
 export function getCatalogueKinetics(id: string, field = "kinetics"): CatalogueKinetics {
   const k = CATALOGUE.find((c) => c.id === id);
-  if (!k) throw new KineticsInputError(field, `Unknown kinetics "${id}"; the catalogue has: ${listCatalogueIds().join(", ")}.`);
+  if (!k)
+    throw new KineticsInputError(
+      field,
+      `Unknown kinetics "${id}"; the catalogue has: ${listCatalogueIds().join(", ")}.`,
+    );
   return k;
 }

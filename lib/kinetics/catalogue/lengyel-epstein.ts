@@ -16,12 +16,17 @@ export const lengyelEpstein = defineCatalogueKinetics({
   reactions: ["a - u - 4 * u * v / (1 + u^2)", "sigma * b * (u - u * v / (1 + u^2))"],
   diffusion: ["1", "sigma * d"],
   rates(c, p, out) {
-    const u = c[0], v = c[1], s = 1 + u * u;
+    const u = c[0],
+      v = c[1],
+      s = 1 + u * u;
     out[0] = p[0] - u - (4 * u * v) / s;
     out[1] = p[2] * p[1] * (u - (u * v) / s);
   },
   jacobian(c, p, out) {
-    const u = c[0], v = c[1], s = 1 + u * u, sb = p[2] * p[1];
+    const u = c[0],
+      v = c[1],
+      s = 1 + u * u,
+      sb = p[2] * p[1];
     const dq = (1 - u * u) / (s * s); // d/du [u/(1+u²)]
     out[0] = -1 - 4 * v * dq;
     out[1] = (-4 * u) / s;

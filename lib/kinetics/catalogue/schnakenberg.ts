@@ -4,7 +4,8 @@ import { defineCatalogueKinetics, GAMMA, param, writeUnitAndRatio } from "./defi
 export const schnakenberg = defineCatalogueKinetics({
   id: "schnakenberg",
   name: "Schnakenberg",
-  source: "Schnakenberg J. (1979) J. Theor. Biol. 81:389–400; non-dimensional form of Murray J.D. (2003) Mathematical Biology II, 3rd ed., Springer, §2.3–2.4",
+  source:
+    "Schnakenberg J. (1979) J. Theor. Biol. 81:389–400; non-dimensional form of Murray J.D. (2003) Mathematical Biology II, 3rd ed., Springer, §2.3–2.4",
   form: "u_t = γ(a − u + u²v) + ∇²u, v_t = γ(b − u²v) + d∇²v",
   species: ["u", "v"],
   parameters: [
@@ -16,12 +17,16 @@ export const schnakenberg = defineCatalogueKinetics({
   reactions: ["gamma * (a - u + u^2 * v)", "gamma * (b - u^2 * v)"],
   diffusion: ["1", "d"],
   rates(c, p, out) {
-    const u = c[0], v = c[1], g = p[0];
+    const u = c[0],
+      v = c[1],
+      g = p[0];
     out[0] = g * (p[1] - u + u * u * v);
     out[1] = g * (p[2] - u * u * v);
   },
   jacobian(c, p, out) {
-    const u = c[0], v = c[1], g = p[0];
+    const u = c[0],
+      v = c[1],
+      g = p[0];
     out[0] = g * (-1 + 2 * u * v);
     out[1] = g * u * u;
     out[2] = g * -2 * u * v;

@@ -7,7 +7,8 @@ const roots = new Float64Array(3);
 export const thomas = defineCatalogueKinetics({
   id: "thomas",
   name: "Thomas (substrate inhibition)",
-  source: "Thomas D. (1975) in Analysis and Control of Immobilized Enzyme Systems (Thomas D. & Kernevez J.-P., eds), North-Holland, 115–150; non-dimensional form of Murray J.D. (2003) Mathematical Biology II, 3rd ed., Springer, §2.3",
+  source:
+    "Thomas D. (1975) in Analysis and Control of Immobilized Enzyme Systems (Thomas D. & Kernevez J.-P., eds), North-Holland, 115–150; non-dimensional form of Murray J.D. (2003) Mathematical Biology II, 3rd ed., Springer, §2.3",
   form: "u_t = γ(a − u − ρuv/(1 + u + Ku²)) + ∇²u, v_t = γ(α(b − v) − ρuv/(1 + u + Ku²)) + d∇²v",
   species: ["u", "v"],
   parameters: [
@@ -25,13 +26,19 @@ export const thomas = defineCatalogueKinetics({
   ],
   diffusion: ["1", "d"],
   rates(c, p, out) {
-    const u = c[0], v = c[1], g = p[0];
+    const u = c[0],
+      v = c[1],
+      g = p[0];
     const h = (p[4] * u * v) / (1 + u + p[5] * u * u);
     out[0] = g * (p[1] - u - h);
     out[1] = g * (p[3] * (p[2] - v) - h);
   },
   jacobian(c, p, out) {
-    const u = c[0], v = c[1], g = p[0], rho = p[4], K = p[5];
+    const u = c[0],
+      v = c[1],
+      g = p[0],
+      rho = p[4],
+      K = p[5];
     const den = 1 + u + K * u * u;
     const hu = (rho * v * (1 - K * u * u)) / (den * den);
     const hv = (rho * u) / den;
@@ -45,7 +52,11 @@ export const thomas = defineCatalogueKinetics({
   },
   // v = b − (a − u)/α, then −K u³ + (aK − 1 − ρ/α) u² + (a − 1 − ρb + ρa/α) u + a = 0.
   steadyStates(p, out) {
-    const a = p[1], b = p[2], al = p[3], rho = p[4], K = p[5];
+    const a = p[1],
+      b = p[2],
+      al = p[3],
+      rho = p[4],
+      K = p[5];
     const n = solveCubicReal(-K, a * K - 1 - rho / al, a - 1 - rho * b + (rho * a) / al, a, roots);
     let m = 0;
     for (let i = 0; i < n; i++) {

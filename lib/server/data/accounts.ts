@@ -34,15 +34,31 @@ async function createAccountWithLab(input: NewAccount) {
   try {
     return await sequelize.transaction(async (transaction) => {
       const existing = await m.User.findOne({ where: { email: input.email }, transaction });
-      if (existing) throw new AppError("conflict", `an account with the e-mail ${input.email} already exists; sign in instead`);
-      const user = await m.User.create({ name: input.name, email: input.email, passwordHash: input.passwordHash, emailVerified: input.emailVerified }, { transaction });
+      if (existing)
+        throw new AppError("conflict", `an account with the e-mail ${input.email} already exists; sign in instead`);
+      const user = await m.User.create(
+        { name: input.name, email: input.email, passwordHash: input.passwordHash, emailVerified: input.emailVerified },
+        { transaction },
+      );
       const lab = await m.Lab.create({ name: input.labName, createdBy: user.id }, { transaction });
       await m.Membership.create({ labId: lab.id, userId: user.id, role: "manager" }, { transaction });
-      await recordAudit(m, { labId: lab.id, actor: { userId: user.id, email: user.email }, action: "lab.created", targetType: "lab", targetId: lab.id, summary: `${user.email} created the lab “${lab.name}” and is its lab manager` }, transaction);
+      await recordAudit(
+        m,
+        {
+          labId: lab.id,
+          actor: { userId: user.id, email: user.email },
+          action: "lab.created",
+          targetType: "lab",
+          targetId: lab.id,
+          summary: `${user.email} created the lab “${lab.name}” and is its lab manager`,
+        },
+        transaction,
+      );
       return { userId: user.id, labId: lab.id };
     });
   } catch (err) {
-    if (err instanceof UniqueConstraintError) throw new AppError("conflict", `an account with the e-mail ${input.email} already exists; sign in instead`);
+    if (err instanceof UniqueConstraintError)
+      throw new AppError("conflict", `an account with the e-mail ${input.email} already exists; sign in instead`);
     throw err;
   }
 }
@@ -64,7 +80,10 @@ export interface SignupAnswer {
  * created when it is opened); an address with an account gets a mail saying so, with a sign-in
  * link. Both mails leave after the answer (sendInBackground).
  */
-export async function requestSignup(input: { name: string; email: string; password: string; labName: string }, address: string): Promise<SignupAnswer> {
+export async function requestSignup(
+  input: { name: string; email: string; password: string; labName: string },
+  address: string,
+): Promise<SignupAnswer> {
   await enforceRateLimit("signUp", { account: input.email, address });
   const m = await database();
   const { config } = services();
@@ -82,22 +101,38 @@ export async function requestSignup(input: { name: string; email: string; passwo
   } else {
     const token = newSecret("su", 24);
     const expiresAt = new Date(Date.now() + config.signupLinkHours * 3600_000);
-    await m.SignupRequest.create({ tokenHash: sha256Hex(token), email: input.email, name: input.name, labName: input.labName, passwordHash, expiresAt });
+    await m.SignupRequest.create({
+      tokenHash: sha256Hex(token),
+      email: input.email,
+      name: input.name,
+      labName: input.labName,
+      passwordHash,
+      expiresAt,
+    });
     sendInBackground({
       to: input.email,
       subject: "Confirm your Morphokin account",
       text: `Open this link to confirm your address and create your Morphokin account and the lab “${input.labName}”:\n\n${base}/signup/confirm/${token}\n\nThe link works once and expires on ${expiresAt.toUTCString()}. If you did not sign up, ignore this message.`,
     });
   }
-  return { status: "check-email", email: input.email, message: `Check your e-mail: a message to ${input.email} tells you how to go on.` };
+  return {
+    status: "check-email",
+    email: input.email,
+    message: `Check your e-mail: a message to ${input.email} tells you how to go on.`,
+  };
 }
 
 async function findSignupRequest(token: string) {
   const m = await database();
   const request = await m.SignupRequest.findOne({ where: { tokenHash: sha256Hex(token) } });
-  if (!request) throw new AppError("not_found", "this confirmation link is not valid; check that you copied the whole link from the e-mail");
+  if (!request)
+    throw new AppError(
+      "not_found",
+      "this confirmation link is not valid; check that you copied the whole link from the e-mail",
+    );
   if (request.usedAt) throw new AppError("conflict", "this confirmation link was already used; sign in instead");
-  if (request.expiresAt.getTime() <= Date.now()) throw new AppError("conflict", "this confirmation link has expired; sign up again");
+  if (request.expiresAt.getTime() <= Date.now())
+    throw new AppError("conflict", "this confirmation link has expired; sign up again");
   return request;
 }
 
@@ -120,10 +155,19 @@ export async function confirmSignup(token: string, password: string) {
   }
   const m = await database();
   // Claim the link first, so two clicks cannot both create the account.
-  const [claimed] = await m.SignupRequest.update({ usedAt: new Date() }, { where: { id: request.id, usedAt: { [Op.is]: null } } });
+  const [claimed] = await m.SignupRequest.update(
+    { usedAt: new Date() },
+    { where: { id: request.id, usedAt: { [Op.is]: null } } },
+  );
   if (claimed === 0) throw new AppError("conflict", "this confirmation link was already used; sign in instead");
   try {
-    const created = await createAccountWithLab({ name: request.name, email: request.email, passwordHash: request.passwordHash, labName: request.labName, emailVerified: new Date() });
+    const created = await createAccountWithLab({
+      name: request.name,
+      email: request.email,
+      passwordHash: request.passwordHash,
+      labName: request.labName,
+      emailVerified: new Date(),
+    });
     return { ...created, email: request.email };
   } catch (err) {
     if (!(err instanceof AppError)) await m.SignupRequest.update({ usedAt: null }, { where: { id: request.id } });
@@ -132,7 +176,11 @@ export async function confirmSignup(token: string, password: string) {
 }
 
 /** Changes the password after checking the current one, and ends every other session of the account. */
-export async function changePassword(actor: Actor, input: { currentPassword: string; newPassword: string }, keepSid: string | null) {
+export async function changePassword(
+  actor: Actor,
+  input: { currentPassword: string; newPassword: string },
+  keepSid: string | null,
+) {
   const m = await database();
   const user = await m.User.findByPk(actor.userId);
   if (!user) throw new AppError("unauthenticated", "your account no longer exists");
@@ -142,7 +190,8 @@ export async function changePassword(actor: Actor, input: { currentPassword: str
     await recordFailedPassword(user.email);
     throw new AppError("unauthenticated", "current password: that is not your current password");
   }
-  if (input.currentPassword === input.newPassword) throw new AppError("bad_input", "new password: choose a password different from the current one");
+  if (input.currentPassword === input.newPassword)
+    throw new AppError("bad_input", "new password: choose a password different from the current one");
   await user.update({ passwordHash: await hashPassword(input.newPassword) });
   const ended = await closeOtherSessions(user.id, keepSid);
   return { changed: true, endedSessions: ended };
@@ -179,7 +228,18 @@ export async function createLab(actor: Actor, name: string) {
   return services().db.sequelize.transaction(async (transaction) => {
     const lab = await m.Lab.create({ name, createdBy: actor.userId }, { transaction });
     await m.Membership.create({ labId: lab.id, userId: actor.userId, role: "manager" }, { transaction });
-    await recordAudit(m, { labId: lab.id, actor, action: "lab.created", targetType: "lab", targetId: lab.id, summary: `${actor.email} created the lab “${name}” and is its lab manager` }, transaction);
+    await recordAudit(
+      m,
+      {
+        labId: lab.id,
+        actor,
+        action: "lab.created",
+        targetType: "lab",
+        targetId: lab.id,
+        summary: `${actor.email} created the lab “${name}” and is its lab manager`,
+      },
+      transaction,
+    );
     return { id: lab.id, name: lab.name, role: "manager" as const };
   });
 }

@@ -43,16 +43,37 @@ export interface AuditEventDto {
 
 export const AUDIT_SORTS = ["at", "action", "actorEmail"] as const;
 
-export async function listAudit(ctx: LabContext, q: ListQuery<(typeof AUDIT_SORTS)[number]>): Promise<ListResult<AuditEventDto>> {
+export async function listAudit(
+  ctx: LabContext,
+  q: ListQuery<(typeof AUDIT_SORTS)[number]>,
+): Promise<ListResult<AuditEventDto>> {
   const m = await database();
   const where = {
     labId: ctx.labId,
-    ...(q.q ? { [Op.or]: [{ summary: containsText(q.q) }, { action: containsText(q.q) }, { actorEmail: containsText(q.q) }] } : {}),
+    ...(q.q
+      ? { [Op.or]: [{ summary: containsText(q.q) }, { action: containsText(q.q) }, { actorEmail: containsText(q.q) }] }
+      : {}),
   };
   const column = q.sort === "at" ? "createdAt" : q.sort;
-  const { rows, count } = await m.AuditEvent.findAndCountAll({ where, order: [[column, q.dir], ["id", "asc"]], limit: q.pageSize, offset: (q.page - 1) * q.pageSize });
+  const { rows, count } = await m.AuditEvent.findAndCountAll({
+    where,
+    order: [
+      [column, q.dir],
+      ["id", "asc"],
+    ],
+    limit: q.pageSize,
+    offset: (q.page - 1) * q.pageSize,
+  });
   return {
-    items: rows.map((e) => ({ id: e.id, at: e.createdAt.toISOString(), actorEmail: e.actorEmail, action: e.action, targetType: e.targetType, targetId: e.targetId, summary: e.summary })),
+    items: rows.map((e) => ({
+      id: e.id,
+      at: e.createdAt.toISOString(),
+      actorEmail: e.actorEmail,
+      action: e.action,
+      targetType: e.targetType,
+      targetId: e.targetId,
+      summary: e.summary,
+    })),
     page: q.page,
     pageSize: q.pageSize,
     total: count,
@@ -69,7 +90,11 @@ export interface FieldChange {
 }
 
 /** The fields of `input` whose value differs from `before`, named by `labels` (fields without a label are skipped). */
-export function changedFields<T extends object>(before: T, input: Partial<T>, labels: Partial<Record<keyof T, string>>): FieldChange[] {
+export function changedFields<T extends object>(
+  before: T,
+  input: Partial<T>,
+  labels: Partial<Record<keyof T, string>>,
+): FieldChange[] {
   const changes: FieldChange[] = [];
   for (const key of Object.keys(input) as (keyof T)[]) {
     const label = labels[key];
@@ -82,7 +107,8 @@ export function changedFields<T extends object>(before: T, input: Partial<T>, la
 }
 
 const SHOWN_CHARS = 60;
-const quote = (v: string | null) => (v === null || v === "" ? "(empty)" : `“${v.length > SHOWN_CHARS ? `${v.slice(0, SHOWN_CHARS)}…` : v}”`);
+const quote = (v: string | null) =>
+  v === null || v === "" ? "(empty)" : `“${v.length > SHOWN_CHARS ? `${v.slice(0, SHOWN_CHARS)}…` : v}”`;
 
 /** `Tissue “skin” → “dorsal skin”; Notes (empty) → “fixed at E7”` — long texts shortened; the details keep them whole. */
 export function describeChanges(changes: FieldChange[]): string {
@@ -98,7 +124,8 @@ export const fitSummary = (s: string) => (s.length > 500 ? `${s.slice(0, 499)}�
 // ("Members' sign-ins and API tokens"). A failed sign-in with an unknown address belongs to no
 // account and is kept (for an administrator reading the database) but shown to nobody.
 
-export type AccountAction = "signin.succeeded" | "signin.failed" | "signin.locked" | "token.created" | "token.revoked" | "token.expired";
+export type AccountAction =
+  "signin.succeeded" | "signin.failed" | "signin.locked" | "token.created" | "token.revoked" | "token.expired";
 
 export interface AccountEventEntry {
   userId: string | null;
@@ -109,7 +136,16 @@ export interface AccountEventEntry {
 }
 
 export async function recordAccountEvent(m: Models, entry: AccountEventEntry, transaction?: Transaction) {
-  await m.AccountEvent.create({ userId: entry.userId, email: entry.email, action: entry.action, summary: fitSummary(entry.summary), details: entry.details ?? null }, { transaction });
+  await m.AccountEvent.create(
+    {
+      userId: entry.userId,
+      email: entry.email,
+      action: entry.action,
+      summary: fitSummary(entry.summary),
+      details: entry.details ?? null,
+    },
+    { transaction },
+  );
 }
 
 export interface SignInAttempt {
@@ -137,15 +173,22 @@ export async function recordSignIn(attempt: SignInAttempt): Promise<void> {
     const user = await m.User.findOne({ where: { email }, attributes: ["id"] });
     const how = `with ${attempt.method}${attempt.ip ? ` from ${attempt.ip}` : ""}`;
     const summary =
-      attempt.outcome === "succeeded" ? `${email} signed in ${how}`
-      : attempt.outcome === "failed" ? `Failed sign-in as ${email} ${how}${attempt.reason ? `: ${attempt.reason}` : ""}`
-      : `${email} was locked out after repeated failed sign-ins ${how}${attempt.lockedUntil ? `, until ${attempt.lockedUntil.toISOString().replace(/\.\d+Z$/, "Z")}` : ""}`;
+      attempt.outcome === "succeeded"
+        ? `${email} signed in ${how}`
+        : attempt.outcome === "failed"
+          ? `Failed sign-in as ${email} ${how}${attempt.reason ? `: ${attempt.reason}` : ""}`
+          : `${email} was locked out after repeated failed sign-ins ${how}${attempt.lockedUntil ? `, until ${attempt.lockedUntil.toISOString().replace(/\.\d+Z$/, "Z")}` : ""}`;
     await recordAccountEvent(m, {
       userId: user?.id ?? null,
       email,
       action: `signin.${attempt.outcome}`,
       summary,
-      details: { method: attempt.method, ...(attempt.reason ? { reason: attempt.reason } : {}), ...(attempt.ip ? { ip: attempt.ip } : {}), ...(attempt.lockedUntil ? { lockedUntil: attempt.lockedUntil.toISOString() } : {}) },
+      details: {
+        method: attempt.method,
+        ...(attempt.reason ? { reason: attempt.reason } : {}),
+        ...(attempt.ip ? { ip: attempt.ip } : {}),
+        ...(attempt.lockedUntil ? { lockedUntil: attempt.lockedUntil.toISOString() } : {}),
+      },
     });
   } catch (err) {
     console.error("could not record a sign-in in the audit trail", err);
@@ -160,12 +203,31 @@ export interface AccountEventDto {
   summary: string;
 }
 
-const toAccountDto = (e: { id: string; createdAt: Date; email: string | null; action: string; summary: string }): AccountEventDto => ({ id: e.id, at: e.createdAt.toISOString(), email: e.email, action: e.action as AccountAction, summary: e.summary });
+const toAccountDto = (e: {
+  id: string;
+  createdAt: Date;
+  email: string | null;
+  action: string;
+  summary: string;
+}): AccountEventDto => ({
+  id: e.id,
+  at: e.createdAt.toISOString(),
+  email: e.email,
+  action: e.action as AccountAction,
+  summary: e.summary,
+});
 
 /** The newest account events of one account (its Account page). */
 export async function listOwnAccountEvents(userId: string, limit = 20): Promise<AccountEventDto[]> {
   const m = await database();
-  const rows = await m.AccountEvent.findAll({ where: { userId }, order: [["createdAt", "desc"], ["id", "asc"]], limit });
+  const rows = await m.AccountEvent.findAll({
+    where: { userId },
+    order: [
+      ["createdAt", "desc"],
+      ["id", "asc"],
+    ],
+    limit,
+  });
   return rows.map(toAccountDto);
 }
 
@@ -175,6 +237,13 @@ export async function listMemberAccountEvents(ctx: LabContext, limit = 50): Prom
   const m = await database();
   const members = await m.Membership.findAll({ where: { labId: ctx.labId }, attributes: ["userId"] });
   if (members.length === 0) return [];
-  const rows = await m.AccountEvent.findAll({ where: { userId: members.map((x) => x.userId) }, order: [["createdAt", "desc"], ["id", "asc"]], limit });
+  const rows = await m.AccountEvent.findAll({
+    where: { userId: members.map((x) => x.userId) },
+    order: [
+      ["createdAt", "desc"],
+      ["id", "asc"],
+    ],
+    limit,
+  });
   return rows.map(toAccountDto);
 }

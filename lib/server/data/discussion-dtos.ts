@@ -35,10 +35,12 @@ function commentDto(ctx: LabContext, c: CommentRow, people: People): CommentDto 
     authorEmail: author?.email ?? null,
     body: deleted ? "" : c.body,
     bodyHtml: deleted ? "" : c.bodyHtml,
-    mentions: deleted ? [] : c.mentions.flatMap((id) => {
-      const p = people.get(id);
-      return p ? [{ userId: id, name: p.name, email: p.email }] : [];
-    }),
+    mentions: deleted
+      ? []
+      : c.mentions.flatMap((id) => {
+          const p = people.get(id);
+          return p ? [{ userId: id, name: p.name, email: p.email }] : [];
+        }),
     createdAt: c.createdAt.toISOString(),
     editedAt: c.editedAt ? c.editedAt.toISOString() : null,
     deleted,
@@ -61,8 +63,17 @@ function previewOf(first: CommentRow | undefined): string {
 export async function toThreadDtos(ctx: LabContext, threads: ThreadRow[], withComments: boolean): Promise<ThreadDto[]> {
   if (threads.length === 0) return [];
   const m = await database();
-  const comments = await m.Comment.findAll({ where: { threadId: { [Op.in]: threads.map((t) => t.id) } }, order: [["createdAt", "asc"], ["id", "asc"]] });
-  const people = await loadPeople([...threads.flatMap((t) => [t.createdBy, t.resolvedBy]), ...comments.flatMap((c) => [c.authorId, ...c.mentions])]);
+  const comments = await m.Comment.findAll({
+    where: { threadId: { [Op.in]: threads.map((t) => t.id) } },
+    order: [
+      ["createdAt", "asc"],
+      ["id", "asc"],
+    ],
+  });
+  const people = await loadPeople([
+    ...threads.flatMap((t) => [t.createdBy, t.resolvedBy]),
+    ...comments.flatMap((c) => [c.authorId, ...c.mentions]),
+  ]);
   const targets = new Map<string, DiscussionTarget>();
   const out: ThreadDto[] = [];
   for (const t of threads) {

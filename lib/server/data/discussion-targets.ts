@@ -12,14 +12,23 @@ type Found = Pick<DiscussionTarget, "label" | "path">;
 type Resolver = (m: Models, labId: string, id: string) => Promise<Found | null>;
 
 async function uploadTarget(m: Models, labId: string, id: string): Promise<Found | null> {
-  const u = await m.Upload.findOne({ where: { id, labId }, include: [{ model: m.Specimen, as: "specimen", attributes: ["label"] }] });
+  const u = await m.Upload.findOne({
+    where: { id, labId },
+    include: [{ model: m.Specimen, as: "specimen", attributes: ["label"] }],
+  });
   if (!u) return null;
   const specimen = (u as unknown as { specimen?: { label: string } }).specimen;
-  return { label: `the file “${u.filename}”${specimen ? ` of specimen ${specimen.label}` : ""}`, path: `/labs/${labId}/specimens/${u.specimenId}?discuss=${id}#discussion` };
+  return {
+    label: `the file “${u.filename}”${specimen ? ` of specimen ${specimen.label}` : ""}`,
+    path: `/labs/${labId}/specimens/${u.specimenId}?discuss=${id}#discussion`,
+  };
 }
 
 async function readoutTarget(m: Models, labId: string, id: string): Promise<Found | null> {
-  const r = await m.Readout.findOne({ where: { id, labId }, include: [{ model: m.Upload, as: "upload", attributes: ["filename"] }] });
+  const r = await m.Readout.findOne({
+    where: { id, labId },
+    include: [{ model: m.Upload, as: "upload", attributes: ["filename"] }],
+  });
   if (!r) return null;
   const upload = (r as unknown as { upload?: { filename: string } }).upload;
   return { label: `the readout of “${upload?.filename ?? "a deleted file"}”`, path: `/labs/${labId}/readouts/${id}` };
@@ -45,7 +54,12 @@ const RESOLVERS: Record<DiscussionTargetType, Resolver> = {
 };
 
 /** The target in this lab, or a 404 that names its kind ("readout not found"). */
-export async function requireTarget(m: Models, labId: string, type: DiscussionTargetType, id: string): Promise<DiscussionTarget> {
+export async function requireTarget(
+  m: Models,
+  labId: string,
+  type: DiscussionTargetType,
+  id: string,
+): Promise<DiscussionTarget> {
   const found = await RESOLVERS[type](m, labId, id);
   if (!found) throw notFound(type);
   return { type, id, ...found };
@@ -55,5 +69,10 @@ export async function requireTarget(m: Models, labId: string, type: DiscussionTa
 export async function describeTarget(m: Models, labId: string, type: string, id: string): Promise<DiscussionTarget> {
   const resolver = RESOLVERS[type as DiscussionTargetType];
   const found = resolver ? await resolver(m, labId, id) : null;
-  return { type: type as DiscussionTargetType, id, label: found?.label ?? `a deleted ${type}`, path: found?.path ?? null };
+  return {
+    type: type as DiscussionTargetType,
+    id,
+    label: found?.label ?? `a deleted ${type}`,
+    path: found?.path ?? null,
+  };
 }

@@ -10,7 +10,9 @@ import type { StoredFitModel, StoredFitSpec } from "./fit-spec-types";
 
 /** The compiled kinetics of a stored model. */
 export function compileStoredModel(model: StoredFitModel): CompiledKinetics {
-  return model.definition ? resolveKinetics({ definition: model.definition }) : getCatalogueKinetics(model.kinetics, "kinetics");
+  return model.definition
+    ? resolveKinetics({ definition: model.definition })
+    : getCatalogueKinetics(model.kinetics, "kinetics");
 }
 
 /** The single-model FIT.json of one model of a stored spec (what `cli fit --spec` reads). */
@@ -29,6 +31,10 @@ export function singleModelFile(spec: StoredFitSpec, model: StoredFitModel) {
 
 /** Fits one model to the spec's data (synchronous; ~1–5 s with profiles). */
 export function fitStoredModel(spec: StoredFitSpec, model: StoredFitModel): WavelengthFitResult {
-  const predictor = createKineticsPredictor(compileStoredModel(model), { lengthScaleUm: model.lengthScaleUm, timeScaleS: model.timeScaleS, gridSize: model.gridSize });
+  const predictor = createKineticsPredictor(compileStoredModel(model), {
+    lengthScaleUm: model.lengthScaleUm,
+    timeScaleS: model.timeScaleS,
+    gridSize: model.gridSize,
+  });
   return fitWavelengths({ data: spec.data, parameters: model.parameters, options: spec.options }, predictor);
 }

@@ -19,14 +19,21 @@ import type { StoredFitModel, StoredFitSpec } from "./fit-spec-types";
 /** Longest one model may run, ms (a runaway fit is killed and the job fails saying so). */
 export const FIT_MODEL_TIME_LIMIT_MS = 10 * 60_000;
 
-export const fitRunner = (): "child-process" | "in-process" => (process.env.FIT_IN_PROCESS === "1" ? "in-process" : "child-process");
+export const fitRunner = (): "child-process" | "in-process" =>
+  process.env.FIT_IN_PROCESS === "1" ? "in-process" : "child-process";
 
 function commandFor(file: string, model: StoredFitModel): string[] {
-  return model.definition ? ["lib/server/data/fit-child.ts", "--spec", file] : ["lib/cli/main.ts", "fit", "--spec", file, "--json"];
+  return model.definition
+    ? ["lib/server/data/fit-child.ts", "--spec", file]
+    : ["lib/cli/main.ts", "fit", "--spec", file, "--json"];
 }
 
 /** Fits one model; the result is exactly what `cli fit --spec … --json` prints (without `kinetics`). */
-export async function fitModel(spec: StoredFitSpec, model: StoredFitModel, signal: AbortSignal): Promise<WavelengthFitResult> {
+export async function fitModel(
+  spec: StoredFitSpec,
+  model: StoredFitModel,
+  signal: AbortSignal,
+): Promise<WavelengthFitResult> {
   if (signal.aborted) throw new JobCancelledError();
   if (fitRunner() === "in-process") return fitStoredModel(spec, model);
   const dir = mkdtempSync(path.join(tmpdir(), "morphokin-fit-"));
@@ -34,14 +41,24 @@ export async function fitModel(spec: StoredFitSpec, model: StoredFitModel, signa
   writeFileSync(file, JSON.stringify(singleModelFile(spec, model)));
   try {
     const r = await runTsxChild(commandFor(file, model), { signal, timeLimitMs: FIT_MODEL_TIME_LIMIT_MS });
-    if (r.timedOut) throw new AppError("unprocessable", `fitting ${model.label} took longer than ${FIT_MODEL_TIME_LIMIT_MS / 60_000} minutes and was stopped; free fewer parameters or lower options.turingSamples`);
+    if (r.timedOut)
+      throw new AppError(
+        "unprocessable",
+        `fitting ${model.label} took longer than ${FIT_MODEL_TIME_LIMIT_MS / 60_000} minutes and was stopped; free fewer parameters or lower options.turingSamples`,
+      );
     const stderr = r.stderr.trim();
-    if (r.code !== 0) throw new AppError("unprocessable", `fitting ${model.label} failed: ${stderr.split("\n").filter(Boolean).pop() ?? `exit code ${r.code}`}`);
+    if (r.code !== 0)
+      throw new AppError(
+        "unprocessable",
+        `fitting ${model.label} failed: ${stderr.split("\n").filter(Boolean).pop() ?? `exit code ${r.code}`}`,
+      );
     try {
       const { kinetics: _k, ...result } = JSON.parse(r.stdout) as WavelengthFitResult & { kinetics: string };
       return result;
     } catch (e) {
-      throw new Error(`the fit process printed no JSON result (${(e as Error).message}); stderr: ${stderr.slice(0, 500)}`);
+      throw new Error(
+        `the fit process printed no JSON result (${(e as Error).message}); stderr: ${stderr.slice(0, 500)}`,
+      );
     }
   } finally {
     rmSync(dir, { recursive: true, force: true });

@@ -28,8 +28,17 @@ export interface StoredFitResult {
 export function numbersOf(r: StoredFitResult): unknown {
   return r.models.map((m) => ({
     label: m.label,
-    parameters: m.fit.parameters.map((p) => [p.name, p.value, p.standardError, p.interval95?.lower.value ?? null, p.interval95?.upper.value ?? null]),
-    chiSquare: m.fit.chiSquare, aicc: m.fit.aicc, bic: m.fit.bic, verdict: m.fit.verdict,
+    parameters: m.fit.parameters.map((p) => [
+      p.name,
+      p.value,
+      p.standardError,
+      p.interval95?.lower.value ?? null,
+      p.interval95?.upper.value ?? null,
+    ]),
+    chiSquare: m.fit.chiSquare,
+    aicc: m.fit.aicc,
+    bic: m.fit.bic,
+    verdict: m.fit.verdict,
     residuals: m.fit.residuals.map((x) => x.residual),
   }));
 }

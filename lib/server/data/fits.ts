@@ -56,32 +56,61 @@ async function toSummaries(rows: Row[]): Promise<FitSummaryDto[]> {
   const m = await database();
   const jobIds = rows.filter((r) => r.jobId).map((r) => r.jobId!);
   const jobs = new Map((jobIds.length ? await m.Job.findAll({ where: { id: jobIds } }) : []).map((j) => [j.id, j]));
-  const users = await m.User.findAll({ where: { id: rows.map((r) => r.createdBy).filter((x): x is string => !!x) }, attributes: ["id", "email"] });
+  const users = await m.User.findAll({
+    where: { id: rows.map((r) => r.createdBy).filter((x): x is string => !!x) },
+    attributes: ["id", "email"],
+  });
   const emails = new Map(users.map((u) => [u.id, u.email]));
   return rows.map((r) => {
     const spec = r.spec as unknown as StoredFitSpec;
     const prov = r.provenance as unknown as FitProvenance;
     const job = r.jobId ? jobs.get(r.jobId) : undefined;
     // A job cancelled or lost before its handler ran never touched the row: show the job's end.
-    const ended = job && (job.status === "failed" || job.status === "cancelled") && (r.status === "queued" || r.status === "running");
+    const ended =
+      job &&
+      (job.status === "failed" || job.status === "cancelled") &&
+      (r.status === "queued" || r.status === "running");
     const result = r.status === "succeeded" ? (r.result as unknown as StoredFitResult | null) : null;
     const bestLabel = result ? (result.comparison?.ranking[0]?.label ?? result.models[0]?.label ?? null) : null;
     const best = result?.models.find((x) => x.label === bestLabel) ?? null;
     return {
-      id: r.id, name: r.name, kind: r.kind as "fit" | "comparison", status: ended ? job.status : r.status,
-      progress: r.status === "succeeded" ? 1 : (job?.progress ?? 0), progressNote: job?.progressNote ?? null,
-      error: ended ? job.error : r.error, jobId: r.jobId,
-      kinetics: prov.kinetics.map((k) => k.label), conditions: [...new Set(spec.data.map((d) => d.condition))], n: spec.data.length,
-      verdict: best?.fit.verdict ?? null, best: bestLabel, rerunOf: r.rerunOf,
-      createdBy: r.createdBy, createdByEmail: r.createdBy ? (emails.get(r.createdBy) ?? null) : null, createdAt: r.createdAt.toISOString(),
+      id: r.id,
+      name: r.name,
+      kind: r.kind as "fit" | "comparison",
+      status: ended ? job.status : r.status,
+      progress: r.status === "succeeded" ? 1 : (job?.progress ?? 0),
+      progressNote: job?.progressNote ?? null,
+      error: ended ? job.error : r.error,
+      jobId: r.jobId,
+      kinetics: prov.kinetics.map((k) => k.label),
+      conditions: [...new Set(spec.data.map((d) => d.condition))],
+      n: spec.data.length,
+      verdict: best?.fit.verdict ?? null,
+      best: bestLabel,
+      rerunOf: r.rerunOf,
+      createdBy: r.createdBy,
+      createdByEmail: r.createdBy ? (emails.get(r.createdBy) ?? null) : null,
+      createdAt: r.createdAt.toISOString(),
     };
   });
 }
 
-export async function listFits(ctx: LabContext, q: ListQuery<"createdAt" | "name" | "status">): Promise<ListResult<FitSummaryDto>> {
+export async function listFits(
+  ctx: LabContext,
+  q: ListQuery<"createdAt" | "name" | "status">,
+): Promise<ListResult<FitSummaryDto>> {
   const m = await database();
   const where = { labId: ctx.labId, ...(q.q ? { name: containsText(q.q) } : {}) };
-  const { rows, count } = await m.Fit.findAndCountAll({ where, order: [[q.sort, q.dir], ["createdAt", "desc"], ["id", "asc"]], limit: q.pageSize, offset: (q.page - 1) * q.pageSize });
+  const { rows, count } = await m.Fit.findAndCountAll({
+    where,
+    order: [
+      [q.sort, q.dir],
+      ["createdAt", "desc"],
+      ["id", "asc"],
+    ],
+    limit: q.pageSize,
+    offset: (q.page - 1) * q.pageSize,
+  });
   return { items: await toSummaries(rows), page: q.page, pageSize: q.pageSize, total: count };
 }
 
@@ -97,8 +126,13 @@ export async function getFit(ctx: LabContext, fitId: string): Promise<FitDetailD
   const r = await findFit(ctx, fitId);
   const [s] = await toSummaries([r]);
   return {
-    ...s, spec: r.spec as unknown as StoredFitSpec, provenance: r.provenance as unknown as FitProvenance, inputSha256: r.inputSha256,
-    softwareVersion: r.softwareVersion, result: r.status === "succeeded" ? (r.result as unknown as StoredFitResult) : null, canRerun: can(ctx.role, "fit.create"),
+    ...s,
+    spec: r.spec as unknown as StoredFitSpec,
+    provenance: r.provenance as unknown as FitProvenance,
+    inputSha256: r.inputSha256,
+    softwareVersion: r.softwareVersion,
+    result: r.status === "succeeded" ? (r.result as unknown as StoredFitResult) : null,
+    canRerun: can(ctx.role, "fit.create"),
   };
 }
 
@@ -107,16 +141,44 @@ async function queueFit(ctx: LabContext, name: string, built: BuiltFit, rerunOf:
   const id = randomUUID();
   const kind = built.kind === "fit" ? "fit" : "fit-comparison";
   await services().db.sequelize.transaction(async (transaction) => {
-    const job = await enqueueJob({ labId: ctx.labId, kind, payload: { fitId: id, title: `the fit “${name}”`, path: `/labs/${ctx.labId}/fits/${id}` }, requestedBy: ctx.actor.userId }, transaction);
+    const job = await enqueueJob(
+      {
+        labId: ctx.labId,
+        kind,
+        payload: { fitId: id, title: `the fit “${name}”`, path: `/labs/${ctx.labId}/fits/${id}` },
+        requestedBy: ctx.actor.userId,
+      },
+      transaction,
+    );
     await m.Fit.create(
       {
-        id, labId: ctx.labId, name, kind: built.kind, status: "queued", jobId: job.id,
-        spec: built.spec as unknown as Record<string, unknown>, provenance: built.provenance as unknown as Record<string, unknown>,
-        inputSha256: built.inputSha256, softwareVersion: SOFTWARE_VERSION, rerunOf, createdBy: ctx.actor.userId,
+        id,
+        labId: ctx.labId,
+        name,
+        kind: built.kind,
+        status: "queued",
+        jobId: job.id,
+        spec: built.spec as unknown as Record<string, unknown>,
+        provenance: built.provenance as unknown as Record<string, unknown>,
+        inputSha256: built.inputSha256,
+        softwareVersion: SOFTWARE_VERSION,
+        rerunOf,
+        createdBy: ctx.actor.userId,
       },
       { transaction },
     );
-    await recordAudit(m, { labId: ctx.labId, actor: ctx.actor, action: rerunOf ? "fit.rerun" : "fit.started", targetType: "fit", targetId: id, summary: `${ctx.actor.email} ${rerunOf ? "re-ran" : "started"} the ${built.kind} “${name}” (${built.provenance.kinetics.map((k) => k.label).join(", ")}; ${built.spec.data.length} measurements)` }, transaction);
+    await recordAudit(
+      m,
+      {
+        labId: ctx.labId,
+        actor: ctx.actor,
+        action: rerunOf ? "fit.rerun" : "fit.started",
+        targetType: "fit",
+        targetId: id,
+        summary: `${ctx.actor.email} ${rerunOf ? "re-ran" : "started"} the ${built.kind} “${name}” (${built.provenance.kinetics.map((k) => k.label).join(", ")}; ${built.spec.data.length} measurements)`,
+      },
+      transaction,
+    );
   });
   return getFit(ctx, id);
 }
@@ -133,7 +195,16 @@ export async function rerunFit(ctx: LabContext, fitId: string): Promise<FitDetai
   authorize(ctx, "fit.create");
   const r = await findFit(ctx, fitId);
   const spec = r.spec as unknown as StoredFitSpec;
-  const provenance = { ...(r.provenance as unknown as FitProvenance), softwareVersion: SOFTWARE_VERSION, runner: fitRunner() };
+  const provenance = {
+    ...(r.provenance as unknown as FitProvenance),
+    softwareVersion: SOFTWARE_VERSION,
+    runner: fitRunner(),
+  };
   const name = r.name.replace(/( \(re-run\))*$/, "") + " (re-run)";
-  return queueFit(ctx, name.slice(0, 200), { kind: r.kind as "fit" | "comparison", spec, provenance, inputSha256: r.inputSha256 }, r.id);
+  return queueFit(
+    ctx,
+    name.slice(0, 200),
+    { kind: r.kind as "fit" | "comparison", spec, provenance, inputSha256: r.inputSha256 },
+    r.id,
+  );
 }

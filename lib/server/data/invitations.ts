@@ -24,7 +24,10 @@ export interface InvitationDto {
   expiresAt: string;
 }
 
-function statusOf(inv: { acceptedAt: Date | null; revokedAt: Date | null; expiresAt: Date }, now = new Date()): InvitationStatus {
+function statusOf(
+  inv: { acceptedAt: Date | null; revokedAt: Date | null; expiresAt: Date },
+  now = new Date(),
+): InvitationStatus {
   if (inv.acceptedAt) return "accepted";
   if (inv.revokedAt) return "revoked";
   if (inv.expiresAt.getTime() <= now.getTime()) return "expired";
@@ -34,10 +37,22 @@ function statusOf(inv: { acceptedAt: Date | null; revokedAt: Date | null; expire
 export async function listInvitations(ctx: LabContext): Promise<InvitationDto[]> {
   const m = await database();
   const rows = await m.Invitation.findAll({ where: { labId: ctx.labId }, order: [["createdAt", "desc"]] });
-  return rows.map((i) => ({ id: i.id, email: i.email, role: i.role, status: statusOf(i), invitedAt: i.createdAt.toISOString(), expiresAt: i.expiresAt.toISOString() }));
+  return rows.map((i) => ({
+    id: i.id,
+    email: i.email,
+    role: i.role,
+    status: statusOf(i),
+    invitedAt: i.createdAt.toISOString(),
+    expiresAt: i.expiresAt.toISOString(),
+  }));
 }
 
-export async function createInvitation(ctx: LabContext, email: string, role: Role, address?: string): Promise<InvitationDto> {
+export async function createInvitation(
+  ctx: LabContext,
+  email: string,
+  role: Role,
+  address?: string,
+): Promise<InvitationDto> {
   await enforceRateLimit("invitation", { account: email, address: address ?? `user:${ctx.actor.userId}` });
   const m = await database();
   const { config, mailer, db } = services();
@@ -57,14 +72,43 @@ export async function createInvitation(ctx: LabContext, email: string, role: Rol
       text: `${ctx.actor.name ?? ctx.actor.email} invited you to join the lab “${ctx.labName}” on Morphokin as ${ROLE_LABELS[role]}.\n\nAccept the invitation here:\n${link}\n\nThe link works once and expires on ${expiresAt.toUTCString()}.`,
     });
   } catch (err) {
-    throw new AppError("unavailable", "the invitation e-mail could not be sent (mail server unreachable); nothing was saved, try again", { cause: String(err) });
+    throw new AppError(
+      "unavailable",
+      "the invitation e-mail could not be sent (mail server unreachable); nothing was saved, try again",
+      { cause: String(err) },
+    );
   }
   return db.sequelize.transaction(async (transaction) => {
     // A new invitation to the same address replaces any pending one.
-    await m.Invitation.update({ revokedAt: new Date() }, { where: { labId: ctx.labId, email, acceptedAt: { [Op.is]: null }, revokedAt: { [Op.is]: null } }, transaction });
-    const inv = await m.Invitation.create({ labId: ctx.labId, email, role, tokenHash: sha256Hex(token), invitedBy: ctx.actor.userId, expiresAt }, { transaction });
-    await recordAudit(m, { labId: ctx.labId, actor: ctx.actor, action: "invitation.created", targetType: "invitation", targetId: inv.id, summary: `${ctx.actor.email} invited ${email} as ${ROLE_LABELS[role]}`, details: { role } }, transaction);
-    return { id: inv.id, email, role, status: "pending" as const, invitedAt: inv.createdAt.toISOString(), expiresAt: expiresAt.toISOString() };
+    await m.Invitation.update(
+      { revokedAt: new Date() },
+      { where: { labId: ctx.labId, email, acceptedAt: { [Op.is]: null }, revokedAt: { [Op.is]: null } }, transaction },
+    );
+    const inv = await m.Invitation.create(
+      { labId: ctx.labId, email, role, tokenHash: sha256Hex(token), invitedBy: ctx.actor.userId, expiresAt },
+      { transaction },
+    );
+    await recordAudit(
+      m,
+      {
+        labId: ctx.labId,
+        actor: ctx.actor,
+        action: "invitation.created",
+        targetType: "invitation",
+        targetId: inv.id,
+        summary: `${ctx.actor.email} invited ${email} as ${ROLE_LABELS[role]}`,
+        details: { role },
+      },
+      transaction,
+    );
+    return {
+      id: inv.id,
+      email,
+      role,
+      status: "pending" as const,
+      invitedAt: inv.createdAt.toISOString(),
+      expiresAt: expiresAt.toISOString(),
+    };
   });
 }
 
@@ -76,7 +120,18 @@ export async function revokeInvitation(ctx: LabContext, invitationId: string): P
   if (status !== "pending") throw new AppError("conflict", `this invitation is already ${status}`);
   await services().db.sequelize.transaction(async (transaction) => {
     await inv.update({ revokedAt: new Date() }, { transaction });
-    await recordAudit(m, { labId: ctx.labId, actor: ctx.actor, action: "invitation.revoked", targetType: "invitation", targetId: inv.id, summary: `${ctx.actor.email} revoked the invitation of ${inv.email}` }, transaction);
+    await recordAudit(
+      m,
+      {
+        labId: ctx.labId,
+        actor: ctx.actor,
+        action: "invitation.revoked",
+        targetType: "invitation",
+        targetId: inv.id,
+        summary: `${ctx.actor.email} revoked the invitation of ${inv.email}`,
+      },
+      transaction,
+    );
   });
 }
 
@@ -112,7 +167,15 @@ export async function describeInvitation(token: string): Promise<InvitationPubli
   const inv = await findByToken(token);
   const lab = await m.Lab.findByPk(inv.labId);
   const user = await m.User.findOne({ where: { email: inv.email } });
-  return { labName: lab?.name ?? "", email: inv.email, role: inv.role, roleLabel: ROLE_LABELS[inv.role], status: statusOf(inv), accountExists: !!user, expiresAt: inv.expiresAt.toISOString() };
+  return {
+    labName: lab?.name ?? "",
+    email: inv.email,
+    role: inv.role,
+    roleLabel: ROLE_LABELS[inv.role],
+    status: statusOf(inv),
+    accountExists: !!user,
+    expiresAt: inv.expiresAt.toISOString(),
+  };
 }
 
 /** The refusal when someone else's session opens the link (the link alone must not be enough). */
@@ -125,12 +188,17 @@ export function wrongAccountMessage(signedInAs: string, invitedEmail: string): s
  * password; an existing account confirms with its password or is signed in as itself. A session
  * (or API token) of any other account is refused.
  */
-export async function acceptInvitation(token: string, input: { name?: string; password?: string }, actor: Actor | null = null) {
+export async function acceptInvitation(
+  token: string,
+  input: { name?: string; password?: string },
+  actor: Actor | null = null,
+) {
   const m = await database();
   const inv = await findByToken(token);
   const status = statusOf(inv);
   if (status !== "pending") throw explainUnusable(status);
-  if (actor && actor.email.toLowerCase() !== inv.email.toLowerCase()) throw new AppError("forbidden", wrongAccountMessage(actor.email, inv.email));
+  if (actor && actor.email.toLowerCase() !== inv.email.toLowerCase())
+    throw new AppError("forbidden", wrongAccountMessage(actor.email, inv.email));
   const existing = await m.User.findOne({ where: { email: inv.email } });
   const signedInAsInvitee = !!actor && !!existing && actor.userId === existing.id;
   if (existing && !signedInAsInvitee) {
@@ -149,11 +217,28 @@ export async function acceptInvitation(token: string, input: { name?: string; pa
     // Re-read inside the transaction so two clicks cannot both accept.
     const fresh = await m.Invitation.findByPk(inv.id, { transaction });
     if (!fresh || statusOf(fresh) !== "pending") throw explainUnusable(fresh ? statusOf(fresh) : "revoked");
-    const user = existing ?? (await m.User.create({ name: input.name!, email: inv.email, passwordHash, emailVerified: new Date() }, { transaction }));
+    const user =
+      existing ??
+      (await m.User.create(
+        { name: input.name!, email: inv.email, passwordHash, emailVerified: new Date() },
+        { transaction },
+      ));
     const already = await m.Membership.findOne({ where: { labId: inv.labId, userId: user.id }, transaction });
     if (!already) await m.Membership.create({ labId: inv.labId, userId: user.id, role: inv.role }, { transaction });
     await fresh.update({ acceptedAt: new Date() }, { transaction });
-    await recordAudit(m, { labId: inv.labId, actor: { userId: user.id, email: user.email }, action: "member.joined", targetType: "member", targetId: user.id, summary: `${user.email} accepted the invitation and joined as ${ROLE_LABELS[inv.role]}`, details: { role: inv.role } }, transaction);
+    await recordAudit(
+      m,
+      {
+        labId: inv.labId,
+        actor: { userId: user.id, email: user.email },
+        action: "member.joined",
+        targetType: "member",
+        targetId: user.id,
+        summary: `${user.email} accepted the invitation and joined as ${ROLE_LABELS[inv.role]}`,
+        details: { role: inv.role },
+      },
+      transaction,
+    );
     return { labId: inv.labId, email: user.email };
   });
 }

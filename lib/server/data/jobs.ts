@@ -5,7 +5,11 @@ import { database } from "../services";
 
 export async function listJobs(ctx: LabContext, mine: boolean): Promise<JobDto[]> {
   const m = await database();
-  const rows = await m.Job.findAll({ where: { labId: ctx.labId, ...(mine ? { requestedBy: ctx.actor.userId } : {}) }, order: [["createdAt", "desc"]], limit: 50 });
+  const rows = await m.Job.findAll({
+    where: { labId: ctx.labId, ...(mine ? { requestedBy: ctx.actor.userId } : {}) },
+    order: [["createdAt", "desc"]],
+    limit: 50,
+  });
   return rows.map(toJobDto);
 }
 

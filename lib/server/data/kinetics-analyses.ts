@@ -5,10 +5,24 @@
  */
 import { getCatalogueKinetics, type CompiledKinetics } from "@/lib/kinetics";
 import {
-  computeDispersion, computeElasticities, computeGradientDispersion, enumerateModes, leadingEigenvalue, predictWavelengthAfterScaling,
-  type DispersionResult, type DomainSpec, type ElasticityResult, type GradientResult, type ScaledWavelength,
+  computeDispersion,
+  computeElasticities,
+  computeGradientDispersion,
+  enumerateModes,
+  leadingEigenvalue,
+  predictWavelengthAfterScaling,
+  type DispersionResult,
+  type DomainSpec,
+  type ElasticityResult,
+  type GradientResult,
+  type ScaledWavelength,
 } from "@/lib/stability";
-import { MAX_GRADIENT_SAMPLES, type DispersionRequest, type GradientRequest, type SensitivityRequest } from "@/lib/contracts/kinetics";
+import {
+  MAX_GRADIENT_SAMPLES,
+  type DispersionRequest,
+  type GradientRequest,
+  type SensitivityRequest,
+} from "@/lib/contracts/kinetics";
 import type { LabContext } from "../access";
 import { isUuid } from "../access";
 import { AppError } from "../errors";
@@ -25,7 +39,14 @@ export const ANALYSIS_BUDGET_MS = 1500;
  * Times one dispersion relation and refuses (422) when `count` of them would exceed the budget,
  * so a slow lab kinetics (many species, Newton steady states) cannot hold the server.
  */
-function checkBudget(compiled: CompiledKinetics, parameters: Record<string, number>, options: object, count: number, field: string, what: string) {
+function checkBudget(
+  compiled: CompiledKinetics,
+  parameters: Record<string, number>,
+  options: object,
+  count: number,
+  field: string,
+  what: string,
+) {
   const time = () => {
     const t0 = performance.now();
     try {
@@ -40,7 +61,11 @@ function checkBudget(compiled: CompiledKinetics, parameters: Record<string, numb
   if (each * count > ANALYSIS_BUDGET_MS) each = Math.min(each, time());
   if (each * count > ANALYSIS_BUDGET_MS) {
     const most = Math.max(1, Math.floor(ANALYSIS_BUDGET_MS / each));
-    throw new AppError("unprocessable", `${field}: ${what} needs ${count} dispersion relations at about ${Math.round(each)} ms each, over the ${ANALYSIS_BUDGET_MS} ms limit of one request; at most ${most} fit.`, { field });
+    throw new AppError(
+      "unprocessable",
+      `${field}: ${what} needs ${count} dispersion relations at about ${Math.round(each)} ms each, over the ${ANALYSIS_BUDGET_MS} ms limit of one request; at most ${most} fit.`,
+      { field },
+    );
   }
 }
 
@@ -50,16 +75,29 @@ export interface ResolvedKinetics {
 }
 
 /** A catalogue id, or a lab kinetics of this lab at a version (latest by default). */
-export async function resolveAnalysisKinetics(ctx: LabContext, ref: string, version?: number): Promise<ResolvedKinetics> {
+export async function resolveAnalysisKinetics(
+  ctx: LabContext,
+  ref: string,
+  version?: number,
+): Promise<ResolvedKinetics> {
   if (isUuid(ref)) {
     const v = await getLabKineticsVersion(ctx, ref, version);
-    return { compiled: compileStoredKinetics(v.versionId, v.definition), info: definitionInfo(ref, v.version, v.definition) };
+    return {
+      compiled: compileStoredKinetics(v.versionId, v.definition),
+      info: definitionInfo(ref, v.version, v.definition),
+    };
   }
-  if (version !== undefined) throw new AppError("bad_input", "version: catalogue kinetics have no versions; leave version out", { field: "version" });
+  if (version !== undefined)
+    throw new AppError("bad_input", "version: catalogue kinetics have no versions; leave version out", {
+      field: "version",
+    });
   return withKineticsErrors(() => ({ compiled: getCatalogueKinetics(ref), info: getCatalogueEntry(ref) }));
 }
 
-const scalesOf = (r: { lengthScaleUm?: number; timeScaleS?: number }) => ({ lengthScaleUm: r.lengthScaleUm, timeScaleS: r.timeScaleS });
+const scalesOf = (r: { lengthScaleUm?: number; timeScaleS?: number }) => ({
+  lengthScaleUm: r.lengthScaleUm,
+  timeScaleS: r.timeScaleS,
+});
 
 export interface DispersionDto extends DispersionResult {
   info: KineticsInfoDto;
@@ -87,8 +125,10 @@ export async function analyseDispersion(ctx: LabContext, req: DispersionRequest)
 /** σ_max(k) = max Re eig(J − k²D) at each mode (SCIENCE.md §1). */
 function growthOfModes(r: DispersionResult, modes: { k: number; multiplicity: number }[]) {
   const n = r.jacobian.length;
-  const J = r.jacobian.flat(), D = r.diffusion.flat();
-  const m = new Float64Array(n * n), out = new Float64Array(2);
+  const J = r.jacobian.flat(),
+    D = r.diffusion.flat();
+  const m = new Float64Array(n * n),
+    out = new Float64Array(2);
   return modes.map(({ k, multiplicity }) => {
     for (let i = 0; i < n * n; i++) m[i] = J[i] - k * k * D[i];
     leadingEigenvalue(m, n, out);
@@ -109,10 +149,25 @@ export async function analyseSensitivities(ctx: LabContext, req: SensitivityRequ
   return withKineticsErrors(() => {
     const parameters = req.parameters ?? {};
     const options = scalesOf(req);
-    checkBudget(compiled, parameters, options, 2 * compiled.parameters.length + 3, "parameters", `the elasticities of ${compiled.parameters.length} parameters`);
+    checkBudget(
+      compiled,
+      parameters,
+      options,
+      2 * compiled.parameters.length + 3,
+      "parameters",
+      `the elasticities of ${compiled.parameters.length} parameters`,
+    );
     const base = computeDispersion(compiled, parameters, options);
-    const scaled = req.scale ? predictWavelengthAfterScaling(compiled, parameters, req.scale.name, req.scale.factor, options) : null;
-    if (!base.fastest) return { info, elasticities: null, reason: `No mode at k > 0 grows here (${base.classification.label}), so the predicted wavelength and its elasticities are undefined.`, scaled };
+    const scaled = req.scale
+      ? predictWavelengthAfterScaling(compiled, parameters, req.scale.name, req.scale.factor, options)
+      : null;
+    if (!base.fastest)
+      return {
+        info,
+        elasticities: null,
+        reason: `No mode at k > 0 grows here (${base.classification.label}), so the predicted wavelength and its elasticities are undefined.`,
+        scaled,
+      };
     return { info, elasticities: computeElasticities(compiled, parameters, options), reason: null, scaled };
   });
 }
@@ -124,12 +179,22 @@ export interface GradientDto extends GradientResult {
 
 export async function analyseGradient(ctx: LabContext, req: GradientRequest): Promise<GradientDto> {
   const samples = req.samples ?? 101;
-  if (samples > MAX_GRADIENT_SAMPLES) throw new AppError("too_large", `samples: ${samples} positions asked; the limit is ${MAX_GRADIENT_SAMPLES}.`, { field: "samples" });
+  if (samples > MAX_GRADIENT_SAMPLES)
+    throw new AppError("too_large", `samples: ${samples} positions asked; the limit is ${MAX_GRADIENT_SAMPLES}.`, {
+      field: "samples",
+    });
   const { compiled, info } = await resolveAnalysisKinetics(ctx, req.kinetics, req.version);
-  const profile = req.profile.kind === "table" ? { kind: "table" as const, ...parseProfileTable(req.profile.text) } : req.profile;
+  const profile =
+    req.profile.kind === "table" ? { kind: "table" as const, ...parseProfileTable(req.profile.text) } : req.profile;
   checkBudget(compiled, req.parameters ?? {}, scalesOf(req), samples, "samples", `a gradient of ${samples} positions`);
   return withKineticsErrors(() => ({
-    ...computeGradientDispersion(compiled, req.parameters ?? {}, { ...scalesOf(req), parameter: req.parameter, profile, length: req.length, samples }),
+    ...computeGradientDispersion(compiled, req.parameters ?? {}, {
+      ...scalesOf(req),
+      parameter: req.parameter,
+      profile,
+      length: req.length,
+      samples,
+    }),
     info,
     length: req.length,
   }));

@@ -3,13 +3,21 @@
  * field in `details`, and compiled lab kinetics are cached per version (versions never change,
  * and compiling — parsing plus symbolic Jacobians — costs more than most analyses).
  */
-import { compileKinetics, KineticsAnalysisError, KineticsInputError, KineticsLimitError, type CompiledKinetics, type KineticsDefinition } from "@/lib/kinetics";
+import {
+  compileKinetics,
+  KineticsAnalysisError,
+  KineticsInputError,
+  KineticsLimitError,
+  type CompiledKinetics,
+  type KineticsDefinition,
+} from "@/lib/kinetics";
 import { AppError } from "../errors";
 
 /** Maps a kinetics-core error to the API's error (400 bad input, 413 too large, 422 cannot analyse); other errors pass through. */
 export function toAppError(err: unknown): unknown {
   if (err instanceof KineticsLimitError) return new AppError("too_large", err.message, { field: err.field });
-  if (err instanceof KineticsInputError) return new AppError(err.code === "too_large" ? "too_large" : "bad_input", err.message, { field: err.field });
+  if (err instanceof KineticsInputError)
+    return new AppError(err.code === "too_large" ? "too_large" : "bad_input", err.message, { field: err.field });
   if (err instanceof KineticsAnalysisError) return new AppError("unprocessable", err.message, { field: err.field });
   return err;
 }

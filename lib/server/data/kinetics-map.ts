@@ -4,7 +4,12 @@
  * request never holds the server for more than about a second. Larger maps answer 413 naming the limit.
  */
 import { computeTuringMap } from "@/lib/stability";
-import { INTERACTIVE_MAP_TIME_LIMIT_MS, MAX_INTERACTIVE_MAP_CELLS, MAX_INTERACTIVE_MAP_WAVENUMBERS, type TuringMapRequest } from "@/lib/contracts/kinetics";
+import {
+  INTERACTIVE_MAP_TIME_LIMIT_MS,
+  MAX_INTERACTIVE_MAP_CELLS,
+  MAX_INTERACTIVE_MAP_WAVENUMBERS,
+  type TuringMapRequest,
+} from "@/lib/contracts/kinetics";
 import type { LabContext } from "../access";
 import { AppError } from "../errors";
 import { resolveAnalysisKinetics } from "./kinetics-analyses";
@@ -24,7 +29,13 @@ export interface TuringMapDto {
   lengthScaleUm: number | null;
   turingFraction: number;
   counts: Record<string, number>;
-  target: null | { wavelength: number; tolerance: number; match: number[]; matchCount: number; contour: [number, number, number, number][] };
+  target: null | {
+    wavelength: number;
+    tolerance: number;
+    match: number[];
+    matchCount: number;
+    contour: [number, number, number, number][];
+  };
   legend: Record<string, number>;
   elapsedMs: number;
 }
@@ -32,25 +43,54 @@ export interface TuringMapDto {
 export async function analyseTuringMap(ctx: LabContext, req: TuringMapRequest): Promise<TuringMapDto> {
   const cells = req.x.n * req.y.n;
   if (cells > MAX_INTERACTIVE_MAP_CELLS) {
-    throw new AppError("too_large", `x.n × y.n = ${cells} cells; an interactive map has at most ${MAX_INTERACTIVE_MAP_CELLS} cells (e.g. 200 × 200).`, { field: "x.n" });
+    throw new AppError(
+      "too_large",
+      `x.n × y.n = ${cells} cells; an interactive map has at most ${MAX_INTERACTIVE_MAP_CELLS} cells (e.g. 200 × 200).`,
+      { field: "x.n" },
+    );
   }
   const wavenumbers = req.wavenumbers ?? 120;
   if (wavenumbers > MAX_INTERACTIVE_MAP_WAVENUMBERS) {
-    throw new AppError("too_large", `wavenumbers: ${wavenumbers} asked; an interactive map has at most ${MAX_INTERACTIVE_MAP_WAVENUMBERS} per cell.`, { field: "wavenumbers" });
+    throw new AppError(
+      "too_large",
+      `wavenumbers: ${wavenumbers} asked; an interactive map has at most ${MAX_INTERACTIVE_MAP_WAVENUMBERS} per cell.`,
+      { field: "wavenumbers" },
+    );
   }
   const { compiled, info } = await resolveAnalysisKinetics(ctx, req.kinetics, req.version);
   const r = withKineticsErrors(() =>
     computeTuringMap(compiled, {
-      x: req.x, y: req.y, parameters: req.parameters, wavenumbers, target: req.target,
-      lengthScaleUm: req.lengthScaleUm, timeScaleS: req.timeScaleS, timeLimitMs: INTERACTIVE_MAP_TIME_LIMIT_MS,
+      x: req.x,
+      y: req.y,
+      parameters: req.parameters,
+      wavenumbers,
+      target: req.target,
+      lengthScaleUm: req.lengthScaleUm,
+      timeScaleS: req.timeScaleS,
+      timeLimitMs: INTERACTIVE_MAP_TIME_LIMIT_MS,
     }),
   );
   return {
-    info, x: r.x, y: r.y, nx: r.nx, ny: r.ny,
+    info,
+    x: r.x,
+    y: r.y,
+    nx: r.nx,
+    ny: r.ny,
     classes: Array.from(r.classes),
     wavelength: Array.from(r.wavelength, (v) => (Number.isFinite(v) ? v : null)),
-    lengthScaleUm: r.lengthScaleUm, turingFraction: r.turingFraction, counts: r.counts,
-    target: r.target ? { wavelength: r.target.wavelength, tolerance: r.target.tolerance, match: Array.from(r.target.match), matchCount: r.target.matchCount, contour: r.target.contour } : null,
-    legend: r.legend, elapsedMs: r.elapsedMs,
+    lengthScaleUm: r.lengthScaleUm,
+    turingFraction: r.turingFraction,
+    counts: r.counts,
+    target: r.target
+      ? {
+          wavelength: r.target.wavelength,
+          tolerance: r.target.tolerance,
+          match: Array.from(r.target.match),
+          matchCount: r.target.matchCount,
+          contour: r.target.contour,
+        }
+      : null,
+    legend: r.legend,
+    elapsedMs: r.elapsedMs,
   };
 }

@@ -64,13 +64,29 @@ export interface KineticsVersionDto {
 export const LAB_KINETICS_SORTS = ["name", "latestVersion", "createdAt", "updatedAt"] as const;
 
 const FINITE_MAX = Number.MAX_VALUE;
-const bound = (v: number | undefined) => (v === undefined || !Number.isFinite(v) || Math.abs(v) >= FINITE_MAX ? null : v);
+const bound = (v: number | undefined) =>
+  v === undefined || !Number.isFinite(v) || Math.abs(v) >= FINITE_MAX ? null : v;
 
 function catalogueInfo(k: CatalogueKinetics): KineticsInfoDto {
   return {
-    kind: "catalogue", id: k.id, name: k.name, source: k.source, form: k.form, species: [...k.species],
-    parameters: k.parameters.map((p) => ({ name: p.name, meaning: p.meaning, default: p.default, min: bound(p.min), max: bound(p.max), unit: p.unit ?? null })),
-    units: k.units, reactions: [...k.reactionExpressions], diffusion: k.diffusionExpressions.map((r) => [...r]), version: null,
+    kind: "catalogue",
+    id: k.id,
+    name: k.name,
+    source: k.source,
+    form: k.form,
+    species: [...k.species],
+    parameters: k.parameters.map((p) => ({
+      name: p.name,
+      meaning: p.meaning,
+      default: p.default,
+      min: bound(p.min),
+      max: bound(p.max),
+      unit: p.unit ?? null,
+    })),
+    units: k.units,
+    reactions: [...k.reactionExpressions],
+    diffusion: k.diffusionExpressions.map((r) => [...r]),
+    version: null,
   };
 }
 
@@ -88,11 +104,28 @@ export function definitionInfo(id: string, version: number, def: KineticsDefinit
   const n = def.species.length;
   const diffusion = Array.isArray(def.diffusion[0])
     ? (def.diffusion as (string | number)[][]).map((r) => r.map(String))
-    : Array.from({ length: n }, (_, i) => Array.from({ length: n }, (_, j) => (i === j ? String((def.diffusion as (string | number)[])[i]) : "0")));
+    : Array.from({ length: n }, (_, i) =>
+        Array.from({ length: n }, (_, j) => (i === j ? String((def.diffusion as (string | number)[])[i]) : "0")),
+      );
   return {
-    kind: "lab", id, name: def.name, source: def.source ?? "", form: null, species: [...def.species],
-    parameters: def.parameters.map((p) => ({ name: p.name, meaning: p.meaning ?? "", default: p.default, min: bound(p.min), max: bound(p.max), unit: p.unit ?? null })),
-    units: def.units ?? "non-dimensional", reactions: def.reactions.map(String), diffusion, version,
+    kind: "lab",
+    id,
+    name: def.name,
+    source: def.source ?? "",
+    form: null,
+    species: [...def.species],
+    parameters: def.parameters.map((p) => ({
+      name: p.name,
+      meaning: p.meaning ?? "",
+      default: p.default,
+      min: bound(p.min),
+      max: bound(p.max),
+      unit: p.unit ?? null,
+    })),
+    units: def.units ?? "non-dimensional",
+    reactions: def.reactions.map(String),
+    diffusion,
+    version,
   };
 }
 
@@ -100,28 +133,56 @@ type Row = InstanceType<Awaited<ReturnType<typeof database>>["LabKinetics"]>;
 
 async function emailsOf(ids: (string | null)[]): Promise<Map<string, string>> {
   const m = await database();
-  const users = await m.User.findAll({ where: { id: ids.filter((x): x is string => !!x) }, attributes: ["id", "email"] });
+  const users = await m.User.findAll({
+    where: { id: ids.filter((x): x is string => !!x) },
+    attributes: ["id", "email"],
+  });
   return new Map(users.map((u) => [u.id, u.email]));
 }
 
 async function toDtos(ctx: LabContext, rows: Row[]): Promise<LabKineticsDto[]> {
   const m = await database();
   const emails = await emailsOf(rows.map((r) => r.createdBy));
-  const latest = rows.length ? await m.KineticsVersion.findAll({ where: { [Op.or]: rows.map((r) => ({ kineticsId: r.id, version: r.latestVersion })) }, attributes: ["kineticsId", "definition"] }) : [];
+  const latest = rows.length
+    ? await m.KineticsVersion.findAll({
+        where: { [Op.or]: rows.map((r) => ({ kineticsId: r.id, version: r.latestVersion })) },
+        attributes: ["kineticsId", "definition"],
+      })
+    : [];
   const species = new Map(latest.map((v) => [v.kineticsId, v.definition.species]));
   return rows.map((r) => ({
-    id: r.id, labId: r.labId, name: r.name, description: r.description, latestVersion: r.latestVersion,
+    id: r.id,
+    labId: r.labId,
+    name: r.name,
+    description: r.description,
+    latestVersion: r.latestVersion,
     species: species.get(r.id) ?? [],
-    createdBy: r.createdBy, createdByEmail: r.createdBy ? (emails.get(r.createdBy) ?? null) : null,
-    createdAt: r.createdAt.toISOString(), updatedAt: r.updatedAt.toISOString(),
+    createdBy: r.createdBy,
+    createdByEmail: r.createdBy ? (emails.get(r.createdBy) ?? null) : null,
+    createdAt: r.createdAt.toISOString(),
+    updatedAt: r.updatedAt.toISOString(),
     canEdit: can(ctx.role, "kinetics.edit", { ownerId: r.createdBy, actorId: ctx.actor.userId }),
   }));
 }
 
-export async function listLabKinetics(ctx: LabContext, q: ListQuery<(typeof LAB_KINETICS_SORTS)[number]>): Promise<ListResult<LabKineticsDto>> {
+export async function listLabKinetics(
+  ctx: LabContext,
+  q: ListQuery<(typeof LAB_KINETICS_SORTS)[number]>,
+): Promise<ListResult<LabKineticsDto>> {
   const m = await database();
-  const where = { labId: ctx.labId, ...(q.q ? { [Op.or]: [{ name: containsText(q.q) }, { description: containsText(q.q) }] } : {}) };
-  const { rows, count } = await m.LabKinetics.findAndCountAll({ where, order: [[q.sort, q.dir], ["id", "asc"]], limit: q.pageSize, offset: (q.page - 1) * q.pageSize });
+  const where = {
+    labId: ctx.labId,
+    ...(q.q ? { [Op.or]: [{ name: containsText(q.q) }, { description: containsText(q.q) }] } : {}),
+  };
+  const { rows, count } = await m.LabKinetics.findAndCountAll({
+    where,
+    order: [
+      [q.sort, q.dir],
+      ["id", "asc"],
+    ],
+    limit: q.pageSize,
+    offset: (q.page - 1) * q.pageSize,
+  });
   return { items: await toDtos(ctx, rows), page: q.page, pageSize: q.pageSize, total: count };
 }
 
@@ -138,7 +199,11 @@ export async function getLabKinetics(ctx: LabContext, id: string): Promise<LabKi
 }
 
 /** One stored version (the latest when `version` is omitted), with its row id for caching. */
-export async function getLabKineticsVersion(ctx: LabContext, id: string, version?: number): Promise<{ versionId: string; version: number; definition: KineticsDefinition }> {
+export async function getLabKineticsVersion(
+  ctx: LabContext,
+  id: string,
+  version?: number,
+): Promise<{ versionId: string; version: number; definition: KineticsDefinition }> {
   const row = await findLabKinetics(ctx, id);
   const m = await database();
   const v = await m.KineticsVersion.findOne({ where: { kineticsId: row.id, version: version ?? row.latestVersion } });
@@ -151,7 +216,12 @@ export async function listKineticsVersions(ctx: LabContext, id: string): Promise
   const m = await database();
   const versions = await m.KineticsVersion.findAll({ where: { kineticsId: row.id }, order: [["version", "desc"]] });
   const emails = await emailsOf(versions.map((v) => v.createdBy));
-  return versions.map((v) => ({ version: v.version, definition: v.definition, createdByEmail: v.createdBy ? (emails.get(v.createdBy) ?? null) : null, createdAt: v.createdAt.toISOString() }));
+  return versions.map((v) => ({
+    version: v.version,
+    definition: v.definition,
+    createdByEmail: v.createdBy ? (emails.get(v.createdBy) ?? null) : null,
+    createdAt: v.createdAt.toISOString(),
+  }));
 }
 
 /**
@@ -165,7 +235,11 @@ export function checkDefinition(definition: KineticsDefinition): void {
   } catch (err) {
     const e = toAppError(err);
     if (e instanceof AppError && e.code === "unprocessable") {
-      throw new AppError("unprocessable", `definition: no steady state at the default parameter values — ${e.message}`, { field: "definition.parameters" });
+      throw new AppError(
+        "unprocessable",
+        `definition: no steady state at the default parameter values — ${e.message}`,
+        { field: "definition.parameters" },
+      );
     }
     throw e;
   }
@@ -181,9 +255,32 @@ export async function createLabKinetics(ctx: LabContext, input: KineticsInput): 
   checkDefinition(input.definition);
   const m = await database();
   const row = await services().db.sequelize.transaction(async (transaction) => {
-    const k = await m.LabKinetics.create({ labId: ctx.labId, name: input.definition.name, description: input.description, latestVersion: 1, createdBy: ctx.actor.userId }, { transaction });
-    await m.KineticsVersion.create({ kineticsId: k.id, labId: ctx.labId, version: 1, definition: input.definition, createdBy: ctx.actor.userId }, { transaction });
-    await recordAudit(m, { labId: ctx.labId, actor: ctx.actor, action: "kinetics.created", targetType: "kinetics", targetId: k.id, summary: `${ctx.actor.email} created the kinetics “${k.name}” (version 1, ${input.definition.species.length} species)` }, transaction);
+    const k = await m.LabKinetics.create(
+      {
+        labId: ctx.labId,
+        name: input.definition.name,
+        description: input.description,
+        latestVersion: 1,
+        createdBy: ctx.actor.userId,
+      },
+      { transaction },
+    );
+    await m.KineticsVersion.create(
+      { kineticsId: k.id, labId: ctx.labId, version: 1, definition: input.definition, createdBy: ctx.actor.userId },
+      { transaction },
+    );
+    await recordAudit(
+      m,
+      {
+        labId: ctx.labId,
+        actor: ctx.actor,
+        action: "kinetics.created",
+        targetType: "kinetics",
+        targetId: k.id,
+        summary: `${ctx.actor.email} created the kinetics “${k.name}” (version 1, ${input.definition.species.length} species)`,
+      },
+      transaction,
+    );
     return k;
   });
   return (await toDtos(ctx, [row]))[0];
@@ -198,9 +295,26 @@ export async function updateLabKinetics(ctx: LabContext, id: string, input: Kine
   await services().db.sequelize.transaction(async (transaction) => {
     await row.reload({ transaction });
     const version = row.latestVersion + 1;
-    await m.KineticsVersion.create({ kineticsId: row.id, labId: ctx.labId, version, definition: input.definition, createdBy: ctx.actor.userId }, { transaction });
-    await row.update({ name: input.definition.name, description: input.description, latestVersion: version }, { transaction });
-    await recordAudit(m, { labId: ctx.labId, actor: ctx.actor, action: "kinetics.edited", targetType: "kinetics", targetId: row.id, summary: `${ctx.actor.email} saved version ${version} of the kinetics “${row.name}”` }, transaction);
+    await m.KineticsVersion.create(
+      { kineticsId: row.id, labId: ctx.labId, version, definition: input.definition, createdBy: ctx.actor.userId },
+      { transaction },
+    );
+    await row.update(
+      { name: input.definition.name, description: input.description, latestVersion: version },
+      { transaction },
+    );
+    await recordAudit(
+      m,
+      {
+        labId: ctx.labId,
+        actor: ctx.actor,
+        action: "kinetics.edited",
+        targetType: "kinetics",
+        targetId: row.id,
+        summary: `${ctx.actor.email} saved version ${version} of the kinetics “${row.name}”`,
+      },
+      transaction,
+    );
   });
   return (await toDtos(ctx, [row]))[0];
 }
@@ -212,6 +326,17 @@ export async function deleteLabKinetics(ctx: LabContext, id: string): Promise<vo
   await services().db.sequelize.transaction(async (transaction) => {
     const n = await m.KineticsVersion.destroy({ where: { kineticsId: row.id }, transaction });
     await row.destroy({ transaction });
-    await recordAudit(m, { labId: ctx.labId, actor: ctx.actor, action: "kinetics.deleted", targetType: "kinetics", targetId: id, summary: `${ctx.actor.email} deleted the kinetics “${row.name}” and its ${n} version(s)` }, transaction);
+    await recordAudit(
+      m,
+      {
+        labId: ctx.labId,
+        actor: ctx.actor,
+        action: "kinetics.deleted",
+        targetType: "kinetics",
+        targetId: id,
+        summary: `${ctx.actor.email} deleted the kinetics “${row.name}” and its ${n} version(s)`,
+      },
+      transaction,
+    );
   });
 }

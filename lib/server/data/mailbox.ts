@@ -51,12 +51,31 @@ async function audienceOf(ctx: LabContext): Promise<Audience> {
   const m = await database();
   const now = new Date();
   const members = await m.Membership.findAll({ where: { labId: ctx.labId }, attributes: ["userId"] });
-  const pending = await m.Invitation.findAll({ where: { labId: ctx.labId, acceptedAt: { [Op.is]: null }, revokedAt: { [Op.is]: null }, expiresAt: { [Op.gt]: now } }, attributes: ["email"] });
-  const memberUsers = members.length ? await m.User.findAll({ where: { id: members.map((x) => x.userId) }, attributes: ["id", "email"] }) : [];
-  const inviteeUsers = pending.length ? await m.User.findAll({ where: { email: pending.map((x) => x.email.toLowerCase()) }, attributes: ["id", "email"] }) : [];
+  const pending = await m.Invitation.findAll({
+    where: {
+      labId: ctx.labId,
+      acceptedAt: { [Op.is]: null },
+      revokedAt: { [Op.is]: null },
+      expiresAt: { [Op.gt]: now },
+    },
+    attributes: ["email"],
+  });
+  const memberUsers = members.length
+    ? await m.User.findAll({ where: { id: members.map((x) => x.userId) }, attributes: ["id", "email"] })
+    : [];
+  const inviteeUsers = pending.length
+    ? await m.User.findAll({ where: { email: pending.map((x) => x.email.toLowerCase()) }, attributes: ["id", "email"] })
+    : [];
   const users = [...memberUsers, ...inviteeUsers];
   const elsewhere = users.length
-    ? new Set((await m.Membership.findAll({ where: { userId: users.map((u) => u.id), labId: { [Op.ne]: ctx.labId } }, attributes: ["userId"] })).map((x) => x.userId))
+    ? new Set(
+        (
+          await m.Membership.findAll({
+            where: { userId: users.map((u) => u.id), labId: { [Op.ne]: ctx.labId } },
+            attributes: ["userId"],
+          })
+        ).map((x) => x.userId),
+      )
     : new Set<string>();
   const labOnly = new Set(users.filter((u) => elsewhere.has(u.id)).map((u) => u.email.toLowerCase()));
   const all = [...memberUsers.map((u) => u.email), ...pending.map((p) => p.email)].map((e) => e.toLowerCase());
@@ -68,7 +87,10 @@ function isLabMail(mail: MailDto, ctx: LabContext): boolean {
   const text = mail.text ?? "";
   // Account mail (sign-in links, confirmations, resets) goes through /api/auth/ or names the account: never.
   if (text.includes("/api/auth/") || /sign-in link|password|account/i.test(mail.subject ?? "")) return false;
-  return text.includes(`/labs/${ctx.labId}`) || (mail.subject === `You are invited to ${ctx.labName} on Morphokin` && /\/invite\/\S+/.test(text));
+  return (
+    text.includes(`/labs/${ctx.labId}`) ||
+    (mail.subject === `You are invited to ${ctx.labName} on Morphokin` && /\/invite\/\S+/.test(text))
+  );
 }
 
 export function visibleTo(mail: MailDto, ctx: LabContext, audience: Audience): boolean {
@@ -81,7 +103,11 @@ export function visibleTo(mail: MailDto, ctx: LabContext, audience: Audience): b
 /** The messages this lab may see, newest first (at most 200). */
 export async function listMail(ctx: LabContext): Promise<MailDto[]> {
   const url = services().config.devMailboxUrl;
-  if (!mailboxEnabled()) throw new AppError("not_found", "the development mailbox is switched off (it is on only in a local development setup; see README, Configuration)");
+  if (!mailboxEnabled())
+    throw new AppError(
+      "not_found",
+      "the development mailbox is switched off (it is on only in a local development setup; see README, Configuration)",
+    );
   let res: Response;
   try {
     res = await fetch(`${url.replace(/\/$/, "")}/messages`, { cache: "no-store" });

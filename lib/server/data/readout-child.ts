@@ -40,7 +40,9 @@ async function main() {
 main().catch((err: unknown) => {
   const app = toReadoutAppError(err);
   if (app) {
-    process.stderr.write(`error ${JSON.stringify({ code: app.code, message: app.message, details: app.details ?? null })}\n`);
+    process.stderr.write(
+      `error ${JSON.stringify({ code: app.code, message: app.message, details: app.details ?? null })}\n`,
+    );
     process.exit(2);
   }
   console.error(err);

@@ -5,7 +5,13 @@
  */
 import sharp from "sharp";
 import { decodeImage, encodePng } from "@/lib/imaging";
-import { mapLocalWavelength, readWavelength, renderFftMagnitude, renderPreview, type ReadoutOptions } from "@/lib/readout";
+import {
+  mapLocalWavelength,
+  readWavelength,
+  renderFftMagnitude,
+  renderPreview,
+  type ReadoutOptions,
+} from "@/lib/readout";
 import type { ImageReadoutSettings } from "@/lib/contracts/readout";
 import type { ImageReadoutResult, SpectrumProducts } from "./readout-result";
 
@@ -59,13 +65,26 @@ export async function runImageReadout(
     radialSpectrum,
     angularPower,
     localWavelength: {
-      tileSizePx: local.tileSizePx, stridePx: local.stridePx, columns: local.columns, rows: local.rows,
-      centresXPx: local.centresXPx, centresYPx: local.centresYPx, wavelengthUm: local.wavelengthUm, profile: local.profile,
+      tileSizePx: local.tileSizePx,
+      stridePx: local.stridePx,
+      columns: local.columns,
+      rows: local.rows,
+      centresXPx: local.centresXPx,
+      centresYPx: local.centresYPx,
+      wavelengthUm: local.wavelengthUm,
+      profile: local.profile,
     },
   };
   const result: ImageReadoutResult = {
     type: "image",
-    image: { width: info.width, height: info.height, channels: info.channels, bitDepth: info.bitDepth, format: info.format, channelUsed: info.channelUsed },
+    image: {
+      width: info.width,
+      height: info.height,
+      channels: info.channels,
+      bitDepth: info.bitDepth,
+      format: info.format,
+      channelUsed: info.channelUsed,
+    },
     pixelSizeUm: settings.pixelSizeUm,
     pixelSizeSource: settings.pixelSizeSource,
     wavelength: numbers,

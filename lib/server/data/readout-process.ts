@@ -21,7 +21,8 @@ import { runTableReadout } from "./readout-table";
 /** Longest one image readout may run, ms (design choice: 20× the 4096² bench figure, and start-up). */
 export const READOUT_TIME_LIMIT_MS = 3 * 60_000;
 
-export const readoutRunner = (): "child-process" | "in-process" => (process.env.READOUT_IN_PROCESS === "1" ? "in-process" : "child-process");
+export const readoutRunner = (): "child-process" | "in-process" =>
+  process.env.READOUT_IN_PROCESS === "1" ? "in-process" : "child-process";
 
 const DERIVED = ["spectrum.json", "preview.png", "fft.png"] as const;
 
@@ -35,16 +36,29 @@ export async function readImage(
   if (readoutRunner() === "in-process") return runImageReadout(bytes, settings, step);
   return inChild(bytes, settings, signal, step, (stdout, dir) => {
     const result = JSON.parse(stdout) as ImageReadoutResult;
-    const derived = Object.fromEntries(DERIVED.map((name) => [name, readFileSync(path.join(dir, name))])) as ImageReadoutOutput["derived"];
+    const derived = Object.fromEntries(
+      DERIVED.map((name) => [name, readFileSync(path.join(dir, name))]),
+    ) as ImageReadoutOutput["derived"];
     return { result, derived };
   });
 }
 
 /** A CSV/TSV table readout (parsing, column guess, spacing statistics); no derived objects. */
-export async function readTable(bytes: Uint8Array, settings: StoredTableSettings, signal: AbortSignal): Promise<TableReadoutResult> {
+export async function readTable(
+  bytes: Uint8Array,
+  settings: StoredTableSettings,
+  signal: AbortSignal,
+): Promise<TableReadoutResult> {
   if (signal.aborted) throw new JobCancelledError();
-  if (readoutRunner() === "in-process") return runTableReadout(Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength).toString("utf8"), settings);
-  return inChild(bytes, settings, signal, async () => undefined, (stdout) => JSON.parse(stdout) as TableReadoutResult);
+  if (readoutRunner() === "in-process")
+    return runTableReadout(Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength).toString("utf8"), settings);
+  return inChild(
+    bytes,
+    settings,
+    signal,
+    async () => undefined,
+    (stdout) => JSON.parse(stdout) as TableReadoutResult,
+  );
 }
 
 /** Runs readout-child.ts on the bytes and settings; `read` turns its stdout (and out folder) into the result. */
@@ -57,24 +71,32 @@ async function inChild<T>(
 ): Promise<T> {
   const dir = mkdtempSync(path.join(tmpdir(), "morphokin-readout-"));
   try {
-    const input = path.join(dir, "input"), settingsFile = path.join(dir, "settings.json");
+    const input = path.join(dir, "input"),
+      settingsFile = path.join(dir, "settings.json");
     writeFileSync(input, bytes);
     writeFileSync(settingsFile, JSON.stringify(settings));
     type Failure = { code: ErrorCode; message: string; details: unknown };
     let failure: Failure | null = null;
     let progress = Promise.resolve();
-    const r = await runTsxChild(["lib/server/data/readout-child.ts", "--input", input, "--settings", settingsFile, "--out", dir], {
-      signal,
-      timeLimitMs: READOUT_TIME_LIMIT_MS,
-      onLine(line) {
-        const q = parseProtocolLine<{ fraction: number; note: string }>(line, "progress");
-        if (q) progress = progress.then(() => step(q.fraction, q.note)).catch(() => undefined);
-        failure = parseProtocolLine<Failure>(line, "error") ?? failure;
-        return line.startsWith("progress ") || line.startsWith("error ");
+    const r = await runTsxChild(
+      ["lib/server/data/readout-child.ts", "--input", input, "--settings", settingsFile, "--out", dir],
+      {
+        signal,
+        timeLimitMs: READOUT_TIME_LIMIT_MS,
+        onLine(line) {
+          const q = parseProtocolLine<{ fraction: number; note: string }>(line, "progress");
+          if (q) progress = progress.then(() => step(q.fraction, q.note)).catch(() => undefined);
+          failure = parseProtocolLine<Failure>(line, "error") ?? failure;
+          return line.startsWith("progress ") || line.startsWith("error ");
+        },
       },
-    });
+    );
     await progress;
-    if (r.timedOut) throw new AppError("unprocessable", `the readout took longer than ${READOUT_TIME_LIMIT_MS / 60_000} minutes and was stopped; ${settings.kind === "table" ? "split the table" : "draw a smaller region of interest"} or try again when the server is less busy`);
+    if (r.timedOut)
+      throw new AppError(
+        "unprocessable",
+        `the readout took longer than ${READOUT_TIME_LIMIT_MS / 60_000} minutes and was stopped; ${settings.kind === "table" ? "split the table" : "draw a smaller region of interest"} or try again when the server is less busy`,
+      );
     const f = failure as Failure | null; // assigned in the callback, which TypeScript cannot follow
     if (f) throw new AppError(f.code, f.message, f.details ?? undefined);
     if (r.code !== 0) throw new Error(`the readout process exited with code ${r.code}: ${r.stderr.trim().slice(-500)}`);

@@ -7,7 +7,14 @@ import type { SpacingTableReadout, TableUnit } from "@/lib/spacing";
 
 export interface ImageReadoutResult {
   type: "image";
-  image: { width: number; height: number; channels: number; bitDepth: 8 | 16; format: string; channelUsed: number | "luminance" };
+  image: {
+    width: number;
+    height: number;
+    channels: number;
+    bitDepth: 8 | 16;
+    format: string;
+    channelUsed: number | "luminance";
+  };
   /** µm/px used, and where it came from (file metadata, the uploader, or the readout's settings). */
   pixelSizeUm: number;
   pixelSizeSource: string | null;
@@ -39,7 +46,8 @@ export interface SpectrumProducts {
 }
 
 /** Which number a readout's `wavelengthUm` column holds; the comparison says so beside each value. */
-export type WavelengthMeasure = "fourier-wavelength" | "mean-spacing-1d" | "hex-equivalent-from-nn" | "mean-spacing-table";
+export type WavelengthMeasure =
+  "fourier-wavelength" | "mean-spacing-1d" | "hex-equivalent-from-nn" | "mean-spacing-table";
 
 export const MEASURE_LABELS: Record<WavelengthMeasure, string> = {
   "fourier-wavelength": "Fourier wavelength (image)",
@@ -70,14 +78,39 @@ export function headlineOf(result: ReadoutResult): ReadoutHeadline {
   if (result.type === "image") {
     const w = result.wavelength;
     return {
-      measure: "fourier-wavelength", wavelengthUm: w.wavelengthUm, uncertaintyUm: w.uncertaintyUm, periodFound: w.periodFound,
-      significance: w.significance, symmetry: w.symmetry, nearestNeighbourUm: w.nearestNeighbourUm,
+      measure: "fourier-wavelength",
+      wavelengthUm: w.wavelengthUm,
+      uncertaintyUm: w.uncertaintyUm,
+      periodFound: w.periodFound,
+      significance: w.significance,
+      symmetry: w.symmetry,
+      nearestNeighbourUm: w.nearestNeighbourUm,
     };
   }
   const t = result.table;
   if (t.kind === "centroids-2d") {
-    return { measure: "hex-equivalent-from-nn", wavelengthUm: t.equivalentHexWavelengthUm, uncertaintyUm: (Math.sqrt(3) / 2) * t.nearestNeighbourUm.sem, periodFound: true, n: t.n, nearestNeighbourUm: t.nearestNeighbourUm.mean };
+    return {
+      measure: "hex-equivalent-from-nn",
+      wavelengthUm: t.equivalentHexWavelengthUm,
+      uncertaintyUm: (Math.sqrt(3) / 2) * t.nearestNeighbourUm.sem,
+      periodFound: true,
+      n: t.n,
+      nearestNeighbourUm: t.nearestNeighbourUm.mean,
+    };
   }
-  if (t.kind === "positions-1d") return { measure: "mean-spacing-1d", wavelengthUm: t.meanSpacingUm, uncertaintyUm: t.spacingUm.sem, periodFound: true, n: t.n };
-  return { measure: "mean-spacing-table", wavelengthUm: t.spacingUm.mean, uncertaintyUm: t.spacingUm.sem, periodFound: true, n: t.n };
+  if (t.kind === "positions-1d")
+    return {
+      measure: "mean-spacing-1d",
+      wavelengthUm: t.meanSpacingUm,
+      uncertaintyUm: t.spacingUm.sem,
+      periodFound: true,
+      n: t.n,
+    };
+  return {
+    measure: "mean-spacing-table",
+    wavelengthUm: t.spacingUm.mean,
+    uncertaintyUm: t.spacingUm.sem,
+    periodFound: true,
+    n: t.n,
+  };
 }

@@ -22,7 +22,12 @@ function unitOf(name: string): TableUnit | null {
   return "um";
 }
 
-const base = (name: string) => name.replace(UNIT_PATTERN, "").trim().toLowerCase().replace(/[\s_\-.]+/g, "");
+const base = (name: string) =>
+  name
+    .replace(UNIT_PATTERN, "")
+    .trim()
+    .toLowerCase()
+    .replace(/[\s_\-.]+/g, "");
 
 /** The header names (first row) of a CSV/TSV text. */
 export function readHeader(text: string): string[] {
@@ -41,12 +46,24 @@ export function guessColumns(header: string[]): { columns: Columns; unit: TableU
   if (x && y) return { columns: { x, y }, unit: unitOf(x) };
   const position = find(["position", "positions", "pos", "distance", "distancealong", "location"]);
   if (position) return { columns: { position }, unit: unitOf(position) };
-  const spacing = find(["spacing", "spacings", "interval", "period", "nndistance", "nearestneighbour", "nearestneighbor", "nn"]);
+  const spacing = find([
+    "spacing",
+    "spacings",
+    "interval",
+    "period",
+    "nndistance",
+    "nearestneighbour",
+    "nearestneighbor",
+    "nn",
+  ]);
   if (spacing) return { columns: { spacing }, unit: unitOf(spacing) };
   return null;
 }
 
-export function runTableReadout(text: string, settings: TableReadoutSettings & { pixelSizeUm: number | null; pixelSizeSource: string | null }): TableReadoutResult {
+export function runTableReadout(
+  text: string,
+  settings: TableReadoutSettings & { pixelSizeUm: number | null; pixelSizeSource: string | null },
+): TableReadoutResult {
   let columns = settings.columns;
   let unit = settings.unit ?? null;
   let guessed = false;
@@ -54,7 +71,10 @@ export function runTableReadout(text: string, settings: TableReadoutSettings & {
     const header = readHeader(text);
     const g = guessColumns(header);
     if (!g) {
-      throw new AppError("unprocessable", `Could not tell from the header which columns to read (the columns are: ${header.join(", ") || "none"}); start a readout with a column mapping: x and y, or position, or spacing.`);
+      throw new AppError(
+        "unprocessable",
+        `Could not tell from the header which columns to read (the columns are: ${header.join(", ") || "none"}); start a readout with a column mapping: x and y, or position, or spacing.`,
+      );
     }
     columns = g.columns;
     unit ??= g.unit;
@@ -62,8 +82,17 @@ export function runTableReadout(text: string, settings: TableReadoutSettings & {
   }
   const u: TableUnit = unit ?? "um";
   if (u === "px" && !settings.pixelSizeUm) {
-    throw new AppError("unprocessable", "The table is in pixels (unit \"px\") but no pixel size is known: give the pixel size in µm/px.");
+    throw new AppError(
+      "unprocessable",
+      'The table is in pixels (unit "px") but no pixel size is known: give the pixel size in µm/px.',
+    );
   }
   const table = readSpacingTable(text, { ...columns, unit: u, pixelSizeUm: settings.pixelSizeUm ?? undefined });
-  return { type: "table", mapping: { ...columns, unit: u, guessed }, pixelSizeUm: settings.pixelSizeUm, pixelSizeSource: settings.pixelSizeSource, table };
+  return {
+    type: "table",
+    mapping: { ...columns, unit: u, guessed },
+    pixelSizeUm: settings.pixelSizeUm,
+    pixelSizeSource: settings.pixelSizeSource,
+    table,
+  };
 }

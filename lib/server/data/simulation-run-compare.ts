@@ -17,11 +17,27 @@ export interface CompareOptions {
  * (coverage k = 2: common practice, no source); for a prediction, the 20 % band is the tolerance
  * of the solver's own pattern test for a fully developed pattern.
  */
-export function compareWithPrediction(simulated: number | null, uncertainty: number | null, reference: number, unit: string, options: CompareOptions = {}): RunComparison {
+export function compareWithPrediction(
+  simulated: number | null,
+  uncertainty: number | null,
+  reference: number,
+  unit: string,
+  options: CompareOptions = {},
+): RunComparison {
   const prediction = options.what === undefined;
-  const what = prediction ? `the linear prediction 2π/k* = ${fmt(reference)} ${unit}` : `${options.what}, ${fmt(reference)} ± ${fmt(options.referenceUncertainty ?? 0)} ${unit}`;
+  const what = prediction
+    ? `the linear prediction 2π/k* = ${fmt(reference)} ${unit}`
+    : `${options.what}, ${fmt(reference)} ± ${fmt(options.referenceUncertainty ?? 0)} ${unit}`;
   if (simulated === null) {
-    return { simulatedWavelength: null, uncertainty: null, predictedWavelength: reference, relativeDifference: null, withinUncertainty: null, withinLinearTolerance: null, sentence: `The final pattern shows no significant period, so it cannot be compared with ${what}.` };
+    return {
+      simulatedWavelength: null,
+      uncertainty: null,
+      predictedWavelength: reference,
+      relativeDifference: null,
+      withinUncertainty: null,
+      withinLinearTolerance: null,
+      sentence: `The final pattern shows no significant period, so it cannot be compared with ${what}.`,
+    };
   }
   const diff = simulated - reference;
   const rel = diff / reference;
@@ -38,5 +54,13 @@ export function compareWithPrediction(simulated: number | null, uncertainty: num
       : prediction
         ? `${head} disagrees with ${what}: the difference of ${pct} is beyond two uncertainties and beyond the ${LINEAR_THEORY_TOLERANCE * 100} % expected of linear theory.`
         : `${head} disagrees with ${what}: the difference of ${pct} is beyond two combined uncertainties.`;
-  return { simulatedWavelength: simulated, uncertainty: u, predictedWavelength: reference, relativeDifference: rel, withinUncertainty, withinLinearTolerance, sentence };
+  return {
+    simulatedWavelength: simulated,
+    uncertainty: u,
+    predictedWavelength: reference,
+    relativeDifference: rel,
+    withinUncertainty,
+    withinLinearTolerance,
+    sentence,
+  };
 }

@@ -15,13 +15,15 @@ const STOPS: Array<[number, [number, number, number]]> = [
 function colourAt(t: number, out: Uint8Array, o: number) {
   let i = 1;
   while (i < STOPS.length - 1 && t > STOPS[i][0]) i++;
-  const [t0, c0] = STOPS[i - 1], [t1, c1] = STOPS[i];
+  const [t0, c0] = STOPS[i - 1],
+    [t1, c1] = STOPS[i];
   const f = Math.min(1, Math.max(0, (t - t0) / (t1 - t0)));
   for (let c = 0; c < 3; c++) out[o + c] = Math.round(c0[c] + f * (c1[c] - c0[c]));
 }
 
 export function fieldRange(field: Float64Array): { min: number; max: number } {
-  let min = Infinity, max = -Infinity;
+  let min = Infinity,
+    max = -Infinity;
   for (const v of field) {
     if (v < min) min = v;
     if (v > max) max = v;
@@ -39,7 +41,9 @@ export async function renderFieldPng(field: Float64Array, nx: number, ny: number
     const row = ny === 1 ? 0 : y;
     for (let x = 0; x < nx; x++) colourAt((field[row * nx + x] - min) / span, px, (y * nx + x) * 3);
   }
-  return sharp(px, { raw: { width: nx, height, channels: 3 } }).png().toBuffer();
+  return sharp(px, { raw: { width: nx, height, channels: 3 } })
+    .png()
+    .toBuffer();
 }
 
 /** Grey image of one field scaled to 0…1 for the readout; a 1-D field becomes a stripe image of `rows` rows. */
@@ -48,6 +52,7 @@ export function fieldToGrey(field: Float64Array, nx: number, ny: number, rows = 
   const { min, max } = fieldRange(field);
   const span = max > min ? max - min : 1;
   const data = new Float32Array(nx * height);
-  for (let y = 0; y < height; y++) for (let x = 0; x < nx; x++) data[y * nx + x] = (field[(ny === 1 ? 0 : y) * nx + x] - min) / span;
+  for (let y = 0; y < height; y++)
+    for (let x = 0; x < nx; x++) data[y * nx + x] = (field[(ny === 1 ? 0 : y) * nx + x] - min) / span;
   return { width: nx, height, data };
 }

@@ -22,7 +22,12 @@ export interface RunSpec {
    */
   initial:
     | { steadyState: number[]; noiseAmplitude?: number; seed: number }
-    | { fieldFiles: string[]; fromRun: { runId: string; name: string; finalSha256: string[] }; noiseAmplitude: number; seed: number };
+    | {
+        fieldFiles: string[];
+        fromRun: { runId: string; name: string; finalSha256: string[] };
+        noiseAmplitude: number;
+        seed: number;
+      };
   stopWhenStationary: boolean;
   snapshotTimesS: number[];
   scales?: { lengthScaleUm?: number; timeScaleS?: number };
@@ -50,9 +55,18 @@ export interface RunPlan {
   estimatedCpuS: number;
   classification: string;
   /** Linear theory at the steady state: fastest-growing k* (grid units⁻¹) and 2π/k*; on a zero-flux box also the fastest admissible mode. */
-  prediction: { kStar: number; wavelength: number; domainMode: { k: number; wavelength: number; indices: number[]; growing: boolean } | null } | null;
+  prediction: {
+    kStar: number;
+    wavelength: number;
+    domainMode: { k: number; wavelength: number; indices: number[]; growing: boolean } | null;
+  } | null;
   /** Local 2π/k* along x when a parameter varies (positions in grid units). */
-  gradientPrediction: { parameter: string; positions: number[]; values: number[]; wavelengths: Array<number | null> } | null;
+  gradientPrediction: {
+    parameter: string;
+    positions: number[];
+    values: number[];
+    wavelengths: Array<number | null>;
+  } | null;
   /** Set when the run started from a fit: the measurement the fit used for this condition (µm). */
   fromFit: {
     fitId: string;
@@ -65,7 +79,14 @@ export interface RunPlan {
     readouts: { readoutId: string; filename: string | null; measure: string | null }[];
   } | null;
   /** Set when the run starts from an earlier run's final fields. */
-  startFrom: { runId: string; name: string; kineticsName: string; timeS: number; grid: string; speciesMeans: number[] } | null;
+  startFrom: {
+    runId: string;
+    name: string;
+    kineticsName: string;
+    timeS: number;
+    grid: string;
+    speciesMeans: number[];
+  } | null;
   warnings: string[];
 }
 

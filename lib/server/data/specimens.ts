@@ -40,7 +40,10 @@ async function toDtos(ctx: LabContext, rows: SpecimenRow[]): Promise<SpecimenDto
   const m = await database();
   const ids = rows.map((r) => r.id);
   const uploads = ids.length ? await m.Upload.findAll({ where: { specimenId: ids }, attributes: ["specimenId"] }) : [];
-  const studies = await m.Study.findAll({ where: { id: [...new Set(rows.map((r) => r.studyId))] }, attributes: ["id", "name"] });
+  const studies = await m.Study.findAll({
+    where: { id: [...new Set(rows.map((r) => r.studyId))] },
+    attributes: ["id", "name"],
+  });
   const studyNames = new Map(studies.map((s) => [s.id, s.name]));
   return rows.map((r) => ({
     id: r.id,
@@ -58,12 +61,28 @@ async function toDtos(ctx: LabContext, rows: SpecimenRow[]): Promise<SpecimenDto
   }));
 }
 
-export async function listSpecimens(ctx: LabContext, studyId: string, q: ListQuery<(typeof SPECIMEN_SORTS)[number]>): Promise<ListResult<SpecimenDto>> {
+export async function listSpecimens(
+  ctx: LabContext,
+  studyId: string,
+  q: ListQuery<(typeof SPECIMEN_SORTS)[number]>,
+): Promise<ListResult<SpecimenDto>> {
   const m = await database();
   await findStudy(ctx, studyId);
   const like = containsText(q.q);
-  const where = { labId: ctx.labId, studyId, ...(q.q ? { [Op.or]: [{ label: like }, { condition: like }, { stage: like }, { genotype: like }] } : {}) };
-  const { rows, count } = await m.Specimen.findAndCountAll({ where, order: [[q.sort, q.dir], ["id", "asc"]], limit: q.pageSize, offset: (q.page - 1) * q.pageSize });
+  const where = {
+    labId: ctx.labId,
+    studyId,
+    ...(q.q ? { [Op.or]: [{ label: like }, { condition: like }, { stage: like }, { genotype: like }] } : {}),
+  };
+  const { rows, count } = await m.Specimen.findAndCountAll({
+    where,
+    order: [
+      [q.sort, q.dir],
+      ["id", "asc"],
+    ],
+    limit: q.pageSize,
+    offset: (q.page - 1) * q.pageSize,
+  });
   return { items: await toDtos(ctx, rows), page: q.page, pageSize: q.pageSize, total: count };
 }
 
@@ -83,23 +102,59 @@ export async function createSpecimen(ctx: LabContext, studyId: string, input: Sp
   const m = await database();
   const study = await findStudy(ctx, studyId);
   const s = await services().db.sequelize.transaction(async (transaction) => {
-    const row = await m.Specimen.create({ ...input, labId: ctx.labId, studyId, createdBy: ctx.actor.userId }, { transaction });
-    await recordAudit(m, { labId: ctx.labId, actor: ctx.actor, action: "specimen.created", targetType: "specimen", targetId: row.id, summary: `${ctx.actor.email} added specimen “${row.label}” (${row.condition}) to “${study.name}”` }, transaction);
+    const row = await m.Specimen.create(
+      { ...input, labId: ctx.labId, studyId, createdBy: ctx.actor.userId },
+      { transaction },
+    );
+    await recordAudit(
+      m,
+      {
+        labId: ctx.labId,
+        actor: ctx.actor,
+        action: "specimen.created",
+        targetType: "specimen",
+        targetId: row.id,
+        summary: `${ctx.actor.email} added specimen “${row.label}” (${row.condition}) to “${study.name}”`,
+      },
+      transaction,
+    );
     return row;
   });
   return (await toDtos(ctx, [s]))[0];
 }
 
-export async function updateSpecimen(ctx: LabContext, specimenId: string, input: Partial<SpecimenFields>): Promise<SpecimenDto> {
+export async function updateSpecimen(
+  ctx: LabContext,
+  specimenId: string,
+  input: Partial<SpecimenFields>,
+): Promise<SpecimenDto> {
   const s = await findSpecimen(ctx, specimenId);
   authorize(ctx, "specimen.edit", s.createdBy);
   const m = await database();
-  const changes = changedFields(s.get({ plain: true }), input, { label: "Label", condition: "Condition", stage: "Stage", genotype: "Genotype", notes: "Notes" });
+  const changes = changedFields(s.get({ plain: true }), input, {
+    label: "Label",
+    condition: "Condition",
+    stage: "Stage",
+    genotype: "Genotype",
+    notes: "Notes",
+  });
   const before = s.label;
   await services().db.sequelize.transaction(async (transaction) => {
     await s.update(input, { transaction });
     if (changes.length === 0) return; // nothing changed, nothing to record
-    await recordAudit(m, { labId: ctx.labId, actor: ctx.actor, action: "specimen.edited", targetType: "specimen", targetId: s.id, summary: fitSummary(`${ctx.actor.email} edited specimen “${before}”: ${describeChanges(changes)}`), details: { changes } }, transaction);
+    await recordAudit(
+      m,
+      {
+        labId: ctx.labId,
+        actor: ctx.actor,
+        action: "specimen.edited",
+        targetType: "specimen",
+        targetId: s.id,
+        summary: fitSummary(`${ctx.actor.email} edited specimen “${before}”: ${describeChanges(changes)}`),
+        details: { changes },
+      },
+      transaction,
+    );
   });
   return (await toDtos(ctx, [s]))[0];
 }
@@ -109,9 +164,21 @@ export async function deleteSpecimen(ctx: LabContext, specimenId: string): Promi
   const s = await findSpecimen(ctx, specimenId);
   authorize(ctx, "specimen.delete", s.createdBy);
   const uploads = await m.Upload.unscoped().count({ where: { specimenId } }); // one still being received counts too (its row holds the specimen)
-  if (uploads > 0) throw new AppError("conflict", `this specimen still has ${uploads} uploaded file(s); delete them first`);
+  if (uploads > 0)
+    throw new AppError("conflict", `this specimen still has ${uploads} uploaded file(s); delete them first`);
   await services().db.sequelize.transaction(async (transaction) => {
     await s.destroy({ transaction });
-    await recordAudit(m, { labId: ctx.labId, actor: ctx.actor, action: "specimen.deleted", targetType: "specimen", targetId: specimenId, summary: `${ctx.actor.email} deleted specimen “${s.label}”` }, transaction);
+    await recordAudit(
+      m,
+      {
+        labId: ctx.labId,
+        actor: ctx.actor,
+        action: "specimen.deleted",
+        targetType: "specimen",
+        targetId: specimenId,
+        summary: `${ctx.actor.email} deleted specimen “${s.label}”`,
+      },
+      transaction,
+    );
   });
 }

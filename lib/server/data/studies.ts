@@ -26,11 +26,19 @@ export interface StudyDto {
 
 export const STUDY_SORTS = ["name", "tissue", "organism", "createdAt", "updatedAt"] as const;
 
-async function toDtos(ctx: LabContext, studies: InstanceType<Awaited<ReturnType<typeof database>>["Study"]>[]): Promise<StudyDto[]> {
+async function toDtos(
+  ctx: LabContext,
+  studies: InstanceType<Awaited<ReturnType<typeof database>>["Study"]>[],
+): Promise<StudyDto[]> {
   const m = await database();
   const ids = studies.map((s) => s.id);
-  const specimens = ids.length ? await m.Specimen.findAll({ where: { studyId: ids }, attributes: ["studyId", "condition"] }) : [];
-  const users = await m.User.findAll({ where: { id: studies.map((s) => s.createdBy).filter((x): x is string => !!x) }, attributes: ["id", "email"] });
+  const specimens = ids.length
+    ? await m.Specimen.findAll({ where: { studyId: ids }, attributes: ["studyId", "condition"] })
+    : [];
+  const users = await m.User.findAll({
+    where: { id: studies.map((s) => s.createdBy).filter((x): x is string => !!x) },
+    attributes: ["id", "email"],
+  });
   const emails = new Map(users.map((u) => [u.id, u.email]));
   return studies.map((s) => {
     const mine = specimens.filter((x) => x.studyId === s.id);
@@ -52,11 +60,25 @@ async function toDtos(ctx: LabContext, studies: InstanceType<Awaited<ReturnType<
   });
 }
 
-export async function listStudies(ctx: LabContext, q: ListQuery<(typeof STUDY_SORTS)[number]>): Promise<ListResult<StudyDto>> {
+export async function listStudies(
+  ctx: LabContext,
+  q: ListQuery<(typeof STUDY_SORTS)[number]>,
+): Promise<ListResult<StudyDto>> {
   const m = await database();
   const like = containsText(q.q);
-  const where = { labId: ctx.labId, ...(q.q ? { [Op.or]: [{ name: like }, { tissue: like }, { organism: like }] } : {}) };
-  const { rows, count } = await m.Study.findAndCountAll({ where, order: [[q.sort, q.dir], ["id", "asc"]], limit: q.pageSize, offset: (q.page - 1) * q.pageSize });
+  const where = {
+    labId: ctx.labId,
+    ...(q.q ? { [Op.or]: [{ name: like }, { tissue: like }, { organism: like }] } : {}),
+  };
+  const { rows, count } = await m.Study.findAndCountAll({
+    where,
+    order: [
+      [q.sort, q.dir],
+      ["id", "asc"],
+    ],
+    limit: q.pageSize,
+    offset: (q.page - 1) * q.pageSize,
+  });
   return { items: await toDtos(ctx, rows), page: q.page, pageSize: q.pageSize, total: count };
 }
 
@@ -71,27 +93,62 @@ export async function getStudy(ctx: LabContext, studyId: string): Promise<StudyD
   return (await toDtos(ctx, [await findStudy(ctx, studyId)]))[0];
 }
 
-export async function createStudy(ctx: LabContext, input: { name: string; tissue: string; organism: string; description: string | null }): Promise<StudyDto> {
+export async function createStudy(
+  ctx: LabContext,
+  input: { name: string; tissue: string; organism: string; description: string | null },
+): Promise<StudyDto> {
   authorize(ctx, "study.create");
   const m = await database();
   const study = await services().db.sequelize.transaction(async (transaction) => {
     const s = await m.Study.create({ ...input, labId: ctx.labId, createdBy: ctx.actor.userId }, { transaction });
-    await recordAudit(m, { labId: ctx.labId, actor: ctx.actor, action: "study.created", targetType: "study", targetId: s.id, summary: `${ctx.actor.email} created the study “${s.name}”` }, transaction);
+    await recordAudit(
+      m,
+      {
+        labId: ctx.labId,
+        actor: ctx.actor,
+        action: "study.created",
+        targetType: "study",
+        targetId: s.id,
+        summary: `${ctx.actor.email} created the study “${s.name}”`,
+      },
+      transaction,
+    );
     return s;
   });
   return (await toDtos(ctx, [study]))[0];
 }
 
-export async function updateStudy(ctx: LabContext, studyId: string, input: Partial<{ name: string; tissue: string; organism: string; description: string | null }>): Promise<StudyDto> {
+export async function updateStudy(
+  ctx: LabContext,
+  studyId: string,
+  input: Partial<{ name: string; tissue: string; organism: string; description: string | null }>,
+): Promise<StudyDto> {
   const study = await findStudy(ctx, studyId);
   authorize(ctx, "study.edit", study.createdBy);
   const m = await database();
-  const changes = changedFields(study.get({ plain: true }), input, { name: "Name", tissue: "Tissue", organism: "Organism", description: "Description" });
+  const changes = changedFields(study.get({ plain: true }), input, {
+    name: "Name",
+    tissue: "Tissue",
+    organism: "Organism",
+    description: "Description",
+  });
   const before = study.name;
   await services().db.sequelize.transaction(async (transaction) => {
     await study.update(input, { transaction });
     if (changes.length === 0) return; // nothing changed, nothing to record
-    await recordAudit(m, { labId: ctx.labId, actor: ctx.actor, action: "study.edited", targetType: "study", targetId: study.id, summary: fitSummary(`${ctx.actor.email} edited the study “${before}”: ${describeChanges(changes)}`), details: { changes } }, transaction);
+    await recordAudit(
+      m,
+      {
+        labId: ctx.labId,
+        actor: ctx.actor,
+        action: "study.edited",
+        targetType: "study",
+        targetId: study.id,
+        summary: fitSummary(`${ctx.actor.email} edited the study “${before}”: ${describeChanges(changes)}`),
+        details: { changes },
+      },
+      transaction,
+    );
   });
   return (await toDtos(ctx, [study]))[0];
 }
@@ -102,18 +159,37 @@ export async function deleteStudy(ctx: LabContext, studyId: string): Promise<voi
   const study = await findStudy(ctx, studyId);
   authorize(ctx, "study.delete", study.createdBy);
   const specimens = await m.Specimen.findAll({ where: { studyId }, attributes: ["id"] });
-  const uploads = specimens.length ? await m.Upload.unscoped().count({ where: { specimenId: specimens.map((s) => s.id) } }) : 0;
-  if (uploads > 0) throw new AppError("conflict", `this study still has ${uploads} uploaded file(s); delete them first`);
+  const uploads = specimens.length
+    ? await m.Upload.unscoped().count({ where: { specimenId: specimens.map((s) => s.id) } })
+    : 0;
+  if (uploads > 0)
+    throw new AppError("conflict", `this study still has ${uploads} uploaded file(s); delete them first`);
   await services().db.sequelize.transaction(async (transaction) => {
     await m.Specimen.destroy({ where: { studyId }, transaction });
     await study.destroy({ transaction });
-    await recordAudit(m, { labId: ctx.labId, actor: ctx.actor, action: "study.deleted", targetType: "study", targetId: studyId, summary: `${ctx.actor.email} deleted the study “${study.name}” and its ${specimens.length} specimen(s)` }, transaction);
+    await recordAudit(
+      m,
+      {
+        labId: ctx.labId,
+        actor: ctx.actor,
+        action: "study.deleted",
+        targetType: "study",
+        targetId: studyId,
+        summary: `${ctx.actor.email} deleted the study “${study.name}” and its ${specimens.length} specimen(s)`,
+      },
+      transaction,
+    );
   });
 }
 
 /** Specimen counts per condition across the lab, for the dashboard. */
 export async function countConditions(ctx: LabContext) {
   const m = await database();
-  const rows = (await m.Specimen.findAll({ where: { labId: ctx.labId }, attributes: ["condition", [fn("COUNT", col("id")), "n"]], group: ["condition"], raw: true })) as unknown as { condition: string; n: number }[];
+  const rows = (await m.Specimen.findAll({
+    where: { labId: ctx.labId },
+    attributes: ["condition", [fn("COUNT", col("id")), "n"]],
+    group: ["condition"],
+    raw: true,
+  })) as unknown as { condition: string; n: number }[];
   return rows;
 }

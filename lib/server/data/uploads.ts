@@ -41,7 +41,10 @@ type UploadRow = InstanceType<Awaited<ReturnType<typeof database>>["Upload"]>;
 
 async function toDtos(ctx: LabContext, rows: UploadRow[]): Promise<UploadDto[]> {
   const m = await database();
-  const users = await m.User.findAll({ where: { id: rows.map((r) => r.createdBy).filter((x): x is string => !!x) }, attributes: ["id", "email"] });
+  const users = await m.User.findAll({
+    where: { id: rows.map((r) => r.createdBy).filter((x): x is string => !!x) },
+    attributes: ["id", "email"],
+  });
   const emails = new Map(users.map((u) => [u.id, u.email]));
   return rows.map((r) => ({
     id: r.id,
@@ -60,11 +63,23 @@ async function toDtos(ctx: LabContext, rows: UploadRow[]): Promise<UploadDto[]> 
   }));
 }
 
-export async function listUploads(ctx: LabContext, specimenId: string, q: ListQuery<(typeof UPLOAD_SORTS)[number]>): Promise<ListResult<UploadDto>> {
+export async function listUploads(
+  ctx: LabContext,
+  specimenId: string,
+  q: ListQuery<(typeof UPLOAD_SORTS)[number]>,
+): Promise<ListResult<UploadDto>> {
   const m = await database();
   await findSpecimen(ctx, specimenId);
   const where = { labId: ctx.labId, specimenId, ...(q.q ? { filename: containsText(q.q) } : {}) };
-  const { rows, count } = await m.Upload.findAndCountAll({ where, order: [[q.sort, q.dir], ["id", "asc"]], limit: q.pageSize, offset: (q.page - 1) * q.pageSize });
+  const { rows, count } = await m.Upload.findAndCountAll({
+    where,
+    order: [
+      [q.sort, q.dir],
+      ["id", "asc"],
+    ],
+    limit: q.pageSize,
+    offset: (q.page - 1) * q.pageSize,
+  });
   return { items: await toDtos(ctx, rows), page: q.page, pageSize: q.pageSize, total: count };
 }
 
@@ -126,23 +141,58 @@ export async function storeUpload<T = void>(
   const id = randomUUID();
   const key = uploadOriginalKey(ctx.labId, id);
   await m.Upload.create({
-    id, labId: ctx.labId, specimenId, filename: file.filename, kind: file.kind, contentType: file.contentType, sizeBytes: file.sizeBytes, sha256: file.sha256,
-    storageKey: key, state: "receiving", pixelSizeUm: file.pixelSizeUm, pixelSizeSource: file.pixelSizeSource, createdBy: ctx.actor.userId,
+    id,
+    labId: ctx.labId,
+    specimenId,
+    filename: file.filename,
+    kind: file.kind,
+    contentType: file.contentType,
+    sizeBytes: file.sizeBytes,
+    sha256: file.sha256,
+    storageKey: key,
+    state: "receiving",
+    pixelSizeUm: file.pixelSizeUm,
+    pixelSizeSource: file.pixelSizeSource,
+    createdBy: ctx.actor.userId,
   });
   try {
-    await store.put(key, createReadStream(file.path), { contentType: file.contentType, contentLength: file.sizeBytes, sha256Hex: file.sha256 });
+    await store.put(key, createReadStream(file.path), {
+      contentType: file.contentType,
+      contentLength: file.sizeBytes,
+      sha256Hex: file.sha256,
+    });
   } catch (err) {
     await abandonUpload(id, key);
-    if (err instanceof StorageUnavailableError) throw new AppError("unavailable", "object storage is unreachable, so the file was not saved; try again later");
+    if (err instanceof StorageUnavailableError)
+      throw new AppError("unavailable", "object storage is unreachable, so the file was not saved; try again later");
     throw err;
   }
   try {
     const { row, also } = await db.sequelize.transaction(async (transaction) => {
-      const [marked] = await m.Upload.unscoped().update({ state: "stored" }, { where: { id, state: "receiving" }, transaction });
+      const [marked] = await m.Upload.unscoped().update(
+        { state: "stored" },
+        { where: { id, state: "receiving" }, transaction },
+      );
       // Only the sweep removes a "receiving" row: this upload outlived the grace period.
-      if (marked !== 1) throw new AppError("unavailable", "storing the file took longer than the server waits for an upload, so it was discarded; try again");
+      if (marked !== 1)
+        throw new AppError(
+          "unavailable",
+          "storing the file took longer than the server waits for an upload, so it was discarded; try again",
+        );
       const r = (await m.Upload.findByPk(id, { transaction }))!;
-      await recordAudit(m, { labId: ctx.labId, actor: ctx.actor, action: "upload.created", targetType: "upload", targetId: id, summary: `${ctx.actor.email} uploaded “${file.filename}” to specimen “${specimen.label}”`, details: { sha256: file.sha256, sizeBytes: file.sizeBytes } }, transaction);
+      await recordAudit(
+        m,
+        {
+          labId: ctx.labId,
+          actor: ctx.actor,
+          action: "upload.created",
+          targetType: "upload",
+          targetId: id,
+          summary: `${ctx.actor.email} uploaded “${file.filename}” to specimen “${specimen.label}”`,
+          details: { sha256: file.sha256, sizeBytes: file.sizeBytes },
+        },
+        transaction,
+      );
       return { row: r, also: alsoInTransaction ? await alsoInTransaction(r, transaction) : undefined };
     });
     return { ...(await toDtos(ctx, [row]))[0], also };
@@ -161,7 +211,8 @@ export async function deleteUpload(ctx: LabContext, uploadId: string): Promise<v
   try {
     await store.check();
   } catch (err) {
-    if (err instanceof StorageUnavailableError) throw new AppError("unavailable", "object storage is unreachable, so the file was not deleted; try again later");
+    if (err instanceof StorageUnavailableError)
+      throw new AppError("unavailable", "object storage is unreachable, so the file was not deleted; try again later");
     throw err;
   }
   // Rows first, in one short transaction without storage I/O; then the objects. An object whose
@@ -170,11 +221,29 @@ export async function deleteUpload(ctx: LabContext, uploadId: string): Promise<v
     const rs = await m.Readout.findAll({ where: { uploadId: u.id }, transaction });
     await m.Readout.destroy({ where: { uploadId: u.id }, transaction });
     await u.destroy({ transaction });
-    await recordAudit(m, { labId: ctx.labId, actor: ctx.actor, action: "upload.deleted", targetType: "upload", targetId: u.id, summary: `${ctx.actor.email} deleted the upload “${u.filename}”${rs.length ? ` and its ${rs.length} readout(s)` : ""}`, details: { sha256: u.sha256, readouts: rs.length } }, transaction);
-    return { readouts: rs, jobIds: rs.filter((r) => r.jobId && (r.status === "queued" || r.status === "running")).map((r) => r.jobId!) };
+    await recordAudit(
+      m,
+      {
+        labId: ctx.labId,
+        actor: ctx.actor,
+        action: "upload.deleted",
+        targetType: "upload",
+        targetId: u.id,
+        summary: `${ctx.actor.email} deleted the upload “${u.filename}”${rs.length ? ` and its ${rs.length} readout(s)` : ""}`,
+        details: { sha256: u.sha256, readouts: rs.length },
+      },
+      transaction,
+    );
+    return {
+      readouts: rs,
+      jobIds: rs.filter((r) => r.jobId && (r.status === "queued" || r.status === "running")).map((r) => r.jobId!),
+    };
   });
   const keys = [...readouts.flatMap((r) => Object.values(r.derivedKeys ?? {})), u.storageKey];
-  for (const key of keys) await store.delete(key).catch((err) => console.error(`upload ${u.id} deleted: could not remove ${key}; the sweep will`, err));
+  for (const key of keys)
+    await store
+      .delete(key)
+      .catch((err) => console.error(`upload ${u.id} deleted: could not remove ${key}; the sweep will`, err));
   // A readout still queued or running finds its row gone and removes what it wrote; stop it early.
   if (jobIds.length) {
     const { cancelJob } = await import("../jobs/runner");
@@ -188,7 +257,8 @@ export async function openUploadContent(ctx: LabContext, uploadId: string) {
     const obj = await services().store.get(u.storageKey);
     return { upload: u, body: obj.body };
   } catch (err) {
-    if (err instanceof StorageUnavailableError) throw new AppError("unavailable", "object storage is unreachable; try again later");
+    if (err instanceof StorageUnavailableError)
+      throw new AppError("unavailable", "object storage is unreachable; try again later");
     throw err;
   }
 }

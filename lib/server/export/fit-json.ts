@@ -4,7 +4,15 @@ import type { FitDetailDto } from "../data/fits";
 export function fitToJson(fit: FitDetailDto): string {
   return JSON.stringify(
     {
-      fit: { id: fit.id, name: fit.name, kind: fit.kind, status: fit.status, createdAt: fit.createdAt, createdByEmail: fit.createdByEmail, rerunOf: fit.rerunOf },
+      fit: {
+        id: fit.id,
+        name: fit.name,
+        kind: fit.kind,
+        status: fit.status,
+        createdAt: fit.createdAt,
+        createdByEmail: fit.createdByEmail,
+        rerunOf: fit.rerunOf,
+      },
       caution: "Model fits are hypotheses to be tested, not measurements.",
       units: { length: "µm", time: "s", diffusivity: "µm²/s", rate: "1/s" },
       softwareVersion: fit.softwareVersion,

@@ -24,9 +24,15 @@ export function runTsxChild(
 ): Promise<ChildOutcome> {
   return new Promise((resolve, reject) => {
     if (options.signal.aborted) return reject(new JobCancelledError());
-    const child = spawn(process.execPath, ["--import", "tsx", ...entryAndArgs], { cwd: process.cwd(), stdio: ["ignore", "pipe", "pipe"], env: { ...process.env, NODE_OPTIONS: "" } });
+    const child = spawn(process.execPath, ["--import", "tsx", ...entryAndArgs], {
+      cwd: process.cwd(),
+      stdio: ["ignore", "pipe", "pipe"],
+      env: { ...process.env, NODE_OPTIONS: "" },
+    });
     const out: Buffer[] = [];
-    let stderr = "", pending = "", timedOut = false;
+    let stderr = "",
+      pending = "",
+      timedOut = false;
     const kill = () => child.kill("SIGKILL");
     options.signal.addEventListener("abort", kill, { once: true });
     // A process far past its limit (stuck or starved) must not hold the job queue.

@@ -17,7 +17,10 @@ export async function settleDerivedRows(jobs: { id: string; status: string; erro
     const values = { status: job.status, error: job.error } as const;
     await m.Readout.update({ ...values, result: null, derivedKeys: null }, { where: { jobId: job.id, status: OPEN } });
     await m.Fit.update({ ...values, result: null }, { where: { jobId: job.id, status: OPEN } });
-    await m.SimulationRun.update({ ...values, result: null, fileKeys: null, finishedAt: new Date() }, { where: { jobId: job.id, status: OPEN } });
+    await m.SimulationRun.update(
+      { ...values, result: null, fileKeys: null, finishedAt: new Date() },
+      { where: { jobId: job.id, status: OPEN } },
+    );
   }
 }
 
@@ -27,10 +30,16 @@ export async function settleAllDerivedRows(): Promise<void> {
   const open = [m.Readout, m.Fit, m.SimulationRun] as const;
   const jobIds = new Set<string>();
   for (const model of open) {
-    const rows = await (model as typeof m.Readout).findAll({ where: { status: OPEN, jobId: { [Op.ne]: null } }, attributes: ["jobId"] });
+    const rows = await (model as typeof m.Readout).findAll({
+      where: { status: OPEN, jobId: { [Op.ne]: null } },
+      attributes: ["jobId"],
+    });
     for (const r of rows) jobIds.add(r.jobId!);
   }
   if (jobIds.size === 0) return;
-  const ended = await m.Job.findAll({ where: { id: [...jobIds], status: { [Op.in]: ["failed", "cancelled"] } }, attributes: ["id", "status", "error"] });
+  const ended = await m.Job.findAll({
+    where: { id: [...jobIds], status: { [Op.in]: ["failed", "cancelled"] } },
+    attributes: ["id", "status", "error"],
+  });
   await settleDerivedRows(ended);
 }

@@ -27,7 +27,8 @@ export const runFitJob: JobHandler = async (job, ctx) => {
   if (!row) throw new AppError("not_found", GONE);
   // A job restarted after a server stop finds its fit "succeeded" if the process died after the row was written, before the job was.
   if (row.status === "succeeded") return { fitId: row.id, restored: true };
-  if (row.status !== "queued" && row.status !== "running") throw new AppError("conflict", `this fit has already ${row.status}; re-run it instead`);
+  if (row.status !== "queued" && row.status !== "running")
+    throw new AppError("conflict", `this fit has already ${row.status}; re-run it instead`);
   const spec = row.spec as unknown as StoredFitSpec;
   const prov = row.provenance as unknown as FitProvenance;
   const t0 = Date.now();
@@ -44,28 +45,51 @@ export const runFitJob: JobHandler = async (job, ctx) => {
       // The child reports nothing until it is done; move the bar on an estimate meanwhile.
       ticker = setInterval(() => {
         const s = (Date.now() - started) / 1000;
-        void ctx.progress((i + 0.9 * (1 - Math.exp(-s / TYPICAL_MODEL_S))) / n, `${note}, ${Math.round(s)} s`).catch(() => undefined);
+        void ctx
+          .progress((i + 0.9 * (1 - Math.exp(-s / TYPICAL_MODEL_S))) / n, `${note}, ${Math.round(s)} s`)
+          .catch(() => undefined);
       }, 1000);
       const fit = await fitModel(spec, model, ctx.signal);
       clearInterval(ticker);
       ticker = undefined;
       const predictions = predictAtFit(spec, model, fit);
-      models.push({ label: model.label, kinetics: prov.kinetics[i], fit, predictions, elapsedMs: Date.now() - started });
+      models.push({
+        label: model.label,
+        kinetics: prov.kinetics[i],
+        fit,
+        predictions,
+        elapsedMs: Date.now() - started,
+      });
     }
     await ctx.progress(0.98, "saving");
     const comparison = n > 1 ? compareFits(models.map((x) => ({ label: x.label, result: x.fit }))) : null;
     const result: StoredFitResult = { models, comparison, runner: fitRunner(), elapsedMs: Date.now() - t0 };
     // JSON round trip first, so what is stored is exactly what is returned (∞ → null as in JSON).
     const stored = JSON.parse(JSON.stringify(result)) as Record<string, unknown>;
-    const [updated] = await m.Fit.update({ status: "succeeded", result: stored, error: null }, { where: { id: row.id, status: "running" } });
+    const [updated] = await m.Fit.update(
+      { status: "succeeded", result: stored, error: null },
+      { where: { id: row.id, status: "running" } },
+    );
     if (updated === 0) throw new AppError("not_found", GONE);
     const best = comparison?.ranking[0]?.label ?? models[0].label;
-    return { fitId: row.id, best, verdict: models.find((x) => x.label === best)!.fit.verdict, elapsedMs: result.elapsedMs };
+    return {
+      fitId: row.id,
+      best,
+      verdict: models.find((x) => x.label === best)!.fit.verdict,
+      elapsedMs: result.elapsedMs,
+    };
   } catch (err) {
     if (ticker) clearInterval(ticker);
     const cancelled = err instanceof JobCancelledError || ctx.signal.aborted;
-    const message = cancelled ? "the fit was cancelled" : err instanceof AppError ? err.message : "the fit failed on the server; the error was logged";
-    await m.Fit.update({ status: cancelled ? "cancelled" : "failed", error: message, result: null }, { where: { id: row.id } }).catch(() => undefined);
+    const message = cancelled
+      ? "the fit was cancelled"
+      : err instanceof AppError
+        ? err.message
+        : "the fit failed on the server; the error was logged";
+    await m.Fit.update(
+      { status: cancelled ? "cancelled" : "failed", error: message, result: null },
+      { where: { id: row.id } },
+    ).catch(() => undefined);
     if (cancelled) throw new JobCancelledError();
     throw err;
   }

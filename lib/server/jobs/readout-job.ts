@@ -33,8 +33,10 @@ export const runReadoutJob: JobHandler = async (job, ctx) => {
   // Immutable: a finished readout is never read again. A job restarted after a server stop may
   // find it "running" (read it again, overwriting the same derived keys) or "succeeded" (the
   // process died after the row was written, before the job was: the job succeeds with it).
-  if (row.status === "succeeded") return { readoutId: row.id, wavelengthUm: row.wavelengthUm, periodFound: row.periodFound };
-  if (row.status !== "queued" && row.status !== "running") throw new AppError("conflict", `this readout has already ${row.status}; start a new one instead`);
+  if (row.status === "succeeded")
+    return { readoutId: row.id, wavelengthUm: row.wavelengthUm, periodFound: row.periodFound };
+  if (row.status !== "queued" && row.status !== "running")
+    throw new AppError("conflict", `this readout has already ${row.status}; start a new one instead`);
   const check = () => {
     if (ctx.signal.aborted) throw new JobCancelledError();
   };
@@ -45,7 +47,11 @@ export const runReadoutJob: JobHandler = async (job, ctx) => {
     if (!upload) throw new AppError("not_found", GONE);
     const bytes = await store.getBuffer(upload.storageKey);
     const digest = createHash("sha256").update(bytes).digest("hex");
-    if (digest !== row.inputSha256) throw new AppError("conflict", `the stored file's SHA-256 (${digest.slice(0, 12)}…) differs from the one recorded at upload (${row.inputSha256.slice(0, 12)}…); the original was changed or damaged`);
+    if (digest !== row.inputSha256)
+      throw new AppError(
+        "conflict",
+        `the stored file's SHA-256 (${digest.slice(0, 12)}…) differs from the one recorded at upload (${row.inputSha256.slice(0, 12)}…); the original was changed or damaged`,
+      );
     await ctx.progress(0.1, "file read");
     check();
     const settings = row.settings as unknown as StoredReadoutSettings;
@@ -70,18 +76,37 @@ export const runReadoutJob: JobHandler = async (job, ctx) => {
     await ctx.progress(0.95, "saving");
     const h = headlineOf(result);
     const [updated] = await m.Readout.update(
-      { status: "succeeded", result: result as unknown as Record<string, unknown>, wavelengthUm: h.wavelengthUm, uncertaintyUm: h.uncertaintyUm, periodFound: h.periodFound, derivedKeys, error: null },
+      {
+        status: "succeeded",
+        result: result as unknown as Record<string, unknown>,
+        wavelengthUm: h.wavelengthUm,
+        uncertaintyUm: h.uncertaintyUm,
+        periodFound: h.periodFound,
+        derivedKeys,
+        error: null,
+      },
       { where: { id: row.id, status: "running" } },
     );
     if (updated === 0) throw new AppError("not_found", GONE);
     written.length = 0;
     return { readoutId: row.id, wavelengthUm: h.wavelengthUm, periodFound: h.periodFound };
   } catch (err) {
-    for (const key of written) await store.delete(key).catch((e) => console.error(`could not remove derived object ${key}`, e));
+    for (const key of written)
+      await store.delete(key).catch((e) => console.error(`could not remove derived object ${key}`, e));
     const cancelled = err instanceof JobCancelledError || ctx.signal.aborted;
-    const app = err instanceof StorageUnavailableError ? new AppError("unavailable", "object storage was unreachable during the readout; start it again later") : toReadoutAppError(err);
-    const message = cancelled ? "the readout was cancelled" : app ? app.message : "the readout failed on the server; the error was logged";
-    await m.Readout.update({ status: cancelled ? "cancelled" : "failed", error: message, result: null, derivedKeys: null }, { where: { id: row.id } }).catch(() => undefined);
+    const app =
+      err instanceof StorageUnavailableError
+        ? new AppError("unavailable", "object storage was unreachable during the readout; start it again later")
+        : toReadoutAppError(err);
+    const message = cancelled
+      ? "the readout was cancelled"
+      : app
+        ? app.message
+        : "the readout failed on the server; the error was logged";
+    await m.Readout.update(
+      { status: cancelled ? "cancelled" : "failed", error: message, result: null, derivedKeys: null },
+      { where: { id: row.id } },
+    ).catch(() => undefined);
     if (cancelled) throw new JobCancelledError();
     throw app ?? err;
   }
@@ -94,5 +119,6 @@ registerJobCleanup("readout", async (job) => {
   const m = await database();
   const row = await m.Readout.findOne({ where: { id: String(job.payload.readoutId ?? ""), labId: job.labId } });
   if (!row || row.status === "succeeded") return;
-  for (const name of Object.keys(DERIVED_PRODUCTS)) await services().store.delete(readoutDerivedKey(row.labId, row.uploadId, row.id, name));
+  for (const name of Object.keys(DERIVED_PRODUCTS))
+    await services().store.delete(readoutDerivedKey(row.labId, row.uploadId, row.id, name));
 });

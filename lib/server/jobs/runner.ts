@@ -21,7 +21,12 @@ interface RunnerState {
   finishing: Set<Promise<void>>;
 }
 const g = globalThis as unknown as { __morphokinJobs?: RunnerState };
-const state: RunnerState = (g.__morphokinJobs ??= { running: new Map(), kicking: false, stopped: false, finishing: new Set() });
+const state: RunnerState = (g.__morphokinJobs ??= {
+  running: new Map(),
+  kicking: false,
+  stopped: false,
+  finishing: new Set(),
+});
 const concurrency = () => Math.max(1, Number(process.env.JOB_CONCURRENCY ?? "1") || 1);
 
 export interface JobDto {
@@ -60,7 +65,10 @@ export function toJobDto(j: JobRow): JobDto {
 }
 
 /** Queues a job; it starts after the surrounding transaction (if any) commits. */
-export async function enqueueJob(input: { labId: string; kind: string; payload: Record<string, unknown>; requestedBy: string | null }, transaction?: Transaction): Promise<JobRow> {
+export async function enqueueJob(
+  input: { labId: string; kind: string; payload: Record<string, unknown>; requestedBy: string | null },
+  transaction?: Transaction,
+): Promise<JobRow> {
   if (!JOB_HANDLERS[input.kind]) throw new Error(`no handler for job kind "${input.kind}"`);
   const m = await database();
   const job = await m.Job.create({ ...input, status: "queued" }, { transaction });
@@ -72,7 +80,8 @@ export async function enqueueJob(input: { labId: string; kind: string; payload: 
 /** Progress note of a job re-queued because the server stopped while it ran. */
 export const RESTARTED_NOTE = "restarted after a server restart";
 /** Error of a job that a second server stop interrupted: it is not tried a third time. */
-export const INTERRUPTED_TWICE = "failed: the server stopped twice while this job ran, so it was not started a third time; start it again, and if it keeps failing, make it smaller";
+export const INTERRUPTED_TWICE =
+  "failed: the server stopped twice while this job ran, so it was not started a third time; start it again, and if it keeps failing, make it smaller";
 
 export interface RecoveryReport {
   requeued: string[];
@@ -107,18 +116,25 @@ async function recoverInterruptedJobs(): Promise<RecoveryReport> {
   const stale = await m.Job.findAll({ where: { status: "running", id: { [Op.notIn]: [...state.running.keys()] } } });
   for (const job of stale) {
     if (job.restarts >= 1) {
-      const [n] = await m.Job.update({ status: "failed", error: INTERRUPTED_TWICE, finishedAt: new Date() }, { where: { id: job.id, status: "running" } });
+      const [n] = await m.Job.update(
+        { status: "failed", error: INTERRUPTED_TWICE, finishedAt: new Date() },
+        { where: { id: job.id, status: "running" } },
+      );
       if (n === 0) continue;
       report.failed.push(job.id);
       await settleDerivedRows([{ id: job.id, status: "failed", error: INTERRUPTED_TWICE }]);
       await cleanUpAfterInterruption(job);
     } else {
-      const [n] = await m.Job.update({ status: "queued", progress: 0, progressNote: RESTARTED_NOTE, startedAt: null, restarts: job.restarts + 1 }, { where: { id: job.id, status: "running" } });
+      const [n] = await m.Job.update(
+        { status: "queued", progress: 0, progressNote: RESTARTED_NOTE, startedAt: null, restarts: job.restarts + 1 },
+        { where: { id: job.id, status: "running" } },
+      );
       if (n > 0) report.requeued.push(job.id);
     }
   }
   await settleAllDerivedRows();
-  if (report.requeued.length + report.failed.length > 0) console.warn(`jobs: ${report.requeued.length} re-queued and ${report.failed.length} failed after a server stop`);
+  if (report.requeued.length + report.failed.length > 0)
+    console.warn(`jobs: ${report.requeued.length} re-queued and ${report.failed.length} failed after a server stop`);
   return report;
 }
 
@@ -126,7 +142,13 @@ async function recoverInterruptedJobs(): Promise<RecoveryReport> {
 async function cleanUpAfterInterruption(job: JobRow): Promise<void> {
   const cleanup = JOB_CLEANUPS[job.kind];
   if (!cleanup) return;
-  await cleanup({ id: job.id, labId: job.labId, kind: job.kind, payload: job.payload, requestedBy: job.requestedBy }).catch((err) => console.error(`job ${job.kind} ${job.id}: clean-up after a server stop failed`, err));
+  await cleanup({
+    id: job.id,
+    labId: job.labId,
+    kind: job.kind,
+    payload: job.payload,
+    requestedBy: job.requestedBy,
+  }).catch((err) => console.error(`job ${job.kind} ${job.id}: clean-up after a server stop failed`, err));
 }
 
 /** Starts queued jobs while there is capacity. Safe to call often. */
@@ -140,7 +162,10 @@ export function kickJobs(): void {
       while (state.running.size < concurrency() && !state.stopped) {
         const next = await m.Job.findOne({ where: { status: "queued" }, order: [["createdAt", "asc"]] });
         if (!next) break;
-        const [claimed] = await m.Job.update({ status: "running", startedAt: new Date(), progress: 0 }, { where: { id: next.id, status: "queued" } });
+        const [claimed] = await m.Job.update(
+          { status: "running", startedAt: new Date(), progress: 0 },
+          { where: { id: next.id, status: "queued" } },
+        );
         if (claimed === 0) continue;
         const controller = new AbortController();
         state.running.set(next.id, controller);
@@ -162,13 +187,22 @@ export function kickJobs(): void {
 async function execute(row: JobRow, controller: AbortController) {
   const m = await database();
   const handler = JOB_HANDLERS[row.kind];
-  const input: JobInput = { id: row.id, labId: row.labId, kind: row.kind, payload: row.payload, requestedBy: row.requestedBy };
+  const input: JobInput = {
+    id: row.id,
+    labId: row.labId,
+    kind: row.kind,
+    payload: row.payload,
+    requestedBy: row.requestedBy,
+  };
   let last = 0;
   const progress = async (fraction: number, note?: string) => {
     const now = Date.now();
     if (now - last < 250 && fraction < 1) return;
     last = now;
-    await m.Job.update({ progress: Math.min(1, Math.max(0, fraction)), progressNote: note ?? null }, { where: { id: row.id } });
+    await m.Job.update(
+      { progress: Math.min(1, Math.max(0, fraction)), progressNote: note ?? null },
+      { where: { id: row.id } },
+    );
   };
   const startedMs = Date.now();
   try {
@@ -180,11 +214,18 @@ async function execute(row: JobRow, controller: AbortController) {
     mailIfLong(input, "succeeded", null, startedMs);
   } catch (err) {
     const cancelled = err instanceof JobCancelledError || controller.signal.aborted;
-    const message = err instanceof AppError || err instanceof JobCancelledError ? err.message : err instanceof Error ? err.message : String(err);
+    const message =
+      err instanceof AppError || err instanceof JobCancelledError
+        ? err.message
+        : err instanceof Error
+          ? err.message
+          : String(err);
     if (!cancelled && !(err instanceof AppError)) console.error(`job ${row.kind} ${row.id} failed:`, err);
     const status = cancelled ? "cancelled" : "failed";
     await m.Job.update({ status, error: message, finishedAt: new Date() }, { where: { id: row.id } });
-    await settleDerivedRows([{ id: row.id, status, error: message }]).catch((e) => console.error(`job ${row.kind} ${row.id}: could not settle its row`, e));
+    await settleDerivedRows([{ id: row.id, status, error: message }]).catch((e) =>
+      console.error(`job ${row.kind} ${row.id}: could not settle its row`, e),
+    );
     if (row.restarts > 0) await cleanUpAfterInterruption(row);
     if (!cancelled) mailIfLong(input, "failed", message, startedMs);
   }
@@ -212,7 +253,14 @@ function mailIfLong(job: JobInput, status: "succeeded" | "failed", error: string
     await services().mailer.send({
       to: user.email,
       subject: `[${lab?.name ?? "Morphokin"}] ${title.charAt(0).toUpperCase()}${title.slice(1)} ${verb}`,
-      text: [`${title.charAt(0).toUpperCase()}${title.slice(1)} ${verb} after ${Math.round(seconds)} s.`, ...(error ? ["", `Why: ${error}`] : []), "", `Open it: ${link}`, "", `Turn these e-mails off under “E-mail notifications” on your account page: ${appUrl}/account`].join("\n"),
+      text: [
+        `${title.charAt(0).toUpperCase()}${title.slice(1)} ${verb} after ${Math.round(seconds)} s.`,
+        ...(error ? ["", `Why: ${error}`] : []),
+        "",
+        `Open it: ${link}`,
+        "",
+        `Turn these e-mails off under “E-mail notifications” on your account page: ${appUrl}/account`,
+      ].join("\n"),
     });
   })().catch((err) => console.error(`job ${job.kind} ${job.id}: the finish e-mail could not be sent`, err));
 }
@@ -251,8 +299,6 @@ export async function waitForJob(jobId: string, timeoutMs = 60_000): Promise<Job
     await new Promise((r) => setTimeout(r, 50));
   }
 }
-
-
 
 /** Cancels running jobs and waits for them to record it; no new job starts until `resumeJobs`. */
 export async function stopJobs(): Promise<void> {

@@ -9,7 +9,14 @@ export const cases: Record<string, Case> = {
     setup: async () => {
       const m = await database();
       const token = newSecret("su");
-      await m.SignupRequest.create({ tokenHash: sha256Hex(token), email: `confirm${next()}@lab.test`, name: "N", labName: "New Lab", passwordHash: await hashPassword("long-enough-pw"), expiresAt: new Date(Date.now() + 3_600_000) });
+      await m.SignupRequest.create({
+        tokenHash: sha256Hex(token),
+        email: `confirm${next()}@lab.test`,
+        name: "N",
+        labName: "New Lab",
+        passwordHash: await hashPassword("long-enough-pw"),
+        expiresAt: new Date(Date.now() + 3_600_000),
+      });
       return { json: { token, password: "long-enough-pw" } };
     },
     expect: PUBLIC(201),
@@ -18,7 +25,10 @@ export const cases: Record<string, Case> = {
     // Each caller first gets a known password, so the current one is right for whoever calls.
     setup: async (w, who) => {
       const person = who === "anonymous" ? null : who === "outsider" ? w.outsider : w.people[who];
-      if (person) await (await database()).User.update({ passwordHash: await hashPassword("long-enough-pw") }, { where: { id: person.userId } });
+      if (person)
+        await (
+          await database()
+        ).User.update({ passwordHash: await hashPassword("long-enough-pw") }, { where: { id: person.userId } });
       return { json: { currentPassword: "long-enough-pw", newPassword: `another-password-${next()}` } };
     },
     expect: USER(200),

@@ -11,8 +11,17 @@ import { ALL, NOT_COLLAB, lab, managerCtx, type Case } from "./shared";
 // Wavelengths invented for the matrix (common practice, no source): any Turing-reachable values do.
 const body = {
   name: "Matrix fit",
-  data: [{ condition: "control", kind: "fourier", wavelengthUm: 40, uncertaintyUm: 1 }, { condition: "control", kind: "fourier", wavelengthUm: 41, uncertaintyUm: 1 }],
-  models: [{ kinetics: "schnakenberg", lengthScaleUm: 40, parameters: { gamma: { mode: "free", start: 150, lower: 10, upper: 1000, log: true } } }],
+  data: [
+    { condition: "control", kind: "fourier", wavelengthUm: 40, uncertaintyUm: 1 },
+    { condition: "control", kind: "fourier", wavelengthUm: 41, uncertaintyUm: 1 },
+  ],
+  models: [
+    {
+      kinetics: "schnakenberg",
+      lengthScaleUm: 40,
+      parameters: { gamma: { mode: "free", start: 150, lower: 10, upper: 1000, log: true } },
+    },
+  ],
   options: { profiles: false, seededStarts: 1, turingSamples: 16 },
 };
 
@@ -20,14 +29,32 @@ const body = {
 const finished = new WeakMap<World, Promise<string>>();
 function finishedFit(w: World) {
   if (!finished.has(w)) {
-    finished.set(w, (async () => {
-      // Written without a queued job, so only this direct call runs it.
-      const built = await buildFitSpec(managerCtx(w), fitCreateSchema.parse(body), SOFTWARE_VERSION, "child-process");
-      const m = await database();
-      const fit = await m.Fit.create({ labId: w.labId, name: body.name, kind: built.kind, status: "queued", jobId: null, spec: built.spec as never, provenance: built.provenance as never, inputSha256: built.inputSha256, softwareVersion: SOFTWARE_VERSION, rerunOf: null, createdBy: w.people.manager.userId });
-      await runFitJob({ id: "fixture", labId: w.labId, kind: "fit", payload: { fitId: fit.id }, requestedBy: null }, { progress: async () => undefined, signal: new AbortController().signal });
-      return fit.id;
-    })());
+    finished.set(
+      w,
+      (async () => {
+        // Written without a queued job, so only this direct call runs it.
+        const built = await buildFitSpec(managerCtx(w), fitCreateSchema.parse(body), SOFTWARE_VERSION, "child-process");
+        const m = await database();
+        const fit = await m.Fit.create({
+          labId: w.labId,
+          name: body.name,
+          kind: built.kind,
+          status: "queued",
+          jobId: null,
+          spec: built.spec as never,
+          provenance: built.provenance as never,
+          inputSha256: built.inputSha256,
+          softwareVersion: SOFTWARE_VERSION,
+          rerunOf: null,
+          createdBy: w.people.manager.userId,
+        });
+        await runFitJob(
+          { id: "fixture", labId: w.labId, kind: "fit", payload: { fitId: fit.id }, requestedBy: null },
+          { progress: async () => undefined, signal: new AbortController().signal },
+        );
+        return fit.id;
+      })(),
+    );
   }
   return finished.get(w)!;
 }
@@ -44,8 +71,23 @@ async function cancelQueuedFits(w: World) {
 
 export const cases: Record<string, Case> = {
   "GET /api/v1/labs/[labId]/fits": { setup: async (w) => ({ params: lab(w) }), expect: ALL(200) },
-  "POST /api/v1/labs/[labId]/fits": { setup: async (w) => (await cancelQueuedFits(w), { params: lab(w), json: body }), expect: NOT_COLLAB(202) },
-  "GET /api/v1/labs/[labId]/fits/[fitId]": { setup: async (w) => ({ params: lab(w, { fitId: await finishedFit(w) }) }), expect: ALL(200) },
-  "POST /api/v1/labs/[labId]/fits/[fitId]/rerun": { setup: async (w) => (await cancelQueuedFits(w), { params: lab(w, { fitId: await finishedFit(w) }) }), expect: NOT_COLLAB(202) },
-  "GET /api/v1/labs/[labId]/fits/[fitId]/export": { setup: async (w) => (await cancelQueuedFits(w), { params: lab(w, { fitId: await finishedFit(w) }), query: "format=csv" }), expect: ALL(200) },
+  "POST /api/v1/labs/[labId]/fits": {
+    setup: async (w) => (await cancelQueuedFits(w), { params: lab(w), json: body }),
+    expect: NOT_COLLAB(202),
+  },
+  "GET /api/v1/labs/[labId]/fits/[fitId]": {
+    setup: async (w) => ({ params: lab(w, { fitId: await finishedFit(w) }) }),
+    expect: ALL(200),
+  },
+  "POST /api/v1/labs/[labId]/fits/[fitId]/rerun": {
+    setup: async (w) => (await cancelQueuedFits(w), { params: lab(w, { fitId: await finishedFit(w) }) }),
+    expect: NOT_COLLAB(202),
+  },
+  "GET /api/v1/labs/[labId]/fits/[fitId]/export": {
+    setup: async (w) => (
+      await cancelQueuedFits(w),
+      { params: lab(w, { fitId: await finishedFit(w) }), query: "format=csv" }
+    ),
+    expect: ALL(200),
+  },
 };

@@ -4,10 +4,29 @@ import { database } from "@/lib/server/services";
 import { enqueueJob } from "@/lib/server/jobs/runner";
 import { multipart } from "../../support/api";
 import { makePerson } from "../../support/world";
-import { ALL, MANAGER_ONLY, NOT_COLLAB, PUBLIC, USER, invitation, lab, next, png, specimen, study, upload, type Case } from "./shared";
+import {
+  ALL,
+  MANAGER_ONLY,
+  NOT_COLLAB,
+  PUBLIC,
+  USER,
+  invitation,
+  lab,
+  next,
+  png,
+  specimen,
+  study,
+  upload,
+  type Case,
+} from "./shared";
 
 export const cases: Record<string, Case> = {
-  "POST /api/v1/signup": { setup: async () => ({ json: { name: "N", email: `new${next()}@lab.test`, password: "long-enough-pw", labName: "New Lab" } }), expect: PUBLIC(202) },
+  "POST /api/v1/signup": {
+    setup: async () => ({
+      json: { name: "N", email: `new${next()}@lab.test`, password: "long-enough-pw", labName: "New Lab" },
+    }),
+    expect: PUBLIC(202),
+  },
   "GET /api/v1/me": { setup: async () => ({}), expect: USER(200) },
   "PATCH /api/v1/me": { setup: async () => ({ json: { notifyByEmail: false } }), expect: USER(200) },
   "GET /api/v1/labs": { setup: async () => ({}), expect: USER(200) },
@@ -21,9 +40,18 @@ export const cases: Record<string, Case> = {
     },
     expect: { manager: 204, scientist: 404, modeller: 404, collaborator: 404, outsider: 404, anonymous: 401 },
   },
-  "GET /api/v1/invitations/[token]": { setup: async (w) => ({ params: { token: (await invitation(w)).token } }), expect: PUBLIC(200) },
+  "GET /api/v1/invitations/[token]": {
+    setup: async (w) => ({ params: { token: (await invitation(w)).token } }),
+    expect: PUBLIC(200),
+  },
   // Bound to the invitee (issue 10, item 14): anyone signed in as another account is refused.
-  "POST /api/v1/invitations/[token]/accept": { setup: async (w) => ({ params: { token: (await invitation(w)).token }, json: { name: "Invitee", password: "long-enough-pw" } }), expect: { ...PUBLIC(403), anonymous: 200 } },
+  "POST /api/v1/invitations/[token]/accept": {
+    setup: async (w) => ({
+      params: { token: (await invitation(w)).token },
+      json: { name: "Invitee", password: "long-enough-pw" },
+    }),
+    expect: { ...PUBLIC(403), anonymous: 200 },
+  },
   "GET /api/v1/labs/[labId]": { setup: async (w) => ({ params: lab(w) }), expect: ALL(200) },
   "GET /api/v1/labs/[labId]/members": { setup: async (w) => ({ params: lab(w) }), expect: ALL(200) },
   "PATCH /api/v1/labs/[labId]/members/[memberId]": {
@@ -45,36 +73,107 @@ export const cases: Record<string, Case> = {
     expect: MANAGER_ONLY(204),
   },
   "GET /api/v1/labs/[labId]/invitations": { setup: async (w) => ({ params: lab(w) }), expect: MANAGER_ONLY(200) },
-  "POST /api/v1/labs/[labId]/invitations": { setup: async (w) => ({ params: lab(w), json: { email: `fresh${next()}@lab.test`, role: "collaborator" } }), expect: MANAGER_ONLY(201) },
-  "DELETE /api/v1/labs/[labId]/invitations/[invitationId]": { setup: async (w) => ({ params: lab(w, { invitationId: (await invitation(w)).inv.id }) }), expect: MANAGER_ONLY(204) },
+  "POST /api/v1/labs/[labId]/invitations": {
+    setup: async (w) => ({ params: lab(w), json: { email: `fresh${next()}@lab.test`, role: "collaborator" } }),
+    expect: MANAGER_ONLY(201),
+  },
+  "DELETE /api/v1/labs/[labId]/invitations/[invitationId]": {
+    setup: async (w) => ({ params: lab(w, { invitationId: (await invitation(w)).inv.id }) }),
+    expect: MANAGER_ONLY(204),
+  },
   "GET /api/v1/labs/[labId]/audit": { setup: async (w) => ({ params: lab(w) }), expect: MANAGER_ONLY(200) },
   "GET /api/v1/labs/[labId]/mailbox": { setup: async (w) => ({ params: lab(w) }), expect: MANAGER_ONLY(200) },
-  "GET /api/v1/labs/[labId]/studies": { setup: async (w) => ({ params: lab(w), query: "sort=name&dir=asc" }), expect: ALL(200) },
-  "POST /api/v1/labs/[labId]/studies": { setup: async (w) => ({ params: lab(w), json: { name: "Mine", tissue: "skin", organism: "chick" } }), expect: NOT_COLLAB(201) },
-  "GET /api/v1/labs/[labId]/studies/[studyId]": { setup: async (w) => ({ params: lab(w, { studyId: (await study(w)).id }) }), expect: ALL(200) },
-  "PATCH /api/v1/labs/[labId]/studies/[studyId]": { setup: async (w) => ({ params: lab(w, { studyId: (await study(w)).id }), json: { name: "Renamed" } }), expect: MANAGER_ONLY(200) },
-  "DELETE /api/v1/labs/[labId]/studies/[studyId]": { setup: async (w) => ({ params: lab(w, { studyId: (await study(w)).id }) }), expect: MANAGER_ONLY(204) },
-  "GET /api/v1/labs/[labId]/studies/[studyId]/specimens": { setup: async (w) => ({ params: lab(w, { studyId: (await study(w)).id }) }), expect: ALL(200) },
-  "POST /api/v1/labs/[labId]/studies/[studyId]/specimens": { setup: async (w) => ({ params: lab(w, { studyId: (await study(w)).id }), json: { label: "A1", condition: "control" } }), expect: NOT_COLLAB(201) },
-  "GET /api/v1/labs/[labId]/specimens/[specimenId]": { setup: async (w) => ({ params: lab(w, { specimenId: (await specimen(w)).id }) }), expect: ALL(200) },
-  "PATCH /api/v1/labs/[labId]/specimens/[specimenId]": { setup: async (w) => ({ params: lab(w, { specimenId: (await specimen(w)).id }), json: { stage: "E12" } }), expect: MANAGER_ONLY(200) },
-  "DELETE /api/v1/labs/[labId]/specimens/[specimenId]": { setup: async (w) => ({ params: lab(w, { specimenId: (await specimen(w)).id }) }), expect: MANAGER_ONLY(204) },
-  "GET /api/v1/labs/[labId]/specimens/[specimenId]/uploads": { setup: async (w) => ({ params: lab(w, { specimenId: (await specimen(w)).id }) }), expect: ALL(200) },
-  "POST /api/v1/labs/[labId]/specimens/[specimenId]/uploads": {
-    setup: async (w) => ({ params: lab(w, { specimenId: (await specimen(w)).id }), form: multipart({ name: "p.png", bytes: await png() }, { pixelSizeUm: "0.65" }) }),
+  "GET /api/v1/labs/[labId]/studies": {
+    setup: async (w) => ({ params: lab(w), query: "sort=name&dir=asc" }),
+    expect: ALL(200),
+  },
+  "POST /api/v1/labs/[labId]/studies": {
+    setup: async (w) => ({ params: lab(w), json: { name: "Mine", tissue: "skin", organism: "chick" } }),
     expect: NOT_COLLAB(201),
   },
-  "GET /api/v1/labs/[labId]/uploads/[uploadId]": { setup: async (w) => ({ params: lab(w, { uploadId: (await upload(w)).id }) }), expect: ALL(200) },
-  "DELETE /api/v1/labs/[labId]/uploads/[uploadId]": { setup: async (w) => ({ params: lab(w, { uploadId: (await upload(w)).id }) }), expect: MANAGER_ONLY(204) },
-  "GET /api/v1/labs/[labId]/uploads/[uploadId]/content": { setup: async (w) => ({ params: lab(w, { uploadId: (await upload(w)).id }) }), expect: ALL(200) },
+  "GET /api/v1/labs/[labId]/studies/[studyId]": {
+    setup: async (w) => ({ params: lab(w, { studyId: (await study(w)).id }) }),
+    expect: ALL(200),
+  },
+  "PATCH /api/v1/labs/[labId]/studies/[studyId]": {
+    setup: async (w) => ({ params: lab(w, { studyId: (await study(w)).id }), json: { name: "Renamed" } }),
+    expect: MANAGER_ONLY(200),
+  },
+  "DELETE /api/v1/labs/[labId]/studies/[studyId]": {
+    setup: async (w) => ({ params: lab(w, { studyId: (await study(w)).id }) }),
+    expect: MANAGER_ONLY(204),
+  },
+  "GET /api/v1/labs/[labId]/studies/[studyId]/specimens": {
+    setup: async (w) => ({ params: lab(w, { studyId: (await study(w)).id }) }),
+    expect: ALL(200),
+  },
+  "POST /api/v1/labs/[labId]/studies/[studyId]/specimens": {
+    setup: async (w) => ({
+      params: lab(w, { studyId: (await study(w)).id }),
+      json: { label: "A1", condition: "control" },
+    }),
+    expect: NOT_COLLAB(201),
+  },
+  "GET /api/v1/labs/[labId]/specimens/[specimenId]": {
+    setup: async (w) => ({ params: lab(w, { specimenId: (await specimen(w)).id }) }),
+    expect: ALL(200),
+  },
+  "PATCH /api/v1/labs/[labId]/specimens/[specimenId]": {
+    setup: async (w) => ({ params: lab(w, { specimenId: (await specimen(w)).id }), json: { stage: "E12" } }),
+    expect: MANAGER_ONLY(200),
+  },
+  "DELETE /api/v1/labs/[labId]/specimens/[specimenId]": {
+    setup: async (w) => ({ params: lab(w, { specimenId: (await specimen(w)).id }) }),
+    expect: MANAGER_ONLY(204),
+  },
+  "GET /api/v1/labs/[labId]/specimens/[specimenId]/uploads": {
+    setup: async (w) => ({ params: lab(w, { specimenId: (await specimen(w)).id }) }),
+    expect: ALL(200),
+  },
+  "POST /api/v1/labs/[labId]/specimens/[specimenId]/uploads": {
+    setup: async (w) => ({
+      params: lab(w, { specimenId: (await specimen(w)).id }),
+      form: multipart({ name: "p.png", bytes: await png() }, { pixelSizeUm: "0.65" }),
+    }),
+    expect: NOT_COLLAB(201),
+  },
+  "GET /api/v1/labs/[labId]/uploads/[uploadId]": {
+    setup: async (w) => ({ params: lab(w, { uploadId: (await upload(w)).id }) }),
+    expect: ALL(200),
+  },
+  "DELETE /api/v1/labs/[labId]/uploads/[uploadId]": {
+    setup: async (w) => ({ params: lab(w, { uploadId: (await upload(w)).id }) }),
+    expect: MANAGER_ONLY(204),
+  },
+  "GET /api/v1/labs/[labId]/uploads/[uploadId]/content": {
+    setup: async (w) => ({ params: lab(w, { uploadId: (await upload(w)).id }) }),
+    expect: ALL(200),
+  },
   "GET /api/v1/labs/[labId]/jobs": { setup: async (w) => ({ params: lab(w) }), expect: ALL(200) },
   "GET /api/v1/labs/[labId]/jobs/[jobId]": {
-    setup: async (w) => ({ params: lab(w, { jobId: (await enqueueJob({ labId: w.labId, kind: "echo", payload: { ms: 0 }, requestedBy: w.people.manager.userId })).id }) }),
+    setup: async (w) => ({
+      params: lab(w, {
+        jobId: (
+          await enqueueJob({ labId: w.labId, kind: "echo", payload: { ms: 0 }, requestedBy: w.people.manager.userId })
+        ).id,
+      }),
+    }),
     expect: ALL(200),
   },
   "DELETE /api/v1/labs/[labId]/jobs/[jobId]": {
     // The manager's own long job: only the manager may cancel it.
-    setup: async (w) => ({ params: lab(w, { jobId: (await enqueueJob({ labId: w.labId, kind: "echo", payload: { ms: 5000 }, requestedBy: w.people.manager.userId })).id }) }),
+    setup: async (w) => ({
+      params: lab(w, {
+        jobId: (
+          await enqueueJob({
+            labId: w.labId,
+            kind: "echo",
+            payload: { ms: 5000 },
+            requestedBy: w.people.manager.userId,
+          })
+        ).id,
+      }),
+    }),
     expect: MANAGER_ONLY(200),
   },
 };

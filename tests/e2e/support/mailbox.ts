@@ -30,10 +30,13 @@ export async function mailIds(to: string): Promise<Set<string>> {
 export async function waitForMail(to: string, seen: Set<string> = new Set(), timeoutMs = 10_000): Promise<Mail> {
   let found: Mail | undefined;
   await expect
-    .poll(async () => {
-      found = (await listMail(to)).find((m) => !seen.has(m.id));
-      return found !== undefined;
-    }, { message: `no new mail to ${to}`, timeout: timeoutMs })
+    .poll(
+      async () => {
+        found = (await listMail(to)).find((m) => !seen.has(m.id));
+        return found !== undefined;
+      },
+      { message: `no new mail to ${to}`, timeout: timeoutMs },
+    )
     .toBe(true);
   return found!;
 }
@@ -45,6 +48,9 @@ export function linksIn(mail: Mail): string[] {
 /** The one link in the message whose path starts with `pathPrefix`. */
 export function linkTo(mail: Mail, pathPrefix: string): string {
   const links = linksIn(mail).filter((l) => new URL(l).pathname.startsWith(pathPrefix));
-  if (links.length !== 1) throw new Error(`expected one link to ${pathPrefix} in “${mail.subject}”, found ${links.length}: ${linksIn(mail).join(", ")}`);
+  if (links.length !== 1)
+    throw new Error(
+      `expected one link to ${pathPrefix} in “${mail.subject}”, found ${links.length}: ${linksIn(mail).join(", ")}`,
+    );
   return links[0];
 }

@@ -10,7 +10,14 @@ describe("permission table", () => {
 
   it("a collaborator may read and comment (and edit or delete their own comments), nothing else", () => {
     const allowed = ACTIONS.filter((a) => scopeOf("collaborator", a) !== false);
-    expect(allowed.sort()).toEqual(["comment.create", "comment.delete", "comment.edit", "lab.read", "member.list", "upload.read"]);
+    expect(allowed.sort()).toEqual([
+      "comment.create",
+      "comment.delete",
+      "comment.edit",
+      "lab.read",
+      "member.list",
+      "upload.read",
+    ]);
     expect(scopeOf("collaborator", "comment.edit")).toBe("own");
     expect(scopeOf("collaborator", "comment.delete")).toBe("own");
   });
@@ -25,6 +32,7 @@ describe("permission table", () => {
 
   it("only modellers (own) and managers define kinetics; nobody but managers handles access", () => {
     expect(ROLES.filter((r) => scopeOf(r, "kinetics.edit") !== false)).toEqual(["manager", "modeller"]);
-    for (const a of ["member.manage", "invitation.manage", "audit.read"] as const) expect(ROLES.filter((r) => can(r, a))).toEqual(["manager"]);
+    for (const a of ["member.manage", "invitation.manage", "audit.read"] as const)
+      expect(ROLES.filter((r) => can(r, a))).toEqual(["manager"]);
   });
 });

@@ -32,18 +32,20 @@ describe.each([
     const c = new Float64Array(2 * w * h);
     img.forEach((v, i) => (c[2 * i] = v));
     fft2dInPlace(c, w, h);
-    for (let y = 0; y < h; y++) for (let x = 0; x < w; x++) {
-      expect(c[2 * (y * w + x)]).toBeCloseTo(ref[y][x][0], 9);
-      expect(c[2 * (y * w + x) + 1]).toBeCloseTo(ref[y][x][1], 9);
-    }
+    for (let y = 0; y < h; y++)
+      for (let x = 0; x < w; x++) {
+        expect(c[2 * (y * w + x)]).toBeCloseTo(ref[y][x][0], 9);
+        expect(c[2 * (y * w + x) + 1]).toBeCloseTo(ref[y][x][1], 9);
+      }
   });
 
   it("realFft2d half spectrum matches fft-js columns 0…W/2", () => {
     const s = realFft2d(img, w, h, w, h);
-    for (let y = 0; y < h; y++) for (let x = 0; x <= w / 2; x++) {
-      expect(s.data[2 * (y * s.halfWidth + x)]).toBeCloseTo(ref[y][x][0], 9);
-      expect(s.data[2 * (y * s.halfWidth + x) + 1]).toBeCloseTo(ref[y][x][1], 9);
-    }
+    for (let y = 0; y < h; y++)
+      for (let x = 0; x <= w / 2; x++) {
+        expect(s.data[2 * (y * s.halfWidth + x)]).toBeCloseTo(ref[y][x][0], 9);
+        expect(s.data[2 * (y * s.halfWidth + x) + 1]).toBeCloseTo(ref[y][x][1], 9);
+      }
   });
 
   it("Parseval: Σ|x|² = (1/WH)·Σ|X|² over the full plane (Parseval's theorem for the DFT)", () => {
@@ -52,10 +54,11 @@ describe.each([
     let energy = 0;
     for (const v of img) energy += v * v;
     let total = 0;
-    for (let y = 0; y < h; y++) for (let x = 0; x < s.halfWidth; x++) {
-      // columns 1 … W/2−1 stand for themselves and their Hermitian mirror
-      total += (x === 0 || x === w / 2 ? 1 : 2) * p[y * s.halfWidth + x];
-    }
+    for (let y = 0; y < h; y++)
+      for (let x = 0; x < s.halfWidth; x++) {
+        // columns 1 … W/2−1 stand for themselves and their Hermitian mirror
+        total += (x === 0 || x === w / 2 ? 1 : 2) * p[y * s.halfWidth + x];
+      }
     expect(total / (w * h)).toBeCloseTo(energy, 3);
   });
 
@@ -82,7 +85,13 @@ describe("zero padding and sizes", () => {
     const b = realFft2d(padded, 8, 4, 8, 4);
     a.data.forEach((v, i) => expect(v).toBeCloseTo(b.data[i], 12));
   });
-  it.each([[1, 2], [2, 2], [3, 4], [512, 512], [513, 1024]])("nextPowerOfTwo(%i) = %i (definition)", (n, p) => {
+  it.each([
+    [1, 2],
+    [2, 2],
+    [3, 4],
+    [512, 512],
+    [513, 1024],
+  ])("nextPowerOfTwo(%i) = %i (definition)", (n, p) => {
     expect(nextPowerOfTwo(n)).toBe(p);
   });
 });

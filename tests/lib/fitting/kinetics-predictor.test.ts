@@ -11,8 +11,18 @@ const rel = (a: number, b: number) => (a === b ? 0 : Math.abs(a / b - 1));
 // of the same predictor, which the fast path must reproduce.
 const CASES: [string, string, Record<string, number>, { lengthScaleUm?: number; gridSize?: number }][] = [
   ["schnakenberg, fit truth b = 0.9", "schnakenberg", { gamma: 1, a: 0.1, d: 20, b: 0.9 }, { lengthScaleUm: 10 }],
-  ["schnakenberg, b = 1.2, coarse grid", "schnakenberg", { gamma: 1, a: 0.1, d: 20, b: 1.2 }, { lengthScaleUm: 10, gridSize: 64 }],
-  ["schnakenberg, near the Turing edge a = 0.048", "schnakenberg", { gamma: 0.77, a: 0.048, d: 10.4, b: 1 }, { lengthScaleUm: 10 }],
+  [
+    "schnakenberg, b = 1.2, coarse grid",
+    "schnakenberg",
+    { gamma: 1, a: 0.1, d: 20, b: 1.2 },
+    { lengthScaleUm: 10, gridSize: 64 },
+  ],
+  [
+    "schnakenberg, near the Turing edge a = 0.048",
+    "schnakenberg",
+    { gamma: 0.77, a: 0.048, d: 10.4, b: 1 },
+    { lengthScaleUm: 10 },
+  ],
   ["schnakenberg, d = 2 (stable: no prediction)", "schnakenberg", { d: 2 }, { lengthScaleUm: 10 }],
   ["schnakenberg, fitted length scale", "schnakenberg", { lengthScaleUm: 7.5, gamma: 2 }, {}],
   ["schnakenberg, no length scale (no µm prediction)", "schnakenberg", {}, {}],
@@ -37,8 +47,16 @@ describe("createKineticsPredictor: fast fastest-mode path against computeDispers
   });
 
   it("the general path is 2πℓ/k* of computeDispersion's fastest mode (so the table checks the stability engine's numbers)", () => {
-    const r = computeDispersion(getCatalogueKinetics("schnakenberg"), { gamma: 1, a: 0.1, d: 20, b: 0.9 }, { lengthScaleUm: 10 });
-    const p = createKineticsPredictor(getCatalogueKinetics("schnakenberg"), { lengthScaleUm: 10 })({ gamma: 1, a: 0.1, d: 20, b: 0.9 }, "c", undefined)!;
+    const r = computeDispersion(
+      getCatalogueKinetics("schnakenberg"),
+      { gamma: 1, a: 0.1, d: 20, b: 0.9 },
+      { lengthScaleUm: 10 },
+    );
+    const p = createKineticsPredictor(getCatalogueKinetics("schnakenberg"), { lengthScaleUm: 10 })(
+      { gamma: 1, a: 0.1, d: 20, b: 0.9 },
+      "c",
+      undefined,
+    )!;
     expect(rel(p.wavelengthUm, (2 * Math.PI * 10) / r.fastest!.kStar)).toBeLessThan(1e-12); // definition λ = 2π/k (SCIENCE.md)
     expect(p.turing).toBe(true);
   });
@@ -47,7 +65,11 @@ describe("createKineticsPredictor: fast fastest-mode path against computeDispers
     const k = getCatalogueKinetics("schnakenberg");
     const domain = { kind: "interval" as const, length: 200 };
     const a = createKineticsPredictor(k, { lengthScaleUm: 10 })({ gamma: 1, a: 0.1, d: 20, b: 1 }, "c", domain);
-    const b = createKineticsPredictor(k, { lengthScaleUm: 10, fastPath: false })({ gamma: 1, a: 0.1, d: 20, b: 1 }, "c", domain);
+    const b = createKineticsPredictor(k, { lengthScaleUm: 10, fastPath: false })(
+      { gamma: 1, a: 0.1, d: 20, b: 1 },
+      "c",
+      domain,
+    );
     expect(a).toEqual(b);
     const r = computeDispersion(k, { gamma: 1, a: 0.1, d: 20, b: 1 }, { lengthScaleUm: 10, domain });
     expect(a!.wavelengthUm).toBe(r.domain!.fastestMode.wavelengthUm); // admissible k_n = nπ/L (SCIENCE.md §2), not the unbounded k*
@@ -80,7 +102,12 @@ describe("createKineticsPredictor: fast fastest-mode path against computeDispers
     const fast = createKineticsPredictor(k, { lengthScaleUm: 10, gridSize: 32 });
     const general = createKineticsPredictor(k, { lengthScaleUm: 10, gridSize: 32, fastPath: false });
     const b: Record<string, number> = { c0: 0.9, c1: 1.1 };
-    const data = Object.keys(b).map((c) => ({ condition: c, wavelengthUm: general({ gamma: 1, a: 0.1, d: 20, b: b[c] }, c, undefined)!.wavelengthUm * 1.01, uncertaintyUm: 1, kind: "fourier" as const }));
+    const data = Object.keys(b).map((c) => ({
+      condition: c,
+      wavelengthUm: general({ gamma: 1, a: 0.1, d: 20, b: b[c] }, c, undefined)!.wavelengthUm * 1.01,
+      uncertaintyUm: 1,
+      kind: "fourier" as const,
+    }));
     const parameters: Record<string, ParameterSetting> = {
       gamma: { mode: "free", start: 2, lower: 0.1, upper: 10, log: true },
       d: { mode: "free", start: 30, lower: 5, upper: 200, log: true },

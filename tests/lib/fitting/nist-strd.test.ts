@@ -37,7 +37,14 @@ const CASES: { name: string; level: string; params: number; rss: number; sd: num
 function fit(name: string, start: number[]) {
   const d = readNist(name);
   // NIST's certified SDs are s·√diag((JᵀJ)⁻¹) with s² = RSS/(n − p): relative uncertainties.
-  return { d, fit: fitCurve({ x: d.x, y: d.y }, { value: NIST_MODELS[name] }, { start, absoluteUncertainties: false, profiles: false }) };
+  return {
+    d,
+    fit: fitCurve(
+      { x: d.x, y: d.y },
+      { value: NIST_MODELS[name] },
+      { start, absoluteUncertainties: false, profiles: false },
+    ),
+  };
 }
 
 describe.skipIf(!available)("NIST StRD nonlinear regression, start 2", () => {
@@ -46,7 +53,9 @@ describe.skipIf(!available)("NIST StRD nonlinear regression, start 2", () => {
     expect(f.solution.converged).toBe(true);
     f.solution.params.forEach((v, j) => expect(logRelativeError(v, d.certified[j])).toBeGreaterThanOrEqual(params));
     expect(logRelativeError(f.solution.chiSquare, d.residualSumOfSquares)).toBeGreaterThanOrEqual(rss);
-    f.analysis.covariance.standardErrors.forEach((se, j) => expect(logRelativeError(se ?? NaN, d.certifiedSd[j])).toBeGreaterThanOrEqual(sd));
+    f.analysis.covariance.standardErrors.forEach((se, j) =>
+      expect(logRelativeError(se ?? NaN, d.certifiedSd[j])).toBeGreaterThanOrEqual(sd),
+    );
     // Residual standard deviation √(RSS/(n − p)), certified in the file.
     const rsd = Math.sqrt(f.analysis.chiSquare / (f.analysis.n - f.analysis.p));
     expect(logRelativeError(rsd, d.residualSd)).toBeGreaterThanOrEqual(rss - 1);

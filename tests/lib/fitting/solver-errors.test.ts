@@ -24,10 +24,16 @@ describe("solver option errors (exact messages)", () => {
     [{ start: [1, 1], lower: [2, 0], upper: [2, 5] }, "lower[0] (2) must be below upper[0] (2)."],
     [{ start: [1, 7], lower: [0, 0], upper: [5, 5] }, "start[1] (7) must lie within [lower, upper] = [0, 5]."],
     [{ start: [1, -1], log: [false, true] }, "start[1] must be positive for a log-scaled parameter; got -1."],
-    [{ start: [1, 1], lower: [0, -1], log: [false, true] }, "lower[1] must be 0 or more for a log-scaled parameter; got -1."],
+    [
+      { start: [1, 1], lower: [0, -1], log: [false, true] },
+      "lower[1] must be 0 or more for a log-scaled parameter; got -1.",
+    ],
     [{ start: [1, 1], log: [true] }, "log must hold 2 flags (one per parameter); got 1."],
     [{ start: [1, 1], seededStarts: 2.5 }, "seededStarts must be an integer from 0 to 1000; got 2.5."],
-    [{ start: [1, 1], libraryStage: "sometimes" as "off" }, 'libraryStage must be "fallback", "always" or "off"; got "sometimes".'],
+    [
+      { start: [1, 1], libraryStage: "sometimes" as "off" },
+      'libraryStage must be "fallback", "always" or "off"; got "sometimes".',
+    ],
     [{ start: [1, 1], polish: { maxIterations: 0 } }, "polish.maxIterations must be a positive integer; got 0."],
     [{ start: [1, 1], library: { maxIterations: -3 } }, "library.maxIterations must be a positive integer; got -3."],
   ] as [LeastSquaresOptions, string][])("%j", (options, message) => {
@@ -58,7 +64,11 @@ describe("curve data and analysis errors (exact messages)", () => {
   it("rejects names of the wrong length and a valley grid of 2", () => {
     const p1 = createCurveProblem({ x: [1, 2], y: [1, 2] }, model, 1);
     const s = solveLeastSquares(p1, { start: [1] });
-    expect(() => analyseFit(p1, s, { names: ["a", "b"] })).toThrow("names must hold 1 entries (one per parameter); got 2.");
-    expect(() => analyseFit(p1, s, { valleyPoints: 2 })).toThrow("valleyPoints must be 0 or an integer of at least 3; got 2.");
+    expect(() => analyseFit(p1, s, { names: ["a", "b"] })).toThrow(
+      "names must hold 1 entries (one per parameter); got 2.",
+    );
+    expect(() => analyseFit(p1, s, { valleyPoints: 2 })).toThrow(
+      "valleyPoints must be 0 or an integer of at least 3; got 2.",
+    );
   });
 });

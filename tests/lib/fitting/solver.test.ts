@@ -7,10 +7,18 @@ const LINE = { x: [0, 1, 2, 3, 4, 5], y: [1.1, 2.9, 5.2, 6.8, 9.1, 11.2], sigma:
 
 /** Weighted straight-line fit in closed form (Bevington & Robinson 2003, Data Reduction and Error Analysis, §6.3). */
 function closedFormLine(d: typeof LINE) {
-  let S = 0, Sx = 0, Sy = 0, Sxx = 0, Sxy = 0;
+  let S = 0,
+    Sx = 0,
+    Sy = 0,
+    Sxx = 0,
+    Sxy = 0;
   d.x.forEach((x, i) => {
     const w = 1 / d.sigma[i] ** 2;
-    S += w; Sx += w * x; Sy += w * d.y[i]; Sxx += w * x * x; Sxy += w * x * d.y[i];
+    S += w;
+    Sx += w * x;
+    Sy += w * d.y[i];
+    Sxx += w * x * x;
+    Sxy += w * x * d.y[i];
   });
   const D = S * Sxx - Sx * Sx;
   return { a: (Sxx * Sy - Sx * Sxy) / D, b: (S * Sxy - Sx * Sy) / D, sa: Math.sqrt(Sxx / D), sb: Math.sqrt(S / D) };
@@ -53,14 +61,24 @@ describe("solveLeastSquares: round trips", () => {
   });
 
   it("log-scaled parameters spanning decades reach the same answer from two decades away", () => {
-    const f = fitCurve(decay, model, { start: [20, 3e-6], lower: [1e-3, 1e-9], upper: [1e6, 1], log: [true, true], profiles: false });
+    const f = fitCurve(decay, model, {
+      start: [20, 3e-6],
+      lower: [1e-3, 1e-9],
+      upper: [1e6, 1],
+      log: [true, true],
+      profiles: false,
+    });
     expect(f.solution.converged).toBe(true);
     expect(f.solution.params[1] / k).toBeCloseTo(1, 8);
   });
 
   it("holds a parameter on its bound when the unconstrained optimum lies beyond it", () => {
     // y = a·x with data of slope 2 and a ≤ 1: the constrained optimum is a = 1 (convexity of χ² in a).
-    const f = fitCurve({ x: [1, 2, 3], y: [2, 4, 6] }, { value: (p, x) => p[0] * x }, { start: [0.5], upper: [1], profiles: false });
+    const f = fitCurve(
+      { x: [1, 2, 3], y: [2, 4, 6] },
+      { value: (p, x) => p[0] * x },
+      { start: [0.5], upper: [1], profiles: false },
+    );
     expect(f.solution.params[0]).toBe(1);
     expect(f.solution.atBound).toEqual([0]);
     expect(f.solution.converged).toBe(true);

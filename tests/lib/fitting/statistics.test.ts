@@ -70,21 +70,30 @@ describe("identifiability", () => {
   it("one measurement and two parameters: not identifiable, with the reason in words", () => {
     const f = fitCurve({ x: [2], y: [5] }, line, { start: [0, 1], lower: [-10, -10], upper: [10, 10] });
     expect(f.analysis.identifiability.identifiable).toBe(false);
-    expect(f.analysis.identifiability.reasons[0]).toBe("1 measurement cannot determine 2 free parameters: at least 3 are needed to fit and judge the fit.");
+    expect(f.analysis.identifiability.reasons[0]).toBe(
+      "1 measurement cannot determine 2 free parameters: at least 3 are needed to fit and judge the fit.",
+    );
     expect(f.analysis.covariance.covariance).toBeNull();
     // The valley is the line a + 2b = 5 (geometry of the single equation).
     expect(f.analysis.valley).not.toBeNull();
-    for (const pt of f.analysis.valley!.points.filter((q) => q.withinConfidence)) expect(pt.params[0] + 2 * pt.params[1]).toBeCloseTo(5, 5);
+    for (const pt of f.analysis.valley!.points.filter((q) => q.withinConfidence))
+      expect(pt.params[0] + 2 * pt.params[1]).toBeCloseTo(5, 5);
   });
 
   it("only the product of two parameters matters: singular Jacobian, valley a·b = const", () => {
     const xs = [1, 2, 3, 4, 5];
     const data = { x: xs, y: xs.map((x) => 6 * x), sigma: xs.map(() => 0.5) };
-    const f = fitCurve(data, { value: (p, x) => p[0] * p[1] * x }, { start: [1, 2], lower: [0.1, 0.1], upper: [20, 20] });
+    const f = fitCurve(
+      data,
+      { value: (p, x) => p[0] * p[1] * x },
+      { start: [1, 2], lower: [0.1, 0.1], upper: [20, 20] },
+    );
     const id = f.analysis.identifiability;
     expect(id.identifiable).toBe(false);
     expect(id.singularRatio).toBeLessThan(1e-8);
-    expect(id.reasons.some((r) => r.startsWith("The data cannot tell apart solutions along one combination of parameters"))).toBe(true);
+    expect(
+      id.reasons.some((r) => r.startsWith("The data cannot tell apart solutions along one combination of parameters")),
+    ).toBe(true);
     // Grid a ∈ [0.1, 20]; b = 6/a stays inside [0.1, 20] for every grid point but a = 0.1.
     const inside = f.analysis.valley!.points.filter((q) => q.withinConfidence);
     expect(inside.length).toBe(20);
@@ -97,7 +106,11 @@ describe("identifiability", () => {
   it("a parameter whose whole range changes χ² by less than 3.84 has a flat profile", () => {
     // y = a + 0.1·sin(b), σ = 1, 4 points: moving b changes χ² by at most 4·0.2² = 0.16.
     const data = { x: [0, 1, 2, 3], y: [1, 1.02, 0.98, 1.01], sigma: [1, 1, 1, 1] };
-    const f = fitCurve(data, { value: (p) => p[0] + 0.1 * Math.sin(p[1]) }, { start: [1, 1], lower: [-5, 0], upper: [5, 3] });
+    const f = fitCurve(
+      data,
+      { value: (p) => p[0] + 0.1 * Math.sin(p[1]) },
+      { start: [1, 1], lower: [-5, 0], upper: [5, 3] },
+    );
     const id = f.analysis.identifiability;
     expect(id.flatParameters).toEqual([1]);
     expect(id.identifiable).toBe(false);

@@ -21,7 +21,10 @@ export function modelA(kMax = Infinity): WavelengthPredictor {
 }
 
 /** Model B: λ = λ0/(1 + s·dose), a different dose dependence (always Turing). */
-export const modelB: WavelengthPredictor = (p, condition) => ({ wavelengthUm: p.lambda0 / (1 + p.s * DOSES[condition]), turing: true });
+export const modelB: WavelengthPredictor = (p, condition) => ({
+  wavelengthUm: p.lambda0 / (1 + p.s * DOSES[condition]),
+  turing: true,
+});
 
 /** Model C: λ = 2π·√(D/k) for one condition, no dose (two parameters, one combination D/k). */
 export const modelC: WavelengthPredictor = (p) => ({ wavelengthUm: 2 * Math.PI * Math.sqrt(p.D / p.k), turing: true });

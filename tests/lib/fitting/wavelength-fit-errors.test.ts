@@ -3,7 +3,11 @@ import { compareFits, FitError, fitWavelengths, type WavelengthFitResult, type W
 import { modelA, modelC } from "./synthetic-predictors";
 
 const datum = { condition: "control", wavelengthUm: 30, uncertaintyUm: 1, kind: "fourier" as const };
-const free = { D: { mode: "fixed" as const, value: 1 }, k0: { mode: "free" as const, start: 0.05, lower: 1e-3, upper: 1 }, s: { mode: "fixed" as const, value: 0 } };
+const free = {
+  D: { mode: "fixed" as const, value: 1 },
+  k0: { mode: "free" as const, start: 0.05, lower: 1e-3, upper: 1 },
+  s: { mode: "fixed" as const, value: 0 },
+};
 
 function errorOf(spec: WavelengthFitSpec): FitError {
   try {
@@ -18,18 +22,48 @@ function errorOf(spec: WavelengthFitSpec): FitError {
 describe("fitWavelengths: invalid specs (exact messages)", () => {
   it.each([
     ["no data", { data: [], parameters: free }, "data must hold at least one measurement; got none.", "data"],
-    ["empty condition", { data: [{ ...datum, condition: " " }], parameters: free }, "data[0].condition must be a non-empty string.", "data[0].condition"],
-    ["negative wavelength", { data: [{ ...datum, wavelengthUm: -3 }], parameters: free }, "data[0].wavelengthUm must be a positive number of µm; got -3.", "data[0].wavelengthUm"],
-    ["zero uncertainty", { data: [{ ...datum, uncertaintyUm: 0 }], parameters: free }, "data[0].uncertaintyUm must be a positive number of µm; got 0.", "data[0].uncertaintyUm"],
-    ["unknown kind", { data: [{ ...datum, kind: "peak" }], parameters: free }, 'data[0].kind must be "fourier" or "nearest-neighbour"; got "peak".', "data[0].kind"],
+    [
+      "empty condition",
+      { data: [{ ...datum, condition: " " }], parameters: free },
+      "data[0].condition must be a non-empty string.",
+      "data[0].condition",
+    ],
+    [
+      "negative wavelength",
+      { data: [{ ...datum, wavelengthUm: -3 }], parameters: free },
+      "data[0].wavelengthUm must be a positive number of µm; got -3.",
+      "data[0].wavelengthUm",
+    ],
+    [
+      "zero uncertainty",
+      { data: [{ ...datum, uncertaintyUm: 0 }], parameters: free },
+      "data[0].uncertaintyUm must be a positive number of µm; got 0.",
+      "data[0].uncertaintyUm",
+    ],
+    [
+      "unknown kind",
+      { data: [{ ...datum, kind: "peak" }], parameters: free },
+      'data[0].kind must be "fourier" or "nearest-neighbour"; got "peak".',
+      "data[0].kind",
+    ],
     [
       "incompatible kinds in one condition",
       { data: [datum, { ...datum, kind: "nearest-neighbour" }], parameters: free },
       'data[1].kind is "nearest-neighbour" but condition "control" also has "fourier" measurements; use one kind per condition (the spacing conversion assumes hexagonal spots, which a condition mixing both kinds does not establish).',
       "data[1].kind",
     ],
-    ["no parameters", { data: [datum], parameters: {} }, "parameters must name at least one parameter; got none.", "parameters"],
-    ["unknown mode", { data: [datum], parameters: { ...free, k0: { mode: "guess" } } }, 'parameters.k0.mode must be "fixed", "free" or "per-condition"; got "guess".', "parameters.k0.mode"],
+    [
+      "no parameters",
+      { data: [datum], parameters: {} },
+      "parameters must name at least one parameter; got none.",
+      "parameters",
+    ],
+    [
+      "unknown mode",
+      { data: [datum], parameters: { ...free, k0: { mode: "guess" } } },
+      'parameters.k0.mode must be "fixed", "free" or "per-condition"; got "guess".',
+      "parameters.k0.mode",
+    ],
     [
       "all fixed",
       { data: [datum], parameters: { ...free, k0: { mode: "fixed", value: 0.1 } } },
@@ -62,7 +96,10 @@ describe("fitWavelengths: invalid specs (exact messages)", () => {
     ],
     [
       "per-condition start missing a condition",
-      { data: [datum, { ...datum, condition: "treated" }], parameters: { ...free, k0: { mode: "per-condition", start: { control: 0.1 }, lower: 1e-3, upper: 1 } } },
+      {
+        data: [datum, { ...datum, condition: "treated" }],
+        parameters: { ...free, k0: { mode: "per-condition", start: { control: 0.1 }, lower: 1e-3, upper: 1 } },
+      },
       'parameters.k0.start has no value for condition "treated".',
       "parameters.k0.start",
     ],
@@ -72,8 +109,18 @@ describe("fitWavelengths: invalid specs (exact messages)", () => {
       "parameters.D.value must be a finite number or one finite number per condition.",
       "parameters.D.value",
     ],
-    ["bad option", { data: [datum], parameters: free, options: { seededStarts: -1 } }, "options.seededStarts must be an integer from 0 to 100; got -1.", "options.seededStarts"],
-    ["bad reach", { data: [datum], parameters: free, options: { reachSigma: 0 } }, "options.reachSigma must be a positive number; got 0.", "options.reachSigma"],
+    [
+      "bad option",
+      { data: [datum], parameters: free, options: { seededStarts: -1 } },
+      "options.seededStarts must be an integer from 0 to 100; got -1.",
+      "options.seededStarts",
+    ],
+    [
+      "bad reach",
+      { data: [datum], parameters: free, options: { reachSigma: 0 } },
+      "options.reachSigma must be a positive number; got 0.",
+      "options.reachSigma",
+    ],
   ])("%s", (_label, spec, message, field) => {
     const err = errorOf(spec as unknown as WavelengthFitSpec);
     expect(err.message).toBe(message);
@@ -98,15 +145,29 @@ describe("fitWavelengths: invalid specs (exact messages)", () => {
 describe("compareFits: invalid input (exact messages)", () => {
   const fit = (lambda: number) =>
     fitWavelengths(
-      { data: [{ ...datum, wavelengthUm: lambda }], parameters: { D: { mode: "fixed", value: 1 }, k: { mode: "free", start: 0.05, lower: 1e-3, upper: 1 } }, options: { profiles: false } },
+      {
+        data: [{ ...datum, wavelengthUm: lambda }],
+        parameters: { D: { mode: "fixed", value: 1 }, k: { mode: "free", start: 0.05, lower: 1e-3, upper: 1 } },
+        options: { profiles: false },
+      },
       modelC,
     );
   it("rejects an empty list, repeated labels and fits to different data", () => {
     const a: WavelengthFitResult = fit(30);
     const b: WavelengthFitResult = fit(31);
     expect(() => compareFits([])).toThrow("fits must hold at least one fit; got none.");
-    expect(() => compareFits([{ label: "x", result: a }, { label: "x", result: a }])).toThrow('fits[1].label "x" is used twice; labels must be unique.');
-    expect(() => compareFits([{ label: "a", result: a }, { label: "b", result: b }])).toThrow(
+    expect(() =>
+      compareFits([
+        { label: "x", result: a },
+        { label: "x", result: a },
+      ]),
+    ).toThrow('fits[1].label "x" is used twice; labels must be unique.');
+    expect(() =>
+      compareFits([
+        { label: "a", result: a },
+        { label: "b", result: b },
+      ]),
+    ).toThrow(
       'fits[1] ("b") was fitted to different measurements than fits[0] ("a"); models can only be compared on the same data.',
     );
   });

@@ -36,17 +36,31 @@ describe("fitWavelengths: round trips with a closed-form predictor", () => {
 
   it("nearest-neighbour spacings a = (2/√3)·λ give the same fit, and the conversion is stated", () => {
     // Hexagonal lattice: a = (2/√3)·λ (SCIENCE.md §4, geometry).
-    const spacing = fourierData().map((d) => ({ ...d, wavelengthUm: d.wavelengthUm / HEX_SPACING_TO_FOURIER, uncertaintyUm: d.uncertaintyUm / HEX_SPACING_TO_FOURIER, kind: "nearest-neighbour" as const }));
+    const spacing = fourierData().map((d) => ({
+      ...d,
+      wavelengthUm: d.wavelengthUm / HEX_SPACING_TO_FOURIER,
+      uncertaintyUm: d.uncertaintyUm / HEX_SPACING_TO_FOURIER,
+      kind: "nearest-neighbour" as const,
+    }));
     const r = fitWavelengths({ data: spacing, parameters: freeK0S }, modelA());
     expect(r.parameters[1].value).toBeCloseTo(TRUE.s, 6);
     expect(r.residuals[0].measuredFourierUm).toBeCloseTo(lambdaA("control"), 10);
-    expect(r.notes[0]).toMatch(/^Nearest-neighbour spacings \(data\[0\], data\[1\], data\[2\], data\[3\]\) were converted to Fourier wavelengths as λ = \(√3\/2\)·a/);
+    expect(r.notes[0]).toMatch(
+      /^Nearest-neighbour spacings \(data\[0\], data\[1\], data\[2\], data\[3\]\) were converted to Fourier wavelengths as λ = \(√3\/2\)·a/,
+    );
   });
 
   it("a per-condition parameter is fitted separately for each condition", () => {
     const data = fourierData(["control", "high"]).flatMap((d) => [d, { ...d, wavelengthUm: d.wavelengthUm * 1.01 }]);
     const r = fitWavelengths(
-      { data, parameters: { D: { mode: "fixed", value: TRUE.D }, s: { mode: "fixed", value: 0 }, k0: { mode: "per-condition", start: 0.05, lower: 1e-4, upper: 1, log: true } } },
+      {
+        data,
+        parameters: {
+          D: { mode: "fixed", value: TRUE.D },
+          s: { mode: "fixed", value: 0 },
+          k0: { mode: "per-condition", start: 0.05, lower: 1e-4, upper: 1, log: true },
+        },
+      },
       modelA(),
     );
     expect(r.parameters.map((p) => p.name)).toEqual(["k0[control]", "k0[high]"]);
@@ -63,17 +77,23 @@ describe("fitWavelengths: identifiability", () => {
     const r = fitWavelengths(
       {
         data: [{ condition: "control", wavelengthUm: 30, uncertaintyUm: 1, kind: "fourier" }],
-        parameters: { D: { mode: "free", start: 1, lower: 0.1, upper: 10, log: true }, k: { mode: "free", start: 0.01, lower: 1e-3, upper: 1, log: true } },
+        parameters: {
+          D: { mode: "free", start: 1, lower: 0.1, upper: 10, log: true },
+          k: { mode: "free", start: 0.01, lower: 1e-3, upper: 1, log: true },
+        },
       },
       modelC,
     );
     expect(r.identifiability.identifiable).toBe(false);
-    expect(r.identifiability.reasons[0]).toBe("1 measurement cannot determine 2 free parameters: at least 3 are needed to fit and judge the fit.");
+    expect(r.identifiability.reasons[0]).toBe(
+      "1 measurement cannot determine 2 free parameters: at least 3 are needed to fit and judge the fit.",
+    );
     expect(r.verdict).toBe("fits");
     const good = r.identifiability.valley!.points.filter((pt) => pt.withinConfidence);
     expect(good.length).toBeGreaterThan(5);
     // Inverse of λ = 2π√(D/k): every exact solution has D/k = (λ/2π)².
-    for (const pt of good.filter((q) => q.deltaChiSquare < 1e-8)) expect(pt.params.D / pt.params.k).toBeCloseTo((30 / (2 * Math.PI)) ** 2, 4);
+    for (const pt of good.filter((q) => q.deltaChiSquare < 1e-8))
+      expect(pt.params.D / pt.params.k).toBeCloseTo((30 / (2 * Math.PI)) ** 2, 4);
   });
 });
 
@@ -95,12 +115,26 @@ describe("fitWavelengths: the Turing region", () => {
       return pred && pred.turing ? pred : null;
     });
     expect(r.verdict).toBe("cannot reach the measured wavelength");
-    expect(r.verdictReason).toMatch(/^No state within the bounds reaches the measurements: the best Turing-unstable fit misses by up to/);
+    expect(r.verdictReason).toMatch(
+      /^No state within the bounds reaches the measurements: the best Turing-unstable fit misses by up to/,
+    );
   });
 
   it("a start outside the Turing region is moved inside and said so", () => {
-    const r = fitWavelengths({ data: fourierData(["control"]), parameters: { D: { mode: "fixed", value: TRUE.D }, s: { mode: "fixed", value: 0 }, k0: { mode: "free", start: 0.5, lower: 1e-3, upper: 1, log: true } } }, modelA(0.1));
-    expect(r.notes).toContain("The given start is outside the Turing region; the fit started from the nearest Turing point of the box sample instead.");
+    const r = fitWavelengths(
+      {
+        data: fourierData(["control"]),
+        parameters: {
+          D: { mode: "fixed", value: TRUE.D },
+          s: { mode: "fixed", value: 0 },
+          k0: { mode: "free", start: 0.5, lower: 1e-3, upper: 1, log: true },
+        },
+      },
+      modelA(0.1),
+    );
+    expect(r.notes).toContain(
+      "The given start is outside the Turing region; the fit started from the nearest Turing point of the box sample instead.",
+    );
     expect(r.verdict).toBe("fits");
     expect(r.parameters[0].value).toBeCloseTo(TRUE.k0, 6);
   });
@@ -111,15 +145,29 @@ describe("compareFits", () => {
   const rng = seedrandom("compare");
   const gauss = () => Math.sqrt(-2 * Math.log(1 - rng())) * Math.cos(2 * Math.PI * rng());
   const conditions = ["control", "low", "mid", "high", "top", "max"];
-  const data: WavelengthDatum[] = conditions.map((c) => ({ condition: c, wavelengthUm: lambdaA(c) + 0.3 * gauss(), uncertaintyUm: 0.3, kind: "fourier" }));
+  const data: WavelengthDatum[] = conditions.map((c) => ({
+    condition: c,
+    wavelengthUm: lambdaA(c) + 0.3 * gauss(),
+    uncertaintyUm: 0.3,
+    kind: "fourier",
+  }));
 
   it("ranks the generating model first by AICc, weights summing to 1", () => {
     const a = fitWavelengths({ data, parameters: freeK0S }, modelA());
     const b = fitWavelengths(
-      { data, parameters: { lambda0: { mode: "free", start: 30, lower: 1, upper: 200 }, s: { mode: "free", start: 0.1, lower: 0, upper: 5 } } },
+      {
+        data,
+        parameters: {
+          lambda0: { mode: "free", start: 30, lower: 1, upper: 200 },
+          s: { mode: "free", start: 0.1, lower: 0, upper: 5 },
+        },
+      },
       modelB,
     );
-    const cmp = compareFits([{ label: "B", result: b }, { label: "A", result: a }]);
+    const cmp = compareFits([
+      { label: "B", result: b },
+      { label: "A", result: a },
+    ]);
     expect(cmp.ranking[0].label).toBe("A");
     expect(cmp.ranking[0].deltaAicc).toBe(0);
     expect(cmp.ranking[0].akaikeWeight!).toBeGreaterThan(0.9);

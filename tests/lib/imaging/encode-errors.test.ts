@@ -8,7 +8,9 @@ describe("encode errors (exact messages)", () => {
     await expect(encodePng(img, { bitDepth: 12 as 8 })).rejects.toThrow("bitDepth must be 8 or 16 (got 12).");
   });
   it("rejects a non-positive pixel size", async () => {
-    await expect(encodeTiff16(img, { pixelSizeUm: 0 })).rejects.toThrow("pixelSizeUm must be a finite number above 0 and at most 1000000 µm/px (got 0).");
+    await expect(encodeTiff16(img, { pixelSizeUm: 0 })).rejects.toThrow(
+      "pixelSizeUm must be a finite number above 0 and at most 1000000 µm/px (got 0).",
+    );
   });
   it("rejects data of the wrong length", async () => {
     await expect(encodePng({ width: 3, height: 2, data: new Float32Array(4) })).rejects.toThrow(

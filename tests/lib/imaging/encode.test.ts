@@ -6,7 +6,10 @@ import { makeStripes } from "@/lib/synthetic";
 
 async function rawGrey16(buf: Buffer): Promise<Uint16Array> {
   // STACK.md §7: grey16 colourspace is needed to read 16-bit samples back correctly.
-  const { data } = await sharp(buf).toColourspace("grey16").raw({ depth: "ushort" }).toBuffer({ resolveWithObject: true });
+  const { data } = await sharp(buf)
+    .toColourspace("grey16")
+    .raw({ depth: "ushort" })
+    .toBuffer({ resolveWithObject: true });
   return new Uint16Array(data.buffer, data.byteOffset, data.length / 2);
 }
 
@@ -18,7 +21,8 @@ describe("encodePng / encodeTiff16 round trips (sharp as the reader)", () => {
     const meta = await sharp(buf).metadata();
     expect([meta.format, meta.depth, meta.channels, meta.width, meta.height]).toEqual(["png", "ushort", 1, 37, 21]);
     const px = await rawGrey16(buf);
-    for (let i = 0; i < px.length; i += 17) expect(Math.abs(px[i] / 65535 - img.data[i])).toBeLessThanOrEqual(0.5 / 65535 + 1e-7);
+    for (let i = 0; i < px.length; i += 17)
+      expect(Math.abs(px[i] / 65535 - img.data[i])).toBeLessThanOrEqual(0.5 / 65535 + 1e-7);
   });
 
   it("8-bit PNG is single-channel grey, values to 1/255, and invert gives 255 − v", async () => {
@@ -26,8 +30,8 @@ describe("encodePng / encodeTiff16 round trips (sharp as the reader)", () => {
     const inv = await encodePng(img, { invert: true });
     const meta = await sharp(plain).metadata();
     expect([meta.depth, meta.channels]).toEqual(["uchar", 1]);
-    const a = (await sharp(plain).extractChannel(0).raw().toBuffer());
-    const b = (await sharp(inv).extractChannel(0).raw().toBuffer());
+    const a = await sharp(plain).extractChannel(0).raw().toBuffer();
+    const b = await sharp(inv).extractChannel(0).raw().toBuffer();
     for (let i = 0; i < a.length; i += 13) {
       expect(Math.abs(a[i] / 255 - img.data[i])).toBeLessThanOrEqual(0.5 / 255 + 1e-6);
       expect(a[i] + b[i]).toBe(255);

@@ -16,9 +16,15 @@ function tiffWithResolution(num: number, den: number, unit = 3): Uint8Array {
   v.setUint16(8, 2, true); // two entries
   const ratAt = 8 + 2 + 2 * 12 + 4;
   // XResolution (282), RATIONAL (5), count 1, offset of the value
-  v.setUint16(10, 282, true); v.setUint16(12, 5, true); v.setUint32(14, 1, true); v.setUint32(18, ratAt, true);
+  v.setUint16(10, 282, true);
+  v.setUint16(12, 5, true);
+  v.setUint32(14, 1, true);
+  v.setUint32(18, ratAt, true);
   // ResolutionUnit (296), SHORT (3), count 1, value inline
-  v.setUint16(22, 296, true); v.setUint16(24, 3, true); v.setUint32(26, 1, true); v.setUint16(30, unit, true);
+  v.setUint16(22, 296, true);
+  v.setUint16(24, 3, true);
+  v.setUint32(26, 1, true);
+  v.setUint16(30, unit, true);
   v.setUint32(34, 0, true); // no next IFD
   v.setUint32(ratAt, num, true);
   v.setUint32(ratAt + 4, den, true);
@@ -28,15 +34,22 @@ function tiffWithResolution(num: number, den: number, unit = 3): Uint8Array {
 describe("TIFF resolution", () => {
   it("1/0 pixels per cm is treated as absent, with a note", () => {
     expect(readPixelSize(tiffWithResolution(1, 0), "tiff")).toEqual({
-      pixelSizeUm: null, pixelSizeSource: null,
+      pixelSizeUm: null,
+      pixelSizeSource: null,
       pixelSizeNote: "The TIFF resolution (1/0 pixels per unit) is not a positive number, so it gives no pixel size.",
     });
     // A real resolution still gives its pixel size: 20000 px/cm = 0.5 µm/px (1 cm = 10⁴ µm).
-    expect(readPixelSize(tiffWithResolution(20000, 1), "tiff")).toEqual({ pixelSizeUm: 0.5, pixelSizeSource: "tiff-resolution", pixelSizeNote: null });
+    expect(readPixelSize(tiffWithResolution(20000, 1), "tiff")).toEqual({
+      pixelSizeUm: 0.5,
+      pixelSizeSource: "tiff-resolution",
+      pixelSizeNote: null,
+    });
   });
 
   it("0/1 is treated as absent, with a note", () => {
     expect(readPixelSize(tiffWithResolution(0, 1), "tiff").pixelSizeUm).toBeNull();
-    expect(readPixelSize(tiffWithResolution(0, 1), "tiff").pixelSizeNote).toBe("The TIFF resolution (0/1 pixels per unit) is not a positive number, so it gives no pixel size.");
+    expect(readPixelSize(tiffWithResolution(0, 1), "tiff").pixelSizeNote).toBe(
+      "The TIFF resolution (0/1 pixels per unit) is not a positive number, so it gives no pixel size.",
+    );
   });
 });

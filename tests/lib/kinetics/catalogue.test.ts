@@ -1,11 +1,19 @@
 import seedrandom from "seedrandom";
 import { describe, expect, it } from "vitest";
-import { CATALOGUE, compileKinetics, getCatalogueKinetics, resolveParameters, type CatalogueKinetics } from "@/lib/kinetics";
+import {
+  CATALOGUE,
+  compileKinetics,
+  getCatalogueKinetics,
+  resolveParameters,
+  type CatalogueKinetics,
+} from "@/lib/kinetics";
 
 /** The catalogue entry rebuilt from its own expression strings through the custom compiler. */
 function fromExpressions(k: CatalogueKinetics) {
   return compileKinetics({
-    id: k.id, name: k.name, species: [...k.species],
+    id: k.id,
+    name: k.name,
+    species: [...k.species],
     parameters: k.parameters.map((p) => ({ name: p.name, default: p.default, min: p.min, max: p.max })),
     reactions: [...k.reactionExpressions],
     diffusion: k.diffusionExpressions.map((row, i) => row[i]),
@@ -21,8 +29,15 @@ describe("catalogue", () => {
     expect(new Set(ids).size).toBe(ids.length);
     ids.forEach((id) => expect(id).toMatch(/^[a-z0-9]+(-[a-z0-9]+)*$/));
     expect(ids).toEqual([
-      "schnakenberg", "gierer-meinhardt", "gierer-meinhardt-saturation", "brusselator", "lengyel-epstein",
-      "fitzhugh-nagumo", "thomas", "gray-scott", "brusselator-three-species",
+      "schnakenberg",
+      "gierer-meinhardt",
+      "gierer-meinhardt-saturation",
+      "brusselator",
+      "lengyel-epstein",
+      "fitzhugh-nagumo",
+      "thomas",
+      "gray-scott",
+      "brusselator-three-species",
     ]);
     CATALOGUE.forEach((k) => {
       expect(k.source.length).toBeGreaterThan(10);
@@ -31,28 +46,41 @@ describe("catalogue", () => {
   });
 
   // Round-trip invariant: hand-written rates/Jacobian == mathjs expressions + symbolic derivative.
-  it.each(CATALOGUE.map((k) => [k.id, k] as const))("%s: compiled JS agrees with its expression strings to 1e-9", (_id, k) => {
-    const custom = fromExpressions(k);
-    expect(custom.jacobianMethod).toBe("symbolic");
-    const n = k.species.length, rng = seedrandom(k.id);
-    const p = resolveParameters(k);
-    const a = new Float64Array(n * n), b = new Float64Array(n * n), ra = new Float64Array(n), rb = new Float64Array(n);
-    for (let trial = 0; trial < 20; trial++) {
-      const c = Array.from({ length: n }, () => 0.05 + 3 * rng());
-      k.rates(c, p, ra); custom.rates(c, p, rb);
-      k.jacobian(c, p, a); custom.jacobian(c, p, b);
-      for (let i = 0; i < n; i++) expect(relClose(ra[i], rb[i], 1e-9)).toBe(true);
-      for (let i = 0; i < n * n; i++) expect(relClose(a[i], b[i], 1e-9)).toBe(true);
-    }
-    const da = new Float64Array(n * n), db = new Float64Array(n * n);
-    k.diffusion(p, da); custom.diffusion(p, db);
-    expect(Array.from(db)).toEqual(Array.from(da));
-  });
+  it.each(CATALOGUE.map((k) => [k.id, k] as const))(
+    "%s: compiled JS agrees with its expression strings to 1e-9",
+    (_id, k) => {
+      const custom = fromExpressions(k);
+      expect(custom.jacobianMethod).toBe("symbolic");
+      const n = k.species.length,
+        rng = seedrandom(k.id);
+      const p = resolveParameters(k);
+      const a = new Float64Array(n * n),
+        b = new Float64Array(n * n),
+        ra = new Float64Array(n),
+        rb = new Float64Array(n);
+      for (let trial = 0; trial < 20; trial++) {
+        const c = Array.from({ length: n }, () => 0.05 + 3 * rng());
+        k.rates(c, p, ra);
+        custom.rates(c, p, rb);
+        k.jacobian(c, p, a);
+        custom.jacobian(c, p, b);
+        for (let i = 0; i < n; i++) expect(relClose(ra[i], rb[i], 1e-9)).toBe(true);
+        for (let i = 0; i < n * n; i++) expect(relClose(a[i], b[i], 1e-9)).toBe(true);
+      }
+      const da = new Float64Array(n * n),
+        db = new Float64Array(n * n);
+      k.diffusion(p, da);
+      custom.diffusion(p, db);
+      expect(Array.from(db)).toEqual(Array.from(da));
+    },
+  );
 
   // Closed-form steady states must be roots of the reaction terms (definition of a steady state).
   it.each(CATALOGUE.map((k) => [k.id, k] as const))("%s: closed-form steady states satisfy R(c*) = 0", (_id, k) => {
-    const n = k.species.length, p = resolveParameters(k);
-    const buf = new Float64Array(8 * n), r = new Float64Array(n);
+    const n = k.species.length,
+      p = resolveParameters(k);
+    const buf = new Float64Array(8 * n),
+      r = new Float64Array(n);
     const m = k.steadyStates!(p, buf);
     expect(m).toBeGreaterThan(0);
     for (let s = 0; s < m; s++) {

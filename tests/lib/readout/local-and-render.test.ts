@@ -21,9 +21,16 @@ describe("rendered images", () => {
     const { image: f, ringFraction } = renderFftMagnitude(img, { pixelSizeUm: 1 });
     expect([f.width, f.height]).toEqual([128, 128]);
     expect(ringFraction).toBeNull();
-    let best = 0, at = 0;
-    f.data.forEach((v, i) => { if (v > best) { best = v; at = i; } });
-    const x = at % 128, y = Math.floor(at / 128);
+    let best = 0,
+      at = 0;
+    f.data.forEach((v, i) => {
+      if (v > best) {
+        best = v;
+        at = i;
+      }
+    });
+    const x = at % 128,
+      y = Math.floor(at / 128);
     expect(y).toBe(64);
     expect(Math.abs(x - 64)).toBe(8); // 128 px / 16 px = 8 cycles
     // Cropped around a peak of 16 px: ± 3/16 cycles/px = ± 24 bins of 128, the ring at a third of the half-width.
@@ -31,8 +38,14 @@ describe("rendered images", () => {
     expect([crop.image.width, crop.image.height]).toEqual([48, 48]);
     expect(crop.ringFraction).toBeCloseTo(1 / 3, 12);
     expect(crop.maxFrequencyPerUm).toBeCloseTo(24 / 128 / 0.5, 12);
-    let cb = 0, cat = 0;
-    crop.image.data.forEach((v, i) => { if (v > cb) { cb = v; cat = i; } });
+    let cb = 0,
+      cat = 0;
+    crop.image.data.forEach((v, i) => {
+      if (v > cb) {
+        cb = v;
+        cat = i;
+      }
+    });
     expect(Math.floor(cat / 48)).toBe(24);
     expect(Math.abs((cat % 48) - 24)).toBe(8);
     const p = renderPreview(img, { pixelSizeUm: 1, roi: { kind: "rect", x: 0, y: 0, width: 100, height: 50 } });

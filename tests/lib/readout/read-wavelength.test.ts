@@ -4,7 +4,10 @@ import { makeHexSpots, makeLabyrinth, makeNoise, makeStripes } from "@/lib/synth
 
 const relErr = (got: number | null, want: number) => Math.abs((got ?? NaN) - want) / want;
 /** Angle difference modulo a period (degrees). */
-const angDiff = (a: number, b: number, period: number) => { const d = (((a - b) % period) + period) % period; return Math.min(d, period - d); };
+const angDiff = (a: number, b: number, period: number) => {
+  const d = (((a - b) % period) + period) % period;
+  return Math.min(d, period - d);
+};
 
 describe("stripes: wavelength and orientation recovered (plane-wave geometry; target 1 % from the brief)", () => {
   it.each([
@@ -15,7 +18,9 @@ describe("stripes: wavelength and orientation recovered (plane-wave geometry; ta
     [257, 129, 9, 135],
     [128, 512, 11, 90],
   ])("%i×%i, λ = %f px at %f°", (width, height, wavelengthPx, angleDeg) => {
-    const r = readWavelength(makeStripes({ width, height, wavelengthPx, angleDeg, noise: 0.1, seed: width }), { pixelSizeUm: 0.5 });
+    const r = readWavelength(makeStripes({ width, height, wavelengthPx, angleDeg, noise: 0.1, seed: width }), {
+      pixelSizeUm: 0.5,
+    });
     expect(r.periodFound).toBe(true);
     expect(relErr(r.wavelengthPx, wavelengthPx)).toBeLessThan(0.01);
     expect(relErr(r.wavelengthUm, wavelengthPx * 0.5)).toBeLessThan(0.01); // µm = px × µm/px
@@ -37,7 +42,10 @@ describe("stripes: wavelength and orientation recovered (plane-wave geometry; ta
   it("the reported uncertainty covers the error over several noisy seeds (|error| ≤ 3u in ≥ 4 of 5; common practice, no source)", () => {
     let covered = 0;
     for (let seed = 1; seed <= 5; seed++) {
-      const r = readWavelength(makeStripes({ width: 256, height: 256, wavelengthPx: 13.7, angleDeg: 17 * seed, noise: 0.3, seed }), { pixelSizeUm: 1 });
+      const r = readWavelength(
+        makeStripes({ width: 256, height: 256, wavelengthPx: 13.7, angleDeg: 17 * seed, noise: 0.3, seed }),
+        { pixelSizeUm: 1 },
+      );
       expect(r.uncertaintyMethod).toBe("subregion-sem");
       if (Math.abs(r.wavelengthPx! - 13.7) <= 3 * r.uncertaintyPx!) covered++;
     }
@@ -51,7 +59,10 @@ describe("hexagonal spots: λ = (√3/2)·a and a reported (SCIENCE.md §4, latt
     [300, 240, 14, 0],
     [240, 300, 25, 45],
   ])("%i×%i, a = %f px at %f°", (width, height, spacingPx, angleDeg) => {
-    const r = readWavelength(makeHexSpots({ width, height, spacingPx, angleDeg, jitterPx: 0.5, noise: 0.05, seed: 2 }), { pixelSizeUm: 1 });
+    const r = readWavelength(
+      makeHexSpots({ width, height, spacingPx, angleDeg, jitterPx: 0.5, noise: 0.05, seed: 2 }),
+      { pixelSizeUm: 1 },
+    );
     expect(r.symmetry).toBe("hexagonal");
     expect(relErr(r.wavelengthPx, (Math.sqrt(3) / 2) * spacingPx)).toBeLessThan(0.01);
     expect(relErr(r.nearestNeighbourUm, spacingPx)).toBeLessThan(0.01);
@@ -68,12 +79,20 @@ describe("labyrinth and noise", () => {
     expect(relErr(r.wavelengthPx, 14)).toBeLessThan(0.02);
     expect(r.anisotropy).toBeLessThan(0.4);
   });
-  it.each([[64, 64, 1], [128, 96, 2], [256, 256, 3], [200, 150, 4]])("white noise %i×%i → no significant period (flat spectrum; ratios near 1–2, SCIENCE.md §5.7)", (width, height, seed) => {
-    const r = readWavelength(makeNoise({ width, height, seed }), { pixelSizeUm: 1 });
-    expect(r.periodFound).toBe(false);
-    expect(r.wavelengthUm).toBeNull();
-    expect(r.significance).toBeLessThan(r.significanceThreshold);
-  });
+  it.each([
+    [64, 64, 1],
+    [128, 96, 2],
+    [256, 256, 3],
+    [200, 150, 4],
+  ])(
+    "white noise %i×%i → no significant period (flat spectrum; ratios near 1–2, SCIENCE.md §5.7)",
+    (width, height, seed) => {
+      const r = readWavelength(makeNoise({ width, height, seed }), { pixelSizeUm: 1 });
+      expect(r.periodFound).toBe(false);
+      expect(r.wavelengthUm).toBeNull();
+      expect(r.significance).toBeLessThan(r.significanceThreshold);
+    },
+  );
 });
 
 describe("ROI and mask", () => {
@@ -81,11 +100,25 @@ describe("ROI and mask", () => {
     const left = makeStripes({ width: 128, height: 128, wavelengthPx: 8, angleDeg: 0 });
     const right = makeStripes({ width: 128, height: 128, wavelengthPx: 16, angleDeg: 90 });
     const data = new Float32Array(256 * 128);
-    for (let y = 0; y < 128; y++) { data.set(left.data.subarray(y * 128, (y + 1) * 128), y * 256); data.set(right.data.subarray(y * 128, (y + 1) * 128), y * 256 + 128); }
+    for (let y = 0; y < 128; y++) {
+      data.set(left.data.subarray(y * 128, (y + 1) * 128), y * 256);
+      data.set(right.data.subarray(y * 128, (y + 1) * 128), y * 256 + 128);
+    }
     const img = { width: 256, height: 128, data };
     const r = readWavelength(img, { pixelSizeUm: 1, roi: { kind: "rect", x: 128, y: 0, width: 128, height: 128 } });
     expect(relErr(r.wavelengthPx, 16)).toBeLessThan(0.01);
-    const p = readWavelength(img, { pixelSizeUm: 1, roi: { kind: "polygon", points: [[0, 0], [120, 0], [120, 128], [0, 128]] } });
+    const p = readWavelength(img, {
+      pixelSizeUm: 1,
+      roi: {
+        kind: "polygon",
+        points: [
+          [0, 0],
+          [120, 0],
+          [120, 128],
+          [0, 128],
+        ],
+      },
+    });
     expect(relErr(p.wavelengthPx, 8)).toBeLessThan(0.01);
   });
 });

@@ -19,7 +19,8 @@ function columns(block: Float64Array, rows: number, stride: number, col: number)
 
 describe("DctPlan column pairs (the 2-D basis' second pass, read without a transpose)", () => {
   it.each([4, 8, 64, 256])("forwardColumnPair equals forwardRows of the two columns, bit for bit (N = %i)", (N) => {
-    const stride = 7, col = 3;
+    const stride = 7,
+      col = 3;
     const block = randomArray(N * stride, `cols-f-${N}`);
     const plan = new DctPlan(N);
     const got = new Float64Array(2 * N);
@@ -30,7 +31,8 @@ describe("DctPlan column pairs (the 2-D basis' second pass, read without a trans
   });
 
   it.each([4, 8, 64, 256])("inverseColumnPair equals inverseRows of the two columns, bit for bit (N = %i)", (N) => {
-    const stride = 5, col = 2;
+    const stride = 5,
+      col = 2;
     const block = randomArray(N * stride, `cols-i-${N}`);
     const plan = new DctPlan(N);
     const got = new Float64Array(2 * N);
@@ -41,7 +43,8 @@ describe("DctPlan column pairs (the 2-D basis' second pass, read without a trans
   });
 
   it("writes the two output rows at any offsets and leaves the rest of dst alone", () => {
-    const N = 16, stride = 4;
+    const N = 16,
+      stride = 4;
     const block = randomArray(N * stride, "cols-offsets");
     const plan = new DctPlan(N);
     const dst = new Float64Array(4 * N).fill(7);

@@ -41,7 +41,8 @@ describe("DctPlan (Makhoul N-point DCT-II on fft.js)", () => {
   it.each([4, 16, 128, 2048])("inverse(forward(x)) = x for N = %i (round trip)", (N) => {
     const x = randomArray(N * 3, `rt-${N}`);
     const plan = new DctPlan(N);
-    const spec = new Float64Array(x.length), back = new Float64Array(x.length);
+    const spec = new Float64Array(x.length),
+      back = new Float64Array(x.length);
     plan.forwardRows(x, spec, 3);
     plan.inverseRows(spec, back, 3);
     for (let i = 0; i < x.length; i++) expect(back[i]).toBeCloseTo(x[i], 12);
@@ -49,7 +50,8 @@ describe("DctPlan (Makhoul N-point DCT-II on fft.js)", () => {
 
   it("in-place forward equals out-of-place forward", () => {
     const x = randomArray(64, "inplace");
-    const a = new Float64Array(64), b = Float64Array.from(x);
+    const a = new Float64Array(64),
+      b = Float64Array.from(x);
     const plan = new DctPlan(32);
     plan.forwardRows(x, a, 2);
     plan.forwardRows(b, b, 2);
@@ -59,15 +61,25 @@ describe("DctPlan (Makhoul N-point DCT-II on fft.js)", () => {
 
 describe("createCosineBasis", () => {
   it.each([
-    [[8, 16], [30, 50]],
-    [[32, 32], [10, 10]],
-    [[64, 4], [5, 200]],
+    [
+      [8, 16],
+      [30, 50],
+    ],
+    [
+      [32, 32],
+      [10, 10],
+    ],
+    [
+      [64, 4],
+      [5, 200],
+    ],
   ])("2-D round trip on %j cells of %j µm and unchanged input", (cells, lengthUm) => {
     const grid = createGrid({ cells, lengthUm });
     const basis = createCosineBasis(grid);
     const x = randomArray(grid.cellCount, `2d-${cells}`);
     const copy = Float64Array.from(x);
-    const spec = new Float64Array(x.length), back = new Float64Array(x.length);
+    const spec = new Float64Array(x.length),
+      back = new Float64Array(x.length);
     basis.forward(x, spec);
     const specCopy = Float64Array.from(spec);
     basis.inverse(spec, back);
@@ -80,11 +92,14 @@ describe("createCosineBasis", () => {
     // Zero-flux rectangle eigenfunctions, SCIENCE.md §2.
     const grid = createGrid({ cells: [16, 8], lengthUm: [40, 20] });
     const basis = createCosineBasis(grid);
-    const m = 3, n = 2;
+    const m = 3,
+      n = 2;
     const x = new Float64Array(grid.cellCount);
-    for (let iy = 0; iy < 8; iy++) for (let ix = 0; ix < 16; ix++) {
-      x[iy * 16 + ix] = Math.cos((m * Math.PI * (ix + 0.5) * 2.5) / 40) * Math.cos((n * Math.PI * (iy + 0.5) * 2.5) / 20);
-    }
+    for (let iy = 0; iy < 8; iy++)
+      for (let ix = 0; ix < 16; ix++) {
+        x[iy * 16 + ix] =
+          Math.cos((m * Math.PI * (ix + 0.5) * 2.5) / 40) * Math.cos((n * Math.PI * (iy + 0.5) * 2.5) / 20);
+      }
     const spec = new Float64Array(x.length);
     basis.forward(x, spec);
     const j = m * 8 + n; // transposed layout kx·ny + ky
@@ -93,6 +108,6 @@ describe("createCosineBasis", () => {
     spec.forEach((v, i) => {
       if (i !== j) expect(Math.abs(v)).toBeLessThan(1e-10);
     });
-    expect(basis.k2PerUm2[j]).toBeCloseTo((m * Math.PI / 40) ** 2 + (n * Math.PI / 20) ** 2, 14);
+    expect(basis.k2PerUm2[j]).toBeCloseTo(((m * Math.PI) / 40) ** 2 + ((n * Math.PI) / 20) ** 2, 14);
   });
 });

@@ -6,7 +6,12 @@ const pureDiffusion = createLinearDecayReaction(1);
 describe("pure diffusion of a cosine mode (heat equation, exact solution e^{−Dk²t})", () => {
   // u = 1 + cos(kx) with k = mπ/L solves u_t = D u_xx with zero-flux ends; the mode decays as
   // e^{−Dk²t} (separation of variables, e.g. Murray 2003 ch. 2; SCIENCE.md §8).
-  const N = 64, L = 100, D = 5, m = 3, T = 10, h = 0.1;
+  const N = 64,
+    L = 100,
+    D = 5,
+    m = 3,
+    T = 10,
+    h = 0.1;
   const k = (m * Math.PI) / L;
   const init = Float64Array.from({ length: N }, (_, j) => 1 + Math.cos(k * (j + 0.5) * (L / N)));
   const cases: [SchemeName, (t: number) => number, number][] = [
@@ -18,8 +23,13 @@ describe("pure diffusion of a cosine mode (heat equation, exact solution e^{−D
   ];
   it.each(cases)("%s reproduces the mode's amplitude", (scheme, amplitude, tol) => {
     const r = simulateReactionDiffusion(pureDiffusion, {
-      grid: { lengthUm: [L], cells: [N] }, diffusionUm2PerS: [D], params: { rate: 0 },
-      initial: { kind: "fields", fields: [init] }, endTimeS: T, dtS: h, scheme,
+      grid: { lengthUm: [L], cells: [N] },
+      diffusionUm2PerS: [D],
+      params: { rate: 0 },
+      initial: { kind: "fields", fields: [init] },
+      endTimeS: T,
+      dtS: h,
+      scheme,
     });
     expect(r.steps).toBe(100);
     expect(r.timeS).toBeCloseTo(T, 12);
@@ -28,8 +38,13 @@ describe("pure diffusion of a cosine mode (heat equation, exact solution e^{−D
 
   it("implicit Euler's amplitude is within O(h) of e^{−Dk²t} (first order)", () => {
     const r = simulateReactionDiffusion(pureDiffusion, {
-      grid: { lengthUm: [L], cells: [N] }, diffusionUm2PerS: [D], params: { rate: 0 },
-      initial: { kind: "fields", fields: [init] }, endTimeS: T, dtS: h, scheme: "implicit-euler",
+      grid: { lengthUm: [L], cells: [N] },
+      diffusionUm2PerS: [D],
+      params: { rate: 0 },
+      initial: { kind: "fields", fields: [init] },
+      endTimeS: T,
+      dtS: h,
+      scheme: "implicit-euler",
     });
     const exact = Math.exp(-D * k * k * T);
     const got = r.fields[0][0] - 1;
@@ -41,15 +56,28 @@ describe("pure diffusion of a cosine mode (heat equation, exact solution e^{−D
   });
 
   it("2-D rectangle mode cos(mπx/Lx)cos(nπy/Ly) decays as e^{−D(kx² + ky²)t}", () => {
-    const nx = 32, ny = 16, lx = 80, ly = 40, mx = 2, my = 1, D2 = 3, T2 = 20;
-    const k2 = (mx * Math.PI / lx) ** 2 + (my * Math.PI / ly) ** 2;
+    const nx = 32,
+      ny = 16,
+      lx = 80,
+      ly = 40,
+      mx = 2,
+      my = 1,
+      D2 = 3,
+      T2 = 20;
+    const k2 = ((mx * Math.PI) / lx) ** 2 + ((my * Math.PI) / ly) ** 2;
     const f = new Float64Array(nx * ny);
-    for (let iy = 0; iy < ny; iy++) for (let ix = 0; ix < nx; ix++) {
-      f[iy * nx + ix] = Math.cos(mx * Math.PI * (ix + 0.5) / nx) * Math.cos(my * Math.PI * (iy + 0.5) / ny);
-    }
+    for (let iy = 0; iy < ny; iy++)
+      for (let ix = 0; ix < nx; ix++) {
+        f[iy * nx + ix] = Math.cos((mx * Math.PI * (ix + 0.5)) / nx) * Math.cos((my * Math.PI * (iy + 0.5)) / ny);
+      }
     const r = simulateReactionDiffusion(pureDiffusion, {
-      grid: { lengthUm: [lx, ly], cells: [nx, ny] }, diffusionUm2PerS: [D2], params: { rate: 0 },
-      initial: { kind: "fields", fields: [f] }, endTimeS: T2, dtS: 0.5, scheme: "integrating-factor",
+      grid: { lengthUm: [lx, ly], cells: [nx, ny] },
+      diffusionUm2PerS: [D2],
+      params: { rate: 0 },
+      initial: { kind: "fields", fields: [f] },
+      endTimeS: T2,
+      dtS: 0.5,
+      scheme: "integrating-factor",
     });
     const a = Math.exp(-D2 * k2 * T2);
     for (let i = 0; i < f.length; i++) expect(Math.abs(r.fields[0][i] - a * f[i])).toBeLessThan(1e-13);
@@ -58,31 +86,49 @@ describe("pure diffusion of a cosine mode (heat equation, exact solution e^{−D
 
 describe("mass conservation with zero-flux boundaries", () => {
   // d/dt ∫u = ∫D∇²u = D∮∂u/∂n = 0 (divergence theorem); the k = 0 coefficient has multiplier 1.
-  it.each(["implicit-euler", "integrating-factor", "etd2"] as const)("%s keeps the mean of a random field", (scheme) => {
-    const r = simulateReactionDiffusion(createLinearDecayReaction(2), {
-      grid: { lengthUm: [50, 30], cells: [32, 16] }, diffusionUm2PerS: [2, 7], params: { rate: 0 },
-      initial: { kind: "steady-state-noise", steadyState: [1, 3], noiseAmplitude: 0.5, seed: "mass" },
-      endTimeS: 40, dtS: 0.4, scheme,
-    });
-    const start = simulateReactionDiffusion(createLinearDecayReaction(2), {
-      grid: { lengthUm: [50, 30], cells: [32, 16] }, diffusionUm2PerS: [2, 7], params: { rate: 0 },
-      initial: { kind: "steady-state-noise", steadyState: [1, 3], noiseAmplitude: 0.5, seed: "mass" },
-      endTimeS: 40, dtS: 40, snapshotTimesS: [0], scheme,
-    }).snapshots[0].fields;
-    for (let s = 0; s < 2; s++) {
-      const m0 = start[s].reduce((a, b) => a + b, 0) / start[s].length;
-      expect(Math.abs(r.stats[s].mean - m0)).toBeLessThan(1e-12);
-      // and diffusion did smooth the field: the range shrank
-      expect(r.stats[s].max - r.stats[s].min).toBeLessThan(0.5);
-    }
-  });
+  it.each(["implicit-euler", "integrating-factor", "etd2"] as const)(
+    "%s keeps the mean of a random field",
+    (scheme) => {
+      const r = simulateReactionDiffusion(createLinearDecayReaction(2), {
+        grid: { lengthUm: [50, 30], cells: [32, 16] },
+        diffusionUm2PerS: [2, 7],
+        params: { rate: 0 },
+        initial: { kind: "steady-state-noise", steadyState: [1, 3], noiseAmplitude: 0.5, seed: "mass" },
+        endTimeS: 40,
+        dtS: 0.4,
+        scheme,
+      });
+      const start = simulateReactionDiffusion(createLinearDecayReaction(2), {
+        grid: { lengthUm: [50, 30], cells: [32, 16] },
+        diffusionUm2PerS: [2, 7],
+        params: { rate: 0 },
+        initial: { kind: "steady-state-noise", steadyState: [1, 3], noiseAmplitude: 0.5, seed: "mass" },
+        endTimeS: 40,
+        dtS: 40,
+        snapshotTimesS: [0],
+        scheme,
+      }).snapshots[0].fields;
+      for (let s = 0; s < 2; s++) {
+        const m0 = start[s].reduce((a, b) => a + b, 0) / start[s].length;
+        expect(Math.abs(r.stats[s].mean - m0)).toBeLessThan(1e-12);
+        // and diffusion did smooth the field: the range shrank
+        expect(r.stats[s].max - r.stats[s].min).toBeLessThan(0.5);
+      }
+    },
+  );
 
   it("linear decay R = −ru makes the mean decay as e^{−rt} (exact ODE solution) with ETD2 within O(h²)", () => {
-    const rate = 0.05, T = 20;
+    const rate = 0.05,
+      T = 20;
     const r = simulateReactionDiffusion(createLinearDecayReaction(1), {
-      grid: { lengthUm: [40], cells: [32] }, diffusionUm2PerS: [1], params: { rate },
+      grid: { lengthUm: [40], cells: [32] },
+      diffusionUm2PerS: [1],
+      params: { rate },
       initial: { kind: "steady-state-noise", steadyState: [2], noiseAmplitude: 0.1, seed: 7 },
-      endTimeS: T, dtS: 0.1, scheme: "etd2", snapshotTimesS: [0],
+      endTimeS: T,
+      dtS: 0.1,
+      scheme: "etd2",
+      snapshotTimesS: [0],
     });
     const m0 = r.snapshots[0].fields[0].reduce((a, b) => a + b, 0) / 32;
     // The k = 0 mode has L = 0, where ETD2 is Adams-Bashforth 2 started by one Euler step.

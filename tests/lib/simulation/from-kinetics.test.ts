@@ -1,7 +1,11 @@
 import { describe, expect, it } from "vitest";
 import { getCatalogueKinetics, resolveParameters } from "@/lib/kinetics";
 import {
-  createReactionSystemFromKinetics, readKineticsDiffusion, readKineticsSteadyState, schnakenbergReaction, simulateReactionDiffusion,
+  createReactionSystemFromKinetics,
+  readKineticsDiffusion,
+  readKineticsSteadyState,
+  schnakenbergReaction,
+  simulateReactionDiffusion,
 } from "@/lib/simulation";
 
 describe("adapter to the kinetics engine's CompiledKinetics", () => {
@@ -16,9 +20,12 @@ describe("adapter to the kinetics engine's CompiledKinetics", () => {
 
   it("gives bit-identical runs to the hand-written Schnakenberg system, also with a spatial parameter", () => {
     const options = {
-      grid: { lengthUm: [20, 20], cells: [16, 16] }, diffusionUm2PerS: [1, 10], params,
+      grid: { lengthUm: [20, 20], cells: [16, 16] },
+      diffusionUm2PerS: [1, 10],
+      params,
       spatialParams: { a: { kind: "linear" as const, fromValue: 0.05, toValue: 0.15 } },
-      initial: { kind: "steady-state-noise" as const, steadyState: [1, 0.9], seed: "adapter" }, endTimeS: 5,
+      initial: { kind: "steady-state-noise" as const, steadyState: [1, 0.9], seed: "adapter" },
+      endTimeS: 5,
     };
     const a = simulateReactionDiffusion(createReactionSystemFromKinetics(k), options);
     const b = simulateReactionDiffusion(schnakenbergReaction, options);

@@ -1,11 +1,17 @@
 import { describe, expect, it } from "vitest";
 import { getCatalogueKinetics, resolveParameters } from "@/lib/kinetics";
 import { readWavelength } from "@/lib/readout";
-import { createReactionSystemFromKinetics, readKineticsDiffusion, readKineticsSteadyState, simulateReactionDiffusion } from "@/lib/simulation";
+import {
+  createReactionSystemFromKinetics,
+  readKineticsDiffusion,
+  readKineticsSteadyState,
+  simulateReactionDiffusion,
+} from "@/lib/simulation";
 
 /** Fastest-growing k² of a 2×2 system on a fine grid (SCIENCE.md §1, closed form of σ). */
 function fastestK2(j: number[], du: number, dv: number): number {
-  let best = -Infinity, arg = 0;
+  let best = -Infinity,
+    arg = 0;
   for (let i = 1; i < 20_000; i++) {
     const k2 = i * 1e-4;
     const tr = j[0] + j[3] - k2 * (du + dv);
@@ -31,15 +37,23 @@ describe("a long run ends in the pattern its nonlinearity selects, read by the t
     const p = resolveParameters(k, c.values);
     const params = Object.fromEntries(k.parameters.map((s, i) => [s.name, p[i]]));
     const steady = readKineticsSteadyState(k, p)!;
-    const N = 64, L = 100;
+    const N = 64,
+      L = 100;
     const r = simulateReactionDiffusion(createReactionSystemFromKinetics(k), {
-      grid: { lengthUm: [L, L], cells: [N, N] }, diffusionUm2PerS: readKineticsDiffusion(k, p), params,
+      grid: { lengthUm: [L, L], cells: [N, N] },
+      diffusionUm2PerS: readKineticsDiffusion(k, p),
+      params,
       initial: { kind: "steady-state-noise", steadyState: steady, noiseAmplitude: 0.01, seed: 1 },
-      endTimeS: c.endTimeS, stiffnessSafety: 0.25,
+      endTimeS: c.endTimeS,
+      stiffnessSafety: 0.25,
     });
     const u = r.fields[0];
-    const min = Math.min(...u), max = Math.max(...u);
-    const readout = readWavelength({ width: N, height: N, data: Float32Array.from(u, (v) => (v - min) / (max - min)) }, { pixelSizeUm: L / N });
+    const min = Math.min(...u),
+      max = Math.max(...u);
+    const readout = readWavelength(
+      { width: N, height: N, data: Float32Array.from(u, (v) => (v - min) / (max - min)) },
+      { pixelSizeUm: L / N },
+    );
     expect(readout.periodFound).toBe(true);
     const { h2, h6 } = readout.symmetryScores;
     if (c.expect === "spots") expect(h6).toBeGreaterThan(5 * h2);

@@ -1,6 +1,12 @@
 import { describe, expect, it } from "vitest";
 import seedrandom from "seedrandom";
-import { RealFftPlan, createGrid, createLinearDecayReaction, createPeriodicBasis, simulateReactionDiffusion } from "@/lib/simulation";
+import {
+  RealFftPlan,
+  createGrid,
+  createLinearDecayReaction,
+  createPeriodicBasis,
+  simulateReactionDiffusion,
+} from "@/lib/simulation";
 
 const rand = (n: number, seed: string) => {
   const rng = seedrandom(seed);
@@ -14,7 +20,8 @@ describe("RealFftPlan (half-complex, two rows per complex fft.js transform)", ()
     new RealFftPlan(N).forwardRows(x, out, 3);
     for (let r = 0; r < 3; r++) {
       for (let k = 0; k <= N / 2; k++) {
-        let re = 0, im = 0;
+        let re = 0,
+          im = 0;
         for (let n = 0; n < N; n++) {
           re += x[r * N + n] * Math.cos((2 * Math.PI * k * n) / N);
           im -= x[r * N + n] * Math.sin((2 * Math.PI * k * n) / N);
@@ -27,11 +34,22 @@ describe("RealFftPlan (half-complex, two rows per complex fft.js transform)", ()
     }
   });
 
-  it.each([[[8], [10]], [[16, 8], [30, 20]], [[32, 32], [5, 5]]])("periodic basis round trip on %j cells", (cells, lengthUm) => {
+  it.each([
+    [[8], [10]],
+    [
+      [16, 8],
+      [30, 20],
+    ],
+    [
+      [32, 32],
+      [5, 5],
+    ],
+  ])("periodic basis round trip on %j cells", (cells, lengthUm) => {
     const grid = createGrid({ cells, lengthUm, boundary: "periodic" });
     const basis = createPeriodicBasis(grid);
     const x = rand(grid.cellCount, `pb-${cells}`);
-    const spec = new Float64Array(x.length), back = new Float64Array(x.length);
+    const spec = new Float64Array(x.length),
+      back = new Float64Array(x.length);
     basis.forward(x, spec);
     const keep = Float64Array.from(spec);
     basis.inverse(spec, back);
@@ -46,16 +64,26 @@ describe("periodic diffusion (heat equation on a torus, exact e^{−Dk²t} with 
     { cells: [32, 16], lengthUm: [40, 20], modes: [2, 3], phase: 1.1 },
     { cells: [16, 16], lengthUm: [20, 20], modes: [8, 0], phase: 0 }, // Nyquist along x
   ])("mode $modes on $cells cells", ({ cells, lengthUm, modes, phase }) => {
-    const nx = cells[0], ny = cells[1] ?? 1, D = 2, T = 3;
+    const nx = cells[0],
+      ny = cells[1] ?? 1,
+      D = 2,
+      T = 3;
     const f = new Float64Array(nx * ny);
     let k2 = 0;
     modes.forEach((m, i) => (k2 += ((2 * Math.PI * m) / lengthUm[i]) ** 2));
-    for (let iy = 0; iy < ny; iy++) for (let ix = 0; ix < nx; ix++) {
-      f[iy * nx + ix] = 1 + Math.cos((2 * Math.PI * modes[0] * ix) / nx + (2 * Math.PI * (modes[1] ?? 0) * iy) / ny + phase);
-    }
+    for (let iy = 0; iy < ny; iy++)
+      for (let ix = 0; ix < nx; ix++) {
+        f[iy * nx + ix] =
+          1 + Math.cos((2 * Math.PI * modes[0] * ix) / nx + (2 * Math.PI * (modes[1] ?? 0) * iy) / ny + phase);
+      }
     const r = simulateReactionDiffusion(createLinearDecayReaction(1), {
-      grid: { cells, lengthUm, boundary: "periodic" }, diffusionUm2PerS: [D], params: { rate: 0 },
-      initial: { kind: "fields", fields: [f] }, endTimeS: T, dtS: 0.1, scheme: "etd2",
+      grid: { cells, lengthUm, boundary: "periodic" },
+      diffusionUm2PerS: [D],
+      params: { rate: 0 },
+      initial: { kind: "fields", fields: [f] },
+      endTimeS: T,
+      dtS: 0.1,
+      scheme: "etd2",
     });
     const a = Math.exp(-D * k2 * T);
     for (let i = 0; i < f.length; i++) expect(Math.abs(r.fields[0][i] - (1 + a * (f[i] - 1)))).toBeLessThan(1e-12);
@@ -64,6 +92,8 @@ describe("periodic diffusion (heat equation on a torus, exact e^{−Dk²t} with 
   });
 
   it("rejects an unknown boundary with an exact message", () => {
-    expect(() => createGrid({ cells: [8], lengthUm: [1], boundary: "dirichlet" as never })).toThrow('grid.boundary must be "zero-flux" or "periodic", got dirichlet.');
+    expect(() => createGrid({ cells: [8], lengthUm: [1], boundary: "dirichlet" as never })).toThrow(
+      'grid.boundary must be "zero-flux" or "periodic", got dirichlet.',
+    );
   });
 });

@@ -1,7 +1,16 @@
 import { describe, expect, it } from "vitest";
 import {
-  chooseTimeStep, computeReactionJacobian, computeReactionStiffness, createLinearDecayReaction, resolveParameterProfile,
-  createGrid, schnakenbergReaction, schnakenbergSteadyState, simulateReactionDiffusion, type ReactionSystem, type SimulationOptions,
+  chooseTimeStep,
+  computeReactionJacobian,
+  computeReactionStiffness,
+  createLinearDecayReaction,
+  resolveParameterProfile,
+  createGrid,
+  schnakenbergReaction,
+  schnakenbergSteadyState,
+  simulateReactionDiffusion,
+  type ReactionSystem,
+  type SimulationOptions,
 } from "@/lib/simulation";
 
 const [us, vs] = schnakenbergSteadyState(0.1, 0.9);
@@ -17,7 +26,10 @@ describe("initial state", () => {
   it("the same seed gives bit-identical runs; another seed differs; the seed is recorded", () => {
     const r1 = simulateReactionDiffusion(schnakenbergReaction, base);
     const r2 = simulateReactionDiffusion(schnakenbergReaction, base);
-    const r3 = simulateReactionDiffusion(schnakenbergReaction, { ...base, initial: { ...base.initial, seed: "other" } as SimulationOptions["initial"] });
+    const r3 = simulateReactionDiffusion(schnakenbergReaction, {
+      ...base,
+      initial: { ...base.initial, seed: "other" } as SimulationOptions["initial"],
+    });
     expect(r1.seed).toBe("run-control");
     expect(Array.from(r1.fields[0])).toEqual(Array.from(r2.fields[0]));
     expect(Array.from(r1.fields[0])).not.toEqual(Array.from(r3.fields[0]));
@@ -36,7 +48,10 @@ describe("parameters varying in space", () => {
   it.each([
     // Values at cell centres x = 12.5, 37.5, 62.5, 87.5 µm (geometry).
     [{ kind: "linear", fromValue: 0, toValue: 1 } as const, [0.125, 0.375, 0.625, 0.875]],
-    [{ kind: "exponential", value0: 2, decayLengthUm: 25 } as const, [2 * Math.exp(-0.5), 2 * Math.exp(-1.5), 2 * Math.exp(-2.5), 2 * Math.exp(-3.5)]],
+    [
+      { kind: "exponential", value0: 2, decayLengthUm: 25 } as const,
+      [2 * Math.exp(-0.5), 2 * Math.exp(-1.5), 2 * Math.exp(-2.5), 2 * Math.exp(-3.5)],
+    ],
     [{ kind: "table", positionsUm: [25, 75], values: [1, 3] } as const, [1, 1.5, 2.5, 3]],
   ])("%j along x", (profile, expected) => {
     const f = resolveParameterProfile(profile, grid, "p");
@@ -51,9 +66,13 @@ describe("parameters varying in space", () => {
 
   it("per-cell decay rates act cell by cell without diffusion (exact ODE solution e^{−r(x)t})", () => {
     const r = simulateReactionDiffusion(createLinearDecayReaction(1), {
-      grid: { lengthUm: [40], cells: [8] }, diffusionUm2PerS: [0],
+      grid: { lengthUm: [40], cells: [8] },
+      diffusionUm2PerS: [0],
       spatialParams: { rate: { kind: "linear", fromValue: 0, toValue: 0.4 } },
-      initial: { kind: "fields", fields: [new Float64Array(8).fill(1)] }, endTimeS: 5, dtS: 0.01, scheme: "etd2",
+      initial: { kind: "fields", fields: [new Float64Array(8).fill(1)] },
+      endTimeS: 5,
+      dtS: 0.01,
+      scheme: "etd2",
     });
     for (let j = 0; j < 8; j++) {
       const rate = (0.4 * (j + 0.5)) / 8;
@@ -75,8 +94,14 @@ describe("step-size rule", () => {
 
   it("ρ(J) of Schnakenberg a = 0.1, b = 0.9: eigenvalues −0.1 ± i√0.99, |λ| = √det J = 1", () => {
     // det J = f_u g_v − f_v g_u = −0.8 + 1.8 = 1 (closed form above).
-    expect(computeReactionStiffness(schnakenbergReaction, [us, vs], { a: 0.1, b: 0.9, gamma: 1 }, 1)).toBeCloseTo(1, 12);
-    expect(computeReactionStiffness(schnakenbergReaction, [us, vs], { a: 0.1, b: 0.9, gamma: 50 }, 1)).toBeCloseTo(50, 10);
+    expect(computeReactionStiffness(schnakenbergReaction, [us, vs], { a: 0.1, b: 0.9, gamma: 1 }, 1)).toBeCloseTo(
+      1,
+      12,
+    );
+    expect(computeReactionStiffness(schnakenbergReaction, [us, vs], { a: 0.1, b: 0.9, gamma: 50 }, 1)).toBeCloseTo(
+      50,
+      10,
+    );
   });
 
   it("h = min(user cap, safety/ρ), shortened so whole steps end at endTimeS", () => {
@@ -96,8 +121,13 @@ describe("stopping, snapshots, progress, cancellation, blow-up", () => {
     // Diffusion of 1 + 0.1cos(πx/L) relaxes to the mean 1; relative change rate → 0.
     const f = Float64Array.from({ length: 32 }, (_, j) => 1 + 0.1 * Math.cos((Math.PI * (j + 0.5)) / 32));
     const r = simulateReactionDiffusion(createLinearDecayReaction(1), {
-      grid: { lengthUm: [10], cells: [32] }, diffusionUm2PerS: [1], params: { rate: 0 },
-      initial: { kind: "fields", fields: [f] }, endTimeS: 1000, dtS: 0.1, stopWhenStationary: true,
+      grid: { lengthUm: [10], cells: [32] },
+      diffusionUm2PerS: [1],
+      params: { rate: 0 },
+      initial: { kind: "fields", fields: [f] },
+      endTimeS: 1000,
+      dtS: 0.1,
+      stopWhenStationary: true,
       stationarity: { tolerancePerS: 1e-8, windowS: 1 },
     });
     expect(r.stopReason).toBe("stationary");
@@ -117,9 +147,20 @@ describe("stopping, snapshots, progress, cancellation, blow-up", () => {
     const seen: number[] = [];
     const percents: number[] = [];
     const r = simulateReactionDiffusion(schnakenbergReaction, {
-      ...base, dtS: 0.1, snapshotTimesS: [0, 2.5, 5], onProgress: (p) => { seen.push(p.fraction); percents.push(p.percent); }, progressEverySteps: 10,
+      ...base,
+      dtS: 0.1,
+      snapshotTimesS: [0, 2.5, 5],
+      onProgress: (p) => {
+        seen.push(p.fraction);
+        percents.push(p.percent);
+      },
+      progressEverySteps: 10,
     });
-    expect(r.snapshots.map((s) => [s.requestedTimeS, s.step])).toEqual([[0, 0], [2.5, 25], [5, 50]]);
+    expect(r.snapshots.map((s) => [s.requestedTimeS, s.step])).toEqual([
+      [0, 0],
+      [2.5, 25],
+      [5, 50],
+    ]);
     expect(r.snapshots[2].timeS).toBeCloseTo(5, 12);
     expect(seen.at(-1)).toBe(1);
     expect(percents).toEqual(seen.map((f) => 100 * f));
@@ -136,7 +177,11 @@ describe("stopping, snapshots, progress, cancellation, blow-up", () => {
     expect(r.steps).toBe(7);
     const ctl = new AbortController();
     const r2 = simulateReactionDiffusion(schnakenbergReaction, {
-      ...base, dtS: 0.1, progressEverySteps: 3, onProgress: (p) => p.steps >= 3 && ctl.abort(), signal: ctl.signal,
+      ...base,
+      dtS: 0.1,
+      progressEverySteps: 3,
+      onProgress: (p) => p.steps >= 3 && ctl.abort(),
+      signal: ctl.signal,
     });
     expect(r2.steps).toBe(3);
     expect(r2.message).toBe("Cancelled at t = 0.30000000000000004 s after 3 steps.");
@@ -146,24 +191,42 @@ describe("stopping, snapshots, progress, cancellation, blow-up", () => {
     // R = +u² blows up in finite time 1/u0 = 1 s (exact ODE solution u = u0/(1 − u0 t)).
     const explode: ReactionSystem = {
       species: 1,
-      evaluate(f, _p, out) { for (let i = 0; i < f[0].length; i++) out[0][i] = f[0][i] * f[0][i]; },
+      evaluate(f, _p, out) {
+        for (let i = 0; i < f[0].length; i++) out[0][i] = f[0][i] * f[0][i];
+      },
     };
     const r = simulateReactionDiffusion(explode, {
-      grid: { lengthUm: [10], cells: [8] }, diffusionUm2PerS: [1], initial: { kind: "fields", fields: [new Float64Array(8).fill(1)] },
-      endTimeS: 2, dtS: 0.01, blowUpAbs: 1e6, scheme: "implicit-euler",
+      grid: { lengthUm: [10], cells: [8] },
+      diffusionUm2PerS: [1],
+      initial: { kind: "fields", fields: [new Float64Array(8).fill(1)] },
+      endTimeS: 2,
+      dtS: 0.01,
+      blowUpAbs: 1e6,
+      scheme: "implicit-euler",
     });
     expect(r.stopReason).toBe("blow-up");
     expect(r.blowUp!.lastGoodTimeS).toBeGreaterThan(0.9);
     expect(r.blowUp!.lastGoodTimeS).toBeLessThan(1.1);
     expect(r.timeS).toBe(r.blowUp!.lastGoodTimeS);
     expect(r.stats[0].max).toBeLessThanOrEqual(1e6);
-    expect(r.message).toMatch(/^Blow-up at step \d+ \(t = [\d.]+ s\): \|c\| reached .* above blowUpAbs = 1000000; the fields are the last good state/);
+    expect(r.message).toMatch(
+      /^Blow-up at step \d+ \(t = [\d.]+ s\): \|c\| reached .* above blowUpAbs = 1000000; the fields are the last good state/,
+    );
   });
 
   it("reports NaN as blow-up", () => {
-    const nan: ReactionSystem = { species: 1, evaluate(f, _p, out) { out[0].fill(NaN); } };
+    const nan: ReactionSystem = {
+      species: 1,
+      evaluate(f, _p, out) {
+        out[0].fill(NaN);
+      },
+    };
     const r = simulateReactionDiffusion(nan, {
-      grid: { lengthUm: [10], cells: [8] }, diffusionUm2PerS: [1], initial: { kind: "fields", fields: [new Float64Array(8)] }, endTimeS: 1, dtS: 0.1,
+      grid: { lengthUm: [10], cells: [8] },
+      diffusionUm2PerS: [1],
+      initial: { kind: "fields", fields: [new Float64Array(8)] },
+      endTimeS: 1,
+      dtS: 0.1,
     });
     expect(r.blowUp).toMatchObject({ step: 1, lastGoodTimeS: 0 });
     expect(r.message).toContain("a field value became NaN or infinite");
@@ -174,6 +237,10 @@ describe("stopping, snapshots, progress, cancellation, blow-up", () => {
     const r = simulateReactionDiffusion(schnakenbergReaction, base);
     expect(r.speciesNames).toEqual(["u", "v"]);
     const u = r.fields[0];
-    expect(r.stats[0]).toEqual({ min: Math.min(...u), max: Math.max(...u), mean: u.reduce((a, b) => a + b, 0) / u.length });
+    expect(r.stats[0]).toEqual({
+      min: Math.min(...u),
+      max: Math.max(...u),
+      mean: u.reduce((a, b) => a + b, 0) / u.length,
+    });
   });
 });

@@ -1,5 +1,11 @@
 import { describe, expect, it } from "vitest";
-import { computeNearestNeighbours, readSpacingTable, spacingsFromPositions, summarize, welchTTest } from "@/lib/spacing";
+import {
+  computeNearestNeighbours,
+  readSpacingTable,
+  spacingsFromPositions,
+  summarize,
+  welchTTest,
+} from "@/lib/spacing";
 import { createRng } from "@/lib/synthetic";
 
 describe("summarize", () => {
@@ -33,19 +39,37 @@ describe("welchTTest", () => {
 
 describe("nearest neighbours vs lattice geometry", () => {
   it("square lattice spacing s: every NN = s, Clark–Evans R = s/(0.5·s) = 2 (geometry)", () => {
-    const xs: number[] = [], ys: number[] = [];
-    for (let i = 0; i < 40; i++) for (let j = 0; j < 30; j++) { xs.push(i * 7); ys.push(j * 7); }
+    const xs: number[] = [],
+      ys: number[] = [];
+    for (let i = 0; i < 40; i++)
+      for (let j = 0; j < 30; j++) {
+        xs.push(i * 7);
+        ys.push(j * 7);
+      }
     const r = computeNearestNeighbours(xs, ys, { minX: -3.5, minY: -3.5, maxX: 40 * 7 - 3.5, maxY: 30 * 7 - 3.5 });
     expect(r.all.mean).toBeCloseTo(7, 10);
     expect(r.all.sd).toBeCloseTo(0, 10);
     expect(r.clarkEvansR).toBeCloseTo(2, 10);
   });
   it("hexagonal lattice NN a: R = 1/(0.5·(√3/2)^½) ≈ 2.149 (Clark & Evans 1954) and λ = (√3/2)·a; 90 000 points", () => {
-    const a = 10, h = (Math.sqrt(3) / 2) * a, nx = 300, ny = 300;
-    const xs = new Float64Array(nx * ny), ys = new Float64Array(nx * ny);
-    for (let j = 0; j < ny; j++) for (let i = 0; i < nx; i++) { xs[j * nx + i] = i * a + (j % 2 ? a / 2 : 0); ys[j * nx + i] = j * h; }
+    const a = 10,
+      h = (Math.sqrt(3) / 2) * a,
+      nx = 300,
+      ny = 300;
+    const xs = new Float64Array(nx * ny),
+      ys = new Float64Array(nx * ny);
+    for (let j = 0; j < ny; j++)
+      for (let i = 0; i < nx; i++) {
+        xs[j * nx + i] = i * a + (j % 2 ? a / 2 : 0);
+        ys[j * nx + i] = j * h;
+      }
     // each point owns an a × h cell, so this field has exactly the lattice density
-    const r = computeNearestNeighbours(xs, ys, { minX: -a / 4, minY: -h / 2, maxX: nx * a - a / 4, maxY: ny * h - h / 2 });
+    const r = computeNearestNeighbours(xs, ys, {
+      minX: -a / 4,
+      minY: -h / 2,
+      maxX: nx * a - a / 4,
+      maxY: ny * h - h / 2,
+    });
     expect(r.all.mean).toBeCloseTo(a, 9);
     expect(r.clarkEvansR).toBeCloseTo(1 / (0.5 * Math.sqrt(Math.sqrt(3) / 2)), 6);
     expect(r.clarkEvansR).toBeCloseTo(2.149, 3);

@@ -12,19 +12,23 @@ import { analyseCell2x2, sigmaMax2x2 } from "@/lib/stability/cell-2x2";
 
 /** Linear kinetics with Jacobian J around u = v = 0 and diffusivities Du, Dv (parameters). */
 const linear = compileKinetics({
-  name: "linear", species: ["u", "v"],
+  name: "linear",
+  species: ["u", "v"],
   parameters: ["a", "b", "c", "d", "Du", "Dv"].map((name) => ({ name, default: 1, min: -1e6, max: 1e6 })),
-  reactions: ["a * u + b * v", "c * u + d * v"], diffusion: ["Du", "Dv"],
+  reactions: ["a * u + b * v", "c * u + d * v"],
+  diffusion: ["Du", "Dv"],
 });
 
 describe("grid-free 2×2 map cell", () => {
   it("agrees with computeDispersion on 3000 random cells: class, and k* where a mode grows", () => {
     const rng = seedrandom("cell-2x2");
     const r = (lo: number, hi: number) => lo + (hi - lo) * rng();
-    let peaks = 0, compared = 0;
+    let peaks = 0,
+      compared = 0;
     for (let i = 0; i < 3000; i++) {
       const J = [r(-2, 2), r(-3, 3), r(-3, 3), r(-2, 2)];
-      const Du = Math.exp(r(-2, 1)), Dv = Math.exp(r(-1, 4));
+      const Du = Math.exp(r(-2, 1)),
+        Dv = Math.exp(r(-1, 4));
       const peak = { k: NaN, sigma: -Infinity };
       const flags = analyseCell2x2(J, Du, Dv, peak);
       const d = computeDispersion(linear, { a: J[0], b: J[1], c: J[2], d: J[3], Du, Dv });
@@ -48,7 +52,9 @@ describe("grid-free 2×2 map cell", () => {
     const J = [2 / 3, 1, -1.8, -1];
     const [fu, fv, gu, gv] = J;
     // d_c: root of fu² d² + 2(2 fv gu − fu gv) d + gv² = 0 with d fu + gv > 0 (Murray 2003 eq. 2.32).
-    const qa = fu * fu, qb = 2 * (2 * fv * gu - fu * gv), qc = gv * gv;
+    const qa = fu * fu,
+      qb = 2 * (2 * fv * gu - fu * gv),
+      qc = gv * gv;
     const dc = (-qb + Math.sqrt(qb * qb - 4 * qa * qc)) / (2 * qa);
     const peak = { k: NaN, sigma: -Infinity };
     expect(classOf(analyseCell2x2(J, 1, dc * (1 + 1e-6), peak))).toBe("turing");

@@ -6,7 +6,8 @@ const brusselator = getCatalogueKinetics("brusselator");
 
 describe("classification (SCIENCE.md §1)", () => {
   it("Hopf: Brusselator past b_H = 1 + a² with equal diffusivities (Prigogine & Lefever 1968)", () => {
-    const a = 2, b = 5.5; // b_H = 5; with Du = Dv no Turing band exists (needs Dv/Du > 1)
+    const a = 2,
+      b = 5.5; // b_H = 5; with Du = Dv no Turing band exists (needs Dv/Du > 1)
     const r = computeDispersion(brusselator, { a, b, Du: 1, Dv: 1 });
     expect(r.classification.classes).toEqual(["hopf"]);
     const e0 = r.steadyStates[0].eigenvalues[0];
@@ -48,10 +49,14 @@ describe("classification (SCIENCE.md §1)", () => {
     expect(r.fastest!.kStar).toBeGreaterThan(0);
     expect(r.steadyStates[0].stableWithoutDiffusion).toBe(true);
     // The same Jacobian typed as linear kinetics around its steady state must give the same answer.
-    const J = r.jacobian, D = r.diffusion, ss = Object.values(r.steadyState.values);
+    const J = r.jacobian,
+      D = r.diffusion,
+      ss = Object.values(r.steadyState.values);
     const sp = ["x", "y", "z"];
     const lin = compileKinetics({
-      name: "linearised", species: sp, parameters: [],
+      name: "linearised",
+      species: sp,
+      parameters: [],
       reactions: J.map((row) => row.map((v, j) => `(${v}) * (${sp[j]} - ${ss[j]})`).join(" + ")),
       diffusion: D.map((row, i) => row[i]),
     });
@@ -62,7 +67,12 @@ describe("classification (SCIENCE.md §1)", () => {
   });
 
   it.each([
-    ["schnakenberg", {}], ["gierer-meinhardt", { d: 5 }], ["lengyel-epstein", { d: 0.1 }], ["thomas", {}], ["brusselator", { b: 2 }], ["fitzhugh-nagumo", { d: 5 }],
+    ["schnakenberg", {}],
+    ["gierer-meinhardt", { d: 5 }],
+    ["lengyel-epstein", { d: 0.1 }],
+    ["thomas", {}],
+    ["brusselator", { b: 2 }],
+    ["fitzhugh-nagumo", { d: 5 }],
   ] as const)("%s %j: closed-form Turing conditions agree with the numerical class", (id, set) => {
     const r = computeDispersion(getCatalogueKinetics(id), set);
     expect(r.turingConditions!.allSatisfied).toBe(r.classification.classes.includes("turing"));

@@ -11,7 +11,11 @@ describe("admissible modes (SCIENCE.md §2)", () => {
 
   it("sphere of radius 2: k² = l(l+1)/R² and multiplicity 2l + 1 (hand-computed l = 1..3: k = 0.7071, 1.2247, 1.7321)", () => {
     const modes = enumerateModes({ kind: "sphere", radius: 2 }, 1.8);
-    expect(modes.map((m) => [m.indices[0], m.multiplicity])).toEqual([[1, 3], [2, 5], [3, 7]]);
+    expect(modes.map((m) => [m.indices[0], m.multiplicity])).toEqual([
+      [1, 3],
+      [2, 5],
+      [3, 7],
+    ]);
     [0.707107, 1.224745, 1.732051].forEach((k, i) => expect(modes[i].k).toBeCloseTo(k, 6));
   });
 
@@ -24,17 +28,26 @@ describe("admissible modes (SCIENCE.md §2)", () => {
 
   it("repeats: interval mode n = 5 lays 2.5 wavelengths and 3 maxima counting the boundary (SCIENCE.md §2)", () => {
     const d = { kind: "interval" as const, length: 1 };
-    expect(describeRepeats(d, { indices: [5], k: 5 * Math.PI, multiplicity: 1 })).toEqual({ wavelengthsAcross: 2.5, maxima: 3 });
-    expect(describeRepeats(d, { indices: [4], k: 4 * Math.PI, multiplicity: 1 })).toEqual({ wavelengthsAcross: 2, maxima: 3 });
+    expect(describeRepeats(d, { indices: [5], k: 5 * Math.PI, multiplicity: 1 })).toEqual({
+      wavelengthsAcross: 2.5,
+      maxima: 3,
+    });
+    expect(describeRepeats(d, { indices: [4], k: 4 * Math.PI, multiplicity: 1 })).toEqual({
+      wavelengthsAcross: 2,
+      maxima: 3,
+    });
   });
 
   it("the fastest admissible mode on an interval is the n maximising σ(nπ/L) (brute force over n)", () => {
     const k = getCatalogueKinetics("schnakenberg");
     const L = 40;
     const r = computeDispersion(k, {}, { domain: { kind: "interval", length: L } });
-    const brute = [...Array(30).keys()].map((i) => i + 1).map((n) => ({
-      n, s: computeDispersion(k, {}, { kMax: (n * Math.PI) / L, gridSize: 16 }).curve.sigma.at(-1)!,
-    }));
+    const brute = [...Array(30).keys()]
+      .map((i) => i + 1)
+      .map((n) => ({
+        n,
+        s: computeDispersion(k, {}, { kMax: (n * Math.PI) / L, gridSize: 16 }).curve.sigma.at(-1)!,
+      }));
     const best = brute.reduce((a, b) => (b.s > a.s ? b : a));
     expect(r.domain!.fastestMode.indices).toEqual([best.n]);
     expect(r.domain!.fastestMode.sigma).toBeCloseTo(best.s, 12);

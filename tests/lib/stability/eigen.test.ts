@@ -10,7 +10,9 @@ function reference(m: number[], n: number): [number, number] {
   const rows = Array.from({ length: n }, (_, i) => m.slice(i * n, i * n + n));
   const e = new EigenvalueDecomposition(new Matrix(rows));
   let best = 0;
-  e.realEigenvalues.forEach((re, i) => { if (re > e.realEigenvalues[best]) best = i; });
+  e.realEigenvalues.forEach((re, i) => {
+    if (re > e.realEigenvalues[best]) best = i;
+  });
   return [e.realEigenvalues[best], Math.abs(e.imaginaryEigenvalues[best])];
 }
 
@@ -32,9 +34,13 @@ describe("2×2 closed form vs the general eigen solver", () => {
 
   it("σ_max(k) of a catalogue model agrees with ml-matrix on J − k²D at every grid point", () => {
     const r = computeDispersion(getCatalogueKinetics("lengyel-epstein"), {});
-    const J = r.jacobian.flat(), D = r.diffusion.flat();
+    const J = r.jacobian.flat(),
+      D = r.diffusion.flat();
     r.curve.k.forEach((k, i) => {
-      const [re, im] = reference(J.map((x, j) => x - k * k * D[j]), 2);
+      const [re, im] = reference(
+        J.map((x, j) => x - k * k * D[j]),
+        2,
+      );
       expect(r.curve.sigma[i]).toBeCloseTo(re, 10);
       expect(r.curve.imSigma[i]).toBeCloseTo(im, 10);
     });
@@ -44,10 +50,16 @@ describe("2×2 closed form vs the general eigen solver", () => {
     const rng = seedrandom("eigen-3x3");
     const ws = createScanWorkspace(3, 16);
     for (let t = 0; t < 50; t++) {
-      for (let i = 0; i < 9; i++) { ws.J[i] = 4 * (rng() - 0.5); ws.D[i] = i % 4 === 0 ? 0.1 + rng() : 0; }
+      for (let i = 0; i < 9; i++) {
+        ws.J[i] = 4 * (rng() - 0.5);
+        ws.D[i] = i % 4 === 0 ? 0.1 + rng() : 0;
+      }
       const k = 3 * rng();
       const s = sigmaAt(ws, k);
-      const [re, im] = reference(Array.from(ws.J, (x, j) => x - k * k * ws.D[j]), 3);
+      const [re, im] = reference(
+        Array.from(ws.J, (x, j) => x - k * k * ws.D[j]),
+        3,
+      );
       expect(s).toBeCloseTo(re, 10);
       expect(ws.eig[1]).toBeCloseTo(im, 10);
     }

@@ -9,8 +9,11 @@ const rel = (a: number, b: number) => (a === b || (Number.isNaN(a) && Number.isN
 
 // Newton-only kinetics (no closed form): a linear system with its single state at u = 1, v = 1.
 const newtonOnly = compileKinetics({
-  name: "linear test", species: ["u", "v"], parameters: [{ name: "s", default: 1 }],
-  reactions: ["s * (u - 1) - (v - 1)", "3 * (u - 1) - 2 * (v - 1)"], diffusion: [1, 20],
+  name: "linear test",
+  species: ["u", "v"],
+  parameters: [{ name: "s", default: 1 }],
+  reactions: ["s * (u - 1) - (v - 1)", "3 * (u - 1) - 2 * (v - 1)"],
+  diffusion: [1, 20],
 });
 
 // Table: catalogue defaults (all Turing) plus sets that are stable, Hopf or unstable at k = 0, and a multi-state kinetics.
@@ -29,36 +32,62 @@ const CASES: [string, ReturnType<typeof getCatalogueKinetics>, Record<string, nu
   ["thomas defaults", getCatalogueKinetics("thomas"), {}],
   ["gray-scott defaults (3 states)", getCatalogueKinetics("gray-scott"), {}],
   ["gray-scott F = 0.03, k = 0.06", getCatalogueKinetics("gray-scott"), { F: 0.03, k: 0.06 }],
-  ["gray-scott F = 0.01, k = 0.04 (state 1 chosen: state 0 unstable at k = 0)", getCatalogueKinetics("gray-scott"), { F: 0.01, k: 0.04 }],
-  ["gray-scott F = 0.02, k = 0.05 (state 2 chosen: 0 is Turing + Hopf, 1 unstable)", getCatalogueKinetics("gray-scott"), { F: 0.02, k: 0.05 }],
-  ["gray-scott F = 0.02, k = 0.04, Dv = 2e-6 (3 states, Turing)", getCatalogueKinetics("gray-scott"), { F: 0.02, k: 0.04, Dv: 2e-6 }],
-  ["Newton-only linear kinetics, s = 1 (Turing: 20s − 2 > 0 and (20s − 2)² > 80(3 − 2s), Murray 2003 eq. 2.49)", newtonOnly as ReturnType<typeof getCatalogueKinetics>, { s: 1 }],
-  ["Newton-only linear kinetics, s = 1.8 (det J = 3 − 2s < 0: unstable at k = 0)", newtonOnly as ReturnType<typeof getCatalogueKinetics>, { s: 1.8 }],
+  [
+    "gray-scott F = 0.01, k = 0.04 (state 1 chosen: state 0 unstable at k = 0)",
+    getCatalogueKinetics("gray-scott"),
+    { F: 0.01, k: 0.04 },
+  ],
+  [
+    "gray-scott F = 0.02, k = 0.05 (state 2 chosen: 0 is Turing + Hopf, 1 unstable)",
+    getCatalogueKinetics("gray-scott"),
+    { F: 0.02, k: 0.05 },
+  ],
+  [
+    "gray-scott F = 0.02, k = 0.04, Dv = 2e-6 (3 states, Turing)",
+    getCatalogueKinetics("gray-scott"),
+    { F: 0.02, k: 0.04, Dv: 2e-6 },
+  ],
+  [
+    "Newton-only linear kinetics, s = 1 (Turing: 20s − 2 > 0 and (20s − 2)² > 80(3 − 2s), Murray 2003 eq. 2.49)",
+    newtonOnly as ReturnType<typeof getCatalogueKinetics>,
+    { s: 1 },
+  ],
+  [
+    "Newton-only linear kinetics, s = 1.8 (det J = 3 − 2s < 0: unstable at k = 0)",
+    newtonOnly as ReturnType<typeof getCatalogueKinetics>,
+    { s: 1.8 },
+  ],
 ];
 
 describe("computeFastestMode (two species, diagonal D, unbounded domain)", () => {
-  it.each(CASES)("%s: same state, flags, k* and σ(k*) as computeDispersion (k* to 1e-9 relative)", (_, kinetics, params) => {
-    for (const gridSize of [200, 64]) {
-      const r = computeDispersion(kinetics, params, { gridSize });
-      const m = computeFastestMode(kinetics, resolveParameters(kinetics, params), gridSize)!;
-      expect(m).not.toBeNull();
-      expect(m.stateIndex).toBe(r.steadyState.index);
-      expect(m.flags).toBe(r.classification.flags);
-      if (r.fastest === null) {
-        expect(m.kStar).toBeNaN();
-        expect(m.kind).toBeNull();
-      } else {
-        expect(rel(m.kStar, r.fastest.kStar)).toBeLessThan(1e-9);
-        expect(rel(m.sigmaStar, r.fastest.sigmaStar)).toBeLessThan(1e-9);
-        expect(m.kind).toBe(r.fastest.kind);
+  it.each(CASES)(
+    "%s: same state, flags, k* and σ(k*) as computeDispersion (k* to 1e-9 relative)",
+    (_, kinetics, params) => {
+      for (const gridSize of [200, 64]) {
+        const r = computeDispersion(kinetics, params, { gridSize });
+        const m = computeFastestMode(kinetics, resolveParameters(kinetics, params), gridSize)!;
+        expect(m).not.toBeNull();
+        expect(m.stateIndex).toBe(r.steadyState.index);
+        expect(m.flags).toBe(r.classification.flags);
+        if (r.fastest === null) {
+          expect(m.kStar).toBeNaN();
+          expect(m.kind).toBeNull();
+        } else {
+          expect(rel(m.kStar, r.fastest.kStar)).toBeLessThan(1e-9);
+          expect(rel(m.sigmaStar, r.fastest.sigmaStar)).toBeLessThan(1e-9);
+          expect(m.kind).toBe(r.fastest.kind);
+        }
       }
-    }
-  });
+    },
+  );
 
   it("gives the same answers with a reused workspace, whatever the order of calls", () => {
     const ws = createFastestModeWorkspace(200);
     const fresh = CASES.map(([, k, p]) => computeFastestMode(k, resolveParameters(k, p)));
-    const reused = [...CASES].reverse().map(([, k, p]) => computeFastestMode(k, resolveParameters(k, p), 200, ws)).reverse();
+    const reused = [...CASES]
+      .reverse()
+      .map(([, k, p]) => computeFastestMode(k, resolveParameters(k, p), 200, ws))
+      .reverse();
     expect(reused).toEqual(fresh);
   });
 
@@ -87,9 +116,24 @@ describe("computeFastestMode (two species, diagonal D, unbounded domain)", () =>
     expect(computeFastestMode(s, resolveParameters(s, { a: 0, b: 0 }))).toBeNull(); // u* = a + b = 0: no steady state (Murray 2003 eq. 2.39)
     expect(computeFastestMode(s, resolveParameters(s, {}), 8)).toBeNull(); // grid below computeDispersion's minimum of 16
     expect(computeFastestMode(s, resolveParameters(s, {}), 200, createFastestModeWorkspace(64))).toBeNull(); // workspace too small
-    const cross = compileKinetics({ name: "cross", species: ["u", "v"], parameters: [], reactions: ["1 - u", "u - v"], diffusion: [[1, 0.1], [0, 2]] });
+    const cross = compileKinetics({
+      name: "cross",
+      species: ["u", "v"],
+      parameters: [],
+      reactions: ["1 - u", "u - v"],
+      diffusion: [
+        [1, 0.1],
+        [0, 2],
+      ],
+    });
     expect(computeFastestMode(cross, [])).toBeNull(); // cross-diffusion: not diagonal
-    const zero = compileKinetics({ name: "z", species: ["u", "v"], parameters: [{ name: "D", default: 0 }], reactions: ["1 - u", "u - v"], diffusion: [1, "D"] });
+    const zero = compileKinetics({
+      name: "z",
+      species: ["u", "v"],
+      parameters: [{ name: "D", default: 0 }],
+      reactions: ["1 - u", "u - v"],
+      diffusion: [1, "D"],
+    });
     expect(computeFastestMode(zero, [0])).toBeNull(); // zero diffusivity: computeDispersion raises the error
   });
 });

@@ -20,14 +20,28 @@ describe("sensitivities", () => {
 
   it("explains parameters it cannot differentiate", () => {
     const r = computeElasticities(getCatalogueKinetics("fitzhugh-nagumo"), {});
-    expect(r.elasticities.find((e) => e.name === "a")).toEqual({ name: "a", value: 0, elasticity: null, reason: "parameter is 0, so ln p is undefined" });
-    expect(() => computeElasticities(schnakenberg, { d: 2 })).toThrow(new KineticsInputError("parameters", "No growing mode at k > 0 here, so the predicted wavelength and its elasticities are undefined."));
+    expect(r.elasticities.find((e) => e.name === "a")).toEqual({
+      name: "a",
+      value: 0,
+      elasticity: null,
+      reason: "parameter is 0, so ln p is undefined",
+    });
+    expect(() => computeElasticities(schnakenberg, { d: 2 })).toThrow(
+      new KineticsInputError(
+        "parameters",
+        "No growing mode at k > 0 here, so the predicted wavelength and its elasticities are undefined.",
+      ),
+    );
   });
 });
 
 describe("gradients", () => {
   it("a linear gradient of d switches patterning on where d crosses d_c ≈ 8.5676 (Murray's quadratic, see turing-references)", () => {
-    const r = computeGradientDispersion(schnakenberg, {}, { parameter: "d", profile: { kind: "linear", from: 2, to: 40 }, length: 1000, samples: 201, lengthScaleUm: 10 });
+    const r = computeGradientDispersion(
+      schnakenberg,
+      {},
+      { parameter: "d", profile: { kind: "linear", from: 2, to: 40 }, length: 1000, samples: 201, lengthScaleUm: 10 },
+    );
     expect(r.positionUnits).toBe("um");
     expect(r.patterningRegions).toHaveLength(1);
     const xc = ((8.567627 - 2) / 38) * 1000; // where d(x) = d_c
@@ -39,12 +53,25 @@ describe("gradients", () => {
   });
 
   it("exponential and table profiles give the values they describe", () => {
-    const e = computeGradientDispersion(schnakenberg, {}, { parameter: "d", profile: { kind: "exponential", source: 40, decayLength: 100 }, length: 200, samples: 3 });
+    const e = computeGradientDispersion(
+      schnakenberg,
+      {},
+      { parameter: "d", profile: { kind: "exponential", source: 40, decayLength: 100 }, length: 200, samples: 3 },
+    );
     expect(e.points.map((p) => p.value)).toEqual([40, 40 * Math.exp(-1), 40 * Math.exp(-2)]);
-    const t = computeGradientDispersion(schnakenberg, {}, { parameter: "d", profile: { kind: "table", positions: [0, 10], values: [5, 25] }, length: 10, samples: 3 });
+    const t = computeGradientDispersion(
+      schnakenberg,
+      {},
+      { parameter: "d", profile: { kind: "table", positions: [0, 10], values: [5, 25] }, length: 10, samples: 3 },
+    );
     expect(t.points.map((p) => p.value)).toEqual([5, 15, 25]);
     expect(t.points[0].classes).toEqual(["stable"]);
-    expect(() => computeGradientDispersion(schnakenberg, {}, { parameter: "d", profile: { kind: "table", positions: [0, 0], values: [1, 2] }, length: 1 }))
-      .toThrow("profile.positions must increase strictly.");
+    expect(() =>
+      computeGradientDispersion(
+        schnakenberg,
+        {},
+        { parameter: "d", profile: { kind: "table", positions: [0, 0], values: [1, 2] }, length: 1 },
+      ),
+    ).toThrow("profile.positions must increase strictly.");
   });
 });

@@ -7,7 +7,8 @@ const brusselator = getCatalogueKinetics("brusselator");
 const schnakenberg = getCatalogueKinetics("schnakenberg");
 
 /** Largest growth rate over k > 0 (0 when none of the peaks grows). */
-const peakGrowth = (r: ReturnType<typeof computeDispersion>) => Math.max(...r.curve.sigma.slice(1), r.fastest?.sigmaStar ?? -Infinity);
+const peakGrowth = (r: ReturnType<typeof computeDispersion>) =>
+  Math.max(...r.curve.sigma.slice(1), r.fastest?.sigmaStar ?? -Infinity);
 
 describe("Brusselator Turing threshold", () => {
   // b_c = (1 + a√(Du/Dv))², k_c² = a/√(Du Dv): Prigogine & Lefever (1968); also Nicolis G. &
@@ -19,7 +20,12 @@ describe("Brusselator Turing threshold", () => {
   ])("a=$a Du=$Du Dv=$Dv", ({ a, Du, Dv }) => {
     const bc = (1 + a * Math.sqrt(Du / Dv)) ** 2;
     const kc = Math.sqrt(a / Math.sqrt(Du * Dv));
-    const bNumeric = findRootBracketed((b) => peakGrowth(computeDispersion(brusselator, { a, b, Du, Dv })), 0.5 * bc, Math.min(1 + a * a, 1.5 * bc) - 1e-9, 1e-12);
+    const bNumeric = findRootBracketed(
+      (b) => peakGrowth(computeDispersion(brusselator, { a, b, Du, Dv })),
+      0.5 * bc,
+      Math.min(1 + a * a, 1.5 * bc) - 1e-9,
+      1e-12,
+    );
     expect(bNumeric).toBeCloseTo(bc, 7);
     const r = computeDispersion(brusselator, { a, b: bc * (1 + 1e-8), Du, Dv });
     expect(r.classification.classes).toEqual(["turing"]);
@@ -38,13 +44,26 @@ describe("Schnakenberg critical diffusion ratio", () => {
     { a: 0.05, b: 1.2 },
     { a: 0.2, b: 1.5 },
   ])("a=$a b=$b", ({ a, b }) => {
-    const s = a + b, fu = (b - a) / s, fv = s * s, gu = (-2 * b) / s, gv = -s * s;
-    const A = fu * fu, B = 2 * (2 * fv * gu - fu * gv), C = gv * gv;
-    const dc = [(-B + Math.sqrt(B * B - 4 * A * C)) / (2 * A), (-B - Math.sqrt(B * B - 4 * A * C)) / (2 * A)].find((d) => d * fu + gv > 0)!;
+    const s = a + b,
+      fu = (b - a) / s,
+      fv = s * s,
+      gu = (-2 * b) / s,
+      gv = -s * s;
+    const A = fu * fu,
+      B = 2 * (2 * fv * gu - fu * gv),
+      C = gv * gv;
+    const dc = [(-B + Math.sqrt(B * B - 4 * A * C)) / (2 * A), (-B - Math.sqrt(B * B - 4 * A * C)) / (2 * A)].find(
+      (d) => d * fu + gv > 0,
+    )!;
     const r = computeDispersion(schnakenberg, { a, b, d: 2 * dc });
     expect(r.turingConditions!.criticalRatio!).toBeCloseTo(dc, 10);
     // numerical threshold: the d at which the peak growth crosses zero
-    const dNumeric = findRootBracketed((d) => peakGrowth(computeDispersion(schnakenberg, { a, b, d })), 0.5 * dc, 2 * dc, 1e-12);
+    const dNumeric = findRootBracketed(
+      (d) => peakGrowth(computeDispersion(schnakenberg, { a, b, d })),
+      0.5 * dc,
+      2 * dc,
+      1e-12,
+    );
     expect(dNumeric).toBeCloseTo(dc, 6);
   });
 

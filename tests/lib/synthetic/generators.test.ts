@@ -1,5 +1,12 @@
 import { describe, expect, it } from "vitest";
-import { makeGradientStripes, makeHexSpots, makeLabyrinth, makeNoise, makeStripes, gradientWavelengthAtPx } from "@/lib/synthetic";
+import {
+  makeGradientStripes,
+  makeHexSpots,
+  makeLabyrinth,
+  makeNoise,
+  makeStripes,
+  gradientWavelengthAtPx,
+} from "@/lib/synthetic";
 
 describe("makeStripes", () => {
   it("is periodic with the given wavelength along the wave vector (definition of a plane wave)", () => {
@@ -50,16 +57,26 @@ describe("makeGradientStripes", () => {
 describe("makeNoise and makeLabyrinth", () => {
   it("noise is uniform on [0,1): mean ≈ 1/2, variance ≈ 1/12 (uniform distribution moments)", () => {
     const { data } = makeNoise({ width: 128, height: 128, seed: 9 });
-    let s = 0, s2 = 0;
-    for (const v of data) { s += v; s2 += v * v; }
+    let s = 0,
+      s2 = 0;
+    for (const v of data) {
+      s += v;
+      s2 += v * v;
+    }
     const m = s / data.length;
     expect(m).toBeCloseTo(0.5, 2);
     expect(s2 / data.length - m * m).toBeCloseTo(1 / 12, 2);
   });
   it("labyrinth values stay in 0..1 and use both halves of the range (tanh bands)", () => {
     const { data } = makeLabyrinth({ width: 64, height: 64, wavelengthPx: 12, seed: 2 });
-    let lo = 0, hi = 0;
-    for (const v of data) { expect(v).toBeGreaterThanOrEqual(0); expect(v).toBeLessThanOrEqual(1); if (v < 0.2) lo++; if (v > 0.8) hi++; }
+    let lo = 0,
+      hi = 0;
+    for (const v of data) {
+      expect(v).toBeGreaterThanOrEqual(0);
+      expect(v).toBeLessThanOrEqual(1);
+      if (v < 0.2) lo++;
+      if (v > 0.8) hi++;
+    }
     expect(lo).toBeGreaterThan(400);
     expect(hi).toBeGreaterThan(400);
   });

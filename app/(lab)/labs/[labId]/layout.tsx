@@ -5,14 +5,24 @@ import { labNav } from "@/lib/server/lab-nav";
 import type { Role } from "@/lib/access/roles";
 
 /** Draws navigation only; each page checks access itself. */
-export default async function LabLayout({ children, params }: { children: React.ReactNode; params: Promise<{ labId: string }> }) {
+export default async function LabLayout({
+  children,
+  params,
+}: {
+  children: React.ReactNode;
+  params: Promise<{ labId: string }>;
+}) {
   const { labId } = await params;
   const actor = await getActor();
   if (!actor) return <>{children}</>;
   const me = await getMe(actor);
   const lab = me.labs.find((l) => l.id === labId);
   return (
-    <AppShell me={me} lab={lab ? { id: lab.id, name: lab.name, role: lab.role as Role } : undefined} nav={lab ? labNav(lab.id, lab.role as Role) : []}>
+    <AppShell
+      me={me}
+      lab={lab ? { id: lab.id, name: lab.name, role: lab.role as Role } : undefined}
+      nav={lab ? labNav(lab.id, lab.role as Role) : []}
+    >
       {children}
     </AppShell>
   );

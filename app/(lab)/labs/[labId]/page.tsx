@@ -19,12 +19,21 @@ export default async function Dashboard({ params }: { params: Promise<{ labId: s
   const studies = await listStudies(ctx, { page: 1, pageSize: 6, sort: "updatedAt", dir: "desc", q: "" });
   const fits = await listFits(ctx, { page: 1, pageSize: 5, sort: "createdAt", dir: "desc", q: "" });
   const readouts = await listReadouts(ctx, {}, { page: 1, pageSize: 5, sort: "createdAt", dir: "desc", q: "" });
-  const audit = can(ctx.role, "audit.read") ? await listAudit(ctx, { page: 1, pageSize: 8, sort: "at", dir: "desc", q: "" }) : null;
+  const audit = can(ctx.role, "audit.read")
+    ? await listAudit(ctx, { page: 1, pageSize: 8, sort: "at", dir: "desc", q: "" })
+    : null;
   return (
     <div className="space-y-6">
       <PageHeader title={ctx.labName} subtitle={`You are ${ROLE_LABELS[ctx.role].toLowerCase()} here.`} />
       <div className="grid gap-6 lg:grid-cols-[2fr_1fr]">
-        <Panel title="Recent studies" actions={<Link href={`/labs/${labId}/studies`} className="text-sm text-moss hover:underline">All studies →</Link>}>
+        <Panel
+          title="Recent studies"
+          actions={
+            <Link href={`/labs/${labId}/studies`} className="text-sm text-moss hover:underline">
+              All studies →
+            </Link>
+          }
+        >
           {studies.total === 0 ? (
             <EmptyState title="No studies yet.">
               {can(ctx.role, "study.create") ? (
@@ -55,20 +64,36 @@ export default async function Dashboard({ params }: { params: Promise<{ labId: s
             {can(ctx.role, "upload.create") && (
               <li>
                 Upload a stained image or a spacing table to a specimen in a{" "}
-                <Link href={`/labs/${labId}/studies`} className="text-moss hover:underline">study</Link>; its spacing is read automatically.
+                <Link href={`/labs/${labId}/studies`} className="text-moss hover:underline">
+                  study
+                </Link>
+                ; its spacing is read automatically.
               </li>
             )}
             {can(ctx.role, "fit.create") && (
               <li>
                 Compare the measured spacing with a model: open a{" "}
-                <Link href={`/labs/${labId}/kinetics`} className="text-moss hover:underline">kinetics</Link> or start a{" "}
-                <Link href={`/labs/${labId}/fits`} className="text-moss hover:underline">fit</Link>.
+                <Link href={`/labs/${labId}/kinetics`} className="text-moss hover:underline">
+                  kinetics
+                </Link>{" "}
+                or start a{" "}
+                <Link href={`/labs/${labId}/fits`} className="text-moss hover:underline">
+                  fit
+                </Link>
+                .
               </li>
             )}
             {!can(ctx.role, "upload.create") && (
               <li>
-                Read the lab&apos;s <Link href={`/labs/${labId}/readouts`} className="text-moss hover:underline">readouts</Link> and{" "}
-                <Link href={`/labs/${labId}/fits`} className="text-moss hover:underline">fits</Link>, and comment at the bottom of each.
+                Read the lab&apos;s{" "}
+                <Link href={`/labs/${labId}/readouts`} className="text-moss hover:underline">
+                  readouts
+                </Link>{" "}
+                and{" "}
+                <Link href={`/labs/${labId}/fits`} className="text-moss hover:underline">
+                  fits
+                </Link>
+                , and comment at the bottom of each.
               </li>
             )}
             {can(ctx.role, "invitation.manage") && (
@@ -90,25 +115,64 @@ export default async function Dashboard({ params }: { params: Promise<{ labId: s
         </Panel>
       </div>
       <div className="grid gap-6 lg:grid-cols-[1fr_1fr_20rem]">
-        <Panel title="Recent fits" actions={<Link href={`/labs/${labId}/fits`} className="text-sm text-moss hover:underline">All fits →</Link>}>
-          {fits.total === 0 ? <p className="text-sm text-ink-soft">No fits yet. {can(ctx.role, "fit.create") ? <Link href={`/labs/${labId}/fits/new`} className="text-moss hover:underline">Fit a kinetics to your readouts</Link> : "They appear here when a lab member starts one."}</p> : (
+        <Panel
+          title="Recent fits"
+          actions={
+            <Link href={`/labs/${labId}/fits`} className="text-sm text-moss hover:underline">
+              All fits →
+            </Link>
+          }
+        >
+          {fits.total === 0 ? (
+            <p className="text-sm text-ink-soft">
+              No fits yet.{" "}
+              {can(ctx.role, "fit.create") ? (
+                <Link href={`/labs/${labId}/fits/new`} className="text-moss hover:underline">
+                  Fit a kinetics to your readouts
+                </Link>
+              ) : (
+                "They appear here when a lab member starts one."
+              )}
+            </p>
+          ) : (
             <ul className="divide-y divide-rule text-sm" data-testid="recent-fits">
               {fits.items.map((f) => (
                 <li key={f.id} className="flex items-baseline justify-between gap-3 py-1.5">
-                  <Link href={`/labs/${labId}/fits/${f.id}`} className="font-medium text-ink hover:text-moss">{f.name}</Link>
+                  <Link href={`/labs/${labId}/fits/${f.id}`} className="font-medium text-ink hover:text-moss">
+                    {f.name}
+                  </Link>
                   <span className="shrink-0 text-xs text-ink-soft">{f.verdict ?? f.status}</span>
                 </li>
               ))}
             </ul>
           )}
         </Panel>
-        <Panel title="Recent readouts" actions={<Link href={`/labs/${labId}/readouts`} className="text-sm text-moss hover:underline">All readouts →</Link>}>
-          {readouts.total === 0 ? <p className="text-sm text-ink-soft">No readouts yet. Upload an image or spacing table to a specimen; its readout starts by itself.</p> : (
+        <Panel
+          title="Recent readouts"
+          actions={
+            <Link href={`/labs/${labId}/readouts`} className="text-sm text-moss hover:underline">
+              All readouts →
+            </Link>
+          }
+        >
+          {readouts.total === 0 ? (
+            <p className="text-sm text-ink-soft">
+              No readouts yet. Upload an image or spacing table to a specimen; its readout starts by itself.
+            </p>
+          ) : (
             <ul className="divide-y divide-rule text-sm" data-testid="recent-readouts">
               {readouts.items.map((r) => (
                 <li key={r.id} className="flex items-baseline justify-between gap-3 py-1.5">
-                  <Link href={`/labs/${labId}/readouts/${r.id}`} className="font-medium text-ink hover:text-moss">{r.filename}</Link>
-                  <span className="num shrink-0 text-xs text-moss">{r.headline?.wavelengthUm != null && r.headline.periodFound ? `${r.headline.wavelengthUm.toPrecision(4)} ± ${r.headline.uncertaintyUm?.toPrecision(2) ?? "?"} µm` : <span className="text-ink-soft">{r.status}</span>}</span>
+                  <Link href={`/labs/${labId}/readouts/${r.id}`} className="font-medium text-ink hover:text-moss">
+                    {r.filename}
+                  </Link>
+                  <span className="num shrink-0 text-xs text-moss">
+                    {r.headline?.wavelengthUm != null && r.headline.periodFound ? (
+                      `${r.headline.wavelengthUm.toPrecision(4)} ± ${r.headline.uncertaintyUm?.toPrecision(2) ?? "?"} µm`
+                    ) : (
+                      <span className="text-ink-soft">{r.status}</span>
+                    )}
+                  </span>
                 </li>
               ))}
             </ul>
@@ -122,7 +186,14 @@ export default async function Dashboard({ params }: { params: Promise<{ labId: s
         <OpenDiscussions labId={labId} />
       </Panel>
       {audit && (
-        <Panel title="Latest in the audit trail" actions={<Link href={`/labs/${labId}/audit`} className="text-sm text-moss hover:underline">Audit trail →</Link>}>
+        <Panel
+          title="Latest in the audit trail"
+          actions={
+            <Link href={`/labs/${labId}/audit`} className="text-sm text-moss hover:underline">
+              Audit trail →
+            </Link>
+          }
+        >
           <ul className="space-y-1 text-sm">
             {audit.items.map((e) => (
               <li key={e.id} className="flex gap-3">

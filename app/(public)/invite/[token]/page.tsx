@@ -38,7 +38,8 @@ export default async function InvitePage({ params }: { params: Promise<{ token: 
     <div className="mx-auto max-w-md space-y-5 py-6">
       <h1 className="text-2xl font-semibold">Join {inv.labName}</h1>
       <p className="text-sm text-ink-soft">
-        You are invited as <strong className="text-ink">{inv.roleLabel}</strong> with the address <span className="num">{inv.email}</span>.
+        You are invited as <strong className="text-ink">{inv.roleLabel}</strong> with the address{" "}
+        <span className="num">{inv.email}</span>.
       </p>
       {inv.status === "pending" && otherAccount ? (
         <div className="space-y-3">

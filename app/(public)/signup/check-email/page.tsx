@@ -18,7 +18,8 @@ export default async function SignupCheckEmail({ searchParams }: { searchParams:
     <div className="mx-auto max-w-md space-y-4 py-10 text-center">
       <h1 className="text-2xl font-semibold">Check your e-mail</h1>
       <p className="text-ink-soft" data-testid="signup-check-email">
-        We sent a message to {email ? <span className="num">{email}</span> : "your address"}. Open the link in it to finish creating your account and lab.
+        We sent a message to {email ? <span className="num">{email}</span> : "your address"}. Open the link in it to
+        finish creating your account and lab.
       </p>
       {catcher && (
         <p className="text-sm text-ink-soft" data-testid="local-mail-catcher">

@@ -7,4 +7,6 @@ export const runtime = "nodejs";
 
 export const GET = userRoute(async (actor) => json(await getMe(actor)));
 
-export const PATCH = userRoute(async (actor, request) => json(await updateSettings(actor, await readJson(request, settingsSchema))));
+export const PATCH = userRoute(async (actor, request) =>
+  json(await updateSettings(actor, await readJson(request, settingsSchema))),
+);

@@ -9,16 +9,68 @@ import { FIT_STATUS_TONE, FIT_STATUS_WORDS, VERDICT_TONE } from "./fit-format";
 
 export function FitsList({ labId, canFit }: { labId: string; canFit: boolean }) {
   const columns: ColumnDef<FitSummaryDto, unknown>[] = [
-    { id: "name", header: "Fit", cell: ({ row }) => <Link className="font-medium text-moss hover:underline" href={`/labs/${labId}/fits/${row.original.id}`}>{row.original.name}</Link> },
-    { id: "status", header: "Status", cell: ({ row }) => <Badge tone={FIT_STATUS_TONE[row.original.status]}>{FIT_STATUS_WORDS[row.original.status]}{row.original.status === "running" ? ` ${Math.round(row.original.progress * 100)} %` : ""}</Badge> },
-    { id: "kinetics", header: "Kinetics", enableSorting: false, cell: ({ row }) => <span className="text-sm">{row.original.kinetics.join(" vs ")}</span> },
-    { id: "data", header: "Data", enableSorting: false, cell: ({ row }) => <span className="text-sm text-ink-soft"><span className="num">{row.original.n}</span> measurements · {row.original.conditions.join(", ")}</span> },
     {
-      id: "verdict", header: "Verdict", enableSorting: false, cell: ({ row }) => row.original.verdict
-        ? <span>{row.original.kind === "comparison" && <span className="mr-1 text-xs text-ink-soft">best: {row.original.best} —</span>}<Badge tone={VERDICT_TONE[row.original.verdict] ?? "plain"}>{row.original.verdict}</Badge></span>
-        : <span className="text-ink-soft">{row.original.error ?? "—"}</span>,
+      id: "name",
+      header: "Fit",
+      cell: ({ row }) => (
+        <Link className="font-medium text-moss hover:underline" href={`/labs/${labId}/fits/${row.original.id}`}>
+          {row.original.name}
+        </Link>
+      ),
     },
-    { id: "createdAt", header: "Started", cell: ({ row }) => <span className="text-ink-soft"><span className="num">{formatDateTime(row.original.createdAt)}</span><br />{row.original.createdByEmail}</span> },
+    {
+      id: "status",
+      header: "Status",
+      cell: ({ row }) => (
+        <Badge tone={FIT_STATUS_TONE[row.original.status]}>
+          {FIT_STATUS_WORDS[row.original.status]}
+          {row.original.status === "running" ? ` ${Math.round(row.original.progress * 100)} %` : ""}
+        </Badge>
+      ),
+    },
+    {
+      id: "kinetics",
+      header: "Kinetics",
+      enableSorting: false,
+      cell: ({ row }) => <span className="text-sm">{row.original.kinetics.join(" vs ")}</span>,
+    },
+    {
+      id: "data",
+      header: "Data",
+      enableSorting: false,
+      cell: ({ row }) => (
+        <span className="text-sm text-ink-soft">
+          <span className="num">{row.original.n}</span> measurements · {row.original.conditions.join(", ")}
+        </span>
+      ),
+    },
+    {
+      id: "verdict",
+      header: "Verdict",
+      enableSorting: false,
+      cell: ({ row }) =>
+        row.original.verdict ? (
+          <span>
+            {row.original.kind === "comparison" && (
+              <span className="mr-1 text-xs text-ink-soft">best: {row.original.best} —</span>
+            )}
+            <Badge tone={VERDICT_TONE[row.original.verdict] ?? "plain"}>{row.original.verdict}</Badge>
+          </span>
+        ) : (
+          <span className="text-ink-soft">{row.original.error ?? "—"}</span>
+        ),
+    },
+    {
+      id: "createdAt",
+      header: "Started",
+      cell: ({ row }) => (
+        <span className="text-ink-soft">
+          <span className="num">{formatDateTime(row.original.createdAt)}</span>
+          <br />
+          {row.original.createdByEmail}
+        </span>
+      ),
+    },
   ];
   return (
     <DataTable<FitSummaryDto>
@@ -27,7 +79,21 @@ export function FitsList({ labId, canFit }: { labId: string; canFit: boolean }) 
       defaultSort={{ id: "createdAt", desc: true }}
       filterPlaceholder="Filter by name…"
       testId="fits-table"
-      empty={<EmptyState title="No fits yet.">{canFit ? <>Start one with <Link className="text-moss hover:underline" href={`/labs/${labId}/fits/new`}>New fit</Link>: choose readouts grouped by condition, a kinetics, and which parameters to free.</> : "When a lab member fits a kinetics to the lab's readouts, it appears here."}</EmptyState>}
+      empty={
+        <EmptyState title="No fits yet.">
+          {canFit ? (
+            <>
+              Start one with{" "}
+              <Link className="text-moss hover:underline" href={`/labs/${labId}/fits/new`}>
+                New fit
+              </Link>
+              : choose readouts grouped by condition, a kinetics, and which parameters to free.
+            </>
+          ) : (
+            "When a lab member fits a kinetics to the lab's readouts, it appears here."
+          )}
+        </EmptyState>
+      }
     />
   );
 }

@@ -15,7 +15,13 @@ export default async function FitsPage({ params }: { params: Promise<{ labId: st
       <PageHeader
         title="Fits"
         subtitle="Which kinetics, with which parameters, explain the measured spacing: fits of predicted to measured wavelength with confidence intervals, identifiability and a ranking. Fits are hypotheses, not measurements."
-        actions={canFit ? <LinkButton href={`/labs/${labId}/fits/new`} data-testid="new-fit">New fit</LinkButton> : null}
+        actions={
+          canFit ? (
+            <LinkButton href={`/labs/${labId}/fits/new`} data-testid="new-fit">
+              New fit
+            </LinkButton>
+          ) : null
+        }
       />
       <FitsList labId={labId} canFit={canFit} />
     </>

@@ -8,11 +8,43 @@ import type { LabKineticsDto } from "@/lib/server/data/kinetics";
 
 export function LabKineticsList({ labId, canCreate }: { labId: string; canCreate: boolean }) {
   const columns: ColumnDef<LabKineticsDto, unknown>[] = [
-    { id: "name", header: "Kinetics", cell: ({ row }) => <Link className="font-medium text-moss hover:underline" href={`/labs/${labId}/kinetics/${row.original.id}`}>{row.original.name}</Link> },
-    { id: "species", header: "Species", enableSorting: false, cell: ({ row }) => <span className="flex flex-wrap gap-1">{row.original.species.map((s) => <Badge key={s}>{s}</Badge>)}</span> },
-    { id: "latestVersion", header: "Version", cell: ({ row }) => <span className="num">v{row.original.latestVersion}</span> },
-    { id: "createdBy", header: "Author", enableSorting: false, cell: ({ row }) => <span className="text-ink-soft">{row.original.createdByEmail ?? "—"}</span> },
-    { id: "updatedAt", header: "Saved", cell: ({ row }) => <span className="num text-ink-soft">{formatDate(row.original.updatedAt)}</span> },
+    {
+      id: "name",
+      header: "Kinetics",
+      cell: ({ row }) => (
+        <Link className="font-medium text-moss hover:underline" href={`/labs/${labId}/kinetics/${row.original.id}`}>
+          {row.original.name}
+        </Link>
+      ),
+    },
+    {
+      id: "species",
+      header: "Species",
+      enableSorting: false,
+      cell: ({ row }) => (
+        <span className="flex flex-wrap gap-1">
+          {row.original.species.map((s) => (
+            <Badge key={s}>{s}</Badge>
+          ))}
+        </span>
+      ),
+    },
+    {
+      id: "latestVersion",
+      header: "Version",
+      cell: ({ row }) => <span className="num">v{row.original.latestVersion}</span>,
+    },
+    {
+      id: "createdBy",
+      header: "Author",
+      enableSorting: false,
+      cell: ({ row }) => <span className="text-ink-soft">{row.original.createdByEmail ?? "—"}</span>,
+    },
+    {
+      id: "updatedAt",
+      header: "Saved",
+      cell: ({ row }) => <span className="num text-ink-soft">{formatDate(row.original.updatedAt)}</span>,
+    },
   ];
   return (
     <DataTable<LabKineticsDto>
@@ -21,7 +53,13 @@ export function LabKineticsList({ labId, canCreate }: { labId: string; canCreate
       defaultSort={{ id: "updatedAt", desc: true }}
       filterPlaceholder="Filter by name…"
       testId="lab-kinetics-table"
-      empty={<EmptyState title="The lab has no kinetics of its own yet.">{canCreate ? "Write one with “New kinetics”: 2–6 species as expressions, named parameters with ranges, and diffusivities." : "Kinetics written by the lab's modellers appear here; the published catalogue below can be analysed now."}</EmptyState>}
+      empty={
+        <EmptyState title="The lab has no kinetics of its own yet.">
+          {canCreate
+            ? "Write one with “New kinetics”: 2–6 species as expressions, named parameters with ranges, and diffusivities."
+            : "Kinetics written by the lab's modellers appear here; the published catalogue below can be analysed now."}
+        </EmptyState>
+      }
     />
   );
 }

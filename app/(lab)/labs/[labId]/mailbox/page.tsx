@@ -35,9 +35,16 @@ export default async function MailboxPage({ params }: { params: Promise<{ labId:
   }
   return (
     <>
-      <PageHeader title="Mailbox" subtitle="Development only: the messages the local fake mail server received for this lab's current members and pending invitees, newest first, so sign-in links and invitations work on a laptop. For people who also belong to another lab, only this lab's own mail is shown (never their sign-in links)." />
+      <PageHeader
+        title="Mailbox"
+        subtitle="Development only: the messages the local fake mail server received for this lab's current members and pending invitees, newest first, so sign-in links and invitations work on a laptop. For people who also belong to another lab, only this lab's own mail is shown (never their sign-in links)."
+      />
       {problem && <Notice tone="error">{problem}</Notice>}
-      {!problem && messages.length === 0 && <EmptyState title="No mail yet.">Invite someone or ask for a sign-in link; the message appears here.</EmptyState>}
+      {!problem && messages.length === 0 && (
+        <EmptyState title="No mail yet.">
+          Invite someone or ask for a sign-in link; the message appears here.
+        </EmptyState>
+      )}
       <ul className="space-y-3" data-testid="mailbox">
         {messages.map((m) => (
           <li key={m.id} className="rounded-lg border border-rule bg-card p-4">

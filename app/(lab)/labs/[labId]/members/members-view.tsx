@@ -33,7 +33,16 @@ export function MembersView({ labId, canManage, myUserId }: { labId: string; can
     }
   };
   const columns: ColumnDef<MemberDto, unknown>[] = [
-    { id: "email", header: "E-mail", cell: ({ row }) => <span className="num">{row.original.email}{row.original.userId === myUserId && <span className="ml-2 text-xs text-ink-soft">(you)</span>}</span> },
+    {
+      id: "email",
+      header: "E-mail",
+      cell: ({ row }) => (
+        <span className="num">
+          {row.original.email}
+          {row.original.userId === myUserId && <span className="ml-2 text-xs text-ink-soft">(you)</span>}
+        </span>
+      ),
+    },
     { id: "name", header: "Name", cell: ({ row }) => row.original.name ?? "—" },
     {
       id: "role",
@@ -44,24 +53,65 @@ export function MembersView({ labId, canManage, myUserId }: { labId: string; can
             aria-label={`Role of ${row.original.email}`}
             data-testid={`role-${row.original.email}`}
             value={row.original.role}
-            onChange={(e) => act(() => sendJson("PATCH", `/api/v1/labs/${labId}/members/${row.original.id}`, { role: e.target.value }))}
+            onChange={(e) =>
+              act(() => sendJson("PATCH", `/api/v1/labs/${labId}/members/${row.original.id}`, { role: e.target.value }))
+            }
             className="rounded border border-rule bg-card px-2 py-1 text-sm"
           >
-            {roleOptions.map((o) => <option key={o.value} value={o.value}>{o.label}</option>)}
+            {roleOptions.map((o) => (
+              <option key={o.value} value={o.value}>
+                {o.label}
+              </option>
+            ))}
           </select>
         ) : (
           <Badge tone={row.original.role === "manager" ? "moss" : "plain"}>{ROLE_LABELS[row.original.role]}</Badge>
         ),
     },
-    { id: "joinedAt", header: "Joined", cell: ({ row }) => <span className="num text-ink-soft">{formatDate(row.original.joinedAt)}</span> },
+    {
+      id: "joinedAt",
+      header: "Joined",
+      cell: ({ row }) => <span className="num text-ink-soft">{formatDate(row.original.joinedAt)}</span>,
+    },
     ...(canManage
-      ? [{ id: "actions", header: "", enableSorting: false, cell: ({ row }: { row: { original: MemberDto } }) => <Button size="sm" variant="danger" data-testid={`remove-${row.original.email}`} onClick={() => confirm(`Remove ${row.original.email} from the lab?`) && act(() => sendJson("DELETE", `/api/v1/labs/${labId}/members/${row.original.id}`))}>Remove</Button> } as ColumnDef<MemberDto, unknown>]
+      ? [
+          {
+            id: "actions",
+            header: "",
+            enableSorting: false,
+            cell: ({ row }: { row: { original: MemberDto } }) => (
+              <Button
+                size="sm"
+                variant="danger"
+                data-testid={`remove-${row.original.email}`}
+                onClick={() =>
+                  confirm(`Remove ${row.original.email} from the lab?`) &&
+                  act(() => sendJson("DELETE", `/api/v1/labs/${labId}/members/${row.original.id}`))
+                }
+              >
+                Remove
+              </Button>
+            ),
+          } as ColumnDef<MemberDto, unknown>,
+        ]
       : []),
   ];
   return (
     <div className="space-y-6">
-      {error && <Notice tone="error" testId="members-error">{error}</Notice>}
-      <DataTable<MemberDto> url={`/api/v1/labs/${labId}/members`} columns={columns} defaultSort={{ id: "email", desc: false }} filterPlaceholder="Filter by e-mail, name, role…" testId="members-table" refreshKey={refresh} empty={<EmptyState title="No members." />} />
+      {error && (
+        <Notice tone="error" testId="members-error">
+          {error}
+        </Notice>
+      )}
+      <DataTable<MemberDto>
+        url={`/api/v1/labs/${labId}/members`}
+        columns={columns}
+        defaultSort={{ id: "email", desc: false }}
+        filterPlaceholder="Filter by e-mail, name, role…"
+        testId="members-table"
+        refreshKey={refresh}
+        empty={<EmptyState title="No members." />}
+      />
       {canManage && <Invitations labId={labId} onChange={() => setRefresh((r) => r + 1)} />}
     </div>
   );
@@ -72,12 +122,18 @@ type InviteValues = z.input<typeof invitationCreateSchema>;
 function Invitations({ labId, onChange }: { labId: string; onChange: () => void }) {
   const { data, mutate } = useSWR<{ items: InvitationDto[] }>(`/api/v1/labs/${labId}/invitations`, fetchJson);
   const [message, setMessage] = useState<{ tone: "error" | "success"; text: string } | null>(null);
-  const form = useForm<InviteValues>({ resolver: zodResolver(invitationCreateSchema), defaultValues: { role: "scientist" } });
+  const form = useForm<InviteValues>({
+    resolver: zodResolver(invitationCreateSchema),
+    defaultValues: { role: "scientist" },
+  });
   async function invite(values: InviteValues) {
     setMessage(null);
     try {
       const inv = await sendJson<InvitationDto>("POST", `/api/v1/labs/${labId}/invitations`, values);
-      setMessage({ tone: "success", text: `Invitation e-mailed to ${inv.email} as ${ROLE_LABELS[inv.role]}; it expires ${formatDate(inv.expiresAt)}.` });
+      setMessage({
+        tone: "success",
+        text: `Invitation e-mailed to ${inv.email} as ${ROLE_LABELS[inv.role]}; it expires ${formatDate(inv.expiresAt)}.`,
+      });
       form.reset({ email: "", role: values.role });
       await mutate();
       onChange();
@@ -93,31 +149,80 @@ function Invitations({ labId, onChange }: { labId: string; onChange: () => void 
       setMessage({ tone: "error", text: err instanceof ApiError ? err.message : "Could not revoke." });
     }
   }
-  const tone: Record<InvitationDto["status"], "moss" | "plain" | "ochre" | "brick"> = { pending: "ochre", accepted: "moss", revoked: "plain", expired: "brick" };
+  const tone: Record<InvitationDto["status"], "moss" | "plain" | "ochre" | "brick"> = {
+    pending: "ochre",
+    accepted: "moss",
+    revoked: "plain",
+    expired: "brick",
+  };
   return (
     <Panel title="Invitations">
-      <form onSubmit={form.handleSubmit(invite)} className="mb-4 flex flex-wrap items-end gap-3" noValidate data-testid="invite-form">
-        <div className="w-72"><TextField label="E-mail" type="email" {...form.register("email")} error={form.formState.errors.email?.message} /></div>
-        <div className="w-48"><SelectField label="Role" options={roleOptions} {...form.register("role")} error={form.formState.errors.role?.message} /></div>
-        <Button type="submit" disabled={form.formState.isSubmitting} data-testid="send-invitation">Send invitation</Button>
+      <form
+        onSubmit={form.handleSubmit(invite)}
+        className="mb-4 flex flex-wrap items-end gap-3"
+        noValidate
+        data-testid="invite-form"
+      >
+        <div className="w-72">
+          <TextField
+            label="E-mail"
+            type="email"
+            {...form.register("email")}
+            error={form.formState.errors.email?.message}
+          />
+        </div>
+        <div className="w-48">
+          <SelectField
+            label="Role"
+            options={roleOptions}
+            {...form.register("role")}
+            error={form.formState.errors.role?.message}
+          />
+        </div>
+        <Button type="submit" disabled={form.formState.isSubmitting} data-testid="send-invitation">
+          Send invitation
+        </Button>
       </form>
-      {message && <div className="mb-4"><Notice tone={message.tone} testId="invite-message">{message.text}</Notice></div>}
+      {message && (
+        <div className="mb-4">
+          <Notice tone={message.tone} testId="invite-message">
+            {message.text}
+          </Notice>
+        </div>
+      )}
       {data && data.items.length === 0 ? (
-        <p className="text-sm text-ink-soft">No invitations yet. Invite people by e-mail with the role they should have.</p>
+        <p className="text-sm text-ink-soft">
+          No invitations yet. Invite people by e-mail with the role they should have.
+        </p>
       ) : (
         <table className="w-full text-left text-sm" data-testid="invitations-table">
           <thead className="text-xs uppercase tracking-wide text-ink-soft">
-            <tr><th className="py-1">E-mail</th><th>Role</th><th>Status</th><th>Sent</th><th>Expires</th><th /></tr>
+            <tr>
+              <th className="py-1">E-mail</th>
+              <th>Role</th>
+              <th>Status</th>
+              <th>Sent</th>
+              <th>Expires</th>
+              <th />
+            </tr>
           </thead>
           <tbody>
             {data?.items.map((inv) => (
               <tr key={inv.id} className="border-t border-rule/60">
                 <td className="num py-1.5">{inv.email}</td>
                 <td>{ROLE_LABELS[inv.role as Role]}</td>
-                <td><Badge tone={tone[inv.status]}>{inv.status}</Badge></td>
+                <td>
+                  <Badge tone={tone[inv.status]}>{inv.status}</Badge>
+                </td>
                 <td className="num text-ink-soft">{formatDateTime(inv.invitedAt)}</td>
                 <td className="num text-ink-soft">{formatDate(inv.expiresAt)}</td>
-                <td className="text-right">{inv.status === "pending" && <Button size="sm" variant="ghost" onClick={() => revoke(inv)} data-testid={`revoke-${inv.email}`}>Revoke</Button>}</td>
+                <td className="text-right">
+                  {inv.status === "pending" && (
+                    <Button size="sm" variant="ghost" onClick={() => revoke(inv)} data-testid={`revoke-${inv.email}`}>
+                      Revoke
+                    </Button>
+                  )}
+                </td>
               </tr>
             ))}
           </tbody>

@@ -9,7 +9,10 @@ export default async function ReadoutsPage({ params }: { params: Promise<{ labId
   await pageLab(labId, "upload.read");
   return (
     <>
-      <PageHeader title="Readouts" subtitle="Every spacing readout in the lab, newest first. Each upload is read when it arrives; open one to see its spectrum or read it again with other settings." />
+      <PageHeader
+        title="Readouts"
+        subtitle="Every spacing readout in the lab, newest first. Each upload is read when it arrives; open one to see its spectrum or read it again with other settings."
+      />
       <ReadoutsList labId={labId} />
     </>
   );

@@ -36,19 +36,37 @@ export const STATUS_TONE: Record<JobStatus, "plain" | "moss" | "ochre" | "brick"
 };
 
 /** "8.003 ± 0.012 µm" */
-export function plusMinus(value: number | null | undefined, u: number | null | undefined, unit: string, digits = 4): string {
+export function plusMinus(
+  value: number | null | undefined,
+  u: number | null | undefined,
+  unit: string,
+  digits = 4,
+): string {
   if (value === null || value === undefined) return "—";
-  return u === null || u === undefined ? `${formatSig(value, digits)} ${unit}` : `${formatSig(value, digits)} ± ${formatSig(u, 2)} ${unit}`;
+  return u === null || u === undefined
+    ? `${formatSig(value, digits)} ${unit}`
+    : `${formatSig(value, digits)} ± ${formatSig(u, 2)} ${unit}`;
 }
 
 /** One line saying how a readout was made: ROI, channel, flattening, window; or the table mapping. */
 export function settingsSummary(r: ReadoutDto): string {
   const s = r.settings;
   if (s.kind === "image") {
-    const roi = s.roi ? (s.roi.kind === "rect" ? `ROI ${s.roi.width}×${s.roi.height} px at (${s.roi.x}, ${s.roi.y})` : `polygon ROI, ${s.roi.points.length} vertices`) : "whole image";
-    return [roi, `channel ${s.channel}`, s.invert ? "inverted" : null, `flatten ${s.flatten}`, `window ${s.window}`].filter(Boolean).join(" · ");
+    const roi = s.roi
+      ? s.roi.kind === "rect"
+        ? `ROI ${s.roi.width}×${s.roi.height} px at (${s.roi.x}, ${s.roi.y})`
+        : `polygon ROI, ${s.roi.points.length} vertices`
+      : "whole image";
+    return [roi, `channel ${s.channel}`, s.invert ? "inverted" : null, `flatten ${s.flatten}`, `window ${s.window}`]
+      .filter(Boolean)
+      .join(" · ");
   }
   const c = s.columns;
-  const cols = c ? Object.entries(c).filter(([, v]) => v).map(([k, v]) => `${k} = ${v}`).join(", ") : "columns from the header";
+  const cols = c
+    ? Object.entries(c)
+        .filter(([, v]) => v)
+        .map(([k, v]) => `${k} = ${v}`)
+        .join(", ")
+    : "columns from the header";
   return `${cols}${s.unit ? ` · unit ${s.unit}` : ""}`;
 }

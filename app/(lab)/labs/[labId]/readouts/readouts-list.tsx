@@ -9,18 +9,58 @@ import { formatSig, plusMinus, settingsSummary, STATUS_TONE, STATUS_WORDS } from
 
 export function ReadoutsList({ labId }: { labId: string }) {
   const columns: ColumnDef<ReadoutDto, unknown>[] = [
-    { id: "filename", header: "File", enableSorting: false, cell: ({ row }) => <Link className="font-medium text-moss hover:underline" href={`/labs/${labId}/readouts/${row.original.id}`}>{row.original.filename}</Link> },
-    { id: "status", header: "Status", cell: ({ row }) => <Badge tone={STATUS_TONE[row.original.status]}>{STATUS_WORDS[row.original.status]}{row.original.status === "running" ? ` ${Math.round(row.original.progress * 100)} %` : ""}</Badge> },
     {
-      id: "wavelengthUm", header: "Wavelength", cell: ({ row }) => {
+      id: "filename",
+      header: "File",
+      enableSorting: false,
+      cell: ({ row }) => (
+        <Link className="font-medium text-moss hover:underline" href={`/labs/${labId}/readouts/${row.original.id}`}>
+          {row.original.filename}
+        </Link>
+      ),
+    },
+    {
+      id: "status",
+      header: "Status",
+      cell: ({ row }) => (
+        <Badge tone={STATUS_TONE[row.original.status]}>
+          {STATUS_WORDS[row.original.status]}
+          {row.original.status === "running" ? ` ${Math.round(row.original.progress * 100)} %` : ""}
+        </Badge>
+      ),
+    },
+    {
+      id: "wavelengthUm",
+      header: "Wavelength",
+      cell: ({ row }) => {
         const h = row.original.headline;
         if (!h) return <span className="text-ink-soft">{row.original.error ?? "—"}</span>;
-        if (!h.periodFound) return <span className="text-ochre">no significant period <span className="num">({formatSig(h.significance, 3)}×)</span></span>;
+        if (!h.periodFound)
+          return (
+            <span className="text-ochre">
+              no significant period <span className="num">({formatSig(h.significance, 3)}×)</span>
+            </span>
+          );
         return <span className="num text-moss">{plusMinus(h.wavelengthUm, h.uncertaintyUm, "µm")}</span>;
       },
     },
-    { id: "settings", header: "Settings", enableSorting: false, cell: ({ row }) => <span className="text-xs text-ink-soft">{settingsSummary(row.original)}</span> },
-    { id: "createdAt", header: "Started", cell: ({ row }) => <span className="text-ink-soft"><span className="num">{formatDateTime(row.original.createdAt)}</span><br />{row.original.createdByEmail}</span> },
+    {
+      id: "settings",
+      header: "Settings",
+      enableSorting: false,
+      cell: ({ row }) => <span className="text-xs text-ink-soft">{settingsSummary(row.original)}</span>,
+    },
+    {
+      id: "createdAt",
+      header: "Started",
+      cell: ({ row }) => (
+        <span className="text-ink-soft">
+          <span className="num">{formatDateTime(row.original.createdAt)}</span>
+          <br />
+          {row.original.createdByEmail}
+        </span>
+      ),
+    },
   ];
   return (
     <DataTable<ReadoutDto>
@@ -29,7 +69,12 @@ export function ReadoutsList({ labId }: { labId: string }) {
       defaultSort={{ id: "createdAt", desc: true }}
       filterPlaceholder="Filter by file name…"
       testId="lab-readouts-table"
-      empty={<EmptyState title="No readouts yet.">Upload an image or a spacing table to a specimen (Studies → a study → a specimen); its readout starts by itself.</EmptyState>}
+      empty={
+        <EmptyState title="No readouts yet.">
+          Upload an image or a spacing table to a specimen (Studies → a study → a specimen); its readout starts by
+          itself.
+        </EmptyState>
+      }
     />
   );
 }

@@ -15,7 +15,13 @@ export default async function RunsPage({ params }: { params: Promise<{ labId: st
       <PageHeader
         title="Verification runs"
         subtitle="Kinetics simulated on an interval or a rectangle, their final pattern read by the same readout as tissue and set beside the linear prediction 2π/k*."
-        actions={canRun ? <LinkButton href={`/labs/${labId}/runs/new`} data-testid="new-run">New run</LinkButton> : null}
+        actions={
+          canRun ? (
+            <LinkButton href={`/labs/${labId}/runs/new`} data-testid="new-run">
+              New run
+            </LinkButton>
+          ) : null
+        }
       />
       <RunsList labId={labId} canRun={canRun} />
     </>

@@ -12,7 +12,10 @@ export default async function StudiesPage({ params }: { params: Promise<{ labId:
   const ctx = await pageLab(labId);
   return (
     <>
-      <PageHeader title="Studies" subtitle="A study groups specimens of one tissue and organism, under one or more conditions." />
+      <PageHeader
+        title="Studies"
+        subtitle="A study groups specimens of one tissue and organism, under one or more conditions."
+      />
       <StudiesView labId={labId} canCreate={can(ctx.role, "study.create")} />
     </>
   );

@@ -18,22 +18,64 @@ export function StudiesView({ labId, canCreate }: { labId: string; canCreate: bo
   const [refresh, setRefresh] = useState(0);
   const [open, setOpen] = useState(false);
   const columns: ColumnDef<StudyDto, unknown>[] = [
-    { id: "name", header: "Study", cell: ({ row }) => <Link className="font-medium text-moss hover:underline" href={`/labs/${labId}/studies/${row.original.id}`}>{row.original.name}</Link> },
+    {
+      id: "name",
+      header: "Study",
+      cell: ({ row }) => (
+        <Link className="font-medium text-moss hover:underline" href={`/labs/${labId}/studies/${row.original.id}`}>
+          {row.original.name}
+        </Link>
+      ),
+    },
     { id: "tissue", header: "Tissue", cell: ({ row }) => row.original.tissue },
     { id: "organism", header: "Organism", cell: ({ row }) => row.original.organism },
-    { id: "specimens", header: "Specimens", enableSorting: false, cell: ({ row }) => <span className="num">{row.original.specimenCount}</span> },
-    { id: "conditions", header: "Conditions", enableSorting: false, cell: ({ row }) => <span className="flex flex-wrap gap-1">{row.original.conditions.map((c) => <Badge key={c}>{c}</Badge>)}</span> },
-    { id: "createdBy", header: "Created by", enableSorting: false, cell: ({ row }) => <span className="text-ink-soft">{row.original.createdByEmail ?? "—"}</span> },
-    { id: "updatedAt", header: "Updated", cell: ({ row }) => <span className="num text-ink-soft">{formatDate(row.original.updatedAt)}</span> },
+    {
+      id: "specimens",
+      header: "Specimens",
+      enableSorting: false,
+      cell: ({ row }) => <span className="num">{row.original.specimenCount}</span>,
+    },
+    {
+      id: "conditions",
+      header: "Conditions",
+      enableSorting: false,
+      cell: ({ row }) => (
+        <span className="flex flex-wrap gap-1">
+          {row.original.conditions.map((c) => (
+            <Badge key={c}>{c}</Badge>
+          ))}
+        </span>
+      ),
+    },
+    {
+      id: "createdBy",
+      header: "Created by",
+      enableSorting: false,
+      cell: ({ row }) => <span className="text-ink-soft">{row.original.createdByEmail ?? "—"}</span>,
+    },
+    {
+      id: "updatedAt",
+      header: "Updated",
+      cell: ({ row }) => <span className="num text-ink-soft">{formatDate(row.original.updatedAt)}</span>,
+    },
   ];
   return (
     <div className="space-y-5">
       {canCreate && (
         <div>
           {open ? (
-            <NewStudyForm labId={labId} onDone={() => { setOpen(false); setRefresh((r) => r + 1); }} onCancel={() => setOpen(false)} />
+            <NewStudyForm
+              labId={labId}
+              onDone={() => {
+                setOpen(false);
+                setRefresh((r) => r + 1);
+              }}
+              onCancel={() => setOpen(false)}
+            />
           ) : (
-            <Button onClick={() => setOpen(true)} data-testid="new-study">New study</Button>
+            <Button onClick={() => setOpen(true)} data-testid="new-study">
+              New study
+            </Button>
           )}
         </div>
       )}
@@ -44,7 +86,13 @@ export function StudiesView({ labId, canCreate }: { labId: string; canCreate: bo
         filterPlaceholder="Filter by name, tissue, organism…"
         testId="studies-table"
         refreshKey={refresh}
-        empty={<EmptyState title="No studies yet.">{canCreate ? "Create one with “New study”: name it after the tissue and question." : "Studies created by your lab appear here."}</EmptyState>}
+        empty={
+          <EmptyState title="No studies yet.">
+            {canCreate
+              ? "Create one with “New study”: name it after the tissue and question."
+              : "Studies created by your lab appear here."}
+          </EmptyState>
+        }
       />
     </div>
   );
@@ -65,15 +113,45 @@ function NewStudyForm({ labId, onDone, onCancel }: { labId: string; onDone: () =
   }
   return (
     <Panel title="New study">
-      <form onSubmit={form.handleSubmit(onSubmit)} className="grid gap-4 md:grid-cols-3" noValidate data-testid="study-form">
-        {error && <div className="md:col-span-3"><Notice tone="error">{error}</Notice></div>}
-        <TextField label="Name" placeholder="e.g. Dorsal placode spacing, E14" {...form.register("name")} error={e.name?.message} />
-        <TextField label="Tissue" placeholder="e.g. dorsal skin" {...form.register("tissue")} error={e.tissue?.message} />
-        <TextField label="Organism" placeholder="e.g. chick" {...form.register("organism")} error={e.organism?.message} />
-        <div className="md:col-span-3"><TextArea label="Description (optional)" {...form.register("description")} error={e.description?.message} /></div>
+      <form
+        onSubmit={form.handleSubmit(onSubmit)}
+        className="grid gap-4 md:grid-cols-3"
+        noValidate
+        data-testid="study-form"
+      >
+        {error && (
+          <div className="md:col-span-3">
+            <Notice tone="error">{error}</Notice>
+          </div>
+        )}
+        <TextField
+          label="Name"
+          placeholder="e.g. Dorsal placode spacing, E14"
+          {...form.register("name")}
+          error={e.name?.message}
+        />
+        <TextField
+          label="Tissue"
+          placeholder="e.g. dorsal skin"
+          {...form.register("tissue")}
+          error={e.tissue?.message}
+        />
+        <TextField
+          label="Organism"
+          placeholder="e.g. chick"
+          {...form.register("organism")}
+          error={e.organism?.message}
+        />
+        <div className="md:col-span-3">
+          <TextArea label="Description (optional)" {...form.register("description")} error={e.description?.message} />
+        </div>
         <div className="flex gap-2 md:col-span-3">
-          <Button type="submit" disabled={form.formState.isSubmitting} data-testid="save-study">Create study</Button>
-          <Button variant="ghost" onClick={onCancel}>Cancel</Button>
+          <Button type="submit" disabled={form.formState.isSubmitting} data-testid="save-study">
+            Create study
+          </Button>
+          <Button variant="ghost" onClick={onCancel}>
+            Cancel
+          </Button>
         </div>
       </form>
     </Panel>

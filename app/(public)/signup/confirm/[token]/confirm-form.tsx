@@ -21,7 +21,10 @@ export function ConfirmForm({ token, email }: { token: string; email: string }) 
   async function onSubmit(values: Values) {
     setError(null);
     try {
-      const { labId } = await sendJson<{ labId: string }>("POST", "/api/v1/signup/confirm", { token, password: values.password });
+      const { labId } = await sendJson<{ labId: string }>("POST", "/api/v1/signup/confirm", {
+        token,
+        password: values.password,
+      });
       const res = await signIn("credentials", { email, password: values.password, redirect: false });
       if (res?.error) throw new Error("Your account is ready, but signing in failed; sign in from the sign-in page.");
       router.push(`/labs/${labId}`);
@@ -32,13 +35,24 @@ export function ConfirmForm({ token, email }: { token: string; email: string }) 
   }
 
   return (
-    <form onSubmit={form.handleSubmit(onSubmit)} className="space-y-4 rounded-lg border border-rule bg-card p-5" noValidate>
+    <form
+      onSubmit={form.handleSubmit(onSubmit)}
+      className="space-y-4 rounded-lg border border-rule bg-card p-5"
+      noValidate
+    >
       {error && (
         <Notice tone="error" testId="confirm-error">
           {error}
         </Notice>
       )}
-      <TextField label="Your password" type="password" autoComplete="current-password" hint="The one you chose when you signed up." {...form.register("password")} error={form.formState.errors.password?.message} />
+      <TextField
+        label="Your password"
+        type="password"
+        autoComplete="current-password"
+        hint="The one you chose when you signed up."
+        {...form.register("password")}
+        error={form.formState.errors.password?.message}
+      />
       <Button type="submit" className="w-full" disabled={form.formState.isSubmitting} data-testid="confirm-account">
         {form.formState.isSubmitting ? "Creating…" : "Create my account and lab"}
       </Button>

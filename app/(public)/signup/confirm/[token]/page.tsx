@@ -30,7 +30,8 @@ export default async function ConfirmSignupPage({ params }: { params: Promise<{ 
     <div className="mx-auto max-w-md space-y-5 py-6">
       <h1 className="text-2xl font-semibold">Finish creating your account</h1>
       <p className="text-sm text-ink-soft">
-        Your account <span className="num">{request.email}</span> and the lab <strong className="text-ink">{request.labName}</strong>, with you as its lab manager.
+        Your account <span className="num">{request.email}</span> and the lab{" "}
+        <strong className="text-ink">{request.labName}</strong>, with you as its lab manager.
       </p>
       <ConfirmForm token={token} email={request.email} />
     </div>

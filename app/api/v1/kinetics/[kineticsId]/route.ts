@@ -4,4 +4,6 @@ import { userRoute } from "@/lib/server/lab-route";
 
 export const runtime = "nodejs";
 
-export const GET = userRoute<{ kineticsId: string }>(async (_actor, _request, p) => json(getCatalogueEntry(p.kineticsId)));
+export const GET = userRoute<{ kineticsId: string }>(async (_actor, _request, p) =>
+  json(getCatalogueEntry(p.kineticsId)),
+);

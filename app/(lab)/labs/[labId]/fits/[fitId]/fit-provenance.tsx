@@ -13,7 +13,14 @@ export function FitProvenance({ labId, fit }: { labId: string; fit: FitDetailDto
         <div>
           <h3 className="mb-1 text-xs font-semibold text-ink-soft">Data</h3>
           <table className="w-full text-sm">
-            <thead className="text-left text-xs text-ink-soft"><tr><th className="py-1">#</th><th>Condition</th><th>Source</th><th className="text-right">Value (µm)</th></tr></thead>
+            <thead className="text-left text-xs text-ink-soft">
+              <tr>
+                <th className="py-1">#</th>
+                <th>Condition</th>
+                <th>Source</th>
+                <th className="text-right">Value (µm)</th>
+              </tr>
+            </thead>
             <tbody>
               {p.data.map((d) => {
                 const datum = fit.spec.data[d.index];
@@ -21,8 +28,36 @@ export function FitProvenance({ labId, fit }: { labId: string; fit: FitDetailDto
                   <tr key={d.index} className="border-t border-rule/60 align-top">
                     <td className="num py-1 pr-2">{d.index + 1}</td>
                     <td>{d.condition}</td>
-                    <td className="text-xs">{d.readoutId ? <><Link className="text-moss hover:underline" href={`/labs/${labId}/readouts/${d.readoutId}`}>readout of {d.filename}</Link><br /><span className="text-ink-soft">{d.studyName} · {d.specimenLabel} · {d.measure} · input <span className="num">{d.inputSha256?.slice(0, 12)}…</span></span></> : <span className="text-ink-soft">typed in</span>}</td>
-                    <td className="num text-right text-moss">{d.kind === "nearest-neighbour" ? "a = " : "λ = "}{f(datum.wavelengthUm)} ± {f(datum.uncertaintyUm, 2)}{datum.domain ? <span className="block text-xs text-ink-soft">tissue {datum.domain.kind === "interval" ? `${f(datum.domain.length)} µm` : datum.domain.kind === "rectangle" ? `${f(datum.domain.lx)} × ${f(datum.domain.ly)} µm` : ""}</span> : null}</td>
+                    <td className="text-xs">
+                      {d.readoutId ? (
+                        <>
+                          <Link className="text-moss hover:underline" href={`/labs/${labId}/readouts/${d.readoutId}`}>
+                            readout of {d.filename}
+                          </Link>
+                          <br />
+                          <span className="text-ink-soft">
+                            {d.studyName} · {d.specimenLabel} · {d.measure} · input{" "}
+                            <span className="num">{d.inputSha256?.slice(0, 12)}…</span>
+                          </span>
+                        </>
+                      ) : (
+                        <span className="text-ink-soft">typed in</span>
+                      )}
+                    </td>
+                    <td className="num text-right text-moss">
+                      {d.kind === "nearest-neighbour" ? "a = " : "λ = "}
+                      {f(datum.wavelengthUm)} ± {f(datum.uncertaintyUm, 2)}
+                      {datum.domain ? (
+                        <span className="block text-xs text-ink-soft">
+                          tissue{" "}
+                          {datum.domain.kind === "interval"
+                            ? `${f(datum.domain.length)} µm`
+                            : datum.domain.kind === "rectangle"
+                              ? `${f(datum.domain.lx)} × ${f(datum.domain.ly)} µm`
+                              : ""}
+                        </span>
+                      ) : null}
+                    </td>
                   </tr>
                 );
               })}
@@ -36,18 +71,60 @@ export function FitProvenance({ labId, fit }: { labId: string; fit: FitDetailDto
               const m = fit.spec.models[i];
               return (
                 <p key={k.label}>
-                  <Link className="text-moss hover:underline" href={`/labs/${labId}/kinetics/${k.id}${k.version ? `?version=${k.version}` : ""}`}>{k.name}</Link>{k.version ? ` version ${k.version}` : " (catalogue)"}{m?.lengthScaleUm !== undefined && <> · ℓ = <span className="num">{f(m.lengthScaleUm)} µm</span></>}
-                  <span className="block text-xs text-ink-soft">{k.source}{k.definitionSha256 && <> · definition <span className="num">{k.definitionSha256.slice(0, 12)}…</span></>}</span>
+                  <Link
+                    className="text-moss hover:underline"
+                    href={`/labs/${labId}/kinetics/${k.id}${k.version ? `?version=${k.version}` : ""}`}
+                  >
+                    {k.name}
+                  </Link>
+                  {k.version ? ` version ${k.version}` : " (catalogue)"}
+                  {m?.lengthScaleUm !== undefined && (
+                    <>
+                      {" "}
+                      · ℓ = <span className="num">{f(m.lengthScaleUm)} µm</span>
+                    </>
+                  )}
+                  <span className="block text-xs text-ink-soft">
+                    {k.source}
+                    {k.definitionSha256 && (
+                      <>
+                        {" "}
+                        · definition <span className="num">{k.definitionSha256.slice(0, 12)}…</span>
+                      </>
+                    )}
+                  </span>
                 </p>
               );
             })}
           </div>
           <div>
             <h3 className="mb-1 text-xs font-semibold text-ink-soft">Settings and software</h3>
-            <p className="num text-xs">{Object.entries(p.settings).map(([k, v]) => `${k} = ${String(v)}`).join(" · ")}</p>
-            <p className="text-xs">{fit.softwareVersion} · ran as a {fit.result?.runner ?? p.runner}{fit.result ? <> in <span className="num">{f(fit.result.elapsedMs / 1000, 3)} s</span></> : null}</p>
-            <p className="text-xs">input SHA-256 <span className="num" data-testid="input-sha">{fit.inputSha256}</span></p>
-            <p className="text-xs text-ink-soft">The stored spec is the command line&apos;s FIT.json (in the JSON export under <span className="num">spec</span>): <span className="num">npm run -s cli -- fit --spec FIT.json --json</span> gives the same numbers for catalogue kinetics.</p>
+            <p className="num text-xs">
+              {Object.entries(p.settings)
+                .map(([k, v]) => `${k} = ${String(v)}`)
+                .join(" · ")}
+            </p>
+            <p className="text-xs">
+              {fit.softwareVersion} · ran as a {fit.result?.runner ?? p.runner}
+              {fit.result ? (
+                <>
+                  {" "}
+                  in <span className="num">{f(fit.result.elapsedMs / 1000, 3)} s</span>
+                </>
+              ) : null}
+            </p>
+            <p className="text-xs">
+              input SHA-256{" "}
+              <span className="num" data-testid="input-sha">
+                {fit.inputSha256}
+              </span>
+            </p>
+            <p className="text-xs text-ink-soft">
+              The stored spec is the command line&apos;s FIT.json (in the JSON export under{" "}
+              <span className="num">spec</span>):{" "}
+              <span className="num">npm run -s cli -- fit --spec FIT.json --json</span> gives the same numbers for
+              catalogue kinetics.
+            </p>
           </div>
         </div>
       </div>

@@ -15,9 +15,28 @@ export default async function FitPage({ params }: { params: Promise<{ labId: str
   return (
     <>
       <PageHeader
-        crumbs={<Link href={`/labs/${labId}/fits`} className="hover:underline">Fits</Link>}
+        crumbs={
+          <Link href={`/labs/${labId}/fits`} className="hover:underline">
+            Fits
+          </Link>
+        }
         title={fit.name}
-        subtitle={<>{fit.kind === "comparison" ? `Comparison of ${fit.kinetics.join(", ")}` : fit.kinetics[0]} · {fit.n} measurements in {fit.conditions.join(", ")} · started {fit.createdAt.slice(0, 16).replace("T", " ")} UTC{fit.createdByEmail ? ` by ${fit.createdByEmail}` : ""}{fit.rerunOf && <> · re-run of <Link className="text-moss hover:underline" href={`/labs/${labId}/fits/${fit.rerunOf}`}>an earlier fit</Link></>}</>}
+        subtitle={
+          <>
+            {fit.kind === "comparison" ? `Comparison of ${fit.kinetics.join(", ")}` : fit.kinetics[0]} · {fit.n}{" "}
+            measurements in {fit.conditions.join(", ")} · started {fit.createdAt.slice(0, 16).replace("T", " ")} UTC
+            {fit.createdByEmail ? ` by ${fit.createdByEmail}` : ""}
+            {fit.rerunOf && (
+              <>
+                {" "}
+                · re-run of{" "}
+                <Link className="text-moss hover:underline" href={`/labs/${labId}/fits/${fit.rerunOf}`}>
+                  an earlier fit
+                </Link>
+              </>
+            )}
+          </>
+        }
       />
       <FitView labId={labId} initial={fit} canSimulate={can(ctx.role, "run.create")} />
       <div className="mt-8" id="discussion">

@@ -19,7 +19,9 @@ export function DeleteKineticsButton({ labId, kineticsId, name }: { labId: strin
   }
   return (
     <>
-      <Button variant="danger" onClick={remove} data-testid="delete-kinetics">Delete</Button>
+      <Button variant="danger" onClick={remove} data-testid="delete-kinetics">
+        Delete
+      </Button>
       {error && <span className="text-xs text-brick">{error}</span>}
     </>
   );

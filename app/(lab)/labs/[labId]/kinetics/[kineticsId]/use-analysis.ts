@@ -19,12 +19,16 @@ function useDebounced<T>(value: T, delayMs: number): T {
 export function useAnalysis<T>(url: string, body: unknown, delayMs = 300) {
   const key = body === null ? null : JSON.stringify(body);
   const settled = useDebounced(key, delayMs);
-  const swr = useSWR<T, ApiError, [string, string] | null>(settled ? [url, settled] : null, ([u, b]: [string, string]) => sendJson<T>("POST", u, JSON.parse(b)), {
-    keepPreviousData: true,
-    revalidateOnFocus: false,
-    revalidateIfStale: false,
-    shouldRetryOnError: false,
-  });
+  const swr = useSWR<T, ApiError, [string, string] | null>(
+    settled ? [url, settled] : null,
+    ([u, b]: [string, string]) => sendJson<T>("POST", u, JSON.parse(b)),
+    {
+      keepPreviousData: true,
+      revalidateOnFocus: false,
+      revalidateIfStale: false,
+      shouldRetryOnError: false,
+    },
+  );
   return { data: swr.data, error: swr.error, computing: swr.isValidating || key !== settled };
 }
 

@@ -13,7 +13,15 @@ export default async function NewKineticsPage({ params }: { params: Promise<{ la
   await pageLab(labId, "kinetics.edit");
   return (
     <>
-      <PageHeader crumbs={<Link href={`/labs/${labId}/kinetics`} className="hover:underline">Kinetics</Link>} title="New kinetics" subtitle="Reaction terms as expressions for 2–6 species, parameters with ranges, and diffusivities." />
+      <PageHeader
+        crumbs={
+          <Link href={`/labs/${labId}/kinetics`} className="hover:underline">
+            Kinetics
+          </Link>
+        }
+        title="New kinetics"
+        subtitle="Reaction terms as expressions for 2–6 species, parameters with ranges, and diffusivities."
+      />
       <KineticsEditor labId={labId} initial={emptyDraft()} nextVersion={1} />
     </>
   );

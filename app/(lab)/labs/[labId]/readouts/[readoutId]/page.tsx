@@ -17,9 +17,17 @@ export default async function ReadoutPage({ params }: { params: Promise<{ labId:
       <PageHeader
         crumbs={
           <>
-            <Link href={`/labs/${labId}/studies`} className="hover:underline">Studies</Link> /{" "}
-            <Link href={`/labs/${labId}/studies/${readout.studyId}`} className="hover:underline">{readout.studyName}</Link> /{" "}
-            <Link href={`/labs/${labId}/specimens/${readout.specimenId}`} className="hover:underline">Specimen {readout.specimenLabel}</Link>
+            <Link href={`/labs/${labId}/studies`} className="hover:underline">
+              Studies
+            </Link>{" "}
+            /{" "}
+            <Link href={`/labs/${labId}/studies/${readout.studyId}`} className="hover:underline">
+              {readout.studyName}
+            </Link>{" "}
+            /{" "}
+            <Link href={`/labs/${labId}/specimens/${readout.specimenId}`} className="hover:underline">
+              Specimen {readout.specimenLabel}
+            </Link>
           </>
         }
         title={`Readout of ${readout.filename}`}

@@ -11,12 +11,28 @@ import type { ReadoutDetailDto, ReadoutDto } from "@/lib/server/data/readouts";
 
 const selectClass = "rounded-md border border-rule bg-card px-2 py-1.5 text-sm";
 
-function Select({ label, value, onChange, options, testId }: { label: string; value: string; onChange: (v: string) => void; options: Array<[string, string]>; testId: string }) {
+function Select({
+  label,
+  value,
+  onChange,
+  options,
+  testId,
+}: {
+  label: string;
+  value: string;
+  onChange: (v: string) => void;
+  options: Array<[string, string]>;
+  testId: string;
+}) {
   return (
     <label className="flex flex-col gap-1 text-sm">
       <span className="font-medium">{label}</span>
       <select className={selectClass} value={value} onChange={(e) => onChange(e.target.value)} data-testid={testId}>
-        {options.map(([v, l]) => <option key={v} value={v}>{l}</option>)}
+        {options.map(([v, l]) => (
+          <option key={v} value={v}>
+            {l}
+          </option>
+        ))}
       </select>
     </label>
   );
@@ -37,7 +53,12 @@ export function RerunForm({ labId, readout }: { labId: string; readout: ReadoutD
   const [win, setWin] = useState<string>(img?.window ?? "hann");
   const [axis, setAxis] = useState<string>(img?.profileAxis ?? "x");
   const used = readout.result?.type === "table" ? readout.result.mapping : null;
-  const [cols, setCols] = useState({ x: tab?.columns?.x ?? used?.x ?? "", y: tab?.columns?.y ?? used?.y ?? "", position: tab?.columns?.position ?? used?.position ?? "", spacing: tab?.columns?.spacing ?? used?.spacing ?? "" });
+  const [cols, setCols] = useState({
+    x: tab?.columns?.x ?? used?.x ?? "",
+    y: tab?.columns?.y ?? used?.y ?? "",
+    position: tab?.columns?.position ?? used?.position ?? "",
+    spacing: tab?.columns?.spacing ?? used?.spacing ?? "",
+  });
   const [unit, setUnit] = useState<string>(tab?.unit ?? used?.unit ?? "um");
   const [pixelSize, setPixelSize] = useState("");
   const image = readout.result?.type === "image" ? readout.result.image : null;
@@ -49,10 +70,26 @@ export function RerunForm({ labId, readout }: { labId: string; readout: ReadoutD
     setError(null);
     const px = pixelSize.trim() ? Number(pixelSize) : undefined;
     const body = img
-      ? { roi, channel: channel === "luminance" ? "luminance" : Number(channel), invert, flatten, window: win, profileAxis: axis, ...(px !== undefined ? { pixelSizeUm: px } : {}) }
-      : { columns: Object.fromEntries(Object.entries(cols).filter(([, v]) => v.trim() !== "")), unit, ...(px !== undefined ? { pixelSizeUm: px } : {}) };
+      ? {
+          roi,
+          channel: channel === "luminance" ? "luminance" : Number(channel),
+          invert,
+          flatten,
+          window: win,
+          profileAxis: axis,
+          ...(px !== undefined ? { pixelSizeUm: px } : {}),
+        }
+      : {
+          columns: Object.fromEntries(Object.entries(cols).filter(([, v]) => v.trim() !== "")),
+          unit,
+          ...(px !== undefined ? { pixelSizeUm: px } : {}),
+        };
     try {
-      const created = await sendJson<ReadoutDto>("POST", `/api/v1/labs/${labId}/uploads/${readout.uploadId}/readouts`, body);
+      const created = await sendJson<ReadoutDto>(
+        "POST",
+        `/api/v1/labs/${labId}/uploads/${readout.uploadId}/readouts`,
+        body,
+      );
       router.push(`/labs/${labId}/readouts/${created.id}`);
     } catch (err) {
       setError(err instanceof ApiError ? err.message : "Could not start the readout.");
@@ -63,16 +100,80 @@ export function RerunForm({ labId, readout }: { labId: string; readout: ReadoutD
   return (
     <Panel title="Read again with other settings">
       <form onSubmit={submit} className="space-y-4" data-testid="rerun-form">
-        <p className="text-sm text-ink-soft">A readout never changes: this makes a new one and keeps this one in the list.</p>
+        <p className="text-sm text-ink-soft">
+          A readout never changes: this makes a new one and keeps this one in the list.
+        </p>
         {img && (
           <>
-            {image ? <RoiEditor imageUrl={readout.derived["preview.png"] ?? null} width={image.width} height={image.height} value={roi} onChange={setRoi} /> : <p className="text-sm text-ink-soft">The image size is not known from this readout, so the ROI cannot be drawn here; run with the whole image first.</p>}
+            {image ? (
+              <RoiEditor
+                imageUrl={readout.derived["preview.png"] ?? null}
+                width={image.width}
+                height={image.height}
+                value={roi}
+                onChange={setRoi}
+              />
+            ) : (
+              <p className="text-sm text-ink-soft">
+                The image size is not known from this readout, so the ROI cannot be drawn here; run with the whole image
+                first.
+              </p>
+            )}
             <div className="flex flex-wrap items-end gap-4">
-              <Select label="Channel" value={channel} onChange={setChannel} testId="rerun-channel" options={[["luminance", "luminance (Rec. 709)"], ...Array.from({ length: Math.min(channels, 16) }, (_, i): [string, string] => [String(i), `channel ${i}`])]} />
-              <Select label="Background flattening" value={flatten} onChange={setFlatten} testId="rerun-flatten" options={[["plane", "on — subtract a fitted plane"], ["blur", "on — subtract a heavy blur"], ["none", "off"]]} />
-              <Select label="Window" value={win} onChange={setWin} testId="rerun-window" options={[["hann", "Hann"], ["tukey", "Tukey (α 0.25)"], ["none", "none"]]} />
-              <Select label="Local profile along" value={axis} onChange={setAxis} testId="rerun-axis" options={[["x", "x (columns)"], ["y", "y (rows)"]]} />
-              <label className="flex items-center gap-2 pb-2 text-sm"><input type="checkbox" checked={invert} onChange={(e) => setInvert(e.target.checked)} data-testid="rerun-invert" /> invert (dark pattern on light)</label>
+              <Select
+                label="Channel"
+                value={channel}
+                onChange={setChannel}
+                testId="rerun-channel"
+                options={[
+                  ["luminance", "luminance (Rec. 709)"],
+                  ...Array.from({ length: Math.min(channels, 16) }, (_, i): [string, string] => [
+                    String(i),
+                    `channel ${i}`,
+                  ]),
+                ]}
+              />
+              <Select
+                label="Background flattening"
+                value={flatten}
+                onChange={setFlatten}
+                testId="rerun-flatten"
+                options={[
+                  ["plane", "on — subtract a fitted plane"],
+                  ["blur", "on — subtract a heavy blur"],
+                  ["none", "off"],
+                ]}
+              />
+              <Select
+                label="Window"
+                value={win}
+                onChange={setWin}
+                testId="rerun-window"
+                options={[
+                  ["hann", "Hann"],
+                  ["tukey", "Tukey (α 0.25)"],
+                  ["none", "none"],
+                ]}
+              />
+              <Select
+                label="Local profile along"
+                value={axis}
+                onChange={setAxis}
+                testId="rerun-axis"
+                options={[
+                  ["x", "x (columns)"],
+                  ["y", "y (rows)"],
+                ]}
+              />
+              <label className="flex items-center gap-2 pb-2 text-sm">
+                <input
+                  type="checkbox"
+                  checked={invert}
+                  onChange={(e) => setInvert(e.target.checked)}
+                  data-testid="rerun-invert"
+                />{" "}
+                invert (dark pattern on light)
+              </label>
             </div>
           </>
         )}
@@ -81,20 +182,50 @@ export function RerunForm({ labId, readout }: { labId: string; readout: ReadoutD
             {(["x", "y", "position", "spacing"] as const).map((k) => (
               <label key={k} className="flex flex-col gap-1 text-sm">
                 <span className="font-medium">{k} column</span>
-                <input className={`${selectClass} w-36`} value={cols[k]} onChange={(e) => setCols({ ...cols, [k]: e.target.value })} data-testid={`rerun-column-${k}`} placeholder="header name" />
+                <input
+                  className={`${selectClass} w-36`}
+                  value={cols[k]}
+                  onChange={(e) => setCols({ ...cols, [k]: e.target.value })}
+                  data-testid={`rerun-column-${k}`}
+                  placeholder="header name"
+                />
               </label>
             ))}
-            <Select label="Unit of the numbers" value={unit} onChange={setUnit} testId="rerun-unit" options={[["um", "µm"], ["nm", "nm"], ["mm", "mm"], ["px", "px (needs a pixel size)"]]} />
+            <Select
+              label="Unit of the numbers"
+              value={unit}
+              onChange={setUnit}
+              testId="rerun-unit"
+              options={[
+                ["um", "µm"],
+                ["nm", "nm"],
+                ["mm", "mm"],
+                ["px", "px (needs a pixel size)"],
+              ]}
+            />
           </div>
         )}
         <div className="flex flex-wrap items-end gap-4">
           <label className="flex flex-col gap-1 text-sm">
             <span className="font-medium">Pixel size for this readout (µm/px)</span>
-            <input className={`${selectClass} num w-40`} inputMode="decimal" value={pixelSize} onChange={(e) => setPixelSize(e.target.value)} placeholder={readout.pixelSizeUm ? String(readout.pixelSizeUm) : "none"} data-testid="rerun-pixel-size" />
+            <input
+              className={`${selectClass} num w-40`}
+              inputMode="decimal"
+              value={pixelSize}
+              onChange={(e) => setPixelSize(e.target.value)}
+              placeholder={readout.pixelSizeUm ? String(readout.pixelSizeUm) : "none"}
+              data-testid="rerun-pixel-size"
+            />
           </label>
-          <Button type="submit" disabled={busy} data-testid="rerun-submit">{busy ? "Starting…" : "Start new readout"}</Button>
+          <Button type="submit" disabled={busy} data-testid="rerun-submit">
+            {busy ? "Starting…" : "Start new readout"}
+          </Button>
         </div>
-        {error && <Notice tone="error" testId="rerun-error">{error}</Notice>}
+        {error && (
+          <Notice tone="error" testId="rerun-error">
+            {error}
+          </Notice>
+        )}
       </form>
     </Panel>
   );

@@ -15,9 +15,26 @@ export default async function RunPage({ params }: { params: Promise<{ labId: str
   return (
     <>
       <PageHeader
-        crumbs={<Link href={`/labs/${labId}/runs`} className="hover:underline">Runs</Link>}
+        crumbs={
+          <Link href={`/labs/${labId}/runs`} className="hover:underline">
+            Runs
+          </Link>
+        }
         title={run.name}
-        subtitle={<>Verification run of <Link className="text-moss hover:underline" href={`/labs/${labId}/kinetics/${k.ref}${k.version ? `?version=${k.version}` : ""}`}>{k.name}{k.version ? ` v${k.version}` : ""}</Link> · {run.gridLabel} · started {run.createdAt.slice(0, 16).replace("T", " ")} UTC{run.createdByEmail ? ` by ${run.createdByEmail}` : ""}</>}
+        subtitle={
+          <>
+            Verification run of{" "}
+            <Link
+              className="text-moss hover:underline"
+              href={`/labs/${labId}/kinetics/${k.ref}${k.version ? `?version=${k.version}` : ""}`}
+            >
+              {k.name}
+              {k.version ? ` v${k.version}` : ""}
+            </Link>{" "}
+            · {run.gridLabel} · started {run.createdAt.slice(0, 16).replace("T", " ")} UTC
+            {run.createdByEmail ? ` by ${run.createdByEmail}` : ""}
+          </>
+        }
       />
       <RunView labId={labId} initial={run} canStart={can(ctx.role, "run.create")} />
     </>

@@ -1,7 +1,13 @@
 import Link from "next/link";
 import { PageHeader } from "@/components/ui/panel";
 import { SIMULATION_LIMITS } from "@/lib/simulation";
-import { definitionInfo, getLabKineticsVersion, listCatalogue, listLabKinetics, type KineticsInfoDto } from "@/lib/server/data/kinetics";
+import {
+  definitionInfo,
+  getLabKineticsVersion,
+  listCatalogue,
+  listLabKinetics,
+  type KineticsInfoDto,
+} from "@/lib/server/data/kinetics";
 import { estimateSolverS, RUN_WORK_LIMIT } from "@/lib/server/data/simulation-run-plan";
 import { Notice } from "@/components/ui/notice";
 import { AppError } from "@/lib/server/errors";
@@ -14,7 +20,13 @@ export const dynamic = "force-dynamic";
 
 type Search = Record<string, string | string[] | undefined>;
 
-export default async function NewRunPage({ params, searchParams }: { params: Promise<{ labId: string }>; searchParams: Promise<Search> }) {
+export default async function NewRunPage({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ labId: string }>;
+  searchParams: Promise<Search>;
+}) {
   const { labId } = await params;
   const q = await searchParams;
   const ctx = await pageLab(labId, "run.create");
@@ -29,16 +41,32 @@ export default async function NewRunPage({ params, searchParams }: { params: Pro
   for (const [k, v] of Object.entries(q)) if (k.startsWith("p.") && typeof v === "string") parameters[k.slice(2)] = v;
   const earlierRuns = await listRunStartOptions(ctx);
   const from = one("from");
-  let prefill: RunPrefill = { kinetics: one("kinetics"), version: one("version"), parameters, lengthScaleUm: one("lengthScaleUm"), timeScaleS: one("timeScaleS"), startFrom: earlierRuns.some((r) => r.id === from) ? from : undefined };
+  let prefill: RunPrefill = {
+    kinetics: one("kinetics"),
+    version: one("version"),
+    parameters,
+    lengthScaleUm: one("lengthScaleUm"),
+    timeScaleS: one("timeScaleS"),
+    startFrom: earlierRuns.some((r) => r.id === from) ? from : undefined,
+  };
   let fitNotice: string | null = null;
-  const fitId = one("fit"), condition = one("condition");
+  const fitId = one("fit"),
+    condition = one("condition");
   if (fitId && condition) {
     try {
       const f = await readFitStart(ctx, { fitId, condition, model: one("model") });
       prefill = {
-        kinetics: f.kinetics, version: f.version ? String(f.version) : undefined, parameters: Object.fromEntries(Object.entries(f.parameters).map(([k, v]) => [k, String(v)])),
-        lengthScaleUm: f.lengthScaleUm !== undefined ? String(f.lengthScaleUm) : undefined, timeScaleS: f.timeScaleS !== undefined ? String(f.timeScaleS) : undefined,
-        fit: { fitId, condition, model: f.fromFit.model, label: `${f.fromFit.fitName} (${f.fromFit.model}), condition “${condition}”: measured ${Number(f.fromFit.measuredMeanUm.toPrecision(4))} ± ${Number(f.fromFit.measuredSeUm.toPrecision(2))} µm, n = ${f.fromFit.n}` },
+        kinetics: f.kinetics,
+        version: f.version ? String(f.version) : undefined,
+        parameters: Object.fromEntries(Object.entries(f.parameters).map(([k, v]) => [k, String(v)])),
+        lengthScaleUm: f.lengthScaleUm !== undefined ? String(f.lengthScaleUm) : undefined,
+        timeScaleS: f.timeScaleS !== undefined ? String(f.timeScaleS) : undefined,
+        fit: {
+          fitId,
+          condition,
+          model: f.fromFit.model,
+          label: `${f.fromFit.fitName} (${f.fromFit.model}), condition “${condition}”: measured ${Number(f.fromFit.measuredMeanUm.toPrecision(4))} ± ${Number(f.fromFit.measuredSeUm.toPrecision(2))} µm, n = ${f.fromFit.n}`,
+        },
       };
     } catch (err) {
       if (!(err instanceof AppError)) throw err;
@@ -52,9 +80,27 @@ export default async function NewRunPage({ params, searchParams }: { params: Pro
   ];
   return (
     <>
-      <PageHeader crumbs={<Link href={`/labs/${labId}/runs`} className="hover:underline">Runs</Link>} title="New verification run" subtitle="Simulate a kinetics from its homogeneous steady state plus seeded noise, or from an earlier run's final pattern; the final pattern is read like a tissue image and compared with 2π/k*." />
-      {fitNotice && <div className="mb-4"><Notice tone="warning">{fitNotice}</Notice></div>}
-      <RunForm labId={labId} kinetics={[...listCatalogue(), ...labInfos]} prefill={prefill} limits={limits} earlierRuns={earlierRuns} />
+      <PageHeader
+        crumbs={
+          <Link href={`/labs/${labId}/runs`} className="hover:underline">
+            Runs
+          </Link>
+        }
+        title="New verification run"
+        subtitle="Simulate a kinetics from its homogeneous steady state plus seeded noise, or from an earlier run's final pattern; the final pattern is read like a tissue image and compared with 2π/k*."
+      />
+      {fitNotice && (
+        <div className="mb-4">
+          <Notice tone="warning">{fitNotice}</Notice>
+        </div>
+      )}
+      <RunForm
+        labId={labId}
+        kinetics={[...listCatalogue(), ...labInfos]}
+        prefill={prefill}
+        limits={limits}
+        earlierRuns={earlierRuns}
+      />
     </>
   );
 }

@@ -17,14 +17,24 @@ export default async function SpecimenPage({ params }: { params: Promise<{ labId
       <PageHeader
         crumbs={
           <>
-            <Link href={`/labs/${labId}/studies`} className="hover:underline">Studies</Link> /{" "}
-            <Link href={`/labs/${labId}/studies/${specimen.studyId}`} className="hover:underline">{specimen.studyName}</Link>
+            <Link href={`/labs/${labId}/studies`} className="hover:underline">
+              Studies
+            </Link>{" "}
+            /{" "}
+            <Link href={`/labs/${labId}/studies/${specimen.studyId}`} className="hover:underline">
+              {specimen.studyName}
+            </Link>
           </>
         }
         title={`Specimen ${specimen.label}`}
         subtitle={[specimen.condition, specimen.stage, specimen.genotype].filter(Boolean).join(" · ")}
       />
-      <SpecimenView labId={labId} specimen={specimen} canUpload={can(ctx.role, "upload.create")} maxUploadBytes={services().config.maxUploadBytes} />
+      <SpecimenView
+        labId={labId}
+        specimen={specimen}
+        canUpload={can(ctx.role, "upload.create")}
+        maxUploadBytes={services().config.maxUploadBytes}
+      />
     </>
   );
 }

@@ -14,7 +14,17 @@ import type { UploadDto } from "@/lib/server/data/uploads";
 import { SpecimenForm } from "../../studies/[studyId]/study-view";
 import { ReadoutsPanel } from "./readouts-panel";
 
-export function SpecimenView({ labId, specimen, canUpload, maxUploadBytes }: { labId: string; specimen: SpecimenDto; canUpload: boolean; maxUploadBytes: number }) {
+export function SpecimenView({
+  labId,
+  specimen,
+  canUpload,
+  maxUploadBytes,
+}: {
+  labId: string;
+  specimen: SpecimenDto;
+  canUpload: boolean;
+  maxUploadBytes: number;
+}) {
   const router = useRouter();
   const [refresh, setRefresh] = useState(0);
   const [editing, setEditing] = useState(false);
@@ -42,26 +52,119 @@ export function SpecimenView({ labId, specimen, canUpload, maxUploadBytes }: { l
   }
 
   const columns: ColumnDef<UploadDto, unknown>[] = [
-    { id: "filename", header: "File", cell: ({ row }) => <a className="font-medium text-moss hover:underline" href={`/api/v1/labs/${labId}/uploads/${row.original.id}/content`} data-testid="download-link">{row.original.filename}</a> },
-    { id: "kind", header: "Kind", cell: ({ row }) => <Badge tone={row.original.kind === "image" ? "moss" : "plain"}>{row.original.kind === "image" ? `image · ${row.original.contentType.split("/")[1]}` : `table · ${row.original.contentType === "text/csv" ? "csv" : "tsv"}`}</Badge> },
-    { id: "sizeBytes", header: "Size", cell: ({ row }) => <span className="num">{formatBytes(row.original.sizeBytes)}</span> },
-    { id: "pixelSize", header: "Pixel size", enableSorting: false, cell: ({ row }) => row.original.pixelSizeUm ? <span className="num">{row.original.pixelSizeUm} µm/px</span> : <span className="text-ink-soft">—</span> },
-    { id: "sha256", header: "SHA-256", enableSorting: false, cell: ({ row }) => <span className="num text-xs text-ink-soft" title={row.original.sha256}>{row.original.sha256.slice(0, 12)}…</span> },
-    { id: "createdAt", header: "Uploaded", cell: ({ row }) => <span className="text-ink-soft"><span className="num">{formatDateTime(row.original.createdAt)}</span><br />{row.original.uploadedByEmail}</span> },
-    { id: "actions", header: "", enableSorting: false, cell: ({ row }) => row.original.canDelete ? <Button size="sm" variant="danger" onClick={() => removeUpload(row.original)} data-testid="delete-upload">Delete</Button> : null },
+    {
+      id: "filename",
+      header: "File",
+      cell: ({ row }) => (
+        <a
+          className="font-medium text-moss hover:underline"
+          href={`/api/v1/labs/${labId}/uploads/${row.original.id}/content`}
+          data-testid="download-link"
+        >
+          {row.original.filename}
+        </a>
+      ),
+    },
+    {
+      id: "kind",
+      header: "Kind",
+      cell: ({ row }) => (
+        <Badge tone={row.original.kind === "image" ? "moss" : "plain"}>
+          {row.original.kind === "image"
+            ? `image · ${row.original.contentType.split("/")[1]}`
+            : `table · ${row.original.contentType === "text/csv" ? "csv" : "tsv"}`}
+        </Badge>
+      ),
+    },
+    {
+      id: "sizeBytes",
+      header: "Size",
+      cell: ({ row }) => <span className="num">{formatBytes(row.original.sizeBytes)}</span>,
+    },
+    {
+      id: "pixelSize",
+      header: "Pixel size",
+      enableSorting: false,
+      cell: ({ row }) =>
+        row.original.pixelSizeUm ? (
+          <span className="num">{row.original.pixelSizeUm} µm/px</span>
+        ) : (
+          <span className="text-ink-soft">—</span>
+        ),
+    },
+    {
+      id: "sha256",
+      header: "SHA-256",
+      enableSorting: false,
+      cell: ({ row }) => (
+        <span className="num text-xs text-ink-soft" title={row.original.sha256}>
+          {row.original.sha256.slice(0, 12)}…
+        </span>
+      ),
+    },
+    {
+      id: "createdAt",
+      header: "Uploaded",
+      cell: ({ row }) => (
+        <span className="text-ink-soft">
+          <span className="num">{formatDateTime(row.original.createdAt)}</span>
+          <br />
+          {row.original.uploadedByEmail}
+        </span>
+      ),
+    },
+    {
+      id: "actions",
+      header: "",
+      enableSorting: false,
+      cell: ({ row }) =>
+        row.original.canDelete ? (
+          <Button size="sm" variant="danger" onClick={() => removeUpload(row.original)} data-testid="delete-upload">
+            Delete
+          </Button>
+        ) : null,
+    },
   ];
   return (
     <div className="space-y-5">
-      {error && <Notice tone="error" testId="specimen-error">{error}</Notice>}
+      {error && (
+        <Notice tone="error" testId="specimen-error">
+          {error}
+        </Notice>
+      )}
       {specimen.notes && <p className="max-w-3xl whitespace-pre-line text-sm text-ink-soft">{specimen.notes}</p>}
       {specimen.canEdit && (
         <div className="flex gap-2">
-          {!editing && <Button variant="secondary" onClick={() => setEditing(true)}>Edit specimen</Button>}
-          <Button variant="danger" onClick={removeSpecimen}>Delete specimen</Button>
+          {!editing && (
+            <Button variant="secondary" onClick={() => setEditing(true)}>
+              Edit specimen
+            </Button>
+          )}
+          <Button variant="danger" onClick={removeSpecimen}>
+            Delete specimen
+          </Button>
         </div>
       )}
-      {editing && <SpecimenForm labId={labId} studyId={specimen.studyId} specimen={specimen} onDone={() => { setEditing(false); router.refresh(); }} onCancel={() => setEditing(false)} />}
-      {canUpload && <UploadForm labId={labId} specimenId={specimen.id} maxUploadBytes={maxUploadBytes} onDone={() => setRefresh((r) => r + 1)} />}
+      {editing && (
+        <SpecimenForm
+          labId={labId}
+          studyId={specimen.studyId}
+          specimen={specimen}
+          onDone={() => {
+            setEditing(false);
+            router.refresh();
+          }}
+          onCancel={() => setEditing(false)}
+        />
+      )}
+      {canUpload && (
+        <UploadForm
+          labId={labId}
+          specimenId={specimen.id}
+          maxUploadBytes={maxUploadBytes}
+          onDone={() => setRefresh((r) => r + 1)}
+        />
+      )}
       <Panel title="Files">
         <DataTable<UploadDto>
           url={`/api/v1/labs/${labId}/specimens/${specimen.id}/uploads`}
@@ -70,7 +173,13 @@ export function SpecimenView({ labId, specimen, canUpload, maxUploadBytes }: { l
           filterPlaceholder="Filter by file name…"
           testId="uploads-table"
           refreshKey={refresh}
-          empty={<EmptyState title="No files yet.">{canUpload ? "Upload a stained image or a spacing table above." : "Files uploaded by the lab appear here."}</EmptyState>}
+          empty={
+            <EmptyState title="No files yet.">
+              {canUpload
+                ? "Upload a stained image or a spacing table above."
+                : "Files uploaded by the lab appear here."}
+            </EmptyState>
+          }
         />
       </Panel>
       <ReadoutsPanel labId={labId} specimenId={specimen.id} refreshKey={refresh} />
@@ -78,7 +187,17 @@ export function SpecimenView({ labId, specimen, canUpload, maxUploadBytes }: { l
   );
 }
 
-function UploadForm({ labId, specimenId, maxUploadBytes, onDone }: { labId: string; specimenId: string; maxUploadBytes: number; onDone: () => void }) {
+function UploadForm({
+  labId,
+  specimenId,
+  maxUploadBytes,
+  onDone,
+}: {
+  labId: string;
+  specimenId: string;
+  maxUploadBytes: number;
+  onDone: () => void;
+}) {
   const fileRef = useRef<HTMLInputElement>(null);
   const [pixelSize, setPixelSize] = useState("");
   const [busy, setBusy] = useState(false);
@@ -88,7 +207,8 @@ function UploadForm({ labId, specimenId, maxUploadBytes, onDone }: { labId: stri
     const file = fileRef.current?.files?.[0];
     if (!file) return setMessage({ tone: "error", text: "Choose a file first." });
     if (file.size === 0) return setMessage({ tone: "error", text: "The file is empty (0 bytes)." });
-    if (file.size > maxUploadBytes) return setMessage({ tone: "error", text: `The file is too large: the limit is ${formatBytes(maxUploadBytes)}.` });
+    if (file.size > maxUploadBytes)
+      return setMessage({ tone: "error", text: `The file is too large: the limit is ${formatBytes(maxUploadBytes)}.` });
     const form = new FormData();
     form.set("file", file);
     if (pixelSize.trim()) form.set("pixelSizeUm", pixelSize.trim());
@@ -96,7 +216,10 @@ function UploadForm({ labId, specimenId, maxUploadBytes, onDone }: { labId: stri
     setMessage(null);
     try {
       const u = await sendForm<UploadDto>(`/api/v1/labs/${labId}/specimens/${specimenId}/uploads`, form);
-      setMessage({ tone: "success", text: `Stored “${u.filename}” (${formatBytes(u.sizeBytes)}, SHA-256 ${u.sha256.slice(0, 12)}…).` });
+      setMessage({
+        tone: "success",
+        text: `Stored “${u.filename}” (${formatBytes(u.sizeBytes)}, SHA-256 ${u.sha256.slice(0, 12)}…).`,
+      });
       if (fileRef.current) fileRef.current.value = "";
       onDone();
     } catch (err) {
@@ -110,15 +233,39 @@ function UploadForm({ labId, specimenId, maxUploadBytes, onDone }: { labId: stri
       <form onSubmit={submit} className="flex flex-wrap items-end gap-4" data-testid="upload-form">
         <label className="block space-y-1">
           <span className="text-sm font-medium">Image or table</span>
-          <input ref={fileRef} type="file" name="file" data-testid="upload-file" accept=".png,.jpg,.jpeg,.tif,.tiff,.csv,.tsv,.txt" className="block text-sm" />
-          <span className="block text-xs text-ink-soft">PNG, JPEG, TIFF (8/16-bit), CSV or TSV; up to {formatBytes(maxUploadBytes)}. The type is judged by content.</span>
+          <input
+            ref={fileRef}
+            type="file"
+            name="file"
+            data-testid="upload-file"
+            accept=".png,.jpg,.jpeg,.tif,.tiff,.csv,.tsv,.txt"
+            className="block text-sm"
+          />
+          <span className="block text-xs text-ink-soft">
+            PNG, JPEG, TIFF (8/16-bit), CSV or TSV; up to {formatBytes(maxUploadBytes)}. The type is judged by content.
+          </span>
         </label>
         <div className="w-48">
-          <TextField label="Pixel size (µm/px)" name="pixelSizeUm" inputMode="decimal" placeholder="from file if present" value={pixelSize} onChange={(e) => setPixelSize(e.target.value)} />
+          <TextField
+            label="Pixel size (µm/px)"
+            name="pixelSizeUm"
+            inputMode="decimal"
+            placeholder="from file if present"
+            value={pixelSize}
+            onChange={(e) => setPixelSize(e.target.value)}
+          />
         </div>
-        <Button type="submit" disabled={busy} data-testid="upload-submit">{busy ? "Uploading…" : "Upload"}</Button>
+        <Button type="submit" disabled={busy} data-testid="upload-submit">
+          {busy ? "Uploading…" : "Upload"}
+        </Button>
       </form>
-      {message && <div className="mt-3"><Notice tone={message.tone} testId="upload-message">{message.text}</Notice></div>}
+      {message && (
+        <div className="mt-3">
+          <Notice tone={message.tone} testId="upload-message">
+            {message.text}
+          </Notice>
+        </div>
+      )}
     </Panel>
   );
 }

@@ -15,7 +15,11 @@ export default async function StudyPage({ params }: { params: Promise<{ labId: s
   return (
     <>
       <PageHeader
-        crumbs={<Link href={`/labs/${labId}/studies`} className="hover:underline">Studies</Link>}
+        crumbs={
+          <Link href={`/labs/${labId}/studies`} className="hover:underline">
+            Studies
+          </Link>
+        }
         title={study.name}
         subtitle={`${study.tissue} · ${study.organism}${study.createdByEmail ? ` · created by ${study.createdByEmail}` : ""}`}
       />

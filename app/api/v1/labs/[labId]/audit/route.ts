@@ -5,4 +5,6 @@ import { parseListQuery } from "@/lib/server/list";
 
 export const runtime = "nodejs";
 
-export const GET = labRoute("audit.read", async (ctx, request) => json(await listAudit(ctx, parseListQuery(request.url, AUDIT_SORTS, "at", "desc"))));
+export const GET = labRoute("audit.read", async (ctx, request) =>
+  json(await listAudit(ctx, parseListQuery(request.url, AUDIT_SORTS, "at", "desc"))),
+);

@@ -7,7 +7,11 @@ import { parseListQuery } from "@/lib/server/list";
 export const runtime = "nodejs";
 
 /** Fits of the lab, newest first (`?q=` filters by name). */
-export const GET = labRoute<{ labId: string }>("lab.read", async (ctx, request) => json(await listFits(ctx, parseListQuery(request.url, FIT_SORTS, "createdAt", "desc"))));
+export const GET = labRoute<{ labId: string }>("lab.read", async (ctx, request) =>
+  json(await listFits(ctx, parseListQuery(request.url, FIT_SORTS, "createdAt", "desc"))),
+);
 
 /** Checks a fit request and queues its job: 202 with the fit (poll its `jobId`). */
-export const POST = labRoute<{ labId: string }>("fit.create", async (ctx, request) => json(await startFit(ctx, await readJson(request, fitCreateSchema)), 202));
+export const POST = labRoute<{ labId: string }>("fit.create", async (ctx, request) =>
+  json(await startFit(ctx, await readJson(request, fitCreateSchema)), 202),
+);

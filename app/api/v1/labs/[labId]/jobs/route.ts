@@ -5,4 +5,6 @@ import { labRoute } from "@/lib/server/lab-route";
 export const runtime = "nodejs";
 
 /** The lab's recent jobs; `?mine=1` for the caller's own. */
-export const GET = labRoute("lab.read", async (ctx, request) => json({ items: await listJobs(ctx, new URL(request.url).searchParams.get("mine") === "1") }));
+export const GET = labRoute("lab.read", async (ctx, request) =>
+  json({ items: await listJobs(ctx, new URL(request.url).searchParams.get("mine") === "1") }),
+);

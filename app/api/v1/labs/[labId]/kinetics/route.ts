@@ -6,7 +6,11 @@ import { parseListQuery } from "@/lib/server/list";
 
 export const runtime = "nodejs";
 
-export const GET = labRoute("lab.read", async (ctx, request) => json(await listLabKinetics(ctx, parseListQuery(request.url, LAB_KINETICS_SORTS, "updatedAt", "desc"))));
+export const GET = labRoute("lab.read", async (ctx, request) =>
+  json(await listLabKinetics(ctx, parseListQuery(request.url, LAB_KINETICS_SORTS, "updatedAt", "desc"))),
+);
 
 /** Creates the kinetics with its version 1 (modellers and lab managers). */
-export const POST = labRoute("kinetics.edit", async (ctx, request) => json(await createLabKinetics(ctx, await readJson(request, labKineticsCreateSchema)), 201));
+export const POST = labRoute("kinetics.edit", async (ctx, request) =>
+  json(await createLabKinetics(ctx, await readJson(request, labKineticsCreateSchema)), 201),
+);

@@ -5,4 +5,6 @@ import { parseListQuery } from "@/lib/server/list";
 
 export const runtime = "nodejs";
 
-export const GET = labRoute("member.list", async (ctx, request) => json(await listMembers(ctx, parseListQuery(request.url, MEMBER_SORTS, "email", "asc"))));
+export const GET = labRoute("member.list", async (ctx, request) =>
+  json(await listMembers(ctx, parseListQuery(request.url, MEMBER_SORTS, "email", "asc"))),
+);

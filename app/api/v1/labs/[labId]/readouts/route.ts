@@ -15,7 +15,10 @@ const filterSchema = z.object({
 /** Readouts of the lab, newest first; `?specimenId=` or `?uploadId=` narrows them. */
 export const GET = labRoute<{ labId: string }>("upload.read", async (ctx, request) => {
   const params = new URL(request.url).searchParams;
-  const filter = filterSchema.safeParse({ specimenId: params.get("specimenId") ?? undefined, uploadId: params.get("uploadId") ?? undefined });
+  const filter = filterSchema.safeParse({
+    specimenId: params.get("specimenId") ?? undefined,
+    uploadId: params.get("uploadId") ?? undefined,
+  });
   if (!filter.success) throw new AppError("bad_input", filter.error.issues.map((i) => i.message).join("; "));
   return json(await listReadouts(ctx, filter.data, parseListQuery(request.url, READOUT_SORTS, "createdAt", "desc")));
 });

@@ -7,7 +7,11 @@ import { parseListQuery } from "@/lib/server/list";
 export const runtime = "nodejs";
 
 /** Verification runs of the lab, newest first. */
-export const GET = labRoute<{ labId: string }>("lab.read", async (ctx, request) => json(await listRuns(ctx, parseListQuery(request.url, RUN_SORTS, "createdAt", "desc"))));
+export const GET = labRoute<{ labId: string }>("lab.read", async (ctx, request) =>
+  json(await listRuns(ctx, parseListQuery(request.url, RUN_SORTS, "createdAt", "desc"))),
+);
 
 /** Checks a run (400/422 with the field and limit) and queues it; answers 202 with the run. */
-export const POST = labRoute<{ labId: string }>("run.create", async (ctx, request) => json(await startRun(ctx, await readJson(request, simulationRunRequestSchema)), 202));
+export const POST = labRoute<{ labId: string }>("run.create", async (ctx, request) =>
+  json(await startRun(ctx, await readJson(request, simulationRunRequestSchema)), 202),
+);

@@ -6,6 +6,10 @@ import { parseListQuery } from "@/lib/server/list";
 
 export const runtime = "nodejs";
 
-export const GET = labRoute("lab.read", async (ctx, request) => json(await listStudies(ctx, parseListQuery(request.url, STUDY_SORTS, "updatedAt", "desc"))));
+export const GET = labRoute("lab.read", async (ctx, request) =>
+  json(await listStudies(ctx, parseListQuery(request.url, STUDY_SORTS, "updatedAt", "desc"))),
+);
 
-export const POST = labRoute("study.create", async (ctx, request) => json(await createStudy(ctx, await readJson(request, studyCreateSchema)), 201));
+export const POST = labRoute("study.create", async (ctx, request) =>
+  json(await createStudy(ctx, await readJson(request, studyCreateSchema)), 201),
+);

@@ -9,9 +9,15 @@ export const runtime = "nodejs";
 /** ?targetType=&targetId= : one target's threads with comments, open first. ?status=open : the lab's open discussions. */
 export const GET = labRoute("lab.read", async (ctx, request) => {
   const p = new URL(request.url).searchParams;
-  const filter = threadFilterSchema.parse({ targetType: p.get("targetType") ?? undefined, targetId: p.get("targetId") ?? undefined, status: p.get("status") ?? undefined });
+  const filter = threadFilterSchema.parse({
+    targetType: p.get("targetType") ?? undefined,
+    targetId: p.get("targetId") ?? undefined,
+    status: p.get("status") ?? undefined,
+  });
   return json(await listThreads(ctx, filter, parseListQuery(request.url, THREAD_SORTS, "lastActivityAt", "desc")));
 });
 
 /** A new thread with its first comment; answers the thread, the comment and whether e-mail went out. */
-export const POST = labRoute("comment.create", async (ctx, request) => json(await createThread(ctx, await readJson(request, threadCreateSchema)), 201));
+export const POST = labRoute("comment.create", async (ctx, request) =>
+  json(await createThread(ctx, await readJson(request, threadCreateSchema)), 201),
+);

@@ -19,11 +19,26 @@ export default async function EditKineticsPage({ params }: { params: Promise<{ l
   return (
     <>
       <PageHeader
-        crumbs={<><Link href={`/labs/${labId}/kinetics`} className="hover:underline">Kinetics</Link> / <Link href={`/labs/${labId}/kinetics/${kineticsId}`} className="hover:underline">{kinetics.name}</Link></>}
+        crumbs={
+          <>
+            <Link href={`/labs/${labId}/kinetics`} className="hover:underline">
+              Kinetics
+            </Link>{" "}
+            /{" "}
+            <Link href={`/labs/${labId}/kinetics/${kineticsId}`} className="hover:underline">
+              {kinetics.name}
+            </Link>
+          </>
+        }
         title={`Edit ${kinetics.name}`}
         subtitle={`Starts from version ${latest.version}; saving adds version ${latest.version + 1} and keeps every earlier one unchanged.`}
       />
-      <KineticsEditor labId={labId} kineticsId={kineticsId} initial={draftFromDefinition(latest.definition, kinetics.description)} nextVersion={latest.version + 1} />
+      <KineticsEditor
+        labId={labId}
+        kineticsId={kineticsId}
+        initial={draftFromDefinition(latest.definition, kinetics.description)}
+        nextVersion={latest.version + 1}
+      />
     </>
   );
 }

@@ -6,4 +6,6 @@ import { labRoute } from "@/lib/server/lab-route";
 export const runtime = "nodejs";
 
 /** Computed on request for a catalogue kinetics or a lab kinetics at a version; nothing is stored. */
-export const POST = labRoute("lab.read", async (ctx, request) => json(await analyseGradient(ctx, await readJson(request, gradientRequestSchema))));
+export const POST = labRoute("lab.read", async (ctx, request) =>
+  json(await analyseGradient(ctx, await readJson(request, gradientRequestSchema))),
+);

@@ -5,4 +5,6 @@ import { labRoute } from "@/lib/server/lab-route";
 export const runtime = "nodejs";
 
 /** One fit: stored spec, provenance, status, and the result once finished. */
-export const GET = labRoute<{ labId: string; fitId: string }>("lab.read", async (ctx, _request, p) => json(await getFit(ctx, p.fitId)));
+export const GET = labRoute<{ labId: string; fitId: string }>("lab.read", async (ctx, _request, p) =>
+  json(await getFit(ctx, p.fitId)),
+);

@@ -1,6 +1,12 @@
 import { z } from "zod";
 import { labKineticsUpdateSchema } from "@/lib/contracts/kinetics";
-import { definitionInfo, deleteLabKinetics, getLabKinetics, getLabKineticsVersion, updateLabKinetics } from "@/lib/server/data/kinetics";
+import {
+  definitionInfo,
+  deleteLabKinetics,
+  getLabKinetics,
+  getLabKineticsVersion,
+  updateLabKinetics,
+} from "@/lib/server/data/kinetics";
 import { AppError } from "@/lib/server/errors";
 import { json, readJson } from "@/lib/server/http";
 import { labRoute } from "@/lib/server/lab-route";
@@ -18,11 +24,18 @@ export const GET = labRoute<P>("lab.read", async (ctx, request, p) => {
   if (!parsed.success) throw new AppError("bad_input", "version: must be a whole number from 1");
   const kinetics = await getLabKinetics(ctx, p.kineticsId);
   const v = await getLabKineticsVersion(ctx, p.kineticsId, parsed.data);
-  return json({ kinetics, version: v.version, definition: v.definition, info: definitionInfo(p.kineticsId, v.version, v.definition) });
+  return json({
+    kinetics,
+    version: v.version,
+    definition: v.definition,
+    info: definitionInfo(p.kineticsId, v.version, v.definition),
+  });
 });
 
 /** Saves a new version (its creator or a lab manager); earlier versions are kept unchanged. */
-export const PATCH = labRoute<P>("kinetics.edit", async (ctx, request, p) => json(await updateLabKinetics(ctx, p.kineticsId, await readJson(request, labKineticsUpdateSchema))));
+export const PATCH = labRoute<P>("kinetics.edit", async (ctx, request, p) =>
+  json(await updateLabKinetics(ctx, p.kineticsId, await readJson(request, labKineticsUpdateSchema))),
+);
 
 export const DELETE = labRoute<P>("kinetics.edit", async (ctx, _request, p) => {
   await deleteLabKinetics(ctx, p.kineticsId);

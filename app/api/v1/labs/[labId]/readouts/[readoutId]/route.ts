@@ -5,4 +5,6 @@ import { labRoute } from "@/lib/server/lab-route";
 export const runtime = "nodejs";
 
 /** One readout: status and progress while it runs, then every number, its settings and links to the derived products. */
-export const GET = labRoute<{ labId: string; readoutId: string }>("upload.read", async (ctx, _request, p) => json(await getReadout(ctx, p.readoutId)));
+export const GET = labRoute<{ labId: string; readoutId: string }>("upload.read", async (ctx, _request, p) =>
+  json(await getReadout(ctx, p.readoutId)),
+);

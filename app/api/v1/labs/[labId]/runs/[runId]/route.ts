@@ -5,4 +5,6 @@ import { labRoute } from "@/lib/server/lab-route";
 export const runtime = "nodejs";
 
 /** One run: status and progress while it runs, then the plan, the result and links to its files. */
-export const GET = labRoute<{ labId: string; runId: string }>("lab.read", async (ctx, _request, p) => json(await getRun(ctx, p.runId)));
+export const GET = labRoute<{ labId: string; runId: string }>("lab.read", async (ctx, _request, p) =>
+  json(await getRun(ctx, p.runId)),
+);

@@ -9,7 +9,9 @@ type P = { labId: string; specimenId: string };
 
 export const GET = labRoute<P>("lab.read", async (ctx, _request, p) => json(await getSpecimen(ctx, p.specimenId)));
 
-export const PATCH = labRoute<P>("specimen.edit", async (ctx, request, p) => json(await updateSpecimen(ctx, p.specimenId, await readJson(request, specimenUpdateSchema))));
+export const PATCH = labRoute<P>("specimen.edit", async (ctx, request, p) =>
+  json(await updateSpecimen(ctx, p.specimenId, await readJson(request, specimenUpdateSchema))),
+);
 
 export const DELETE = labRoute<P>("specimen.delete", async (ctx, _request, p) => {
   await deleteSpecimen(ctx, p.specimenId);

@@ -9,7 +9,9 @@ type P = { labId: string; studyId: string };
 
 export const GET = labRoute<P>("lab.read", async (ctx, _request, p) => json(await getStudy(ctx, p.studyId)));
 
-export const PATCH = labRoute<P>("study.edit", async (ctx, request, p) => json(await updateStudy(ctx, p.studyId, await readJson(request, studyUpdateSchema))));
+export const PATCH = labRoute<P>("study.edit", async (ctx, request, p) =>
+  json(await updateStudy(ctx, p.studyId, await readJson(request, studyUpdateSchema))),
+);
 
 export const DELETE = labRoute<P>("study.delete", async (ctx, _request, p) => {
   await deleteStudy(ctx, p.studyId);

@@ -10,4 +10,6 @@ type P = { labId: string; threadId: string };
 export const GET = labRoute<P>("lab.read", async (ctx, _request, p) => json(await getThread(ctx, p.threadId)));
 
 /** { status: "open" | "resolved" }: resolve or reopen. */
-export const PATCH = labRoute<P>("comment.create", async (ctx, request, p) => json(await setThreadStatus(ctx, p.threadId, (await readJson(request, threadUpdateSchema)).status)));
+export const PATCH = labRoute<P>("comment.create", async (ctx, request, p) =>
+  json(await setThreadStatus(ctx, p.threadId, (await readJson(request, threadUpdateSchema)).status)),
+);

@@ -12,5 +12,7 @@ export const GET = labRoute<{ labId: string; fitId: string }>("lab.read", async 
   const format = querySchema.safeParse(new URL(request.url).searchParams.get("format") ?? "json");
   if (!format.success) throw new AppError("bad_input", format.error.issues[0].message);
   const file = await exportFit(ctx, p.fitId, format.data);
-  return new Response(file.body, { headers: { "content-type": file.contentType, "content-disposition": `attachment; filename="${file.filename}"` } });
+  return new Response(file.body, {
+    headers: { "content-type": file.contentType, "content-disposition": `attachment; filename="${file.filename}"` },
+  });
 });

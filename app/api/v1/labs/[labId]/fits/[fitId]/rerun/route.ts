@@ -5,4 +5,6 @@ import { labRoute } from "@/lib/server/lab-route";
 export const runtime = "nodejs";
 
 /** Runs the stored spec again as a new fit (202); the numbers must come out the same. */
-export const POST = labRoute<{ labId: string; fitId: string }>("fit.create", async (ctx, _request, p) => json(await rerunFit(ctx, p.fitId), 202));
+export const POST = labRoute<{ labId: string; fitId: string }>("fit.create", async (ctx, _request, p) =>
+  json(await rerunFit(ctx, p.fitId), 202),
+);

@@ -5,4 +5,6 @@ import { labRoute } from "@/lib/server/lab-route";
 export const runtime = "nodejs";
 
 /** Every version, newest first, with its definition. */
-export const GET = labRoute<{ labId: string; kineticsId: string }>("lab.read", async (ctx, _request, p) => json({ items: await listKineticsVersions(ctx, p.kineticsId) }));
+export const GET = labRoute<{ labId: string; kineticsId: string }>("lab.read", async (ctx, _request, p) =>
+  json({ items: await listKineticsVersions(ctx, p.kineticsId) }),
+);

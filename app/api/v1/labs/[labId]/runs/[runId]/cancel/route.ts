@@ -5,4 +5,6 @@ import { labRoute } from "@/lib/server/lab-route";
 export const runtime = "nodejs";
 
 /** Cancels a queued or running run (its creator or a lab manager). */
-export const POST = labRoute<{ labId: string; runId: string }>("job.cancel", async (ctx, _request, p) => json(await cancelRun(ctx, p.runId)));
+export const POST = labRoute<{ labId: string; runId: string }>("job.cancel", async (ctx, _request, p) =>
+  json(await cancelRun(ctx, p.runId)),
+);

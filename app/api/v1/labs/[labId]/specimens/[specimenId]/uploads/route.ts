@@ -8,7 +8,11 @@ export const runtime = "nodejs";
 
 type P = { labId: string; specimenId: string };
 
-export const GET = labRoute<P>("upload.read", async (ctx, request, p) => json(await listUploads(ctx, p.specimenId, parseListQuery(request.url, UPLOAD_SORTS, "createdAt", "desc"))));
+export const GET = labRoute<P>("upload.read", async (ctx, request, p) =>
+  json(await listUploads(ctx, p.specimenId, parseListQuery(request.url, UPLOAD_SORTS, "createdAt", "desc"))),
+);
 
 /** multipart/form-data: `file` (PNG, JPEG, TIFF, CSV or TSV) and optional `pixelSizeUm` (µm/px). */
-export const POST = labRoute<P>("upload.create", async (ctx, request, p) => json(await receiveUpload(ctx, p.specimenId, request), 201));
+export const POST = labRoute<P>("upload.create", async (ctx, request, p) =>
+  json(await receiveUpload(ctx, p.specimenId, request), 201),
+);

@@ -9,7 +9,11 @@ export const runtime = "nodejs";
 /** Readouts grouped by condition (mean ± 95 % CI) and Welch's t-test between `?a=` and `?b=`. */
 export const GET = labRoute<{ labId: string; studyId: string }>("upload.read", async (ctx, request, p) => {
   const params = new URL(request.url).searchParams;
-  const q = comparisonQuerySchema.safeParse({ a: params.get("a") ?? undefined, b: params.get("b") ?? undefined, replicate: params.get("replicate") ?? undefined });
+  const q = comparisonQuerySchema.safeParse({
+    a: params.get("a") ?? undefined,
+    b: params.get("b") ?? undefined,
+    replicate: params.get("replicate") ?? undefined,
+  });
   if (!q.success) throw new AppError("bad_input", q.error.issues.map((i) => i.message).join("; "));
   return json(await compareConditions(ctx, p.studyId, q.data));
 });

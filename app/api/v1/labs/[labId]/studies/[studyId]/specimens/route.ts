@@ -8,6 +8,10 @@ export const runtime = "nodejs";
 
 type P = { labId: string; studyId: string };
 
-export const GET = labRoute<P>("lab.read", async (ctx, request, p) => json(await listSpecimens(ctx, p.studyId, parseListQuery(request.url, SPECIMEN_SORTS, "label", "asc"))));
+export const GET = labRoute<P>("lab.read", async (ctx, request, p) =>
+  json(await listSpecimens(ctx, p.studyId, parseListQuery(request.url, SPECIMEN_SORTS, "label", "asc"))),
+);
 
-export const POST = labRoute<P>("specimen.create", async (ctx, request, p) => json(await createSpecimen(ctx, p.studyId, await readJson(request, specimenCreateSchema)), 201));
+export const POST = labRoute<P>("specimen.create", async (ctx, request, p) =>
+  json(await createSpecimen(ctx, p.studyId, await readJson(request, specimenCreateSchema)), 201),
+);

@@ -8,4 +8,6 @@ export const runtime = "nodejs";
 type P = { labId: string; threadId: string };
 
 /** A comment or a reply (`parentId`); answers the thread, the comment and whether e-mail went out. */
-export const POST = labRoute<P>("comment.create", async (ctx, request, p) => json(await addComment(ctx, p.threadId, await readJson(request, commentCreateSchema)), 201));
+export const POST = labRoute<P>("comment.create", async (ctx, request, p) =>
+  json(await addComment(ctx, p.threadId, await readJson(request, commentCreateSchema)), 201),
+);

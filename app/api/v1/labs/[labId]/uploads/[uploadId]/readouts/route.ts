@@ -8,7 +8,11 @@ export const runtime = "nodejs";
 type P = { labId: string; uploadId: string };
 
 /** Every readout of one upload, newest first (old ones stay: readouts are immutable). */
-export const GET = labRoute<P>("upload.read", async (ctx, request, p) => json(await listReadouts(ctx, { uploadId: p.uploadId }, parseListQuery(request.url, READOUT_SORTS, "createdAt", "desc"))));
+export const GET = labRoute<P>("upload.read", async (ctx, request, p) =>
+  json(
+    await listReadouts(ctx, { uploadId: p.uploadId }, parseListQuery(request.url, READOUT_SORTS, "createdAt", "desc")),
+  ),
+);
 
 /**
  * Starts a new readout as a background job (202). JSON body, all optional — images: `roi`

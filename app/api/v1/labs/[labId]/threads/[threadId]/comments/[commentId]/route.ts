@@ -7,7 +7,9 @@ export const runtime = "nodejs";
 
 type P = { labId: string; threadId: string; commentId: string };
 
-export const PATCH = labRoute<P>("comment.edit", async (ctx, request, p) => json(await editComment(ctx, p.threadId, p.commentId, await readJson(request, commentUpdateSchema))));
+export const PATCH = labRoute<P>("comment.edit", async (ctx, request, p) =>
+  json(await editComment(ctx, p.threadId, p.commentId, await readJson(request, commentUpdateSchema))),
+);
 
 /** Soft delete: a "comment deleted" placeholder stays so replies still read. */
 export const DELETE = labRoute<P>("comment.delete", async (ctx, _request, p) => {
