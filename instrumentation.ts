@@ -7,8 +7,8 @@ export async function register() {
   if (process.env.NEXT_RUNTIME !== "nodejs") return;
   const { readConfig } = await import("@/lib/server/config");
   if (readConfig().trustProxyHops === 0) {
-    // A client may not choose its own address for the rate limits (see lib/server/client-address.ts).
-    const { dropClientForwardedFor } = await import("@/lib/server/client-address");
+    // A client may not choose its own address for the rate limits (see lib/server/web/client-address.ts).
+    const { dropClientForwardedFor } = await import("@/lib/server/web/client-address");
     dropClientForwardedFor();
   }
   const { runStartupTasks } = await import("./lib/server/startup");

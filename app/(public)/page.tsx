@@ -1,6 +1,6 @@
 import Link from "next/link";
 import { redirect } from "next/navigation";
-import { getActor } from "@/lib/server/actor";
+import { getActor } from "@/lib/server/accounts/actor";
 
 export const dynamic = "force-dynamic";
 

@@ -5,7 +5,7 @@
  */
 import { formatSig } from "./spectrum-format";
 
-/** The colour map of the stored images (lib/server/data/simulation-run-images.ts). */
+/** The colour map of the stored images (lib/server/runs/images.ts). */
 export const FIELD_GRADIENT = "linear-gradient(to right, #f6f1e6 0%, #dcebe2 35%, #1f5c45 70%, #22201b 100%)";
 
 /** A round length (1, 2 or 5 × 10ⁿ) near a quarter of the width, for the scale bar. */

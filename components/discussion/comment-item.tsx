@@ -72,7 +72,7 @@ export function CommentItem({ comment, members, onEdit, onDelete }: CommentItemP
           />
         </div>
       ) : (
-        // bodyHtml is sanitised on the server against an allow-list (lib/server/data/discussion-render.ts).
+        // bodyHtml is sanitised on the server against an allow-list (lib/server/discussions/render.ts).
         <div className={BODY_CLASS} dangerouslySetInnerHTML={{ __html: comment.bodyHtml }} data-testid="comment-body" />
       )}
     </div>

@@ -6,7 +6,7 @@ import { z } from "zod";
 
 /**
  * What a thread may be about. Later work adds its kind here and one resolver line in
- * `lib/server/data/discussion-targets.ts`.
+ * `lib/server/discussions/targets.ts`.
  */
 export const DISCUSSION_TARGET_TYPES = ["readout", "fit", "upload"] as const;
 export type DiscussionTargetType = (typeof DISCUSSION_TARGET_TYPES)[number];

@@ -4,7 +4,7 @@
  */
 import { can, type Action } from "@/lib/access/permissions";
 import type { Role } from "@/lib/access/roles";
-import type { Actor } from "./actor-type";
+import type { Actor } from "./accounts/actor-type";
 import { AppError, forbidden, notFound } from "./errors";
 import { database } from "./services";
 

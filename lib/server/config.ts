@@ -37,16 +37,16 @@ export function readConfig() {
       (process.env.NODE_ENV === "production" && !process.env.MORPHOKIN_DEMO ? "" : "http://127.0.0.1:2526"),
     /**
      * A production build serves the development mailbox only with this explicit opt-in
-     * (`npm start`, the local demo, sets it); see lib/server/data/mailbox.ts for the other conditions.
+     * (`npm start`, the local demo, sets it); see lib/server/labs/mailbox.ts for the other conditions.
      */
     devMailboxOptIn: process.env.MORPHOKIN_DEV_MAILBOX === "1",
     productionBuild: process.env.NODE_ENV === "production",
     /**
      * Reverse proxies in front of the app whose X-Forwarded-For entries are trusted (0: none, the
-     * app is reached directly; see lib/server/client-address.ts).
+     * app is reached directly; see lib/server/web/client-address.ts).
      */
     trustProxyHops: num("TRUST_PROXY", 0),
-    /** Per-window limits (lib/server/rate-limit.ts): attempts per account (e-mail) and per client address. */
+    /** Per-window limits (lib/server/web/rate-limit.ts): attempts per account (e-mail) and per client address. */
     rateLimits: {
       windowMinutes: num("RATE_LIMIT_WINDOW_MINUTES", 15),
       signIn: {

@@ -3,10 +3,10 @@
  * instrumentation.ts, Next's start-up hook, in the Node.js runtime only). Each task logs its own
  * failure and never stops the others or the server from starting.
  */
-import { startTokenExpirySweep } from "./data/tokens";
+import { startTokenExpirySweep } from "./accounts/tokens";
 import { recoverJobs } from "./jobs/runner";
 import { removeStaleJobFolders } from "./jobs/temp-folders";
-import { recoverUploadsAtStart } from "./upload-recovery";
+import { recoverUploadsAtStart } from "./uploads/recovery";
 
 export interface StartupTask {
   name: string;

@@ -4,7 +4,7 @@ import "next-auth/jwt";
 declare module "next-auth" {
   interface Session {
     user: { id: string; email: string; name?: string | null };
-    /** The server-side session id (lib/server/sessions.ts). */
+    /** The server-side session id (lib/server/accounts/sessions.ts). */
     sid?: string;
   }
 }

@@ -4,7 +4,7 @@
  * list; the lab managers' list of their members).
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { listMemberAccountEvents, listOwnAccountEvents, recordSignIn } from "@/lib/server/data/audit";
+import { listMemberAccountEvents, listOwnAccountEvents, recordSignIn } from "@/lib/server/audit";
 import { database } from "@/lib/server/services";
 import { call, discoverRoutes } from "../support/api";
 import { startTestStack, type TestStack } from "../support/stack";

@@ -1,7 +1,7 @@
 /** Edits of studies and specimens are in the lab's audit trail: field by field, old → new. */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { createSpecimen, updateSpecimen } from "@/lib/server/data/specimens";
-import { createStudy, updateStudy } from "@/lib/server/data/studies";
+import { createSpecimen, updateSpecimen } from "@/lib/server/studies/specimens";
+import { createStudy, updateStudy } from "@/lib/server/studies/studies";
 import { database } from "@/lib/server/services";
 import { startTestStack, type TestStack } from "../support/stack";
 import { makeWorld, type World } from "../support/world";

@@ -4,8 +4,8 @@
  * exactly once (on use, on listing, or by the start-up sweep).
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { listOwnAccountEvents } from "@/lib/server/data/audit";
-import { recordExpiredTokens } from "@/lib/server/data/tokens";
+import { listOwnAccountEvents } from "@/lib/server/audit";
+import { recordExpiredTokens } from "@/lib/server/accounts/tokens";
 import { database } from "@/lib/server/services";
 import { call, discoverRoutes } from "../support/api";
 import { startTestStack, type TestStack } from "../support/stack";

@@ -5,7 +5,7 @@
  * Expected behaviour: the issue's rules (common practice, no source).
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { hashPassword } from "@/lib/server/passwords";
+import { hashPassword } from "@/lib/server/accounts/passwords";
 import { newSecret, sha256Hex } from "@/lib/server/secrets";
 import { database } from "@/lib/server/services";
 import { call, discoverRoutes } from "../support/api";

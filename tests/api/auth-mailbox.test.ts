@@ -5,8 +5,8 @@
  * Expected behaviour: the issue's rules (common practice, no source).
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { authOptions } from "@/lib/server/auth";
-import { mailboxEnabled } from "@/lib/server/data/mailbox";
+import { authOptions } from "@/lib/server/accounts/auth";
+import { mailboxEnabled } from "@/lib/server/labs/mailbox";
 import { call, discoverRoutes } from "../support/api";
 import { listMail, waitForMailWithSubject } from "../support/mail";
 import { startTestStack, type TestStack } from "../support/stack";

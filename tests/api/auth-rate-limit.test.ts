@@ -7,11 +7,11 @@
  */
 import http from "node:http";
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from "vitest";
-import { checkPassword } from "@/lib/server/auth";
+import { checkPassword } from "@/lib/server/accounts/auth";
 import { database } from "@/lib/server/services";
-import { guardAuthRequest } from "@/lib/server/auth-limits";
-import { clientAddress, dropClientForwardedFor } from "@/lib/server/client-address";
-import { lockedForS } from "@/lib/server/rate-limit";
+import { guardAuthRequest } from "@/lib/server/accounts/auth-limits";
+import { clientAddress, dropClientForwardedFor } from "@/lib/server/web/client-address";
+import { lockedForS } from "@/lib/server/web/rate-limit";
 import { call, discoverRoutes } from "../support/api";
 import { freePort, startTestStack, type TestStack } from "../support/stack";
 import { makeWorld, type World } from "../support/world";

@@ -8,8 +8,8 @@
 import type { Session } from "next-auth";
 import type { JWT } from "next-auth/jwt";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { authOptions, checkPassword } from "@/lib/server/auth";
-import { changePassword } from "@/lib/server/data/accounts";
+import { authOptions, checkPassword } from "@/lib/server/accounts/auth";
+import { changePassword } from "@/lib/server/accounts/accounts";
 import { call, discoverRoutes } from "../support/api";
 import { startTestStack, type TestStack } from "../support/stack";
 import { makeWorld, type World } from "../support/world";

@@ -6,7 +6,7 @@
  */
 import bcrypt from "bcryptjs";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
-import { authOptions, checkPassword } from "@/lib/server/auth";
+import { authOptions, checkPassword } from "@/lib/server/accounts/auth";
 import { database } from "@/lib/server/services";
 import { call, discoverRoutes } from "../support/api";
 import { listMail, waitForMailWithSubject } from "../support/mail";

@@ -6,10 +6,10 @@
 import { createHash } from "node:crypto";
 import sharp from "sharp";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { createSpecimen } from "@/lib/server/data/specimens";
-import { createStudy } from "@/lib/server/data/studies";
+import { createSpecimen } from "@/lib/server/studies/specimens";
+import { createStudy } from "@/lib/server/studies/studies";
 import { createS3ObjectStore } from "@/storage/s3-object-store";
-import { authOptions } from "@/lib/server/auth";
+import { authOptions } from "@/lib/server/accounts/auth";
 import { database, setServicesForTest } from "@/lib/server/services";
 import { newSecret, sha256Hex } from "@/lib/server/secrets";
 import { call, discoverRoutes, multipart } from "../support/api";

@@ -4,7 +4,7 @@
  */
 import { describe, expect, it } from "vitest";
 import { insertMention, matchMembers, mentionQueryAt } from "@/components/discussion/mention-hint";
-import { resolveMentions } from "@/lib/server/data/discussion-mentions";
+import { resolveMentions } from "@/lib/server/discussions/mentions";
 
 const MEMBERS = [
   { userId: "a", name: "Mara Ellwood", email: "manager@lab.example" },

@@ -4,7 +4,7 @@
  * no source).
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { FitDetailDto } from "@/lib/server/data/fits";
+import type { FitDetailDto } from "@/lib/server/fits/fits";
 import { cancelJob } from "@/lib/server/jobs/runner";
 import { call, discoverRoutes } from "../support/api";
 import { startTestStack, type TestStack } from "../support/stack";

@@ -6,10 +6,10 @@
  */
 import Papa from "papaparse";
 import { describe, expect, it } from "vitest";
-import type { FitDetailDto } from "@/lib/server/data/fits";
-import { comparisonToCsv, type ConditionComparison } from "@/lib/server/data/readout-comparison";
-import { csvCell, csvComment } from "@/lib/server/export/csv";
-import { fitToCsv } from "@/lib/server/export/fit-csv";
+import type { FitDetailDto } from "@/lib/server/fits/fits";
+import { comparisonToCsv, type ConditionComparison } from "@/lib/server/readouts/comparison";
+import { csvCell, csvComment } from "@/lib/server/web/csv";
+import { fitToCsv } from "@/lib/server/fits/export-csv";
 
 const EVIL = ['=HYPERLINK("http://evil.test","x")', "+SUM(1,2)", "-2+3", "@cmd", "\t=1+1", "\r=1+1"];
 

@@ -6,7 +6,7 @@
  * the messages are the product's own (common practice, no source).
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { DEFAULT_JSON_LIMIT_BYTES } from "@/lib/server/http";
+import { DEFAULT_JSON_LIMIT_BYTES } from "@/lib/server/web/http";
 import { call, discoverRoutes } from "../support/api";
 import { startTestStack, type TestStack } from "../support/stack";
 import { makeWorld, type World } from "../support/world";

@@ -15,10 +15,10 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { encodePng } from "@/lib/imaging";
 import { makeStripes } from "@/lib/synthetic";
 import type { LabContext } from "@/lib/server/access";
-import { startReadout } from "@/lib/server/data/readouts";
-import { createSpecimen } from "@/lib/server/data/specimens";
-import { createStudy } from "@/lib/server/data/studies";
-import { storeUpload } from "@/lib/server/data/uploads";
+import { startReadout } from "@/lib/server/readouts/readouts";
+import { createSpecimen } from "@/lib/server/studies/specimens";
+import { createStudy } from "@/lib/server/studies/studies";
+import { storeUpload } from "@/lib/server/uploads/uploads";
 import {
   forgetRunnerStateForTest,
   INTERRUPTED_TWICE,

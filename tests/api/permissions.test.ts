@@ -8,7 +8,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { ROLES } from "@/lib/access/roles";
 import { readdirSync } from "node:fs";
 import path from "node:path";
-import { createStudy } from "@/lib/server/data/studies";
+import { createStudy } from "@/lib/server/studies/studies";
 import { call, discoverRoutes, type Method } from "../support/api";
 import { startTestStack, type TestStack } from "../support/stack";
 import { makeWorld, type World } from "../support/world";

@@ -4,7 +4,7 @@
  * being parsed can be cancelled — in-process, a synchronous parse could not be interrupted.
  */
 import { describe, expect, it } from "vitest";
-import { readTable } from "@/lib/server/data/readout-process";
+import { readTable } from "@/lib/server/readouts/process";
 import { JobCancelledError } from "@/lib/server/jobs/types";
 
 describe("table readouts in a child process", () => {

@@ -5,7 +5,7 @@
 import { monitorEventLoopDelay } from "node:perf_hooks";
 import type { BenchRow } from "./run";
 import { imageReadoutSettingsSchema } from "../../lib/contracts/readout";
-import { readImage, readTable } from "../../lib/server/data/readout-process";
+import { readImage, readTable } from "../../lib/server/readouts/process";
 import { decodeImage, encodeTiff16 } from "../../lib/imaging";
 import { readWavelength } from "../../lib/readout";
 import { makeHexSpots } from "../../lib/synthetic";

@@ -3,10 +3,10 @@
  * token, built through the same data-access functions the app uses.
  */
 import { ROLES, type Role } from "@/lib/access/roles";
-import { createToken } from "@/lib/server/data/tokens";
-import { signUp } from "@/lib/server/data/accounts";
+import { createToken } from "@/lib/server/accounts/tokens";
+import { signUp } from "@/lib/server/accounts/accounts";
 import { database } from "@/lib/server/services";
-import type { Actor } from "@/lib/server/actor";
+import type { Actor } from "@/lib/server/accounts/actor";
 
 export interface Person {
   userId: string;

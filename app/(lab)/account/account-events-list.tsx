@@ -1,7 +1,7 @@
 /** A short list of account events (sign-ins, API tokens), newest first; server-rendered, no data access. */
 import { Badge } from "@/components/ui/panel";
 import { formatDateTime } from "@/lib/client/format";
-import type { AccountEventDto } from "@/lib/server/data/audit";
+import type { AccountEventDto } from "@/lib/server/audit";
 
 const tone = (action: string) =>
   action === "signin.failed" || action === "signin.locked" ? "brick" : action.startsWith("token.") ? "iris" : "plain";

@@ -11,7 +11,7 @@ import { Badge } from "@/components/ui/panel";
 import { ApiError, fetchJson, sendJson } from "@/lib/client/api";
 import { formatDate, formatDateTime } from "@/lib/client/format";
 import { DEFAULT_TOKEN_LIFETIME_DAYS, TOKEN_LIFETIMES_DAYS, tokenCreateSchema } from "@/lib/contracts/account";
-import type { TokenDto } from "@/lib/server/data/tokens";
+import type { TokenDto } from "@/lib/server/accounts/tokens";
 
 export function TokensView() {
   const { data, mutate } = useSWR<{ items: TokenDto[] }>("/api/v1/tokens", fetchJson);

@@ -1,8 +1,8 @@
 import { redirect } from "next/navigation";
 import { AppShell } from "@/components/layout/app-shell";
 import { EmptyState, PageHeader } from "@/components/ui/panel";
-import { getMe } from "@/lib/server/data/accounts";
-import { pageActor } from "@/lib/server/page-access";
+import { getMe } from "@/lib/server/accounts/accounts";
+import { pageActor } from "@/lib/server/web/page-access";
 import { CreateLabForm } from "../account/create-lab-form";
 
 export const dynamic = "force-dynamic";

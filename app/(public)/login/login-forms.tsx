@@ -18,7 +18,7 @@ const ERRORS: Record<string, string> = {
   SessionRequired: "Sign in to open that page.",
 };
 
-/** "Locked:14" / "RateLimited:3" (lib/server/auth-limits.ts) → a sentence with the minutes; else a known code. */
+/** "Locked:14" / "RateLimited:3" (lib/server/accounts/auth-limits.ts) → a sentence with the minutes; else a known code. */
 function describeError(code: string): string {
   const [kind, minutes] = code.split(":");
   const wait = minutes === "1" ? "1 minute" : `${minutes} minutes`;

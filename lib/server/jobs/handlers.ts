@@ -2,6 +2,6 @@
  * Imports every job handler module so that it registers itself. One line per module.
  */
 import "./echo-job";
-import "./readout-job";
-import "./simulation-job";
-import "./fit-job";
+import "../readouts/job";
+import "../runs/job";
+import "../fits/job";

@@ -1,5 +1,5 @@
 /** Account routes added with sign-up confirmation and password change. */
-import { hashPassword } from "@/lib/server/passwords";
+import { hashPassword } from "@/lib/server/accounts/passwords";
 import { newSecret, sha256Hex } from "@/lib/server/secrets";
 import { database } from "@/lib/server/services";
 import { PUBLIC, USER, next, type Case } from "./shared";

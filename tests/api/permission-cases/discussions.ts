@@ -1,5 +1,5 @@
 /** Discussion routes: threads of a target or of the lab, one thread, comments, edit/delete, resolve/reopen. */
-import { createThread } from "@/lib/server/data/discussions";
+import { createThread } from "@/lib/server/discussions/discussions";
 import type { World } from "../../support/world";
 import { ALL, MANAGER_ONLY, lab, managerCtx, upload, type Case } from "./shared";
 

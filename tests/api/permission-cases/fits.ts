@@ -1,8 +1,8 @@
 /** Fit routes: list, start, one fit, re-run, exports. Collaborators read; they do not start or re-run. */
 import { fitCreateSchema } from "@/lib/contracts/fit";
-import { buildFitSpec } from "@/lib/server/data/fit-spec";
-import { SOFTWARE_VERSION } from "@/lib/server/data/readouts";
-import { runFitJob } from "@/lib/server/jobs/fit-job";
+import { buildFitSpec } from "@/lib/server/fits/spec";
+import { SOFTWARE_VERSION } from "@/lib/server/readouts/readouts";
+import { runFitJob } from "@/lib/server/fits/job";
 import { cancelJob } from "@/lib/server/jobs/runner";
 import { database } from "@/lib/server/services";
 import type { World } from "../../support/world";

@@ -1,5 +1,5 @@
 /** Foundation routes: accounts, labs, members, invitations, audit, studies, specimens, uploads, tokens, jobs. */
-import { createToken } from "@/lib/server/data/tokens";
+import { createToken } from "@/lib/server/accounts/tokens";
 import { database } from "@/lib/server/services";
 import { enqueueJob } from "@/lib/server/jobs/runner";
 import { multipart } from "../../support/api";

@@ -1,6 +1,6 @@
 /** Kinetics routes: the catalogue (any signed-in user), lab kinetics (kinetics.edit), analyses (lab.read). */
 import type { KineticsDefinition } from "@/lib/kinetics";
-import { createLabKinetics } from "@/lib/server/data/kinetics";
+import { createLabKinetics } from "@/lib/server/kinetics/kinetics";
 import type { World } from "../../support/world";
 import { ALL, MANAGER_ONLY, USER, lab, managerCtx, next, type Case, type Expect } from "./shared";
 

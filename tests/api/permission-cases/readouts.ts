@@ -2,10 +2,10 @@
 import { encodePng } from "@/lib/imaging";
 import { makeStripes } from "@/lib/synthetic";
 import { imageReadoutSettingsSchema } from "@/lib/contracts/readout";
-import { SOFTWARE_VERSION } from "@/lib/server/data/readouts";
-import { runReadoutJob } from "@/lib/server/jobs/readout-job";
+import { SOFTWARE_VERSION } from "@/lib/server/readouts/readouts";
+import { runReadoutJob } from "@/lib/server/readouts/job";
 import { database } from "@/lib/server/services";
-import { storeUpload } from "@/lib/server/data/uploads";
+import { storeUpload } from "@/lib/server/uploads/uploads";
 import { sha256Hex } from "@/lib/server/secrets";
 import { mkdtempSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";

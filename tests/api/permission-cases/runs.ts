@@ -1,7 +1,7 @@
 /** Verification-run routes: list, start (modellers and the manager), one run, its files, cancel. */
-import { SOFTWARE_VERSION } from "@/lib/server/data/readouts";
-import { planRun } from "@/lib/server/data/simulation-run-plan";
-import { runSimulationJob } from "@/lib/server/jobs/simulation-job";
+import { SOFTWARE_VERSION } from "@/lib/server/readouts/readouts";
+import { planRun } from "@/lib/server/runs/plan";
+import { runSimulationJob } from "@/lib/server/runs/job";
 import { database } from "@/lib/server/services";
 import type { World } from "../../support/world";
 import { ALL, lab, managerCtx, type Case, type Who } from "./shared";

@@ -6,8 +6,8 @@
 import sharp from "sharp";
 import type { Role } from "@/lib/access/roles";
 import type { LabContext } from "@/lib/server/access";
-import { createSpecimen } from "@/lib/server/data/specimens";
-import { createStudy } from "@/lib/server/data/studies";
+import { createSpecimen } from "@/lib/server/studies/specimens";
+import { createStudy } from "@/lib/server/studies/studies";
 import { newSecret, sha256Hex } from "@/lib/server/secrets";
 import { database } from "@/lib/server/services";
 import type { World } from "../../support/world";
@@ -94,7 +94,7 @@ export const specimen = async (w: World) =>
   });
 export const upload = async (w: World) => {
   const sp = await specimen(w);
-  const { storeUpload } = await import("@/lib/server/data/uploads");
+  const { storeUpload } = await import("@/lib/server/uploads/uploads");
   const { writeFileSync, mkdtempSync } = await import("node:fs");
   const { tmpdir } = await import("node:os");
   const file = `${mkdtempSync(`${tmpdir()}/mk-`)}/a.png`;

@@ -1,7 +1,7 @@
 import { AppShell } from "@/components/layout/app-shell";
-import { getActor } from "@/lib/server/actor";
-import { getMe } from "@/lib/server/data/accounts";
-import { labNav } from "@/lib/server/lab-nav";
+import { getActor } from "@/lib/server/accounts/actor";
+import { getMe } from "@/lib/server/accounts/accounts";
+import { labNav } from "@/lib/server/web/lab-nav";
 import type { Role } from "@/lib/access/roles";
 
 /** Draws navigation only; each page checks access itself. */

@@ -4,12 +4,12 @@ import { EmptyState, PageHeader, Panel } from "@/components/ui/panel";
 import { can } from "@/lib/access/permissions";
 import { ROLE_LABELS } from "@/lib/access/roles";
 import { formatDateTime } from "@/lib/client/format";
-import { listAudit } from "@/lib/server/data/audit";
-import { listStudies } from "@/lib/server/data/studies";
-import { listFits } from "@/lib/server/data/fits";
-import { listReadouts } from "@/lib/server/data/readouts";
+import { listAudit } from "@/lib/server/audit";
+import { listStudies } from "@/lib/server/studies/studies";
+import { listFits } from "@/lib/server/fits/fits";
+import { listReadouts } from "@/lib/server/readouts/readouts";
 import { RunningJobs } from "./fits/running-jobs";
-import { pageLab } from "@/lib/server/page-access";
+import { pageLab } from "@/lib/server/web/page-access";
 
 export const dynamic = "force-dynamic";
 

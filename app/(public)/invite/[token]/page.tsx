@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
-import { getActor } from "@/lib/server/actor";
-import { describeInvitation, wrongAccountMessage } from "@/lib/server/data/invitations";
+import { getActor } from "@/lib/server/accounts/actor";
+import { describeInvitation, wrongAccountMessage } from "@/lib/server/labs/invitations";
 import { AppError } from "@/lib/server/errors";
 import { Notice } from "@/components/ui/notice";
 import { AcceptForm } from "./accept-form";

@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { localMailCatcherUrl } from "@/lib/server/data/mailbox";
+import { localMailCatcherUrl } from "@/lib/server/labs/mailbox";
 
 export const metadata: Metadata = { title: "Check your e-mail" };
 export const dynamic = "force-dynamic";

@@ -1,6 +1,6 @@
 import NextAuth from "next-auth";
-import { authOptions } from "@/lib/server/auth";
-import { guardAuthRequest } from "@/lib/server/auth-limits";
+import { authOptions } from "@/lib/server/accounts/auth";
+import { guardAuthRequest } from "@/lib/server/accounts/auth-limits";
 
 export const runtime = "nodejs";
 

@@ -1,6 +1,6 @@
-import { listCatalogue } from "@/lib/server/data/kinetics";
-import { json } from "@/lib/server/http";
-import { userRoute } from "@/lib/server/lab-route";
+import { listCatalogue } from "@/lib/server/kinetics/kinetics";
+import { json } from "@/lib/server/web/http";
+import { userRoute } from "@/lib/server/web/lab-route";
 
 export const runtime = "nodejs";
 

@@ -1,7 +1,7 @@
 import { labCreateSchema } from "@/lib/contracts/lab";
-import { createLab, getMe } from "@/lib/server/data/accounts";
-import { json, readJson } from "@/lib/server/http";
-import { userRoute } from "@/lib/server/lab-route";
+import { createLab, getMe } from "@/lib/server/accounts/accounts";
+import { json, readJson } from "@/lib/server/web/http";
+import { userRoute } from "@/lib/server/web/lab-route";
 
 export const runtime = "nodejs";
 

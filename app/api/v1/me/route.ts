@@ -1,7 +1,7 @@
 import { settingsSchema } from "@/lib/contracts/account";
-import { getMe, updateSettings } from "@/lib/server/data/accounts";
-import { json, readJson } from "@/lib/server/http";
-import { userRoute } from "@/lib/server/lab-route";
+import { getMe, updateSettings } from "@/lib/server/accounts/accounts";
+import { json, readJson } from "@/lib/server/web/http";
+import { userRoute } from "@/lib/server/web/lab-route";
 
 export const runtime = "nodejs";
 

@@ -1,8 +1,8 @@
 import { signupSchema } from "@/lib/contracts/account";
-import { requestSignup } from "@/lib/server/data/accounts";
-import { json, readJson } from "@/lib/server/http";
-import { publicRoute } from "@/lib/server/lab-route";
-import { addressOf } from "@/lib/server/rate-limit";
+import { requestSignup } from "@/lib/server/accounts/accounts";
+import { json, readJson } from "@/lib/server/web/http";
+import { publicRoute } from "@/lib/server/web/lab-route";
+import { addressOf } from "@/lib/server/web/rate-limit";
 
 export const runtime = "nodejs";
 

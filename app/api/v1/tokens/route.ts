@@ -1,7 +1,7 @@
 import { tokenCreateSchema } from "@/lib/contracts/account";
-import { createToken, listTokens } from "@/lib/server/data/tokens";
-import { json, readJson } from "@/lib/server/http";
-import { userRoute } from "@/lib/server/lab-route";
+import { createToken, listTokens } from "@/lib/server/accounts/tokens";
+import { json, readJson } from "@/lib/server/web/http";
+import { userRoute } from "@/lib/server/web/lab-route";
 
 export const runtime = "nodejs";
 

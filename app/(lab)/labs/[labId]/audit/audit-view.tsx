@@ -3,7 +3,7 @@ import type { ColumnDef } from "@tanstack/react-table";
 import { DataTable } from "@/components/ui/data-table";
 import { Badge, EmptyState } from "@/components/ui/panel";
 import { formatDateTime } from "@/lib/client/format";
-import type { AuditEventDto } from "@/lib/server/data/audit";
+import type { AuditEventDto } from "@/lib/server/audit";
 
 export function AuditView({ labId }: { labId: string }) {
   const columns: ColumnDef<AuditEventDto, unknown>[] = [

@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import { PageHeader, Panel } from "@/components/ui/panel";
-import { listMemberAccountEvents } from "@/lib/server/data/audit";
-import { pageLab } from "@/lib/server/page-access";
+import { listMemberAccountEvents } from "@/lib/server/audit";
+import { pageLab } from "@/lib/server/web/page-access";
 import { AccountEventsList } from "../../../account/account-events-list";
 import { AuditView } from "./audit-view";
 

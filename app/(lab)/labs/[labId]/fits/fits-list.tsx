@@ -4,7 +4,7 @@ import Link from "next/link";
 import { DataTable } from "@/components/ui/data-table";
 import { Badge, EmptyState } from "@/components/ui/panel";
 import { formatDateTime } from "@/lib/client/format";
-import type { FitSummaryDto } from "@/lib/server/data/fits";
+import type { FitSummaryDto } from "@/lib/server/fits/fits";
 import { FIT_STATUS_TONE, FIT_STATUS_WORDS, VERDICT_TONE } from "./fit-format";
 
 export function FitsList({ labId, canFit }: { labId: string; canFit: boolean }) {

@@ -10,7 +10,7 @@ import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { Panel } from "@/components/ui/panel";
 import { ApiError, sendJson } from "@/lib/client/api";
-import type { LabKineticsDto } from "@/lib/server/data/kinetics";
+import type { LabKineticsDto } from "@/lib/server/kinetics/kinetics";
 import {
   definitionFromDraft,
   MAX_SPECIES,

@@ -4,7 +4,7 @@ import Link from "next/link";
 import { DataTable } from "@/components/ui/data-table";
 import { Badge, EmptyState } from "@/components/ui/panel";
 import { formatDate } from "@/lib/client/format";
-import type { LabKineticsDto } from "@/lib/server/data/kinetics";
+import type { LabKineticsDto } from "@/lib/server/kinetics/kinetics";
 
 export function LabKineticsList({ labId, canCreate }: { labId: string; canCreate: boolean }) {
   const columns: ColumnDef<LabKineticsDto, unknown>[] = [

@@ -3,8 +3,8 @@ import Link from "next/link";
 import { LinkButton } from "@/components/ui/button";
 import { Badge, PageHeader, Panel } from "@/components/ui/panel";
 import { can } from "@/lib/access/permissions";
-import { listCatalogue } from "@/lib/server/data/kinetics";
-import { pageLab } from "@/lib/server/page-access";
+import { listCatalogue } from "@/lib/server/kinetics/kinetics";
+import { pageLab } from "@/lib/server/web/page-access";
 import { LabKineticsList } from "./lab-kinetics-list";
 
 export const metadata: Metadata = { title: "Kinetics" };

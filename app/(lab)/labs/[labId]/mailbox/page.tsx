@@ -3,9 +3,9 @@ import { notFound } from "next/navigation";
 import { Notice } from "@/components/ui/notice";
 import { EmptyState, PageHeader } from "@/components/ui/panel";
 import { formatDateTime } from "@/lib/client/format";
-import { listMail, mailboxEnabled, type MailDto } from "@/lib/server/data/mailbox";
+import { listMail, mailboxEnabled, type MailDto } from "@/lib/server/labs/mailbox";
 import { AppError } from "@/lib/server/errors";
-import { pageLab } from "@/lib/server/page-access";
+import { pageLab } from "@/lib/server/web/page-access";
 
 export const metadata: Metadata = { title: "Mailbox (development)" };
 export const dynamic = "force-dynamic";

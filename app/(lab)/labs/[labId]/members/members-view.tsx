@@ -14,8 +14,8 @@ import { ROLE_LABELS, ROLES, type Role } from "@/lib/access/roles";
 import { ApiError, fetchJson, sendJson } from "@/lib/client/api";
 import { formatDate, formatDateTime } from "@/lib/client/format";
 import { invitationCreateSchema } from "@/lib/contracts/lab";
-import type { InvitationDto } from "@/lib/server/data/invitations";
-import type { MemberDto } from "@/lib/server/data/members";
+import type { InvitationDto } from "@/lib/server/labs/invitations";
+import type { MemberDto } from "@/lib/server/labs/members";
 
 const roleOptions = ROLES.map((r) => ({ value: r, label: ROLE_LABELS[r] }));
 

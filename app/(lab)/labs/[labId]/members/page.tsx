@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import { PageHeader } from "@/components/ui/panel";
 import { can } from "@/lib/access/permissions";
-import { pageLab } from "@/lib/server/page-access";
+import { pageLab } from "@/lib/server/web/page-access";
 import { MembersView } from "./members-view";
 
 export const metadata: Metadata = { title: "Members" };

@@ -1,5 +1,5 @@
 import { PageHeader } from "@/components/ui/panel";
-import { pageLab } from "@/lib/server/page-access";
+import { pageLab } from "@/lib/server/web/page-access";
 import { ReadoutsList } from "./readouts-list";
 
 export const dynamic = "force-dynamic";

@@ -1,7 +1,7 @@
 /** Display words for readouts, shared by the readout, specimen and study pages. Pure functions. */
 import { formatSig } from "@/components/charts/spectrum-format";
 import type { JobStatus } from "@/models/job";
-import type { ReadoutDto } from "@/lib/server/data/readouts";
+import type { ReadoutDto } from "@/lib/server/readouts/readouts";
 
 export { formatSig };
 

@@ -4,7 +4,7 @@ import Link from "next/link";
 import { DataTable } from "@/components/ui/data-table";
 import { Badge, EmptyState } from "@/components/ui/panel";
 import { formatDateTime } from "@/lib/client/format";
-import type { ReadoutDto } from "@/lib/server/data/readouts";
+import type { ReadoutDto } from "@/lib/server/readouts/readouts";
 import { formatSig, plusMinus, settingsSummary, STATUS_TONE, STATUS_WORDS } from "./readout-format";
 
 export function ReadoutsList({ labId }: { labId: string }) {

@@ -1,7 +1,7 @@
 import { LinkButton } from "@/components/ui/button";
 import { PageHeader } from "@/components/ui/panel";
 import { can } from "@/lib/access/permissions";
-import { pageLab } from "@/lib/server/page-access";
+import { pageLab } from "@/lib/server/web/page-access";
 import { RunsList } from "./runs-list";
 
 export const dynamic = "force-dynamic";

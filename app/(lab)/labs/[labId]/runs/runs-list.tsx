@@ -4,7 +4,7 @@ import Link from "next/link";
 import { DataTable } from "@/components/ui/data-table";
 import { Badge, EmptyState } from "@/components/ui/panel";
 import { formatDateTime } from "@/lib/client/format";
-import type { RunDto } from "@/lib/server/data/simulation-run-types";
+import type { RunDto } from "@/lib/server/runs/types";
 import { STATUS_TONE, STATUS_WORDS } from "../readouts/readout-format";
 import { STOP_WORDS, withUnit } from "./run-format";
 

@@ -12,7 +12,7 @@ import { Badge, EmptyState, Panel } from "@/components/ui/panel";
 import { ApiError, sendJson } from "@/lib/client/api";
 import { formatDate } from "@/lib/client/format";
 import { studyCreateSchema, type StudyInput } from "@/lib/contracts/study";
-import type { StudyDto } from "@/lib/server/data/studies";
+import type { StudyDto } from "@/lib/server/studies/studies";
 
 export function StudiesView({ labId, canCreate }: { labId: string; canCreate: boolean }) {
   const [refresh, setRefresh] = useState(0);

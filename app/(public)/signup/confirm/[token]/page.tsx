@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import { Notice } from "@/components/ui/notice";
-import { describeSignupRequest } from "@/lib/server/data/accounts";
+import { describeSignupRequest } from "@/lib/server/accounts/accounts";
 import { AppError } from "@/lib/server/errors";
 import { ConfirmForm } from "./confirm-form";
 

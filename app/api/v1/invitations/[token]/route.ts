@@ -1,6 +1,6 @@
-import { describeInvitation } from "@/lib/server/data/invitations";
-import { json } from "@/lib/server/http";
-import { publicRoute } from "@/lib/server/lab-route";
+import { describeInvitation } from "@/lib/server/labs/invitations";
+import { json } from "@/lib/server/web/http";
+import { publicRoute } from "@/lib/server/web/lab-route";
 
 export const runtime = "nodejs";
 

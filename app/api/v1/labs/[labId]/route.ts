@@ -1,5 +1,5 @@
-import { json } from "@/lib/server/http";
-import { labRoute } from "@/lib/server/lab-route";
+import { json } from "@/lib/server/web/http";
+import { labRoute } from "@/lib/server/web/lab-route";
 
 export const runtime = "nodejs";
 

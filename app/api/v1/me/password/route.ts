@@ -1,8 +1,8 @@
 import { changePasswordSchema } from "@/lib/contracts/account";
-import { currentSessionId } from "@/lib/server/actor";
-import { changePassword } from "@/lib/server/data/accounts";
-import { json, readJson } from "@/lib/server/http";
-import { userRoute } from "@/lib/server/lab-route";
+import { currentSessionId } from "@/lib/server/accounts/actor";
+import { changePassword } from "@/lib/server/accounts/accounts";
+import { json, readJson } from "@/lib/server/web/http";
+import { userRoute } from "@/lib/server/web/lab-route";
 
 export const runtime = "nodejs";
 

@@ -1,7 +1,7 @@
 import { signupConfirmSchema } from "@/lib/contracts/account";
-import { confirmSignup } from "@/lib/server/data/accounts";
-import { json, readJson } from "@/lib/server/http";
-import { publicRoute } from "@/lib/server/lab-route";
+import { confirmSignup } from "@/lib/server/accounts/accounts";
+import { json, readJson } from "@/lib/server/web/http";
+import { publicRoute } from "@/lib/server/web/lab-route";
 
 export const runtime = "nodejs";
 

@@ -1,5 +1,5 @@
-import { revokeToken } from "@/lib/server/data/tokens";
-import { userRoute } from "@/lib/server/lab-route";
+import { revokeToken } from "@/lib/server/accounts/tokens";
+import { userRoute } from "@/lib/server/web/lab-route";
 
 export const runtime = "nodejs";
 

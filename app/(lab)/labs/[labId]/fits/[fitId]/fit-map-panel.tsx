@@ -12,8 +12,8 @@ import { FitTuringMap } from "@/components/charts/fit-turing-map";
 import { Notice } from "@/components/ui/notice";
 import { Panel } from "@/components/ui/panel";
 import { sendJson, type ApiError } from "@/lib/client/api";
-import type { FittedModelResult } from "@/lib/server/data/fit-result";
-import type { TuringMapDto } from "@/lib/server/data/kinetics-map";
+import type { FittedModelResult } from "@/lib/server/fits/result";
+import type { TuringMapDto } from "@/lib/server/kinetics/map";
 
 const SCALES = ["lengthScaleUm", "timeScaleS"];
 const select = "rounded-md border border-rule bg-card px-2 py-1 text-sm";

@@ -14,8 +14,8 @@ import { FitValley } from "@/components/charts/fit-valley";
 import { SensitivityBars } from "@/components/charts/sensitivity-bars";
 import { Notice } from "@/components/ui/notice";
 import { Badge, Panel } from "@/components/ui/panel";
-import type { FitDetailDto } from "@/lib/server/data/fits";
-import type { FittedModelResult } from "@/lib/server/data/fit-result";
+import type { FitDetailDto } from "@/lib/server/fits/fits";
+import type { FittedModelResult } from "@/lib/server/fits/result";
 import { VERDICT_TONE } from "../fit-format";
 import { FitMapPanel } from "./fit-map-panel";
 

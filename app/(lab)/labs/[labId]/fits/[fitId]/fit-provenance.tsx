@@ -3,7 +3,7 @@
 import Link from "next/link";
 import { formatNumber as f } from "@/components/charts/dispersion-format";
 import { Panel } from "@/components/ui/panel";
-import type { FitDetailDto } from "@/lib/server/data/fits";
+import type { FitDetailDto } from "@/lib/server/fits/fits";
 
 export function FitProvenance({ labId, fit }: { labId: string; fit: FitDetailDto }) {
   const p = fit.provenance;

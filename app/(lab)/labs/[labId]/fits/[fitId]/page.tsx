@@ -2,8 +2,8 @@ import Link from "next/link";
 import { Discussion } from "@/components/discussion/discussion";
 import { PageHeader } from "@/components/ui/panel";
 import { can } from "@/lib/access/permissions";
-import { getFit } from "@/lib/server/data/fits";
-import { orNotFound, pageLab } from "@/lib/server/page-access";
+import { getFit } from "@/lib/server/fits/fits";
+import { orNotFound, pageLab } from "@/lib/server/web/page-access";
 import { FitView } from "./fit-view";
 
 export const dynamic = "force-dynamic";

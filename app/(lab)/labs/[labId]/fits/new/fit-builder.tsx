@@ -10,9 +10,9 @@ import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { EmptyState, Panel } from "@/components/ui/panel";
 import { ApiError, sendJson } from "@/lib/client/api";
-import type { FitCandidateDto } from "@/lib/server/data/fit-candidates";
-import type { FitDetailDto } from "@/lib/server/data/fits";
-import type { KineticsInfoDto } from "@/lib/server/data/kinetics";
+import type { FitCandidateDto } from "@/lib/server/fits/candidates";
+import type { FitDetailDto } from "@/lib/server/fits/fits";
+import type { KineticsInfoDto } from "@/lib/server/kinetics/kinetics";
 import { keyOf, ModelEditor, modelBody, newModel, num, type ModelDraft } from "./fit-model-editor";
 
 const field =

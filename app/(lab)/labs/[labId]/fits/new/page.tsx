@@ -1,14 +1,14 @@
 import Link from "next/link";
 import { PageHeader } from "@/components/ui/panel";
-import { listFitCandidates } from "@/lib/server/data/fit-candidates";
+import { listFitCandidates } from "@/lib/server/fits/candidates";
 import {
   definitionInfo,
   getLabKineticsVersion,
   listCatalogue,
   listLabKinetics,
   type KineticsInfoDto,
-} from "@/lib/server/data/kinetics";
-import { pageLab } from "@/lib/server/page-access";
+} from "@/lib/server/kinetics/kinetics";
+import { pageLab } from "@/lib/server/web/page-access";
 import { FitBuilder } from "./fit-builder";
 
 export const dynamic = "force-dynamic";

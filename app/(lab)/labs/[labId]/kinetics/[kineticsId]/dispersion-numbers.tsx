@@ -2,7 +2,7 @@
 /** The numbers beside the dispersion plot: class, steady state, k*, σ(k*), bands, λ*, domain mode, Turing conditions. */
 import { formatNumber as f, type unitsFor } from "@/components/charts/dispersion-format";
 import { Badge } from "@/components/ui/panel";
-import type { DispersionDto } from "@/lib/server/data/kinetics-analyses";
+import type { DispersionDto } from "@/lib/server/kinetics/analyses";
 
 type Units = ReturnType<typeof unitsFor>;
 

@@ -5,8 +5,8 @@ import { DispersionGradientPlot } from "@/components/charts/dispersion-gradient-
 import { formatNumber as f } from "@/components/charts/dispersion-format";
 import { Notice } from "@/components/ui/notice";
 import { Panel } from "@/components/ui/panel";
-import type { KineticsInfoDto } from "@/lib/server/data/kinetics";
-import type { GradientDto } from "@/lib/server/data/kinetics-analyses";
+import type { KineticsInfoDto } from "@/lib/server/kinetics/kinetics";
+import type { GradientDto } from "@/lib/server/kinetics/analyses";
 import type { AnalysisBase } from "./analysis-view";
 import { ComputingBadge } from "./computing-badge";
 import { numberOrText, useAnalysis } from "./use-analysis";

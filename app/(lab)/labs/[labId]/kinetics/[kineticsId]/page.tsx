@@ -15,9 +15,9 @@ import {
   type KineticsInfoDto,
   type KineticsVersionDto,
   type LabKineticsDto,
-} from "@/lib/server/data/kinetics";
+} from "@/lib/server/kinetics/kinetics";
 import { AppError } from "@/lib/server/errors";
-import { orNotFound, pageLab } from "@/lib/server/page-access";
+import { orNotFound, pageLab } from "@/lib/server/web/page-access";
 import { AnalysisView } from "./analysis-view";
 import { DeleteKineticsButton } from "./delete-kinetics-button";
 

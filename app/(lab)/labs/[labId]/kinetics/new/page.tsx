@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { PageHeader } from "@/components/ui/panel";
-import { pageLab } from "@/lib/server/page-access";
+import { pageLab } from "@/lib/server/web/page-access";
 import { emptyDraft } from "../kinetics-draft";
 import { KineticsEditor } from "../kinetics-editor";
 

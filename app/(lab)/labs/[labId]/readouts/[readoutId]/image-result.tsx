@@ -8,8 +8,8 @@ import { Panel } from "@/components/ui/panel";
 import { RoiEditor } from "@/components/ui/roi-editor";
 import { fetchJson } from "@/lib/client/api";
 import type { RoiInput } from "@/lib/contracts/readout";
-import type { ReadoutDetailDto } from "@/lib/server/data/readouts";
-import type { ImageReadoutResult, SpectrumProducts } from "@/lib/server/data/readout-result";
+import type { ReadoutDetailDto } from "@/lib/server/readouts/readouts";
+import type { ImageReadoutResult, SpectrumProducts } from "@/lib/server/readouts/result";
 import { formatSig, pixelSizeLabel, plusMinus } from "../readout-format";
 
 const METHOD_WORDS = {

@@ -1,8 +1,8 @@
 import Link from "next/link";
 import { PageHeader } from "@/components/ui/panel";
 import { can } from "@/lib/access/permissions";
-import { getReadout } from "@/lib/server/data/readouts";
-import { orNotFound, pageLab } from "@/lib/server/page-access";
+import { getReadout } from "@/lib/server/readouts/readouts";
+import { orNotFound, pageLab } from "@/lib/server/web/page-access";
 import { Discussion } from "@/components/discussion/discussion";
 import { ReadoutView } from "./readout-view";
 

@@ -7,7 +7,7 @@ import { Panel } from "@/components/ui/panel";
 import { RoiEditor } from "@/components/ui/roi-editor";
 import { ApiError, sendJson } from "@/lib/client/api";
 import type { RoiInput } from "@/lib/contracts/readout";
-import type { ReadoutDetailDto, ReadoutDto } from "@/lib/server/data/readouts";
+import type { ReadoutDetailDto, ReadoutDto } from "@/lib/server/readouts/readouts";
 
 const selectClass = "rounded-md border border-rule bg-card px-2 py-1.5 text-sm";
 

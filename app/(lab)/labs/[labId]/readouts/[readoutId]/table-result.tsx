@@ -2,7 +2,7 @@
 import { Notice } from "@/components/ui/notice";
 import { Panel } from "@/components/ui/panel";
 import type { Summary } from "@/lib/spacing";
-import type { TableReadoutResult } from "@/lib/server/data/readout-result";
+import type { TableReadoutResult } from "@/lib/server/readouts/result";
 import { formatSig, pixelSizeLabel } from "../readout-format";
 
 const KIND_WORDS = {

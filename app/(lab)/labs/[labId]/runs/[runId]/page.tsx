@@ -1,8 +1,8 @@
 import Link from "next/link";
 import { PageHeader } from "@/components/ui/panel";
 import { can } from "@/lib/access/permissions";
-import { getRun } from "@/lib/server/data/simulation-runs";
-import { orNotFound, pageLab } from "@/lib/server/page-access";
+import { getRun } from "@/lib/server/runs/runs";
+import { orNotFound, pageLab } from "@/lib/server/web/page-access";
 import { RunView } from "./run-view";
 
 export const dynamic = "force-dynamic";

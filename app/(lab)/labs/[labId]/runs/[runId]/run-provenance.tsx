@@ -1,7 +1,7 @@
 "use client";
 import Link from "next/link";
 import { Panel } from "@/components/ui/panel";
-import type { RunDetailDto } from "@/lib/server/data/simulation-run-types";
+import type { RunDetailDto } from "@/lib/server/runs/types";
 import { formatSig } from "../../readouts/readout-format";
 
 /** What was run, exactly: kinetics version, parameters, grid, step, seed, software; and the stored files. */

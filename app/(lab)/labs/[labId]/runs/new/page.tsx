@@ -7,13 +7,13 @@ import {
   listCatalogue,
   listLabKinetics,
   type KineticsInfoDto,
-} from "@/lib/server/data/kinetics";
-import { estimateSolverS, RUN_WORK_LIMIT } from "@/lib/server/data/simulation-run-plan";
+} from "@/lib/server/kinetics/kinetics";
+import { estimateSolverS, RUN_WORK_LIMIT } from "@/lib/server/runs/plan";
 import { Notice } from "@/components/ui/notice";
 import { AppError } from "@/lib/server/errors";
-import { readFitStart } from "@/lib/server/data/simulation-run-fit";
-import { listRunStartOptions } from "@/lib/server/data/simulation-run-start";
-import { pageLab } from "@/lib/server/page-access";
+import { readFitStart } from "@/lib/server/runs/fit-start";
+import { listRunStartOptions } from "@/lib/server/runs/start";
+import { pageLab } from "@/lib/server/web/page-access";
 import { RunForm, type RunPrefill } from "./run-form";
 
 export const dynamic = "force-dynamic";

@@ -6,9 +6,9 @@ import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { Panel } from "@/components/ui/panel";
 import { ApiError, sendJson } from "@/lib/client/api";
-import type { KineticsInfoDto } from "@/lib/server/data/kinetics";
-import type { RunDetailDto } from "@/lib/server/data/simulation-run-types";
-import type { RunStartOption } from "@/lib/server/data/simulation-run-start";
+import type { KineticsInfoDto } from "@/lib/server/kinetics/kinetics";
+import type { RunDetailDto } from "@/lib/server/runs/types";
+import type { RunStartOption } from "@/lib/server/runs/start";
 
 export interface RunPrefill {
   kinetics?: string;

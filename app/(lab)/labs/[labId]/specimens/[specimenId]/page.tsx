@@ -1,8 +1,8 @@
 import Link from "next/link";
 import { PageHeader } from "@/components/ui/panel";
 import { can } from "@/lib/access/permissions";
-import { getSpecimen } from "@/lib/server/data/specimens";
-import { orNotFound, pageLab } from "@/lib/server/page-access";
+import { getSpecimen } from "@/lib/server/studies/specimens";
+import { orNotFound, pageLab } from "@/lib/server/web/page-access";
 import { services } from "@/lib/server/services";
 import { SpecimenView } from "./specimen-view";
 

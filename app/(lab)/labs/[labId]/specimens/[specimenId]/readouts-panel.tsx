@@ -5,8 +5,8 @@ import useSWR from "swr";
 import { Badge, EmptyState, Panel } from "@/components/ui/panel";
 import { fetchJson } from "@/lib/client/api";
 import { formatDateTime } from "@/lib/client/format";
-import type { ReadoutDto } from "@/lib/server/data/readouts";
-import type { ListResult } from "@/lib/server/list";
+import type { ReadoutDto } from "@/lib/server/readouts/readouts";
+import type { ListResult } from "@/lib/server/web/list";
 import { useEffect } from "react";
 import {
   formatSig,

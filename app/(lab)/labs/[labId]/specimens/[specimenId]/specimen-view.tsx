@@ -9,8 +9,8 @@ import { Notice } from "@/components/ui/notice";
 import { Badge, EmptyState, Panel } from "@/components/ui/panel";
 import { ApiError, sendForm, sendJson } from "@/lib/client/api";
 import { formatBytes, formatDateTime } from "@/lib/client/format";
-import type { SpecimenDto } from "@/lib/server/data/specimens";
-import type { UploadDto } from "@/lib/server/data/uploads";
+import type { SpecimenDto } from "@/lib/server/studies/specimens";
+import type { UploadDto } from "@/lib/server/uploads/uploads";
 import { SpecimenForm } from "../../studies/[studyId]/study-view";
 import { ReadoutsPanel } from "./readouts-panel";
 

@@ -1,8 +1,8 @@
 import Link from "next/link";
 import { PageHeader } from "@/components/ui/panel";
 import { can } from "@/lib/access/permissions";
-import { getStudy } from "@/lib/server/data/studies";
-import { orNotFound, pageLab } from "@/lib/server/page-access";
+import { getStudy } from "@/lib/server/studies/studies";
+import { orNotFound, pageLab } from "@/lib/server/web/page-access";
 import { ConditionComparison } from "./condition-comparison";
 import { StudyView } from "./study-view";
 

@@ -13,8 +13,8 @@ import { Badge, EmptyState, Panel } from "@/components/ui/panel";
 import { ApiError, sendJson } from "@/lib/client/api";
 import { formatDate } from "@/lib/client/format";
 import { specimenCreateSchema, studyCreateSchema, type SpecimenInput, type StudyInput } from "@/lib/contracts/study";
-import type { SpecimenDto } from "@/lib/server/data/specimens";
-import type { StudyDto } from "@/lib/server/data/studies";
+import type { SpecimenDto } from "@/lib/server/studies/specimens";
+import type { StudyDto } from "@/lib/server/studies/studies";
 
 export function StudyView({
   labId,

@@ -1,8 +1,8 @@
 import { acceptInvitationSchema } from "@/lib/contracts/account";
-import { getActor } from "@/lib/server/actor";
-import { acceptInvitation } from "@/lib/server/data/invitations";
-import { json, readJson } from "@/lib/server/http";
-import { publicRoute } from "@/lib/server/lab-route";
+import { getActor } from "@/lib/server/accounts/actor";
+import { acceptInvitation } from "@/lib/server/labs/invitations";
+import { json, readJson } from "@/lib/server/web/http";
+import { publicRoute } from "@/lib/server/web/lab-route";
 
 export const runtime = "nodejs";
 

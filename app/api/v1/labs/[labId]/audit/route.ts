@@ -1,7 +1,7 @@
-import { AUDIT_SORTS, listAudit } from "@/lib/server/data/audit";
-import { json } from "@/lib/server/http";
-import { labRoute } from "@/lib/server/lab-route";
-import { parseListQuery } from "@/lib/server/list";
+import { AUDIT_SORTS, listAudit } from "@/lib/server/audit";
+import { json } from "@/lib/server/web/http";
+import { labRoute } from "@/lib/server/web/lab-route";
+import { parseListQuery } from "@/lib/server/web/list";
 
 export const runtime = "nodejs";
 

@@ -1,8 +1,8 @@
 import { fitCreateSchema, FIT_SORTS } from "@/lib/contracts/fit";
-import { listFits, startFit } from "@/lib/server/data/fits";
-import { json, readJson } from "@/lib/server/http";
-import { labRoute } from "@/lib/server/lab-route";
-import { parseListQuery } from "@/lib/server/list";
+import { listFits, startFit } from "@/lib/server/fits/fits";
+import { json, readJson } from "@/lib/server/web/http";
+import { labRoute } from "@/lib/server/web/lab-route";
+import { parseListQuery } from "@/lib/server/web/list";
 
 export const runtime = "nodejs";
 

@@ -1,8 +1,8 @@
 import { invitationCreateSchema } from "@/lib/contracts/lab";
-import { createInvitation, listInvitations } from "@/lib/server/data/invitations";
-import { json, readJson } from "@/lib/server/http";
-import { labRoute } from "@/lib/server/lab-route";
-import { addressOf } from "@/lib/server/rate-limit";
+import { createInvitation, listInvitations } from "@/lib/server/labs/invitations";
+import { json, readJson } from "@/lib/server/web/http";
+import { labRoute } from "@/lib/server/web/lab-route";
+import { addressOf } from "@/lib/server/web/rate-limit";
 
 export const runtime = "nodejs";
 

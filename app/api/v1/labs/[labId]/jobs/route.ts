@@ -1,6 +1,6 @@
-import { listJobs } from "@/lib/server/data/jobs";
-import { json } from "@/lib/server/http";
-import { labRoute } from "@/lib/server/lab-route";
+import { listJobs } from "@/lib/server/jobs/job-rows";
+import { json } from "@/lib/server/web/http";
+import { labRoute } from "@/lib/server/web/lab-route";
 
 export const runtime = "nodejs";
 

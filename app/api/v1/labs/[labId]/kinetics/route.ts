@@ -1,8 +1,8 @@
 import { labKineticsCreateSchema } from "@/lib/contracts/kinetics";
-import { createLabKinetics, LAB_KINETICS_SORTS, listLabKinetics } from "@/lib/server/data/kinetics";
-import { json, readJson } from "@/lib/server/http";
-import { labRoute } from "@/lib/server/lab-route";
-import { parseListQuery } from "@/lib/server/list";
+import { createLabKinetics, LAB_KINETICS_SORTS, listLabKinetics } from "@/lib/server/kinetics/kinetics";
+import { json, readJson } from "@/lib/server/web/http";
+import { labRoute } from "@/lib/server/web/lab-route";
+import { parseListQuery } from "@/lib/server/web/list";
 
 export const runtime = "nodejs";
 

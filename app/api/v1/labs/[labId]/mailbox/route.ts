@@ -1,6 +1,6 @@
-import { listMail } from "@/lib/server/data/mailbox";
-import { json } from "@/lib/server/http";
-import { labRoute } from "@/lib/server/lab-route";
+import { listMail } from "@/lib/server/labs/mailbox";
+import { json } from "@/lib/server/web/http";
+import { labRoute } from "@/lib/server/web/lab-route";
 
 export const runtime = "nodejs";
 

@@ -1,7 +1,7 @@
-import { listMembers, MEMBER_SORTS } from "@/lib/server/data/members";
-import { json } from "@/lib/server/http";
-import { labRoute } from "@/lib/server/lab-route";
-import { parseListQuery } from "@/lib/server/list";
+import { listMembers, MEMBER_SORTS } from "@/lib/server/labs/members";
+import { json } from "@/lib/server/web/http";
+import { labRoute } from "@/lib/server/web/lab-route";
+import { parseListQuery } from "@/lib/server/web/list";
 
 export const runtime = "nodejs";
 

@@ -1,9 +1,9 @@
 import { z } from "zod";
-import { listReadouts, READOUT_SORTS } from "@/lib/server/data/readouts";
+import { listReadouts, READOUT_SORTS } from "@/lib/server/readouts/readouts";
 import { AppError } from "@/lib/server/errors";
-import { json } from "@/lib/server/http";
-import { labRoute } from "@/lib/server/lab-route";
-import { parseListQuery } from "@/lib/server/list";
+import { json } from "@/lib/server/web/http";
+import { labRoute } from "@/lib/server/web/lab-route";
+import { parseListQuery } from "@/lib/server/web/list";
 
 export const runtime = "nodejs";
 

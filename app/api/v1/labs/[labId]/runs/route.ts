@@ -1,8 +1,8 @@
 import { simulationRunRequestSchema } from "@/lib/contracts/simulation-run";
-import { listRuns, RUN_SORTS, startRun } from "@/lib/server/data/simulation-runs";
-import { json, readJson } from "@/lib/server/http";
-import { labRoute } from "@/lib/server/lab-route";
-import { parseListQuery } from "@/lib/server/list";
+import { listRuns, RUN_SORTS, startRun } from "@/lib/server/runs/runs";
+import { json, readJson } from "@/lib/server/web/http";
+import { labRoute } from "@/lib/server/web/lab-route";
+import { parseListQuery } from "@/lib/server/web/list";
 
 export const runtime = "nodejs";
 

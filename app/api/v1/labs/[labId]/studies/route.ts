@@ -1,8 +1,8 @@
 import { studyCreateSchema } from "@/lib/contracts/study";
-import { createStudy, listStudies, STUDY_SORTS } from "@/lib/server/data/studies";
-import { json, readJson } from "@/lib/server/http";
-import { labRoute } from "@/lib/server/lab-route";
-import { parseListQuery } from "@/lib/server/list";
+import { createStudy, listStudies, STUDY_SORTS } from "@/lib/server/studies/studies";
+import { json, readJson } from "@/lib/server/web/http";
+import { labRoute } from "@/lib/server/web/lab-route";
+import { parseListQuery } from "@/lib/server/web/list";
 
 export const runtime = "nodejs";
 

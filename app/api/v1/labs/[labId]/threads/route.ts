@@ -1,8 +1,8 @@
 import { threadCreateSchema, threadFilterSchema } from "@/lib/contracts/discussion";
-import { createThread, listThreads, THREAD_SORTS } from "@/lib/server/data/discussions";
-import { json, readJson } from "@/lib/server/http";
-import { labRoute } from "@/lib/server/lab-route";
-import { parseListQuery } from "@/lib/server/list";
+import { createThread, listThreads, THREAD_SORTS } from "@/lib/server/discussions/discussions";
+import { json, readJson } from "@/lib/server/web/http";
+import { labRoute } from "@/lib/server/web/lab-route";
+import { parseListQuery } from "@/lib/server/web/list";
 
 export const runtime = "nodejs";
 

@@ -2,8 +2,8 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { PageHeader } from "@/components/ui/panel";
-import { getLabKinetics, getLabKineticsVersion } from "@/lib/server/data/kinetics";
-import { orNotFound, pageLab } from "@/lib/server/page-access";
+import { getLabKinetics, getLabKineticsVersion } from "@/lib/server/kinetics/kinetics";
+import { orNotFound, pageLab } from "@/lib/server/web/page-access";
 import { draftFromDefinition } from "../../kinetics-draft";
 import { KineticsEditor } from "../../kinetics-editor";
 

@@ -1,7 +1,7 @@
 import { dispersionRequestSchema } from "@/lib/contracts/kinetics";
-import { analyseDispersion } from "@/lib/server/data/kinetics-analyses";
-import { json, readJson } from "@/lib/server/http";
-import { labRoute } from "@/lib/server/lab-route";
+import { analyseDispersion } from "@/lib/server/kinetics/analyses";
+import { json, readJson } from "@/lib/server/web/http";
+import { labRoute } from "@/lib/server/web/lab-route";
 
 export const runtime = "nodejs";
 

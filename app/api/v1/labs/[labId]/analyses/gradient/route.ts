@@ -1,7 +1,7 @@
 import { gradientRequestSchema } from "@/lib/contracts/kinetics";
-import { analyseGradient } from "@/lib/server/data/kinetics-analyses";
-import { json, readJson } from "@/lib/server/http";
-import { labRoute } from "@/lib/server/lab-route";
+import { analyseGradient } from "@/lib/server/kinetics/analyses";
+import { json, readJson } from "@/lib/server/web/http";
+import { labRoute } from "@/lib/server/web/lab-route";
 
 export const runtime = "nodejs";
 

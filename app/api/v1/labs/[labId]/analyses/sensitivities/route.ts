@@ -1,7 +1,7 @@
 import { sensitivityRequestSchema } from "@/lib/contracts/kinetics";
-import { analyseSensitivities } from "@/lib/server/data/kinetics-analyses";
-import { json, readJson } from "@/lib/server/http";
-import { labRoute } from "@/lib/server/lab-route";
+import { analyseSensitivities } from "@/lib/server/kinetics/analyses";
+import { json, readJson } from "@/lib/server/web/http";
+import { labRoute } from "@/lib/server/web/lab-route";
 
 export const runtime = "nodejs";
 

@@ -1,7 +1,7 @@
 import { turingMapRequestSchema } from "@/lib/contracts/kinetics";
-import { analyseTuringMap } from "@/lib/server/data/kinetics-map";
-import { json, readJson } from "@/lib/server/http";
-import { labRoute } from "@/lib/server/lab-route";
+import { analyseTuringMap } from "@/lib/server/kinetics/map";
+import { json, readJson } from "@/lib/server/web/http";
+import { labRoute } from "@/lib/server/web/lab-route";
 
 export const runtime = "nodejs";
 

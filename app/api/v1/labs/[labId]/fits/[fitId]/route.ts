@@ -1,6 +1,6 @@
-import { getFit } from "@/lib/server/data/fits";
-import { json } from "@/lib/server/http";
-import { labRoute } from "@/lib/server/lab-route";
+import { getFit } from "@/lib/server/fits/fits";
+import { json } from "@/lib/server/web/http";
+import { labRoute } from "@/lib/server/web/lab-route";
 
 export const runtime = "nodejs";
 

@@ -1,5 +1,5 @@
-import { revokeInvitation } from "@/lib/server/data/invitations";
-import { labRoute } from "@/lib/server/lab-route";
+import { revokeInvitation } from "@/lib/server/labs/invitations";
+import { labRoute } from "@/lib/server/web/lab-route";
 
 export const runtime = "nodejs";
 

@@ -1,6 +1,6 @@
-import { cancelOwnJob } from "@/lib/server/data/jobs";
-import { json } from "@/lib/server/http";
-import { labRoute } from "@/lib/server/lab-route";
+import { cancelOwnJob } from "@/lib/server/jobs/job-rows";
+import { json } from "@/lib/server/web/http";
+import { labRoute } from "@/lib/server/web/lab-route";
 import { getJob } from "@/lib/server/jobs/runner";
 
 export const runtime = "nodejs";

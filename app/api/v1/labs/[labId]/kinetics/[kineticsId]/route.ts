@@ -6,10 +6,10 @@ import {
   getLabKinetics,
   getLabKineticsVersion,
   updateLabKinetics,
-} from "@/lib/server/data/kinetics";
+} from "@/lib/server/kinetics/kinetics";
 import { AppError } from "@/lib/server/errors";
-import { json, readJson } from "@/lib/server/http";
-import { labRoute } from "@/lib/server/lab-route";
+import { json, readJson } from "@/lib/server/web/http";
+import { labRoute } from "@/lib/server/web/lab-route";
 
 export const runtime = "nodejs";
 

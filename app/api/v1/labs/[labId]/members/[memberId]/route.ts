@@ -1,7 +1,7 @@
 import { memberUpdateSchema } from "@/lib/contracts/lab";
-import { changeMemberRole, removeMember } from "@/lib/server/data/members";
-import { json, readJson } from "@/lib/server/http";
-import { labRoute } from "@/lib/server/lab-route";
+import { changeMemberRole, removeMember } from "@/lib/server/labs/members";
+import { json, readJson } from "@/lib/server/web/http";
+import { labRoute } from "@/lib/server/web/lab-route";
 
 export const runtime = "nodejs";
 

@@ -1,6 +1,6 @@
-import { getReadout } from "@/lib/server/data/readouts";
-import { json } from "@/lib/server/http";
-import { labRoute } from "@/lib/server/lab-route";
+import { getReadout } from "@/lib/server/readouts/readouts";
+import { json } from "@/lib/server/web/http";
+import { labRoute } from "@/lib/server/web/lab-route";
 
 export const runtime = "nodejs";
 

@@ -1,6 +1,6 @@
-import { getRun } from "@/lib/server/data/simulation-runs";
-import { json } from "@/lib/server/http";
-import { labRoute } from "@/lib/server/lab-route";
+import { getRun } from "@/lib/server/runs/runs";
+import { json } from "@/lib/server/web/http";
+import { labRoute } from "@/lib/server/web/lab-route";
 
 export const runtime = "nodejs";
 

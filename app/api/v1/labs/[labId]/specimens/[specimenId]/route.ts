@@ -1,7 +1,7 @@
 import { specimenUpdateSchema } from "@/lib/contracts/study";
-import { deleteSpecimen, getSpecimen, updateSpecimen } from "@/lib/server/data/specimens";
-import { json, readJson } from "@/lib/server/http";
-import { labRoute } from "@/lib/server/lab-route";
+import { deleteSpecimen, getSpecimen, updateSpecimen } from "@/lib/server/studies/specimens";
+import { json, readJson } from "@/lib/server/web/http";
+import { labRoute } from "@/lib/server/web/lab-route";
 
 export const runtime = "nodejs";
 

@@ -1,7 +1,7 @@
 import { studyUpdateSchema } from "@/lib/contracts/study";
-import { deleteStudy, getStudy, updateStudy } from "@/lib/server/data/studies";
-import { json, readJson } from "@/lib/server/http";
-import { labRoute } from "@/lib/server/lab-route";
+import { deleteStudy, getStudy, updateStudy } from "@/lib/server/studies/studies";
+import { json, readJson } from "@/lib/server/web/http";
+import { labRoute } from "@/lib/server/web/lab-route";
 
 export const runtime = "nodejs";
 

@@ -1,7 +1,7 @@
 import { threadUpdateSchema } from "@/lib/contracts/discussion";
-import { getThread, setThreadStatus } from "@/lib/server/data/discussions";
-import { json, readJson } from "@/lib/server/http";
-import { labRoute } from "@/lib/server/lab-route";
+import { getThread, setThreadStatus } from "@/lib/server/discussions/discussions";
+import { json, readJson } from "@/lib/server/web/http";
+import { labRoute } from "@/lib/server/web/lab-route";
 
 export const runtime = "nodejs";
 

@@ -1,6 +1,6 @@
-import { deleteUpload, getUpload } from "@/lib/server/data/uploads";
-import { json } from "@/lib/server/http";
-import { labRoute } from "@/lib/server/lab-route";
+import { deleteUpload, getUpload } from "@/lib/server/uploads/uploads";
+import { json } from "@/lib/server/web/http";
+import { labRoute } from "@/lib/server/web/lab-route";
 
 export const runtime = "nodejs";
 

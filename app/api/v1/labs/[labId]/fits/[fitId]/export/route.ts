@@ -1,7 +1,7 @@
 import { z } from "zod";
-import { exportFit } from "@/lib/server/export/fit-export";
+import { exportFit } from "@/lib/server/fits/export";
 import { AppError } from "@/lib/server/errors";
-import { labRoute } from "@/lib/server/lab-route";
+import { labRoute } from "@/lib/server/web/lab-route";
 
 export const runtime = "nodejs";
 

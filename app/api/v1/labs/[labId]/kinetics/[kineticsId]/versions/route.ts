@@ -1,6 +1,6 @@
-import { listKineticsVersions } from "@/lib/server/data/kinetics";
-import { json } from "@/lib/server/http";
-import { labRoute } from "@/lib/server/lab-route";
+import { listKineticsVersions } from "@/lib/server/kinetics/kinetics";
+import { json } from "@/lib/server/web/http";
+import { labRoute } from "@/lib/server/web/lab-route";
 
 export const runtime = "nodejs";
 

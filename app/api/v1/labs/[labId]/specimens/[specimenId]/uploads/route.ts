@@ -1,8 +1,8 @@
-import { listUploads, UPLOAD_SORTS } from "@/lib/server/data/uploads";
-import { json } from "@/lib/server/http";
-import { labRoute } from "@/lib/server/lab-route";
-import { parseListQuery } from "@/lib/server/list";
-import { receiveUpload } from "@/lib/server/receive-upload";
+import { listUploads, UPLOAD_SORTS } from "@/lib/server/uploads/uploads";
+import { json } from "@/lib/server/web/http";
+import { labRoute } from "@/lib/server/web/lab-route";
+import { parseListQuery } from "@/lib/server/web/list";
+import { receiveUpload } from "@/lib/server/uploads/receive";
 
 export const runtime = "nodejs";
 

@@ -1,8 +1,8 @@
 import { comparisonQuerySchema } from "@/lib/contracts/readout";
-import { compareConditions } from "@/lib/server/data/readout-comparison";
+import { compareConditions } from "@/lib/server/readouts/comparison";
 import { AppError } from "@/lib/server/errors";
-import { json } from "@/lib/server/http";
-import { labRoute } from "@/lib/server/lab-route";
+import { json } from "@/lib/server/web/http";
+import { labRoute } from "@/lib/server/web/lab-route";
 
 export const runtime = "nodejs";
 

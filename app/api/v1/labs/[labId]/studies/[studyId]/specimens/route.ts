@@ -1,8 +1,8 @@
 import { specimenCreateSchema } from "@/lib/contracts/study";
-import { createSpecimen, listSpecimens, SPECIMEN_SORTS } from "@/lib/server/data/specimens";
-import { json, readJson } from "@/lib/server/http";
-import { labRoute } from "@/lib/server/lab-route";
-import { parseListQuery } from "@/lib/server/list";
+import { createSpecimen, listSpecimens, SPECIMEN_SORTS } from "@/lib/server/studies/specimens";
+import { json, readJson } from "@/lib/server/web/http";
+import { labRoute } from "@/lib/server/web/lab-route";
+import { parseListQuery } from "@/lib/server/web/list";
 
 export const runtime = "nodejs";
 

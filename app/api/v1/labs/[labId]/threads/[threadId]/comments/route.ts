@@ -1,7 +1,7 @@
 import { commentCreateSchema } from "@/lib/contracts/discussion";
-import { addComment } from "@/lib/server/data/discussions";
-import { json, readJson } from "@/lib/server/http";
-import { labRoute } from "@/lib/server/lab-route";
+import { addComment } from "@/lib/server/discussions/discussions";
+import { json, readJson } from "@/lib/server/web/http";
+import { labRoute } from "@/lib/server/web/lab-route";
 
 export const runtime = "nodejs";
 

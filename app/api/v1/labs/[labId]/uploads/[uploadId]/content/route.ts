@@ -1,6 +1,6 @@
 import { Readable } from "node:stream";
-import { openUploadContent } from "@/lib/server/data/uploads";
-import { labRoute } from "@/lib/server/lab-route";
+import { openUploadContent } from "@/lib/server/uploads/uploads";
+import { labRoute } from "@/lib/server/web/lab-route";
 
 export const runtime = "nodejs";
 

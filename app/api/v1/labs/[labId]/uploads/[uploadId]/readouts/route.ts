@@ -1,7 +1,7 @@
-import { listReadouts, READOUT_SORTS, startReadout } from "@/lib/server/data/readouts";
-import { json, readJsonValue } from "@/lib/server/http";
-import { labRoute } from "@/lib/server/lab-route";
-import { parseListQuery } from "@/lib/server/list";
+import { listReadouts, READOUT_SORTS, startReadout } from "@/lib/server/readouts/readouts";
+import { json, readJsonValue } from "@/lib/server/web/http";
+import { labRoute } from "@/lib/server/web/lab-route";
+import { parseListQuery } from "@/lib/server/web/list";
 
 export const runtime = "nodejs";
 

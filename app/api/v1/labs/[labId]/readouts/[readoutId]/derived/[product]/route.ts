@@ -1,6 +1,6 @@
 import { Readable } from "node:stream";
-import { openDerived } from "@/lib/server/data/readouts";
-import { labRoute } from "@/lib/server/lab-route";
+import { openDerived } from "@/lib/server/readouts/readouts";
+import { labRoute } from "@/lib/server/web/lab-route";
 
 export const runtime = "nodejs";
 

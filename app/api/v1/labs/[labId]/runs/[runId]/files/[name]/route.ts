@@ -1,6 +1,6 @@
 import { Readable } from "node:stream";
-import { openRunFile } from "@/lib/server/data/simulation-runs";
-import { labRoute } from "@/lib/server/lab-route";
+import { openRunFile } from "@/lib/server/runs/runs";
+import { labRoute } from "@/lib/server/web/lab-route";
 
 export const runtime = "nodejs";
 

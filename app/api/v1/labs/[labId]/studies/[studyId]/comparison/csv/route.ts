@@ -1,7 +1,7 @@
 import { comparisonQuerySchema } from "@/lib/contracts/readout";
-import { compareConditions, comparisonToCsv } from "@/lib/server/data/readout-comparison";
+import { compareConditions, comparisonToCsv } from "@/lib/server/readouts/comparison";
 import { AppError } from "@/lib/server/errors";
-import { labRoute } from "@/lib/server/lab-route";
+import { labRoute } from "@/lib/server/web/lab-route";
 
 export const runtime = "nodejs";
 

@@ -1,7 +1,7 @@
 import { commentUpdateSchema } from "@/lib/contracts/discussion";
-import { deleteComment, editComment } from "@/lib/server/data/discussions";
-import { json, readJson } from "@/lib/server/http";
-import { labRoute } from "@/lib/server/lab-route";
+import { deleteComment, editComment } from "@/lib/server/discussions/discussions";
+import { json, readJson } from "@/lib/server/web/http";
+import { labRoute } from "@/lib/server/web/lab-route";
 
 export const runtime = "nodejs";
 

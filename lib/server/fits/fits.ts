@@ -1,0 +1,210 @@
+/**
+ * Fits: one kinetics, or several compared, fitted to measured wavelengths. Starting one checks
+ * the request completely (400/422 naming the field) and then writes the fit row and its job in
+ * one transaction; the job (lib/server/fits/job.ts) writes the result. A result exists only
+ * with status "succeeded" and is never changed: a re-run is a new fit with the same stored spec.
+ */
+import { randomUUID } from "node:crypto";
+import { can } from "@/lib/access/permissions";
+import type { FitCreate } from "@/lib/contracts/fit";
+import type { JobStatus } from "@/models/job";
+import { authorize, isUuid, type LabContext } from "../access";
+import { notFound } from "../errors";
+import { enqueueJob } from "../jobs/runner";
+import { containsText, type ListQuery, type ListResult } from "../web/list";
+import { database, services } from "../services";
+import { recordAudit } from "../audit";
+import { fitRunner } from "./process";
+import type { StoredFitResult } from "./result";
+import { buildFitSpec, type BuiltFit } from "./spec";
+import type { FitProvenance, StoredFitSpec } from "./spec-types";
+import { SOFTWARE_VERSION } from "../readouts/readouts";
+
+export interface FitSummaryDto {
+  id: string;
+  name: string;
+  kind: "fit" | "comparison";
+  status: JobStatus;
+  progress: number;
+  progressNote: string | null;
+  error: string | null;
+  jobId: string | null;
+  kinetics: string[];
+  conditions: string[];
+  n: number;
+  /** Headline of the (best-ranked) kinetics once finished. */
+  verdict: string | null;
+  best: string | null;
+  rerunOf: string | null;
+  createdBy: string | null;
+  createdByEmail: string | null;
+  createdAt: string;
+}
+
+export interface FitDetailDto extends FitSummaryDto {
+  spec: StoredFitSpec;
+  provenance: FitProvenance;
+  inputSha256: string;
+  softwareVersion: string;
+  result: StoredFitResult | null;
+  canRerun: boolean;
+}
+
+type Row = InstanceType<Awaited<ReturnType<typeof database>>["Fit"]>;
+
+async function toSummaries(rows: Row[]): Promise<FitSummaryDto[]> {
+  const m = await database();
+  const jobIds = rows.filter((r) => r.jobId).map((r) => r.jobId!);
+  const jobs = new Map((jobIds.length ? await m.Job.findAll({ where: { id: jobIds } }) : []).map((j) => [j.id, j]));
+  const users = await m.User.findAll({
+    where: { id: rows.map((r) => r.createdBy).filter((x): x is string => !!x) },
+    attributes: ["id", "email"],
+  });
+  const emails = new Map(users.map((u) => [u.id, u.email]));
+  return rows.map((r) => {
+    const spec = r.spec as unknown as StoredFitSpec;
+    const prov = r.provenance as unknown as FitProvenance;
+    const job = r.jobId ? jobs.get(r.jobId) : undefined;
+    // A job cancelled or lost before its handler ran never touched the row: show the job's end.
+    const ended =
+      job &&
+      (job.status === "failed" || job.status === "cancelled") &&
+      (r.status === "queued" || r.status === "running");
+    const result = r.status === "succeeded" ? (r.result as unknown as StoredFitResult | null) : null;
+    const bestLabel = result ? (result.comparison?.ranking[0]?.label ?? result.models[0]?.label ?? null) : null;
+    const best = result?.models.find((x) => x.label === bestLabel) ?? null;
+    return {
+      id: r.id,
+      name: r.name,
+      kind: r.kind as "fit" | "comparison",
+      status: ended ? job.status : r.status,
+      progress: r.status === "succeeded" ? 1 : (job?.progress ?? 0),
+      progressNote: job?.progressNote ?? null,
+      error: ended ? job.error : r.error,
+      jobId: r.jobId,
+      kinetics: prov.kinetics.map((k) => k.label),
+      conditions: [...new Set(spec.data.map((d) => d.condition))],
+      n: spec.data.length,
+      verdict: best?.fit.verdict ?? null,
+      best: bestLabel,
+      rerunOf: r.rerunOf,
+      createdBy: r.createdBy,
+      createdByEmail: r.createdBy ? (emails.get(r.createdBy) ?? null) : null,
+      createdAt: r.createdAt.toISOString(),
+    };
+  });
+}
+
+export async function listFits(
+  ctx: LabContext,
+  q: ListQuery<"createdAt" | "name" | "status">,
+): Promise<ListResult<FitSummaryDto>> {
+  const m = await database();
+  const where = { labId: ctx.labId, ...(q.q ? { name: containsText(q.q) } : {}) };
+  const { rows, count } = await m.Fit.findAndCountAll({
+    where,
+    order: [
+      [q.sort, q.dir],
+      ["createdAt", "desc"],
+      ["id", "asc"],
+    ],
+    limit: q.pageSize,
+    offset: (q.page - 1) * q.pageSize,
+  });
+  return { items: await toSummaries(rows), page: q.page, pageSize: q.pageSize, total: count };
+}
+
+export async function findFit(ctx: LabContext, fitId: string): Promise<Row> {
+  if (!isUuid(fitId)) throw notFound("fit");
+  const m = await database();
+  const r = await m.Fit.findOne({ where: { id: fitId, labId: ctx.labId } });
+  if (!r) throw notFound("fit");
+  return r;
+}
+
+export async function getFit(ctx: LabContext, fitId: string): Promise<FitDetailDto> {
+  const r = await findFit(ctx, fitId);
+  const [s] = await toSummaries([r]);
+  return {
+    ...s,
+    spec: r.spec as unknown as StoredFitSpec,
+    provenance: r.provenance as unknown as FitProvenance,
+    inputSha256: r.inputSha256,
+    softwareVersion: r.softwareVersion,
+    result: r.status === "succeeded" ? (r.result as unknown as StoredFitResult) : null,
+    canRerun: can(ctx.role, "fit.create"),
+  };
+}
+
+async function queueFit(ctx: LabContext, name: string, built: BuiltFit, rerunOf: string | null): Promise<FitDetailDto> {
+  const m = await database();
+  const id = randomUUID();
+  const kind = built.kind === "fit" ? "fit" : "fit-comparison";
+  await services().db.sequelize.transaction(async (transaction) => {
+    const job = await enqueueJob(
+      {
+        labId: ctx.labId,
+        kind,
+        payload: { fitId: id, title: `the fit “${name}”`, path: `/labs/${ctx.labId}/fits/${id}` },
+        requestedBy: ctx.actor.userId,
+      },
+      transaction,
+    );
+    await m.Fit.create(
+      {
+        id,
+        labId: ctx.labId,
+        name,
+        kind: built.kind,
+        status: "queued",
+        jobId: job.id,
+        spec: built.spec as unknown as Record<string, unknown>,
+        provenance: built.provenance as unknown as Record<string, unknown>,
+        inputSha256: built.inputSha256,
+        softwareVersion: SOFTWARE_VERSION,
+        rerunOf,
+        createdBy: ctx.actor.userId,
+      },
+      { transaction },
+    );
+    await recordAudit(
+      m,
+      {
+        labId: ctx.labId,
+        actor: ctx.actor,
+        action: rerunOf ? "fit.rerun" : "fit.started",
+        targetType: "fit",
+        targetId: id,
+        summary: `${ctx.actor.email} ${rerunOf ? "re-ran" : "started"} the ${built.kind} “${name}” (${built.provenance.kinetics.map((k) => k.label).join(", ")}; ${built.spec.data.length} measurements)`,
+      },
+      transaction,
+    );
+  });
+  return getFit(ctx, id);
+}
+
+/** Checks the request (400/422 before anything is written) and queues the fit. */
+export async function startFit(ctx: LabContext, input: FitCreate): Promise<FitDetailDto> {
+  authorize(ctx, "fit.create");
+  const built = await buildFitSpec(ctx, input, SOFTWARE_VERSION, fitRunner());
+  return queueFit(ctx, input.name, built, null);
+}
+
+/** A new fit with exactly the stored spec of an existing one (same data values, same kinetics versions). */
+export async function rerunFit(ctx: LabContext, fitId: string): Promise<FitDetailDto> {
+  authorize(ctx, "fit.create");
+  const r = await findFit(ctx, fitId);
+  const spec = r.spec as unknown as StoredFitSpec;
+  const provenance = {
+    ...(r.provenance as unknown as FitProvenance),
+    softwareVersion: SOFTWARE_VERSION,
+    runner: fitRunner(),
+  };
+  const name = r.name.replace(/( \(re-run\))*$/, "") + " (re-run)";
+  return queueFit(
+    ctx,
+    name.slice(0, 200),
+    { kind: r.kind as "fit" | "comparison", spec, provenance, inputSha256: r.inputSha256 },
+    r.id,
+  );
+}

@@ -1,0 +1,342 @@
+/**
+ * Kinetics: the published catalogue (same for everyone) and a lab's own kinetics, whose
+ * definitions are immutable versions — every save adds one, so a fit can name exactly what it used.
+ */
+import { Op } from "sequelize";
+import { can } from "@/lib/access/permissions";
+import { CATALOGUE, resolveParameters, type CatalogueKinetics, type KineticsDefinition } from "@/lib/kinetics";
+import { findSteadyStates } from "@/lib/stability";
+import type { LabContext } from "../access";
+import { authorize, isUuid } from "../access";
+import { AppError, notFound } from "../errors";
+import { containsText, type ListQuery, type ListResult } from "../web/list";
+import { database, services } from "../services";
+import { recordAudit } from "../audit";
+import { compileDefinition, toAppError } from "./engine";
+
+export interface KineticsParameterDto {
+  name: string;
+  meaning: string;
+  default: number;
+  /** null: no lower/upper bound. */
+  min: number | null;
+  max: number | null;
+  unit: string | null;
+}
+
+/** What the analysis page needs to know about any kinetics, catalogue or lab. */
+export interface KineticsInfoDto {
+  kind: "catalogue" | "lab";
+  id: string;
+  name: string;
+  source: string;
+  form: string | null;
+  species: string[];
+  parameters: KineticsParameterDto[];
+  units: "dimensional" | "non-dimensional";
+  reactions: string[];
+  diffusion: string[][];
+  /** Lab kinetics only: the version described. */
+  version: number | null;
+}
+
+export interface LabKineticsDto {
+  id: string;
+  labId: string;
+  name: string;
+  description: string | null;
+  latestVersion: number;
+  species: string[];
+  createdBy: string | null;
+  createdByEmail: string | null;
+  createdAt: string;
+  updatedAt: string;
+  canEdit: boolean;
+}
+
+export interface KineticsVersionDto {
+  version: number;
+  definition: KineticsDefinition;
+  createdByEmail: string | null;
+  createdAt: string;
+}
+
+export const LAB_KINETICS_SORTS = ["name", "latestVersion", "createdAt", "updatedAt"] as const;
+
+const FINITE_MAX = Number.MAX_VALUE;
+const bound = (v: number | undefined) =>
+  v === undefined || !Number.isFinite(v) || Math.abs(v) >= FINITE_MAX ? null : v;
+
+function catalogueInfo(k: CatalogueKinetics): KineticsInfoDto {
+  return {
+    kind: "catalogue",
+    id: k.id,
+    name: k.name,
+    source: k.source,
+    form: k.form,
+    species: [...k.species],
+    parameters: k.parameters.map((p) => ({
+      name: p.name,
+      meaning: p.meaning,
+      default: p.default,
+      min: bound(p.min),
+      max: bound(p.max),
+      unit: p.unit ?? null,
+    })),
+    units: k.units,
+    reactions: [...k.reactionExpressions],
+    diffusion: k.diffusionExpressions.map((r) => [...r]),
+    version: null,
+  };
+}
+
+export function listCatalogue(): KineticsInfoDto[] {
+  return CATALOGUE.map(catalogueInfo);
+}
+
+export function getCatalogueEntry(id: string): KineticsInfoDto {
+  const k = CATALOGUE.find((c) => c.id === id);
+  if (!k) throw notFound("kinetics");
+  return catalogueInfo(k);
+}
+
+export function definitionInfo(id: string, version: number, def: KineticsDefinition): KineticsInfoDto {
+  const n = def.species.length;
+  const diffusion = Array.isArray(def.diffusion[0])
+    ? (def.diffusion as (string | number)[][]).map((r) => r.map(String))
+    : Array.from({ length: n }, (_, i) =>
+        Array.from({ length: n }, (_, j) => (i === j ? String((def.diffusion as (string | number)[])[i]) : "0")),
+      );
+  return {
+    kind: "lab",
+    id,
+    name: def.name,
+    source: def.source ?? "",
+    form: null,
+    species: [...def.species],
+    parameters: def.parameters.map((p) => ({
+      name: p.name,
+      meaning: p.meaning ?? "",
+      default: p.default,
+      min: bound(p.min),
+      max: bound(p.max),
+      unit: p.unit ?? null,
+    })),
+    units: def.units ?? "non-dimensional",
+    reactions: def.reactions.map(String),
+    diffusion,
+    version,
+  };
+}
+
+type Row = InstanceType<Awaited<ReturnType<typeof database>>["LabKinetics"]>;
+
+async function emailsOf(ids: (string | null)[]): Promise<Map<string, string>> {
+  const m = await database();
+  const users = await m.User.findAll({
+    where: { id: ids.filter((x): x is string => !!x) },
+    attributes: ["id", "email"],
+  });
+  return new Map(users.map((u) => [u.id, u.email]));
+}
+
+async function toDtos(ctx: LabContext, rows: Row[]): Promise<LabKineticsDto[]> {
+  const m = await database();
+  const emails = await emailsOf(rows.map((r) => r.createdBy));
+  const latest = rows.length
+    ? await m.KineticsVersion.findAll({
+        where: { [Op.or]: rows.map((r) => ({ kineticsId: r.id, version: r.latestVersion })) },
+        attributes: ["kineticsId", "definition"],
+      })
+    : [];
+  const species = new Map(latest.map((v) => [v.kineticsId, v.definition.species]));
+  return rows.map((r) => ({
+    id: r.id,
+    labId: r.labId,
+    name: r.name,
+    description: r.description,
+    latestVersion: r.latestVersion,
+    species: species.get(r.id) ?? [],
+    createdBy: r.createdBy,
+    createdByEmail: r.createdBy ? (emails.get(r.createdBy) ?? null) : null,
+    createdAt: r.createdAt.toISOString(),
+    updatedAt: r.updatedAt.toISOString(),
+    canEdit: can(ctx.role, "kinetics.edit", { ownerId: r.createdBy, actorId: ctx.actor.userId }),
+  }));
+}
+
+export async function listLabKinetics(
+  ctx: LabContext,
+  q: ListQuery<(typeof LAB_KINETICS_SORTS)[number]>,
+): Promise<ListResult<LabKineticsDto>> {
+  const m = await database();
+  const where = {
+    labId: ctx.labId,
+    ...(q.q ? { [Op.or]: [{ name: containsText(q.q) }, { description: containsText(q.q) }] } : {}),
+  };
+  const { rows, count } = await m.LabKinetics.findAndCountAll({
+    where,
+    order: [
+      [q.sort, q.dir],
+      ["id", "asc"],
+    ],
+    limit: q.pageSize,
+    offset: (q.page - 1) * q.pageSize,
+  });
+  return { items: await toDtos(ctx, rows), page: q.page, pageSize: q.pageSize, total: count };
+}
+
+async function findLabKinetics(ctx: LabContext, id: string): Promise<Row> {
+  if (!isUuid(id)) throw notFound("kinetics");
+  const m = await database();
+  const row = await m.LabKinetics.findOne({ where: { id, labId: ctx.labId } });
+  if (!row) throw notFound("kinetics");
+  return row;
+}
+
+export async function getLabKinetics(ctx: LabContext, id: string): Promise<LabKineticsDto> {
+  return (await toDtos(ctx, [await findLabKinetics(ctx, id)]))[0];
+}
+
+/** One stored version (the latest when `version` is omitted), with its row id for caching. */
+export async function getLabKineticsVersion(
+  ctx: LabContext,
+  id: string,
+  version?: number,
+): Promise<{ versionId: string; version: number; definition: KineticsDefinition }> {
+  const row = await findLabKinetics(ctx, id);
+  const m = await database();
+  const v = await m.KineticsVersion.findOne({ where: { kineticsId: row.id, version: version ?? row.latestVersion } });
+  if (!v) throw notFound(`version ${version} of this kinetics`);
+  return { versionId: v.id, version: v.version, definition: v.definition };
+}
+
+export async function listKineticsVersions(ctx: LabContext, id: string): Promise<KineticsVersionDto[]> {
+  const row = await findLabKinetics(ctx, id);
+  const m = await database();
+  const versions = await m.KineticsVersion.findAll({ where: { kineticsId: row.id }, order: [["version", "desc"]] });
+  const emails = await emailsOf(versions.map((v) => v.createdBy));
+  return versions.map((v) => ({
+    version: v.version,
+    definition: v.definition,
+    createdByEmail: v.createdBy ? (emails.get(v.createdBy) ?? null) : null,
+    createdAt: v.createdAt.toISOString(),
+  }));
+}
+
+/**
+ * Compiles the definition and looks for a homogeneous steady state at the default parameters;
+ * a kinetics without one cannot be analysed, so it is refused (422) with the solver's reason.
+ */
+export function checkDefinition(definition: KineticsDefinition): void {
+  const compiled = compileDefinition(definition);
+  try {
+    findSteadyStates(compiled, resolveParameters(compiled, {}, "definition.parameters"));
+  } catch (err) {
+    const e = toAppError(err);
+    if (e instanceof AppError && e.code === "unprocessable") {
+      throw new AppError(
+        "unprocessable",
+        `definition: no steady state at the default parameter values — ${e.message}`,
+        { field: "definition.parameters" },
+      );
+    }
+    throw e;
+  }
+}
+
+interface KineticsInput {
+  description: string | null;
+  definition: KineticsDefinition;
+}
+
+export async function createLabKinetics(ctx: LabContext, input: KineticsInput): Promise<LabKineticsDto> {
+  authorize(ctx, "kinetics.edit");
+  checkDefinition(input.definition);
+  const m = await database();
+  const row = await services().db.sequelize.transaction(async (transaction) => {
+    const k = await m.LabKinetics.create(
+      {
+        labId: ctx.labId,
+        name: input.definition.name,
+        description: input.description,
+        latestVersion: 1,
+        createdBy: ctx.actor.userId,
+      },
+      { transaction },
+    );
+    await m.KineticsVersion.create(
+      { kineticsId: k.id, labId: ctx.labId, version: 1, definition: input.definition, createdBy: ctx.actor.userId },
+      { transaction },
+    );
+    await recordAudit(
+      m,
+      {
+        labId: ctx.labId,
+        actor: ctx.actor,
+        action: "kinetics.created",
+        targetType: "kinetics",
+        targetId: k.id,
+        summary: `${ctx.actor.email} created the kinetics “${k.name}” (version 1, ${input.definition.species.length} species)`,
+      },
+      transaction,
+    );
+    return k;
+  });
+  return (await toDtos(ctx, [row]))[0];
+}
+
+/** Saves the definition as the next version; earlier versions stay as they were. */
+export async function updateLabKinetics(ctx: LabContext, id: string, input: KineticsInput): Promise<LabKineticsDto> {
+  const row = await findLabKinetics(ctx, id);
+  authorize(ctx, "kinetics.edit", row.createdBy);
+  checkDefinition(input.definition);
+  const m = await database();
+  await services().db.sequelize.transaction(async (transaction) => {
+    await row.reload({ transaction });
+    const version = row.latestVersion + 1;
+    await m.KineticsVersion.create(
+      { kineticsId: row.id, labId: ctx.labId, version, definition: input.definition, createdBy: ctx.actor.userId },
+      { transaction },
+    );
+    await row.update(
+      { name: input.definition.name, description: input.description, latestVersion: version },
+      { transaction },
+    );
+    await recordAudit(
+      m,
+      {
+        labId: ctx.labId,
+        actor: ctx.actor,
+        action: "kinetics.edited",
+        targetType: "kinetics",
+        targetId: row.id,
+        summary: `${ctx.actor.email} saved version ${version} of the kinetics “${row.name}”`,
+      },
+      transaction,
+    );
+  });
+  return (await toDtos(ctx, [row]))[0];
+}
+
+export async function deleteLabKinetics(ctx: LabContext, id: string): Promise<void> {
+  const row = await findLabKinetics(ctx, id);
+  authorize(ctx, "kinetics.edit", row.createdBy);
+  const m = await database();
+  await services().db.sequelize.transaction(async (transaction) => {
+    const n = await m.KineticsVersion.destroy({ where: { kineticsId: row.id }, transaction });
+    await row.destroy({ transaction });
+    await recordAudit(
+      m,
+      {
+        labId: ctx.labId,
+        actor: ctx.actor,
+        action: "kinetics.deleted",
+        targetType: "kinetics",
+        targetId: id,
+        summary: `${ctx.actor.email} deleted the kinetics “${row.name}” and its ${n} version(s)`,
+      },
+      transaction,
+    );
+  });
+}

@@ -1,0 +1,50 @@
+/**
+ * Child-process entry of a readout, so decoding and FFTs of a large image, or parsing and
+ * statistics of a large table, never hold the server's event loop: `node --import tsx
+ * lib/server/readouts/child.ts --input FILE --settings FILE --out DIR` runs
+ * {@link runImageReadout} (settings of kind "image"; writes the derived products into DIR) or
+ * {@link runTableReadout} (kind "table"; no derived products),
+ * prints the result as one JSON object on stdout and reports progress on stderr as lines
+ * `progress {"fraction", "note"}`. A readout error is printed as `error {"code", "message", "details"}`
+ * (exit code 2) so the parent can rebuild the same AppError; anything else exits 1 with its stack.
+ */
+import { readFileSync, writeFileSync } from "node:fs";
+import path from "node:path";
+import { toReadoutAppError } from "./errors";
+import { runImageReadout } from "./image";
+import type { StoredImageSettings, StoredReadoutSettings, StoredTableSettings } from "./settings";
+import { runTableReadout } from "./table";
+
+function arg(name: string): string {
+  const i = process.argv.indexOf(name);
+  if (i < 0 || !process.argv[i + 1]) throw new Error(`${name} is required.`);
+  return process.argv[i + 1];
+}
+
+async function main() {
+  const bytes = readFileSync(arg("--input"));
+  const settings = JSON.parse(readFileSync(arg("--settings"), "utf8")) as StoredReadoutSettings;
+  if (settings.kind === "table") {
+    const result = runTableReadout(bytes.toString("utf8"), settings as StoredTableSettings);
+    process.stdout.write(JSON.stringify(result) + "\n");
+    return;
+  }
+  const out = arg("--out");
+  const r = await runImageReadout(bytes, settings as StoredImageSettings, async (fraction, note) => {
+    process.stderr.write(`progress ${JSON.stringify({ fraction, note })}\n`);
+  });
+  for (const [name, body] of Object.entries(r.derived)) writeFileSync(path.join(out, name), body);
+  process.stdout.write(JSON.stringify(r.result) + "\n");
+}
+
+main().catch((err: unknown) => {
+  const app = toReadoutAppError(err);
+  if (app) {
+    process.stderr.write(
+      `error ${JSON.stringify({ code: app.code, message: app.message, details: app.details ?? null })}\n`,
+    );
+    process.exit(2);
+  }
+  console.error(err);
+  process.exit(1);
+});

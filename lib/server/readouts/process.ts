@@ -1,0 +1,107 @@
+/**
+ * Runs an image or table readout off the event loop in a child Node process (readout-child.ts,
+ * through jobs/child-process.ts), killed when the job is cancelled or runs past
+ * READOUT_TIME_LIMIT_MS. A 4096² image is ~2 s of pure computation, and parsing a 1 000 000-row
+ * CSV with its statistics ~5 s; in-process every other request would wait for it. Readout errors
+ * come back as the same AppError (code, message, details) the in-process path throws.
+ *
+ * READOUT_IN_PROCESS=1 runs the same functions in this process instead (measurements, debugging).
+ */
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import path from "node:path";
+import { AppError, type ErrorCode } from "../errors";
+import { parseProtocolLine, runTsxChild } from "../jobs/child-process";
+import { JobCancelledError } from "../jobs/types";
+import { runImageReadout, type ImageReadoutOutput } from "./image";
+import type { ImageReadoutResult, TableReadoutResult } from "./result";
+import type { StoredImageSettings, StoredTableSettings } from "./settings";
+import { runTableReadout } from "./table";
+
+/** Longest one image readout may run, ms (design choice: 20× the 4096² bench figure, and start-up). */
+export const READOUT_TIME_LIMIT_MS = 3 * 60_000;
+
+export const readoutRunner = (): "child-process" | "in-process" =>
+  process.env.READOUT_IN_PROCESS === "1" ? "in-process" : "child-process";
+
+const DERIVED = ["spectrum.json", "preview.png", "fft.png"] as const;
+
+export async function readImage(
+  bytes: Uint8Array,
+  settings: StoredImageSettings,
+  signal: AbortSignal,
+  step: (fraction: number, note: string) => Promise<void>,
+): Promise<ImageReadoutOutput> {
+  if (signal.aborted) throw new JobCancelledError();
+  if (readoutRunner() === "in-process") return runImageReadout(bytes, settings, step);
+  return inChild(bytes, settings, signal, step, (stdout, dir) => {
+    const result = JSON.parse(stdout) as ImageReadoutResult;
+    const derived = Object.fromEntries(
+      DERIVED.map((name) => [name, readFileSync(path.join(dir, name))]),
+    ) as ImageReadoutOutput["derived"];
+    return { result, derived };
+  });
+}
+
+/** A CSV/TSV table readout (parsing, column guess, spacing statistics); no derived objects. */
+export async function readTable(
+  bytes: Uint8Array,
+  settings: StoredTableSettings,
+  signal: AbortSignal,
+): Promise<TableReadoutResult> {
+  if (signal.aborted) throw new JobCancelledError();
+  if (readoutRunner() === "in-process")
+    return runTableReadout(Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength).toString("utf8"), settings);
+  return inChild(
+    bytes,
+    settings,
+    signal,
+    async () => undefined,
+    (stdout) => JSON.parse(stdout) as TableReadoutResult,
+  );
+}
+
+/** Runs readout-child.ts on the bytes and settings; `read` turns its stdout (and out folder) into the result. */
+async function inChild<T>(
+  bytes: Uint8Array,
+  settings: StoredImageSettings | StoredTableSettings,
+  signal: AbortSignal,
+  step: (fraction: number, note: string) => Promise<void>,
+  read: (stdout: string, dir: string) => T,
+): Promise<T> {
+  const dir = mkdtempSync(path.join(tmpdir(), "morphokin-readout-"));
+  try {
+    const input = path.join(dir, "input"),
+      settingsFile = path.join(dir, "settings.json");
+    writeFileSync(input, bytes);
+    writeFileSync(settingsFile, JSON.stringify(settings));
+    type Failure = { code: ErrorCode; message: string; details: unknown };
+    let failure: Failure | null = null;
+    let progress = Promise.resolve();
+    const r = await runTsxChild(
+      ["lib/server/readouts/child.ts", "--input", input, "--settings", settingsFile, "--out", dir],
+      {
+        signal,
+        timeLimitMs: READOUT_TIME_LIMIT_MS,
+        onLine(line) {
+          const q = parseProtocolLine<{ fraction: number; note: string }>(line, "progress");
+          if (q) progress = progress.then(() => step(q.fraction, q.note)).catch(() => undefined);
+          failure = parseProtocolLine<Failure>(line, "error") ?? failure;
+          return line.startsWith("progress ") || line.startsWith("error ");
+        },
+      },
+    );
+    await progress;
+    if (r.timedOut)
+      throw new AppError(
+        "unprocessable",
+        `the readout took longer than ${READOUT_TIME_LIMIT_MS / 60_000} minutes and was stopped; ${settings.kind === "table" ? "split the table" : "draw a smaller region of interest"} or try again when the server is less busy`,
+      );
+    const f = failure as Failure | null; // assigned in the callback, which TypeScript cannot follow
+    if (f) throw new AppError(f.code, f.message, f.details ?? undefined);
+    if (r.code !== 0) throw new Error(`the readout process exited with code ${r.code}: ${r.stderr.trim().slice(-500)}`);
+    return read(r.stdout, dir);
+  } finally {
+    rmSync(dir, { recursive: true, force: true });
+  }
+}

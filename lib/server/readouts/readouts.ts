@@ -1,0 +1,247 @@
+/**
+ * Spacing readouts: one upload read with one set of settings, immutable once made (other
+ * settings make a new readout). Starting one writes its row and its background job in one
+ * transaction; the job (lib/server/readouts/job.ts) writes the result and the derived
+ * objects together. The row always has a status; a result exists only with status "succeeded".
+ */
+import { randomUUID } from "node:crypto";
+import type { Transaction, WhereOptions } from "sequelize";
+import packageJson from "@/package.json";
+import { DERIVED_PRODUCTS, type DerivedProduct } from "@/lib/contracts/readout";
+import type { JobStatus } from "@/models/job";
+import type { Readout } from "@/models/readout";
+import { StorageUnavailableError } from "@/storage/object-store";
+import { authorize, type LabContext } from "../access";
+import { AppError, notFound } from "../errors";
+import { enqueueJob } from "../jobs/runner";
+import { containsText, type ListQuery, type ListResult } from "../web/list";
+import { database, services } from "../services";
+import { headlineOf, type ReadoutHeadline, type ReadoutResult } from "./result";
+import { resolveStartSettings, type StoredReadoutSettings } from "./settings";
+import { findUpload } from "../uploads/uploads";
+
+export const SOFTWARE_VERSION = `morphokin ${packageJson.version}`;
+export const READOUT_SORTS = ["createdAt", "status", "wavelengthUm"] as const;
+
+export interface ReadoutDto {
+  id: string;
+  uploadId: string;
+  specimenId: string;
+  filename: string;
+  kind: "image" | "table";
+  status: JobStatus;
+  /** 0..1 from the job while it runs. */
+  progress: number;
+  progressNote: string | null;
+  error: string | null;
+  jobId: string | null;
+  settings: StoredReadoutSettings;
+  pixelSizeUm: number | null;
+  pixelSizeSource: string | null;
+  softwareVersion: string;
+  inputSha256: string;
+  headline: ReadoutHeadline | null;
+  createdBy: string | null;
+  createdByEmail: string | null;
+  createdAt: string;
+}
+
+export interface ReadoutDetailDto extends ReadoutDto {
+  result: ReadoutResult | null;
+  /** API paths of the stored derived products. */
+  derived: Partial<Record<DerivedProduct, string>>;
+  specimenLabel: string;
+  condition: string;
+  studyId: string;
+  studyName: string;
+}
+
+type Row = InstanceType<Awaited<ReturnType<typeof database>>["Readout"]>;
+
+async function toDtos(rows: Row[]): Promise<ReadoutDto[]> {
+  const m = await database();
+  const uploads = rows.length
+    ? await m.Upload.findAll({
+        where: { id: [...new Set(rows.map((r) => r.uploadId))] },
+        attributes: ["id", "filename"],
+      })
+    : [];
+  const names = new Map(uploads.map((u) => [u.id, u.filename]));
+  const jobIds = rows.filter((r) => r.jobId && (r.status === "queued" || r.status === "running")).map((r) => r.jobId!);
+  const jobs = new Map((jobIds.length ? await m.Job.findAll({ where: { id: jobIds } }) : []).map((j) => [j.id, j]));
+  const users = await m.User.findAll({
+    where: { id: rows.map((r) => r.createdBy).filter((x): x is string => !!x) },
+    attributes: ["id", "email"],
+  });
+  const emails = new Map(users.map((u) => [u.id, u.email]));
+  return rows.map((r) => {
+    const settings = r.settings as unknown as StoredReadoutSettings;
+    const job = r.jobId ? jobs.get(r.jobId) : undefined;
+    // A job cancelled or lost before its handler ran never touched the row: show the job's end.
+    const ended = job && job.status !== "queued" && job.status !== "running" && job.status !== "succeeded";
+    const status: JobStatus = ended ? job.status : r.status;
+    return {
+      id: r.id,
+      uploadId: r.uploadId,
+      specimenId: r.specimenId,
+      filename: names.get(r.uploadId) ?? "",
+      kind: r.kind as "image" | "table",
+      status,
+      progress: r.status === "succeeded" ? 1 : (job?.progress ?? 0),
+      progressNote: job?.progressNote ?? null,
+      error: ended ? job.error : r.error,
+      jobId: r.jobId,
+      settings,
+      pixelSizeUm: r.pixelSizeUm,
+      pixelSizeSource: settings.pixelSizeSource ?? null,
+      softwareVersion: r.softwareVersion,
+      inputSha256: r.inputSha256,
+      headline: r.status === "succeeded" && r.result ? headlineOf(r.result as unknown as ReadoutResult) : null,
+      createdBy: r.createdBy,
+      createdByEmail: r.createdBy ? (emails.get(r.createdBy) ?? null) : null,
+      createdAt: r.createdAt.toISOString(),
+    };
+  });
+}
+
+export interface ReadoutFilter {
+  uploadId?: string;
+  specimenId?: string;
+}
+
+export async function listReadouts(
+  ctx: LabContext,
+  filter: ReadoutFilter,
+  q: ListQuery<(typeof READOUT_SORTS)[number]>,
+): Promise<ListResult<ReadoutDto>> {
+  const m = await database();
+  if (filter.uploadId) await findUpload(ctx, filter.uploadId);
+  const where: WhereOptions<Readout> = {
+    labId: ctx.labId,
+    ...(filter.uploadId ? { uploadId: filter.uploadId } : {}),
+    ...(filter.specimenId ? { specimenId: filter.specimenId } : {}),
+  };
+  if (q.q) {
+    const uploads = await m.Upload.findAll({
+      where: { labId: ctx.labId, filename: containsText(q.q) },
+      attributes: ["id"],
+    });
+    Object.assign(where, {
+      uploadId: filter.uploadId
+        ? [filter.uploadId].filter((id) => uploads.some((u) => u.id === id))
+        : uploads.map((u) => u.id),
+    });
+  }
+  const { rows, count } = await m.Readout.findAndCountAll({
+    where,
+    order: [
+      [q.sort, q.dir],
+      ["createdAt", "desc"],
+      ["id", "asc"],
+    ],
+    limit: q.pageSize,
+    offset: (q.page - 1) * q.pageSize,
+  });
+  return { items: await toDtos(rows), page: q.page, pageSize: q.pageSize, total: count };
+}
+
+async function findReadout(ctx: LabContext, readoutId: string): Promise<Row> {
+  const m = await database();
+  const r = await m.Readout.findOne({ where: { id: readoutId, labId: ctx.labId } });
+  if (!r) throw notFound("readout");
+  return r;
+}
+
+export async function getReadout(ctx: LabContext, readoutId: string): Promise<ReadoutDetailDto> {
+  const m = await database();
+  const r = await findReadout(ctx, readoutId);
+  const [dto] = await toDtos([r]);
+  const specimen = await m.Specimen.findByPk(r.specimenId, { attributes: ["id", "label", "condition", "studyId"] });
+  const study = specimen ? await m.Study.findByPk(specimen.studyId, { attributes: ["id", "name"] }) : null;
+  const base = `/api/v1/labs/${ctx.labId}/readouts/${r.id}/derived`;
+  const derived = Object.fromEntries(
+    Object.keys(r.status === "succeeded" ? (r.derivedKeys ?? {}) : {}).map((k) => [k, `${base}/${k}`]),
+  );
+  return {
+    ...dto,
+    result: r.status === "succeeded" ? (r.result as unknown as ReadoutResult) : null,
+    derived,
+    specimenLabel: specimen?.label ?? "",
+    condition: specimen?.condition ?? "",
+    studyId: specimen?.studyId ?? "",
+    studyName: study?.name ?? "",
+  };
+}
+
+/** Queues a readout of an upload with the given settings (a JSON body; {} = defaults). */
+export async function startReadout(ctx: LabContext, uploadId: string, body: unknown): Promise<ReadoutDto> {
+  authorize(ctx, "readout.create");
+  const upload = await findUpload(ctx, uploadId);
+  const settings = resolveStartSettings(upload, body);
+  const row = await services().db.sequelize.transaction((transaction) =>
+    queueReadout(ctx, upload, settings, transaction),
+  );
+  return toReadoutDto(row);
+}
+
+type UploadForReadout = { id: string; specimenId: string; kind: "image" | "table"; sha256: string };
+
+/** Writes a queued readout of `upload` and its job inside the caller's transaction (an upload's first readout). */
+export async function queueReadout(
+  ctx: LabContext,
+  upload: UploadForReadout,
+  settings: StoredReadoutSettings,
+  transaction: Transaction,
+): Promise<Row> {
+  const m = await database();
+  const id = randomUUID();
+  const job = await enqueueJob(
+    { labId: ctx.labId, kind: "readout", payload: { readoutId: id }, requestedBy: ctx.actor.userId },
+    transaction,
+  );
+  return m.Readout.create(
+    {
+      id,
+      labId: ctx.labId,
+      uploadId: upload.id,
+      specimenId: upload.specimenId,
+      jobId: job.id,
+      status: "queued",
+      kind: upload.kind,
+      settings: settings as unknown as Record<string, unknown>,
+      pixelSizeUm: settings.pixelSizeUm,
+      inputSha256: upload.sha256,
+      softwareVersion: SOFTWARE_VERSION,
+      createdBy: ctx.actor.userId,
+    },
+    { transaction },
+  );
+}
+
+export async function toReadoutDto(row: Row): Promise<ReadoutDto> {
+  return (await toDtos([row]))[0];
+}
+
+/** A stored derived product of a finished readout. */
+export async function openDerived(ctx: LabContext, readoutId: string, product: string) {
+  if (!Object.hasOwn(DERIVED_PRODUCTS, product)) throw notFound("derived product");
+  const r = await findReadout(ctx, readoutId);
+  const key =
+    r.status === "succeeded" && r.derivedKeys && Object.hasOwn(r.derivedKeys, product)
+      ? r.derivedKeys[product]
+      : undefined;
+  if (!key) throw notFound("derived product");
+  try {
+    const obj = await services().store.get(key);
+    return {
+      body: obj.body,
+      contentType: DERIVED_PRODUCTS[product as DerivedProduct],
+      contentLength: obj.contentLength,
+    };
+  } catch (err) {
+    if (err instanceof StorageUnavailableError)
+      throw new AppError("unavailable", "object storage is unreachable; try again later");
+    if ((err as { name?: string }).name === "NoSuchKey") throw notFound("derived product");
+    throw err;
+  }
+}

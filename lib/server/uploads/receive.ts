@@ -1,0 +1,132 @@
+/**
+ * An upload request: wait for a slot, stream the file, judge its type by content, take the pixel
+ * size from the file's metadata (or the uploader), then store object + row + readout together.
+ */
+import { readFile } from "node:fs/promises";
+import sharp from "sharp";
+import { readPixelSize, sniffFileKind, type FileKind } from "@/lib/imaging";
+import { MAX_READOUT_PIXELS } from "@/lib/readout";
+import { pixelSizeSchema } from "@/lib/contracts/study";
+import { authorize, type LabContext } from "../access";
+import { AppError } from "../errors";
+import { uploadGate } from "./back-pressure";
+import { parseUpload, uploadTempRoot, type ParsedUpload } from "./multipart";
+import { services } from "../services";
+import { findSpecimen } from "../studies/specimens";
+import { queueReadout, toReadoutDto, type ReadoutDto } from "../readouts/readouts";
+import { resolveStartSettings, type StoredReadoutSettings } from "../readouts/settings";
+import { storeUpload, type UploadDto } from "./uploads";
+
+export const CONTENT_TYPES: Record<FileKind, string> = {
+  png: "image/png",
+  jpeg: "image/jpeg",
+  tiff: "image/tiff",
+  csv: "text/csv",
+  tsv: "text/tab-separated-values",
+};
+
+const isImage = (kind: FileKind) => kind === "png" || kind === "jpeg" || kind === "tiff";
+
+/**
+ * Refuses an image above the readout's pixel limit from its header alone (sharp reads no pixel
+ * data for metadata). An unreadable header is left to the readout, which fails with the reason
+ * while the upload is kept.
+ */
+async function checkPixelLimit(path: string, name: string): Promise<void> {
+  const meta = await sharp(path, { limitInputPixels: false })
+    .metadata()
+    .catch(() => null);
+  const px = (meta?.width ?? 0) * (meta?.height ?? 0);
+  if (px > MAX_READOUT_PIXELS) {
+    throw new AppError(
+      "too_large",
+      `“${name}” is ${meta!.width}×${meta!.height} = ${px} pixels, above the limit of ${MAX_READOUT_PIXELS} pixels (8192×8192); crop or bin it before uploading`,
+    );
+  }
+}
+
+/** The stored upload and the readout it started (null when it could not start; `readoutError` says why). */
+export type ReceivedUpload = UploadDto & { readout: ReadoutDto | null; readoutError: string | null };
+
+/**
+ * One upload, start to end. A slot of the upload gate is taken first (a 503 with Retry-After when
+ * the server is saturated, before the body is read); the upload and its readout are then stored
+ * together (see `storeUpload`).
+ */
+export async function receiveUpload(ctx: LabContext, specimenId: string, request: Request): Promise<ReceivedUpload> {
+  const { config } = services();
+  const leave = await uploadGate().enter({
+    inFlight: config.uploadsInFlight,
+    waiting: config.uploadsWaiting,
+    waitMs: config.uploadWaitMs,
+  });
+  try {
+    await findSpecimen(ctx, specimenId); // 404 before reading a byte of the body
+    const parsed = await parseUpload(request, config.maxUploadBytes, uploadTempRoot(config.dataDir));
+    try {
+      return await storeParsed(ctx, specimenId, parsed);
+    } finally {
+      parsed.cleanup();
+    }
+  } finally {
+    leave();
+  }
+}
+
+async function storeParsed(ctx: LabContext, specimenId: string, parsed: ParsedUpload): Promise<ReceivedUpload> {
+  const kind = sniffFileKind(parsed.head);
+  if (!kind) {
+    throw new AppError(
+      "bad_input",
+      `“${parsed.file.originalName}” is not a PNG, JPEG or TIFF image nor a CSV/TSV table (judged by its content, not its name)`,
+    );
+  }
+  if (isImage(kind)) await checkPixelLimit(parsed.file.path, parsed.file.originalName);
+  let typed: number | null = null;
+  if (parsed.fields.pixelSizeUm !== undefined && parsed.fields.pixelSizeUm.trim() !== "") {
+    const p = pixelSizeSchema.safeParse(parsed.fields.pixelSizeUm);
+    if (!p.success) throw new AppError("bad_input", `pixelSizeUm: ${p.error.issues[0].message}`);
+    typed = p.data;
+  }
+  let pixelSizeUm: number | null = typed;
+  let pixelSizeSource: string | null = typed === null ? null : "uploader";
+  if (isImage(kind) && typed === null) {
+    const fromFile = readPixelSize(await readFile(parsed.file.path), kind);
+    if (fromFile.pixelSizeUm === null) {
+      throw new AppError(
+        "bad_input",
+        `pixelSizeUm: “${parsed.file.originalName}” carries no pixel size in its metadata${fromFile.pixelSizeNote ? ` (${fromFile.pixelSizeNote})` : ""}; enter the pixel size in µm/px`,
+      );
+    }
+    pixelSizeUm = fromFile.pixelSizeUm;
+    pixelSizeSource = fromFile.pixelSizeSource;
+  }
+  const file = {
+    path: parsed.file.path,
+    filename: parsed.file.originalName,
+    sizeBytes: parsed.file.sizeBytes,
+    sha256: parsed.file.sha256,
+    kind: isImage(kind) ? ("image" as const) : ("table" as const),
+    contentType: CONTENT_TYPES[kind],
+    pixelSizeUm,
+    pixelSizeSource,
+  };
+  // Every upload gets its readout with default settings, as a background job, written in the same
+  // transaction that makes the upload visible. Settings that cannot start one keep the upload.
+  let settings: StoredReadoutSettings | null = null;
+  let readoutError: string | null = null;
+  try {
+    authorize(ctx, "readout.create");
+    settings = resolveStartSettings(file, {});
+  } catch (err) {
+    if (!(err instanceof AppError)) throw err;
+    readoutError = err.message;
+  }
+  const { also: readoutRow, ...upload } = await storeUpload(
+    ctx,
+    specimenId,
+    file,
+    settings ? (row, transaction) => queueReadout(ctx, row, settings, transaction) : undefined,
+  );
+  return { ...upload, readout: readoutRow ? await toReadoutDto(readoutRow) : null, readoutError };
+}

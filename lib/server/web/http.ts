@@ -1,0 +1,160 @@
+/** Route-handler glue: JSON bodies validated by a schema, errors mapped to status codes. */
+import { z, ZodError, type ZodType } from "zod";
+import { readConfig } from "../config";
+import { AppError } from "../errors";
+import { prefixField, startsWithField } from "./field-message";
+import { crossSiteRefusal } from "./same-origin";
+
+export function errorResponse(err: unknown): Response {
+  if (err instanceof AppError) {
+    // A rate-limited answer says when to come back (RFC 9110 §10.2.3 Retry-After, in seconds).
+    const retry = (err as { retryAfterS?: number }).retryAfterS;
+    const headers: Record<string, string> = retry ? { "retry-after": String(retry) } : {};
+    return Response.json(
+      { error: { code: err.code, message: err.message, ...(err.details ? { details: err.details } : {}) } },
+      { status: err.status, headers },
+    );
+  }
+  if (err instanceof ZodError) {
+    return Response.json(
+      { error: { code: "bad_input", message: describeZodError(err), details: z.flattenError(err) } },
+      { status: 400 },
+    );
+  }
+  console.error(err);
+  return Response.json(
+    { error: { code: "internal", message: "something went wrong on the server; the error was logged" } },
+    { status: 500 },
+  );
+}
+
+/**
+ * "name: Required; tissue: Too long" — field names first, so the message says what is wrong.
+ * A message that already begins with its field ("data: at most 200 …", "endTimeS must be …")
+ * is kept as it is, so no message repeats its prefix.
+ */
+export function describeZodError(err: ZodError): string {
+  return err.issues.map(describeIssue).join("; ");
+}
+
+export function describeIssue(i: { path: readonly PropertyKey[]; message: string }): string {
+  if (!i.path.length) return i.message;
+  const field = i.path.map(String).join(".");
+  if (startsWithField(i.message, field)) return i.message;
+  // A nested field whose message names only its own key: "models.0.kinetics" + "kinetics: at most 64 …".
+  const last = i.path[i.path.length - 1];
+  if (i.path.length > 1 && typeof last === "string" && i.message.startsWith(`${last}:`)) {
+    return `${i.path.slice(0, -1).map(String).join(".")}.${i.message}`;
+  }
+  return prefixField(field, i.message);
+}
+
+type Handler<P> = (request: Request, ctx: { params: Promise<P> }) => Promise<Response>;
+
+/**
+ * Wraps a handler so every thrown error becomes the JSON error shape, and refuses a
+ * state-changing request that a browser sent from another site with this app's cookie (CSRF).
+ */
+export function route<P = Record<string, string>>(handler: Handler<P>): Handler<P> {
+  return async (request, ctx) => {
+    try {
+      const refusal = crossSiteRefusal(request, readConfig().appUrl);
+      if (refusal) throw new AppError("forbidden", refusal);
+      return await handler(request, ctx);
+    } catch (err) {
+      return errorResponse(err);
+    }
+  };
+}
+
+/** Default largest JSON body, bytes: every form of the app fits in a small fraction of it. */
+export const DEFAULT_JSON_LIMIT_BYTES = 1024 * 1024;
+
+export interface ReadJsonOptions {
+  /** Largest body accepted, bytes; @default DEFAULT_JSON_LIMIT_BYTES */
+  maxBytes?: number;
+}
+
+/** "1 MiB", "64 KiB", "900 bytes": the limit as a person reads it. */
+export function formatByteLimit(bytes: number): string {
+  if (bytes >= 1024 * 1024 && bytes % (1024 * 1024) === 0) return `${bytes / (1024 * 1024)} MiB`;
+  if (bytes >= 1024 && bytes % 1024 === 0) return `${bytes / 1024} KiB`;
+  return `${bytes} bytes`;
+}
+
+export const bodyTooLarge = (maxBytes: number) =>
+  new AppError(
+    "too_large",
+    `the request body is larger than the limit of ${formatByteLimit(maxBytes)} for this request; send less data`,
+  );
+
+/** The media type of the Content-Type header without parameters, or null when absent. */
+function mediaType(request: Request): string | null {
+  const raw = request.headers.get("content-type");
+  return raw === null ? null : raw.split(";")[0].trim().toLowerCase();
+}
+
+const notJson = (type: string | null) =>
+  new AppError(
+    "unsupported_media_type",
+    `the request body must be JSON sent as Content-Type: application/json (it was sent ${type === null ? "without a Content-Type" : `as ${type}`})`,
+  );
+
+/**
+ * The body as text, at most `maxBytes`: a declared Content-Length above the limit is refused
+ * before a byte is read, and a body without a length is cut off (and refused) at the limit, so a
+ * large body never sits in memory whole.
+ */
+export async function readBodyText(request: Request, maxBytes: number): Promise<string> {
+  const declared = request.headers.get("content-length");
+  if (declared !== null && Number(declared) > maxBytes) throw bodyTooLarge(maxBytes);
+  if (!request.body) return "";
+  const reader = request.body.getReader();
+  const chunks: Uint8Array[] = [];
+  let total = 0;
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    total += value.byteLength;
+    if (total > maxBytes) {
+      await reader.cancel().catch(() => undefined);
+      throw bodyTooLarge(maxBytes);
+    }
+    chunks.push(value);
+  }
+  return new TextDecoder().decode(Buffer.concat(chunks));
+}
+
+/**
+ * The JSON body, unchecked: `{}` when the body is empty. Only `application/json` is accepted
+ * (415 otherwise): a form on another site can send text/plain without asking first, never JSON.
+ */
+export async function readJsonValue(request: Request, options: ReadJsonOptions = {}): Promise<unknown> {
+  const maxBytes = options.maxBytes ?? DEFAULT_JSON_LIMIT_BYTES;
+  const type = mediaType(request);
+  if (type !== null && type !== "application/json") throw notJson(type);
+  const text = await readBodyText(request, maxBytes);
+  if (text.trim() === "") return {};
+  if (type === null) throw notJson(null);
+  try {
+    return JSON.parse(text);
+  } catch {
+    throw new AppError("bad_input", "the request body is not valid JSON");
+  }
+}
+
+export async function readJson<S extends ZodType>(
+  request: Request,
+  schema: S,
+  options: ReadJsonOptions = {},
+): Promise<z.infer<S>> {
+  const body = await readJsonValue(request, options);
+  const parsed = schema.safeParse(body);
+  if (!parsed.success) throw parsed.error;
+  return parsed.data;
+}
+
+/** JSON answers describe live lab data: never let a browser or proxy keep a copy. */
+export function json(data: unknown, status = 200): Response {
+  return Response.json(data, { status, headers: { "cache-control": "no-store" } });
+}

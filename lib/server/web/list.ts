@@ -1,0 +1,64 @@
+/** Paginated, sorted, filtered lists: one query format for every list endpoint. */
+import { literal, Op } from "sequelize";
+import { z } from "zod";
+import { AppError } from "../errors";
+import { describeIssue } from "./http";
+
+export interface ListQuery<S extends string> {
+  page: number;
+  pageSize: number;
+  sort: S;
+  dir: "asc" | "desc";
+  q: string;
+}
+
+export interface ListResult<T> {
+  items: T[];
+  page: number;
+  pageSize: number;
+  total: number;
+}
+
+export const MAX_PAGE_SIZE = 200;
+
+export function parseListQuery<S extends string>(
+  url: string,
+  sortable: readonly S[],
+  defaultSort: S,
+  defaultDir: "asc" | "desc" = "desc",
+): ListQuery<S> {
+  const p = new URL(url).searchParams;
+  const schema = z.object({
+    page: z.coerce.number().int().min(1).default(1),
+    pageSize: z.coerce.number().int().min(1).max(MAX_PAGE_SIZE).default(25),
+    sort: z.enum(sortable as unknown as [S, ...S[]]).default(defaultSort),
+    dir: z.enum(["asc", "desc"]).default(defaultDir),
+    // A NUL or other control character would end or garble the SQL text; nobody types one.
+    q: z
+      .string()
+      .max(200)
+      .regex(/^[^\u0000-\u001f\u007f]*$/, "remove control characters from the search text")
+      .default(""),
+  });
+  const parsed = schema.safeParse(
+    Object.fromEntries([...p.entries()].filter(([k]) => ["page", "pageSize", "sort", "dir", "q"].includes(k))),
+  );
+  if (!parsed.success) {
+    throw new AppError("bad_input", parsed.error.issues.map(describeIssue).join("; "));
+  }
+  return parsed.data as ListQuery<S>;
+}
+
+/** The escape character of {@link containsText}: not a backslash, which SQL dialects treat differently. */
+const LIKE_ESCAPE = "!";
+
+/**
+ * A where-clause value matching text that contains `q` literally: `%` and `_` in what the user
+ * typed are escaped, so `?q=_` finds an underscore rather than every row. `LIKE … ESCAPE '!'` is
+ * standard SQL (SQLite and PostgreSQL both accept it); the pattern is a quoted literal with `'`
+ * doubled, the standard SQL string escape (and parseListQuery has refused control characters).
+ */
+export function containsText(q: string) {
+  const pattern = `%${q.replace(/[!%_]/g, (c) => LIKE_ESCAPE + c)}%`;
+  return { [Op.like]: literal(`'${pattern.replace(/'/g, "''")}' ESCAPE '${LIKE_ESCAPE}'`) };
+}
