@@ -6,7 +6,7 @@ export const API_ROOT = path.resolve(import.meta.dirname, "../../app/api");
 export const METHODS = ["GET", "POST", "PUT", "PATCH", "DELETE"] as const;
 export type Method = (typeof METHODS)[number];
 
-type Handler = (request: Request, ctx: { params: Promise<Record<string, string>> }) => Promise<Response>;
+export type Handler = (request: Request, ctx: { params: Promise<Record<string, string>> }) => Promise<Response>;
 
 /** Every route file under app/api/v1 as "METHOD /api/v1/…" with its handler. */
 export async function discoverRoutes(): Promise<Map<string, Handler>> {

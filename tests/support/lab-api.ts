@@ -8,7 +8,7 @@
  */
 import { afterAll, beforeAll } from "vitest";
 import type { Role } from "@/lib/access/roles";
-import { call, discoverRoutes, type Method } from "./api";
+import { call, discoverRoutes, type Handler, type Method } from "./api";
 import { startTestStack, type TestStack } from "./stack";
 import { makeWorld, type Person, type World } from "./world";
 
@@ -37,6 +37,8 @@ export interface LabApi {
   readonly w: World;
   /** Calls `METHOD path` as `who`; the response is read once (JSON when it says so). */
   api(method: Method, path: string, o?: ApiCall): Promise<ApiAnswer>;
+  /** The handler of `"METHOD /path"` (throws when there is none). */
+  route(key: string): Handler;
   /** The raw Response of a call, unread. */
   raw(method: Method, path: string, o?: ApiCall): Promise<Response>;
   /** The lab context a data-access function takes, for a role of the test lab. */
@@ -66,9 +68,13 @@ export function setupLabApi(options: LabApiOptions = {}): LabApi {
     if (v === undefined) throw new Error(`setupLabApi: ${what} is not ready (use it inside a test or hook)`);
     return v;
   };
+  const route = (key: string): Handler => {
+    const handler = ready(routes, "the route table").get(key);
+    if (!handler) throw new Error(`no route ${key}`);
+    return handler;
+  };
   const raw = (method: Method, path: string, o: ApiCall = {}) => {
-    const handler = ready(routes, "the route table").get(`${method} ${path}`);
-    if (!handler) throw new Error(`no route ${method} ${path}`);
+    const handler = route(`${method} ${path}`);
     const w = ready(world, "the lab");
     const who = o.who ?? options.who ?? "scientist";
     const token = typeof who === "string" ? w.people[who].token : who.token;
@@ -87,6 +93,7 @@ export function setupLabApi(options: LabApiOptions = {}): LabApi {
     get w() {
       return ready(world, "the lab");
     },
+    route,
     raw,
     async api(method, path, o) {
       const res = await raw(method, path, o);
