@@ -7,7 +7,8 @@
 import Papa from "papaparse";
 import { describe, expect, it } from "vitest";
 import type { FitDetailDto } from "@/lib/server/fits/fits";
-import { comparisonToCsv, type ConditionComparison } from "@/lib/server/readouts/comparison";
+import { comparisonToCsv } from "@/lib/server/readouts/comparison-csv";
+import type { ConditionComparison } from "@/lib/server/readouts/comparison-types";
 import { csvCell, csvComment } from "@/lib/server/web/csv";
 import { fitToCsv } from "@/lib/server/fits/export-csv";
 

@@ -5,7 +5,7 @@
 import Papa from "papaparse";
 import { jStat } from "jstat";
 import { describe, expect, it } from "vitest";
-import type { ConditionComparison } from "@/lib/server/readouts/comparison";
+import type { ConditionComparison } from "@/lib/server/readouts/comparison-types";
 import { createStudy } from "@/lib/server/studies/studies";
 import { createSpecimen } from "@/lib/server/studies/specimens";
 import { errorOf } from "../support/lab-api";

@@ -13,62 +13,17 @@
 import { collectConditionSpellings, summarize, welchTTest, type WelchResult } from "@/lib/spacing";
 import type { LabContext } from "../access";
 import { AppError } from "../errors";
-import { csvComment, csvRow } from "../web/csv";
 import { database } from "../services";
-import { headlineOf, MEASURE_LABELS, type ReadoutResult, type WavelengthMeasure } from "./result";
+import { headlineOf, MEASURE_LABELS, type ReadoutResult } from "./result";
 import { findStudy } from "../studies/studies";
 
-export interface ComparisonPoint {
-  condition: string;
-  specimenId: string;
-  specimenLabel: string;
-  uploadId: string;
-  filename: string;
-  readoutId: string;
-  measure: WavelengthMeasure;
-  wavelengthUm: number;
-  uncertaintyUm: number | null;
-  pixelSizeUm: number | null;
-  readoutCreatedAt: string;
-}
-
-/** One biological replicate: the mean of its images' wavelengths (technical replicates). */
-export interface SpecimenValue {
-  specimenId: string;
-  specimenLabel: string;
-  wavelengthUm: number;
-  images: number;
-}
-
-export type ReplicateUnit = "specimen" | "image";
-
-export interface ConditionGroup {
-  condition: string;
-  /** The replicates the statistics use: specimens (default) or images (`replicate: "image"`). */
-  n: number;
-  nSpecimens: number;
-  nImages: number;
-  meanUm: number;
-  sdUm: number | null;
-  semUm: number | null;
-  /** 95 % CI of the mean (t with n − 1 df); null for n < 2. */
-  ci95Um: [number, number] | null;
-  specimens: SpecimenValue[];
-  points: ComparisonPoint[];
-}
-
-export interface ConditionComparison {
-  studyId: string;
-  studyName: string;
-  conditions: string[];
-  replicate: ReplicateUnit;
-  groups: ConditionGroup[];
-  /** Uploads left out, with why (no finished readout, or no significant period). */
-  excluded: Array<{ uploadId: string; filename: string; specimenLabel: string; condition: string; reason: string }>;
-  test: { a: string | null; b: string | null; welch: WelchResult | null; note: string | null };
-  measures: Record<string, string>;
-  warnings: string[];
-}
+import type {
+  ComparisonPoint,
+  ConditionComparison,
+  ConditionGroup,
+  ReplicateUnit,
+  SpecimenValue,
+} from "./comparison-types";
 
 export async function compareConditions(
   ctx: LabContext,
@@ -244,70 +199,3 @@ function averageBySpecimen(points: ComparisonPoint[]): SpecimenValue[] {
 }
 
 /** One row per readout used, with its condition's summary repeated; Welch's result in # lines on top. */
-export function comparisonToCsv(c: ConditionComparison): string {
-  const lines: string[] = [];
-  lines.push(
-    csvComment(
-      `Condition comparison of study ${c.studyName}; lengths in µm; latest finished readout per upload; replicates: ${c.replicate === "specimen" ? "specimens (the images of a specimen averaged first)" : "images (pseudo-replicated)"}`,
-    ),
-  );
-  if (c.test.welch) {
-    const w = c.test.welch;
-    lines.push(
-      csvComment(
-        `Welch t-test ${c.test.a} vs ${c.test.b}: difference ${w.meanDifference} um; t ${w.t}; df ${w.df}; p ${w.pValue}; 95% CI ${w.ci95[0]} to ${w.ci95[1]} um; Hedges g ${w.hedgesG}`,
-      ),
-    );
-  } else if (c.test.note) lines.push(csvComment(c.test.note));
-  lines.push(
-    [
-      "condition",
-      "specimen",
-      "file",
-      "readout_id",
-      "measure",
-      "wavelength_um",
-      "uncertainty_um",
-      "pixel_size_um_per_px",
-      "readout_created_at",
-      "specimen_mean_um",
-      "specimen_images",
-      "condition_n",
-      "condition_specimens",
-      "condition_images",
-      "condition_mean_um",
-      "condition_sd_um",
-      "condition_ci95_low_um",
-      "condition_ci95_high_um",
-    ].join(","),
-  );
-  for (const g of c.groups) {
-    const ofSpecimen = new Map(g.specimens.map((x) => [x.specimenId, x]));
-    for (const p of g.points) {
-      const sp = ofSpecimen.get(p.specimenId)!;
-      lines.push(
-        csvRow([
-          p.condition,
-          p.specimenLabel,
-          p.filename,
-          p.readoutId,
-          p.measure,
-          p.wavelengthUm,
-          p.uncertaintyUm,
-          p.pixelSizeUm,
-          p.readoutCreatedAt,
-          sp.wavelengthUm,
-          sp.images,
-          g.n,
-          g.nSpecimens,
-          g.nImages,
-          g.meanUm,
-          g.sdUm,
-          g.ci95Um?.[0] ?? null,
-          g.ci95Um?.[1] ?? null,
-        ]),
-      );
-    }
-  }
-  return lines.join("\n") + "\n";
-}

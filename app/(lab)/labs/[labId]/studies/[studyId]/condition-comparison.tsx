@@ -7,7 +7,7 @@ import { formatSig } from "@/components/charts/spectrum-format";
 import { Notice } from "@/components/ui/notice";
 import { EmptyState, Panel } from "@/components/ui/panel";
 import { fetchJson } from "@/lib/client/api";
-import type { ConditionComparison as Comparison } from "@/lib/server/readouts/comparison";
+import type { ConditionComparison as Comparison } from "@/lib/server/readouts/comparison-types";
 
 const selectClass = "rounded-md border border-rule bg-card px-2 py-1 text-sm";
 

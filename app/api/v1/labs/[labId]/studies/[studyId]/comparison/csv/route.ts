@@ -1,5 +1,6 @@
 import { comparisonQuerySchema } from "@/lib/contracts/readout";
-import { compareConditions, comparisonToCsv } from "@/lib/server/readouts/comparison";
+import { compareConditions } from "@/lib/server/readouts/comparison";
+import { comparisonToCsv } from "@/lib/server/readouts/comparison-csv";
 import { AppError } from "@/lib/server/errors";
 import { labRoute } from "@/lib/server/web/lab-route";
 
