@@ -6,8 +6,8 @@
  * steps are timed; the 10 000-step figure is extrapolated unless SIM_BENCH_STEPS=10000.
  */
 import FFT from "fft.js";
+import { DctPlan } from "@/lib/fft";
 import {
-  DctPlan,
   createCosineBasis,
   createGrid,
   schnakenbergReaction,

@@ -27,7 +27,7 @@ export class DctPlan {
   // fft.js's own complex arrays (JS arrays of doubles): fft.js's transform measured ≈ 30 %
   // faster on them than on Float64Array (tests/bench/simulation.bench.ts). fft.js's code is
   // shared by every caller in a process, so a process that also passes Float64Array to
-  // fft.js's transform (lib/fft) makes its element accesses polymorphic, slower for both.
+  // fft.js's transform (real-fft2d.ts) makes its element accesses polymorphic, slower for both.
   private readonly z: number[];
   private readonly zOut: number[];
 

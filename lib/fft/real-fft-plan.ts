@@ -10,7 +10,7 @@ import FFT from "fft.js";
 export class RealFftPlan {
   readonly size: number;
   private readonly fft: FFT;
-  // fft.js's own complex arrays, as in DctPlan (dct.ts): its transform measured faster on them
+  // fft.js's own complex arrays, as in DctPlan (dct-plan.ts): its transform measured faster on them
   // than on Float64Array, and one array kind keeps fft.js's element accesses monomorphic.
   private readonly z: number[];
   private readonly zOut: number[];
