@@ -15,7 +15,7 @@ import {
   simulateReactionDiffusion,
   type SimulationOptions,
 } from "@/lib/simulation";
-import { createWorkerExecutor } from "@/lib/simulation/parallel/worker-executor";
+import { createWorkerExecutor } from "@/lib/parallel";
 import type { BenchRow } from "./run";
 
 const N = 256;

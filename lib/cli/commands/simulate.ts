@@ -15,7 +15,7 @@ import {
   type SimulationOptions,
   type SimulationResult,
 } from "../../simulation";
-import { createWorkerExecutor } from "../../simulation/parallel/worker-executor";
+import { createWorkerExecutor } from "../../parallel";
 
 const help = `simulate --spec RUN.json [--out DIR] [--threads 1|2] [--progress] [--json]
 

@@ -1,9 +1,9 @@
 import { createRequire } from "node:module";
 import { fileURLToPath } from "node:url";
 import { Worker } from "node:worker_threads";
-import { createSpectralBasis } from "../spectral-basis";
-import { runDiffusionStage, type StageMode } from "../diffusion-stage";
-import type { DiffusionExecutor, DiffusionLayout } from "../executor";
+import { createSpectralBasis } from "../simulation/spectral-basis";
+import { runDiffusionStage, type StageMode } from "../simulation/diffusion-stage";
+import type { DiffusionExecutor, DiffusionLayout } from "../simulation/executor";
 
 /** Options of {@link createWorkerExecutor}. */
 export interface WorkerExecutorOptions {

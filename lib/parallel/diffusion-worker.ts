@@ -1,8 +1,8 @@
 /** Worker side of createWorkerExecutor: runs the spectral stage of its species on shared buffers. */
 import { workerData } from "node:worker_threads";
-import { createSpectralBasis } from "../spectral-basis";
-import { runDiffusionStage, type StageMode } from "../diffusion-stage";
-import type { DiffusionLayout } from "../executor";
+import { createSpectralBasis } from "../simulation/spectral-basis";
+import { runDiffusionStage, type StageMode } from "../simulation/diffusion-stage";
+import type { DiffusionLayout } from "../simulation/executor";
 
 const { layout, species, ctrl, maxAbsOut, slot } = workerData as {
   layout: DiffusionLayout;
