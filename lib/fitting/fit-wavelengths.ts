@@ -7,12 +7,12 @@ import { createWavelengthModel } from "./wavelength-model";
 import type { FittedDatum, FittedParameter, IntervalSide, WavelengthFitResult } from "./wavelength-result";
 import type { WavelengthFitSpec, WavelengthPredictor } from "./wavelength-spec";
 import { judgeFit } from "./judge-wavelength-fit";
-import type { ParameterProfile, ProfileSide } from "./profile-likelihood";
+import type { ProfileLikelihood, ProfileSide } from "./profile-likelihood";
 
 const MAX_RESTARTS = 3;
 
 /** Parameters of the lowest-χ² profile point below the fit's minimum, if any. */
-function bestProfilePoint(profiles: readonly ParameterProfile[] | null): number[] | null {
+function bestProfilePoint(profiles: readonly ProfileLikelihood[] | null): number[] | null {
   let best: { d: number; params: number[] } | null = null;
   for (const prof of profiles ?? []) {
     if (prof.lowerChiSquareFound === null) continue;

@@ -1,6 +1,6 @@
 export { simulateReactionDiffusion } from "./simulate";
 export type { SimulationOptions, SimulationProgress, StationarityOptions } from "./options";
-export type { SimulationResult, Snapshot, BlowUpInfo, StopReason } from "./result";
+export type { SimulationResult, Snapshot, BlowUpInfo, SimulationStopReason } from "./result";
 export type { ReactionSystem, ReactionParams, FieldArray, CellRange } from "./reaction-system";
 export { paramAt } from "./reaction-system";
 export { createGrid, cellCentreXUm, cellCentreYUm, type Grid, type GridOptions, type Boundary } from "./grid";
@@ -11,7 +11,7 @@ export { createPeriodicBasis } from "./periodic-basis";
 export { createSpectralBasis } from "./spectral-basis";
 export { SCHEME_NAMES, SCHEME_ORDER, type SchemeName } from "./schemes";
 export type { InitialState } from "./initial-state";
-export { resolveParameterProfile, type ParameterProfile, type ProfileAxis } from "./spatial-parameters";
+export { evaluateSpatialParameterField, type SpatialParameterField, type SpatialAxis } from "./spatial-parameters";
 export {
   computeReactionJacobian,
   computeSpectralRadius,

@@ -4,7 +4,7 @@ import type { GridOptions } from "./grid";
 import type { InitialState } from "./initial-state";
 import { SIMULATION_LIMITS } from "./limits";
 import { SCHEME_NAMES, type SchemeName } from "./schemes";
-import type { ParameterProfile } from "./spatial-parameters";
+import type { SpatialParameterField } from "./spatial-parameters";
 
 /** Progress report, given every `progressEverySteps` steps and at the end. */
 export interface SimulationProgress {
@@ -39,7 +39,7 @@ export interface SimulationOptions {
   /** Uniform parameter values by name. @default {} */
   params?: Readonly<Record<string, number>>;
   /** Parameters varying in space; they override `params` of the same name. @default {} */
-  spatialParams?: Readonly<Record<string, ParameterProfile>>;
+  spatialParams?: Readonly<Record<string, SpatialParameterField>>;
   initial: InitialState;
   /** Simulated time at which the run stops (s). */
   endTimeS: number;

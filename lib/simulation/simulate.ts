@@ -16,9 +16,9 @@ import { fillInitialState } from "./initial-state";
 import { SIMULATION_LIMITS } from "./limits";
 import { validateSimulationOptions, type SimulationOptions } from "./options";
 import type { ReactionParams, ReactionSystem } from "./reaction-system";
-import type { BlowUpInfo, SimulationResult, Snapshot, StopReason } from "./result";
+import type { BlowUpInfo, SimulationResult, Snapshot, SimulationStopReason } from "./result";
 import { coefficientNames, fillSchemeCoefficients, type SpeciesCoefficients } from "./schemes";
-import { resolveParameterProfile } from "./spatial-parameters";
+import { evaluateSpatialParameterField } from "./spatial-parameters";
 import { chooseTimeStep, computeReactionStiffness } from "./step-size";
 
 /**
@@ -41,7 +41,7 @@ export function simulateReactionDiffusion(system: ReactionSystem, options: Simul
 function resolveParams(options: SimulationOptions, grid: Grid): ReactionParams {
   const params: Record<string, number | Float64Array> = { ...(options.params ?? {}) };
   for (const [name, profile] of Object.entries(options.spatialParams ?? {})) {
-    params[name] = resolveParameterProfile(profile, grid, `spatialParams.${name}`);
+    params[name] = evaluateSpatialParameterField(profile, grid, `spatialParams.${name}`);
   }
   return params;
 }
@@ -126,7 +126,7 @@ function run(
     steps = 0,
     nextSnap = 0,
     lastRate: number | null = null;
-  let reason: StopReason = "end-time";
+  let reason: SimulationStopReason = "end-time";
   let blowUp: BlowUpInfo | null = null;
   const takeSnapshots = () => {
     const t = steps * h;
@@ -223,7 +223,7 @@ interface MessageFacts {
   blowUpAbs: number;
 }
 
-function stopMessage(reason: StopReason, f: MessageFacts): string {
+function stopMessage(reason: SimulationStopReason, f: MessageFacts): string {
   if (reason === "end-time") return `Reached endTimeS = ${f.endTimeS} s after ${f.steps} steps.`;
   if (reason === "cancelled") return `Cancelled at t = ${f.timeS} s after ${f.steps} steps.`;
   if (reason === "stationary") {

@@ -10,7 +10,7 @@ import {
   readKineticsSteadyState,
   simulateReactionDiffusion,
   SimulationOptionError,
-  type ParameterProfile,
+  type SpatialParameterField,
   type SchemeName,
   type SimulationOptions,
   type SimulationResult,
@@ -54,7 +54,7 @@ Options:
 interface RunSpec {
   kinetics: KineticsSource;
   parameters?: Record<string, number>;
-  spatialParameters?: Record<string, ParameterProfile>;
+  spatialParameters?: Record<string, SpatialParameterField>;
   grid: SimulationOptions["grid"];
   endTimeS: number;
   dtS?: number;

@@ -13,11 +13,11 @@ import {
   createGrid,
   createReactionSystemFromKinetics,
   readKineticsDiffusion,
-  resolveParameterProfile,
+  evaluateSpatialParameterField,
   SIMULATION_LIMITS,
   SimulationOptionError,
   type Grid,
-  type ParameterProfile,
+  type SpatialParameterField,
 } from "@/lib/simulation";
 import { computeDispersion, computeGradientDispersion, type DomainSpec } from "@/lib/stability";
 import { DEFAULT_RUN_SNAPSHOTS, type SimulationRunRequest } from "@/lib/contracts/simulation-run";
@@ -68,7 +68,7 @@ function solverError<T>(fn: () => T): T {
 function toSolverProfile(
   req: NonNullable<SimulationRunRequest["gradient"]>,
   sampled: { x: number; value: number }[],
-): ParameterProfile {
+): SpatialParameterField {
   const p = req.profile;
   if (p.kind === "linear") return { kind: "linear", axis: "x", fromValue: p.from, toValue: p.to };
   if (p.kind === "table") {
@@ -153,7 +153,7 @@ export async function planRun(ctx: LabContext, asked: SimulationRunRequest): Pro
   }
   const diffusion = solverError(() => readKineticsDiffusion(compiled, p));
 
-  let spatialParameters: Record<string, ParameterProfile> | undefined;
+  let spatialParameters: Record<string, SpatialParameterField> | undefined;
   let gradientPrediction: RunPlan["gradientPrediction"] = null;
   if (req.gradient) {
     const g = req.gradient;
@@ -178,7 +178,7 @@ export async function planRun(ctx: LabContext, asked: SimulationRunRequest): Pro
   }
   const cellParams: Record<string, number | Float64Array> = { ...params };
   for (const [name, profile] of Object.entries(spatialParameters ?? {}))
-    cellParams[name] = solverError(() => resolveParameterProfile(profile, grid, `gradient.profile`));
+    cellParams[name] = solverError(() => evaluateSpatialParameterField(profile, grid, `gradient.profile`));
   const system = createReactionSystemFromKinetics(compiled);
   // The solver takes ρ at the mean of given fields (lib/simulation/simulate.ts), so the plan does too.
   const rho = computeReactionStiffness(

@@ -3,7 +3,7 @@
  * before the job, the stored result, and the DTOs the API returns. Types only, so pages may import them.
  */
 import type { KineticsDefinition } from "@/lib/kinetics";
-import type { ParameterProfile } from "@/lib/simulation";
+import type { SpatialParameterField } from "@/lib/simulation";
 import type { JobStatus } from "@/models/job";
 import type { ImageReadoutResult } from "../readouts/result";
 
@@ -11,7 +11,7 @@ import type { ImageReadoutResult } from "../readouts/result";
 export interface RunSpec {
   kinetics: { catalogue: string } | { definition: KineticsDefinition };
   parameters: Record<string, number>;
-  spatialParameters?: Record<string, ParameterProfile>;
+  spatialParameters?: Record<string, SpatialParameterField>;
   grid: { lengthUm: number[]; cells: number[]; boundary: "zero-flux" | "periodic" };
   endTimeS: number;
   dtS?: number;
