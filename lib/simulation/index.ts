@@ -32,3 +32,20 @@ export {
   MAX_MODE_CONDITION,
   type DiffusionModes,
 } from "./cross-diffusion";
+export { planRunSteadyState, planRun } from "./plan-run";
+export {
+  estimateSolverSeconds,
+  LINEAR_THEORY_TOLERANCE,
+  RUN_SNAPSHOT_VALUES_LIMIT,
+  RUN_STIFFNESS_SAFETY,
+  RUN_WORK_LIMIT,
+  SOLVER_CELL_STEPS_PER_S,
+  type RunFromFit,
+  type RunPlan,
+  type RunPlanContext,
+  type RunRequest,
+  type RunSpec,
+  type RunStartFrom,
+  type RunStartInput,
+  type RunSteadyState,
+} from "./run-plan";
