@@ -1,5 +1,5 @@
 import { analyseFit } from "./analyse-fit";
-import { checkWavelengthSpec, type CheckedWavelengthSpec } from "./check-wavelength-spec";
+import { resolveWavelengthSpec, type ResolvedWavelengthSpec } from "./resolve-wavelength-spec";
 import { FitError } from "./errors";
 import { sampleTuringBox, type BoxSample } from "./sample-turing-box";
 import { solveLeastSquares } from "./solve-least-squares";
@@ -23,7 +23,7 @@ function bestProfilePoint(profiles: readonly ProfileLikelihood[] | null): number
 }
 
 /** Distance in the unit box (log-scaled coordinates on the log scale). */
-function boxDistance<T>(spec: CheckedWavelengthSpec<T>, a: readonly number[], b: readonly number[]): number {
+function boxDistance<T>(spec: ResolvedWavelengthSpec<T>, a: readonly number[], b: readonly number[]): number {
   return Math.hypot(
     ...spec.slots.map((s, j) =>
       s.log
@@ -61,7 +61,7 @@ export function fitWavelengths<TDomain>(
   spec: WavelengthFitSpec<TDomain>,
   predictor: WavelengthPredictor<TDomain>,
 ): WavelengthFitResult {
-  const checked = checkWavelengthSpec(spec);
+  const checked = resolveWavelengthSpec(spec);
   const { options, slots } = checked;
   const model = createWavelengthModel(checked, predictor);
   const samples = sampleTuringBox(slots, options.turingSamples, options.seed, model);
