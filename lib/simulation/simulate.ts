@@ -11,14 +11,13 @@ import {
 } from "./cross-diffusion";
 import { createSerialExecutor } from "./executor";
 import { computeFieldStats, computeRelativeChangeRate } from "./field-stats";
-import { createGrid, type Grid } from "./grid";
+import type { Grid } from "./grid";
 import { fillInitialState } from "./initial-state";
 import { SIMULATION_LIMITS } from "./limits";
-import { validateSimulationOptions, type SimulationOptions } from "./options";
+import { resolveSimulationOptions, type SimulationOptions } from "./options";
 import type { ReactionParams, ReactionSystem } from "./reaction-system";
 import type { BlowUpInfo, SimulationResult, Snapshot, SimulationStopReason } from "./result";
 import { coefficientNames, fillSchemeCoefficients, type SpeciesCoefficients } from "./schemes";
-import { evaluateSpatialParameterField } from "./spatial-parameters";
 import { chooseTimeStep, computeReactionStiffness } from "./step-size";
 
 /**
@@ -27,23 +26,13 @@ import { chooseTimeStep, computeReactionStiffness } from "./step-size";
  * Synchronous; progress, cancellation and snapshots are handled between steps.
  */
 export function simulateReactionDiffusion(system: ReactionSystem, options: SimulationOptions): SimulationResult {
-  validateSimulationOptions(options, system.species);
-  const grid = createGrid(options.grid);
-  const params = resolveParams(options, grid);
+  const { grid, params } = resolveSimulationOptions(options, system.species);
   const executor = options.executor ?? createSerialExecutor();
   try {
     return run(system, options, grid, params, executor);
   } finally {
     if (!options.executor) executor.dispose();
   }
-}
-
-function resolveParams(options: SimulationOptions, grid: Grid): ReactionParams {
-  const params: Record<string, number | Float64Array> = { ...(options.params ?? {}) };
-  for (const [name, profile] of Object.entries(options.spatialParams ?? {})) {
-    params[name] = evaluateSpatialParameterField(profile, grid, `spatialParams.${name}`);
-  }
-  return params;
 }
 
 /** Diagonal diffusivities, or the mode decomposition of a cross-diffusion matrix. */
