@@ -1,6 +1,6 @@
 import type { GreyImage } from "../imaging/grey-image";
 import { analyseSpectrum } from "./analyse-spectrum";
-import { checkAutocorrelation } from "./autocorrelation";
+import { computeAutocorrelationCheck } from "./autocorrelation";
 import { evaluatePowerLaw } from "./background-fit";
 import { resolveReadoutOptions, type ReadoutOptions } from "./options";
 import { computePowerSpectrum } from "./power-spectrum";
@@ -49,7 +49,7 @@ export function readWavelength(image: GreyImage, options: ReadoutOptions): Wavel
   }
   let autocorrelation: WavelengthReadout["autocorrelation"] = null;
   if (periodFound && settings.autocorrelation) {
-    const ac = checkAutocorrelation(
+    const ac = computeAutocorrelationCheck(
       spec,
       a.frequencyPerPx,
       a.symmetry,
