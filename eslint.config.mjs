@@ -17,7 +17,7 @@ const SCIENCE = [
   "lib/access",
 ];
 /** Node-only helpers of the core (worker threads): may use node:*, still no framework. */
-const NODE_ONLY_CORE = ["lib/parallel", "lib/simulation/parallel"];
+const NODE_ONLY_CORE = ["lib/parallel"];
 
 const FRAMEWORK = [
   "next",

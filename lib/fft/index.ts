@@ -1,3 +1,5 @@
 export { fft2dInPlace } from "./fft2d";
 export { realFft2d, inverseRealFft2d, halfPowerSpectrum, type HalfSpectrum } from "./real-fft2d";
 export { isPowerOfTwo, nextPowerOfTwo } from "./plans";
+export { DctPlan } from "./dct-plan";
+export { RealFftPlan, halfComplexFrequency } from "./real-fft-plan";

@@ -1,10 +1,12 @@
 import FFT from "fft.js";
 
 /**
- * A fft.js instance with scratch buffers, cached per size (twiddle tables are O(N) to build).
- * The scratch is fft.js's own complex arrays (JS arrays of doubles), as in lib/simulation: fft.js
- * is ≈ 30 % faster on them than on Float64Array, and one kind for every caller in a process keeps
- * its shared code monomorphic (lib/simulation/README.md, Speed).
+ * A fft.js instance with scratch buffers, cached per size (twiddle tables are O(N) to build): the
+ * one set of plans behind every transform here — the readout's 2-D FFTs and the solver's
+ * RealFftPlan and DctPlan. The scratch is fft.js's own complex arrays (JS arrays of doubles):
+ * fft.js is ≈ 30 % faster on them than on Float64Array, and one kind for every caller in a
+ * process keeps its shared code monomorphic (lib/simulation/README.md, Speed). Callers fill the
+ * scratch before each transform and keep nothing in it between calls, so one thread shares it.
  */
 export interface FftPlan {
   size: number;

@@ -5,7 +5,7 @@ import { assessIdentifiability, type Identifiability } from "./identifiability";
 import { computeAicc, computeBic } from "./information-criteria";
 import { computeJacobian } from "./jacobian";
 import { createParameterSpace, toInternal, toNatural, typicalScale } from "./parameter-space";
-import { DEFAULT_PROFILE, profileParameter, type ParameterProfile } from "./profile-likelihood";
+import { DEFAULT_PROFILE, profileParameter, type ProfileLikelihood } from "./profile-likelihood";
 import { internalFunctions, type LeastSquaresResult } from "./solve-least-squares";
 import { traceValley, type Valley } from "./trace-valley";
 import type { LeastSquaresProblem } from "./types";
@@ -35,7 +35,7 @@ export interface FitAnalysis {
   residuals: number[];
   covariance: CovarianceReport;
   /** Per parameter; null when profiles were not asked for. */
-  profiles: ParameterProfile[] | null;
+  profiles: ProfileLikelihood[] | null;
   /** The Δχ² that defined the profile intervals (3.84, or 3.84·χ²/(n − p) for relative uncertainties). */
   profileDelta: number;
   aicc: number | null;
@@ -100,7 +100,7 @@ export function analyseFit(
   const delta = DEFAULT_PROFILE.delta * (absolute || !Number.isFinite(covariance.scale) ? 1 : covariance.scale);
   const profileOptions = { ...DEFAULT_PROFILE, delta };
   const natural = (u: number[]) => toNatural(space, u);
-  let profiles: ParameterProfile[] | null = null;
+  let profiles: ProfileLikelihood[] | null = null;
   if (options.profiles ?? true) {
     profiles = names.map((_, j) => {
       const se = covariance.standardErrors[j];
@@ -155,7 +155,7 @@ function valleyRange(
   hi: number,
   u: number,
   typ: number,
-  prof: ParameterProfile | undefined,
+  prof: ProfileLikelihood | undefined,
   log: boolean,
 ): [number, number] {
   if (Number.isFinite(lo) && Number.isFinite(hi)) return [lo, hi];

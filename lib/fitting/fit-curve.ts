@@ -1,5 +1,5 @@
 import { analyseFit, type AnalysisOptions, type FitAnalysis } from "./analyse-fit";
-import type { LeastSquaresOptions } from "./check-solver-options";
+import type { LeastSquaresOptions } from "./resolve-solver-options";
 import { FitError } from "./errors";
 import { solveLeastSquares, type LeastSquaresResult } from "./solve-least-squares";
 import type { LeastSquaresProblem } from "./types";

@@ -1,5 +1,5 @@
 import { analyseFit } from "./analyse-fit";
-import { checkWavelengthSpec, type CheckedWavelengthSpec } from "./check-wavelength-spec";
+import { resolveWavelengthSpec, type ResolvedWavelengthSpec } from "./resolve-wavelength-spec";
 import { FitError } from "./errors";
 import { sampleTuringBox, type BoxSample } from "./sample-turing-box";
 import { solveLeastSquares } from "./solve-least-squares";
@@ -7,12 +7,12 @@ import { createWavelengthModel } from "./wavelength-model";
 import type { FittedDatum, FittedParameter, IntervalSide, WavelengthFitResult } from "./wavelength-result";
 import type { WavelengthFitSpec, WavelengthPredictor } from "./wavelength-spec";
 import { judgeFit } from "./judge-wavelength-fit";
-import type { ParameterProfile, ProfileSide } from "./profile-likelihood";
+import type { ProfileLikelihood, ProfileSide } from "./profile-likelihood";
 
 const MAX_RESTARTS = 3;
 
 /** Parameters of the lowest-χ² profile point below the fit's minimum, if any. */
-function bestProfilePoint(profiles: readonly ParameterProfile[] | null): number[] | null {
+function bestProfilePoint(profiles: readonly ProfileLikelihood[] | null): number[] | null {
   let best: { d: number; params: number[] } | null = null;
   for (const prof of profiles ?? []) {
     if (prof.lowerChiSquareFound === null) continue;
@@ -23,7 +23,7 @@ function bestProfilePoint(profiles: readonly ParameterProfile[] | null): number[
 }
 
 /** Distance in the unit box (log-scaled coordinates on the log scale). */
-function boxDistance<T>(spec: CheckedWavelengthSpec<T>, a: readonly number[], b: readonly number[]): number {
+function boxDistance<T>(spec: ResolvedWavelengthSpec<T>, a: readonly number[], b: readonly number[]): number {
   return Math.hypot(
     ...spec.slots.map((s, j) =>
       s.log
@@ -61,7 +61,7 @@ export function fitWavelengths<TDomain>(
   spec: WavelengthFitSpec<TDomain>,
   predictor: WavelengthPredictor<TDomain>,
 ): WavelengthFitResult {
-  const checked = checkWavelengthSpec(spec);
+  const checked = resolveWavelengthSpec(spec);
   const { options, slots } = checked;
   const model = createWavelengthModel(checked, predictor);
   const samples = sampleTuringBox(slots, options.turingSamples, options.seed, model);

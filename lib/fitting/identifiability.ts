@@ -1,5 +1,5 @@
 import { SINGULAR_RATIO_LIMIT, type CovarianceReport } from "./covariance";
-import type { ParameterProfile } from "./profile-likelihood";
+import type { ProfileLikelihood } from "./profile-likelihood";
 
 /** Whether the data pin the parameters down, with the reasons in plain language. */
 export interface Identifiability {
@@ -22,7 +22,7 @@ export function assessIdentifiability(
   n: number,
   names: readonly string[],
   cov: CovarianceReport,
-  profiles: readonly ParameterProfile[] | null,
+  profiles: readonly ProfileLikelihood[] | null,
   delta: number,
 ): Identifiability {
   const p = names.length;

@@ -1,4 +1,4 @@
-import type { CheckedWavelengthSpec } from "./check-wavelength-spec";
+import type { ResolvedWavelengthSpec } from "./resolve-wavelength-spec";
 import type { BoxSample } from "./sample-turing-box";
 import { solveLeastSquares, type LeastSquaresResult } from "./solve-least-squares";
 import type { WavelengthModel } from "./wavelength-model";
@@ -22,7 +22,7 @@ export interface Judgement {
  * else "cannot reach the measured wavelength".
  */
 export function judgeFit<T>(
-  spec: CheckedWavelengthSpec<T>,
+  spec: ResolvedWavelengthSpec<T>,
   model: WavelengthModel,
   solution: LeastSquaresResult,
   residuals: FittedDatum[],

@@ -1,7 +1,7 @@
 import { Matrix, QrDecomposition } from "ml-matrix";
 import { computeJacobian, type ResidualFunction } from "./jacobian";
 import { clampToBox, type ParameterSpace } from "./parameter-space";
-import { CONVERGED_REASONS, type StopReason } from "./types";
+import { CONVERGED_REASONS, type SolverStopReason } from "./types";
 
 /** A column below this fraction of its largest norm seen during the run counts as saturated. */
 const SATURATION = 1e-10;
@@ -38,7 +38,7 @@ export interface PolishResult {
   u: number[];
   residuals: Float64Array;
   chiSquare: number;
-  reason: StopReason;
+  reason: SolverStopReason;
   iterations: number;
   evaluations: number;
 }
@@ -80,7 +80,7 @@ export function polishLevenbergMarquardt(
   // A parameter whose Jacobian column has fallen to ~0 after having mattered has drifted onto a
   // plateau (e.g. exp(−b·x) underflowed for huge b): its "minimum" is an artefact, not a fit.
   const saturated = () => colNorm.some((c, j) => D[j] > 0 && c <= SATURATION * D[j]);
-  const done = (reason: StopReason, iterations: number): PolishResult => ({
+  const done = (reason: SolverStopReason, iterations: number): PolishResult => ({
     u,
     residuals: r,
     chiSquare: chi,

@@ -17,7 +17,7 @@ export interface ProfileSide {
 }
 
 /** Profile of one parameter: the re-optimised χ² as the parameter is moved away from its estimate. */
-export interface ParameterProfile {
+export interface ProfileLikelihood {
   lower: ProfileSide;
   upper: ProfileSide;
   /** Visited admissible points, sorted by value: the parameter (natural units), Δχ² and the full re-optimised parameter vector. */
@@ -56,8 +56,8 @@ export function profileParameter(
   firstStep: number,
   toNaturalValue: (u: number[]) => number[],
   options: ProfileOptions = DEFAULT_PROFILE,
-): ParameterProfile {
-  const points: ParameterProfile["points"] = [
+): ProfileLikelihood {
+  const points: ProfileLikelihood["points"] = [
     { value: toNaturalValue(uHat.slice())[j], deltaChiSquare: 0, params: toNaturalValue(uHat.slice()) },
   ];
   let lowest = chiMin;

@@ -1,5 +1,5 @@
 import seedrandom from "seedrandom";
-import type { FreeSlot } from "./check-wavelength-spec";
+import type { FreeSlot } from "./resolve-wavelength-spec";
 import type { WavelengthModel } from "./wavelength-model";
 
 /** One sampled point of the parameter box. */

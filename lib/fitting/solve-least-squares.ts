@@ -1,4 +1,4 @@
-import { checkSolverOptions, type CheckedSolverOptions, type LeastSquaresOptions } from "./check-solver-options";
+import { resolveSolverOptions, type ResolvedSolverOptions, type LeastSquaresOptions } from "./resolve-solver-options";
 import { jacobianToInternal, type ResidualFunction } from "./jacobian";
 import { runLibraryStage } from "./library-stage";
 import { createParameterSpace, toInternal, toNatural, typicalScale, type ParameterSpace } from "./parameter-space";
@@ -27,7 +27,7 @@ export interface LeastSquaresResult extends LocalSolution {
   /** Index into `starts` of the answer. */
   bestStart: number;
   /** The validated options, for the statistics stage (bounds, log flags). */
-  options: CheckedSolverOptions;
+  options: ResolvedSolverOptions;
 }
 
 /** The problem's residuals and (optional) Jacobian in solver coordinates. */
@@ -60,7 +60,7 @@ function atBound(space: ParameterSpace, u: readonly number[]): number[] {
  * when none converged).
  */
 export function solveLeastSquares(problem: LeastSquaresProblem, options: LeastSquaresOptions): LeastSquaresResult {
-  const checked = checkSolverOptions(options, problem.parameterCount);
+  const checked = resolveSolverOptions(options, problem.parameterCount);
   const space = createParameterSpace(checked.lower, checked.upper, checked.log);
   const u0 = toInternal(space, checked.start);
   const typical = typicalScale(space, u0);

@@ -18,7 +18,7 @@ export interface LeastSquaresProblem {
 }
 
 /** Why the local solver stopped. Only the first four count as convergence. */
-export type StopReason =
+export type SolverStopReason =
   | "relative-reduction"
   | "step-size"
   | "gradient"
@@ -30,7 +30,7 @@ export type StopReason =
   | "non-finite-start";
 
 /** Stop reasons that mean a local minimum was reached. */
-export const CONVERGED_REASONS: readonly StopReason[] = [
+export const CONVERGED_REASONS: readonly SolverStopReason[] = [
   "relative-reduction",
   "step-size",
   "gradient",
@@ -45,7 +45,7 @@ export interface LocalSolution {
   chiSquare: number;
   /** True when the stop reason is one of {@link CONVERGED_REASONS}. */
   converged: boolean;
-  reason: StopReason;
+  reason: SolverStopReason;
   /** Iterations of the library stage (ml-levenberg-marquardt) and of the polishing stage. */
   iterations: { library: number; polish: number };
   /** Residual evaluations used. */

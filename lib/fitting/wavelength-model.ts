@@ -1,4 +1,4 @@
-import { valuesForCondition, type CheckedWavelengthSpec } from "./check-wavelength-spec";
+import { valuesForCondition, type ResolvedWavelengthSpec } from "./resolve-wavelength-spec";
 import type { LeastSquaresProblem } from "./types";
 import type { WavelengthPrediction, WavelengthPredictor } from "./wavelength-spec";
 
@@ -18,7 +18,7 @@ export interface WavelengthModel {
 }
 
 export function createWavelengthModel<TDomain>(
-  spec: CheckedWavelengthSpec<TDomain>,
+  spec: ResolvedWavelengthSpec<TDomain>,
   predictor: WavelengthPredictor<TDomain>,
 ): WavelengthModel {
   const keyOf = (i: number) => `${spec.data[i].condition}\u0000${JSON.stringify(spec.data[i].domain ?? null)}`;

@@ -1,4 +1,4 @@
-import type { StopReason } from "./types";
+import type { SolverStopReason } from "./types";
 import type { MeasurementKind } from "./wavelength-spec";
 import type { StartReport } from "./solve-least-squares";
 
@@ -73,7 +73,7 @@ export interface WavelengthFitResult {
   };
   convergence: {
     converged: boolean;
-    reason: StopReason;
+    reason: SolverStopReason;
     iterations: { library: number; polish: number };
     evaluations: number;
     starts: StartReport[];

@@ -1,13 +1,12 @@
 /**
- * A small pool of worker threads for Turing-map rows (Node only). Workers start from
- * `map-worker.ts` through `worker-bootstrap.cjs` (tsx) when running from TypeScript, or from
- * a compiled `map-worker.js` beside this file. If a worker cannot start, the pool reports
- * `available = false` and callers compute in-process.
+ * A small pool of worker threads for Turing-map rows (Node only). Workers run `map-worker`,
+ * started by start-worker.ts (tsx or a compiled build). If a worker cannot start, the pool has
+ * size 0 and callers compute in-process.
  */
 import os from "node:os";
-import { fileURLToPath } from "node:url";
-import { Worker } from "node:worker_threads";
+import type { Worker } from "node:worker_threads";
 import type { MapReply, MapTask } from "./messages";
+import { startWorker } from "./start-worker";
 
 /** How long a worker may take to start before the pool gives up on workers, ms. */
 export const WORKER_START_TIMEOUT_MS = 15_000;
@@ -16,15 +15,6 @@ export const WORKER_START_TIMEOUT_MS = 15_000;
 export function defaultWorkerCount(): number {
   const n = typeof os.availableParallelism === "function" ? os.availableParallelism() : os.cpus().length;
   return Math.max(1, Math.min(8, n));
-}
-
-function startWorker(): Worker {
-  const here = import.meta.url;
-  if (here.endsWith(".ts")) {
-    const entryPath = fileURLToPath(new URL("./map-worker.ts", here));
-    return new Worker(new URL("./worker-bootstrap.cjs", here), { workerData: { entryPath } });
-  }
-  return new Worker(new URL("./map-worker.js", here));
 }
 
 export interface MapWorkerPool {
@@ -38,7 +28,7 @@ export interface MapWorkerPool {
 export async function createMapWorkerPool(size = defaultWorkerCount()): Promise<MapWorkerPool> {
   const workers: Worker[] = [];
   try {
-    const starting = Array.from({ length: size }, () => startWorker());
+    const starting = Array.from({ length: size }, () => startWorker("map-worker"));
     workers.push(...starting);
     await Promise.all(starting.map((w) => waitReady(w)));
   } catch {

@@ -23,7 +23,7 @@ export interface AutocorrelationCheck {
  * at a = (2/√3)λ along a lattice vector (hexagonal spots: geometry), and for an isotropic ring the
  * angular average is J₀(2πr/λ), first maximum at r = 7.0156λ/(2π) ≈ 1.117λ.
  */
-export function checkAutocorrelation(
+export function computeAutocorrelationCheck(
   s: PowerSpectrum,
   frequencyPerPx: number,
   symmetry: PatternSymmetry,

@@ -1,11 +1,11 @@
 export { readWavelength } from "./read-wavelength";
 export type { WavelengthReadout, UncertaintyMethod } from "./result";
 export {
-  resolveReadoutSettings,
+  resolveReadoutOptions,
   MAX_READOUT_PIXELS,
   DEFAULT_SIGNIFICANCE_THRESHOLD,
   type ReadoutOptions,
-  type ReadoutSettings,
+  type ResolvedReadoutOptions,
 } from "./options";
 export { ReadoutError, MESSAGES as READOUT_MESSAGES, type ReadoutErrorCode } from "./errors";
 export type { Roi, RectRoi, PolygonRoi } from "./roi";

@@ -1,7 +1,7 @@
 import type { GreyImage } from "../imaging/grey-image";
 import { nextPowerOfTwo } from "../fft";
 import { measureTile } from "./measure-tile";
-import { resolveReadoutSettings, type ReadoutOptions } from "./options";
+import { resolveReadoutOptions, type ReadoutOptions } from "./options";
 import { prepareRegion } from "./prepare-region";
 import { readWavelength } from "./read-wavelength";
 
@@ -38,7 +38,7 @@ export interface LocalWavelengthMap {
 /** Runs the readout on overlapping tiles, each searched within ±50 % of the whole-region peak. */
 export function mapLocalWavelength(image: GreyImage, options: LocalWavelengthOptions): LocalWavelengthMap {
   const global = readWavelength(image, { ...options, subregions: false, autocorrelation: false });
-  const settings = resolveReadoutSettings(options, image.width, image.height);
+  const settings = resolveReadoutOptions(options, image.width, image.height);
   const region = prepareRegion(image, settings);
   const bin = region.binFactor;
   const lambdaPx = global.wavelengthPx !== null ? global.wavelengthPx / bin : null;

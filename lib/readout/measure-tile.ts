@@ -1,6 +1,6 @@
 import { analyseSpectrum } from "./analyse-spectrum";
 import { subtractMean } from "./flatten";
-import type { ReadoutSettings } from "./options";
+import type { ResolvedReadoutOptions } from "./options";
 import { computePowerSpectrum } from "./power-spectrum";
 import type { PreparedRegion } from "./prepare-region";
 import { applyWindow } from "./window";
@@ -22,7 +22,7 @@ export function measureTile(
   y: number,
   w: number,
   h: number,
-  settings: ReadoutSettings,
+  settings: ResolvedReadoutOptions,
   nearFrequencyPerPx: number,
   band: number,
 ): TileMeasurement | null {

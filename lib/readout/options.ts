@@ -39,7 +39,9 @@ export interface ReadoutOptions {
   autocorrelation?: boolean;
 }
 
-export type ReadoutSettings = Required<Omit<ReadoutOptions, "roi" | "excludeMask" | "blurSigmaPx" | "pixelSizeUm">> & {
+export type ResolvedReadoutOptions = Required<
+  Omit<ReadoutOptions, "roi" | "excludeMask" | "blurSigmaPx" | "pixelSizeUm">
+> & {
   pixelSizeUm: number;
   roi: Roi | null;
   excludeMask: Uint8Array | null;
@@ -56,7 +58,11 @@ function checkNumber(field: string, v: number, lo: number, hi: number, unit = ""
 }
 
 /** Validates and defaults the options once, before any pixel is touched. */
-export function resolveReadoutSettings(o: ReadoutOptions, imageWidth: number, imageHeight: number): ReadoutSettings {
+export function resolveReadoutOptions(
+  o: ReadoutOptions,
+  imageWidth: number,
+  imageHeight: number,
+): ResolvedReadoutOptions {
   const maxPixels = o.maxPixels ?? MAX_READOUT_PIXELS;
   if (imageWidth * imageHeight > maxPixels)
     throw new ReadoutError("too_large", MESSAGES.tooLarge(imageWidth * imageHeight, maxPixels), "image");

@@ -2,7 +2,7 @@ import type { GreyImage } from "../imaging/grey-image";
 import { binPixels } from "./bin-pixels";
 import { MESSAGES, ReadoutError } from "./errors";
 import { subtractBlur, subtractMean, subtractPlane } from "./flatten";
-import type { ReadoutSettings } from "./options";
+import type { ResolvedReadoutOptions } from "./options";
 import { extractRoi } from "./roi";
 
 /** The region after ROI, inversion, binning and background flattening (not yet windowed). */
@@ -22,7 +22,7 @@ export interface PreparedRegion {
 
 export const MIN_REGION_SIDE_PX = 16;
 
-export function prepareRegion(image: GreyImage, settings: ReadoutSettings): PreparedRegion {
+export function prepareRegion(image: GreyImage, settings: ResolvedReadoutOptions): PreparedRegion {
   const roi = extractRoi(image, settings.roi ?? undefined, settings.excludeMask ?? undefined);
   let { data, width, height, included } = roi;
   if (width < MIN_REGION_SIDE_PX || height < MIN_REGION_SIDE_PX) {

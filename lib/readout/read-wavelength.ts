@@ -1,8 +1,8 @@
 import type { GreyImage } from "../imaging/grey-image";
 import { analyseSpectrum } from "./analyse-spectrum";
-import { checkAutocorrelation } from "./autocorrelation";
+import { computeAutocorrelationCheck } from "./autocorrelation";
 import { evaluatePowerLaw } from "./background-fit";
-import { resolveReadoutSettings, type ReadoutOptions } from "./options";
+import { resolveReadoutOptions, type ReadoutOptions } from "./options";
 import { computePowerSpectrum } from "./power-spectrum";
 import { prepareRegion } from "./prepare-region";
 import type { WavelengthReadout } from "./result";
@@ -16,7 +16,7 @@ import { applyWindow } from "./window";
  * @throws ReadoutError with code too_large, missing_pixel_size, zero_area_roi, too_small, no_variation, bad_option
  */
 export function readWavelength(image: GreyImage, options: ReadoutOptions): WavelengthReadout {
-  const settings = resolveReadoutSettings(options, image.width, image.height);
+  const settings = resolveReadoutOptions(options, image.width, image.height);
   const region = prepareRegion(image, settings);
   const flattened = region.data.slice();
   applyWindow(region.data, region.width, region.height, settings.window, settings.tukeyAlpha);
@@ -49,7 +49,7 @@ export function readWavelength(image: GreyImage, options: ReadoutOptions): Wavel
   }
   let autocorrelation: WavelengthReadout["autocorrelation"] = null;
   if (periodFound && settings.autocorrelation) {
-    const ac = checkAutocorrelation(
+    const ac = computeAutocorrelationCheck(
       spec,
       a.frequencyPerPx,
       a.symmetry,

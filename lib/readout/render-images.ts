@@ -1,5 +1,5 @@
 import type { GreyImage } from "../imaging/grey-image";
-import { resolveReadoutSettings, type ReadoutOptions } from "./options";
+import { resolveReadoutOptions, type ReadoutOptions } from "./options";
 import { computePowerSpectrum } from "./power-spectrum";
 import { prepareRegion } from "./prepare-region";
 import { applyWindow } from "./window";
@@ -35,7 +35,7 @@ export function renderFftMagnitude(
   options: ReadoutOptions,
   peakWavelengthPx: number | null = null,
 ): FftImage {
-  const settings = resolveReadoutSettings(options, image.width, image.height);
+  const settings = resolveReadoutOptions(options, image.width, image.height);
   const region = prepareRegion(image, settings);
   applyWindow(region.data, region.width, region.height, settings.window, settings.tukeyAlpha);
   const s = computePowerSpectrum(region.data, region.width, region.height);
@@ -73,7 +73,7 @@ export function renderFftMagnitude(
 
 /** The analysed region after ROI, inversion and flattening (before the window), stretched 0.5–99.5 %. */
 export function renderPreview(image: GreyImage, options: ReadoutOptions): GreyImage {
-  const settings = resolveReadoutSettings(options, image.width, image.height);
+  const settings = resolveReadoutOptions(options, image.width, image.height);
   const region = prepareRegion(image, settings);
   return { width: region.width, height: region.height, data: stretch(region.data, 0.005, 0.995) };
 }

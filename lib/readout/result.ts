@@ -1,5 +1,5 @@
 import type { PatternSymmetry } from "./angular";
-import type { ReadoutSettings } from "./options";
+import type { ResolvedReadoutOptions } from "./options";
 
 /** How `uncertaintyUm` was obtained. */
 export type UncertaintyMethod = "subregion-sem" | "peak-half-width";
@@ -42,7 +42,7 @@ export interface WavelengthReadout {
   /** Power on the peak ring by angle, 1° bins over 0 … 179° (for plots). */
   angularPower: number[];
   /** Settings used (without the mask bytes), the analysed grid and binning. */
-  settings: Omit<ReadoutSettings, "excludeMask"> & {
+  settings: Omit<ResolvedReadoutOptions, "excludeMask"> & {
     excludeMaskPixels: number;
     analysedWidthPx: number;
     analysedHeightPx: number;

@@ -1,4 +1,4 @@
-import type { ReadoutSettings } from "./options";
+import type { ResolvedReadoutOptions } from "./options";
 import type { PreparedRegion } from "./prepare-region";
 import { measureTile } from "./measure-tile";
 
@@ -23,7 +23,7 @@ export interface SubregionSpread {
  */
 export function measureSubregionSpread(
   region: PreparedRegion,
-  settings: ReadoutSettings,
+  settings: ResolvedReadoutOptions,
   frequencyPerPx: number,
 ): SubregionSpread {
   const sw = Math.min(Math.floor(region.width / 2), MAX_SUBREGION_SIDE_PX);

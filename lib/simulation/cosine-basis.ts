@@ -1,4 +1,4 @@
-import { DctPlan } from "./dct";
+import { DctPlan } from "../fft";
 import type { Grid } from "./grid";
 
 /**

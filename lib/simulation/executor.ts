@@ -12,7 +12,7 @@ export interface DiffusionLayout {
 
 /**
  * Runs the spectral stage of every species. The serial executor lives here; a worker-thread
- * executor (lib/simulation/parallel) shares buffers through SharedArrayBuffer. `run` is
+ * executor (lib/parallel/worker-executor.ts) shares buffers through SharedArrayBuffer. `run` is
  * synchronous so the step loop stays synchronous.
  */
 export interface DiffusionExecutor {

@@ -1,19 +1,17 @@
 export { simulateReactionDiffusion } from "./simulate";
 export type { SimulationOptions, SimulationProgress, StationarityOptions } from "./options";
-export type { SimulationResult, Snapshot, BlowUpInfo, StopReason } from "./result";
+export type { SimulationResult, Snapshot, BlowUpInfo, SimulationStopReason } from "./result";
 export type { ReactionSystem, ReactionParams, FieldArray, CellRange } from "./reaction-system";
 export { paramAt } from "./reaction-system";
 export { createGrid, cellCentreXUm, cellCentreYUm, type Grid, type GridOptions, type Boundary } from "./grid";
 export { SIMULATION_LIMITS } from "./limits";
 export { SimulationOptionError } from "./errors";
-export { DctPlan } from "./dct";
 export { createCosineBasis, type SpectralBasis } from "./cosine-basis";
 export { createPeriodicBasis } from "./periodic-basis";
 export { createSpectralBasis } from "./spectral-basis";
-export { RealFftPlan } from "./real-fft";
 export { SCHEME_NAMES, SCHEME_ORDER, type SchemeName } from "./schemes";
 export type { InitialState } from "./initial-state";
-export { resolveParameterProfile, type ParameterProfile, type ProfileAxis } from "./spatial-parameters";
+export { evaluateSpatialParameterField, type SpatialParameterField, type SpatialAxis } from "./spatial-parameters";
 export {
   computeReactionJacobian,
   computeSpectralRadius,
@@ -34,3 +32,20 @@ export {
   MAX_MODE_CONDITION,
   type DiffusionModes,
 } from "./cross-diffusion";
+export { planRunSteadyState, planRun } from "./plan-run";
+export {
+  estimateSolverSeconds,
+  LINEAR_THEORY_TOLERANCE,
+  RUN_SNAPSHOT_VALUES_LIMIT,
+  RUN_STIFFNESS_SAFETY,
+  RUN_WORK_LIMIT,
+  SOLVER_CELL_STEPS_PER_S,
+  type RunFromFit,
+  type RunPlan,
+  type RunPlanContext,
+  type RunRequest,
+  type RunSpec,
+  type RunStartFrom,
+  type RunStartInput,
+  type RunSteadyState,
+} from "./run-plan";

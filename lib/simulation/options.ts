@@ -1,10 +1,11 @@
 import { failOption } from "./errors";
 import type { DiffusionExecutor } from "./executor";
-import type { GridOptions } from "./grid";
+import { createGrid, type Grid, type GridOptions } from "./grid";
 import type { InitialState } from "./initial-state";
 import { SIMULATION_LIMITS } from "./limits";
 import { SCHEME_NAMES, type SchemeName } from "./schemes";
-import type { ParameterProfile } from "./spatial-parameters";
+import type { ReactionParams } from "./reaction-system";
+import { evaluateSpatialParameterField, type SpatialParameterField } from "./spatial-parameters";
 
 /** Progress report, given every `progressEverySteps` steps and at the end. */
 export interface SimulationProgress {
@@ -39,7 +40,7 @@ export interface SimulationOptions {
   /** Uniform parameter values by name. @default {} */
   params?: Readonly<Record<string, number>>;
   /** Parameters varying in space; they override `params` of the same name. @default {} */
-  spatialParams?: Readonly<Record<string, ParameterProfile>>;
+  spatialParams?: Readonly<Record<string, SpatialParameterField>>;
   initial: InitialState;
   /** Simulated time at which the run stops (s). */
   endTimeS: number;
@@ -67,8 +68,30 @@ export interface SimulationOptions {
   executor?: DiffusionExecutor;
 }
 
-/** Checks the options that need no grid or reaction system; throws SimulationOptionError. */
-export function validateSimulationOptions(options: SimulationOptions, species: number): void {
+/** The options of one run, checked, with what needs the grid worked out: what the solver runs on. */
+export interface ResolvedSimulationOptions {
+  grid: Grid;
+  /** Scalar parameters, and spatial parameter fields evaluated at every cell. */
+  params: ReactionParams;
+}
+
+/**
+ * Checks and resolves a run's options once, at the top of simulateReactionDiffusion: the options
+ * that need no grid, then the grid, then the spatial parameter fields on it. Throws
+ * SimulationOptionError naming the field and the limit.
+ */
+export function resolveSimulationOptions(options: SimulationOptions, species: number): ResolvedSimulationOptions {
+  checkGridFreeOptions(options, species);
+  const grid = createGrid(options.grid);
+  const params: Record<string, number | Float64Array> = { ...(options.params ?? {}) };
+  for (const [name, field] of Object.entries(options.spatialParams ?? {})) {
+    params[name] = evaluateSpatialParameterField(field, grid, `spatialParams.${name}`);
+  }
+  return { grid, params };
+}
+
+/** The options that need no grid or reaction system. */
+function checkGridFreeOptions(options: SimulationOptions, species: number): void {
   if (!Number.isInteger(species) || species < 1 || species > SIMULATION_LIMITS.maxSpecies) {
     failOption(
       "system.species",

@@ -1,10 +1,10 @@
 import { transpose, type SpectralBasis } from "./cosine-basis";
 import type { Grid } from "./grid";
-import { RealFftPlan, halfComplexFrequency } from "./real-fft";
+import { RealFftPlan, halfComplexFrequency } from "../fft";
 
 /**
  * Fourier basis of a periodic interval or rectangle, k = 2πj/L per axis, stored in a real
- * layout of exactly cellCount numbers: rows are half-complex along x (real-fft.ts); in 2-D,
+ * layout of exactly cellCount numbers: rows are half-complex along x (lib/fft/real-fft-plan.ts); in 2-D,
  * after a transpose, the two real rows (x-frequencies 0 and N/2) are half-complex along y and
  * each pair of rows (Re, Im of x-frequency j) holds a complex FFT along y. Diffusion multipliers
  * depend on k² only, so they act on every stored number alike.

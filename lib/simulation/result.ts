@@ -4,7 +4,7 @@ import type { SchemeName } from "./schemes";
 import type { TimeStepRule } from "./step-size";
 
 /** Why a run stopped. */
-export type StopReason = "end-time" | "stationary" | "cancelled" | "blow-up";
+export type SimulationStopReason = "end-time" | "stationary" | "cancelled" | "blow-up";
 
 /** A copy of the fields taken at the first step at or after `requestedTimeS`. */
 export interface Snapshot {
@@ -37,7 +37,7 @@ export interface SimulationResult {
   /** Steps taken to reach `fields`. */
   steps: number;
   timeStep: TimeStepRule;
-  stopReason: StopReason;
+  stopReason: SimulationStopReason;
   /** One sentence saying why the run stopped. */
   message: string;
   /** True when the last completed stationarity window met the criterion. */

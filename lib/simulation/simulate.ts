@@ -11,14 +11,13 @@ import {
 } from "./cross-diffusion";
 import { createSerialExecutor } from "./executor";
 import { computeFieldStats, computeRelativeChangeRate } from "./field-stats";
-import { createGrid, type Grid } from "./grid";
+import type { Grid } from "./grid";
 import { fillInitialState } from "./initial-state";
 import { SIMULATION_LIMITS } from "./limits";
-import { validateSimulationOptions, type SimulationOptions } from "./options";
+import { resolveSimulationOptions, type SimulationOptions } from "./options";
 import type { ReactionParams, ReactionSystem } from "./reaction-system";
-import type { BlowUpInfo, SimulationResult, Snapshot, StopReason } from "./result";
+import type { BlowUpInfo, SimulationResult, Snapshot, SimulationStopReason } from "./result";
 import { coefficientNames, fillSchemeCoefficients, type SpeciesCoefficients } from "./schemes";
-import { resolveParameterProfile } from "./spatial-parameters";
 import { chooseTimeStep, computeReactionStiffness } from "./step-size";
 
 /**
@@ -27,23 +26,13 @@ import { chooseTimeStep, computeReactionStiffness } from "./step-size";
  * Synchronous; progress, cancellation and snapshots are handled between steps.
  */
 export function simulateReactionDiffusion(system: ReactionSystem, options: SimulationOptions): SimulationResult {
-  validateSimulationOptions(options, system.species);
-  const grid = createGrid(options.grid);
-  const params = resolveParams(options, grid);
+  const { grid, params } = resolveSimulationOptions(options, system.species);
   const executor = options.executor ?? createSerialExecutor();
   try {
     return run(system, options, grid, params, executor);
   } finally {
     if (!options.executor) executor.dispose();
   }
-}
-
-function resolveParams(options: SimulationOptions, grid: Grid): ReactionParams {
-  const params: Record<string, number | Float64Array> = { ...(options.params ?? {}) };
-  for (const [name, profile] of Object.entries(options.spatialParams ?? {})) {
-    params[name] = resolveParameterProfile(profile, grid, `spatialParams.${name}`);
-  }
-  return params;
 }
 
 /** Diagonal diffusivities, or the mode decomposition of a cross-diffusion matrix. */
@@ -126,7 +115,7 @@ function run(
     steps = 0,
     nextSnap = 0,
     lastRate: number | null = null;
-  let reason: StopReason = "end-time";
+  let reason: SimulationStopReason = "end-time";
   let blowUp: BlowUpInfo | null = null;
   const takeSnapshots = () => {
     const t = steps * h;
@@ -223,7 +212,7 @@ interface MessageFacts {
   blowUpAbs: number;
 }
 
-function stopMessage(reason: StopReason, f: MessageFacts): string {
+function stopMessage(reason: SimulationStopReason, f: MessageFacts): string {
   if (reason === "end-time") return `Reached endTimeS = ${f.endTimeS} s after ${f.steps} steps.`;
   if (reason === "cancelled") return `Cancelled at t = ${f.timeS} s after ${f.steps} steps.`;
   if (reason === "stationary") {

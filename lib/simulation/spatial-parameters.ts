@@ -2,7 +2,7 @@ import { failOption } from "./errors";
 import { cellCentreXUm, cellCentreYUm, type Grid } from "./grid";
 
 /** Axis along which a parameter varies. */
-export type ProfileAxis = "x" | "y";
+export type SpatialAxis = "x" | "y";
 
 /**
  * How a parameter varies in space, evaluated at cell centres:
@@ -11,14 +11,14 @@ export type ProfileAxis = "x" | "y";
  * - `table`: piecewise-linear through (positionsUm[i], values[i]), constant beyond the ends;
  * - `field`: one value per cell, row-major.
  */
-export type ParameterProfile =
-  | { kind: "linear"; axis?: ProfileAxis; fromValue: number; toValue: number }
-  | { kind: "exponential"; axis?: ProfileAxis; value0: number; decayLengthUm: number }
-  | { kind: "table"; axis?: ProfileAxis; positionsUm: readonly number[]; values: readonly number[] }
+export type SpatialParameterField =
+  | { kind: "linear"; axis?: SpatialAxis; fromValue: number; toValue: number }
+  | { kind: "exponential"; axis?: SpatialAxis; value0: number; decayLengthUm: number }
+  | { kind: "table"; axis?: SpatialAxis; positionsUm: readonly number[]; values: readonly number[] }
   | { kind: "field"; values: ArrayLike<number> };
 
 /** Evaluates `profile` at every cell of `grid`; `field` names the option for error messages. */
-export function resolveParameterProfile(profile: ParameterProfile, grid: Grid, field: string): Float64Array {
+export function evaluateSpatialParameterField(profile: SpatialParameterField, grid: Grid, field: string): Float64Array {
   const out = new Float64Array(grid.cellCount);
   if (profile.kind === "field") {
     if (profile.values.length !== grid.cellCount) {
@@ -43,7 +43,7 @@ export function resolveParameterProfile(profile: ParameterProfile, grid: Grid, f
 }
 
 function profileFunction(
-  profile: Exclude<ParameterProfile, { kind: "field" }>,
+  profile: Exclude<SpatialParameterField, { kind: "field" }>,
   lengthUm: number,
   field: string,
 ): (x: number) => number {

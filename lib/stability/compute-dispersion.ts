@@ -54,12 +54,14 @@ export interface DispersionResult {
   kMax: number;
 }
 
-/** Computes the dispersion relation; `parameters` overrides the kinetics' defaults by name. */
-export function computeDispersion(
-  kinetics: CompiledKinetics,
-  parameters: Readonly<Record<string, number>> = {},
-  options: DispersionOptions = {},
-): DispersionResult {
+/** The wavenumber grid of DispersionOptions, checked, its default filled in. */
+export interface ResolvedDispersionOptions {
+  gridSize: number;
+  kMax: number | undefined;
+}
+
+/** Checks and defaults the wavenumber grid once, before any work; throws KineticsInputError naming the option. */
+export function resolveDispersionOptions(options: DispersionOptions): ResolvedDispersionOptions {
   const gridSize = options.gridSize ?? 200;
   if (!Number.isInteger(gridSize) || gridSize < 16 || gridSize > 100_000) {
     throw new KineticsInputError("gridSize", `gridSize must be an integer from 16 to 100000 (got ${gridSize}).`);
@@ -67,10 +69,20 @@ export function computeDispersion(
   if (options.kMax !== undefined && !(Number.isFinite(options.kMax) && options.kMax > 0)) {
     throw new KineticsInputError("kMax", `kMax must be a positive finite number (got ${options.kMax}).`);
   }
+  return { gridSize, kMax: options.kMax };
+}
+
+/** Computes the dispersion relation; `parameters` overrides the kinetics' defaults by name. */
+export function computeDispersion(
+  kinetics: CompiledKinetics,
+  parameters: Readonly<Record<string, number>> = {},
+  options: DispersionOptions = {},
+): DispersionResult {
+  const { gridSize, kMax } = resolveDispersionOptions(options);
   const p = resolveParameters(kinetics, parameters);
   const scales = resolveScales(kinetics, options);
   const states = findSteadyStates(kinetics, p, options.steadyStateSearch);
-  const analyses = states.map((s) => analyseState(kinetics, p, s.values, { gridSize, kMax: options.kMax }));
+  const analyses = states.map((s) => analyseState(kinetics, p, s.values, { gridSize, kMax }));
   const index = pickSteadyState(analyses, options.steadyState ?? "auto");
   const a = analyses[index];
   const n = kinetics.species.length;

@@ -11,14 +11,14 @@ import type { CompiledKinetics } from "../kinetics/types";
 import { computeDispersion, type DispersionOptions } from "./compute-dispersion";
 import { resolveScales } from "./scales";
 
-export type GradientProfile =
+export type GradientShape =
   | { kind: "linear"; from: number; to: number }
   | { kind: "exponential"; source: number; decayLength: number; floor?: number }
   | { kind: "table"; positions: number[]; values: number[] };
 
 export interface GradientOptions extends Omit<DispersionOptions, "domain"> {
   parameter: string;
-  profile: GradientProfile;
+  profile: GradientShape;
   /** Tissue length (same unit as the positions). */
   length: number;
   /** Sample positions along the tissue. @default 101 */
@@ -97,7 +97,7 @@ export function computeGradientDispersion(
   };
 }
 
-function profileFunction(profile: GradientProfile, length: number): (x: number) => number {
+function profileFunction(profile: GradientShape, length: number): (x: number) => number {
   const finite = (field: string, v: unknown) => {
     if (typeof v !== "number" || !Number.isFinite(v))
       throw new KineticsInputError(`profile.${field}`, `profile.${field} must be a finite number (got ${String(v)}).`);

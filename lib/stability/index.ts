@@ -62,6 +62,6 @@ export {
   computeGradientDispersion,
   type GradientOptions,
   type GradientPoint,
-  type GradientProfile,
+  type GradientShape,
   type GradientResult,
 } from "./gradients";

@@ -17,18 +17,35 @@ export interface GradientStripesOptions {
   seed?: string | number;
 }
 
+/** GradientStripesOptions checked, every default filled in. */
+export type ResolvedGradientStripesOptions = Required<GradientStripesOptions>;
+
+/** Checks and defaults the options once, before any work; throws SyntheticOptionError naming the option and its limit. */
+export function resolveGradientStripesOptions(options: GradientStripesOptions): ResolvedGradientStripesOptions {
+  const { width, height, wavelengthStartPx, wavelengthEndPx, contrast = 1, noise = 0, seed = 1 } = options;
+  checkSize(width, height);
+  checkAtLeast("wavelengthStartPx", wavelengthStartPx, 2);
+  checkAtLeast("wavelengthEndPx", wavelengthEndPx, 2);
+  checkRange("contrast", contrast, 0, 1);
+  checkRange("noise", noise, 0, 10);
+  return { width, height, wavelengthStartPx, wavelengthEndPx, contrast, noise, seed };
+}
+
 /**
  * Vertical stripes whose local wavelength λ(x) grows linearly from start to end along x.
  * The phase is φ(x) = 2π∫₀ˣ dx'/λ(x') = (2π/g)·ln(λ(x)/λ₀) with g = dλ/dx, so the local
  * wavelength 2π/φ'(x) equals λ(x) exactly (calculus).
  */
 export function makeGradientStripes(options: GradientStripesOptions): GreyImage {
-  const { width, height, wavelengthStartPx: l0, wavelengthEndPx: l1, contrast = 1, noise = 0, seed = 1 } = options;
-  checkSize(width, height);
-  checkAtLeast("wavelengthStartPx", l0, 2);
-  checkAtLeast("wavelengthEndPx", l1, 2);
-  checkRange("contrast", contrast, 0, 1);
-  checkRange("noise", noise, 0, 10);
+  const {
+    width,
+    height,
+    wavelengthStartPx: l0,
+    wavelengthEndPx: l1,
+    contrast,
+    noise,
+    seed,
+  } = resolveGradientStripesOptions(options);
   const g = width > 1 ? (l1 - l0) / (width - 1) : 0;
   const rowProfile = new Float32Array(width);
   for (let x = 0; x < width; x++) {

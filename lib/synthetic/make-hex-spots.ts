@@ -19,8 +19,11 @@ export interface HexSpotsOptions {
   seed?: string | number;
 }
 
-/** Bright Gaussian spots (peak 1 on 0) on a hexagonal lattice centred on the image centre. */
-export function makeHexSpots(options: HexSpotsOptions): GreyImage {
+/** HexSpotsOptions checked, every default filled in. */
+export type ResolvedHexSpotsOptions = Required<HexSpotsOptions>;
+
+/** Checks and defaults the options once, before any work; throws SyntheticOptionError naming the option and its limit. */
+export function resolveHexSpotsOptions(options: HexSpotsOptions): ResolvedHexSpotsOptions {
   const { width, height, spacingPx: a, angleDeg = 0, jitterPx = 0, noise = 0, seed = 1 } = options;
   checkSize(width, height);
   checkAtLeast("spacingPx", a, 3);
@@ -29,6 +32,21 @@ export function makeHexSpots(options: HexSpotsOptions): GreyImage {
   checkPositive("spotRadiusPx", spotRadiusPx);
   checkRange("jitterPx", jitterPx, 0, a);
   checkRange("noise", noise, 0, 10);
+  return { width, height, spacingPx: a, angleDeg, spotRadiusPx, jitterPx, noise, seed };
+}
+
+/** Bright Gaussian spots (peak 1 on 0) on a hexagonal lattice centred on the image centre. */
+export function makeHexSpots(options: HexSpotsOptions): GreyImage {
+  const {
+    width,
+    height,
+    spacingPx: a,
+    angleDeg,
+    spotRadiusPx,
+    jitterPx,
+    noise,
+    seed,
+  } = resolveHexSpotsOptions(options);
   const rng = createRng(seed);
   const t = (angleDeg * Math.PI) / 180;
   const t2 = t + Math.PI / 3;

@@ -17,12 +17,11 @@ export interface LabyrinthOptions {
   seed?: string | number;
 }
 
-/**
- * An isotropic labyrinth: a sum of plane waves with |k| = 2π/λ, uniformly random directions and
- * phases (a Gaussian random field whose spectrum is a thin ring, by the central limit theorem),
- * sharpened by tanh into bands. Its radial spectrum peaks at 1/λ; its angular spectrum is flat.
- */
-export function makeLabyrinth(options: LabyrinthOptions): GreyImage {
+/** LabyrinthOptions checked, every default filled in. */
+export type ResolvedLabyrinthOptions = Required<LabyrinthOptions>;
+
+/** Checks and defaults the options once, before any work; throws SyntheticOptionError naming the option and its limit. */
+export function resolveLabyrinthOptions(options: LabyrinthOptions): ResolvedLabyrinthOptions {
   const { width, height, wavelengthPx, waves = 48, sharpness = 3, noise = 0, seed = 1 } = options;
   checkSize(width, height);
   checkAtLeast("wavelengthPx", wavelengthPx, 2);
@@ -31,6 +30,16 @@ export function makeLabyrinth(options: LabyrinthOptions): GreyImage {
   }
   checkRange("sharpness", sharpness, 0, 100);
   checkRange("noise", noise, 0, 10);
+  return { width, height, wavelengthPx, waves, sharpness, noise, seed };
+}
+
+/**
+ * An isotropic labyrinth: a sum of plane waves with |k| = 2π/λ, uniformly random directions and
+ * phases (a Gaussian random field whose spectrum is a thin ring, by the central limit theorem),
+ * sharpened by tanh into bands. Its radial spectrum peaks at 1/λ; its angular spectrum is flat.
+ */
+export function makeLabyrinth(options: LabyrinthOptions): GreyImage {
+  const { width, height, wavelengthPx, waves, sharpness, noise, seed } = resolveLabyrinthOptions(options);
   const rng = createRng(seed);
   const k = (2 * Math.PI) / wavelengthPx;
   const field = new Float64Array(width * height);

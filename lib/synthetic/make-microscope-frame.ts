@@ -27,17 +27,16 @@ export interface MicroscopeFrameOptions {
   seed?: string | number;
 }
 
-/**
- * A microscope-like frame whose wavelength is exact by construction: a unit-amplitude pattern
- * (stripes or hexagonal spots), a smooth illumination (a centred Gaussian bump of width 0.6 of
- * the half-diagonal plus a ramp), optionally multiplying the pattern, a Gaussian blur, then white
- * noise. With `pattern: "none"` the same frame without a pattern, which must read as no period.
- */
-export function makeMicroscopeFrame(o: MicroscopeFrameOptions): GreyImage {
+/** MicroscopeFrameOptions checked, every default filled in (the pattern's own options are checked by its generator). */
+export type ResolvedMicroscopeFrameOptions = Required<MicroscopeFrameOptions>;
+
+/** Checks and defaults the options once, before any work; throws SyntheticOptionError naming the option and its limit. */
+export function resolveMicroscopeFrameOptions(o: MicroscopeFrameOptions): ResolvedMicroscopeFrameOptions {
   const {
     width,
     height,
     pattern,
+    wavelengthPx = 16,
     angleDeg = 0,
     vignetting = 0,
     gradient = 0,
@@ -51,7 +50,41 @@ export function makeMicroscopeFrame(o: MicroscopeFrameOptions): GreyImage {
   checkRange("gradient", gradient, -1000, 1000);
   checkRange("noise", noise, 0, 100);
   checkRange("blurSigmaPx", blurSigmaPx, 0, 64);
-  const lambda = o.wavelengthPx ?? 16;
+  return {
+    width,
+    height,
+    pattern,
+    wavelengthPx,
+    angleDeg,
+    vignetting,
+    gradient,
+    multiplicative,
+    noise,
+    blurSigmaPx,
+    seed,
+  };
+}
+
+/**
+ * A microscope-like frame whose wavelength is exact by construction: a unit-amplitude pattern
+ * (stripes or hexagonal spots), a smooth illumination (a centred Gaussian bump of width 0.6 of
+ * the half-diagonal plus a ramp), optionally multiplying the pattern, a Gaussian blur, then white
+ * noise. With `pattern: "none"` the same frame without a pattern, which must read as no period.
+ */
+export function makeMicroscopeFrame(o: MicroscopeFrameOptions): GreyImage {
+  const {
+    width,
+    height,
+    pattern,
+    wavelengthPx: lambda,
+    angleDeg,
+    vignetting,
+    gradient,
+    multiplicative,
+    noise,
+    blurSigmaPx,
+    seed,
+  } = resolveMicroscopeFrameOptions(o);
   const p =
     pattern === "stripes"
       ? makeStripes({ width, height, wavelengthPx: lambda, angleDeg })

@@ -24,14 +24,23 @@ export interface StripesOptions {
   phaseRad?: number;
 }
 
-/** Sinusoidal stripes I = ½ + ½·contrast·cos(2π(x cosθ + y sinθ)/λ + φ), clamped to 0..1 after noise. */
-export function makeStripes(options: StripesOptions): GreyImage {
+/** StripesOptions checked, every default filled in. */
+export type ResolvedStripesOptions = Required<StripesOptions>;
+
+/** Checks and defaults the options once, before any work; throws SyntheticOptionError naming the option and its limit. */
+export function resolveStripesOptions(options: StripesOptions): ResolvedStripesOptions {
   const { width, height, wavelengthPx, angleDeg, contrast = 1, noise = 0, seed = 1, phaseRad = 0 } = options;
   checkSize(width, height);
   checkAtLeast("wavelengthPx", wavelengthPx, 2);
   checkRange("angleDeg", angleDeg, -360, 360);
   checkRange("contrast", contrast, 0, 1);
   checkRange("noise", noise, 0, 10);
+  return { width, height, wavelengthPx, angleDeg, contrast, noise, seed, phaseRad };
+}
+
+/** Sinusoidal stripes I = ½ + ½·contrast·cos(2π(x cosθ + y sinθ)/λ + φ), clamped to 0..1 after noise. */
+export function makeStripes(options: StripesOptions): GreyImage {
+  const { width, height, wavelengthPx, angleDeg, contrast, noise, seed, phaseRad } = resolveStripesOptions(options);
   const theta = (angleDeg * Math.PI) / 180;
   const kx = (2 * Math.PI * Math.cos(theta)) / wavelengthPx;
   const ky = (2 * Math.PI * Math.sin(theta)) / wavelengthPx;

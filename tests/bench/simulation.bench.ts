@@ -6,8 +6,8 @@
  * steps are timed; the 10 000-step figure is extrapolated unless SIM_BENCH_STEPS=10000.
  */
 import FFT from "fft.js";
+import { DctPlan } from "@/lib/fft";
 import {
-  DctPlan,
   createCosineBasis,
   createGrid,
   schnakenbergReaction,
@@ -15,7 +15,7 @@ import {
   simulateReactionDiffusion,
   type SimulationOptions,
 } from "@/lib/simulation";
-import { createWorkerExecutor } from "@/lib/simulation/parallel/worker-executor";
+import { createWorkerExecutor } from "@/lib/parallel";
 import type { BenchRow } from "./run";
 
 const N = 256;

@@ -10,12 +10,12 @@ import {
   readKineticsSteadyState,
   simulateReactionDiffusion,
   SimulationOptionError,
-  type ParameterProfile,
+  type SpatialParameterField,
   type SchemeName,
   type SimulationOptions,
   type SimulationResult,
 } from "../../simulation";
-import { createWorkerExecutor } from "../../simulation/parallel/worker-executor";
+import { createWorkerExecutor } from "../../parallel";
 
 const help = `simulate --spec RUN.json [--out DIR] [--threads 1|2] [--progress] [--json]
 
@@ -54,7 +54,7 @@ Options:
 interface RunSpec {
   kinetics: KineticsSource;
   parameters?: Record<string, number>;
-  spatialParameters?: Record<string, ParameterProfile>;
+  spatialParameters?: Record<string, SpatialParameterField>;
   grid: SimulationOptions["grid"];
   endTimeS: number;
   dtS?: number;

@@ -7,7 +7,7 @@
  */
 import { createHash } from "node:crypto";
 import { addReplicateSpread, FitError, type ParameterSetting } from "@/lib/fitting";
-import { checkWavelengthSpec } from "@/lib/fitting/check-wavelength-spec";
+import { resolveWavelengthSpec } from "@/lib/fitting/resolve-wavelength-spec";
 import { createKineticsPredictor, SCALE_PARAMETERS } from "@/lib/fitting/kinetics-predictor";
 import { sampleTuringBox } from "@/lib/fitting/sample-turing-box";
 import { createWavelengthModel } from "@/lib/fitting/wavelength-model";
@@ -151,7 +151,7 @@ async function resolveModel(ctx: LabContext, input: FitModelInput, i: number): P
 /** Runs the fitting core's own checks and its Turing-region sample (the same seeded points the fit will use). */
 function precheck(spec: StoredFitSpec, model: ResolvedModel, i: number): void {
   try {
-    const checked = checkWavelengthSpec({
+    const checked = resolveWavelengthSpec({
       data: spec.data,
       parameters: model.stored.parameters,
       options: spec.options,
@@ -214,7 +214,7 @@ export async function buildFitSpec(
   }
   models.forEach((m, i) => precheck(spec, m, i));
   const inputSha256 = sha256Of(canonicalJson(spec));
-  const defaults = checkWavelengthSpec({ data, parameters: models[0].stored.parameters, options }).options;
+  const defaults = resolveWavelengthSpec({ data, parameters: models[0].stored.parameters, options }).options;
   return {
     kind: models.length === 1 ? "fit" : "comparison",
     spec,

@@ -2,93 +2,12 @@
  * Shapes of a verification run: the stored spec (the `simulate` CLI's RUN.json), the plan made
  * before the job, the stored result, and the DTOs the API returns. Types only, so pages may import them.
  */
-import type { KineticsDefinition } from "@/lib/kinetics";
-import type { ParameterProfile } from "@/lib/simulation";
+import type { RunPlan, RunSpec } from "@/lib/simulation";
 import type { JobStatus } from "@/models/job";
 import type { ImageReadoutResult } from "../readouts/result";
 
-/** RUN.json as lib/cli/commands/simulate.ts reads it (see its --help). */
-export interface RunSpec {
-  kinetics: { catalogue: string } | { definition: KineticsDefinition };
-  parameters: Record<string, number>;
-  spatialParameters?: Record<string, ParameterProfile>;
-  grid: { lengthUm: number[]; cells: number[]; boundary: "zero-flux" | "periodic" };
-  endTimeS: number;
-  dtS?: number;
-  scheme: "etd2" | "implicit-euler" | "integrating-factor";
-  /**
-   * The homogeneous steady state plus seeded noise, or a chosen initial field: `fieldFiles` next to
-   * RUN.json (the job writes the earlier run's final fields there, checked against `fromRun.finalSha256`).
-   */
-  initial:
-    | { steadyState: number[]; noiseAmplitude?: number; seed: number }
-    | {
-        fieldFiles: string[];
-        fromRun: { runId: string; name: string; finalSha256: string[] };
-        noiseAmplitude: number;
-        seed: number;
-      };
-  stopWhenStationary: boolean;
-  snapshotTimesS: number[];
-  scales?: { lengthScaleUm?: number; timeScaleS?: number };
-}
-
-/** Checked and predicted before the job starts. Lengths in grid units unless named …Um. */
-export interface RunPlan {
-  species: string[];
-  units: "dimensional" | "non-dimensional";
-  /** "µm" when lengths can be shown in µm (dimensional, or a length scale given), else "model length". */
-  lengthUnit: "µm" | "model length";
-  timeUnit: "s" | "model time";
-  /** µm per grid length unit (1 for dimensional kinetics), null without a length scale. */
-  lengthFactor: number | null;
-  timeFactor: number | null;
-  steadyState: number[];
-  /** One diffusivity per species, or the full matrix D[i][j] for cross-diffusion. */
-  diffusion: number[] | number[][];
-  dtS: number;
-  steps: number;
-  spectralRadiusPerS: number;
-  stiffnessLimitS: number;
-  workCellSteps: number;
-  /** Estimated solver time (s) on the server's thread count (SIMULATION_THREADS), start-up not included. */
-  estimatedCpuS: number;
-  classification: string;
-  /** Linear theory at the steady state: fastest-growing k* (grid units⁻¹) and 2π/k*; on a zero-flux box also the fastest admissible mode. */
-  prediction: {
-    kStar: number;
-    wavelength: number;
-    domainMode: { k: number; wavelength: number; indices: number[]; growing: boolean } | null;
-  } | null;
-  /** Local 2π/k* along x when a parameter varies (positions in grid units). */
-  gradientPrediction: {
-    parameter: string;
-    positions: number[];
-    values: number[];
-    wavelengths: Array<number | null>;
-  } | null;
-  /** Set when the run started from a fit: the measurement the fit used for this condition (µm). */
-  fromFit: {
-    fitId: string;
-    fitName: string;
-    model: string;
-    condition: string;
-    measuredMeanUm: number;
-    measuredSeUm: number;
-    n: number;
-    readouts: { readoutId: string; filename: string | null; measure: string | null }[];
-  } | null;
-  /** Set when the run starts from an earlier run's final fields. */
-  startFrom: {
-    runId: string;
-    name: string;
-    kineticsName: string;
-    timeS: number;
-    grid: string;
-    speciesMeans: number[];
-  } | null;
-  warnings: string[];
-}
+/** RUN.json and the plan shown before the job: the science core makes both (lib/simulation/plan-run.ts). */
+export type { RunPlan, RunSpec };
 
 export interface RunSnapshot {
   requestedTimeS: number;

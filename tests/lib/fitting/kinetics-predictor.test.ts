@@ -5,7 +5,6 @@ import { getCatalogueKinetics } from "@/lib/kinetics";
 import { computeDispersion } from "@/lib/stability";
 
 /** Relative difference |a/b − 1|. */
-const rel = (a: number, b: number) => (a === b ? 0 : Math.abs(a / b - 1));
 
 // Table: (kinetics, parameters, predictor options). Reference: the general path (computeDispersion)
 // of the same predictor, which the fast path must reproduce.
@@ -41,7 +40,7 @@ describe("createKineticsPredictor: fast fastest-mode path against computeDispers
     if (general === null) expect(fast).toBeNull();
     else {
       expect(fast).not.toBeNull();
-      expect(rel(fast!.wavelengthUm, general.wavelengthUm)).toBeLessThan(1e-9);
+      expect(fast!.wavelengthUm).toBeWithinRelative(general.wavelengthUm, 1e-9);
       expect(fast!.turing).toBe(general.turing);
     }
   });
@@ -57,7 +56,7 @@ describe("createKineticsPredictor: fast fastest-mode path against computeDispers
       "c",
       undefined,
     )!;
-    expect(rel(p.wavelengthUm, (2 * Math.PI * 10) / r.fastest!.kStar)).toBeLessThan(1e-12); // definition λ = 2π/k (SCIENCE.md)
+    expect(p.wavelengthUm).toBeWithinRelative((2 * Math.PI * 10) / r.fastest!.kStar, 1e-12); // definition λ = 2π/k (SCIENCE.md)
     expect(p.turing).toBe(true);
   });
 

@@ -1,12 +1,12 @@
 /**
- * Reader for the NIST StRD nonlinear-regression `.dat` files (read in place from
- * `../shared/reference/nist-strd/` beside the checkout; CRLF line endings) and the model of
- * each dataset, written from the formula printed in its own file.
+ * Reader for the NIST StRD nonlinear-regression `.dat` files, committed unchanged under
+ * `tests/fixtures/nist/` (CRLF line endings; source and licence in its README.md), and the model
+ * of each dataset, written from the formula printed in its own file.
  */
-import { existsSync, readFileSync } from "node:fs";
+import { readFileSync } from "node:fs";
 import path from "node:path";
 
-export const NIST_DIR = path.resolve(import.meta.dirname, "../../..", "../shared/reference/nist-strd");
+export const NIST_DIR = path.resolve(import.meta.dirname, "../../fixtures/nist");
 export const NIST_URL = "https://www.itl.nist.gov/div898/strd/";
 
 export interface NistDataset {
@@ -52,11 +52,6 @@ export function parseNistFile(text: string, name: string): NistDataset {
     x.push(Number(parts[1]));
   }
   return { name, starts, certified, certifiedSd, residualSumOfSquares: rss, residualSd: rsd, x, y };
-}
-
-/** The folder exists (it sits beside the checkout on the team's machines and in CI). */
-export function nistAvailable(): boolean {
-  return existsSync(NIST_DIR);
 }
 
 export function readNist(name: string): NistDataset {

@@ -1,16 +1,13 @@
 /**
  * The solver judged on NIST StRD nonlinear regression (certified values, standard deviations and
  * residual sums of squares are in each dataset's file). LRE = −log₁₀(|est − cert|/|cert|) as
- * NIST defines it. The files are read in place; without them these tests are skipped.
+ * NIST defines it. The files are committed under tests/fixtures/nist/, so these tests always run.
  */
+import { readFileSync } from "node:fs";
+import path from "node:path";
 import { describe, expect, it } from "vitest";
 import { fitCurve } from "@/lib/fitting";
-import { logRelativeError, NIST_DIR, NIST_MODELS, NIST_URL, nistAvailable, readNist } from "./nist-strd-data";
-
-const available = nistAvailable();
-if (!available) {
-  console.warn(`NIST StRD tests skipped: ${NIST_DIR} is absent. NIST publishes the datasets at ${NIST_URL}.`);
-}
+import { logRelativeError, NIST_DIR, NIST_MODELS, readNist } from "./nist-strd-data";
 
 /**
  * Digits this solver reaches from start 2 (measured, then asserted with a margin of about one digit):
@@ -47,7 +44,7 @@ function fit(name: string, start: number[]) {
   };
 }
 
-describe.skipIf(!available)("NIST StRD nonlinear regression, start 2", () => {
+describe("NIST StRD nonlinear regression, start 2", () => {
   it.each(CASES)("$name ($level difficulty) reaches the certified values", ({ name, params, rss, sd }) => {
     const { d, fit: f } = fit(name, readNist(name).starts[1]);
     expect(f.solution.converged).toBe(true);
@@ -62,7 +59,7 @@ describe.skipIf(!available)("NIST StRD nonlinear regression, start 2", () => {
   });
 });
 
-describe.skipIf(!available)("NIST StRD nonlinear regression, start 1", () => {
+describe("NIST StRD nonlinear regression, start 1", () => {
   it.each(CASES)("$name: converges to the certified values or reports failure", ({ name }) => {
     const { d, fit: f } = fit(name, readNist(name).starts[0]);
     if (f.solution.converged) {
@@ -89,12 +86,28 @@ describe.skipIf(!available)("NIST StRD nonlinear regression, start 1", () => {
   });
 });
 
-describe.skipIf(!available)("NIST file reader", () => {
+describe("NIST file reader", () => {
   it("reads CRLF files: 11 observations of MGH09 and its certified RSS", () => {
     const d = readNist("MGH09");
     // MGH09.dat header: "11 Observations", "Residual Sum of Squares: 3.0750560385E-04".
     expect(d.x).toHaveLength(11);
     expect(d.residualSumOfSquares).toBe(3.0750560385e-4);
     expect(d.starts[0]).toEqual([25, 39, 41.5, 39]);
+  });
+
+  it("reads its data from inside the repository, every file whole: the counts its own header states", () => {
+    // A folder outside the checkout could be absent, and the tests would then not run at all.
+    const root = path.resolve(import.meta.dirname, "../../..");
+    expect(path.relative(root, NIST_DIR)).toBe(path.join("tests", "fixtures", "nist"));
+    for (const { name } of CASES) {
+      const text = readFileSync(path.join(NIST_DIR, `${name}.dat`), "utf8");
+      // Each NIST StRD file says "<n> Observations" and "<p> Parameters (b1 to b<p>)" in its header.
+      const n = Number(/(\d+) Observations/.exec(text)?.[1]);
+      const p = Number(/(\d+) Parameters/.exec(text)?.[1]);
+      const d = readNist(name);
+      expect([name, d.x.length, d.y.length]).toEqual([name, n, n]);
+      expect([name, d.certified.length, d.certifiedSd.length, d.starts[1].length]).toEqual([name, p, p, p]);
+      expect(Number.isFinite(d.residualSumOfSquares) && Number.isFinite(d.residualSd)).toBe(true);
+    }
   });
 });

@@ -2,7 +2,6 @@ import { describe, expect, it } from "vitest";
 import { readWavelength } from "@/lib/readout";
 import { makeHexSpots, makeLabyrinth, makeNoise, makeStripes } from "@/lib/synthetic";
 
-const relErr = (got: number | null, want: number) => Math.abs((got ?? NaN) - want) / want;
 /** Angle difference modulo a period (degrees). */
 const angDiff = (a: number, b: number, period: number) => {
   const d = (((a - b) % period) + period) % period;
@@ -22,8 +21,8 @@ describe("stripes: wavelength and orientation recovered (plane-wave geometry; ta
       pixelSizeUm: 0.5,
     });
     expect(r.periodFound).toBe(true);
-    expect(relErr(r.wavelengthPx, wavelengthPx)).toBeLessThan(0.01);
-    expect(relErr(r.wavelengthUm, wavelengthPx * 0.5)).toBeLessThan(0.01); // µm = px × µm/px
+    expect(r.wavelengthPx).toBeWithinRelative(wavelengthPx, 0.01);
+    expect(r.wavelengthUm).toBeWithinRelative(wavelengthPx * 0.5, 0.01); // µm = px × µm/px
     expect(r.symmetry).toBe("stripes");
     expect(angDiff(r.orientationDeg!, angleDeg, 180)).toBeLessThan(1);
     expect(r.anisotropy).toBeGreaterThan(0.9); // one direction → mean resultant length ≈ 1
@@ -64,8 +63,8 @@ describe("hexagonal spots: λ = (√3/2)·a and a reported (SCIENCE.md §4, latt
       { pixelSizeUm: 1 },
     );
     expect(r.symmetry).toBe("hexagonal");
-    expect(relErr(r.wavelengthPx, (Math.sqrt(3) / 2) * spacingPx)).toBeLessThan(0.01);
-    expect(relErr(r.nearestNeighbourUm, spacingPx)).toBeLessThan(0.01);
+    expect(r.wavelengthPx).toBeWithinRelative((Math.sqrt(3) / 2) * spacingPx, 0.01);
+    expect(r.nearestNeighbourUm).toBeWithinRelative(spacingPx, 0.01);
     // reciprocal vectors sit 30° from the lattice vectors (geometry); reported mod 60°
     expect(angDiff(r.orientationDeg!, angleDeg + 30, 60)).toBeLessThan(1.5);
     expect(r.symmetryScores.h6).toBeGreaterThan(0.4);
@@ -76,7 +75,7 @@ describe("labyrinth and noise", () => {
   it("labyrinth: ring peak at 1/λ, isotropic, called labyrinth (ring spectrum by construction)", () => {
     const r = readWavelength(makeLabyrinth({ width: 256, height: 256, wavelengthPx: 14, seed: 5 }), { pixelSizeUm: 1 });
     expect(r.symmetry).toBe("labyrinth");
-    expect(relErr(r.wavelengthPx, 14)).toBeLessThan(0.02);
+    expect(r.wavelengthPx).toBeWithinRelative(14, 0.02);
     expect(r.anisotropy).toBeLessThan(0.4);
   });
   it.each([
@@ -106,7 +105,7 @@ describe("ROI and mask", () => {
     }
     const img = { width: 256, height: 128, data };
     const r = readWavelength(img, { pixelSizeUm: 1, roi: { kind: "rect", x: 128, y: 0, width: 128, height: 128 } });
-    expect(relErr(r.wavelengthPx, 16)).toBeLessThan(0.01);
+    expect(r.wavelengthPx).toBeWithinRelative(16, 0.01);
     const p = readWavelength(img, {
       pixelSizeUm: 1,
       roi: {
@@ -119,6 +118,6 @@ describe("ROI and mask", () => {
         ],
       },
     });
-    expect(relErr(p.wavelengthPx, 8)).toBeLessThan(0.01);
+    expect(p.wavelengthPx).toBeWithinRelative(8, 0.01);
   });
 });

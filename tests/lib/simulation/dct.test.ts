@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import seedrandom from "seedrandom";
-import { DctPlan, createCosineBasis, createGrid } from "@/lib/simulation";
+import { DctPlan } from "@/lib/fft";
+import { createCosineBasis, createGrid } from "@/lib/simulation";
 
 function randomArray(n: number, seed: string): Float64Array {
   const rng = seedrandom(seed);

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import seedrandom from "seedrandom";
+import { RealFftPlan } from "@/lib/fft";
 import {
-  RealFftPlan,
   createGrid,
   createLinearDecayReaction,
   createPeriodicBasis,

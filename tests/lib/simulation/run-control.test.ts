@@ -4,7 +4,7 @@ import {
   computeReactionJacobian,
   computeReactionStiffness,
   createLinearDecayReaction,
-  resolveParameterProfile,
+  evaluateSpatialParameterField,
   createGrid,
   schnakenbergReaction,
   schnakenbergSteadyState,
@@ -54,12 +54,12 @@ describe("parameters varying in space", () => {
     ],
     [{ kind: "table", positionsUm: [25, 75], values: [1, 3] } as const, [1, 1.5, 2.5, 3]],
   ])("%j along x", (profile, expected) => {
-    const f = resolveParameterProfile(profile, grid, "p");
+    const f = evaluateSpatialParameterField(profile, grid, "p");
     for (let iy = 0; iy < 4; iy++) expected.forEach((v, ix) => expect(f[iy * 4 + ix]).toBeCloseTo(v, 12));
   });
 
   it("a linear profile along y varies between rows only", () => {
-    const f = resolveParameterProfile({ kind: "linear", axis: "y", fromValue: 0, toValue: 50 }, grid, "p");
+    const f = evaluateSpatialParameterField({ kind: "linear", axis: "y", fromValue: 0, toValue: 50 }, grid, "p");
     // Row centres y = 6.25, 18.75, 31.25, 43.75 µm (geometry).
     expect(Array.from(f)).toEqual([6.25, 18.75, 31.25, 43.75].flatMap((y) => [y, y, y, y]));
   });

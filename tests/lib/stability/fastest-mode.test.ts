@@ -4,9 +4,6 @@ import { computeDispersion } from "@/lib/stability";
 import { analyseCell2x2 } from "@/lib/stability/cell-2x2";
 import { computeFastestMode, createFastestModeWorkspace } from "@/lib/stability/fastest-mode";
 
-/** Relative difference |a/b − 1|, 0 when both are equal (NaN = NaN included). */
-const rel = (a: number, b: number) => (a === b || (Number.isNaN(a) && Number.isNaN(b)) ? 0 : Math.abs(a / b - 1));
-
 // Newton-only kinetics (no closed form): a linear system with its single state at u = 1, v = 1.
 const newtonOnly = compileKinetics({
   name: "linear test",
@@ -73,8 +70,8 @@ describe("computeFastestMode (two species, diagonal D, unbounded domain)", () =>
           expect(m.kStar).toBeNaN();
           expect(m.kind).toBeNull();
         } else {
-          expect(rel(m.kStar, r.fastest.kStar)).toBeLessThan(1e-9);
-          expect(rel(m.sigmaStar, r.fastest.sigmaStar)).toBeLessThan(1e-9);
+          expect(m.kStar).toBeWithinRelative(r.fastest.kStar, 1e-9);
+          expect(m.sigmaStar).toBeWithinRelative(r.fastest.sigmaStar, 1e-9);
           expect(m.kind).toBe(r.fastest.kind);
         }
       }
@@ -103,7 +100,7 @@ describe("computeFastestMode (two species, diagonal D, unbounded domain)", () =>
       const [Du, Dv] = [r.diffusion[0][0], r.diffusion[1][1]];
       const peak = { k: NaN, sigma: -Infinity };
       analyseCell2x2(J, Du, Dv, peak);
-      expect(rel(m.kStar, peak.k)).toBeLessThan(1e-7);
+      expect(m.kStar).toBeWithinRelative(peak.k, 1e-7);
       checked++;
     }
     expect(checked).toBeGreaterThanOrEqual(10);

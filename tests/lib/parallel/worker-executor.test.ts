@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { schnakenbergReaction, simulateReactionDiffusion, type SimulationOptions } from "@/lib/simulation";
-import { createWorkerExecutor } from "@/lib/simulation/parallel/worker-executor";
+import { createWorkerExecutor } from "@/lib/parallel";
 
 describe("worker-thread executor", () => {
   it.each(["etd2", "implicit-euler"] as const)(
@@ -29,7 +29,7 @@ describe("worker-thread executor", () => {
 
 describe("awaitWord", () => {
   it("returns once the word holds the value, and throws when a worker set the failure word", async () => {
-    const { awaitWord } = await import("@/lib/simulation/parallel/worker-executor");
+    const { awaitWord } = await import("@/lib/parallel");
     const ctrl = new Int32Array(new SharedArrayBuffer(16));
     ctrl[1] = 5;
     expect(() => awaitWord(ctrl, 1, 5, 3)).not.toThrow();

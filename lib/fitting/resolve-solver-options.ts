@@ -34,7 +34,7 @@ export interface LeastSquaresOptions {
   polish?: Partial<PolishOptions>;
 }
 
-export interface CheckedSolverOptions {
+export interface ResolvedSolverOptions {
   start: number[];
   lower: number[];
   upper: number[];
@@ -57,7 +57,7 @@ function checkVector(name: string, v: readonly number[] | undefined, p: number, 
 }
 
 /** Validate and default the solver options once, before any residual is evaluated. */
-export function checkSolverOptions(options: LeastSquaresOptions, parameterCount: number): CheckedSolverOptions {
+export function resolveSolverOptions(options: LeastSquaresOptions, parameterCount: number): ResolvedSolverOptions {
   const p = parameterCount;
   if (!Array.isArray(options.start) || options.start.length === 0)
     throw badOption("start", "start must hold at least one parameter value.");

@@ -23,13 +23,13 @@ export interface FreeSlot {
 }
 
 /** A datum with its value on the Fourier scale the model predicts. */
-export interface CheckedDatum<TDomain> extends WavelengthDatum<TDomain> {
+export interface ResolvedDatum<TDomain> extends WavelengthDatum<TDomain> {
   fourierUm: number;
   fourierUncertaintyUm: number;
 }
 
-export interface CheckedWavelengthSpec<TDomain> {
-  data: CheckedDatum<TDomain>[];
+export interface ResolvedWavelengthSpec<TDomain> {
+  data: ResolvedDatum<TDomain>[];
   /** Conditions in order of first appearance. */
   conditions: string[];
   slots: FreeSlot[];
@@ -42,7 +42,7 @@ const bad = (field: string, message: string) => new FitError("bad_option", messa
 const badData = (field: string, message: string) => new FitError("bad_data", message, field);
 const KINDS: MeasurementKind[] = ["fourier", "nearest-neighbour"];
 
-function checkData<TDomain>(data: WavelengthDatum<TDomain>[]): CheckedDatum<TDomain>[] {
+function checkData<TDomain>(data: WavelengthDatum<TDomain>[]): ResolvedDatum<TDomain>[] {
   if (!Array.isArray(data) || data.length === 0)
     throw badData("data", "data must hold at least one measurement; got none.");
   const kindOf = new Map<string, MeasurementKind>();
@@ -132,7 +132,7 @@ function checkOptions(o: WavelengthFitOptions = {}): Required<WavelengthFitOptio
 }
 
 /** Validate a wavelength-fit spec once, convert spacings to Fourier wavelengths, lay out the free coordinates. */
-export function checkWavelengthSpec<TDomain>(spec: WavelengthFitSpec<TDomain>): CheckedWavelengthSpec<TDomain> {
+export function resolveWavelengthSpec<TDomain>(spec: WavelengthFitSpec<TDomain>): ResolvedWavelengthSpec<TDomain> {
   const data = checkData(spec.data);
   const conditions = [...new Set(data.map((d) => d.condition))];
   const names = Object.keys(spec.parameters ?? {});
@@ -193,7 +193,7 @@ export function checkWavelengthSpec<TDomain>(spec: WavelengthFitSpec<TDomain>): 
 
 /** The named parameter values one condition sees, given the free coordinates. */
 export function valuesForCondition<TDomain>(
-  spec: CheckedWavelengthSpec<TDomain>,
+  spec: ResolvedWavelengthSpec<TDomain>,
   free: readonly number[],
   condition: string,
 ): Record<string, number> {

@@ -1,9 +1,8 @@
-import { createRequire } from "node:module";
-import { fileURLToPath } from "node:url";
-import { Worker } from "node:worker_threads";
-import { createSpectralBasis } from "../spectral-basis";
-import { runDiffusionStage, type StageMode } from "../diffusion-stage";
-import type { DiffusionExecutor, DiffusionLayout } from "../executor";
+import type { Worker } from "node:worker_threads";
+import { createSpectralBasis } from "../simulation/spectral-basis";
+import { runDiffusionStage, type StageMode } from "../simulation/diffusion-stage";
+import type { DiffusionExecutor, DiffusionLayout } from "../simulation/executor";
+import { startWorker } from "./start-worker";
 
 /** Options of {@link createWorkerExecutor}. */
 export interface WorkerExecutorOptions {
@@ -108,18 +107,12 @@ export function awaitWord(ctrl: Int32Array, index: number, value: number, failIn
   }
 }
 
-/**
- * Starts diffusion-worker.ts. Workers do not inherit tsx's loader hooks, so when the entry is
- * TypeScript the worker first registers tsx's CommonJS hook and then requires the entry.
- */
+/** Starts diffusion-worker; any throw there (start-up or a stage) sets the shared failure word so run() stops waiting. */
 function spawnDiffusionWorker(workerData: { ctrl: Int32Array; failIndex: number; [key: string]: unknown }): Worker {
-  const entry = fileURLToPath(new URL("./diffusion-worker.ts", import.meta.url));
-  const api = createRequire(import.meta.url).resolve("tsx/cjs/api");
-  // Any throw (start-up or a stage) sets the shared failure word so run() stops waiting.
-  const code = `const { workerData: d } = require("node:worker_threads");
-try { require(${JSON.stringify(api)}).register(); require(${JSON.stringify(entry)}); }
-catch (e) { console.error("simulation worker failed:", e); Atomics.store(d.ctrl, d.failIndex, 1); }`;
-  const worker = new Worker(code, { eval: true, workerData });
+  const worker = startWorker("diffusion-worker", {
+    ...workerData,
+    failure: { words: workerData.ctrl, index: workerData.failIndex },
+  });
   worker.on("error", (err) => console.error("simulation worker failed:", err));
   return worker;
 }

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import seedrandom from "seedrandom";
-import { DctPlan } from "@/lib/simulation";
+import { DctPlan } from "@/lib/fft";
 
 function randomArray(n: number, seed: string): Float64Array {
   const rng = seedrandom(seed);

@@ -1,4 +1,5 @@
-import FFT from "fft.js";
+import type FFT from "fft.js";
+import { getPlan } from "./plans";
 
 /**
  * Type-II discrete cosine transform of length N (a power of two) and its inverse (type III),
@@ -24,16 +25,18 @@ export class DctPlan {
   /** cos(πk/2N)/N, sin(πk/2N)/N: the inverse pre-twiddle with the 1/N of the inverse FFT. */
   private readonly cosInv: Float64Array;
   private readonly sinInv: Float64Array;
-  // fft.js's own complex arrays (JS arrays of doubles): fft.js's transform measured ≈ 30 %
-  // faster on them than on Float64Array (tests/bench/simulation.bench.ts). fft.js's code is
-  // shared by every caller in a process, so a process that also passes Float64Array to
-  // fft.js's transform (lib/fft) makes its element accesses polymorphic, slower for both.
+  // The shared plan's scratch (plans.ts): fft.js's own complex arrays (JS arrays of doubles),
+  // on which fft.js's transform measured ≈ 30 % faster than on Float64Array
+  // (tests/bench/simulation.bench.ts). fft.js's code is shared by every caller in a process, so a
+  // process that also passed Float64Array to it would make its element accesses polymorphic,
+  // slower for both. Every method fills z before it transforms, so sharing is safe in one thread.
   private readonly z: number[];
   private readonly zOut: number[];
 
   constructor(size: number) {
+    const plan = getPlan(size);
     this.size = size;
-    this.fft = new FFT(size);
+    this.fft = plan.fft;
     this.cosHalf = new Float64Array(size);
     this.sinHalf = new Float64Array(size);
     this.cosInv = new Float64Array(size);
@@ -47,8 +50,8 @@ export class DctPlan {
       this.cosInv[k] = c / size;
       this.sinInv[k] = s / size;
     }
-    this.z = this.fft.createComplexArray() as number[];
-    this.zOut = this.fft.createComplexArray() as number[];
+    this.z = plan.a;
+    this.zOut = plan.b;
   }
 
   /**

@@ -1,4 +1,5 @@
-import FFT from "fft.js";
+import type FFT from "fft.js";
+import { getPlan } from "./plans";
 
 /**
  * Real FFT of length N (power of two) in half-complex layout, two rows per complex fft.js
@@ -10,16 +11,18 @@ import FFT from "fft.js";
 export class RealFftPlan {
   readonly size: number;
   private readonly fft: FFT;
-  // fft.js's own complex arrays, as in DctPlan (dct.ts): its transform measured faster on them
-  // than on Float64Array, and one array kind keeps fft.js's element accesses monomorphic.
+  // The shared plan's scratch (plans.ts): fft.js's own complex arrays, which its transform runs
+  // faster on than on Float64Array. Every method fills z before it transforms, so sharing the
+  // scratch with the other plans of this size is safe in one synchronous thread.
   private readonly z: number[];
   private readonly zOut: number[];
 
   constructor(size: number) {
+    const plan = getPlan(size);
     this.size = size;
-    this.fft = new FFT(size);
-    this.z = this.fft.createComplexArray() as number[];
-    this.zOut = this.fft.createComplexArray() as number[];
+    this.fft = plan.fft;
+    this.z = plan.a;
+    this.zOut = plan.b;
   }
 
   /** Half-complex forward of rows at offsets a and b (b = −1 for one row); src may equal dst. */
