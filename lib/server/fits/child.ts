@@ -4,7 +4,7 @@
  * object, `{ kinetics, ...result }` like `cli fit --json`; errors go to stderr with exit code 2.
  */
 import { readFileSync } from "node:fs";
-import { prefixField } from "../web/field-message";
+import { prefixField } from "@/lib/errors/field-message";
 import { fitStoredModel } from "./model-run";
 import type { StoredFitModel, StoredFitSpec } from "./spec-types";
 

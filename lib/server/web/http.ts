@@ -2,7 +2,7 @@
 import { z, ZodError, type ZodType } from "zod";
 import { readConfig } from "../config";
 import { AppError } from "../errors";
-import { prefixField, startsWithField } from "./field-message";
+import { prefixField, startsWithField } from "@/lib/errors/field-message";
 import { crossSiteRefusal } from "./same-origin";
 
 export function errorResponse(err: unknown): Response {
