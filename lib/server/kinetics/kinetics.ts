@@ -12,7 +12,8 @@ import { AppError, notFound } from "../errors";
 import { containsText, type ListQuery, type ListResult } from "../web/list";
 import { database, services } from "../services";
 import { recordAudit } from "../audit";
-import { compileDefinition, toAppError } from "./engine";
+import { toAppError } from "../core-errors";
+import { compileDefinition } from "./engine";
 
 export interface KineticsParameterDto {
   name: string;
@@ -233,7 +234,7 @@ export function checkDefinition(definition: KineticsDefinition): void {
   try {
     findSteadyStates(compiled, resolveParameters(compiled, {}, "definition.parameters"));
   } catch (err) {
-    const e = toAppError(err);
+    const e = toAppError(err) ?? err;
     if (e instanceof AppError && e.code === "unprocessable") {
       throw new AppError(
         "unprocessable",

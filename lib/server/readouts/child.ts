@@ -10,7 +10,7 @@
  */
 import { readFileSync, writeFileSync } from "node:fs";
 import path from "node:path";
-import { toReadoutAppError } from "./errors";
+import { toAppError } from "../core-errors";
 import { runImageReadout } from "./image";
 import type { StoredImageSettings, StoredReadoutSettings, StoredTableSettings } from "./settings";
 import { runTableReadout } from "./table";
@@ -38,7 +38,7 @@ async function main() {
 }
 
 main().catch((err: unknown) => {
-  const app = toReadoutAppError(err);
+  const app = toAppError(err);
   if (app) {
     process.stderr.write(
       `error ${JSON.stringify({ code: app.code, message: app.message, details: app.details ?? null })}\n`,

@@ -15,13 +15,13 @@ import {
   readKineticsDiffusion,
   resolveParameterProfile,
   SIMULATION_LIMITS,
-  SimulationOptionError,
   type Grid,
   type ParameterProfile,
 } from "@/lib/simulation";
 import { computeDispersion, computeGradientDispersion, type DomainSpec } from "@/lib/stability";
 import { DEFAULT_RUN_SNAPSHOTS, type SimulationRunRequest } from "@/lib/contracts/simulation-run";
 import type { LabContext } from "../access";
+import { withAppErrors } from "../core-errors";
 import { AppError } from "../errors";
 import { services } from "../services";
 import { resolveAnalysisKinetics } from "../kinetics/analyses";
@@ -56,14 +56,7 @@ export const LINEAR_THEORY_TOLERANCE = 0.2;
 
 const unprocessable = (field: string, message: string) => new AppError("unprocessable", message, { field });
 
-function solverError<T>(fn: () => T): T {
-  try {
-    return fn();
-  } catch (err) {
-    if (err instanceof SimulationOptionError) throw unprocessable(err.field, err.message);
-    throw err;
-  }
-}
+const solverError = withAppErrors;
 
 function toSolverProfile(
   req: NonNullable<SimulationRunRequest["gradient"]>,
