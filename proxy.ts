@@ -41,7 +41,7 @@ export function proxy(request: NextRequest) {
   if (request.nextUrl.pathname.startsWith("/api/")) return checkAuthRequest(request) ?? NextResponse.next();
   const nonce = newNonce();
   const csp = pageCsp(nonce, {
-    development: process.env.NODE_ENV === "development",
+    development: readConfig().developmentBuild,
     https: readConfig().appUrl.startsWith("https:"),
   });
   const headers = new Headers(request.headers);
