@@ -4,6 +4,7 @@
  * was given ("JOB_CONCURRENCY must be a whole number ≥ 1, got \"x\""), so a typo in a
  * deployment fails loudly instead of quietly running with a default.
  */
+import "server-only";
 import { z } from "zod";
 
 /** Unset and empty both mean "use the default" (an empty line in an env file). */

@@ -6,6 +6,7 @@
  * The one reader of `process.env` for the app: the variables are parsed and checked once
  * (`./config-env.ts`, zod), and a bad value stops start-up with a message naming the variable.
  */
+import "server-only";
 import path from "node:path";
 import { parseEnv, type Env } from "./config-env";
 

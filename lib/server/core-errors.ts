@@ -7,6 +7,7 @@
  * The table is typed over every code each family exports, so a new code without an HTTP meaning
  * fails the type check (and `tests/lib/errors/core-error-http.test.ts`).
  */
+import "server-only";
 import type { CoreError, CoreErrorFamily } from "@/lib/errors";
 import { isCoreError } from "@/lib/errors";
 import type { FitErrorCode } from "@/lib/fitting/errors";

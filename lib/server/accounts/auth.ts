@@ -5,6 +5,7 @@
  * unknown address), and the link request always ends on the "check your e-mail" page while the
  * mail, if any, is sent off the request path.
  */
+import "server-only";
 import { createHash, randomBytes } from "node:crypto";
 import SequelizeAdapter from "@next-auth/sequelize-adapter";
 import type { NextAuthOptions } from "next-auth";

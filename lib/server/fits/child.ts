@@ -3,6 +3,7 @@
  * catalogue): `node --import tsx lib/server/fits/child.ts --spec FILE` prints exactly one JSON
  * object, `{ kinetics, ...result }` like `cli fit --json`; errors go to stderr with exit code 2.
  */
+import "server-only";
 import { readFileSync } from "node:fs";
 import { prefixField } from "@/lib/errors/field-message";
 import { fitStoredModel } from "./model-run";

@@ -6,6 +6,7 @@
  *
  * FIT_IN_PROCESS=1 runs the same function in this process instead (measurements, debugging).
  */
+import "server-only";
 import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";

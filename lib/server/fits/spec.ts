@@ -5,6 +5,7 @@
  * refuses (no data, mixed kinds in a condition, a start outside its bounds, all parameters fixed,
  * no Turing region in the box) answer 400/422 with the field named.
  */
+import "server-only";
 import { createHash } from "node:crypto";
 import { addReplicateSpread, FitError, type ParameterSetting } from "@/lib/fitting";
 import { checkWavelengthSpec } from "@/lib/fitting/check-wavelength-spec";

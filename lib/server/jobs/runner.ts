@@ -3,6 +3,7 @@
  * time by default (JOB_CONCURRENCY). The same interface could sit on a queue engine with workers
  * on many machines; callers only enqueue and read job rows.
  */
+import "server-only";
 import { Op, type Transaction } from "sequelize";
 import type { JobStatus } from "@/models/job";
 import { AppError, notFound } from "../errors";

@@ -3,6 +3,7 @@
  * (versions never change, and compiling — parsing plus symbolic Jacobians — costs more than most
  * analyses); core errors become AppErrors through the one mapper (`../core-errors`).
  */
+import "server-only";
 import { compileKinetics, KineticsInputError, type CompiledKinetics, type KineticsDefinition } from "@/lib/kinetics";
 import { toAppError, withAppErrors } from "../core-errors";
 

@@ -2,6 +2,7 @@
  * Kinetics: the published catalogue (same for everyone) and a lab's own kinetics, whose
  * definitions are immutable versions — every save adds one, so a fit can name exactly what it used.
  */
+import "server-only";
 import { Op } from "sequelize";
 import { can } from "@/lib/access/permissions";
 import { CATALOGUE, resolveParameters, type CatalogueKinetics, type KineticsDefinition } from "@/lib/kinetics";

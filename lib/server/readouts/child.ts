@@ -8,6 +8,7 @@
  * `progress {"fraction", "note"}`. A readout error is printed as `error {"code", "message", "details"}`
  * (exit code 2) so the parent can rebuild the same AppError; anything else exits 1 with its stack.
  */
+import "server-only";
 import { readFileSync, writeFileSync } from "node:fs";
 import path from "node:path";
 import { toAppError } from "../core-errors";

@@ -9,6 +9,7 @@
  * meanwhile) or fails, the objects are removed again. A failure leaves the row "failed" with the
  * reason and no result, and never touches the upload.
  */
+import "server-only";
 import { createHash } from "node:crypto";
 import { readoutDerivedKey } from "@/storage/keys";
 import { StorageUnavailableError } from "@/storage/object-store";

@@ -7,6 +7,7 @@
  *
  * READOUT_IN_PROCESS=1 runs the same functions in this process instead (measurements, debugging).
  */
+import "server-only";
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";

@@ -5,6 +5,7 @@
  * decays and there is no pattern to read), the grid limits of the solver, the step rule and the
  * CPU budget of one run. The result is the CLI's RUN.json plus the plan shown on the run page.
  */
+import "server-only";
 import { randomInt } from "node:crypto";
 import { resolveParameters, type KineticsDefinition } from "@/lib/kinetics";
 import {

@@ -1,4 +1,5 @@
 /** Route-handler glue: JSON bodies validated by a schema, errors mapped to status codes. */
+import "server-only";
 import { z, ZodError, type ZodType } from "zod";
 import { readConfig } from "../config";
 import { toAppError } from "../core-errors";
