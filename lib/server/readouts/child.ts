@@ -1,6 +1,6 @@
 /**
  * Child-process entry of a readout, so decoding and FFTs of a large image, or parsing and
- * statistics of a large table, never hold the server's event loop: `node --import tsx
+ * statistics of a large table, never hold the server's event loop: `node --conditions=react-server --import tsx
  * lib/server/readouts/child.ts --input FILE --settings FILE --out DIR` runs
  * {@link runImageReadout} (settings of kind "image"; writes the derived products into DIR) or
  * {@link runTableReadout} (kind "table"; no derived products),
