@@ -15,6 +15,7 @@ const SCIENCE = [
   "lib/simulation",
   "lib/stats",
   "lib/access",
+  "lib/errors",
 ];
 /** Node-only helpers of the core (worker threads): may use node:*, still no framework. */
 const NODE_ONLY_CORE = ["lib/parallel"];

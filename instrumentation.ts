@@ -4,6 +4,8 @@
  * The start-up tasks use node:fs, sqlite3 and child processes, so only the Node.js runtime runs them.
  */
 export async function register() {
+  // Next's per-runtime switch, inlined at build time (not configuration): the edge bundle must not
+  // import the Node-only configuration and start-up modules below, so it is read here directly.
   if (process.env.NEXT_RUNTIME !== "nodejs") return;
   const { readConfig } = await import("@/lib/server/config");
   if (readConfig().trustProxyHops === 0) {

@@ -1,5 +1,5 @@
 import type { NextConfig } from "next";
-import { API_CSP, FIXED_SECURITY_HEADERS } from "./lib/server/web/security-headers";
+import { API_CSP, FIXED_SECURITY_HEADERS } from "./lib/web/security-headers";
 
 const nextConfig: NextConfig = {
   // sqlite3, sharp and @aws-sdk/client-s3 are on Next's built-in external list; sequelize is not.

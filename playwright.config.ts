@@ -42,7 +42,7 @@ export default defineConfig({
     },
   ],
   webServer: {
-    command: "npx tsx tests/e2e/serve.ts",
+    command: "npx tsx --conditions=react-server tests/e2e/serve.ts",
     url: `${E2E_BASE_URL}/api/health`,
     reuseExistingServer: false,
     // Seeding the demo (readouts, a fit and a verification run) takes ~30 s on a quiet 2-core machine, far more under load.

@@ -4,12 +4,12 @@
  * - pages get a Content-Security-Policy with a fresh nonce (Next puts it on its scripts);
  * - /api/auth/** state-changing requests must come from this app's pages (CSRF) and carry a
  *   small body with a Content-Length, refused before next-auth reads anything.
- * The fixed security headers come from next.config.ts (lib/server/web/security-headers.ts).
+ * The fixed security headers come from next.config.ts (lib/web/security-headers.ts).
  */
 import { NextResponse, type NextRequest } from "next/server";
 import { readConfig } from "@/lib/server/config";
 import { crossSiteRefusal } from "@/lib/server/web/same-origin";
-import { newNonce, pageCsp } from "@/lib/server/web/security-headers";
+import { newNonce, pageCsp } from "@/lib/web/security-headers";
 
 /** Largest body of a next-auth request (a sign-in form: e-mail, password, CSRF token), bytes. */
 export const AUTH_BODY_LIMIT_BYTES = 16 * 1024;
@@ -41,7 +41,7 @@ export function proxy(request: NextRequest) {
   if (request.nextUrl.pathname.startsWith("/api/")) return checkAuthRequest(request) ?? NextResponse.next();
   const nonce = newNonce();
   const csp = pageCsp(nonce, {
-    development: process.env.NODE_ENV === "development",
+    development: readConfig().developmentBuild,
     https: readConfig().appUrl.startsWith("https:"),
   });
   const headers = new Headers(request.headers);

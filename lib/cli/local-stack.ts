@@ -7,7 +7,7 @@ import { randomBytes } from "node:crypto";
 import { existsSync, mkdirSync, readFileSync, statSync, writeFileSync, readdirSync } from "node:fs";
 import net from "node:net";
 import path from "node:path";
-import { readConfig } from "@/lib/server/config";
+import { parseConfig, readConfig } from "@/lib/server/config";
 
 export const ROOT = path.resolve(import.meta.dirname, "../..");
 
@@ -114,7 +114,8 @@ export function nextBin(): string {
 }
 
 export function appEnv(): NodeJS.ProcessEnv {
-  const config = readConfig();
+  // Parsed, not read once: dev.ts and start.ts change process.env after this for the seed.
+  const config = parseConfig(process.env);
   const port = process.env.PORT ?? "3000";
   return {
     ...process.env,

@@ -8,6 +8,7 @@
 import { readdirSync } from "node:fs";
 import path from "node:path";
 import { CliError, type CliCommand } from "./command";
+import { toCliError } from "./core-errors";
 
 async function loadCommands(): Promise<Map<string, CliCommand>> {
   const dir = path.join(import.meta.dirname, "commands");
@@ -61,7 +62,9 @@ async function main(argv: string[]) {
     if (json) process.stdout.write(JSON.stringify(result.json) + "\n");
     else process.stdout.write((result.text ?? JSON.stringify(result.json, null, 2)).trimEnd() + "\n");
     return 0;
-  } catch (err) {
+  } catch (thrown) {
+    // A core error a command did not catch still gets its code and exit code, never "failed".
+    const err = toCliError(thrown);
     const message = err instanceof Error ? err.message : String(err);
     if (json)
       process.stderr.write(

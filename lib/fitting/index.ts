@@ -1,4 +1,4 @@
-export { FitError, type FitErrorCode } from "./errors";
+export { FitError, FIT_ERROR_CODES, type FitErrorCode } from "./errors";
 export type { LeastSquaresProblem, LocalSolution, SolverStopReason } from "./types";
 export { CONVERGED_REASONS } from "./types";
 export type { LeastSquaresOptions } from "./resolve-solver-options";

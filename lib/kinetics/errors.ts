@@ -3,19 +3,18 @@
  * and a `code` the API maps to an HTTP status (bad_input → 400, too_large → 413,
  * cannot_analyse → 422).
  */
-export type KineticsErrorCode = "bad_input" | "too_large" | "cannot_analyse";
+import { CoreError } from "../errors/core-error";
+
+export const KINETICS_ERROR_CODES = ["bad_input", "too_large", "cannot_analyse"] as const;
+export type KineticsErrorCode = (typeof KINETICS_ERROR_CODES)[number];
 
 /** Bad input: a parameter out of range, NaN/∞, an expression that does not parse, … */
-export class KineticsInputError extends RangeError {
-  readonly code: KineticsErrorCode;
-  constructor(
-    public readonly field: string,
-    message: string,
-    code: KineticsErrorCode = "bad_input",
-  ) {
-    super(message);
+export class KineticsInputError extends CoreError<KineticsErrorCode> {
+  readonly family = "kinetics";
+  declare readonly field: string;
+  constructor(field: string, message: string, code: KineticsErrorCode = "bad_input") {
+    super(code, message, field);
     this.name = "KineticsInputError";
-    this.code = code;
   }
 }
 
@@ -28,13 +27,11 @@ export class KineticsLimitError extends KineticsInputError {
 }
 
 /** Valid input the model cannot answer: no steady state, a singular matrix, a time limit hit. */
-export class KineticsAnalysisError extends Error {
-  readonly code: KineticsErrorCode = "cannot_analyse";
-  constructor(
-    public readonly field: string,
-    message: string,
-  ) {
-    super(message);
+export class KineticsAnalysisError extends CoreError<KineticsErrorCode> {
+  readonly family = "kinetics";
+  declare readonly field: string;
+  constructor(field: string, message: string) {
+    super("cannot_analyse", message, field);
     this.name = "KineticsAnalysisError";
   }
 }

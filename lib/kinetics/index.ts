@@ -10,7 +10,13 @@ export {
   type KineticsDefinition,
   type ParameterDefinition,
 } from "./definition-schema";
-export { KineticsAnalysisError, KineticsInputError, KineticsLimitError, type KineticsErrorCode } from "./errors";
+export {
+  KineticsAnalysisError,
+  KineticsInputError,
+  KineticsLimitError,
+  KINETICS_ERROR_CODES,
+  type KineticsErrorCode,
+} from "./errors";
 export { ALLOWED_FUNCTIONS, MAX_EXPRESSION_LENGTH, MAX_EXPRESSION_NODES, RESERVED_NAMES } from "./expression-compiler";
 export { parameterIndex, parametersToRecord, resolveParameters } from "./parameters";
 export { resolveKinetics, type KineticsSource } from "./resolve-kinetics";

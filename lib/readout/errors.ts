@@ -1,15 +1,21 @@
-/** Why a readout could not be made; the app maps `too_large` to 413 and the rest to 422 (or 400 for `bad_option`). */
-export type ReadoutErrorCode =
-  "zero_area_roi" | "missing_pixel_size" | "no_variation" | "too_large" | "bad_option" | "too_small";
+import { CoreError } from "../errors/core-error";
+
+/** Every reason a readout could not be made; the app maps `too_large` to 413 and the rest to 422 (or 400 for `bad_option`). */
+export const READOUT_ERROR_CODES = [
+  "zero_area_roi",
+  "missing_pixel_size",
+  "no_variation",
+  "too_large",
+  "bad_option",
+  "too_small",
+] as const;
+export type ReadoutErrorCode = (typeof READOUT_ERROR_CODES)[number];
 
 /** A typed readout error; `field` names the option or input at fault. */
-export class ReadoutError extends Error {
-  constructor(
-    public code: ReadoutErrorCode,
-    message: string,
-    public field?: string,
-  ) {
-    super(message);
+export class ReadoutError extends CoreError<ReadoutErrorCode> {
+  readonly family = "readout";
+  constructor(code: ReadoutErrorCode, message: string, field?: string) {
+    super(code, message, field);
     this.name = "ReadoutError";
   }
 }

@@ -7,7 +7,7 @@ export {
   type ReadoutOptions,
   type ResolvedReadoutOptions,
 } from "./options";
-export { ReadoutError, MESSAGES as READOUT_MESSAGES, type ReadoutErrorCode } from "./errors";
+export { ReadoutError, READOUT_ERROR_CODES, MESSAGES as READOUT_MESSAGES, type ReadoutErrorCode } from "./errors";
 export type { Roi, RectRoi, PolygonRoi } from "./roi";
 export type { PatternSymmetry } from "./angular";
 export { SYMMETRY_THRESHOLDS } from "./angular";

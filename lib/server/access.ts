@@ -2,6 +2,7 @@
  * Lab access: membership decides what exists for you. A lab you are not a member of, and every
  * object in it, answers 404 (not 403), so ids cannot be probed.
  */
+import "server-only";
 import { can, type Action } from "@/lib/access/permissions";
 import type { Role } from "@/lib/access/roles";
 import type { Actor } from "./accounts/actor-type";

@@ -1,3 +1,4 @@
+import "server-only";
 import { Op, type Transaction } from "sequelize";
 import type { Models } from "@/models";
 import type { Actor } from "./accounts/actor-type";

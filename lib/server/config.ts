@@ -2,93 +2,106 @@
  * Configuration from environment variables, with embedded defaults that run everything on one
  * laptop (SQLite file under storage/data, the fakes from fake-services/ on 127.0.0.1).
  * Pointing at real services is configuration only: see README "Configuration".
+ *
+ * The one reader of `process.env` for the app: the variables are parsed and checked once
+ * (`./config-env.ts`, zod), and a bad value stops start-up with a message naming the variable.
  */
+import "server-only";
 import path from "node:path";
+import { parseEnv, type Env } from "./config-env";
 
-function num(name: string, fallback: number): number {
-  const raw = process.env[name];
-  if (raw === undefined || raw === "") return fallback;
-  const n = Number(raw);
-  if (!Number.isFinite(n)) throw new Error(`${name} must be a number, got "${raw}"`);
-  return n;
-}
+export { ConfigError } from "./config-env";
 
-export function readConfig() {
-  const dataDir = path.resolve(process.env.MORPHOKIN_DATA_DIR ?? "storage/data");
+/** The configuration from `env`, checked; pure (tests and start scripts pass their own env). */
+export function parseConfig(env: Record<string, string | undefined>) {
+  const e: Env = parseEnv(env);
+  const dataDir = path.resolve(e.MORPHOKIN_DATA_DIR);
   return {
     dataDir,
-    databasePath: process.env.DATABASE_PATH ?? path.join(dataDir, "morphokin.sqlite"),
-    appUrl: process.env.NEXTAUTH_URL ?? "http://127.0.0.1:3000",
+    databasePath: e.DATABASE_PATH ?? path.join(dataDir, "morphokin.sqlite"),
+    appUrl: e.NEXTAUTH_URL,
+    /** Signs sessions and sign-in links; next-auth reads the same variable. */
+    nextAuthSecret: e.NEXTAUTH_SECRET,
     s3: {
-      endpoint: process.env.S3_ENDPOINT ?? "http://127.0.0.1:4569",
-      region: process.env.S3_REGION ?? "us-east-1",
-      bucket: process.env.S3_BUCKET ?? "morphokin-dev",
-      accessKeyId: process.env.S3_ACCESS_KEY_ID ?? "S3RVER",
-      secretAccessKey: process.env.S3_SECRET_ACCESS_KEY ?? "S3RVER",
-      forcePathStyle: (process.env.S3_FORCE_PATH_STYLE ?? "true") === "true",
+      endpoint: e.S3_ENDPOINT,
+      region: e.S3_REGION,
+      bucket: e.S3_BUCKET,
+      accessKeyId: e.S3_ACCESS_KEY_ID,
+      secretAccessKey: e.S3_SECRET_ACCESS_KEY,
+      forcePathStyle: e.S3_FORCE_PATH_STYLE === "true",
     },
     smtp: {
-      url: process.env.SMTP_URL ?? "smtp://127.0.0.1:2525",
-      from: process.env.MAIL_FROM ?? "Morphokin <noreply@morphokin.test>",
+      url: e.SMTP_URL,
+      from: e.MAIL_FROM,
     },
     /** HTTP listing of the fake SMTP server's mailbox; unset in production (no mailbox page). */
     devMailboxUrl:
-      process.env.DEV_MAILBOX_URL ??
-      (process.env.NODE_ENV === "production" && !process.env.MORPHOKIN_DEMO ? "" : "http://127.0.0.1:2526"),
+      e.DEV_MAILBOX_URL ?? (e.NODE_ENV === "production" && !e.MORPHOKIN_DEMO ? "" : "http://127.0.0.1:2526"),
     /**
      * A production build serves the development mailbox only with this explicit opt-in
      * (`npm start`, the local demo, sets it); see lib/server/labs/mailbox.ts for the other conditions.
      */
-    devMailboxOptIn: process.env.MORPHOKIN_DEV_MAILBOX === "1",
-    productionBuild: process.env.NODE_ENV === "production",
+    devMailboxOptIn: e.MORPHOKIN_DEV_MAILBOX,
+    productionBuild: e.NODE_ENV === "production",
+    /** `next dev`: pages may use the looser development Content-Security-Policy. */
+    developmentBuild: e.NODE_ENV === "development",
     /**
      * Reverse proxies in front of the app whose X-Forwarded-For entries are trusted (0: none, the
      * app is reached directly; see lib/server/web/client-address.ts).
      */
-    trustProxyHops: num("TRUST_PROXY", 0),
+    trustProxyHops: e.TRUST_PROXY,
     /** Per-window limits (lib/server/web/rate-limit.ts): attempts per account (e-mail) and per client address. */
     rateLimits: {
-      windowMinutes: num("RATE_LIMIT_WINDOW_MINUTES", 15),
-      signIn: {
-        perAccount: num("RATE_LIMIT_SIGNIN_PER_ACCOUNT", 30),
-        perAddress: num("RATE_LIMIT_SIGNIN_PER_ADDRESS", 100),
-      },
+      windowMinutes: e.RATE_LIMIT_WINDOW_MINUTES,
+      signIn: { perAccount: e.RATE_LIMIT_SIGNIN_PER_ACCOUNT, perAddress: e.RATE_LIMIT_SIGNIN_PER_ADDRESS },
       signInLink: {
-        perAccount: num("RATE_LIMIT_SIGNIN_LINK_PER_ACCOUNT", 5),
-        perAddress: num("RATE_LIMIT_SIGNIN_LINK_PER_ADDRESS", 30),
+        perAccount: e.RATE_LIMIT_SIGNIN_LINK_PER_ACCOUNT,
+        perAddress: e.RATE_LIMIT_SIGNIN_LINK_PER_ADDRESS,
       },
-      signUp: {
-        perAccount: num("RATE_LIMIT_SIGNUP_PER_ACCOUNT", 5),
-        perAddress: num("RATE_LIMIT_SIGNUP_PER_ADDRESS", 20),
-      },
-      invitation: {
-        perAccount: num("RATE_LIMIT_INVITATION_PER_ACCOUNT", 5),
-        perAddress: num("RATE_LIMIT_INVITATION_PER_ADDRESS", 100),
-      },
+      signUp: { perAccount: e.RATE_LIMIT_SIGNUP_PER_ACCOUNT, perAddress: e.RATE_LIMIT_SIGNUP_PER_ADDRESS },
+      invitation: { perAccount: e.RATE_LIMIT_INVITATION_PER_ACCOUNT, perAddress: e.RATE_LIMIT_INVITATION_PER_ADDRESS },
       passwordReset: {
-        perAccount: num("RATE_LIMIT_PASSWORD_RESET_PER_ACCOUNT", 5),
-        perAddress: num("RATE_LIMIT_PASSWORD_RESET_PER_ADDRESS", 30),
+        perAccount: e.RATE_LIMIT_PASSWORD_RESET_PER_ACCOUNT,
+        perAddress: e.RATE_LIMIT_PASSWORD_RESET_PER_ADDRESS,
       },
     },
     /** Failed passwords for one account before it is locked, and for how long. */
-    lockoutFailures: num("LOCKOUT_FAILURES", 10),
-    lockoutMinutes: num("LOCKOUT_MINUTES", 15),
+    lockoutFailures: e.LOCKOUT_FAILURES,
+    lockoutMinutes: e.LOCKOUT_MINUTES,
     /** How long a sign-up confirmation link works. */
-    signupLinkHours: num("SIGNUP_LINK_HOURS", 24),
+    signupLinkHours: e.SIGNUP_LINK_HOURS,
     /** Largest upload accepted, bytes. */
-    maxUploadBytes: num("MAX_UPLOAD_BYTES", 200 * 1024 * 1024),
+    maxUploadBytes: e.MAX_UPLOAD_BYTES,
     /** Uploads received at once per process; the next UPLOADS_WAITING wait up to UPLOAD_WAIT_MS, the rest get a 503. */
-    uploadsInFlight: Math.max(1, num("UPLOADS_IN_FLIGHT", 8)),
-    uploadsWaiting: Math.max(0, num("UPLOADS_WAITING", 16)),
-    uploadWaitMs: num("UPLOAD_WAIT_MS", 10_000),
+    uploadsInFlight: e.UPLOADS_IN_FLIGHT,
+    uploadsWaiting: e.UPLOADS_WAITING,
+    uploadWaitMs: e.UPLOAD_WAIT_MS,
     /** How long a database write waits for its turn before a 503 (ms). */
-    dbWriteWaitMs: num("DB_WRITE_WAIT_MS", 10_000),
+    dbWriteWaitMs: e.DB_WRITE_WAIT_MS,
     /** An upload still "receiving" after this long (s) was abandoned by a stopped server; the sweep removes it and its object. */
-    uploadGraceS: num("UPLOAD_GRACE_S", 900),
-    invitationDays: num("INVITATION_DAYS", 7),
+    uploadGraceS: e.UPLOAD_GRACE_S,
+    invitationDays: e.INVITATION_DAYS,
     /** Threads of one verification run: 2 = the main thread and a worker (species side by side), 1 = serial. */
-    simulationThreads: (num("SIMULATION_THREADS", 2) === 1 ? 1 : 2) as 1 | 2,
+    simulationThreads: Number(e.SIMULATION_THREADS) as 1 | 2,
+    /** Jobs one server process runs at once. */
+    jobConcurrency: e.JOB_CONCURRENCY,
+    /** A job that ran longer than this (s) e-mails its requester when it ends. */
+    jobMailAfterS: e.JOB_MAIL_AFTER_S,
+    /** Run readouts / fits in the server process instead of a child process (for measurements). */
+    readoutInProcess: e.READOUT_IN_PROCESS,
+    fitInProcess: e.FIT_IN_PROCESS,
   };
 }
 
-export type Config = ReturnType<typeof readConfig>;
+export type Config = ReturnType<typeof parseConfig>;
+
+let current: Config | undefined;
+
+/**
+ * The configuration of this process, read from the environment on first use and kept: every
+ * caller sees the same values. Start scripts that change `process.env` for themselves call
+ * {@link parseConfig} instead.
+ */
+export function readConfig(): Config {
+  return (current ??= parseConfig(process.env));
+}

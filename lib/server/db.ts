@@ -10,6 +10,7 @@
  * beside the one writer). The busy timeout stays for other processes (CLI, migrations).
  * The queue sits behind this module only: a PostgreSQL back end would install none.
  */
+import "server-only";
 import { mkdirSync } from "node:fs";
 import path from "node:path";
 import { QueryTypes, Sequelize, Transaction } from "sequelize";

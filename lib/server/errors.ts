@@ -2,6 +2,8 @@
  * The one error type route handlers turn into `{ error: { code, message, details? } }`.
  * `message` is what the user sees; internals are logged, never shown.
  */
+import "server-only";
+
 export const ERROR_STATUS = {
   bad_input: 400,
   unauthenticated: 401,

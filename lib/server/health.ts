@@ -1,4 +1,5 @@
 /** Health of each part: database, object storage, mail. */
+import "server-only";
 import { services } from "./services";
 
 export type PartStatus = { ok: true } | { ok: false; error: string };

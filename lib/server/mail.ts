@@ -1,4 +1,5 @@
 /** Outgoing e-mail through nodemailer to any SMTP relay (the fake one on a laptop). */
+import "server-only";
 import nodemailer from "nodemailer";
 
 export interface OutgoingMail {

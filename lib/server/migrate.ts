@@ -1,3 +1,4 @@
+import "server-only";
 import type { QueryInterface, Sequelize } from "sequelize";
 import { SequelizeStorage, Umzug } from "umzug";
 import { migrationModules } from "@/migrations";

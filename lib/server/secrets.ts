@@ -1,4 +1,5 @@
 /** Random secrets and their hashes (API tokens, invitation links). Only hashes are stored. */
+import "server-only";
 import { createHash, randomBytes } from "node:crypto";
 
 export function newSecret(prefix: string, bytes = 24): string {

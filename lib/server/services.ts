@@ -2,6 +2,7 @@
  * The one composition root: database, object storage and mail are chosen here, once, from
  * configuration. Nothing else constructs a client. Tests call `setServicesForTest` with their own.
  */
+import "server-only";
 import { createS3ObjectStore } from "@/storage/s3-object-store";
 import type { ObjectStore } from "@/storage/object-store";
 import { readConfig, type Config } from "./config";

@@ -3,6 +3,7 @@
  * instrumentation.ts, Next's start-up hook, in the Node.js runtime only). Each task logs its own
  * failure and never stops the others or the server from starting.
  */
+import "server-only";
 import { startTokenExpirySweep } from "./accounts/tokens";
 import { recoverJobs } from "./jobs/runner";
 import { removeStaleJobFolders } from "./jobs/temp-folders";

@@ -6,6 +6,7 @@
  * holder cannot finish and every waiter times out with SQLITE_BUSY. The wait is bounded: a
  * caller that would wait longer gets a 503 "busy, try again in N s" instead of a hang.
  */
+import "server-only";
 import { createGate } from "./uploads/back-pressure";
 
 export interface WriteQueue {

@@ -5,7 +5,7 @@ export type { ReactionSystem, ReactionParams, FieldArray, CellRange } from "./re
 export { paramAt } from "./reaction-system";
 export { createGrid, cellCentreXUm, cellCentreYUm, type Grid, type GridOptions, type Boundary } from "./grid";
 export { SIMULATION_LIMITS } from "./limits";
-export { SimulationOptionError } from "./errors";
+export { SimulationOptionError, SIMULATION_ERROR_CODES } from "./errors";
 export { createCosineBasis, type SpectralBasis } from "./cosine-basis";
 export { createPeriodicBasis } from "./periodic-basis";
 export { createSpectralBasis } from "./spectral-basis";

@@ -4,5 +4,5 @@ export { summarize, type Summary } from "./summarize";
 export { spacingsFromPositions, type PositionSpacings } from "./positions-1d";
 export { computeNearestNeighbours, type NearestNeighbourResult, type Field } from "./nearest-neighbours";
 export { welchTTest, type WelchResult } from "./welch-test";
-export { SpacingError } from "./errors";
+export { SpacingError, SPACING_ERROR_CODES } from "./errors";
 export { collectConditionSpellings, conditionKey, type ConditionSpellings } from "./condition-key";

@@ -1,10 +1,15 @@
+import { CoreError } from "../errors/core-error";
+
+/** The one reason a synthetic generator refuses: an option out of range (the app answers 400). */
+export const SYNTHETIC_ERROR_CODES = ["bad_option"] as const;
+export type SyntheticErrorCode = (typeof SYNTHETIC_ERROR_CODES)[number];
+
 /** An invalid option of a synthetic generator; `field` names the option. */
-export class SyntheticOptionError extends RangeError {
-  constructor(
-    public field: string,
-    message: string,
-  ) {
-    super(message);
+export class SyntheticOptionError extends CoreError<SyntheticErrorCode> {
+  readonly family = "synthetic";
+  declare readonly field: string;
+  constructor(field: string, message: string) {
+    super("bad_option", message, field);
     this.name = "SyntheticOptionError";
   }
 }

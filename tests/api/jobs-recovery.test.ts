@@ -204,6 +204,7 @@ describe("jobs after a server stop", () => {
         child = spawn(
           process.execPath,
           [
+            "--conditions=react-server", // lib/server imports server-only (see SERVER_NODE_FLAGS)
             "--import",
             "tsx",
             "tests/support/job-child.ts",

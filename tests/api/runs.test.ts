@@ -80,7 +80,9 @@ describe("a verification run", () => {
   }, 120_000);
 
   it("e-mails the requester when the run ends, through the runner's mail hook", async () => {
-    process.env.JOB_MAIL_AFTER_S = "0";
+    // The runner reads the limit from the stack's configuration (read once, like the server's).
+    const limitS = lab.stack.services.config.jobMailAfterS;
+    lab.stack.services.config.jobMailAfterS = 0;
     try {
       const started = await api("POST", RUNS, { json: { ...TINY_RUN, name: "Mailed run" } });
       await finished(started.body.id);
@@ -92,7 +94,7 @@ describe("a verification run", () => {
       );
       expect(mail.text).toContain(`/labs/${lab.w.labId}/runs/${started.body.id}`);
     } finally {
-      delete process.env.JOB_MAIL_AFTER_S;
+      lab.stack.services.config.jobMailAfterS = limitS;
     }
   }, 60_000);
 

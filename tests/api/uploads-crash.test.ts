@@ -43,6 +43,7 @@ function startChild(mode: "slow-body" | "slow-put") {
   const child = spawn(
     process.execPath,
     [
+      "--conditions=react-server", // lib/server imports server-only (see SERVER_NODE_FLAGS)
       "--import",
       "tsx",
       path.join(ROOT, "tests/support/upload-child.ts"),

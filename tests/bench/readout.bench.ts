@@ -5,6 +5,7 @@
 import { monitorEventLoopDelay } from "node:perf_hooks";
 import type { BenchRow } from "./run";
 import { imageReadoutSettingsSchema } from "../../lib/contracts/readout";
+import { readConfig } from "../../lib/server/config";
 import { readImage, readTable } from "../../lib/server/readouts/process";
 import { decodeImage, encodeTiff16 } from "../../lib/imaging";
 import { readWavelength } from "../../lib/readout";
@@ -39,7 +40,7 @@ export default async function bench(): Promise<BenchRow[]> {
   };
   const stall: Record<string, { maxMs: number; wallS: number }> = {};
   for (const mode of ["in-process", "child-process"] as const) {
-    process.env.READOUT_IN_PROCESS = mode === "in-process" ? "1" : "0";
+    readConfig().readoutInProcess = mode === "in-process";
     const h = monitorEventLoopDelay({ resolution: 10 });
     h.enable();
     const t0 = performance.now();
@@ -47,7 +48,7 @@ export default async function bench(): Promise<BenchRow[]> {
     h.disable();
     stall[mode] = { maxMs: h.max / 1e6, wallS: (performance.now() - t0) / 1000 };
   }
-  delete process.env.READOUT_IN_PROCESS;
+  readConfig().readoutInProcess = false;
   const table = await tableStall();
   const expectedUm = (Math.sqrt(3) / 2) * 24 * 0.5;
   const note = `λ ${full.wavelengthUm?.toFixed(4)} µm vs ${expectedUm.toFixed(4)} expected, ${full.symmetry}`;
@@ -111,7 +112,7 @@ export async function tableStall() {
   let note = "";
   // Child first: the in-process run leaves a large heap whose collection would be counted against the child.
   for (const mode of ["child-process", "in-process"] as const) {
-    process.env.READOUT_IN_PROCESS = mode === "in-process" ? "1" : "0";
+    readConfig().readoutInProcess = mode === "in-process";
     const h = monitorEventLoopDelay({ resolution: 10 });
     h.enable();
     // The histogram's timer must have ticked once, or a stall right after enable() goes unrecorded.
@@ -126,6 +127,6 @@ export async function tableStall() {
     if (r.table.kind === "centroids-2d")
       note = `${(csv.length / 2 ** 20).toFixed(0)} MiB, NN mean ${r.table.nearestNeighbourUm.mean.toFixed(3)} µm (lattice 10 µm)`;
   }
-  delete process.env.READOUT_IN_PROCESS;
+  readConfig().readoutInProcess = false;
   return { ...out, note };
 }

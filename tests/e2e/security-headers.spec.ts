@@ -1,6 +1,6 @@
 /**
  * Security headers on pages, API answers and downloads, and the main pages load under the CSP with
- * no violation. Header values: the product's policy in lib/server/web/security-headers.ts, written out
+ * no violation. Header values: the product's policy in lib/web/security-headers.ts, written out
  * here on purpose; directive meanings: CSP Level 3 (W3C), OWASP Secure Headers Project.
  */
 import { expect, test, type Page, type Response } from "@playwright/test";

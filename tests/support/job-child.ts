@@ -1,7 +1,7 @@
 /**
  * A second server process for the kill test (tests/api/jobs-recovery.test.ts): opens the same
  * SQLite file, queues a slow echo job, prints its id on stdout and runs it until it is killed.
- * `node --import tsx tests/support/job-child.ts --db FILE --lab LAB_ID --ms MS`
+ * `node --conditions=react-server --import tsx tests/support/job-child.ts --db FILE --lab LAB_ID --ms MS`
  */
 import { readConfig } from "@/lib/server/config";
 import { createServices, setServicesForTest } from "@/lib/server/services";

@@ -1,14 +1,9 @@
 import { readFileSync } from "node:fs";
-import {
-  compileKinetics,
-  getCatalogueKinetics,
-  KineticsAnalysisError,
-  KineticsInputError,
-  type CompiledKinetics,
-} from "../../kinetics";
+import { compileKinetics, getCatalogueKinetics, type CompiledKinetics } from "../../kinetics";
 import { parseAssignments, parseDomain } from "../../kinetics/parse-cli-values";
 import { computeDispersion, type DomainSpec } from "../../stability";
 import { CliError, parseOptions, type CliCommand } from "../command";
+import { toCliError } from "../core-errors";
 
 /** Shared with turing-map: --kinetics <id> or --kinetics-file <definition.json>. */
 export function loadKinetics(options: Record<string, string | true>): CompiledKinetics {
@@ -35,13 +30,6 @@ export function numberOption(options: Record<string, string | true>, name: strin
   const x = Number(v);
   if (v === true || !Number.isFinite(x)) throw new CliError(`--${name} needs a finite number (got ${String(v)}).`);
   return x;
-}
-
-/** Turns core errors into CLI errors naming the field. */
-export function asCliError(err: unknown): unknown {
-  if (err instanceof KineticsInputError) return new CliError(`${err.field}: ${err.message}`, err.code);
-  if (err instanceof KineticsAnalysisError) return new CliError(`${err.field}: ${err.message}`, err.code, 3);
-  return err;
 }
 
 const command: CliCommand = {
@@ -112,7 +100,7 @@ Options:
       void curve;
       return { json, text };
     } catch (err) {
-      throw asCliError(err);
+      throw toCliError(err);
     }
   },
 };

@@ -1,7 +1,6 @@
 import { readFileSync } from "node:fs";
 import {
   compareFits,
-  FitError,
   fitWavelengths,
   type LabelledFit,
   type ParameterSetting,
@@ -9,9 +8,10 @@ import {
   type WavelengthFitOptions,
 } from "../../fitting";
 import { createKineticsPredictor } from "../../fitting/kinetics-predictor";
-import { getCatalogueKinetics, KineticsAnalysisError, KineticsInputError } from "../../kinetics";
+import { getCatalogueKinetics } from "../../kinetics";
 import type { DomainSpec } from "../../stability";
 import { CliError, parseOptions, type CliCommand } from "../command";
+import { toCliError } from "../core-errors";
 
 /** One model of a fit file: a catalogue kinetics, its scales and its parameter settings. */
 interface ModelEntry {
@@ -48,13 +48,6 @@ function fitOne(file: FitFile, m: ModelEntry) {
     gridSize: m.gridSize,
   });
   return fitWavelengths({ data: file.data, parameters: m.parameters, options: file.options }, predictor);
-}
-
-function asCli(err: unknown): unknown {
-  if (err instanceof FitError) return new CliError(err.field ? `${err.field}: ${err.message}` : err.message, err.code);
-  if (err instanceof KineticsInputError) return new CliError(`${err.field}: ${err.message}`, err.code);
-  if (err instanceof KineticsAnalysisError) return new CliError(`${err.field}: ${err.message}`, err.code, 3);
-  return err;
 }
 
 const FILE_HELP = `FIT.json:
@@ -99,7 +92,7 @@ ${FILE_HELP}`,
       ];
       return { json: { kinetics: file.kinetics, ...r }, text: lines.join("\n") };
     } catch (err) {
-      throw asCli(err);
+      throw toCliError(err);
     }
   },
 };
@@ -133,7 +126,7 @@ ${FILE_HELP}`,
         .join("\n");
       return { json: { ...cmp, fits: fits.map((f) => ({ label: f.label, ...f.result })) }, text };
     } catch (err) {
-      throw asCli(err);
+      throw toCliError(err);
     }
   },
 };

@@ -1,8 +1,9 @@
 import { readFileSync } from "node:fs";
 import { CliError, parseOptions, type CliCommand } from "../command";
-import { decodeImage, ImagingError, sniffFileKind } from "../../imaging";
-import { readWavelength, ReadoutError } from "../../readout";
-import { readSpacingTable, SpacingError, type TableUnit } from "../../spacing";
+import { toCliError } from "../core-errors";
+import { decodeImage, sniffFileKind } from "../../imaging";
+import { readWavelength } from "../../readout";
+import { readSpacingTable, type TableUnit } from "../../spacing";
 
 const help = `readout FILE [options] [--json]
 
@@ -108,10 +109,7 @@ const command: CliCommand = {
         : `No significant period (significance ${r.significance.toPrecision(3)} < ${r.significanceThreshold}).`;
       return { json, text: [text, ...json.warnings.map((w) => `warning: ${w}`)].join("\n") };
     } catch (e) {
-      if (e instanceof ReadoutError || e instanceof ImagingError)
-        throw new CliError(e.message, e.code, e.code === "too_large" ? 3 : 2);
-      if (e instanceof SpacingError) throw new CliError(e.message, "bad_table");
-      throw e;
+      throw toCliError(e);
     }
   },
 };

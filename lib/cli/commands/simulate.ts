@@ -1,15 +1,15 @@
 import { mkdirSync, readFileSync, writeFileSync } from "node:fs";
 import path from "node:path";
 import { CliError, parseOptions, type CliCommand } from "../command";
+import { toCliError } from "../core-errors";
 import { encodePng } from "../../imaging";
-import { KineticsInputError, resolveKinetics, resolveParameters, type KineticsSource } from "../../kinetics";
+import { resolveKinetics, resolveParameters, type KineticsSource } from "../../kinetics";
 import { readWavelength, ReadoutError } from "../../readout";
 import {
   createReactionSystemFromKinetics,
   readKineticsDiffusion,
   readKineticsSteadyState,
   simulateReactionDiffusion,
-  SimulationOptionError,
   type SpatialParameterField,
   type SchemeName,
   type SimulationOptions,
@@ -292,8 +292,7 @@ const command: CliCommand = {
       const text = `${result.message}\n${result.speciesNames.map((n, s) => `${n}: min ${result.stats[s].min.toPrecision(4)}, max ${result.stats[s].max.toPrecision(4)}, mean ${result.stats[s].mean.toPrecision(4)}`).join("\n")}`;
       return { json, text };
     } catch (e) {
-      if (e instanceof SimulationOptionError || e instanceof KineticsInputError) throw new CliError(e.message);
-      throw e;
+      throw toCliError(e);
     } finally {
       executor?.dispose();
     }

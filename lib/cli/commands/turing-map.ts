@@ -3,7 +3,8 @@ import { parseAssignments, parseAxis } from "../../kinetics/parse-cli-values";
 import { computeTuringMapParallel } from "../../parallel";
 import { classLabel, MAX_MAP_CELLS, MAX_MAP_WAVENUMBERS } from "../../stability";
 import { CliError, parseOptions, type CliCommand } from "../command";
-import { asCliError, loadKinetics, numberOption } from "./dispersion";
+import { toCliError } from "../core-errors";
+import { loadKinetics, numberOption } from "./dispersion";
 
 const command: CliCommand = {
   name: "turing-map",
@@ -113,7 +114,7 @@ Limit: at most ${MAX_MAP_CELLS} cells.`,
           .join(", ")} (3 = ${classLabel(3)})`;
       return { json, text };
     } catch (err) {
-      throw asCliError(err);
+      throw toCliError(err);
     }
   },
 };

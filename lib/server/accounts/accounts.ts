@@ -1,4 +1,5 @@
 /** Sign-up (a new user and their own lab, with them as lab manager), password change and per-user settings. */
+import "server-only";
 import { Op, UniqueConstraintError } from "sequelize";
 import type { SignupInput } from "@/lib/contracts/account";
 import type { Actor } from "./actor";

@@ -2,6 +2,7 @@
  * Who is asking: a signed-in browser session (next-auth JWT cookie) or a script with
  * `Authorization: Bearer mk_…` (a personal API token). Returns a small DTO, never a user row.
  */
+import "server-only";
 import { getServerSession } from "next-auth";
 import { cache } from "react";
 import { Op } from "sequelize";

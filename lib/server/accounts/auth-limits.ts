@@ -3,6 +3,7 @@
  * link request), answered the way next-auth's client reads its answers: JSON `{ url }` whose
  * `error` parameter the sign-in page turns into a sentence ("Locked:14" = locked for 14 minutes).
  */
+import "server-only";
 import {
   enforceRateLimit,
   addressOf,

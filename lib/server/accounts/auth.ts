@@ -5,6 +5,7 @@
  * unknown address), and the link request always ends on the "check your e-mail" page while the
  * mail, if any, is sent off the request path.
  */
+import "server-only";
 import { createHash, randomBytes } from "node:crypto";
 import SequelizeAdapter from "@next-auth/sequelize-adapter";
 import type { NextAuthOptions } from "next-auth";
@@ -49,7 +50,7 @@ export async function createSignInLink(email: string, callbackPath = "/labs"): P
   const { db, config } = services();
   await db.ready;
   const token = randomBytes(32).toString("hex");
-  const secret = process.env.NEXTAUTH_SECRET ?? "";
+  const secret = config.nextAuthSecret ?? "";
   await db.models.VerificationToken.create({
     identifier: email,
     token: createHash("sha256").update(`${token}${secret}`).digest("hex"),
@@ -94,7 +95,7 @@ function buildAuthOptions(): NextAuthOptions {
       synchronize: false,
     }) as Adapter,
     session: { strategy: "jwt", maxAge: 30 * 24 * 3600 },
-    secret: process.env.NEXTAUTH_SECRET,
+    secret: services().config.nextAuthSecret,
     pages: { signIn: "/login", verifyRequest: "/login/check-email", error: "/login" },
     providers: [
       CredentialsProvider({

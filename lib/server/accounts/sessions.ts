@@ -4,6 +4,7 @@
  * the cookie to work. Signing out deletes the row, a password change deletes the account's rows,
  * so an old cookie stops working at once instead of living out its 30 days.
  */
+import "server-only";
 import { randomBytes } from "node:crypto";
 import { Op } from "sequelize";
 import { database } from "../services";

@@ -5,6 +5,7 @@
  * expiry date is shown in the token list, and an expired token answers 401 saying when it expired.
  * Creation, revocation and expiry are written to the audit trail (account events, see audit.ts).
  */
+import "server-only";
 import { Op } from "sequelize";
 import { DEFAULT_TOKEN_LIFETIME_DAYS } from "@/lib/contracts/account";
 import type { Actor } from "./actor-type";

@@ -3,6 +3,7 @@
  * edit/delete (own; the lab manager any), @mentions and e-mail notifications. Every write is
  * saved first and notified after, so a mail failure never loses a comment.
  */
+import "server-only";
 import { Op, type Transaction, type WhereOptions } from "sequelize";
 import type {
   CommentPosted,

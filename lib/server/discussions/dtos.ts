@@ -1,4 +1,5 @@
 /** Threads and comments as the API shows them: small DTOs with names instead of user rows. */
+import "server-only";
 import { Op } from "sequelize";
 import { can } from "@/lib/access/permissions";
 import type { CommentDto, DiscussionTarget, ThreadDto, ThreadStatus } from "@/lib/contracts/discussion";

@@ -2,6 +2,8 @@
  * @mentions in comment bodies: `@person@lab.org` (an e-mail address) or `@"Full Name"`. Only lab
  * members can be mentioned; anything else is left as plain text.
  */
+import "server-only";
+
 export interface Mentionable {
   userId: string;
   name: string | null;

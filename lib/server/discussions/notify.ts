@@ -4,6 +4,7 @@
  * never the author, never someone who left the lab, never someone who turned e-mail off.
  * Sending never throws: the comment is already saved, so a failure is logged and reported.
  */
+import "server-only";
 import { Op } from "sequelize";
 import type { DiscussionTarget, NotificationOutcome } from "@/lib/contracts/discussion";
 import type { LabContext } from "../access";

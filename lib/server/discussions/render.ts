@@ -3,6 +3,7 @@
  * server, when saved: markdown → HTML with `marked`, then an allow-list pass with `sanitize-html`,
  * so no script, event handler, style or `javascript:` URL reaches a browser, whatever was typed.
  */
+import "server-only";
 import { Marked } from "marked";
 import sanitizeHtml from "sanitize-html";
 

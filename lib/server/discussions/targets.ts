@@ -3,6 +3,7 @@
  * caller's lab does not exist for them (404). Adding a kind: one word in DISCUSSION_TARGET_TYPES
  * (lib/contracts/discussion.ts) and one resolver line here.
  */
+import "server-only";
 import type { Model, ModelStatic } from "sequelize";
 import type { DiscussionTarget, DiscussionTargetType } from "@/lib/contracts/discussion";
 import type { Models } from "@/models";

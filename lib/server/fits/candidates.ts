@@ -2,6 +2,7 @@
  * Readouts the fit builder offers as data: the latest finished readout of every upload that
  * found a period, with its specimen's condition and study, and which measurement kinds it has.
  */
+import "server-only";
 import type { LabContext } from "../access";
 import { database } from "../services";
 import { headlineOf, MEASURE_LABELS, type ReadoutResult } from "../readouts/result";

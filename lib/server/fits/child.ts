@@ -1,10 +1,11 @@
 /**
  * Child-process entry for fits of lab kinetics (the command line's `fit` knows only the
- * catalogue): `node --import tsx lib/server/fits/child.ts --spec FILE` prints exactly one JSON
+ * catalogue): `node --conditions=react-server --import tsx lib/server/fits/child.ts --spec FILE` prints exactly one JSON
  * object, `{ kinetics, ...result }` like `cli fit --json`; errors go to stderr with exit code 2.
  */
+import "server-only";
 import { readFileSync } from "node:fs";
-import { prefixField } from "../web/field-message";
+import { prefixField } from "@/lib/errors/field-message";
 import { fitStoredModel } from "./model-run";
 import type { StoredFitModel, StoredFitSpec } from "./spec-types";
 

@@ -3,6 +3,7 @@
  * (value, SE, 95 % profile interval) per kinetics, then measured against predicted per datum,
  * then the ranking when several kinetics were compared.
  */
+import "server-only";
 import type { FitDetailDto } from "./fits";
 import { csvComment, csvRow } from "../web/csv";
 

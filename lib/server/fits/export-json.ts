@@ -1,4 +1,5 @@
 /** A finished fit as one JSON document: spec (the command line's FIT.json), provenance, result. */
+import "server-only";
 import type { FitDetailDto } from "./fits";
 
 export function fitToJson(fit: FitDetailDto): string {

@@ -2,6 +2,7 @@
  * A methods paragraph for a finished fit: plain text with units, the kinetics' published source
  * and the methods' citations, ready to paste into a manuscript and edit.
  */
+import "server-only";
 import { formatFitNumber as f } from "./export-number";
 import type { FitDetailDto } from "./fits";
 

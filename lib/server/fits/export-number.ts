@@ -1,4 +1,6 @@
 /** Numbers in exports: 4 significant figures, exponents for very small or large values. */
+import "server-only";
+
 export function formatFitNumber(x: number | null | undefined, digits = 4): string {
   if (x === null || x === undefined || !Number.isFinite(x)) return "—";
   if (x === 0) return "0";

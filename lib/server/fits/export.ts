@@ -1,4 +1,5 @@
 /** Exports of a finished fit: CSV (parameters, predictions, ranking), JSON (everything), methods paragraph. */
+import "server-only";
 import type { LabContext } from "../access";
 import { AppError } from "../errors";
 import { getFit } from "./fits";

@@ -4,6 +4,7 @@
  * its Fourier wavelength, or for spots its nearest-neighbour spacing; the fit converts spacings to
  * Fourier wavelengths (λ = (√3/2)·a, SCIENCE.md §4) and says so.
  */
+import "server-only";
 import type { WavelengthDatum } from "@/lib/fitting";
 import type { DomainSpec } from "@/lib/stability";
 import type { FitDatumInput } from "@/lib/contracts/fit";

@@ -4,6 +4,7 @@
  * one transaction; the job (lib/server/fits/job.ts) writes the result. A result exists only
  * with status "succeeded" and is never changed: a re-run is a new fit with the same stored spec.
  */
+import "server-only";
 import { randomUUID } from "node:crypto";
 import { can } from "@/lib/access/permissions";
 import type { FitCreate } from "@/lib/contracts/fit";

@@ -7,6 +7,7 @@
  * Nothing half-written: the fit row becomes "succeeded" with its whole result in one conditional
  * update; any failure leaves it "failed" (or "cancelled") with the reason and no result.
  */
+import "server-only";
 import { compareFits } from "@/lib/fitting";
 import { AppError } from "../errors";
 import { database } from "../services";

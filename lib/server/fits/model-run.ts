@@ -3,6 +3,7 @@
  * kinetics by id, a lab kinetics compiled from the definition stored with the fit). Imports only
  * the numerical core, so the child-process entry (`fit-child.ts`) can run it without the server.
  */
+import "server-only";
 import { fitWavelengths, type WavelengthFitResult } from "@/lib/fitting";
 import { createKineticsPredictor } from "@/lib/fitting/kinetics-predictor";
 import { getCatalogueKinetics, resolveKinetics, type CompiledKinetics } from "@/lib/kinetics";

@@ -4,6 +4,7 @@
  * mean, the expected repeats on each tissue size given with the data, and the elasticities
  * ∂ln λ* / ∂ln p. Cheap (a few dozen dispersion relations), so it runs in the job after the fit.
  */
+import "server-only";
 import type { WavelengthFitResult } from "@/lib/fitting";
 import { SCALE_PARAMETERS } from "@/lib/fitting/kinetics-predictor";
 import { computeDispersion, computeElasticities, type DomainSpec } from "@/lib/stability";

@@ -6,10 +6,12 @@
  *
  * FIT_IN_PROCESS=1 runs the same function in this process instead (measurements, debugging).
  */
+import "server-only";
 import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import type { WavelengthFitResult } from "@/lib/fitting";
+import { readConfig } from "../config";
 import { AppError } from "../errors";
 import { runTsxChild } from "../jobs/child-process";
 import { JobCancelledError } from "../jobs/types";
@@ -20,7 +22,7 @@ import type { StoredFitModel, StoredFitSpec } from "./spec-types";
 export const FIT_MODEL_TIME_LIMIT_MS = 10 * 60_000;
 
 export const fitRunner = (): "child-process" | "in-process" =>
-  process.env.FIT_IN_PROCESS === "1" ? "in-process" : "child-process";
+  readConfig().fitInProcess ? "in-process" : "child-process";
 
 function commandFor(file: string, model: StoredFitModel): string[] {
   return model.definition

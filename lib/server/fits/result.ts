@@ -3,6 +3,7 @@
  * `cli fit --json` prints it) and the predictions at the best fit; for several kinetics the AICc
  * ranking. Types only plus one pure helper, so pages may import them.
  */
+import "server-only";
 import type { FitComparison, WavelengthFitResult } from "@/lib/fitting";
 import type { ConditionPrediction } from "./predictions";
 import type { FitKineticsSource } from "./spec-types";

@@ -2,6 +2,7 @@
  * The stored fit spec: the command line's FIT.json (`cli fit --spec`, `cli compare --spec`),
  * written by the server from a fit request. Types only, so pages and the child entry may import it.
  */
+import "server-only";
 import type { ParameterSetting, WavelengthDatum, WavelengthFitOptions } from "@/lib/fitting";
 import type { KineticsDefinition } from "@/lib/kinetics/definition-schema";
 import type { DomainSpec } from "@/lib/stability";

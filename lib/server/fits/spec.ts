@@ -5,6 +5,7 @@
  * refuses (no data, mixed kinds in a condition, a start outside its bounds, all parameters fixed,
  * no Turing region in the box) answer 400/422 with the field named.
  */
+import "server-only";
 import { createHash } from "node:crypto";
 import { addReplicateSpread, FitError, type ParameterSetting } from "@/lib/fitting";
 import { resolveWavelengthSpec } from "@/lib/fitting/resolve-wavelength-spec";
@@ -14,6 +15,7 @@ import { createWavelengthModel } from "@/lib/fitting/wavelength-model";
 import { getCatalogueKinetics, type CompiledKinetics } from "@/lib/kinetics";
 import type { FitCreate, FitModelInput } from "@/lib/contracts/fit";
 import { isUuid, type LabContext } from "../access";
+import { toAppError } from "../core-errors";
 import { AppError } from "../errors";
 import { getLabKineticsVersion } from "../kinetics/kinetics";
 import { compileStoredKinetics } from "../kinetics/engine";
@@ -47,7 +49,7 @@ export function fitErrorToApp(err: unknown, i: number | null): unknown {
     err.field && err.message.startsWith(err.field)
       ? `${field}${err.message.slice(err.field.length)}`
       : `${field}: ${err.message}`;
-  return new AppError("unprocessable", message, { field, code: err.code });
+  return toAppError(new FitError(err.code, message, field));
 }
 
 interface ResolvedModel {

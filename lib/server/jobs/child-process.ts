@@ -7,8 +7,15 @@
  * (resolves with `timedOut: true`); every other end resolves, and the caller reads the exit code.
  * Used by image readouts (data/readout-process.ts), fits (data/fit-process.ts) and simulations.
  */
+import "server-only";
 import { spawn } from "node:child_process";
 import { JobCancelledError } from "./types";
+
+/**
+ * Node flags of a process that loads lib/server outside Next: TypeScript through tsx, and the
+ * react-server condition, under which the `server-only` marker resolves to its empty module.
+ */
+export const SERVER_NODE_FLAGS = ["--conditions=react-server", "--import", "tsx"];
 
 export interface ChildOutcome {
   code: number | null;
@@ -24,7 +31,7 @@ export function runTsxChild(
 ): Promise<ChildOutcome> {
   return new Promise((resolve, reject) => {
     if (options.signal.aborted) return reject(new JobCancelledError());
-    const child = spawn(process.execPath, ["--import", "tsx", ...entryAndArgs], {
+    const child = spawn(process.execPath, [...SERVER_NODE_FLAGS, ...entryAndArgs], {
       cwd: process.cwd(),
       stdio: ["ignore", "pipe", "pipe"],
       env: { ...process.env, NODE_OPTIONS: "" },

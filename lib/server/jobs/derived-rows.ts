@@ -4,6 +4,7 @@
  * this settles the rows they could not (a process killed between the two writes, a job given up
  * after server stops, a handler that never ran).
  */
+import "server-only";
 import { Op } from "sequelize";
 import { database } from "../services";
 

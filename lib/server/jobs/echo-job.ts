@@ -1,4 +1,5 @@
 /** A trivial job kind used by the runner's own tests: waits `ms`, checks cancellation, echoes. */
+import "server-only";
 import { registerJobHandler } from "./registry";
 import { JobCancelledError } from "./types";
 

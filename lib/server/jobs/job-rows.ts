@@ -1,3 +1,4 @@
+import "server-only";
 import { authorize, type LabContext } from "../access";
 import { notFound } from "../errors";
 import { cancelJob, toJobDto, type JobDto } from "./runner";

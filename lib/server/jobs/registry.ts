@@ -2,6 +2,7 @@
  * Which function runs which kind of job. Add a line per kind; the handler module must not import
  * the runner (lib/server/jobs/runner.ts).
  */
+import "server-only";
 import type { JobHandler, JobInput } from "./types";
 
 export const JOB_HANDLERS: Record<string, JobHandler> = {};

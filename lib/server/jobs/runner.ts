@@ -3,6 +3,7 @@
  * time by default (JOB_CONCURRENCY). The same interface could sit on a queue engine with workers
  * on many machines; callers only enqueue and read job rows.
  */
+import "server-only";
 import { Op, type Transaction } from "sequelize";
 import type { JobStatus } from "@/models/job";
 import { AppError, notFound } from "../errors";
@@ -27,7 +28,7 @@ const state: RunnerState = (g.__morphokinJobs ??= {
   stopped: false,
   finishing: new Set(),
 });
-const concurrency = () => Math.max(1, Number(process.env.JOB_CONCURRENCY ?? "1") || 1);
+const concurrency = () => services().config.jobConcurrency;
 
 export interface JobDto {
   id: string;
@@ -238,9 +239,8 @@ async function execute(row: JobRow, controller: AbortController) {
  * changes the job's status, which is already written.
  */
 function mailIfLong(job: JobInput, status: "succeeded" | "failed", error: string | null, startedMs: number): void {
-  const limitS = Number(process.env.JOB_MAIL_AFTER_S ?? "10");
   const seconds = (Date.now() - startedMs) / 1000;
-  if (!job.requestedBy || !(seconds > (Number.isFinite(limitS) ? limitS : 10))) return;
+  if (!job.requestedBy || !(seconds > services().config.jobMailAfterS)) return;
   void (async () => {
     const m = await database();
     const user = await m.User.findByPk(job.requestedBy!, { attributes: ["email", "notifyByEmail"] });

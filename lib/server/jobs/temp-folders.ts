@@ -6,6 +6,7 @@
  * (the longest, a simulation, is killed at 10 × its estimate + 2 min, and its work is capped at
  * RUN_WORK_LIMIT, a few minutes of solver time; see simulation-job.ts and simulation-run-plan.ts).
  */
+import "server-only";
 import { readdirSync, rmSync, statSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";

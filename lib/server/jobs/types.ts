@@ -1,3 +1,5 @@
+import "server-only";
+
 export interface JobContext {
   /** Report progress 0..1 with a short note ("FFT", "simulated t = 120 s"). Throttled. */
   progress(fraction: number, note?: string): Promise<void>;

@@ -3,6 +3,7 @@
  * modes of a bounded domain), sensitivities of the predicted wavelength, and a parameter gradient
  * along the tissue. Everything runs in-process and is sized to answer within about a second.
  */
+import "server-only";
 import { getCatalogueKinetics, type CompiledKinetics } from "@/lib/kinetics";
 import {
   computeDispersion,

@@ -1,35 +1,14 @@
 /**
- * The bridge between the kinetics core and the API: its error classes become AppErrors with the
- * field in `details`, and compiled lab kinetics are cached per version (versions never change,
- * and compiling — parsing plus symbolic Jacobians — costs more than most analyses).
+ * The bridge between the kinetics core and the API: compiled lab kinetics are cached per version
+ * (versions never change, and compiling — parsing plus symbolic Jacobians — costs more than most
+ * analyses); core errors become AppErrors through the one mapper (`../core-errors`).
  */
-import {
-  compileKinetics,
-  KineticsAnalysisError,
-  KineticsInputError,
-  KineticsLimitError,
-  type CompiledKinetics,
-  type KineticsDefinition,
-} from "@/lib/kinetics";
-import { AppError } from "../errors";
+import "server-only";
+import { compileKinetics, KineticsInputError, type CompiledKinetics, type KineticsDefinition } from "@/lib/kinetics";
+import { toAppError, withAppErrors } from "../core-errors";
 
-/** Maps a kinetics-core error to the API's error (400 bad input, 413 too large, 422 cannot analyse); other errors pass through. */
-export function toAppError(err: unknown): unknown {
-  if (err instanceof KineticsLimitError) return new AppError("too_large", err.message, { field: err.field });
-  if (err instanceof KineticsInputError)
-    return new AppError(err.code === "too_large" ? "too_large" : "bad_input", err.message, { field: err.field });
-  if (err instanceof KineticsAnalysisError) return new AppError("unprocessable", err.message, { field: err.field });
-  return err;
-}
-
-/** Runs `fn`, rethrowing kinetics-core errors as AppErrors. */
-export function withKineticsErrors<T>(fn: () => T): T {
-  try {
-    return fn();
-  } catch (err) {
-    throw toAppError(err);
-  }
-}
+/** Runs `fn`, rethrowing kinetics-core errors as AppErrors (400 bad input, 413 too large, 422 cannot analyse). */
+export const withKineticsErrors = withAppErrors;
 
 const CACHE_SIZE = 64;
 const g = globalThis as unknown as { __morphokinKineticsCache?: Map<string, CompiledKinetics> };
@@ -57,8 +36,8 @@ export function compileDefinition(definition: KineticsDefinition): CompiledKinet
     if (err instanceof KineticsInputError && !err.field.startsWith("definition")) {
       const field = `definition.${err.field}`;
       const message = err.message.startsWith(err.field) ? `definition.${err.message}` : `${field}: ${err.message}`;
-      throw new AppError("bad_input", message, { field });
+      throw toAppError(new KineticsInputError(field, message, err.code));
     }
-    throw toAppError(err);
+    throw toAppError(err) ?? err;
   }
 }

@@ -2,6 +2,7 @@
  * Kinetics: the published catalogue (same for everyone) and a lab's own kinetics, whose
  * definitions are immutable versions — every save adds one, so a fit can name exactly what it used.
  */
+import "server-only";
 import { Op } from "sequelize";
 import { can } from "@/lib/access/permissions";
 import { CATALOGUE, resolveParameters, type CatalogueKinetics, type KineticsDefinition } from "@/lib/kinetics";
@@ -12,7 +13,8 @@ import { AppError, notFound } from "../errors";
 import { containsText, type ListQuery, type ListResult } from "../web/list";
 import { database, services } from "../services";
 import { recordAudit } from "../audit";
-import { compileDefinition, toAppError } from "./engine";
+import { toAppError } from "../core-errors";
+import { compileDefinition } from "./engine";
 
 export interface KineticsParameterDto {
   name: string;
@@ -233,7 +235,7 @@ export function checkDefinition(definition: KineticsDefinition): void {
   try {
     findSteadyStates(compiled, resolveParameters(compiled, {}, "definition.parameters"));
   } catch (err) {
-    const e = toAppError(err);
+    const e = toAppError(err) ?? err;
     if (e instanceof AppError && e.code === "unprocessable") {
       throw new AppError(
         "unprocessable",

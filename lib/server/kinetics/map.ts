@@ -3,6 +3,7 @@
  * MAX_INTERACTIVE_MAP_WAVENUMBERS wavenumbers and INTERACTIVE_MAP_TIME_LIMIT_MS of compute, so one
  * request never holds the server for more than about a second. Larger maps answer 413 naming the limit.
  */
+import "server-only";
 import { computeTuringMap } from "@/lib/stability";
 import {
   INTERACTIVE_MAP_TIME_LIMIT_MS,

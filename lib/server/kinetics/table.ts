@@ -1,4 +1,5 @@
 /** A pasted `position,value` table (comma, semicolon or tab; an optional header line) for a gradient profile. */
+import "server-only";
 import { MAX_GRADIENT_TABLE_ROWS } from "@/lib/contracts/kinetics";
 import { AppError } from "../errors";
 

@@ -2,6 +2,7 @@
  * Invitations: a lab manager invites an e-mail address with a role; the link carries a random
  * token (only its SHA-256 is stored), works once and expires after `INVITATION_DAYS`.
  */
+import "server-only";
 import { Op } from "sequelize";
 import { ROLE_LABELS, type Role } from "@/lib/access/roles";
 import type { LabContext } from "../access";

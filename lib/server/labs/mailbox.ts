@@ -5,6 +5,7 @@
  * only mail to its current members and its pending invitations — and, for anyone who also belongs
  * to another lab, only this lab's own mail (never a sign-in link or other account mail).
  */
+import "server-only";
 import { Op } from "sequelize";
 import type { LabContext } from "../access";
 import { AppError } from "../errors";

@@ -1,4 +1,5 @@
 /** Members of a lab: list, change role, remove; a lab always keeps at least one lab manager. */
+import "server-only";
 import { Op } from "sequelize";
 import { ROLE_LABELS, type Role } from "@/lib/access/roles";
 import type { LabContext } from "../access";

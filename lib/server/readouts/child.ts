@@ -1,6 +1,6 @@
 /**
  * Child-process entry of a readout, so decoding and FFTs of a large image, or parsing and
- * statistics of a large table, never hold the server's event loop: `node --import tsx
+ * statistics of a large table, never hold the server's event loop: `node --conditions=react-server --import tsx
  * lib/server/readouts/child.ts --input FILE --settings FILE --out DIR` runs
  * {@link runImageReadout} (settings of kind "image"; writes the derived products into DIR) or
  * {@link runTableReadout} (kind "table"; no derived products),
@@ -8,9 +8,10 @@
  * `progress {"fraction", "note"}`. A readout error is printed as `error {"code", "message", "details"}`
  * (exit code 2) so the parent can rebuild the same AppError; anything else exits 1 with its stack.
  */
+import "server-only";
 import { readFileSync, writeFileSync } from "node:fs";
 import path from "node:path";
-import { toReadoutAppError } from "./errors";
+import { toAppError } from "../core-errors";
 import { runImageReadout } from "./image";
 import type { StoredImageSettings, StoredReadoutSettings, StoredTableSettings } from "./settings";
 import { runTableReadout } from "./table";
@@ -38,7 +39,7 @@ async function main() {
 }
 
 main().catch((err: unknown) => {
-  const app = toReadoutAppError(err);
+  const app = toAppError(err);
   if (app) {
     process.stderr.write(
       `error ${JSON.stringify({ code: app.code, message: app.message, details: app.details ?? null })}\n`,

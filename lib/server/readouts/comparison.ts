@@ -10,6 +10,7 @@
  * (same SHA-256) uploaded again to a specimen is counted once. `replicate: "image"` counts every
  * image instead, with a warning.
  */
+import "server-only";
 import { collectConditionSpellings, summarize, welchTTest, type WelchResult } from "@/lib/spacing";
 import type { LabContext } from "../access";
 import { AppError } from "../errors";

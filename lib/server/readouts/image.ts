@@ -3,6 +3,7 @@
  * derived products (preview PNG of the whole image, FFT magnitude PNG, spectrum JSON).
  * Everything here is CPU work on the event loop; `yieldToLoop` between steps lets requests in.
  */
+import "server-only";
 import sharp from "sharp";
 import { decodeImage, encodePng } from "@/lib/imaging";
 import {

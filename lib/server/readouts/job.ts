@@ -9,13 +9,14 @@
  * meanwhile) or fails, the objects are removed again. A failure leaves the row "failed" with the
  * reason and no result, and never touches the upload.
  */
+import "server-only";
 import { createHash } from "node:crypto";
 import { readoutDerivedKey } from "@/storage/keys";
 import { StorageUnavailableError } from "@/storage/object-store";
 import { DERIVED_PRODUCTS, type DerivedProduct } from "@/lib/contracts/readout";
 import { AppError } from "../errors";
 import { database, services } from "../services";
-import { toReadoutAppError } from "./errors";
+import { toAppError } from "../core-errors";
 import { readImage, readTable } from "./process";
 import { headlineOf, type ReadoutResult } from "./result";
 import type { StoredImageSettings, StoredReadoutSettings, StoredTableSettings } from "./settings";
@@ -97,7 +98,7 @@ export const runReadoutJob: JobHandler = async (job, ctx) => {
     const app =
       err instanceof StorageUnavailableError
         ? new AppError("unavailable", "object storage was unreachable during the readout; start it again later")
-        : toReadoutAppError(err);
+        : toAppError(err);
     const message = cancelled
       ? "the readout was cancelled"
       : app

@@ -7,9 +7,11 @@
  *
  * READOUT_IN_PROCESS=1 runs the same functions in this process instead (measurements, debugging).
  */
+import "server-only";
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
+import { readConfig } from "../config";
 import { AppError, type ErrorCode } from "../errors";
 import { parseProtocolLine, runTsxChild } from "../jobs/child-process";
 import { JobCancelledError } from "../jobs/types";
@@ -22,7 +24,7 @@ import { runTableReadout } from "./table";
 export const READOUT_TIME_LIMIT_MS = 3 * 60_000;
 
 export const readoutRunner = (): "child-process" | "in-process" =>
-  process.env.READOUT_IN_PROCESS === "1" ? "in-process" : "child-process";
+  readConfig().readoutInProcess ? "in-process" : "child-process";
 
 const DERIVED = ["spectrum.json", "preview.png", "fft.png"] as const;
 

@@ -4,6 +4,7 @@
  * transaction; the job (lib/server/readouts/job.ts) writes the result and the derived
  * objects together. The row always has a status; a result exists only with status "succeeded".
  */
+import "server-only";
 import { randomUUID } from "node:crypto";
 import type { Transaction, WhereOptions } from "sequelize";
 import packageJson from "@/package.json";

@@ -2,6 +2,7 @@
  * What a finished readout stores in its `result` column, and the headline numbers lists and the
  * condition comparison read from it. Types only plus one pure function, so pages may import them.
  */
+import "server-only";
 import type { LocalWavelengthMap, WavelengthReadout } from "@/lib/readout";
 import type { SpacingTableReadout, TableUnit } from "@/lib/spacing";
 

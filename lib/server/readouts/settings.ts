@@ -3,6 +3,7 @@
  * (zero-area ROI, no pixel size, a field for the other kind of file) is refused at once with
  * 400/422 instead of becoming a failed job.
  */
+import "server-only";
 import {
   imageReadoutSettingsSchema,
   tableReadoutSettingsSchema,

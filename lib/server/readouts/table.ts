@@ -2,6 +2,7 @@
  * The table half of a readout job: which columns to read (given, or guessed from the header
  * names) and the spacing statistics of lib/spacing.
  */
+import "server-only";
 import Papa from "papaparse";
 import { readSpacingTable, type TableUnit } from "@/lib/spacing";
 import type { TableReadoutSettings } from "@/lib/contracts/readout";

@@ -1,4 +1,5 @@
 /** The sentences a run page prints: does the simulated wavelength agree with linear theory, and with the measurement? */
+import "server-only";
 import { LINEAR_THEORY_TOLERANCE } from "./plan";
 import type { RunComparison } from "./types";
 

@@ -4,6 +4,7 @@
  * (with the readouts they came from), so the run page can set the simulated pattern beside both
  * the prediction and the measurement.
  */
+import "server-only";
 import type { LabContext } from "../access";
 import { AppError } from "../errors";
 import type { FitProvenance } from "../fits/spec-types";

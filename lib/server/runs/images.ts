@@ -3,6 +3,7 @@
  * (high), min–max scaled per image (the page prints the range beside it; components/charts/
  * field-image.tsx draws the same stops as its colour bar). A 1-D field is drawn as a strip 24 px high.
  */
+import "server-only";
 import sharp from "sharp";
 
 const STOPS: Array<[number, [number, number, number]]> = [

@@ -7,6 +7,7 @@
  * Nothing half-written: objects are put first, the row becomes "succeeded" in one update, and a
  * failure removes the objects again.
  */
+import "server-only";
 import { createHash } from "node:crypto";
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";

@@ -4,21 +4,16 @@
  * whether it may (lib/simulation/plan-run.ts), mapping its refusals to 400/422 answers. The
  * result is the CLI's RUN.json plus the plan shown on the run page.
  */
+import "server-only";
 import { randomInt } from "node:crypto";
-import {
-  estimateSolverSeconds,
-  planRun as planRunInCore,
-  planRunSteadyState,
-  SimulationOptionError,
-} from "@/lib/simulation";
+import { estimateSolverSeconds, planRun as planRunInCore, planRunSteadyState } from "@/lib/simulation";
 import type { GradientShape } from "@/lib/stability";
 import { DEFAULT_RUN_SNAPSHOTS, type SimulationRunRequest } from "@/lib/contracts/simulation-run";
 import type { LabContext } from "../access";
-import { AppError } from "../errors";
+import { withAppErrors } from "../core-errors";
 import { services } from "../services";
 import { resolveAnalysisKinetics } from "../kinetics/analyses";
 import { getLabKineticsVersion } from "../kinetics/kinetics";
-import { withKineticsErrors } from "../kinetics/engine";
 import { parseProfileTable } from "../kinetics/table";
 import { readFitStart } from "./fit-start";
 import { initialFieldFile, readRunStart } from "./start";
@@ -33,16 +28,6 @@ export {
 
 /** Seconds the solver needs for `work` cell-species-steps on this server's thread count. */
 export const estimateSolverS = (work: number) => estimateSolverSeconds(work, services().config.simulationThreads);
-
-/** Runs a step of the core planner, mapping its refusals (and the kinetics core's) to AppErrors. */
-function inCore<T>(fn: () => T): T {
-  try {
-    return withKineticsErrors(fn);
-  } catch (err) {
-    if (err instanceof SimulationOptionError) throw new AppError("unprocessable", err.message, { field: err.field });
-    throw err;
-  }
-}
 
 /** The gradient's shape, a pasted table parsed (its errors name profile.text and the line). */
 function readGradientShape(profile: NonNullable<SimulationRunRequest["gradient"]>["profile"]): GradientShape {
@@ -79,7 +64,7 @@ export async function planRun(ctx: LabContext, asked: SimulationRunRequest): Pro
       )
     : (req.parameters ?? {});
   const gradient = req.gradient;
-  const state = inCore(() =>
+  const state = withAppErrors(() =>
     planRunSteadyState({
       kinetics: compiled,
       units: info.units,
@@ -100,7 +85,7 @@ export async function planRun(ctx: LabContext, asked: SimulationRunRequest): Pro
   );
   const start = asked.startFrom ? await readRunStart(ctx, asked.startFrom.runId, compiled.species, state.grid) : null;
   const seed = req.seed ?? randomInt(0, 2 ** 32);
-  const { spec, plan } = inCore(() =>
+  const { spec, plan } = withAppErrors(() =>
     planRunInCore(state, {
       start: start
         ? {

@@ -6,6 +6,7 @@
  * or from a finished fit (simulation-run-fit.ts). The runner's mail hook tells the requester when a
  * long run ends (payload title and path).
  */
+import "server-only";
 import { randomUUID } from "node:crypto";
 import { Op } from "sequelize";
 import { can } from "@/lib/access/permissions";

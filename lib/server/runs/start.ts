@@ -4,6 +4,7 @@
  * fields next to RUN.json, checks them against the SHA-256 the earlier run recorded, and keeps a
  * copy as this run's own `initial-<s>.f64`, so the run stays reproducible on its own.
  */
+import "server-only";
 import { createHash } from "node:crypto";
 import type { Grid } from "@/lib/simulation";
 import type { LabContext } from "../access";

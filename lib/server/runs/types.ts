@@ -2,6 +2,7 @@
  * Shapes of a verification run: the stored spec (the `simulate` CLI's RUN.json), the plan made
  * before the job, the stored result, and the DTOs the API returns. Types only, so pages may import them.
  */
+import "server-only";
 import type { RunPlan, RunSpec } from "@/lib/simulation";
 import type { JobStatus } from "@/models/job";
 import type { ImageReadoutResult } from "../readouts/result";

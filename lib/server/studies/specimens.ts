@@ -1,4 +1,5 @@
 /** Specimens: one sample under one condition, with a stage, genotype and notes. */
+import "server-only";
 import { Op } from "sequelize";
 import { can } from "@/lib/access/permissions";
 import type { LabContext } from "../access";

@@ -1,4 +1,5 @@
 /** Studies of a lab: one tissue and organism, many specimens. */
+import "server-only";
 import { Op, fn, col } from "sequelize";
 import { can } from "@/lib/access/permissions";
 import type { LabContext } from "../access";

@@ -5,6 +5,7 @@
  * Without it, 200 uploads at once each held a temporary file, a sharp decode and a database
  * turn, and the server stopped answering anything.
  */
+import "server-only";
 import { serverBusy } from "../errors";
 
 export interface GateLimits {

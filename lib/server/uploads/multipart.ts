@@ -6,6 +6,7 @@
  * folder, so the sweep (upload-recovery.ts) knows which are ours and whose: a folder of a process
  * that no longer runs (killed mid-upload) is removed at the next start.
  */
+import "server-only";
 import { mkdirSync, mkdtempSync, openSync, readSync, closeSync, rmSync } from "node:fs";
 import path from "node:path";
 import { Readable } from "node:stream";

@@ -2,6 +2,7 @@
  * An upload request: wait for a slot, stream the file, judge its type by content, take the pixel
  * size from the file's metadata (or the uploader), then store object + row + readout together.
  */
+import "server-only";
 import { readFile } from "node:fs/promises";
 import sharp from "sharp";
 import { readPixelSize, sniffFileKind, type FileKind } from "@/lib/imaging";

@@ -9,6 +9,7 @@
  * `recoverUploadsAtStart()` runs it once at start and then hourly; the server's start-up hook
  * calls it (see the report of the change that added this file).
  */
+import "server-only";
 import { readdirSync, rmSync, statSync } from "node:fs";
 import path from "node:path";
 import { Op } from "sequelize";

@@ -4,6 +4,7 @@
  * removes the object, an upload cut short by a killed process is swept at the next start, and a
  * delete refused while storage is unreachable keeps the row. No transaction waits on storage.
  */
+import "server-only";
 import { createReadStream } from "node:fs";
 import { randomUUID } from "node:crypto";
 import type { Transaction } from "sequelize";

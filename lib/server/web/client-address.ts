@@ -9,6 +9,7 @@
  * proxies in front each append the address they saw, and the Nth entry from the end is the
  * client's as the outermost trusted proxy saw it; entries before it are the client's own claims.
  */
+import "server-only";
 import http from "node:http";
 
 export function clientAddress(request: Request, trustProxyHops: number): string {

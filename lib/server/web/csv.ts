@@ -7,6 +7,8 @@
  * (`-1.5`, `+2`, `3e-7`): numbers must stay numbers, and a number cannot call anything. "Plain
  * number" is decided on the written text, by {@link PLAIN_NUMBER}, whatever type the value had.
  */
+import "server-only";
+
 export type CsvValue = string | number | boolean | null | undefined;
 
 /** A decimal number, optionally signed, optionally with an exponent; nothing else. */

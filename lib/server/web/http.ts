@@ -1,18 +1,22 @@
 /** Route-handler glue: JSON bodies validated by a schema, errors mapped to status codes. */
+import "server-only";
 import { z, ZodError, type ZodType } from "zod";
 import { readConfig } from "../config";
+import { toAppError } from "../core-errors";
 import { AppError } from "../errors";
-import { prefixField, startsWithField } from "./field-message";
+import { prefixField, startsWithField } from "@/lib/errors/field-message";
 import { crossSiteRefusal } from "./same-origin";
 
+/** The JSON error answer for anything a handler threw: AppErrors and core errors by the one mapper, zod issues as 400, the rest 500. */
 export function errorResponse(err: unknown): Response {
-  if (err instanceof AppError) {
+  const app = toAppError(err);
+  if (app) {
     // A rate-limited answer says when to come back (RFC 9110 §10.2.3 Retry-After, in seconds).
-    const retry = (err as { retryAfterS?: number }).retryAfterS;
+    const retry = (app as { retryAfterS?: number }).retryAfterS;
     const headers: Record<string, string> = retry ? { "retry-after": String(retry) } : {};
     return Response.json(
-      { error: { code: err.code, message: err.message, ...(err.details ? { details: err.details } : {}) } },
-      { status: err.status, headers },
+      { error: { code: app.code, message: app.message, ...(app.details ? { details: app.details } : {}) } },
+      { status: app.status, headers },
     );
   }
   if (err instanceof ZodError) {

@@ -1,4 +1,5 @@
 /** The navigation of a lab, showing only what the role may open. */
+import "server-only";
 import { can } from "@/lib/access/permissions";
 import type { Role } from "@/lib/access/roles";
 import { mailboxEnabled } from "../labs/mailbox";

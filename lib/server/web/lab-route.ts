@@ -3,6 +3,7 @@
  * authenticated, scoped to a lab the actor belongs to (404 otherwise) and checked against the
  * permission table before the handler body runs.
  */
+import "server-only";
 import type { Action } from "@/lib/access/permissions";
 import { authorize, requireLab, type LabContext } from "../access";
 import { requireActor, type Actor } from "../accounts/actor";

@@ -1,4 +1,5 @@
 /** Paginated, sorted, filtered lists: one query format for every list endpoint. */
+import "server-only";
 import { literal, Op } from "sequelize";
 import { z } from "zod";
 import { AppError } from "../errors";

@@ -1,4 +1,5 @@
 /** Access for server-rendered pages: sign-in redirect, 404 for labs you are not in. */
+import "server-only";
 import { notFound, redirect } from "next/navigation";
 import type { Action } from "@/lib/access/permissions";
 import { can } from "@/lib/access/permissions";

@@ -7,6 +7,7 @@
  * Reuse: `await enforceRateLimit("passwordReset", { account: email, address: clientAddress(request) })`
  * before the work; it throws a 429 AppError carrying Retry-After.
  */
+import "server-only";
 import { QueryTypes } from "sequelize";
 import type { Config } from "../config";
 import { clientAddress } from "./client-address";

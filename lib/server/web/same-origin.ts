@@ -6,6 +6,8 @@
  * `Authorization: Bearer …` carry no ambient credential and are exempt (OWASP CSRF Prevention
  * Cheat Sheet, "Verifying Origin With Standard Headers").
  */
+import "server-only";
+
 const STATE_CHANGING = new Set(["POST", "PUT", "PATCH", "DELETE"]);
 
 /** The origin the request was addressed to: Host header (what the browser used) and scheme. */

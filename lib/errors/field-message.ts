@@ -1,7 +1,7 @@
 /**
  * "field: message" without saying the field twice. Many messages already begin with their field
  * ("data: at most 200 measurements", "endTimeS must be above 0"); prefixing those again gave
- * "data: data: …". Pure: used by the route glue and by the child processes.
+ * "data: data: …". Pure: used by the route glue, the child processes and the command line.
  */
 
 /** True when `message` begins with `field` as a whole word ("data:", "data must", "data[0]…"). */
