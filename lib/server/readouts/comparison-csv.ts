@@ -1,4 +1,5 @@
 /** A condition comparison as CSV: `#` lines name the study, the units, the replicates and the Welch test; then one row per value. */
+import "server-only";
 import { csvComment, csvRow } from "../web/csv";
 import type { ConditionComparison } from "./comparison-types";
 

@@ -1,4 +1,5 @@
 /** The condition comparison of a study, as the API returns it (types only, so pages may import them). */
+import "server-only";
 import type { WelchResult } from "@/lib/spacing";
 import type { WavelengthMeasure } from "./result";
 
