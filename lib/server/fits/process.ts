@@ -11,7 +11,7 @@ import { tmpdir } from "node:os";
 import path from "node:path";
 import type { WavelengthFitResult } from "@/lib/fitting";
 import { AppError } from "../errors";
-import { runTsxChild } from "../jobs/child-process";
+import { runTsxChild } from "@/lib/workers/start-child";
 import { JobCancelledError } from "../jobs/types";
 import { fitStoredModel, singleModelFile } from "./model-run";
 import type { StoredFitModel, StoredFitSpec } from "./spec-types";
@@ -24,7 +24,7 @@ export const fitRunner = (): "child-process" | "in-process" =>
 
 function commandFor(file: string, model: StoredFitModel): string[] {
   return model.definition
-    ? ["lib/server/fits/child.ts", "--spec", file]
+    ? ["lib/workers/fit-child.ts", "--spec", file]
     : ["lib/cli/main.ts", "fit", "--spec", file, "--json"];
 }
 

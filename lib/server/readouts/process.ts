@@ -11,7 +11,7 @@ import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { AppError, type ErrorCode } from "../errors";
-import { parseProtocolLine, runTsxChild } from "../jobs/child-process";
+import { parseProtocolLine, runTsxChild } from "@/lib/workers/start-child";
 import { JobCancelledError } from "../jobs/types";
 import { runImageReadout, type ImageReadoutOutput } from "./image";
 import type { ImageReadoutResult, TableReadoutResult } from "./result";
@@ -79,7 +79,7 @@ async function inChild<T>(
     let failure: Failure | null = null;
     let progress = Promise.resolve();
     const r = await runTsxChild(
-      ["lib/server/readouts/child.ts", "--input", input, "--settings", settingsFile, "--out", dir],
+      ["lib/workers/readout-child.ts", "--input", input, "--settings", settingsFile, "--out", dir],
       {
         signal,
         timeLimitMs: READOUT_TIME_LIMIT_MS,

@@ -22,7 +22,7 @@ import { compareWithPrediction } from "./compare";
 import { fieldRange, fieldToGrey, renderFieldPng } from "./images";
 import { initialFieldFile, loadRunStartFields } from "./start";
 import type { RunPlan, RunResult, RunSpec } from "./types";
-import { parseProtocolLine, runTsxChild } from "../jobs/child-process";
+import { parseProtocolLine, runTsxChild } from "@/lib/workers/start-child";
 import { registerJobCleanup, registerJobHandler } from "../jobs/registry";
 import { JobCancelledError, type JobHandler } from "../jobs/types";
 

@@ -1,12 +1,12 @@
 /**
  * Child-process entry for fits of lab kinetics (the command line's `fit` knows only the
- * catalogue): `node --import tsx lib/server/fits/child.ts --spec FILE` prints exactly one JSON
+ * catalogue): `node --import tsx lib/workers/fit-child.ts --spec FILE` prints exactly one JSON
  * object, `{ kinetics, ...result }` like `cli fit --json`; errors go to stderr with exit code 2.
  */
 import { readFileSync } from "node:fs";
-import { prefixField } from "../web/field-message";
-import { fitStoredModel } from "./model-run";
-import type { StoredFitModel, StoredFitSpec } from "./spec-types";
+import { prefixField } from "../server/web/field-message";
+import { fitStoredModel } from "../server/fits/model-run";
+import type { StoredFitModel, StoredFitSpec } from "../server/fits/spec-types";
 
 function main() {
   const i = process.argv.indexOf("--spec");

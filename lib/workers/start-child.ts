@@ -8,7 +8,7 @@
  * Used by image readouts (data/readout-process.ts), fits (data/fit-process.ts) and simulations.
  */
 import { spawn } from "node:child_process";
-import { JobCancelledError } from "./types";
+import { JobCancelledError } from "../server/jobs/types";
 
 export interface ChildOutcome {
   code: number | null;
