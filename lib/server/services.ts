@@ -1,18 +1,21 @@
 /**
- * The one composition root: database, object storage and mail are chosen here, once, from
- * configuration. Nothing else constructs a client. Tests call `setServicesForTest` with their own.
+ * The one composition root: database, object storage, mail and job delivery are chosen here,
+ * once, from configuration (job handlers are mapped to kinds in lib/server/jobs/wiring.ts). Nothing else constructs a client. Tests call `setServicesForTest` with their own.
  */
 import { createS3ObjectStore } from "@/storage/s3-object-store";
 import type { ObjectStore } from "@/storage/object-store";
 import { readConfig, type Config } from "./config";
 import { createDatabase, type Database } from "./db";
 import { createSmtpMailer, type Mailer } from "./mail";
+import { createInProcessDelivery, type JobDelivery } from "./jobs/delivery";
 
 export interface Services {
   config: Config;
   db: Database;
   store: ObjectStore;
   mailer: Mailer;
+  /** How queued jobs reach a worker (lib/server/jobs/delivery.ts). */
+  jobs: JobDelivery;
 }
 
 const g = globalThis as unknown as { __morphokinServices?: Services };
@@ -23,6 +26,7 @@ export function createServices(config: Config = readConfig()): Services {
     db: createDatabase(config.databasePath, { writeWaitMs: config.dbWriteWaitMs }),
     store: createS3ObjectStore(config.s3),
     mailer: createSmtpMailer(config.smtp),
+    jobs: createInProcessDelivery(),
   };
 }
 

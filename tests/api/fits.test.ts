@@ -14,7 +14,7 @@ import { getCatalogueKinetics } from "@/lib/kinetics";
 import type { FitCreateInput } from "@/lib/contracts/fit";
 import type { FitDetailDto } from "@/lib/server/fits/fits";
 import { numbersOf } from "@/lib/server/fits/result";
-import { waitForJob } from "@/lib/server/jobs/runner";
+import { waitForJob } from "@/lib/server/jobs/queue";
 import { database } from "@/lib/server/services";
 import { call, discoverRoutes } from "../support/api";
 import { waitForMailWithSubject } from "../support/mail";

@@ -18,7 +18,7 @@ import { createSpecimen } from "@/lib/server/studies/specimens";
 import { createStudy } from "@/lib/server/studies/studies";
 import type { ReadoutDetailDto, ReadoutDto } from "@/lib/server/readouts/readouts";
 import type { ConditionComparison } from "@/lib/server/readouts/comparison";
-import { waitForJob } from "@/lib/server/jobs/runner";
+import { waitForJob } from "@/lib/server/jobs/queue";
 import { database, services } from "@/lib/server/services";
 import { call, discoverRoutes, multipart } from "../support/api";
 import { startTestStack, type TestStack } from "../support/stack";

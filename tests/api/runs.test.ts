@@ -8,7 +8,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { getCatalogueKinetics } from "@/lib/kinetics";
 import { computeDispersion, computeGradientDispersion } from "@/lib/stability";
 import type { RunDetailDto } from "@/lib/server/runs/types";
-import { getJob, waitForJob } from "@/lib/server/jobs/runner";
+import { getJob, waitForJob } from "@/lib/server/jobs/queue";
 import { database } from "@/lib/server/services";
 import { call, discoverRoutes } from "../support/api";
 import { waitForMailWithSubject } from "../support/mail";

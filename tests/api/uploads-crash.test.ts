@@ -13,7 +13,7 @@ import { encodePng } from "@/lib/imaging";
 import { makeStripes } from "@/lib/synthetic";
 import { createSpecimen } from "@/lib/server/studies/specimens";
 import { createStudy } from "@/lib/server/studies/studies";
-import { stopJobs } from "@/lib/server/jobs/runner";
+import { stopJobs } from "@/lib/server/jobs/worker";
 import { uploadTempRoot } from "@/lib/server/uploads/multipart";
 import { database } from "@/lib/server/services";
 import { sweepUploads } from "@/lib/server/uploads/recovery";

@@ -19,7 +19,7 @@ import { encodePng } from "../../lib/imaging";
 import { makeStripes } from "../../lib/synthetic";
 import { createSpecimen } from "../../lib/server/studies/specimens";
 import { createStudy } from "../../lib/server/studies/studies";
-import { stopJobs } from "../../lib/server/jobs/runner";
+import { stopJobs } from "../../lib/server/jobs/worker";
 import { database } from "../../lib/server/services";
 import { call, discoverRoutes, multipart } from "../support/api";
 import { freePort, startTestStack, type TestStack } from "../support/stack";

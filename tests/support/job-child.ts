@@ -5,7 +5,8 @@
  */
 import { readConfig } from "@/lib/server/config";
 import { createServices, setServicesForTest } from "@/lib/server/services";
-import { enqueueJob } from "@/lib/server/jobs/runner";
+import { enqueueJob } from "@/lib/server/jobs/queue";
+import { startJobs } from "@/lib/server/jobs/wiring";
 
 function arg(name: string): string {
   const i = process.argv.indexOf(name);
@@ -17,6 +18,7 @@ async function main() {
   const services = createServices({ ...readConfig(), databasePath: arg("--db") });
   await services.db.ready;
   setServicesForTest(services);
+  startJobs();
   const job = await enqueueJob({
     labId: arg("--lab"),
     kind: "echo",

@@ -10,7 +10,8 @@ import { startFakeS3 } from "@/fake-services/fake-s3";
 import { startFakeSmtp } from "@/fake-services/fake-smtp";
 import { readConfig } from "@/lib/server/config";
 import { createServices, setServicesForTest, type Services } from "@/lib/server/services";
-import { resumeJobs, stopJobs } from "@/lib/server/jobs/runner";
+import { stopJobs } from "@/lib/server/jobs/worker";
+import { startJobs } from "@/lib/server/jobs/wiring";
 
 export async function freePort(): Promise<number> {
   return new Promise((resolve, reject) => {
@@ -55,7 +56,7 @@ export async function startTestStack(): Promise<TestStack> {
   const services = createServices(config);
   await services.db.ready;
   setServicesForTest(services);
-  resumeJobs();
+  startJobs();
   return {
     services,
     dir,

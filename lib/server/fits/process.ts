@@ -1,7 +1,7 @@
 /**
- * Runs one model of a stored fit off the event loop: a child Node process running the command
- * line's `fit --spec FILE --json` (catalogue kinetics) or `fit-child.ts` (lab kinetics, whose
- * definition the command line cannot look up), killed when the job is cancelled. One fit with
+ * Runs one model of a stored fit off the event loop: a child Node process running
+ * lib/workers/fit-child.ts (the command line's `fit` for catalogue kinetics, the stored definition
+ * for lab kinetics), killed when the job is cancelled. One fit with
  * profiles takes seconds of pure computation; in-process it would stall every other request.
  *
  * FIT_IN_PROCESS=1 runs the same function in this process instead (measurements, debugging).
@@ -11,7 +11,7 @@ import { tmpdir } from "node:os";
 import path from "node:path";
 import type { WavelengthFitResult } from "@/lib/fitting";
 import { AppError } from "../errors";
-import { runTsxChild } from "@/lib/workers/start-child";
+import { startChild } from "@/lib/workers/start-child";
 import { JobCancelledError } from "../jobs/types";
 import { fitStoredModel, singleModelFile } from "./model-run";
 import type { StoredFitModel, StoredFitSpec } from "./spec-types";
@@ -21,12 +21,6 @@ export const FIT_MODEL_TIME_LIMIT_MS = 10 * 60_000;
 
 export const fitRunner = (): "child-process" | "in-process" =>
   process.env.FIT_IN_PROCESS === "1" ? "in-process" : "child-process";
-
-function commandFor(file: string, model: StoredFitModel): string[] {
-  return model.definition
-    ? ["lib/workers/fit-child.ts", "--spec", file]
-    : ["lib/cli/main.ts", "fit", "--spec", file, "--json"];
-}
 
 /** Fits one model; the result is exactly what `cli fit --spec … --json` prints (without `kinetics`). */
 export async function fitModel(
@@ -40,7 +34,7 @@ export async function fitModel(
   const file = path.join(dir, "fit.json");
   writeFileSync(file, JSON.stringify(singleModelFile(spec, model)));
   try {
-    const r = await runTsxChild(commandFor(file, model), { signal, timeLimitMs: FIT_MODEL_TIME_LIMIT_MS });
+    const r = await startChild("fit", ["--spec", file], { signal, timeLimitMs: FIT_MODEL_TIME_LIMIT_MS });
     if (r.timedOut)
       throw new AppError(
         "unprocessable",

@@ -1,8 +1,7 @@
-/** A trivial job kind used by the runner's own tests: waits `ms`, checks cancellation, echoes. */
-import { registerJobHandler } from "./registry";
-import { JobCancelledError } from "./types";
+/** A trivial job kind used by the worker's own tests: waits `ms`, checks cancellation, echoes. */
+import { JobCancelledError, type JobHandler } from "./types";
 
-registerJobHandler("echo", async (job, ctx) => {
+export const runEchoJob: JobHandler = async (job, ctx) => {
   const ms = Number(job.payload.ms ?? 0);
   const steps = 10;
   for (let i = 0; i < steps; i++) {
@@ -12,4 +11,4 @@ registerJobHandler("echo", async (job, ctx) => {
   }
   if (job.payload.fail) throw new Error(String(job.payload.fail));
   return { echo: job.payload.value ?? null };
-});
+};

@@ -1,7 +1,0 @@
-/**
- * Imports every job handler module so that it registers itself. One line per module.
- */
-import "./echo-job";
-import "../readouts/job";
-import "../runs/job";
-import "../fits/job";

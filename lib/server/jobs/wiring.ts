@@ -1,0 +1,42 @@
+/**
+ * The composition root of jobs: which function runs which kind of job, and which removes what a
+ * killed attempt of it wrote. Add a line per kind (and its name in kinds.ts). Only entry points
+ * import this file (start-up, the worker command, tests); the queue and the handlers never do,
+ * so no import circle runs through the jobs.
+ */
+import { cleanUpReadoutJob, runReadoutJob } from "../readouts/job";
+import { runFitJob } from "../fits/job";
+import { cleanUpSimulationJob, runSimulationJob } from "../runs/job";
+import { runEchoJob } from "./echo-job";
+import type { JobKind } from "./kinds";
+import type { RecoveryReport } from "./recovery";
+import type { JobCode } from "./run-job";
+import type { JobCleanup, JobHandler } from "./types";
+import { recoverJobs, resumeJobs, giveWorkerJobCode } from "./worker";
+
+export const JOB_HANDLERS: Record<JobKind, JobHandler> = {
+  readout: runReadoutJob,
+  fit: runFitJob,
+  "fit-comparison": runFitJob,
+  simulation: runSimulationJob,
+  echo: runEchoJob,
+};
+
+export const JOB_CLEANUPS: Partial<Record<JobKind, JobCleanup>> = {
+  readout: cleanUpReadoutJob,
+  simulation: cleanUpSimulationJob,
+};
+
+export const JOB_CODE: JobCode = { handlers: JOB_HANDLERS, cleanups: JOB_CLEANUPS };
+
+/** Runs jobs in this process from now on (tests, the command line's seed). */
+export function startJobs(): void {
+  giveWorkerJobCode(JOB_CODE);
+  resumeJobs();
+}
+
+/** The start-up task: recover what a dead process left, then run queued jobs in this process. */
+export function recoverJobsAtStart(): Promise<RecoveryReport> {
+  giveWorkerJobCode(JOB_CODE);
+  return recoverJobs();
+}
