@@ -3,7 +3,6 @@
  * fake SMTP server on free ports, wired in through the composition root.
  */
 import { mkdtempSync, rmSync } from "node:fs";
-import net from "node:net";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { startFakeS3 } from "@/fake-services/fake-s3";
@@ -11,17 +10,9 @@ import { startFakeSmtp } from "@/fake-services/fake-smtp";
 import { readConfig } from "@/lib/server/config";
 import { createServices, setServicesForTest, type Services } from "@/lib/server/services";
 import { resumeJobs, stopJobs } from "@/lib/server/jobs/runner";
+import { freePort } from "./free-port";
 
-export async function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const srv = net.createServer();
-    srv.once("error", reject);
-    srv.listen(0, "127.0.0.1", () => {
-      const port = (srv.address() as net.AddressInfo).port;
-      srv.close(() => resolve(port));
-    });
-  });
-}
+export { freePort };
 
 /**
  * A port where nothing listens, for "service is down" tests. Port 1 (tcpmux) is privileged and
