@@ -5,9 +5,9 @@
  * port on 127.0.0.1 only, stopped and removed at the end.
  *
  * Use:
- * - as a vitest globalSetup (default export): starts one server when MORPHOKIN_TEST_DB=postgres and
- *   passes its admin URL to the test processes in MORPHOKIN_TEST_PG_URL (an URL already set there,
- *   e.g. an outside server, is used as it is and nothing is started);
+ * - as a vitest globalSetup (default export; the "postgres" project in vitest.config.mts): starts one
+ *   server for the run and passes its admin URL to the test processes in MORPHOKIN_TEST_PG_URL (a
+ *   URL already set there, e.g. an outside server, is used as it is and nothing is started);
  * - `createTestDatabase()`: one fresh database per test stack (`CREATE DATABASE`), so test files
  *   stay independent; `drop()` removes it;
  * - `startPostgres()` directly, from a script or a test that needs its own server.
@@ -162,9 +162,9 @@ export async function createTestDatabase(adminUrl = process.env[TEST_PG_URL_ENV]
   };
 }
 
-/** vitest globalSetup: one server for the whole run when MORPHOKIN_TEST_DB=postgres. */
+/** vitest globalSetup: one server for the whole run. */
 export default async function setup(): Promise<(() => Promise<void>) | undefined> {
-  if (process.env.MORPHOKIN_TEST_DB !== "postgres" || process.env[TEST_PG_URL_ENV]) return undefined;
+  if (process.env[TEST_PG_URL_ENV]) return undefined;
   const server = await startPostgres();
   // Test processes are forked after global setup and inherit this environment.
   process.env[TEST_PG_URL_ENV] = server.adminUrl;

@@ -11,6 +11,7 @@ import { readConfig } from "@/lib/server/config";
 import { createServices, setServicesForTest, type Services } from "@/lib/server/services";
 import { resumeJobs, stopJobs } from "@/lib/server/jobs/runner";
 import { freePort } from "./free-port";
+import { createTestDatabase } from "./postgres";
 
 export { freePort };
 
@@ -32,11 +33,14 @@ export async function startTestStack(): Promise<TestStack> {
   const [s3Port, smtpPort, httpPort] = [await freePort(), await freePort(), await freePort()];
   const s3 = await startFakeS3({ port: s3Port, directory: path.join(dir, "s3"), bucket: "morphokin-test" });
   const smtp = await startFakeSmtp({ smtpPort, httpPort, directory: path.join(dir, "mail") });
+  // MORPHOKIN_TEST_DB=postgres: a database of its own on the run's test server (tests/support/postgres.ts).
+  const pgDatabase = process.env.MORPHOKIN_TEST_DB === "postgres" ? await createTestDatabase() : null;
   const base = readConfig();
   const config = {
     ...base,
     dataDir: dir,
     databasePath: path.join(dir, "test.sqlite"),
+    databaseUrl: pgDatabase?.url ?? "",
     appUrl: "http://127.0.0.1:3999",
     s3: { ...base.s3, endpoint: `http://127.0.0.1:${s3Port}`, bucket: "morphokin-test" },
     smtp: { ...base.smtp, url: `smtp://127.0.0.1:${smtpPort}` },
@@ -55,6 +59,7 @@ export async function startTestStack(): Promise<TestStack> {
       await stopJobs();
       setServicesForTest(undefined);
       await services.db.sequelize.close();
+      await pgDatabase?.drop();
       await Promise.allSettled([s3.close(), smtp.close()]);
       rmSync(dir, { recursive: true, force: true });
     },
