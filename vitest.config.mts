@@ -3,10 +3,23 @@ import { defineConfig } from "vitest/config";
 export default defineConfig({
   resolve: { alias: { "@": import.meta.dirname } },
   test: {
-    include: ["tests/**/*.test.ts"],
     setupFiles: ["tests/support/no-session.ts"],
     environment: "node",
     pool: "forks",
     testTimeout: 30_000,
+    // Everything on the embedded SQLite file; the API suite once more on a real PostgreSQL server
+    // (tests/support/postgres.ts). One file on one: `npx vitest run --project postgres tests/api/x.test.ts`.
+    projects: [
+      { extends: true, test: { name: "sqlite", include: ["tests/**/*.test.ts"] } },
+      {
+        extends: true,
+        test: {
+          name: "postgres",
+          include: ["tests/api/**/*.test.ts"],
+          env: { MORPHOKIN_TEST_DB: "postgres" },
+          globalSetup: ["tests/support/postgres.ts"],
+        },
+      },
+    ],
   },
 });

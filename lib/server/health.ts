@@ -1,4 +1,4 @@
-/** Health of each part: database, object storage, mail. */
+/** Health of each part: database (with its dialect: "sqlite" or "postgres"), object storage, mail. */
 import { services } from "./services";
 
 export type PartStatus = { ok: true } | { ok: false; error: string };
@@ -25,5 +25,6 @@ export async function checkHealth() {
     probe(() => s.store.check()),
     probe(() => s.mailer.check()),
   ]);
-  return { ok: database.ok && storage.ok && mail.ok, database, storage, mail };
+  const dialect = s.db.sequelize.getDialect();
+  return { ok: database.ok && storage.ok && mail.ok, database: { ...database, dialect }, storage, mail };
 }

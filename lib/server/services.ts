@@ -23,7 +23,7 @@ const g = globalThis as unknown as { __morphokinServices?: Services };
 export function createServices(config: Config = readConfig()): Services {
   return {
     config,
-    db: createDatabase(config.databasePath, { writeWaitMs: config.dbWriteWaitMs }),
+    db: createDatabase(config.databaseUrl || config.databasePath, { writeWaitMs: config.dbWriteWaitMs }),
     store: createS3ObjectStore(config.s3),
     mailer: createSmtpMailer(config.smtp),
     jobs: createInProcessDelivery(),
