@@ -90,6 +90,10 @@ export function readConfig() {
     invitationDays: num("INVITATION_DAYS", 7),
     /** Threads of one verification run: 2 = the main thread and a worker (species side by side), 1 = serial. */
     simulationThreads: (num("SIMULATION_THREADS", 2) === 1 ? 1 : 2) as 1 | 2,
+    /** JOBS_IN_WEB=0: the web server runs no jobs itself; `npm run worker` processes do. */
+    jobsInWeb: process.env.JOBS_IN_WEB !== "0",
+    /** Jobs one worker runs at once (`npm run worker`; the web server's own worker: JOB_CONCURRENCY). */
+    workerConcurrency: Math.max(1, num("WORKER_CONCURRENCY", 1)),
   };
 }
 

@@ -1,4 +1,8 @@
-/** Health of each part: database (with its dialect: "sqlite" or "postgres"), object storage, mail. */
+/**
+ * Health of each part: database (with its dialect: "sqlite" or "postgres"), object storage, mail,
+ * and the jobs: the queue ("in-process" or "pg-boss") and how many workers sent a heartbeat lately.
+ */
+import { countLiveWorkers } from "./jobs/worker-registry";
 import { services } from "./services";
 
 export type PartStatus = { ok: true } | { ok: false; error: string };
@@ -26,5 +30,12 @@ export async function checkHealth() {
     probe(() => s.mailer.check()),
   ]);
   const dialect = s.db.sequelize.getDialect();
-  return { ok: database.ok && storage.ok && mail.ok, database: { ...database, dialect }, storage, mail };
+  const liveWorkers = database.ok ? await countLiveWorkers().catch(() => null) : null;
+  return {
+    ok: database.ok && storage.ok && mail.ok,
+    database: { ...database, dialect },
+    storage,
+    mail,
+    jobs: { queue: s.jobs.name, liveWorkers },
+  };
 }

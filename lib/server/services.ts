@@ -1,13 +1,15 @@
 /**
  * The one composition root: database, object storage, mail and job delivery are chosen here,
- * once, from configuration (job handlers are mapped to kinds in lib/server/jobs/wiring.ts). Nothing else constructs a client. Tests call `setServicesForTest` with their own.
+ * once, from configuration (job handlers are mapped to kinds in lib/server/jobs/wiring.ts).
+ * Nothing else constructs a client. Tests call `setServicesForTest` with their own.
  */
 import { createS3ObjectStore } from "@/storage/s3-object-store";
 import type { ObjectStore } from "@/storage/object-store";
 import { readConfig, type Config } from "./config";
-import { createDatabase, type Database } from "./db";
+import { createDatabase, isPostgresUrl, type Database } from "./db";
 import { createSmtpMailer, type Mailer } from "./mail";
 import { createInProcessDelivery, type JobDelivery } from "./jobs/delivery";
+import { createPgBossDelivery } from "./jobs/pg-boss-delivery";
 
 export interface Services {
   config: Config;
@@ -26,7 +28,8 @@ export function createServices(config: Config = readConfig()): Services {
     db: createDatabase(config.databaseUrl || config.databasePath, { writeWaitMs: config.dbWriteWaitMs }),
     store: createS3ObjectStore(config.s3),
     mailer: createSmtpMailer(config.smtp),
-    jobs: createInProcessDelivery(),
+    // On PostgreSQL jobs go through pg-boss in the same database; on the SQLite file, in-process.
+    jobs: isPostgresUrl(config.databaseUrl) ? createPgBossDelivery(config.databaseUrl) : createInProcessDelivery(),
   };
 }
 

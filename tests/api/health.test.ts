@@ -24,6 +24,9 @@ describe("health", () => {
       database: { ok: true, dialect },
       storage: { ok: true },
       mail: { ok: true },
+      // pg-boss on PostgreSQL, the in-process runner on SQLite (README "Several machines");
+      // the exact count of live workers is tested in tests/api/jobs-workers.test.ts.
+      jobs: { queue: dialect === "postgres" ? "pg-boss" : "in-process", liveWorkers: expect.any(Number) },
     });
   });
 

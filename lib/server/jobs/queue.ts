@@ -77,6 +77,8 @@ export async function cancelJob(labId: string, jobId: string): Promise<JobDto> {
     await job.update({ status: "cancelled", error: "the job was cancelled", finishedAt: new Date() });
     await settleDerivedRows([{ id: job.id, status: "cancelled", error: "the job was cancelled" }]);
   } else if (job.status === "running") {
+    // The row carries the request to a worker in another process; one here stops at once.
+    await job.update({ cancelRequestedAt: new Date() });
     await services().jobs.cancelRunning(job.id);
   } else {
     throw new AppError("conflict", `this job has already ${job.status === "succeeded" ? "finished" : job.status}`);

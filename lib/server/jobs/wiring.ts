@@ -13,6 +13,7 @@ import type { RecoveryReport } from "./recovery";
 import type { JobCode } from "./run-job";
 import type { JobCleanup, JobHandler } from "./types";
 import { recoverJobs, resumeJobs, giveWorkerJobCode } from "./worker";
+import { services } from "../services";
 
 export const JOB_HANDLERS: Record<JobKind, JobHandler> = {
   readout: runReadoutJob,
@@ -35,8 +36,18 @@ export function startJobs(): void {
   resumeJobs();
 }
 
-/** The start-up task: recover what a dead process left, then run queued jobs in this process. */
-export function recoverJobsAtStart(): Promise<RecoveryReport> {
-  giveWorkerJobCode(JOB_CODE);
+/**
+ * The web server's start-up task: recover what a stopped process left, then run queued jobs in
+ * this process, unless JOBS_IN_WEB=0 (then `npm run worker` processes run them).
+ */
+export async function recoverJobsAtStart(): Promise<RecoveryReport> {
+  if (!services().config.jobsInWeb) return { requeued: [], failed: [] };
+  giveWorkerJobCode(JOB_CODE, { role: "web" });
+  return recoverJobs();
+}
+
+/** `npm run worker`: this process runs jobs, `concurrency` at once. */
+export async function startWorkerProcess(concurrency: number): Promise<RecoveryReport> {
+  giveWorkerJobCode(JOB_CODE, { role: "worker", concurrency });
   return recoverJobs();
 }

@@ -1,21 +1,28 @@
 /**
- * The in-process worker: takes queued jobs from the `jobs` table and runs them in this process,
- * JOB_CONCURRENCY at a time (default one). It knows no handler itself: the composition root
- * (lib/server/jobs/wiring.ts) hands it the kind → handler map with `giveWorkerJobCode`. The queue wakes
- * it through the local bus, so the queue never imports it.
+ * The worker: takes queued jobs and runs them in this process, several at a time (its
+ * concurrency: WORKER_CONCURRENCY in `npm run worker`, JOB_CONCURRENCY in the web server, default
+ * one). It knows no handler itself: the composition root (lib/server/jobs/wiring.ts) hands it the
+ * kind → handler map with `giveWorkerJobCode`. Jobs reach it through the delivery chosen in
+ * services.ts: in-process, it takes the oldest queued row (woken by the local bus, and polling
+ * for jobs queued by other processes); with pg-boss, it takes the jobs pg-boss hands it.
  *
- * At start-up (instrumentation.ts → lib/server/startup.ts) it recovers what a dead process left:
- * jobs left "running" are re-queued once and failed with a reason the second time. Only one
- * process may run jobs this way on a database: a second would take the first one's running jobs
- * for dead ones.
+ * While it runs it keeps a heartbeat (worker-registry.ts), stops its jobs whose cancellation was
+ * asked for from another process, and takes up jobs of workers that stopped (recovery.ts) — at
+ * start-up (instrumentation.ts → lib/server/startup.ts) and on every few heartbeats.
  */
-import { database } from "../services";
+import { Op } from "sequelize";
+import { database, services } from "../services";
 import { listenForCancel, listenForQueued } from "./local-bus";
+import type { JobRow } from "./queue";
 import { recoverInterruptedJobs, type RecoveryReport } from "./recovery";
 import { runClaimedJob, type JobCode } from "./run-job";
+import { beat, HEARTBEAT_MS, newWorkerId, type WorkerRole } from "./worker-registry";
 
 interface WorkerState {
   code?: JobCode;
+  id: string | null;
+  role: WorkerRole;
+  concurrency?: number;
   running: Map<string, AbortController>;
   /** The one recovery of this process (start-up hook or first kick, whichever comes first). */
   recovery?: Promise<RecoveryReport>;
@@ -23,20 +30,30 @@ interface WorkerState {
   stopped: boolean;
   finishing: Set<Promise<void>>;
   listening: boolean;
+  heartbeat?: ReturnType<typeof setInterval>;
+  beats: number;
+  stopConsuming?: () => Promise<void>;
 }
 const g = globalThis as unknown as { __morphokinJobs?: WorkerState };
 const state: WorkerState = (g.__morphokinJobs ??= {
+  id: null,
+  role: "web",
   running: new Map(),
   kicking: false,
   stopped: false,
   finishing: new Set(),
   listening: false,
+  beats: 0,
 });
-const concurrency = () => Math.max(1, Number(process.env.JOB_CONCURRENCY ?? "1") || 1);
+const concurrency = () => state.concurrency ?? Math.max(1, Number(process.env.JOB_CONCURRENCY ?? "1") || 1);
+const usesPgBoss = () => services().jobs.name === "pg-boss";
 
 /** Gives this process's worker its handlers (the composition root calls it) and starts listening. */
-export function giveWorkerJobCode(code: JobCode): void {
+export function giveWorkerJobCode(code: JobCode, options: { role?: WorkerRole; concurrency?: number } = {}): void {
   state.code = code;
+  if (options.role) state.role = options.role;
+  if (options.concurrency) state.concurrency = options.concurrency;
+  state.id ??= newWorkerId(state.role);
   if (state.listening) return;
   state.listening = true;
   listenForQueued(() => kickJobs());
@@ -46,6 +63,9 @@ export function giveWorkerJobCode(code: JobCode): void {
     return controller !== undefined;
   });
 }
+
+/** This process's worker id (null before it was given its handlers). */
+export const workerId = () => state.id;
 
 /** Recovers interrupted jobs once per process, then starts queued jobs. */
 export async function recoverJobs(): Promise<RecoveryReport> {
@@ -58,37 +78,64 @@ export async function recoverJobs(): Promise<RecoveryReport> {
 function recoverOnce(): Promise<RecoveryReport> {
   const code = state.code;
   if (!code) return Promise.resolve({ requeued: [], failed: [] });
-  return (state.recovery ??= recoverInterruptedJobs(code, [...state.running.keys()]).catch((err: unknown) => {
+  return (state.recovery ??= (async () => {
+    await beat(state.id!, state.role, concurrency());
+    return recoverInterruptedJobs(code, state.id, [...state.running.keys()]);
+  })().catch((err: unknown) => {
     state.recovery = undefined;
     throw err;
   }));
 }
 
+/** Claims a queued job for this worker; false when another worker (or a cancel) was first. */
+async function claim(row: JobRow): Promise<boolean> {
+  const m = await database();
+  const [claimed] = await m.Job.update(
+    { status: "running", startedAt: new Date(), progress: 0, workerId: state.id },
+    { where: { id: row.id, status: "queued" } },
+  );
+  return claimed > 0;
+}
+
+/** Runs a claimed job; resolves when it has ended and is recorded. */
+function run(row: JobRow): Promise<void> {
+  const controller = new AbortController();
+  state.running.set(row.id, controller);
+  const done: Promise<void> = runClaimedJob(state.code!, row, controller).finally(() => {
+    state.running.delete(row.id);
+    state.finishing.delete(done);
+    kickJobs();
+  });
+  state.finishing.add(done);
+  return done;
+}
+
+/** pg-boss handed this worker a job: run it if it is still queued (a re-delivery may find it taken). */
+export async function takeDeliveredJob(jobId: string): Promise<void> {
+  if (state.stopped || !state.code) throw new Error("this worker is stopping");
+  const m = await database();
+  const row = await m.Job.findByPk(jobId);
+  if (!row || !(await claim(row))) return;
+  await run(row);
+}
+
 /** Starts queued jobs while there is capacity. Safe to call often; does nothing without handlers. */
 export function kickJobs(): void {
   if (state.kicking || state.stopped || !state.code) return;
-  const code = state.code;
   state.kicking = true;
   void (async () => {
     try {
       await recoverOnce();
+      startHeartbeat();
+      if (usesPgBoss()) {
+        state.stopConsuming ??= await services().jobs.consume!(concurrency(), takeDeliveredJob);
+        return;
+      }
       const m = await database();
       while (state.running.size < concurrency() && !state.stopped) {
         const next = await m.Job.findOne({ where: { status: "queued" }, order: [["createdAt", "asc"]] });
         if (!next) break;
-        const [claimed] = await m.Job.update(
-          { status: "running", startedAt: new Date(), progress: 0 },
-          { where: { id: next.id, status: "queued" } },
-        );
-        if (claimed === 0) continue;
-        const controller = new AbortController();
-        state.running.set(next.id, controller);
-        const done: Promise<void> = runClaimedJob(code, next, controller).finally(() => {
-          state.running.delete(next.id);
-          state.finishing.delete(done);
-          kickJobs();
-        });
-        state.finishing.add(done);
+        if (await claim(next)) void run(next);
       }
     } catch (err) {
       console.error("job worker:", err);
@@ -98,10 +145,40 @@ export function kickJobs(): void {
   })();
 }
 
+/** Heartbeat, cancellations asked for elsewhere, jobs of stopped workers, jobs queued elsewhere. */
+function startHeartbeat(): void {
+  if (state.heartbeat) return;
+  state.heartbeat = setInterval(
+    () => void tick().catch((err) => console.error("job worker heartbeat:", err)),
+    HEARTBEAT_MS,
+  );
+  state.heartbeat.unref();
+}
+
+async function tick(): Promise<void> {
+  if (state.stopped || !state.code) return;
+  await beat(state.id!, state.role, concurrency());
+  const m = await database();
+  if (state.running.size > 0) {
+    const asked = await m.Job.findAll({
+      where: { id: [...state.running.keys()], cancelRequestedAt: { [Op.ne]: null } },
+      attributes: ["id"],
+    });
+    for (const j of asked) state.running.get(j.id)?.abort();
+  }
+  if (++state.beats % 2 === 0) await recoverInterruptedJobs(state.code, state.id, [...state.running.keys()]);
+  kickJobs();
+}
+
 /** Cancels running jobs and waits for them to record it; no new job starts until `resumeJobs`. */
 export async function stopJobs(): Promise<void> {
   state.stopped = true;
+  if (state.heartbeat) clearInterval(state.heartbeat);
+  state.heartbeat = undefined;
   while (state.kicking) await new Promise((r) => setTimeout(r, 10));
+  const stopConsuming = state.stopConsuming;
+  state.stopConsuming = undefined;
+  await stopConsuming?.();
   for (const c of state.running.values()) c.abort();
   while (state.finishing.size > 0) await Promise.allSettled([...state.finishing]);
 }
