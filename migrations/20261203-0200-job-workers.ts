@@ -9,7 +9,6 @@ import type { MigrationFn } from "umzug";
 export const up: MigrationFn<QueryInterface> = async ({ context: qi }) => {
   await qi.addColumn("jobs", "worker_id", { type: DataTypes.STRING(80), allowNull: true });
   await qi.addColumn("jobs", "cancel_requested_at", { type: DataTypes.DATE, allowNull: true });
-  await qi.addIndex("jobs", ["status", "created_at"]);
   await qi.createTable("workers", {
     id: { type: DataTypes.STRING(80), primaryKey: true, allowNull: false },
     // "web": the web server's own worker; "worker": a process of `npm run worker`.
@@ -24,7 +23,6 @@ export const up: MigrationFn<QueryInterface> = async ({ context: qi }) => {
 
 export const down: MigrationFn<QueryInterface> = async ({ context: qi }) => {
   await qi.dropTable("workers");
-  await qi.removeIndex("jobs", ["status", "created_at"]);
   await qi.removeColumn("jobs", "cancel_requested_at");
   await qi.removeColumn("jobs", "worker_id");
 };
