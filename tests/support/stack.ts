@@ -58,6 +58,7 @@ export async function startTestStack(): Promise<TestStack> {
     mailboxUrl: config.devMailboxUrl,
     async close() {
       await stopJobs();
+      await services.jobs.close();
       setServicesForTest(undefined);
       await services.db.sequelize.close();
       await pgDatabase?.drop();
