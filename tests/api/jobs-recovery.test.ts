@@ -204,7 +204,7 @@ describe("jobs after a server stop", () => {
             "tsx",
             "tests/support/job-child.ts",
             "--db",
-            stack.services.config.databasePath,
+            stack.services.config.databaseUrl || stack.services.config.databasePath,
             "--lab",
             w.labId,
             "--ms",

@@ -60,6 +60,7 @@ function startChild(mode: "slow-body" | "slow-put") {
         NODE_OPTIONS: "",
         MORPHOKIN_DATA_DIR: c.dataDir,
         DATABASE_PATH: c.databasePath,
+        DATABASE_URL: c.databaseUrl,
         MAX_UPLOAD_BYTES: String(4 * PUT_BYTES),
         S3_ENDPOINT: c.s3.endpoint,
         S3_BUCKET: c.s3.bucket,

@@ -84,6 +84,7 @@ async function startServer(stack: TestStack) {
         NEXTAUTH_SECRET: "bench-secret-bench-secret-bench-secret",
         MORPHOKIN_DATA_DIR: c.dataDir,
         DATABASE_PATH: c.databasePath,
+        DATABASE_URL: c.databaseUrl,
         S3_ENDPOINT: c.s3.endpoint,
         S3_BUCKET: c.s3.bucket,
         SMTP_URL: c.smtp.url,
