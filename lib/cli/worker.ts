@@ -24,6 +24,9 @@ async function main() {
     if (id) await removeWorker(id).catch(() => undefined);
     process.exit(0);
   };
+  // The worker's own timers do not hold a process open (they also run inside the web server);
+  // this one keeps the worker alive until it is stopped.
+  setInterval(() => undefined, 3_600_000);
   process.once("SIGTERM", () => void stop());
   process.once("SIGINT", () => void stop());
 }
