@@ -1,10 +1,4 @@
-import {
-  DataTypes,
-  Model,
-  type InferAttributes,
-  type InferCreationAttributes,
-  type Sequelize,
-} from "sequelize";
+import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
 
 /** A process that runs jobs: the web server's own worker ("web") or one of `npm run worker` ("worker"). */
 export class Worker extends Model<InferAttributes<Worker>, InferCreationAttributes<Worker>> {
