@@ -80,11 +80,25 @@ function recoverOnce(): Promise<RecoveryReport> {
   if (!code) return Promise.resolve({ requeued: [], failed: [] });
   return (state.recovery ??= (async () => {
     await beat(state.id!, state.role, concurrency());
-    return recoverInterruptedJobs(code, state.id, [...state.running.keys()]);
+    const report = await recoverInterruptedJobs(code, state.id, [...state.running.keys()]);
+    await redeliverQueuedJobs();
+    return report;
   })().catch((err: unknown) => {
     state.recovery = undefined;
     throw err;
   }));
+}
+
+/**
+ * Hands every queued job to the queue engine again (pg-boss): a job queued by a process that
+ * stopped between writing its row and handing it over, or written "queued" by an older version,
+ * would otherwise wait forever. A job delivered twice runs once (its row is claimed once).
+ */
+async function redeliverQueuedJobs(): Promise<void> {
+  if (!usesPgBoss()) return; // the in-process worker reads queued rows itself
+  const m = await database();
+  const queued = await m.Job.findAll({ where: { status: "queued" }, attributes: ["id", "kind"] });
+  for (const job of queued) await services().jobs.deliver({ id: job.id, kind: job.kind });
 }
 
 /** Claims a queued job for this worker; false when another worker (or a cancel) was first. */
