@@ -16,6 +16,8 @@ import { JobCancelledError, type JobCleanup, type JobHandler, type JobInput } fr
 export interface JobCode {
   handlers: Record<string, JobHandler>;
   cleanups: Partial<Record<string, JobCleanup>>;
+  /** Longest one attempt of each kind may run, s (JOB_TIME_LIMITS_S). */
+  timeLimitsS: Partial<Record<string, number>>;
 }
 
 export const inputOf = (row: JobRow): JobInput => ({
@@ -37,7 +39,7 @@ export async function cleanUpAfterInterruption(code: JobCode, row: JobRow): Prom
 
 /** Error of a job stopped by its kind's time limit (JOB_TIME_LIMITS_S). */
 export const timeLimitMessage = (kind: string, limitS: number) =>
-  `the ${kind} job ran longer than its limit of ${Math.round(limitS / 60)} minutes and was stopped; make it smaller or start it again when the server is less busy`;
+  `the ${kind} job ran longer than its limit of ${limitS >= 120 ? `${Math.round(limitS / 60)} minutes` : `${limitS} s`} and was stopped; make it smaller or start it again when the server is less busy`;
 
 export async function runClaimedJob(code: JobCode, row: JobRow, controller: AbortController): Promise<void> {
   const m = await database();
@@ -53,10 +55,10 @@ export async function runClaimedJob(code: JobCode, row: JobRow, controller: Abor
       { where: { id: row.id } },
     );
   };
-  const limitS = isJobKind(row.kind) ? JOB_TIME_LIMITS_S[row.kind] : 3600;
+  const limitS = code.timeLimitsS[row.kind] ?? (isJobKind(row.kind) ? JOB_TIME_LIMITS_S[row.kind] : 3600);
   let timedOut = false;
   const timer = setTimeout(() => {
-    timedOut = true;
+    timedOut = !controller.signal.aborted; // a cancellation that came first stays a cancellation
     controller.abort();
   }, limitS * 1000);
   timer.unref();
@@ -81,7 +83,7 @@ export async function runClaimedJob(code: JobCode, row: JobRow, controller: Abor
     if (!cancelled && !timedOut && !(err instanceof AppError)) console.error(`job ${row.kind} ${row.id} failed:`, err);
     const status = cancelled ? "cancelled" : "failed";
     await m.Job.update({ status, error: message, finishedAt: new Date() }, { where: { id: row.id } });
-    await settleDerivedRows([{ id: row.id, status, error: message }]).catch((e) =>
+    await settleDerivedRows([{ id: row.id, status, error: message }], { overCancelled: timedOut }).catch((e) =>
       console.error(`job ${row.kind} ${row.id}: could not settle its row`, e),
     );
     if (row.restarts > 0) await cleanUpAfterInterruption(code, row);

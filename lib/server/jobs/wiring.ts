@@ -8,7 +8,7 @@ import { cleanUpReadoutJob, runReadoutJob } from "../readouts/job";
 import { runFitJob } from "../fits/job";
 import { cleanUpSimulationJob, runSimulationJob } from "../runs/job";
 import { runEchoJob } from "./echo-job";
-import type { JobKind } from "./kinds";
+import { JOB_TIME_LIMITS_S, type JobKind } from "./kinds";
 import type { RecoveryReport } from "./recovery";
 import type { JobCode } from "./run-job";
 import type { JobCleanup, JobHandler } from "./types";
@@ -28,7 +28,7 @@ export const JOB_CLEANUPS: Partial<Record<JobKind, JobCleanup>> = {
   simulation: cleanUpSimulationJob,
 };
 
-export const JOB_CODE: JobCode = { handlers: JOB_HANDLERS, cleanups: JOB_CLEANUPS };
+export const JOB_CODE: JobCode = { handlers: JOB_HANDLERS, cleanups: JOB_CLEANUPS, timeLimitsS: JOB_TIME_LIMITS_S };
 
 /** Runs jobs in this process from now on (tests, the command line's seed). */
 export function startJobs(): void {
