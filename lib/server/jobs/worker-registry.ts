@@ -37,6 +37,12 @@ export async function removeWorker(id: string): Promise<void> {
   await m.Worker.destroy({ where: { id } });
 }
 
+/** Rows of workers gone for an hour without a running job to take up (design choice: an hour). */
+export async function removeLongGoneWorkers(): Promise<void> {
+  const m = await database();
+  await m.Worker.destroy({ where: { seenAt: { [Op.lt]: new Date(Date.now() - 3_600_000) } } });
+}
+
 /** Workers whose heartbeat is recent. */
 export async function countLiveWorkers(): Promise<number> {
   const m = await database();

@@ -16,7 +16,7 @@ import { listenForCancel, listenForQueued } from "./local-bus";
 import type { JobRow } from "./queue";
 import { recoverInterruptedJobs, type RecoveryReport } from "./recovery";
 import { runClaimedJob, type JobCode } from "./run-job";
-import { beat, HEARTBEAT_MS, newWorkerId, type WorkerRole } from "./worker-registry";
+import { beat, HEARTBEAT_MS, newWorkerId, removeLongGoneWorkers, type WorkerRole } from "./worker-registry";
 
 interface WorkerState {
   code?: JobCode;
@@ -181,6 +181,8 @@ async function tick(): Promise<void> {
     for (const j of asked) state.running.get(j.id)?.abort();
   }
   if (++state.beats % 2 === 0) await recoverInterruptedJobs(state.code, state.id, [...state.running.keys()]);
+  if (state.beats % 900 === 0) await removeLongGoneWorkers(); // every half hour
+
   kickJobs();
 }
 
