@@ -6,10 +6,23 @@ export default defineConfig({
     alias: { "@": import.meta.dirname, "server-only": `${import.meta.dirname}/node_modules/server-only/empty.js` },
   },
   test: {
-    include: ["tests/**/*.test.ts"],
     setupFiles: ["tests/support/no-session.ts", "tests/support/register-matchers.ts"],
     environment: "node",
     pool: "forks",
     testTimeout: 30_000,
+    // Everything on the embedded SQLite file; the API suite once more on a real PostgreSQL server
+    // (tests/support/postgres.ts). One file on one: `npx vitest run --project postgres tests/api/x.test.ts`.
+    projects: [
+      { extends: true, test: { name: "sqlite", include: ["tests/**/*.test.ts"] } },
+      {
+        extends: true,
+        test: {
+          name: "postgres",
+          include: ["tests/api/**/*.test.ts"],
+          env: { MORPHOKIN_TEST_DB: "postgres" },
+          globalSetup: ["tests/support/postgres.ts"],
+        },
+      },
+    ],
   },
 });

@@ -18,6 +18,7 @@ import { initLabKinetics } from "./lab-kinetics";
 import { initReadout } from "./readout";
 import { initSignupRequest } from "./signup-request";
 import { initSimulationRun } from "./simulation-run";
+import { initWorker } from "./worker";
 import { initLab } from "./lab";
 import { initMembership } from "./membership";
 import { initSpecimen } from "./specimen";
@@ -47,6 +48,7 @@ export function createModels(sequelize: Sequelize) {
     SimulationRun: initSimulationRun(sequelize),
     SignupRequest: initSignupRequest(sequelize),
     AccountEvent: initAccountEvent(sequelize),
+    Worker: initWorker(sequelize),
   };
   const {
     User,

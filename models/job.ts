@@ -24,6 +24,10 @@ export class Job extends Model<InferAttributes<Job>, InferCreationAttributes<Job
   declare requestedBy: string | null;
   /** How often a server stop interrupted this job while it ran (re-queued once, then failed). */
   declare restarts: CreationOptional<number>;
+  /** The worker (a row of `workers`) running it; null while queued or for rows of older versions. */
+  declare workerId: CreationOptional<string | null>;
+  /** Set when a cancellation was asked for; the worker running the job stops it. */
+  declare cancelRequestedAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
   declare startedAt: CreationOptional<Date | null>;
   declare finishedAt: CreationOptional<Date | null>;
@@ -44,6 +48,8 @@ export function initJob(sequelize: Sequelize) {
       error: { type: DataTypes.TEXT },
       requestedBy: { type: DataTypes.UUID },
       restarts: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
+      workerId: { type: DataTypes.STRING(80) },
+      cancelRequestedAt: { type: DataTypes.DATE },
       createdAt: DataTypes.DATE,
       startedAt: { type: DataTypes.DATE },
       finishedAt: { type: DataTypes.DATE },

@@ -1,15 +1,16 @@
-/** `npm run db:migrate`: applies pending migrations to the configured SQLite file. */
+/** `npm run db:migrate`: applies pending migrations to the configured database (DATABASE_URL, else the SQLite file). */
 import { readConfig } from "@/lib/server/config";
-import { createDatabase } from "@/lib/server/db";
+import { createDatabase, describeLocation } from "@/lib/server/db";
 import { migrateUp } from "@/lib/server/migrate";
 
 async function main() {
   const config = readConfig();
-  const db = createDatabase(config.databasePath, { migrate: false });
+  const location = config.databaseUrl || config.databasePath;
+  const db = createDatabase(location, { migrate: false });
   await db.ready;
   const applied = await migrateUp(db.sequelize);
   process.stdout.write(
-    applied.length ? `applied: ${applied.join(", ")}\n` : `database ${config.databasePath} is up to date\n`,
+    applied.length ? `applied: ${applied.join(", ")}\n` : `database ${describeLocation(location)} is up to date\n`,
   );
   await db.sequelize.close();
 }

@@ -17,7 +17,8 @@ import { createSpecimen } from "@/lib/server/studies/specimens";
 import { createStudy } from "@/lib/server/studies/studies";
 import { startReadout, type ReadoutDto } from "@/lib/server/readouts/readouts";
 import { storeUpload } from "@/lib/server/uploads/uploads";
-import { waitForJob } from "@/lib/server/jobs/runner";
+import { waitForJob } from "@/lib/server/jobs/queue";
+import { startJobs } from "@/lib/server/jobs/wiring";
 import { hashPassword } from "@/lib/server/accounts/passwords";
 import { database } from "@/lib/server/services";
 import { recordAudit } from "@/lib/server/audit";
@@ -37,6 +38,7 @@ export const DEMO_PEOPLE: { name: string; email: string; role: Role }[] = [
 export async function seedDemo(): Promise<boolean> {
   const m = await database();
   if ((await m.User.count()) > 0) return false;
+  startJobs(); // the demo's readouts, fit and run are done here, before the server starts
   const passwordHash = await hashPassword(DEMO_PASSWORD);
   const lab = await m.Lab.create({ name: DEMO_LAB, createdBy: null });
   const users: { id: string; email: string; name: string | null }[] = [];

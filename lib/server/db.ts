@@ -1,19 +1,23 @@
 /**
- * One Sequelize instance (SQLite via sqlite3) per process, with its models and migrations applied.
- * WAL mode and foreign keys are set on the connection; every connection waits up to
+ * One Sequelize instance per process, with its models and migrations applied: PostgreSQL (through
+ * `pg`) when the location is a `postgres://` URL (DATABASE_URL), else a SQLite file (sqlite3).
+ * The same models and migrations serve both.
+ *
+ * SQLite only: WAL mode and foreign keys are set on the connection; every connection waits up to
  * BUSY_TIMEOUT_MS for another's write lock (Sequelize opens one sqlite3 connection per
  * transaction, and a PRAGMA on the default connection would not reach those).
  *
- * Writes of this process take turns in a JS write queue (write-queue.ts) in front of SQLite:
- * every transaction, and every write outside one, waits there (bounded: 503 with Retry-After)
- * instead of in sqlite3's busy handler on a libuv thread. Reads never queue (WAL lets them run
- * beside the one writer). The busy timeout stays for other processes (CLI, migrations).
- * The queue sits behind this module only: a PostgreSQL back end would install none.
+ * SQLite only: writes of this process take turns in a JS write queue (write-queue.ts) in front of
+ * SQLite: every transaction, and every write outside one, waits there (bounded: 503 with
+ * Retry-After) instead of in sqlite3's busy handler on a libuv thread. Reads never queue (WAL lets
+ * them run beside the one writer). The busy timeout stays for other processes (CLI, migrations).
+ * PostgreSQL has row locks and many concurrent writers, so it gets no queue.
  */
 import "server-only";
 import { mkdirSync } from "node:fs";
 import path from "node:path";
 import { QueryTypes, Sequelize, Transaction } from "sequelize";
+import pg from "pg";
 import sqlite3 from "sqlite3";
 import { createModels, type Models } from "@/models";
 import { migrateUp } from "./migrate";
@@ -93,7 +97,36 @@ function installWriteQueue(sequelize: Sequelize, queue: WriteQueue): void {
   });
 }
 
-export function createDatabase(storage: string, options: { migrate?: boolean; writeWaitMs?: number } = {}): Database {
+type Options = { migrate?: boolean; writeWaitMs?: number };
+
+/** True when `location` names a PostgreSQL server rather than a SQLite file. */
+export function isPostgresUrl(location: string): boolean {
+  return /^postgres(ql)?:\/\//i.test(location);
+}
+
+/** The location for messages: a URL without its password, or the file path. */
+export function describeLocation(location: string): string {
+  if (!isPostgresUrl(location)) return location;
+  const url = new URL(location);
+  if (url.password) url.password = "***";
+  return url.toString();
+}
+
+/** `location`: a `postgres://` URL, or the path of a SQLite file (created with its folder). */
+export function createDatabase(location: string, options: Options = {}): Database {
+  return isPostgresUrl(location) ? createPostgres(location, options) : createSqlite(location, options);
+}
+
+function createPostgres(url: string, options: Options): Database {
+  const sequelize = new Sequelize(url, { dialect: "postgres", dialectModule: pg, logging: false });
+  const models = createModels(sequelize);
+  const ready = (async () => {
+    if (options.migrate !== false) await migrateUp(sequelize);
+  })();
+  return { sequelize, models, ready, writeQueue: null };
+}
+
+function createSqlite(storage: string, options: Options): Database {
   if (storage !== ":memory:") mkdirSync(path.dirname(storage), { recursive: true });
   // IMMEDIATE: a transaction takes the write lock when it begins. A deferred one that read first
   // and writes later fails with SQLITE_BUSY, whatever the timeout, when another connection wrote in
@@ -112,12 +145,11 @@ export function createDatabase(storage: string, options: { migrate?: boolean; wr
     maxWaitMs: options.writeWaitMs ?? WRITE_WAIT_MS,
     what: "too many writes at once",
   });
-  // SQLite has one writer per database file; a server database (PostgreSQL) would need no queue.
-  if (sequelize.getDialect() === "sqlite") installWriteQueue(sequelize, writeQueue);
+  installWriteQueue(sequelize, writeQueue);
   const ready = (async () => {
     if (storage !== ":memory:") await sequelize.query("PRAGMA journal_mode = WAL;");
     await sequelize.query("PRAGMA foreign_keys = ON;");
     if (options.migrate !== false) await migrateUp(sequelize);
   })();
-  return { sequelize, models, ready, writeQueue: sequelize.getDialect() === "sqlite" ? writeQueue : null };
+  return { sequelize, models, ready, writeQueue };
 }

@@ -1,5 +1,9 @@
-/** Health of each part: database, object storage, mail. */
+/**
+ * Health of each part: database (with its dialect: "sqlite" or "postgres"), object storage, mail,
+ * and the jobs: the queue ("in-process" or "pg-boss") and how many workers sent a heartbeat lately.
+ */
 import "server-only";
+import { countLiveWorkers } from "./jobs/worker-registry";
 import { services } from "./services";
 
 export type PartStatus = { ok: true } | { ok: false; error: string };
@@ -26,5 +30,13 @@ export async function checkHealth() {
     probe(() => s.store.check()),
     probe(() => s.mailer.check()),
   ]);
-  return { ok: database.ok && storage.ok && mail.ok, database, storage, mail };
+  const dialect = s.db.sequelize.getDialect();
+  const liveWorkers = database.ok ? await countLiveWorkers().catch(() => null) : null;
+  return {
+    ok: database.ok && storage.ok && mail.ok,
+    database: { ...database, dialect },
+    storage,
+    mail,
+    jobs: { queue: s.jobs.name, liveWorkers },
+  };
 }

@@ -1,19 +1,24 @@
 /**
- * The one composition root: database, object storage and mail are chosen here, once, from
- * configuration. Nothing else constructs a client. Tests call `setServicesForTest` with their own.
+ * The one composition root: database, object storage, mail and job delivery are chosen here,
+ * once, from configuration (job handlers are mapped to kinds in lib/server/jobs/wiring.ts).
+ * Nothing else constructs a client. Tests call `setServicesForTest` with their own.
  */
 import "server-only";
 import { createS3ObjectStore } from "@/storage/s3-object-store";
 import type { ObjectStore } from "@/storage/object-store";
 import { readConfig, type Config } from "./config";
-import { createDatabase, type Database } from "./db";
+import { createDatabase, isPostgresUrl, type Database } from "./db";
 import { createSmtpMailer, type Mailer } from "./mail";
+import { createInProcessDelivery, type JobDelivery } from "./jobs/delivery";
+import { createPgBossDelivery } from "./jobs/pg-boss-delivery";
 
 export interface Services {
   config: Config;
   db: Database;
   store: ObjectStore;
   mailer: Mailer;
+  /** How queued jobs reach a worker (lib/server/jobs/delivery.ts). */
+  jobs: JobDelivery;
 }
 
 const g = globalThis as unknown as { __morphokinServices?: Services };
@@ -21,9 +26,11 @@ const g = globalThis as unknown as { __morphokinServices?: Services };
 export function createServices(config: Config = readConfig()): Services {
   return {
     config,
-    db: createDatabase(config.databasePath, { writeWaitMs: config.dbWriteWaitMs }),
+    db: createDatabase(config.databaseUrl || config.databasePath, { writeWaitMs: config.dbWriteWaitMs }),
     store: createS3ObjectStore(config.s3),
     mailer: createSmtpMailer(config.smtp),
+    // On PostgreSQL jobs go through pg-boss in the same database; on the SQLite file, in-process.
+    jobs: isPostgresUrl(config.databaseUrl) ? createPgBossDelivery(config.databaseUrl) : createInProcessDelivery(),
   };
 }
 

@@ -5,7 +5,7 @@
  */
 import "server-only";
 import { startTokenExpirySweep } from "./accounts/tokens";
-import { recoverJobs } from "./jobs/runner";
+import { recoverJobsAtStart } from "./jobs/wiring";
 import { removeStaleJobFolders } from "./jobs/temp-folders";
 import { recoverUploadsAtStart } from "./uploads/recovery";
 
@@ -20,7 +20,7 @@ export const STARTUP_TASKS: StartupTask[] = [
   // Before job recovery, so re-queued readouts never see a half-stored upload.
   { name: "sweep half-written uploads", run: recoverUploadsAtStart },
   // Jobs left "running" by a dead process are re-queued once (failed the second time), then queued jobs start.
-  { name: "recover interrupted jobs", run: recoverJobs },
+  { name: "recover interrupted jobs", run: recoverJobsAtStart },
   // Temporary folders of readout, fit and run child processes killed with an earlier server process.
   { name: "remove stale job folders", run: () => removeStaleJobFolders() },
   // API tokens that expired while the server was down get their audit entry; then hourly.

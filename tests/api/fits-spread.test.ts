@@ -5,7 +5,7 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { FitDetailDto } from "@/lib/server/fits/fits";
-import { cancelJob } from "@/lib/server/jobs/runner";
+import { cancelJob } from "@/lib/server/jobs/queue";
 import { call, discoverRoutes } from "../support/api";
 import { startTestStack, type TestStack } from "../support/stack";
 import { makeWorld, type World } from "../support/world";

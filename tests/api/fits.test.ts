@@ -10,7 +10,7 @@ import { beforeAll, describe, expect, it } from "vitest";
 import packageJson from "@/package.json";
 import type { FitDetailDto } from "@/lib/server/fits/fits";
 import { numbersOf } from "@/lib/server/fits/result";
-import { waitForJob } from "@/lib/server/jobs/runner";
+import { waitForJob } from "@/lib/server/jobs/queue";
 import { database } from "@/lib/server/services";
 import { waitForMailWithSubject } from "../support/mail";
 import { makePerson } from "../support/world";

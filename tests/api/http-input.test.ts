@@ -1,7 +1,7 @@
 /**
  * Input handling through the API: names that exist on every JavaScript object are no kinetics
  * symbols, deep nesting is refused naming the limit, a negative diffusivity is refused naming the
- * field, search text matches `%` and `_` literally, and no message repeats its field prefix.
+ * field, search text matches `%` and `_` literally and ignores letter case, and no message repeats its field prefix.
  * Expected messages are the product's own (common practice, no source).
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
@@ -99,6 +99,23 @@ describe("search text", () => {
     expect(await names("e_c")).toEqual(["Snake_case"]);
     expect(await names("'")).toEqual(["Quote's study"]);
     expect(await names("!")).toEqual([]);
+  });
+
+  it("search ignores the case of letters, on SQLite and on PostgreSQL alike", async () => {
+    // Expected: what SQLite's LIKE already did for ASCII letters (product rule, no source).
+    for (const name of ["Zebrafish FIN rays", "zebrafish fin rays (repeat)"]) {
+      const res = await api("POST", "/api/v1/labs/[labId]/studies", {
+        json: { name, tissue: "fin", organism: "fish" },
+      });
+      expect(res.status).toBe(201);
+    }
+    for (const q of ["fin RAYS", "ZEBRAFISH FIN", "Fin Rays"]) {
+      const res = await api("GET", "/api/v1/labs/[labId]/studies", { query: `q=${encodeURIComponent(q)}` });
+      expect((res.body.items as { name: string }[]).map((s) => s.name).sort()).toEqual([
+        "Zebrafish FIN rays",
+        "zebrafish fin rays (repeat)",
+      ]);
+    }
   });
 
   it("a control character in the search text is a 400 saying so", async () => {

@@ -19,13 +19,9 @@ import { startReadout } from "@/lib/server/readouts/readouts";
 import { createSpecimen } from "@/lib/server/studies/specimens";
 import { createStudy } from "@/lib/server/studies/studies";
 import { storeUpload } from "@/lib/server/uploads/uploads";
-import {
-  forgetRunnerStateForTest,
-  INTERRUPTED_TWICE,
-  RESTARTED_NOTE,
-  stopJobs,
-  waitForJob,
-} from "@/lib/server/jobs/runner";
+import { waitForJob } from "@/lib/server/jobs/queue";
+import { INTERRUPTED_TWICE, RESTARTED_NOTE } from "@/lib/server/jobs/recovery";
+import { forgetRunnerStateForTest, stopJobs } from "@/lib/server/jobs/worker";
 import { removeStaleJobFolders, STALE_AFTER_MS } from "@/lib/server/jobs/temp-folders";
 import { runStartupTasks } from "@/lib/server/startup";
 import { database, services } from "@/lib/server/services";
@@ -209,7 +205,7 @@ describe("jobs after a server stop", () => {
             "tsx",
             "tests/support/job-child.ts",
             "--db",
-            stack.services.config.databasePath,
+            stack.services.config.databaseUrl || stack.services.config.databasePath,
             "--lab",
             w.labId,
             "--ms",

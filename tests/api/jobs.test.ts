@@ -1,6 +1,6 @@
 /** The background-job runner: queued → running → succeeded/failed/cancelled, with progress. */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { cancelJob, enqueueJob, getJob, waitForJob } from "@/lib/server/jobs/runner";
+import { cancelJob, enqueueJob, getJob, waitForJob } from "@/lib/server/jobs/queue";
 import { startTestStack, type TestStack } from "../support/stack";
 import { makeWorld, type World } from "../support/world";
 

@@ -8,7 +8,7 @@ import { describe, expect, it } from "vitest";
 import { encodePng } from "@/lib/imaging";
 import { READOUT_MESSAGES } from "@/lib/readout";
 import { makeStripes } from "@/lib/synthetic";
-import { waitForJob } from "@/lib/server/jobs/runner";
+import { waitForJob } from "@/lib/server/jobs/queue";
 import { database } from "@/lib/server/services";
 import { errorOf } from "../support/lab-api";
 import { setupReadoutLab } from "../support/readouts";

@@ -5,7 +5,7 @@ import { describe, expect, it } from "vitest";
 import { getCatalogueKinetics } from "@/lib/kinetics";
 import { computeDispersion } from "@/lib/stability";
 import type { RunDetailDto } from "@/lib/server/runs/types";
-import { getJob, waitForJob } from "@/lib/server/jobs/runner";
+import { getJob, waitForJob } from "@/lib/server/jobs/queue";
 import { database } from "@/lib/server/services";
 import { waitForMailWithSubject } from "../support/mail";
 import { TINY_RUN } from "./permission-cases/runs";

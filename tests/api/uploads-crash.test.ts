@@ -13,7 +13,7 @@ import { encodePng } from "@/lib/imaging";
 import { makeStripes } from "@/lib/synthetic";
 import { createSpecimen } from "@/lib/server/studies/specimens";
 import { createStudy } from "@/lib/server/studies/studies";
-import { stopJobs } from "@/lib/server/jobs/runner";
+import { stopJobs } from "@/lib/server/jobs/worker";
 import { uploadTempRoot } from "@/lib/server/uploads/multipart";
 import { database } from "@/lib/server/services";
 import { sweepUploads } from "@/lib/server/uploads/recovery";
@@ -61,6 +61,7 @@ function startChild(mode: "slow-body" | "slow-put") {
         NODE_OPTIONS: "",
         MORPHOKIN_DATA_DIR: c.dataDir,
         DATABASE_PATH: c.databasePath,
+        DATABASE_URL: c.databaseUrl,
         MAX_UPLOAD_BYTES: String(4 * PUT_BYTES),
         S3_ENDPOINT: c.s3.endpoint,
         S3_BUCKET: c.s3.bucket,

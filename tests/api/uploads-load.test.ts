@@ -16,7 +16,7 @@ import { makeStripes } from "@/lib/synthetic";
 import { createSpecimen } from "@/lib/server/studies/specimens";
 import { createStudy } from "@/lib/server/studies/studies";
 import { uploadGate } from "@/lib/server/uploads/back-pressure";
-import { stopJobs } from "@/lib/server/jobs/runner";
+import { stopJobs } from "@/lib/server/jobs/worker";
 import { uploadTempRoot } from "@/lib/server/uploads/multipart";
 import { database, setServicesForTest } from "@/lib/server/services";
 import { call, discoverRoutes, multipart } from "../support/api";

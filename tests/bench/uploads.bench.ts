@@ -19,7 +19,7 @@ import { encodePng } from "../../lib/imaging";
 import { makeStripes } from "../../lib/synthetic";
 import { createSpecimen } from "../../lib/server/studies/specimens";
 import { createStudy } from "../../lib/server/studies/studies";
-import { stopJobs } from "../../lib/server/jobs/runner";
+import { stopJobs } from "../../lib/server/jobs/worker";
 import { database } from "../../lib/server/services";
 import { call, discoverRoutes, multipart } from "../support/api";
 import { freePort, startTestStack, type TestStack } from "../support/stack";
@@ -84,6 +84,7 @@ async function startServer(stack: TestStack) {
         NEXTAUTH_SECRET: "bench-secret-bench-secret-bench-secret",
         MORPHOKIN_DATA_DIR: c.dataDir,
         DATABASE_PATH: c.databasePath,
+        DATABASE_URL: c.databaseUrl,
         S3_ENDPOINT: c.s3.endpoint,
         S3_BUCKET: c.s3.bucket,
         SMTP_URL: c.smtp.url,

@@ -8,7 +8,7 @@ import { createKineticsPredictor } from "@/lib/fitting/kinetics-predictor";
 import { getCatalogueKinetics } from "@/lib/kinetics";
 import type { FitCreateInput } from "@/lib/contracts/fit";
 import type { FitDetailDto } from "@/lib/server/fits/fits";
-import { waitForJob } from "@/lib/server/jobs/runner";
+import { waitForJob } from "@/lib/server/jobs/queue";
 import { setupLabApi } from "./lab-api";
 import type { Person } from "./world";
 

@@ -1,11 +1,14 @@
 /**
  * A second server process for the kill test (tests/api/jobs-recovery.test.ts): opens the same
- * SQLite file, queues a slow echo job, prints its id on stdout and runs it until it is killed.
- * `node --conditions=react-server --import tsx tests/support/job-child.ts --db FILE --lab LAB_ID --ms MS`
+ * database (a SQLite file or a postgres:// URL), queues a slow echo job, prints its id on stdout
+ * and runs it until it is killed.
+ * `node --conditions=react-server --import tsx tests/support/job-child.ts --db FILE_OR_URL --lab LAB_ID --ms MS`
  */
 import { readConfig } from "@/lib/server/config";
+import { isPostgresUrl } from "@/lib/server/db";
 import { createServices, setServicesForTest } from "@/lib/server/services";
-import { enqueueJob } from "@/lib/server/jobs/runner";
+import { enqueueJob } from "@/lib/server/jobs/queue";
+import { startJobs } from "@/lib/server/jobs/wiring";
 
 function arg(name: string): string {
   const i = process.argv.indexOf(name);
@@ -14,9 +17,14 @@ function arg(name: string): string {
 }
 
 async function main() {
-  const services = createServices({ ...readConfig(), databasePath: arg("--db") });
+  const db = arg("--db");
+  const services = createServices({
+    ...readConfig(),
+    ...(isPostgresUrl(db) ? { databaseUrl: db } : { databasePath: db, databaseUrl: "" }),
+  });
   await services.db.ready;
   setServicesForTest(services);
+  startJobs();
   const job = await enqueueJob({
     labId: arg("--lab"),
     kind: "echo",

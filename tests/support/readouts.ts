@@ -6,7 +6,7 @@ import { expect } from "vitest";
 import { createSpecimen } from "@/lib/server/studies/specimens";
 import { createStudy } from "@/lib/server/studies/studies";
 import type { ReadoutDetailDto, ReadoutDto } from "@/lib/server/readouts/readouts";
-import { waitForJob } from "@/lib/server/jobs/runner";
+import { waitForJob } from "@/lib/server/jobs/queue";
 import { multipart } from "./api";
 import { setupLabApi, type LabApi } from "./lab-api";
 

@@ -1,6 +1,6 @@
 /** What the verification-run API tests share: calling the run routes as a member, waiting for a run. */
 import type { RunDetailDto } from "@/lib/server/runs/types";
-import { waitForJob } from "@/lib/server/jobs/runner";
+import { waitForJob } from "@/lib/server/jobs/queue";
 import { setupLabApi } from "./lab-api";
 
 export const RUNS = "/api/v1/labs/[labId]/runs";

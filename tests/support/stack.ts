@@ -3,25 +3,18 @@
  * fake SMTP server on free ports, wired in through the composition root.
  */
 import { mkdtempSync, rmSync } from "node:fs";
-import net from "node:net";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { startFakeS3 } from "@/fake-services/fake-s3";
 import { startFakeSmtp } from "@/fake-services/fake-smtp";
 import { readConfig } from "@/lib/server/config";
 import { createServices, setServicesForTest, type Services } from "@/lib/server/services";
-import { resumeJobs, stopJobs } from "@/lib/server/jobs/runner";
+import { stopJobs } from "@/lib/server/jobs/worker";
+import { startJobs } from "@/lib/server/jobs/wiring";
+import { freePort } from "./free-port";
+import { createTestDatabase } from "./postgres";
 
-export async function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const srv = net.createServer();
-    srv.once("error", reject);
-    srv.listen(0, "127.0.0.1", () => {
-      const port = (srv.address() as net.AddressInfo).port;
-      srv.close(() => resolve(port));
-    });
-  });
-}
+export { freePort };
 
 /**
  * A port where nothing listens, for "service is down" tests. Port 1 (tcpmux) is privileged and
@@ -41,11 +34,14 @@ export async function startTestStack(): Promise<TestStack> {
   const [s3Port, smtpPort, httpPort] = [await freePort(), await freePort(), await freePort()];
   const s3 = await startFakeS3({ port: s3Port, directory: path.join(dir, "s3"), bucket: "morphokin-test" });
   const smtp = await startFakeSmtp({ smtpPort, httpPort, directory: path.join(dir, "mail") });
+  // MORPHOKIN_TEST_DB=postgres: a database of its own on the run's test server (tests/support/postgres.ts).
+  const pgDatabase = process.env.MORPHOKIN_TEST_DB === "postgres" ? await createTestDatabase() : null;
   const base = readConfig();
   const config = {
     ...base,
     dataDir: dir,
     databasePath: path.join(dir, "test.sqlite"),
+    databaseUrl: pgDatabase?.url ?? "",
     appUrl: "http://127.0.0.1:3999",
     s3: { ...base.s3, endpoint: `http://127.0.0.1:${s3Port}`, bucket: "morphokin-test" },
     smtp: { ...base.smtp, url: `smtp://127.0.0.1:${smtpPort}` },
@@ -55,15 +51,17 @@ export async function startTestStack(): Promise<TestStack> {
   const services = createServices(config);
   await services.db.ready;
   setServicesForTest(services);
-  resumeJobs();
+  startJobs();
   return {
     services,
     dir,
     mailboxUrl: config.devMailboxUrl,
     async close() {
       await stopJobs();
+      await services.jobs.close();
       setServicesForTest(undefined);
       await services.db.sequelize.close();
+      await pgDatabase?.drop();
       await Promise.allSettled([s3.close(), smtp.close()]);
       rmSync(dir, { recursive: true, force: true });
     },

@@ -1,7 +1,7 @@
 /**
  * A child process that sends one upload through the real upload route handler and is meant to be
  * killed (SIGKILL) half-way by tests/api/uploads-crash.test.ts. Configuration comes from the
- * environment exactly as for the server (DATABASE_PATH, MORPHOKIN_DATA_DIR, S3_*).
+ * environment exactly as for the server (DATABASE_URL or DATABASE_PATH, MORPHOKIN_DATA_DIR, S3_*).
  *
  *   tsx tests/support/upload-child.ts <mode> <labId> <specimenId> <token> <bytes>
  *

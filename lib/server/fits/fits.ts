@@ -11,7 +11,7 @@ import type { FitCreate } from "@/lib/contracts/fit";
 import type { JobStatus } from "@/models/job";
 import { authorize, isUuid, type LabContext } from "../access";
 import { notFound } from "../errors";
-import { enqueueJob } from "../jobs/runner";
+import { enqueueJob } from "../jobs/queue";
 import { containsText, type ListQuery, type ListResult } from "../web/list";
 import { database, services } from "../services";
 import { recordAudit } from "../audit";

@@ -15,7 +15,6 @@ import { fitModel, fitRunner } from "./process";
 import { predictAtFit } from "./predictions";
 import type { FittedModelResult, StoredFitResult } from "./result";
 import type { FitProvenance, StoredFitSpec } from "./spec-types";
-import { registerJobHandler } from "../jobs/registry";
 import { JobCancelledError, type JobHandler } from "../jobs/types";
 
 const GONE = "the fit was removed before it finished";
@@ -95,6 +94,3 @@ export const runFitJob: JobHandler = async (job, ctx) => {
     throw err;
   }
 };
-
-registerJobHandler("fit", runFitJob);
-registerJobHandler("fit-comparison", runFitJob);

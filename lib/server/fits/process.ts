@@ -1,7 +1,7 @@
 /**
- * Runs one model of a stored fit off the event loop: a child Node process running the command
- * line's `fit --spec FILE --json` (catalogue kinetics) or `fit-child.ts` (lab kinetics, whose
- * definition the command line cannot look up), killed when the job is cancelled. One fit with
+ * Runs one model of a stored fit off the event loop: a child Node process running
+ * lib/workers/fit-child.ts (the command line's `fit` for catalogue kinetics, the stored definition
+ * for lab kinetics), killed when the job is cancelled. One fit with
  * profiles takes seconds of pure computation; in-process it would stall every other request.
  *
  * FIT_IN_PROCESS=1 runs the same function in this process instead (measurements, debugging).
@@ -13,7 +13,7 @@ import path from "node:path";
 import type { WavelengthFitResult } from "@/lib/fitting";
 import { readConfig } from "../config";
 import { AppError } from "../errors";
-import { runTsxChild } from "../jobs/child-process";
+import { startChild } from "@/lib/workers/start-child";
 import { JobCancelledError } from "../jobs/types";
 import { fitStoredModel, singleModelFile } from "./model-run";
 import type { StoredFitModel, StoredFitSpec } from "./spec-types";
@@ -23,12 +23,6 @@ export const FIT_MODEL_TIME_LIMIT_MS = 10 * 60_000;
 
 export const fitRunner = (): "child-process" | "in-process" =>
   readConfig().fitInProcess ? "in-process" : "child-process";
-
-function commandFor(file: string, model: StoredFitModel): string[] {
-  return model.definition
-    ? ["lib/server/fits/child.ts", "--spec", file]
-    : ["lib/cli/main.ts", "fit", "--spec", file, "--json"];
-}
 
 /** Fits one model; the result is exactly what `cli fit --spec … --json` prints (without `kinetics`). */
 export async function fitModel(
@@ -42,7 +36,7 @@ export async function fitModel(
   const file = path.join(dir, "fit.json");
   writeFileSync(file, JSON.stringify(singleModelFile(spec, model)));
   try {
-    const r = await runTsxChild(commandFor(file, model), { signal, timeLimitMs: FIT_MODEL_TIME_LIMIT_MS });
+    const r = await startChild("fit", ["--spec", file], { signal, timeLimitMs: FIT_MODEL_TIME_LIMIT_MS });
     if (r.timedOut)
       throw new AppError(
         "unprocessable",

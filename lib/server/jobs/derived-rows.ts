@@ -8,11 +8,19 @@ import "server-only";
 import { Op } from "sequelize";
 import { database } from "../services";
 
-const OPEN = { [Op.in]: ["queued", "running"] };
+const OPEN_ROWS = { [Op.in]: ["queued", "running"] };
 
-/** Sets the open derived rows of these ended jobs to the job's status and error. */
-export async function settleDerivedRows(jobs: { id: string; status: string; error: string | null }[]): Promise<void> {
+/**
+ * Sets the open derived rows of these ended jobs to the job's status and error. `overCancelled`:
+ * also rows the handler marked "cancelled" (a job stopped by its time limit: the handler saw an
+ * aborted signal, but the job failed).
+ */
+export async function settleDerivedRows(
+  jobs: { id: string; status: string; error: string | null }[],
+  options: { overCancelled?: boolean } = {},
+): Promise<void> {
   const m = await database();
+  const OPEN = { [Op.in]: options.overCancelled ? ["queued", "running", "cancelled"] : ["queued", "running"] };
   for (const job of jobs) {
     if (job.status !== "failed" && job.status !== "cancelled") continue;
     const values = { status: job.status, error: job.error } as const;
@@ -32,7 +40,7 @@ export async function settleAllDerivedRows(): Promise<void> {
   const jobIds = new Set<string>();
   for (const model of open) {
     const rows = await (model as typeof m.Readout).findAll({
-      where: { status: OPEN, jobId: { [Op.ne]: null } },
+      where: { status: OPEN_ROWS, jobId: { [Op.ne]: null } },
       attributes: ["jobId"],
     });
     for (const r of rows) jobIds.add(r.jobId!);

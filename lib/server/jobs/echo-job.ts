@@ -1,9 +1,8 @@
-/** A trivial job kind used by the runner's own tests: waits `ms`, checks cancellation, echoes. */
+/** A trivial job kind used by the worker's own tests: waits `ms`, checks cancellation, echoes. */
 import "server-only";
-import { registerJobHandler } from "./registry";
-import { JobCancelledError } from "./types";
+import { JobCancelledError, type JobHandler } from "./types";
 
-registerJobHandler("echo", async (job, ctx) => {
+export const runEchoJob: JobHandler = async (job, ctx) => {
   const ms = Number(job.payload.ms ?? 0);
   const steps = 10;
   for (let i = 0; i < steps; i++) {
@@ -13,4 +12,4 @@ registerJobHandler("echo", async (job, ctx) => {
   }
   if (job.payload.fail) throw new Error(String(job.payload.fail));
   return { echo: job.payload.value ?? null };
-});
+};

@@ -1,7 +1,7 @@
 import "server-only";
 import { authorize, type LabContext } from "../access";
 import { notFound } from "../errors";
-import { cancelJob, toJobDto, type JobDto } from "./runner";
+import { cancelJob, toJobDto, type JobDto } from "./queue";
 import { database } from "../services";
 
 export async function listJobs(ctx: LabContext, mine: boolean): Promise<JobDto[]> {

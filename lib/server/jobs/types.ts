@@ -18,6 +18,13 @@ export interface JobInput {
 /** Returns the result (stored as JSON) or throws; a thrown AppError's message is kept for the user. */
 export type JobHandler = (job: JobInput, ctx: JobContext) => Promise<Record<string, unknown>>;
 
+/**
+ * Removes every object any attempt of a job may have written (its keys are fixed by the job's own
+ * ids, so a re-run overwrites them). Called when a job that a stop interrupted ends without
+ * success, because the killed attempt could not clean up after itself.
+ */
+export type JobCleanup = (job: JobInput) => Promise<void>;
+
 /** Thrown by a handler that saw `signal.aborted`. */
 export class JobCancelledError extends Error {
   constructor() {

@@ -20,8 +20,7 @@ import { toAppError } from "../core-errors";
 import { readImage, readTable } from "./process";
 import { headlineOf, type ReadoutResult } from "./result";
 import type { StoredImageSettings, StoredReadoutSettings, StoredTableSettings } from "./settings";
-import { registerJobCleanup, registerJobHandler } from "../jobs/registry";
-import { JobCancelledError, type JobHandler } from "../jobs/types";
+import { JobCancelledError, type JobCleanup, type JobHandler } from "../jobs/types";
 
 const GONE = "the readout was removed (with its upload) before it finished";
 
@@ -113,13 +112,11 @@ export const runReadoutJob: JobHandler = async (job, ctx) => {
   }
 };
 
-registerJobHandler("readout", runReadoutJob);
-
-// A killed attempt may have put derived objects; their keys are fixed by the readout's ids.
-registerJobCleanup("readout", async (job) => {
+/** A killed attempt may have put derived objects; their keys are fixed by the readout's ids. */
+export const cleanUpReadoutJob: JobCleanup = async (job) => {
   const m = await database();
   const row = await m.Readout.findOne({ where: { id: String(job.payload.readoutId ?? ""), labId: job.labId } });
   if (!row || row.status === "succeeded") return;
   for (const name of Object.keys(DERIVED_PRODUCTS))
     await services().store.delete(readoutDerivedKey(row.labId, row.uploadId, row.id, name));
-});
+};

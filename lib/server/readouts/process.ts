@@ -1,6 +1,6 @@
 /**
- * Runs an image or table readout off the event loop in a child Node process (readout-child.ts,
- * through jobs/child-process.ts), killed when the job is cancelled or runs past
+ * Runs an image or table readout off the event loop in a child Node process
+ * (lib/workers/readout-child.ts, started by lib/workers/start-child.ts), killed when the job is cancelled or runs past
  * READOUT_TIME_LIMIT_MS. A 4096² image is ~2 s of pure computation, and parsing a 1 000 000-row
  * CSV with its statistics ~5 s; in-process every other request would wait for it. Readout errors
  * come back as the same AppError (code, message, details) the in-process path throws.
@@ -13,7 +13,7 @@ import { tmpdir } from "node:os";
 import path from "node:path";
 import { readConfig } from "../config";
 import { AppError, type ErrorCode } from "../errors";
-import { parseProtocolLine, runTsxChild } from "../jobs/child-process";
+import { parseProtocolLine, startChild } from "@/lib/workers/start-child";
 import { JobCancelledError } from "../jobs/types";
 import { runImageReadout, type ImageReadoutOutput } from "./image";
 import type { ImageReadoutResult, TableReadoutResult } from "./result";
@@ -80,19 +80,16 @@ async function inChild<T>(
     type Failure = { code: ErrorCode; message: string; details: unknown };
     let failure: Failure | null = null;
     let progress = Promise.resolve();
-    const r = await runTsxChild(
-      ["lib/server/readouts/child.ts", "--input", input, "--settings", settingsFile, "--out", dir],
-      {
-        signal,
-        timeLimitMs: READOUT_TIME_LIMIT_MS,
-        onLine(line) {
-          const q = parseProtocolLine<{ fraction: number; note: string }>(line, "progress");
-          if (q) progress = progress.then(() => step(q.fraction, q.note)).catch(() => undefined);
-          failure = parseProtocolLine<Failure>(line, "error") ?? failure;
-          return line.startsWith("progress ") || line.startsWith("error ");
-        },
+    const r = await startChild("readout", ["--input", input, "--settings", settingsFile, "--out", dir], {
+      signal,
+      timeLimitMs: READOUT_TIME_LIMIT_MS,
+      onLine(line) {
+        const q = parseProtocolLine<{ fraction: number; note: string }>(line, "progress");
+        if (q) progress = progress.then(() => step(q.fraction, q.note)).catch(() => undefined);
+        failure = parseProtocolLine<Failure>(line, "error") ?? failure;
+        return line.startsWith("progress ") || line.startsWith("error ");
       },
-    );
+    });
     await progress;
     if (r.timedOut)
       throw new AppError(

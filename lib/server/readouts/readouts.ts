@@ -14,7 +14,7 @@ import type { Readout } from "@/models/readout";
 import { StorageUnavailableError } from "@/storage/object-store";
 import { authorize, type LabContext } from "../access";
 import { AppError, notFound } from "../errors";
-import { enqueueJob } from "../jobs/runner";
+import { enqueueJob } from "../jobs/queue";
 import { containsText, type ListQuery, type ListResult } from "../web/list";
 import { database, services } from "../services";
 import { headlineOf, type ReadoutHeadline, type ReadoutResult } from "./result";

@@ -1,9 +1,9 @@
 /**
- * Job kind "simulation": runs the `simulate` CLI on the run's stored RUN.json in a child process
- * (jobs/child-process.ts) on SIMULATION_THREADS threads (a 256² run of 10 000 steps is about a
+ * Job kind "simulation": runs the `simulate` command on the run's stored RUN.json in a child
+ * process (lib/workers/simulate-child.ts) on SIMULATION_THREADS threads (a 256² run of 10 000 steps is about a
  * minute; in-process it would stop the server answering), reads its progress lines, kills it on
  * cancel, then colours the final fields and snapshots, reads the final pattern with the tissue
- * readout (data/readout-process.ts) and stores everything.
+ * readout (readouts/process.ts) and stores everything.
  * Nothing half-written: objects are put first, the row becomes "succeeded" in one update, and a
  * failure removes the objects again.
  */
@@ -23,9 +23,8 @@ import { compareWithPrediction } from "./compare";
 import { fieldRange, fieldToGrey, renderFieldPng } from "./images";
 import { initialFieldFile, loadRunStartFields } from "./start";
 import type { RunPlan, RunResult, RunSpec } from "./types";
-import { parseProtocolLine, runTsxChild } from "../jobs/child-process";
-import { registerJobCleanup, registerJobHandler } from "../jobs/registry";
-import { JobCancelledError, type JobHandler } from "../jobs/types";
+import { parseProtocolLine, startChild } from "@/lib/workers/start-child";
+import { JobCancelledError, type JobCleanup, type JobHandler } from "../jobs/types";
 
 const GONE = "the run was removed before it finished";
 /** Wall-clock limit of the simulation process: RUN_TIME_FACTOR × the CPU estimate + RUN_START_ALLOWANCE_S (design choice). */
@@ -53,19 +52,9 @@ async function runCli(
   limitS: number,
   onProgress: (fraction: number, timeS: number) => void,
 ): Promise<CliOutput> {
-  const r = await runTsxChild(
-    [
-      "lib/cli/main.ts",
-      "simulate",
-      "--spec",
-      specFile,
-      "--out",
-      outDir,
-      "--threads",
-      String(services().config.simulationThreads),
-      "--progress",
-      "--json",
-    ],
+  const r = await startChild(
+    "simulate",
+    ["--spec", specFile, "--out", outDir, "--threads", String(services().config.simulationThreads), "--progress"],
     {
       signal,
       timeLimitMs: limitS * 1000,
@@ -284,8 +273,6 @@ export const runSimulationJob: JobHandler = async (job, ctx) => {
   }
 };
 
-registerJobHandler("simulation", runSimulationJob);
-
 /** Every object name a run may store (its keys are fixed by the run's id; a re-run overwrites them). */
 function runObjectNames(spec: RunSpec, plan: RunPlan): string[] {
   const names = ["result.json", "run.json", "spectrum.json", "preview.png", "fft.png"];
@@ -296,11 +283,11 @@ function runObjectNames(spec: RunSpec, plan: RunPlan): string[] {
   return names;
 }
 
-// A killed attempt may have put objects; remove them all when the run ends without success.
-registerJobCleanup("simulation", async (job) => {
+/** A killed attempt may have put objects; removes them all when the run ends without success. */
+export const cleanUpSimulationJob: JobCleanup = async (job) => {
   const m = await database();
   const row = await m.SimulationRun.findOne({ where: { id: String(job.payload.runId ?? ""), labId: job.labId } });
   if (!row || row.status === "succeeded") return;
   for (const name of runObjectNames(row.spec as unknown as RunSpec, row.plan as unknown as RunPlan))
     await services().store.delete(simulationRunKey(row.labId, row.id, name));
-});
+};

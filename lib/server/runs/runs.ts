@@ -15,7 +15,7 @@ import type { JobStatus } from "@/models/job";
 import { StorageUnavailableError } from "@/storage/object-store";
 import { authorize, isUuid, type LabContext } from "../access";
 import { AppError, notFound } from "../errors";
-import { cancelJob, enqueueJob } from "../jobs/runner";
+import { cancelJob, enqueueJob } from "../jobs/queue";
 import { containsText, type ListQuery, type ListResult } from "../web/list";
 import { database, services } from "../services";
 import { recordAudit } from "../audit";

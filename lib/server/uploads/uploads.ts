@@ -247,7 +247,7 @@ export async function deleteUpload(ctx: LabContext, uploadId: string): Promise<v
       .catch((err) => console.error(`upload ${u.id} deleted: could not remove ${key}; the sweep will`, err));
   // A readout still queued or running finds its row gone and removes what it wrote; stop it early.
   if (jobIds.length) {
-    const { cancelJob } = await import("../jobs/runner");
+    const { cancelJob } = await import("../jobs/queue");
     for (const id of jobIds) await cancelJob(ctx.labId, id).catch(() => undefined);
   }
 }

@@ -3,6 +3,7 @@ import "server-only";
 import { literal, Op } from "sequelize";
 import { z } from "zod";
 import { AppError } from "../errors";
+import { services } from "../services";
 import { describeIssue } from "./http";
 
 export interface ListQuery<S extends string> {
@@ -54,12 +55,19 @@ export function parseListQuery<S extends string>(
 const LIKE_ESCAPE = "!";
 
 /**
- * A where-clause value matching text that contains `q` literally: `%` and `_` in what the user
- * typed are escaped, so `?q=_` finds an underscore rather than every row. `LIKE … ESCAPE '!'` is
- * standard SQL (SQLite and PostgreSQL both accept it); the pattern is a quoted literal with `'`
- * doubled, the standard SQL string escape (and parseListQuery has refused control characters).
+ * A where-clause value matching text that contains `q` literally, ignoring letter case: `%` and
+ * `_` in what the user typed are escaped, so `?q=_` finds an underscore rather than every row.
+ * `LIKE … ESCAPE '!'` is standard SQL (SQLite and PostgreSQL both accept it); the pattern is a
+ * quoted literal with `'` doubled, the standard SQL string escape (and parseListQuery has refused
+ * control characters).
+ *
+ * The one dialect difference here is documented, not chosen: SQLite's LIKE ignores the case of
+ * ASCII letters (sqlite.org/lang_expr.html#like), PostgreSQL's LIKE respects case and ILIKE is its
+ * case-insensitive form (postgresql.org/docs/15/functions-matching.html), which SQLite lacks. A
+ * value cannot lower-case the column it is compared with, so each gets its own operator.
  */
 export function containsText(q: string) {
   const pattern = `%${q.replace(/[!%_]/g, (c) => LIKE_ESCAPE + c)}%`;
-  return { [Op.like]: literal(`'${pattern.replace(/'/g, "''")}' ESCAPE '${LIKE_ESCAPE}'`) };
+  const op = services().db.sequelize.getDialect() === "postgres" ? Op.iLike : Op.like;
+  return { [op]: literal(`'${pattern.replace(/'/g, "''")}' ESCAPE '${LIKE_ESCAPE}'`) };
 }

@@ -3,7 +3,7 @@ import { fitCreateSchema } from "@/lib/contracts/fit";
 import { buildFitSpec } from "@/lib/server/fits/spec";
 import { SOFTWARE_VERSION } from "@/lib/server/readouts/readouts";
 import { runFitJob } from "@/lib/server/fits/job";
-import { cancelJob } from "@/lib/server/jobs/runner";
+import { cancelJob } from "@/lib/server/jobs/queue";
 import { database } from "@/lib/server/services";
 import type { World } from "../../support/world";
 import { ALL, NOT_COLLAB, lab, managerCtx, type Case } from "./shared";

@@ -1,7 +1,7 @@
 /** Foundation routes: accounts, labs, members, invitations, audit, studies, specimens, uploads, tokens, jobs. */
 import { createToken } from "@/lib/server/accounts/tokens";
 import { database } from "@/lib/server/services";
-import { enqueueJob } from "@/lib/server/jobs/runner";
+import { enqueueJob } from "@/lib/server/jobs/queue";
 import { multipart } from "../../support/api";
 import { makePerson } from "../../support/world";
 import {

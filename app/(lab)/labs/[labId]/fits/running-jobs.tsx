@@ -3,7 +3,7 @@
 import Link from "next/link";
 import useSWR from "swr";
 import { fetchJson } from "@/lib/client/api";
-import type { JobDto } from "@/lib/server/jobs/runner";
+import type { JobDto } from "@/lib/server/jobs/queue";
 
 const WORDS: Record<string, string> = {
   fit: "Fit",

@@ -10,7 +10,7 @@ import { Badge, Panel } from "@/components/ui/panel";
 import { formatNumber as f } from "@/components/charts/dispersion-format";
 import { ApiError, fetchJson, sendJson } from "@/lib/client/api";
 import type { FitDetailDto } from "@/lib/server/fits/fits";
-import type { JobDto } from "@/lib/server/jobs/runner";
+import type { JobDto } from "@/lib/server/jobs/queue";
 import { FIT_STATUS_TONE, FIT_STATUS_WORDS, isActive, VERDICT_TONE } from "../fit-format";
 import { FitModelDetail } from "./fit-model-detail";
 import { FitProvenance } from "./fit-provenance";

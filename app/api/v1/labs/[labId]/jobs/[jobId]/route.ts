@@ -1,7 +1,7 @@
 import { cancelOwnJob } from "@/lib/server/jobs/job-rows";
 import { json } from "@/lib/server/web/http";
 import { labRoute } from "@/lib/server/web/lab-route";
-import { getJob } from "@/lib/server/jobs/runner";
+import { getJob } from "@/lib/server/jobs/queue";
 
 export const runtime = "nodejs";
 

@@ -1,15 +1,18 @@
 /**
- * The one way jobs run heavy work off the event loop: a child Node process running a TypeScript
- * entry under tsx, from the project folder, with the parent's NODE_OPTIONS cleared. Its stderr is
+ * The one way jobs run heavy work off the event loop: a child Node process running one of the
+ * entries of this folder (`startChild("readout", args)` runs `lib/workers/readout-child.ts`)
+ * under tsx, from the project folder, with the parent's NODE_OPTIONS cleared. Its stderr is
  * split into lines; each line goes to `onLine` first (progress and error lines of the entry's own
  * protocol) and is kept as plain stderr when `onLine` does not take it. The child is killed when
  * `signal` aborts (the promise then rejects with JobCancelledError) or after `timeLimitMs`
  * (resolves with `timedOut: true`); every other end resolves, and the caller reads the exit code.
- * Used by image readouts (data/readout-process.ts), fits (data/fit-process.ts) and simulations.
+ * Used by image readouts (server/readouts/process.ts), fits (server/fits/process.ts) and simulations
+ * (server/runs/job.ts).
  */
 import "server-only";
 import { spawn } from "node:child_process";
-import { JobCancelledError } from "./types";
+import path from "node:path";
+import { JobCancelledError } from "../server/jobs/types";
 
 /**
  * Node flags of a process that loads lib/server outside Next: TypeScript through tsx, and the
@@ -25,13 +28,32 @@ export interface ChildOutcome {
   timedOut: boolean;
 }
 
-export function runTsxChild(
-  entryAndArgs: string[],
+/**
+ * Every child entry, by name. The entries are files of this folder (type-checked and linted with
+ * the rest); a file path, not an import, because Next bundles the server and a bundled module has
+ * no file a child process could run.
+ */
+const CHILD_ENTRIES = {
+  readout: "readout-child.ts",
+  fit: "fit-child.ts",
+  simulate: "simulate-child.ts",
+} as const;
+
+export type ChildName = keyof typeof CHILD_ENTRIES;
+
+/** The file a child runs; the server and workers run from the project folder. */
+export function childEntryPath(name: ChildName): string {
+  return path.join(process.cwd(), "lib", "workers", CHILD_ENTRIES[name]);
+}
+
+export function startChild(
+  name: ChildName,
+  args: string[],
   options: { signal: AbortSignal; timeLimitMs: number; onLine?: (line: string) => boolean },
 ): Promise<ChildOutcome> {
   return new Promise((resolve, reject) => {
     if (options.signal.aborted) return reject(new JobCancelledError());
-    const child = spawn(process.execPath, [...SERVER_NODE_FLAGS, ...entryAndArgs], {
+    const child = spawn(process.execPath, [...SERVER_NODE_FLAGS, childEntryPath(name), ...args], {
       cwd: process.cwd(),
       stdio: ["ignore", "pipe", "pipe"],
       env: { ...process.env, NODE_OPTIONS: "" },

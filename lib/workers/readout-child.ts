@@ -1,7 +1,7 @@
 /**
  * Child-process entry of a readout, so decoding and FFTs of a large image, or parsing and
  * statistics of a large table, never hold the server's event loop: `node --conditions=react-server --import tsx
- * lib/server/readouts/child.ts --input FILE --settings FILE --out DIR` runs
+ * lib/workers/readout-child.ts --input FILE --settings FILE --out DIR` runs
  * {@link runImageReadout} (settings of kind "image"; writes the derived products into DIR) or
  * {@link runTableReadout} (kind "table"; no derived products),
  * prints the result as one JSON object on stdout and reports progress on stderr as lines
@@ -11,10 +11,10 @@
 import "server-only";
 import { readFileSync, writeFileSync } from "node:fs";
 import path from "node:path";
-import { toAppError } from "../core-errors";
-import { runImageReadout } from "./image";
-import type { StoredImageSettings, StoredReadoutSettings, StoredTableSettings } from "./settings";
-import { runTableReadout } from "./table";
+import { toAppError } from "../server/core-errors";
+import { runImageReadout } from "../server/readouts/image";
+import type { StoredImageSettings, StoredReadoutSettings, StoredTableSettings } from "../server/readouts/settings";
+import { runTableReadout } from "../server/readouts/table";
 
 function arg(name: string): string {
   const i = process.argv.indexOf(name);
