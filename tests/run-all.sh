@@ -24,6 +24,8 @@ fi
 step "lint"
 npx eslint .
 npx prettier --check . >/dev/null || { npx prettier --check . ; echo "run: npm run format" >&2; exit 1; }
+# No import circle anywhere, type-only imports included.
+npm run -s lint:circles
 step "typecheck"
 npx tsc --noEmit -p tsconfig.json
 step "unit and API tests (vitest)"

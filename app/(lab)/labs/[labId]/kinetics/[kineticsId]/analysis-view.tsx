@@ -14,6 +14,7 @@ import type { DispersionDto } from "@/lib/server/kinetics/analyses";
 import type { KineticsInfoDto } from "@/lib/server/kinetics/kinetics";
 import { ComputingBadge } from "./computing-badge";
 import { DispersionNumbers } from "./dispersion-numbers";
+import type { AnalysisBase } from "./analysis-base";
 import { GradientPanel } from "./gradient-panel";
 import { SensitivityPanel } from "./sensitivity-panel";
 import { TuringMapPanel } from "./turing-map-panel";
@@ -21,14 +22,6 @@ import { numberOrText, optionalNumber, useAnalysis } from "./use-analysis";
 
 const field =
   "w-full rounded-md border border-rule bg-card px-2 py-1 text-sm text-ink focus:border-moss focus:outline-none num";
-
-export interface AnalysisBase {
-  kinetics: string;
-  version?: number;
-  parameters: Record<string, number | string>;
-  lengthScaleUm?: number | string;
-  timeScaleS?: number | string;
-}
 
 type DomainKind = "unbounded" | "interval" | "rectangle" | "sphere";
 

@@ -7,7 +7,7 @@ import { Notice } from "@/components/ui/notice";
 import { Panel } from "@/components/ui/panel";
 import type { KineticsInfoDto } from "@/lib/server/kinetics/kinetics";
 import type { SensitivityDto } from "@/lib/server/kinetics/analyses";
-import type { AnalysisBase } from "./analysis-view";
+import type { AnalysisBase } from "./analysis-base";
 import { ComputingBadge } from "./computing-badge";
 import { numberOrText, useAnalysis } from "./use-analysis";
 

@@ -7,7 +7,7 @@ import { Notice } from "@/components/ui/notice";
 import { Panel } from "@/components/ui/panel";
 import type { KineticsInfoDto, KineticsParameterDto } from "@/lib/server/kinetics/kinetics";
 import type { TuringMapDto } from "@/lib/server/kinetics/map";
-import type { AnalysisBase } from "./analysis-view";
+import type { AnalysisBase } from "./analysis-base";
 import { ComputingBadge } from "./computing-badge";
 import { numberOrText, optionalNumber, useAnalysis } from "./use-analysis";
 
