@@ -18,12 +18,14 @@ export interface ColumnMapping {
 
 const TO_UM: Record<Exclude<TableUnit, "px">, number> = { um: 1, nm: 1e-3, mm: 1e3 };
 
-/**
- * Parses CSV/TSV text (delimiter detected by papaparse), maps the named columns and converts them
- * to µm. Blank lines are skipped; every other cell of a mapped column must be a number.
- * Row numbers in messages count the header as row 1, like a spreadsheet.
- */
-export function parseTable(text: string, mapping: ColumnMapping): Record<string, Float64Array> {
+/** A ColumnMapping checked: the columns to read, and µm per table unit. */
+export interface ResolvedColumnMapping {
+  columns: ("x" | "y" | "position" | "spacing")[];
+  scale: number;
+}
+
+/** Checks the mapping once, before the file is read; throws SpacingError naming the field. */
+export function resolveColumnMapping(mapping: ColumnMapping): ResolvedColumnMapping {
   const columns = (["x", "y", "position", "spacing"] as const).filter((k) => mapping[k] !== undefined);
   if (columns.length === 0)
     throw new SpacingError("Say which columns to read: x and y, or position, or spacing.", "mapping");
@@ -37,6 +39,16 @@ export function parseTable(text: string, mapping: ColumnMapping): Record<string,
     scale = mapping.pixelSizeUm;
   } else if (unit in TO_UM) scale = TO_UM[unit];
   else throw new SpacingError(`unit must be "um", "nm", "mm" or "px" (got ${String(unit)}).`, "unit");
+  return { columns, scale };
+}
+
+/**
+ * Parses CSV/TSV text (delimiter detected by papaparse), maps the named columns and converts them
+ * to µm. Blank lines are skipped; every other cell of a mapped column must be a number.
+ * Row numbers in messages count the header as row 1, like a spreadsheet.
+ */
+export function parseTable(text: string, mapping: ColumnMapping): Record<string, Float64Array> {
+  const { columns, scale } = resolveColumnMapping(mapping);
   if (text.replace(/^\uFEFF/, "").trim() === "") throw new SpacingError("The file is empty.", "file");
   const parsed = Papa.parse<string[]>(text.replace(/^\uFEFF/, ""), { skipEmptyLines: "greedy" });
   const rows = parsed.data;
