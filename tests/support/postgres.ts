@@ -12,7 +12,7 @@
  *   stay independent; `drop()` removes it;
  * - `startPostgres()` directly, from a script or a test that needs its own server.
  */
-import { execFileSync, spawnSync } from "node:child_process";
+import { execFileSync, spawn, spawnSync } from "node:child_process";
 import { chownSync, existsSync, mkdtempSync, readdirSync, readFileSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
@@ -87,6 +87,19 @@ async function waitUntilReady(adminUrl: string, logFile: string): Promise<void> 
   }
 }
 
+/**
+ * A detached shell that stops the server and removes its folder once `pid` is gone, so a test run
+ * killed before its teardown (Ctrl-C twice, a CI timeout) leaves no server behind. It checks every
+ * 2 s; a normal stop kills it first.
+ */
+function stopWhenGone(pid: number, user: ReturnType<typeof serverUser>, bin: string, dataDir: string, dir: string) {
+  const pgCtl = [...(user ? ["runuser", "-u", user.name, "--"] : []), path.join(bin, "pg_ctl")].join(" ");
+  const script = `while kill -0 ${pid} 2>/dev/null; do sleep 2; done; ${pgCtl} stop -D '${dataDir}' -m immediate -s; rm -rf '${dir}'`;
+  const child = spawn("sh", ["-c", script], { detached: true, stdio: "ignore" });
+  child.unref();
+  return child;
+}
+
 /** initdb into a temp folder and start the server on a free 127.0.0.1 port. */
 export async function startPostgres(): Promise<PostgresServer> {
   const bin = findPostgresBin();
@@ -118,7 +131,9 @@ export async function startPostgres(): Promise<PostgresServer> {
   ].join(" ");
   runAs(user, path.join(bin, "pg_ctl"), ["start", "-D", dataDir, "-l", logFile, "-o", serverOptions, "-s"]);
   const adminUrl = `postgres://${SUPERUSER}@127.0.0.1:${port}/postgres`;
+  const watchdog = stopWhenGone(process.pid, user, bin, dataDir, dir);
   const stop = async () => {
+    watchdog.kill();
     try {
       runAs(user, path.join(bin, "pg_ctl"), ["stop", "-D", dataDir, "-m", "immediate", "-s"]);
     } finally {
