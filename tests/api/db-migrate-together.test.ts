@@ -20,7 +20,7 @@ afterAll(async () => {
 
 describe.skipIf(describeTestDialect() !== "postgres")("migrations started together", () => {
   it("four processes migrating one new database at once all get ready, each migration applied once", async () => {
-    const target = await createTestDatabase();
+    const target = await createTestDatabase(undefined, { empty: true });
     drop = target.drop;
     for (let i = 0; i < 4; i++) opened.push(createDatabase(target.url));
     const results = await Promise.allSettled(opened.map((d) => d.ready));

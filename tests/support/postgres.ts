@@ -21,6 +21,9 @@ import { freePort } from "./free-port";
 
 /** The environment variable that carries the admin URL of the test server to test processes. */
 export const TEST_PG_URL_ENV = "MORPHOKIN_TEST_PG_URL";
+/** A database migrated once by the global setup; each stack's database is a copy of it. */
+const TEMPLATE_DB = "morphokin_template";
+const TEMPLATE_ENV = "MORPHOKIN_TEST_PG_TEMPLATE";
 /** The superuser initdb creates; trust authentication, reachable from 127.0.0.1 only. */
 const SUPERUSER = "morphokin";
 const START_DEADLINE_MS = 30_000;
@@ -155,7 +158,7 @@ let counter = 0;
  * A new empty database on the test server (MORPHOKIN_TEST_PG_URL unless `adminUrl` is given),
  * with a name unique to this process; `drop()` removes it, closing what is still connected.
  */
-export async function createTestDatabase(adminUrl = process.env[TEST_PG_URL_ENV]) {
+export async function createTestDatabase(adminUrl = process.env[TEST_PG_URL_ENV], options: { empty?: boolean } = {}) {
   if (!adminUrl) throw new Error(`${TEST_PG_URL_ENV} is not set: run the tests with MORPHOKIN_TEST_DB=postgres`);
   const name = `morphokin_test_${process.pid}_${++counter}_${Math.random().toString(36).slice(2, 8)}`;
   const admin = async (sql: string) => {
@@ -167,7 +170,10 @@ export async function createTestDatabase(adminUrl = process.env[TEST_PG_URL_ENV]
       await client.end();
     }
   };
-  await admin(`CREATE DATABASE "${name}"`);
+  // A copy of the migrated template (when the global setup made one) skips running every
+  // migration again per test file; `empty` asks for a database without tables.
+  const template = !options.empty && process.env[TEMPLATE_ENV];
+  await admin(`CREATE DATABASE "${name}"${template ? ` TEMPLATE "${template}"` : ""}`);
   const url = new URL(adminUrl);
   url.pathname = `/${name}`;
   return {
@@ -177,14 +183,42 @@ export async function createTestDatabase(adminUrl = process.env[TEST_PG_URL_ENV]
   };
 }
 
+/** Creates the template database and applies every migration to it (then nothing stays connected). */
+async function migrateTemplate(adminUrl: string): Promise<void> {
+  const { createDatabase } = await import("@/lib/server/db");
+  const client = new pg.Client({ connectionString: adminUrl });
+  await client.connect();
+  try {
+    await client.query(`CREATE DATABASE "${TEMPLATE_DB}"`);
+  } finally {
+    await client.end();
+  }
+  const url = new URL(adminUrl);
+  url.pathname = `/${TEMPLATE_DB}`;
+  const db = createDatabase(url.toString());
+  try {
+    await db.ready;
+  } finally {
+    await db.sequelize.close();
+  }
+}
+
 /** vitest globalSetup: one server for the whole run. */
 export default async function setup(): Promise<(() => Promise<void>) | undefined> {
   if (process.env[TEST_PG_URL_ENV]) return undefined;
   const server = await startPostgres();
+  try {
+    await migrateTemplate(server.adminUrl);
+  } catch (err) {
+    await server.stop();
+    throw err;
+  }
   // Test processes are forked after global setup and inherit this environment.
   process.env[TEST_PG_URL_ENV] = server.adminUrl;
+  process.env[TEMPLATE_ENV] = TEMPLATE_DB;
   return async () => {
     delete process.env[TEST_PG_URL_ENV];
+    delete process.env[TEMPLATE_ENV];
     await server.stop();
   };
 }
