@@ -1,4 +1,4 @@
-import { defineConfig } from "vitest/config";
+import { configDefaults, defineConfig } from "vitest/config";
 
 export default defineConfig({
   // server-only throws outside Next's react-server condition; the tests run lib/server in plain Node.
@@ -13,12 +13,19 @@ export default defineConfig({
     // Everything on the embedded SQLite file; the API suite once more on a real PostgreSQL server
     // (tests/support/postgres.ts). One file on one: `npx vitest run --project postgres tests/api/x.test.ts`.
     projects: [
-      { extends: true, test: { name: "sqlite", include: ["tests/**/*.test.ts"] } },
+      {
+        extends: true,
+        test: {
+          name: "sqlite",
+          include: ["tests/**/*.test.ts"],
+          exclude: [...configDefaults.exclude, "tests/cli/db-copy.test.ts"],
+        },
+      },
       {
         extends: true,
         test: {
           name: "postgres",
-          include: ["tests/api/**/*.test.ts"],
+          include: ["tests/api/**/*.test.ts", "tests/cli/db-copy.test.ts"],
           env: { MORPHOKIN_TEST_DB: "postgres" },
           globalSetup: ["tests/support/postgres.ts"],
         },

@@ -15,11 +15,12 @@ export const up: MigrationFn<QueryInterface> = async ({ context: qi }) => {
 export const down: MigrationFn<QueryInterface> = async ({ context: qi }) => {
   await qi.removeIndex("uploads", ["state", "created_at"]);
   // SQLite drops a column by copying the table and dropping the old one; with foreign keys on,
-  // that drop would cascade to every readout of every upload.
-  await qi.sequelize.query("PRAGMA foreign_keys = OFF");
+  // that drop would cascade to every readout of every upload. (PostgreSQL drops it in place.)
+  const sqlite = qi.sequelize.getDialect() === "sqlite";
+  if (sqlite) await qi.sequelize.query("PRAGMA foreign_keys = OFF");
   try {
     await qi.removeColumn("uploads", "state");
   } finally {
-    await qi.sequelize.query("PRAGMA foreign_keys = ON");
+    if (sqlite) await qi.sequelize.query("PRAGMA foreign_keys = ON");
   }
 };

@@ -1,7 +1,8 @@
 #!/usr/bin/env bash
 # `npm test`: everything, in the order a failure is cheapest to find.
 #   lint → typecheck → unit and API tests (vitest) → production build → browser tests (Chromium)
-# Installs Debian's Chromium when it is missing (needs root, as on the project's machines).
+# Installs Debian's Chromium and PostgreSQL when missing (needs root, as on the project's machines):
+# the API tests run once on SQLite and once on a PostgreSQL server they start (tests/support/postgres.ts).
 set -euo pipefail
 cd "$(dirname "$0")/.."
 export NEXT_TELEMETRY_DISABLED=1
@@ -21,6 +22,16 @@ if ! command -v chromium >/dev/null 2>&1; then
   fi
 fi
 
+if ! ls /usr/lib/postgresql/*/bin/initdb >/dev/null 2>&1; then
+  step "installing Debian postgresql for the API tests on PostgreSQL"
+  if [ "$(id -u)" = 0 ]; then
+    apt-get update -qq && DEBIAN_FRONTEND=noninteractive apt-get install -y -qq postgresql >/dev/null
+  else
+    echo "postgresql is missing and this user cannot apt-get install it; run: sudo apt-get install -y postgresql" >&2
+    exit 1
+  fi
+fi
+
 step "lint"
 npx eslint .
 npx prettier --check . >/dev/null || { npx prettier --check . ; echo "run: npm run format" >&2; exit 1; }
@@ -28,7 +39,7 @@ npx prettier --check . >/dev/null || { npx prettier --check . ; echo "run: npm r
 npm run -s lint:circles
 step "typecheck"
 npx tsc --noEmit -p tsconfig.json
-step "unit and API tests (vitest)"
+step "unit and API tests (vitest; the API suite on SQLite and on PostgreSQL)"
 npx vitest run --reporter=default --reporter=json --outputFile.json=.test-reports/vitest.json
 step "production build"
 npx next build

@@ -12,7 +12,7 @@
  *   stay independent; `drop()` removes it;
  * - `startPostgres()` directly, from a script or a test that needs its own server.
  */
-import { execFileSync, spawnSync } from "node:child_process";
+import { execFileSync, spawn, spawnSync } from "node:child_process";
 import { chownSync, existsSync, mkdtempSync, readdirSync, readFileSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
@@ -21,6 +21,9 @@ import { freePort } from "./free-port";
 
 /** The environment variable that carries the admin URL of the test server to test processes. */
 export const TEST_PG_URL_ENV = "MORPHOKIN_TEST_PG_URL";
+/** A database migrated once by the global setup; each stack's database is a copy of it. */
+const TEMPLATE_DB = "morphokin_template";
+const TEMPLATE_ENV = "MORPHOKIN_TEST_PG_TEMPLATE";
 /** The superuser initdb creates; trust authentication, reachable from 127.0.0.1 only. */
 const SUPERUSER = "morphokin";
 const START_DEADLINE_MS = 30_000;
@@ -87,6 +90,19 @@ async function waitUntilReady(adminUrl: string, logFile: string): Promise<void> 
   }
 }
 
+/**
+ * A detached shell that stops the server and removes its folder once `pid` is gone, so a test run
+ * killed before its teardown (Ctrl-C twice, a CI timeout) leaves no server behind. It checks every
+ * 2 s; a normal stop kills it first.
+ */
+function stopWhenGone(pid: number, user: ReturnType<typeof serverUser>, bin: string, dataDir: string, dir: string) {
+  const pgCtl = [...(user ? ["runuser", "-u", user.name, "--"] : []), path.join(bin, "pg_ctl")].join(" ");
+  const script = `while kill -0 ${pid} 2>/dev/null; do sleep 2; done; ${pgCtl} stop -D '${dataDir}' -m immediate -s; rm -rf '${dir}'`;
+  const child = spawn("sh", ["-c", script], { detached: true, stdio: "ignore" });
+  child.unref();
+  return child;
+}
+
 /** initdb into a temp folder and start the server on a free 127.0.0.1 port. */
 export async function startPostgres(): Promise<PostgresServer> {
   const bin = findPostgresBin();
@@ -118,7 +134,9 @@ export async function startPostgres(): Promise<PostgresServer> {
   ].join(" ");
   runAs(user, path.join(bin, "pg_ctl"), ["start", "-D", dataDir, "-l", logFile, "-o", serverOptions, "-s"]);
   const adminUrl = `postgres://${SUPERUSER}@127.0.0.1:${port}/postgres`;
+  const watchdog = stopWhenGone(process.pid, user, bin, dataDir, dir);
   const stop = async () => {
+    watchdog.kill();
     try {
       runAs(user, path.join(bin, "pg_ctl"), ["stop", "-D", dataDir, "-m", "immediate", "-s"]);
     } finally {
@@ -140,7 +158,7 @@ let counter = 0;
  * A new empty database on the test server (MORPHOKIN_TEST_PG_URL unless `adminUrl` is given),
  * with a name unique to this process; `drop()` removes it, closing what is still connected.
  */
-export async function createTestDatabase(adminUrl = process.env[TEST_PG_URL_ENV]) {
+export async function createTestDatabase(adminUrl = process.env[TEST_PG_URL_ENV], options: { empty?: boolean } = {}) {
   if (!adminUrl) throw new Error(`${TEST_PG_URL_ENV} is not set: run the tests with MORPHOKIN_TEST_DB=postgres`);
   const name = `morphokin_test_${process.pid}_${++counter}_${Math.random().toString(36).slice(2, 8)}`;
   const admin = async (sql: string) => {
@@ -152,7 +170,10 @@ export async function createTestDatabase(adminUrl = process.env[TEST_PG_URL_ENV]
       await client.end();
     }
   };
-  await admin(`CREATE DATABASE "${name}"`);
+  // A copy of the migrated template (when the global setup made one) skips running every
+  // migration again per test file; `empty` asks for a database without tables.
+  const template = !options.empty && process.env[TEMPLATE_ENV];
+  await admin(`CREATE DATABASE "${name}"${template ? ` TEMPLATE "${template}"` : ""}`);
   const url = new URL(adminUrl);
   url.pathname = `/${name}`;
   return {
@@ -162,14 +183,42 @@ export async function createTestDatabase(adminUrl = process.env[TEST_PG_URL_ENV]
   };
 }
 
+/** Creates the template database and applies every migration to it (then nothing stays connected). */
+async function migrateTemplate(adminUrl: string): Promise<void> {
+  const { createDatabase } = await import("@/lib/server/db");
+  const client = new pg.Client({ connectionString: adminUrl });
+  await client.connect();
+  try {
+    await client.query(`CREATE DATABASE "${TEMPLATE_DB}"`);
+  } finally {
+    await client.end();
+  }
+  const url = new URL(adminUrl);
+  url.pathname = `/${TEMPLATE_DB}`;
+  const db = createDatabase(url.toString());
+  try {
+    await db.ready;
+  } finally {
+    await db.sequelize.close();
+  }
+}
+
 /** vitest globalSetup: one server for the whole run. */
 export default async function setup(): Promise<(() => Promise<void>) | undefined> {
   if (process.env[TEST_PG_URL_ENV]) return undefined;
   const server = await startPostgres();
+  try {
+    await migrateTemplate(server.adminUrl);
+  } catch (err) {
+    await server.stop();
+    throw err;
+  }
   // Test processes are forked after global setup and inherit this environment.
   process.env[TEST_PG_URL_ENV] = server.adminUrl;
+  process.env[TEMPLATE_ENV] = TEMPLATE_DB;
   return async () => {
     delete process.env[TEST_PG_URL_ENV];
+    delete process.env[TEMPLATE_ENV];
     await server.stop();
   };
 }

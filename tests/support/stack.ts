@@ -29,13 +29,15 @@ export interface TestStack {
   close(): Promise<void>;
 }
 
-export async function startTestStack(): Promise<TestStack> {
+/** `database`: "sqlite" forces the SQLite file even in the postgres project (e.g. as a copy's source). */
+export async function startTestStack(options: { database?: "sqlite" } = {}): Promise<TestStack> {
   const dir = mkdtempSync(path.join(tmpdir(), "morphokin-test-"));
   const [s3Port, smtpPort, httpPort] = [await freePort(), await freePort(), await freePort()];
   const s3 = await startFakeS3({ port: s3Port, directory: path.join(dir, "s3"), bucket: "morphokin-test" });
   const smtp = await startFakeSmtp({ smtpPort, httpPort, directory: path.join(dir, "mail") });
   // MORPHOKIN_TEST_DB=postgres: a database of its own on the run's test server (tests/support/postgres.ts).
-  const pgDatabase = process.env.MORPHOKIN_TEST_DB === "postgres" ? await createTestDatabase() : null;
+  const onPostgres = process.env.MORPHOKIN_TEST_DB === "postgres" && options.database !== "sqlite";
+  const pgDatabase = onPostgres ? await createTestDatabase() : null;
   const base = readConfig();
   const config = {
     ...base,

@@ -191,6 +191,7 @@ export async function countConditions(ctx: LabContext) {
     attributes: ["condition", [fn("COUNT", col("id")), "n"]],
     group: ["condition"],
     raw: true,
-  })) as unknown as { condition: string; n: number }[];
-  return rows;
+  })) as unknown as { condition: string; n: number | string }[];
+  // PostgreSQL returns COUNT (a bigint) as a string.
+  return rows.map((r) => ({ condition: r.condition, n: Number(r.n) }));
 }
