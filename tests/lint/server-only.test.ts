@@ -1,7 +1,8 @@
 /**
  * Every file of lib/server carries the `server-only` marker, so a client component that imports
  * a value from it fails the build instead of shipping server code (and secrets) to the browser
- * (Next docs, guides/data-security "Preventing client-side execution of server-only code").
+ * (node_modules/next/dist/docs/01-app/02-guides/data-security.md, "Preventing client-side
+ * execution of server-only code").
  */
 import { readdirSync, readFileSync } from "node:fs";
 import path from "node:path";
