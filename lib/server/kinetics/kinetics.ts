@@ -1,11 +1,11 @@
 /**
- * Kinetics: the published catalogue (same for everyone) and a lab's own kinetics, whose
- * definitions are immutable versions — every save adds one, so a fit can name exactly what it used.
+ * A lab's own kinetics, whose definitions are immutable versions — every save adds one, so a fit
+ * can name exactly what it used. The published catalogue is in ./catalogue.ts.
  */
 import "server-only";
 import { Op } from "sequelize";
 import { can } from "@/lib/access/permissions";
-import { CATALOGUE, resolveParameters, type CatalogueKinetics, type KineticsDefinition } from "@/lib/kinetics";
+import { resolveParameters, type KineticsDefinition } from "@/lib/kinetics";
 import { findSteadyStates } from "@/lib/stability";
 import type { LabContext } from "../access";
 import { authorize, isUuid } from "../access";
@@ -16,31 +16,8 @@ import { recordAudit } from "../audit";
 import { toAppError } from "../core-errors";
 import { compileDefinition } from "./engine";
 
-export interface KineticsParameterDto {
-  name: string;
-  meaning: string;
-  default: number;
-  /** null: no lower/upper bound. */
-  min: number | null;
-  max: number | null;
-  unit: string | null;
-}
-
-/** What the analysis page needs to know about any kinetics, catalogue or lab. */
-export interface KineticsInfoDto {
-  kind: "catalogue" | "lab";
-  id: string;
-  name: string;
-  source: string;
-  form: string | null;
-  species: string[];
-  parameters: KineticsParameterDto[];
-  units: "dimensional" | "non-dimensional";
-  reactions: string[];
-  diffusion: string[][];
-  /** Lab kinetics only: the version described. */
-  version: number | null;
-}
+export { definitionInfo, getCatalogueEntry, listCatalogue } from "./catalogue";
+export type { KineticsInfoDto, KineticsParameterDto } from "./catalogue";
 
 export interface LabKineticsDto {
   id: string;
@@ -64,72 +41,6 @@ export interface KineticsVersionDto {
 }
 
 export const LAB_KINETICS_SORTS = ["name", "latestVersion", "createdAt", "updatedAt"] as const;
-
-const FINITE_MAX = Number.MAX_VALUE;
-const bound = (v: number | undefined) =>
-  v === undefined || !Number.isFinite(v) || Math.abs(v) >= FINITE_MAX ? null : v;
-
-function catalogueInfo(k: CatalogueKinetics): KineticsInfoDto {
-  return {
-    kind: "catalogue",
-    id: k.id,
-    name: k.name,
-    source: k.source,
-    form: k.form,
-    species: [...k.species],
-    parameters: k.parameters.map((p) => ({
-      name: p.name,
-      meaning: p.meaning,
-      default: p.default,
-      min: bound(p.min),
-      max: bound(p.max),
-      unit: p.unit ?? null,
-    })),
-    units: k.units,
-    reactions: [...k.reactionExpressions],
-    diffusion: k.diffusionExpressions.map((r) => [...r]),
-    version: null,
-  };
-}
-
-export function listCatalogue(): KineticsInfoDto[] {
-  return CATALOGUE.map(catalogueInfo);
-}
-
-export function getCatalogueEntry(id: string): KineticsInfoDto {
-  const k = CATALOGUE.find((c) => c.id === id);
-  if (!k) throw notFound("kinetics");
-  return catalogueInfo(k);
-}
-
-export function definitionInfo(id: string, version: number, def: KineticsDefinition): KineticsInfoDto {
-  const n = def.species.length;
-  const diffusion = Array.isArray(def.diffusion[0])
-    ? (def.diffusion as (string | number)[][]).map((r) => r.map(String))
-    : Array.from({ length: n }, (_, i) =>
-        Array.from({ length: n }, (_, j) => (i === j ? String((def.diffusion as (string | number)[])[i]) : "0")),
-      );
-  return {
-    kind: "lab",
-    id,
-    name: def.name,
-    source: def.source ?? "",
-    form: null,
-    species: [...def.species],
-    parameters: def.parameters.map((p) => ({
-      name: p.name,
-      meaning: p.meaning ?? "",
-      default: p.default,
-      min: bound(p.min),
-      max: bound(p.max),
-      unit: p.unit ?? null,
-    })),
-    units: def.units ?? "non-dimensional",
-    reactions: def.reactions.map(String),
-    diffusion,
-    version,
-  };
-}
 
 type Row = InstanceType<Awaited<ReturnType<typeof database>>["LabKinetics"]>;
 
