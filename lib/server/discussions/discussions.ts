@@ -15,7 +15,7 @@ import type {
 import type { LabContext } from "../access";
 import { authorize } from "../access";
 import { AppError, notFound } from "../errors";
-import { containsText, type ListQuery, type ListResult } from "../web/list";
+import { containsText, type ListQuery, type ListResult, pageOptions, pageResult } from "../web/list";
 import { notifyDiscussion } from "./notify";
 import { database, services } from "../services";
 import { recordAudit } from "../audit";
@@ -69,11 +69,9 @@ export async function listThreads(
   ];
   const { rows, count } = await m.CommentThread.findAndCountAll({
     where,
-    order,
-    limit: q.pageSize,
-    offset: (q.page - 1) * q.pageSize,
+    ...pageOptions(q, order),
   });
-  return { items: await toThreadDtos(ctx, rows, forTarget), page: q.page, pageSize: q.pageSize, total: count };
+  return pageResult(q, await toThreadDtos(ctx, rows, forTarget), count);
 }
 
 async function findThread(ctx: LabContext, threadId: string, transaction?: Transaction): Promise<ThreadRow> {

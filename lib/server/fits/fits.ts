@@ -12,7 +12,7 @@ import type { JobStatus } from "@/models/job";
 import { authorize, isUuid, type LabContext } from "../access";
 import { notFound } from "../errors";
 import { enqueueJob } from "../jobs/queue";
-import { containsText, type ListQuery, type ListResult } from "../web/list";
+import { containsText, type ListQuery, type ListResult, pageResult } from "../web/list";
 import { database, services } from "../services";
 import { recordAudit } from "../audit";
 import { fitRunner } from "./process";
@@ -112,7 +112,7 @@ export async function listFits(
     limit: q.pageSize,
     offset: (q.page - 1) * q.pageSize,
   });
-  return { items: await toSummaries(rows), page: q.page, pageSize: q.pageSize, total: count };
+  return pageResult(q, await toSummaries(rows), count);
 }
 
 export async function findFit(ctx: LabContext, fitId: string): Promise<Row> {

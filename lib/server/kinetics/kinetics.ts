@@ -10,7 +10,7 @@ import { findSteadyStates } from "@/lib/stability";
 import type { LabContext } from "../access";
 import { authorize, isUuid } from "../access";
 import { AppError, notFound } from "../errors";
-import { containsText, type ListQuery, type ListResult } from "../web/list";
+import { containsText, type ListQuery, type ListResult, pageOptions, pageResult } from "../web/list";
 import { database, services } from "../services";
 import { recordAudit } from "../audit";
 import { toAppError } from "../core-errors";
@@ -89,14 +89,9 @@ export async function listLabKinetics(
   };
   const { rows, count } = await m.LabKinetics.findAndCountAll({
     where,
-    order: [
-      [q.sort, q.dir],
-      ["id", "asc"],
-    ],
-    limit: q.pageSize,
-    offset: (q.page - 1) * q.pageSize,
+    ...pageOptions(q),
   });
-  return { items: await toDtos(ctx, rows), page: q.page, pageSize: q.pageSize, total: count };
+  return pageResult(q, await toDtos(ctx, rows), count);
 }
 
 async function findLabKinetics(ctx: LabContext, id: string): Promise<Row> {

@@ -15,7 +15,7 @@ import { StorageUnavailableError } from "@/storage/object-store";
 import { authorize, type LabContext } from "../access";
 import { AppError, notFound } from "../errors";
 import { enqueueJob } from "../jobs/queue";
-import { containsText, type ListQuery, type ListResult } from "../web/list";
+import { containsText, type ListQuery, type ListResult, pageResult } from "../web/list";
 import { database, services } from "../services";
 import { headlineOf, type ReadoutHeadline, type ReadoutResult } from "./result";
 import { resolveStartSettings, type StoredReadoutSettings } from "./settings";
@@ -143,7 +143,7 @@ export async function listReadouts(
     limit: q.pageSize,
     offset: (q.page - 1) * q.pageSize,
   });
-  return { items: await toDtos(rows), page: q.page, pageSize: q.pageSize, total: count };
+  return pageResult(q, await toDtos(rows), count);
 }
 
 async function findReadout(ctx: LabContext, readoutId: string): Promise<Row> {

@@ -16,7 +16,7 @@ import { StorageUnavailableError } from "@/storage/object-store";
 import { authorize, isUuid, type LabContext } from "../access";
 import { AppError, notFound } from "../errors";
 import { cancelJob, enqueueJob } from "../jobs/queue";
-import { containsText, type ListQuery, type ListResult } from "../web/list";
+import { containsText, type ListQuery, type ListResult, pageResult } from "../web/list";
 import { database, services } from "../services";
 import { recordAudit } from "../audit";
 import { SOFTWARE_VERSION } from "../readouts/readouts";
@@ -93,7 +93,7 @@ export async function listRuns(ctx: LabContext, q: ListQuery<(typeof RUN_SORTS)[
     limit: q.pageSize,
     offset: (q.page - 1) * q.pageSize,
   });
-  return { items: await toDtos(rows), page: q.page, pageSize: q.pageSize, total: count };
+  return pageResult(q, await toDtos(rows), count);
 }
 
 async function findRun(ctx: LabContext, runId: string): Promise<Row> {

@@ -5,7 +5,7 @@ import { can } from "@/lib/access/permissions";
 import type { LabContext } from "../access";
 import { authorize } from "../access";
 import { AppError, notFound } from "../errors";
-import { containsText, type ListQuery, type ListResult } from "../web/list";
+import { containsText, type ListQuery, type ListResult, pageOptions, pageResult } from "../web/list";
 import { database, services } from "../services";
 import { changedFields, describeChanges, fitSummary, recordAudit } from "../audit";
 import { findStudy } from "./studies";
@@ -77,14 +77,9 @@ export async function listSpecimens(
   };
   const { rows, count } = await m.Specimen.findAndCountAll({
     where,
-    order: [
-      [q.sort, q.dir],
-      ["id", "asc"],
-    ],
-    limit: q.pageSize,
-    offset: (q.page - 1) * q.pageSize,
+    ...pageOptions(q),
   });
-  return { items: await toDtos(ctx, rows), page: q.page, pageSize: q.pageSize, total: count };
+  return pageResult(q, await toDtos(ctx, rows), count);
 }
 
 export async function findSpecimen(ctx: LabContext, specimenId: string) {

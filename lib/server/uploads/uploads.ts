@@ -15,7 +15,7 @@ import type { UploadKind } from "@/models/upload";
 import type { LabContext } from "../access";
 import { authorize } from "../access";
 import { AppError, notFound } from "../errors";
-import { containsText, type ListQuery, type ListResult } from "../web/list";
+import { containsText, type ListQuery, type ListResult, pageOptions, pageResult } from "../web/list";
 import { database, services } from "../services";
 import { recordAudit } from "../audit";
 import { findSpecimen } from "../studies/specimens";
@@ -74,14 +74,9 @@ export async function listUploads(
   const where = { labId: ctx.labId, specimenId, ...(q.q ? { filename: containsText(q.q) } : {}) };
   const { rows, count } = await m.Upload.findAndCountAll({
     where,
-    order: [
-      [q.sort, q.dir],
-      ["id", "asc"],
-    ],
-    limit: q.pageSize,
-    offset: (q.page - 1) * q.pageSize,
+    ...pageOptions(q),
   });
-  return { items: await toDtos(ctx, rows), page: q.page, pageSize: q.pageSize, total: count };
+  return pageResult(q, await toDtos(ctx, rows), count);
 }
 
 export async function findUpload(ctx: LabContext, uploadId: string) {

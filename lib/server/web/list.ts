@@ -1,6 +1,6 @@
 /** Paginated, sorted, filtered lists: one query format for every list endpoint. */
 import "server-only";
-import { literal, Op } from "sequelize";
+import { literal, Op, type Order } from "sequelize";
 import { z } from "zod";
 import { AppError } from "../errors";
 import { services } from "../services";
@@ -22,6 +22,28 @@ export interface ListResult<T> {
 }
 
 export const MAX_PAGE_SIZE = 200;
+
+/**
+ * One page of a list query as Sequelize options: its sort with ties broken by id (so pages never
+ * overlap or skip a row), its size and offset. `order` replaces the sort where a list needs its own.
+ */
+export function pageOptions(q: ListQuery<string>, order?: Order) {
+  return {
+    order:
+      order ??
+      ([
+        [q.sort, q.dir],
+        ["id", "asc"],
+      ] as Order),
+    limit: q.pageSize,
+    offset: (q.page - 1) * q.pageSize,
+  };
+}
+
+/** A list answer: one page of items with the page, its size and the total count. */
+export function pageResult<T>(q: ListQuery<string>, items: T[], total: number): ListResult<T> {
+  return { items, page: q.page, pageSize: q.pageSize, total };
+}
 
 export function parseListQuery<S extends string>(
   url: string,
