@@ -1,0 +1,5 @@
+import { PageSkeleton } from "@/components/ui/skeleton";
+
+export default function FitsLoading() {
+  return <PageSkeleton label="Loading the fits…" layout="table" />;
+}
