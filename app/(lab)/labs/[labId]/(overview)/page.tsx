@@ -5,7 +5,7 @@ import { can } from "@/lib/access/permissions";
 import { ROLE_LABELS } from "@/lib/access/roles";
 import { formatDateTime } from "@/lib/client/format";
 import { loadDashboard } from "@/lib/server/labs/dashboard";
-import { RunningJobs } from "./fits/running-jobs";
+import { RunningJobs } from "../fits/running-jobs";
 import { pageLab } from "@/lib/server/web/page-access";
 
 export const dynamic = "force-dynamic";
