@@ -1,5 +1,5 @@
 import { PageSkeleton } from "@/components/ui/skeleton";
 
 export default function KineticsLoading() {
-  return <PageSkeleton label="Loading the kinetics…" layout="table" />;
+  return <PageSkeleton label="Loading the kinetics…" />;
 }
