@@ -1,6 +1,7 @@
 "use client";
 
 import { useEffect } from "react";
+import { useSWRConfig } from "swr";
 import { Button } from "./button";
 
 /**
@@ -18,9 +19,16 @@ export function SectionError({
   error: unknown;
   retry: () => void;
 }) {
+  const { mutate } = useSWRConfig();
   useEffect(() => {
     console.error(error);
   }, [error]);
+  // Try again means every read on the page: the server part is fetched anew by retry(), and the
+  // browser's cached API answers are dropped first, or a bad cached answer would fail again at once.
+  async function tryAgain() {
+    await mutate(() => true, undefined, { revalidate: false });
+    retry();
+  }
   const digest =
     error && typeof error === "object" && "digest" in error && typeof error.digest === "string" ? error.digest : null;
   return (
@@ -42,7 +50,7 @@ export function SectionError({
         .
       </p>
       <div className="mt-4">
-        <Button onClick={() => retry()} data-testid="error-retry">
+        <Button onClick={() => void tryAgain()} data-testid="error-retry">
           Try again
         </Button>
       </div>
