@@ -1,0 +1,22 @@
+import type { Locator, Page } from "@playwright/test";
+import { LabPage } from "./lab-page";
+
+export class DashboardPage extends LabPage {
+  readonly recentStudies: Locator;
+  readonly openDiscussions: Locator;
+
+  constructor(page: Page, labId: string) {
+    super(page, labId);
+    this.recentStudies = page.getByTestId("recent-studies");
+    this.openDiscussions = page.getByTestId("open-discussion");
+  }
+
+  /** The open-discussion row whose text contains `text`. */
+  thread(text: string): Locator {
+    return this.openDiscussions.filter({ hasText: text });
+  }
+
+  async openThread(text: string) {
+    await this.thread(text).getByTestId("open-thread").click();
+  }
+}
