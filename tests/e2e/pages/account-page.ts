@@ -9,6 +9,7 @@ export class AccountPage {
   readonly tokenName: Locator;
   readonly tokenExpiry: Locator;
   readonly errorBoundary: Locator;
+  readonly passwordMessage: Locator;
 
   constructor(readonly page: Page) {
     this.myLabs = page.getByTestId("my-labs");
@@ -17,6 +18,7 @@ export class AccountPage {
     this.tokenName = page.getByLabel("Token name");
     this.tokenExpiry = page.getByLabel("Expires after");
     this.errorBoundary = page.getByTestId("error-boundary");
+    this.passwordMessage = page.getByTestId("password-message");
   }
 
   async goto() {
@@ -37,6 +39,13 @@ export class AccountPage {
   /** The secret shown once after creating a token. */
   async shownSecret(): Promise<string> {
     return (await this.tokenSecret.locator("code").textContent())!.trim();
+  }
+
+  async changePassword(current: string, next: string) {
+    const form = this.page.getByTestId("password-form");
+    await form.getByLabel(/^Current password/).fill(current);
+    await form.getByLabel(/^New password/).fill(next);
+    await this.page.getByTestId("change-password").click();
   }
 
   async revoke(name: string) {

@@ -49,6 +49,10 @@ export class LabPage {
     return this.nav.getByRole("link").allTextContents();
   }
 
+  async signOut() {
+    await this.page.getByTestId("sign-out").click();
+  }
+
   async expectHeading(text: string | RegExp) {
     await expect(this.heading).toHaveText(text);
   }

@@ -7,6 +7,8 @@ export class MembersPage extends LabPage {
   readonly roleSelects: Locator;
   readonly inviteForm: Locator;
   readonly error: Locator;
+  readonly invitations: DataTable;
+  readonly inviteMessage: Locator;
 
   constructor(page: Page, labId: string) {
     super(page, labId);
@@ -14,10 +16,22 @@ export class MembersPage extends LabPage {
     this.roleSelects = this.table.root.locator("select");
     this.inviteForm = page.getByTestId("invite-form");
     this.error = page.getByTestId("members-error");
+    this.invitations = new DataTable(page.getByTestId("invitations-table"));
+    this.inviteMessage = page.getByTestId("invite-message");
   }
 
   override get path() {
     return "/members";
+  }
+
+  async invite(email: string, roleLabel: string) {
+    await this.inviteForm.getByLabel(/^E-mail/).fill(email);
+    await this.inviteForm.getByLabel(/^Role/).selectOption({ label: roleLabel });
+    await this.page.getByTestId("send-invitation").click();
+  }
+
+  revokeButton(email: string): Locator {
+    return this.page.getByTestId(`revoke-${email}`);
   }
 
   roleOf(email: string): Locator {
