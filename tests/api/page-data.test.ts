@@ -5,6 +5,7 @@
  */
 import { afterAll, afterEach, beforeAll, describe, expect, it, vi } from "vitest";
 import { requireLab, type LabContext } from "@/lib/server/access";
+import { createThread, listThreads } from "@/lib/server/discussions/discussions";
 import { loadNewFitPage } from "@/lib/server/fits/pages";
 import { createLabKinetics, updateLabKinetics } from "@/lib/server/kinetics/kinetics";
 import { loadKineticsEditPage, loadLabKineticsPage } from "@/lib/server/kinetics/pages";
@@ -14,6 +15,7 @@ import { database } from "@/lib/server/services";
 import { startTestStack, type TestStack } from "../support/stack";
 import { makeWorld, type World } from "../support/world";
 import { labSchnakenberg } from "./permission-cases/kinetics";
+import { upload } from "./permission-cases/shared";
 
 let stack: TestStack;
 let w: World;
@@ -130,5 +132,20 @@ describe("dashboard", () => {
   it("leaves the audit trail out for a role that may not read it (permission table: audit.read)", async () => {
     const collaborator = await requireLab(w.people.collaborator.actor, w.labId);
     expect((await loadDashboard(collaborator)).audit).toBeNull();
+  });
+});
+
+describe("open discussions (dashboard panel)", () => {
+  it("names every thread's object with one query per kind of object, not one per thread", async () => {
+    const files = [await upload(w), await upload(w), await upload(w)];
+    for (const f of files) await createThread(manager, { targetType: "upload", targetId: f.id, body: "Spacing?" });
+    const m = await database();
+    const findOne = vi.spyOn(m.Upload, "findOne");
+    const findAll = vi.spyOn(m.Upload, "findAll");
+    const list = await listThreads(manager, {}, { page: 1, pageSize: 20, sort: "lastActivityAt", dir: "desc", q: "" });
+    expect(list.items.filter((t) => t.target.type === "upload")).toHaveLength(3);
+    expect(list.items.every((t) => t.target.label.startsWith("the file “a.png”"))).toBe(true);
+    expect(findOne).not.toHaveBeenCalled();
+    expect(findAll).toHaveBeenCalledTimes(1);
   });
 });
