@@ -25,8 +25,10 @@ export function SectionError({
   }, [error]);
   // Try again means every read on the page: the server part is fetched anew by retry(), and the
   // browser's cached API answers are dropped first, or a bad cached answer would fail again at once.
+  // Dropping them with revalidation also forgets the failed request, so the remounted table asks
+  // the server again instead of waiting on that request's answer.
   async function tryAgain() {
-    await mutate(() => true, undefined, { revalidate: false });
+    await mutate(() => true, undefined);
     retry();
   }
   const digest =

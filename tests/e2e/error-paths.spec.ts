@@ -72,7 +72,8 @@ test("while a section loads, its skeleton is shown in the page's place", async (
     (url) => url.pathname === `/labs/${lab.labId}/studies`,
     async (route) => {
       // Prefetches (which carry the section's loading.tsx) go through; the page's own data waits.
-      if (!route.request().headers()["next-router-prefetch"]) await held;
+      const h = route.request().headers();
+      if (!h["next-router-prefetch"] && !h["next-router-segment-prefetch"]) await held;
       await route.continue();
     },
   );
