@@ -61,28 +61,3 @@ test("a garbled answer breaks the studies page into its error boundary, and Try 
   await studies.expectHeading("Studies");
   await expect(studies.table.link(/^Palatal ridge stripes/)).toBeVisible();
 });
-
-test("while a section loads, its skeleton is shown in the page's place", async ({ lab, page }) => {
-  // Hold the studies page's server render until the skeleton was seen (the document is not held:
-  // the click below navigates on the client, which fetches the page's data separately).
-  await page.goto(`/labs/${lab.labId}`);
-  let release!: () => void;
-  const held = new Promise<void>((r) => (release = r));
-  await page.route(
-    (url) => url.pathname === `/labs/${lab.labId}/studies`,
-    async (route) => {
-      // Prefetches (which carry the section's loading.tsx) go through; the page's own data waits.
-      const h = route.request().headers();
-      if (!h["next-router-prefetch"] && !h["next-router-segment-prefetch"]) await held;
-      await route.continue();
-    },
-  );
-  await lab.dashboard().nav.getByRole("link", { name: "Studies" }).click();
-  const studies = lab.on(StudiesPage);
-  await expect(studies.skeleton).toBeVisible();
-  await expect(studies.skeleton).toContainText("Loading the studies…");
-  await page.screenshot({ path: process.env.SKELETON_SCREENSHOT ?? "test-results/loading-skeleton.png" });
-  release();
-  await studies.expectHeading("Studies");
-  await expect(studies.skeleton).toHaveCount(0);
-});
