@@ -7,6 +7,7 @@ import { flexRender, getCoreRowModel, useReactTable, type ColumnDef, type Sortin
 import { useEffect, useMemo, useState } from "react";
 import useSWR from "swr";
 import { fetchJson } from "@/lib/client/api";
+import { describeLoadError } from "./load-error";
 
 export interface Page<T> {
   items: T[];
@@ -95,8 +96,20 @@ export function DataTable<T>({
         </span>
       </div>
       {error ? (
-        <div className="rounded-md border border-brick/40 bg-brick-soft px-3 py-2 text-sm text-brick">
-          {(error as Error).message}
+        <div
+          role="alert"
+          className="flex flex-wrap items-center justify-between gap-3 rounded-md border border-brick/40 bg-brick-soft px-3 py-2 text-sm text-brick"
+          data-testid="table-error"
+        >
+          <span>{describeLoadError("The rows", error)}</span>
+          <button
+            type="button"
+            onClick={() => void mutate()}
+            className="rounded border border-brick/40 bg-card px-2 py-0.5 text-ink hover:bg-paper-deep"
+            data-testid="table-retry"
+          >
+            Try again
+          </button>
         </div>
       ) : data && data.total === 0 && !q ? (
         empty

@@ -2,6 +2,9 @@
 import { expect, test } from "@playwright/test";
 import { unique, uniqueEmail } from "./support/demo";
 import { DASHBOARD_URL, labIdOf, signUp } from "./support/session";
+import { AccountPage } from "./pages/account-page";
+import { AuditPage } from "./pages/audit-page";
+import { DashboardPage } from "./pages/dashboard-page";
 
 test("a second lab from the account page, then switching between the two", async ({ page }) => {
   const first = unique("Scale Lab");
@@ -13,32 +16,34 @@ test("a second lab from the account page, then switching between the two", async
     labName: first,
   });
 
-  await page.getByTestId("account-link").click();
+  await new DashboardPage(page, firstId).accountLink.click();
   await expect(page).toHaveURL("/account");
-  await expect(page.getByTestId("my-labs")).toHaveText(`${first}Lab manager`);
-  await page.getByLabel("Start another lab").fill(second);
-  await page.getByTestId("create-lab").click();
+  const account = new AccountPage(page);
+  await expect(account.myLabs).toHaveText(`${first}Lab manager`);
+  await account.createLab(second);
   await expect(page).toHaveURL(DASHBOARD_URL);
   const secondId = labIdOf(page);
   expect(secondId).not.toBe(firstId);
-  await expect(page.getByRole("heading", { level: 1 })).toHaveText(second);
-  await expect(page.getByTestId("current-role")).toHaveText("Lab manager");
+  const dashboard = new DashboardPage(page, secondId);
+  await dashboard.expectHeading(second);
+  await expect(dashboard.currentRole).toHaveText("Lab manager");
 
-  const switcher = page.getByTestId("lab-switcher");
+  const switcher = dashboard.labSwitcher;
   await expect(switcher).toHaveValue(secondId);
   await expect(switcher.locator("option")).toHaveText([first, second].sort((a, b) => a.localeCompare(b)));
 
   await switcher.selectOption({ label: first });
   await expect(page).toHaveURL(`/labs/${firstId}`);
-  await expect(page.getByRole("heading", { level: 1 })).toHaveText(first);
+  await dashboard.expectHeading(first);
   await expect(switcher).toHaveValue(firstId);
 
   await switcher.selectOption({ label: second });
   await expect(page).toHaveURL(`/labs/${secondId}`);
-  await expect(page.getByRole("heading", { level: 1 })).toHaveText(second);
+  await dashboard.expectHeading(second);
 
   // Each lab's audit trail records only its own creation.
-  await page.goto(`/labs/${firstId}/audit`);
-  await expect(page.getByTestId("audit-table")).toContainText(`created the lab “${first}”`);
-  await expect(page.getByTestId("audit-table")).not.toContainText(second);
+  const audit = new AuditPage(page, firstId);
+  await audit.goto();
+  await expect(audit.table.root).toContainText(`created the lab “${first}”`);
+  await expect(audit.table.root).not.toContainText(second);
 });

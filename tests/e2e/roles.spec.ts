@@ -1,7 +1,12 @@
 /** Each demo role signs in through the form and sees what its role allows, and no more. */
-import { expect, test, type Page } from "@playwright/test";
+import type { Page } from "@playwright/test";
 import { DEMO, DEMO_LAB, type DemoRole } from "./support/demo";
-import { navLabels, signIn } from "./support/session";
+import { expect, test } from "./pages/fixtures";
+import { AuditPage } from "./pages/audit-page";
+import { DashboardPage } from "./pages/dashboard-page";
+import { MembersPage } from "./pages/members-page";
+import { SpecimenPage } from "./pages/specimen-page";
+import { StudiesPage } from "./pages/studies-page";
 
 interface Expectation {
   role: DemoRole;
@@ -29,60 +34,60 @@ async function firstSpecimenPath(page: Page, labId: string): Promise<string> {
 }
 
 for (const { role, managerNav, canCreate } of ROLES) {
-  test(`${role}: dashboard, navigation and what the pages offer`, async ({ page }) => {
-    const { email, label } = DEMO[role];
-    const labId = await signIn(page, email);
+  test.describe(role, () => {
+    test.use({ role });
 
-    await expect(page.getByRole("heading", { level: 1 })).toHaveText(DEMO_LAB);
-    await expect(page.getByTestId("current-role")).toHaveText(label);
-    await expect(page.getByTestId("lab-switcher")).toHaveValue(labId);
+    test(`${role}: dashboard, navigation and what the pages offer`, async ({ lab, page }) => {
+      const { label } = DEMO[role];
+      const dashboard = lab.on(DashboardPage);
 
-    const nav = await navLabels(page);
-    expect(nav.slice(0, 7)).toEqual(["Dashboard", "Studies", "Readouts", "Kinetics", "Fits", "Runs", "Members"]);
-    expect(nav.includes("Audit trail")).toBe(managerNav);
-    expect(nav.includes("Mailbox (dev)")).toBe(managerNav);
+      await dashboard.expectHeading(DEMO_LAB);
+      await expect(dashboard.currentRole).toHaveText(label);
+      await expect(dashboard.labSwitcher).toHaveValue(lab.labId);
 
-    // Studies: the "New study" button only for roles that may create.
-    await page.goto(`/labs/${labId}/studies`);
-    await expect(page.getByTestId("studies-table").getByRole("link", { name: /^Palatal ridge stripes/ })).toBeVisible();
-    await expect(page.getByTestId("new-study")).toHaveCount(canCreate ? 1 : 0);
+      const nav = await dashboard.navLabels();
+      expect(nav.slice(0, 7)).toEqual(["Dashboard", "Studies", "Readouts", "Kinetics", "Fits", "Runs", "Members"]);
+      expect(nav.includes("Audit trail")).toBe(managerNav);
+      expect(nav.includes("Mailbox (dev)")).toBe(managerNav);
 
-    // A specimen: the upload form only for roles that may upload; the seeded file is listed for all.
-    await page.goto(await firstSpecimenPath(page, labId));
-    await expect(page.getByRole("heading", { level: 1 })).toHaveText("Specimen DS-01");
-    await expect(page.getByTestId("uploads-table").getByTestId("download-link")).toHaveText("placodes-1.tif");
-    await expect(page.getByTestId("upload-form")).toHaveCount(canCreate ? 1 : 0);
+      // Studies: the "New study" button only for roles that may create.
+      const studies = await lab.open(StudiesPage);
+      await expect(studies.table.link(/^Palatal ridge stripes/)).toBeVisible();
+      await expect(studies.newStudyButton).toHaveCount(canCreate ? 1 : 0);
 
-    // The audit trail answers not-found to everyone but the manager.
-    const audit = await page.goto(`/labs/${labId}/audit`);
-    if (managerNav) {
-      expect(audit?.status()).toBe(200);
-      await expect(page.getByRole("heading", { level: 1 })).toHaveText("Audit trail");
-      await expect(page.getByTestId("audit-table")).toContainText(
-        "created the lab “Bracken Hill Patterning Lab” with four members",
-      );
-    } else {
-      expect(audit?.status()).toBe(404);
-      await expect(page.getByTestId("not-found")).toBeVisible();
-      await expect(page.getByTestId("audit-table")).toHaveCount(0);
-    }
+      // A specimen: the upload form only for roles that may upload; the seeded file is listed for all.
+      await page.goto(await firstSpecimenPath(page, lab.labId));
+      const specimen = lab.on(SpecimenPage);
+      await specimen.expectHeading("Specimen DS-01");
+      await expect(specimen.uploads.root.getByTestId("download-link")).toHaveText("placodes-1.tif");
+      await expect(specimen.uploadForm).toHaveCount(canCreate ? 1 : 0);
 
-    // Members: the manager gets a role select per member, everyone else read-only badges.
-    await page.goto(`/labs/${labId}/members`);
-    const table = page.getByTestId("members-table");
-    for (const other of Object.values(DEMO)) await expect(table).toContainText(other.email);
-    const selects = table.locator("select");
-    const rows = table.locator("tbody tr");
-    if (managerNav) {
-      // One select per member row (other specs may have added members to the demo lab).
-      await expect(selects).toHaveCount(await rows.count());
-      for (const [r, p] of Object.entries(DEMO)) await expect(table.getByTestId(`role-${p.email}`)).toHaveValue(r);
-      await expect(page.getByTestId("invite-form")).toBeVisible();
-    } else {
-      await expect(selects).toHaveCount(0);
-      const scientistRow = table.getByRole("row").filter({ hasText: DEMO.scientist.email });
-      await expect(scientistRow).toContainText("Bench scientist");
-      await expect(page.getByTestId("invite-form")).toHaveCount(0);
-    }
+      // The audit trail answers not-found to everyone but the manager.
+      const audit = lab.on(AuditPage);
+      const status = await audit.goto();
+      if (managerNav) {
+        expect(status).toBe(200);
+        await audit.expectHeading("Audit trail");
+        await expect(audit.table.root).toContainText("created the lab “Bracken Hill Patterning Lab” with four members");
+      } else {
+        expect(status).toBe(404);
+        await expect(audit.notFound).toBeVisible();
+        await expect(audit.table.root).toHaveCount(0);
+      }
+
+      // Members: the manager gets a role select per member, everyone else read-only badges.
+      const members = await lab.open(MembersPage);
+      for (const other of Object.values(DEMO)) await expect(members.table.root).toContainText(other.email);
+      if (managerNav) {
+        // One select per member row (other specs may have added members to the demo lab).
+        await expect(members.roleSelects).toHaveCount(await members.table.rows.count());
+        for (const [r, p] of Object.entries(DEMO)) await expect(members.roleOf(p.email)).toHaveValue(r);
+        await expect(members.inviteForm).toBeVisible();
+      } else {
+        await expect(members.roleSelects).toHaveCount(0);
+        await expect(members.table.row(DEMO.scientist.email)).toContainText("Bench scientist");
+        await expect(members.inviteForm).toHaveCount(0);
+      }
+    });
   });
 }

@@ -1,79 +1,91 @@
 /** A modeller simulates Schnakenberg from its kinetics page and reads the result; a bench scientist cannot start runs. */
-import { expect, test } from "@playwright/test";
-import { DEMO } from "./support/demo";
-import { signIn } from "./support/session";
+import { expect, test } from "./pages/fixtures";
+import { KineticsListPage } from "./pages/kinetics-list-page";
+import { KineticsPage } from "./pages/kinetics-page";
+import { RunFormPage } from "./pages/run-form-page";
+import { RunPage } from "./pages/run-page";
+import { RunsPage } from "./pages/runs-page";
 
-test("modeller: Simulate with these parameters → progress → snapshot scrubber and the comparison sentence", async ({
-  page,
-}) => {
-  test.setTimeout(120_000);
-  const labId = await signIn(page, DEMO.modeller.email);
-  await page.goto(`/labs/${labId}/kinetics`);
-  await page.getByTestId("catalogue-table").getByRole("link", { name: "Schnakenberg" }).click();
-  await expect(page.getByTestId("classification")).toHaveText("Turing");
-  await page.getByTestId("param-d").fill("25");
-  await page.getByTestId("simulate-link").click();
+test.describe("modeller", () => {
+  test.use({ role: "modeller" });
 
-  await expect(page.getByRole("heading", { level: 1 })).toHaveText("New verification run");
-  await expect(page.getByTestId("run-kinetics")).toHaveValue("schnakenberg");
-  await expect(page.getByTestId("run-param-d")).toHaveValue("25");
-  // A grid that is not allowed is refused with the solver's limit before any job starts.
-  await page.getByTestId("run-end-time").fill("3000000");
-  await page.getByTestId("start-run").click();
-  await expect(page.getByTestId("run-error")).toHaveText("endTimeS / dtS needs 30000000 steps; the limit is 10000000.");
-  await page.screenshot({ path: "test-results/run-form.png", fullPage: true });
+  test("Simulate with these parameters → progress → snapshot scrubber and the comparison sentence", async ({
+    lab,
+    page,
+  }) => {
+    test.setTimeout(120_000);
+    await (await lab.open(KineticsListPage)).openCatalogue("Schnakenberg");
+    const kinetics = lab.on(KineticsPage);
+    await expect(kinetics.classification).toHaveText("Turing");
+    await kinetics.setParam("d", "25");
+    await kinetics.simulateLink.click();
 
-  await page.getByTestId("run-end-time").fill("400");
-  await page.getByTestId("run-seed").fill("7");
-  await page.getByTestId("run-snapshots").fill("5");
-  await page.getByTestId("start-run").click();
-  await expect(page).toHaveURL(/\/runs\/[0-9a-f-]{36}$/);
-  await expect(page.getByTestId("run-progress")).toBeVisible();
-  await expect(page.getByTestId("run-status")).not.toHaveText(/^(queued|running)$/, { timeout: 90_000 });
-  await expect(page.getByTestId("run-error")).toHaveCount(0);
-  await expect(page.getByTestId("comparison-sentence")).toContainText("The simulated wavelength", { timeout: 90_000 });
-  await expect(page.getByTestId("comparison-sentence")).toContainText("the linear prediction 2π/k*");
-  await expect(page.getByTestId("run-status")).toHaveText("reached the end time");
-  await expect(page.getByTestId("run-seed")).toHaveText("7");
+    const form = lab.on(RunFormPage);
+    await form.expectHeading("New verification run");
+    await expect(form.kinetics).toHaveValue("schnakenberg");
+    await expect(form.param("d")).toHaveValue("25");
+    // A grid that is not allowed is refused with the solver's limit before any job starts.
+    await form.endTime.fill("3000000");
+    await form.start();
+    await expect(form.error).toHaveText("endTimeS / dtS needs 30000000 steps; the limit is 10000000.");
+    await page.screenshot({ path: "test-results/run-form.png", fullPage: true });
 
-  const scrubber = page.getByTestId("snapshot-scrubber");
-  await expect(scrubber.getByTestId("scrubber-time")).toHaveText("t = 400 model time");
-  await scrubber.getByTestId("scrubber-slider").fill("0");
-  await expect(scrubber.getByTestId("scrubber-time")).toHaveText("t = 0 model time");
-  await expect(scrubber.getByTestId("scale-bar")).toContainText("model length");
-  await expect(page.getByTestId("spectrum-plot")).toBeVisible();
-  await page.screenshot({ path: "test-results/run-page.png", fullPage: true });
+    await form.endTime.fill("400");
+    await form.seed.fill("7");
+    await form.snapshots.fill("5");
+    await form.start();
+    await expect(page).toHaveURL(/\/runs\/[0-9a-f-]{36}$/);
+    const run = lab.on(RunPage);
+    await expect(run.progress).toBeVisible();
+    await run.waitForEnd(90_000);
+    await expect(run.error).toHaveCount(0);
+    await expect(run.comparison).toContainText("The simulated wavelength", { timeout: 90_000 });
+    await expect(run.comparison).toContainText("the linear prediction 2π/k*");
+    await expect(run.status).toHaveText("reached the end time");
+    await expect(run.seed).toHaveText("7");
 
-  // Start a second run from this pattern at d = 5, where the steady state is stable: does the pattern persist?
-  const firstUrl = page.url();
-  await page.getByTestId("continue-run").click();
-  await expect(page.getByRole("heading", { level: 1 })).toHaveText("New verification run");
-  await expect(page.getByTestId("run-start-note")).toContainText("Starts from the final fields of");
-  await expect(page.getByTestId("run-param-d")).toHaveValue("25");
-  await expect(page.getByTestId("run-cells")).toHaveValue("64");
-  await page.getByTestId("run-param-d").fill("5");
-  await page.getByTestId("run-end-time").fill("50");
-  await page.getByTestId("start-run").click();
-  await expect(page).toHaveURL(/\/runs\/[0-9a-f-]{36}$/);
-  expect(page.url()).not.toBe(firstUrl);
-  await expect(page.getByText("the run shows whether the earlier pattern persists")).toBeVisible();
-  await expect(page.getByTestId("run-status")).toHaveText("reached the end time", { timeout: 90_000 });
-  await expect(page.getByTestId("run-initial-state")).toContainText("the final fields of the run");
-  await expect(page.getByTestId("run-initial-state")).toContainText("no added noise");
-  await page.screenshot({ path: "test-results/run-continued.png", fullPage: true });
+    await expect(run.scrubberTime).toHaveText("t = 400 model time");
+    await run.scrubberSlider.fill("0");
+    await expect(run.scrubberTime).toHaveText("t = 0 model time");
+    await expect(run.scaleBar).toContainText("model length");
+    await expect(run.spectrum).toBeVisible();
+    await page.screenshot({ path: "test-results/run-page.png", fullPage: true });
 
-  await page.goto(`/labs/${labId}/runs`);
-  await expect(page.getByTestId("runs-table")).toContainText("Schnakenberg, 64×64, seed 7");
-  await page.screenshot({ path: "test-results/runs-list.png", fullPage: true });
+    // Start a second run from this pattern at d = 5, where the steady state is stable: does the pattern persist?
+    const firstUrl = page.url();
+    await run.continueFromHere();
+    await form.expectHeading("New verification run");
+    await expect(form.startNote).toContainText("Starts from the final fields of");
+    await expect(form.param("d")).toHaveValue("25");
+    await expect(form.cells).toHaveValue("64");
+    await form.param("d").fill("5");
+    await form.endTime.fill("50");
+    await form.start();
+    await expect(page).toHaveURL(/\/runs\/[0-9a-f-]{36}$/);
+    expect(page.url()).not.toBe(firstUrl);
+    await expect(page.getByText("the run shows whether the earlier pattern persists")).toBeVisible();
+    await expect(run.status).toHaveText("reached the end time", { timeout: 90_000 });
+    await expect(run.initialState).toContainText("the final fields of the run");
+    await expect(run.initialState).toContainText("no added noise");
+    await page.screenshot({ path: "test-results/run-continued.png", fullPage: true });
+
+    const runs = await lab.open(RunsPage);
+    await expect(runs.table).toContainText("Schnakenberg, 64×64, seed 7");
+    await page.screenshot({ path: "test-results/runs-list.png", fullPage: true });
+  });
 });
 
-test("bench scientist: no New run, no Simulate link, and the form answers not-found", async ({ page }) => {
-  const labId = await signIn(page, DEMO.scientist.email);
-  await page.goto(`/labs/${labId}/runs`);
-  await expect(page.getByRole("heading", { level: 1 })).toHaveText("Verification runs");
-  await expect(page.getByTestId("new-run")).toHaveCount(0);
-  await page.goto(`/labs/${labId}/kinetics/schnakenberg`);
-  await expect(page.getByTestId("classification")).toHaveText("Turing");
-  await expect(page.getByTestId("simulate-link")).toHaveCount(0);
-  expect((await page.goto(`/labs/${labId}/runs/new`))?.status()).toBe(404);
+test.describe("bench scientist", () => {
+  test.use({ role: "scientist" });
+
+  test("no New run, no Simulate link, and the form answers not-found", async ({ lab, page }) => {
+    const runs = await lab.open(RunsPage);
+    await runs.expectHeading("Verification runs");
+    await expect(runs.newRunButton).toHaveCount(0);
+    await page.goto(`/labs/${lab.labId}/kinetics/schnakenberg`);
+    const kinetics = lab.on(KineticsPage);
+    await expect(kinetics.classification).toHaveText("Turing");
+    await expect(kinetics.simulateLink).toHaveCount(0);
+    expect(await lab.on(RunFormPage).goto()).toBe(404);
+  });
 });

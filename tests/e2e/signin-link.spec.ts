@@ -3,16 +3,19 @@ import { expect, test } from "@playwright/test";
 import { DEMO, DEMO_LAB, unique, uniqueEmail } from "./support/demo";
 import { E2E_BASE_URL } from "./support/ports";
 import { linkTo, mailIds, waitForMail } from "./support/mailbox";
-import { DASHBOARD_URL, signIn, signUp } from "./support/session";
+import { DASHBOARD_URL, labIdOf, signIn, signUp } from "./support/session";
+import { AccountPage } from "./pages/account-page";
+import { LoginPage } from "./pages/login-page";
+import { DashboardPage } from "./pages/dashboard-page";
 
 test("a sign-in link works once", async ({ page, browser }) => {
   const email = DEMO.scientist.email;
   const seen = await mailIds(email);
-  await page.goto("/login");
-  await page.getByLabel("E-mail for the link").fill(email);
-  await page.getByTestId("send-link").click();
+  const login = new LoginPage(page);
+  await login.goto();
+  await login.askForLink(email);
   await expect(page).toHaveURL(/\/login\/check-email/);
-  await expect(page.getByTestId("check-email")).toContainText("a sign-in link is on its way");
+  await expect(login.checkEmail).toContainText("a sign-in link is on its way");
 
   const mail = await waitForMail(email, seen);
   expect(mail.subject).toBe("Your Morphokin sign-in link");
@@ -21,8 +24,9 @@ test("a sign-in link works once", async ({ page, browser }) => {
 
   await page.goto(link);
   await expect(page).toHaveURL(DASHBOARD_URL);
-  await expect(page.getByRole("heading", { level: 1 })).toHaveText(DEMO_LAB);
-  await expect(page.getByTestId("current-role")).toHaveText("Bench scientist");
+  const dashboard = new DashboardPage(page, labIdOf(page));
+  await dashboard.expectHeading(DEMO_LAB);
+  await expect(dashboard.currentRole).toHaveText("Bench scientist");
   expect((await (await page.request.get("/api/v1/me")).json()).email).toBe(email);
 
   // A second browser (no session) with the same link: back to sign-in, told why.
@@ -31,7 +35,7 @@ test("a sign-in link works once", async ({ page, browser }) => {
     const p = await other.newPage();
     await p.goto(link);
     await expect(p).toHaveURL(/\/login\?.*error=Verification/);
-    await expect(p.getByTestId("login-error")).toHaveText(
+    await expect(new LoginPage(p).error).toHaveText(
       "That sign-in link has expired or was already used. Ask for a new one below.",
     );
     expect((await p.request.get("/api/v1/me")).status()).toBe(401);
@@ -42,11 +46,11 @@ test("a sign-in link works once", async ({ page, browser }) => {
 
 test("an unknown address gets the same check-your-mail page and no mail", async ({ page }) => {
   const email = "nobody-here@e2e.example";
-  await page.goto("/login");
-  await page.getByLabel("E-mail for the link").fill(email);
-  await page.getByTestId("send-link").click();
+  const login = new LoginPage(page);
+  await login.goto();
+  await login.askForLink(email);
   await expect(page).toHaveURL(/\/login\/check-email/);
-  await expect(page.getByTestId("check-email")).toBeVisible();
+  await expect(login.checkEmail).toBeVisible();
   // Give a mistaken send time to arrive before concluding none was sent.
   await page.waitForTimeout(1000);
   expect(await mailIds(email)).toEqual(new Set());
@@ -67,7 +71,7 @@ test("signing out ends the session: the cookie that worked before answers 401 af
   };
   expect(await replay()).toBe(200);
 
-  await page.getByTestId("sign-out").click();
+  await new DashboardPage(page, labIdOf(page)).signOut();
   await expect(page).toHaveURL(/\/login/);
   expect(await replay()).toBe(401);
 });
@@ -86,12 +90,10 @@ test("changing the password on the Account page signs out the account's other se
     await signIn(o, account.email, account.password);
     expect((await o.request.get("/api/v1/me")).status()).toBe(200);
 
-    await page.goto("/account");
-    const form = page.getByTestId("password-form");
-    await form.getByLabel(/^Current password/).fill(account.password);
-    await form.getByLabel(/^New password/).fill("second-password-2");
-    await page.getByTestId("change-password").click();
-    await expect(page.getByTestId("password-message")).toHaveText("Password changed. Signed out 1 other session.");
+    const accountPage = new AccountPage(page);
+    await accountPage.goto();
+    await accountPage.changePassword(account.password, "second-password-2");
+    await expect(accountPage.passwordMessage).toHaveText("Password changed. Signed out 1 other session.");
 
     expect((await o.request.get("/api/v1/me")).status()).toBe(401);
     expect((await page.request.get("/api/v1/me")).status()).toBe(200);

@@ -3,7 +3,10 @@ import { expect, test } from "@playwright/test";
 import { DEMO, DEMO_LAB, DEMO_PASSWORD, unique, uniqueEmail } from "./support/demo";
 import { linkTo, mailIds, waitForMail } from "./support/mailbox";
 import { E2E_MAILBOX_URL } from "./support/ports";
-import { DASHBOARD_URL, fillSignup, signIn, signUp } from "./support/session";
+import { DASHBOARD_URL, signIn, signUp } from "./support/session";
+import { DashboardPage } from "./pages/dashboard-page";
+import { LoginPage } from "./pages/login-page";
+import { SignupPage } from "./pages/signup-page";
 
 test("sign-up creates the account and a lab, and lands on it as lab manager", async ({ page }) => {
   const account = {
@@ -13,18 +16,20 @@ test("sign-up creates the account and a lab, and lands on it as lab manager", as
     labName: unique("Feather Tract Group"),
   };
   const labId = await signUp(page, account);
+  const dashboard = new DashboardPage(page, labId);
 
-  await expect(page.getByRole("heading", { level: 1 })).toHaveText(account.labName);
+  await dashboard.expectHeading(account.labName);
   await expect(page.getByText("You are lab manager here.")).toBeVisible();
-  await expect(page.getByTestId("current-role")).toHaveText("Lab manager");
-  await expect(page.getByTestId("account-link")).toHaveText(account.name);
-  await expect(page.getByTestId("lab-switcher").locator("option")).toHaveText([account.labName]);
-  await expect(
-    page.getByRole("navigation", { name: "Lab" }).getByRole("link", { name: "Audit trail" }),
-  ).toHaveAttribute("href", `/labs/${labId}/audit`);
+  await expect(dashboard.currentRole).toHaveText("Lab manager");
+  await expect(dashboard.accountLink).toHaveText(account.name);
+  await expect(dashboard.labSwitcher.locator("option")).toHaveText([account.labName]);
+  await expect(dashboard.nav.getByRole("link", { name: "Audit trail" })).toHaveAttribute(
+    "href",
+    `/labs/${labId}/audit`,
+  );
 
   // The lab is empty and says what to do next.
-  await expect(page.getByTestId("empty-state").first()).toContainText("No studies yet.");
+  await expect(dashboard.emptyStates.first()).toContainText("No studies yet.");
 
   // The session is real: the API knows who this is.
   const me = await (await page.request.get("/api/v1/me")).json();
@@ -39,20 +44,21 @@ test("signing up again with an address that has an account shows the same page a
   browser,
 }) => {
   const seen = await mailIds(DEMO.scientist.email);
-  await page.goto("/signup");
-  await fillSignup(page, {
+  const signup = new SignupPage(page);
+  await signup.goto();
+  await signup.fill({
     name: "Someone Else",
     email: DEMO.scientist.email,
     password: "another-password-1",
     labName: unique("Duplicate Lab"),
   });
-  await page.getByTestId("create-account").click();
+  await signup.submit();
   await expect(page).toHaveURL(/\/signup\/check-email/);
-  await expect(page.getByTestId("signup-check-email")).toHaveText(
+  await expect(signup.checkEmail).toHaveText(
     `We sent a message to ${DEMO.scientist.email}. Open the link in it to finish creating your account and lab.`,
   );
   // In this local setup the page says where local mail is read (the catcher's listing).
-  await expect(page.getByTestId("local-mail-catcher")).toContainText(E2E_MAILBOX_URL);
+  await expect(signup.localMailCatcher).toContainText(E2E_MAILBOX_URL);
   const mail = await waitForMail(DEMO.scientist.email, seen);
   expect(mail.subject).toBe("You already have a Morphokin account");
 
@@ -70,8 +76,8 @@ test("signing up again with an address that has an account shows the same page a
   }
 
   // The existing account is untouched: same password, still only the demo lab.
-  await signIn(page, DEMO.scientist.email);
-  await expect(page.getByTestId("lab-switcher").locator("option")).toHaveText([DEMO_LAB]);
+  const labId = await signIn(page, DEMO.scientist.email);
+  await expect(new DashboardPage(page, labId).labSwitcher.locator("option")).toHaveText([DEMO_LAB]);
 });
 
 test("ten wrong passwords lock the account, and the sign-in page says for how long", async ({ page }) => {
@@ -83,34 +89,34 @@ test("ten wrong passwords lock the account, and the sign-in page says for how lo
   };
   await signUp(page, account);
   await page.context().clearCookies();
-  await page.goto("/login");
-  await page.getByLabel(/^E-mail$/).fill(account.email);
+  const login = new LoginPage(page);
+  await login.goto();
+  await login.email.fill(account.email);
   // LOCKOUT_FAILURES defaults to 10 (lib/server/config.ts).
   for (let i = 0; i < 10; i++) {
-    await page.getByLabel(/^Password/).fill(`wrong-password-${i}`);
+    await login.password.fill(`wrong-password-${i}`);
     // Wait for the answer itself, so every failure is counted before the next try.
     const answer = page.waitForResponse((r) => r.url().includes("/api/auth/callback/credentials"));
-    await page.getByTestId("sign-in").click();
+    await login.pressSignIn();
     expect((await answer).status()).toBe(401);
-    await expect(page.getByTestId("login-error")).toHaveText("Wrong e-mail or password.");
+    await expect(login.error).toHaveText("Wrong e-mail or password.");
   }
-  await page.getByLabel(/^Password/).fill(account.password);
+  await login.password.fill(account.password);
   const locked = page.waitForResponse((r) => r.url().includes("/api/auth/callback/credentials"));
-  await page.getByTestId("sign-in").click();
+  await login.pressSignIn();
   expect((await locked).status()).toBe(429);
   expect(Number((await locked).headers()["retry-after"])).toBeGreaterThan(14 * 60);
-  await expect(page.getByTestId("login-error")).toHaveText(
+  await expect(login.error).toHaveText(
     "Too many failed sign-ins for this account; try again in 15 minutes or use a sign-in link.",
   );
   expect((await page.request.get("/api/v1/me")).status()).toBe(401);
 });
 
 test("a wrong password on the sign-in form says so and stays on the form", async ({ page }) => {
-  await page.goto("/login");
-  await page.getByLabel(/^E-mail$/).fill(DEMO.manager.email);
-  await page.getByLabel(/^Password/).fill(`${DEMO_PASSWORD}-wrong`);
-  await page.getByTestId("sign-in").click();
-  await expect(page.getByTestId("login-error")).toHaveText("Wrong e-mail or password.");
+  const login = new LoginPage(page);
+  await login.goto();
+  await login.submit(DEMO.manager.email, `${DEMO_PASSWORD}-wrong`);
+  await expect(login.error).toHaveText("Wrong e-mail or password.");
   await expect(page).toHaveURL(/\/login$/);
   expect((await page.request.get("/api/v1/me")).status()).toBe(401);
 });

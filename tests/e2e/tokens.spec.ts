@@ -1,23 +1,23 @@
 /** A personal API token: shown once, works as Bearer, expires after 90 days unless chosen otherwise, stops working when revoked. */
-import { expect, test } from "@playwright/test";
 import { BASE_URL, DEMO, DEMO_LAB, unique } from "./support/demo";
-import { signIn } from "./support/session";
+import { expect, test } from "./pages/fixtures";
 
 const me = (secret: string) => fetch(`${BASE_URL}/api/v1/me`, { headers: { authorization: `Bearer ${secret}` } });
 
-test("create a token, call the API with it, revoke it", async ({ page }) => {
-  await signIn(page, DEMO.modeller.email);
-  await page.goto("/account");
-  const name = unique("batch readouts");
-  await page.getByLabel("Token name").fill(name);
-  await expect(page.getByLabel("Expires after")).toHaveValue("90"); // the default lifetime, days
-  await page.getByTestId("create-token").click();
+test.use({ role: "modeller" });
 
-  const shown = page.getByTestId("token-secret");
-  await expect(shown).toContainText("it is shown only once");
-  const secret = (await shown.locator("code").textContent())!.trim();
+test("create a token, call the API with it, revoke it", async ({ lab, page }) => {
+  const account = lab.account();
+  await account.goto();
+  const name = unique("batch readouts");
+  await account.tokenName.fill(name);
+  await expect(account.tokenExpiry).toHaveValue("90"); // the default lifetime, days
+  await account.createToken(name);
+
+  await expect(account.tokenSecret).toContainText("it is shown only once");
+  const secret = await account.shownSecret();
   expect(secret.length).toBeGreaterThanOrEqual(20);
-  const row = page.getByTestId("tokens-table").getByRole("row").filter({ hasText: name });
+  const row = account.tokens.row(name);
   await expect(row).toContainText("active");
   await expect(row).toContainText("never");
   // Expires 90 days from now (either side of midnight UTC while the test runs).
@@ -41,11 +41,11 @@ test("create a token, call the API with it, revoke it", async ({ page }) => {
 
   // Shown once: after a reload only the prefix remains, and "last used" is filled in.
   await page.reload();
-  await expect(page.getByTestId("token-secret")).toHaveCount(0);
+  await expect(account.tokenSecret).toHaveCount(0);
   await expect(page.locator("body")).not.toContainText(secret);
   await expect(row).not.toContainText("never");
 
-  await row.getByRole("button", { name: "Revoke" }).click();
+  await account.revoke(name);
   await expect(row).toContainText("revoked");
   const gone = await me(secret);
   expect(gone.status).toBe(401);

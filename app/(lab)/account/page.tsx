@@ -17,8 +17,7 @@ export const dynamic = "force-dynamic";
 
 export default async function AccountPage() {
   const actor = await pageActor("/account");
-  const me = await getMe(actor);
-  const events = await listOwnAccountEvents(actor.userId, 20);
+  const [me, events] = await Promise.all([getMe(actor), listOwnAccountEvents(actor.userId, 20)]);
   return (
     <AppShell me={me}>
       <PageHeader title="Your account" subtitle={<span className="num">{me.email}</span>} />

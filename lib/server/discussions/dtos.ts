@@ -2,11 +2,11 @@
 import "server-only";
 import { Op } from "sequelize";
 import { can } from "@/lib/access/permissions";
-import type { CommentDto, DiscussionTarget, ThreadDto, ThreadStatus } from "@/lib/contracts/discussion";
+import type { CommentDto, ThreadDto, ThreadStatus } from "@/lib/contracts/discussion";
 import type { Models } from "@/models";
 import type { LabContext } from "../access";
 import { database } from "../services";
-import { describeTarget } from "./targets";
+import { describeTargets } from "./targets";
 
 export type ThreadRow = InstanceType<Models["CommentThread"]>;
 export type CommentRow = InstanceType<Models["Comment"]>;
@@ -75,11 +75,14 @@ export async function toThreadDtos(ctx: LabContext, threads: ThreadRow[], withCo
     ...threads.flatMap((t) => [t.createdBy, t.resolvedBy]),
     ...comments.flatMap((c) => [c.authorId, ...c.mentions]),
   ]);
-  const targets = new Map<string, DiscussionTarget>();
+  const targets = await describeTargets(
+    m,
+    ctx.labId,
+    threads.map((t) => ({ type: t.targetType, id: t.targetId })),
+  );
   const out: ThreadDto[] = [];
   for (const t of threads) {
     const key = `${t.targetType}:${t.targetId}`;
-    if (!targets.has(key)) targets.set(key, await describeTarget(m, ctx.labId, t.targetType, t.targetId));
     const mine = comments.filter((c) => c.threadId === t.id);
     const creator = t.createdBy ? people.get(t.createdBy) : undefined;
     const resolver = t.resolvedBy ? people.get(t.resolvedBy) : undefined;

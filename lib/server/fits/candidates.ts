@@ -3,6 +3,7 @@
  * found a period, with its specimen's condition and study, and which measurement kinds it has.
  */
 import "server-only";
+import type { Models } from "@/models";
 import type { LabContext } from "../access";
 import { database } from "../services";
 import { headlineOf, MEASURE_LABELS, type ReadoutResult } from "../readouts/result";
@@ -42,22 +43,16 @@ export async function listFitCandidates(ctx: LabContext): Promise<FitCandidateDt
   for (const r of readouts) if (!latest.has(r.uploadId)) latest.set(r.uploadId, r);
   const rows = [...latest.values()].slice(0, MAX_CANDIDATES);
   if (rows.length === 0) return [];
-  const specimens = new Map(
-    (await m.Specimen.findAll({ where: { id: [...new Set(rows.map((r) => r.specimenId))] } })).map((s) => [s.id, s]),
-  );
-  const studies = new Map(
-    (
-      await m.Study.findAll({
-        where: { id: [...new Set([...specimens.values()].map((s) => s.studyId))] },
-        attributes: ["id", "name"],
-      })
-    ).map((s) => [s.id, s]),
-  );
-  const uploads = new Map(
-    (await m.Upload.findAll({ where: { id: rows.map((r) => r.uploadId) }, attributes: ["id", "filename"] })).map(
-      (u) => [u.id, u],
+  // Specimens (then their studies) and uploads do not depend on each other: read them together.
+  const [{ specimens, studies }, uploads] = await Promise.all([
+    readSpecimensAndStudies(
+      m,
+      rows.map((r) => r.specimenId),
     ),
-  );
+    m.Upload.findAll({ where: { id: rows.map((r) => r.uploadId) }, attributes: ["id", "filename"] }).then(
+      (found) => new Map(found.map((u) => [u.id, u])),
+    ),
+  ]);
   return rows
     .flatMap((r): FitCandidateDto[] => {
       const h = headlineOf(r.result as unknown as ReadoutResult);
@@ -92,4 +87,19 @@ export async function listFitCandidates(ctx: LabContext): Promise<FitCandidateDt
         a.condition.localeCompare(b.condition) ||
         a.specimenLabel.localeCompare(b.specimenLabel),
     );
+}
+
+async function readSpecimensAndStudies(m: Models, specimenIds: string[]) {
+  const specimens = new Map(
+    (await m.Specimen.findAll({ where: { id: [...new Set(specimenIds)] } })).map((s) => [s.id, s]),
+  );
+  const studies = new Map(
+    (
+      await m.Study.findAll({
+        where: { id: [...new Set([...specimens.values()].map((s) => s.studyId))] },
+        attributes: ["id", "name"],
+      })
+    ).map((s) => [s.id, s]),
+  );
+  return { specimens, studies };
 }

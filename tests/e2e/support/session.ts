@@ -2,6 +2,10 @@
 import { expect, type Page } from "@playwright/test";
 import { DEMO_PASSWORD } from "./demo";
 import { linkTo, mailIds, waitForMail } from "./mailbox";
+import { LoginPage } from "../pages/login-page";
+import { SignupPage, type NewAccount } from "../pages/signup-page";
+
+export type { NewAccount };
 
 /** Matches a lab dashboard URL and captures the lab id. */
 export const DASHBOARD_URL = /\/labs\/([^/?#]+)$/;
@@ -14,19 +18,11 @@ export function labIdOf(page: Page): string {
 
 /** Signs in with the password form and waits for the lab dashboard; returns the lab id. */
 export async function signIn(page: Page, email: string, password = DEMO_PASSWORD): Promise<string> {
-  await page.goto("/login");
-  await page.getByLabel(/^E-mail$/).fill(email);
-  await page.getByLabel(/^Password/).fill(password);
-  await page.getByTestId("sign-in").click();
+  const login = new LoginPage(page);
+  await login.goto();
+  await login.submit(email, password);
   await expect(page).toHaveURL(DASHBOARD_URL);
   return labIdOf(page);
-}
-
-export interface NewAccount {
-  name: string;
-  email: string;
-  password: string;
-  labName: string;
 }
 
 /**
@@ -35,24 +31,21 @@ export interface NewAccount {
  */
 export async function signUp(page: Page, account: NewAccount): Promise<string> {
   const seen = await mailIds(account.email);
-  await page.goto("/signup");
-  await fillSignup(page, account);
-  await page.getByTestId("create-account").click();
+  const signup = new SignupPage(page);
+  await signup.goto();
+  await signup.fill(account);
+  await signup.submit();
   await expect(page).toHaveURL(/\/signup\/check-email/);
   const mail = await waitForMail(account.email, seen);
   expect(mail.subject).toBe("Confirm your Morphokin account");
   await page.goto(linkTo(mail, "/signup/confirm/"));
-  await page.getByLabel(/^Your password/).fill(account.password);
-  await page.getByTestId("confirm-account").click();
+  await signup.confirm(account.password);
   await expect(page).toHaveURL(DASHBOARD_URL);
   return labIdOf(page);
 }
 
 export async function fillSignup(page: Page, account: NewAccount) {
-  await page.getByLabel("Your name").fill(account.name);
-  await page.getByLabel(/^E-mail/).fill(account.email);
-  await page.getByLabel(/^Password/).fill(account.password);
-  await page.getByLabel("Lab name").fill(account.labName);
+  await new SignupPage(page).fill(account);
 }
 
 /** The links of the lab's navigation bar, in order. */

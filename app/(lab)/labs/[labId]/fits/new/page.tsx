@@ -1,13 +1,7 @@
 import Link from "next/link";
 import { PageHeader } from "@/components/ui/panel";
-import { listFitCandidates } from "@/lib/server/fits/candidates";
-import {
-  definitionInfo,
-  getLabKineticsVersion,
-  listCatalogue,
-  listLabKinetics,
-  type KineticsInfoDto,
-} from "@/lib/server/kinetics/kinetics";
+import { Notice } from "@/components/ui/notice";
+import { loadNewFitPage } from "@/lib/server/fits/pages";
 import { pageLab } from "@/lib/server/web/page-access";
 import { FitBuilder } from "./fit-builder";
 
@@ -23,17 +17,7 @@ export default async function NewFitPage({
   const { labId } = await params;
   const { kinetics, version } = await searchParams;
   const ctx = await pageLab(labId, "fit.create");
-  const candidates = await listFitCandidates(ctx);
-  const lab = await listLabKinetics(ctx, { page: 1, pageSize: 100, sort: "name", dir: "asc", q: "" });
-  const labInfos: KineticsInfoDto[] = [];
-  for (const k of lab.items) {
-    const v = await getLabKineticsVersion(
-      ctx,
-      k.id,
-      k.id === kinetics && version && /^\d+$/.test(version) ? Number(version) : undefined,
-    ).catch(() => null);
-    if (v) labInfos.push(definitionInfo(k.id, v.version, v.definition));
-  }
+  const data = await loadNewFitPage(ctx, { kinetics, version });
   return (
     <>
       <PageHeader
@@ -45,10 +29,17 @@ export default async function NewFitPage({
         title="New fit"
         subtitle="Choose measured wavelengths grouped by condition, one kinetics (or several to compare), and which parameters the data should pin down. The server checks everything before the fit starts."
       />
+      {data.notice && (
+        <div className="mb-4">
+          <Notice tone="warning" testId="kinetics-version-notice">
+            {data.notice}
+          </Notice>
+        </div>
+      )}
       <FitBuilder
         labId={labId}
-        candidates={candidates}
-        kinetics={[...listCatalogue(), ...labInfos]}
+        candidates={data.candidates}
+        kinetics={data.kinetics}
         initialKinetics={kinetics ?? null}
       />
     </>

@@ -7,15 +7,12 @@ import { Badge, PageHeader, Panel } from "@/components/ui/panel";
 import { formatDateTime } from "@/lib/client/format";
 import { isUuid } from "@/lib/server/access";
 import {
-  definitionInfo,
   getCatalogueEntry,
-  getLabKinetics,
-  getLabKineticsVersion,
-  listKineticsVersions,
   type KineticsInfoDto,
   type KineticsVersionDto,
   type LabKineticsDto,
 } from "@/lib/server/kinetics/kinetics";
+import { loadLabKineticsPage } from "@/lib/server/kinetics/pages";
 import { AppError } from "@/lib/server/errors";
 import { orNotFound, pageLab } from "@/lib/server/web/page-access";
 import { AnalysisView } from "./analysis-view";
@@ -38,11 +35,8 @@ export default async function KineticsAnalysisPage({
   let lab: LabKineticsDto | null = null;
   let versions: KineticsVersionDto[] = [];
   if (isUuid(kineticsId)) {
-    lab = await orNotFound(getLabKinetics(ctx, kineticsId));
     const asked = rawVersion && /^\d+$/.test(rawVersion) ? Number(rawVersion) : undefined;
-    const v = await orNotFound(getLabKineticsVersion(ctx, kineticsId, asked));
-    info = definitionInfo(kineticsId, v.version, v.definition);
-    versions = await listKineticsVersions(ctx, kineticsId);
+    ({ lab, info, versions } = await orNotFound(loadLabKineticsPage(ctx, kineticsId, asked)));
   } else {
     try {
       info = getCatalogueEntry(kineticsId);

@@ -1,18 +1,9 @@
 import Link from "next/link";
 import { PageHeader } from "@/components/ui/panel";
 import { SIMULATION_LIMITS } from "@/lib/simulation";
-import {
-  definitionInfo,
-  getLabKineticsVersion,
-  listCatalogue,
-  listLabKinetics,
-  type KineticsInfoDto,
-} from "@/lib/server/kinetics/kinetics";
 import { estimateSolverS, RUN_WORK_LIMIT } from "@/lib/server/runs/plan";
 import { Notice } from "@/components/ui/notice";
-import { AppError } from "@/lib/server/errors";
-import { readFitStart } from "@/lib/server/runs/fit-start";
-import { listRunStartOptions } from "@/lib/server/runs/start";
+import { loadNewRunPage } from "@/lib/server/runs/pages";
 import { pageLab } from "@/lib/server/web/page-access";
 import { RunForm, type RunPrefill } from "./run-form";
 
@@ -30,49 +21,41 @@ export default async function NewRunPage({
   const { labId } = await params;
   const q = await searchParams;
   const ctx = await pageLab(labId, "run.create");
-  const lab = await listLabKinetics(ctx, { page: 1, pageSize: 200, sort: "name", dir: "asc", q: "" });
-  const labInfos: KineticsInfoDto[] = [];
-  for (const k of lab.items) {
-    const v = await getLabKineticsVersion(ctx, k.id);
-    labInfos.push(definitionInfo(k.id, v.version, v.definition));
-  }
   const one = (k: string) => (typeof q[k] === "string" ? (q[k] as string) : undefined);
   const parameters: Record<string, string> = {};
   for (const [k, v] of Object.entries(q)) if (k.startsWith("p.") && typeof v === "string") parameters[k.slice(2)] = v;
-  const earlierRuns = await listRunStartOptions(ctx);
   const from = one("from");
-  let prefill: RunPrefill = {
-    kinetics: one("kinetics"),
-    version: one("version"),
-    parameters,
-    lengthScaleUm: one("lengthScaleUm"),
-    timeScaleS: one("timeScaleS"),
-    startFrom: earlierRuns.some((r) => r.id === from) ? from : undefined,
-  };
-  let fitNotice: string | null = null;
   const fitId = one("fit"),
     condition = one("condition");
-  if (fitId && condition) {
-    try {
-      const f = await readFitStart(ctx, { fitId, condition, model: one("model") });
-      prefill = {
-        kinetics: f.kinetics,
-        version: f.version ? String(f.version) : undefined,
-        parameters: Object.fromEntries(Object.entries(f.parameters).map(([k, v]) => [k, String(v)])),
-        lengthScaleUm: f.lengthScaleUm !== undefined ? String(f.lengthScaleUm) : undefined,
-        timeScaleS: f.timeScaleS !== undefined ? String(f.timeScaleS) : undefined,
-        fit: {
-          fitId,
-          condition,
-          model: f.fromFit.model,
-          label: `${f.fromFit.fitName} (${f.fromFit.model}), condition “${condition}”: measured ${Number(f.fromFit.measuredMeanUm.toPrecision(4))} ± ${Number(f.fromFit.measuredSeUm.toPrecision(2))} µm, n = ${f.fromFit.n}`,
-        },
-      };
-    } catch (err) {
-      if (!(err instanceof AppError)) throw err;
-      fitNotice = err.message;
-    }
-  }
+  const {
+    kinetics,
+    earlierRuns,
+    fitStart: f,
+    fitNotice,
+  } = await loadNewRunPage(ctx, fitId && condition ? { fitId, condition, model: one("model") } : null);
+  const prefill: RunPrefill =
+    f && fitId && condition
+      ? {
+          kinetics: f.kinetics,
+          version: f.version ? String(f.version) : undefined,
+          parameters: Object.fromEntries(Object.entries(f.parameters).map(([k, v]) => [k, String(v)])),
+          lengthScaleUm: f.lengthScaleUm !== undefined ? String(f.lengthScaleUm) : undefined,
+          timeScaleS: f.timeScaleS !== undefined ? String(f.timeScaleS) : undefined,
+          fit: {
+            fitId,
+            condition,
+            model: f.fromFit.model,
+            label: `${f.fromFit.fitName} (${f.fromFit.model}), condition “${condition}”: measured ${Number(f.fromFit.measuredMeanUm.toPrecision(4))} ± ${Number(f.fromFit.measuredSeUm.toPrecision(2))} µm, n = ${f.fromFit.n}`,
+          },
+        }
+      : {
+          kinetics: one("kinetics"),
+          version: one("version"),
+          parameters,
+          lengthScaleUm: one("lengthScaleUm"),
+          timeScaleS: one("timeScaleS"),
+          startFrom: earlierRuns.some((r) => r.id === from) ? from : undefined,
+        };
   const limits = [
     `cells per axis: a power of two, ${SIMULATION_LIMITS.minCellsPerAxis} … ${SIMULATION_LIMITS.maxCellsPerAxis2D} on a rectangle, up to ${SIMULATION_LIMITS.maxCells1D} on an interval`,
     `at most ${SIMULATION_LIMITS.maxSteps.toLocaleString("en")} time steps (the step is the smaller of your cap and 0.1/ρ, ρ the spectral radius of the reaction Jacobian)`,
@@ -94,13 +77,7 @@ export default async function NewRunPage({
           <Notice tone="warning">{fitNotice}</Notice>
         </div>
       )}
-      <RunForm
-        labId={labId}
-        kinetics={[...listCatalogue(), ...labInfos]}
-        prefill={prefill}
-        limits={limits}
-        earlierRuns={earlierRuns}
-      />
+      <RunForm labId={labId} kinetics={kinetics} prefill={prefill} limits={limits} earlierRuns={earlierRuns} />
     </>
   );
 }

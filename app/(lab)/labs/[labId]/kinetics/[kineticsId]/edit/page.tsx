@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { PageHeader } from "@/components/ui/panel";
-import { getLabKinetics, getLabKineticsVersion } from "@/lib/server/kinetics/kinetics";
+import { loadKineticsEditPage } from "@/lib/server/kinetics/pages";
 import { orNotFound, pageLab } from "@/lib/server/web/page-access";
 import { draftFromDefinition } from "../../kinetics-draft";
 import { KineticsEditor } from "../../kinetics-editor";
@@ -13,9 +13,8 @@ export const dynamic = "force-dynamic";
 export default async function EditKineticsPage({ params }: { params: Promise<{ labId: string; kineticsId: string }> }) {
   const { labId, kineticsId } = await params;
   const ctx = await pageLab(labId, "kinetics.edit");
-  const kinetics = await orNotFound(getLabKinetics(ctx, kineticsId));
+  const { kinetics, latest } = await orNotFound(loadKineticsEditPage(ctx, kineticsId));
   if (!kinetics.canEdit) notFound();
-  const latest = await orNotFound(getLabKineticsVersion(ctx, kineticsId));
   return (
     <>
       <PageHeader

@@ -4,11 +4,8 @@ import { EmptyState, PageHeader, Panel } from "@/components/ui/panel";
 import { can } from "@/lib/access/permissions";
 import { ROLE_LABELS } from "@/lib/access/roles";
 import { formatDateTime } from "@/lib/client/format";
-import { listAudit } from "@/lib/server/audit";
-import { listStudies } from "@/lib/server/studies/studies";
-import { listFits } from "@/lib/server/fits/fits";
-import { listReadouts } from "@/lib/server/readouts/readouts";
-import { RunningJobs } from "./fits/running-jobs";
+import { loadDashboard } from "@/lib/server/labs/dashboard";
+import { RunningJobs } from "../fits/running-jobs";
 import { pageLab } from "@/lib/server/web/page-access";
 
 export const dynamic = "force-dynamic";
@@ -16,12 +13,7 @@ export const dynamic = "force-dynamic";
 export default async function Dashboard({ params }: { params: Promise<{ labId: string }> }) {
   const { labId } = await params;
   const ctx = await pageLab(labId);
-  const studies = await listStudies(ctx, { page: 1, pageSize: 6, sort: "updatedAt", dir: "desc", q: "" });
-  const fits = await listFits(ctx, { page: 1, pageSize: 5, sort: "createdAt", dir: "desc", q: "" });
-  const readouts = await listReadouts(ctx, {}, { page: 1, pageSize: 5, sort: "createdAt", dir: "desc", q: "" });
-  const audit = can(ctx.role, "audit.read")
-    ? await listAudit(ctx, { page: 1, pageSize: 8, sort: "at", dir: "desc", q: "" })
-    : null;
+  const { studies, fits, readouts, audit } = await loadDashboard(ctx);
   return (
     <div className="space-y-6">
       <PageHeader title={ctx.labName} subtitle={`You are ${ROLE_LABELS[ctx.role].toLowerCase()} here.`} />

@@ -1,0 +1,19 @@
+import { notFound } from "next/navigation";
+import { mailboxEnabled } from "@/lib/server/labs/mailbox";
+import { pageLab } from "@/lib/server/web/page-access";
+
+/**
+ * Only roles that may read the mailbox get past here, answered before the section's loading
+ * skeleton streams so a refused visit is a real 404; the page checks again itself.
+ */
+export default async function MailboxLayout({
+  children,
+  params,
+}: {
+  children: React.ReactNode;
+  params: Promise<{ labId: string }>;
+}) {
+  await pageLab((await params).labId, "mailbox.read");
+  if (!mailboxEnabled()) notFound();
+  return <>{children}</>;
+}

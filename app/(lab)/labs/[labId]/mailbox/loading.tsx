@@ -1,0 +1,5 @@
+import { PageSkeleton } from "@/components/ui/skeleton";
+
+export default function MailboxLoading() {
+  return <PageSkeleton label="Loading the mailbox…" layout="table" />;
+}

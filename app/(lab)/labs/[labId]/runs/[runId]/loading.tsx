@@ -1,0 +1,5 @@
+import { PageSkeleton } from "@/components/ui/skeleton";
+
+export default function RunLoading() {
+  return <PageSkeleton label="Loading the verification run…" />;
+}

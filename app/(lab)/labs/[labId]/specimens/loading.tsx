@@ -1,0 +1,5 @@
+import { PageSkeleton } from "@/components/ui/skeleton";
+
+export default function SpecimenLoading() {
+  return <PageSkeleton label="Loading the specimen…" layout="panels" />;
+}

@@ -1,0 +1,5 @@
+import { PageSkeleton } from "@/components/ui/skeleton";
+
+export default function StudiesLoading() {
+  return <PageSkeleton label="Loading the studies…" layout="table" />;
+}

@@ -1,0 +1,42 @@
+/** Data for the run pages, one call per page. */
+import "server-only";
+import type { LabContext } from "../access";
+import { AppError } from "../errors";
+import { listCatalogue } from "../kinetics/kinetics";
+import { listLabKineticsInfos } from "../kinetics/pages";
+import { readFitStart, type FitStart, type RunFitRef } from "./fit-start";
+import { listRunStartOptions } from "./start";
+
+/** The run form lists at most this many lab kinetics (by name) beside the catalogue. */
+const RUN_FORM_LAB_KINETICS = 200;
+
+/**
+ * The new-run form: every kinetics, the earlier runs it may start from and, when the link came
+ * from a fit, that fit's parameters. A fit that cannot seed a run (unfinished, no such condition)
+ * is a normal case for a stale link: `fitNotice` says why and the form opens empty.
+ */
+export async function loadNewRunPage(ctx: LabContext, fit: RunFitRef | null) {
+  const [lab, earlierRuns, fromFit] = await Promise.all([
+    listLabKineticsInfos(ctx, { limit: RUN_FORM_LAB_KINETICS }),
+    listRunStartOptions(ctx),
+    fit ? readFitStartOrReason(ctx, fit) : Promise.resolve({ start: null, reason: null }),
+  ]);
+  return {
+    kinetics: [...listCatalogue(), ...lab.infos],
+    earlierRuns,
+    fitStart: fromFit.start,
+    fitNotice: fromFit.reason,
+  };
+}
+
+async function readFitStartOrReason(
+  ctx: LabContext,
+  ref: RunFitRef,
+): Promise<{ start: FitStart | null; reason: string | null }> {
+  try {
+    return { start: await readFitStart(ctx, ref), reason: null };
+  } catch (err) {
+    if (!(err instanceof AppError)) throw err;
+    return { start: null, reason: err.message };
+  }
+}

@@ -1,0 +1,37 @@
+/** A fit's result page. */
+import { expect, type Locator, type Page } from "@playwright/test";
+import { LabPage } from "./lab-page";
+
+export class FitPage extends LabPage {
+  readonly caution: Locator;
+  readonly verdict: Locator;
+  readonly parameters: Locator;
+  readonly predictedMeasured: Locator;
+  readonly residuals: Locator;
+  readonly rerunButton: Locator;
+  readonly mapFigure: Locator;
+
+  constructor(page: Page, labId: string) {
+    super(page, labId);
+    this.caution = page.getByTestId("fit-caution");
+    this.verdict = page.getByTestId("fit-verdict");
+    this.parameters = page.getByTestId("parameters-table");
+    this.predictedMeasured = page.getByTestId("predicted-measured");
+    this.residuals = page.getByTestId("residuals-table");
+    this.rerunButton = page.getByTestId("rerun-fit");
+    this.mapFigure = page.getByTestId("fit-map-figure");
+  }
+
+  /** Waits for the fit job to finish: the verdict appears once the ranking of models is in. */
+  async waitForRanking(timeoutMs = 90_000) {
+    await expect(this.verdict).toBeVisible({ timeout: timeoutMs });
+  }
+
+  fitted(name: string): Locator {
+    return this.parameters.getByTestId(`fitted-${name}`);
+  }
+
+  interval(name: string): Locator {
+    return this.page.getByTestId(`interval-${name}`);
+  }
+}

@@ -1,0 +1,45 @@
+import type { Locator, Page } from "@playwright/test";
+import { LabPage } from "./lab-page";
+
+export interface Roi {
+  x: number;
+  y: number;
+  width: number;
+  height: number;
+}
+
+export class ReadoutPage extends LabPage {
+  readonly status: Locator;
+  readonly wavelength: Locator;
+  readonly nearestNeighbour: Locator;
+  readonly symmetry: Locator;
+  readonly pixelSize: Locator;
+  readonly settings: Locator;
+  readonly siblings: Locator;
+  readonly rerunForm: Locator;
+
+  constructor(page: Page, labId: string) {
+    super(page, labId);
+    this.status = page.getByTestId("readout-status");
+    this.wavelength = page.getByTestId("readout-wavelength");
+    this.nearestNeighbour = page.getByTestId("readout-nn");
+    this.symmetry = page.getByTestId("readout-symmetry");
+    this.pixelSize = page.getByTestId("readout-pixel-size");
+    this.settings = page.getByTestId("readout-settings");
+    this.siblings = page.getByTestId("sibling-readouts").locator("li");
+    this.rerunForm = page.getByTestId("rerun-form");
+  }
+
+  /** Fills a rectangle ROI (pixels of the original) without submitting, so the caller can look at it. */
+  async enterRoi(roi: Roi) {
+    const f = this.rerunForm;
+    await f.getByTestId("roi-x").fill(String(roi.x));
+    await f.getByTestId("roi-y").fill(String(roi.y));
+    await f.getByTestId("roi-width").fill(String(roi.width));
+    await f.getByTestId("roi-height").fill(String(roi.height));
+  }
+
+  async rerun() {
+    await this.rerunForm.getByTestId("rerun-submit").click();
+  }
+}
