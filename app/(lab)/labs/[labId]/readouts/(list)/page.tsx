@@ -1,6 +1,6 @@
 import { PageHeader } from "@/components/ui/panel";
 import { pageLab } from "@/lib/server/web/page-access";
-import { ReadoutsList } from "./readouts-list";
+import { ReadoutsList } from "../readouts-list";
 
 export const dynamic = "force-dynamic";
 

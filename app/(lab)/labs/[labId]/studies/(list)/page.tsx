@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import { PageHeader } from "@/components/ui/panel";
 import { can } from "@/lib/access/permissions";
 import { pageLab } from "@/lib/server/web/page-access";
-import { StudiesView } from "./studies-view";
+import { StudiesView } from "../studies-view";
 
 export const metadata: Metadata = { title: "Studies" };
 export const dynamic = "force-dynamic";

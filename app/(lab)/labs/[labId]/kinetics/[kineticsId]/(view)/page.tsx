@@ -15,8 +15,8 @@ import {
 import { loadLabKineticsPage } from "@/lib/server/kinetics/pages";
 import { AppError } from "@/lib/server/errors";
 import { orNotFound, pageLab } from "@/lib/server/web/page-access";
-import { AnalysisView } from "./analysis-view";
-import { DeleteKineticsButton } from "./delete-kinetics-button";
+import { AnalysisView } from "../analysis-view";
+import { DeleteKineticsButton } from "../delete-kinetics-button";
 
 export const metadata: Metadata = { title: "Kinetics" };
 export const dynamic = "force-dynamic";
