@@ -11,18 +11,10 @@ import { Notice } from "@/components/ui/notice";
 import { Panel } from "@/components/ui/panel";
 import { ApiError, sendJson } from "@/lib/client/api";
 import type { LabKineticsDto } from "@/lib/server/kinetics/kinetics";
-import {
-  definitionFromDraft,
-  MAX_SPECIES,
-  MIN_SPECIES,
-  resizeDiffusion,
-  type KineticsDraft,
-  type ParameterDraft,
-} from "./kinetics-draft";
-
-const input =
-  "w-full rounded-md border border-rule bg-card px-2 py-1.5 text-sm text-ink focus:border-moss focus:outline-none";
-const mono = `${input} num`;
+import { definitionFromDraft, MAX_SPECIES, MIN_SPECIES, resizeDiffusion, type KineticsDraft } from "./kinetics-draft";
+import { KineticsDiffusionPanel } from "./kinetics-diffusion-panel";
+import { input, mono } from "./kinetics-input-class";
+import { KineticsParametersPanel } from "./kinetics-parameters-panel";
 
 export function KineticsEditor({
   labId,
@@ -44,9 +36,6 @@ export function KineticsEditor({
 
   function setSpecies(i: number, patch: Partial<KineticsDraft["species"][number]>) {
     set({ species: d.species.map((s, j) => (j === i ? { ...s, ...patch } : s)) });
-  }
-  function setParam(i: number, patch: Partial<ParameterDraft>) {
-    set({ parameters: d.parameters.map((p, j) => (j === i ? { ...p, ...patch } : p)) });
   }
   function resizeSpecies(species: KineticsDraft["species"]) {
     set({ species, ...resizeDiffusion(d, species.length) });
@@ -165,143 +154,9 @@ export function KineticsEditor({
         </div>
       </Panel>
 
-      <Panel
-        title="Parameters"
-        actions={
-          <Button
-            size="sm"
-            variant="secondary"
-            onClick={() =>
-              set({ parameters: [...d.parameters, { name: "", default: "", min: "", max: "", meaning: "" }] })
-            }
-            data-testid="add-parameter"
-          >
-            Add parameter
-          </Button>
-        }
-      >
-        <div className="grid grid-cols-[7rem_7rem_7rem_7rem_1fr_auto] gap-2 text-xs font-medium uppercase tracking-wide text-ink-soft">
-          <span>Name</span>
-          <span>Default</span>
-          <span>Min</span>
-          <span>Max</span>
-          <span>Meaning</span>
-          <span />
-        </div>
-        <div className="mt-1 space-y-2">
-          {d.parameters.map((p, i) => (
-            <div key={i} className="grid grid-cols-[7rem_7rem_7rem_7rem_1fr_auto] items-center gap-2">
-              <input
-                className={mono}
-                value={p.name}
-                onChange={(e) => setParam(i, { name: e.target.value })}
-                aria-label={`Parameter ${i + 1} name`}
-                data-testid={`param-name-${i}`}
-              />
-              <input
-                className={mono}
-                value={p.default}
-                inputMode="decimal"
-                onChange={(e) => setParam(i, { default: e.target.value })}
-                aria-label={`Parameter ${i + 1} default`}
-                data-testid={`param-default-${i}`}
-              />
-              <input
-                className={mono}
-                value={p.min}
-                inputMode="decimal"
-                onChange={(e) => setParam(i, { min: e.target.value })}
-                aria-label={`Parameter ${i + 1} min`}
-                placeholder="none"
-                data-testid={`param-min-${i}`}
-              />
-              <input
-                className={mono}
-                value={p.max}
-                inputMode="decimal"
-                onChange={(e) => setParam(i, { max: e.target.value })}
-                aria-label={`Parameter ${i + 1} max`}
-                placeholder="none"
-                data-testid={`param-max-${i}`}
-              />
-              <input
-                className={input}
-                value={p.meaning}
-                onChange={(e) => setParam(i, { meaning: e.target.value })}
-                aria-label={`Parameter ${i + 1} meaning`}
-                placeholder="what it means"
-              />
-              <Button
-                size="sm"
-                variant="ghost"
-                onClick={() => set({ parameters: d.parameters.filter((_, j) => j !== i) })}
-                aria-label={`Remove parameter ${i + 1}`}
-              >
-                Remove
-              </Button>
-            </div>
-          ))}
-        </div>
-      </Panel>
+      <KineticsParametersPanel d={d} set={set} />
 
-      <Panel title="Diffusion">
-        <div className="mb-3 flex gap-4 text-sm">
-          <label className="flex items-center gap-1.5">
-            <input
-              type="radio"
-              checked={d.diffusionMode === "diagonal"}
-              onChange={() => set({ diffusionMode: "diagonal" })}
-            />{" "}
-            diagonal (one diffusivity per species)
-          </label>
-          <label className="flex items-center gap-1.5">
-            <input
-              type="radio"
-              checked={d.diffusionMode === "full"}
-              onChange={() => set({ diffusionMode: "full" })}
-              data-testid="diffusion-full"
-            />{" "}
-            full matrix (cross-diffusion)
-          </label>
-        </div>
-        <p className="mb-2 text-xs text-ink-soft">
-          Numbers or expressions in the parameters (not the species); µm²/s for a dimensional kinetics.
-        </p>
-        {d.diffusionMode === "diagonal" ? (
-          <div className="flex flex-wrap gap-3">
-            {d.species.map((s, i) => (
-              <label key={i} className="block w-36 space-y-1">
-                <span className="num text-sm">
-                  D<sub>{s.name || i + 1}</sub>
-                </span>
-                <input
-                  className={mono}
-                  value={d.diagonal[i] ?? ""}
-                  onChange={(e) => set({ diagonal: d.diagonal.map((x, j) => (j === i ? e.target.value : x)) })}
-                  data-testid={`diffusion-${i}`}
-                />
-              </label>
-            ))}
-          </div>
-        ) : (
-          <div className="inline-grid gap-2" style={{ gridTemplateColumns: `repeat(${n}, 7rem)` }}>
-            {d.full.map((row, i) =>
-              row.map((v, j) => (
-                <input
-                  key={`${i}-${j}`}
-                  className={mono}
-                  value={v}
-                  aria-label={`D ${i + 1},${j + 1}`}
-                  onChange={(e) =>
-                    set({ full: d.full.map((r, a) => (a === i ? r.map((x, b) => (b === j ? e.target.value : x)) : r)) })
-                  }
-                  data-testid={`diffusion-${i}-${j}`}
-                />
-              )),
-            )}
-          </div>
-        )}
-      </Panel>
+      <KineticsDiffusionPanel d={d} set={set} />
 
       {error && (
         <Notice tone="error" testId="kinetics-error">

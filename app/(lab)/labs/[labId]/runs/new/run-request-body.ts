@@ -1,0 +1,37 @@
+/** Builds the body of POST /api/v1/labs/:labId/runs from the run form's state; the server checks it. */
+import type { KineticsInfoDto } from "@/lib/server/kinetics/kinetics";
+import type { RunDraft, RunPrefill } from "./use-run-draft";
+
+const num = (s: string) => (s.trim() === "" ? undefined : Number(s));
+
+export function buildRunBody(d: RunDraft, info: KineticsInfoDto, prefill: RunPrefill) {
+  return {
+    kinetics: info.id,
+    ...(info.version ? { version: info.version } : {}),
+    parameters: Object.fromEntries(Object.entries(d.values).map(([k, v]) => [k, Number(v)])),
+    grid: {
+      lengthUm: d.dims === "2" ? [Number(d.lx), Number(d.ly)] : [Number(d.lx)],
+      cells: d.dims === "2" ? [Number(d.cells), Number(d.cells)] : [Number(d.cells)],
+      boundary: d.boundary,
+    },
+    endTimeS: Number(d.endTime),
+    dtS: num(d.dt),
+    stopWhenStationary: d.stationary,
+    seed: num(d.seed),
+    noiseAmplitude: num(d.noise),
+    snapshots: num(d.snapshots),
+    ...(d.startFrom ? { startFrom: { runId: d.startFrom } } : {}),
+    ...(d.gradParam
+      ? {
+          gradient: {
+            parameter: d.gradParam,
+            profile: { kind: "linear", from: Number(d.gradFrom), to: Number(d.gradTo) },
+          },
+        }
+      : {}),
+    ...(!d.dimensional ? { lengthScaleUm: num(d.lengthScale), timeScaleS: num(d.timeScale) } : {}),
+    ...(prefill.fit
+      ? { fit: { fitId: prefill.fit.fitId, condition: prefill.fit.condition, model: prefill.fit.model } }
+      : {}),
+  };
+}
