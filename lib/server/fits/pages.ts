@@ -1,7 +1,7 @@
 /** Data for the fit pages, one call per page. */
 import "server-only";
 import type { LabContext } from "../access";
-import { listCatalogue } from "../kinetics/kinetics";
+import { listCatalogue } from "../kinetics/catalogue";
 import { listLabKineticsInfos } from "../kinetics/pages";
 import { listFitCandidates } from "./candidates";
 

@@ -27,7 +27,8 @@ import {
 import type { LabContext } from "../access";
 import { isUuid } from "../access";
 import { AppError } from "../errors";
-import { definitionInfo, getCatalogueEntry, getLabKineticsVersion, type KineticsInfoDto } from "./kinetics";
+import { getLabKineticsVersion } from "./kinetics";
+import { definitionInfo, getCatalogueEntry, type KineticsInfoDto } from "./catalogue";
 import { compileStoredKinetics, withKineticsErrors } from "./engine";
 import { parseProfileTable } from "./table";
 

@@ -16,9 +16,6 @@ import { recordAudit } from "../audit";
 import { toAppError } from "../core-errors";
 import { compileDefinition } from "./engine";
 
-export { definitionInfo, getCatalogueEntry, listCatalogue } from "./catalogue";
-export type { KineticsInfoDto, KineticsParameterDto } from "./catalogue";
-
 export interface LabKineticsDto {
   id: string;
   labId: string;

@@ -14,7 +14,7 @@ import {
 import type { LabContext } from "../access";
 import { AppError } from "../errors";
 import { resolveAnalysisKinetics } from "./analyses";
-import type { KineticsInfoDto } from "./kinetics";
+import type { KineticsInfoDto } from "./catalogue";
 import { withKineticsErrors } from "./engine";
 
 export interface TuringMapDto {

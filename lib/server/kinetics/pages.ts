@@ -6,13 +6,8 @@ import "server-only";
 import { Op } from "sequelize";
 import type { LabContext } from "../access";
 import { database } from "../services";
-import {
-  definitionInfo,
-  getLabKinetics,
-  getLabKineticsVersion,
-  listKineticsVersions,
-  type KineticsInfoDto,
-} from "./kinetics";
+import { getLabKinetics, getLabKineticsVersion, listKineticsVersions } from "./kinetics";
+import { definitionInfo, type KineticsInfoDto } from "./catalogue";
 
 export interface LabKineticsInfos {
   infos: KineticsInfoDto[];

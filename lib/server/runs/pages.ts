@@ -2,7 +2,7 @@
 import "server-only";
 import type { LabContext } from "../access";
 import { AppError } from "../errors";
-import { listCatalogue } from "../kinetics/kinetics";
+import { listCatalogue } from "../kinetics/catalogue";
 import { listLabKineticsInfos } from "../kinetics/pages";
 import { readFitStart, type FitStart, type RunFitRef } from "./fit-start";
 import { listRunStartOptions } from "./start";

@@ -1,4 +1,4 @@
-import { listCatalogue } from "@/lib/server/kinetics/kinetics";
+import { listCatalogue } from "@/lib/server/kinetics/catalogue";
 import { json } from "@/lib/server/web/http";
 import { userRoute } from "@/lib/server/web/lab-route";
 

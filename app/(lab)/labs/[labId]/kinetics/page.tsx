@@ -3,7 +3,7 @@ import Link from "next/link";
 import { LinkButton } from "@/components/ui/button";
 import { Badge, PageHeader, Panel } from "@/components/ui/panel";
 import { can } from "@/lib/access/permissions";
-import { listCatalogue } from "@/lib/server/kinetics/kinetics";
+import { listCatalogue } from "@/lib/server/kinetics/catalogue";
 import { pageLab } from "@/lib/server/web/page-access";
 import { LabKineticsList } from "./lab-kinetics-list";
 

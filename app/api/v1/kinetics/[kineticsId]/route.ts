@@ -1,4 +1,4 @@
-import { getCatalogueEntry } from "@/lib/server/kinetics/kinetics";
+import { getCatalogueEntry } from "@/lib/server/kinetics/catalogue";
 import { json } from "@/lib/server/web/http";
 import { userRoute } from "@/lib/server/web/lab-route";
 

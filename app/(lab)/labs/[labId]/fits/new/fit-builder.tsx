@@ -12,7 +12,7 @@ import { EmptyState, Panel } from "@/components/ui/panel";
 import { ApiError, sendJson } from "@/lib/client/api";
 import type { FitCandidateDto } from "@/lib/server/fits/candidates";
 import type { FitDetailDto } from "@/lib/server/fits/fits";
-import type { KineticsInfoDto } from "@/lib/server/kinetics/kinetics";
+import type { KineticsInfoDto } from "@/lib/server/kinetics/catalogue";
 import { FitCandidateTables } from "./fit-candidate-tables";
 import { field, listConditions, type Pick, type Tissue, type Typed } from "./fit-data-drafts";
 import { ModelEditor, newModel, type ModelDraft } from "./fit-model-editor";

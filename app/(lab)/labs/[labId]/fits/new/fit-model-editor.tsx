@@ -3,7 +3,7 @@
  * One kinetics of a fit: which kinetics (catalogue or lab, at its version), physical scales, and
  * per parameter fixed, free within bounds with a start, or free per condition.
  */
-import type { KineticsInfoDto } from "@/lib/server/kinetics/kinetics";
+import type { KineticsInfoDto } from "@/lib/server/kinetics/catalogue";
 
 export type Mode = "fixed" | "free" | "per-condition";
 export interface ParamDraft {

@@ -1,6 +1,6 @@
 /** Builds the body of POST /api/v1/labs/:labId/fits from the fit builder's drafts; the server checks it. */
 import type { FitCandidateDto } from "@/lib/server/fits/candidates";
-import type { KineticsInfoDto } from "@/lib/server/kinetics/kinetics";
+import type { KineticsInfoDto } from "@/lib/server/kinetics/catalogue";
 import type { Pick, Tissue, Typed } from "./fit-data-drafts";
 import { keyOf, modelBody, num, type ModelDraft } from "./fit-model-editor";
 

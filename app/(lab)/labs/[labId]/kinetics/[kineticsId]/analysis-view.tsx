@@ -11,7 +11,7 @@ import { LinkButton } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { Panel } from "@/components/ui/panel";
 import type { DispersionDto } from "@/lib/server/kinetics/analyses";
-import type { KineticsInfoDto } from "@/lib/server/kinetics/kinetics";
+import type { KineticsInfoDto } from "@/lib/server/kinetics/catalogue";
 import { ComputingBadge } from "./computing-badge";
 import { DispersionNumbers } from "./dispersion-numbers";
 import type { AnalysisBase } from "./analysis-base";

@@ -5,7 +5,7 @@ import { DispersionGradientPlot } from "@/components/charts/dispersion-gradient-
 import { formatNumber as f } from "@/components/charts/dispersion-format";
 import { Notice } from "@/components/ui/notice";
 import { Panel } from "@/components/ui/panel";
-import type { KineticsInfoDto } from "@/lib/server/kinetics/kinetics";
+import type { KineticsInfoDto } from "@/lib/server/kinetics/catalogue";
 import type { GradientDto } from "@/lib/server/kinetics/analyses";
 import type { AnalysisBase } from "./analysis-base";
 import { ComputingBadge } from "./computing-badge";

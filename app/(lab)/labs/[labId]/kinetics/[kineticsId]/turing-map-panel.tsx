@@ -5,7 +5,7 @@ import { formatNumber as f } from "@/components/charts/dispersion-format";
 import { TuringMapHeatmap } from "@/components/charts/turing-map-heatmap";
 import { Notice } from "@/components/ui/notice";
 import { Panel } from "@/components/ui/panel";
-import type { KineticsInfoDto, KineticsParameterDto } from "@/lib/server/kinetics/kinetics";
+import type { KineticsInfoDto, KineticsParameterDto } from "@/lib/server/kinetics/catalogue";
 import type { TuringMapDto } from "@/lib/server/kinetics/map";
 import type { AnalysisBase } from "./analysis-base";
 import { ComputingBadge } from "./computing-badge";

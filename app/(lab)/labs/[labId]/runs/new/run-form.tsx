@@ -5,7 +5,7 @@ import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { ApiError, sendJson } from "@/lib/client/api";
-import type { KineticsInfoDto } from "@/lib/server/kinetics/kinetics";
+import type { KineticsInfoDto } from "@/lib/server/kinetics/catalogue";
 import type { RunDetailDto } from "@/lib/server/runs/types";
 import type { RunStartOption } from "@/lib/server/runs/start";
 import { RunDomainPanel } from "./run-domain-panel";

@@ -1,7 +1,7 @@
 "use client";
 /** The run form's kinetics choice, its parameter values and, for non-dimensional kinetics, the scales ℓ and τ. */
 import { Panel } from "@/components/ui/panel";
-import type { KineticsInfoDto } from "@/lib/server/kinetics/kinetics";
+import type { KineticsInfoDto } from "@/lib/server/kinetics/catalogue";
 import { field, Label } from "./run-form-label";
 import type { RunDraft, RunPrefill } from "./use-run-draft";
 

@@ -1,5 +1,5 @@
 /** Builds the body of POST /api/v1/labs/:labId/runs from the run form's state; the server checks it. */
-import type { KineticsInfoDto } from "@/lib/server/kinetics/kinetics";
+import type { KineticsInfoDto } from "@/lib/server/kinetics/catalogue";
 import type { RunDraft, RunPrefill } from "./use-run-draft";
 
 const num = (s: string) => (s.trim() === "" ? undefined : Number(s));

@@ -1,7 +1,7 @@
 "use client";
 /** The run form's state: every field as typed, plus the choices that reset or prefill others. */
 import { useState } from "react";
-import type { KineticsInfoDto } from "@/lib/server/kinetics/kinetics";
+import type { KineticsInfoDto } from "@/lib/server/kinetics/catalogue";
 import type { RunStartOption } from "@/lib/server/runs/start";
 
 export interface RunPrefill {

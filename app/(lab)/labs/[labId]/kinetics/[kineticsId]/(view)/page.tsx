@@ -6,12 +6,8 @@ import { can } from "@/lib/access/permissions";
 import { Badge, PageHeader, Panel } from "@/components/ui/panel";
 import { formatDateTime } from "@/lib/client/format";
 import { isUuid } from "@/lib/server/access";
-import {
-  getCatalogueEntry,
-  type KineticsInfoDto,
-  type KineticsVersionDto,
-  type LabKineticsDto,
-} from "@/lib/server/kinetics/kinetics";
+import { type KineticsVersionDto, type LabKineticsDto } from "@/lib/server/kinetics/kinetics";
+import { getCatalogueEntry, type KineticsInfoDto } from "@/lib/server/kinetics/catalogue";
 import { loadLabKineticsPage } from "@/lib/server/kinetics/pages";
 import { AppError } from "@/lib/server/errors";
 import { orNotFound, pageLab } from "@/lib/server/web/page-access";

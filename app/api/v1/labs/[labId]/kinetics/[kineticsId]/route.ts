@@ -1,12 +1,12 @@
 import { z } from "zod";
 import { labKineticsUpdateSchema } from "@/lib/contracts/kinetics";
 import {
-  definitionInfo,
   deleteLabKinetics,
   getLabKinetics,
   getLabKineticsVersion,
   updateLabKinetics,
 } from "@/lib/server/kinetics/kinetics";
+import { definitionInfo } from "@/lib/server/kinetics/catalogue";
 import { AppError } from "@/lib/server/errors";
 import { json, readJson } from "@/lib/server/web/http";
 import { labRoute } from "@/lib/server/web/lab-route";
