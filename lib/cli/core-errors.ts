@@ -7,24 +7,8 @@
  * so a new code without an exit code fails the type check and `tests/cli/core-error-cli.test.ts`.
  */
 import { isCoreError, prefixField, type CoreError, type CoreErrorFamily } from "../errors";
-import type { FitErrorCode } from "../fitting/errors";
-import type { ImagingErrorCode } from "../imaging/errors";
-import type { KineticsErrorCode } from "../kinetics/errors";
-import type { ReadoutErrorCode } from "../readout/errors";
-import type { SimulationErrorCode } from "../simulation/errors";
-import type { SpacingErrorCode } from "../spacing/errors";
-import type { SyntheticErrorCode } from "../synthetic/check-options";
 import { CliError } from "./command";
-
-interface CodesByFamily {
-  readout: ReadoutErrorCode;
-  imaging: ImagingErrorCode;
-  spacing: SpacingErrorCode;
-  kinetics: KineticsErrorCode;
-  fitting: FitErrorCode;
-  simulation: SimulationErrorCode;
-  synthetic: SyntheticErrorCode;
-}
+import type { CodesByFamily } from "../errors/codes-by-family";
 
 type ExitCode = 2 | 3;
 

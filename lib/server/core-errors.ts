@@ -10,25 +10,8 @@
 import "server-only";
 import type { CoreError, CoreErrorFamily } from "@/lib/errors";
 import { isCoreError } from "@/lib/errors";
-import type { FitErrorCode } from "@/lib/fitting/errors";
-import type { ImagingErrorCode } from "@/lib/imaging/errors";
-import type { KineticsErrorCode } from "@/lib/kinetics/errors";
-import type { ReadoutErrorCode } from "@/lib/readout/errors";
-import type { SimulationErrorCode } from "@/lib/simulation/errors";
-import type { SpacingErrorCode } from "@/lib/spacing/errors";
-import type { SyntheticErrorCode } from "@/lib/synthetic/check-options";
+import type { CodesByFamily } from "@/lib/errors/codes-by-family";
 import { AppError, type ErrorCode } from "./errors";
-
-/** The codes of each family, by family name (the keys must cover every family). */
-interface CodesByFamily {
-  readout: ReadoutErrorCode;
-  imaging: ImagingErrorCode;
-  spacing: SpacingErrorCode;
-  kinetics: KineticsErrorCode;
-  fitting: FitErrorCode;
-  simulation: SimulationErrorCode;
-  synthetic: SyntheticErrorCode;
-}
 
 /** Family → code → the API's error code (and so its status, `ERROR_STATUS`). */
 export const CORE_ERROR_HTTP: { [F in CoreErrorFamily]: Record<CodesByFamily[F], ErrorCode> } = {
