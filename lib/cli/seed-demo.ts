@@ -19,6 +19,7 @@ import { startReadout, type ReadoutDto } from "@/lib/server/readouts/readouts";
 import { storeUpload } from "@/lib/server/uploads/uploads";
 import { waitForJob } from "@/lib/server/jobs/queue";
 import { startJobs } from "@/lib/server/jobs/wiring";
+import { stopJobs } from "@/lib/server/jobs/worker";
 import { hashPassword } from "@/lib/server/accounts/passwords";
 import { database } from "@/lib/server/services";
 import { recordAudit } from "@/lib/server/audit";
@@ -39,6 +40,16 @@ export async function seedDemo(): Promise<boolean> {
   const m = await database();
   if ((await m.User.count()) > 0) return false;
   startJobs(); // the demo's readouts, fit and run are done here, before the server starts
+  try {
+    await fillDemoLab(m);
+  } finally {
+    // The server runs the jobs from here on; a worker left in this process would outlive its database.
+    await stopJobs();
+  }
+  return true;
+}
+
+async function fillDemoLab(m: Awaited<ReturnType<typeof database>>): Promise<void> {
   const passwordHash = await hashPassword(DEMO_PASSWORD);
   const lab = await m.Lab.create({ name: DEMO_LAB, createdBy: null });
   const users: { id: string; email: string; name: string | null }[] = [];
@@ -244,5 +255,4 @@ export async function seedDemo(): Promise<boolean> {
   } finally {
     rmSync(tmp, { recursive: true, force: true });
   }
-  return true;
 }
