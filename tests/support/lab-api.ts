@@ -99,7 +99,8 @@ export function setupLabApi(options: LabApiOptions = {}): LabApi {
       const res = await raw(method, path, o);
       const type = res.headers.get("content-type") ?? "";
       const body = type.includes("json") ? await res.clone().json() : null;
-      return { status: res.status, body, res };
+      // `res` is not enumerable, so `expect(answer).toEqual({ status, body })` compares what was answered.
+      return Object.defineProperty({ status: res.status, body }, "res", { value: res, enumerable: false }) as ApiAnswer;
     },
     ctx(role) {
       const w = ready(world, "the lab");
