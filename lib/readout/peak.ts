@@ -69,6 +69,8 @@ export function peakHalfWidthRings(radial: RadialSpectrum, r: number, bg: PowerL
 export interface Peak2d {
   fx: number;
   fy: number;
+  /** Power of the strongest bin (before refinement). */
+  power: number;
 }
 
 /**
@@ -101,5 +103,5 @@ export function refinePeak2d(s: PowerSpectrum, ringLo: number, ringHi: number): 
   const kyS = bestKy <= s.padHeight / 2 ? bestKy : bestKy - s.padHeight;
   const dx = parabolaOffset(safeLog(powerAt(s, bestKx - 1, kyS)), safeLog(best), safeLog(powerAt(s, bestKx + 1, kyS)));
   const dy = parabolaOffset(safeLog(powerAt(s, bestKx, kyS - 1)), safeLog(best), safeLog(powerAt(s, bestKx, kyS + 1)));
-  return { fx: (bestKx + dx) / s.padWidth, fy: (kyS + dy) / s.padHeight };
+  return { fx: (bestKx + dx) / s.padWidth, fy: (kyS + dy) / s.padHeight, power: best };
 }

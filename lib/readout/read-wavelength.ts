@@ -6,6 +6,8 @@ import { resolveReadoutOptions, type ReadoutOptions } from "./options";
 import { computePowerSpectrum } from "./power-spectrum";
 import { prepareRegion } from "./prepare-region";
 import type { WavelengthReadout } from "./result";
+import type { SpectrumAnalysis } from "./analyse-spectrum";
+import { combineWavelengthUncertainty } from "./uncertainty";
 import { measureSubregionSpread } from "./subregion-uncertainty";
 import { applyWindow } from "./window";
 
@@ -39,11 +41,16 @@ export function readWavelength(image: GreyImage, options: ReadoutOptions): Wavel
     subregionCount = spread.wavelengthsPx.length;
     if (semPx === null)
       warnings.push(
-        `Too few usable sub-regions (${subregionCount} of 9) for a spread-based uncertainty; the peak half-width is reported instead.`,
+        `Too few usable sub-regions (${subregionCount} of 9) to measure the spread across the field; the uncertainty holds only the peak's localisation.`,
       );
   }
-  const uncertaintyPx = semPx ?? halfWidthPx;
-  const method = semPx !== null ? "subregion-sem" : "peak-half-width";
+  const u = combineWavelengthUncertainty({
+    wavelengthPx: lambdaPx,
+    binPerPx: peakBinPerPx(a, spec.padWidth, spec.padHeight),
+    subregionSemPx: semPx,
+    peakSnr: a.peak2d ? a.peak2d.power / evaluatePowerLaw(a.background, a.frequencyPerPx) : 1,
+  });
+  const uncertaintyPx = u.uncertaintyPx;
   if (periodFound && lambdaPx * settings.lowCutCycles * 2 > Math.min(region.width, region.height)) {
     warnings.push("Fewer than 4 periods fit across the region; the wavelength is poorly constrained.");
   }
@@ -84,7 +91,11 @@ export function readWavelength(image: GreyImage, options: ReadoutOptions): Wavel
     wavelengthPx: periodFound ? lambdaPx * region.binFactor : null,
     uncertaintyUm: periodFound ? uncertaintyPx * px : null,
     uncertaintyPx: periodFound ? uncertaintyPx * region.binFactor : null,
-    uncertaintyMethod: periodFound ? method : null,
+    uncertaintyMethod: periodFound ? "combined" : null,
+    expandedUncertainty95Um: periodFound ? u.expanded95Px * px : null,
+    uncertaintyComponentsUm: periodFound
+      ? { subregion: u.subregionPx * px, localisation: u.localisationPx * px, resolution: u.resolutionPx * px }
+      : null,
     subregionSemUm: semPx !== null ? semPx * px : null,
     subregionCount,
     halfWidthUm: periodFound ? halfWidthPx * px : null,
@@ -115,4 +126,12 @@ export function readWavelength(image: GreyImage, options: ReadoutOptions): Wavel
     },
     warnings,
   };
+}
+
+/** The padded spectrum's frequency step along the peak's direction (cycles/px). */
+function peakBinPerPx(a: SpectrumAnalysis, padWidth: number, padHeight: number): number {
+  const p = a.peak2d;
+  const f = p ? Math.hypot(p.fx, p.fy) : 0;
+  if (!p || !(f > 0)) return 1 / Math.sqrt(padWidth * padHeight);
+  return Math.hypot(p.fx / f / padWidth, p.fy / f / padHeight);
 }

@@ -1,8 +1,13 @@
 import type { PatternSymmetry } from "./angular";
 import type { ResolvedReadoutOptions } from "./options";
 
-/** How `uncertaintyUm` was obtained. */
-export type UncertaintyMethod = "subregion-sem" | "peak-half-width";
+/**
+ * How `uncertaintyUm` was obtained: "combined" = GUM combination of the sub-region spread, the
+ * peak's localisation in noise and the interpolation residual (lib/readout/uncertainty.ts).
+ */
+export type UncertaintyMethod = "combined" | LegacyUncertaintyMethod;
+/** Methods of readouts made before the combined uncertainty; their stored results still carry them. */
+export type LegacyUncertaintyMethod = "subregion-sem" | "peak-half-width";
 
 /** The outcome of one readout. Lengths in µm (and px of the source image), frequencies in cycles/µm. */
 export interface WavelengthReadout {
@@ -12,10 +17,14 @@ export interface WavelengthReadout {
   wavelengthUm: number | null;
   /** The same in source-image pixels. */
   wavelengthPx: number | null;
-  /** One standard uncertainty of wavelengthUm (µm), by `uncertaintyMethod`. */
+  /** Standard uncertainty of wavelengthUm (µm, coverage factor k = 1), by `uncertaintyMethod`. */
   uncertaintyUm: number | null;
   uncertaintyPx: number | null;
   uncertaintyMethod: UncertaintyMethod | null;
+  /** Half-width of the 95 % interval, λ ± 2u (µm, k = 2). */
+  expandedUncertainty95Um: number | null;
+  /** The components combined into uncertaintyUm (µm): sub-region spread, localisation in noise, interpolation residual. */
+  uncertaintyComponentsUm: { subregion: number; localisation: number; resolution: number } | null;
   /** SD/√n of λ over the usable sub-regions (µm), when there were ≥ 3. */
   subregionSemUm: number | null;
   /** Number of usable sub-regions behind subregionSemUm. */

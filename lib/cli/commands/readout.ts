@@ -1,3 +1,4 @@
+import { formatPlain, formatPlusMinus } from "@/lib/format/measurement";
 import { readFileSync } from "node:fs";
 import { CliError, parseOptions, type CliCommand } from "../command";
 import { toCliError } from "../core-errors";
@@ -104,7 +105,7 @@ const command: CliCommand = {
         warnings: [...(info.pixelSizeNote ? [info.pixelSizeNote] : []), ...r.warnings],
       };
       const text = r.periodFound
-        ? `λ = ${r.wavelengthUm!.toPrecision(4)} ± ${r.uncertaintyUm!.toPrecision(2)} µm (${r.wavelengthPx!.toPrecision(4)} px), ${r.symmetry}, significance ${r.significance.toPrecision(3)}` +
+        ? `λ = ${formatPlusMinus(r.wavelengthUm!, r.uncertaintyUm, "µm")} (${formatPlusMinus(r.wavelengthPx!, r.uncertaintyPx, "px")}), 95 % interval ± ${formatPlain(r.expandedUncertainty95Um!, 2)} µm, ${r.symmetry}, significance ${r.significance.toPrecision(3)}` +
           (r.nearestNeighbourUm ? `, nearest-neighbour a = ${r.nearestNeighbourUm.toPrecision(4)} µm` : "")
         : `No significant period (significance ${r.significance.toPrecision(3)} < ${r.significanceThreshold}).`;
       return { json, text: [text, ...json.warnings.map((w) => `warning: ${w}`)].join("\n") };

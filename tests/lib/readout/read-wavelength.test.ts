@@ -45,7 +45,9 @@ describe("stripes: wavelength and orientation recovered (plane-wave geometry; ta
         makeStripes({ width: 256, height: 256, wavelengthPx: 13.7, angleDeg: 17 * seed, noise: 0.3, seed }),
         { pixelSizeUm: 1 },
       );
-      expect(r.uncertaintyMethod).toBe("subregion-sem");
+      // The combined uncertainty (GUM) includes the sub-region spread when the field allows it.
+      expect(r.uncertaintyMethod).toBe("combined");
+      expect(r.uncertaintyComponentsUm!.subregion).toBeGreaterThan(0);
       if (Math.abs(r.wavelengthPx! - 13.7) <= 3 * r.uncertaintyPx!) covered++;
     }
     expect(covered).toBeGreaterThanOrEqual(4);

@@ -1,3 +1,4 @@
+import { formatPlusMinus } from "@/lib/format/measurement";
 import Link from "next/link";
 import { OpenDiscussions } from "@/components/discussion/open-discussions";
 import { EmptyState, PageHeader, Panel } from "@/components/ui/panel";
@@ -160,7 +161,7 @@ export default async function Dashboard({ params }: { params: Promise<{ labId: s
                   </Link>
                   <span className="num shrink-0 text-xs text-moss">
                     {r.headline?.wavelengthUm != null && r.headline.periodFound ? (
-                      `${r.headline.wavelengthUm.toPrecision(4)} ± ${r.headline.uncertaintyUm?.toPrecision(2) ?? "?"} µm`
+                      formatPlusMinus(r.headline.wavelengthUm, r.headline.uncertaintyUm, "µm")
                     ) : (
                       <span className="text-ink-soft">{r.status}</span>
                     )}

@@ -1,5 +1,6 @@
 /** Display words for readouts, shared by the readout, specimen and study pages. Pure functions. */
 import { formatSig } from "@/components/charts/spectrum-format";
+import { formatPlusMinus } from "@/lib/format/measurement";
 import type { JobStatus } from "@/models/job";
 import type { ReadoutDto } from "@/lib/server/readouts/readouts";
 
@@ -43,9 +44,7 @@ export function plusMinus(
   digits = 4,
 ): string {
   if (value === null || value === undefined) return "—";
-  return u === null || u === undefined
-    ? `${formatSig(value, digits)} ${unit}`
-    : `${formatSig(value, digits)} ± ${formatSig(u, 2)} ${unit}`;
+  return u === null || u === undefined ? `${formatSig(value, digits)} ${unit}` : formatPlusMinus(value, u, unit);
 }
 
 /** One line saying how a readout was made: ROI, channel, flattening, window; or the table mapping. */

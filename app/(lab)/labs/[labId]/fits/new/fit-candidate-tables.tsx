@@ -1,5 +1,6 @@
 "use client";
 /** The lab's finished readouts, one table per study: tick one to use it, regroup it, choose how it is read. */
+import { formatPlusMinus } from "@/lib/format/measurement";
 import type { FitCandidateDto } from "@/lib/server/fits/candidates";
 import { field, type Pick } from "./fit-data-drafts";
 
@@ -64,7 +65,7 @@ export function FitCandidateTables({
                       <td className="num text-moss">
                         {p.kind === "nearest-neighbour" && c.nearestNeighbourUm !== null
                           ? `a = ${f3(c.nearestNeighbourUm)} µm`
-                          : `λ = ${f3(c.wavelengthUm)} ± ${f3(c.uncertaintyUm)} µm`}
+                          : `λ = ${formatPlusMinus(c.wavelengthUm, c.uncertaintyUm, "µm")}`}
                       </td>
                       <td>
                         <select

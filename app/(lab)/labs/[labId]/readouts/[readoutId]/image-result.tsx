@@ -13,6 +13,10 @@ import type { ImageReadoutResult, SpectrumProducts } from "@/lib/server/readouts
 import { formatSig, pixelSizeLabel, plusMinus } from "../readout-format";
 
 const METHOD_WORDS = {
+  combined: (n: number) =>
+    n >= 3
+      ? `combined standard uncertainty (k = 1): spread over ${n} sub-regions, peak localisation in noise, interpolation`
+      : "combined standard uncertainty (k = 1): peak localisation in noise and interpolation (too few sub-regions for a spread)",
   "subregion-sem": (n: number) => `spread over ${n} overlapping sub-regions (SD/√n)`,
   "peak-half-width": () => "half width at half maximum of the spectral peak (Δλ = λ·Δf/f)",
 } as const;
@@ -66,9 +70,24 @@ export function ImageResult({ readout, result }: { readout: ReadoutDetailDto; re
               </span>
             </Row>
           )}
+          {w.expandedUncertainty95Um != null && w.wavelengthUm !== null && (
+            <Row label="95 % interval (λ ± 2u)" testId="readout-interval">
+              <span className="num">
+                {formatSig(w.wavelengthUm - w.expandedUncertainty95Um, 6)} to{" "}
+                {formatSig(w.wavelengthUm + w.expandedUncertainty95Um, 6)} µm
+              </span>
+            </Row>
+          )}
           <Row label="Uncertainty method">
             {w.uncertaintyMethod ? METHOD_WORDS[w.uncertaintyMethod](w.subregionCount) : "—"}
-            {w.subregionSemUm !== null && w.halfWidthUm !== null && (
+            {w.uncertaintyComponentsUm && (
+              <span className="num ml-2 text-xs text-ink-soft">
+                (sub-regions {formatSig(w.uncertaintyComponentsUm.subregion, 2)} µm; localisation{" "}
+                {formatSig(w.uncertaintyComponentsUm.localisation, 2)} µm; interpolation{" "}
+                {formatSig(w.uncertaintyComponentsUm.resolution, 2)} µm)
+              </span>
+            )}
+            {!w.uncertaintyComponentsUm && w.subregionSemUm !== null && w.halfWidthUm !== null && (
               <span className="num ml-2 text-xs text-ink-soft">
                 (sub-regions {formatSig(w.subregionSemUm, 2)} µm; peak half-width {formatSig(w.halfWidthUm, 2)} µm)
               </span>
