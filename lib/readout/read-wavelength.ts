@@ -8,6 +8,9 @@ import { prepareRegion } from "./prepare-region";
 import type { WavelengthReadout } from "./result";
 import type { SpectrumAnalysis } from "./analyse-spectrum";
 import { combineWavelengthUncertainty } from "./uncertainty";
+import { isSpotPacking, measureRegionSpotOrder } from "./spot-order";
+import { measureWavelengthDrift, type WavelengthDrift } from "./wavelength-drift";
+import { formatPlain } from "../format/measurement";
 import { measureSubregionSpread } from "./subregion-uncertainty";
 import { applyWindow } from "./window";
 
@@ -34,11 +37,25 @@ export function readWavelength(image: GreyImage, options: ReadoutOptions): Wavel
   const lambdaPx = 1 / a.frequencyPerPx; // analysed grid
   const halfWidthPx = (lambdaPx * a.halfWidthRings) / a.refinedRing; // Δλ = λ·Δf/f
   let semPx: number | null = null,
-    subregionCount = 0;
+    subregionCount = 0,
+    drift: WavelengthDrift | null = null;
   if (periodFound && settings.subregions) {
     const spread = measureSubregionSpread({ ...region, data: flattened }, settings, a.frequencyPerPx);
     semPx = spread.semPx;
     subregionCount = spread.wavelengthsPx.length;
+    drift = measureWavelengthDrift(
+      spread.wavelengthsPx.map((wavelengthPx, i) => ({
+        xPx: spread.centresPx[i][0],
+        yPx: spread.centresPx[i][1],
+        wavelengthPx,
+      })),
+      region.width,
+      region.height,
+    );
+    if (drift?.flagged)
+      warnings.push(
+        `The wavelength changes across the field from ${formatPlain(drift.fromPx * region.pixelSizeUm, 3)} to ${formatPlain(drift.toPx * region.pixelSizeUm, 3)} µm; the value above is an average over the field — see the local profile.`,
+      );
     if (semPx === null)
       warnings.push(
         `Too few usable sub-regions (${subregionCount} of 9) to measure the spread across the field; the uncertainty holds only the peak's localisation.`,
@@ -82,8 +99,19 @@ export function readWavelength(image: GreyImage, options: ReadoutOptions): Wavel
     warnings.push(
       `No significant period: the peak is ${a.significance.toPrecision(3)}× the background, below the threshold ${settings.significanceThreshold}.`,
     );
-  const hex = periodFound && a.symmetry === "hexagonal";
+  // Disordered hexagonal packings have a nearly uniform Fourier ring: look at the spots themselves.
+  const spots =
+    periodFound && a.symmetry === "labyrinth"
+      ? measureRegionSpotOrder(flattened, region.width, region.height, lambdaPx, region.included)
+      : null;
+  const fromSpots = isSpotPacking(spots);
+  const symmetry = fromSpots ? "hexagonal" : a.symmetry;
+  const hex = periodFound && symmetry === "hexagonal";
   const nn = 2 / Math.sqrt(3);
+  const nnUm = fromSpots ? spots!.nearestNeighbourMeanPx * px : nn * lambdaPx * px;
+  const nnUncertaintyUm = fromSpots
+    ? (spots!.nearestNeighbourSdPx / Math.sqrt(spots!.interiorCount)) * px
+    : nn * uncertaintyPx * px;
   const { excludeMask, ...rest } = settings;
   return {
     periodFound,
@@ -101,12 +129,25 @@ export function readWavelength(image: GreyImage, options: ReadoutOptions): Wavel
     halfWidthUm: periodFound ? halfWidthPx * px : null,
     significance: a.significance,
     significanceThreshold: settings.significanceThreshold,
-    orientationDeg: periodFound ? (hex ? a.angular.orientation6Deg : a.angular.orientationDeg) : null,
+    orientationDeg: periodFound && !fromSpots ? (hex ? a.angular.orientation6Deg : a.angular.orientationDeg) : null,
     anisotropy: a.angular.h2,
-    symmetry: periodFound ? a.symmetry : null,
+    symmetry: periodFound ? symmetry : null,
+    symmetrySource: periodFound ? (fromSpots ? "spots" : "fourier") : null,
+    spotOrder: spots
+      ? {
+          count: spots.count,
+          psi6Local: spots.psi6Local,
+          psi6Global: spots.psi6Global,
+          roundness: spots.roundness,
+          nearestNeighbourMeanUm: spots.nearestNeighbourMeanPx * px,
+          nearestNeighbourSdUm: spots.nearestNeighbourSdPx * px,
+          polarity: spots.polarity,
+        }
+      : null,
+    wavelengthDrift: drift ? { fromUm: drift.fromPx * px, toUm: drift.toPx * px, flagged: drift.flagged } : null,
     symmetryScores: { h2: a.angular.h2, h4: a.angular.h4, h6: a.angular.h6 },
-    nearestNeighbourUm: hex ? nn * lambdaPx * px : null,
-    nearestNeighbourUncertaintyUm: hex ? nn * uncertaintyPx * px : null,
+    nearestNeighbourUm: hex ? nnUm : null,
+    nearestNeighbourUncertaintyUm: hex ? nnUncertaintyUm : null,
     autocorrelation,
     radialSpectrum: {
       frequencyPerUm: Array.from(a.radial.frequencyPerPx, (f) => f / px),

@@ -41,7 +41,24 @@ export interface WavelengthReadout {
   symmetry: PatternSymmetry | null;
   /** Angular harmonics behind the symmetry call: h₂ (stripes), h₄, h₆ (hexagonal). */
   symmetryScores: { h2: number; h4: number; h6: number };
-  /** Hexagonal spots only: nearest-neighbour distance a = (2/√3)·λ (µm). */
+  /**
+   * Where the symmetry call came from: the Fourier angular harmonics, or spots found in the image
+   * (a disordered hexagonal packing whose Fourier ring is nearly uniform; lib/readout/spot-order.ts).
+   */
+  symmetrySource: "fourier" | "spots" | null;
+  /** Spots found in the image and their order, when searched (fields the harmonics call labyrinth). */
+  spotOrder: {
+    count: number;
+    psi6Local: number;
+    psi6Global: number;
+    roundness: number;
+    nearestNeighbourMeanUm: number;
+    nearestNeighbourSdUm: number;
+    polarity: "bright" | "dark";
+  } | null;
+  /** The local wavelength's change across the field (µm), from a plane through the sub-region wavelengths. */
+  wavelengthDrift: { fromUm: number; toUm: number; flagged: boolean } | null;
+  /** Hexagonal spots only: nearest-neighbour distance a = (2/√3)·λ from the Fourier peak, or the mean distance between spots found in the image when symmetrySource is "spots" (µm). */
   nearestNeighbourUm: number | null;
   nearestNeighbourUncertaintyUm: number | null;
   /** Autocorrelation cross-check, the wavelength it implies (µm), or null if not run/found. */

@@ -223,3 +223,41 @@ function measureSkewness(data: Float32Array, included: Uint8Array | null): numbe
   for (let i = 0; i < data.length; i++) if (!included || included[i]) m3 += (data[i] - mean) ** 3;
   return n ? m3 / n : 0;
 }
+
+/**
+ * A field the Fourier harmonics call "labyrinth" is called spots when its local maxima are round
+ * (roundness ≥ 0.6) and packed with local hexagonal order (mean |ψ₆| ≥ 0.55). The thresholds sit between
+ * the values measured on simulated reaction–diffusion fields: spots 0.63–0.74 (|ψ₆|) and 0.93 (roundness),
+ * labyrinths 0.44–0.48 and 0.20 (tests/lib/readout/disordered-spots.test.ts; chosen here, no published source).
+ */
+export const SPOT_PACKING_THRESHOLDS = { roundness: 0.6, psi6Local: 0.55 } as const;
+
+export function isSpotPacking(o: SpotOrder | null): boolean {
+  return !!o && o.roundness >= SPOT_PACKING_THRESHOLDS.roundness && o.psi6Local >= SPOT_PACKING_THRESHOLDS.psi6Local;
+}
+
+/** Largest side searched for spots: a central crop of this size holds hundreds of spots and keeps the search cheap. */
+export const MAX_SPOT_SEARCH_SIDE_PX = 1024;
+
+/** measureSpotOrder on the central crop (at most MAX_SPOT_SEARCH_SIDE_PX square) of a region. */
+export function measureRegionSpotOrder(
+  data: Float32Array,
+  width: number,
+  height: number,
+  wavelengthPx: number,
+  included: Uint8Array | null,
+): SpotOrder | null {
+  const w = Math.min(width, MAX_SPOT_SEARCH_SIDE_PX),
+    h = Math.min(height, MAX_SPOT_SEARCH_SIDE_PX);
+  if (w === width && h === height) return measureSpotOrder(data, width, height, wavelengthPx, included);
+  const x0 = Math.floor((width - w) / 2),
+    y0 = Math.floor((height - h) / 2);
+  const crop = new Float32Array(w * h);
+  const inc = included ? new Uint8Array(w * h) : null;
+  for (let y = 0; y < h; y++) {
+    const src = (y + y0) * width + x0;
+    crop.set(data.subarray(src, src + w), y * w);
+    if (inc && included) inc.set(included.subarray(src, src + w), y * w);
+  }
+  return measureSpotOrder(crop, w, h, wavelengthPx, inc);
+}

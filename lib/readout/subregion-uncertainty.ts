@@ -10,6 +10,8 @@ export const MIN_PERIODS_PER_SUBREGION = 4;
 export interface SubregionSpread {
   /** λ of each usable sub-region (px of the analysed grid). */
   wavelengthsPx: number[];
+  /** Centre of each usable sub-region (px of the analysed grid), in the order of wavelengthsPx. */
+  centresPx: Array<[number, number]>;
   /** SD(λᵢ)/√n_eff (px), n_eff = min(n, region area ÷ sub-region area); null with fewer than 3 usable sub-regions. */
   semPx: number | null;
   sidePx: [number, number];
@@ -29,7 +31,7 @@ export function measureSubregionSpread(
   const sw = Math.min(Math.floor(region.width / 2), MAX_SUBREGION_SIDE_PX);
   const sh = Math.min(Math.floor(region.height / 2), MAX_SUBREGION_SIDE_PX);
   const lambda = 1 / frequencyPerPx;
-  const out: SubregionSpread = { wavelengthsPx: [], semPx: null, sidePx: [sw, sh] };
+  const out: SubregionSpread = { wavelengthsPx: [], centresPx: [], semPx: null, sidePx: [sw, sh] };
   if (sw < MIN_PERIODS_PER_SUBREGION * lambda || sh < MIN_PERIODS_PER_SUBREGION * lambda || sw < 16 || sh < 16)
     return out;
   for (const fy of [0, 0.5, 1]) {
@@ -37,7 +39,10 @@ export function measureSubregionSpread(
       const x = Math.round(fx * (region.width - sw));
       const y = Math.round(fy * (region.height - sh));
       const m = measureTile(region, x, y, sw, sh, settings, frequencyPerPx, 0.3);
-      if (m) out.wavelengthsPx.push(1 / m.frequencyPerPx);
+      if (m) {
+        out.wavelengthsPx.push(1 / m.frequencyPerPx);
+        out.centresPx.push([x + sw / 2, y + sh / 2]);
+      }
     }
   }
   const n = out.wavelengthsPx.length;

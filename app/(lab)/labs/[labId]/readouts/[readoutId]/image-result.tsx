@@ -61,7 +61,14 @@ export function ImageResult({ readout, result }: { readout: ReadoutDetailDto; re
             <span className="num ml-3 text-ink-soft">{plusMinus(w.wavelengthPx, w.uncertaintyPx, "px")}</span>
           </Row>
           {hex && (
-            <Row label="Nearest-neighbour spacing a = (2/√3)·λ" testId="readout-nn">
+            <Row
+              label={
+                w.symmetrySource === "spots"
+                  ? "Nearest-neighbour spacing (mean over spots found)"
+                  : "Nearest-neighbour spacing a = (2/√3)·λ"
+              }
+              testId="readout-nn"
+            >
               <span className="num font-semibold">
                 {plusMinus(w.nearestNeighbourUm, w.nearestNeighbourUncertaintyUm, "µm")}
               </span>
@@ -112,7 +119,15 @@ export function ImageResult({ readout, result }: { readout: ReadoutDetailDto; re
             <span className="text-xs text-ink-soft">0 isotropic … 1 one direction</span>
           </Row>
           <Row label="Symmetry" testId="readout-symmetry">
-            {w.symmetry ? SYMMETRY_WORDS[w.symmetry] : "—"}{" "}
+            {w.symmetry ? SYMMETRY_WORDS[w.symmetry] : "—"}
+            {w.symmetrySource === "spots" && w.spotOrder && (
+              <span className="text-ink-soft">
+                {" "}
+                in a disordered packing, found from the spots themselves (bond order |ψ₆| ={" "}
+                <span className="num">{formatSig(w.spotOrder.psi6Local, 2)}</span>,{" "}
+                <span className="num">{w.spotOrder.count}</span> spots)
+              </span>
+            )}{" "}
             <span className="num text-xs text-ink-soft">
               h₂ = {formatSig(w.symmetryScores.h2, 3)}, h₄ = {formatSig(w.symmetryScores.h4, 3)}, h₆ ={" "}
               {formatSig(w.symmetryScores.h6, 3)}
