@@ -120,13 +120,18 @@ export const fitCreateSchema = z
       .max(MAX_FIT_MODELS, `models: at most ${MAX_FIT_MODELS} kinetics in one comparison`),
     options: fitOptionsSchema.optional(),
     /**
-     * `per-readout` (default): each readout weighs by its own uncertainty. `with-specimen-spread`:
-     * the sample SD of each condition's replicate specimens is added in quadrature, so biological
-     * variation between specimens counts too.
+     * `with-specimen-spread` (default): the sample SD of each condition's replicate specimens is added
+     * in quadrature, so biological variation between specimens counts too. `per-readout`: each datum
+     * weighs by its own uncertainty only.
      */
     uncertainty: z
       .enum(["per-readout", "with-specimen-spread"], 'uncertainty must be "per-readout" or "with-specimen-spread"')
       .optional(),
+    /**
+     * `specimens` (default): images of one specimen are averaged first and a repeated file counts once;
+     * `images`: every readout is its own datum (pseudo-replication when a specimen has several images).
+     */
+    replicates: z.enum(["specimens", "images"], 'replicates must be "specimens" or "images"').optional(),
   })
   .strict();
 export type FitCreateInput = z.input<typeof fitCreateSchema>;

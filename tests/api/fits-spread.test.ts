@@ -59,8 +59,14 @@ describe("fit uncertainty with the spread between specimens", () => {
     expect(fit.provenance.settings.specimenSpreadUm).toBe("control: SD 1.41 µm (n = 2); treated: SD 2.12 µm (n = 2)");
   });
 
-  it("keeps the readouts' own uncertainties by default, and refuses an unknown choice", async () => {
-    const res = await start(body());
+  it("adds the spread by default, keeps the data's own uncertainties on request, and refuses an unknown choice", async () => {
+    const byDefault = (await (await start(body())).json()) as FitDetailDto;
+    await cancelJob(w.labId, byDefault.jobId!).catch(() => undefined);
+    expect(byDefault.spec.data.map((d) => Number(d.uncertaintyUm.toFixed(9)))).toEqual([
+      1.417744688, 1.417744688, 2.130727575, 2.130727575,
+    ]);
+    expect(byDefault.provenance.settings.uncertainty).toBe("with-specimen-spread");
+    const res = await start(body("per-readout"));
     const fit = (await res.json()) as FitDetailDto;
     await cancelJob(w.labId, fit.jobId!).catch(() => undefined); // the spec is what is checked here
     expect(fit.spec.data.map((d) => d.uncertaintyUm)).toEqual([0.1, 0.1, 0.2, 0.2]);

@@ -3,6 +3,7 @@
  * (value, SE, 95 % profile interval) per kinetics, then measured against predicted per datum,
  * then the ranking when several kinetics were compared.
  */
+import { readoutIdsOfDatum } from "./specimen-pool";
 import "server-only";
 import type { FitDetailDto } from "./fits";
 import { csvComment, csvRow } from "../web/csv";
@@ -77,7 +78,7 @@ export function fitPredictionsCsv(fit: FitDetailDto): string {
           r.predictedUm,
           r.residual,
           r.turing,
-          fit.provenance.data[r.index]?.readoutId,
+          readoutIdsOfDatum(fit.provenance.data, r.index),
         ]),
       );
     }

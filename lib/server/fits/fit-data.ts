@@ -105,6 +105,7 @@ export async function resolveFitData(ctx: LabContext, input: FitDatumInput[]): P
         studyName: null,
         inputSha256: null,
         readoutSoftwareVersion: null,
+        specimenId: null,
       });
       return;
     }
@@ -171,6 +172,7 @@ export async function resolveFitData(ctx: LabContext, input: FitDatumInput[]): P
       studyName: study?.name ?? null,
       inputSha256: r.inputSha256,
       readoutSoftwareVersion: r.softwareVersion,
+      specimenId: r.specimenId,
     });
   });
   return { data, sources };

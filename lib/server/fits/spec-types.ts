@@ -48,6 +48,15 @@ export interface FitDatumSource {
   /** SHA-256 of the readout's input file, and the software that read it. */
   inputSha256: string | null;
   readoutSoftwareVersion: string | null;
+  /** The readout's specimen (fits made before specimen pooling do not record it). */
+  specimenId?: string | null;
+  /**
+   * Index of the fitted datum this source fed (spec.data); several images of one specimen feed one
+   * datum, a repeated file none (null). Absent on fits made before specimen pooling: then it is `index`.
+   */
+  datumIndex?: number | null;
+  /** Why a source was not counted, in words. */
+  note?: string;
 }
 
 export interface FitKineticsSource {

@@ -19,6 +19,7 @@ import { toAppError } from "../core-errors";
 import { AppError } from "../errors";
 import { getLabKineticsVersion } from "../kinetics/kinetics";
 import { compileStoredKinetics } from "../kinetics/engine";
+import { poolBySpecimen } from "./specimen-pool";
 import { resolveFitData } from "./fit-data";
 import type { FitKineticsSource, FitProvenance, StoredFitModel, StoredFitSpec } from "./spec-types";
 
@@ -192,9 +193,14 @@ export async function buildFitSpec(
   softwareVersion: string,
   runner: FitProvenance["runner"],
 ): Promise<BuiltFit> {
-  const resolved = await resolveFitData(ctx, input.data);
+  const raw = await resolveFitData(ctx, input.data);
+  // Specimens are the replicates (default); counting every image is a choice.
+  const replicates = input.replicates ?? "specimens";
+  const pooled = replicates === "specimens" ? poolBySpecimen(raw.data, raw.sources) : null;
+  const resolved = pooled ?? { data: raw.data, sources: raw.sources };
   const sources = resolved.sources;
-  const spread = input.uncertainty === "with-specimen-spread" ? addReplicateSpread(resolved.data) : null;
+  const uncertainty = input.uncertainty ?? "with-specimen-spread";
+  const spread = uncertainty === "with-specimen-spread" ? addReplicateSpread(resolved.data) : null;
   const data = spread ? spread.data : resolved.data;
   const models: ResolvedModel[] = [];
   for (const [i, mi] of input.models.entries()) models.push(await resolveModel(ctx, mi, i));
@@ -226,7 +232,13 @@ export async function buildFitSpec(
       kinetics: models.map((m) => m.source),
       settings: {
         ...defaults,
-        uncertainty: input.uncertainty ?? "per-readout",
+        uncertainty,
+        replicates,
+        ...(pooled
+          ? {
+              replicateCounts: `${pooled.counts.specimens} specimens · ${pooled.counts.images} images${pooled.counts.repeatedFiles ? ` · ${pooled.counts.repeatedFiles} repeated file${pooled.counts.repeatedFiles > 1 ? "s" : ""} counted once` : ""}`,
+            }
+          : {}),
         ...(spread
           ? {
               specimenSpreadUm: spread.spreads

@@ -23,7 +23,9 @@ export function FitProvenance({ labId, fit }: { labId: string; fit: FitDetailDto
             </thead>
             <tbody>
               {p.data.map((d) => {
-                const datum = fit.spec.data[d.index];
+                // Several images of one specimen feed one fitted datum; a repeated file feeds none.
+                const di = d.datumIndex === undefined ? d.index : d.datumIndex;
+                const datum = di === null ? null : fit.spec.data[di];
                 return (
                   <tr key={d.index} className="border-t border-rule/60 align-top">
                     <td className="num py-1 pr-2">{d.index + 1}</td>
@@ -45,18 +47,29 @@ export function FitProvenance({ labId, fit }: { labId: string; fit: FitDetailDto
                       )}
                     </td>
                     <td className="num text-right text-moss">
-                      {d.kind === "nearest-neighbour" ? "a = " : "λ = "}
-                      {f(datum.wavelengthUm)} ± {f(datum.uncertaintyUm, 2)}
-                      {datum.domain ? (
-                        <span className="block text-xs text-ink-soft">
-                          tissue{" "}
-                          {datum.domain.kind === "interval"
-                            ? `${f(datum.domain.length)} µm`
-                            : datum.domain.kind === "rectangle"
-                              ? `${f(datum.domain.lx)} × ${f(datum.domain.ly)} µm`
-                              : ""}
-                        </span>
-                      ) : null}
+                      {!datum ? (
+                        <span className="text-xs text-ink-soft">{d.note ?? "not counted"}</span>
+                      ) : (
+                        <>
+                          {d.kind === "nearest-neighbour" ? "a = " : "λ = "}
+                          {f(datum.wavelengthUm)} ± {f(datum.uncertaintyUm, 2)}
+                          {datum.domain ? (
+                            <span className="block text-xs text-ink-soft">
+                              tissue{" "}
+                              {datum.domain.kind === "interval"
+                                ? `${f(datum.domain.length)} µm`
+                                : datum.domain.kind === "rectangle"
+                                  ? `${f(datum.domain.lx)} × ${f(datum.domain.ly)} µm`
+                                  : ""}
+                            </span>
+                          ) : null}
+                          {fit.provenance.data.filter(
+                            (x) => (x.datumIndex === undefined ? x.index : x.datumIndex) === di,
+                          ).length > 1 && (
+                            <span className="block text-xs text-ink-soft">mean of this specimen&apos;s images</span>
+                          )}
+                        </>
+                      )}
                     </td>
                   </tr>
                 );

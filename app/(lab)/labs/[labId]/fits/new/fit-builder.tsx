@@ -44,7 +44,8 @@ export function FitBuilder({
   const [tissues, setTissues] = useState<Record<string, Tissue>>({});
   const [models, setModels] = useState<ModelDraft[]>(() => [newModel(first, "m0")]);
   const [profiles, setProfiles] = useState(true);
-  const [uncertainty, setUncertainty] = useState<"per-readout" | "with-specimen-spread">("per-readout");
+  const [uncertainty, setUncertainty] = useState<"per-readout" | "with-specimen-spread">("with-specimen-spread");
+  const [replicates, setReplicates] = useState<"specimens" | "images">("specimens");
   const [error, setError] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
 
@@ -64,6 +65,7 @@ export function FitBuilder({
       kinetics,
       profiles,
       uncertainty,
+      replicates,
     });
     try {
       const fit = await sendJson<FitDetailDto>("POST", `/api/v1/labs/${labId}/fits`, body);
@@ -143,11 +145,28 @@ export function FitBuilder({
             onChange={(e) => setUncertainty(e.target.value as typeof uncertainty)}
             data-testid="fit-uncertainty"
           >
-            <option value="per-readout">
-              the readout&apos;s own uncertainty (how well one image pins its wavelength)
-            </option>
             <option value="with-specimen-spread">
-              plus the spread between specimens of the same condition (SD, added in quadrature)
+              the specimen&apos;s own uncertainty plus the spread between specimens of the same condition (SD, added in
+              quadrature)
+            </option>
+            <option value="per-readout">
+              only the specimen&apos;s own uncertainty (how well its images pin its wavelength)
+            </option>
+          </select>
+        </label>
+        <label className="mt-3 block text-sm">
+          Replicates
+          <select
+            className={field}
+            value={replicates}
+            onChange={(e) => setReplicates(e.target.value as typeof replicates)}
+            data-testid="fit-replicates"
+          >
+            <option value="specimens">
+              specimens: several images of one specimen are averaged first; the same file twice counts once
+            </option>
+            <option value="images">
+              every image is its own datum (pseudo-replication when a specimen has several)
             </option>
           </select>
         </label>

@@ -15,6 +15,7 @@ export interface FitDrafts {
   kinetics: KineticsInfoDto[];
   profiles: boolean;
   uncertainty: "per-readout" | "with-specimen-spread";
+  replicates: "specimens" | "images";
 }
 
 export function buildFitBody({
@@ -28,6 +29,7 @@ export function buildFitBody({
   kinetics,
   profiles,
   uncertainty,
+  replicates,
 }: FitDrafts) {
   const domainOf = (condition: string) => {
     const t = tissues[condition];
@@ -67,5 +69,6 @@ export function buildFitBody({
     models: models.map((m) => modelBody(m, kinetics)),
     options: { profiles },
     uncertainty,
+    replicates,
   };
 }
