@@ -14,6 +14,7 @@ import { StorageUnavailableError } from "@/storage/object-store";
 import type { UploadKind } from "@/models/upload";
 import type { LabContext } from "../access";
 import { authorize } from "../access";
+import { findDependents, refuseWithDependents } from "../dependents";
 import { AppError, notFound } from "../errors";
 import { containsText, type ListQuery, type ListResult, pageOptions, pageResult } from "../web/list";
 import { database, services } from "../services";
@@ -215,6 +216,9 @@ export async function deleteUpload(ctx: LabContext, uploadId: string): Promise<v
   // delete fails after that has no row, and the sweep (upload-recovery.ts) removes it.
   const { readouts, jobIds } = await db.sequelize.transaction(async (transaction) => {
     const rs = await m.Readout.findAll({ where: { uploadId: u.id }, transaction });
+    // Provenance holds: a file whose readouts a fit or run used stays (checked inside the transaction).
+    const deps = await findDependents(m, ctx.labId, { readoutIds: rs.map((r) => r.id) }, transaction);
+    if (deps.length) throw refuseWithDependents(`“${u.filename}”`, "its readouts are", deps);
     await m.Readout.destroy({ where: { uploadId: u.id }, transaction });
     await u.destroy({ transaction });
     await recordAudit(
