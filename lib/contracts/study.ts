@@ -33,3 +33,15 @@ export const pixelSizeSchema = z.coerce
   .number("pixel size must be a number in µm/px")
   .positive("pixel size must be above 0 µm/px")
   .max(10_000, "pixel size must be at most 10000 µm/px");
+
+/** Renames a condition on every specimen of a study: PATCH /api/v1/labs/:labId/studies/:studyId/conditions. */
+export const conditionRenameSchema = z
+  .object({
+    from: z.string("from must be the condition to rename").trim().min(1, "from: name the condition to rename"),
+    to: z
+      .string("to must be the new name")
+      .trim()
+      .min(1, "to: name the new condition (e.g. control)")
+      .max(120, "to: at most 120 characters"),
+  })
+  .strict();

@@ -103,6 +103,18 @@ export const cases: Record<string, Case> = {
     setup: async (w) => ({ params: lab(w, { studyId: (await study(w)).id }) }),
     expect: MANAGER_ONLY(204),
   },
+  "GET /api/v1/labs/[labId]/studies/[studyId]/conditions": {
+    setup: async (w) => ({ params: lab(w, { studyId: (await specimen(w)).studyId }) }),
+    expect: ALL(200),
+  },
+  // Renaming a condition edits the study (the manager's here): as PATCH of the study itself.
+  "PATCH /api/v1/labs/[labId]/studies/[studyId]/conditions": {
+    setup: async (w) => ({
+      params: lab(w, { studyId: (await specimen(w)).studyId }),
+      json: { from: "Control", to: "wild type" },
+    }),
+    expect: MANAGER_ONLY(200),
+  },
   "GET /api/v1/labs/[labId]/studies/[studyId]/specimens": {
     setup: async (w) => ({ params: lab(w, { studyId: (await study(w)).id }) }),
     expect: ALL(200),

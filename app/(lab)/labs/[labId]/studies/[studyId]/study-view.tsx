@@ -15,6 +15,7 @@ import { formatDate } from "@/lib/client/format";
 import { specimenCreateSchema, studyCreateSchema, type SpecimenInput, type StudyInput } from "@/lib/contracts/study";
 import type { SpecimenDto } from "@/lib/server/studies/specimens";
 import type { StudyDto } from "@/lib/server/studies/studies";
+import { CONDITIONS_LIST_ID, StudyConditions } from "./study-conditions";
 
 export function StudyView({
   labId,
@@ -108,6 +109,13 @@ export function StudyView({
           onCancel={() => setAdding(false)}
         />
       )}
+      <StudyConditions
+        labId={labId}
+        studyId={study.id}
+        canEdit={study.canEdit}
+        refreshKey={refresh}
+        onRenamed={() => setRefresh((r) => r + 1)}
+      />
       <DataTable<SpecimenDto>
         url={`/api/v1/labs/${labId}/studies/${study.id}/specimens`}
         columns={columns}
@@ -226,6 +234,7 @@ export function SpecimenForm({
         <TextField
           label="Condition"
           placeholder="control, or treatment and dose"
+          list={CONDITIONS_LIST_ID}
           {...form.register("condition")}
           error={e.condition?.message}
         />
