@@ -32,6 +32,25 @@ function detectDecimalMark(rows: string[][], delimiter: string): "." | "," {
 }
 
 /**
+ * A row with more filled cells than the header has columns was split where it should not have
+ * been (a thousands separator in a comma-separated file, or text with the delimiter unquoted):
+ * refused rather than read shifted.
+ */
+function refuseLongRows(rows: string[][], lines: number[], delimiter: string): void {
+  const width = rows[0]?.length ?? 0;
+  for (let r = 1; r < rows.length; r++) {
+    const row = rows[r];
+    if (row.length <= width || row.slice(width).every((c) => c.trim() === "")) continue;
+    const name = delimiter === "," ? "comma" : delimiter === ";" ? "semicolon" : "tab";
+    throw new SpacingError(
+      `Line ${lines[r]} has ${row.length} cells, but the header names ${width} columns: a ${name} inside a number or a text without quotes? (the line reads: ${row.join(delimiter)})`,
+      "file",
+      lines[r],
+    );
+  }
+}
+
+/**
  * Reads CSV/TSV text (UTF-8, BOM allowed) into a grid. Lines are counted as a spreadsheet counts
  * its rows: a quoted cell spanning several lines is one row; blank lines count but are not kept.
  */
@@ -47,6 +66,7 @@ export function readDelimitedText(text: string): Grid {
     rows.push(record);
     lines.push(i + 1);
   });
+  refuseLongRows(rows, lines, delimiter);
   return {
     rows,
     lines,
