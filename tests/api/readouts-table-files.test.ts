@@ -4,6 +4,7 @@
  * naming its columns and then read with the columns chosen. Expected values by hand, beside each.
  */
 import { describe, expect, it } from "vitest";
+import { readTable } from "@/lib/server/readouts/process";
 import type { ReadoutDto } from "@/lib/server/readouts/readouts";
 import { setupReadoutLab } from "../support/readouts";
 import { writeWorkbook } from "../support/xlsx-fixtures";
@@ -81,5 +82,14 @@ describe("table files: XLSX and semicolon CSV", () => {
     const r = await finished(up.body.readout);
     expect(r.status).toBe("failed");
     expect(r.error).toBe('Line 3, column B ("spacing (µm)"): "12..5" is not a number.');
+  });
+
+  it("an XLSX workbook is read in the readout's child process too", async () => {
+    // Spacings 2 and 4 mm → mean 3 mm = 3000 µm (by hand)
+    const bytes = await writeWorkbook({ S: [["spacing (mm)"], [2], [4]] });
+    const settings = { kind: "table" as const, pixelSizeUm: null, pixelSizeSource: null };
+    const r = await readTable(bytes, settings, new AbortController().signal);
+    expect(r.table).toMatchObject({ kind: "spacings", spacingUm: { mean: 3000 } });
+    expect(r.columnsTaken).toBe('spacing = A ("spacing (mm)")');
   });
 });
