@@ -3,8 +3,8 @@ import { API_CSP, FIXED_SECURITY_HEADERS } from "./lib/web/security-headers";
 
 const nextConfig: NextConfig = {
   // sqlite3, pg, sharp and @aws-sdk/client-s3 are on Next's built-in external list; sequelize,
-  // formidable and pg-boss (which loads pg at run time) are not.
-  serverExternalPackages: ["sequelize", "formidable", "pg-boss"],
+  // formidable, pg-boss (which loads pg at run time) and exceljs (XLSX tables) are not.
+  serverExternalPackages: ["sequelize", "formidable", "pg-boss", "exceljs"],
   poweredByHeader: false,
   // A second build folder lets a check run beside another build (e.g. NEXT_DIST_DIR=.next-check).
   distDir: process.env.NEXT_DIST_DIR || ".next",

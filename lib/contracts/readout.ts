@@ -88,6 +88,13 @@ export const tableReadoutSettingsSchema = z
       .optional(),
     /** Unit of the table's numbers; "px" needs a pixel size. */
     unit: z.enum(["um", "nm", "mm", "px"], 'unit must be "um", "nm", "mm" or "px"').optional(),
+    /** Sheet of an XLSX workbook to read; the first sheet when not given. */
+    sheet: z
+      .string("sheet must be a sheet name")
+      .trim()
+      .min(1, "sheet must name a sheet")
+      .max(200, "sheet: at most 200 characters")
+      .optional(),
     pixelSizeUm: pixelSizeOverride,
   })
   .strict();

@@ -1,10 +1,18 @@
+import { isXlsxEntries, isZip, zipEntries } from "../spacing/zip-entries";
+
 /** What a file is, judged from its bytes (never its name). */
-export type FileKind = "png" | "jpeg" | "tiff" | "csv" | "tsv";
+export type FileKind = "png" | "jpeg" | "tiff" | "csv" | "tsv" | "xlsx";
+
+/** A number with a decimal point or a decimal comma ("12.5", "12,5"), as one-column lists hold. */
+const LIST_NUMBER = /^[-+]?(\d+[.,]?\d*|[.,]\d+)([eE][-+]?\d+)?$/;
 
 /**
  * Magic bytes (PNG signature, JPEG SOI + marker, TIFF II*\0 / MM\0* incl. BigTIFF) or, for text,
  * valid UTF-8 without NUL bytes whose first lines split consistently on tabs (TSV) or commas /
- * semicolons (CSV). Returns null for anything else.
+ * semicolons (CSV); text that is not UTF-8 is read as Windows-1252, as spreadsheet programs save
+ * "CSV" in Western European locales. An XLSX workbook is a ZIP holding "[Content_Types].xml" and
+ * parts under "xl/" (its central directory when the bytes reach the end, else the local headers
+ * in the bytes given). Returns null for anything else.
  */
 export function sniffFileKind(bytes: Uint8Array): FileKind | null {
   const b = bytes;
@@ -27,6 +35,7 @@ export function sniffFileKind(bytes: Uint8Array): FileKind | null {
       (b[0] === 0x4d && b[1] === 0x4d && b[2] === 0 && (b[3] === 0x2a || b[3] === 0x2b)))
   )
     return "tiff";
+  if (isZip(b)) return isXlsxEntries(zipEntries(b)) ? "xlsx" : null;
   const head = b.subarray(0, 8192);
   if (head.length === 0 || head.includes(0)) return null;
   let text: string;
@@ -37,7 +46,7 @@ export function sniffFileKind(bytes: Uint8Array): FileKind | null {
     try {
       text = new TextDecoder("utf-8", { fatal: true }).decode(head.subarray(0, head.length - 3));
     } catch {
-      return null;
+      text = new TextDecoder("windows-1252").decode(head);
     }
   }
   if (/[\x01-\x08\x0e-\x1f]/.test(text)) return null;
@@ -56,8 +65,8 @@ export function sniffFileKind(bytes: Uint8Array): FileKind | null {
   if (consistent(",") || consistent(";")) return "csv";
   // one column of numbers (a plain spacing list) is a CSV with one field
   if (
-    lines.every((l) => /^\s*[-+]?[\w.µ ()/%-]*\s*$/.test(l)) &&
-    lines.slice(1).every((l) => Number.isFinite(Number(l.trim())))
+    lines.every((l) => /^\s*[-+]?[\p{L}\p{N}_.,µ ()[\]/%-]*\s*$/u.test(l)) &&
+    lines.slice(1).every((l) => LIST_NUMBER.test(l.trim()))
   )
     return "csv";
   return null;

@@ -1,6 +1,7 @@
 import { SpacingError } from "./errors";
 import { computeNearestNeighbours, type Field, type NearestNeighbourResult } from "./nearest-neighbours";
-import { parseTable, type ColumnMapping } from "./parse-table";
+import type { Grid } from "./grid";
+import { extractColumns, parseTable, resolveColumnMapping, type ColumnMapping } from "./parse-table";
 import { spacingsFromPositions } from "./positions-1d";
 import { summarize, type Summary } from "./summarize";
 
@@ -24,7 +25,17 @@ export type SpacingTableReadout =
  * it. For centroids the field defaults to the points' bounding box.
  */
 export function readSpacingTable(text: string, mapping: ColumnMapping, field?: Field): SpacingTableReadout {
-  const cols = parseTable(text, mapping);
+  return summarizeColumns(parseTable(text, mapping), field);
+}
+
+/** The same for a grid already read (delimited text or a workbook sheet). */
+export function readSpacingGrid(grid: Grid, mapping: ColumnMapping, field?: Field): SpacingTableReadout {
+  resolveColumnMapping(mapping);
+  return summarizeColumns(extractColumns(grid, mapping), field);
+}
+
+/** Summarises columns in µm: x and y as centroids, else positions, else spacings. */
+export function summarizeColumns(cols: Record<string, Float64Array>, field?: Field): SpacingTableReadout {
   const warnings: string[] = [];
   if (cols.x && cols.y) {
     if (cols.x.length < 2)

@@ -26,7 +26,7 @@ async function main() {
   const bytes = readFileSync(arg("--input"));
   const settings = JSON.parse(readFileSync(arg("--settings"), "utf8")) as StoredReadoutSettings;
   if (settings.kind === "table") {
-    const result = runTableReadout(bytes.toString("utf8"), settings as StoredTableSettings);
+    const result = await runTableReadout(bytes, settings as StoredTableSettings);
     process.stdout.write(JSON.stringify(result) + "\n");
     return;
   }

@@ -53,7 +53,7 @@ describe("table readouts", () => {
     const r = await finished(up.body.readout);
     expect(r.status).toBe("failed");
     expect(r.error).toBe(
-      "Could not tell from the header which columns to read (the columns are: a, b); start a readout with a column mapping: x and y, or position, or spacing.",
+      'Could not tell from the header which columns to read. Choose the columns in the form (x and y, or position, or spacing); the columns are: A ("a"), B ("b").',
     );
     const res = await api(
       "POST /api/v1/labs/[labId]/uploads/[uploadId]/readouts",

@@ -4,23 +4,25 @@ import { CliError, parseOptions, type CliCommand } from "../command";
 import { toCliError } from "../core-errors";
 import { decodeImage, sniffFileKind } from "../../imaging";
 import { readWavelength } from "../../readout";
-import { readSpacingTable, type TableUnit } from "../../spacing";
+import { readSpacingFromGrid, readTableGrid, type TableUnit } from "../../spacing";
 
 const help = `readout FILE [options] [--json]
 
 Reads the dominant wavelength of an image (PNG, JPEG, TIFF; 8/16-bit) or summarises a spacing table
-(CSV/TSV). The file type is judged from its content.
+(CSV/TSV, also ";"-separated with decimal commas, or an XLSX workbook). The file type is judged from
+its content.
 
 Image options:
   --pixel-size UM      pixel size in µm/px (default: from the file's metadata; required if absent)
   --channel N|luminance  channel index from 0, or luminance (default luminance)
   --roi x,y,w,h        rectangle in pixels (default: whole image)
   --invert             dark-on-light pattern (negates intensities)
-Table options (give one of):
+Table options (give one of, or none to take the columns from the header; COL is a header or a letter):
   --x COL --y COL      2-D centroids: nearest-neighbour statistics, Clark-Evans R
   --position COL       1-D positions: successive spacings
   --spacing COL        a list of spacings
-  --unit um|nm|mm|px   unit of the table's numbers (default um; px needs --pixel-size)
+  --unit um|nm|mm|px   unit of the table's numbers (default: as the header says, else um; px needs --pixel-size)
+  --sheet NAME         sheet of an XLSX workbook (default: the first)
 `;
 
 function num(v: string | true | undefined, name: string): number | undefined {
@@ -51,15 +53,18 @@ const command: CliCommand = {
     const kind = sniffFileKind(bytes);
     const pixelSize = num(options["pixel-size"], "pixel-size");
     try {
-      if (kind === "csv" || kind === "tsv") {
-        const table = readSpacingTable(bytes.toString("utf8"), {
-          x: str(options.x, "x"),
-          y: str(options.y, "y"),
-          position: str(options.position, "position"),
-          spacing: str(options.spacing, "spacing"),
-          unit: (str(options.unit, "unit") ?? "um") as TableUnit,
+      if (kind === "csv" || kind === "tsv" || kind === "xlsx") {
+        const read = readSpacingFromGrid(await readTableGrid(bytes, str(options.sheet, "sheet")), {
+          columns: {
+            x: str(options.x, "x"),
+            y: str(options.y, "y"),
+            position: str(options.position, "position"),
+            spacing: str(options.spacing, "spacing"),
+          },
+          unit: str(options.unit, "unit") as TableUnit | undefined,
           pixelSizeUm: pixelSize,
         });
+        const table = { ...read.table, columnsTaken: read.columnsTaken, unit: read.mapping.unit };
         return { json: { file: positional[0], fileKind: kind, ...table }, text: JSON.stringify(table, null, 2) };
       }
       if (!kind)

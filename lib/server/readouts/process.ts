@@ -45,15 +45,14 @@ export async function readImage(
   });
 }
 
-/** A CSV/TSV table readout (parsing, column guess, spacing statistics); no derived objects. */
+/** A CSV/TSV or XLSX table readout (parsing, column guess, spacing statistics); no derived objects. */
 export async function readTable(
   bytes: Uint8Array,
   settings: StoredTableSettings,
   signal: AbortSignal,
 ): Promise<TableReadoutResult> {
   if (signal.aborted) throw new JobCancelledError();
-  if (readoutRunner() === "in-process")
-    return runTableReadout(Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength).toString("utf8"), settings);
+  if (readoutRunner() === "in-process") return runTableReadout(bytes, settings);
   return inChild(
     bytes,
     settings,

@@ -32,6 +32,12 @@ export interface TableReadoutResult {
   type: "table";
   /** The column mapping used; `guessed` when it was read from the header names. */
   mapping: { x?: string; y?: string; position?: string; spacing?: string; unit: TableUnit; guessed: boolean };
+  /** The columns taken in words, with their letters: `x = A ("X (µm)"), y = B ("Y (µm)")` (absent on older readouts). */
+  columnsTaken?: string;
+  /** What was read: a workbook's sheet, or delimited text (absent on older readouts). */
+  source?: { kind: "xlsx"; sheet: string } | { kind: "text" };
+  /** Decimal mark of text cells ("," for semicolon-separated files with decimal commas). */
+  decimalMark?: "." | ",";
   pixelSizeUm: number | null;
   pixelSizeSource: string | null;
   table: SpacingTableReadout;

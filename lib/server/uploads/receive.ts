@@ -7,6 +7,7 @@ import { readFile } from "node:fs/promises";
 import sharp from "sharp";
 import { readPixelSize, sniffFileKind, type FileKind } from "@/lib/imaging";
 import { MAX_READOUT_PIXELS } from "@/lib/readout";
+import { isZip } from "@/lib/spacing";
 import { pixelSizeSchema } from "@/lib/contracts/study";
 import { authorize, type LabContext } from "../access";
 import { AppError } from "../errors";
@@ -24,6 +25,7 @@ export const CONTENT_TYPES: Record<FileKind, string> = {
   tiff: "image/tiff",
   csv: "text/csv",
   tsv: "text/tab-separated-values",
+  xlsx: "application/vnd.openxmlformats-officedocument.spreadsheetml.sheet",
 };
 
 const isImage = (kind: FileKind) => kind === "png" || kind === "jpeg" || kind === "tiff";
@@ -75,7 +77,8 @@ export async function receiveUpload(ctx: LabContext, specimenId: string, request
 }
 
 async function storeParsed(ctx: LabContext, specimenId: string, parsed: ParsedUpload): Promise<ReceivedUpload> {
-  const kind = sniffFileKind(parsed.head);
+  // A workbook's parts may lie beyond the first kilobytes: a ZIP is judged by its central directory.
+  const kind = sniffFileKind(isZip(parsed.head) ? await readFile(parsed.file.path) : parsed.head);
   if (!kind) {
     throw new AppError(
       "bad_input",

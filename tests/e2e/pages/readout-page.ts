@@ -17,6 +17,8 @@ export class ReadoutPage extends LabPage {
   readonly settings: Locator;
   readonly siblings: Locator;
   readonly rerunForm: Locator;
+  readonly error: Locator;
+  readonly tableColumns: Locator;
 
   constructor(page: Page, labId: string) {
     super(page, labId);
@@ -28,6 +30,14 @@ export class ReadoutPage extends LabPage {
     this.settings = page.getByTestId("readout-settings");
     this.siblings = page.getByTestId("sibling-readouts").locator("li");
     this.rerunForm = page.getByTestId("rerun-form");
+    this.error = page.getByTestId("readout-error");
+    this.tableColumns = page.getByTestId("table-columns");
+  }
+
+  /** Fills the column fields of a table re-run (header names or letters) without submitting. */
+  async chooseColumns(columns: Partial<Record<"x" | "y" | "position" | "spacing", string>>) {
+    for (const [role, name] of Object.entries(columns))
+      await this.rerunForm.getByTestId(`rerun-column-${role}`).fill(name);
   }
 
   /** Fills a rectangle ROI (pixels of the original) without submitting, so the caller can look at it. */

@@ -59,7 +59,12 @@ export function RerunForm({ labId, readout }: { labId: string; readout: ReadoutD
     position: tab?.columns?.position ?? used?.position ?? "",
     spacing: tab?.columns?.spacing ?? used?.spacing ?? "",
   });
-  const [unit, setUnit] = useState<string>(tab?.unit ?? used?.unit ?? "um");
+  // "" = the unit the header states (µm when it states none)
+  const [unit, setUnit] = useState<string>(tab?.unit ?? "");
+  const [sheet, setSheet] = useState<string>(
+    tab?.sheet ??
+      (readout.result?.type === "table" && readout.result.source?.kind === "xlsx" ? readout.result.source.sheet : ""),
+  );
   const [pixelSize, setPixelSize] = useState("");
   const image = readout.result?.type === "image" ? readout.result.image : null;
   const channels = image?.channels ?? 3;
@@ -81,7 +86,8 @@ export function RerunForm({ labId, readout }: { labId: string; readout: ReadoutD
         }
       : {
           columns: Object.fromEntries(Object.entries(cols).filter(([, v]) => v.trim() !== "")),
-          unit,
+          ...(unit !== "" ? { unit } : {}),
+          ...(sheet.trim() !== "" ? { sheet: sheet.trim() } : {}),
           ...(px !== undefined ? { pixelSizeUm: px } : {}),
         };
     try {
@@ -187,7 +193,7 @@ export function RerunForm({ labId, readout }: { labId: string; readout: ReadoutD
                   value={cols[k]}
                   onChange={(e) => setCols({ ...cols, [k]: e.target.value })}
                   data-testid={`rerun-column-${k}`}
-                  placeholder="header name"
+                  placeholder="header or letter (A, B…)"
                 />
               </label>
             ))}
@@ -197,12 +203,23 @@ export function RerunForm({ labId, readout }: { labId: string; readout: ReadoutD
               onChange={setUnit}
               testId="rerun-unit"
               options={[
+                ["", "as the header says (else µm)"],
                 ["um", "µm"],
                 ["nm", "nm"],
                 ["mm", "mm"],
                 ["px", "px (needs a pixel size)"],
               ]}
             />
+            <label className="flex flex-col gap-1 text-sm">
+              <span className="font-medium">Sheet (XLSX workbooks)</span>
+              <input
+                className={`${selectClass} w-36`}
+                value={sheet}
+                onChange={(e) => setSheet(e.target.value)}
+                data-testid="rerun-sheet"
+                placeholder="the first sheet"
+              />
+            </label>
           </div>
         )}
         <div className="flex flex-wrap items-end gap-4">

@@ -43,15 +43,28 @@ function SummaryTable({ title, s, testId }: { title: string; s: Summary; testId:
 export function TableResult({ result }: { result: TableReadoutResult }) {
   const t = result.table;
   const m = result.mapping;
-  const cols = (["x", "y", "position", "spacing"] as const)
-    .filter((k) => m[k])
-    .map((k) => `${k} = “${m[k]}”`)
-    .join(", ");
+  // Readouts made before the columns were named with their letters carry only the header names.
+  const cols =
+    result.columnsTaken ??
+    (["x", "y", "position", "spacing"] as const)
+      .filter((k) => m[k])
+      .map((k) => `${k} = “${m[k]}”`)
+      .join(", ");
+  const source = result.source;
   return (
     <Panel title="Numbers">
-      <p className="mb-3 text-sm">
-        Read as {KIND_WORDS[t.kind]}: <span className="num">{cols}</span>, unit {UNIT_WORDS[m.unit]}
-        {m.guessed ? " (guessed from the header names — re-run with a mapping if wrong)" : ""}. Values below in µm.
+      <p className="mb-3 text-sm" data-testid="table-columns">
+        Read as {KIND_WORDS[t.kind]}
+        {source?.kind === "xlsx" && (
+          <>
+            {" "}
+            from the sheet <span className="num">“{source.sheet}”</span>
+          </>
+        )}
+        . Columns {m.guessed ? "taken from the header" : "chosen"}: <span className="num">{cols}</span>; unit{" "}
+        {UNIT_WORDS[m.unit]}
+        {result.decimalMark === "," ? "; numbers written with decimal commas" : ""}
+        {m.guessed ? " (if a column is wrong, choose the columns below and read again)" : ""}. Values below in µm.
         {result.pixelSizeUm !== null && (
           <>
             {" "}

@@ -14,6 +14,11 @@ import type { UploadDto } from "@/lib/server/uploads/uploads";
 import { SpecimenForm } from "../../studies/[studyId]/study-view";
 import { ReadoutsPanel } from "./readouts-panel";
 
+const TABLE_KINDS: Record<string, string> = {
+  "text/csv": "csv",
+  "application/vnd.openxmlformats-officedocument.spreadsheetml.sheet": "xlsx",
+};
+
 export function SpecimenView({
   labId,
   specimen,
@@ -72,7 +77,7 @@ export function SpecimenView({
         <Badge tone={row.original.kind === "image" ? "moss" : "plain"}>
           {row.original.kind === "image"
             ? `image · ${row.original.contentType.split("/")[1]}`
-            : `table · ${row.original.contentType === "text/csv" ? "csv" : "tsv"}`}
+            : `table · ${TABLE_KINDS[row.original.contentType] ?? "tsv"}`}
         </Badge>
       ),
     },
@@ -238,7 +243,7 @@ function UploadForm({
             type="file"
             name="file"
             data-testid="upload-file"
-            accept=".png,.jpg,.jpeg,.tif,.tiff,.csv,.tsv,.txt"
+            accept=".png,.jpg,.jpeg,.tif,.tiff,.csv,.tsv,.txt,.xlsx"
             className="block text-sm"
           />
           <span className="block text-xs text-ink-soft">
