@@ -74,7 +74,13 @@ export async function receiveUpload(ctx: LabContext, specimenId: string, request
   }
 }
 
-async function storeParsed(ctx: LabContext, specimenId: string, parsed: ParsedUpload): Promise<ReceivedUpload> {
+/** Stores a parsed upload (`extra`: what a batch adds to the upload row). */
+export async function storeParsed(
+  ctx: LabContext,
+  specimenId: string,
+  parsed: ParsedUpload,
+  extra: { batchId?: string } = {},
+): Promise<ReceivedUpload> {
   const kind = sniffFileKind(parsed.head);
   if (!kind) {
     throw new AppError(
@@ -111,6 +117,7 @@ async function storeParsed(ctx: LabContext, specimenId: string, parsed: ParsedUp
     contentType: CONTENT_TYPES[kind],
     pixelSizeUm,
     pixelSizeSource,
+    ...extra,
   };
   // Every upload gets its readout with default settings, as a background job, written in the same
   // transaction that makes the upload visible. Settings that cannot start one keep the upload.
