@@ -15,15 +15,19 @@ import { formatDate } from "@/lib/client/format";
 import { specimenCreateSchema, studyCreateSchema, type SpecimenInput, type StudyInput } from "@/lib/contracts/study";
 import type { SpecimenDto } from "@/lib/server/studies/specimens";
 import type { StudyDto } from "@/lib/server/studies/studies";
+import { BatchUploadPanel } from "../../batches/batch-upload-panel";
 
 export function StudyView({
   labId,
   study,
   canAddSpecimen,
+  batchMaxUploadBytes,
 }: {
   labId: string;
   study: StudyDto;
   canAddSpecimen: boolean;
+  /** Given when the viewer may upload: the batch upload panel is shown with this per-file limit. */
+  batchMaxUploadBytes?: number;
 }) {
   const router = useRouter();
   const [refresh, setRefresh] = useState(0);
@@ -106,6 +110,14 @@ export function StudyView({
             setRefresh((r) => r + 1);
           }}
           onCancel={() => setAdding(false)}
+        />
+      )}
+      {canAddSpecimen && batchMaxUploadBytes !== undefined && (
+        <BatchUploadPanel
+          labId={labId}
+          target={{ kind: "study", studyId: study.id }}
+          maxUploadBytes={batchMaxUploadBytes}
+          onStored={() => setRefresh((r) => r + 1)}
         />
       )}
       <DataTable<SpecimenDto>
