@@ -200,7 +200,7 @@ export function BatchUploadPanel({
           </label>
           <div className="w-48">
             <TextField
-              label="Pixel size (µm/px)"
+              label="Batch pixel size (µm/px)"
               name="batchPixelSizeUm"
               inputMode="decimal"
               placeholder="from each file if present"
@@ -250,7 +250,7 @@ export function BatchUploadPanel({
             )}
             <div className="w-56">
               <TextField
-                label="Condition"
+                label="Batch condition"
                 name="batchCondition"
                 placeholder="e.g. control"
                 value={condition}
@@ -258,7 +258,12 @@ export function BatchUploadPanel({
               />
             </div>
             <div className="w-40">
-              <TextField label="Stage" name="batchStage" value={stage} onChange={(e) => setStage(e.target.value)} />
+              <TextField
+                label="Batch stage"
+                name="batchStage"
+                value={stage}
+                onChange={(e) => setStage(e.target.value)}
+              />
             </div>
           </div>
         )}
