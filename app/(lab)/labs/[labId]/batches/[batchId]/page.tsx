@@ -33,8 +33,8 @@ export default async function BatchPage({ params }: { params: Promise<{ labId: s
     <>
       <PageHeader
         crumbs={
-          <Link href={`/labs/${labId}/studies`} className="hover:underline">
-            Studies
+          <Link href={`/labs/${labId}/batches`} className="hover:underline">
+            Batches
           </Link>
         }
         title={summary.name}
