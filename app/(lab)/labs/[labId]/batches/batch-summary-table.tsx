@@ -60,7 +60,8 @@ export function BatchSummaryTable({ labId, rows }: { labId: string; rows: BatchT
           <tr>
             <th className="py-1.5 pr-3">File</th>
             <th className="py-1.5 pr-3">Specimen</th>
-            <th className="py-1.5 pr-3">λ ± u</th>
+            {/* normal-case: an upper-case λ would read as Λ */}
+            <th className="py-1.5 pr-3 normal-case">λ ± u (µm)</th>
             <th className="py-1.5 pr-3">Symmetry</th>
             <th className="py-1.5 pr-3">Significance</th>
             <th className="py-1.5 pr-3">Status</th>
@@ -81,13 +82,13 @@ export function BatchSummaryTable({ labId, rows }: { labId: string; rows: BatchT
                   <span className="text-ink-soft">—</span>
                 )}
               </td>
-              <td className="num py-1.5 pr-3" data-testid="batch-row-wavelength">
+              <td className="num whitespace-nowrap py-1.5 pr-3" data-testid="batch-row-wavelength">
                 {r.readoutId && r.wavelengthUm !== null ? (
                   <Link
                     className="font-semibold text-moss hover:underline"
                     href={`/labs/${labId}/readouts/${r.readoutId}`}
                   >
-                    {plusMinus(r.wavelengthUm, r.uncertaintyUm, "µm")}
+                    {plusMinus(r.wavelengthUm, r.uncertaintyUm, "").trim()}
                   </Link>
                 ) : (
                   "—"
