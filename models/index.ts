@@ -7,6 +7,7 @@ import type { Sequelize } from "sequelize";
 import { initAccountEvent } from "./account-event";
 import { initApiToken } from "./api-token";
 import { initAuditEvent } from "./audit-event";
+import { initBatch, initBatchRejection } from "./batch";
 import { initAuthRecords } from "./auth-records";
 import { initComment } from "./comment";
 import { initFit } from "./fit";
@@ -49,6 +50,8 @@ export function createModels(sequelize: Sequelize) {
     SignupRequest: initSignupRequest(sequelize),
     AccountEvent: initAccountEvent(sequelize),
     Worker: initWorker(sequelize),
+    Batch: initBatch(sequelize),
+    BatchRejection: initBatchRejection(sequelize),
   };
   const {
     User,

@@ -26,6 +26,8 @@ export class Upload extends Model<InferAttributes<Upload>, InferCreationAttribut
   declare pixelSizeUm: number | null;
   /** Where the pixel size came from: `uploader` (typed in) or the file's metadata (`tiff-resolution`, `ome-xml`, `png-phys`, `jfif-density`). */
   declare pixelSizeSource: string | null;
+  /** The batch it was uploaded with, if any. */
+  declare batchId: CreationOptional<string | null>;
   declare createdBy: string | null;
   declare createdAt: CreationOptional<Date>;
 }
@@ -46,6 +48,7 @@ export function initUpload(sequelize: Sequelize) {
       state: { type: DataTypes.STRING(10), allowNull: false, defaultValue: "stored" },
       pixelSizeUm: { type: DataTypes.FLOAT },
       pixelSizeSource: { type: DataTypes.STRING(20) },
+      batchId: { type: DataTypes.UUID },
       createdBy: { type: DataTypes.UUID },
       createdAt: DataTypes.DATE,
     },

@@ -6,8 +6,11 @@ export interface CliCommand {
   summary: string;
   /** Full `--help` text: every option, its unit and default. */
   help: string;
-  /** `args` are the words after the command name, without `--json`. */
-  run(args: string[], ctx: { json: boolean }): Promise<{ json: unknown; text?: string }>;
+  /**
+   * `args` are the words after the command name, without `--json`. `exitCode`: the output is
+   * printed and the process still ends non-zero (a folder read in which some files failed).
+   */
+  run(args: string[], ctx: { json: boolean }): Promise<{ json: unknown; text?: string; exitCode?: number }>;
 }
 
 /** An error the user caused (bad option, unreadable file): printed without a stack trace. */

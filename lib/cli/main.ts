@@ -61,7 +61,7 @@ async function main(argv: string[]) {
     );
     if (json) process.stdout.write(JSON.stringify(result.json) + "\n");
     else process.stdout.write((result.text ?? JSON.stringify(result.json, null, 2)).trimEnd() + "\n");
-    return 0;
+    return result.exitCode ?? 0;
   } catch (thrown) {
     // A core error a command did not catch still gets its code and exit code, never "failed".
     const err = toCliError(thrown);

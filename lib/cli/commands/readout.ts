@@ -5,12 +5,20 @@ import { toCliError } from "../core-errors";
 import { decodeImage, sniffFileKind } from "../../imaging";
 import { readWavelength } from "../../readout";
 import { readSpacingFromGrid, readTableGrid, type TableUnit } from "../../spacing";
+import { isFolder, readFolder, SOME_FILES_FAILED_EXIT } from "../readout-folder";
 
 const help = `readout FILE [options] [--json]
+readout FOLDER [options] [--csv OUT.csv] [--json]
 
 Reads the dominant wavelength of an image (PNG, JPEG, TIFF; 8/16-bit) or summarises a spacing table
 (CSV/TSV, also ";"-separated with decimal commas, or an XLSX workbook). The file type is judged from
 its content.
+
+A FOLDER reads every file in it (not its subfolders; hidden files skipped) with the same options,
+one CSV row per file: file, wavelength_um, uncertainty_um, symmetry, significance, status (read,
+no significant period, failed), message. The CSV goes to OUT.csv with --csv, else to the output.
+A file that fails gets its row with the reason; the others go on, and the exit code is
+${SOME_FILES_FAILED_EXIT} when any file failed.
 
 Image options:
   --pixel-size UM      pixel size in µm/px (default: from the file's metadata; required if absent)
@@ -41,9 +49,11 @@ const command: CliCommand = {
   name: "readout",
   summary: "Dominant wavelength of an image, or spacing statistics of a table",
   help,
-  async run(args) {
+  async run(args, ctx) {
     const { options, positional } = parseOptions(args, ["invert"]);
-    if (positional.length !== 1) throw new CliError("Give exactly one FILE.");
+    if (positional.length !== 1) throw new CliError("Give exactly one FILE or FOLDER.");
+    if (isFolder(positional[0]))
+      return readFolder(positional[0], args, str(options.csv, "csv"), (a) => command.run(a, ctx));
     let bytes: Buffer;
     try {
       bytes = readFileSync(positional[0]);

@@ -223,6 +223,9 @@ export async function toReadoutDto(row: Row): Promise<ReadoutDto> {
   return (await toDtos([row]))[0];
 }
 
+/** Many rows at once (a batch's summary): one query per related table, not per row. */
+export const toReadoutDtos = (rows: Row[]): Promise<ReadoutDto[]> => toDtos(rows);
+
 /** A stored derived product of a finished readout. */
 export async function openDerived(ctx: LabContext, readoutId: string, product: string) {
   if (!Object.hasOwn(DERIVED_PRODUCTS, product)) throw notFound("derived product");

@@ -76,7 +76,13 @@ export async function receiveUpload(ctx: LabContext, specimenId: string, request
   }
 }
 
-async function storeParsed(ctx: LabContext, specimenId: string, parsed: ParsedUpload): Promise<ReceivedUpload> {
+/** Stores a parsed upload (`extra`: what a batch adds to the upload row). */
+export async function storeParsed(
+  ctx: LabContext,
+  specimenId: string,
+  parsed: ParsedUpload,
+  extra: { batchId?: string } = {},
+): Promise<ReceivedUpload> {
   // A workbook's parts may lie beyond the first kilobytes: a ZIP is judged by its central directory.
   const kind = sniffFileKind(isZip(parsed.head) ? await readFile(parsed.file.path) : parsed.head);
   if (!kind) {
@@ -114,6 +120,7 @@ async function storeParsed(ctx: LabContext, specimenId: string, parsed: ParsedUp
     contentType: CONTENT_TYPES[kind],
     pixelSizeUm,
     pixelSizeSource,
+    ...extra,
   };
   // Every upload gets its readout with default settings, as a background job, written in the same
   // transaction that makes the upload visible. Settings that cannot start one keep the upload.

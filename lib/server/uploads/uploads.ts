@@ -100,6 +100,8 @@ export interface IncomingFile {
   contentType: string;
   pixelSizeUm: number | null;
   pixelSizeSource: string | null;
+  /** The batch this file came with (lib/server/batches), if any. */
+  batchId?: string | null;
 }
 
 /** Removes what an unfinished upload left: its object, then its row (kept while the object may remain). */
@@ -150,6 +152,7 @@ export async function storeUpload<T = void>(
     state: "receiving",
     pixelSizeUm: file.pixelSizeUm,
     pixelSizeSource: file.pixelSizeSource,
+    batchId: file.batchId ?? null,
     createdBy: ctx.actor.userId,
   });
   try {

@@ -12,6 +12,7 @@ import { formatBytes, formatDateTime } from "@/lib/client/format";
 import type { SpecimenDto } from "@/lib/server/studies/specimens";
 import type { UploadDto } from "@/lib/server/uploads/uploads";
 import { SpecimenForm } from "../../studies/[studyId]/study-view";
+import { BatchUploadPanel } from "../../batches/batch-upload-panel";
 import { ReadoutsPanel } from "./readouts-panel";
 
 const TABLE_KINDS: Record<string, string> = {
@@ -168,6 +169,14 @@ export function SpecimenView({
           specimenId={specimen.id}
           maxUploadBytes={maxUploadBytes}
           onDone={() => setRefresh((r) => r + 1)}
+        />
+      )}
+      {canUpload && (
+        <BatchUploadPanel
+          labId={labId}
+          target={{ kind: "specimen", specimenId: specimen.id }}
+          maxUploadBytes={maxUploadBytes}
+          onStored={() => setRefresh((r) => r + 1)}
         />
       )}
       <Panel title="Files">

@@ -3,6 +3,7 @@ import { PageHeader } from "@/components/ui/panel";
 import { can } from "@/lib/access/permissions";
 import { getStudy } from "@/lib/server/studies/studies";
 import { orNotFound, pageLab } from "@/lib/server/web/page-access";
+import { services } from "@/lib/server/services";
 import { ConditionComparison } from "./condition-comparison";
 import { StudyView } from "./study-view";
 
@@ -23,7 +24,12 @@ export default async function StudyPage({ params }: { params: Promise<{ labId: s
         title={study.name}
         subtitle={`${study.tissue} · ${study.organism}${study.createdByEmail ? ` · created by ${study.createdByEmail}` : ""}`}
       />
-      <StudyView labId={labId} study={study} canAddSpecimen={can(ctx.role, "specimen.create")} />
+      <StudyView
+        labId={labId}
+        study={study}
+        canAddSpecimen={can(ctx.role, "specimen.create")}
+        batchMaxUploadBytes={can(ctx.role, "upload.create") ? services().config.maxUploadBytes : undefined}
+      />
       <div className="mt-5">
         <ConditionComparison labId={labId} studyId={study.id} />
       </div>

@@ -16,15 +16,19 @@ import { specimenCreateSchema, studyCreateSchema, type SpecimenInput, type Study
 import type { SpecimenDto } from "@/lib/server/studies/specimens";
 import type { StudyDto } from "@/lib/server/studies/studies";
 import { CONDITIONS_LIST_ID, StudyConditions } from "./study-conditions";
+import { BatchUploadPanel } from "../../batches/batch-upload-panel";
 
 export function StudyView({
   labId,
   study,
   canAddSpecimen,
+  batchMaxUploadBytes,
 }: {
   labId: string;
   study: StudyDto;
   canAddSpecimen: boolean;
+  /** Given when the viewer may upload: the batch upload panel is shown with this per-file limit. */
+  batchMaxUploadBytes?: number;
 }) {
   const router = useRouter();
   const [refresh, setRefresh] = useState(0);
@@ -116,6 +120,14 @@ export function StudyView({
         refreshKey={refresh}
         onRenamed={() => setRefresh((r) => r + 1)}
       />
+      {canAddSpecimen && batchMaxUploadBytes !== undefined && (
+        <BatchUploadPanel
+          labId={labId}
+          target={{ kind: "study", studyId: study.id }}
+          maxUploadBytes={batchMaxUploadBytes}
+          onStored={() => setRefresh((r) => r + 1)}
+        />
+      )}
       <DataTable<SpecimenDto>
         url={`/api/v1/labs/${labId}/studies/${study.id}/specimens`}
         columns={columns}

@@ -1,0 +1,5 @@
+import { PageSkeleton } from "@/components/ui/skeleton";
+
+export default function BatchLoading() {
+  return <PageSkeleton label="Loading the batch…" layout="panels" />;
+}

@@ -1,0 +1,68 @@
+"use client";
+/** The lab's batches: name, where the files went, how many, who, when. */
+import type { ColumnDef } from "@tanstack/react-table";
+import Link from "next/link";
+import { DataTable } from "@/components/ui/data-table";
+import { EmptyState, Panel } from "@/components/ui/panel";
+import { formatDateTime } from "@/lib/client/format";
+import type { BatchDto } from "@/lib/server/batches/batches";
+
+export function BatchesList({ labId }: { labId: string }) {
+  const columns: ColumnDef<BatchDto, unknown>[] = [
+    {
+      id: "name",
+      header: "Batch",
+      cell: ({ row }) => (
+        <Link className="font-medium text-moss hover:underline" href={`/labs/${labId}/batches/${row.original.id}`}>
+          {row.original.name}
+        </Link>
+      ),
+    },
+    {
+      id: "into",
+      header: "Into",
+      enableSorting: false,
+      cell: ({ row }) =>
+        row.original.target === "specimen-per-file"
+          ? `study ${row.original.studyName ?? "(deleted)"}, a specimen per file`
+          : `specimen ${row.original.specimenLabel ?? "(deleted)"}`,
+    },
+    {
+      id: "files",
+      header: "Files",
+      enableSorting: false,
+      cell: ({ row }) => (
+        <span className="num">
+          {row.original.fileCount}
+          {row.original.rejectedCount ? ` (+${row.original.rejectedCount} refused)` : ""}
+        </span>
+      ),
+    },
+    {
+      id: "createdAt",
+      header: "Started",
+      cell: ({ row }) => (
+        <span className="text-ink-soft">
+          <span className="num">{formatDateTime(row.original.createdAt)}</span>
+          {row.original.createdByEmail ? ` · ${row.original.createdByEmail}` : ""}
+        </span>
+      ),
+    },
+  ];
+  return (
+    <Panel>
+      <DataTable<BatchDto>
+        url={`/api/v1/labs/${labId}/batches`}
+        columns={columns}
+        defaultSort={{ id: "createdAt", desc: true }}
+        filterPlaceholder="Filter by batch name…"
+        testId="batches-table"
+        empty={
+          <EmptyState title="No batches yet.">
+            Upload many files at once from a study or a specimen page; each upload becomes a batch here.
+          </EmptyState>
+        }
+      />
+    </Panel>
+  );
+}
