@@ -128,7 +128,7 @@ describe("uploads", () => {
     const res = await upload(multipart({ name: "looks-like.png", bytes: junk }, { pixelSizeUm: "1" }));
     expect(res.status).toBe(400);
     expect((await errorOf(res)).message).toBe(
-      "“looks-like.png” is not a PNG, JPEG or TIFF image nor a CSV/TSV table (judged by its content, not its name)",
+      "“looks-like.png” is not a PNG, JPEG or TIFF image nor a CSV/TSV or XLSX table (judged by its content, not its name)",
     );
   });
 

@@ -78,7 +78,7 @@ const command: CliCommand = {
         return { json: { file: positional[0], fileKind: kind, ...table }, text: JSON.stringify(table, null, 2) };
       }
       if (!kind)
-        throw new CliError("The file is neither a PNG, JPEG or TIFF image nor a CSV/TSV table.", "unsupported");
+        throw new CliError("The file is neither a PNG, JPEG or TIFF image nor a CSV/TSV or XLSX table.", "unsupported");
       const ch = str(options.channel, "channel");
       const channel = ch === undefined || ch === "luminance" ? "luminance" : num(ch, "channel")!;
       const { image, info } = await decodeImage(bytes, { channel });

@@ -88,7 +88,7 @@ export async function storeParsed(
   if (!kind) {
     throw new AppError(
       "bad_input",
-      `“${parsed.file.originalName}” is not a PNG, JPEG or TIFF image nor a CSV/TSV table (judged by its content, not its name)`,
+      `“${parsed.file.originalName}” is not a PNG, JPEG or TIFF image nor a CSV/TSV or XLSX table (judged by its content, not its name)`,
     );
   }
   if (isImage(kind)) await checkPixelLimit(parsed.file.path, parsed.file.originalName);
