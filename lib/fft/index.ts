@@ -3,3 +3,11 @@ export { realFft2d, inverseRealFft2d, halfPowerSpectrum, type HalfSpectrum } fro
 export { isPowerOfTwo, nextPowerOfTwo } from "./plans";
 export { DctPlan } from "./dct-plan";
 export { RealFftPlan, halfComplexFrequency } from "./real-fft-plan";
+export {
+  realPowerSpectrum2d,
+  transformRows,
+  transformColumnsToPower,
+  type HalfPower,
+  type RealPowerSpectrumOptions,
+  type SpectrumPrecision,
+} from "./real-power-spectrum2d";

@@ -7,7 +7,6 @@ import { computePowerSpectrum } from "./power-spectrum";
 import { prepareRegion } from "./prepare-region";
 import type { WavelengthReadout } from "./result";
 import { measureSubregionSpread } from "./subregion-uncertainty";
-import { applyWindow } from "./window";
 
 /**
  * Reads the dominant wavelength of a grey image (SCIENCE.md §5): ROI → flatten → mean → window →
@@ -18,9 +17,8 @@ import { applyWindow } from "./window";
 export function readWavelength(image: GreyImage, options: ReadoutOptions): WavelengthReadout {
   const settings = resolveReadoutOptions(options, image.width, image.height);
   const region = prepareRegion(image, settings);
-  const flattened = region.data.slice();
-  applyWindow(region.data, region.width, region.height, settings.window, settings.tukeyAlpha);
-  const spec = computePowerSpectrum(region.data, region.width, region.height);
+  const flattened = region.data; // windowed on the fly by the FFT, so no copy is needed for the sub-regions
+  const spec = computePowerSpectrum(region.data, region.width, region.height, settings);
   const a = analyseSpectrum(spec, settings.lowCutCycles);
   const px = region.pixelSizeUm; // µm per analysed pixel
   const periodFound = a.significance >= settings.significanceThreshold;
