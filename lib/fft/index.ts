@@ -11,3 +11,10 @@ export {
   type RealPowerSpectrumOptions,
   type SpectrumPrecision,
 } from "./real-power-spectrum2d";
+export {
+  setSpectrumExecutor,
+  currentSpectrumExecutor,
+  MIN_PARALLEL_BINS,
+  type SpectrumExecutor,
+  type HalfPowerJob,
+} from "./spectrum-executor";

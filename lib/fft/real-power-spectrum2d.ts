@@ -1,7 +1,7 @@
 import { getPlan } from "./plans";
+import { currentSpectrumExecutor, MIN_PARALLEL_BINS, type SpectrumPrecision } from "./spectrum-executor";
 
-/** Precision of the half spectrum kept between the row and the column transforms. */
-export type SpectrumPrecision = "float32" | "float64";
+export type { SpectrumPrecision };
 
 export interface RealPowerSpectrumOptions {
   /** Separable window, multiplied in while the rows are read (lengths srcWidth and srcHeight). */
@@ -42,6 +42,13 @@ export function realPowerSpectrum2d(
   if (srcWidth > width || srcHeight > height)
     throw new RangeError(`the image (${srcWidth}×${srcHeight}) must fit in the transform (${width}×${height}).`);
   const halfWidth = width / 2 + 1;
+  const executor = currentSpectrumExecutor();
+  if (executor && width * height >= MIN_PARALLEL_BINS) {
+    const { windowX, windowY } = options;
+    const precision = options.precision ?? "float32";
+    const power = executor.halfPower({ src, srcWidth, srcHeight, width, height, windowX, windowY, precision });
+    if (power) return { halfWidth, power };
+  }
   const n = 2 * halfWidth * height;
   const half = options.precision === "float64" ? new Float64Array(n) : new Float32Array(n);
   transformRows(src, srcWidth, srcHeight, width, half, options.windowX, options.windowY, 0, srcHeight);
@@ -52,7 +59,8 @@ export function realPowerSpectrum2d(
 
 /**
  * Forward real transforms of source rows [rowFrom, rowTo) (rowFrom even) into the interleaved
- * half spectrum `half` (rows of halfWidth complex values). The windowed value is rounded to
+ * half spectrum `half` (rows of halfWidth complex values); `src` starts at row `srcFirstRow`
+ * (a thread given only its rows). The windowed value is rounded to
  * float32 as the old in-place window did, so the float64 path gives the same bits.
  */
 export function transformRows(
@@ -65,6 +73,7 @@ export function transformRows(
   wy: Float64Array | undefined,
   rowFrom: number,
   rowTo: number,
+  srcFirstRow = 0,
 ): void {
   const halfWidth = width / 2 + 1;
   const plan = getPlan(width);
@@ -72,7 +81,7 @@ export function transformRows(
   const fround = Math.fround;
   for (let y = rowFrom; y < rowTo; y += 2) {
     const second = y + 1 < srcHeight;
-    const p = y * srcWidth,
+    const p = (y - srcFirstRow) * srcWidth,
       q = p + srcWidth;
     if (wx && wy) {
       const f1 = wy[y],
