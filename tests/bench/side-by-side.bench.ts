@@ -9,9 +9,11 @@ import { spawnSync } from "node:child_process";
 import { existsSync, mkdirSync, readFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
+import { setSpectrumExecutor } from "@/lib/fft";
 import { decodeImage } from "@/lib/imaging";
 import { getCatalogueKinetics } from "@/lib/kinetics";
 import { computeTuringMapParallel, createMapWorkerPool } from "@/lib/parallel";
+import { createSpectrumThreads } from "@/lib/parallel/spectrum-threads";
 import { readWavelength, type WavelengthReadout } from "@/lib/readout";
 import { computeTuringMap, type TuringMapOptions } from "@/lib/stability";
 import { CORE_READOUT } from "./core-readout";
@@ -119,6 +121,11 @@ async function readoutRows(np: NumpyFigure | null): Promise<BenchRow[]> {
   const bytes = readFileSync(file);
   // The same work as numpy_reference.py's readout (core-readout.ts), then the full default readout.
   const core = await medianMs(async () => readWavelength((await decodeImage(bytes, {})).image, CORE_READOUT));
+  const threads = createSpectrumThreads();
+  setSpectrumExecutor(threads);
+  const core2 = await medianMs(async () => readWavelength((await decodeImage(bytes, {})).image, CORE_READOUT));
+  setSpectrumExecutor(null);
+  threads.dispose();
   const full = await medianMs(async () => readWavelength((await decodeImage(bytes, {})).image, { pixelSizeUm: 1 }));
   const said = (r: WavelengthReadout) =>
     r.periodFound ? `λ = ${r.wavelengthPx!.toFixed(3)} px, ${r.symmetry}` : "no significant period";
@@ -130,6 +137,13 @@ async function readoutRows(np: NumpyFigure | null): Promise<BenchRow[]> {
       np,
       "≤ 0.75, 32 px ± 2 %",
       `Morphokin ${core.ms.toFixed(0)} ms (${core.min.toFixed(0)}–${core.max.toFixed(0)}), ${said(core.value)}; ${npNote}`,
+    ),
+    ratioRow(
+      "side by side: decode + core readout 4096², FFT on 2 threads",
+      core2.ms,
+      np,
+      "≤ 0.75, 32 px ± 2 %",
+      `Morphokin ${core2.ms.toFixed(0)} ms (${core2.min.toFixed(0)}–${core2.max.toFixed(0)}), ${said(core2.value)}`,
     ),
     {
       name: "decode + full readout 4096² (+ sub-regions, autocorrelation)",
