@@ -49,12 +49,29 @@ export function realPowerSpectrum2d(
     const power = executor.halfPower({ src, srcWidth, srcHeight, width, height, windowX, windowY, precision });
     if (power) return { halfWidth, power };
   }
-  const n = 2 * halfWidth * height;
-  const half = options.precision === "float64" ? new Float64Array(n) : new Float32Array(n);
+  const half = halfScratch(2 * halfWidth * height, options.precision ?? "float32");
+  half.fill(0, 2 * halfWidth * srcHeight); // the zero padding's rows: a reused array may hold an older transform
   transformRows(src, srcWidth, srcHeight, width, half, options.windowX, options.windowY, 0, srcHeight);
   const power = new Float32Array(halfWidth * height);
   transformColumnsToPower(half, halfWidth, height, power, 0, halfWidth);
   return { halfWidth, power };
+}
+
+/**
+ * The half spectrum between the two stages, reused by the next transform of the same size: a
+ * fresh 64 MiB array for a 4096² frame costs its page faults every readout. Held through a
+ * WeakRef, so it never keeps memory alive that the collector wants back. The rows of the image
+ * are overwritten by each transform and those of the zero padding cleared.
+ */
+let scratch: WeakRef<Float32Array | Float64Array> | null = null;
+
+function halfScratch(n: number, precision: SpectrumPrecision): Float32Array | Float64Array {
+  const kept = scratch?.deref();
+  const wanted = precision === "float64" ? Float64Array : Float32Array;
+  if (kept && kept.length === n && kept instanceof wanted) return kept;
+  const half = new wanted(n);
+  scratch = new WeakRef(half);
+  return half;
 }
 
 /**

@@ -50,3 +50,20 @@ describe("float32 half spectrum between the row and column transforms", () => {
     expect(Math.abs(f32 - f64) / f64).toBeLessThan(1e-6);
   });
 });
+
+describe("realPowerSpectrum2d reusing its working memory", () => {
+  it("gives the same |F|² for a short image after a taller one of the same padded size (zero padding cleared)", () => {
+    const rng = createRng(9);
+    const tall = Float32Array.from({ length: 64 * 60 }, () => rng.normal());
+    const short = Float32Array.from({ length: 64 * 33 }, () => rng.normal());
+    // The reference: the short image padded by hand to its full 64 × 64 transform.
+    const padded = new Float32Array(64 * 64);
+    padded.set(short);
+    const expected = realPowerSpectrum2d(padded, 64, 64, 64, 64).power;
+    realPowerSpectrum2d(tall, 64, 60, 64, 64);
+    const got = realPowerSpectrum2d(short, 64, 33, 64, 64).power;
+    let differing = 0;
+    for (let i = 0; i < expected.length; i++) if (!Object.is(got[i], expected[i])) differing++;
+    expect(differing).toBe(0);
+  });
+});
