@@ -153,25 +153,40 @@ export function transformColumnsToPower(
   const col = getPlan(height);
   const gathered = Array.from({ length: BLOCK }, () => col.fft.createComplexArray() as number[]);
   const out = Array.from({ length: BLOCK }, () => col.fft.createComplexArray() as number[]);
-  for (let x0 = colFrom; x0 < colTo; x0 += BLOCK) {
-    const nb = Math.min(BLOCK, colTo - x0);
-    for (let y = 0; y < height; y++) {
-      const base = 2 * (y * halfWidth + x0);
-      for (let c = 0; c < nb; c++) {
-        const g = gathered[c];
-        g[2 * y] = half[base + 2 * c];
-        g[2 * y + 1] = half[base + 2 * c + 1];
-      }
+  const [g0, g1, g2, g3] = gathered,
+    [o0, o1, o2, o3] = out;
+  let x0 = colFrom;
+  // Four columns at a time with the arrays in locals (measured faster than indexing an array of arrays).
+  for (; x0 + BLOCK <= colTo; x0 += BLOCK) {
+    for (let y = 0, b = 2 * x0; y < height; y++, b += 2 * halfWidth) {
+      const i = 2 * y;
+      g0[i] = half[b];
+      g0[i + 1] = half[b + 1];
+      g1[i] = half[b + 2];
+      g1[i + 1] = half[b + 3];
+      g2[i] = half[b + 4];
+      g2[i + 1] = half[b + 5];
+      g3[i] = half[b + 6];
+      g3[i + 1] = half[b + 7];
     }
-    for (let c = 0; c < nb; c++) col.fft.transform(out[c], gathered[c]);
-    for (let y = 0; y < height; y++) {
-      const base = y * halfWidth + x0;
-      for (let c = 0; c < nb; c++) {
-        const o = out[c];
-        const re = o[2 * y],
-          im = o[2 * y + 1];
-        power[base + c] = re * re + im * im;
-      }
+    col.fft.transform(o0, g0);
+    col.fft.transform(o1, g1);
+    col.fft.transform(o2, g2);
+    col.fft.transform(o3, g3);
+    for (let y = 0, b = x0; y < height; y++, b += halfWidth) {
+      const i = 2 * y;
+      power[b] = o0[i] * o0[i] + o0[i + 1] * o0[i + 1];
+      power[b + 1] = o1[i] * o1[i] + o1[i + 1] * o1[i + 1];
+      power[b + 2] = o2[i] * o2[i] + o2[i + 1] * o2[i + 1];
+      power[b + 3] = o3[i] * o3[i] + o3[i + 1] * o3[i + 1];
     }
+  }
+  for (; x0 < colTo; x0++) {
+    for (let y = 0; y < height; y++) {
+      g0[2 * y] = half[2 * (y * halfWidth + x0)];
+      g0[2 * y + 1] = half[2 * (y * halfWidth + x0) + 1];
+    }
+    col.fft.transform(o0, g0);
+    for (let y = 0; y < height; y++) power[y * halfWidth + x0] = o0[2 * y] * o0[2 * y] + o0[2 * y + 1] * o0[2 * y + 1];
   }
 }
