@@ -30,6 +30,17 @@ export function createSpectrumThreads(): SpectrumThreads {
   worker.unref();
   worker.on("error", (err) => console.error("spectrum worker failed:", err));
   let generation = 0;
+  // The working buffers (half spectrum, the worker's rows) are reused by the next job of the same
+  // size, as in realPowerSpectrum2d: fresh ones cost their page faults every readout. WeakRefs, so
+  // they never keep memory the collector wants back. The power array is the caller's and always new.
+  const kept: Array<WeakRef<SharedArrayBuffer> | null> = [null, null];
+  const reuse = (slot: number, byteLength: number): SharedArrayBuffer => {
+    const old = kept[slot]?.deref();
+    if (old && old.byteLength === byteLength) return old;
+    const fresh = new SharedArrayBuffer(byteLength);
+    kept[slot] = new WeakRef(fresh);
+    return fresh;
+  };
   /** Starts a stage on the worker (it echoes the generation in DONE when finished). */
   const start = () => {
     Atomics.store(ctrl, GEN, ++generation);
@@ -41,13 +52,14 @@ export function createSpectrumThreads(): SpectrumThreads {
       const { src, srcWidth, srcHeight, width, height } = job;
       const halfWidth = width / 2 + 1;
       const bytes = job.precision === "float64" ? 8 : 4;
-      const halfBuffer = new SharedArrayBuffer(bytes * 2 * halfWidth * height);
+      const halfBuffer = reuse(0, bytes * 2 * halfWidth * height);
       const half = bytes === 8 ? new Float64Array(halfBuffer) : new Float32Array(halfBuffer);
+      half.fill(0, 2 * halfWidth * srcHeight); // the zero padding's rows (a reused buffer may hold an older transform)
       const power = new Float32Array(new SharedArrayBuffer(4 * halfWidth * height));
       // Rows are transformed in pairs, so the split falls on an even row; the worker's rows are
       // copied into shared memory (the caller's image is an ordinary array).
       const rowSplit = 2 * Math.ceil(srcHeight / 4);
-      const shared = new Float32Array(new SharedArrayBuffer(4 * (srcHeight - rowSplit) * srcWidth));
+      const shared = new Float32Array(reuse(1, 4 * (srcHeight - rowSplit) * srcWidth));
       shared.set(src.subarray(rowSplit * srcWidth));
       const colSplit = Math.ceil(halfWidth / 2);
       worker.postMessage({ ...job, src: shared, rowOffset: rowSplit, half, power, colSplit });
