@@ -3,3 +3,18 @@ export { realFft2d, inverseRealFft2d, halfPowerSpectrum, type HalfSpectrum } fro
 export { isPowerOfTwo, nextPowerOfTwo } from "./plans";
 export { DctPlan } from "./dct-plan";
 export { RealFftPlan, halfComplexFrequency } from "./real-fft-plan";
+export {
+  realPowerSpectrum2d,
+  transformRows,
+  transformColumnsToPower,
+  type HalfPower,
+  type RealPowerSpectrumOptions,
+  type SpectrumPrecision,
+} from "./real-power-spectrum2d";
+export {
+  setSpectrumExecutor,
+  currentSpectrumExecutor,
+  MIN_PARALLEL_BINS,
+  type SpectrumExecutor,
+  type HalfPowerJob,
+} from "./spectrum-executor";

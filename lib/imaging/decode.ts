@@ -2,6 +2,7 @@ import sharp, { type Metadata, type OutputInfo } from "sharp";
 import type { GreyImage } from "./grey-image";
 import { ImagingError } from "./errors";
 import { readPixelSize, type PixelSizeSource } from "./pixel-size";
+import { readPlainTiff16 } from "./read-plain-tiff16";
 
 /** Largest image decoded (px): 8192 × 8192 = 67 108 864, i.e. 256 MiB as Float32. */
 export const MAX_DECODE_PIXELS = 67_108_864;
@@ -51,6 +52,8 @@ export async function decodeImage(bytes: Uint8Array, options: DecodeOptions = {}
       "channel",
     );
   }
+  const plain = readPlainTiff16(bytes, channel, maxPixels); // fast path: uncompressed grey 16-bit, one page
+  if (plain) return plain;
   const input = Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
   let meta: Metadata;
   try {

@@ -144,6 +144,7 @@ export function subtractBlur(
 
 /** Subtracts the mean of the included pixels, sets excluded pixels to 0; returns the SD (n − 1). */
 export function subtractMean(data: Float32Array, included: Uint8Array | null): number {
+  if (!included) return subtractMeanAll(data);
   let n = 0,
     s = 0;
   for (let i = 0; i < data.length; i++)
@@ -159,6 +160,21 @@ export function subtractMean(data: Float32Array, included: Uint8Array | null): n
       data[i] = v;
       ss += v * v;
     } else data[i] = 0;
+  }
+  return n > 1 ? Math.sqrt(ss / (n - 1)) : 0;
+}
+
+/** subtractMean without a mask: the same sums in the same order, without a test per pixel. */
+function subtractMeanAll(data: Float32Array): number {
+  const n = data.length;
+  let s = 0;
+  for (let i = 0; i < n; i++) s += data[i];
+  const mean = n > 0 ? s / n : 0;
+  let ss = 0;
+  for (let i = 0; i < n; i++) {
+    const v = data[i] - mean;
+    data[i] = v;
+    ss += v * v;
   }
   return n > 1 ? Math.sqrt(ss / (n - 1)) : 0;
 }

@@ -1,4 +1,5 @@
-import { halfPowerSpectrum, nextPowerOfTwo, realFft2d } from "../fft";
+import { nextPowerOfTwo, realPowerSpectrum2d, type SpectrumPrecision } from "../fft";
+import { makeWindow1d, type WindowKind } from "./window";
 
 /** |F|² of a prepared (flattened, windowed) region, zero-padded to powers of two; half plane kx ≥ 0. */
 export interface PowerSpectrum {
@@ -13,17 +14,32 @@ export interface PowerSpectrum {
   ringN: number;
 }
 
-export function computePowerSpectrum(data: Float32Array, width: number, height: number): PowerSpectrum {
+/** The window to multiply in as the FFT reads the rows (`data` itself is left as it is). */
+export interface SpectrumWindow {
+  window: WindowKind;
+  tukeyAlpha?: number;
+  precision?: SpectrumPrecision;
+}
+
+/**
+ * |F|² of `data` (flattened, mean-free), windowed on the fly when `window` is given, so the caller
+ * keeps its unwindowed pixels without a copy (sub-regions read them again).
+ */
+export function computePowerSpectrum(
+  data: Float32Array,
+  width: number,
+  height: number,
+  window?: SpectrumWindow,
+): PowerSpectrum {
   const padWidth = nextPowerOfTwo(width);
   const padHeight = nextPowerOfTwo(height);
-  const half = realFft2d(data, width, height, padWidth, padHeight);
-  return {
-    padWidth,
-    padHeight,
-    halfWidth: half.halfWidth,
-    power: halfPowerSpectrum(half),
-    ringN: Math.min(width, height),
-  };
+  const taper = window && window.window !== "none";
+  const half = realPowerSpectrum2d(data, width, height, padWidth, padHeight, {
+    windowX: taper ? makeWindow1d(window.window, width, window.tukeyAlpha) : undefined,
+    windowY: taper ? makeWindow1d(window.window, height, window.tukeyAlpha) : undefined,
+    precision: window?.precision,
+  });
+  return { padWidth, padHeight, halfWidth: half.halfWidth, power: half.power, ringN: Math.min(width, height) };
 }
 
 /** Signed frequency (cycles/px) of row ky of a transform of height padHeight. */

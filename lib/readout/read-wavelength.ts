@@ -12,7 +12,6 @@ import { isSpotPacking, measureRegionSpotOrder } from "./spot-order";
 import { measureWavelengthDrift, type WavelengthDrift } from "./wavelength-drift";
 import { formatPlain } from "../format/measurement";
 import { measureSubregionSpread } from "./subregion-uncertainty";
-import { applyWindow } from "./window";
 
 /**
  * Reads the dominant wavelength of a grey image (SCIENCE.md §5): ROI → flatten → mean → window →
@@ -23,9 +22,8 @@ import { applyWindow } from "./window";
 export function readWavelength(image: GreyImage, options: ReadoutOptions): WavelengthReadout {
   const settings = resolveReadoutOptions(options, image.width, image.height);
   const region = prepareRegion(image, settings);
-  const flattened = region.data.slice();
-  applyWindow(region.data, region.width, region.height, settings.window, settings.tukeyAlpha);
-  const spec = computePowerSpectrum(region.data, region.width, region.height);
+  const flattened = region.data; // windowed on the fly by the FFT, so no copy is needed for the sub-regions
+  const spec = computePowerSpectrum(region.data, region.width, region.height, settings);
   const a = analyseSpectrum(spec, settings.lowCutCycles);
   const px = region.pixelSizeUm; // µm per analysed pixel
   const periodFound = a.significance >= settings.significanceThreshold;

@@ -9,11 +9,14 @@ import { spawnSync } from "node:child_process";
 import { existsSync, mkdirSync, readFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
+import { setSpectrumExecutor } from "@/lib/fft";
 import { decodeImage } from "@/lib/imaging";
 import { getCatalogueKinetics } from "@/lib/kinetics";
 import { computeTuringMapParallel, createMapWorkerPool } from "@/lib/parallel";
-import { readWavelength } from "@/lib/readout";
+import { createSpectrumThreads } from "@/lib/parallel/spectrum-threads";
+import { readWavelength, type WavelengthReadout } from "@/lib/readout";
 import { computeTuringMap, type TuringMapOptions } from "@/lib/stability";
+import { CORE_READOUT } from "./core-readout";
 import type { BenchRow } from "./run";
 
 const SHARED_BENCH = path.resolve(import.meta.dirname, "../../../shared/bench");
@@ -101,29 +104,73 @@ async function mapRows(np: NumpyFigure | null): Promise<BenchRow[]> {
   ];
 }
 
+type ChildMode = "core" | "core-2-threads" | "full";
+
+/** Peak memory of one decode + readout in a fresh process (tests/bench/readout-child.ts). */
+function childReadout(file: string, mode: ChildMode): { rssMiB: number; wavelengthPx: number | null } | null {
+  const r = spawnSync(
+    process.execPath,
+    ["--import", "tsx", path.join(import.meta.dirname, "readout-child.ts"), file, mode],
+    { encoding: "utf8", maxBuffer: 1 << 20 },
+  );
+  if (r.status !== 0) return null;
+  return JSON.parse(r.stdout.trim().split("\n").pop()!) as { rssMiB: number; wavelengthPx: number | null };
+}
+
 async function readoutRows(np: NumpyFigure | null): Promise<BenchRow[]> {
   const file = path.join(WORK, "img4096.tif");
   if (!existsSync(file)) return [];
   const bytes = readFileSync(file);
-  const run = async () => {
-    const { image } = await decodeImage(bytes, {});
-    return readWavelength(image, { pixelSizeUm: 1, subregions: false, autocorrelation: false });
-  };
-  const r = await medianMs(run);
-  const got = r.value.periodFound ? `λ = ${r.value.wavelengthPx!.toFixed(3)} px` : "no significant period";
+  // The same work as numpy_reference.py's readout (core-readout.ts), then the full default readout.
+  const core = await medianMs(async () => readWavelength((await decodeImage(bytes, {})).image, CORE_READOUT));
+  const threads = createSpectrumThreads();
+  setSpectrumExecutor(threads);
+  const core2 = await medianMs(async () => readWavelength((await decodeImage(bytes, {})).image, CORE_READOUT));
+  setSpectrumExecutor(null);
+  threads.dispose();
+  const full = await medianMs(async () => readWavelength((await decodeImage(bytes, {})).image, { pixelSizeUm: 1 }));
+  const said = (r: WavelengthReadout) =>
+    r.periodFound ? `λ = ${r.wavelengthPx!.toFixed(3)} px, ${r.symmetry}` : "no significant period";
   const npNote = np ? `numpy ${(np.median * 1000).toFixed(0)} ms, λ = ${Number(np.wavelengthPx).toFixed(3)} px` : "";
-  return [
+  const rows = [
     ratioRow(
       "side by side: decode + core readout 4096² (true λ 32 px)",
-      r.ms,
+      core.ms,
       np,
       "≤ 0.75, 32 px ± 2 %",
-      `Morphokin ${r.ms.toFixed(0)} ms, ${got}; ${npNote}`,
+      `Morphokin ${core.ms.toFixed(0)} ms (${core.min.toFixed(0)}–${core.max.toFixed(0)}), ${said(core.value)}; ${npNote}`,
     ),
+    ratioRow(
+      "side by side: decode + core readout 4096², FFT on 2 threads",
+      core2.ms,
+      np,
+      "≤ 0.75, 32 px ± 2 %",
+      `Morphokin ${core2.ms.toFixed(0)} ms (${core2.min.toFixed(0)}–${core2.max.toFixed(0)}), ${said(core2.value)}`,
+    ),
+    {
+      name: "decode + full readout 4096² (+ sub-regions, autocorrelation)",
+      value: full.ms,
+      unit: "ms",
+      note: `${full.min.toFixed(0)}–${full.max.toFixed(0)}, ${said(full.value)}`,
+    },
   ];
+  for (const mode of ["core", "core-2-threads", "full"] as const) {
+    const child = childReadout(file, mode);
+    if (child)
+      rows.push({
+        name: `peak memory: decode + ${mode} readout 4096², own process`,
+        value: child.rssMiB,
+        unit: "MiB",
+        target: mode === "full" ? undefined : "≤ 512",
+        note: np && mode === "core" ? `numpy ${Number(np.rssMiB).toFixed(0)} MiB` : undefined,
+      });
+  }
+  return rows;
 }
 
-export default async function bench(): Promise<BenchRow[]> {
+/** `parts`: "map" and/or "readout" (`npm run bench -- side-by-side:readout`); none = every part. */
+export default async function bench(parts: string[] = []): Promise<BenchRow[]> {
+  const want = (part: string) => parts.length === 0 || parts.includes(part);
   mkdirSync(WORK, { recursive: true });
   const python = existsSync(SHARED_BENCH) && havePython();
   if (!python)
@@ -133,8 +180,8 @@ export default async function bench(): Promise<BenchRow[]> {
   if (python && !existsSync(path.join(WORK, "img4096.tif")))
     spawnSync(PYTHON, [path.join(SHARED_BENCH, "make_frame.py"), WORK], { stdio: "ignore" });
   const rows: BenchRow[] = [];
-  rows.push(...(await mapRows(python ? numpy("map", String(REPS)) : null)));
-  rows.push(...(await readoutRows(python ? numpy("readout", String(REPS)) : null)));
+  if (want("map")) rows.push(...(await mapRows(python ? numpy("map", String(REPS)) : null)));
+  if (want("readout")) rows.push(...(await readoutRows(python ? numpy("readout", String(REPS)) : null)));
   process.stderr.write(
     "side-by-side: the verification run (numpy_reference.py sim 0 128 64 2000) is not compared yet: Morphokin's solver has zero-flux boundaries, the numpy script a periodic grid\n",
   );

@@ -1,0 +1,80 @@
+/**
+ * A SpectrumExecutor that splits the readout's 2-D FFT with one worker thread: the worker takes
+ * the second half of the rows, then the second half of the columns, while the calling thread
+ * does the first halves; between the two stages both wait for each other. Like the solver's
+ * executor (worker-executor.ts) it stays synchronous: the caller wakes the worker through a
+ * shared word and blocks in Atomics.wait (allowed on Node's main thread), and the worker takes
+ * the job's buffers with receiveMessageOnPort(parentPort), so readWavelength stays synchronous.
+ * Every row and column is one transform by the same code on either thread: the numbers are
+ * bit-identical to one thread (tests/lib/parallel/spectrum-threads.test.ts).
+ */
+import type { Worker } from "node:worker_threads";
+import { transformColumnsToPower, transformRows, type HalfPowerJob, type SpectrumExecutor } from "../fft";
+import { startWorker } from "./start-worker";
+import { awaitWord } from "./worker-executor";
+
+/** Control words: [0] generation (caller → worker), [1] stage done (worker → caller), [2] failure. */
+const GEN = 0,
+  DONE = 1,
+  FAIL = 2;
+
+export interface SpectrumThreads extends SpectrumExecutor {
+  /** Stops the worker thread; later jobs run on the calling thread. */
+  dispose(): void;
+}
+
+/** Starts the worker thread (it does not keep the process alive). */
+export function createSpectrumThreads(): SpectrumThreads {
+  const ctrl = new Int32Array(new SharedArrayBuffer(4 * 3));
+  let worker: Worker | null = startWorker("spectrum-worker", { ctrl, failure: { words: ctrl, index: FAIL } });
+  worker.unref();
+  worker.on("error", (err) => console.error("spectrum worker failed:", err));
+  let generation = 0;
+  // The working buffers (half spectrum, the worker's rows) are reused by the next job of the same
+  // size, as in realPowerSpectrum2d: fresh ones cost their page faults every readout. WeakRefs, so
+  // they never keep memory the collector wants back. The power array is the caller's and always new.
+  const kept: Array<WeakRef<SharedArrayBuffer> | null> = [null, null];
+  const reuse = (slot: number, byteLength: number): SharedArrayBuffer => {
+    const old = kept[slot]?.deref();
+    if (old && old.byteLength === byteLength) return old;
+    const fresh = new SharedArrayBuffer(byteLength);
+    kept[slot] = new WeakRef(fresh);
+    return fresh;
+  };
+  /** Starts a stage on the worker (it echoes the generation in DONE when finished). */
+  const start = () => {
+    Atomics.store(ctrl, GEN, ++generation);
+    Atomics.notify(ctrl, GEN);
+  };
+  return {
+    halfPower(job: HalfPowerJob): Float32Array | null {
+      if (!worker || Atomics.load(ctrl, FAIL) !== 0) return null;
+      const { src, srcWidth, srcHeight, width, height } = job;
+      const halfWidth = width / 2 + 1;
+      const bytes = job.precision === "float64" ? 8 : 4;
+      const halfBuffer = reuse(0, bytes * 2 * halfWidth * height);
+      const half = bytes === 8 ? new Float64Array(halfBuffer) : new Float32Array(halfBuffer);
+      half.fill(0, 2 * halfWidth * srcHeight); // the zero padding's rows (a reused buffer may hold an older transform)
+      const power = new Float32Array(new SharedArrayBuffer(4 * halfWidth * height));
+      // Rows are transformed in pairs, so the split falls on an even row; the worker's rows are
+      // copied into shared memory (the caller's image is an ordinary array).
+      const rowSplit = 2 * Math.ceil(srcHeight / 4);
+      const shared = new Float32Array(reuse(1, 4 * (srcHeight - rowSplit) * srcWidth));
+      shared.set(src.subarray(rowSplit * srcWidth));
+      const colSplit = Math.ceil(halfWidth / 2);
+      worker.postMessage({ ...job, src: shared, rowOffset: rowSplit, half, power, colSplit });
+      start();
+      transformRows(src, srcWidth, srcHeight, width, half, job.windowX, job.windowY, 0, rowSplit);
+      awaitWord(ctrl, DONE, generation, FAIL);
+      start();
+      transformColumnsToPower(half, halfWidth, height, power, 0, colSplit);
+      awaitWord(ctrl, DONE, generation, FAIL);
+      return power;
+    },
+    dispose() {
+      if (!worker) return;
+      void worker.terminate();
+      worker = null;
+    },
+  };
+}

@@ -1,0 +1,47 @@
+/** Worker side of createSpectrumThreads: the second half of the rows, then of the columns, of each job. */
+import { parentPort, receiveMessageOnPort, workerData } from "node:worker_threads";
+import { transformColumnsToPower, transformRows, type HalfPowerJob } from "../fft";
+import { raiseFailureWord, type FailureWord } from "./start-worker";
+
+const GEN = 0,
+  DONE = 1;
+/** Busy-wait iterations before sleeping, as in diffusion-worker.ts. */
+const SPIN_LOOPS = 200_000;
+
+interface Job extends HalfPowerJob {
+  /** `src` holds source rows from this row on. */
+  rowOffset: number;
+  half: Float32Array | Float64Array;
+  power: Float32Array;
+  colSplit: number;
+}
+
+function serve({ ctrl }: { ctrl: Int32Array }): void {
+  let seen = 0;
+  const next = () => {
+    let spin = 0;
+    while (Atomics.load(ctrl, GEN) === seen) if (++spin > SPIN_LOOPS) Atomics.wait(ctrl, GEN, seen, 10_000);
+    seen = Atomics.load(ctrl, GEN);
+  };
+  const done = () => {
+    Atomics.store(ctrl, DONE, seen);
+    Atomics.notify(ctrl, DONE);
+  };
+  for (;;) {
+    next();
+    const job = receiveMessageOnPort(parentPort!)?.message as Job;
+    const { srcWidth, srcHeight, width, height, rowOffset, half, power, colSplit } = job;
+    transformRows(job.src, srcWidth, srcHeight, width, half, job.windowX, job.windowY, rowOffset, srcHeight, rowOffset);
+    done();
+    next();
+    transformColumnsToPower(half, width / 2 + 1, height, power, colSplit, width / 2 + 1);
+    done();
+  }
+}
+
+try {
+  serve(workerData as { ctrl: Int32Array });
+} catch (err) {
+  raiseFailureWord(workerData as { failure?: FailureWord });
+  throw err;
+}
