@@ -12,7 +12,7 @@ export interface ImageReadoutResult {
     width: number;
     height: number;
     channels: number;
-    bitDepth: 8 | 16;
+    bitDepth: 8 | 16 | 32;
     format: string;
     channelUsed: number | "luminance";
   };
