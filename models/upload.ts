@@ -1,3 +1,4 @@
+import type { ImageLayout } from "@/lib/imaging/read-image-layout";
 import {
   DataTypes,
   Model,
@@ -26,6 +27,8 @@ export class Upload extends Model<InferAttributes<Upload>, InferCreationAttribut
   declare pixelSizeUm: number | null;
   /** Where the pixel size came from: `uploader` (typed in) or the file's metadata (`tiff-resolution`, `ome-xml`, `png-phys`, `jfif-density`). */
   declare pixelSizeSource: string | null;
+  /** Images: size, bit depth, channels, planes, time points from the file's headers; null for tables and older uploads. */
+  declare imageLayout: CreationOptional<ImageLayout | null>;
   declare createdBy: string | null;
   declare createdAt: CreationOptional<Date>;
 }
@@ -46,6 +49,7 @@ export function initUpload(sequelize: Sequelize) {
       state: { type: DataTypes.STRING(10), allowNull: false, defaultValue: "stored" },
       pixelSizeUm: { type: DataTypes.FLOAT },
       pixelSizeSource: { type: DataTypes.STRING(20) },
+      imageLayout: { type: DataTypes.JSON },
       createdBy: { type: DataTypes.UUID },
       createdAt: DataTypes.DATE,
     },

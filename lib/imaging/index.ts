@@ -11,6 +11,6 @@ export {
 } from "./decode";
 export type { PixelRegion } from "./read-page-pixels";
 export { readImageLayout, type ImageLayout } from "./read-image-layout";
-export type { StackLayout, StackChoice } from "./stack-layout";
+export { checkStackChoice, pageOf, type StackLayout, type StackChoice } from "./stack-layout";
 export { sniffFileKind, type FileKind } from "./sniff-file-kind";
 export { readPixelSize, readOmePixelSize, type PixelSizeInfo, type PixelSizeSource } from "./pixel-size";

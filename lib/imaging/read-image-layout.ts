@@ -17,8 +17,12 @@ export interface ImageLayout {
   pages: number;
   channelsIn: "samples" | "pages";
   stackSource: "ome-xml" | "imagej" | "pages" | "single";
-  /** Why the file's stack cannot be read as described (its readouts will fail with this), or null. */
+  /** Page dimensions fastest-varying first, e.g. "ZCT". */
+  order: string;
+  /** Why the file's stack cannot be read as described (every readout would fail with this), or null. */
   problem: string | null;
+  /** Pages (from 1) that cannot be read, each with the reason. */
+  damagedPages: Array<{ page: number; reason: string }>;
 }
 
 /** Reads the layout of an image file from its headers; null when sharp cannot read the header. */
@@ -41,7 +45,9 @@ export async function readImageLayout(bytes: Uint8Array): Promise<ImageLayout | 
     pages: meta.pages ?? 1,
     channelsIn: "samples",
     stackSource: "single",
+    order: "ZCT",
     problem: null,
+    damagedPages: [],
   };
   if (meta.format !== "tiff") return layout;
   const tiff = readTiffPages(bytes);
@@ -54,10 +60,9 @@ export async function readImageLayout(bytes: Uint8Array): Promise<ImageLayout | 
       pages: s.pageCount,
       channelsIn: s.channelsIn,
       stackSource: s.source,
+      order: s.order,
     });
-    const damaged = tiff?.pages.find((p) => p.damage);
-    if (damaged) layout.problem = damaged.damage;
-    else if (tiff?.chainError) layout.problem = tiff.chainError;
+    layout.damagedPages = (tiff?.pages ?? []).flatMap((p, i) => (p.damage ? [{ page: i + 1, reason: p.damage }] : []));
   } catch (e) {
     if (!(e instanceof ImagingError)) throw e;
     layout.problem = e.message;

@@ -95,7 +95,12 @@ export function describeStack(tiff: TiffPages | null, sharpPages: number, sample
 }
 
 /** 0-based page of (channel, plane, time point) under the layout's order. */
-export function pageOf(layout: StackLayout, c: number, z: number, t: number): number {
+export function pageOf(
+  layout: Pick<StackLayout, "channels" | "planes" | "timePoints" | "channelsIn" | "order">,
+  c: number,
+  z: number,
+  t: number,
+): number {
   const at: Record<string, number> = { C: layout.channelsIn === "pages" ? c : 0, Z: z, T: t };
   const size: Record<string, number> = {
     C: layout.channelsIn === "pages" ? layout.channels : 1,
@@ -126,10 +131,14 @@ function checkIndex(field: string, label: string, plural: string, value: number,
 
 /**
  * Checks a choice against the layout with messages that count from 1 as a person does.
- * Channels stored as samples keep the decoder's own check (and "luminance").
+ * Channels stored as samples keep the decoder's own check (and "luminance") unless `sampleChannelsToo`.
  */
-export function checkStackChoice(layout: StackLayout, choice: StackChoice): void {
-  if (layout.channelsIn === "pages" && choice.channel !== "luminance")
+export function checkStackChoice(
+  layout: Pick<StackLayout, "channels" | "planes" | "timePoints" | "channelsIn">,
+  choice: StackChoice,
+  sampleChannelsToo = false,
+): void {
+  if ((sampleChannelsToo || layout.channelsIn === "pages") && choice.channel !== "luminance")
     checkIndex("channel", "Channel", "channels", choice.channel, layout.channels);
   if (choice.projection !== "max-z") checkIndex("plane", "Plane", "planes (z)", choice.plane, layout.planes);
   checkIndex("timePoint", "Time point", "time points", choice.timePoint, layout.timePoints);

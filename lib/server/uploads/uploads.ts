@@ -12,6 +12,7 @@ import { can } from "@/lib/access/permissions";
 import { uploadOriginalKey } from "@/storage/keys";
 import { StorageUnavailableError } from "@/storage/object-store";
 import type { UploadKind } from "@/models/upload";
+import type { ImageLayout } from "@/lib/imaging";
 import type { LabContext } from "../access";
 import { authorize } from "../access";
 import { AppError, notFound } from "../errors";
@@ -30,6 +31,8 @@ export interface UploadDto {
   sha256: string;
   pixelSizeUm: number | null;
   pixelSizeSource: string | null;
+  /** Images: size, bit depth, channels, planes (z), time points from the file's headers; null for tables and older uploads. */
+  imageLayout: ImageLayout | null;
   uploadedBy: string | null;
   uploadedByEmail: string | null;
   createdAt: string;
@@ -57,6 +60,7 @@ async function toDtos(ctx: LabContext, rows: UploadRow[]): Promise<UploadDto[]> 
     sha256: r.sha256,
     pixelSizeUm: r.pixelSizeUm,
     pixelSizeSource: r.pixelSizeSource,
+    imageLayout: r.imageLayout ?? null,
     uploadedBy: r.createdBy,
     uploadedByEmail: r.createdBy ? (emails.get(r.createdBy) ?? null) : null,
     createdAt: r.createdAt.toISOString(),
@@ -99,6 +103,7 @@ export interface IncomingFile {
   contentType: string;
   pixelSizeUm: number | null;
   pixelSizeSource: string | null;
+  imageLayout?: ImageLayout | null;
 }
 
 /** Removes what an unfinished upload left: its object, then its row (kept while the object may remain). */
@@ -149,6 +154,7 @@ export async function storeUpload<T = void>(
     state: "receiving",
     pixelSizeUm: file.pixelSizeUm,
     pixelSizeSource: file.pixelSizeSource,
+    imageLayout: file.imageLayout ?? null,
     createdBy: ctx.actor.userId,
   });
   try {
