@@ -63,6 +63,8 @@ describe("stacks through the API", () => {
     expect(Math.abs(r.headline!.wavelengthUm! - 8) / 8).toBeLessThan(0.01); // 16 px × 0.5 µm/px
     if (r.result?.type !== "image") throw new Error("expected an image readout");
     expect(r.result.image).toMatchObject({ channelUsed: 1, planeUsed: 1, planes: 2, timePointUsed: 0 });
+    // The readout page offers the upload's planes and time points from its headers.
+    expect(r.imageLayout).toMatchObject({ channels: 2, planes: 2, timePoints: 1 });
   });
 
   it("a channel, plane or time point the file lacks is a 422 naming it from 1; nothing is queued", async () => {
