@@ -3,7 +3,8 @@
  * specification, Adobe 1992, section 2: "Image File Directory", the 4-byte offset of the next IFD).
  * Reads, per page, what is needed to pick a page and to tell a damaged one by its number before
  * any pixel is decoded: size, samples, bits, sample format, and whether its strips or tiles lie
- * inside the file. BigTIFF (version 43) is not walked: the caller falls back to sharp's page count.
+ * inside the file. BigTIFF (version 43: 8-byte offsets and counts, 20-byte entries) is walked the
+ * same way (BigTIFF format description, Aware Systems / libtiff, 2006).
  */
 export interface TiffPage {
   width: number;
@@ -27,43 +28,69 @@ export interface TiffPages {
 /** Most pages walked; a stack of 100 000 planes is beyond any readout and a loop guard besides. */
 export const MAX_TIFF_PAGES = 100_000;
 
-const TYPE_SIZE: Record<number, number> = { 1: 1, 2: 1, 3: 2, 4: 4, 5: 8, 6: 1, 7: 1, 8: 2, 9: 4, 10: 8, 11: 4, 12: 8 };
+const TYPE_SIZE: Record<number, number> = {
+  1: 1,
+  2: 1,
+  3: 2,
+  4: 4,
+  5: 8,
+  6: 1,
+  7: 1,
+  8: 2,
+  9: 4,
+  10: 8,
+  11: 4,
+  12: 8,
+  16: 8,
+  17: 8,
+  18: 8,
+};
 
-/** Returns the pages, or null when the bytes are not a classic TIFF. */
+/** Returns the pages, or null when the bytes are not a TIFF or BigTIFF. */
 export function readTiffPages(bytes: Uint8Array): TiffPages | null {
   if (bytes.length < 8) return null;
   const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
   const order = view.getUint16(0, false);
   if (order !== 0x4949 && order !== 0x4d4d) return null;
   const le = order === 0x4949;
-  if (view.getUint16(2, le) !== 42) return null;
+  const version = view.getUint16(2, le);
+  if (version !== 42 && version !== 43) return null;
+  const big = version === 43;
+  if (big && bytes.length < 16) return null;
+  // Offsets, entry counts and entry sizes differ between TIFF and BigTIFF; nothing else does here.
+  const offsetAt = (at: number) => (big ? Number(view.getBigUint64(at, le)) : view.getUint32(at, le));
+  const countAt = (at: number) => (big ? Number(view.getBigUint64(at, le)) : view.getUint16(at, le));
+  const countSize = big ? 8 : 2,
+    entrySize = big ? 20 : 12,
+    inline = big ? 8 : 4;
   const pages: TiffPage[] = [];
   let description: string | null = null;
   let chainError: string | null = null;
   const seen = new Set<number>();
-  for (let ifd = view.getUint32(4, le); ifd !== 0;) {
+  for (let ifd = big ? offsetAt(8) : view.getUint32(4, le); ifd !== 0;) {
     const pageNo = pages.length + 1;
     if (seen.has(ifd) || pages.length >= MAX_TIFF_PAGES) {
       chainError = `The TIFF's list of pages loops back or exceeds ${MAX_TIFF_PAGES} pages after page ${pages.length}.`;
       break;
     }
     seen.add(ifd);
-    if (ifd + 2 > bytes.length || ifd + 2 + view.getUint16(ifd, le) * 12 + 4 > bytes.length) {
+    if (ifd + countSize > bytes.length || ifd + countSize + countAt(ifd) * entrySize + inline > bytes.length) {
       chainError = `Page ${pageNo} of the TIFF is damaged: its header lies beyond the end of the file (the file may be truncated).`;
       break;
     }
-    const count = view.getUint16(ifd, le);
+    const count = countAt(ifd);
     const page: TiffPage = { width: 0, height: 0, samplesPerPixel: 1, bitsPerSample: 1, sampleFormat: 1, damage: null };
     const offsets: number[] = [],
       lengths: number[] = [];
     for (let e = 0; e < count; e++) {
-      const at = ifd + 2 + e * 12;
+      const at = ifd + countSize + e * entrySize;
       const tag = view.getUint16(at, le);
       const type = view.getUint16(at + 2, le);
-      const n = view.getUint32(at + 4, le);
+      const n = big ? Number(view.getBigUint64(at + 4, le)) : view.getUint32(at + 4, le);
       const size = (TYPE_SIZE[type] ?? 0) * n;
       if (size === 0) continue;
-      const off = size <= 4 ? at + 8 : view.getUint32(at + 8, le);
+      const valueAt = at + (big ? 12 : 8);
+      const off = size <= inline ? valueAt : offsetAt(valueAt);
       if (off + size > bytes.length) {
         if (tag === 273 || tag === 279 || tag === 324 || tag === 325)
           page.damage = `Page ${pageNo} of the TIFF is damaged: its list of pixel blocks lies beyond the end of the file.`;
@@ -94,7 +121,7 @@ export function readTiffPages(bytes: Uint8Array): TiffPages | null {
     if (!page.damage && offsets.length > 0 && offsets.some((o, i) => o + (lengths[i] ?? 0) > bytes.length))
       page.damage = `Page ${pageNo} of the TIFF is damaged: its pixel data lies beyond the end of the file (the file may be truncated).`;
     pages.push(page);
-    ifd = view.getUint32(ifd + 2 + count * 12, le);
+    ifd = offsetAt(ifd + countSize + count * entrySize);
   }
   return { pages, description, chainError };
 }

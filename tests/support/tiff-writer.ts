@@ -17,8 +17,8 @@ export interface WriteTiffOptions {
   bits: 8 | 16 | 32;
   /** Written as ImageDescription (tag 270) of page 1. */
   description?: string;
-  /** Pixels per centimetre written as XResolution/YResolution (unit cm). */
-  pxPerCm?: number;
+  /** XResolution = YResolution = pixels per unit; ResolutionUnit 1 none, 2 inch, 3 cm (TIFF 6.0 tag 296). */
+  resolution?: { pxPerUnit: number; unit: 1 | 2 | 3 };
 }
 
 interface Entry {
@@ -66,10 +66,11 @@ export function writeTiffPages(pages: TiffPageInput[], options: WriteTiffOptions
     ];
     if (index === 0 && options.description)
       entries.push({ tag: 270, type: 2, values: new Uint8Array(Buffer.from(options.description + "\0", "utf8")) });
-    if (options.pxPerCm) {
-      entries.push({ tag: 282, type: 5, values: [Math.round(options.pxPerCm * 1000), 1000] });
-      entries.push({ tag: 283, type: 5, values: [Math.round(options.pxPerCm * 1000), 1000] });
-      entries.push({ tag: 296, type: 3, values: [3] });
+    if (options.resolution) {
+      const rational = [Math.round(options.resolution.pxPerUnit * 1e6), 1e6];
+      entries.push({ tag: 282, type: 5, values: rational });
+      entries.push({ tag: 283, type: 5, values: rational });
+      entries.push({ tag: 296, type: 3, values: [options.resolution.unit] });
     }
     entries.sort((a, b) => a.tag - b.tag);
     // Values longer than 4 bytes go after the IFD.

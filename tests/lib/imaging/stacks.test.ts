@@ -73,6 +73,18 @@ describe("stacks", () => {
     expect(r.image.data[0]).toBeCloseTo(30 / 255, 6); // page c + 2·z = 2, value 30
   });
 
+  it("an ImageJ TIFF's pixel size: ResolutionUnit none with unit=micron in the header", async () => {
+    // ImageJ stores 1/pixel width as XResolution and the unit in its header: 2.5 px/µm = 0.4 µm/px.
+    const tif = writeTiffPages([flat(1)], {
+      bits: 8,
+      description: "ImageJ=1.54f\nunit=micron\n",
+      resolution: { pxPerUnit: 2.5, unit: 1 },
+    });
+    const r = await decodeImage(tif);
+    expect(r.info.pixelSizeUm).toBeCloseTo(0.4, 9);
+    expect(r.info.pixelSizeSource).toBe("tiff-resolution");
+  });
+
   it("32-bit float TIFF is decoded as stored (no ÷65535), bitDepth 32", async () => {
     const data = Array.from({ length: W * H }, (_, i) => i * 0.25 - 7.5);
     const r = await decodeImage(writeTiffPages([{ width: W, height: H, data }], { bits: 32 }));
@@ -134,5 +146,23 @@ describe("stack errors name the page, channel or plane as a person counts", () =
     );
     expect(await messageOf(decodeImage(bad, { projection: "max-z" }))).toMatch(/^Page 2 of the TIFF is damaged/);
     expect((await decodeImage(bad, { plane: 2 })).image.data[0]).toBeCloseTo(3 / 65535, 7);
+  });
+});
+
+describe("BigTIFF", () => {
+  it("the pages of a BigTIFF stack are walked like a classic TIFF's", async () => {
+    const sharp = (await import("sharp")).default;
+    const w = 32,
+      h = 20;
+    const px = new Uint8Array(w * h * 3);
+    for (let p = 0; p < 3; p++) px.fill(50 * (p + 1), p * w * h, (p + 1) * w * h);
+    const big = await sharp(px, { raw: { width: w, height: h * 3, channels: 1, pageHeight: h } })
+      .toColourspace("b-w")
+      .tiff({ compression: "deflate", bigtiff: true })
+      .toBuffer();
+    expect(big.readUInt16LE(2)).toBe(43); // the BigTIFF version number (BigTIFF format description)
+    const r = await decodeImage(big, { plane: 2 });
+    expect(r.info.stack).toMatchObject({ pageCount: 3, planes: 3 });
+    expect(r.image.data[0]).toBeCloseTo(150 / 255, 6); // page 3 was filled with 150
   });
 });
