@@ -195,8 +195,11 @@ export async function decodeImage(bytes: Uint8Array, options: DecodeOptions = {}
       `The image was read reduced ${factor}×${factor} (each pixel the mean of ${factor}×${factor} source pixels, the readout's own binning) to fit the ${side} px analysis limit without holding it at full resolution.`,
     );
   const px = readPixelSize(bytes, format, meta.density);
+  // Orientations 5–8 turn the image a quarter: the stored Y pixel size becomes the upright X size.
+  const turned = orientation >= 5 && orientation <= 8;
+  if (turned && px.pixelSizeSource === "ome-xml" && stack.pixelSizeYUm) px.pixelSizeUm = stack.pixelSizeYUm;
   if (stack.pixelSizeXUm && stack.pixelSizeYUm && Math.abs(stack.pixelSizeYUm / stack.pixelSizeXUm - 1) > 0.01)
-    px.pixelSizeNote = `The pixels are not square (PhysicalSizeX ${stack.pixelSizeXUm} µm, PhysicalSizeY ${stack.pixelSizeYUm} µm); the X size is used.`;
+    px.pixelSizeNote = `The pixels are not square (PhysicalSizeX ${stack.pixelSizeXUm} µm, PhysicalSizeY ${stack.pixelSizeYUm} µm); the ${turned ? "Y size (the upright image's X)" : "X size"} is used.`;
   const bitDepth = isFloatDepth(meta.depth) ? 32 : isSixteen(meta.depth) ? 16 : 8;
   return {
     image: { width: outW, height: outH, data: data! },
