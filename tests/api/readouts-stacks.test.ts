@@ -99,4 +99,35 @@ describe("stacks through the API", () => {
     expect(await m.Upload.count({ where: { id: up.body.id } })).toBe(1);
     expect(await m.Readout.count({ where: { uploadId: up.body.id } })).toBe(0);
   });
+
+  it("a damaged page: the upload and its readout of plane 1 work; plane 2 is refused naming the page", async () => {
+    const good = writeTiffPages([stripesPage(16, 5), stripesPage(16, 6), stripesPage(16, 7)], {
+      bits: 16,
+      resolution: { pxPerUnit: 2, unit: 3 }, // 2 px/cm: 5000 µm/px, a pixel size the file carries (TIFF 6.0 tag 282)
+    });
+    // Point page 2's strip offset past the end of the file (TIFF 6.0 tag 273, StripOffsets).
+    const bad = Buffer.from(good);
+    let ifd = bad.readUInt32LE(4);
+    ifd = bad.readUInt32LE(ifd + 2 + bad.readUInt16LE(ifd) * 12);
+    for (let e = 0; e < bad.readUInt16LE(ifd); e++)
+      if (bad.readUInt16LE(ifd + 2 + e * 12) === 273) bad.writeUInt32LE(bad.length + 10, ifd + 2 + e * 12 + 8);
+    const up = await uploadFile((await newSpecimen()).id, "damaged.tif", bad);
+    expect(up.status).toBe(201);
+    expect((await finished(up.body.readout)).status).toBe("succeeded");
+    const res = await api(
+      "POST /api/v1/labs/[labId]/uploads/[uploadId]/readouts",
+      { uploadId: up.body.id },
+      { json: { plane: 1 } },
+    );
+    expect(res.status).toBe(422);
+    expect((await res.json()).error.message).toBe(
+      "Page 2 of the TIFF is damaged: its pixel data lies beyond the end of the file (the file may be truncated).",
+    );
+    const maxZ = await api(
+      "POST /api/v1/labs/[labId]/uploads/[uploadId]/readouts",
+      { uploadId: up.body.id },
+      { json: { projection: "max-z" } },
+    );
+    expect(maxZ.status).toBe(422);
+  });
 });

@@ -132,6 +132,17 @@ describe("stack errors name the page, channel or plane as a person counts", () =
     );
   });
 
+  it("OME-XML whose SizeX/SizeY differ from the pages", async () => {
+    const wrong = omeXml({ sizeX: W + 1, sizeY: H, sizeC: 2, sizeZ: 3, sizeT: 1 });
+    const six = writeTiffPages(
+      Array.from({ length: 6 }, () => flat(5)),
+      { bits: 16, description: wrong },
+    );
+    expect(await messageOf(decodeImage(six))).toBe(
+      `The OME-XML in this TIFF says the images are ${W + 1}×${H} pixels, but page 1 is ${W}×${H}; the description disagrees with the pixel data.`,
+    );
+  });
+
   it("a damaged page inside a stack is named; the other pages still read", async () => {
     const good = writeTiffPages([flat(1), flat(2), flat(3)], { bits: 16 });
     // Point page 2's strip offset past the end of the file.
