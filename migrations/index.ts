@@ -8,6 +8,7 @@ import * as m0010auth from "./20261203-0010-rate-limits-signup-requests";
 import * as m0020 from "./20261203-0020-upload-state";
 import * as m0030 from "./20261203-0030-job-restarts-token-expiry-account-events";
 import * as m0200jobs from "./20261203-0200-job-workers";
+import * as m1200layout from "./20261203-1200-upload-image-layout";
 import * as m1400batches from "./20261203-1400-batches";
 
 export const migrationModules = [
@@ -20,5 +21,6 @@ export const migrationModules = [
   { name: "20261203-0020-upload-state", module: m0020 },
   { name: "20261203-0030-job-restarts-token-expiry-account-events", module: m0030 },
   { name: "20261203-0200-job-workers", module: m0200jobs },
+  { name: "20261203-1200-upload-image-layout", module: m1200layout },
   { name: "20261203-1400-batches", module: m1400batches },
 ];

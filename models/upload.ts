@@ -1,3 +1,4 @@
+import type { ImageLayout } from "@/lib/imaging/read-image-layout";
 import {
   DataTypes,
   Model,
@@ -28,6 +29,8 @@ export class Upload extends Model<InferAttributes<Upload>, InferCreationAttribut
   declare pixelSizeSource: string | null;
   /** The batch it was uploaded with, if any. */
   declare batchId: CreationOptional<string | null>;
+  /** Images: size, bit depth, channels, planes, time points from the file's headers; null for tables and older uploads. */
+  declare imageLayout: CreationOptional<ImageLayout | null>;
   declare createdBy: string | null;
   declare createdAt: CreationOptional<Date>;
 }
@@ -49,6 +52,7 @@ export function initUpload(sequelize: Sequelize) {
       pixelSizeUm: { type: DataTypes.FLOAT },
       pixelSizeSource: { type: DataTypes.STRING(20) },
       batchId: { type: DataTypes.UUID },
+      imageLayout: { type: DataTypes.JSON },
       createdBy: { type: DataTypes.UUID },
       createdAt: DataTypes.DATE,
     },

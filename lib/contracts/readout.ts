@@ -56,6 +56,22 @@ export const imageReadoutSettingsSchema = z
           .max(15, "channel must be at most 15"),
       ])
       .default("luminance"),
+    /** z-plane of a stack, from 0 (the form counts from 1). */
+    plane: z
+      .number("plane must be a number")
+      .int("plane must be a whole number")
+      .min(0, "plane must be 0 or more (planes count from 0 in the API)")
+      .max(99_999, "plane must be at most 99999")
+      .default(0),
+    /** Time point of a stack, from 0 (the form counts from 1). */
+    timePoint: z
+      .number("timePoint must be a number")
+      .int("timePoint must be a whole number")
+      .min(0, "timePoint must be 0 or more (time points count from 0 in the API)")
+      .max(99_999, "timePoint must be at most 99999")
+      .default(0),
+    /** "max-z": maximum-intensity projection over every plane (plane is then not used). */
+    projection: z.enum(["none", "max-z"], 'projection must be "none" or "max-z"').default("none"),
     /** Negate intensities (dark spots on a light background). */
     invert: z.boolean("invert must be true or false").default(false),
     /** Background flattening: fitted plane, heavy blur, or off. */

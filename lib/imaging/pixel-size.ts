@@ -1,3 +1,4 @@
+import { readTiffPages } from "./read-tiff-pages";
 import { readTiffTags } from "./read-tiff-tags";
 
 export type PixelSizeSource = "ome-xml" | "tiff-resolution" | "png-phys" | "jfif-density" | null;
@@ -11,7 +12,19 @@ export interface PixelSizeInfo {
 
 /** Writers' default densities (dpi) that describe a screen or printer, not a microscope; 25.4 dpi is libvips' 1 px/mm. */
 const DEFAULT_DPI = [25.4, 72, 96, 150, 300, 600];
-const UNIT_UM: Record<string, number> = { µm: 1, μm: 1, um: 1, micron: 1, nm: 1e-3, mm: 1e3, cm: 1e4, m: 1e6, Å: 1e-4 };
+const UNIT_UM: Record<string, number> = {
+  µm: 1,
+  μm: 1,
+  um: 1,
+  micron: 1,
+  microns: 1,
+  "\\u00B5m": 1, // ImageJ escapes µ in its header
+  nm: 1e-3,
+  mm: 1e3,
+  cm: 1e4,
+  m: 1e6,
+  Å: 1e-4,
+};
 
 const none = (note: string | null = null): PixelSizeInfo => ({
   pixelSizeUm: null,
@@ -55,7 +68,12 @@ function readPngPhys(b: Uint8Array): { x: number; unit: number } | null {
 export function readPixelSize(bytes: Uint8Array, format: string, density?: number): PixelSizeInfo {
   if (format === "tiff") {
     const tags = readTiffTags(bytes);
-    if (!tags) return none();
+    if (!tags) {
+      // BigTIFF: only OME-XML is read from it (the resolution tags of large scans are rarely set).
+      const description = readTiffPages(bytes)?.description;
+      const um = description?.includes("<OME") ? readOmePixelSize(description) : null;
+      return um ? { pixelSizeUm: um, pixelSizeSource: "ome-xml", pixelSizeNote: null } : none();
+    }
     if (tags.imageDescription?.includes("<OME")) {
       const um = readOmePixelSize(tags.imageDescription);
       if (um) return { pixelSizeUm: um, pixelSizeSource: "ome-xml", pixelSizeNote: null };
@@ -68,6 +86,12 @@ export function readPixelSize(bytes: Uint8Array, format: string, density?: numbe
       );
     }
     const unit = tags.resolutionUnit ?? 2;
+    // ImageJ writes ResolutionUnit "none" and its unit into the description ("unit=micron").
+    const imagejUnit = /^ImageJ=/.test(tags.imageDescription ?? "")
+      ? /^unit=(.+)$/m.exec(tags.imageDescription!)?.[1]?.trim()
+      : undefined;
+    if (unit === 1 && imagejUnit && UNIT_UM[imagejUnit])
+      return { pixelSizeUm: UNIT_UM[imagejUnit] / xres, pixelSizeSource: "tiff-resolution", pixelSizeNote: null };
     if (unit === 3) return fromDpi(xres * 2.54, "tiff-resolution");
     if (unit === 2) return fromDpi(xres, "tiff-resolution");
     return none("The TIFF resolution has no unit (ResolutionUnit = 1).");

@@ -81,19 +81,19 @@ describe("bad input", () => {
   });
 
   it("an image above the pixel limit is refused at upload from its header (413)", async () => {
-    // A 1×1 PNG whose IHDR claims 9000×8000 (CRC recomputed): only the header is ever read.
+    // A 1×1 PNG whose IHDR claims 40000×30000 (CRC recomputed): only the header is ever read.
     const big = Buffer.from(
       await sharp({ create: { width: 1, height: 1, channels: 3, background: { r: 0, g: 0, b: 0 } } })
         .png()
         .toBuffer(),
     );
-    big.writeUInt32BE(9000, 16);
-    big.writeUInt32BE(8000, 20);
+    big.writeUInt32BE(40000, 16);
+    big.writeUInt32BE(30000, 20);
     big.writeUInt32BE(crc32(big.subarray(12, 29)), 29);
     const up = await uploadFile((await newSpecimen()).id, "huge.png", big, { pixelSizeUm: "1" });
     expect(up.status).toBe(413);
     expect(up.body.error!.message).toBe(
-      "“huge.png” is 9000×8000 = 72000000 pixels, above the limit of 67108864 pixels (8192×8192); crop or bin it before uploading",
+      "“huge.png” is 40000×30000 = 1200000000 pixels, above the limit of 1000000000 pixels (about 31 600 × 31 600); crop or bin it before uploading",
     );
   });
 });

@@ -5,19 +5,18 @@
  */
 import "server-only";
 import sharp from "sharp";
-import { decodeImage, encodePng } from "@/lib/imaging";
+import { encodePng } from "@/lib/imaging";
 import {
   mapLocalWavelength,
   readWavelength,
   renderFftMagnitude,
   renderPreview,
   type ReadoutOptions,
+  type WavelengthReadout,
 } from "@/lib/readout";
 import type { ImageReadoutSettings } from "@/lib/contracts/readout";
 import type { ImageReadoutResult, SpectrumProducts } from "./result";
-
-/** Longest side of the stored preview (px); the ROI editor maps back with `previewScale`. */
-const PREVIEW_MAX_SIDE = 1024;
+import { PREVIEW_MAX_SIDE, readReadoutSource } from "./image-source";
 
 const yieldToLoop = () => new Promise<void>((r) => setImmediate(r));
 
@@ -31,31 +30,37 @@ export async function runImageReadout(
   settings: ImageReadoutSettings & { pixelSizeUm: number; pixelSizeSource: string | null },
   step: (fraction: number, note: string) => Promise<void>,
 ): Promise<ImageReadoutOutput> {
-  const { image, info } = await decodeImage(bytes, { channel: settings.channel });
+  const source = await readReadoutSource(bytes, settings);
+  const { image, info, factor, x0, y0 } = source;
   await step(0.15, "decoded");
   const options: ReadoutOptions = {
-    pixelSizeUm: settings.pixelSizeUm,
-    roi: settings.roi,
+    pixelSizeUm: settings.pixelSizeUm * factor,
+    roi: source.roi,
     invert: settings.invert,
     flatten: settings.flatten,
     window: settings.window,
   };
   const t0 = Date.now();
-  const readout = readWavelength(image, options);
+  const readout = toSourcePixels(readWavelength(image, options), settings, factor);
+  readout.warnings.push(...info.notes);
   await step(0.5, "spectrum and peak");
   await yieldToLoop();
   const local = mapLocalWavelength(image, { ...options, axis: settings.profileAxis });
   await step(0.7, "local wavelength");
   await yieldToLoop();
-  const fftImage = renderFftMagnitude(image, options, readout.wavelengthPx);
+  const fftImage = renderFftMagnitude(
+    image,
+    options,
+    readout.wavelengthPx === null ? null : readout.wavelengthPx / factor,
+  );
   const fft = await encodePng(fftImage.image);
-  const whole = renderPreview(image, { pixelSizeUm: settings.pixelSizeUm, flatten: "none" });
+  const whole = renderPreview(source.whole, { pixelSizeUm: settings.pixelSizeUm, flatten: "none" });
   const computeMs = Date.now() - t0;
-  const scale = Math.min(1, PREVIEW_MAX_SIDE / Math.max(image.width, image.height));
+  const scale = Math.min(1, PREVIEW_MAX_SIDE / Math.max(info.width, info.height));
   let preview = await encodePng(whole);
   // renderPreview bins images above its analysis size; resize to the stored size either way.
-  const previewWidth = Math.max(1, Math.round(image.width * scale));
-  const previewHeight = Math.max(1, Math.round(image.height * scale));
+  const previewWidth = Math.max(1, Math.round(info.width * scale));
+  const previewHeight = Math.max(1, Math.round(info.height * scale));
   if (whole.width !== previewWidth || whole.height !== previewHeight) {
     preview = await sharp(preview).resize(previewWidth, previewHeight, { fit: "fill" }).png().toBuffer();
   }
@@ -66,12 +71,12 @@ export async function runImageReadout(
     radialSpectrum,
     angularPower,
     localWavelength: {
-      tileSizePx: local.tileSizePx,
-      stridePx: local.stridePx,
+      tileSizePx: local.tileSizePx * factor,
+      stridePx: local.stridePx * factor,
       columns: local.columns,
       rows: local.rows,
-      centresXPx: local.centresXPx,
-      centresYPx: local.centresYPx,
+      centresXPx: local.centresXPx.map((x) => x * factor + x0),
+      centresYPx: local.centresYPx.map((y) => y * factor + y0),
       wavelengthUm: local.wavelengthUm,
       profile: local.profile,
     },
@@ -85,6 +90,13 @@ export async function runImageReadout(
       bitDepth: info.bitDepth,
       format: info.format,
       channelUsed: info.channelUsed,
+      planes: info.stack.planes,
+      timePoints: info.stack.timePoints,
+      planeUsed: info.planeUsed,
+      timePointUsed: info.timePointUsed,
+      projection: info.projection,
+      orientation: info.orientation,
+      reduceFactor: factor,
     },
     pixelSizeUm: settings.pixelSizeUm,
     pixelSizeSource: settings.pixelSizeSource,
@@ -96,5 +108,29 @@ export async function runImageReadout(
   return {
     result,
     derived: { "spectrum.json": Buffer.from(JSON.stringify(spectrum)), "preview.png": preview, "fft.png": fft },
+  };
+}
+
+/**
+ * A readout of a reduced image (factor > 1) in the source's pixels: lengths in px × factor, the
+ * settings as the user gave them, the binning counted in full. µm values need no change.
+ */
+function toSourcePixels(
+  r: WavelengthReadout,
+  settings: ImageReadoutSettings & { pixelSizeUm: number },
+  factor: number,
+): WavelengthReadout {
+  if (factor === 1) return r;
+  const px = (v: number | null) => (v === null ? null : v * factor);
+  return {
+    ...r,
+    wavelengthPx: px(r.wavelengthPx),
+    uncertaintyPx: px(r.uncertaintyPx),
+    settings: {
+      ...r.settings,
+      pixelSizeUm: settings.pixelSizeUm,
+      roi: settings.roi,
+      binFactor: r.settings.binFactor * factor,
+    },
   };
 }

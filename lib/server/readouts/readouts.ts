@@ -11,6 +11,7 @@ import packageJson from "@/package.json";
 import { DERIVED_PRODUCTS, type DerivedProduct } from "@/lib/contracts/readout";
 import type { JobStatus } from "@/models/job";
 import type { Readout } from "@/models/readout";
+import type { ImageLayout } from "@/lib/imaging";
 import { StorageUnavailableError } from "@/storage/object-store";
 import { authorize, type LabContext } from "../access";
 import { AppError, notFound } from "../errors";
@@ -55,6 +56,8 @@ export interface ReadoutDetailDto extends ReadoutDto {
   condition: string;
   studyId: string;
   studyName: string;
+  /** The upload's channels, planes and time points from its headers (null for tables and older uploads). */
+  imageLayout: ImageLayout | null;
 }
 
 type Row = InstanceType<Awaited<ReturnType<typeof database>>["Readout"]>;
@@ -159,6 +162,7 @@ export async function getReadout(ctx: LabContext, readoutId: string): Promise<Re
   const [dto] = await toDtos([r]);
   const specimen = await m.Specimen.findByPk(r.specimenId, { attributes: ["id", "label", "condition", "studyId"] });
   const study = specimen ? await m.Study.findByPk(specimen.studyId, { attributes: ["id", "name"] }) : null;
+  const upload = await m.Upload.findByPk(r.uploadId, { attributes: ["id", "imageLayout"] });
   const base = `/api/v1/labs/${ctx.labId}/readouts/${r.id}/derived`;
   const derived = Object.fromEntries(
     Object.keys(r.status === "succeeded" ? (r.derivedKeys ?? {}) : {}).map((k) => [k, `${base}/${k}`]),
@@ -171,6 +175,7 @@ export async function getReadout(ctx: LabContext, readoutId: string): Promise<Re
     condition: specimen?.condition ?? "",
     studyId: specimen?.studyId ?? "",
     studyName: study?.name ?? "",
+    imageLayout: upload?.imageLayout ?? null,
   };
 }
 

@@ -12,9 +12,19 @@ export interface ImageReadoutResult {
     width: number;
     height: number;
     channels: number;
-    bitDepth: 8 | 16;
+    bitDepth: 8 | 16 | 32;
     format: string;
     channelUsed: number | "luminance";
+    /** Stack sizes and the plane / time point read (0-based; planeUsed null for a max-z projection); absent on older readouts. */
+    planes?: number;
+    timePoints?: number;
+    planeUsed?: number | null;
+    timePointUsed?: number;
+    projection?: "none" | "max-z";
+    /** EXIF/TIFF orientation applied (1 = as stored). */
+    orientation?: number;
+    /** Source px per analysed px before the readout's own binning (a large image read reduced). */
+    reduceFactor?: number;
   };
   /** µm/px used, and where it came from (file metadata, the uploader, or the readout's settings). */
   pixelSizeUm: number;

@@ -11,6 +11,7 @@ import {
   type RoiInput,
   type TableReadoutSettings,
 } from "@/lib/contracts/readout";
+import { checkStackChoice, ImagingError, pageOf, type ImageLayout } from "@/lib/imaging";
 import { READOUT_MESSAGES } from "@/lib/readout";
 import { AppError } from "../errors";
 
@@ -41,8 +42,39 @@ function checkRoiArea(roi: RoiInput | null): void {
   if (empty) throw new AppError("unprocessable", READOUT_MESSAGES.zeroAreaRoi, { field: "roi" });
 }
 
+/**
+ * The channel, plane and time point against the file's headers (recorded at upload), so a choice
+ * the file does not have is a 422 naming it as a person counts, not a failed job. Uploads made
+ * before the layout was recorded are checked by the readout itself.
+ */
+function checkStackFields(layout: ImageLayout | null | undefined, s: ImageReadoutSettings): void {
+  if (!layout) return;
+  if (layout.problem) throw new AppError("unprocessable", layout.problem, { field: "file" });
+  try {
+    checkStackChoice(layout, s, true);
+    const channel = layout.channelsIn === "pages" && s.channel !== "luminance" ? s.channel : 0;
+    const zs = s.projection === "max-z" ? Array.from({ length: layout.planes }, (_, z) => z) : [s.plane];
+    for (const z of zs) {
+      const page = pageOf(layout, channel, z, s.timePoint) + 1;
+      const damaged = layout.damagedPages.find((d) => d.page === page);
+      if (damaged)
+        throw new AppError("unprocessable", damaged.reason, {
+          field: s.projection === "max-z" ? "projection" : "plane",
+        });
+    }
+  } catch (e) {
+    if (e instanceof ImagingError) throw new AppError("unprocessable", e.message, { field: e.field ?? "channel" });
+    throw e;
+  }
+}
+
 export function resolveStartSettings(
-  upload: { kind: string; pixelSizeUm: number | null; pixelSizeSource: string | null },
+  upload: {
+    kind: string;
+    pixelSizeUm: number | null;
+    pixelSizeSource: string | null;
+    imageLayout?: ImageLayout | null;
+  },
   body: unknown,
 ): StoredReadoutSettings {
   const input = body ?? {};
@@ -51,6 +83,7 @@ export function resolveStartSettings(
     if (!parsed.success) throw parsed.error;
     const s = parsed.data;
     checkRoiArea(s.roi);
+    checkStackFields(upload.imageLayout, s);
     const pixelSizeUm = s.pixelSizeUm ?? upload.pixelSizeUm;
     if (pixelSizeUm === null || pixelSizeUm === undefined)
       throw new AppError("unprocessable", READOUT_MESSAGES.missingPixelSize, { field: "pixelSizeUm" });

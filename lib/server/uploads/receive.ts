@@ -5,8 +5,14 @@
 import "server-only";
 import { readFile } from "node:fs/promises";
 import sharp from "sharp";
-import { readPixelSize, sniffFileKind, type FileKind } from "@/lib/imaging";
-import { MAX_READOUT_PIXELS } from "@/lib/readout";
+import {
+  MAX_DECODE_PIXELS,
+  readImageLayout,
+  readPixelSize,
+  sniffFileKind,
+  type FileKind,
+  type ImageLayout,
+} from "@/lib/imaging";
 import { isZip } from "@/lib/spacing";
 import { pixelSizeSchema } from "@/lib/contracts/study";
 import { authorize, type LabContext } from "../access";
@@ -40,10 +46,10 @@ async function checkPixelLimit(path: string, name: string): Promise<void> {
     .metadata()
     .catch(() => null);
   const px = (meta?.width ?? 0) * (meta?.height ?? 0);
-  if (px > MAX_READOUT_PIXELS) {
+  if (px > MAX_DECODE_PIXELS) {
     throw new AppError(
       "too_large",
-      `“${name}” is ${meta!.width}×${meta!.height} = ${px} pixels, above the limit of ${MAX_READOUT_PIXELS} pixels (8192×8192); crop or bin it before uploading`,
+      `“${name}” is ${meta!.width}×${meta!.height} = ${px} pixels, above the limit of ${MAX_DECODE_PIXELS} pixels (about 31 600 × 31 600); crop or bin it before uploading`,
     );
   }
 }
@@ -100,8 +106,12 @@ export async function storeParsed(
   }
   let pixelSizeUm: number | null = typed;
   let pixelSizeSource: string | null = typed === null ? null : "uploader";
-  if (isImage(kind) && typed === null) {
-    const fromFile = readPixelSize(await readFile(parsed.file.path), kind);
+  let imageLayout: ImageLayout | null = null;
+  const bytes = isImage(kind) ? await readFile(parsed.file.path) : null;
+  // Headers only: channels, planes and time points, shown with the upload and checked before a readout.
+  if (bytes) imageLayout = await readImageLayout(bytes);
+  if (bytes && typed === null) {
+    const fromFile = readPixelSize(bytes, kind);
     if (fromFile.pixelSizeUm === null) {
       throw new AppError(
         "bad_input",
@@ -121,6 +131,7 @@ export async function storeParsed(
     pixelSizeUm,
     pixelSizeSource,
     ...extra,
+    imageLayout,
   };
   // Every upload gets its readout with default settings, as a background job, written in the same
   // transaction that makes the upload visible. Settings that cannot start one keep the upload.

@@ -12,6 +12,7 @@ import { can } from "@/lib/access/permissions";
 import { uploadOriginalKey } from "@/storage/keys";
 import { StorageUnavailableError } from "@/storage/object-store";
 import type { UploadKind } from "@/models/upload";
+import type { ImageLayout } from "@/lib/imaging";
 import type { LabContext } from "../access";
 import { authorize } from "../access";
 import { findDependents, refuseWithDependents } from "../dependents";
@@ -31,6 +32,8 @@ export interface UploadDto {
   sha256: string;
   pixelSizeUm: number | null;
   pixelSizeSource: string | null;
+  /** Images: size, bit depth, channels, planes (z), time points from the file's headers; null for tables and older uploads. */
+  imageLayout: ImageLayout | null;
   uploadedBy: string | null;
   uploadedByEmail: string | null;
   createdAt: string;
@@ -58,6 +61,7 @@ async function toDtos(ctx: LabContext, rows: UploadRow[]): Promise<UploadDto[]> 
     sha256: r.sha256,
     pixelSizeUm: r.pixelSizeUm,
     pixelSizeSource: r.pixelSizeSource,
+    imageLayout: r.imageLayout ?? null,
     uploadedBy: r.createdBy,
     uploadedByEmail: r.createdBy ? (emails.get(r.createdBy) ?? null) : null,
     createdAt: r.createdAt.toISOString(),
@@ -102,6 +106,7 @@ export interface IncomingFile {
   pixelSizeSource: string | null;
   /** The batch this file came with (lib/server/batches), if any. */
   batchId?: string | null;
+  imageLayout?: ImageLayout | null;
 }
 
 /** Removes what an unfinished upload left: its object, then its row (kept while the object may remain). */
@@ -153,6 +158,7 @@ export async function storeUpload<T = void>(
     pixelSizeUm: file.pixelSizeUm,
     pixelSizeSource: file.pixelSizeSource,
     batchId: file.batchId ?? null,
+    imageLayout: file.imageLayout ?? null,
     createdBy: ctx.actor.userId,
   });
   try {

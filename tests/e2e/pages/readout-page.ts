@@ -52,4 +52,14 @@ export class ReadoutPage extends LabPage {
   async rerun() {
     await this.rerunForm.getByTestId("rerun-submit").click();
   }
+
+  /** Picks a plane of a stack in the re-run form by its label, e.g. "plane 2 of 2" or "maximum over all 3 planes". */
+  async choosePlane(label: string) {
+    await this.rerunForm.getByTestId("rerun-plane").selectOption({ label });
+  }
+
+  /** Picks a channel in the re-run form by its value ("luminance", "0", "1", …). */
+  async chooseChannel(value: string) {
+    await this.rerunForm.getByTestId("rerun-channel").selectOption(value);
+  }
 }

@@ -56,7 +56,18 @@ export function settingsSummary(r: ReadoutDto): string {
         ? `ROI ${s.roi.width}×${s.roi.height} px at (${s.roi.x}, ${s.roi.y})`
         : `polygon ROI, ${s.roi.points.length} vertices`
       : "whole image";
-    return [roi, `channel ${s.channel}`, s.invert ? "inverted" : null, `flatten ${s.flatten}`, `window ${s.window}`]
+    // A stack's plane and time point, counted from 1, when other than the first (older readouts lack them).
+    const plane = s.projection === "max-z" ? "max over z" : s.plane ? `plane ${s.plane + 1}` : null;
+    const time = s.timePoint ? `time point ${s.timePoint + 1}` : null;
+    return [
+      roi,
+      `channel ${s.channel}`,
+      plane,
+      time,
+      s.invert ? "inverted" : null,
+      `flatten ${s.flatten}`,
+      `window ${s.window}`,
+    ]
       .filter(Boolean)
       .join(" · ");
   }

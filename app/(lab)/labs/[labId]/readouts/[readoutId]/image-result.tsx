@@ -11,6 +11,7 @@ import type { RoiInput } from "@/lib/contracts/readout";
 import type { ReadoutDetailDto } from "@/lib/server/readouts/readouts";
 import type { ImageReadoutResult, SpectrumProducts } from "@/lib/server/readouts/result";
 import { formatSig, pixelSizeLabel, plusMinus } from "../readout-format";
+import { describeStackUsed } from "./stack-fields";
 
 const METHOD_WORDS = {
   combined: (n: number) =>
@@ -166,7 +167,8 @@ export function ImageResult({ readout, result }: { readout: ReadoutDetailDto; re
             </span>{" "}
             <span className="text-xs text-ink-soft">
               of a {result.image.width}×{result.image.height} px {result.image.format.toUpperCase()} (
-              {result.image.bitDepth}-bit, channel {String(result.image.channelUsed)})
+              {result.image.bitDepth}-bit, channel {String(result.image.channelUsed)}
+              {describeStackUsed(result.image)})
             </span>
           </Row>
         </dl>

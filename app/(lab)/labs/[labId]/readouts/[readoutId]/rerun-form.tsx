@@ -8,6 +8,7 @@ import { RoiEditor } from "@/components/ui/roi-editor";
 import { ApiError, sendJson } from "@/lib/client/api";
 import type { RoiInput } from "@/lib/contracts/readout";
 import type { ReadoutDetailDto, ReadoutDto } from "@/lib/server/readouts/readouts";
+import { initialStackChoice, StackFields } from "./stack-fields";
 
 const selectClass = "rounded-md border border-rule bg-card px-2 py-1.5 text-sm";
 
@@ -52,6 +53,7 @@ export function RerunForm({ labId, readout }: { labId: string; readout: ReadoutD
   const [flatten, setFlatten] = useState<string>(img?.flatten ?? "plane");
   const [win, setWin] = useState<string>(img?.window ?? "hann");
   const [axis, setAxis] = useState<string>(img?.profileAxis ?? "x");
+  const [stack, setStack] = useState(() => initialStackChoice(readout));
   const used = readout.result?.type === "table" ? readout.result.mapping : null;
   const [cols, setCols] = useState({
     x: tab?.columns?.x ?? used?.x ?? "",
@@ -82,6 +84,7 @@ export function RerunForm({ labId, readout }: { labId: string; readout: ReadoutD
           flatten,
           window: win,
           profileAxis: axis,
+          ...stack,
           ...(px !== undefined ? { pixelSizeUm: px } : {}),
         }
       : {
@@ -125,6 +128,7 @@ export function RerunForm({ labId, readout }: { labId: string; readout: ReadoutD
                 first.
               </p>
             )}
+            <StackFields readout={readout} value={stack} onChange={setStack} />
             <div className="flex flex-wrap items-end gap-4">
               <Select
                 label="Channel"
