@@ -1,5 +1,8 @@
-/** How the slow background is removed before the FFT. */
-export type FlattenMethod = "plane" | "blur" | "none";
+/**
+ * How the slow background is removed before the FFT. "auto": a least-squares plane, then a
+ * Gaussian background (σ = shorter side/8) subtracted inside the analysed pixels only.
+ */
+export type FlattenMethod = "auto" | "plane" | "blur" | "none";
 
 /**
  * Least-squares plane z = c₀ + c₁x + c₂y over the included pixels, subtracted in place
@@ -101,7 +104,7 @@ function boxPass(
 }
 
 /** Three box passes per axis approximate a Gaussian of SD σ (Wells 1986, IEEE PAMI 8:234). */
-function blur(data: Float32Array, width: number, height: number, sigmaPx: number): Float32Array {
+export function blur(data: Float32Array, width: number, height: number, sigmaPx: number): Float32Array {
   const r = Math.max(1, Math.round(Math.sqrt(sigmaPx * sigmaPx + 1) - 0.5)); // 3 boxes of width 2r+1: σ² = 3·((2r+1)²−1)/12 ≈ r²
   let a = Float32Array.from(data);
   let b = new Float32Array(data.length);

@@ -2,12 +2,25 @@ import type { GreyImage } from "../imaging/grey-image";
 import { analyseSpectrum } from "./analyse-spectrum";
 import { computeAutocorrelationCheck } from "./autocorrelation";
 import { evaluatePowerLaw } from "./background-fit";
+import { applyMaskTaper } from "./mask-taper";
 import { resolveReadoutOptions, type ReadoutOptions } from "./options";
 import { computePowerSpectrum } from "./power-spectrum";
-import { prepareRegion } from "./prepare-region";
+import { prepareRegion, type PreparedRegion } from "./prepare-region";
 import type { WavelengthReadout } from "./result";
+import { describeRegion } from "./describe-region";
+import { outlineMask } from "./outline-mask";
 import { measureSubregionSpread } from "./subregion-uncertainty";
 import { applyWindow } from "./window";
+
+/** Inside a tissue mask, a peak needs MIN_PERIODS_IN_TISSUE periods across the tissue (the side of a square of its area). */
+export const MIN_PERIODS_IN_TISSUE = 4;
+
+function lowCutRings(lowCutCycles: number, ringN: number, region: PreparedRegion): number {
+  if (!region.tissueMask || !region.included) return lowCutCycles;
+  let n = 0;
+  for (const v of region.included) n += v;
+  return Math.max(lowCutCycles, (MIN_PERIODS_IN_TISSUE * ringN) / Math.sqrt(n));
+}
 
 /**
  * Reads the dominant wavelength of a grey image (SCIENCE.md §5): ROI → flatten → mean → window →
@@ -19,9 +32,12 @@ export function readWavelength(image: GreyImage, options: ReadoutOptions): Wavel
   const settings = resolveReadoutOptions(options, image.width, image.height);
   const region = prepareRegion(image, settings);
   const flattened = region.data.slice();
-  applyWindow(region.data, region.width, region.height, settings.window, settings.tukeyAlpha);
+  // Inside a tissue mask the window tapers at the tissue's edge; otherwise the chosen rectangular window.
+  if (region.tissueMask && region.included && settings.window !== "none")
+    applyMaskTaper(region.data, region.width, region.height, region.included);
+  else applyWindow(region.data, region.width, region.height, settings.window, settings.tukeyAlpha);
   const spec = computePowerSpectrum(region.data, region.width, region.height);
-  const a = analyseSpectrum(spec, settings.lowCutCycles);
+  const a = analyseSpectrum(spec, lowCutRings(settings.lowCutCycles, spec.ringN, region));
   const px = region.pixelSizeUm; // µm per analysed pixel
   const periodFound = a.significance >= settings.significanceThreshold;
   const warnings: string[] = [];
@@ -29,6 +45,7 @@ export function readWavelength(image: GreyImage, options: ReadoutOptions): Wavel
     warnings.push(
       `The region was binned ${region.binFactor}×${region.binFactor} to fit the ${settings.maxAnalysisSidePx} px analysis limit.`,
     );
+  warnings.push(...describeRegion(region));
   const lambdaPx = 1 / a.frequencyPerPx; // analysed grid
   const halfWidthPx = (lambdaPx * a.halfWidthRings) / a.refinedRing; // Δλ = λ·Δf/f
   let semPx: number | null = null,
@@ -112,6 +129,16 @@ export function readWavelength(image: GreyImage, options: ReadoutOptions): Wavel
       binFactor: region.binFactor,
       paddedWidthPx: spec.padWidth,
       paddedHeightPx: spec.padHeight,
+    },
+    tissueRegion: {
+      found: region.tissueMask !== null,
+      fraction: region.tissueFraction,
+      outline: region.tissueMask ? outlineMask(region.tissueMask, region) : null,
+    },
+    treatedPixels: {
+      saturated: region.treatedSaturatedPx,
+      bright: region.treatedBrightPx,
+      total: region.treatedSaturatedPx + region.treatedBrightPx,
     },
     warnings,
   };
