@@ -12,14 +12,22 @@ import { outlineMask } from "./outline-mask";
 import { measureSubregionSpread } from "./subregion-uncertainty";
 import { applyWindow } from "./window";
 
-/** Inside a tissue mask, a peak needs MIN_PERIODS_IN_TISSUE periods across the tissue (the side of a square of its area). */
-export const MIN_PERIODS_IN_TISSUE = 4;
+/** A peak counts only with at least this many periods across the analysed region (SCIENCE.md §5, step 5). */
+export const MIN_PERIODS_ACROSS = 4;
 
-function lowCutRings(lowCutCycles: number, ringN: number, region: PreparedRegion): number {
-  if (!region.tissueMask || !region.included) return lowCutCycles;
-  let n = 0;
-  for (const v of region.included) n += v;
-  return Math.max(lowCutCycles, (MIN_PERIODS_IN_TISSUE * ringN) / Math.sqrt(n));
+/**
+ * The lowest ring searched for the peak: MIN_PERIODS_ACROSS periods across the region's shorter
+ * side, or across a tissue mask (the side of a square of its area). Lower rings still enter the
+ * background fit (from `lowCutCycles`).
+ */
+function searchFromRing(ringN: number, region: PreparedRegion): number {
+  let extentPx = Math.min(region.width, region.height);
+  if (region.tissueMask && region.included) {
+    let n = 0;
+    for (const v of region.included) n += v;
+    extentPx = Math.min(extentPx, Math.sqrt(n));
+  }
+  return (MIN_PERIODS_ACROSS * ringN) / extentPx;
 }
 
 /**
@@ -37,7 +45,7 @@ export function readWavelength(image: GreyImage, options: ReadoutOptions): Wavel
     applyMaskTaper(region.data, region.width, region.height, region.included);
   else applyWindow(region.data, region.width, region.height, settings.window, settings.tukeyAlpha);
   const spec = computePowerSpectrum(region.data, region.width, region.height);
-  const a = analyseSpectrum(spec, lowCutRings(settings.lowCutCycles, spec.ringN, region));
+  const a = analyseSpectrum(spec, settings.lowCutCycles, [searchFromRing(spec.ringN, region), Infinity]);
   const px = region.pixelSizeUm; // µm per analysed pixel
   const periodFound = a.significance >= settings.significanceThreshold;
   const warnings: string[] = [];

@@ -43,6 +43,8 @@ export interface TissueFrame {
   saturatedPixels: number;
   /** Pixels covered by debris disks (before the blur). */
   debrisPixels: number;
+  /** Pixels that are saturated or debris (the pixels an outlier treatment should replace). */
+  outlierPixels: number;
 }
 
 const TISSUE_LEVEL = 2;
@@ -161,7 +163,12 @@ export function makeTissueFrame(o: TissueFrameOptions): TissueFrame {
     const top = satFraction > 0 ? 255 : clip;
     for (const v of data) if (v >= top) saturatedPixels++;
   }
-  let debrisPixels = 0;
-  for (const v of debris) debrisPixels += v;
-  return { image: { width, height, data }, tissueMask, saturatedPixels, debrisPixels };
+  let debrisPixels = 0,
+    outlierPixels = 0;
+  const top = satFraction > 0 ? 255 : clip;
+  for (let i = 0; i < debris.length; i++) {
+    debrisPixels += debris[i];
+    if (debris[i] || data[i] >= top) outlierPixels++;
+  }
+  return { image: { width, height, data }, tissueMask, saturatedPixels, debrisPixels, outlierPixels };
 }
