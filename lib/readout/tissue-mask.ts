@@ -1,3 +1,4 @@
+import { binPixels } from "./bin-pixels";
 import { blur } from "./flatten";
 import { distanceInside, fillHoles, keepLargestComponent } from "./mask-shape";
 import { otsuSplit } from "./otsu";
@@ -16,6 +17,8 @@ export const MIN_TEXTURE_CONTRAST = 2e-3;
 export const MIN_TEXTURE_RATIO = 4;
 /** On the textured side, the pattern's variance must be at least this many times the noise's. */
 export const MIN_TISSUE_SNR = 1;
+/** Longest side (px) of the grid the tissue is searched on. */
+const SEARCH_SIDE_PX = 1024;
 /** Half-width of the band around the texture edge that a brightness step may move (window SDs). */
 const BAND_WINDOWS = 5;
 
@@ -95,6 +98,39 @@ function refineByBrightness(cells: Uint8Array, t: TextureMap): Uint8Array {
  * above noise or far below the image's contrast, or the tissue covers under 20 % or ≥ 95 % of the region.
  */
 export function findTissueRegion(
+  residual: Float32Array,
+  intensity: Float32Array,
+  width: number,
+  height: number,
+  included: Uint8Array | null,
+): TissueRegion {
+  // Large regions are searched on a grid binned to at most SEARCH_SIDE_PX (a pattern shorter than
+  // about 3 bins then shows no texture, and the whole region is analysed).
+  const f = Math.ceil(Math.max(width, height) / SEARCH_SIDE_PX);
+  if (f <= 1) return findTissueOnGrid(residual, intensity, width, height, included);
+  const r = binPixels(residual, width, height, included, f);
+  const b = binPixels(intensity, width, height, included, f);
+  const coarse = findTissueOnGrid(r.data, b.data, r.width, r.height, r.included);
+  if (!coarse.mask) return coarse;
+  const mask = new Uint8Array(width * height);
+  let inMask = 0,
+    total = 0;
+  for (let y = 0; y < height; y++) {
+    const row = Math.min(r.height - 1, (y / f) | 0) * r.width;
+    for (let x = 0; x < width; x++) {
+      const i = y * width + x;
+      if (included && !included[i]) continue;
+      total++;
+      if (coarse.mask[row + Math.min(r.width - 1, (x / f) | 0)]) {
+        mask[i] = 1;
+        inMask++;
+      }
+    }
+  }
+  return { mask, fraction: total > 0 ? inMask / total : 1 };
+}
+
+function findTissueOnGrid(
   residual: Float32Array,
   intensity: Float32Array,
   width: number,
