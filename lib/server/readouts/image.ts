@@ -49,7 +49,13 @@ export async function runImageReadout(
   await yieldToLoop();
   const fftImage = renderFftMagnitude(image, options, readout.wavelengthPx);
   const fft = await encodePng(fftImage.image);
-  const whole = renderPreview(image, { pixelSizeUm: settings.pixelSizeUm, flatten: "none" });
+  // The whole image as stored: no flattening, no tissue mask, no outlier treatment (the page draws the tissue outline).
+  const whole = renderPreview(image, {
+    pixelSizeUm: settings.pixelSizeUm,
+    flatten: "none",
+    tissueMask: "off",
+    outliers: "off",
+  });
   const computeMs = Date.now() - t0;
   const scale = Math.min(1, PREVIEW_MAX_SIDE / Math.max(image.width, image.height));
   let preview = await encodePng(whole);
