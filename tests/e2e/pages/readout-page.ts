@@ -17,6 +17,9 @@ export class ReadoutPage extends LabPage {
   readonly settings: Locator;
   readonly siblings: Locator;
   readonly rerunForm: Locator;
+  readonly tissueRegion: Locator;
+  readonly treatedPixels: Locator;
+  readonly tissueOutline: Locator;
 
   constructor(page: Page, labId: string) {
     super(page, labId);
@@ -28,6 +31,9 @@ export class ReadoutPage extends LabPage {
     this.settings = page.getByTestId("readout-settings");
     this.siblings = page.getByTestId("sibling-readouts").locator("li");
     this.rerunForm = page.getByTestId("rerun-form");
+    this.tissueRegion = page.getByTestId("readout-tissue-region");
+    this.treatedPixels = page.getByTestId("readout-treated-pixels");
+    this.tissueOutline = page.getByTestId("readout-tissue-outline");
   }
 
   /** Fills a rectangle ROI (pixels of the original) without submitting, so the caller can look at it. */
@@ -37,6 +43,11 @@ export class ReadoutPage extends LabPage {
     await f.getByTestId("roi-y").fill(String(roi.y));
     await f.getByTestId("roi-width").fill(String(roi.width));
     await f.getByTestId("roi-height").fill(String(roi.height));
+  }
+
+  /** Fills the re-run form's ROI editor with the tissue outline found by the readout. */
+  async correctRegion() {
+    await this.rerunForm.getByTestId("rerun-correct-region").click();
   }
 
   async rerun() {
