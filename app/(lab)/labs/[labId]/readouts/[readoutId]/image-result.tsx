@@ -11,6 +11,7 @@ import type { RoiInput } from "@/lib/contracts/readout";
 import type { ReadoutDetailDto } from "@/lib/server/readouts/readouts";
 import type { ImageReadoutResult, SpectrumProducts } from "@/lib/server/readouts/result";
 import { formatSig, pixelSizeLabel, plusMinus } from "../readout-format";
+import { TissueOutline } from "./tissue-outline";
 
 const METHOD_WORDS = {
   "subregion-sem": (n: number) => `spread over ${n} overlapping sub-regions (SD/√n)`,
@@ -190,22 +191,7 @@ export function ImageResult({ readout, result }: { readout: ReadoutDetailDto; re
                 testId="readout-preview"
               />
               {tissueOutline?.kind === "polygon" && (
-                <svg
-                  viewBox={`0 0 ${result.image.width} ${result.image.height}`}
-                  preserveAspectRatio="none"
-                  className="pointer-events-none absolute left-0 top-0 w-full"
-                  style={{ aspectRatio: `${result.image.width} / ${result.image.height}` }}
-                  aria-label="tissue region found automatically"
-                  data-testid="readout-tissue-outline"
-                >
-                  <polygon
-                    points={tissueOutline.points.map((p) => p.join(",")).join(" ")}
-                    fill="none"
-                    stroke="#1f5c45"
-                    strokeWidth={Math.max(1, result.image.width / 200)}
-                    strokeDasharray={`${Math.max(2, result.image.width / 60)} ${Math.max(2, result.image.width / 90)}`}
-                  />
-                </svg>
+                <TissueOutline points={tissueOutline.points} width={result.image.width} height={result.image.height} />
               )}
             </div>
           ) : (
