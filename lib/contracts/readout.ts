@@ -74,8 +74,10 @@ export const imageReadoutSettingsSchema = z
     projection: z.enum(["none", "max-z"], 'projection must be "none" or "max-z"').default("none"),
     /** Negate intensities (dark spots on a light background). */
     invert: z.boolean("invert must be true or false").default(false),
-    /** Background flattening: fitted plane, heavy blur, or off. */
-    flatten: z.enum(["plane", "blur", "none"], 'flatten must be "plane", "blur" or "none"').default("plane"),
+    /** Background flattening: plane then a Gaussian background inside the tissue (auto), fitted plane, heavy blur, or off. */
+    flatten: z
+      .enum(["auto", "plane", "blur", "none"], 'flatten must be "auto", "plane", "blur" or "none"')
+      .default("auto"),
     window: z.enum(["hann", "tukey", "none"], 'window must be "hann", "tukey" or "none"').default("hann"),
     /** Axis of the local-wavelength profile. */
     profileAxis: z.enum(["x", "y"], 'profileAxis must be "x" or "y"').default("x"),

@@ -1,5 +1,8 @@
-/** How the slow background is removed before the FFT. */
-export type FlattenMethod = "plane" | "blur" | "none";
+/**
+ * How the slow background is removed before the FFT. "auto": a least-squares plane, then a
+ * Gaussian background (σ = shorter side/8) subtracted inside the analysed pixels only.
+ */
+export type FlattenMethod = "auto" | "plane" | "blur" | "none";
 
 /**
  * Least-squares plane z = c₀ + c₁x + c₂y over the included pixels, subtracted in place
@@ -114,6 +117,58 @@ export function blur(data: Float32Array, width: number, height: number, sigmaPx:
   return a;
 }
 
+/** Above this σ (px) the background is computed on a grid binned by ⌊σ/8⌋ and interpolated back. */
+const COARSE_SIGMA_PX = 24;
+
+/**
+ * The normalised Gaussian background on a grid binned by f, bilinearly interpolated back to every
+ * pixel. A background of σ ≥ 24 px varies little over f ≤ σ/8 px, so the error is far below the
+ * pattern's, and a 4096² frame needs a blur of 512² instead of 4096².
+ */
+function coarseBackground(
+  data: Float32Array,
+  width: number,
+  height: number,
+  included: Uint8Array | null,
+  sigmaPx: number,
+): Float32Array {
+  const f = Math.max(2, Math.floor(sigmaPx / 8));
+  const bw = Math.ceil(width / f),
+    bh = Math.ceil(height / f);
+  const sum = new Float32Array(bw * bh),
+    count = new Float32Array(bw * bh);
+  for (let y = 0; y < height; y++) {
+    const brow = ((y / f) | 0) * bw;
+    for (let x = 0; x < width; x++) {
+      const i = y * width + x;
+      if (included && !included[i]) continue;
+      const j = brow + ((x / f) | 0);
+      sum[j] += data[i];
+      count[j]++;
+    }
+  }
+  const num = blur(sum, bw, bh, sigmaPx / f),
+    den = blur(count, bw, bh, sigmaPx / f);
+  const level = Float32Array.from(num, (v, j) => (den[j] > 1e-6 ? v / den[j] : 0));
+  const out = new Float32Array(data.length);
+  for (let y = 0; y < height; y++) {
+    const gy = Math.min(bh - 1, Math.max(0, (y + 0.5) / f - 0.5));
+    const y0 = Math.floor(gy),
+      y1 = Math.min(bh - 1, y0 + 1),
+      ty = gy - y0;
+    for (let x = 0; x < width; x++) {
+      const gx = Math.min(bw - 1, Math.max(0, (x + 0.5) / f - 0.5));
+      const x0 = Math.floor(gx),
+        x1 = Math.min(bw - 1, x0 + 1),
+        tx = gx - x0;
+      const top = level[y0 * bw + x0] * (1 - tx) + level[y0 * bw + x1] * tx;
+      const bottom = level[y1 * bw + x0] * (1 - tx) + level[y1 * bw + x1] * tx;
+      out[y * width + x] = top * (1 - ty) + bottom * ty;
+    }
+  }
+  return out;
+}
+
 /**
  * Subtracts a heavily blurred copy (normalised convolution, so excluded pixels do not leak in:
  * Knutsson & Westin 1993, CVPR). σ should be several wavelengths so the pattern survives.
@@ -125,6 +180,11 @@ export function subtractBlur(
   included: Uint8Array | null,
   sigmaPx: number,
 ): void {
+  if (sigmaPx >= COARSE_SIGMA_PX) {
+    const bg = coarseBackground(data, width, height, included, sigmaPx);
+    for (let i = 0; i < data.length; i++) data[i] -= bg[i];
+    return;
+  }
   if (!included) {
     const bg = blur(data, width, height, sigmaPx);
     for (let i = 0; i < data.length; i++) data[i] -= bg[i];

@@ -1,6 +1,7 @@
 import { ReadoutError, MESSAGES } from "./errors";
 import type { FlattenMethod } from "./flatten";
 import type { Roi } from "./roi";
+import type { TissueMaskMode } from "./tissue-mask";
 import type { WindowKind } from "./window";
 
 /** Largest source image the readout accepts (px): 8192 × 8192. */
@@ -17,9 +18,13 @@ export interface ReadoutOptions {
   excludeMask?: Uint8Array | null;
   /** Negate intensities (dark-on-light patterns). The spectrum is unchanged; previews are not. @default false */
   invert?: boolean;
-  /** Background removal. @default "plane" */
+  /** Background removal: "auto" = plane, then a Gaussian background of σ = blurSigmaPx. @default "auto" */
   flatten?: FlattenMethod;
-  /** SD of the Gaussian for `flatten: "blur"` (px of the analysed grid). @default shorter side / 8 */
+  /** Find the tissue inside the region by its texture and analyse only there. @default "auto" */
+  tissueMask?: TissueMaskMode;
+  /** Replace saturated pixels and bright debris by their surroundings. @default "auto" */
+  outliers?: "auto" | "off";
+  /** SD of the Gaussian background for `flatten: "auto"` and `"blur"` (px of the analysed grid). @default shorter side / 8 */
   blurSigmaPx?: number;
   /** @default "hann" */
   window?: WindowKind;
@@ -71,9 +76,15 @@ export function resolveReadoutOptions(
   if (!Number.isFinite(o.pixelSizeUm) || o.pixelSizeUm <= 0 || o.pixelSizeUm > 1e6) {
     bad("pixelSizeUm", `pixelSizeUm must be a number above 0 and at most 1000000 µm/px (got ${o.pixelSizeUm}).`);
   }
-  const flatten = o.flatten ?? "plane";
-  if (!["plane", "blur", "none"].includes(flatten))
-    bad("flatten", `flatten must be "plane", "blur" or "none" (got ${String(flatten)}).`);
+  const flatten = o.flatten ?? "auto";
+  if (!["auto", "plane", "blur", "none"].includes(flatten))
+    bad("flatten", `flatten must be "auto", "plane", "blur" or "none" (got ${String(flatten)}).`);
+  const tissueMask = o.tissueMask ?? "auto";
+  if (!["auto", "off"].includes(tissueMask))
+    bad("tissueMask", `tissueMask must be "auto" or "off" (got ${String(tissueMask)}).`);
+  const outliers = o.outliers ?? "auto";
+  if (!["auto", "off"].includes(outliers))
+    bad("outliers", `outliers must be "auto" or "off" (got ${String(outliers)}).`);
   const window = o.window ?? "hann";
   if (!["hann", "tukey", "none"].includes(window))
     bad("window", `window must be "hann", "tukey" or "none" (got ${String(window)}).`);
@@ -102,6 +113,8 @@ export function resolveReadoutOptions(
     excludeMask: o.excludeMask ?? null,
     invert: o.invert ?? false,
     flatten,
+    tissueMask,
+    outliers,
     blurSigmaPx: o.blurSigmaPx ?? null,
     window,
     tukeyAlpha,

@@ -3,13 +3,17 @@ import { binPixels } from "./bin-pixels";
 import { MESSAGES, ReadoutError } from "./errors";
 import { subtractBlur, subtractMean, subtractPlane } from "./flatten";
 import type { ResolvedReadoutOptions } from "./options";
+import { findSaturated } from "./outliers";
+import { treatOutliers } from "./treat-outliers";
 import { extractRoi } from "./roi";
+import { findTissueRegion } from "./tissue-mask";
 
-/** The region after ROI, inversion, binning and background flattening (not yet windowed). */
+/** The region after ROI, inversion, binning, outlier treatment, tissue mask and background flattening (not yet windowed). */
 export interface PreparedRegion {
   data: Float32Array;
   width: number;
   height: number;
+  /** 1 = analysed (inside the ROI and the tissue, not excluded); null = every pixel. */
   included: Uint8Array | null;
   /** Integer binning applied to fit the analysis limit (1 = none). */
   binFactor: number;
@@ -18,9 +22,24 @@ export interface PreparedRegion {
   /** Top-left of the region in source pixels. */
   x0: number;
   y0: number;
+  /** The tissue found inside the region (analysed grid), or null: the whole region is analysed. */
+  tissueMask: Uint8Array | null;
+  /** Fraction of the region's pixels analysed after the tissue mask (1 without one). */
+  tissueFraction: number;
+  /** Source pixels replaced by their surroundings: saturated, and bright outliers with their rim. */
+  treatedSaturatedPx: number;
+  treatedBrightPx: number;
 }
 
 export const MIN_REGION_SIDE_PX = 16;
+
+/** Any-pixel binning of a mask, matching binPixels' grid. */
+function binMask(mask: Uint8Array, width: number, f: number, w: number, h: number): Uint8Array {
+  const out = new Uint8Array(w * h);
+  for (let y = 0; y < h * f; y++)
+    for (let x = 0; x < w * f; x++) if (mask[y * width + x]) out[((y / f) | 0) * w + ((x / f) | 0)] = 1;
+  return out;
+}
 
 export function prepareRegion(image: GreyImage, settings: ResolvedReadoutOptions): PreparedRegion {
   const roi = extractRoi(image, settings.roi ?? undefined, settings.excludeMask ?? undefined);
@@ -28,17 +47,43 @@ export function prepareRegion(image: GreyImage, settings: ResolvedReadoutOptions
   if (width < MIN_REGION_SIDE_PX || height < MIN_REGION_SIDE_PX) {
     throw new ReadoutError("too_small", MESSAGES.tooSmall(width, height, MIN_REGION_SIDE_PX), "roi");
   }
+  const auto = settings.outliers === "auto";
+  // Saturation is a property of the stored values: found before inversion and binning.
+  let saturated = auto ? findSaturatedIn(data, width, height, included) : null;
   if (settings.invert) for (let i = 0; i < data.length; i++) data[i] = -data[i];
   let binFactor = 1;
   while (Math.max(width, height) / binFactor > settings.maxAnalysisSidePx) binFactor++;
-  if (binFactor > 1) ({ data, width, height, included } = binPixels(data, width, height, included, binFactor));
+  if (binFactor > 1) {
+    const sourceWidth = width;
+    ({ data, width, height, included } = binPixels(data, width, height, included, binFactor));
+    if (saturated) saturated = { ...saturated, mask: binMask(saturated.mask, sourceWidth, binFactor, width, height) };
+  }
   let scale = 0;
   for (let i = 0; i < data.length; i += 97) scale = Math.max(scale, Math.abs(data[i]));
-  if (settings.flatten === "plane") subtractPlane(data, width, height, included);
-  else if (settings.flatten === "blur")
-    subtractBlur(data, width, height, included, settings.blurSigmaPx ?? Math.min(width, height) / 8);
+  const sigmaPx = settings.blurSigmaPx ?? Math.min(width, height) / 8;
+  if (settings.flatten === "auto") subtractPlane(data, width, height, included);
+  // The background model behind the outlier and tissue search (and the "auto" flattening when nothing changes).
+  const residual = data.slice();
+  subtractBlur(residual, width, height, included, sigmaPx);
+  const treated = auto
+    ? treatOutliers(data, residual, width, height, included, saturated?.mask ?? null)
+    : { changed: false, saturated: 0, bright: 0 };
+  const tissue =
+    settings.tissueMask === "auto"
+      ? findTissueRegion(residual, data, width, height, included)
+      : { mask: null, fraction: 1 };
+  if (tissue.mask) {
+    if (included) for (let i = 0; i < included.length; i++) included[i] &= tissue.mask[i];
+    else included = tissue.mask.slice();
+  }
+  if (settings.flatten === "auto") {
+    if (tissue.mask || treated.changed) subtractBlur(data, width, height, included, sigmaPx);
+    else data = residual;
+  } else if (settings.flatten === "plane") subtractPlane(data, width, height, included);
+  else if (settings.flatten === "blur") subtractBlur(data, width, height, included, sigmaPx);
   const sd = subtractMean(data, included);
   if (!(sd > 1e-6 * Math.max(1, scale))) throw new ReadoutError("no_variation", MESSAGES.noVariation, "image");
+  const perSource = binFactor * binFactor;
   return {
     data,
     width,
@@ -48,5 +93,26 @@ export function prepareRegion(image: GreyImage, settings: ResolvedReadoutOptions
     pixelSizeUm: settings.pixelSizeUm * binFactor,
     x0: roi.x0,
     y0: roi.y0,
+    tissueMask: tissue.mask,
+    tissueFraction: tissue.fraction,
+    treatedSaturatedPx: saturated ? saturated.count : 0,
+    treatedBrightPx: treated.bright * perSource,
   };
+}
+
+/** Saturated pixels among the analysed ones, with their count in source pixels. */
+function findSaturatedIn(
+  data: Float32Array,
+  width: number,
+  height: number,
+  included: Uint8Array | null,
+): { mask: Uint8Array; count: number } | null {
+  const mask = findSaturated(data, width, height);
+  if (!mask) return null;
+  let count = 0;
+  for (let i = 0; i < mask.length; i++) {
+    if (included && !included[i]) mask[i] = 0;
+    count += mask[i];
+  }
+  return count > 0 ? { mask, count } : null;
 }

@@ -2,16 +2,37 @@ import type { GreyImage } from "../imaging/grey-image";
 import { analyseSpectrum } from "./analyse-spectrum";
 import { computeAutocorrelationCheck } from "./autocorrelation";
 import { evaluatePowerLaw } from "./background-fit";
+import { applyMaskTaper } from "./mask-taper";
 import { resolveReadoutOptions, type ReadoutOptions } from "./options";
 import { computePowerSpectrum } from "./power-spectrum";
-import { prepareRegion } from "./prepare-region";
+import { prepareRegion, type PreparedRegion } from "./prepare-region";
 import type { WavelengthReadout } from "./result";
 import type { SpectrumAnalysis } from "./analyse-spectrum";
 import { combineWavelengthUncertainty } from "./uncertainty";
 import { isSpotPacking, measureRegionSpotOrder } from "./spot-order";
 import { measureWavelengthDrift, type WavelengthDrift } from "./wavelength-drift";
 import { formatPlain } from "../format/measurement";
+import { describeRegion } from "./describe-region";
+import { outlineMask } from "./outline-mask";
 import { measureSubregionSpread } from "./subregion-uncertainty";
+
+/** A peak counts only with at least this many periods across the analysed region (SCIENCE.md §5, step 5). */
+export const MIN_PERIODS_ACROSS = 4;
+
+/**
+ * The lowest ring searched for the peak: MIN_PERIODS_ACROSS periods across the region's shorter
+ * side, or across a tissue mask (the side of a square of its area). Lower rings still enter the
+ * background fit (from `lowCutCycles`).
+ */
+function searchFromRing(ringN: number, region: PreparedRegion): number {
+  let extentPx = Math.min(region.width, region.height);
+  if (region.tissueMask && region.included) {
+    let n = 0;
+    for (const v of region.included) n += v;
+    extentPx = Math.min(extentPx, Math.sqrt(n));
+  }
+  return (MIN_PERIODS_ACROSS * ringN) / extentPx;
+}
 
 /**
  * Reads the dominant wavelength of a grey image (SCIENCE.md §5): ROI → flatten → mean → window →
@@ -22,9 +43,16 @@ import { measureSubregionSpread } from "./subregion-uncertainty";
 export function readWavelength(image: GreyImage, options: ReadoutOptions): WavelengthReadout {
   const settings = resolveReadoutOptions(options, image.width, image.height);
   const region = prepareRegion(image, settings);
-  const flattened = region.data; // windowed on the fly by the FFT, so no copy is needed for the sub-regions
-  const spec = computePowerSpectrum(region.data, region.width, region.height, settings);
-  const a = analyseSpectrum(spec, settings.lowCutCycles);
+  // The flattened region stays unwindowed for the sub-regions and the spot search: the separable
+  // window is applied on the fly by the FFT; inside a tissue mask a copy tapers at the tissue's edge.
+  const flattened = region.data;
+  let spec;
+  if (region.tissueMask && region.included && settings.window !== "none") {
+    const tapered = region.data.slice();
+    applyMaskTaper(tapered, region.width, region.height, region.included);
+    spec = computePowerSpectrum(tapered, region.width, region.height, { ...settings, window: "none" });
+  } else spec = computePowerSpectrum(region.data, region.width, region.height, settings);
+  const a = analyseSpectrum(spec, settings.lowCutCycles, [searchFromRing(spec.ringN, region), Infinity]);
   const px = region.pixelSizeUm; // µm per analysed pixel
   const periodFound = a.significance >= settings.significanceThreshold;
   const warnings: string[] = [];
@@ -32,6 +60,7 @@ export function readWavelength(image: GreyImage, options: ReadoutOptions): Wavel
     warnings.push(
       `The region was binned ${region.binFactor}×${region.binFactor} to fit the ${settings.maxAnalysisSidePx} px analysis limit.`,
     );
+  warnings.push(...describeRegion(region));
   const lambdaPx = 1 / a.frequencyPerPx; // analysed grid
   const halfWidthPx = (lambdaPx * a.halfWidthRings) / a.refinedRing; // Δλ = λ·Δf/f
   let semPx: number | null = null,
@@ -162,6 +191,16 @@ export function readWavelength(image: GreyImage, options: ReadoutOptions): Wavel
       binFactor: region.binFactor,
       paddedWidthPx: spec.padWidth,
       paddedHeightPx: spec.padHeight,
+    },
+    tissueRegion: {
+      found: region.tissueMask !== null,
+      fraction: region.tissueFraction,
+      outline: region.tissueMask ? outlineMask(region.tissueMask, region) : null,
+    },
+    treatedPixels: {
+      saturated: region.treatedSaturatedPx,
+      bright: region.treatedBrightPx,
+      total: region.treatedSaturatedPx + region.treatedBrightPx,
     },
     warnings,
   };

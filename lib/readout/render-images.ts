@@ -1,5 +1,6 @@
 import type { GreyImage } from "../imaging/grey-image";
 import { resolveReadoutOptions, type ReadoutOptions } from "./options";
+import { applyMaskTaper } from "./mask-taper";
 import { computePowerSpectrum } from "./power-spectrum";
 import { prepareRegion } from "./prepare-region";
 import { applyWindow } from "./window";
@@ -37,7 +38,9 @@ export function renderFftMagnitude(
 ): FftImage {
   const settings = resolveReadoutOptions(options, image.width, image.height);
   const region = prepareRegion(image, settings);
-  applyWindow(region.data, region.width, region.height, settings.window, settings.tukeyAlpha);
+  if (region.tissueMask && region.included && settings.window !== "none")
+    applyMaskTaper(region.data, region.width, region.height, region.included);
+  else applyWindow(region.data, region.width, region.height, settings.window, settings.tukeyAlpha);
   const s = computePowerSpectrum(region.data, region.width, region.height);
   const W = s.padWidth,
     H = s.padHeight;

@@ -76,5 +76,15 @@ export interface WavelengthReadout {
     paddedWidthPx: number;
     paddedHeightPx: number;
   };
+  /** The tissue found inside the region: analysed only there, with a window tapering at its edge. */
+  tissueRegion: {
+    found: boolean;
+    /** Fraction of the region's pixels analysed (1 = the whole region). */
+    fraction: number;
+    /** Convex outline of the tissue in source pixels [x, y], for drawing and as a polygon ROI; null without a mask. */
+    outline: Array<[number, number]> | null;
+  };
+  /** Source pixels replaced by their surroundings before the spectrum. */
+  treatedPixels: { saturated: number; bright: number; total: number };
   warnings: string[];
 }

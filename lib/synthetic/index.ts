@@ -7,3 +7,5 @@ export { SyntheticOptionError, SYNTHETIC_ERROR_CODES, MAX_SYNTHETIC_SIDE_PX } fr
 export { createRng, type Rng } from "./random";
 export type { GreyImage } from "../imaging/grey-image";
 export { makeMicroscopeFrame, type MicroscopeFrameOptions } from "./make-microscope-frame";
+export { makeTissueFrame, type TissueFrame, type TissueFrameOptions, type TissueOptions } from "./make-tissue-frame";
+export type { TissueShape } from "./tissue-shape";

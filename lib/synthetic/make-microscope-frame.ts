@@ -110,7 +110,7 @@ export function makeMicroscopeFrame(o: MicroscopeFrameOptions): GreyImage {
 }
 
 /** Separable Gaussian blur with a kernel of ±3σ, edges clamped. */
-function gaussianBlur(data: Float32Array, width: number, height: number, sigma: number): Float32Array {
+export function gaussianBlur(data: Float32Array, width: number, height: number, sigma: number): Float32Array {
   const r = Math.ceil(3 * sigma);
   const k = Float64Array.from({ length: 2 * r + 1 }, (_, j) => Math.exp(-((j - r) ** 2) / (2 * sigma * sigma)));
   const sum = k.reduce((a, b) => a + b, 0);

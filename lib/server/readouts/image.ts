@@ -54,7 +54,13 @@ export async function runImageReadout(
     readout.wavelengthPx === null ? null : readout.wavelengthPx / factor,
   );
   const fft = await encodePng(fftImage.image);
-  const whole = renderPreview(source.whole, { pixelSizeUm: settings.pixelSizeUm, flatten: "none" });
+  // The whole image as stored: no flattening, no tissue mask, no outlier treatment (the page draws the tissue outline).
+  const whole = renderPreview(source.whole, {
+    pixelSizeUm: settings.pixelSizeUm,
+    flatten: "none",
+    tissueMask: "off",
+    outliers: "off",
+  });
   const computeMs = Date.now() - t0;
   const scale = Math.min(1, PREVIEW_MAX_SIDE / Math.max(info.width, info.height));
   let preview = await encodePng(whole);

@@ -19,6 +19,9 @@ export class ReadoutPage extends LabPage {
   readonly rerunForm: Locator;
   readonly error: Locator;
   readonly tableColumns: Locator;
+  readonly tissueRegion: Locator;
+  readonly treatedPixels: Locator;
+  readonly tissueOutline: Locator;
 
   constructor(page: Page, labId: string) {
     super(page, labId);
@@ -32,6 +35,9 @@ export class ReadoutPage extends LabPage {
     this.rerunForm = page.getByTestId("rerun-form");
     this.error = page.getByTestId("readout-error");
     this.tableColumns = page.getByTestId("table-columns");
+    this.tissueRegion = page.getByTestId("readout-tissue-region");
+    this.treatedPixels = page.getByTestId("readout-treated-pixels");
+    this.tissueOutline = page.getByTestId("readout-tissue-outline");
   }
 
   /** Fills the column fields of a table re-run (header names or letters) without submitting. */
@@ -47,6 +53,11 @@ export class ReadoutPage extends LabPage {
     await f.getByTestId("roi-y").fill(String(roi.y));
     await f.getByTestId("roi-width").fill(String(roi.width));
     await f.getByTestId("roi-height").fill(String(roi.height));
+  }
+
+  /** Fills the re-run form's ROI editor with the tissue outline found by the readout. */
+  async correctRegion() {
+    await this.rerunForm.getByTestId("rerun-correct-region").click();
   }
 
   async rerun() {

@@ -12,6 +12,7 @@ import type { ReadoutDetailDto } from "@/lib/server/readouts/readouts";
 import type { ImageReadoutResult, SpectrumProducts } from "@/lib/server/readouts/result";
 import { formatSig, pixelSizeLabel, plusMinus } from "../readout-format";
 import { describeStackUsed } from "./stack-fields";
+import { TissueOutline } from "./tissue-outline";
 
 const METHOD_WORDS = {
   combined: (n: number) =>
@@ -42,6 +43,10 @@ export function ImageResult({ readout, result }: { readout: ReadoutDetailDto; re
   const { data: spectrum } = useSWR<SpectrumProducts>(readout.derived["spectrum.json"] ?? null, fetchJson);
   const roi = readout.settings.kind === "image" ? (readout.settings.roi as RoiInput | null) : null;
   const hex = w.symmetry === "hexagonal";
+  // Readouts stored before the tissue search have neither field.
+  const tissue = w.tissueRegion ?? null;
+  const treated = w.treatedPixels ?? null;
+  const tissueOutline: RoiInput | null = tissue?.outline ? { kind: "polygon", points: tissue.outline } : null;
   return (
     <div className="space-y-5">
       <Panel title="Numbers">
@@ -171,6 +176,33 @@ export function ImageResult({ readout, result }: { readout: ReadoutDetailDto; re
               {describeStackUsed(result.image)})
             </span>
           </Row>
+          <Row label="Region analysed" testId="readout-tissue-region">
+            {tissue?.found ? (
+              <>
+                the tissue found automatically: <span className="num">{formatSig(100 * tissue.fraction, 3)} %</span> of
+                the {roi ? "region of interest" : "image"}{" "}
+                <span className="text-xs text-ink-soft">
+                  (green dashed outline on the preview; the rest looks like slide or mounting medium)
+                </span>
+              </>
+            ) : (
+              <>the whole {roi ? "region of interest" : "image"}</>
+            )}
+          </Row>
+          <Row label="Pixels treated" testId="readout-treated-pixels">
+            {treated && treated.total > 0 ? (
+              <>
+                <span className="num">{treated.total.toLocaleString("en-GB")}</span> replaced by the surrounding
+                intensity{" "}
+                <span className="text-xs text-ink-soft">
+                  (<span className="num">{treated.saturated.toLocaleString("en-GB")}</span> saturated or clipped,{" "}
+                  <span className="num">{treated.bright.toLocaleString("en-GB")}</span> bright debris with its rim)
+                </span>
+              </>
+            ) : (
+              "none"
+            )}
+          </Row>
         </dl>
         {w.warnings.length > 0 && (
           <div className="mt-3 space-y-1">
@@ -185,20 +217,26 @@ export function ImageResult({ readout, result }: { readout: ReadoutDetailDto; re
       <div className="grid gap-5 lg:grid-cols-2">
         <Panel title="Preview with the region of interest">
           {readout.derived["preview.png"] ? (
-            <RoiEditor
-              imageUrl={readout.derived["preview.png"]}
-              width={result.image.width}
-              height={result.image.height}
-              value={roi}
-              readOnly
-              testId="readout-preview"
-            />
+            <div className="relative">
+              <RoiEditor
+                imageUrl={readout.derived["preview.png"]}
+                width={result.image.width}
+                height={result.image.height}
+                value={roi}
+                readOnly
+                testId="readout-preview"
+              />
+              {tissueOutline?.kind === "polygon" && (
+                <TissueOutline points={tissueOutline.points} width={result.image.width} height={result.image.height} />
+              )}
+            </div>
           ) : (
             <p className="text-sm text-ink-soft">No preview stored.</p>
           )}
           <p className="mt-1 text-xs text-ink-soft">
             Whole image, contrast stretched; amber outline: the ROI (
-            {roi ? "as set" : "none — the whole image was read"}).
+            {roi ? "as set" : "none — the whole image was read"})
+            {tissueOutline ? "; green dashed outline: the tissue region analysed (correct it below)" : ""}.
           </p>
         </Panel>
         <Panel title="FFT magnitude">

@@ -50,7 +50,7 @@ export function RerunForm({ labId, readout }: { labId: string; readout: ReadoutD
   const [roi, setRoi] = useState<RoiInput | null>((img?.roi as RoiInput | null) ?? null);
   const [channel, setChannel] = useState(String(img?.channel ?? "luminance"));
   const [invert, setInvert] = useState(img?.invert ?? false);
-  const [flatten, setFlatten] = useState<string>(img?.flatten ?? "plane");
+  const [flatten, setFlatten] = useState<string>(img?.flatten ?? "auto");
   const [win, setWin] = useState<string>(img?.window ?? "hann");
   const [axis, setAxis] = useState<string>(img?.profileAxis ?? "x");
   const [stack, setStack] = useState(() => initialStackChoice(readout));
@@ -69,6 +69,8 @@ export function RerunForm({ labId, readout }: { labId: string; readout: ReadoutD
   );
   const [pixelSize, setPixelSize] = useState("");
   const image = readout.result?.type === "image" ? readout.result.image : null;
+  const tissueOutline =
+    readout.result?.type === "image" ? (readout.result.wavelength.tissueRegion?.outline ?? null) : null;
   const channels = image?.channels ?? 3;
 
   async function submit(e: React.FormEvent) {
@@ -114,6 +116,16 @@ export function RerunForm({ labId, readout }: { labId: string; readout: ReadoutD
         </p>
         {img && (
           <>
+            {image && tissueOutline && (
+              <Button
+                type="button"
+                variant="secondary"
+                onClick={() => setRoi({ kind: "polygon", points: tissueOutline })}
+                data-testid="rerun-correct-region"
+              >
+                Correct the region
+              </Button>
+            )}
             {image ? (
               <RoiEditor
                 imageUrl={readout.derived["preview.png"] ?? null}
@@ -149,6 +161,7 @@ export function RerunForm({ labId, readout }: { labId: string; readout: ReadoutD
                 onChange={setFlatten}
                 testId="rerun-flatten"
                 options={[
+                  ["auto", "on — plane, then a smooth background inside the tissue"],
                   ["plane", "on — subtract a fitted plane"],
                   ["blur", "on — subtract a heavy blur"],
                   ["none", "off"],

@@ -1,0 +1,121 @@
+import { blur } from "./flatten";
+
+/** Pixels replaced by their local surroundings before the spectrum, and why. */
+export interface TreatedPixels {
+  /** 1 = treated, per pixel of the grid it was found on; null when none. */
+  mask: Uint8Array | null;
+  /** At the stored maximum or minimum, in blocks of at least 2 × 2 (a saturated detector, a clipped floor). */
+  saturated: number;
+  /** Bright outliers (debris) above the robust threshold, and the 1-px rim grown around them. */
+  bright: number;
+}
+
+/** A robust z above this (in SDs estimated from the median absolute deviation) marks a bright outlier. */
+export const BRIGHT_OUTLIER_Z = 6;
+
+/**
+ * Clipped pixels: at the highest (saturated) or lowest (clipped floor) value of the region and part
+ * of a 2 × 2 block at that value. A lone extreme (the crest of a clean stripe, the centre of a
+ * spot) is not clipping; a clipped spot top or a debris core is a blob. Both ends are treated
+ * alike, so a pattern and its negative read the same. Run on the stored values.
+ */
+export function findSaturated(data: Float32Array, width: number, height: number): Uint8Array | null {
+  let top = -Infinity,
+    bottom = Infinity;
+  for (let i = 0; i < data.length; i++) {
+    if (data[i] > top) top = data[i];
+    if (data[i] < bottom) bottom = data[i];
+  }
+  if (!(top > bottom)) return null;
+  const mask = new Uint8Array(data.length);
+  let n = 0;
+  for (const level of [top, bottom])
+    for (let y = 0; y + 1 < height; y++) {
+      const row = y * width;
+      for (let x = 0; x + 1 < width; x++) {
+        const i = row + x;
+        if (data[i] === level && data[i + 1] === level && data[i + width] === level && data[i + width + 1] === level) {
+          mask[i] = mask[i + 1] = mask[i + width] = mask[i + width + 1] = 1;
+          n++;
+        }
+      }
+    }
+  return n > 0 ? mask : null;
+}
+
+/** The values of every k-th included pixel, sorted (k chosen for at most ~100 000 values). */
+function sampleSorted(data: Float32Array, included: Uint8Array | null, skip: Uint8Array | null): Float32Array {
+  const step = Math.max(1, Math.floor(data.length / 100_000));
+  const out: number[] = [];
+  for (let i = 0; i < data.length; i += step) if ((!included || included[i]) && !(skip && skip[i])) out.push(data[i]);
+  return Float32Array.from(out).sort();
+}
+
+/**
+ * Bright outliers of a background-flattened image: above median + max(6·1.4826·MAD, 2·(q98 − median)).
+ * The MAD term is the robust z-score of Iglewicz & Hoaglin (1993, "How to detect and handle
+ * outliers", ASQC); the q98 term keeps the bright tops of a sparse spot pattern, which a MAD
+ * fitted mostly to the gaps between spots would call outliers, inside the pattern.
+ */
+export function findBrightOutliers(
+  residual: Float32Array,
+  included: Uint8Array | null,
+  already: Uint8Array | null,
+): Uint8Array | null {
+  const s = sampleSorted(residual, included, already);
+  if (s.length < 16) return null;
+  const q = (f: number) => s[Math.min(s.length - 1, Math.floor(f * s.length))];
+  const median = q(0.5);
+  const dev = Float32Array.from(s, (v) => Math.abs(v - median)).sort();
+  const sd = 1.4826 * dev[Math.floor(dev.length / 2)];
+  const limit = median + Math.max(BRIGHT_OUTLIER_Z * sd, 2 * (q(0.98) - median));
+  if (!(limit > median)) return null;
+  const mask = new Uint8Array(residual.length);
+  let n = 0;
+  for (let i = 0; i < residual.length; i++)
+    if (residual[i] > limit && (!included || included[i]) && !(already && already[i])) {
+      mask[i] = 1;
+      n++;
+    }
+  return n > 0 ? mask : null;
+}
+
+/** Grows a mask by one pixel (8-neighbourhood): the blurred rim of a debris particle goes with it. */
+export function growByOne(mask: Uint8Array, width: number, height: number): Uint8Array {
+  const out = mask.slice();
+  for (let y = 0; y < height; y++)
+    for (let x = 0; x < width; x++) {
+      if (!mask[y * width + x]) continue;
+      for (let dy = -1; dy <= 1; dy++)
+        for (let dx = -1; dx <= 1; dx++) {
+          const xx = x + dx,
+            yy = y + dy;
+          if (xx >= 0 && yy >= 0 && xx < width && yy < height) out[yy * width + xx] = 1;
+        }
+    }
+  return out;
+}
+
+/**
+ * Replaces treated pixels by the Gaussian-weighted mean (σ = 2 px) of the untreated pixels
+ * around them (normalised convolution, Knutsson & Westin 1993, CVPR); where none are near,
+ * by `background`. Holes then carry the local level, neither a spike nor a step.
+ */
+export function inpaintTreated(
+  data: Float32Array,
+  width: number,
+  height: number,
+  treated: Uint8Array,
+  background: Float32Array,
+): void {
+  const kept = new Float32Array(data.length),
+    weight = new Float32Array(data.length);
+  for (let i = 0; i < data.length; i++)
+    if (!treated[i]) {
+      kept[i] = data[i];
+      weight[i] = 1;
+    }
+  const num = blur(kept, width, height, 2),
+    den = blur(weight, width, height, 2);
+  for (let i = 0; i < data.length; i++) if (treated[i]) data[i] = den[i] > 1e-3 ? num[i] / den[i] : background[i];
+}

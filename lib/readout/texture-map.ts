@@ -1,0 +1,105 @@
+import { blur } from "./flatten";
+
+/** Local texture and brightness of a region on a coarse grid of c × c px cells. */
+export interface TextureMap {
+  /** Cell side (px) and grid size. */
+  cellPx: number;
+  columns: number;
+  rows: number;
+  /** SD of the Gaussian window the statistics are taken in (cells). */
+  windowCells: number;
+  /** log of (pattern variance ÷ noise variance) in the window, floored at log(MIN_SNR). */
+  logSnr: Float32Array;
+  /** Local mean of the intensity before the Gaussian background is removed (the pattern averaged out). */
+  brightness: Float32Array;
+  /** Local SD of the band-passed image (pattern and noise): the scale a brightness step is judged against. */
+  sd: Float32Array;
+  /** 1 where at least half the cell is analysed. */
+  use: Uint8Array;
+}
+
+/** Texture-to-noise ratios below this are noise (a floor for the logarithm). */
+export const MIN_SNR = 0.05;
+/** Light smoothing (px) against pixel noise before the local variance. */
+const SMOOTH_SIGMA_PX = 1.5;
+
+let gains: { smoothGain: number; fineGain: number } | null = null;
+/** Σg² and Σ(δ − g)² of the smoothing kernel g: the share of white-noise variance each part keeps. */
+function noiseGains(): { smoothGain: number; fineGain: number } {
+  if (gains) return gains;
+  const n = 41,
+    impulse = new Float32Array(n * n);
+  impulse[20 * n + 20] = 1;
+  const g = blur(impulse, n, n, SMOOTH_SIGMA_PX);
+  let smoothGain = 0,
+    fineGain = 0;
+  for (let i = 0; i < g.length; i++) {
+    smoothGain += g[i] * g[i];
+    fineGain += (impulse[i] - g[i]) ** 2;
+  }
+  gains = { smoothGain, fineGain };
+  return gains;
+}
+
+/**
+ * The texture map behind the tissue search. The flattened image is smoothed lightly (σ 1.5 px,
+ * against pixel noise) and band-passed (minus a blur of the window's σ, so that a residual slow
+ * background or the tissue's edge is not texture); its variance in a Gaussian window of σ =
+ * shorter side/40 (at least 3 px) less the white-noise share, estimated from the fine rest
+ * (image − smoothed) in the same window, is the pattern's variance. Divided by the noise's, it
+ * does not depend on illumination for shot-noise-limited frames.
+ */
+export function computeTextureMap(
+  residual: Float32Array,
+  intensity: Float32Array,
+  width: number,
+  height: number,
+  included: Uint8Array | null,
+): TextureMap | null {
+  const c = Math.max(1, Math.ceil(Math.max(width, height) / 256));
+  const cw = Math.floor(width / c),
+    ch = Math.floor(height / c);
+  if (cw < 8 || ch < 8) return null;
+  const windowPx = Math.max(3, Math.min(width, height) / 40);
+  const smooth = blur(residual, width, height, SMOOTH_SIGMA_PX);
+  const slow = blur(smooth, width, height, windowPx);
+  const m1 = new Float32Array(cw * ch),
+    m2 = new Float32Array(cw * ch),
+    f2 = new Float32Array(cw * ch),
+    mb = new Float32Array(cw * ch),
+    w = new Float32Array(cw * ch);
+  for (let y = 0; y < ch * c; y++) {
+    const crow = ((y / c) | 0) * cw;
+    for (let x = 0; x < cw * c; x++) {
+      const i = y * width + x;
+      if (included && !included[i]) continue;
+      const j = crow + ((x / c) | 0);
+      const band = smooth[i] - slow[i],
+        fine = residual[i] - smooth[i];
+      m1[j] += band;
+      m2[j] += band * band;
+      f2[j] += fine * fine;
+      mb[j] += intensity[i];
+      w[j]++;
+    }
+  }
+  const windowCells = windowPx / c;
+  const [b1, b2, bf, bb, bw] = [m1, m2, f2, mb, w].map((m) => blur(m, cw, ch, windowCells));
+  const { smoothGain, fineGain } = noiseGains();
+  const logSnr = new Float32Array(cw * ch),
+    brightness = new Float32Array(cw * ch),
+    sd = new Float32Array(cw * ch),
+    use = new Uint8Array(cw * ch);
+  for (let j = 0; j < logSnr.length; j++) {
+    if (bw[j] <= 0) continue;
+    const mean = b1[j] / bw[j];
+    // White noise of variance σ² leaves σ²·fineGain in the fine rest and σ²·smoothGain in the smoothed image.
+    const noise = ((bf[j] / bw[j]) * smoothGain) / fineGain;
+    const texture = b2[j] / bw[j] - mean * mean - noise;
+    logSnr[j] = Math.log(Math.max(texture / Math.max(noise, 1e-30), MIN_SNR));
+    brightness[j] = bb[j] / bw[j];
+    sd[j] = Math.sqrt(Math.max(0, b2[j] / bw[j] - mean * mean));
+    use[j] = 2 * w[j] >= c * c ? 1 : 0;
+  }
+  return { cellPx: c, columns: cw, rows: ch, windowCells, logSnr, brightness, sd, use };
+}
