@@ -47,10 +47,11 @@ export function readWavelength(image: GreyImage, options: ReadoutOptions): Wavel
   // window is applied on the fly by the FFT; inside a tissue mask a copy tapers at the tissue's edge.
   const flattened = region.data;
   let spec;
-  if (region.tissueMask && region.included && settings.window !== "none") {
-    const tapered = region.data.slice();
-    applyMaskTaper(tapered, region.width, region.height, region.included);
-    spec = computePowerSpectrum(tapered, region.width, region.height, { ...settings, window: "none" });
+  const tapered = !!(region.tissueMask && region.included && settings.window !== "none");
+  if (tapered) {
+    const copy = region.data.slice();
+    applyMaskTaper(copy, region.width, region.height, region.included!);
+    spec = computePowerSpectrum(copy, region.width, region.height, { ...settings, window: "none" });
   } else spec = computePowerSpectrum(region.data, region.width, region.height, settings);
   const a = analyseSpectrum(spec, settings.lowCutCycles, [searchFromRing(spec.ringN, region), Infinity]);
   const px = region.pixelSizeUm; // µm per analysed pixel
@@ -92,6 +93,8 @@ export function readWavelength(image: GreyImage, options: ReadoutOptions): Wavel
     wavelengthPx: lambdaPx,
     binPerPx: peakBinPerPx(a, spec.padWidth, spec.padHeight),
     subregionSemPx: semPx,
+    excludedFraction: excludedFractionOf(region.included),
+    maskTapered: tapered,
     peakSnr: a.peak2d ? a.peak2d.power / evaluatePowerLaw(a.background, a.frequencyPerPx) : 1,
   });
   const uncertaintyPx = u.uncertaintyPx;
@@ -149,7 +152,12 @@ export function readWavelength(image: GreyImage, options: ReadoutOptions): Wavel
     uncertaintyMethod: periodFound ? "combined" : null,
     expandedUncertainty95Um: periodFound ? u.expanded95Px * px : null,
     uncertaintyComponentsUm: periodFound
-      ? { subregion: u.subregionPx * px, localisation: u.localisationPx * px, resolution: u.resolutionPx * px }
+      ? {
+          subregion: u.subregionPx * px,
+          localisation: u.localisationPx * px,
+          resolution: u.resolutionPx * px,
+          mask: u.maskPx * px,
+        }
       : null,
     subregionSemUm: semPx !== null ? semPx * px : null,
     subregionCount,
@@ -212,4 +220,12 @@ function peakBinPerPx(a: SpectrumAnalysis, padWidth: number, padHeight: number):
   const f = p ? Math.hypot(p.fx, p.fy) : 0;
   if (!p || !(f > 0)) return 1 / Math.sqrt(padWidth * padHeight);
   return Math.hypot(p.fx / f / padWidth, p.fy / f / padHeight);
+}
+
+/** Share of the analysed rectangle outside the mask (0 without one). */
+function excludedFractionOf(included: Uint8Array | null): number {
+  if (!included) return 0;
+  let n = 0;
+  for (let i = 0; i < included.length; i++) n += included[i] ? 1 : 0;
+  return 1 - n / included.length;
 }

@@ -24,7 +24,7 @@ export interface WavelengthReadout {
   /** Half-width of the 95 % interval, λ ± 2u (µm, k = 2). */
   expandedUncertainty95Um: number | null;
   /** The components combined into uncertaintyUm (µm): sub-region spread, localisation in noise, interpolation residual. */
-  uncertaintyComponentsUm: { subregion: number; localisation: number; resolution: number } | null;
+  uncertaintyComponentsUm: { subregion: number; localisation: number; resolution: number; mask: number } | null;
   /** SD/√n of λ over the usable sub-regions (µm), when there were ≥ 3. */
   subregionSemUm: number | null;
   /** Number of usable sub-regions behind subregionSemUm. */

@@ -10,6 +10,10 @@
  *   background at that frequency.
  * - u_res, Type B: the residual of interpolating the peak between bins with a log-parabola, bounded
  *   by a small fraction δ of a bin whatever the noise (a perfect lattice still has it), u_res = δ·Δf_bin.
+ * - u_mask, Type B: a mask (tissue region, polygon ROI, excluded pixels) makes the aperture irregular, so
+ *   the peak's lobe is no longer the window's and its interpolation is biased; u_mask = μ·f_ex·Δf_bin
+ *   with f_ex the excluded share of the analysed rectangle; smaller where the window tapers at the
+ *   mask's edge (tissue masks) than for a hard edge.
  *
  * κ and δ were calibrated on generated frames with exact truth (tests/lib/readout/
  * uncertainty-calibration.test.ts): |error| ≤ 2u in ≥ 95 % of cases and u not more than 5× the
@@ -18,6 +22,8 @@
  */
 export const LOCALISATION_KAPPA = 1;
 export const RESOLUTION_BINS = 0.02;
+/** μ for a hard-edged mask (polygon ROI, excluded pixels) and for a tissue mask the window tapers at. */
+export const MASK_BINS = { hard: 1, tapered: 0.3 } as const;
 export const COVERAGE_FACTOR_95 = 2;
 
 export interface WavelengthUncertaintyInput {
@@ -27,6 +33,10 @@ export interface WavelengthUncertaintyInput {
   binPerPx: number;
   /** SD/√n_eff of the sub-region wavelengths (px), null when too few sub-regions were usable. */
   subregionSemPx: number | null;
+  /** Share of the analysed rectangle outside the mask, 0 … 1 (0 without a mask). */
+  excludedFraction?: number;
+  /** True when the window tapers at the mask's edge (a tissue mask). */
+  maskTapered?: boolean;
   /** Strongest peak bin's power ÷ background power at that frequency. */
   peakSnr: number;
 }
@@ -40,6 +50,7 @@ export interface WavelengthUncertainty {
   subregionPx: number;
   localisationPx: number;
   resolutionPx: number;
+  maskPx: number;
 }
 
 export function combineWavelengthUncertainty(input: WavelengthUncertaintyInput): WavelengthUncertainty {
@@ -48,13 +59,15 @@ export function combineWavelengthUncertainty(input: WavelengthUncertaintyInput):
   const snr = Number.isFinite(peakSnr) && peakSnr > 0 ? peakSnr : 1;
   const localisationPx = (toPx * LOCALISATION_KAPPA) / Math.sqrt(snr);
   const resolutionPx = toPx * RESOLUTION_BINS;
+  const maskPx = toPx * MASK_BINS[input.maskTapered ? "tapered" : "hard"] * (input.excludedFraction ?? 0);
   const subregionPx = subregionSemPx ?? 0;
-  const uncertaintyPx = Math.sqrt(subregionPx ** 2 + localisationPx ** 2 + resolutionPx ** 2);
+  const uncertaintyPx = Math.sqrt(subregionPx ** 2 + localisationPx ** 2 + resolutionPx ** 2 + maskPx ** 2);
   return {
     uncertaintyPx,
     expanded95Px: COVERAGE_FACTOR_95 * uncertaintyPx,
     subregionPx,
     localisationPx,
     resolutionPx,
+    maskPx,
   };
 }

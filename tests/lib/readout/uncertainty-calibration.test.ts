@@ -7,7 +7,7 @@
 import { describe, expect, it } from "vitest";
 import type { GreyImage } from "@/lib/imaging";
 import { readWavelength } from "@/lib/readout";
-import { makeHexSpots, makeMicroscopeFrame, makeStripes } from "@/lib/synthetic";
+import { makeHexSpots, makeMicroscopeFrame, makeStripes, makeTissueFrame } from "@/lib/synthetic";
 
 interface Family {
   name: string;
@@ -66,6 +66,36 @@ const families: Family[] = [
         noise: 0.3,
         seed,
       }),
+  },
+  {
+    name: "spots on tissue (ellipse, dark slide), debris, 8-bit saturation",
+    make: (s, l, a, seed) =>
+      makeTissueFrame({
+        width: s,
+        height: s,
+        pattern: "spots",
+        wavelengthPx: l,
+        angleDeg: a,
+        noise: 0.2,
+        tissue: { shape: "ellipse", coverage: 0.6, slide: "dark" },
+        debrisCount: 10,
+        saturatedFraction: 0.02,
+        seed,
+      }).image,
+  },
+  {
+    name: "stripes, brightfield, shot noise",
+    make: (s, l, a, seed) =>
+      makeTissueFrame({
+        width: s,
+        height: s,
+        pattern: "stripes",
+        wavelengthPx: l,
+        angleDeg: a,
+        brightfield: true,
+        photonsPerUnit: 20,
+        seed,
+      }).image,
   },
   {
     name: "stripes, user mask",

@@ -97,7 +97,8 @@ export function ImageResult({ readout, result }: { readout: ReadoutDetailDto; re
               <span className="num ml-2 text-xs text-ink-soft">
                 (sub-regions {formatSig(w.uncertaintyComponentsUm.subregion, 2)} µm; localisation{" "}
                 {formatSig(w.uncertaintyComponentsUm.localisation, 2)} µm; interpolation{" "}
-                {formatSig(w.uncertaintyComponentsUm.resolution, 2)} µm)
+                {formatSig(w.uncertaintyComponentsUm.resolution, 2)} µm
+                {w.uncertaintyComponentsUm.mask ? `; mask ${formatSig(w.uncertaintyComponentsUm.mask, 2)} µm` : ""})
               </span>
             )}
             {!w.uncertaintyComponentsUm && w.subregionSemUm !== null && w.halfWidthUm !== null && (
