@@ -40,3 +40,11 @@ export function formatPlain(v: number, digits = 4): string {
         .replace(/(\.\d*?)0+$/, "$1")
         .replace(/\.$/, "");
 }
+
+/**
+ * A pixel size as its metadata holds it: up to 6 significant digits, so the float noise of a unit
+ * conversion (0.65000000000001 from px/cm) disappears and no digit the file states is dropped.
+ */
+export function formatPixelSize(um: number): string {
+  return formatPlain(um, 6);
+}

@@ -3,7 +3,7 @@
  * to the same decimal place (GUM, JCGM 100:2008 §7.2.6). Expected strings worked out by hand.
  */
 import { describe, expect, it } from "vitest";
-import { formatMeasurement, formatPlain, formatPlusMinus } from "@/lib/format/measurement";
+import { formatMeasurement, formatPixelSize, formatPlain, formatPlusMinus } from "@/lib/format/measurement";
 
 describe("a value with its uncertainty", () => {
   it.each([
@@ -32,5 +32,16 @@ describe("plain numbers", () => {
     [3.2e8, 2, "3.2e+8"],
   ])("%f to %i digits → %s", (v, d, s) => {
     expect(formatPlain(v, d)).toBe(s);
+  });
+});
+
+describe("pixel sizes as the metadata holds them", () => {
+  it.each([
+    [1e4 / 15384.615384615385, "0.65"], // 15 384.615… px/cm, a converted 0.65 µm (float noise dropped)
+    [1e4 / 15385, "0.649984"], // 15 385 px/cm as stored: six digits kept
+    [0.325, "0.325"], // OME PhysicalSizeX="0.325"
+    [2, "2"],
+  ])("%f µm → %s", (um, shown) => {
+    expect(formatPixelSize(um)).toBe(shown);
   });
 });

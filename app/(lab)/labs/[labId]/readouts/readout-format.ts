@@ -1,6 +1,6 @@
 /** Display words for readouts, shared by the readout, specimen and study pages. Pure functions. */
 import { formatSig } from "@/components/charts/spectrum-format";
-import { formatPlusMinus } from "@/lib/format/measurement";
+import { formatPixelSize, formatPlusMinus } from "@/lib/format/measurement";
 import type { JobStatus } from "@/models/job";
 import type { ReadoutDto } from "@/lib/server/readouts/readouts";
 
@@ -17,7 +17,7 @@ const SOURCES: Record<string, string> = {
 
 export function pixelSizeLabel(pixelSizeUm: number | null, source: string | null): string {
   if (pixelSizeUm === null) return "none (not needed for a table in µm, nm or mm)";
-  return `${formatSig(pixelSizeUm, 4)} µm/px (${source ? (SOURCES[source] ?? source) : "source not recorded"})`;
+  return `${formatPixelSize(pixelSizeUm)} µm/px (${source ? (SOURCES[source] ?? source) : "source not recorded"})`;
 }
 
 export const STATUS_WORDS: Record<JobStatus, string> = {

@@ -1,4 +1,5 @@
 "use client";
+import { formatPixelSize } from "@/lib/format/measurement";
 import type { ColumnDef } from "@tanstack/react-table";
 import { useRouter } from "next/navigation";
 import { useRef, useState } from "react";
@@ -93,7 +94,7 @@ export function SpecimenView({
       enableSorting: false,
       cell: ({ row }) =>
         row.original.pixelSizeUm ? (
-          <span className="num">{row.original.pixelSizeUm} µm/px</span>
+          <span className="num">{formatPixelSize(row.original.pixelSizeUm)} µm/px</span>
         ) : (
           <span className="text-ink-soft">—</span>
         ),
