@@ -5,6 +5,8 @@
  */
 import "server-only";
 import type { Transaction } from "sequelize";
+import type { LabContext } from "./access";
+import { recordAudit } from "./audit";
 import { AppError } from "./errors";
 import type { Models } from "@/models";
 
@@ -74,4 +76,33 @@ export function refuseWithDependents(subject: string, usedBy: string, deps: Depe
     `${subject} cannot be deleted: ${usedBy} used by ${parts.join(" and ")}. Results keep their sources, so they can be checked and re-run; delete those results first if they are no longer needed.`,
     { dependents: deps },
   );
+}
+
+/**
+ * Runs a delete; when it is refused because results depend on it, the refusal goes into the audit
+ * trail too (after the delete's transaction rolled back), then reaches the caller unchanged.
+ */
+export async function auditRefusal<T>(
+  m: Models,
+  ctx: LabContext,
+  target: { action: string; targetType: string; targetId: string; what: string },
+  run: () => Promise<T>,
+): Promise<T> {
+  try {
+    return await run();
+  } catch (err) {
+    const deps =
+      err instanceof AppError ? (err.details as { dependents?: Dependent[] } | undefined)?.dependents : undefined;
+    if (deps?.length)
+      await recordAudit(m, {
+        labId: ctx.labId,
+        actor: ctx.actor,
+        action: target.action,
+        targetType: target.targetType,
+        targetId: target.targetId,
+        summary: `${ctx.actor.email} tried to delete ${target.what}; kept, because ${deps.length} result(s) used it`,
+        details: { dependents: deps },
+      });
+    throw err;
+  }
 }

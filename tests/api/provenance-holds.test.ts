@@ -101,6 +101,14 @@ describe("what a result used cannot vanish", () => {
     const m = await database();
     expect(await m.Upload.count({ where: { id: used.upload.id } })).toBe(1);
     expect(await m.Readout.count({ where: { id: used.readout.id } })).toBe(1);
+    // The audit trail records the refusal, with what depends on the upload.
+    const refusal = await m.AuditEvent.findOne({
+      where: { targetId: used.upload.id, action: "upload.delete-refused" },
+    });
+    expect(refusal!.summary).toContain("tried to delete the upload “used.tif”; kept, because 1 result(s) used it");
+    expect((refusal!.details as { dependents: { name: string }[] }).dependents.map((d) => d.name)).toEqual([
+      "Uses the readout",
+    ]);
     const unused = await makeReadout("unused.tif");
     expect((await lab.api("DELETE", UPLOAD, { who: "manager", params: { uploadId: unused.upload.id } })).status).toBe(
       204,
@@ -125,6 +133,9 @@ describe("what a result used cannot vanish", () => {
     );
     const m = await database();
     expect(await m.KineticsVersion.count({ where: { kineticsId: created.body.id } })).toBe(1);
+    expect(await m.AuditEvent.count({ where: { targetId: created.body.id, action: "kinetics.delete-refused" } })).toBe(
+      1,
+    );
     const spare = await lab.api("POST", KINETICS, { json: { definition: labSchnakenberg("Spare") } });
     expect((await lab.api("DELETE", ONE_KINETICS, { params: { kineticsId: spare.body.id } })).status).toBe(204);
   });

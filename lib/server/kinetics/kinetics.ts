@@ -3,7 +3,7 @@
  * can name exactly what it used. The published catalogue is in ./catalogue.ts.
  */
 import "server-only";
-import { findDependents, refuseWithDependents } from "../dependents";
+import { auditRefusal, findDependents, refuseWithDependents } from "../dependents";
 import { Op } from "sequelize";
 import { can } from "@/lib/access/permissions";
 import { resolveParameters, type KineticsDefinition } from "@/lib/kinetics";
@@ -229,23 +229,31 @@ export async function deleteLabKinetics(ctx: LabContext, id: string): Promise<vo
   const row = await findLabKinetics(ctx, id);
   authorize(ctx, "kinetics.edit", row.createdBy);
   const m = await database();
-  await services().db.sequelize.transaction(async (transaction) => {
-    // Provenance holds: kinetics a fit or run used stays, with every version.
-    const deps = await findDependents(m, ctx.labId, { kineticsId: row.id }, transaction);
-    if (deps.length) throw refuseWithDependents(`The kinetics “${row.name}”`, "its versions are", deps);
-    const n = await m.KineticsVersion.destroy({ where: { kineticsId: row.id }, transaction });
-    await row.destroy({ transaction });
-    await recordAudit(
-      m,
-      {
-        labId: ctx.labId,
-        actor: ctx.actor,
-        action: "kinetics.deleted",
-        targetType: "kinetics",
-        targetId: id,
-        summary: `${ctx.actor.email} deleted the kinetics “${row.name}” and its ${n} version(s)`,
-      },
-      transaction,
-    );
-  });
+  const target = {
+    action: "kinetics.delete-refused",
+    targetType: "kinetics",
+    targetId: id,
+    what: `the kinetics “${row.name}”`,
+  };
+  await auditRefusal(m, ctx, target, () =>
+    services().db.sequelize.transaction(async (transaction) => {
+      // Provenance holds: kinetics a fit or run used stays, with every version.
+      const deps = await findDependents(m, ctx.labId, { kineticsId: row.id }, transaction);
+      if (deps.length) throw refuseWithDependents(`The kinetics “${row.name}”`, "its versions are", deps);
+      const n = await m.KineticsVersion.destroy({ where: { kineticsId: row.id }, transaction });
+      await row.destroy({ transaction });
+      await recordAudit(
+        m,
+        {
+          labId: ctx.labId,
+          actor: ctx.actor,
+          action: "kinetics.deleted",
+          targetType: "kinetics",
+          targetId: id,
+          summary: `${ctx.actor.email} deleted the kinetics “${row.name}” and its ${n} version(s)`,
+        },
+        transaction,
+      );
+    }),
+  );
 }

@@ -15,7 +15,7 @@ import type { UploadKind } from "@/models/upload";
 import type { ImageLayout } from "@/lib/imaging";
 import type { LabContext } from "../access";
 import { authorize } from "../access";
-import { findDependents, refuseWithDependents } from "../dependents";
+import { auditRefusal, findDependents, refuseWithDependents } from "../dependents";
 import { AppError, notFound } from "../errors";
 import { containsText, type ListQuery, type ListResult, pageOptions, pageResult } from "../web/list";
 import { database, services } from "../services";
@@ -38,6 +38,11 @@ export interface UploadDto {
   uploadedByEmail: string | null;
   createdAt: string;
   canDelete: boolean;
+  /**
+   * The same file (same SHA-256) uploaded earlier to the same specimen: this one is a repeat, and
+   * comparisons and fits count the file once. Null when it is the first.
+   */
+  duplicateOf: { id: string; filename: string } | null;
 }
 
 export const UPLOAD_SORTS = ["filename", "kind", "sizeBytes", "createdAt"] as const;
@@ -51,6 +56,25 @@ async function toDtos(ctx: LabContext, rows: UploadRow[]): Promise<UploadDto[]> 
     attributes: ["id", "email"],
   });
   const emails = new Map(users.map((u) => [u.id, u.email]));
+  // Earlier uploads of the same file to the same specimen, in one query.
+  const same = rows.length
+    ? await m.Upload.findAll({
+        where: {
+          specimenId: [...new Set(rows.map((r) => r.specimenId))],
+          sha256: [...new Set(rows.map((r) => r.sha256))],
+        },
+        attributes: ["id", "filename", "specimenId", "sha256", "createdAt"],
+        order: [
+          ["createdAt", "ASC"],
+          ["id", "ASC"],
+        ],
+      })
+    : [];
+  const firstOf = new Map<string, { id: string; filename: string }>();
+  for (const u of same) {
+    const key = `${u.specimenId}\u0000${u.sha256}`;
+    if (!firstOf.has(key)) firstOf.set(key, { id: u.id, filename: u.filename });
+  }
   return rows.map((r) => ({
     id: r.id,
     specimenId: r.specimenId,
@@ -66,6 +90,9 @@ async function toDtos(ctx: LabContext, rows: UploadRow[]): Promise<UploadDto[]> 
     uploadedByEmail: r.createdBy ? (emails.get(r.createdBy) ?? null) : null,
     createdAt: r.createdAt.toISOString(),
     canDelete: can(ctx.role, "upload.delete", { ownerId: r.createdBy, actorId: ctx.actor.userId }),
+    duplicateOf: ((first) => (first && first.id !== r.id ? first : null))(
+      firstOf.get(`${r.specimenId}\u0000${r.sha256}`),
+    ),
   }));
 }
 
@@ -223,31 +250,39 @@ export async function deleteUpload(ctx: LabContext, uploadId: string): Promise<v
   }
   // Rows first, in one short transaction without storage I/O; then the objects. An object whose
   // delete fails after that has no row, and the sweep (upload-recovery.ts) removes it.
-  const { readouts, jobIds } = await db.sequelize.transaction(async (transaction) => {
-    const rs = await m.Readout.findAll({ where: { uploadId: u.id }, transaction });
-    // Provenance holds: a file whose readouts a fit or run used stays (checked inside the transaction).
-    const deps = await findDependents(m, ctx.labId, { readoutIds: rs.map((r) => r.id) }, transaction);
-    if (deps.length) throw refuseWithDependents(`“${u.filename}”`, "its readouts are", deps);
-    await m.Readout.destroy({ where: { uploadId: u.id }, transaction });
-    await u.destroy({ transaction });
-    await recordAudit(
-      m,
-      {
-        labId: ctx.labId,
-        actor: ctx.actor,
-        action: "upload.deleted",
-        targetType: "upload",
-        targetId: u.id,
-        summary: `${ctx.actor.email} deleted the upload “${u.filename}”${rs.length ? ` and its ${rs.length} readout(s)` : ""}`,
-        details: { sha256: u.sha256, readouts: rs.length },
-      },
-      transaction,
-    );
-    return {
-      readouts: rs,
-      jobIds: rs.filter((r) => r.jobId && (r.status === "queued" || r.status === "running")).map((r) => r.jobId!),
-    };
-  });
+  const target = {
+    action: "upload.delete-refused",
+    targetType: "upload",
+    targetId: u.id,
+    what: `the upload “${u.filename}”`,
+  };
+  const { readouts, jobIds } = await auditRefusal(m, ctx, target, () =>
+    db.sequelize.transaction(async (transaction) => {
+      const rs = await m.Readout.findAll({ where: { uploadId: u.id }, transaction });
+      // Provenance holds: a file whose readouts a fit or run used stays (checked inside the transaction).
+      const deps = await findDependents(m, ctx.labId, { readoutIds: rs.map((r) => r.id) }, transaction);
+      if (deps.length) throw refuseWithDependents(`“${u.filename}”`, "its readouts are", deps);
+      await m.Readout.destroy({ where: { uploadId: u.id }, transaction });
+      await u.destroy({ transaction });
+      await recordAudit(
+        m,
+        {
+          labId: ctx.labId,
+          actor: ctx.actor,
+          action: "upload.deleted",
+          targetType: "upload",
+          targetId: u.id,
+          summary: `${ctx.actor.email} deleted the upload “${u.filename}”${rs.length ? ` and its ${rs.length} readout(s)` : ""}`,
+          details: { sha256: u.sha256, readouts: rs.length },
+        },
+        transaction,
+      );
+      return {
+        readouts: rs,
+        jobIds: rs.filter((r) => r.jobId && (r.status === "queued" || r.status === "running")).map((r) => r.jobId!),
+      };
+    }),
+  );
   const keys = [...readouts.flatMap((r) => Object.values(r.derivedKeys ?? {})), u.storageKey];
   for (const key of keys)
     await store

@@ -63,13 +63,20 @@ export function SpecimenView({
       id: "filename",
       header: "File",
       cell: ({ row }) => (
-        <a
-          className="font-medium text-moss hover:underline"
-          href={`/api/v1/labs/${labId}/uploads/${row.original.id}/content`}
-          data-testid="download-link"
-        >
-          {row.original.filename}
-        </a>
+        <>
+          <a
+            className="font-medium text-moss hover:underline"
+            href={`/api/v1/labs/${labId}/uploads/${row.original.id}/content`}
+            data-testid="download-link"
+          >
+            {row.original.filename}
+          </a>
+          {row.original.duplicateOf && (
+            <span className="block text-xs text-ochre" data-testid="duplicate-file">
+              same file as “{row.original.duplicateOf.filename}” — counted once
+            </span>
+          )}
+        </>
       ),
     },
     {
