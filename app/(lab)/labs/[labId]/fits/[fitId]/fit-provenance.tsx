@@ -12,6 +12,22 @@ export function FitProvenance({ labId, fit }: { labId: string; fit: FitDetailDto
       <div className="grid gap-6 lg:grid-cols-2" data-testid="provenance">
         <div>
           <h3 className="mb-1 text-xs font-semibold text-ink-soft">Data</h3>
+          {typeof p.settings.replicateCounts === "string" && (
+            <p className="mb-1 text-xs" data-testid="fit-replicates">
+              Replicates: <span className="num">{p.settings.replicateCounts}</span> — a specimen&apos;s images are
+              averaged first
+              {p.settings.uncertainty === "with-specimen-spread"
+                ? "; the spread between specimens is in the weights"
+                : ""}
+              .
+            </p>
+          )}
+          {p.settings.replicates === "images" && (
+            <p className="mb-1 text-xs text-ochre" data-testid="fit-replicates">
+              Every image is its own datum here: several images of one specimen are not independent
+              (pseudo-replication).
+            </p>
+          )}
           <table className="w-full text-sm">
             <thead className="text-left text-xs text-ink-soft">
               <tr>
