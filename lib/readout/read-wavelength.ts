@@ -127,7 +127,7 @@ export function readWavelength(image: GreyImage, options: ReadoutOptions): Wavel
   }
   if (!periodFound)
     warnings.push(
-      `No significant period: the peak is ${a.significance.toPrecision(3)}× the background, below the threshold ${settings.significanceThreshold}.`,
+      `No significant period: the peak is ${formatPlain(a.significance, 3)}× the background, below the threshold ${settings.significanceThreshold}.`,
     );
   // Disordered hexagonal packings have a nearly uniform Fourier ring: look at the spots themselves.
   const spots =

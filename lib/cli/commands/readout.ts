@@ -120,9 +120,9 @@ const command: CliCommand = {
         warnings: [...(info.pixelSizeNote ? [info.pixelSizeNote] : []), ...r.warnings],
       };
       const text = r.periodFound
-        ? `λ = ${formatPlusMinus(r.wavelengthUm!, r.uncertaintyUm, "µm")} (${formatPlusMinus(r.wavelengthPx!, r.uncertaintyPx, "px")}), 95 % interval ± ${formatPlain(r.expandedUncertainty95Um!, 2)} µm, ${r.symmetry}, significance ${r.significance.toPrecision(3)}` +
+        ? `λ = ${formatPlusMinus(r.wavelengthUm!, r.uncertaintyUm, "µm")} (${formatPlusMinus(r.wavelengthPx!, r.uncertaintyPx, "px")}), 95 % interval ± ${formatPlain(r.expandedUncertainty95Um!, 2)} µm, ${r.symmetry}, significance ${formatPlain(r.significance, 3)}` +
           (r.nearestNeighbourUm ? `, nearest-neighbour a = ${r.nearestNeighbourUm.toPrecision(4)} µm` : "")
-        : `No significant period (significance ${r.significance.toPrecision(3)} < ${r.significanceThreshold}).`;
+        : `No significant period (significance ${formatPlain(r.significance, 3)} < ${r.significanceThreshold}).`;
       return { json, text: [text, ...json.warnings.map((w) => `warning: ${w}`)].join("\n") };
     } catch (e) {
       throw toCliError(e);
