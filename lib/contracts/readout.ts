@@ -79,6 +79,8 @@ export const imageReadoutSettingsSchema = z
       .enum(["auto", "plane", "blur", "none"], 'flatten must be "auto", "plane", "blur" or "none"')
       .default("auto"),
     window: z.enum(["hann", "tukey", "none"], 'window must be "hann", "tukey" or "none"').default("hann"),
+    /** Find the tissue region automatically (auto) or analyse the whole region (off). */
+    tissueMask: z.enum(["auto", "off"], 'tissueMask must be "auto" or "off"').default("auto"),
     /** Axis of the local-wavelength profile. */
     profileAxis: z.enum(["x", "y"], 'profileAxis must be "x" or "y"').default("x"),
     pixelSizeUm: pixelSizeOverride,

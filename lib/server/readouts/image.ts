@@ -39,6 +39,8 @@ export async function runImageReadout(
     invert: settings.invert,
     flatten: settings.flatten,
     window: settings.window,
+    // Settings stored before the tissue region existed have no choice: the default then.
+    tissueMask: settings.tissueMask ?? "auto",
   };
   const t0 = Date.now();
   const readout = toSourcePixels(readWavelength(image, options), settings, factor);

@@ -52,6 +52,7 @@ export function RerunForm({ labId, readout }: { labId: string; readout: ReadoutD
   const [invert, setInvert] = useState(img?.invert ?? false);
   const [flatten, setFlatten] = useState<string>(img?.flatten ?? "auto");
   const [win, setWin] = useState<string>(img?.window ?? "hann");
+  const [tissue, setTissue] = useState<string>(img?.tissueMask ?? "auto");
   const [axis, setAxis] = useState<string>(img?.profileAxis ?? "x");
   const [stack, setStack] = useState(() => initialStackChoice(readout));
   const used = readout.result?.type === "table" ? readout.result.mapping : null;
@@ -85,6 +86,7 @@ export function RerunForm({ labId, readout }: { labId: string; readout: ReadoutD
           invert,
           flatten,
           window: win,
+          tissueMask: tissue,
           profileAxis: axis,
           ...stack,
           ...(px !== undefined ? { pixelSizeUm: px } : {}),
@@ -165,6 +167,16 @@ export function RerunForm({ labId, readout }: { labId: string; readout: ReadoutD
                   ["plane", "on — subtract a fitted plane"],
                   ["blur", "on — subtract a heavy blur"],
                   ["none", "off"],
+                ]}
+              />
+              <Select
+                label="Tissue region"
+                value={tissue}
+                onChange={setTissue}
+                testId="rerun-tissue"
+                options={[
+                  ["auto", "found automatically (by texture)"],
+                  ["off", "off — analyse the whole region"],
                 ]}
               />
               <Select
