@@ -15,3 +15,4 @@ export type { FlattenMethod } from "./flatten";
 export type { WindowKind } from "./window";
 export { mapLocalWavelength, type LocalWavelengthMap, type LocalWavelengthOptions } from "./local-wavelength";
 export { renderFftMagnitude, renderPreview } from "./render-images";
+export { DEFAULT_MAX_ANALYSIS_SIDE_PX } from "./options";

@@ -4,6 +4,9 @@ import type { Roi } from "./roi";
 import type { TissueMaskMode } from "./tissue-mask";
 import type { WindowKind } from "./window";
 
+/** Regions with a longer side are binned by an integer factor to this side (px) unless set otherwise. */
+export const DEFAULT_MAX_ANALYSIS_SIDE_PX = 4096;
+
 /** Largest source image the readout accepts (px): 8192 × 8192. */
 export const MAX_READOUT_PIXELS = 67_108_864;
 /** Default significance threshold: peak ÷ background ≥ 5 (design choice, see README). */
@@ -94,7 +97,7 @@ export function resolveReadoutOptions(
   checkNumber("lowCutCycles", lowCutCycles, 1, 64, " cycles per region");
   const significanceThreshold = o.significanceThreshold ?? DEFAULT_SIGNIFICANCE_THRESHOLD;
   checkNumber("significanceThreshold", significanceThreshold, 1, 1e6);
-  const maxAnalysisSidePx = o.maxAnalysisSidePx ?? 4096;
+  const maxAnalysisSidePx = o.maxAnalysisSidePx ?? DEFAULT_MAX_ANALYSIS_SIDE_PX;
   checkNumber("maxAnalysisSidePx", maxAnalysisSidePx, 64, 8192, " px");
   if (o.blurSigmaPx !== undefined) checkNumber("blurSigmaPx", o.blurSigmaPx, 1, 4096, " px");
   if (o.excludeMask && o.excludeMask.length !== imageWidth * imageHeight) {

@@ -2,8 +2,8 @@ import { formatPlain, formatPlusMinus } from "@/lib/format/measurement";
 import { readFileSync } from "node:fs";
 import { CliError, parseOptions, type CliCommand } from "../command";
 import { toCliError } from "../core-errors";
-import { decodeImage, sniffFileKind } from "../../imaging";
-import { readWavelength } from "../../readout";
+import { decodeImage, MAX_FULL_RESOLUTION_PIXELS, readImageLayout, sniffFileKind } from "../../imaging";
+import { DEFAULT_MAX_ANALYSIS_SIDE_PX, readWavelength } from "../../readout";
 import { readSpacingFromGrid, readTableGrid, type TableUnit } from "../../spacing";
 import { isFolder, readFolder, SOME_FILES_FAILED_EXIT } from "../readout-folder";
 
@@ -81,7 +81,6 @@ const command: CliCommand = {
         throw new CliError("The file is neither a PNG, JPEG or TIFF image nor a CSV/TSV or XLSX table.", "unsupported");
       const ch = str(options.channel, "channel");
       const channel = ch === undefined || ch === "luminance" ? "luminance" : num(ch, "channel")!;
-      const { image, info } = await decodeImage(bytes, { channel });
       let roi;
       const roiText = str(options.roi, "roi");
       if (roiText) {
@@ -90,8 +89,34 @@ const command: CliCommand = {
           throw new CliError(`--roi needs x,y,w,h in pixels (got ${roiText}).`);
         roi = { kind: "rect" as const, x: p[0], y: p[1], width: p[2], height: p[3] };
       }
+      // Above what is held at full resolution, the ROI (or the whole image) is read reduced by the
+      // readout's own binning factor, as the server does; lengths in pixels are given back in source pixels.
+      const layout = await readImageLayout(bytes);
+      const large = !!layout && layout.width * layout.height > MAX_FULL_RESOLUTION_PIXELS;
+      const { image, info } = await decodeImage(
+        bytes,
+        large
+          ? {
+              channel,
+              region: roi ? { x: roi.x, y: roi.y, width: roi.width, height: roi.height } : null,
+              maxSidePx: DEFAULT_MAX_ANALYSIS_SIDE_PX,
+            }
+          : { channel },
+      );
+      const factor = large ? info.reduceFactor : 1;
       const pixelSizeUm = pixelSize ?? info.pixelSizeUm;
-      const r = readWavelength(image, { pixelSizeUm, roi, invert: options.invert === true });
+      const read = readWavelength(image, {
+        pixelSizeUm: pixelSizeUm === null || pixelSizeUm === undefined ? pixelSizeUm : pixelSizeUm * factor,
+        roi: large ? undefined : roi,
+        invert: options.invert === true,
+      });
+      const inSource = (v: number | null) => (v === null ? null : v * factor);
+      const r = {
+        ...read,
+        wavelengthPx: inSource(read.wavelengthPx),
+        uncertaintyPx: inSource(read.uncertaintyPx),
+        warnings: [...info.notes, ...read.warnings],
+      };
       const json = {
         file: positional[0],
         fileKind: kind,

@@ -6,6 +6,7 @@
  * mapped onto that reduced grid; `toSourcePx` maps lengths back.
  */
 import "server-only";
+import { DEFAULT_MAX_ANALYSIS_SIDE_PX } from "@/lib/readout";
 import {
   decodeImage,
   MAX_FULL_RESOLUTION_PIXELS,
@@ -17,7 +18,7 @@ import {
 import type { ImageReadoutSettings, RoiInput } from "@/lib/contracts/readout";
 
 /** The readout's default analysis limit (ReadoutOptions.maxAnalysisSidePx): larger regions are binned to it. */
-export const ANALYSIS_SIDE_PX = 4096;
+export const ANALYSIS_SIDE_PX = DEFAULT_MAX_ANALYSIS_SIDE_PX;
 /** Longest side of the stored preview (px). */
 export const PREVIEW_MAX_SIDE = 1024;
 

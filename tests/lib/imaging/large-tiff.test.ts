@@ -97,4 +97,32 @@ describe("large images", () => {
       expect(Math.abs(r.wavelengthPx - LAMBDA_PX) / LAMBDA_PX).toBeLessThan(0.02);
     },
   );
+
+  it(
+    "the command line reads the large image reduced too, and gives lengths in source pixels",
+    { timeout: 180_000 },
+    async () => {
+      const file = path.join(dir, "stripes.tif");
+      const run = spawnSync(
+        process.execPath,
+        [
+          "--conditions=react-server",
+          "--import",
+          "tsx",
+          path.join(ROOT, "lib/cli/main.ts"),
+          "readout",
+          file,
+          "--pixel-size",
+          "0.5",
+          "--json",
+        ],
+        { cwd: ROOT, encoding: "utf8", env: { ...process.env, NODE_OPTIONS: "" }, maxBuffer: 16 * 1024 * 1024 },
+      );
+      expect(run.status, run.stderr).toBe(0);
+      const r = JSON.parse(run.stdout) as { wavelengthPx: number; wavelengthUm: number; warnings: string[] };
+      expect(Math.abs(r.wavelengthPx - LAMBDA_PX) / LAMBDA_PX).toBeLessThan(0.02);
+      expect(Math.abs(r.wavelengthUm - LAMBDA_PX * 0.5) / (LAMBDA_PX * 0.5)).toBeLessThan(0.02);
+      expect(r.warnings.join(" ")).toMatch(/read reduced 3×3/);
+    },
+  );
 });
