@@ -66,15 +66,18 @@ export function poolBySpecimen(data: WavelengthDatum<DomainSpec>[], sources: Fit
   };
 }
 
-/** The fitted datum a source fed: its recorded datumIndex, or its input index on fits made before pooling. */
-export function datumIndexOf(s: FitDatumSource): number | null {
-  return s.datumIndex === undefined ? s.index : s.datumIndex;
+/**
+ * The fitted datum a source fed: its recorded datumIndex, or (fits made before pooling) its input index,
+ * which is its position in the list.
+ */
+export function datumIndexOf(s: FitDatumSource, position: number): number | null {
+  return s.datumIndex === undefined ? (s.index ?? position) : s.datumIndex;
 }
 
 /** Readout ids behind fitted datum i, joined by ";" (several images of one specimen). */
 export function readoutIdsOfDatum(sources: FitDatumSource[], i: number): string {
   return sources
-    .filter((s) => datumIndexOf(s) === i && s.readoutId)
+    .filter((s, position) => datumIndexOf(s, position) === i && s.readoutId)
     .map((s) => s.readoutId)
     .join(";");
 }
