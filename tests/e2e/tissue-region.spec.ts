@@ -43,10 +43,10 @@ test("the tissue region is shown, and correcting it makes a readout with that po
   await studies.open(STUDY);
   await lab.on(StudyPage).openSpecimen("DS-01");
   const specimen = lab.on(SpecimenPage);
-  const before = await specimen.readoutRows.count();
   await specimen.upload({ name: "tissue-spots.png", mimeType: "image/png", buffer: await tissuePng() }, "0.5");
-  await expect(specimen.readoutRows).toHaveCount(before + 1, { timeout: 20_000 });
+  // Wait for this file's own row (a count taken before the list has loaded would race with it).
   const row = specimen.readoutRows.filter({ hasText: "tissue-spots.png" });
+  await expect(row).toHaveCount(1, { timeout: 20_000 });
   await expect(row.getByTestId("readout-headline")).toContainText("µm", { timeout: 30_000 });
   await row.getByTestId("open-readout").click();
 
