@@ -24,13 +24,9 @@ export const MIN_PERIODS_ACROSS = 4;
  * side, or across a tissue mask (the side of a square of its area). Lower rings still enter the
  * background fit (from `lowCutCycles`).
  */
-function searchFromRing(ringN: number, region: PreparedRegion): number {
+function searchFromRing(ringN: number, region: PreparedRegion, includedCount: number): number {
   let extentPx = Math.min(region.width, region.height);
-  if (region.tissueMask && region.included) {
-    let n = 0;
-    for (const v of region.included) n += v;
-    extentPx = Math.min(extentPx, Math.sqrt(n));
-  }
+  if (region.tissueMask && region.included) extentPx = Math.min(extentPx, Math.sqrt(includedCount));
   return (MIN_PERIODS_ACROSS * ringN) / extentPx;
 }
 
@@ -43,6 +39,8 @@ function searchFromRing(ringN: number, region: PreparedRegion): number {
 export function readWavelength(image: GreyImage, options: ReadoutOptions): WavelengthReadout {
   const settings = resolveReadoutOptions(options, image.width, image.height);
   const region = prepareRegion(image, settings);
+  // Pixels inside the mask, counted once (the peak search and the uncertainty both use it).
+  const includedCount = countIncluded(region.included, region.width * region.height);
   // The flattened region stays unwindowed for the sub-regions and the spot search: the separable
   // window is applied on the fly by the FFT; inside a tissue mask a copy tapers at the tissue's edge.
   const flattened = region.data;
@@ -53,7 +51,7 @@ export function readWavelength(image: GreyImage, options: ReadoutOptions): Wavel
     applyMaskTaper(copy, region.width, region.height, region.included!);
     spec = computePowerSpectrum(copy, region.width, region.height, { ...settings, window: "none" });
   } else spec = computePowerSpectrum(region.data, region.width, region.height, settings);
-  const a = analyseSpectrum(spec, settings.lowCutCycles, [searchFromRing(spec.ringN, region), Infinity]);
+  const a = analyseSpectrum(spec, settings.lowCutCycles, [searchFromRing(spec.ringN, region, includedCount), Infinity]);
   const px = region.pixelSizeUm; // µm per analysed pixel
   const periodFound = a.significance >= settings.significanceThreshold;
   const warnings: string[] = [];
@@ -93,7 +91,7 @@ export function readWavelength(image: GreyImage, options: ReadoutOptions): Wavel
     wavelengthPx: lambdaPx,
     binPerPx: peakBinPerPx(a, spec.padWidth, spec.padHeight),
     subregionSemPx: semPx,
-    excludedFraction: excludedFractionOf(region.included),
+    excludedFraction: 1 - includedCount / (region.width * region.height),
     maskTapered: tapered,
     peakSnr: a.peak2d ? a.peak2d.power / evaluatePowerLaw(a.background, a.frequencyPerPx) : 1,
   });
@@ -222,10 +220,10 @@ function peakBinPerPx(a: SpectrumAnalysis, padWidth: number, padHeight: number):
   return Math.hypot(p.fx / f / padWidth, p.fy / f / padHeight);
 }
 
-/** Share of the analysed rectangle outside the mask (0 without one). */
-function excludedFractionOf(included: Uint8Array | null): number {
-  if (!included) return 0;
+/** Pixels inside the mask (all of them without one). */
+function countIncluded(included: Uint8Array | null, all: number): number {
+  if (!included) return all;
   let n = 0;
   for (let i = 0; i < included.length; i++) n += included[i] ? 1 : 0;
-  return 1 - n / included.length;
+  return n;
 }
