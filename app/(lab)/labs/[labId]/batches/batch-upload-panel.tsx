@@ -272,7 +272,8 @@ export function BatchUploadPanel({
             {sending ? "Uploading…" : chosen.length ? `Upload ${chosen.length} file(s)` : "Upload"}
           </Button>
           <span className="text-xs text-ink-soft">
-            PNG, JPEG, TIFF, CSV or TSV, each up to {formatBytes(maxUploadBytes)}; each is read with these settings.
+            PNG, JPEG, TIFF, CSV, TSV or XLSX, each up to {formatBytes(maxUploadBytes)}; each is read with these
+            settings.
           </span>
         </div>
       </form>

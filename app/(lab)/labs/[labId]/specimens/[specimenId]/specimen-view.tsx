@@ -264,7 +264,8 @@ function UploadForm({
             className="block text-sm"
           />
           <span className="block text-xs text-ink-soft">
-            PNG, JPEG, TIFF (8/16-bit), CSV or TSV; up to {formatBytes(maxUploadBytes)}. The type is judged by content.
+            PNG, JPEG, TIFF (8/16-bit, 32-bit float, stacks), CSV, TSV or XLSX; up to {formatBytes(maxUploadBytes)}. The
+            type is judged by content.
           </span>
         </label>
         <div className="w-48">

@@ -12,7 +12,7 @@ export const GET = labRoute<P>("upload.read", async (ctx, request, p) =>
   json(await listUploads(ctx, p.specimenId, parseListQuery(request.url, UPLOAD_SORTS, "createdAt", "desc"))),
 );
 
-/** multipart/form-data: `file` (PNG, JPEG, TIFF, CSV or TSV) and optional `pixelSizeUm` (µm/px). */
+/** multipart/form-data: `file` (PNG, JPEG, TIFF, CSV, TSV or XLSX) and optional `pixelSizeUm` (µm/px). */
 export const POST = labRoute<P>("upload.create", async (ctx, request, p) =>
   json(await receiveUpload(ctx, p.specimenId, request), 201),
 );
