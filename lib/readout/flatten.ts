@@ -93,12 +93,56 @@ function boxPass(
     const base = line * stride;
     let acc = 0;
     for (let k = 0; k <= Math.min(r, len - 1); k++) acc += src[base + k * step];
-    for (let k = 0; k < len; k++) {
+    // The box is whole for r ≤ k < len − r − 1: no clamping there.
+    const innerFrom = Math.min(len, r),
+      innerTo = Math.max(innerFrom, len - r - 1),
+      full = 2 * r + 1;
+    for (let k = 0; k < innerFrom; k++) {
       const lo = k - r,
         hi = k + r;
       dst[base + k * step] = acc / (Math.min(hi, len - 1) - Math.max(lo, 0) + 1);
       if (hi + 1 < len) acc += src[base + (hi + 1) * step];
       if (lo >= 0) acc -= src[base + lo * step];
+    }
+    for (let k = innerFrom; k < innerTo; k++) {
+      dst[base + k * step] = acc / full;
+      acc += src[base + (k + r + 1) * step];
+      acc -= src[base + (k - r) * step];
+    }
+    for (let k = innerTo; k < len; k++) {
+      const lo = k - r,
+        hi = k + r;
+      dst[base + k * step] = acc / (Math.min(hi, len - 1) - Math.max(lo, 0) + 1);
+      if (hi + 1 < len) acc += src[base + (hi + 1) * step];
+      if (lo >= 0) acc -= src[base + lo * step];
+    }
+  }
+}
+
+/**
+ * One running-box pass of half-width r down the columns, all columns at once: rows are read
+ * whole and in order (a column at a time would read one value per cache line), the same sums as
+ * boxPass with stride `width`.
+ */
+function boxPassColumns(src: Float32Array, dst: Float32Array, width: number, height: number, r: number): void {
+  const acc = new Float64Array(width);
+  for (let k = 0; k <= Math.min(r, height - 1); k++) {
+    const row = k * width;
+    for (let x = 0; x < width; x++) acc[x] += src[row + x];
+  }
+  for (let k = 0; k < height; k++) {
+    const lo = k - r,
+      hi = k + r;
+    const n = Math.min(hi, height - 1) - Math.max(lo, 0) + 1;
+    const out = k * width;
+    for (let x = 0; x < width; x++) dst[out + x] = acc[x] / n;
+    if (hi + 1 < height) {
+      const add = (hi + 1) * width;
+      for (let x = 0; x < width; x++) acc[x] += src[add + x];
+    }
+    if (lo >= 0) {
+      const sub = lo * width;
+      for (let x = 0; x < width; x++) acc[x] -= src[sub + x];
     }
   }
 }
@@ -111,7 +155,7 @@ export function blur(data: Float32Array, width: number, height: number, sigmaPx:
   for (let p = 0; p < 3; p++) {
     boxPass(a, b, width, height, 1, width, r);
     [a, b] = [b, a];
-    boxPass(a, b, height, width, width, 1, r);
+    boxPassColumns(a, b, width, height, r);
     [a, b] = [b, a];
   }
   return a;
@@ -122,51 +166,75 @@ const COARSE_SIGMA_PX = 24;
 
 /**
  * The normalised Gaussian background on a grid binned by f, bilinearly interpolated back to every
- * pixel. A background of σ ≥ 24 px varies little over f ≤ σ/8 px, so the error is far below the
- * pattern's, and a 4096² frame needs a blur of 512² instead of 4096².
+ * pixel and subtracted (`into` = data − background, may be `data` itself). A background of σ ≥ 24 px
+ * varies little over f ≤ σ/8 px, so the error is far below the pattern's, and a 4096² frame needs a
+ * blur of 512² instead of 4096². The grid rows are first interpolated along x once (bh × width), so
+ * each pixel costs two reads and a blend: one pass to bin and one to subtract.
  */
-function coarseBackground(
+function subtractCoarseBackground(
   data: Float32Array,
+  into: Float32Array,
   width: number,
   height: number,
   included: Uint8Array | null,
   sigmaPx: number,
-): Float32Array {
+): void {
   const f = Math.max(2, Math.floor(sigmaPx / 8));
   const bw = Math.ceil(width / f),
     bh = Math.ceil(height / f);
   const sum = new Float32Array(bw * bh),
     count = new Float32Array(bw * bh);
+  const cell = new Int32Array(width);
+  for (let x = 0; x < width; x++) cell[x] = (x / f) | 0;
   for (let y = 0; y < height; y++) {
-    const brow = ((y / f) | 0) * bw;
-    for (let x = 0; x < width; x++) {
-      const i = y * width + x;
-      if (included && !included[i]) continue;
-      const j = brow + ((x / f) | 0);
-      sum[j] += data[i];
-      count[j]++;
-    }
+    const brow = ((y / f) | 0) * bw,
+      row = y * width;
+    if (included) {
+      for (let x = 0; x < width; x++)
+        if (included[row + x]) {
+          sum[brow + cell[x]] += data[row + x];
+          count[brow + cell[x]]++;
+        }
+    } else
+      for (let bx = 0; bx < bw; bx++) {
+        const x1 = Math.min(width, (bx + 1) * f);
+        let s = 0;
+        for (let x = bx * f; x < x1; x++) s += data[row + x];
+        sum[brow + bx] += s;
+        count[brow + bx] += x1 - bx * f;
+      }
   }
   const num = blur(sum, bw, bh, sigmaPx / f),
     den = blur(count, bw, bh, sigmaPx / f);
   const level = Float32Array.from(num, (v, j) => (den[j] > 1e-6 ? v / den[j] : 0));
-  const out = new Float32Array(data.length);
+  // Each grid row interpolated along x to every column.
+  const x0s = new Int32Array(width),
+    x1s = new Int32Array(width),
+    txs = new Float32Array(width);
+  for (let x = 0; x < width; x++) {
+    const gx = Math.min(bw - 1, Math.max(0, (x + 0.5) / f - 0.5));
+    x0s[x] = Math.floor(gx);
+    x1s[x] = Math.min(bw - 1, x0s[x] + 1);
+    txs[x] = gx - x0s[x];
+  }
+  const rows = new Float32Array(bh * width);
+  for (let gy = 0; gy < bh; gy++)
+    for (let x = 0; x < width; x++) {
+      const a = level[gy * bw + x0s[x]],
+        b = level[gy * bw + x1s[x]];
+      rows[gy * width + x] = a * (1 - txs[x]) + b * txs[x];
+    }
   for (let y = 0; y < height; y++) {
     const gy = Math.min(bh - 1, Math.max(0, (y + 0.5) / f - 0.5));
     const y0 = Math.floor(gy),
       y1 = Math.min(bh - 1, y0 + 1),
-      ty = gy - y0;
-    for (let x = 0; x < width; x++) {
-      const gx = Math.min(bw - 1, Math.max(0, (x + 0.5) / f - 0.5));
-      const x0 = Math.floor(gx),
-        x1 = Math.min(bw - 1, x0 + 1),
-        tx = gx - x0;
-      const top = level[y0 * bw + x0] * (1 - tx) + level[y0 * bw + x1] * tx;
-      const bottom = level[y1 * bw + x0] * (1 - tx) + level[y1 * bw + x1] * tx;
-      out[y * width + x] = top * (1 - ty) + bottom * ty;
-    }
+      ty = gy - y0,
+      uy = 1 - ty;
+    const top = y0 * width,
+      bottom = y1 * width,
+      row = y * width;
+    for (let x = 0; x < width; x++) into[row + x] = data[row + x] - (rows[top + x] * uy + rows[bottom + x] * ty);
   }
-  return out;
 }
 
 /**
@@ -181,8 +249,7 @@ export function subtractBlur(
   sigmaPx: number,
 ): void {
   if (sigmaPx >= COARSE_SIGMA_PX) {
-    const bg = coarseBackground(data, width, height, included, sigmaPx);
-    for (let i = 0; i < data.length; i++) data[i] -= bg[i];
+    subtractCoarseBackground(data, data, width, height, included, sigmaPx);
     return;
   }
   if (!included) {
@@ -200,6 +267,27 @@ export function subtractBlur(
   const num = blur(masked, width, height, sigmaPx);
   const den = blur(weight, width, height, sigmaPx);
   for (let i = 0; i < data.length; i++) data[i] -= den[i] > 1e-6 ? num[i] / den[i] : 0;
+}
+
+/**
+ * `data` minus its heavily blurred copy, as a new array (`data` is left as it is): on large
+ * backgrounds one pass that reads `data` and writes the result, instead of a copy and a subtraction.
+ */
+export function blurResidual(
+  data: Float32Array,
+  width: number,
+  height: number,
+  included: Uint8Array | null,
+  sigmaPx: number,
+): Float32Array {
+  if (sigmaPx >= COARSE_SIGMA_PX) {
+    const out = new Float32Array(data.length);
+    subtractCoarseBackground(data, out, width, height, included, sigmaPx);
+    return out;
+  }
+  const out = data.slice();
+  subtractBlur(out, width, height, included, sigmaPx);
+  return out;
 }
 
 /** Subtracts the mean of the included pixels, sets excluded pixels to 0; returns the SD (n − 1). */

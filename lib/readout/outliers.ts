@@ -23,24 +23,26 @@ export function findSaturated(data: Float32Array, width: number, height: number)
   let top = -Infinity,
     bottom = Infinity;
   for (let i = 0; i < data.length; i++) {
-    if (data[i] > top) top = data[i];
-    if (data[i] < bottom) bottom = data[i];
+    const v = data[i];
+    if (v > top) top = v;
+    if (v < bottom) bottom = v;
   }
   if (!(top > bottom)) return null;
-  const mask = new Uint8Array(data.length);
-  let n = 0;
-  for (const level of [top, bottom])
-    for (let y = 0; y + 1 < height; y++) {
-      const row = y * width;
-      for (let x = 0; x + 1 < width; x++) {
-        const i = row + x;
-        if (data[i] === level && data[i + 1] === level && data[i + width] === level && data[i + width + 1] === level) {
-          mask[i] = mask[i + 1] = mask[i + width] = mask[i + width + 1] = 1;
-          n++;
-        }
+  let mask: Uint8Array | null = null;
+  // Only pixels at an extreme can start a block: the common frame has few, so the test per pixel is one comparison.
+  for (let y = 0; y + 1 < height; y++) {
+    const row = y * width;
+    for (let x = 0; x + 1 < width; x++) {
+      const i = row + x,
+        v = data[i];
+      if (v !== top && v !== bottom) continue;
+      if (data[i + 1] === v && data[i + width] === v && data[i + width + 1] === v) {
+        mask ??= new Uint8Array(data.length);
+        mask[i] = mask[i + 1] = mask[i + width] = mask[i + width + 1] = 1;
       }
     }
-  return n > 0 ? mask : null;
+  }
+  return mask;
 }
 
 /** The values of every k-th included pixel, sorted (k chosen for at most ~100 000 values). */
@@ -70,14 +72,13 @@ export function findBrightOutliers(
   const sd = 1.4826 * dev[Math.floor(dev.length / 2)];
   const limit = median + Math.max(BRIGHT_OUTLIER_Z * sd, 2 * (q(0.98) - median));
   if (!(limit > median)) return null;
-  const mask = new Uint8Array(residual.length);
-  let n = 0;
+  let mask: Uint8Array | null = null;
   for (let i = 0; i < residual.length; i++)
     if (residual[i] > limit && (!included || included[i]) && !(already && already[i])) {
+      mask ??= new Uint8Array(residual.length);
       mask[i] = 1;
-      n++;
     }
-  return n > 0 ? mask : null;
+  return mask;
 }
 
 /** Grows a mask by one pixel (8-neighbourhood): the blurred rim of a debris particle goes with it. */

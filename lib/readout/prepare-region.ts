@@ -1,7 +1,7 @@
 import type { GreyImage } from "../imaging/grey-image";
 import { binPixels } from "./bin-pixels";
 import { MESSAGES, ReadoutError } from "./errors";
-import { subtractBlur, subtractMean, subtractPlane } from "./flatten";
+import { blurResidual, subtractBlur, subtractMean, subtractPlane } from "./flatten";
 import type { ResolvedReadoutOptions } from "./options";
 import { findSaturated } from "./outliers";
 import { treatOutliers } from "./treat-outliers";
@@ -63,13 +63,16 @@ export function prepareRegion(image: GreyImage, settings: ResolvedReadoutOptions
   const sigmaPx = settings.blurSigmaPx ?? Math.min(width, height) / 8;
   if (settings.flatten === "auto") subtractPlane(data, width, height, included);
   // The background model behind the outlier and tissue search (and the "auto" flattening when nothing changes).
-  const residual = data.slice();
-  subtractBlur(residual, width, height, included, sigmaPx);
-  const treated = auto
-    ? treatOutliers(data, residual, width, height, included, saturated?.mask ?? null)
-    : { changed: false, saturated: 0, bright: 0 };
+  const residual =
+    auto || settings.tissueMask === "auto" || settings.flatten === "auto"
+      ? blurResidual(data, width, height, included, sigmaPx)
+      : null;
+  const treated =
+    auto && residual
+      ? treatOutliers(data, residual, width, height, included, saturated?.mask ?? null)
+      : { changed: false, saturated: 0, bright: 0 };
   const tissue =
-    settings.tissueMask === "auto"
+    settings.tissueMask === "auto" && residual
       ? findTissueRegion(residual, data, width, height, included)
       : { mask: null, fraction: 1 };
   if (tissue.mask) {
@@ -77,7 +80,7 @@ export function prepareRegion(image: GreyImage, settings: ResolvedReadoutOptions
     else included = tissue.mask.slice();
   }
   if (settings.flatten === "auto") {
-    if (tissue.mask || treated.changed) subtractBlur(data, width, height, included, sigmaPx);
+    if (tissue.mask || treated.changed || !residual) subtractBlur(data, width, height, included, sigmaPx);
     else data = residual;
   } else if (settings.flatten === "plane") subtractPlane(data, width, height, included);
   else if (settings.flatten === "blur") subtractBlur(data, width, height, included, sigmaPx);

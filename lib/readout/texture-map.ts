@@ -68,12 +68,14 @@ export function computeTextureMap(
     f2 = new Float32Array(cw * ch),
     mb = new Float32Array(cw * ch),
     w = new Float32Array(cw * ch);
+  const cellOf = new Int32Array(cw * c);
+  for (let x = 0; x < cw * c; x++) cellOf[x] = (x / c) | 0;
   for (let y = 0; y < ch * c; y++) {
     const crow = ((y / c) | 0) * cw;
     for (let x = 0; x < cw * c; x++) {
       const i = y * width + x;
       if (included && !included[i]) continue;
-      const j = crow + ((x / c) | 0);
+      const j = crow + cellOf[x];
       const band = smooth[i] - slow[i],
         fine = residual[i] - smooth[i];
       m1[j] += band;
