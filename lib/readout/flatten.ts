@@ -6,9 +6,15 @@ export type FlattenMethod = "auto" | "plane" | "blur" | "none";
 
 /**
  * Least-squares plane z = c₀ + c₁x + c₂y over the included pixels, subtracted in place
- * (normal equations, 3×3, solved by Cramer's rule).
+ * (normal equations, 3×3, solved by Cramer's rule). Without a mask, returns the residual's SD
+ * (n − 1) when its mean is zero to rounding, so the caller can skip subtractMean; else null.
  */
-export function subtractPlane(data: Float32Array, width: number, height: number, included: Uint8Array | null): void {
+export function subtractPlane(
+  data: Float32Array,
+  width: number,
+  height: number,
+  included: Uint8Array | null,
+): number | null {
   let n = 0,
     sx = 0,
     sy = 0,
@@ -65,18 +71,30 @@ export function subtractPlane(data: Float32Array, width: number, height: number,
     a[0] * (a[4] * a[8] - a[5] * a[7]) - a[1] * (a[3] * a[8] - a[5] * a[6]) + a[2] * (a[3] * a[7] - a[4] * a[6]);
   const m = [n, sx, sy, sx, sxx, sxy, sy, sxy, syy];
   const d = det3(m);
-  if (!(Math.abs(d) > 1e-9 * Math.max(1, n) ** 3)) {
-    subtractMean(data, included);
-    return;
-  }
+  if (!(Math.abs(d) > 1e-9 * Math.max(1, n) ** 3)) return subtractMean(data, included);
   const c0 = det3([sz, sx, sy, sxz, sxx, sxy, syz, sxy, syy]) / d;
   const c1 = det3([n, sz, sy, sx, sxz, sxy, sy, syz, syy]) / d;
   const c2 = det3([n, sx, sz, sx, sxx, sxz, sy, sxy, syz]) / d;
+  let s = 0,
+    ss = 0;
   for (let y = 0; y < height; y++) {
     const row = y * width;
     const base = c0 + c2 * y;
-    for (let x = 0; x < width; x++) data[row + x] -= base + c1 * x;
+    let rowS = 0,
+      rowSs = 0;
+    for (let x = 0; x < width; x++) {
+      const v = (data[row + x] -= base + c1 * x);
+      rowS += v;
+      rowSs += v * v;
+    }
+    s += rowS;
+    ss += rowSs;
   }
+  if (included || n < 2) return null;
+  // The least-squares plane has a constant term, so the residual's mean is zero but for rounding.
+  const mean = s / n;
+  const sd = Math.sqrt(Math.max(0, (ss - n * mean * mean) / (n - 1)));
+  return Math.abs(mean) <= 1e-6 * sd ? sd : null;
 }
 
 /** One pass of a running-box mean of half-width r along rows (stride 1) or columns (stride width). */
@@ -178,7 +196,8 @@ function subtractCoarseBackground(
   height: number,
   included: Uint8Array | null,
   sigmaPx: number,
-): void {
+  centre = false,
+): number | null {
   const f = Math.max(2, Math.floor(sigmaPx / 8));
   const bw = Math.ceil(width / f),
     bh = Math.ceil(height / f);
@@ -224,17 +243,54 @@ function subtractCoarseBackground(
         b = level[gy * bw + x1s[x]];
       rows[gy * width + x] = a * (1 - txs[x]) + b * txs[x];
     }
+  // Without a mask the residual's mean is known before the pass (the data's from the bins, the
+  // background's from the interpolated rows), so the pass can centre it and sum its squares too.
+  let offset = 0;
+  const centring = centre && !included;
+  if (centring) {
+    const rowMean = new Float64Array(bh);
+    for (let gy = 0; gy < bh; gy++) {
+      let m = 0;
+      for (let x = 0; x < width; x++) m += rows[gy * width + x];
+      rowMean[gy] = m / width;
+    }
+    let dataSum = 0,
+      bgSum = 0;
+    for (let j = 0; j < sum.length; j++) dataSum += sum[j];
+    for (let y = 0; y < height; y++) {
+      const { y0, y1, ty } = gridRow(y, f, bh);
+      bgSum += rowMean[y0] * (1 - ty) + rowMean[y1] * ty;
+    }
+    offset = dataSum / (width * height) - bgSum / height;
+  }
+  let ss = 0;
   for (let y = 0; y < height; y++) {
-    const gy = Math.min(bh - 1, Math.max(0, (y + 0.5) / f - 0.5));
-    const y0 = Math.floor(gy),
-      y1 = Math.min(bh - 1, y0 + 1),
-      ty = gy - y0,
-      uy = 1 - ty;
+    const { y0, y1, ty } = gridRow(y, f, bh);
+    const uy = 1 - ty;
     const top = y0 * width,
       bottom = y1 * width,
       row = y * width;
-    for (let x = 0; x < width; x++) into[row + x] = data[row + x] - (rows[top + x] * uy + rows[bottom + x] * ty);
+    if (!centring)
+      for (let x = 0; x < width; x++) into[row + x] = data[row + x] - (rows[top + x] * uy + rows[bottom + x] * ty);
+    else {
+      let rowSs = 0;
+      for (let x = 0; x < width; x++) {
+        const v = data[row + x] - (rows[top + x] * uy + rows[bottom + x] * ty) - offset;
+        into[row + x] = v;
+        rowSs += v * v;
+      }
+      ss += rowSs;
+    }
   }
+  const n = width * height;
+  return centring ? (n > 1 ? Math.sqrt(ss / (n - 1)) : 0) : null;
+}
+
+/** The two grid rows around image row y and the weight of the second (bilinear, clamped at the border). */
+function gridRow(y: number, f: number, bh: number): { y0: number; y1: number; ty: number } {
+  const gy = Math.min(bh - 1, Math.max(0, (y + 0.5) / f - 0.5));
+  const y0 = Math.floor(gy);
+  return { y0, y1: Math.min(bh - 1, y0 + 1), ty: gy - y0 };
 }
 
 /**
@@ -271,7 +327,9 @@ export function subtractBlur(
 
 /**
  * `data` minus its heavily blurred copy, as a new array (`data` is left as it is): on large
- * backgrounds one pass that reads `data` and writes the result, instead of a copy and a subtraction.
+ * backgrounds one pass that reads `data` and writes the result, instead of a copy and a
+ * subtraction. Without a mask, on large backgrounds, the same pass also removes the residual's
+ * mean and returns its SD (n − 1), as subtractMean would; otherwise `sd` is null.
  */
 export function blurResidual(
   data: Float32Array,
@@ -279,15 +337,15 @@ export function blurResidual(
   height: number,
   included: Uint8Array | null,
   sigmaPx: number,
-): Float32Array {
+): { residual: Float32Array; sd: number | null } {
   if (sigmaPx >= COARSE_SIGMA_PX) {
-    const out = new Float32Array(data.length);
-    subtractCoarseBackground(data, out, width, height, included, sigmaPx);
-    return out;
+    const residual = new Float32Array(data.length);
+    const sd = subtractCoarseBackground(data, residual, width, height, included, sigmaPx, true);
+    return { residual, sd };
   }
-  const out = data.slice();
-  subtractBlur(out, width, height, included, sigmaPx);
-  return out;
+  const residual = data.slice();
+  subtractBlur(residual, width, height, included, sigmaPx);
+  return { residual, sd: null };
 }
 
 /** Subtracts the mean of the included pixels, sets excluded pixels to 0; returns the SD (n − 1). */

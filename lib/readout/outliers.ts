@@ -21,13 +21,22 @@ export const BRIGHT_OUTLIER_Z = 6;
  */
 export function findSaturated(data: Float32Array, width: number, height: number): Uint8Array | null {
   let top = -Infinity,
-    bottom = Infinity;
+    bottom = Infinity,
+    atTop = 0,
+    atBottom = 0;
   for (let i = 0; i < data.length; i++) {
     const v = data[i];
-    if (v > top) top = v;
-    if (v < bottom) bottom = v;
+    if (v >= top) {
+      atTop = v > top ? 1 : atTop + 1;
+      top = v;
+    }
+    if (v <= bottom) {
+      atBottom = v < bottom ? 1 : atBottom + 1;
+      bottom = v;
+    }
   }
-  if (!(top > bottom)) return null;
+  // A 2 × 2 block needs four pixels at one extreme: without them there is nothing to scan for.
+  if (!(top > bottom) || (atTop < 4 && atBottom < 4)) return null;
   let mask: Uint8Array | null = null;
   // Only pixels at an extreme can start a block: the common frame has few, so the test per pixel is one comparison.
   for (let y = 0; y + 1 < height; y++) {

@@ -63,10 +63,11 @@ export function prepareRegion(image: GreyImage, settings: ResolvedReadoutOptions
   const sigmaPx = settings.blurSigmaPx ?? Math.min(width, height) / 8;
   if (settings.flatten === "auto") subtractPlane(data, width, height, included);
   // The background model behind the outlier and tissue search (and the "auto" flattening when nothing changes).
-  const residual =
+  const background =
     auto || settings.tissueMask === "auto" || settings.flatten === "auto"
       ? blurResidual(data, width, height, included, sigmaPx)
       : null;
+  const residual = background?.residual ?? null;
   const treated =
     auto && residual
       ? treatOutliers(data, residual, width, height, included, saturated?.mask ?? null)
@@ -79,12 +80,14 @@ export function prepareRegion(image: GreyImage, settings: ResolvedReadoutOptions
     if (included) for (let i = 0; i < included.length; i++) included[i] &= tissue.mask[i];
     else included = tissue.mask.slice();
   }
+  // An SD known from the flattening pass (centred already) spares subtractMean's two passes.
+  let known: number | null = null;
   if (settings.flatten === "auto") {
-    if (tissue.mask || treated.changed || !residual) subtractBlur(data, width, height, included, sigmaPx);
-    else data = residual;
-  } else if (settings.flatten === "plane") subtractPlane(data, width, height, included);
+    if (tissue.mask || treated.changed || !background) subtractBlur(data, width, height, included, sigmaPx);
+    else ({ residual: data, sd: known } = background);
+  } else if (settings.flatten === "plane") known = subtractPlane(data, width, height, included);
   else if (settings.flatten === "blur") subtractBlur(data, width, height, included, sigmaPx);
-  const sd = subtractMean(data, included);
+  const sd = known !== null && !included ? known : subtractMean(data, included);
   if (!(sd > 1e-6 * Math.max(1, scale))) throw new ReadoutError("no_variation", MESSAGES.noVariation, "image");
   const perSource = binFactor * binFactor;
   return {
