@@ -127,6 +127,7 @@ export const envSchema = z.object({
   UPLOAD_GRACE_S: amount(0, 900),
   INVITATION_DAYS: amount(0, 7),
   SIMULATION_THREADS: oneOf(["1", "2"], "2"),
+  READOUT_THREADS: oneOf(["1", "2"], "2"),
   JOB_CONCURRENCY: whole(1, 1),
   JOBS_IN_WEB: oneOf(["0", "1"], "1"),
   WORKER_CONCURRENCY: whole(1, 1),

@@ -85,6 +85,8 @@ export function parseConfig(env: Record<string, string | undefined>) {
     invitationDays: e.INVITATION_DAYS,
     /** Threads of one verification run: 2 = the main thread and a worker (species side by side), 1 = serial. */
     simulationThreads: Number(e.SIMULATION_THREADS) as 1 | 2,
+    /** Threads of one image readout's 2-D FFT in its child process (the numbers are the same on 1 and 2). */
+    readoutThreads: Number(e.READOUT_THREADS) as 1 | 2,
     /** Jobs one server process runs at once. */
     jobConcurrency: e.JOB_CONCURRENCY,
     /** A job that ran longer than this (s) e-mails its requester when it ends. */

@@ -79,16 +79,20 @@ async function inChild<T>(
     type Failure = { code: ErrorCode; message: string; details: unknown };
     let failure: Failure | null = null;
     let progress = Promise.resolve();
-    const r = await startChild("readout", ["--input", input, "--settings", settingsFile, "--out", dir], {
-      signal,
-      timeLimitMs: READOUT_TIME_LIMIT_MS,
-      onLine(line) {
-        const q = parseProtocolLine<{ fraction: number; note: string }>(line, "progress");
-        if (q) progress = progress.then(() => step(q.fraction, q.note)).catch(() => undefined);
-        failure = parseProtocolLine<Failure>(line, "error") ?? failure;
-        return line.startsWith("progress ") || line.startsWith("error ");
+    const r = await startChild(
+      "readout",
+      ["--input", input, "--settings", settingsFile, "--out", dir, "--threads", String(readConfig().readoutThreads)],
+      {
+        signal,
+        timeLimitMs: READOUT_TIME_LIMIT_MS,
+        onLine(line) {
+          const q = parseProtocolLine<{ fraction: number; note: string }>(line, "progress");
+          if (q) progress = progress.then(() => step(q.fraction, q.note)).catch(() => undefined);
+          failure = parseProtocolLine<Failure>(line, "error") ?? failure;
+          return line.startsWith("progress ") || line.startsWith("error ");
+        },
       },
-    });
+    );
     await progress;
     if (r.timedOut)
       throw new AppError(
