@@ -8,10 +8,12 @@ export interface TreatedPixels {
   saturated: number;
   /** Bright outliers (debris) above the robust threshold, and the 1-px rim grown around them. */
   bright: number;
+  /** Dark outliers (opaque debris) below the robust threshold, and their 1-px rim. */
+  dark: number;
 }
 
-/** A robust z above this (in SDs estimated from the median absolute deviation) marks a bright outlier. */
-export const BRIGHT_OUTLIER_Z = 6;
+/** A robust |z| above this (in SDs estimated from the median absolute deviation) marks an outlier. */
+export const OUTLIER_Z = 6;
 
 /**
  * Clipped pixels: at the highest (saturated) or lowest (clipped floor) value of the region and part
@@ -62,32 +64,47 @@ function sampleSorted(data: Float32Array, included: Uint8Array | null, skip: Uin
   return Float32Array.from(out).sort();
 }
 
+/** Outliers of a flattened image on either side: 1 = treat; and which of them were dark. */
+export interface FoundOutliers {
+  mask: Uint8Array;
+  /** 1 where the pixel is below the lower limit (dark debris), else 0; null when there is none. */
+  dark: Uint8Array | null;
+}
+
 /**
- * Bright outliers of a background-flattened image: above median + max(6·1.4826·MAD, 2·(q98 − median)).
- * The MAD term is the robust z-score of Iglewicz & Hoaglin (1993, "How to detect and handle
- * outliers", ASQC); the q98 term keeps the bright tops of a sparse spot pattern, which a MAD
- * fitted mostly to the gaps between spots would call outliers, inside the pattern.
+ * Outliers of a background-flattened image, on both sides: above median + max(6·1.4826·MAD,
+ * 2·(q98 − median)) (bright debris, fluorescent dust) or below median − max(6·1.4826·MAD,
+ * 2·(median − q02)) (opaque particles in brightfield). The MAD term is the robust z-score of
+ * Iglewicz & Hoaglin (1993, "How to detect and handle outliers", ASQC); the quantile terms keep
+ * the tops of a sparse bright pattern, or the cores of a sparse dark one, which a MAD fitted mostly
+ * to the gaps would call outliers, inside the pattern. Both sides alike: a pattern and its
+ * negative read the same.
  */
-export function findBrightOutliers(
+export function findOutliers(
   residual: Float32Array,
   included: Uint8Array | null,
   already: Uint8Array | null,
-): Uint8Array | null {
+): FoundOutliers | null {
   const s = sampleSorted(residual, included, already);
   if (s.length < 16) return null;
   const q = (f: number) => s[Math.min(s.length - 1, Math.floor(f * s.length))];
   const median = q(0.5);
   const dev = Float32Array.from(s, (v) => Math.abs(v - median)).sort();
   const sd = 1.4826 * dev[Math.floor(dev.length / 2)];
-  const limit = median + Math.max(BRIGHT_OUTLIER_Z * sd, 2 * (q(0.98) - median));
-  if (!(limit > median)) return null;
-  let mask: Uint8Array | null = null;
-  for (let i = 0; i < residual.length; i++)
-    if (residual[i] > limit && (!included || included[i]) && !(already && already[i])) {
-      mask ??= new Uint8Array(residual.length);
-      mask[i] = 1;
-    }
-  return mask;
+  const upper = median + Math.max(OUTLIER_Z * sd, 2 * (q(0.98) - median));
+  const lower = median - Math.max(OUTLIER_Z * sd, 2 * (median - q(0.02)));
+  if (!(upper > median && lower < median)) return null;
+  let mask: Uint8Array | null = null,
+    dark: Uint8Array | null = null;
+  for (let i = 0; i < residual.length; i++) {
+    const v = residual[i];
+    if (v <= upper && v >= lower) continue;
+    if ((included && !included[i]) || (already && already[i])) continue;
+    mask ??= new Uint8Array(residual.length);
+    mask[i] = 1;
+    if (v < lower) (dark ??= new Uint8Array(residual.length))[i] = 1;
+  }
+  return mask ? { mask, dark } : null;
 }
 
 /** Grows a mask by one pixel (8-neighbourhood): the blurred rim of a debris particle goes with it. */

@@ -26,9 +26,10 @@ export interface PreparedRegion {
   tissueMask: Uint8Array | null;
   /** Fraction of the region's pixels analysed after the tissue mask (1 without one). */
   tissueFraction: number;
-  /** Source pixels replaced by their surroundings: saturated, and bright outliers with their rim. */
+  /** Source pixels replaced by their surroundings: saturated, and bright and dark outliers with their rim. */
   treatedSaturatedPx: number;
   treatedBrightPx: number;
+  treatedDarkPx: number;
 }
 
 export const MIN_REGION_SIDE_PX = 16;
@@ -71,7 +72,7 @@ export function prepareRegion(image: GreyImage, settings: ResolvedReadoutOptions
   const treated =
     auto && residual
       ? treatOutliers(data, residual, width, height, included, saturated?.mask ?? null)
-      : { changed: false, saturated: 0, bright: 0 };
+      : { changed: false, saturated: 0, bright: 0, dark: 0 };
   const tissue =
     settings.tissueMask === "auto" && residual
       ? findTissueRegion(residual, data, width, height, included)
@@ -103,6 +104,7 @@ export function prepareRegion(image: GreyImage, settings: ResolvedReadoutOptions
     tissueFraction: tissue.fraction,
     treatedSaturatedPx: saturated ? saturated.count : 0,
     treatedBrightPx: treated.bright * perSource,
+    treatedDarkPx: treated.dark * perSource,
   };
 }
 

@@ -206,7 +206,8 @@ export function readWavelength(image: GreyImage, options: ReadoutOptions): Wavel
     treatedPixels: {
       saturated: region.treatedSaturatedPx,
       bright: region.treatedBrightPx,
-      total: region.treatedSaturatedPx + region.treatedBrightPx,
+      dark: region.treatedDarkPx,
+      total: region.treatedSaturatedPx + region.treatedBrightPx + region.treatedDarkPx,
     },
     warnings,
   };

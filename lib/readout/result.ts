@@ -85,6 +85,6 @@ export interface WavelengthReadout {
     outline: Array<[number, number]> | null;
   };
   /** Source pixels replaced by their surroundings before the spectrum. */
-  treatedPixels: { saturated: number; bright: number; total: number };
+  treatedPixels: { saturated: number; bright: number; dark: number; total: number };
   warnings: string[];
 }

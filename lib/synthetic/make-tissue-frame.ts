@@ -26,6 +26,11 @@ export interface TissueFrameOptions extends MicroscopeFrameOptions {
   tissue?: TissueOptions | null;
   /** Bright debris disks (radius 2–5 px, 30× the pattern's amplitude) that saturate the detector. @default 0 */
   debrisCount?: number;
+  /**
+   * "bright": debris adds light (fluorescent dust) and saturates; "dark": opaque particles pass 5 %
+   * of the light there, as in brightfield, without reaching the detector's floor. @default "bright"
+   */
+  debrisContrast?: "bright" | "dark";
   /** Low-count shot noise: mean photon count per unit of intensity (Poisson, seeded); 0 = none. @default 0 */
   photonsPerUnit?: number;
   /** 8-bit output in which this fraction of the specimen's brightest pixels clips at 255. @default 0 (float) */
@@ -50,6 +55,8 @@ export interface TissueFrame {
 const TISSUE_LEVEL = 2;
 const SLIDE_LEVEL = { dark: 0.3, bright: 4 } as const;
 const DEBRIS_LEVEL = 30;
+/** Fraction of the light an opaque debris particle lets through (brightfield). */
+const DARK_DEBRIS_TRANSMISSION = 0.05;
 
 /** Poisson draw: Knuth's product method below a mean of 30, the normal approximation above (Knuth, TAOCP 2, §3.4.1). */
 function poisson(rng: Rng, mean: number): number {
@@ -138,14 +145,21 @@ export function makeTissueFrame(o: TissueFrameOptions): TissueFrame {
   // The clip level is chosen before the debris is added: it is a property of the specimen's exposure.
   let clip = Infinity;
   if (satFraction > 0) clip = quantileOf(data, 1 - satFraction, null);
-  for (let i = 0; i < data.length; i++) if (debris[i]) data[i] += DEBRIS_LEVEL;
+  const darkDebris = o.debrisContrast === "dark";
+  if (o.debrisContrast !== undefined && o.debrisContrast !== "bright" && !darkDebris)
+    throw new SyntheticOptionError(
+      "debrisContrast",
+      `debrisContrast must be "bright" or "dark" (got ${String(o.debrisContrast)}).`,
+    );
+  for (let i = 0; i < data.length; i++)
+    if (debris[i]) data[i] = darkDebris ? DARK_DEBRIS_TRANSMISSION * data[i] : data[i] + DEBRIS_LEVEL;
   if (r.blurSigmaPx > 0) data = gaussianBlur(data, width, height, r.blurSigmaPx);
   for (let i = 0; i < data.length; i++) {
     let v = data[i] + (r.noise > 0 ? r.noise * rng.normal() : 0);
     if (photons > 0) v = poisson(rng, Math.max(0, v) * photons) / photons;
     data[i] = v;
   }
-  if (satFraction === 0 && debrisCount > 0) {
+  if (satFraction === 0 && debrisCount > 0 && !darkDebris) {
     let top = -Infinity;
     for (let i = 0; i < data.length; i++) if (!debris[i] && data[i] > top) top = data[i];
     clip = Math.fround(1.5 * top); // debris cores saturate; the specimen does not (a stored float32 value)

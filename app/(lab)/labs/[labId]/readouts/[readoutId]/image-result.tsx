@@ -197,7 +197,14 @@ export function ImageResult({ readout, result }: { readout: ReadoutDetailDto; re
                 intensity{" "}
                 <span className="text-xs text-ink-soft">
                   (<span className="num">{treated.saturated.toLocaleString("en-GB")}</span> saturated or clipped,{" "}
-                  <span className="num">{treated.bright.toLocaleString("en-GB")}</span> bright debris with its rim)
+                  <span className="num">{treated.bright.toLocaleString("en-GB")}</span> bright debris
+                  {/* Readouts stored before dark debris was treated have no count for it. */}
+                  {treated.dark ? (
+                    <>
+                      , <span className="num">{treated.dark.toLocaleString("en-GB")}</span> dark debris
+                    </>
+                  ) : null}
+                  , each with its rim)
                 </span>
               </>
             ) : (
