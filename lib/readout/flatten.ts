@@ -14,6 +14,7 @@ export function subtractPlane(
   width: number,
   height: number,
   included: Uint8Array | null,
+  sums?: { sumZ: number; sumXZ: number; sumYZ: number },
 ): number | null {
   let n = 0,
     sx = 0,
@@ -53,19 +54,22 @@ export function subtractPlane(
     sy = Sy * width;
     syy = Syy * width;
     sxy = Sx * Sy;
-    for (let y = 0; y < height; y++) {
-      const row = y * width;
-      let rz = 0,
-        rxz = 0;
-      for (let x = 0; x < width; x++) {
-        const z = data[row + x];
-        rz += z;
-        rxz += x * z;
+    // Sums taken by the pass that copied the region (extractRoi's stats) spare this one.
+    if (sums) ({ sumZ: sz, sumXZ: sxz, sumYZ: syz } = sums);
+    else
+      for (let y = 0; y < height; y++) {
+        const row = y * width;
+        let rz = 0,
+          rxz = 0;
+        for (let x = 0; x < width; x++) {
+          const z = data[row + x];
+          rz += z;
+          rxz += x * z;
+        }
+        sz += rz;
+        sxz += rxz;
+        syz += y * rz;
       }
-      sz += rz;
-      sxz += rxz;
-      syz += y * rz;
-    }
   }
   const det3 = (a: number[]) =>
     a[0] * (a[4] * a[8] - a[5] * a[7]) - a[1] * (a[3] * a[8] - a[5] * a[6]) + a[2] * (a[3] * a[7] - a[4] * a[6]);

@@ -21,22 +21,29 @@ export const OUTLIER_Z = 6;
  * spot) is not clipping; a clipped spot top or a debris core is a blob. Both ends are treated
  * alike, so a pattern and its negative read the same. Run on the stored values.
  */
-export function findSaturated(data: Float32Array, width: number, height: number): Uint8Array | null {
-  let top = -Infinity,
-    bottom = Infinity,
-    atTop = 0,
-    atBottom = 0;
-  for (let i = 0; i < data.length; i++) {
-    const v = data[i];
-    if (v >= top) {
-      atTop = v > top ? 1 : atTop + 1;
-      top = v;
+export function findSaturated(
+  data: Float32Array,
+  width: number,
+  height: number,
+  extremes?: { min: number; max: number; atMin: number; atMax: number },
+): Uint8Array | null {
+  let top = extremes ? extremes.max : -Infinity,
+    bottom = extremes ? extremes.min : Infinity,
+    atTop = extremes ? extremes.atMax : 0,
+    atBottom = extremes ? extremes.atMin : 0;
+  // The extremes may come from the pass that copied the region (extractRoi's stats).
+  if (!extremes)
+    for (let i = 0; i < data.length; i++) {
+      const v = data[i];
+      if (v >= top) {
+        atTop = v > top ? 1 : atTop + 1;
+        top = v;
+      }
+      if (v <= bottom) {
+        atBottom = v < bottom ? 1 : atBottom + 1;
+        bottom = v;
+      }
     }
-    if (v <= bottom) {
-      atBottom = v < bottom ? 1 : atBottom + 1;
-      bottom = v;
-    }
-  }
   // A 2 × 2 block needs four pixels at one extreme: without them there is nothing to scan for.
   if (!(top > bottom) || (atTop < 4 && atBottom < 4)) return null;
   let mask: Uint8Array | null = null;

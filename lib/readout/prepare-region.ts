@@ -5,7 +5,7 @@ import { blurResidual, subtractBlur, subtractMean, subtractPlane } from "./flatt
 import type { ResolvedReadoutOptions } from "./options";
 import { findSaturated } from "./outliers";
 import { treatOutliers } from "./treat-outliers";
-import { extractRoi } from "./roi";
+import { extractRoi, type RegionStats } from "./roi";
 import { findTissueRegion } from "./tissue-mask";
 
 /** The region after ROI, inversion, binning, outlier treatment, tissue mask and background flattening (not yet windowed). */
@@ -50,11 +50,17 @@ export function prepareRegion(image: GreyImage, settings: ResolvedReadoutOptions
   }
   const auto = settings.outliers === "auto";
   // Saturation is a property of the stored values: found before inversion and binning.
-  let saturated = auto ? findSaturatedIn(data, width, height, included) : null;
+  let saturated = auto ? findSaturatedIn(data, width, height, included, roi.stats) : null;
   if (settings.invert) for (let i = 0; i < data.length; i++) data[i] = -data[i];
+  // The plane fit's sums from the copying pass, while the pixels are still the copied ones (negated if inverted).
+  const sign = settings.invert ? -1 : 1;
+  let planeSums = roi.stats
+    ? { sumZ: sign * roi.stats.sumZ, sumXZ: sign * roi.stats.sumXZ, sumYZ: sign * roi.stats.sumYZ }
+    : undefined;
   let binFactor = 1;
   while (Math.max(width, height) / binFactor > settings.maxAnalysisSidePx) binFactor++;
   if (binFactor > 1) {
+    planeSums = undefined;
     const sourceWidth = width;
     ({ data, width, height, included } = binPixels(data, width, height, included, binFactor));
     if (saturated) saturated = { ...saturated, mask: binMask(saturated.mask, sourceWidth, binFactor, width, height) };
@@ -62,7 +68,7 @@ export function prepareRegion(image: GreyImage, settings: ResolvedReadoutOptions
   let scale = 0;
   for (let i = 0; i < data.length; i += 97) scale = Math.max(scale, Math.abs(data[i]));
   const sigmaPx = settings.blurSigmaPx ?? Math.min(width, height) / 8;
-  if (settings.flatten === "auto") subtractPlane(data, width, height, included);
+  if (settings.flatten === "auto") subtractPlane(data, width, height, included, planeSums);
   // The background model behind the outlier and tissue search (and the "auto" flattening when nothing changes).
   const background =
     auto || settings.tissueMask === "auto" || settings.flatten === "auto"
@@ -86,7 +92,8 @@ export function prepareRegion(image: GreyImage, settings: ResolvedReadoutOptions
   if (settings.flatten === "auto") {
     if (tissue.mask || treated.changed || !background) subtractBlur(data, width, height, included, sigmaPx);
     else ({ residual: data, sd: known } = background);
-  } else if (settings.flatten === "plane") known = subtractPlane(data, width, height, included);
+  } else if (settings.flatten === "plane")
+    known = subtractPlane(data, width, height, included, treated.changed || tissue.mask ? undefined : planeSums);
   else if (settings.flatten === "blur") subtractBlur(data, width, height, included, sigmaPx);
   const sd = known !== null && !included ? known : subtractMean(data, included);
   if (!(sd > 1e-6 * Math.max(1, scale))) throw new ReadoutError("no_variation", MESSAGES.noVariation, "image");
@@ -114,8 +121,9 @@ function findSaturatedIn(
   width: number,
   height: number,
   included: Uint8Array | null,
+  stats: RegionStats | null,
 ): { mask: Uint8Array; count: number } | null {
-  const mask = findSaturated(data, width, height);
+  const mask = findSaturated(data, width, height, stats ?? undefined);
   if (!mask) return null;
   let count = 0;
   for (let i = 0; i < mask.length; i++) {

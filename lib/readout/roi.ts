@@ -29,6 +29,67 @@ export interface RoiPixels {
   /** 1 = analysed, 0 = outside the polygon or excluded by the mask; null = all analysed. */
   included: Uint8Array | null;
   includedCount: number;
+  /** Sums taken while a rectangle was copied (null for a polygon or an exclusion mask). */
+  stats: RegionStats | null;
+}
+
+/**
+ * What one pass over a copied rectangle can also give, so later steps need not read it again:
+ * the extremes and how many pixels sit at each (the saturation scan), and the plane fit's sums.
+ */
+export interface RegionStats {
+  min: number;
+  max: number;
+  atMin: number;
+  atMax: number;
+  /** Σz, Σx·z, Σy·z over the region (x, y from 0 at its top-left). */
+  sumZ: number;
+  sumXZ: number;
+  sumYZ: number;
+}
+
+/** Copies rows [y0, y1) × columns [x0, x1) of the image, taking the RegionStats on the way. */
+function copyWithStats(
+  image: GreyImage,
+  x0: number,
+  y0: number,
+  width: number,
+  height: number,
+): { data: Float32Array; stats: RegionStats } {
+  const src = image.data,
+    W = image.width;
+  const data = new Float32Array(width * height);
+  let min = Infinity,
+    max = -Infinity,
+    atMin = 0,
+    atMax = 0,
+    sumZ = 0,
+    sumXZ = 0,
+    sumYZ = 0;
+  for (let y = 0; y < height; y++) {
+    const from = (y + y0) * W + x0,
+      to = y * width;
+    let rz = 0,
+      rxz = 0;
+    for (let x = 0; x < width; x++) {
+      const v = src[from + x];
+      data[to + x] = v;
+      if (v >= max) {
+        atMax = v > max ? 1 : atMax + 1;
+        max = v;
+      }
+      if (v <= min) {
+        atMin = v < min ? 1 : atMin + 1;
+        min = v;
+      }
+      rz += v;
+      rxz += x * v;
+    }
+    sumZ += rz;
+    sumXZ += rxz;
+    sumYZ += y * rz;
+  }
+  return { data, stats: { min, max, atMin, atMax, sumZ, sumXZ, sumYZ } };
 }
 
 /** Even–odd ray casting point-in-polygon test (Shimrat 1962, CACM 5:434). */
@@ -67,10 +128,12 @@ export function extractRoi(image: GreyImage, roi?: Roi, excludeMask?: Uint8Array
   const width = x1 - x0;
   const height = y1 - y0;
   if (!(width > 0 && height > 0)) throw new ReadoutError("zero_area_roi", MESSAGES.zeroAreaRoi, "roi");
+  if (roi?.kind !== "polygon" && !excludeMask) {
+    const { data, stats } = copyWithStats(image, x0, y0, width, height);
+    return { x0, y0, width, height, data, included: null, includedCount: width * height, stats };
+  }
   const data = new Float32Array(width * height);
   for (let y = 0; y < height; y++) data.set(image.data.subarray((y + y0) * W + x0, (y + y0) * W + x1), y * width);
-  if (roi?.kind !== "polygon" && !excludeMask)
-    return { x0, y0, width, height, data, included: null, includedCount: width * height };
   const included = new Uint8Array(width * height);
   let includedCount = 0;
   for (let y = 0; y < height; y++) {
@@ -84,5 +147,5 @@ export function extractRoi(image: GreyImage, roi?: Roi, excludeMask?: Uint8Array
     }
   }
   if (includedCount === 0) throw new ReadoutError("zero_area_roi", MESSAGES.zeroAreaRoi, "roi");
-  return { x0, y0, width, height, data, included, includedCount };
+  return { x0, y0, width, height, data, included, includedCount, stats: null };
 }
