@@ -36,12 +36,18 @@ export function findSaturated(
     for (let i = 0; i < data.length; i++) {
       const v = data[i];
       if (v >= top) {
-        atTop = v > top ? 1 : atTop + 1;
-        top = v;
+        if (v > top) {
+          top = v;
+          atTop = 0;
+        }
+        atTop++;
       }
       if (v <= bottom) {
-        atBottom = v < bottom ? 1 : atBottom + 1;
-        bottom = v;
+        if (v < bottom) {
+          bottom = v;
+          atBottom = 0;
+        }
+        atBottom++;
       }
     }
   // A 2 × 2 block needs four pixels at one extreme: without them there is nothing to scan for.
