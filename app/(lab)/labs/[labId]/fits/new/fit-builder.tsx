@@ -12,6 +12,7 @@ import { EmptyState, Panel } from "@/components/ui/panel";
 import { ApiError, sendJson } from "@/lib/client/api";
 import type { FitCandidateDto } from "@/lib/server/fits/candidates";
 import type { FitDetailDto } from "@/lib/server/fits/fits";
+import type { FitPrefill } from "@/lib/server/fits/prefill";
 import type { KineticsInfoDto } from "@/lib/server/kinetics/catalogue";
 import { FitCandidateTables } from "./fit-candidate-tables";
 import { field, listConditions, type Pick, type Tissue, type Typed } from "./fit-data-drafts";
@@ -25,27 +26,42 @@ export function FitBuilder({
   candidates,
   kinetics,
   initialKinetics,
+  prefill = null,
 }: {
   labId: string;
   candidates: FitCandidateDto[];
   kinetics: KineticsInfoDto[];
   initialKinetics: string | null;
+  /** A fit being changed: every field starts as it was ("Change and re-run"). */
+  prefill?: FitPrefill | null;
 }) {
   const router = useRouter();
   const first =
     kinetics.find((k) => k.id === initialKinetics) ?? kinetics.find((k) => k.id === "schnakenberg") ?? kinetics[0];
-  const [name, setName] = useState("");
+  const [name, setName] = useState(prefill?.name ?? "");
   const [picks, setPicks] = useState<Record<string, Pick>>(() =>
     Object.fromEntries(
-      candidates.map((c) => [c.readoutId, { on: false, condition: c.condition, kind: c.defaultKind }]),
+      candidates.map((c) => {
+        const was = prefill?.picks.find((p) => p.readoutId === c.readoutId);
+        return [
+          c.readoutId,
+          was
+            ? { on: true, condition: was.condition, kind: was.kind }
+            : { on: false, condition: c.condition, kind: c.defaultKind },
+        ];
+      }),
     ),
   );
-  const [typed, setTyped] = useState<Typed[]>([]);
-  const [tissues, setTissues] = useState<Record<string, Tissue>>({});
-  const [models, setModels] = useState<ModelDraft[]>(() => [newModel(first, "m0")]);
-  const [profiles, setProfiles] = useState(true);
-  const [uncertainty, setUncertainty] = useState<"per-readout" | "with-specimen-spread">("with-specimen-spread");
-  const [replicates, setReplicates] = useState<"specimens" | "images">("specimens");
+  const [typed, setTyped] = useState<Typed[]>(() => prefill?.typed ?? []);
+  const [tissues, setTissues] = useState<Record<string, Tissue>>(() => prefill?.tissues ?? {});
+  const [models, setModels] = useState<ModelDraft[]>(() =>
+    prefill?.models.length ? prefill.models.map((m, i) => ({ ...m, key: `m${i}` })) : [newModel(first, "m0")],
+  );
+  const [profiles, setProfiles] = useState(prefill?.profiles ?? true);
+  const [uncertainty, setUncertainty] = useState<"per-readout" | "with-specimen-spread">(
+    prefill?.uncertainty ?? "with-specimen-spread",
+  );
+  const [replicates, setReplicates] = useState<"specimens" | "images">(prefill?.replicates ?? "specimens");
   const [error, setError] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
 
@@ -66,6 +82,8 @@ export function FitBuilder({
       profiles,
       uncertainty,
       replicates,
+      otherOptions: prefill?.otherOptions,
+      changedFrom: prefill?.fromFit.id,
     });
     try {
       const fit = await sendJson<FitDetailDto>("POST", `/api/v1/labs/${labId}/fits`, body);
@@ -78,6 +96,17 @@ export function FitBuilder({
 
   return (
     <div className="space-y-6">
+      {prefill && (
+        <Notice testId="fit-changed-from">
+          Filled in from the fit “{prefill.fromFit.name}”: change what you want and start a new fit. The original stays
+          as it is; the new fit links back to it.
+          {prefill.notes.map((n) => (
+            <span key={n} className="mt-1 block text-xs">
+              {n}
+            </span>
+          ))}
+        </Notice>
+      )}
       <Panel title="1 · Data">
         {candidates.length === 0 && typed.length === 0 && (
           <EmptyState title="No finished readouts with a period yet.">
