@@ -33,5 +33,6 @@ export function buildRunBody(d: RunDraft, info: KineticsInfoDto, prefill: RunPre
     ...(prefill.fit
       ? { fit: { fitId: prefill.fit.fitId, condition: prefill.fit.condition, model: prefill.fit.model } }
       : {}),
+    ...(prefill.change ? { scheme: prefill.change.scheme, changedFrom: prefill.change.changedFrom.id } : {}),
   };
 }

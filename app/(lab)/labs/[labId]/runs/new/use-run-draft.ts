@@ -2,6 +2,7 @@
 /** The run form's state: every field as typed, plus the choices that reset or prefill others. */
 import { useState } from "react";
 import type { KineticsInfoDto } from "@/lib/server/kinetics/catalogue";
+import type { RunChangePrefill } from "@/lib/server/runs/prefill";
 import type { RunStartOption } from "@/lib/server/runs/start";
 
 export interface RunPrefill {
@@ -14,6 +15,11 @@ export interface RunPrefill {
   startFrom?: string;
   /** Start from a finished fit: kinetics, parameters and scales come from it. */
   fit?: { fitId: string; condition: string; model: string; label: string };
+  /** "Change and run again": the earlier run's grid, time and initial state, and the run it links back to. */
+  change?: Omit<
+    RunChangePrefill,
+    "kinetics" | "version" | "parameters" | "lengthScaleUm" | "timeScaleS" | "fit" | "startFrom"
+  >;
 }
 
 export type RunDraft = ReturnType<typeof useRunDraft>;
@@ -29,22 +35,25 @@ export function useRunDraft(kinetics: KineticsInfoDto[], prefill: RunPrefill, ea
   const source0 = earlierRuns.find((r) => r.id === prefill.startFrom);
   const [startFrom, setStartFrom] = useState(source0?.id ?? "");
   const source = earlierRuns.find((r) => r.id === startFrom);
-  const [dims, setDims] = useState<"1" | "2">(source0 ? (source0.cells.length === 2 ? "2" : "1") : "2");
-  const [lx, setLx] = useState(source0 ? String(source0.lengthUm[0]) : "100"),
-    [ly, setLy] = useState(source0?.lengthUm[1] !== undefined ? String(source0.lengthUm[1]) : "100");
-  const [cells, setCells] = useState(source0 ? String(source0.cells[0]) : "64");
-  const [boundary, setBoundary] = useState<"zero-flux" | "periodic">(source0?.boundary ?? "zero-flux");
-  const [endTime, setEndTime] = useState("300"),
-    [dt, setDt] = useState(""),
-    [stationary, setStationary] = useState(false);
-  const [seed, setSeed] = useState(""),
-    [noise, setNoise] = useState(""),
-    [snapshots, setSnapshots] = useState("9");
+  // A changed run keeps its own grid; a run continuing another takes that run's grid.
+  const g = prefill.change?.grid;
+  const [dims, setDims] = useState<"1" | "2">(g?.dims ?? (source0 ? (source0.cells.length === 2 ? "2" : "1") : "2"));
+  const [lx, setLx] = useState(g?.lx ?? (source0 ? String(source0.lengthUm[0]) : "100")),
+    [ly, setLy] = useState(g?.ly ?? (source0?.lengthUm[1] !== undefined ? String(source0.lengthUm[1]) : "100"));
+  const [cells, setCells] = useState(g?.cells ?? (source0 ? String(source0.cells[0]) : "64"));
+  const [boundary, setBoundary] = useState<"zero-flux" | "periodic">(g?.boundary ?? source0?.boundary ?? "zero-flux");
+  const c = prefill.change;
+  const [endTime, setEndTime] = useState(c?.endTime ?? "300"),
+    [dt, setDt] = useState(c?.dt ?? ""),
+    [stationary, setStationary] = useState(c?.stationary ?? false);
+  const [seed, setSeed] = useState(c?.seed ?? ""),
+    [noise, setNoise] = useState(c?.noise ?? ""),
+    [snapshots, setSnapshots] = useState(c?.snapshots ?? "9");
   const [lengthScale, setLengthScale] = useState(prefill.lengthScaleUm ?? ""),
     [timeScale, setTimeScale] = useState(prefill.timeScaleS ?? "");
-  const [gradParam, setGradParam] = useState(""),
-    [gradFrom, setGradFrom] = useState(""),
-    [gradTo, setGradTo] = useState("");
+  const [gradParam, setGradParam] = useState(c?.gradient?.parameter ?? ""),
+    [gradFrom, setGradFrom] = useState(c?.gradient?.from ?? ""),
+    [gradTo, setGradTo] = useState(c?.gradient?.to ?? "");
   const dimensional = info?.units === "dimensional";
   const lengthUnit = dimensional ? "µm" : "model length";
   const timeUnit = dimensional ? "s" : "model time";
