@@ -17,6 +17,7 @@ import type { KineticsInfoDto } from "@/lib/server/kinetics/catalogue";
 import { FitCandidateTables } from "./fit-candidate-tables";
 import { field, listConditions, type Pick, type Tissue, type Typed } from "./fit-data-drafts";
 import { ModelEditor, newModel, type ModelDraft } from "./fit-model-editor";
+import { startingDrafts } from "./fit-prefill-drafts";
 import { buildFitBody } from "./fit-request-body";
 import { TissueSizes } from "./tissue-sizes";
 import { TypedMeasurements } from "./typed-measurements";
@@ -38,30 +39,15 @@ export function FitBuilder({
   const router = useRouter();
   const first =
     kinetics.find((k) => k.id === initialKinetics) ?? kinetics.find((k) => k.id === "schnakenberg") ?? kinetics[0];
-  const [name, setName] = useState(prefill?.name ?? "");
-  const [picks, setPicks] = useState<Record<string, Pick>>(() =>
-    Object.fromEntries(
-      candidates.map((c) => {
-        const was = prefill?.picks.find((p) => p.readoutId === c.readoutId);
-        return [
-          c.readoutId,
-          was
-            ? { on: true, condition: was.condition, kind: was.kind }
-            : { on: false, condition: c.condition, kind: c.defaultKind },
-        ];
-      }),
-    ),
-  );
-  const [typed, setTyped] = useState<Typed[]>(() => prefill?.typed ?? []);
-  const [tissues, setTissues] = useState<Record<string, Tissue>>(() => prefill?.tissues ?? {});
-  const [models, setModels] = useState<ModelDraft[]>(() =>
-    prefill?.models.length ? prefill.models.map((m, i) => ({ ...m, key: `m${i}` })) : [newModel(first, "m0")],
-  );
-  const [profiles, setProfiles] = useState(prefill?.profiles ?? true);
-  const [uncertainty, setUncertainty] = useState<"per-readout" | "with-specimen-spread">(
-    prefill?.uncertainty ?? "with-specimen-spread",
-  );
-  const [replicates, setReplicates] = useState<"specimens" | "images">(prefill?.replicates ?? "specimens");
+  const [start] = useState(() => startingDrafts(candidates, first, prefill));
+  const [name, setName] = useState(start.name);
+  const [picks, setPicks] = useState<Record<string, Pick>>(start.picks);
+  const [typed, setTyped] = useState<Typed[]>(start.typed);
+  const [tissues, setTissues] = useState<Record<string, Tissue>>(start.tissues);
+  const [models, setModels] = useState<ModelDraft[]>(start.models);
+  const [profiles, setProfiles] = useState(start.profiles);
+  const [uncertainty, setUncertainty] = useState(start.uncertainty);
+  const [replicates, setReplicates] = useState(start.replicates);
   const [error, setError] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
 
