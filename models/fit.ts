@@ -29,6 +29,8 @@ export class Fit extends Model<InferAttributes<Fit>, InferCreationAttributes<Fit
   declare error: CreationOptional<string | null>;
   declare softwareVersion: string;
   declare rerunOf: string | null;
+  /** The fit whose filled-in builder this one was changed from ("Change and re-run"). */
+  declare changedFrom: CreationOptional<string | null>;
   declare createdBy: string | null;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
@@ -51,6 +53,7 @@ export function initFit(sequelize: Sequelize) {
       error: { type: DataTypes.TEXT },
       softwareVersion: { type: DataTypes.STRING(40), allowNull: false },
       rerunOf: { type: DataTypes.UUID },
+      changedFrom: { type: DataTypes.UUID },
       createdBy: { type: DataTypes.UUID },
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,

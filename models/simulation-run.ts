@@ -41,6 +41,8 @@ export class SimulationRun extends Model<InferAttributes<SimulationRun>, InferCr
   declare agrees: CreationOptional<boolean | null>;
   declare fileKeys: CreationOptional<Record<string, string> | null>;
   declare softwareVersion: string;
+  /** The run whose filled-in form this one was changed from ("Change and run again"). */
+  declare changedFrom: CreationOptional<string | null>;
   declare createdBy: string | null;
   declare createdAt: CreationOptional<Date>;
   declare finishedAt: CreationOptional<Date | null>;
@@ -71,6 +73,7 @@ export function initSimulationRun(sequelize: Sequelize) {
       agrees: { type: DataTypes.BOOLEAN },
       fileKeys: { type: DataTypes.JSON },
       softwareVersion: { type: DataTypes.STRING(40), allowNull: false },
+      changedFrom: { type: DataTypes.UUID },
       createdBy: { type: DataTypes.UUID },
       createdAt: DataTypes.DATE,
       finishedAt: { type: DataTypes.DATE },

@@ -132,6 +132,8 @@ export const fitCreateSchema = z
      * `images`: every readout is its own datum (pseudo-replication when a specimen has several images).
      */
     replicates: z.enum(["specimens", "images"], 'replicates must be "specimens" or "images"').optional(),
+    /** The earlier fit of this lab whose settings were changed to make this one ("Change and re-run"). */
+    changedFrom: z.uuid("changedFrom must be a fit id").optional(),
   })
   .strict();
 export type FitCreateInput = z.input<typeof fitCreateSchema>;

@@ -76,6 +76,8 @@ export const simulationRunRequestSchema = z.object({
     .optional(),
   lengthScaleUm: positive("lengthScaleUm (µm)").optional(),
   timeScaleS: positive("timeScaleS (s)").optional(),
+  /** The earlier run of this lab whose settings were changed to make this one ("Change and run again"). */
+  changedFrom: z.uuid("changedFrom must be a run id").optional(),
 });
 export type SimulationRunRequest = z.infer<typeof simulationRunRequestSchema>;
 export type SimulationRunInput = z.input<typeof simulationRunRequestSchema>;

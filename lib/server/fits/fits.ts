@@ -10,7 +10,7 @@ import { can } from "@/lib/access/permissions";
 import type { FitCreate } from "@/lib/contracts/fit";
 import type { JobStatus } from "@/models/job";
 import { authorize, isUuid, type LabContext } from "../access";
-import { notFound } from "../errors";
+import { AppError, notFound } from "../errors";
 import { enqueueJob } from "../jobs/queue";
 import { containsText, type ListQuery, type ListResult, pageResult } from "../web/list";
 import { database, services } from "../services";
@@ -49,6 +49,16 @@ export interface FitDetailDto extends FitSummaryDto {
   softwareVersion: string;
   result: StoredFitResult | null;
   canRerun: boolean;
+  /** The fit this one was changed from ("Change and re-run"), and the fits changed from this one. */
+  changedFrom: FitLinkDto | null;
+  changedInto: FitLinkDto[];
+}
+
+/** Another fit of the lab, as a link. */
+export interface FitLinkDto {
+  id: string;
+  name: string;
+  status: JobStatus;
 }
 
 type Row = InstanceType<Awaited<ReturnType<typeof database>>["Fit"]>;
@@ -125,7 +135,7 @@ export async function findFit(ctx: LabContext, fitId: string): Promise<Row> {
 
 export async function getFit(ctx: LabContext, fitId: string): Promise<FitDetailDto> {
   const r = await findFit(ctx, fitId);
-  const [s] = await toSummaries([r]);
+  const [[s], links] = await Promise.all([toSummaries([r]), readFitLinks(ctx, r)]);
   return {
     ...s,
     spec: r.spec as unknown as StoredFitSpec,
@@ -134,10 +144,16 @@ export async function getFit(ctx: LabContext, fitId: string): Promise<FitDetailD
     softwareVersion: r.softwareVersion,
     result: r.status === "succeeded" ? (r.result as unknown as StoredFitResult) : null,
     canRerun: can(ctx.role, "fit.create"),
+    ...links,
   };
 }
 
-async function queueFit(ctx: LabContext, name: string, built: BuiltFit, rerunOf: string | null): Promise<FitDetailDto> {
+async function queueFit(
+  ctx: LabContext,
+  name: string,
+  built: BuiltFit,
+  { rerunOf = null, changedFrom = null }: { rerunOf?: string | null; changedFrom?: string | null },
+): Promise<FitDetailDto> {
   const m = await database();
   const id = randomUUID();
   const kind = built.kind === "fit" ? "fit" : "fit-comparison";
@@ -164,6 +180,7 @@ async function queueFit(ctx: LabContext, name: string, built: BuiltFit, rerunOf:
         inputSha256: built.inputSha256,
         softwareVersion: SOFTWARE_VERSION,
         rerunOf,
+        changedFrom,
         createdBy: ctx.actor.userId,
       },
       { transaction },
@@ -176,7 +193,7 @@ async function queueFit(ctx: LabContext, name: string, built: BuiltFit, rerunOf:
         action: rerunOf ? "fit.rerun" : "fit.started",
         targetType: "fit",
         targetId: id,
-        summary: `${ctx.actor.email} ${rerunOf ? "re-ran" : "started"} the ${built.kind} “${name}” (${built.provenance.kinetics.map((k) => k.label).join(", ")}; ${built.spec.data.length} measurements)`,
+        summary: `${ctx.actor.email} ${rerunOf ? "re-ran" : changedFrom ? "changed and re-ran" : "started"} the ${built.kind} “${name}” (${built.provenance.kinetics.map((k) => k.label).join(", ")}; ${built.spec.data.length} measurements)`,
       },
       transaction,
     );
@@ -187,8 +204,10 @@ async function queueFit(ctx: LabContext, name: string, built: BuiltFit, rerunOf:
 /** Checks the request (400/422 before anything is written) and queues the fit. */
 export async function startFit(ctx: LabContext, input: FitCreate): Promise<FitDetailDto> {
   authorize(ctx, "fit.create");
+  // The fit it was changed from must be one of this lab's (checked before the spec, which is slower).
+  const changedFrom = input.changedFrom ? (await findChangedFrom(ctx, input.changedFrom)).id : null;
   const built = await buildFitSpec(ctx, input, SOFTWARE_VERSION, fitRunner());
-  return queueFit(ctx, input.name, built, null);
+  return queueFit(ctx, input.name, built, { changedFrom });
 }
 
 /** A new fit with exactly the stored spec of an existing one (same data values, same kinetics versions). */
@@ -206,6 +225,37 @@ export async function rerunFit(ctx: LabContext, fitId: string): Promise<FitDetai
     ctx,
     name.slice(0, 200),
     { kind: r.kind as "fit" | "comparison", spec, provenance, inputSha256: r.inputSha256 },
-    r.id,
+    { rerunOf: r.id },
   );
+}
+
+async function findChangedFrom(ctx: LabContext, fitId: string): Promise<Row> {
+  try {
+    return await findFit(ctx, fitId);
+  } catch (err) {
+    if (err instanceof AppError && err.code === "not_found")
+      throw new AppError("unprocessable", "changedFrom: there is no fit with this id in this lab", {
+        field: "changedFrom",
+      });
+    throw err;
+  }
+}
+
+/** Both directions of "Change and re-run" for one fit, in one query each (newest change first). */
+async function readFitLinks(ctx: LabContext, r: Row): Promise<Pick<FitDetailDto, "changedFrom" | "changedInto">> {
+  const m = await database();
+  const attributes = ["id", "name", "status"];
+  const [from, into] = await Promise.all([
+    r.changedFrom ? m.Fit.findOne({ where: { id: r.changedFrom, labId: ctx.labId }, attributes }) : null,
+    m.Fit.findAll({
+      where: { changedFrom: r.id, labId: ctx.labId },
+      attributes,
+      order: [
+        ["createdAt", "desc"],
+        ["id", "asc"],
+      ],
+    }),
+  ]);
+  const link = (x: Row): FitLinkDto => ({ id: x.id, name: x.name, status: x.status });
+  return { changedFrom: from ? link(from) : null, changedInto: into.map(link) };
 }

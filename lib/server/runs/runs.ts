@@ -21,6 +21,7 @@ import { database, services } from "../services";
 import { recordAudit } from "../audit";
 import { SOFTWARE_VERSION } from "../readouts/readouts";
 import { planRun } from "./plan";
+import { readRunLinks } from "./links";
 import type { RunDetailDto, RunDto, RunPlan, RunResult, RunSpec } from "./types";
 
 export const RUN_SORTS = ["createdAt", "status", "kineticsName"] as const;
@@ -96,7 +97,7 @@ export async function listRuns(ctx: LabContext, q: ListQuery<(typeof RUN_SORTS)[
   return pageResult(q, await toDtos(rows), count);
 }
 
-async function findRun(ctx: LabContext, runId: string): Promise<Row> {
+export async function findRun(ctx: LabContext, runId: string): Promise<Row> {
   if (!isUuid(runId)) throw notFound("run");
   const m = await database();
   const r = await m.SimulationRun.findOne({ where: { id: runId, labId: ctx.labId } });
@@ -106,7 +107,7 @@ async function findRun(ctx: LabContext, runId: string): Promise<Row> {
 
 export async function getRun(ctx: LabContext, runId: string): Promise<RunDetailDto> {
   const r = await findRun(ctx, runId);
-  const [dto] = await toDtos([r]);
+  const [[dto], links] = await Promise.all([toDtos([r]), readRunLinks(ctx, r.id, r.changedFrom)]);
   const base = `/api/v1/labs/${ctx.labId}/runs/${r.id}/files`;
   const files = Object.fromEntries(
     Object.keys(r.status === "succeeded" ? (r.fileKeys ?? {}) : {}).map((k) => [k, `${base}/${k}`]),
@@ -118,12 +119,14 @@ export async function getRun(ctx: LabContext, runId: string): Promise<RunDetailD
     result: r.status === "succeeded" ? (r.result as unknown as RunResult) : null,
     files,
     canCancel: can(ctx.role, "job.cancel", { ownerId: r.createdBy, actorId: ctx.actor.userId }),
+    ...links,
   };
 }
 
 /** Checks the request, then queues the run; answers 400/422 before any job exists. */
 export async function startRun(ctx: LabContext, req: SimulationRunRequest): Promise<RunDetailDto> {
   authorize(ctx, "run.create");
+  const changedFrom = req.changedFrom ? await findChangedFromRun(ctx, req.changedFrom) : null;
   const planned = await planRun(ctx, req);
   const m = await database();
   const id = randomUUID();
@@ -158,6 +161,7 @@ export async function startRun(ctx: LabContext, req: SimulationRunRequest): Prom
         seed: planned.seed,
         predictedWavelengthUm: planned.plan.prediction ? planned.plan.prediction.wavelength * lf : null,
         softwareVersion: SOFTWARE_VERSION,
+        changedFrom,
         createdBy: ctx.actor.userId,
       },
       { transaction },
@@ -170,12 +174,25 @@ export async function startRun(ctx: LabContext, req: SimulationRunRequest): Prom
         action: "run.started",
         targetType: "run",
         targetId: id,
-        summary: `${ctx.actor.email} started the verification run “${name}”`,
+        summary: `${ctx.actor.email} ${changedFrom ? "changed and ran again" : "started"} the verification run “${name}”`,
       },
       transaction,
     );
   });
   return getRun(ctx, id);
+}
+
+/** The run a new one was changed from: one of this lab's (422 naming the field otherwise). */
+async function findChangedFromRun(ctx: LabContext, runId: string): Promise<string> {
+  try {
+    return (await findRun(ctx, runId)).id;
+  } catch (err) {
+    if (err instanceof AppError && err.code === "not_found")
+      throw new AppError("unprocessable", "changedFrom: there is no run with this id in this lab", {
+        field: "changedFrom",
+      });
+    throw err;
+  }
 }
 
 const CONTENT_TYPES: Record<string, string> = {

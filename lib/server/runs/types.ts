@@ -85,4 +85,14 @@ export interface RunDetailDto extends RunDto {
   /** API paths of stored files by name (final-0.png, snapshot-3-1.png, spectrum.json, …). */
   files: Record<string, string>;
   canCancel: boolean;
+  /** The run this one was changed from ("Change and run again"), and the runs changed from this one. */
+  changedFrom: RunLinkDto | null;
+  changedInto: RunLinkDto[];
+}
+
+/** Another run of the lab, as a link. */
+export interface RunLinkDto {
+  id: string;
+  name: string;
+  status: JobStatus;
 }

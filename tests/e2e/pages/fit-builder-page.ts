@@ -19,6 +19,31 @@ export class FitBuilderPage extends LabPage {
     return "/fits/new";
   }
 
+  /** "Filled in from the fit …" when the builder was opened by "Change and re-run". */
+  get changedFromNotice(): Locator {
+    return this.page.getByTestId("fit-changed-from");
+  }
+
+  pick(specimen: string): Locator {
+    return this.page.getByTestId(`pick-${specimen}`);
+  }
+
+  mode(parameter: string): Locator {
+    return this.page.getByTestId(`mode-${parameter}`);
+  }
+
+  bound(parameter: string, side: "lower" | "upper"): Locator {
+    return this.page.getByTestId(`${side}-${parameter}`);
+  }
+
+  lengthScale(model = 0): Locator {
+    return this.page.getByTestId(`model-${model}-length-scale`);
+  }
+
+  get nameField(): Locator {
+    return this.page.getByTestId("fit-name");
+  }
+
   async pickSpecimens(labels: string[]) {
     for (const s of labels) await this.page.getByTestId(`pick-${s}`).check();
   }

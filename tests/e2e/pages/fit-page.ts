@@ -10,6 +10,10 @@ export class FitPage extends LabPage {
   readonly residuals: Locator;
   readonly rerunButton: Locator;
   readonly mapFigure: Locator;
+  readonly changeButton: Locator;
+  readonly changedFromLink: Locator;
+  readonly changedIntoLinks: Locator;
+  readonly verifyBestLink: Locator;
 
   constructor(page: Page, labId: string) {
     super(page, labId);
@@ -20,6 +24,10 @@ export class FitPage extends LabPage {
     this.residuals = page.getByTestId("residuals-table");
     this.rerunButton = page.getByTestId("rerun-fit");
     this.mapFigure = page.getByTestId("fit-map-figure");
+    this.changeButton = page.getByTestId("change-fit");
+    this.changedFromLink = page.getByTestId("fit-changed-from-link");
+    this.changedIntoLinks = page.getByTestId("fit-changed-into-link");
+    this.verifyBestLink = page.getByTestId("verify-best");
   }
 
   /** Waits for the fit job to finish: the verdict appears once the ranking of models is in. */

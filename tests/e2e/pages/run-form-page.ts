@@ -10,6 +10,7 @@ export class RunFormPage extends LabPage {
   readonly cells: Locator;
   readonly error: Locator;
   readonly startNote: Locator;
+  readonly changedFromNotice: Locator;
 
   constructor(page: Page, labId: string) {
     super(page, labId);
@@ -20,6 +21,7 @@ export class RunFormPage extends LabPage {
     this.cells = page.getByTestId("run-cells");
     this.error = page.getByTestId("run-error");
     this.startNote = page.getByTestId("run-start-note");
+    this.changedFromNotice = page.getByTestId("run-changed-from");
   }
 
   override get path() {

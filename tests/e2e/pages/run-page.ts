@@ -14,6 +14,9 @@ export class RunPage extends LabPage {
   readonly scrubberSlider: Locator;
   readonly scaleBar: Locator;
   readonly spectrum: Locator;
+  readonly changeButton: Locator;
+  readonly changedFromLink: Locator;
+  readonly changedIntoLinks: Locator;
 
   constructor(page: Page, labId: string) {
     super(page, labId);
@@ -28,6 +31,9 @@ export class RunPage extends LabPage {
     this.scrubberSlider = this.scrubber.getByTestId("scrubber-slider");
     this.scaleBar = this.scrubber.getByTestId("scale-bar");
     this.spectrum = page.getByTestId("spectrum-plot");
+    this.changeButton = page.getByTestId("change-run");
+    this.changedFromLink = page.getByTestId("run-changed-from-link");
+    this.changedIntoLinks = page.getByTestId("run-changed-into-link");
   }
 
   /** Waits until the run left "queued" and "running". */

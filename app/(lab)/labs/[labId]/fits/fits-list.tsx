@@ -7,7 +7,16 @@ import { formatDateTime } from "@/lib/client/format";
 import type { FitSummaryDto } from "@/lib/server/fits/fits";
 import { FIT_STATUS_TONE, FIT_STATUS_WORDS, VERDICT_TONE } from "./fit-format";
 
-export function FitsList({ labId, canFit }: { labId: string; canFit: boolean }) {
+export function FitsList({
+  labId,
+  canFit,
+  canSimulate = false,
+}: {
+  labId: string;
+  canFit: boolean;
+  /** Runs may be started: a finished comparison offers its best-ranked kinetics to a verification run. */
+  canSimulate?: boolean;
+}) {
   const columns: ColumnDef<FitSummaryDto, unknown>[] = [
     {
       id: "name",
@@ -55,6 +64,15 @@ export function FitsList({ labId, canFit }: { labId: string; canFit: boolean }) 
               <span className="mr-1 text-xs text-ink-soft">best: {row.original.best} —</span>
             )}
             <Badge tone={VERDICT_TONE[row.original.verdict] ?? "plain"}>{row.original.verdict}</Badge>
+            {canSimulate && row.original.kind === "comparison" && row.original.best && (
+              <Link
+                className="ml-2 text-xs text-moss hover:underline"
+                href={`/labs/${labId}/runs/new?${new URLSearchParams({ fit: row.original.id, model: row.original.best, condition: row.original.conditions[0] ?? "" })}`}
+                data-testid="list-verify-best"
+              >
+                Verify the best by simulation
+              </Link>
+            )}
           </span>
         ) : (
           <span className="text-ink-soft">{row.original.error ?? "—"}</span>

@@ -23,7 +23,7 @@ export default async function FitsPage({ params }: { params: Promise<{ labId: st
           ) : null
         }
       />
-      <FitsList labId={labId} canFit={canFit} />
+      <FitsList labId={labId} canFit={canFit} canSimulate={can(ctx.role, "run.create")} />
     </>
   );
 }

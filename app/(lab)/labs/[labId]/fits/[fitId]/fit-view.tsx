@@ -15,6 +15,14 @@ import { FIT_STATUS_TONE, FIT_STATUS_WORDS, isActive, VERDICT_TONE } from "../fi
 import { FitModelDetail } from "./fit-model-detail";
 import { FitProvenance } from "./fit-provenance";
 
+const action = "rounded-md border border-rule bg-card px-2.5 py-1 text-sm hover:bg-paper-deep";
+
+/** The run form filled in with one kinetics of a fit (by label) at its fitted parameters for one condition. */
+function verifyBestHref(labId: string, d: FitDetailDto, label: string, condition: string | undefined): string {
+  const q = new URLSearchParams({ fit: d.id, model: label, condition: condition ?? "" });
+  return `/labs/${labId}/runs/new?${q.toString()}`;
+}
+
 export function FitView({
   labId,
   initial,
@@ -87,9 +95,14 @@ export function FitView({
               Re-run
             </Button>
           )}
+          {d.canRerun && (
+            <Link className={action} href={`/labs/${labId}/fits/new?from=${d.id}`} data-testid="change-fit">
+              Change and re-run
+            </Link>
+          )}
           {canSimulate && d.status === "succeeded" && d.kind !== "comparison" && (
             <Link
-              className="rounded-md border border-rule bg-card px-2.5 py-1 text-sm hover:bg-paper-deep"
+              className={action}
               href={`/labs/${labId}/runs/new?fit=${d.id}&condition=${encodeURIComponent(d.conditions[0] ?? "")}`}
               data-testid="simulate-fit"
             >
@@ -170,6 +183,24 @@ export function FitView({
               ))}
             </tbody>
           </table>
+          {canSimulate && best && (
+            <p className="mt-3 text-sm" data-testid="verify-best-row">
+              <Link className={action} href={verifyBestHref(labId, d, best, d.conditions[0])} data-testid="verify-best">
+                Verify the best by simulation
+              </Link>{" "}
+              <span className="text-xs text-ink-soft">
+                {best} (ranked first) at its fitted parameters for “{d.conditions[0]}”
+              </span>
+              {d.conditions.slice(1).map((c) => (
+                <span key={c} className="text-xs">
+                  {" · "}
+                  <Link className="text-moss hover:underline" href={verifyBestHref(labId, d, best, c)}>
+                    for “{c}”
+                  </Link>
+                </span>
+              ))}
+            </p>
+          )}
           {r.comparison.notes.map((n) => (
             <p key={n} className="mt-2 text-xs text-ink-soft">
               {n}

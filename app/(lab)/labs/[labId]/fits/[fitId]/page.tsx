@@ -4,6 +4,7 @@ import { PageHeader } from "@/components/ui/panel";
 import { can } from "@/lib/access/permissions";
 import { getFit } from "@/lib/server/fits/fits";
 import { orNotFound, pageLab } from "@/lib/server/web/page-access";
+import { FitLineage } from "./fit-lineage";
 import { FitView } from "./fit-view";
 
 export const dynamic = "force-dynamic";
@@ -38,6 +39,7 @@ export default async function FitPage({ params }: { params: Promise<{ labId: str
           </>
         }
       />
+      <FitLineage labId={labId} fit={fit} />
       <FitView labId={labId} initial={fit} canSimulate={can(ctx.role, "run.create")} />
       <div className="mt-8" id="discussion">
         <Discussion labId={labId} targetType="fit" targetId={fit.id} />

@@ -12,10 +12,12 @@ import { EmptyState, Panel } from "@/components/ui/panel";
 import { ApiError, sendJson } from "@/lib/client/api";
 import type { FitCandidateDto } from "@/lib/server/fits/candidates";
 import type { FitDetailDto } from "@/lib/server/fits/fits";
+import type { FitPrefill } from "@/lib/server/fits/prefill";
 import type { KineticsInfoDto } from "@/lib/server/kinetics/catalogue";
 import { FitCandidateTables } from "./fit-candidate-tables";
 import { field, listConditions, type Pick, type Tissue, type Typed } from "./fit-data-drafts";
 import { ModelEditor, newModel, type ModelDraft } from "./fit-model-editor";
+import { startingDrafts } from "./fit-prefill-drafts";
 import { buildFitBody } from "./fit-request-body";
 import { TissueSizes } from "./tissue-sizes";
 import { TypedMeasurements } from "./typed-measurements";
@@ -25,27 +27,27 @@ export function FitBuilder({
   candidates,
   kinetics,
   initialKinetics,
+  prefill = null,
 }: {
   labId: string;
   candidates: FitCandidateDto[];
   kinetics: KineticsInfoDto[];
   initialKinetics: string | null;
+  /** A fit being changed: every field starts as it was ("Change and re-run"). */
+  prefill?: FitPrefill | null;
 }) {
   const router = useRouter();
   const first =
     kinetics.find((k) => k.id === initialKinetics) ?? kinetics.find((k) => k.id === "schnakenberg") ?? kinetics[0];
-  const [name, setName] = useState("");
-  const [picks, setPicks] = useState<Record<string, Pick>>(() =>
-    Object.fromEntries(
-      candidates.map((c) => [c.readoutId, { on: false, condition: c.condition, kind: c.defaultKind }]),
-    ),
-  );
-  const [typed, setTyped] = useState<Typed[]>([]);
-  const [tissues, setTissues] = useState<Record<string, Tissue>>({});
-  const [models, setModels] = useState<ModelDraft[]>(() => [newModel(first, "m0")]);
-  const [profiles, setProfiles] = useState(true);
-  const [uncertainty, setUncertainty] = useState<"per-readout" | "with-specimen-spread">("with-specimen-spread");
-  const [replicates, setReplicates] = useState<"specimens" | "images">("specimens");
+  const [start] = useState(() => startingDrafts(candidates, first, prefill));
+  const [name, setName] = useState(start.name);
+  const [picks, setPicks] = useState<Record<string, Pick>>(start.picks);
+  const [typed, setTyped] = useState<Typed[]>(start.typed);
+  const [tissues, setTissues] = useState<Record<string, Tissue>>(start.tissues);
+  const [models, setModels] = useState<ModelDraft[]>(start.models);
+  const [profiles, setProfiles] = useState(start.profiles);
+  const [uncertainty, setUncertainty] = useState(start.uncertainty);
+  const [replicates, setReplicates] = useState(start.replicates);
   const [error, setError] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
 
@@ -66,6 +68,8 @@ export function FitBuilder({
       profiles,
       uncertainty,
       replicates,
+      otherOptions: prefill?.otherOptions,
+      changedFrom: prefill?.fromFit.id,
     });
     try {
       const fit = await sendJson<FitDetailDto>("POST", `/api/v1/labs/${labId}/fits`, body);
@@ -78,6 +82,17 @@ export function FitBuilder({
 
   return (
     <div className="space-y-6">
+      {prefill && (
+        <Notice testId="fit-changed-from">
+          Filled in from the fit “{prefill.fromFit.name}”: change what you want and start a new fit. The original stays
+          as it is; the new fit links back to it.
+          {prefill.notes.map((n) => (
+            <span key={n} className="mt-1 block text-xs">
+              {n}
+            </span>
+          ))}
+        </Notice>
+      )}
       <Panel title="1 · Data">
         {candidates.length === 0 && typed.length === 0 && (
           <EmptyState title="No finished readouts with a period yet.">

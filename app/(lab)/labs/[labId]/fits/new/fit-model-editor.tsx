@@ -19,6 +19,8 @@ export interface ModelDraft {
   kinetics: string;
   lengthScaleUm: string;
   timeScaleS: string;
+  /** Carried from a fit being changed (the builder has no field for it); dropped when the kinetics changes. */
+  gridSize?: number;
   params: Record<string, ParamDraft>;
 }
 
@@ -254,6 +256,7 @@ export function modelBody(d: ModelDraft, kinetics: KineticsInfoDto[]) {
     ...(info.kind === "lab" ? { version: info.version } : {}),
     ...(d.lengthScaleUm.trim() ? { lengthScaleUm: num(d.lengthScaleUm) } : {}),
     ...(d.timeScaleS.trim() ? { timeScaleS: num(d.timeScaleS) } : {}),
+    ...(d.gridSize !== undefined ? { gridSize: d.gridSize } : {}),
     parameters,
   };
 }

@@ -16,6 +16,10 @@ export interface FitDrafts {
   profiles: boolean;
   uncertainty: "per-readout" | "with-specimen-spread";
   replicates: "specimens" | "images";
+  /** Options the builder has no field for, kept from the fit being changed. */
+  otherOptions?: Record<string, unknown>;
+  /** The fit being changed ("Change and re-run"). */
+  changedFrom?: string;
 }
 
 export function buildFitBody({
@@ -30,6 +34,8 @@ export function buildFitBody({
   profiles,
   uncertainty,
   replicates,
+  otherOptions = {},
+  changedFrom,
 }: FitDrafts) {
   const domainOf = (condition: string) => {
     const t = tissues[condition];
@@ -67,8 +73,9 @@ export function buildFitBody({
       `${models.map((m) => kinetics.find((k) => keyOf(k) === m.kinetics)?.name).join(" vs ")} — ${conditions.join(" vs ")}`,
     data,
     models: models.map((m) => modelBody(m, kinetics)),
-    options: { profiles },
+    options: { ...otherOptions, profiles },
     uncertainty,
     replicates,
+    ...(changedFrom ? { changedFrom } : {}),
   };
 }

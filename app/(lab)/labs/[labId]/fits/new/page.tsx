@@ -2,7 +2,7 @@ import Link from "next/link";
 import { PageHeader } from "@/components/ui/panel";
 import { Notice } from "@/components/ui/notice";
 import { loadNewFitPage } from "@/lib/server/fits/pages";
-import { pageLab } from "@/lib/server/web/page-access";
+import { orNotFound, pageLab } from "@/lib/server/web/page-access";
 import { FitBuilder } from "./fit-builder";
 
 export const dynamic = "force-dynamic";
@@ -12,12 +12,12 @@ export default async function NewFitPage({
   searchParams,
 }: {
   params: Promise<{ labId: string }>;
-  searchParams: Promise<{ kinetics?: string; version?: string }>;
+  searchParams: Promise<{ kinetics?: string; version?: string; from?: string }>;
 }) {
   const { labId } = await params;
-  const { kinetics, version } = await searchParams;
+  const { kinetics, version, from } = await searchParams;
   const ctx = await pageLab(labId, "fit.create");
-  const data = await loadNewFitPage(ctx, { kinetics, version });
+  const data = await orNotFound(loadNewFitPage(ctx, { kinetics, version, from }));
   return (
     <>
       <PageHeader
@@ -26,7 +26,7 @@ export default async function NewFitPage({
             Fits
           </Link>
         }
-        title="New fit"
+        title={data.prefill ? "Change and re-run" : "New fit"}
         subtitle="Choose measured wavelengths grouped by condition, one kinetics (or several to compare), and which parameters the data should pin down. The server checks everything before the fit starts."
       />
       {data.notice && (
@@ -41,6 +41,7 @@ export default async function NewFitPage({
         candidates={data.candidates}
         kinetics={data.kinetics}
         initialKinetics={kinetics ?? null}
+        prefill={data.prefill}
       />
     </>
   );

@@ -3,6 +3,7 @@ import { PageHeader } from "@/components/ui/panel";
 import { can } from "@/lib/access/permissions";
 import { getRun } from "@/lib/server/runs/runs";
 import { orNotFound, pageLab } from "@/lib/server/web/page-access";
+import { RunLineage } from "./run-lineage";
 import { RunView } from "./run-view";
 
 export const dynamic = "force-dynamic";
@@ -36,6 +37,7 @@ export default async function RunPage({ params }: { params: Promise<{ labId: str
           </>
         }
       />
+      <RunLineage labId={labId} run={run} />
       <RunView labId={labId} initial={run} canStart={can(ctx.role, "run.create")} />
     </>
   );

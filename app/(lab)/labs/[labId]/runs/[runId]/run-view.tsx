@@ -64,8 +64,17 @@ export function RunView({ labId, initial, canStart }: { labId: string; initial: 
           </span>{" "}
           × <span className="num text-ink">{plan.steps}</span> steps
         </span>
+        {canStart && !active(r.status) && (
+          <Link
+            className="ml-auto text-moss hover:underline"
+            href={`/labs/${labId}/runs/new?change=${r.id}`}
+            data-testid="change-run"
+          >
+            Change and run again →
+          </Link>
+        )}
         {r.status === "succeeded" && canStart && (
-          <Link className="ml-auto text-moss hover:underline" href={continueHref(labId, r)} data-testid="continue-run">
+          <Link className="text-moss hover:underline" href={continueHref(labId, r)} data-testid="continue-run">
             Start a run from this pattern →
           </Link>
         )}

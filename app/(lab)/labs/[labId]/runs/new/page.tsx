@@ -4,7 +4,7 @@ import { SIMULATION_LIMITS } from "@/lib/simulation";
 import { estimateSolverS, RUN_WORK_LIMIT } from "@/lib/server/runs/plan";
 import { Notice } from "@/components/ui/notice";
 import { loadNewRunPage } from "@/lib/server/runs/pages";
-import { pageLab } from "@/lib/server/web/page-access";
+import { orNotFound, pageLab } from "@/lib/server/web/page-access";
 import { RunForm, type RunPrefill } from "./run-form";
 
 export const dynamic = "force-dynamic";
@@ -32,29 +32,36 @@ export default async function NewRunPage({
     earlierRuns,
     fitStart: f,
     fitNotice,
-  } = await loadNewRunPage(ctx, fitId && condition ? { fitId, condition, model: one("model") } : null);
+    change,
+  } = await orNotFound(
+    loadNewRunPage(ctx, fitId && condition ? { fitId, condition, model: one("model") } : null, one("change")),
+  );
+  const startFrom = change ? change.startFrom : from;
   const prefill: RunPrefill =
-    f && fitId && condition
+    f && (change?.fit ?? (fitId && condition))
       ? {
           kinetics: f.kinetics,
           version: f.version ? String(f.version) : undefined,
           parameters: Object.fromEntries(Object.entries(f.parameters).map(([k, v]) => [k, String(v)])),
           lengthScaleUm: f.lengthScaleUm !== undefined ? String(f.lengthScaleUm) : undefined,
           timeScaleS: f.timeScaleS !== undefined ? String(f.timeScaleS) : undefined,
+          startFrom: change && earlierRuns.some((r) => r.id === startFrom) ? startFrom : undefined,
           fit: {
-            fitId,
-            condition,
+            fitId: f.fromFit.fitId,
+            condition: f.fromFit.condition,
             model: f.fromFit.model,
-            label: `${f.fromFit.fitName} (${f.fromFit.model}), condition “${condition}”: measured ${Number(f.fromFit.measuredMeanUm.toPrecision(4))} ± ${Number(f.fromFit.measuredSeUm.toPrecision(2))} µm, n = ${f.fromFit.n}`,
+            label: `${f.fromFit.fitName} (${f.fromFit.model}), condition “${f.fromFit.condition}”: measured ${Number(f.fromFit.measuredMeanUm.toPrecision(4))} ± ${Number(f.fromFit.measuredSeUm.toPrecision(2))} µm, n = ${f.fromFit.n}`,
           },
+          change: change ?? undefined,
         }
       : {
-          kinetics: one("kinetics"),
-          version: one("version"),
-          parameters,
-          lengthScaleUm: one("lengthScaleUm"),
-          timeScaleS: one("timeScaleS"),
-          startFrom: earlierRuns.some((r) => r.id === from) ? from : undefined,
+          kinetics: change?.kinetics ?? one("kinetics"),
+          version: change ? change.version : one("version"),
+          parameters: change?.parameters ?? parameters,
+          lengthScaleUm: change ? change.lengthScaleUm : one("lengthScaleUm"),
+          timeScaleS: change ? change.timeScaleS : one("timeScaleS"),
+          startFrom: earlierRuns.some((r) => r.id === startFrom) ? startFrom : undefined,
+          change: change ?? undefined,
         };
   const limits = [
     `cells per axis: a power of two, ${SIMULATION_LIMITS.minCellsPerAxis} … ${SIMULATION_LIMITS.maxCellsPerAxis2D} on a rectangle, up to ${SIMULATION_LIMITS.maxCells1D} on an interval`,
@@ -69,9 +76,22 @@ export default async function NewRunPage({
             Runs
           </Link>
         }
-        title="New verification run"
+        title={change ? "Change and run again" : "New verification run"}
         subtitle="Simulate a kinetics from its homogeneous steady state plus seeded noise, or from an earlier run's final pattern; the final pattern is read like a tissue image and compared with 2π/k*."
       />
+      {change && (
+        <div className="mb-4">
+          <Notice testId="run-changed-from">
+            Filled in from the run “{change.changedFrom.name}”: change what you want and start a new run. The original
+            stays as it is; the new run links back to it.
+            {change.notes.map((n) => (
+              <span key={n} className="mt-1 block text-xs">
+                {n}
+              </span>
+            ))}
+          </Notice>
+        </div>
+      )}
       {fitNotice && (
         <div className="mb-4">
           <Notice tone="warning">{fitNotice}</Notice>

@@ -2,9 +2,33 @@
 import type { KineticsInfoDto } from "@/lib/server/kinetics/catalogue";
 import type { RunDraft, RunPrefill } from "./use-run-draft";
 
+/** The fields of the form the body is built from (the draft's state, without its setters). */
+type RunFields = Pick<
+  RunDraft,
+  | "values"
+  | "dims"
+  | "lx"
+  | "ly"
+  | "cells"
+  | "boundary"
+  | "endTime"
+  | "dt"
+  | "stationary"
+  | "seed"
+  | "noise"
+  | "snapshots"
+  | "startFrom"
+  | "gradParam"
+  | "gradFrom"
+  | "gradTo"
+  | "dimensional"
+  | "lengthScale"
+  | "timeScale"
+>;
+
 const num = (s: string) => (s.trim() === "" ? undefined : Number(s));
 
-export function buildRunBody(d: RunDraft, info: KineticsInfoDto, prefill: RunPrefill) {
+export function buildRunBody(d: RunFields, info: KineticsInfoDto, prefill: RunPrefill) {
   return {
     kinetics: info.id,
     ...(info.version ? { version: info.version } : {}),
@@ -33,5 +57,6 @@ export function buildRunBody(d: RunDraft, info: KineticsInfoDto, prefill: RunPre
     ...(prefill.fit
       ? { fit: { fitId: prefill.fit.fitId, condition: prefill.fit.condition, model: prefill.fit.model } }
       : {}),
+    ...(prefill.change ? { scheme: prefill.change.scheme, changedFrom: prefill.change.changedFrom.id } : {}),
   };
 }

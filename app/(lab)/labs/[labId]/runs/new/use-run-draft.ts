@@ -2,6 +2,7 @@
 /** The run form's state: every field as typed, plus the choices that reset or prefill others. */
 import { useState } from "react";
 import type { KineticsInfoDto } from "@/lib/server/kinetics/catalogue";
+import type { RunChangePrefill } from "@/lib/server/runs/prefill";
 import type { RunStartOption } from "@/lib/server/runs/start";
 
 export interface RunPrefill {
@@ -14,37 +15,75 @@ export interface RunPrefill {
   startFrom?: string;
   /** Start from a finished fit: kinetics, parameters and scales come from it. */
   fit?: { fitId: string; condition: string; model: string; label: string };
+  /** "Change and run again": the earlier run's grid, time and initial state, and the run it links back to. */
+  change?: Omit<
+    RunChangePrefill,
+    "kinetics" | "version" | "parameters" | "lengthScaleUm" | "timeScaleS" | "fit" | "startFrom"
+  >;
 }
 
 export type RunDraft = ReturnType<typeof useRunDraft>;
 
-export function useRunDraft(kinetics: KineticsInfoDto[], prefill: RunPrefill, earlierRuns: RunStartOption[]) {
-  const [id, setId] = useState(
-    kinetics.some((k) => k.id === prefill.kinetics) ? prefill.kinetics! : (kinetics[0]?.id ?? ""),
-  );
+/**
+ * The form's first values: the defaults, a kinetics page's or fit's prefill, an earlier run to
+ * continue (its grid), or a run being changed (its own grid, time and initial state). Pure, so
+ * the filled-in form can be checked without a browser.
+ */
+export function startingRunFields(kinetics: KineticsInfoDto[], prefill: RunPrefill, earlierRuns: RunStartOption[]) {
+  const id = kinetics.some((k) => k.id === prefill.kinetics) ? prefill.kinetics! : (kinetics[0]?.id ?? "");
   const info = kinetics.find((k) => k.id === id);
-  const [values, setValues] = useState<Record<string, string>>(() =>
-    Object.fromEntries((info?.parameters ?? []).map((p) => [p.name, prefill.parameters[p.name] ?? String(p.default)])),
-  );
   const source0 = earlierRuns.find((r) => r.id === prefill.startFrom);
-  const [startFrom, setStartFrom] = useState(source0?.id ?? "");
+  // A changed run keeps its own grid; a run continuing another takes that run's grid.
+  const g = prefill.change?.grid;
+  const c = prefill.change;
+  return {
+    id,
+    values: Object.fromEntries(
+      (info?.parameters ?? []).map((p) => [p.name, prefill.parameters[p.name] ?? String(p.default)]),
+    ) as Record<string, string>,
+    startFrom: source0?.id ?? "",
+    dims: (g?.dims ?? (source0 ? (source0.cells.length === 2 ? "2" : "1") : "2")) as "1" | "2",
+    lx: g?.lx ?? (source0 ? String(source0.lengthUm[0]) : "100"),
+    ly: g?.ly ?? (source0?.lengthUm[1] !== undefined ? String(source0.lengthUm[1]) : "100"),
+    cells: g?.cells ?? (source0 ? String(source0.cells[0]) : "64"),
+    boundary: (g?.boundary ?? source0?.boundary ?? "zero-flux") as "zero-flux" | "periodic",
+    endTime: c?.endTime ?? "300",
+    dt: c?.dt ?? "",
+    stationary: c?.stationary ?? false,
+    seed: c?.seed ?? "",
+    noise: c?.noise ?? "",
+    snapshots: c?.snapshots ?? "9",
+    lengthScale: prefill.lengthScaleUm ?? "",
+    timeScale: prefill.timeScaleS ?? "",
+    gradParam: c?.gradient?.parameter ?? "",
+    gradFrom: c?.gradient?.from ?? "",
+    gradTo: c?.gradient?.to ?? "",
+  };
+}
+
+export function useRunDraft(kinetics: KineticsInfoDto[], prefill: RunPrefill, earlierRuns: RunStartOption[]) {
+  const [s0] = useState(() => startingRunFields(kinetics, prefill, earlierRuns));
+  const [id, setId] = useState(s0.id);
+  const info = kinetics.find((k) => k.id === id);
+  const [values, setValues] = useState<Record<string, string>>(s0.values);
+  const [startFrom, setStartFrom] = useState(s0.startFrom);
   const source = earlierRuns.find((r) => r.id === startFrom);
-  const [dims, setDims] = useState<"1" | "2">(source0 ? (source0.cells.length === 2 ? "2" : "1") : "2");
-  const [lx, setLx] = useState(source0 ? String(source0.lengthUm[0]) : "100"),
-    [ly, setLy] = useState(source0?.lengthUm[1] !== undefined ? String(source0.lengthUm[1]) : "100");
-  const [cells, setCells] = useState(source0 ? String(source0.cells[0]) : "64");
-  const [boundary, setBoundary] = useState<"zero-flux" | "periodic">(source0?.boundary ?? "zero-flux");
-  const [endTime, setEndTime] = useState("300"),
-    [dt, setDt] = useState(""),
-    [stationary, setStationary] = useState(false);
-  const [seed, setSeed] = useState(""),
-    [noise, setNoise] = useState(""),
-    [snapshots, setSnapshots] = useState("9");
-  const [lengthScale, setLengthScale] = useState(prefill.lengthScaleUm ?? ""),
-    [timeScale, setTimeScale] = useState(prefill.timeScaleS ?? "");
-  const [gradParam, setGradParam] = useState(""),
-    [gradFrom, setGradFrom] = useState(""),
-    [gradTo, setGradTo] = useState("");
+  const [dims, setDims] = useState<"1" | "2">(s0.dims);
+  const [lx, setLx] = useState(s0.lx),
+    [ly, setLy] = useState(s0.ly);
+  const [cells, setCells] = useState(s0.cells);
+  const [boundary, setBoundary] = useState<"zero-flux" | "periodic">(s0.boundary);
+  const [endTime, setEndTime] = useState(s0.endTime),
+    [dt, setDt] = useState(s0.dt),
+    [stationary, setStationary] = useState(s0.stationary);
+  const [seed, setSeed] = useState(s0.seed),
+    [noise, setNoise] = useState(s0.noise),
+    [snapshots, setSnapshots] = useState(s0.snapshots);
+  const [lengthScale, setLengthScale] = useState(s0.lengthScale),
+    [timeScale, setTimeScale] = useState(s0.timeScale);
+  const [gradParam, setGradParam] = useState(s0.gradParam),
+    [gradFrom, setGradFrom] = useState(s0.gradFrom),
+    [gradTo, setGradTo] = useState(s0.gradTo);
   const dimensional = info?.units === "dimensional";
   const lengthUnit = dimensional ? "µm" : "model length";
   const timeUnit = dimensional ? "s" : "model time";
