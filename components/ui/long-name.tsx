@@ -2,11 +2,15 @@ import Link from "next/link";
 
 /**
  * A name that may be long (a study, specimen, file or kinetics name of 100+ characters): cut to
- * one line with an ellipsis at a width that keeps a table's other columns on screen (40 % of a
- * phone's width, 20rem from 640 px up), the whole name on hover (title) and for screen readers
- * (the text itself stays in the page, only clipped).
+ * one line with an ellipsis at a width that keeps a table's other columns on screen (about a third
+ * of a phone's width, 20rem from 640 px up; "short" for a second name in the same row), the whole
+ * name on hover (title) and for screen readers (the text itself stays in the page, only clipped).
+ * Tailwind needs the class names spelled out.
  */
-const CUT = "inline-block max-w-[40vw] truncate align-bottom sm:max-w-[20rem]";
+const CUT = {
+  name: "inline-block max-w-[36vw] truncate align-bottom sm:max-w-[20rem]",
+  short: "inline-block max-w-[24vw] truncate align-bottom sm:max-w-[12rem]",
+};
 
 export function LongName({
   text,
@@ -14,6 +18,7 @@ export function LongName({
   download = false,
   className = "",
   testId,
+  size = "name",
 }: {
   text: string;
   href?: string;
@@ -21,8 +26,9 @@ export function LongName({
   download?: boolean;
   className?: string;
   testId?: string;
+  size?: keyof typeof CUT;
 }) {
-  const props = { title: text, className: `${CUT} ${className}`, "data-testid": testId };
+  const props = { title: text, className: `${CUT[size]} ${className}`, "data-testid": testId };
   if (href && download)
     return (
       <a href={href} {...props}>

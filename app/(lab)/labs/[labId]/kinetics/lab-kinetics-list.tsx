@@ -47,6 +47,7 @@ export function LabKineticsList({ labId, canCreate }: { labId: string; canCreate
     {
       id: "updatedAt",
       header: "Saved",
+      meta: { hideBelow: "sm" },
       cell: ({ row }) => <span className="num text-ink-soft">{formatDate(row.original.updatedAt)}</span>,
     },
   ];

@@ -29,12 +29,17 @@ export function StudiesView({ labId, canCreate }: { labId: string; canCreate: bo
         />
       ),
     },
-    { id: "tissue", header: "Tissue", cell: ({ row }) => <LongName text={row.original.tissue} /> },
+    {
+      id: "tissue",
+      header: "Tissue",
+      meta: { hideBelow: "sm" },
+      cell: ({ row }) => <LongName size="short" text={row.original.tissue} />,
+    },
     {
       id: "organism",
       header: "Organism",
       meta: { hideBelow: "sm" },
-      cell: ({ row }) => <LongName text={row.original.organism} />,
+      cell: ({ row }) => <LongName size="short" text={row.original.organism} />,
     },
     {
       id: "specimens",
@@ -65,6 +70,7 @@ export function StudiesView({ labId, canCreate }: { labId: string; canCreate: bo
     {
       id: "updatedAt",
       header: "Updated",
+      meta: { hideBelow: "sm" },
       cell: ({ row }) => <span className="num text-ink-soft">{formatDate(row.original.updatedAt)}</span>,
     },
   ];

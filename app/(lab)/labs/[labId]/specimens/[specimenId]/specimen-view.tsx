@@ -83,6 +83,7 @@ export function SpecimenView({
     {
       id: "kind",
       header: "Kind",
+      meta: { hideBelow: "sm" },
       cell: ({ row }) => (
         <Badge tone={row.original.kind === "image" ? "moss" : "plain"}>
           {row.original.kind === "image"

@@ -52,7 +52,7 @@ export function StudyView({
       header: "Condition",
       cell: ({ row }) => (
         <Badge tone="moss">
-          <LongName text={row.original.condition} />
+          <LongName size="short" text={row.original.condition} />
         </Badge>
       ),
     },
