@@ -25,11 +25,14 @@ export function FitBuilder({
   candidates,
   kinetics,
   initialKinetics,
+  initialReadout = null,
 }: {
   labId: string;
   candidates: FitCandidateDto[];
   kinetics: KineticsInfoDto[];
   initialKinetics: string | null;
+  /** A readout to start with picked ("Fit kinetics to this readout" on a readout's page). */
+  initialReadout?: string | null;
 }) {
   const router = useRouter();
   const first =
@@ -37,7 +40,10 @@ export function FitBuilder({
   const [name, setName] = useState("");
   const [picks, setPicks] = useState<Record<string, Pick>>(() =>
     Object.fromEntries(
-      candidates.map((c) => [c.readoutId, { on: false, condition: c.condition, kind: c.defaultKind }]),
+      candidates.map((c) => [
+        c.readoutId,
+        { on: c.readoutId === initialReadout, condition: c.condition, kind: c.defaultKind },
+      ]),
     ),
   );
   const [typed, setTyped] = useState<Typed[]>([]);

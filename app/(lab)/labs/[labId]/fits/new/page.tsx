@@ -12,10 +12,10 @@ export default async function NewFitPage({
   searchParams,
 }: {
   params: Promise<{ labId: string }>;
-  searchParams: Promise<{ kinetics?: string; version?: string }>;
+  searchParams: Promise<{ kinetics?: string; version?: string; readout?: string }>;
 }) {
   const { labId } = await params;
-  const { kinetics, version } = await searchParams;
+  const { kinetics, version, readout } = await searchParams;
   const ctx = await pageLab(labId, "fit.create");
   const data = await loadNewFitPage(ctx, { kinetics, version });
   return (
@@ -41,6 +41,7 @@ export default async function NewFitPage({
         candidates={data.candidates}
         kinetics={data.kinetics}
         initialKinetics={kinetics ?? null}
+        initialReadout={readout ?? null}
       />
     </>
   );
