@@ -57,6 +57,8 @@ test.describe("signed in as the lab manager", () => {
 
   for (const [name, pathOf] of pages) {
     test(`${name} has no serious accessibility violation`, async ({ lab, page }) => {
+      // A fit's page draws several charts and a Turing-space map; axe reads every node of them.
+      test.setTimeout(120_000);
       const sub = await pathOf(page.request, lab.labId);
       expect((await page.goto(`/labs/${lab.labId}${sub}`))?.status()).toBe(200);
       await expectNoSeriousViolations(page);
@@ -65,12 +67,6 @@ test.describe("signed in as the lab manager", () => {
 
   test("account has no serious accessibility violation", async ({ lab, page }) => {
     await lab.account().goto();
-    await expectNoSeriousViolations(page);
-  });
-
-  test("labs has no serious accessibility violation", async ({ lab, page }) => {
-    expect(lab.labId).not.toBe("");
-    await page.goto("/labs");
     await expectNoSeriousViolations(page);
   });
 });
