@@ -3,6 +3,7 @@
  * Dot plot of readouts by condition: one dot per upload (jittered sideways), the condition mean
  * as a bar and its 95 % CI as a whisker. Plain arrays in; values in µm.
  */
+import { axisRangeFor, clipInterval } from "./clip-interval";
 import { formatSig } from "./spectrum-format";
 
 export interface ConditionDotsGroup {
@@ -35,13 +36,14 @@ export function ConditionDots({
   const left = 64,
     bottom = 44,
     top = 12;
-  const width = left + Math.max(1, groups.length) * slot + 16;
-  const all = groups.flatMap((g) => [...g.values.map((v) => v.value), ...(g.ci95 ?? [])]);
-  let lo = Math.min(...all),
-    hi = Math.max(...all);
-  const pad = (hi - lo || Math.abs(hi) * 0.1 || 1) * 0.12;
-  lo -= pad;
-  hi += pad;
+  // 40 px on the right: room for the last group's "↑ 412 µm" label beside its whisker.
+  const width = left + Math.max(1, groups.length) * slot + 40;
+  // A whisker far wider than the dots (two replicates) is cut at the axis and its end labelled.
+  const range = axisRangeFor(
+    groups.flatMap((g) => [...g.values.map((v) => v.value), g.mean]),
+    groups.map((g) => g.ci95),
+  );
+  const { lo, hi } = range;
   const y = (v: number) => top + (1 - (v - lo) / (hi - lo)) * (height - top - bottom);
   const ticks = niceTicks(lo, hi);
   return (
@@ -75,20 +77,7 @@ export function ConditionDots({
           const cx = left + gi * slot + slot / 2;
           return (
             <g key={g.condition} data-testid="condition-dots-group">
-              {g.ci95 && (
-                <line
-                  x1={cx + 22}
-                  x2={cx + 22}
-                  y1={y(g.ci95[0])}
-                  y2={y(g.ci95[1])}
-                  stroke="#22201b"
-                  strokeWidth={1.5}
-                />
-              )}
-              {g.ci95 &&
-                [g.ci95[0], g.ci95[1]].map((v, k) => (
-                  <line key={k} x1={cx + 17} x2={cx + 27} y1={y(v)} y2={y(v)} stroke="#22201b" strokeWidth={1.5} />
-                ))}
+              {g.ci95 && <Whisker x={cx + 22} ci={clipInterval(g.ci95, range)} y={y} />}
               <line x1={cx - 26} x2={cx + 30} y1={y(g.mean)} y2={y(g.mean)} stroke="#22201b" strokeWidth={2} />
               {g.values.map((v, i) => {
                 const jitter = g.values.length > 1 ? (i / (g.values.length - 1) - 0.5) * 28 : 0;
@@ -128,5 +117,39 @@ export function ConditionDots({
         1).
       </figcaption>
     </figure>
+  );
+}
+
+/** A CI whisker inside the axes: a cap at an end that fits, an arrow and the value at an end cut off. */
+function Whisker({ x, ci, y }: { x: number; ci: ReturnType<typeof clipInterval>; y: (v: number) => number }) {
+  const ends: Array<{ at: number; beyond: number | null; up: boolean }> = [
+    { at: ci.lo, beyond: ci.beyondLow, up: false },
+    { at: ci.hi, beyond: ci.beyondHigh, up: true },
+  ];
+  return (
+    <g data-testid="ci-whisker">
+      <line x1={x} x2={x} y1={y(ci.lo)} y2={y(ci.hi)} stroke="#22201b" strokeWidth={1.5} />
+      {ends.map(({ at, beyond, up }) =>
+        beyond === null ? (
+          <line key={String(up)} x1={x - 5} x2={x + 5} y1={y(at)} y2={y(at)} stroke="#22201b" strokeWidth={1.5} />
+        ) : (
+          <g key={String(up)} data-testid="ci-beyond">
+            <path
+              d={
+                up
+                  ? `M${x - 5},${y(at) + 6} L${x},${y(at)} L${x + 5},${y(at) + 6}`
+                  : `M${x - 5},${y(at) - 6} L${x},${y(at)} L${x + 5},${y(at) - 6}`
+              }
+              fill="none"
+              stroke="#22201b"
+              strokeWidth={1.5}
+            />
+            <text x={x + 7} y={y(at) + (up ? 10 : -4)} fontSize={10} fontFamily="IBM Plex Mono" fill="#5c574c">
+              {`${up ? "↑" : "↓"} ${formatSig(beyond, 4)} µm`}
+            </text>
+          </g>
+        ),
+      )}
+    </g>
   );
 }

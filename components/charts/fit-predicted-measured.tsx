@@ -14,6 +14,7 @@ import {
   XAxis,
   YAxis,
 } from "recharts";
+import { axisRangeFor, clipInterval } from "./clip-interval";
 import { formatNumber } from "./dispersion-format";
 
 export interface PredictedMeasuredProps {
@@ -34,6 +35,19 @@ export function FitPredictedMeasured({ conditions, measured, predicted }: Predic
   const p = predicted
     .filter((d) => d.valueUm !== null)
     .map((d) => ({ x: x(d.condition) + 0.18, y: d.valueUm as number }));
+  // Whiskers stay inside the axes: a very wide one is cut at the edge, its end marked and labelled.
+  const range = axisRangeFor(
+    [...m.map((d) => d.y), ...p.map((d) => d.y)],
+    m.map((d) => [d.y - d.err, d.y + d.err]),
+  );
+  const measuredClipped = m.map((d) => {
+    const c = clipInterval([d.y - d.err, d.y + d.err], range);
+    return { ...d, errClipped: [d.y - c.lo, c.hi - d.y], c };
+  });
+  const beyond = measuredClipped.flatMap((d) => [
+    ...(d.c.beyondHigh !== null ? [{ x: d.x, y: d.c.hi, value: d.c.beyondHigh, up: true }] : []),
+    ...(d.c.beyondLow !== null ? [{ x: d.x, y: d.c.lo, value: d.c.beyondLow, up: false }] : []),
+  ]);
   return (
     <div data-testid="predicted-measured">
       <ResponsiveContainer width="100%" height={300}>
@@ -51,7 +65,8 @@ export function FitPredictedMeasured({ conditions, measured, predicted }: Predic
           <YAxis
             type="number"
             dataKey="y"
-            domain={["auto", "auto"]}
+            domain={[range.lo, range.hi]}
+            allowDataOverflow
             tickFormatter={(v: number) => formatNumber(v, 3)}
             tick={{ fontSize: 11, fontFamily: "IBM Plex Mono" }}
             width={64}
@@ -70,12 +85,34 @@ export function FitPredictedMeasured({ conditions, measured, predicted }: Predic
             contentStyle={{ fontSize: 12, fontFamily: "IBM Plex Mono" }}
           />
           <Legend verticalAlign="top" height={24} wrapperStyle={{ fontSize: 12 }} />
-          <Scatter name="measured ± uncertainty" data={m} fill="#1f5c45" isAnimationActive={false}>
-            <ErrorBar dataKey="err" direction="y" width={4} stroke="#1f5c45" />
+          <Scatter name="measured ± uncertainty" data={measuredClipped} fill="#1f5c45" isAnimationActive={false}>
+            <ErrorBar dataKey="errClipped" direction="y" width={4} stroke="#1f5c45" />
           </Scatter>
+          {beyond.length > 0 && (
+            <Scatter data={beyond} legendType="none" isAnimationActive={false} shape={BeyondMark} tooltipType="none" />
+          )}
           <Scatter name="model 2π/k* at the fit" data={p} fill="#5b3c8f" shape="diamond" isAnimationActive={false} />
         </ComposedChart>
       </ResponsiveContainer>
     </div>
+  );
+}
+
+/** An arrow at the axis edge where an uncertainty bar continues, with the bar's true end. */
+function BeyondMark(props: unknown) {
+  const { cx, cy, payload } = props as { cx: number; cy: number; payload: { value: number; up: boolean } };
+  const tip = payload.up ? -1 : 1;
+  return (
+    <g data-testid="ci-beyond">
+      <path
+        d={`M${cx - 4},${cy - 6 * tip} L${cx},${cy} L${cx + 4},${cy - 6 * tip}`}
+        fill="none"
+        stroke="#1f5c45"
+        strokeWidth={1.5}
+      />
+      <text x={cx + 7} y={cy + (payload.up ? 10 : -4)} fontSize={10} fontFamily="IBM Plex Mono" fill="#5c574c">
+        {`${payload.up ? "↑" : "↓"} ${formatNumber(payload.value, 3)} µm`}
+      </text>
+    </g>
   );
 }

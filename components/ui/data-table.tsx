@@ -9,6 +9,19 @@ import useSWR from "swr";
 import { fetchJson } from "@/lib/client/api";
 import { describeLoadError } from "./load-error";
 
+declare module "@tanstack/react-table" {
+  // eslint-disable-next-line @typescript-eslint/no-unused-vars -- the generics must match TanStack's own declaration
+  interface ColumnMeta<TData, TValue> {
+    /** "sm": a secondary column, hidden below 640 px so the table fits a phone's width. */
+    hideBelow?: "sm";
+  }
+}
+
+/** The cell and header classes of a column hidden on narrow screens (Tailwind needs literal names). */
+function hiddenClass(meta: { hideBelow?: "sm" } | undefined): string {
+  return meta?.hideBelow === "sm" ? " hidden sm:table-cell" : "";
+}
+
 export interface Page<T> {
   items: T[];
   page: number;
@@ -123,7 +136,7 @@ export function DataTable<T>({
                     const canSort = h.column.getCanSort();
                     const dir = h.column.getIsSorted();
                     return (
-                      <th key={h.id} className="px-3 py-2 font-medium">
+                      <th key={h.id} className={`px-3 py-2 font-medium${hiddenClass(h.column.columnDef.meta)}`}>
                         {canSort ? (
                           <button
                             type="button"
@@ -147,7 +160,7 @@ export function DataTable<T>({
               {table.getRowModel().rows.map((row) => (
                 <tr key={row.id} className="border-b border-rule/60 last:border-0 hover:bg-paper/70">
                   {row.getVisibleCells().map((cell) => (
-                    <td key={cell.id} className="px-3 py-2 align-top">
+                    <td key={cell.id} className={`px-3 py-2 align-top${hiddenClass(cell.column.columnDef.meta)}`}>
                       {flexRender(cell.column.columnDef.cell, cell.getContext())}
                     </td>
                   ))}

@@ -1,4 +1,5 @@
 /** A fit's result page. */
+import { readFile } from "node:fs/promises";
 import { expect, type Locator, type Page } from "@playwright/test";
 import { LabPage } from "./lab-page";
 
@@ -33,6 +34,20 @@ export class FitPage extends LabPage {
   /** Waits for the fit job to finish: the verdict appears once the ranking of models is in. */
   async waitForRanking(timeoutMs = 90_000) {
     await expect(this.verdict).toBeVisible({ timeout: timeoutMs });
+  }
+
+  /** The figure frame (SVG/PNG buttons) around a chart. */
+  figureOf(chart: Locator): Locator {
+    return this.page.locator("figure").filter({ has: chart });
+  }
+
+  /** Clicks a figure's "SVG" button and returns the downloaded file's text. */
+  async exportSvg(figure: Locator): Promise<{ filename: string; svg: string }> {
+    const [download] = await Promise.all([
+      this.page.waitForEvent("download"),
+      figure.getByTestId("figure-svg").click(),
+    ]);
+    return { filename: download.suggestedFilename(), svg: await readFile(await download.path(), "utf8") };
   }
 
   fitted(name: string): Locator {

@@ -1,8 +1,8 @@
 "use client";
 /** The lab's batches: name, where the files went, how many, who, when. */
 import type { ColumnDef } from "@tanstack/react-table";
-import Link from "next/link";
 import { DataTable } from "@/components/ui/data-table";
+import { LongName } from "@/components/ui/long-name";
 import { EmptyState, Panel } from "@/components/ui/panel";
 import { formatDateTime } from "@/lib/client/format";
 import type { BatchDto } from "@/lib/server/batches/batches";
@@ -13,9 +13,11 @@ export function BatchesList({ labId }: { labId: string }) {
       id: "name",
       header: "Batch",
       cell: ({ row }) => (
-        <Link className="font-medium text-moss hover:underline" href={`/labs/${labId}/batches/${row.original.id}`}>
-          {row.original.name}
-        </Link>
+        <LongName
+          className="font-medium text-moss hover:underline"
+          href={`/labs/${labId}/batches/${row.original.id}`}
+          text={row.original.name}
+        />
       ),
     },
     {

@@ -2,6 +2,7 @@
 import type { ColumnDef } from "@tanstack/react-table";
 import Link from "next/link";
 import { DataTable } from "@/components/ui/data-table";
+import { LongName } from "@/components/ui/long-name";
 import { Badge, EmptyState } from "@/components/ui/panel";
 import { formatDateTime } from "@/lib/client/format";
 import type { FitSummaryDto } from "@/lib/server/fits/fits";
@@ -22,9 +23,11 @@ export function FitsList({
       id: "name",
       header: "Fit",
       cell: ({ row }) => (
-        <Link className="font-medium text-moss hover:underline" href={`/labs/${labId}/fits/${row.original.id}`}>
-          {row.original.name}
-        </Link>
+        <LongName
+          className="font-medium text-moss hover:underline"
+          href={`/labs/${labId}/fits/${row.original.id}`}
+          text={row.original.name}
+        />
       ),
     },
     {

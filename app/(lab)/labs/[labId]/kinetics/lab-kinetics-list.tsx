@@ -1,7 +1,7 @@
 "use client";
 import type { ColumnDef } from "@tanstack/react-table";
-import Link from "next/link";
 import { DataTable } from "@/components/ui/data-table";
+import { LongName } from "@/components/ui/long-name";
 import { Badge, EmptyState } from "@/components/ui/panel";
 import { formatDate } from "@/lib/client/format";
 import type { LabKineticsDto } from "@/lib/server/kinetics/kinetics";
@@ -12,15 +12,18 @@ export function LabKineticsList({ labId, canCreate }: { labId: string; canCreate
       id: "name",
       header: "Kinetics",
       cell: ({ row }) => (
-        <Link className="font-medium text-moss hover:underline" href={`/labs/${labId}/kinetics/${row.original.id}`}>
-          {row.original.name}
-        </Link>
+        <LongName
+          className="font-medium text-moss hover:underline"
+          href={`/labs/${labId}/kinetics/${row.original.id}`}
+          text={row.original.name}
+        />
       ),
     },
     {
       id: "species",
       header: "Species",
       enableSorting: false,
+      meta: { hideBelow: "sm" },
       cell: ({ row }) => (
         <span className="flex flex-wrap gap-1">
           {row.original.species.map((s) => (
@@ -38,11 +41,13 @@ export function LabKineticsList({ labId, canCreate }: { labId: string; canCreate
       id: "createdBy",
       header: "Author",
       enableSorting: false,
+      meta: { hideBelow: "sm" },
       cell: ({ row }) => <span className="text-ink-soft">{row.original.createdByEmail ?? "—"}</span>,
     },
     {
       id: "updatedAt",
       header: "Saved",
+      meta: { hideBelow: "sm" },
       cell: ({ row }) => <span className="num text-ink-soft">{formatDate(row.original.updatedAt)}</span>,
     },
   ];

@@ -1,7 +1,7 @@
 "use client";
 import type { ColumnDef } from "@tanstack/react-table";
-import Link from "next/link";
 import { DataTable } from "@/components/ui/data-table";
+import { LongName } from "@/components/ui/long-name";
 import { Badge, EmptyState } from "@/components/ui/panel";
 import { formatDateTime } from "@/lib/client/format";
 import type { ReadoutDto } from "@/lib/server/readouts/readouts";
@@ -14,9 +14,11 @@ export function ReadoutsList({ labId }: { labId: string }) {
       header: "File",
       enableSorting: false,
       cell: ({ row }) => (
-        <Link className="font-medium text-moss hover:underline" href={`/labs/${labId}/readouts/${row.original.id}`}>
-          {row.original.filename}
-        </Link>
+        <LongName
+          className="font-medium text-moss hover:underline"
+          href={`/labs/${labId}/readouts/${row.original.id}`}
+          text={row.original.filename}
+        />
       ),
     },
     {

@@ -1,7 +1,7 @@
 "use client";
 import type { ColumnDef } from "@tanstack/react-table";
-import Link from "next/link";
 import { DataTable } from "@/components/ui/data-table";
+import { LongName } from "@/components/ui/long-name";
 import { Badge, EmptyState } from "@/components/ui/panel";
 import { formatDateTime } from "@/lib/client/format";
 import type { RunDto } from "@/lib/server/runs/types";
@@ -15,9 +15,11 @@ export function RunsList({ labId, canRun }: { labId: string; canRun: boolean }) 
       header: "Run",
       enableSorting: false,
       cell: ({ row }) => (
-        <Link className="font-medium text-moss hover:underline" href={`/labs/${labId}/runs/${row.original.id}`}>
-          {row.original.name}
-        </Link>
+        <LongName
+          className="font-medium text-moss hover:underline"
+          href={`/labs/${labId}/runs/${row.original.id}`}
+          text={row.original.name}
+        />
       ),
     },
     {

@@ -1,11 +1,11 @@
 "use client";
 import { zodResolver } from "@hookform/resolvers/zod";
 import type { ColumnDef } from "@tanstack/react-table";
-import Link from "next/link";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { DataTable } from "@/components/ui/data-table";
+import { LongName } from "@/components/ui/long-name";
 import { TextArea, TextField } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { Badge, EmptyState, Panel } from "@/components/ui/panel";
@@ -22,13 +22,25 @@ export function StudiesView({ labId, canCreate }: { labId: string; canCreate: bo
       id: "name",
       header: "Study",
       cell: ({ row }) => (
-        <Link className="font-medium text-moss hover:underline" href={`/labs/${labId}/studies/${row.original.id}`}>
-          {row.original.name}
-        </Link>
+        <LongName
+          className="font-medium text-moss hover:underline"
+          href={`/labs/${labId}/studies/${row.original.id}`}
+          text={row.original.name}
+        />
       ),
     },
-    { id: "tissue", header: "Tissue", cell: ({ row }) => row.original.tissue },
-    { id: "organism", header: "Organism", cell: ({ row }) => row.original.organism },
+    {
+      id: "tissue",
+      header: "Tissue",
+      meta: { hideBelow: "sm" },
+      cell: ({ row }) => <LongName size="short" text={row.original.tissue} />,
+    },
+    {
+      id: "organism",
+      header: "Organism",
+      meta: { hideBelow: "sm" },
+      cell: ({ row }) => <LongName size="short" text={row.original.organism} />,
+    },
     {
       id: "specimens",
       header: "Specimens",
@@ -39,6 +51,7 @@ export function StudiesView({ labId, canCreate }: { labId: string; canCreate: bo
       id: "conditions",
       header: "Conditions",
       enableSorting: false,
+      meta: { hideBelow: "sm" },
       cell: ({ row }) => (
         <span className="flex flex-wrap gap-1">
           {row.original.conditions.map((c) => (
@@ -51,11 +64,13 @@ export function StudiesView({ labId, canCreate }: { labId: string; canCreate: bo
       id: "createdBy",
       header: "Created by",
       enableSorting: false,
+      meta: { hideBelow: "sm" },
       cell: ({ row }) => <span className="text-ink-soft">{row.original.createdByEmail ?? "—"}</span>,
     },
     {
       id: "updatedAt",
       header: "Updated",
+      meta: { hideBelow: "sm" },
       cell: ({ row }) => <span className="num text-ink-soft">{formatDate(row.original.updatedAt)}</span>,
     },
   ];

@@ -40,6 +40,7 @@ export function FitConditionPanel({
             value={condition}
             onChange={(e) => setCondition(e.target.value)}
             data-testid="prediction-condition"
+            aria-label="Condition"
           >
             {conditions.map((c) => (
               <option key={c} value={c}>

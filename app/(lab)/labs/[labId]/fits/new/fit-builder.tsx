@@ -28,6 +28,7 @@ export function FitBuilder({
   kinetics,
   initialKinetics,
   prefill = null,
+  initialReadout = null,
 }: {
   labId: string;
   candidates: FitCandidateDto[];
@@ -35,11 +36,13 @@ export function FitBuilder({
   initialKinetics: string | null;
   /** A fit being changed: every field starts as it was ("Change and re-run"). */
   prefill?: FitPrefill | null;
+  /** A readout to start with picked ("Fit kinetics to this readout" on a readout's page). */
+  initialReadout?: string | null;
 }) {
   const router = useRouter();
   const first =
     kinetics.find((k) => k.id === initialKinetics) ?? kinetics.find((k) => k.id === "schnakenberg") ?? kinetics[0];
-  const [start] = useState(() => startingDrafts(candidates, first, prefill));
+  const [start] = useState(() => startingDrafts(candidates, first, prefill, initialReadout));
   const [name, setName] = useState(start.name);
   const [picks, setPicks] = useState<Record<string, Pick>>(start.picks);
   const [typed, setTyped] = useState<Typed[]>(start.typed);

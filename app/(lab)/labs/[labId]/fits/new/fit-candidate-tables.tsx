@@ -60,6 +60,7 @@ export function FitCandidateTables({
                           className={field}
                           value={p.condition}
                           onChange={(e) => set({ condition: e.target.value })}
+                          aria-label={`condition (group) of ${c.filename}`}
                         />
                       </td>
                       <td className="num text-moss">
@@ -72,6 +73,7 @@ export function FitCandidateTables({
                           className={field}
                           value={p.kind}
                           onChange={(e) => set({ kind: e.target.value as Pick["kind"] })}
+                          aria-label={`use ${c.filename} as`}
                         >
                           <option value="fourier">Fourier wavelength</option>
                           {c.nearestNeighbourUm !== null && (

@@ -20,6 +20,7 @@ export function startingDrafts(
   candidates: FitCandidateDto[],
   first: KineticsInfoDto,
   prefill: FitPrefill | null,
+  initialReadout: string | null = null,
 ): StartingDrafts {
   const picks = Object.fromEntries(
     candidates.map((c): [string, Pick] => {
@@ -28,7 +29,7 @@ export function startingDrafts(
         c.readoutId,
         was
           ? { on: true, condition: was.condition, kind: was.kind }
-          : { on: false, condition: c.condition, kind: c.defaultKind },
+          : { on: c.readoutId === initialReadout, condition: c.condition, kind: c.defaultKind },
       ];
     }),
   );

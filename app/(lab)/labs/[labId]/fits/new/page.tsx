@@ -12,10 +12,10 @@ export default async function NewFitPage({
   searchParams,
 }: {
   params: Promise<{ labId: string }>;
-  searchParams: Promise<{ kinetics?: string; version?: string; from?: string }>;
+  searchParams: Promise<{ kinetics?: string; version?: string; from?: string; readout?: string }>;
 }) {
   const { labId } = await params;
-  const { kinetics, version, from } = await searchParams;
+  const { kinetics, version, from, readout } = await searchParams;
   const ctx = await pageLab(labId, "fit.create");
   const data = await orNotFound(loadNewFitPage(ctx, { kinetics, version, from }));
   return (
@@ -42,6 +42,7 @@ export default async function NewFitPage({
         kinetics={data.kinetics}
         initialKinetics={kinetics ?? null}
         prefill={data.prefill}
+        initialReadout={readout ?? null}
       />
     </>
   );

@@ -24,7 +24,12 @@ export function TissueSizes({
         return (
           <div key={c} className="mb-1 grid grid-cols-[10rem_14rem_8rem_8rem] items-center gap-2 text-sm">
             <span className="font-medium">{c}</span>
-            <select className={field} value={t.kind} onChange={(e) => set({ kind: e.target.value as Tissue["kind"] })}>
+            <select
+              className={field}
+              value={t.kind}
+              onChange={(e) => set({ kind: e.target.value as Tissue["kind"] })}
+              aria-label={`tissue shape for ${c}`}
+            >
               <option value="none">unbounded (continuous k)</option>
               <option value="interval">strip of length L</option>
               <option value="rectangle">rectangle Lx × Ly</option>
@@ -33,6 +38,7 @@ export function TissueSizes({
               <input
                 className={`${field} num`}
                 placeholder={t.kind === "interval" ? "L (µm)" : "Lx (µm)"}
+                aria-label={`${t.kind === "interval" ? "length L (µm)" : "length Lx (µm)"} for ${c}`}
                 value={t.a}
                 onChange={(e) => set({ a: e.target.value })}
               />
@@ -41,6 +47,7 @@ export function TissueSizes({
               <input
                 className={`${field} num`}
                 placeholder="Ly (µm)"
+                aria-label={`length Ly (µm) for ${c}`}
                 value={t.b}
                 onChange={(e) => set({ b: e.target.value })}
               />

@@ -105,6 +105,7 @@ export function AnalysisView({
               value={domain.kind}
               onChange={(e) => setDomain({ ...domain, kind: e.target.value as DomainKind })}
               data-testid="domain-kind"
+              aria-label="Domain"
             >
               <option value="unbounded">unbounded (continuous k)</option>
               <option value="interval">interval of length L, zero-flux ends</option>

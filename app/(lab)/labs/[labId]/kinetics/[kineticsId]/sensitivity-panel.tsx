@@ -55,6 +55,7 @@ export function SensitivityPanel({ labId, info, base }: { labId: string; info: K
             value={name}
             onChange={(e) => setName(e.target.value)}
             data-testid="scale-parameter"
+            aria-label="Parameter to scale"
           >
             {info.parameters.map((p) => (
               <option key={p.name} value={p.name}>
@@ -68,6 +69,7 @@ export function SensitivityPanel({ labId, info, base }: { labId: string; info: K
             value={factor}
             onChange={(e) => setFactor(e.target.value)}
             data-testid="scale-factor"
+            aria-label="Scale factor"
           />
         </div>
         {d?.scaled && (

@@ -1,4 +1,5 @@
 import Link from "next/link";
+import { LinkButton } from "@/components/ui/button";
 import { PageHeader } from "@/components/ui/panel";
 import { can } from "@/lib/access/permissions";
 import { getReadout } from "@/lib/server/readouts/readouts";
@@ -31,6 +32,17 @@ export default async function ReadoutPage({ params }: { params: Promise<{ labId:
           </>
         }
         title={`Readout of ${readout.filename}`}
+        actions={
+          can(ctx.role, "fit.create") && (
+            <LinkButton
+              variant="secondary"
+              href={`/labs/${labId}/fits/new?readout=${readout.id}`}
+              data-testid="fit-from-readout"
+            >
+              Fit kinetics to this readout
+            </LinkButton>
+          )
+        }
         subtitle={`${readout.condition} · ${readout.kind === "image" ? "image" : "table"} · started ${readout.createdAt.slice(0, 16).replace("T", " ")} UTC${readout.createdByEmail ? ` by ${readout.createdByEmail}` : ""}`}
       />
       <ReadoutView labId={labId} initial={readout} canRerun={can(ctx.role, "readout.create")} />

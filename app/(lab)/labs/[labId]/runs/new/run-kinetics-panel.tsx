@@ -28,6 +28,7 @@ export function RunKineticsPanel({
         disabled={!!prefill.fit}
         onChange={(e) => d.choose(e.target.value)}
         data-testid="run-kinetics"
+        aria-label="Kinetics"
       >
         {kinetics.map((k) => (
           <option key={k.id} value={k.id}>

@@ -3,6 +3,7 @@
 import Link from "next/link";
 import useSWR from "swr";
 import { Badge, EmptyState, Panel } from "@/components/ui/panel";
+import { LongName } from "@/components/ui/long-name";
 import { fetchJson } from "@/lib/client/api";
 import { formatDateTime } from "@/lib/client/format";
 import type { ReadoutDto } from "@/lib/server/readouts/readouts";
@@ -112,46 +113,53 @@ export function ReadoutsPanel({
           Each uploaded image or table is read automatically; upload a file above to start one.
         </EmptyState>
       ) : (
-        <table className="w-full text-sm" data-testid="readouts-table">
-          <thead>
-            <tr className="border-b border-rule text-left text-xs uppercase tracking-wide text-ink-soft">
-              <th className="py-1.5 pr-3 font-medium">File</th>
-              <th className="py-1.5 pr-3 font-medium">Status</th>
-              <th className="py-1.5 pr-3 font-medium">Result</th>
-              <th className="py-1.5 pr-3 font-medium">Settings</th>
-              <th className="py-1.5 pr-3 font-medium">Started</th>
-              <th className="py-1.5 font-medium" />
-            </tr>
-          </thead>
-          <tbody>
-            {items.map((r) => (
-              <tr key={r.id} className="border-b border-rule/60 align-top" data-testid="readout-row">
-                <td className="py-1.5 pr-3 font-medium">{r.filename}</td>
-                <td className="py-1.5 pr-3">
-                  <Badge tone={STATUS_TONE[r.status]}>{STATUS_WORDS[r.status]}</Badge>
-                </td>
-                <td className="py-1.5 pr-3">
-                  <Numbers r={r} />
-                </td>
-                <td className="py-1.5 pr-3 text-xs text-ink-soft">
-                  {settingsSummary(r)}
-                  <br />
-                  <span className="num">{pixelSizeLabel(r.pixelSizeUm, r.pixelSizeSource)}</span>
-                </td>
-                <td className="num py-1.5 pr-3 text-xs text-ink-soft">{formatDateTime(r.createdAt)}</td>
-                <td className="py-1.5">
-                  <Link
-                    href={`/labs/${labId}/readouts/${r.id}`}
-                    className="font-medium text-moss hover:underline"
-                    data-testid="open-readout"
-                  >
-                    Open
-                  </Link>
-                </td>
+        // Scrolls inside its panel on a phone rather than widening the page.
+        <div className="overflow-x-auto">
+          <table className="w-full text-sm" data-testid="readouts-table">
+            <thead>
+              <tr className="border-b border-rule text-left text-xs uppercase tracking-wide text-ink-soft">
+                <th className="py-1.5 pr-3 font-medium">File</th>
+                <th className="py-1.5 pr-3 font-medium">Status</th>
+                <th className="py-1.5 pr-3 font-medium">Result</th>
+                <th className="hidden py-1.5 pr-3 font-medium sm:table-cell">Settings</th>
+                <th className="hidden py-1.5 pr-3 font-medium sm:table-cell">Started</th>
+                <th className="py-1.5 font-medium" />
               </tr>
-            ))}
-          </tbody>
-        </table>
+            </thead>
+            <tbody>
+              {items.map((r) => (
+                <tr key={r.id} className="border-b border-rule/60 align-top" data-testid="readout-row">
+                  <td className="py-1.5 pr-3 font-medium">
+                    <LongName text={r.filename} />
+                  </td>
+                  <td className="py-1.5 pr-3">
+                    <Badge tone={STATUS_TONE[r.status]}>{STATUS_WORDS[r.status]}</Badge>
+                  </td>
+                  <td className="py-1.5 pr-3">
+                    <Numbers r={r} />
+                  </td>
+                  <td className="hidden py-1.5 pr-3 text-xs text-ink-soft sm:table-cell">
+                    {settingsSummary(r)}
+                    <br />
+                    <span className="num">{pixelSizeLabel(r.pixelSizeUm, r.pixelSizeSource)}</span>
+                  </td>
+                  <td className="num hidden py-1.5 pr-3 text-xs text-ink-soft sm:table-cell">
+                    {formatDateTime(r.createdAt)}
+                  </td>
+                  <td className="py-1.5">
+                    <Link
+                      href={`/labs/${labId}/readouts/${r.id}`}
+                      className="font-medium text-moss hover:underline"
+                      data-testid="open-readout"
+                    >
+                      Open
+                    </Link>
+                  </td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
       )}
     </Panel>
   );

@@ -5,6 +5,7 @@ import { useRouter } from "next/navigation";
 import { useRef, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { DataTable } from "@/components/ui/data-table";
+import { LongName } from "@/components/ui/long-name";
 import { TextField } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { Badge, EmptyState, Panel } from "@/components/ui/panel";
@@ -64,13 +65,13 @@ export function SpecimenView({
       header: "File",
       cell: ({ row }) => (
         <>
-          <a
+          <LongName
             className="font-medium text-moss hover:underline"
             href={`/api/v1/labs/${labId}/uploads/${row.original.id}/content`}
-            data-testid="download-link"
-          >
-            {row.original.filename}
-          </a>
+            download
+            testId="download-link"
+            text={row.original.filename}
+          />
           {row.original.duplicateOf && (
             <span className="block text-xs text-ochre" data-testid="duplicate-file">
               same file as “{row.original.duplicateOf.filename}” — counted once
@@ -82,6 +83,7 @@ export function SpecimenView({
     {
       id: "kind",
       header: "Kind",
+      meta: { hideBelow: "sm" },
       cell: ({ row }) => (
         <Badge tone={row.original.kind === "image" ? "moss" : "plain"}>
           {row.original.kind === "image"
@@ -93,12 +95,14 @@ export function SpecimenView({
     {
       id: "sizeBytes",
       header: "Size",
+      meta: { hideBelow: "sm" },
       cell: ({ row }) => <span className="num">{formatBytes(row.original.sizeBytes)}</span>,
     },
     {
       id: "pixelSize",
       header: "Pixel size",
       enableSorting: false,
+      meta: { hideBelow: "sm" },
       cell: ({ row }) =>
         row.original.pixelSizeUm ? (
           <span className="num">{formatPixelSize(row.original.pixelSizeUm)} µm/px</span>
@@ -110,6 +114,7 @@ export function SpecimenView({
       id: "sha256",
       header: "SHA-256",
       enableSorting: false,
+      meta: { hideBelow: "sm" },
       cell: ({ row }) => (
         <span className="num text-xs text-ink-soft" title={row.original.sha256}>
           {row.original.sha256.slice(0, 12)}…
@@ -119,6 +124,7 @@ export function SpecimenView({
     {
       id: "createdAt",
       header: "Uploaded",
+      meta: { hideBelow: "sm" },
       cell: ({ row }) => (
         <span className="text-ink-soft">
           <span className="num">{formatDateTime(row.original.createdAt)}</span>

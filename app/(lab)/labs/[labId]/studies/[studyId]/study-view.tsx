@@ -1,12 +1,12 @@
 "use client";
 import { zodResolver } from "@hookform/resolvers/zod";
 import type { ColumnDef } from "@tanstack/react-table";
-import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { DataTable } from "@/components/ui/data-table";
+import { LongName } from "@/components/ui/long-name";
 import { TextArea, TextField } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { Badge, EmptyState, Panel } from "@/components/ui/panel";
@@ -40,14 +40,24 @@ export function StudyView({
       id: "label",
       header: "Specimen",
       cell: ({ row }) => (
-        <Link className="font-medium text-moss hover:underline" href={`/labs/${labId}/specimens/${row.original.id}`}>
-          {row.original.label}
-        </Link>
+        <LongName
+          className="font-medium text-moss hover:underline"
+          href={`/labs/${labId}/specimens/${row.original.id}`}
+          text={row.original.label}
+        />
       ),
     },
-    { id: "condition", header: "Condition", cell: ({ row }) => <Badge tone="moss">{row.original.condition}</Badge> },
-    { id: "stage", header: "Stage", cell: ({ row }) => row.original.stage ?? "—" },
-    { id: "genotype", header: "Genotype", cell: ({ row }) => row.original.genotype ?? "—" },
+    {
+      id: "condition",
+      header: "Condition",
+      cell: ({ row }) => (
+        <Badge tone="moss">
+          <LongName size="short" text={row.original.condition} />
+        </Badge>
+      ),
+    },
+    { id: "stage", header: "Stage", meta: { hideBelow: "sm" }, cell: ({ row }) => row.original.stage ?? "—" },
+    { id: "genotype", header: "Genotype", meta: { hideBelow: "sm" }, cell: ({ row }) => row.original.genotype ?? "—" },
     {
       id: "uploads",
       header: "Files",
@@ -57,6 +67,7 @@ export function StudyView({
     {
       id: "createdAt",
       header: "Added",
+      meta: { hideBelow: "sm" },
       cell: ({ row }) => <span className="num text-ink-soft">{formatDate(row.original.createdAt)}</span>,
     },
   ];
