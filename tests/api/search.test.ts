@@ -7,6 +7,7 @@
 import { describe, expect, it } from "vitest";
 import { ROLES } from "@/lib/access/roles";
 import type { LabContext } from "@/lib/server/access";
+import { loadSearchPage } from "@/lib/server/search/pages";
 import { database } from "@/lib/server/services";
 import { setupLabApi } from "../support/lab-api";
 import {
@@ -232,5 +233,18 @@ describe("lab search", () => {
     const control = await search("a\u0000b");
     expect(control.status).toBe(400);
     expect(control.body.error.message).toBe("Search: remove control characters");
+  });
+
+  it("the results page: nothing before a search, the reason when the text cannot be searched, 50 hits per kind", async () => {
+    const ctx = lab.ctx("collaborator");
+    expect(await loadSearchPage(ctx, undefined)).toEqual({ q: "", answer: null, problem: null, limit: 50 });
+    expect(await loadSearchPage(ctx, " a ")).toMatchObject({
+      answer: null,
+      problem: "Search: type at least 2 characters",
+    });
+    for (let n = 1; n <= 6; n++) await seedStudy(lab.ctx("manager"), `Pagewort ${n}`);
+    const page = await loadSearchPage(ctx, " pagewort ");
+    expect(page.q).toBe("pagewort");
+    expect(page.answer!.groups[0].items).toHaveLength(6);
   });
 });
