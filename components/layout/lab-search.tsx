@@ -118,7 +118,7 @@ export function LabSearch({ labId, className = "" }: { labId: string; className?
         onFocus={() => setOpen(true)}
         onBlur={() => setOpen(false)}
         onKeyDown={onKeyDown}
-        className="w-full rounded-md border border-rule bg-card py-1.5 pl-3 pr-16 text-sm text-ink placeholder:text-ink-soft/70 focus:border-moss focus:outline-none [&::-webkit-search-cancel-button]:hidden"
+        className="w-full rounded-md border border-rule bg-card py-1.5 pl-3 pr-24 text-sm text-ink placeholder:text-ink-soft/70 focus:border-moss focus:outline-none [&::-webkit-search-cancel-button]:hidden"
         data-testid="lab-search-input"
       />
       <span
