@@ -2,6 +2,7 @@ import Link from "next/link";
 import { ROLE_LABELS, type Role } from "@/lib/access/roles";
 import { ResearchCaution } from "./footer";
 import { LabNav } from "./lab-nav";
+import { LabSearch } from "./lab-search";
 import { LabSwitcher } from "./lab-switcher";
 import { Logo } from "./logo";
 import { SignOutButton } from "./sign-out-button";
@@ -28,7 +29,11 @@ export function AppShell({ me, lab, nav = [], children }: ShellProps) {
               {ROLE_LABELS[lab.role]}
             </span>
           )}
-          <div className="ml-auto flex items-center gap-4">
+          {lab && (
+            // Its own line below 768 px (last, full width); beside the account link from there up.
+            <LabSearch labId={lab.id} className="order-last w-full md:order-none md:ml-auto md:w-64" />
+          )}
+          <div className={`${lab ? "ml-auto md:ml-0" : "ml-auto"} flex items-center gap-4`}>
             <Link
               href="/account"
               className="max-w-60 truncate text-sm text-ink-soft hover:text-ink"
