@@ -68,7 +68,7 @@ test("modeller changes a run's end time and runs it again; both runs link to eac
   test.setTimeout(120_000);
   const form = await lab.open(RunFormPage);
   await expect(form.kinetics).toHaveValue("schnakenberg");
-  await form.cells.fill("32");
+  await form.cells.selectOption("32");
   await form.endTime.fill("20");
   await form.seed.fill("5");
   await form.snapshots.fill("2");
