@@ -55,7 +55,9 @@ export function StudiesView({ labId, canCreate }: { labId: string; canCreate: bo
       cell: ({ row }) => (
         <span className="flex flex-wrap gap-1">
           {row.original.conditions.map((c) => (
-            <Badge key={c}>{c}</Badge>
+            <Badge key={c}>
+              <LongName size="short" text={c} />
+            </Badge>
           ))}
         </span>
       ),
