@@ -10,6 +10,7 @@ import * as m0030 from "./20261203-0030-job-restarts-token-expiry-account-events
 import * as m0200jobs from "./20261203-0200-job-workers";
 import * as m1200layout from "./20261203-1200-upload-image-layout";
 import * as m1400batches from "./20261203-1400-batches";
+import * as m1830links from "./20261203-1830-account-links";
 
 export const migrationModules = [
   { name: "20261201-0001-foundation", module: m0001 },
@@ -23,4 +24,5 @@ export const migrationModules = [
   { name: "20261203-0200-job-workers", module: m0200jobs },
   { name: "20261203-1200-upload-image-layout", module: m1200layout },
   { name: "20261203-1400-batches", module: m1400batches },
+  { name: "20261203-1830-account-links", module: m1830links },
 ];
