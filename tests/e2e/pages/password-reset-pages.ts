@@ -30,7 +30,7 @@ export class ResetPasswordPage {
 
   async setPassword(password: string) {
     const form = this.page.getByTestId("reset-password-form");
-    await form.getByLabel(/^New password$/).fill(password);
+    await form.getByLabel(/^New password(?! again)/).fill(password);
     await form.getByLabel(/^New password again/).fill(password);
     await this.page.getByTestId("set-new-password").click();
   }

@@ -39,7 +39,7 @@ export function RoleChangeDialog({
         e.preventDefault();
         onCancel();
       }}
-      className="w-full max-w-md rounded-lg border border-rule bg-card p-5 text-ink shadow-lg backdrop:bg-ink/30"
+      className="m-auto w-full max-w-md rounded-lg border border-rule bg-card p-5 text-ink shadow-lg backdrop:bg-ink/30"
     >
       <h2 id="role-change-title" className="mb-3 text-lg font-semibold">
         Make {change.email} {withArticle(to)}?
