@@ -5,6 +5,7 @@
  */
 import type { Sequelize } from "sequelize";
 import { initAccountEvent } from "./account-event";
+import { initAccountLink } from "./account-link";
 import { initApiToken } from "./api-token";
 import { initAuditEvent } from "./audit-event";
 import { initBatch, initBatchRejection } from "./batch";
@@ -49,6 +50,7 @@ export function createModels(sequelize: Sequelize) {
     SimulationRun: initSimulationRun(sequelize),
     SignupRequest: initSignupRequest(sequelize),
     AccountEvent: initAccountEvent(sequelize),
+    AccountLink: initAccountLink(sequelize),
     Worker: initWorker(sequelize),
     Batch: initBatch(sequelize),
     BatchRejection: initBatchRejection(sequelize),

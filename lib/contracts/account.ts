@@ -57,6 +57,25 @@ export const tokenCreateSchema = z.object({
     .optional(),
 });
 
+/** Account settings; send only what changes. `name` is the display name others see. */
 export const settingsSchema = z.object({
-  notifyByEmail: z.boolean(),
+  notifyByEmail: z.boolean().optional(),
+  name: z.string().trim().min(1, "enter the name others should see").max(120, "at most 120 characters").optional(),
+});
+
+/** "Forgot your password?": the address to send the link to. */
+export const passwordResetRequestSchema = z.object({ email: emailSchema });
+
+export const passwordResetSchema = z.object({
+  token: z.string().min(1, "the link's token is missing").max(200),
+  newPassword: passwordSchema,
+});
+
+export const emailChangeSchema = z.object({
+  newEmail: emailSchema,
+  currentPassword: z.string().min(1, "enter your current password").max(200),
+});
+
+export const emailChangeConfirmSchema = z.object({
+  token: z.string().min(1, "the link's token is missing").max(200),
 });

@@ -126,7 +126,17 @@ export const fitSummary = (s: string) => (s.length > 500 ? `${s.slice(0, 499)}â€
 // account and is kept (for an administrator reading the database) but shown to nobody.
 
 export type AccountAction =
-  "signin.succeeded" | "signin.failed" | "signin.locked" | "token.created" | "token.revoked" | "token.expired";
+  | "signin.succeeded"
+  | "signin.failed"
+  | "signin.locked"
+  | "token.created"
+  | "token.revoked"
+  | "token.expired"
+  | "password.changed"
+  | "password.reset"
+  | "name.changed"
+  | "email.change-requested"
+  | "email.changed";
 
 export interface AccountEventEntry {
   userId: string | null;

@@ -8,6 +8,8 @@ import { pageActor } from "@/lib/server/web/page-access";
 import Link from "next/link";
 import { AccountEventsList } from "./account-events-list";
 import { CreateLabForm } from "./create-lab-form";
+import { EmailForm } from "./email-form";
+import { NameForm } from "./name-form";
 import { PasswordForm } from "./password-form";
 import { SettingsForm } from "./settings-form";
 import { TokensView } from "./tokens-view";
@@ -35,6 +37,12 @@ export default async function AccountPage() {
           </ul>
           <CreateLabForm />
         </Panel>
+        <Panel title="Name and e-mail">
+          <div className="space-y-6">
+            <NameForm name={me.name} />
+            <EmailForm email={me.email} />
+          </div>
+        </Panel>
         <Panel title="Notifications">
           <SettingsForm notifyByEmail={me.notifyByEmail} />
         </Panel>
@@ -48,7 +56,7 @@ export default async function AccountPage() {
         </Panel>
       </div>
       <div className="mt-6">
-        <Panel title="Recent sign-ins and API tokens">
+        <Panel title="Recent sign-ins, account changes and API tokens">
           <p className="mb-3 text-sm text-ink-soft">
             The last 20, newest first. The managers of your labs see these too. If you see a sign-in that was not you,
             change your password and revoke your tokens.

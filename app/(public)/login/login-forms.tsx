@@ -54,6 +54,11 @@ export function LoginForms() {
 
   return (
     <div className="space-y-6">
+      {params.get("reset") === "1" && !error && (
+        <Notice tone="success" testId="password-was-reset">
+          Your new password is set and every session was signed out. Sign in with the new password.
+        </Notice>
+      )}
       {error && (
         <Notice tone="error" testId="login-error">
           {error}
@@ -81,6 +86,11 @@ export function LoginForms() {
         <Button type="submit" disabled={pw.formState.isSubmitting} className="w-full" data-testid="sign-in">
           {pw.formState.isSubmitting ? "Signing in…" : "Sign in"}
         </Button>
+        <p className="text-right text-sm">
+          <Link href="/forgot-password" className="text-moss hover:underline" data-testid="forgot-password">
+            Forgot your password?
+          </Link>
+        </p>
       </form>
       <form
         onSubmit={link.handleSubmit(onLink)}

@@ -3,6 +3,7 @@ import "server-only";
 import { Op, UniqueConstraintError } from "sequelize";
 import type { SignupInput } from "@/lib/contracts/account";
 import type { Actor } from "./actor";
+import { ACCOUNT_MAIL_SUBJECTS } from "./account-mail";
 import { AppError } from "../errors";
 import { createSignInLink, sendInBackground, SIGN_IN_LINK_MINUTES } from "./auth";
 import { hashPassword, verifyPassword } from "./passwords";
@@ -15,8 +16,9 @@ import {
 } from "../web/rate-limit";
 import { newSecret, sha256Hex } from "../secrets";
 import { closeOtherSessions } from "./sessions";
+import { changeDisplayName } from "./profile";
 import { database, services } from "../services";
-import { recordAudit } from "../audit";
+import { recordAccountEvent, recordAudit } from "../audit";
 
 export interface MeDto {
   id: string;
@@ -102,7 +104,7 @@ export async function requestSignup(
     const link = await createSignInLink(input.email);
     sendInBackground({
       to: input.email,
-      subject: "You already have a Morphokin account",
+      subject: ACCOUNT_MAIL_SUBJECTS.signupTaken,
       text: `Someone (probably you) tried to create a Morphokin account with this address, but it already has one. Nothing was changed.\n\nSign in with this one-time link (it expires in ${SIGN_IN_LINK_MINUTES} minutes):\n${link}\n\nor with your password at ${base}/login\n\nIf this was not you, ignore this message.`,
     });
   } else {
@@ -118,7 +120,7 @@ export async function requestSignup(
     });
     sendInBackground({
       to: input.email,
-      subject: "Confirm your Morphokin account",
+      subject: ACCOUNT_MAIL_SUBJECTS.signupConfirm,
       text: `Open this link to confirm your address and create your Morphokin account and the lab “${input.labName}”:\n\n${base}/signup/confirm/${token}\n\nThe link works once and expires on ${expiresAt.toUTCString()}. If you did not sign up, ignore this message.`,
     });
   }
@@ -199,7 +201,19 @@ export async function changePassword(
   }
   if (input.currentPassword === input.newPassword)
     throw new AppError("bad_input", "new password: choose a password different from the current one");
-  await user.update({ passwordHash: await hashPassword(input.newPassword) });
+  await services().db.sequelize.transaction(async (transaction) => {
+    await user.update({ passwordHash: await hashPassword(input.newPassword) }, { transaction });
+    await recordAccountEvent(
+      m,
+      {
+        userId: user.id,
+        email: user.email,
+        action: "password.changed",
+        summary: `${user.email} changed their password on the Account page; their other sessions were signed out`,
+      },
+      transaction,
+    );
+  });
   const ended = await closeOtherSessions(user.id, keepSid);
   return { changed: true, endedSessions: ended };
 }
@@ -223,9 +237,11 @@ export async function getMe(actor: Actor): Promise<MeDto> {
   };
 }
 
-export async function updateSettings(actor: Actor, settings: { notifyByEmail: boolean }) {
+export async function updateSettings(actor: Actor, settings: { notifyByEmail?: boolean; name?: string }) {
   const m = await database();
-  await m.User.update({ notifyByEmail: settings.notifyByEmail }, { where: { id: actor.userId } });
+  if (settings.notifyByEmail !== undefined)
+    await m.User.update({ notifyByEmail: settings.notifyByEmail }, { where: { id: actor.userId } });
+  if (settings.name !== undefined) await changeDisplayName(actor, settings.name);
   return getMe(actor);
 }
 

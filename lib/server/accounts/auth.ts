@@ -14,6 +14,7 @@ import CredentialsProvider from "next-auth/providers/credentials";
 import EmailProvider from "next-auth/providers/email";
 import { loginSchema } from "@/lib/contracts/account";
 import type { OutgoingMail } from "../mail";
+import { ACCOUNT_MAIL_SUBJECTS } from "./account-mail";
 import { recordSignIn } from "../audit";
 import { verifyPassword } from "./passwords";
 import { clearFailedPasswords, lockedForS, recordFailedPassword } from "../web/rate-limit";
@@ -36,7 +37,7 @@ export function sendInBackground(mail: OutgoingMail): void {
 export function signInLinkMail(to: string, url: string): OutgoingMail {
   return {
     to,
-    subject: "Your Morphokin sign-in link",
+    subject: ACCOUNT_MAIL_SUBJECTS.signInLink,
     text: `Open this link to sign in to Morphokin:\n\n${url}\n\nThe link works once and expires in ${SIGN_IN_LINK_MINUTES} minutes. If you did not ask for it, ignore this message.`,
   };
 }

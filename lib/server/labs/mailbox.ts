@@ -3,11 +3,13 @@
  * invitations and sign-in links work on a laptop. It must not become a way into someone else's
  * account, so it is on only in a local development setup (see `mailboxEnabled`) and a lab sees
  * only mail to its current members and its pending invitations — and, for anyone who also belongs
- * to another lab, only this lab's own mail (never a sign-in link or other account mail).
+ * to another lab, only this lab's own mail. Account mail (sign-in links, password resets, e-mail
+ * changes: lib/server/accounts/account-mail.ts) is shown only to the person it is addressed to.
  */
 import "server-only";
 import { Op } from "sequelize";
 import type { LabContext } from "../access";
+import { isAccountMail } from "../accounts/account-mail";
 import { AppError } from "../errors";
 import { database, services } from "../services";
 
@@ -95,6 +97,8 @@ function isLabMail(mail: MailDto, ctx: LabContext): boolean {
 }
 
 export function visibleTo(mail: MailDto, ctx: LabContext, audience: Audience): boolean {
+  // Sign-in links, resets and e-mail changes open an account: only its owner reads them, here too.
+  if (isAccountMail(mail)) return mail.to.some((raw) => raw.toLowerCase() === ctx.actor.email.toLowerCase());
   return mail.to.some((raw) => {
     const a = raw.toLowerCase();
     return audience.whole.has(a) || (audience.labOnly.has(a) && isLabMail(mail, ctx));

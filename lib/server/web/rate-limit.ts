@@ -146,6 +146,12 @@ export async function clearFailedPasswords(email: string): Promise<void> {
   );
 }
 
+/** Ends the account's lockout and failure count (after a password reset proved the owner has the mail). */
+export async function endLockout(email: string): Promise<void> {
+  const { db } = services();
+  await db.sequelize.query("DELETE FROM rate_limits WHERE key = :key", { replacements: { key: lockKey(email) } });
+}
+
 /** The request's client address as configured (TRUST_PROXY). */
 export function addressOf(request: Request): string {
   return clientAddress(request, services().config.trustProxyHops);

@@ -7,6 +7,8 @@ export class LoginPage {
   readonly error: Locator;
   readonly linkEmail: Locator;
   readonly checkEmail: Locator;
+  readonly forgotPassword: Locator;
+  readonly passwordWasReset: Locator;
 
   constructor(readonly page: Page) {
     this.email = page.getByLabel(/^E-mail$/);
@@ -14,6 +16,8 @@ export class LoginPage {
     this.error = page.getByTestId("login-error");
     this.linkEmail = page.getByLabel("E-mail for the link");
     this.checkEmail = page.getByTestId("check-email");
+    this.forgotPassword = page.getByTestId("forgot-password");
+    this.passwordWasReset = page.getByTestId("password-was-reset");
   }
 
   async goto() {

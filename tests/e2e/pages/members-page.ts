@@ -9,6 +9,8 @@ export class MembersPage extends LabPage {
   readonly error: Locator;
   readonly invitations: DataTable;
   readonly inviteMessage: Locator;
+  /** Asks before a role changes and says what the new role may do. */
+  readonly roleDialog: Locator;
 
   constructor(page: Page, labId: string) {
     super(page, labId);
@@ -18,6 +20,7 @@ export class MembersPage extends LabPage {
     this.error = page.getByTestId("members-error");
     this.invitations = new DataTable(page.getByTestId("invitations-table"));
     this.inviteMessage = page.getByTestId("invite-message");
+    this.roleDialog = page.getByTestId("role-change-dialog");
   }
 
   override get path() {
@@ -38,11 +41,23 @@ export class MembersPage extends LabPage {
     return this.page.getByTestId(`role-${email}`);
   }
 
-  /** Picks a role by its label and returns the status the server answered the change with. */
-  async chooseRole(email: string, label: string): Promise<number> {
-    const patched = this.page.waitForResponse((r) => r.request().method() === "PATCH" && r.url().includes("/members/"));
+  /** Picks a role by its label; the confirmation dialog opens and nothing is sent yet. */
+  async pickRole(email: string, label: string) {
     await this.roleOf(email).selectOption({ label });
+    await expect(this.roleDialog).toBeVisible();
+  }
+
+  /** Picks a role by its label, confirms it in the dialog and returns the status the server answered with. */
+  async chooseRole(email: string, label: string): Promise<number> {
+    await this.pickRole(email, label);
+    const patched = this.page.waitForResponse((r) => r.request().method() === "PATCH" && r.url().includes("/members/"));
+    await this.roleDialog.getByTestId("role-change-confirm").click();
     return (await patched).status();
+  }
+
+  async cancelRoleChange() {
+    await this.roleDialog.getByTestId("role-change-cancel").click();
+    await expect(this.roleDialog).toBeHidden();
   }
 
   /** Changes a role and checks the server took it. */

@@ -16,12 +16,14 @@ import { formatDate, formatDateTime } from "@/lib/client/format";
 import { invitationCreateSchema } from "@/lib/contracts/lab";
 import type { InvitationDto } from "@/lib/server/labs/invitations";
 import type { MemberDto } from "@/lib/server/labs/members";
+import { RoleChangeDialog, type RoleChange } from "./role-change-dialog";
 
 const roleOptions = ROLES.map((r) => ({ value: r, label: ROLE_LABELS[r] }));
 
 export function MembersView({ labId, canManage, myUserId }: { labId: string; canManage: boolean; myUserId: string }) {
   const [refresh, setRefresh] = useState(0);
   const [error, setError] = useState<string | null>(null);
+  const [pending, setPending] = useState<RoleChange | null>(null);
   const act = async (fn: () => Promise<unknown>) => {
     setError(null);
     try {
@@ -54,7 +56,13 @@ export function MembersView({ labId, canManage, myUserId }: { labId: string; can
             data-testid={`role-${row.original.email}`}
             value={row.original.role}
             onChange={(e) =>
-              act(() => sendJson("PATCH", `/api/v1/labs/${labId}/members/${row.original.id}`, { role: e.target.value }))
+              // Not sent yet: the dialog says what the new role may do and asks first.
+              setPending({
+                memberId: row.original.id,
+                email: row.original.email,
+                from: row.original.role,
+                to: e.target.value as Role,
+              })
             }
             className="rounded border border-rule bg-card px-2 py-1 text-sm"
           >
@@ -113,6 +121,17 @@ export function MembersView({ labId, canManage, myUserId }: { labId: string; can
         empty={<EmptyState title="No members." />}
       />
       {canManage && <Invitations labId={labId} onChange={() => setRefresh((r) => r + 1)} />}
+      {pending && (
+        <RoleChangeDialog
+          change={pending}
+          onCancel={() => setPending(null)}
+          onConfirm={() => {
+            const { memberId, to } = pending;
+            setPending(null);
+            void act(() => sendJson("PATCH", `/api/v1/labs/${labId}/members/${memberId}`, { role: to }));
+          }}
+        />
+      )}
     </div>
   );
 }
