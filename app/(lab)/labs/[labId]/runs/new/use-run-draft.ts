@@ -36,7 +36,7 @@ export function useRunDraft(kinetics: KineticsInfoDto[], prefill: RunPrefill, ea
   const [boundary, setBoundary] = useState<"zero-flux" | "periodic">(source0?.boundary ?? "zero-flux");
   const [endTime, setEndTime] = useState("300"),
     [dt, setDt] = useState(""),
-    [stationary, setStationary] = useState(false);
+    [stationary, setStationary] = useState(true);
   const [seed, setSeed] = useState(""),
     [noise, setNoise] = useState(""),
     [snapshots, setSnapshots] = useState("9");
