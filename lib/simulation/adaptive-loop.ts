@@ -105,7 +105,7 @@ export function runAdaptiveLoop(input: AdaptiveLoopInput): LoopOutcome {
       rejected++;
       afterRejection = true;
       h = roundStepDown(proposeStep(stepS, err, true));
-      if (h < minStepS) {
+      if (!(h >= minStepS)) {
         blowUp = { step: steps + 1, timeS: t + stepS, lastGoodTimeS: t, maxAbs: Number.isFinite(m2) ? m2 : NaN };
         blowUpWhat = `the step size fell below ${minStepS.toExponential(2)} s with the local error still above the tolerance ${tolerance}`;
         reason = "blow-up";
