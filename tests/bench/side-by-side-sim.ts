@@ -11,9 +11,11 @@ import {
   schnakenbergReaction,
   schnakenbergSteadyState,
   simulateReactionDiffusion,
+  type DiffusionExecutor,
   type SimulationOptions,
   type SimulationResult,
 } from "@/lib/simulation";
+import { createWorkerExecutor } from "@/lib/parallel";
 import type { BenchRow } from "./run";
 
 const N = 128,
@@ -87,15 +89,27 @@ export interface NumpySimFigure {
   wavelength?: unknown;
 }
 
+/** One thread, then two (the server's default SIMULATION_THREADS = 2: species on two threads). */
 export function simRows(np: NumpySimFigure | null): BenchRow[] {
-  simulateReactionDiffusion(schnakenbergReaction, options(20, 1)); // warm-up (JIT), not timed
+  const rows = [simRow(np, 1)];
+  const executor = createWorkerExecutor({ workers: 1 });
+  try {
+    rows.push(simRow(np, 2, executor));
+  } finally {
+    executor.dispose();
+  }
+  return rows;
+}
+
+function simRow(np: NumpySimFigure | null, threads: 1 | 2, executor?: DiffusionExecutor): BenchRow {
+  simulateReactionDiffusion(schnakenbergReaction, { ...options(20, 1), executor }); // warm-up (JIT), not timed
   const times: number[] = [],
     cpu: number[] = [];
   let last: SimulationResult | null = null;
   for (let i = 0; i < Math.max(1, SIM_REPS); i++) {
     const c0 = process.cpuUsage(),
       t0 = performance.now();
-    last = simulateReactionDiffusion(schnakenbergReaction, options(T, 12345 + i));
+    last = simulateReactionDiffusion(schnakenbergReaction, { ...options(T, 12345 + i), executor });
     times.push(performance.now() - t0);
     const c = process.cpuUsage(c0);
     cpu.push((c.user + c.system) / 1000);
@@ -110,11 +124,9 @@ export function simRows(np: NumpySimFigure | null): BenchRow[] {
   const a = r.adaptive!;
   const ours = `Morphokin ${(ms / 1000).toFixed(2)} s (CPU ${(cpu[0] / 1000).toFixed(2)} s), ${r.stopReason} at t = ${r.timeS.toFixed(0)}, ${a.acceptedSteps} steps + ${a.rejectedSteps} rejected, ${said}`;
   const theirs = np ? `numpy ${np.median.toFixed(2)} s, λ = ${Number(np.wavelength).toFixed(3)}` : "";
-  const name = "side by side: verification run Schnakenberg 128², periodic";
+  const name = `side by side: verification run 128² periodic, ${threads} thread${threads === 2 ? "s" : ""}`;
   const goal = "≤ 0.5, λ within 2 %";
-  return [
-    np
-      ? { name, value: ms / (np.median * 1000), unit: "× numpy", target: goal, note: `${ours}; ${theirs}` }
-      : { name, value: ms, unit: "ms", target: goal, note: `${ours}; no numpy here, Morphokin alone` },
-  ];
+  return np
+    ? { name, value: ms / (np.median * 1000), unit: "× numpy", target: goal, note: `${ours}; ${theirs}` }
+    : { name, value: ms, unit: "ms", target: goal, note: `${ours}; no numpy here, Morphokin alone` };
 }
