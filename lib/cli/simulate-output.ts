@@ -12,6 +12,7 @@ export function summarise(result: SimulationResult) {
     timeS: result.timeS,
     steps: result.steps,
     dtS: result.timeStep.dtS,
+    adaptive: result.adaptive,
     spectralRadiusPerS: result.timeStep.spectralRadiusPerS,
     scheme: result.scheme,
     stationary: result.stationary,

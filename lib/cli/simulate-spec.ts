@@ -13,6 +13,7 @@ export interface RunSpec {
   endTimeS: number;
   dtS?: number;
   scheme?: SchemeName;
+  adaptive?: SimulationOptions["adaptive"];
   initial?: {
     steadyState?: number[];
     noiseAmplitude?: number | number[];

@@ -40,7 +40,15 @@ export const simulationRunRequestSchema = z.object({
       'scheme must be "etd2", "implicit-euler" or "integrating-factor"',
     )
     .optional(),
+  /** @default true: the run stops once the pattern is stationary (lib/simulation/README.md, Stationarity criterion). */
   stopWhenStationary: z.boolean().optional(),
+  /** @default "adaptive" with scheme etd2 (error-controlled steps), "fixed" with the first-order schemes. */
+  timeStepping: z.enum(["adaptive", "fixed"], 'timeStepping must be "adaptive" or "fixed"').optional(),
+  /** Local error tolerance of adaptive steps (relative). @default 0.001 */
+  tolerance: finite("tolerance")
+    .positive("tolerance must be above 0")
+    .max(0.1, "tolerance must be at most 0.1")
+    .optional(),
   /** Whole number 0 … 2³²−1; a random one is drawn and recorded when left out. */
   seed: z
     .number()

@@ -16,6 +16,14 @@ export interface SimulationProgress {
   /** 100 · fraction. */
   percent: number;
   steps: number;
+  /** The step just taken (s). */
+  dtS: number;
+}
+
+/** Adaptive time steps (ETD2RK with embedded ETD1, step-control.ts); only with scheme `etd2`. */
+export interface AdaptiveStepOptions {
+  /** Relative tolerance rtol of the local error per step. @default 1e-3 */
+  tolerance?: number;
 }
 
 /** Stationarity criterion (see README): relative L2 change per unit time over one window. */
@@ -46,6 +54,11 @@ export interface SimulationOptions {
   endTimeS: number;
   /** Cap on the time step (s). @default none (the stiffness rule alone) */
   dtS?: number;
+  /**
+   * Adaptive steps with local error control (step-control.ts); the first step follows the step
+   * rule, `dtS` caps every step. @default none (fixed steps)
+   */
+  adaptive?: AdaptiveStepOptions;
   /** Factor c of the stiffness rule h ≤ c/ρ. @default 0.1 */
   stiffnessSafety?: number;
   /** @default "etd2" */
@@ -133,6 +146,13 @@ function checkGridFreeOptions(options: SimulationOptions, species: number): void
   }
   if (options.scheme !== undefined && !SCHEME_NAMES.includes(options.scheme)) {
     failOption("scheme", `scheme must be one of ${SCHEME_NAMES.join(", ")}, got ${String(options.scheme)}.`);
+  }
+  if (options.adaptive !== undefined) {
+    if ((options.scheme ?? "etd2") !== "etd2")
+      failOption("adaptive", `adaptive steps need scheme etd2 (ETD2RK with embedded ETD1), got ${options.scheme}.`);
+    const tol = options.adaptive.tolerance;
+    if (tol !== undefined && !(tol > 0 && tol <= 0.1))
+      failOption("adaptive.tolerance", `adaptive.tolerance must be in (0, 0.1], got ${tol}.`);
   }
   for (const [name, v] of Object.entries(options.params ?? {})) {
     if (!Number.isFinite(v)) failOption(`params.${name}`, `params.${name} must be a finite number, got ${v}.`);

@@ -9,6 +9,7 @@ import {
 } from "./run-plan";
 import type { SpatialParameterField } from "./spatial-parameters";
 import type { TimeStepRule } from "./step-size";
+import { STEP_CONTROL, STEP_RULE_TEXT } from "./step-control";
 
 /** The gradient as the solver takes it: linear and table forms as given, positions along x. */
 export function toSolverField(shape: GradientShape, sampled: { x: number; value: number }[]): SpatialParameterField {
@@ -43,6 +44,14 @@ export function planRunTail(
     i === snapshotCount - 1 ? req.endTimeS : (req.endTimeS * i) / (snapshotCount - 1),
   );
   const lengthFactor = dimensional ? 1 : (req.lengthScaleUm ?? null);
+  const scheme = req.scheme ?? "etd2";
+  // Adaptive steps are the default wherever the scheme allows them (ETD2RK needs etd2).
+  const adaptive = scheme === "etd2" && req.timeStepping !== "fixed";
+  const tolerance = req.tolerance ?? STEP_CONTROL.tolerance;
+  const stopWhenStationary = req.stopWhenStationary ?? true;
+  // The solver's defaults (simulate.ts): window 10/ρ, tolerance 1e-5·max(ρ, 1/endTimeS).
+  const windowS = d.rho > 0 ? 10 / d.rho : req.endTimeS / 20;
+  const stationarityTol = 1e-5 * Math.max(d.rho, 1 / req.endTimeS);
   const spec: RunSpec = {
     kinetics: context.kineticsSource,
     parameters: params,
@@ -50,11 +59,12 @@ export function planRunTail(
     grid: { lengthUm: [...req.grid.lengthUm], cells: [...req.grid.cells], boundary: grid.boundary },
     endTimeS: req.endTimeS,
     ...(req.dtS !== undefined ? { dtS: req.dtS } : {}),
-    scheme: req.scheme ?? "etd2",
+    scheme,
+    ...(adaptive ? { adaptive: { tolerance } } : {}),
     initial: start
       ? { fieldFiles: start.fieldFiles, fromRun: start.fromRun, noiseAmplitude: req.noiseAmplitude ?? 0, seed }
       : { steadyState, ...(req.noiseAmplitude !== undefined ? { noiseAmplitude: req.noiseAmplitude } : {}), seed },
-    stopWhenStationary: req.stopWhenStationary ?? false,
+    stopWhenStationary,
     snapshotTimesS,
     ...(!dimensional && (req.lengthScaleUm || req.timeScaleS)
       ? { scales: { lengthScaleUm: req.lengthScaleUm, timeScaleS: req.timeScaleS } }
@@ -71,6 +81,8 @@ export function planRunTail(
     diffusion: d.diffusion,
     dtS: d.rule.dtS,
     steps: d.rule.steps,
+    adaptive: adaptive ? { tolerance, rule: STEP_RULE_TEXT } : null,
+    stationarity: `${stopWhenStationary ? "stops" : "does not stop"} when ‖c(t) − c(t − W)‖₂ / (‖c(t)‖₂ · W) < ${Number(stationarityTol.toPrecision(3))} per time unit, over windows W = ${Number(windowS.toPrecision(3))} time units (10/ρ) of simulated time`,
     spectralRadiusPerS: d.rho,
     stiffnessLimitS: d.rule.stiffnessLimitS,
     workCellSteps: d.work,

@@ -115,6 +115,11 @@ export function planRun(state: RunSteadyState, context: RunPlanContext): { spec:
     grid.cellCount,
   );
   const rule = chooseTimeStep(req.endTimeS, rho, RUN_STIFFNESS_SAFETY, req.dtS ?? null);
+  if (req.timeStepping === "adaptive" && (req.scheme ?? "etd2") !== "etd2")
+    failOption(
+      "timeStepping",
+      `timeStepping: adaptive steps need the scheme etd2 (ETD2RK with an embedded ETD1 error estimate); ${req.scheme} takes fixed steps.`,
+    );
   if (rule.steps > SIMULATION_LIMITS.maxSteps)
     failOption("dtS", `endTimeS / dtS needs ${rule.steps} steps; the limit is ${SIMULATION_LIMITS.maxSteps}.`);
   if (req.dtS !== undefined && req.dtS > rule.stiffnessLimitS) {

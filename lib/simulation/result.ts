@@ -25,6 +25,20 @@ export interface BlowUpInfo {
   maxAbs: number;
 }
 
+/** Summary of the adaptive steps, kept in the result and a run's provenance. */
+export interface AdaptiveStepSummary {
+  /** Relative tolerance rtol of the local error. */
+  tolerance: number;
+  /** The step-size rule in words, with its sources. */
+  rule: string;
+  acceptedSteps: number;
+  rejectedSteps: number;
+  firstStepS: number;
+  smallestStepS: number;
+  largestStepS: number;
+  lastStepS: number;
+}
+
 /** Plain result of {@link simulateReactionDiffusion}. */
 export interface SimulationResult {
   grid: Grid;
@@ -36,7 +50,10 @@ export interface SimulationResult {
   timeS: number;
   /** Steps taken to reach `fields`. */
   steps: number;
+  /** The fixed-step rule; with adaptive steps, the rule that chose the first step. */
   timeStep: TimeStepRule;
+  /** Adaptive steps: tolerance, rule, accepted and rejected steps, step sizes; null with fixed steps. */
+  adaptive: AdaptiveStepSummary | null;
   stopReason: SimulationStopReason;
   /** One sentence saying why the run stopped. */
   message: string;

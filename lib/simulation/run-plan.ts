@@ -43,6 +43,8 @@ export interface RunSpec {
   endTimeS: number;
   dtS?: number;
   scheme: "etd2" | "implicit-euler" | "integrating-factor";
+  /** Adaptive steps (ETD2RK with embedded ETD1, lib/simulation/step-control.ts); absent: fixed steps. */
+  adaptive?: { tolerance: number };
   /**
    * The homogeneous steady state plus seeded noise, or a chosen initial field: `fieldFiles` next to
    * RUN.json (the job writes the earlier run's final fields there, checked against `fromRun.finalSha256`).
@@ -95,8 +97,13 @@ export interface RunPlan {
   steadyState: number[];
   /** One diffusivity per species, or the full matrix D[i][j] for cross-diffusion. */
   diffusion: number[] | number[][];
+  /** Fixed steps: the step and their count. Adaptive steps: the first step, and the count fixed steps would need (an upper bound of the work). */
   dtS: number;
   steps: number;
+  /** Adaptive steps: the local error tolerance and the step-size rule in words; null with fixed steps. */
+  adaptive?: { tolerance: number; rule: string } | null;
+  /** The stationarity criterion of the run, in words, with its tolerance and window. */
+  stationarity?: string;
   spectralRadiusPerS: number;
   stiffnessLimitS: number;
   workCellSteps: number;
@@ -132,6 +139,10 @@ export interface RunRequest {
   endTimeS: number;
   dtS?: number;
   scheme?: RunSpec["scheme"];
+  /** "adaptive" (default with scheme etd2) or "fixed" (the only choice with the first-order schemes). */
+  timeStepping?: "adaptive" | "fixed";
+  /** Local error tolerance of adaptive steps. @default 1e-3 */
+  tolerance?: number;
   /** Snapshots to keep, the last at endTimeS. */
   snapshots: number;
   noiseAmplitude?: number;

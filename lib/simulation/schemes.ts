@@ -8,6 +8,11 @@ import { phi1, phi2 } from "./phi-functions";
  * - `etd2`: ĉ⁺ = e^{hL} ĉ + h(φ1 + φ2)(hL) R̂ⁿ − hφ2(hL) R̂ⁿ⁻¹, second order
  *   (Cox S.M. & Matthews P.C. (2002) J. Comput. Phys. 176:430); its first step is ETD1,
  *   ĉ⁺ = e^{hL} ĉ + hφ1(hL) R̂.
+ * With adaptive steps (`adaptive` option) the `etd2` scheme is taken in its Runge–Kutta form ETD2RK
+ * (Cox & Matthews 2002, eq. (22)), which needs no earlier step of the same size:
+ *   â = e^{hL} ĉ + hφ1(hL) R̂(c)   (ETD1, the embedded first-order solution)
+ *   ĉ⁺ = â + hφ2(hL) (R̂(a) − R̂(c))   (second order)
+ * and ĉ⁺ − â is the local error estimate of the pair (step-control.ts).
  */
 export type SchemeName = "implicit-euler" | "integrating-factor" | "etd2";
 
@@ -32,6 +37,8 @@ export interface SpeciesCoefficients {
   a?: Float64Array;
   /** ETD2: −hφ2(hL). */
   b?: Float64Array;
+  /** ETD2RK (adaptive): hφ2(hL). */
+  p2?: Float64Array;
 }
 
 /** Fills the multipliers of `scheme` for diffusivity D (µm²/s) and step h (s) into `target`. */
@@ -52,13 +59,15 @@ export function fillSchemeCoefficients(
         f2 = phi2(z);
       target.e![j] = Math.exp(z);
       target.p1![j] = dtS * f1;
-      target.a![j] = dtS * (f1 + f2);
-      target.b![j] = -dtS * f2;
+      if (target.a) target.a[j] = dtS * (f1 + f2);
+      if (target.b) target.b[j] = -dtS * f2;
+      if (target.p2) target.p2[j] = dtS * f2;
     }
   }
 }
 
-/** Which multiplier arrays a scheme needs. */
-export function coefficientNames(scheme: SchemeName): (keyof SpeciesCoefficients)[] {
+/** Which multiplier arrays a scheme needs (ETD2RK with adaptive steps: e, p1, p2). */
+export function coefficientNames(scheme: SchemeName, adaptive = false): (keyof SpeciesCoefficients)[] {
+  if (adaptive) return ["e", "p1", "p2"];
   return scheme === "etd2" ? ["e", "p1", "a", "b"] : ["m"];
 }

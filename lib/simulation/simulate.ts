@@ -16,9 +16,12 @@ import { fillInitialState } from "./initial-state";
 import { SIMULATION_LIMITS } from "./limits";
 import { resolveSimulationOptions, type SimulationOptions } from "./options";
 import type { ReactionParams, ReactionSystem } from "./reaction-system";
-import type { BlowUpInfo, SimulationResult, Snapshot, SimulationStopReason } from "./result";
+import type { AdaptiveStepSummary, BlowUpInfo, SimulationResult, Snapshot, SimulationStopReason } from "./result";
+import { stopMessage } from "./stop-message";
 import { coefficientNames, fillSchemeCoefficients, type SpeciesCoefficients } from "./schemes";
 import { chooseTimeStep, computeReactionStiffness } from "./step-size";
+import { runAdaptiveLoop } from "./adaptive-loop";
+import { createCoefficientCache } from "./step-control";
 
 /**
  * Simulates ∂c/∂t = R(c) + D∇²c on a zero-flux interval or rectangle with a semi-implicit
@@ -56,7 +59,8 @@ function run(
 ): SimulationResult {
   const n = physicalSystem.species,
     cells = grid.cellCount,
-    scheme = options.scheme ?? "etd2";
+    scheme = options.scheme ?? "etd2",
+    adaptive = options.adaptive !== undefined;
   const { diagonal, modes } = resolveDiffusion(options.diffusionUm2PerS);
   // With cross-diffusion the solver steps the mode coordinates w = V⁻¹c (cross-diffusion.ts).
   const system = modes ? createModeReactionSystem(physicalSystem, modes, cells) : physicalSystem;
@@ -67,6 +71,8 @@ function run(
       spec: executor.allocate(cells),
       chat: scheme === "etd2" ? executor.allocate(cells) : undefined,
       rprev: scheme === "etd2" ? executor.allocate(cells) : undefined,
+      ahat: adaptive ? executor.allocate(cells) : undefined,
+      stage: adaptive ? executor.allocate(cells) : undefined,
     });
   }
   const views = [buffers.map((b) => b.fields[0]), buffers.map((b) => b.fields[1])];
@@ -84,19 +90,23 @@ function run(
   }
   const h = rule.dtS;
   const basis = createSpectralBasis(grid);
+  const names = coefficientNames(scheme, adaptive);
   const coefficients: SpeciesCoefficients[] = buffers.map((_, s) => {
     const c: SpeciesCoefficients = {};
-    for (const name of coefficientNames(scheme)) c[name] = executor.allocate(cells);
-    fillSchemeCoefficients(scheme, basis.k2PerUm2, diagonal[s], h, c);
+    for (const name of names) c[name] = executor.allocate(cells);
+    if (!adaptive) fillSchemeCoefficients(scheme, basis.k2PerUm2, diagonal[s], h, c);
     return c;
   });
+  // Adaptive steps: the φ-functions of each step size, cached (step-control.ts).
+  const cache = adaptive ? createCoefficientCache(scheme, basis.k2PerUm2, diagonal, names, coefficients) : null;
   if (modes) mixSpeciesInPlace(modes.toModes, views[0]);
   if (scheme === "etd2") buffers.forEach((b) => basis.forward(b.fields[0], b.chat!));
   executor.prepare({ grid, buffers, coefficients });
 
   const st = options.stationarity ?? {};
   const tol = st.tolerancePerS ?? 1e-5 * Math.max(rho, 1 / options.endTimeS);
-  const windowSteps = Math.max(1, Math.round((st.windowS ?? (rho > 0 ? 10 / rho : options.endTimeS / 20)) / h));
+  const windowAskedS = st.windowS ?? (rho > 0 ? 10 / rho : options.endTimeS / 20);
+  const windowSteps = Math.max(1, Math.round(windowAskedS / h));
   const minTime = st.minTimeS ?? 0;
   // Copies of the current state in species coordinates (snapshots, stationarity, result).
   const physical = (fields: Float64Array[]): Float64Array[] => {
@@ -105,6 +115,39 @@ function run(
     mixSpecies(modes.toSpecies, fields, out);
     return out;
   };
+  if (cache) {
+    const out = runAdaptiveLoop({
+      system,
+      params,
+      options,
+      executor,
+      buffers,
+      physical,
+      selectStep: cache.select,
+      firstStepS: h,
+      maxSteps: SIMULATION_LIMITS.maxSteps,
+      tol,
+      windowS: windowAskedS,
+    });
+    const fields = physical(views[0]);
+    return assembleResult(system, options, {
+      grid,
+      scheme,
+      fields,
+      timeS: out.timeS,
+      steps: out.steps,
+      timeStep: rule,
+      reason: out.reason,
+      lastRate: out.lastRate,
+      tol,
+      windowS: windowAskedS,
+      blowUp: out.blowUp,
+      blowUpWhat: out.blowUpWhat,
+      snapshots: out.snapshots,
+      seed,
+      adaptive: out.adaptive,
+    });
+  }
   const ref = physical(views[0]);
   const blowUpAbs = options.blowUpAbs ?? 1e12;
   const snapTimes = options.snapshotTimesS ?? [];
@@ -165,63 +208,80 @@ function run(
         fraction: steps / rule.steps,
         percent: (100 * steps) / rule.steps,
         steps,
+        dtS: h,
       });
     }
   }
   const timeS = steps * h;
-  options.onProgress?.({ timeS, fraction: steps / rule.steps, percent: (100 * steps) / rule.steps, steps });
-  const fields = physical(views[cur]);
-  return {
+  options.onProgress?.({ timeS, fraction: steps / rule.steps, percent: (100 * steps) / rule.steps, steps, dtS: h });
+  return assembleResult(system, options, {
     grid,
-    speciesNames: Array.from({ length: n }, (_, s) => system.speciesNames?.[s] ?? `c${s + 1}`),
     scheme,
-    fields,
+    fields: physical(views[cur]),
     timeS,
     steps,
     timeStep: rule,
-    stopReason: reason,
-    message: stopMessage(reason, {
-      timeS,
-      steps,
-      endTimeS: options.endTimeS,
-      rate: lastRate,
-      tol,
-      windowS: windowSteps * h,
-      blowUp,
-      blowUpAbs,
-    }),
-    stationary: lastRate !== null && lastRate < tol,
-    lastChangeRatePerS: lastRate,
-    stationarityTolerancePerS: tol,
-    stationarityWindowS: windowSteps * h,
+    reason,
+    lastRate,
+    tol,
+    windowS: windowSteps * h,
     blowUp,
+    blowUpWhat: null,
     snapshots,
-    stats: fields.map(computeFieldStats),
     seed,
-  };
+    adaptive: null,
+  });
 }
 
-interface MessageFacts {
+/** What either step loop ends with. */
+interface RunOutcome {
+  grid: Grid;
+  scheme: SimulationResult["scheme"];
+  fields: Float64Array[];
   timeS: number;
   steps: number;
-  endTimeS: number;
-  rate: number | null;
+  timeStep: SimulationResult["timeStep"];
+  reason: SimulationStopReason;
+  lastRate: number | null;
   tol: number;
   windowS: number;
   blowUp: BlowUpInfo | null;
-  blowUpAbs: number;
+  blowUpWhat: string | null;
+  snapshots: Snapshot[];
+  seed: string | null;
+  adaptive: AdaptiveStepSummary | null;
 }
 
-function stopMessage(reason: SimulationStopReason, f: MessageFacts): string {
-  if (reason === "end-time") return `Reached endTimeS = ${f.endTimeS} s after ${f.steps} steps.`;
-  if (reason === "cancelled") return `Cancelled at t = ${f.timeS} s after ${f.steps} steps.`;
-  if (reason === "stationary") {
-    return `Stationary at t = ${f.timeS} s: relative change ${f.rate!.toExponential(3)} /s is below ${f.tol.toExponential(3)} /s over a window of ${f.windowS} s.`;
-  }
-  const b = f.blowUp!;
-  const what =
-    Number.isNaN(b.maxAbs) || !Number.isFinite(b.maxAbs)
-      ? "a field value became NaN or infinite"
-      : `|c| reached ${b.maxAbs.toExponential(3)}, above blowUpAbs = ${f.blowUpAbs}`;
-  return `Blow-up at step ${b.step} (t = ${b.timeS} s): ${what}; the fields are the last good state, at t = ${b.lastGoodTimeS} s. Reduce dtS or check the parameters.`;
+function assembleResult(system: ReactionSystem, options: SimulationOptions, o: RunOutcome): SimulationResult {
+  return {
+    grid: o.grid,
+    speciesNames: Array.from({ length: system.species }, (_, s) => system.speciesNames?.[s] ?? `c${s + 1}`),
+    scheme: o.scheme,
+    fields: o.fields,
+    timeS: o.timeS,
+    steps: o.steps,
+    timeStep: o.timeStep,
+    adaptive: o.adaptive,
+    stopReason: o.reason,
+    message: stopMessage(o.reason, {
+      timeS: o.timeS,
+      steps: o.steps,
+      endTimeS: options.endTimeS,
+      rate: o.lastRate,
+      tol: o.tol,
+      windowS: o.windowS,
+      blowUp: o.blowUp,
+      blowUpAbs: options.blowUpAbs ?? 1e12,
+      blowUpWhat: o.blowUpWhat,
+      adaptive: o.adaptive !== null,
+    }),
+    stationary: o.lastRate !== null && o.lastRate < o.tol,
+    lastChangeRatePerS: o.lastRate,
+    stationarityTolerancePerS: o.tol,
+    stationarityWindowS: o.windowS,
+    blowUp: o.blowUp,
+    snapshots: o.snapshots,
+    stats: o.fields.map(computeFieldStats),
+    seed: o.seed,
+  };
 }

@@ -109,7 +109,8 @@ describe("a verification run", () => {
       await new Promise((r) => setTimeout(r, 100));
       job = await getJob(lab.w.labId, started.body.jobId);
     }
-    expect(job.progressNote).toMatch(/^simulated t = [\d.]+ of 1500 model time \(\d+ %\)$/);
+    // Adaptive steps (the default): the note also says the current step.
+    expect(job.progressNote).toMatch(/^simulated t = [\d.]+ of 1500 model time \(\d+ %\), step [\d.]+ model time$/);
     const cancelled = await api("POST", `${ONE}/cancel`, { runId: started.body.id });
     expect(cancelled.status).toBe(200);
     expect((await waitForJob(started.body.jobId, 20_000)).status).toBe("cancelled");

@@ -18,6 +18,7 @@ import { readWavelength, type WavelengthReadout } from "@/lib/readout";
 import { computeTuringMap, type TuringMapOptions } from "@/lib/stability";
 import { CORE_READOUT } from "./core-readout";
 import type { BenchRow } from "./run";
+import { SIM_NUMPY_ARGS, simRows, type NumpySimFigure } from "./side-by-side-sim";
 
 const SHARED_BENCH = path.resolve(import.meta.dirname, "../../../shared/bench");
 const PYTHON = "/usr/bin/python3";
@@ -168,7 +169,7 @@ async function readoutRows(np: NumpyFigure | null): Promise<BenchRow[]> {
   return rows;
 }
 
-/** `parts`: "map" and/or "readout" (`npm run bench -- side-by-side:readout`); none = every part. */
+/** `parts`: "map", "readout" and/or "sim" (`npm run bench -- side-by-side:readout`); none = every part. */
 export default async function bench(parts: string[] = []): Promise<BenchRow[]> {
   const want = (part: string) => parts.length === 0 || parts.includes(part);
   mkdirSync(WORK, { recursive: true });
@@ -182,8 +183,6 @@ export default async function bench(parts: string[] = []): Promise<BenchRow[]> {
   const rows: BenchRow[] = [];
   if (want("map")) rows.push(...(await mapRows(python ? numpy("map", String(REPS)) : null)));
   if (want("readout")) rows.push(...(await readoutRows(python ? numpy("readout", String(REPS)) : null)));
-  process.stderr.write(
-    "side-by-side: the verification run (numpy_reference.py sim 0 128 64 2000) is not compared yet: Morphokin's solver has zero-flux boundaries, the numpy script a periodic grid\n",
-  );
+  if (want("sim")) rows.push(...simRows(python ? (numpy(...SIM_NUMPY_ARGS) as NumpySimFigure) : null));
   return rows;
 }

@@ -27,6 +27,8 @@ RUN.json fields:
                      model length units for non-dimensional kinetics)
   endTimeS           simulated time (s, or model time units)
   dtS, scheme        step cap, "etd2" (default) | "implicit-euler" | "integrating-factor"
+  adaptive           {"tolerance"?: 1e-3}: error-controlled steps (ETD2RK with embedded ETD1;
+                     scheme etd2 only); without it the steps are fixed
   initial            {"steadyState"?: [...], "noiseAmplitude"?: a, "seed"?: s}; the steady state
                      defaults to the kinetics' closed-form one. Or a chosen initial field:
                      {"fieldFiles": ["u.f64", "v.f64"]} (one per species, raw little-endian
@@ -40,7 +42,7 @@ Options:
   --out DIR      writes final-<species>.f64 (raw little-endian float64, row-major),
                  final-<species>.png (min–max scaled), snapshot-<i>-<species>.f64 for each
                  snapshot (i from 0, in the order of snapshotTimesS) and result.json
-  --progress     prints one line "progress {timeS, fraction, steps}" (JSON) to stderr at each
+  --progress     prints one line "progress {timeS, fraction, steps, dtS}" (JSON) to stderr at each
                  progress report of the solver (about every 1 % of the steps), for a caller
                  that runs this command as a child process
   --threads N    1 (default) or 2: run the spectral stage of the species on two threads
@@ -84,6 +86,7 @@ const command: CliCommand = {
         endTimeS: spec.endTimeS,
         dtS: spec.dtS,
         scheme: spec.scheme,
+        adaptive: spec.adaptive,
         stopWhenStationary: spec.stopWhenStationary,
         stationarity: spec.stationarity,
         snapshotTimesS: spec.snapshotTimesS,
@@ -92,7 +95,7 @@ const command: CliCommand = {
           options.progress === true
             ? (q) =>
                 process.stderr.write(
-                  `progress ${JSON.stringify({ timeS: q.timeS, fraction: q.fraction, steps: q.steps })}\n`,
+                  `progress ${JSON.stringify({ timeS: q.timeS, fraction: q.fraction, steps: q.steps, dtS: q.dtS })}\n`,
                 )
             : undefined,
       });

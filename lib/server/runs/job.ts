@@ -37,6 +37,7 @@ interface CliOutput {
   timeS: number;
   steps: number;
   dtS: number;
+  adaptive: RunResult["adaptive"];
   stationary: boolean;
   lastChangeRatePerS: number | null;
   blowUp: RunResult["blowUp"];
@@ -50,7 +51,7 @@ async function runCli(
   outDir: string,
   signal: AbortSignal,
   limitS: number,
-  onProgress: (fraction: number, timeS: number) => void,
+  onProgress: (fraction: number, timeS: number, dtS: number | undefined) => void,
 ): Promise<CliOutput> {
   const r = await startChild(
     "simulate",
@@ -60,8 +61,8 @@ async function runCli(
       timeLimitMs: limitS * 1000,
       onLine(line) {
         if (!line.startsWith("progress ")) return false;
-        const q = parseProtocolLine<{ fraction: number; timeS: number }>(line, "progress");
-        if (q) onProgress(q.fraction, q.timeS);
+        const q = parseProtocolLine<{ fraction: number; timeS: number; dtS?: number }>(line, "progress");
+        if (q) onProgress(q.fraction, q.timeS, q.dtS);
         return true;
       },
     },
@@ -129,10 +130,10 @@ export const runSimulationJob: JobHandler = async (job, ctx) => {
       path.join(dir, "out"),
       ctx.signal,
       RUN_TIME_FACTOR * plan.estimatedCpuS + RUN_START_ALLOWANCE_S,
-      (f, t) =>
+      (f, t, dt) =>
         void ctx.progress(
           0.9 * f,
-          `simulated t = ${Number((t * tf).toPrecision(4))} of ${Number((spec.endTimeS * tf).toPrecision(4))} ${unit} (${Math.round(100 * f)} %)`,
+          `simulated t = ${Number((t * tf).toPrecision(4))} of ${Number((spec.endTimeS * tf).toPrecision(4))} ${unit} (${Math.round(100 * f)} %)${dt ? `, step ${Number((dt * tf).toPrecision(3))} ${unit}` : ""}`,
         ),
     );
     const wallS = (Date.now() - t0) / 1000;
@@ -216,6 +217,7 @@ export const runSimulationJob: JobHandler = async (job, ctx) => {
       timeS: out.timeS,
       steps: out.steps,
       dtS: out.dtS,
+      adaptive: out.adaptive ?? null,
       stationary: out.stationary,
       lastChangeRatePerS: out.lastChangeRatePerS,
       blowUp: out.blowUp,

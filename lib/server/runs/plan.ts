@@ -73,6 +73,8 @@ export async function planRun(ctx: LabContext, asked: SimulationRunRequest): Pro
       endTimeS: req.endTimeS,
       dtS: req.dtS,
       scheme: req.scheme,
+      timeStepping: req.timeStepping,
+      tolerance: req.tolerance,
       snapshots: req.snapshots ?? DEFAULT_RUN_SNAPSHOTS,
       noiseAmplitude: req.noiseAmplitude,
       stopWhenStationary: req.stopWhenStationary,

@@ -37,6 +37,17 @@ export interface RunResult {
   timeS: number;
   steps: number;
   dtS: number;
+  /** Adaptive steps: tolerance, rule, accepted and rejected steps, smallest, largest and last step; absent with fixed steps. */
+  adaptive?: {
+    tolerance: number;
+    rule: string;
+    acceptedSteps: number;
+    rejectedSteps: number;
+    firstStepS: number;
+    smallestStepS: number;
+    largestStepS: number;
+    lastStepS: number;
+  } | null;
   stationary: boolean;
   lastChangeRatePerS: number | null;
   blowUp: { step: number; timeS: number; lastGoodTimeS: number; maxAbs: number } | null;

@@ -3,6 +3,7 @@ import Link from "next/link";
 import { Panel } from "@/components/ui/panel";
 import type { RunDetailDto } from "@/lib/server/runs/types";
 import { formatSig } from "../../readouts/readout-format";
+import { RunAdaptiveSteps } from "./run-adaptive-steps";
 
 /** What was run, exactly: kinetics version, parameters, grid, step, seed, software; and the stored files. */
 export function RunProvenance({ r, labId }: { r: RunDetailDto; labId: string }) {
@@ -36,11 +37,24 @@ export function RunProvenance({ r, labId }: { r: RunDetailDto; labId: string }) 
           {p.lengthFactor && p.units !== "dimensional" ? ` (ℓ = ${p.lengthFactor} µm)` : ""}
         </dd>
         <dt className="text-ink-soft">Time</dt>
-        <dd className="num">
+        <dd className="num" data-testid="run-time-steps">
           end {formatSig(s.endTimeS * tf, 4)} {p.timeUnit}
-          {s.stopWhenStationary ? ", or earlier when stationary" : ""}; {s.scheme}; step {formatSig(p.dtS * tf, 4)}{" "}
-          {p.timeUnit} × {p.steps} (ρ = {formatSig(p.spectralRadiusPerS, 4)} per time unit, limit 0.1/ρ)
+          {s.stopWhenStationary ? ", or earlier when stationary" : ""}; {s.scheme};{" "}
+          {s.adaptive ? (
+            <RunAdaptiveSteps r={r} />
+          ) : (
+            <>
+              step {formatSig(p.dtS * tf, 4)} {p.timeUnit} × {p.steps} (ρ = {formatSig(p.spectralRadiusPerS, 4)} per
+              time unit, limit 0.1/ρ)
+            </>
+          )}
         </dd>
+        {p.stationarity && (
+          <>
+            <dt className="text-ink-soft">Stationarity</dt>
+            <dd className="text-sm">{p.stationarity}</dd>
+          </>
+        )}
         <dt className="text-ink-soft">Initial state</dt>
         <dd className="num" data-testid="run-initial-state">
           {p.startFrom ? (

@@ -65,7 +65,12 @@ export function RunDomainPanel({ d }: { d: RunDraft }) {
           />
         </Label>
         <Label text={`step cap (${timeUnit}, optional)`}>
-          <input className={field} value={d.dt} placeholder="0.1/ρ" onChange={(e) => d.setDt(e.target.value)} />
+          <input
+            className={field}
+            value={d.dt}
+            placeholder="none: adaptive"
+            onChange={(e) => d.setDt(e.target.value)}
+          />
         </Label>
         <label className="flex items-end gap-2 pb-1 text-xs text-ink-soft">
           <input type="checkbox" checked={d.stationary} onChange={(e) => d.setStationary(e.target.checked)} /> stop when

@@ -49,7 +49,8 @@ export function startingRunFields(kinetics: KineticsInfoDto[], prefill: RunPrefi
     boundary: (g?.boundary ?? source0?.boundary ?? "zero-flux") as "zero-flux" | "periodic",
     endTime: c?.endTime ?? "300",
     dt: c?.dt ?? "",
-    stationary: c?.stationary ?? false,
+    // Runs stop when stationary unless asked not to (the solver's default).
+    stationary: c?.stationary ?? true,
     seed: c?.seed ?? "",
     noise: c?.noise ?? "",
     snapshots: c?.snapshots ?? "9",
