@@ -10,6 +10,9 @@ export default defineConfig({
     environment: "node",
     pool: "forks",
     testTimeout: 30_000,
+    // A setup hook that times out on a loaded machine goes on in the background after its stack is
+    // closed; a generous limit keeps that rare (and services() then refuses instead of opening the default).
+    hookTimeout: 60_000,
     // Everything on the embedded SQLite file; the API suite once more on a real PostgreSQL server
     // (tests/support/postgres.ts). One file on one: `npx vitest run --project postgres tests/api/x.test.ts`.
     projects: [
@@ -20,6 +23,8 @@ export default defineConfig({
           include: ["tests/**/*.test.ts"],
           // Files about PostgreSQL only run in the postgres project (no test skips itself in a run).
           exclude: [...configDefaults.exclude, "tests/cli/db-copy.test.ts", "tests/api/db-migrate-together.test.ts"],
+          // The run fails if it leaves files in storage/data/ (the developer's own data folder).
+          globalSetup: ["tests/support/no-default-data.ts"],
         },
       },
       {
@@ -28,7 +33,7 @@ export default defineConfig({
           name: "postgres",
           include: ["tests/api/**/*.test.ts", "tests/cli/db-copy.test.ts"],
           env: { MORPHOKIN_TEST_DB: "postgres" },
-          globalSetup: ["tests/support/postgres.ts"],
+          globalSetup: ["tests/support/no-default-data.ts", "tests/support/postgres.ts"],
         },
       },
     ],

@@ -21,7 +21,7 @@ export interface Services {
   jobs: JobDelivery;
 }
 
-const g = globalThis as unknown as { __morphokinServices?: Services };
+const g = globalThis as unknown as { __morphokinServices?: Services; __morphokinServicesClosed?: boolean };
 
 export function createServices(config: Config = readConfig()): Services {
   return {
@@ -35,7 +35,13 @@ export function createServices(config: Config = readConfig()): Services {
 }
 
 export function services(): Services {
-  return (g.__morphokinServices ??= createServices());
+  if (g.__morphokinServices) return g.__morphokinServices;
+  // A test closed its stack while work of it still ran (a hook that timed out, a late promise):
+  // falling back to the configured default would open, and start migrating, the developer's own
+  // storage/data/morphokin.sqlite, which the test process then leaves half-migrated when it exits.
+  if (g.__morphokinServicesClosed)
+    throw new Error("the services of this test were closed; work that outlived its test stack stops here");
+  return (g.__morphokinServices = createServices());
 }
 
 /** Ready database + models; every data-access function starts here. */
@@ -45,6 +51,8 @@ export async function database() {
   return s.db.models;
 }
 
+/** `undefined` closes them: later calls throw instead of opening the configured default database. */
 export function setServicesForTest(s: Services | undefined) {
   g.__morphokinServices = s;
+  g.__morphokinServicesClosed = s === undefined;
 }

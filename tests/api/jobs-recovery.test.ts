@@ -26,7 +26,7 @@ import { removeStaleJobFolders, STALE_AFTER_MS } from "@/lib/server/jobs/temp-fo
 import { runStartupTasks } from "@/lib/server/startup";
 import { database, services } from "@/lib/server/services";
 import { readoutDerivedKey } from "@/storage/keys";
-import { startTestStack, type TestStack } from "../support/stack";
+import { stackChildEnv, startTestStack, type TestStack } from "../support/stack";
 import { makeWorld, type World } from "../support/world";
 
 let stack: TestStack;
@@ -211,7 +211,7 @@ describe("jobs after a server stop", () => {
             "--ms",
             "6000",
           ],
-          { cwd: process.cwd(), stdio: ["ignore", "pipe", "pipe"], env: { ...process.env, NODE_OPTIONS: "" } },
+          { cwd: process.cwd(), stdio: ["ignore", "pipe", "pipe"], env: stackChildEnv(stack) },
         );
         let stderr = "";
         child.stderr!.on("data", (b: Buffer) => (stderr += b.toString()));

@@ -18,7 +18,7 @@ import { uploadTempRoot } from "@/lib/server/uploads/multipart";
 import { database } from "@/lib/server/services";
 import { sweepUploads } from "@/lib/server/uploads/recovery";
 import { call, discoverRoutes, multipart } from "../support/api";
-import { startTestStack, type TestStack } from "../support/stack";
+import { stackChildEnv, startTestStack, type TestStack } from "../support/stack";
 import { makeWorld, type World } from "../support/world";
 
 /** Size of the slowly stored table (bytes): large enough that its put takes seconds when throttled (common practice, no source). */
@@ -39,7 +39,6 @@ const ctxOf = () => ({
 const tempRoot = () => uploadTempRoot(stack.services.config.dataDir);
 
 function startChild(mode: "slow-body" | "slow-put") {
-  const c = stack.services.config;
   const child = spawn(
     process.execPath,
     [
@@ -57,15 +56,8 @@ function startChild(mode: "slow-body" | "slow-put") {
       cwd: ROOT,
       stdio: ["ignore", "pipe", "pipe"],
       env: {
-        ...process.env,
-        NODE_OPTIONS: "",
-        MORPHOKIN_DATA_DIR: c.dataDir,
-        DATABASE_PATH: c.databasePath,
-        DATABASE_URL: c.databaseUrl,
+        ...stackChildEnv(stack),
         MAX_UPLOAD_BYTES: String(4 * PUT_BYTES),
-        S3_ENDPOINT: c.s3.endpoint,
-        S3_BUCKET: c.s3.bucket,
-        SMTP_URL: c.smtp.url,
         JOB_CONCURRENCY: "1",
       },
     },

@@ -13,7 +13,7 @@ import { startReadout } from "@/lib/server/readouts/readouts";
 import { createSpecimen } from "@/lib/server/studies/specimens";
 import { createStudy } from "@/lib/server/studies/studies";
 import { storeUpload } from "@/lib/server/uploads/uploads";
-import type { TestStack } from "../support/stack";
+import { stackChildEnv, type TestStack } from "../support/stack";
 
 export interface WorkerProcess {
   child: ChildProcess;
@@ -24,18 +24,11 @@ export interface WorkerProcess {
 
 /** Starts `lib/cli/worker.ts` on the stack's database and services. */
 export function startWorker(stack: TestStack, concurrency: number): WorkerProcess {
-  const c = stack.services.config;
   const child = spawn(process.execPath, ["--conditions=react-server", "--import", "tsx", "lib/cli/worker.ts"], {
     cwd: process.cwd(),
     stdio: ["ignore", "pipe", "pipe"],
     env: {
-      ...process.env,
-      NODE_OPTIONS: "",
-      DATABASE_URL: c.databaseUrl,
-      DATABASE_PATH: c.databasePath,
-      S3_ENDPOINT: c.s3.endpoint,
-      S3_BUCKET: c.s3.bucket,
-      SMTP_URL: c.smtp.url,
+      ...stackChildEnv(stack),
       WORKER_CONCURRENCY: String(concurrency),
       SIMULATION_THREADS: "1",
       JOB_MAIL_AFTER_S: "3600",

@@ -29,6 +29,25 @@ export interface TestStack {
   close(): Promise<void>;
 }
 
+/**
+ * The environment of a process a test starts on this stack (a worker, a second server, an upload
+ * client): the stack's database, data folder, object store and mail server. A child given less
+ * falls back to the configured defaults, i.e. the developer's own storage/data/morphokin.sqlite.
+ */
+export function stackChildEnv(stack: TestStack): NodeJS.ProcessEnv {
+  const c = stack.services.config;
+  return {
+    ...process.env,
+    NODE_OPTIONS: "",
+    MORPHOKIN_DATA_DIR: c.dataDir,
+    DATABASE_PATH: c.databasePath,
+    DATABASE_URL: c.databaseUrl,
+    S3_ENDPOINT: c.s3.endpoint,
+    S3_BUCKET: c.s3.bucket,
+    SMTP_URL: c.smtp.url,
+  };
+}
+
 /** `database`: "sqlite" forces the SQLite file even in the postgres project (e.g. as a copy's source). */
 export async function startTestStack(options: { database?: "sqlite" } = {}): Promise<TestStack> {
   const dir = mkdtempSync(path.join(tmpdir(), "morphokin-test-"));

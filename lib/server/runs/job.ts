@@ -133,7 +133,8 @@ export const runSimulationJob: JobHandler = async (job, ctx) => {
       (f, t, dt) =>
         void ctx.progress(
           0.9 * f,
-          `simulated t = ${Number((t * tf).toPrecision(4))} of ${Number((spec.endTimeS * tf).toPrecision(4))} ${unit} (${Math.round(100 * f)} %)${dt ? `, step ${Number((dt * tf).toPrecision(3))} ${unit}` : ""}`,
+          // The job's own figure (0.9 f) is the one progress shown; a second percentage here read as "74 % … (82 %)".
+          `simulated t = ${Number((t * tf).toPrecision(4))} of ${Number((spec.endTimeS * tf).toPrecision(4))} ${unit}${dt ? `, step ${Number((dt * tf).toPrecision(3))} ${unit}` : ""}`,
         ),
     );
     const wallS = (Date.now() - t0) / 1000;

@@ -3,11 +3,16 @@
 import type { ColumnDef } from "@tanstack/react-table";
 import { DataTable } from "@/components/ui/data-table";
 import { LongName } from "@/components/ui/long-name";
+import { useLiveJobs } from "@/lib/client/use-live-jobs";
 import { EmptyState, Panel } from "@/components/ui/panel";
 import { formatDateTime } from "@/lib/client/format";
 import type { BatchDto } from "@/lib/server/batches/batches";
 
+/** The jobs whose status this list shows: it updates while they run and when they end. */
+const BATCH_JOBS = ["readout"] as const;
+
 export function BatchesList({ labId }: { labId: string }) {
+  const live = useLiveJobs(labId, BATCH_JOBS);
   const columns: ColumnDef<BatchDto, unknown>[] = [
     {
       id: "name",
@@ -54,6 +59,7 @@ export function BatchesList({ labId }: { labId: string }) {
   return (
     <Panel>
       <DataTable<BatchDto>
+        refreshKey={live.version}
         url={`/api/v1/labs/${labId}/batches`}
         columns={columns}
         defaultSort={{ id: "createdAt", desc: true }}

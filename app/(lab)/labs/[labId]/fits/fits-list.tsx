@@ -3,10 +3,14 @@ import type { ColumnDef } from "@tanstack/react-table";
 import Link from "next/link";
 import { DataTable } from "@/components/ui/data-table";
 import { LongName } from "@/components/ui/long-name";
+import { useLiveJobs } from "@/lib/client/use-live-jobs";
 import { Badge, EmptyState } from "@/components/ui/panel";
 import { formatDateTime } from "@/lib/client/format";
 import type { FitSummaryDto } from "@/lib/server/fits/fits";
 import { FIT_STATUS_TONE, FIT_STATUS_WORDS, VERDICT_TONE } from "./fit-format";
+
+/** The jobs whose status this list shows: it updates while they run and when they end. */
+const FIT_JOBS = ["fit", "fit-comparison"] as const;
 
 export function FitsList({
   labId,
@@ -18,6 +22,7 @@ export function FitsList({
   /** Runs may be started: a finished comparison offers its best-ranked kinetics to a verification run. */
   canSimulate?: boolean;
 }) {
+  const live = useLiveJobs(labId, FIT_JOBS);
   const columns: ColumnDef<FitSummaryDto, unknown>[] = [
     {
       id: "name",
@@ -95,6 +100,7 @@ export function FitsList({
   ];
   return (
     <DataTable<FitSummaryDto>
+      refreshKey={live.version}
       url={`/api/v1/labs/${labId}/fits`}
       columns={columns}
       defaultSort={{ id: "createdAt", desc: true }}

@@ -2,12 +2,17 @@
 import type { ColumnDef } from "@tanstack/react-table";
 import { DataTable } from "@/components/ui/data-table";
 import { LongName } from "@/components/ui/long-name";
+import { useLiveJobs } from "@/lib/client/use-live-jobs";
 import { Badge, EmptyState } from "@/components/ui/panel";
 import { formatDateTime } from "@/lib/client/format";
 import type { ReadoutDto } from "@/lib/server/readouts/readouts";
 import { formatSig, plusMinus, settingsSummary, STATUS_TONE, STATUS_WORDS } from "./readout-format";
 
+/** The jobs whose status this list shows: it updates while they run and when they end. */
+const READOUT_JOBS = ["readout"] as const;
+
 export function ReadoutsList({ labId }: { labId: string }) {
+  const live = useLiveJobs(labId, READOUT_JOBS);
   const columns: ColumnDef<ReadoutDto, unknown>[] = [
     {
       id: "filename",
@@ -66,6 +71,7 @@ export function ReadoutsList({ labId }: { labId: string }) {
   ];
   return (
     <DataTable<ReadoutDto>
+      refreshKey={live.version}
       url={`/api/v1/labs/${labId}/readouts`}
       columns={columns}
       defaultSort={{ id: "createdAt", desc: true }}

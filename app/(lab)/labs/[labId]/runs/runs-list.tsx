@@ -2,13 +2,18 @@
 import type { ColumnDef } from "@tanstack/react-table";
 import { DataTable } from "@/components/ui/data-table";
 import { LongName } from "@/components/ui/long-name";
+import { useLiveJobs } from "@/lib/client/use-live-jobs";
 import { Badge, EmptyState } from "@/components/ui/panel";
 import { formatDateTime } from "@/lib/client/format";
 import type { RunDto } from "@/lib/server/runs/types";
 import { STATUS_TONE, STATUS_WORDS } from "../readouts/readout-format";
 import { STOP_WORDS, withUnit } from "./run-format";
 
+/** The jobs whose status this list shows: it updates while they run and when they end. */
+const RUN_JOBS = ["simulation"] as const;
+
 export function RunsList({ labId, canRun }: { labId: string; canRun: boolean }) {
+  const live = useLiveJobs(labId, RUN_JOBS);
   const columns: ColumnDef<RunDto, unknown>[] = [
     {
       id: "name",
@@ -84,6 +89,7 @@ export function RunsList({ labId, canRun }: { labId: string; canRun: boolean }) 
   ];
   return (
     <DataTable<RunDto>
+      refreshKey={live.version}
       url={`/api/v1/labs/${labId}/runs`}
       columns={columns}
       defaultSort={{ id: "createdAt", desc: true }}

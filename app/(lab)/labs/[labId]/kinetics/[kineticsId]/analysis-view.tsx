@@ -195,7 +195,7 @@ export function AnalysisView({
         </Panel>
         <Panel
           title="Dispersion relation"
-          actions={<ComputingBadge on={dispersion.computing} testId="dispersion-computing" />}
+          actions={<ComputingBadge on={dispersion.computing} stale={dispersion.stale} testId="dispersion-computing" />}
         >
           {dispersion.error && (
             <div className="mb-3">

@@ -46,7 +46,10 @@ export function GradientPanel({ labId, info, base }: { labId: string; info: Kine
   const points = d?.points.map((p) => ({ x: p.x, wavelength: physical ? p.wavelengthUm : p.wavelength })) ?? [];
   const set = (patch: Partial<typeof v>) => setV((x) => ({ ...x, ...patch }));
   return (
-    <Panel title="Gradient along the tissue" actions={<ComputingBadge on={g.computing} testId="gradient-computing" />}>
+    <Panel
+      title="Gradient along the tissue"
+      actions={<ComputingBadge on={g.computing} stale={g.stale} testId="gradient-computing" />}
+    >
       <div className="grid grid-cols-3 gap-2">
         <label className="block text-xs">
           parameter

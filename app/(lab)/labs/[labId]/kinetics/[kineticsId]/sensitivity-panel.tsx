@@ -30,7 +30,7 @@ export function SensitivityPanel({ labId, info, base }: { labId: string; info: K
   return (
     <Panel
       title="Sensitivities of the predicted wavelength"
-      actions={<ComputingBadge on={s.computing} testId="sensitivity-computing" />}
+      actions={<ComputingBadge on={s.computing} stale={s.stale} testId="sensitivity-computing" />}
     >
       {s.error && (
         <div className="mb-3">

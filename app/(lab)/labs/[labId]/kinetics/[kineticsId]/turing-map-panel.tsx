@@ -132,7 +132,10 @@ export function TuringMapPanel({ labId, info, base }: { labId: string; info: Kin
   );
 
   return (
-    <Panel title="Turing-space map" actions={<ComputingBadge on={map.computing} testId="map-computing" />}>
+    <Panel
+      title="Turing-space map"
+      actions={<ComputingBadge on={map.computing} stale={map.stale} testId="map-computing" />}
+    >
       {info.parameters.length < 2 ? (
         <p className="text-sm text-ink-soft">A map needs two parameters; this kinetics has fewer.</p>
       ) : (

@@ -19,9 +19,10 @@ function useDebounced<T>(value: T, delayMs: number): T {
 export function useAnalysis<T>(url: string, body: unknown, delayMs = 300) {
   const key = body === null ? null : JSON.stringify(body);
   const settled = useDebounced(key, delayMs);
-  const swr = useSWR<T, ApiError, [string, string] | null>(
+  // Each result carries the inputs it was computed from, so a panel can tell when it no longer matches them.
+  const swr = useSWR<{ result: T; body: string }, ApiError, [string, string] | null>(
     settled ? [url, settled] : null,
-    ([u, b]: [string, string]) => sendJson<T>("POST", u, JSON.parse(b)),
+    async ([u, b]: [string, string]) => ({ result: await sendJson<T>("POST", u, JSON.parse(b)), body: b }),
     {
       keepPreviousData: true,
       revalidateOnFocus: false,
@@ -29,7 +30,14 @@ export function useAnalysis<T>(url: string, body: unknown, delayMs = 300) {
       shouldRetryOnError: false,
     },
   );
-  return { data: swr.data, error: swr.error, computing: swr.isValidating || key !== settled };
+  const computing = swr.isValidating || key !== settled;
+  return {
+    data: swr.data?.result,
+    error: swr.error,
+    computing,
+    /** The result shown was computed from other inputs than the current ones (e.g. the last change failed). */
+    stale: swr.data !== undefined && (swr.data.body !== key || swr.error !== undefined) && !computing,
+  };
 }
 
 const NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
