@@ -5,8 +5,11 @@ import { freePort, type TestStack } from "../support/stack";
 
 const ROOT = path.resolve(import.meta.dirname, "../..");
 
-/** A `next start` of this checkout against the stack's database and fakes; resolves with its base URL. */
-export async function startServer(stack: TestStack) {
+/**
+ * A `next start` of this checkout against the stack's database and fakes; resolves with its base
+ * URL. `env` adds or overrides variables of the server (e.g. a larger MAX_UPLOAD_BYTES).
+ */
+export async function startServer(stack: TestStack, env: Record<string, string> = {}) {
   const port = await freePort();
   const c = stack.services.config;
   const child = spawn(
@@ -30,6 +33,7 @@ export async function startServer(stack: TestStack) {
         DEV_MAILBOX_URL: c.devMailboxUrl,
         MAX_UPLOAD_BYTES: String(c.maxUploadBytes),
         JOB_CONCURRENCY: "1",
+        ...env,
       },
     },
   );
