@@ -13,6 +13,7 @@ import { encodePng } from "../../lib/imaging";
 import { makeHexSpots } from "../../lib/synthetic";
 import type { LabContext } from "../../lib/server/access";
 import { readConfig } from "../../lib/server/config";
+import { AppError } from "../../lib/server/errors";
 import { startFit } from "../../lib/server/fits/fits";
 import { waitForJob } from "../../lib/server/jobs/queue";
 import { startReadout } from "../../lib/server/readouts/readouts";
@@ -40,6 +41,17 @@ const CONDITIONS = ["control", "treated"] as const;
 const SPACING_PX = { control: 22, treated: 27 } as const;
 const PIXEL_SIZE_UM = 2;
 const SIDE_PX = 256;
+
+/** storeUpload, tried up to 3 times: the fake S3 has timed out on a machine loaded by other work. */
+async function storeWithRetry(...args: Parameters<typeof storeUpload>) {
+  for (let attempt = 1; ; attempt++) {
+    try {
+      return await storeUpload(...args);
+    } catch (err) {
+      if (attempt >= 3 || !(err instanceof AppError && err.code === "unavailable")) throw err;
+    }
+  }
+}
 
 export async function seedLoadLab(scientist: LabContext, modeller: LabContext): Promise<SeededLab> {
   const config = readConfig();
@@ -80,7 +92,7 @@ export async function seedLoadLab(scientist: LabContext, modeller: LabContext): 
           const name = `placodes-${seed}.png`;
           const file = path.join(tmp, name);
           writeFileSync(file, bytes);
-          const upload = await storeUpload(scientist, specimen.id, {
+          const upload = await storeWithRetry(scientist, specimen.id, {
             path: file,
             filename: name,
             sizeBytes: bytes.length,
