@@ -10,7 +10,8 @@
  * (server/runs/job.ts).
  */
 import "server-only";
-import { spawn } from "node:child_process";
+import { spawn, type ChildProcess } from "node:child_process";
+import { getPriority, setPriority } from "node:os";
 import path from "node:path";
 import { JobCancelledError } from "../server/jobs/types";
 
@@ -41,6 +42,29 @@ const CHILD_ENTRIES = {
 
 export type ChildName = keyof typeof CHILD_ENTRIES;
 
+/**
+ * The niceness of a child (Linux: 0 normal … 19 lowest). A readout, fit or simulation is batch
+ * work that takes a second or a minute; the web server's answers take milliseconds and a person
+ * waits for each. At the same priority a CPU-bound child took half the CPU from the server and its
+ * API answers queued behind it (tests/bench/server-load.bench.ts); at 10 the scheduler gives the
+ * server the CPU when it has work and the child everything else (design choice: nice(1)'s default
+ * adjustment, from memory).
+ */
+export const CHILD_NICENESS = 10;
+
+/**
+ * Lowers a child's CPU priority to CHILD_NICENESS (never above a server already running nicer);
+ * a platform that refuses (some containers, Windows) keeps it as it was.
+ */
+export function lowerChildPriority(child: Pick<ChildProcess, "pid">): void {
+  if (child.pid === undefined) return;
+  try {
+    setPriority(child.pid, Math.max(CHILD_NICENESS, getPriority()));
+  } catch {
+    // not permitted here: the child runs at the server's priority, as before
+  }
+}
+
 /** The file a child runs; the server and workers run from the project folder. */
 export function childEntryPath(name: ChildName): string {
   return path.join(process.cwd(), "lib", "workers", CHILD_ENTRIES[name]);
@@ -58,6 +82,7 @@ export function startChild(
       stdio: ["ignore", "pipe", "pipe"],
       env: { ...process.env, NODE_OPTIONS: "" },
     });
+    lowerChildPriority(child);
     const out: Buffer[] = [];
     let stderr = "",
       pending = "",

@@ -9,7 +9,6 @@
  *   port, with its own data dir and the fakes started here; requests go over HTTP.
  * BENCH_UPLOADS_N changes the count (default 200).
  */
-import { spawn } from "node:child_process";
 import { existsSync, readdirSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
@@ -22,13 +21,13 @@ import { createStudy } from "../../lib/server/studies/studies";
 import { stopJobs } from "../../lib/server/jobs/worker";
 import { database } from "../../lib/server/services";
 import { call, discoverRoutes, multipart } from "../support/api";
-import { freePort, startTestStack, type TestStack } from "../support/stack";
+import { startTestStack, type TestStack } from "../support/stack";
+import { startServer } from "./next-server";
 import { makeWorld } from "../support/world";
 
 const N = Number(process.env.BENCH_UPLOADS_N ?? 200);
 /** The issue's bound: every request answered within 60 s. */
 const ANSWER_WITHIN_MS = 60_000;
-const ROOT = path.resolve(import.meta.dirname, "../..");
 
 interface Answer {
   status: number;
@@ -65,48 +64,6 @@ const tempFolders = (dataDir: string) => {
     ...readdirSync(tmpdir()).filter((n) => n.startsWith("morphokin-upload-")),
   ];
 };
-
-/** A `next start` of this checkout against the stack's database and fakes; resolves with its base URL. */
-async function startServer(stack: TestStack) {
-  const port = await freePort();
-  const c = stack.services.config;
-  const child = spawn(
-    process.execPath,
-    [path.join(ROOT, "node_modules/next/dist/bin/next"), "start", "-H", "127.0.0.1", "-p", String(port)],
-    {
-      cwd: ROOT,
-      stdio: ["ignore", "ignore", "inherit"],
-      env: {
-        ...process.env,
-        NODE_ENV: "production",
-        NEXT_TELEMETRY_DISABLED: "1",
-        NEXTAUTH_URL: `http://127.0.0.1:${port}`,
-        NEXTAUTH_SECRET: "bench-secret-bench-secret-bench-secret",
-        MORPHOKIN_DATA_DIR: c.dataDir,
-        DATABASE_PATH: c.databasePath,
-        DATABASE_URL: c.databaseUrl,
-        S3_ENDPOINT: c.s3.endpoint,
-        S3_BUCKET: c.s3.bucket,
-        SMTP_URL: c.smtp.url,
-        DEV_MAILBOX_URL: c.devMailboxUrl,
-        MAX_UPLOAD_BYTES: String(c.maxUploadBytes),
-        JOB_CONCURRENCY: "1",
-      },
-    },
-  );
-  const url = `http://127.0.0.1:${port}`;
-  const until = Date.now() + 60_000;
-  for (;;) {
-    const ok = await fetch(`${url}/api/health`).then(
-      (r) => r.ok,
-      () => false,
-    );
-    if (ok) break;
-    if (Date.now() > until) throw new Error("next start did not answer /api/health within 60 s");
-    await new Promise((r) => setTimeout(r, 250));
-  }
-  return { url, stop: () => child.kill("SIGTERM") };
-}
 
 export default async function bench(): Promise<BenchRow[]> {
   const serverMode = process.env.BENCH_UPLOADS_URL_MODE === "server";
