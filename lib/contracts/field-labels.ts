@@ -155,7 +155,7 @@ const ENTRIES: [string, Label][] = [
   ["definition.species", "Species"],
   ["definition.species.#", (c) => `Name of species ${num(c)}`],
   ["definition.parameters", "Parameters"],
-  ["definition.parameters.#", definitionParameter("Row")],
+  ["definition.parameters.#", (c, ctx) => `Parameter ${parameterName(ctx, Number(c[0])) ?? num(c)}`],
   ["definition.parameters.#.name", (c) => `Name of parameter ${num(c)}`],
   ["definition.parameters.#.default", definitionParameter("Default")],
   ["definition.parameters.#.min", definitionParameter("Minimum")],

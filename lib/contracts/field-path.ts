@@ -9,8 +9,7 @@ export type PathSegment = string | number;
 
 /** `a.b[0].c`, `a.b.0.c` or a segment list → `["a", "b", 0, "c"]` (digits become numbers). */
 export function splitFieldPath(path: string | readonly PropertyKey[]): PathSegment[] {
-  const raw: PropertyKey[] =
-    typeof path === "string" ? path.split(/[.[\]]+/).filter((s) => s !== "") : [...path];
+  const raw: PropertyKey[] = typeof path === "string" ? path.split(/[.[\]]+/).filter((s) => s !== "") : [...path];
   return raw.map((s) => (typeof s === "number" ? s : /^\d+$/.test(String(s)) ? Number(s) : String(s)));
 }
 

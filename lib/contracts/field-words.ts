@@ -10,14 +10,14 @@ import { labelField, type FieldLabelContext } from "./field-labels";
 
 /** JSON names that messages mention in passing, as a person says them. Longest first. */
 const IN_PASSING: [string, string][] = [
-  ["endTimeS / dtS", "the simulated time divided by the step cap"],
-  ["lengthScaleUm", "the length scale"],
-  ["timeScaleS", "the time scale"],
-  ["uncertaintyUm", "an uncertainty"],
-  ["wavelengthUm", "a wavelength"],
-  ["readoutId", "a readout"],
-  ["pixelSizeUm", "the pixel size"],
-  ["endTimeS", "the simulated time"],
+  ["endTimeS / dtS", "Simulated time divided by the step cap"],
+  ["lengthScaleUm", "length scale"],
+  ["timeScaleS", "time scale"],
+  ["uncertaintyUm", "uncertainty"],
+  ["wavelengthUm", "wavelength"],
+  ["readoutId", "readout"],
+  ["pixelSizeUm", "pixel size"],
+  ["endTimeS", "simulated time"],
 ];
 
 /** A JSON name at the start of a message: `a.b[0].c`, `a.b.0.c`, `x[i]`, `roi point x`. */

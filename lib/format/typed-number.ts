@@ -23,7 +23,10 @@ export function parseTypedNumber(text: string): TypedNumber {
   if (comma) {
     const [, sign, whole, fraction, exponent] = comma;
     if (fraction.length === 3 && Number(whole) !== 0) {
-      return { ok: false, message: `“${text.trim()}” could be a thousands separator or a decimal comma; ${USE_A_POINT}` };
+      return {
+        ok: false,
+        message: `“${text.trim()}” could be a thousands separator or a decimal comma; ${USE_A_POINT}`,
+      };
     }
     return { ok: true, value: Number(`${sign}${whole}.${fraction}${exponent}`) };
   }
