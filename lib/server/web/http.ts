@@ -24,7 +24,6 @@ export function errorResponse(err: unknown): Response {
     // The message names its field in the form's words; `details.field` keeps the JSON name for the forms.
     const field = (app.details as { field?: unknown } | undefined)?.field;
     const message = typeof field === "string" ? renameFieldInMessage(field, app.message) : app.message;
-    if (process.env.WORDSLOG) process.stderr.write(`WORDSLOG ${JSON.stringify(app.message)} => ${JSON.stringify(message)}\n`);
     return Response.json(
       { error: { code: app.code, message, ...(app.details ? { details: app.details } : {}) } },
       { status: app.status, headers },
