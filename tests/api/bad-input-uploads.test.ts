@@ -101,7 +101,7 @@ describe("uploads", () => {
     const res = await upload(multipart({ name: "tile.png", bytes: png }));
     expect(res.status).toBe(400);
     expect((await errorOf(res)).message).toMatch(
-      /^pixelSizeUm: “tile\.png” carries no pixel size in its metadata.*; enter the pixel size in µm\/px$/,
+      /^Pixel size \(µm per pixel\): “tile\.png” carries no pixel size in its metadata.*; enter the pixel size in µm\/px$/,
     );
   });
 

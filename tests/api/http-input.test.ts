@@ -57,9 +57,7 @@ describe("kinetics expressions", () => {
       json: { definition: { ...labSchnakenberg("Deep"), reactions: ["a - u + u^2 * v", deep] } },
     });
     expect(r.status).toBe(400);
-    expect(r.body.error.message).toBe(
-      "Equation for dv/dt nests brackets 995 levels deep; the limit is 50 levels.",
-    );
+    expect(r.body.error.message).toBe("Equation for dv/dt nests brackets 995 levels deep; the limit is 50 levels.");
   });
 
   it("a negative diffusivity is refused naming the field", async () => {
@@ -73,7 +71,7 @@ describe("kinetics expressions", () => {
     });
     expect(expr.status).toBe(400);
     expect(expr.body.error.message).toBe(
-      "definition.diffusion[1] = 1 - d is -19 at the default parameters; a diffusivity must be 0 or more.",
+      "Diffusivity of v = 1 - d is -19 at the default parameters; a diffusivity must be 0 or more.",
     );
   });
 });

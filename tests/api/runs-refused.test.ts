@@ -20,7 +20,11 @@ describe("refused before any job exists", () => {
       { grid: { lengthUm: [100, 100], cells: [4096, 64] } },
       "Cells per axis must be an integer from 4 to 2048, got 4096.",
     ],
-    ["too many steps", { endTimeS: 2e6 }, "Simulated time divided by the step cap needs 20000000 steps; the limit is 10000000."],
+    [
+      "too many steps",
+      { endTimeS: 2e6 },
+      "Simulated time divided by the step cap needs 20000000 steps; the limit is 10000000.",
+    ],
     [
       "over the CPU budget",
       { grid: { lengthUm: [100, 100], cells: [512, 512] }, endTimeS: 1000 },
