@@ -15,6 +15,8 @@ const nextConfig: NextConfig = {
     // proxy.ts sees pages and /api/auth only (never uploads or /api/v1); Next buffers a body it
     // passes through the proxy up to this size, so a large body cannot fill memory there.
     proxyClientMaxBodySize: 1024 * 1024,
+    // forbidden() and app/forbidden.tsx: a lab page one's role may not use answers 403 in words.
+    authInterrupts: true,
   },
   // Security headers on every response; the pages' CSP (with its nonce) comes from proxy.ts.
   async headers() {

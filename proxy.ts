@@ -46,6 +46,8 @@ export function proxy(request: NextRequest) {
   });
   const headers = new Headers(request.headers);
   headers.set("x-nonce", nonce);
+  // The page's path, for the 403 page that says what the visitor's role may not do there.
+  headers.set("x-morphokin-path", request.nextUrl.pathname);
   headers.set("content-security-policy", csp);
   const response = NextResponse.next({ request: { headers } });
   response.headers.set("content-security-policy", csp);

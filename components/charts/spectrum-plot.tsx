@@ -26,6 +26,8 @@ export interface SpectrumPlotProps {
   wavelengthUm: number | null;
   uncertaintyUm: number | null;
   height?: number;
+  /** The length unit of the axis and labels: "µm", or "model length" for non-dimensional kinetics without ℓ. */
+  lengthUnit?: string;
 }
 
 export function SpectrumPlot({
@@ -36,6 +38,7 @@ export function SpectrumPlot({
   wavelengthUm,
   uncertaintyUm,
   height = 300,
+  lengthUnit = "µm",
 }: SpectrumPlotProps) {
   const log = (v: number) => (v > 0 ? Math.log10(v) : null);
   const peak = wavelengthUm ? 1 / wavelengthUm : null;
@@ -70,7 +73,7 @@ export function SpectrumPlot({
             tickFormatter={(v: number) => formatSig(v, 3)}
             tick={{ fontSize: 11, fontFamily: "IBM Plex Mono" }}
             label={{
-              value: "spatial frequency (cycles/µm)",
+              value: `spatial frequency (cycles/${lengthUnit})`,
               position: "insideBottom",
               offset: -16,
               fill: "#5c574c",
@@ -98,7 +101,7 @@ export function SpectrumPlot({
               stroke="#1f5c45"
               strokeDasharray="4 3"
               label={{
-                value: `peak 1/λ = ${formatSig(peak, 4)} cycles/µm`,
+                value: `peak 1/λ = ${formatSig(peak, 4)} cycles/${lengthUnit}`,
                 position: "top",
                 fill: "#1f5c45",
                 fontSize: 11,
@@ -126,7 +129,9 @@ export function SpectrumPlot({
           />
           <Tooltip
             formatter={(v, name) => [formatSig(Number(v), 4), `log₁₀ ${name}`]}
-            labelFormatter={(v) => `f = ${formatSig(Number(v), 4)} cycles/µm (λ = ${formatSig(1 / Number(v), 4)} µm)`}
+            labelFormatter={(v) =>
+              `f = ${formatSig(Number(v), 4)} cycles/${lengthUnit} (λ = ${formatSig(1 / Number(v), 4)} ${lengthUnit})`
+            }
             contentStyle={{ fontSize: 12, fontFamily: "IBM Plex Mono" }}
           />
         </ComposedChart>

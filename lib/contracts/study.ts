@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { parseTypedNumber } from "@/lib/format/typed-number";
 
 const optionalText = (max: number) =>
   z
@@ -28,11 +29,23 @@ export const specimenCreateSchema = z.object({
 export const specimenUpdateSchema = specimenCreateSchema.partial();
 export type SpecimenInput = z.input<typeof specimenCreateSchema>;
 
-/** Pixel size typed by the uploader, µm/px; used when the file carries none. */
-export const pixelSizeSchema = z.coerce
-  .number("pixel size must be a number in µm/px")
-  .positive("pixel size must be above 0 µm/px")
-  .max(10_000, "pixel size must be at most 10000 µm/px");
+/**
+ * Pixel size typed by the uploader, µm/px; used when the file carries none. A form field's text
+ * is read as a person types it ("0,65" is 0.65; see `parseTypedNumber`).
+ */
+export const pixelSizeSchema = z.preprocess(
+  (value, ctx) => {
+    if (typeof value !== "string") return value;
+    const typed = parseTypedNumber(value);
+    if (typed.ok) return typed.value;
+    ctx.addIssue({ code: "custom", message: typed.message, input: value });
+    return z.NEVER;
+  },
+  z
+    .number("pixel size must be a number in µm/px")
+    .positive("pixel size must be above 0 µm/px")
+    .max(10_000, "pixel size must be at most 10000 µm/px"),
+);
 
 /** Renames a condition on every specimen of a study: PATCH /api/v1/labs/:labId/studies/:studyId/conditions. */
 export const conditionRenameSchema = z

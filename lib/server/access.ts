@@ -4,6 +4,7 @@
  */
 import "server-only";
 import { can, type Action } from "@/lib/access/permissions";
+import { describeRefusal } from "@/lib/access/refusals";
 import type { Role } from "@/lib/access/roles";
 import type { Actor } from "./accounts/actor-type";
 import { AppError, forbidden, notFound } from "./errors";
@@ -32,13 +33,16 @@ export async function requireLab(actor: Actor, labId: string): Promise<LabContex
   return { actor, labId, labName: lab.name, role: membership.role };
 }
 
-/** Throws 403 unless the role allows the action (on an object created by `ownerId`). */
+/**
+ * Throws 403 unless the role allows the action (on an object created by `ownerId`); the message
+ * says what the role may and may not do ("Collaborators can read fits but not start them.").
+ */
 export function authorize(ctx: LabContext, action: Action, ownerId?: string | null): void {
   const allowed =
     ownerId === undefined ? can(ctx.role, action) : can(ctx.role, action, { ownerId, actorId: ctx.actor.userId });
   if (!allowed) {
     throw ownerId === undefined
-      ? forbidden()
+      ? forbidden(describeRefusal(ctx.role, action))
       : forbidden("only its creator or a lab manager may change or delete this");
   }
 }

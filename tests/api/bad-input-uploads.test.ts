@@ -101,7 +101,7 @@ describe("uploads", () => {
     const res = await upload(multipart({ name: "tile.png", bytes: png }));
     expect(res.status).toBe(400);
     expect((await errorOf(res)).message).toMatch(
-      /^pixelSizeUm: “tile\.png” carries no pixel size in its metadata.*; enter the pixel size in µm\/px$/,
+      /^Pixel size \(µm per pixel\): “tile\.png” carries no pixel size in its metadata.*; enter the pixel size in µm\/px$/,
     );
   });
 
@@ -143,7 +143,7 @@ describe("uploads", () => {
   it("a bad pixel size is a 400 naming the field and the limit", async () => {
     const res = await upload(multipart({ name: "tile.png", bytes: png }, { pixelSizeUm: "-2" }));
     expect(res.status).toBe(400);
-    expect((await errorOf(res)).message).toBe("pixelSizeUm: pixel size must be above 0 µm/px");
+    expect((await errorOf(res)).message).toBe("Pixel size (µm per pixel) must be above 0 µm/px");
   });
 
   it("with storage unreachable the upload is a 503 and leaves no row behind", async () => {

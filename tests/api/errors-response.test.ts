@@ -28,18 +28,18 @@ describe("errorResponse", () => {
   });
 
   it("answers a solver option error 422 naming the field", async () => {
-    const r = errorResponse(new SimulationOptionError("grid.cells", "grid.cells[0] must be a power of two, got 12."));
+    const r = errorResponse(new SimulationOptionError("grid.cells", "Cells per axis must be a power of two, got 12."));
     expect(r.status).toBe(422);
     expect((await body(r)).error).toMatchObject({ code: "unprocessable", details: { field: "grid.cells" } });
   });
 
   it("a wrapped handler that throws a fit error answers 422, not 500", async () => {
     const handler = route(async () => {
-      throw new FitError("bad_data", "data: give at least one measurement.", "data");
+      throw new FitError("bad_data", "Measurements: give at least one measurement.", "data");
     });
     const r = await handler(new Request("http://127.0.0.1:3000/api/v1/x"), { params: Promise.resolve({}) });
     expect(r.status).toBe(422);
-    expect((await body(r)).error.message).toBe("data: give at least one measurement.");
+    expect((await body(r)).error.message).toBe("Measurements: give at least one measurement.");
   });
 
   it("still answers 500 for an error that is a bug", async () => {

@@ -47,7 +47,7 @@ describe("kinetics expressions", () => {
         },
       });
       expect(r.status).toBe(400);
-      expect(r.body.error.message).toBe(`definition.reactions[0]: unknown symbol "${name}" (${SPECIES}).`);
+      expect(r.body.error.message).toBe(`Equation for du/dt: unknown symbol "${name}" (${SPECIES}).`);
     },
   );
 
@@ -57,9 +57,7 @@ describe("kinetics expressions", () => {
       json: { definition: { ...labSchnakenberg("Deep"), reactions: ["a - u + u^2 * v", deep] } },
     });
     expect(r.status).toBe(400);
-    expect(r.body.error.message).toBe(
-      "definition.reactions[1] nests brackets 995 levels deep; the limit is 50 levels.",
-    );
+    expect(r.body.error.message).toBe("Equation for dv/dt nests brackets 995 levels deep; the limit is 50 levels.");
   });
 
   it("a negative diffusivity is refused naming the field", async () => {
@@ -67,13 +65,13 @@ describe("kinetics expressions", () => {
       json: { definition: { ...labSchnakenberg("Negative"), diffusion: [-1, "d"] } },
     });
     expect(neg.status).toBe(400);
-    expect(neg.body.error.message).toBe("definition.diffusion[0] is -1; a diffusivity must be 0 or more.");
+    expect(neg.body.error.message).toBe("Diffusivity of u is -1; a diffusivity must be 0 or more.");
     const expr = await api("POST", KIN, {
       json: { definition: { ...labSchnakenberg("Negative expr"), diffusion: [1, "1 - d"] } },
     });
     expect(expr.status).toBe(400);
     expect(expr.body.error.message).toBe(
-      "definition.diffusion[1] = 1 - d is -19 at the default parameters; a diffusivity must be 0 or more.",
+      "Diffusivity of v = 1 - d is -19 at the default parameters; a diffusivity must be 0 or more.",
     );
   });
 });
@@ -136,10 +134,10 @@ describe("messages say their field once", () => {
       },
     });
     expect(r.status).toBe(400);
-    expect(r.body.error.message).toBe(`data: at most ${MAX_FIT_DATA} measurements`);
+    expect(r.body.error.message).toBe(`Measurements: at most ${MAX_FIT_DATA} measurements`);
   });
 
-  it("a nested field: models.0.kinetics: at most 64 characters", async () => {
+  it("a nested field: The first kinetics: at most 64 characters", async () => {
     const r = await api("POST", "/api/v1/labs/[labId]/fits", {
       json: {
         name: "Long",
@@ -148,15 +146,15 @@ describe("messages say their field once", () => {
       },
     });
     expect(r.status).toBe(400);
-    expect(r.body.error.message).toBe("models.0.kinetics: at most 64 characters");
+    expect(r.body.error.message).toBe("The first kinetics: at most 64 characters");
   });
 
-  it("a run: kinetics: at most 64 characters; endTimeS must be above 0 (once each)", async () => {
+  it("a run: Kinetics: at most 64 characters; Simulated time must be above 0 (once each)", async () => {
     const r = await api("POST", "/api/v1/labs/[labId]/runs", {
       json: { kinetics: "k".repeat(65), grid: { lengthUm: [100], cells: [64] }, endTimeS: -1 },
     });
     expect(r.status).toBe(400);
-    expect(r.body.error.message).toBe("kinetics: at most 64 characters; endTimeS must be above 0");
+    expect(r.body.error.message).toBe("Kinetics: at most 64 characters; Simulated time must be above 0");
   });
 
   it("the fit export's format: said once", async () => {

@@ -129,7 +129,7 @@ describe("lab kinetics", () => {
       "no steady state",
       { reactions: ["1 + u^2", "1 + v^2"] },
       422,
-      "definition: no steady state at the default parameter values — No homogeneous steady state: Newton's method from 53 seeded starting points found no non-negative solution.",
+      "Parameters: no steady state at the default parameter values — No homogeneous steady state: Newton's method from 53 seeded starting points found no non-negative solution.",
     ],
   ])("refuses %s", async (_what, change, status, message) => {
     const res = await api("POST", KIN, { json: { definition: { ...labSchnakenberg(), ...change } } });

@@ -13,23 +13,27 @@ describe("refused before any job exists", () => {
     [
       "cells not a power of two",
       { grid: { lengthUm: [100, 100], cells: [100, 64] } },
-      "grid.cells[0] must be a power of two (fft.js sizes), got 100; use 64 or 128.",
+      "Cells per axis must be a power of two (fft.js sizes), got 100; use 64 or 128.",
     ],
     [
       "a rectangle above 2048 per axis",
       { grid: { lengthUm: [100, 100], cells: [4096, 64] } },
-      "grid.cells[0] must be an integer from 4 to 2048, got 4096.",
+      "Cells per axis must be an integer from 4 to 2048, got 4096.",
     ],
-    ["too many steps", { endTimeS: 2e6 }, "endTimeS / dtS needs 20000000 steps; the limit is 10000000."],
+    [
+      "too many steps",
+      { endTimeS: 2e6 },
+      "Simulated time divided by the step cap needs 20000000 steps; the limit is 10000000.",
+    ],
     [
       "over the CPU budget",
       { grid: { lengthUm: [100, 100], cells: [512, 512] }, endTimeS: 1000 },
-      "grid.cells: 262144 cells × 2 species × 10000 steps = 5242880000 cell-steps; one run may take at most 2621440000 (256² cells × 2 species × 20000 steps, about 103 s on this server). Use fewer cells or a shorter endTimeS.",
+      "Cells per axis: 262144 cells × 2 species × 10000 steps = 5242880000 cell-steps; one run may take at most 2621440000 (256² cells × 2 species × 20000 steps, about 103 s on this server). Use fewer cells or a shorter simulated time.",
     ],
     [
       "a stable steady state",
       { parameters: { d: 5 } },
-      "parameters: the homogeneous steady state is stable at these parameter values — no mode grows, so the noise decays and there is no pattern to read. Choose parameters inside the Turing space (see the Turing-space map of this kinetics).",
+      "Parameter values: the homogeneous steady state is stable at these parameter values — no mode grows, so the noise decays and there is no pattern to read. Choose parameters inside the Turing space (see the Turing-space map of this kinetics).",
     ],
     [
       "a parameter out of range",

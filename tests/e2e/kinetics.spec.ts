@@ -56,7 +56,7 @@ test.describe("modeller", () => {
     await editor.setDiffusion(1, "d");
     await editor.save();
     await expect(editor.error).toHaveText(
-      'definition.reactions[0]: unknown symbol "w" (species: u, v; parameters: a, b, d; constants: pi, e).',
+      'Equation for du/dt: unknown symbol "w" (species: u, v; parameters: a, b, d; constants: pi, e).',
     );
 
     await editor.setReaction(0, "a - u + u^2 * v");
@@ -81,6 +81,9 @@ test.describe("collaborator", () => {
     const list = await lab.open(KineticsListPage);
     await expect(list.catalogue.root).toContainText("Brusselator");
     await expect(list.newKineticsButton).toHaveCount(0);
-    expect((await page.goto(`/labs/${lab.labId}/kinetics/new`))?.status()).toBe(404);
+    expect((await page.goto(`/labs/${lab.labId}/kinetics/new`))?.status()).toBe(403);
+    await expect(page.getByTestId("role-refusal")).toHaveText(
+      "Collaborators can read and analyse kinetics but not define or edit them.",
+    );
   });
 });

@@ -62,7 +62,7 @@ for (const { role, managerNav, canCreate } of ROLES) {
       await expect(specimen.uploads.root.getByTestId("download-link")).toHaveText("placodes-1.tif");
       await expect(specimen.uploadForm).toHaveCount(canCreate ? 1 : 0);
 
-      // The audit trail answers not-found to everyone but the manager.
+      // The audit trail is only the manager's; everyone else is told so (403, not "Not found").
       const audit = lab.on(AuditPage);
       const status = await audit.goto();
       if (managerNav) {
@@ -70,8 +70,8 @@ for (const { role, managerNav, canCreate } of ROLES) {
         await audit.expectHeading("Audit trail");
         await expect(audit.table.root).toContainText("created the lab “Bracken Hill Patterning Lab” with four members");
       } else {
-        expect(status).toBe(404);
-        await expect(audit.notFound).toBeVisible();
+        expect(status).toBe(403);
+        await expect(audit.roleRefusal).toHaveText("Only lab managers can read the audit trail.");
         await expect(audit.table.root).toHaveCount(0);
       }
 

@@ -78,7 +78,7 @@ test.describe("modeller", () => {
 test.describe("bench scientist", () => {
   test.use({ role: "scientist" });
 
-  test("no New run, no Simulate link, and the form answers not-found", async ({ lab, page }) => {
+  test("no New run, no Simulate link, and the form answers 403 saying why", async ({ lab, page }) => {
     const runs = await lab.open(RunsPage);
     await runs.expectHeading("Verification runs");
     await expect(runs.newRunButton).toHaveCount(0);
@@ -86,6 +86,8 @@ test.describe("bench scientist", () => {
     const kinetics = lab.on(KineticsPage);
     await expect(kinetics.classification).toHaveText("Turing");
     await expect(kinetics.simulateLink).toHaveCount(0);
-    expect(await lab.on(RunFormPage).goto()).toBe(404);
+    const form = lab.on(RunFormPage);
+    expect(await form.goto()).toBe(403);
+    await expect(form.roleRefusal).toHaveText("Bench scientists can read verification runs but not start them.");
   });
 });

@@ -5,6 +5,7 @@
  */
 import "server-only";
 import { compileKinetics, KineticsInputError, type CompiledKinetics, type KineticsDefinition } from "@/lib/kinetics";
+import { fieldLabelContextOf, renameFieldInMessage } from "@/lib/contracts/field-words";
 import { toAppError, withAppErrors } from "../core-errors";
 
 /** Runs `fn`, rethrowing kinetics-core errors as AppErrors (400 bad input, 413 too large, 422 cannot analyse). */
@@ -28,14 +29,18 @@ export function compileStoredKinetics(versionId: string, definition: KineticsDef
   return compiled;
 }
 
-/** Compiles a definition; errors name the field under `definition.` (as the request body has it). */
+/**
+ * Compiles a definition; errors keep the field under `definition.` (as the request body has it)
+ * and name it in the editor's words, with the definition's own species ("Equation for dv/dt").
+ */
 export function compileDefinition(definition: KineticsDefinition): CompiledKinetics {
   try {
     return compileKinetics(definition);
   } catch (err) {
-    if (err instanceof KineticsInputError && !err.field.startsWith("definition")) {
-      const field = `definition.${err.field}`;
-      const message = err.message.startsWith(err.field) ? `definition.${err.message}` : `${field}: ${err.message}`;
+    if (err instanceof KineticsInputError) {
+      const field = err.field.startsWith("definition") ? err.field : `definition.${err.field}`;
+      const named = err.message.startsWith(err.field) ? `${field}${err.message.slice(err.field.length)}` : err.message;
+      const message = renameFieldInMessage(field, named, fieldLabelContextOf(definition));
       throw toAppError(new KineticsInputError(field, message, err.code));
     }
     throw toAppError(err) ?? err;

@@ -101,7 +101,8 @@ export async function storeParsed(
   let typed: number | null = null;
   if (parsed.fields.pixelSizeUm !== undefined && parsed.fields.pixelSizeUm.trim() !== "") {
     const p = pixelSizeSchema.safeParse(parsed.fields.pixelSizeUm);
-    if (!p.success) throw new AppError("bad_input", `pixelSizeUm: ${p.error.issues[0].message}`);
+    if (!p.success)
+      throw new AppError("bad_input", `pixelSizeUm: ${p.error.issues[0].message}`, { field: "pixelSizeUm" });
     typed = p.data;
   }
   let pixelSizeUm: number | null = typed;
@@ -116,6 +117,7 @@ export async function storeParsed(
       throw new AppError(
         "bad_input",
         `pixelSizeUm: “${parsed.file.originalName}” carries no pixel size in its metadata${fromFile.pixelSizeNote ? ` (${fromFile.pixelSizeNote})` : ""}; enter the pixel size in µm/px`,
+        { field: "pixelSizeUm" },
       );
     }
     pixelSizeUm = fromFile.pixelSizeUm;

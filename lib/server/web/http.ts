@@ -5,24 +5,28 @@ import { readConfig } from "../config";
 import { toAppError } from "../core-errors";
 import { AppError } from "../errors";
 import { prefixField, startsWithField } from "@/lib/errors/field-message";
+import type { FieldLabelContext } from "@/lib/contracts/field-labels";
+import {
+  describeFieldMessage,
+  fieldLabelContextOf,
+  formatFieldPath,
+  renameFieldInMessage,
+} from "@/lib/contracts/field-words";
 import { crossSiteRefusal } from "./same-origin";
 
 /** The JSON error answer for anything a handler threw: AppErrors and core errors by the one mapper, zod issues as 400, the rest 500. */
 export function errorResponse(err: unknown): Response {
-  const app = toAppError(err);
+  const app = err instanceof ZodError ? zodAppError(err) : toAppError(err);
   if (app) {
     // A rate-limited answer says when to come back (RFC 9110 §10.2.3 Retry-After, in seconds).
     const retry = (app as { retryAfterS?: number }).retryAfterS;
     const headers: Record<string, string> = retry ? { "retry-after": String(retry) } : {};
+    // The message names its field in the form's words; `details.field` keeps the JSON name for the forms.
+    const field = (app.details as { field?: unknown } | undefined)?.field;
+    const message = typeof field === "string" ? renameFieldInMessage(field, app.message) : app.message;
     return Response.json(
-      { error: { code: app.code, message: app.message, ...(app.details ? { details: app.details } : {}) } },
+      { error: { code: app.code, message, ...(app.details ? { details: app.details } : {}) } },
       { status: app.status, headers },
-    );
-  }
-  if (err instanceof ZodError) {
-    return Response.json(
-      { error: { code: "bad_input", message: describeZodError(err), details: z.flattenError(err) } },
-      { status: 400 },
     );
   }
   console.error(err);
@@ -33,16 +37,35 @@ export function errorResponse(err: unknown): Response {
 }
 
 /**
- * "name: Required; tissue: Too long" — field names first, so the message says what is wrong.
- * A message that already begins with its field ("data: at most 200 …", "endTimeS must be …")
- * is kept as it is, so no message repeats its prefix.
+ * A 400 for a body the schema refused: every issue in the form's words, the first issue's field
+ * (`models[1].lengthScaleUm`) and zod's per-field lists in `details`. `body` lends the labels the
+ * names a kinetics definition gives its species ("Equation for dv/dt").
  */
-export function describeZodError(err: ZodError): string {
-  return err.issues.map(describeIssue).join("; ");
+export function zodAppError(err: ZodError, body?: unknown): AppError {
+  const first = err.issues.find((i) => i.path.length > 0);
+  return new AppError("bad_input", describeZodError(err, fieldLabelContextOf(body)), {
+    ...(first ? { field: formatFieldPath(first.path) } : {}),
+    ...z.flattenError(err),
+  });
 }
 
-export function describeIssue(i: { path: readonly PropertyKey[]; message: string }): string {
+/**
+ * "Name: Required; Tissue: Too long" — the field's label first, so the message says what is
+ * wrong where. A message that already begins with its field's JSON name ("endTimeS must be …")
+ * has that name replaced by the label, so no message repeats its field.
+ */
+export function describeZodError(err: ZodError, context: FieldLabelContext = {}): string {
+  return err.issues.map((i) => describeIssue(i, context)).join("; ");
+}
+
+export function describeIssue(
+  i: { path: readonly PropertyKey[]; message: string },
+  context: FieldLabelContext = {},
+): string {
   if (!i.path.length) return i.message;
+  const worded = describeFieldMessage(i.path, i.message, context);
+  if (worded !== i.message) return worded;
+  // A path the forms do not label (query strings, account forms): its JSON name, as before.
   const field = i.path.map(String).join(".");
   if (startsWithField(i.message, field)) return i.message;
   // A nested field whose message names only its own key: "models.0.kinetics" + "kinetics: at most 64 …".
@@ -154,7 +177,7 @@ export async function readJson<S extends ZodType>(
 ): Promise<z.infer<S>> {
   const body = await readJsonValue(request, options);
   const parsed = schema.safeParse(body);
-  if (!parsed.success) throw parsed.error;
+  if (!parsed.success) throw zodAppError(parsed.error, body);
   return parsed.data;
 }
 

@@ -68,7 +68,7 @@ export function parseListQuery<S extends string>(
     Object.fromEntries([...p.entries()].filter(([k]) => ["page", "pageSize", "sort", "dir", "q"].includes(k))),
   );
   if (!parsed.success) {
-    throw new AppError("bad_input", parsed.error.issues.map(describeIssue).join("; "));
+    throw new AppError("bad_input", parsed.error.issues.map((i) => describeIssue(i)).join("; "));
   }
   return parsed.data as ListQuery<S>;
 }

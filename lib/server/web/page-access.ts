@@ -1,6 +1,10 @@
-/** Access for server-rendered pages: sign-in redirect, 404 for labs you are not in. */
+/**
+ * Access for server-rendered pages: sign-in redirect, 404 for labs you are not in, 403 (the
+ * forbidden page, which says in words what the role may not do) for a page of your lab that your
+ * role may not use.
+ */
 import "server-only";
-import { notFound, redirect } from "next/navigation";
+import { forbidden, notFound, redirect } from "next/navigation";
 import type { Action } from "@/lib/access/permissions";
 import { can } from "@/lib/access/permissions";
 import { requireLab, type LabContext } from "../access";
@@ -22,7 +26,7 @@ export async function pageLab(labId: string, action: Action = "lab.read"): Promi
     if (err instanceof AppError && err.code === "not_found") notFound();
     throw err;
   }
-  if (!can(ctx.role, action)) notFound();
+  if (!can(ctx.role, action)) forbidden();
   return ctx;
 }
 

@@ -14,6 +14,8 @@ export class LabPage {
   readonly retryButton: Locator;
   readonly skeleton: Locator;
   readonly notFound: Locator;
+  /** The 403 page's sentence: what the visitor's role may and may not do here. */
+  readonly roleRefusal: Locator;
 
   constructor(
     readonly page: Page,
@@ -28,6 +30,7 @@ export class LabPage {
     this.retryButton = page.getByTestId("error-retry");
     this.skeleton = page.getByTestId("page-skeleton");
     this.notFound = page.getByTestId("not-found");
+    this.roleRefusal = page.getByTestId("role-refusal");
   }
 
   /** The lab path of this page ("" for the dashboard); subclasses name theirs. */
@@ -39,7 +42,7 @@ export class LabPage {
     return `/labs/${this.labId}${sub}`;
   }
 
-  /** Opens the page and returns the HTTP status of the document (404 for a page the role may not open). */
+  /** Opens the page and returns the HTTP status of the document (403 for a page the role may not open). */
   async goto(): Promise<number | undefined> {
     return (await this.page.goto(this.url()))?.status();
   }

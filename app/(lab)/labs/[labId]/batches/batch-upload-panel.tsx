@@ -18,6 +18,7 @@ import { runPool, sendFormWithProgress } from "@/lib/client/send-files";
 import type { BatchDto } from "@/lib/server/batches/batches";
 import type { BatchSummary } from "@/lib/server/batches/summary";
 import { BatchSummaryTable, tableRowOf, type BatchTableRow } from "./batch-summary-table";
+import { optionalTypedNumber } from "@/lib/format/typed-number";
 
 /** Files sent at once: enough to keep the line busy, few enough not to crowd the server's upload gate. */
 const IN_FLIGHT = 3;
@@ -96,7 +97,7 @@ export function BatchUploadPanel({
     try {
       b = await sendJson<BatchDto>("POST", `/api/v1/labs/${labId}/batches`, {
         ...body,
-        pixelSizeUm: pixelSize.trim() === "" ? null : Number(pixelSize.trim().replace(",", ".")),
+        pixelSizeUm: optionalTypedNumber(pixelSize) ?? null,
         pixelSizeOverride: override,
       });
     } catch (err) {

@@ -4,6 +4,7 @@
  * per parameter fixed, free within bounds with a start, or free per condition.
  */
 import type { KineticsInfoDto } from "@/lib/server/kinetics/catalogue";
+import { typedNumberOrText } from "@/lib/format/typed-number";
 
 export type Mode = "fixed" | "free" | "per-condition";
 export interface ParamDraft {
@@ -236,9 +237,8 @@ export function ModelEditor({
   );
 }
 
-const NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
-/** A number when the text is one, otherwise the text (so the server's message names the field). */
-export const num = (s: string): number | string => (NUMBER.test(s.trim()) ? Number(s.trim()) : s.trim());
+/** A number when the text is one ("0,65" too), otherwise the text (so the server's message names the field). */
+export const num = (s: string): number | string => typedNumberOrText(s);
 
 /** The request body of one model. */
 export function modelBody(d: ModelDraft, kinetics: KineticsInfoDto[]) {

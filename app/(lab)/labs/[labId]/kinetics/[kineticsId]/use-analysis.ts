@@ -6,6 +6,7 @@
 import { useEffect, useState } from "react";
 import useSWR from "swr";
 import { ApiError, sendJson } from "@/lib/client/api";
+import { typedNumberOrText } from "@/lib/format/typed-number";
 
 function useDebounced<T>(value: T, delayMs: number): T {
   const [v, setV] = useState(value);
@@ -40,10 +41,9 @@ export function useAnalysis<T>(url: string, body: unknown, delayMs = 300) {
   };
 }
 
-const NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
-/** A number when the text is one, otherwise the text (so the server's message names the field). */
+/** A number when the text is one ("0,65" too), otherwise the text (so the server's message names the field). */
 export function numberOrText(s: string): number | string {
-  return NUMBER.test(s.trim()) ? Number(s.trim()) : s.trim();
+  return typedNumberOrText(s);
 }
 /** A number, or undefined when blank (optional fields). */
 export function optionalNumber(s: string): number | string | undefined {

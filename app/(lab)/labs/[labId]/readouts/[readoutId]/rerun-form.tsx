@@ -9,6 +9,7 @@ import { ApiError, sendJson } from "@/lib/client/api";
 import type { RoiInput } from "@/lib/contracts/readout";
 import type { ReadoutDetailDto, ReadoutDto } from "@/lib/server/readouts/readouts";
 import { initialStackChoice, StackFields } from "./stack-fields";
+import { optionalTypedNumber } from "@/lib/format/typed-number";
 
 const selectClass = "rounded-md border border-rule bg-card px-2 py-1.5 text-sm";
 
@@ -78,7 +79,7 @@ export function RerunForm({ labId, readout }: { labId: string; readout: ReadoutD
     e.preventDefault();
     setBusy(true);
     setError(null);
-    const px = pixelSize.trim() ? Number(pixelSize) : undefined;
+    const px = optionalTypedNumber(pixelSize);
     const body = img
       ? {
           roi,

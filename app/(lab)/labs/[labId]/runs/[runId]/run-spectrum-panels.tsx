@@ -31,14 +31,15 @@ export function RunSpectrumPanels({
             lowCutPerUm={spectrum.radialSpectrum.lowCutPerUm / lf}
             wavelengthUm={w.wavelengthUm !== null ? w.wavelengthUm * lf : null}
             uncertaintyUm={w.uncertaintyUm !== null ? w.uncertaintyUm * lf : null}
+            lengthUnit={unit}
           />
         ) : (
           <p className="text-sm text-ink-soft">Loading the spectrum…</p>
         )}
         {!plan.lengthFactor && (
           <p className="mt-1 text-xs text-ink-soft" data-testid="model-units-note">
-            This kinetics is non-dimensional and the run has no length scale ℓ: read “µm” on this plot as “model length”
-            (frequencies in cycles per model length). Give ℓ in the run form for µm.
+            This kinetics is non-dimensional and the run has no length scale ℓ: lengths are in model length (frequencies
+            in cycles per model length). Give ℓ in the run form for µm.
           </p>
         )}
       </Panel>

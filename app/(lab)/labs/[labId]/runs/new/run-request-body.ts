@@ -1,6 +1,7 @@
 /** Builds the body of POST /api/v1/labs/:labId/runs from the run form's state; the server checks it. */
 import type { KineticsInfoDto } from "@/lib/server/kinetics/catalogue";
 import type { RunDraft, RunPrefill } from "./use-run-draft";
+import { optionalTypedNumber, typedNumberOrText } from "@/lib/format/typed-number";
 
 /** The fields of the form the body is built from (the draft's state, without its setters). */
 type RunFields = Pick<
@@ -26,19 +27,21 @@ type RunFields = Pick<
   | "timeScale"
 >;
 
-const num = (s: string) => (s.trim() === "" ? undefined : Number(s));
+// Typed numbers ("0,65" too); text that is no number goes to the server, which names the field.
+const num = optionalTypedNumber;
+const req = typedNumberOrText;
 
 export function buildRunBody(d: RunFields, info: KineticsInfoDto, prefill: RunPrefill) {
   return {
     kinetics: info.id,
     ...(info.version ? { version: info.version } : {}),
-    parameters: Object.fromEntries(Object.entries(d.values).map(([k, v]) => [k, Number(v)])),
+    parameters: Object.fromEntries(Object.entries(d.values).map(([k, v]) => [k, req(v)])),
     grid: {
-      lengthUm: d.dims === "2" ? [Number(d.lx), Number(d.ly)] : [Number(d.lx)],
-      cells: d.dims === "2" ? [Number(d.cells), Number(d.cells)] : [Number(d.cells)],
+      lengthUm: d.dims === "2" ? [req(d.lx), req(d.ly)] : [req(d.lx)],
+      cells: d.dims === "2" ? [req(d.cells), req(d.cells)] : [req(d.cells)],
       boundary: d.boundary,
     },
-    endTimeS: Number(d.endTime),
+    endTimeS: req(d.endTime),
     dtS: num(d.dt),
     stopWhenStationary: d.stationary,
     seed: num(d.seed),
@@ -49,7 +52,7 @@ export function buildRunBody(d: RunFields, info: KineticsInfoDto, prefill: RunPr
       ? {
           gradient: {
             parameter: d.gradParam,
-            profile: { kind: "linear", from: Number(d.gradFrom), to: Number(d.gradTo) },
+            profile: { kind: "linear", from: req(d.gradFrom), to: req(d.gradTo) },
           },
         }
       : {}),

@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { notFound } from "next/navigation";
+import { forbidden, notFound } from "next/navigation";
 import { PageHeader } from "@/components/ui/panel";
 import { loadKineticsEditPage } from "@/lib/server/kinetics/pages";
 import { orNotFound, pageLab } from "@/lib/server/web/page-access";
@@ -14,7 +14,7 @@ export default async function EditKineticsPage({ params }: { params: Promise<{ l
   const { labId, kineticsId } = await params;
   const ctx = await pageLab(labId, "kinetics.edit");
   const { kinetics, latest } = await orNotFound(loadKineticsEditPage(ctx, kineticsId));
-  if (!kinetics.canEdit) notFound();
+  if (!kinetics.canEdit) forbidden();
   return (
     <>
       <PageHeader
