@@ -175,6 +175,7 @@ export function ModelEditor({
                     value={d.mode}
                     onChange={(e) => set(p.name, { mode: e.target.value as Mode })}
                     data-testid={`mode-${p.name}`}
+                    aria-label={`mode of ${p.name}`}
                   >
                     <option value="fixed">fixed</option>
                     <option value="free">free (shared)</option>
@@ -188,6 +189,7 @@ export function ModelEditor({
                       value={d.value}
                       onChange={(e) => set(p.name, { value: e.target.value })}
                       data-testid={`value-${p.name}`}
+                      aria-label={`value of ${p.name}`}
                     />
                   ) : (
                     <input
@@ -195,6 +197,7 @@ export function ModelEditor({
                       value={d.start}
                       onChange={(e) => set(p.name, { start: e.target.value })}
                       data-testid={`start-${p.name}`}
+                      aria-label={`start of ${p.name}`}
                     />
                   )}
                 </td>
@@ -205,6 +208,7 @@ export function ModelEditor({
                       value={d.lower}
                       onChange={(e) => set(p.name, { lower: e.target.value })}
                       data-testid={`lower-${p.name}`}
+                      aria-label={`lower bound of ${p.name}`}
                     />
                   )}
                 </td>
@@ -215,6 +219,7 @@ export function ModelEditor({
                       value={d.upper}
                       onChange={(e) => set(p.name, { upper: e.target.value })}
                       data-testid={`upper-${p.name}`}
+                      aria-label={`upper bound of ${p.name}`}
                     />
                   )}
                 </td>
