@@ -2,8 +2,8 @@
 /**
  * The one way a page follows the lab's jobs while they run: polls `GET /api/v1/labs/<lab>/jobs`
  * while a job of the given kinds is queued or running, every FIRST_POLL_MS at first and, while
- * nothing changes, less and less often (×1.5 up to MAX_POLL_MS); it stops when none is, and
- * starts again when the tab comes back into view. A change of a job's status or progress bumps
+ * nothing changes, less and less often (×1.5 up to MAX_POLL_MS); while none is, only every
+ * MAX_POLL_MS (a job started in another tab must still show), and not at all in a hidden tab. A change of a job's status or progress bumps
  * `version` (give it to `DataTable`'s `refreshKey`, so lists show the new status without a
  * reload); a job that started or ended also refreshes the server component (`router.refresh()`).
  */
@@ -52,11 +52,13 @@ export function useLiveJobs(labId: string, kinds: readonly string[]): { version:
         if (changed) setVersion((v) => v + 1);
         if (statusChanged) router.refresh();
         delayMs = changed ? FIRST_POLL_MS : Math.min(MAX_POLL_MS, delayMs * 1.5);
-        polling = running > 0;
+        // Nothing running: keep looking, but only every MAX_POLL_MS, for a job started in another tab or by a colleague.
+        if (running === 0) delayMs = MAX_POLL_MS;
       } catch {
         // A failed poll (server restarting, offline) tries again later rather than giving up.
         delayMs = Math.min(MAX_POLL_MS, delayMs * 2);
       }
+      polling = document.visibilityState === "visible";
       if (polling && !stopped) schedule();
     };
     const resume = () => {
