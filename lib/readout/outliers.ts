@@ -25,31 +25,10 @@ export function findSaturated(
   data: Float32Array,
   width: number,
   height: number,
-  extremes?: { min: number; max: number; atMin: number; atMax: number },
+  extremes: { min: number; max: number; atMin: number; atMax: number },
 ): Uint8Array | null {
-  let top = extremes ? extremes.max : -Infinity,
-    bottom = extremes ? extremes.min : Infinity,
-    atTop = extremes ? extremes.atMax : 0,
-    atBottom = extremes ? extremes.atMin : 0;
-  // The extremes may come from the pass that copied the region (extractRoi's stats).
-  if (!extremes)
-    for (let i = 0; i < data.length; i++) {
-      const v = data[i];
-      if (v >= top) {
-        if (v > top) {
-          top = v;
-          atTop = 0;
-        }
-        atTop++;
-      }
-      if (v <= bottom) {
-        if (v < bottom) {
-          bottom = v;
-          atBottom = 0;
-        }
-        atBottom++;
-      }
-    }
+  // The extremes and their counts come from the pass that copied the region (extractRoi's stats).
+  const { max: top, min: bottom, atMax: atTop, atMin: atBottom } = extremes;
   // A 2 × 2 block needs four pixels at one extreme: without them there is nothing to scan for.
   if (!(top > bottom) || (atTop < 4 && atBottom < 4)) return null;
   let mask: Uint8Array | null = null;

@@ -54,9 +54,11 @@ export function prepareRegion(image: GreyImage, settings: ResolvedReadoutOptions
   if (settings.invert) for (let i = 0; i < data.length; i++) data[i] = -data[i];
   // The plane fit's sums from the copying pass, while the pixels are still the copied ones (negated if inverted).
   const sign = settings.invert ? -1 : 1;
-  let planeSums = roi.stats
-    ? { sumZ: sign * roi.stats.sumZ, sumXZ: sign * roi.stats.sumXZ, sumYZ: sign * roi.stats.sumYZ }
-    : undefined;
+  let planeSums: { sumZ: number; sumXZ: number; sumYZ: number } | undefined = {
+    sumZ: sign * roi.stats.sumZ,
+    sumXZ: sign * roi.stats.sumXZ,
+    sumYZ: sign * roi.stats.sumYZ,
+  };
   let binFactor = 1;
   while (Math.max(width, height) / binFactor > settings.maxAnalysisSidePx) binFactor++;
   if (binFactor > 1) {
@@ -121,9 +123,9 @@ function findSaturatedIn(
   width: number,
   height: number,
   included: Uint8Array | null,
-  stats: RegionStats | null,
+  stats: RegionStats,
 ): { mask: Uint8Array; count: number } | null {
-  const mask = findSaturated(data, width, height, stats ?? undefined);
+  const mask = findSaturated(data, width, height, stats);
   if (!mask) return null;
   let count = 0;
   for (let i = 0; i < mask.length; i++) {

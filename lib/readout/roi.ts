@@ -29,13 +29,14 @@ export interface RoiPixels {
   /** 1 = analysed, 0 = outside the polygon or excluded by the mask; null = all analysed. */
   included: Uint8Array | null;
   includedCount: number;
-  /** Sums taken while a rectangle was copied (null for a polygon or an exclusion mask). */
-  stats: RegionStats | null;
+  /** Sums taken while the crop was copied, over every pixel of it (the included ones or not). */
+  stats: RegionStats;
 }
 
 /**
- * What one pass over a copied rectangle can also give, so later steps need not read it again:
- * the extremes and how many pixels sit at each (the saturation scan), and the plane fit's sums.
+ * What one pass over a copied crop can also give, so later steps need not read it again: the
+ * extremes and how many pixels sit at each (the saturation scan), and the plane fit's sums (used
+ * only while every pixel is analysed).
  */
 export interface RegionStats {
   min: number;
@@ -135,12 +136,9 @@ export function extractRoi(image: GreyImage, roi?: Roi, excludeMask?: Uint8Array
   const width = x1 - x0;
   const height = y1 - y0;
   if (!(width > 0 && height > 0)) throw new ReadoutError("zero_area_roi", MESSAGES.zeroAreaRoi, "roi");
-  if (roi?.kind !== "polygon" && !excludeMask) {
-    const { data, stats } = copyWithStats(image, x0, y0, width, height);
+  const { data, stats } = copyWithStats(image, x0, y0, width, height);
+  if (roi?.kind !== "polygon" && !excludeMask)
     return { x0, y0, width, height, data, included: null, includedCount: width * height, stats };
-  }
-  const data = new Float32Array(width * height);
-  for (let y = 0; y < height; y++) data.set(image.data.subarray((y + y0) * W + x0, (y + y0) * W + x1), y * width);
   const included = new Uint8Array(width * height);
   let includedCount = 0;
   for (let y = 0; y < height; y++) {
@@ -154,5 +152,5 @@ export function extractRoi(image: GreyImage, roi?: Roi, excludeMask?: Uint8Array
     }
   }
   if (includedCount === 0) throw new ReadoutError("zero_area_roi", MESSAGES.zeroAreaRoi, "roi");
-  return { x0, y0, width, height, data, included, includedCount, stats: null };
+  return { x0, y0, width, height, data, included, includedCount, stats };
 }
