@@ -123,6 +123,8 @@ const ENTRIES: [string, Label][] = [
   ["options.valleyPoints", "Points along each profile"],
   ["uncertainty", "Uncertainty of each condition"],
   ["replicates", "Replicates"],
+  // A fit or run changed from an earlier one (its page links back).
+  ["changedFrom", "Changed from"],
   // Verification run.
   ["grid", "Simulated tissue"],
   ["grid.lengthUm", "Tissue size"],
@@ -134,6 +136,8 @@ const ENTRIES: [string, Label][] = [
   ["dtS", "Step cap (largest time step)"],
   ["scheme", "Time-stepping scheme"],
   ["stopWhenStationary", "Stop when the pattern is stationary"],
+  ["timeStepping", "Time steps (adaptive or fixed)"],
+  ["tolerance", "Error tolerance of adaptive steps"],
   ["startFrom", "Start from"],
   ["startFrom.runId", "Start from (an earlier run)"],
   ["noiseAmplitude", "Noise amplitude"],

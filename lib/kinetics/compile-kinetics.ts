@@ -35,7 +35,7 @@ export function compileKinetics(definition: unknown): CompiledKinetics {
   if (def.reactions.length !== n) {
     throw new KineticsInputError(
       "reactions",
-      `reactions has ${def.reactions.length} entries but there are ${n} species; give one reaction term per species.`,
+      `reactions: ${def.reactions.length} given but there are ${n} species; give one reaction term per species.`,
     );
   }
   const parameters: ParameterSpec[] = def.parameters.map((p, i) => {
@@ -178,7 +178,7 @@ function diffusionMatrix(def: KineticsDefinition, n: number): string[][] {
     if (d.length !== n)
       throw new KineticsInputError(
         "diffusion",
-        `diffusion has ${d.length} diagonal entries but there are ${n} species.`,
+        `diffusion: ${d.length} diagonal entries given but there are ${n} species.`,
       );
     return Array.from({ length: n }, (_, i) => Array.from({ length: n }, (_, j) => (i === j ? String(d[i]) : "0")));
   }

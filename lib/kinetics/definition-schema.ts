@@ -39,7 +39,10 @@ export const KineticsDefinitionSchema = z.object({
   units: z.enum(["dimensional", "non-dimensional"]).optional(),
   /** Species are concentrations (only non-negative steady states count); @default true */
   nonNegative: z.boolean().optional(),
-  species: z.array(z.string().min(1).max(32)).min(MIN_SPECIES).max(MAX_SPECIES),
+  species: z
+    .array(z.string().min(1).max(32))
+    .min(MIN_SPECIES, `give at least ${MIN_SPECIES} species`)
+    .max(MAX_SPECIES, `give at most ${MAX_SPECIES} species`),
   parameters: z.array(ParameterDefinitionSchema).max(MAX_PARAMETERS),
   /** Reaction term of each species, mathjs syntax, in the order of `species`. */
   reactions: z.array(expression).min(MIN_SPECIES).max(MAX_SPECIES),

@@ -132,7 +132,7 @@ describe("display name and password events", () => {
     expect(e?.summary).toBe(`${p.email} changed their display name from “${before}” to “Ira Fenwick”`);
     const empty = await call(R("PATCH /api/v1/me"), "PATCH", "/api/v1/me", { token: p.token, json: { name: "  " } });
     expect(empty.status).toBe(400);
-    expect((await errorOf(empty)).message).toBe("name: enter the name others should see");
+    expect((await errorOf(empty)).message).toBe("Name: enter the name others should see");
   });
 
   it("a password change is an account event the lab's managers see too", async () => {

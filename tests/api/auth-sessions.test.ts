@@ -94,7 +94,7 @@ describe("sessions", () => {
       json: { currentPassword: "long-enough-pw", newPassword: "short" },
     });
     expect(short.status).toBe(400);
-    expect((await short.json()).error.message).toBe("newPassword: at least 10 characters");
+    expect((await short.json()).error.message).toBe("New password: at least 10 characters");
     const ok = await call(route, "POST", "/api/v1/me/password", {
       token: w.outsider.token,
       json: { currentPassword: "long-enough-pw", newPassword: "another-long-password" },

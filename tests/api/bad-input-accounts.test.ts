@@ -52,9 +52,9 @@ describe("accounts", () => {
     });
     expect(res.status).toBe(400);
     const e = await errorOf(res);
-    expect(e.message).toContain("email: enter a valid e-mail address");
-    expect(e.message).toContain("password: at least 10 characters");
-    expect(e.message).toContain("labName: at least 2 characters");
+    expect(e.message).toContain("E-mail: enter a valid e-mail address");
+    expect(e.message).toContain("Password: at least 10 characters");
+    expect(e.message).toContain("Lab name: at least 2 characters");
   });
 
   it("malformed JSON is a 400 that says so", async () => {

@@ -140,7 +140,7 @@ describe("batches", () => {
       json: { target: "specimen-per-file", condition: "control" },
     });
     expect(missing.status).toBe(400);
-    expect(missing.body.error.message).toContain("studyId");
+    expect(missing.body.error.message).toContain("Study: choose the study");
     const study = await newStudy("Owner study");
     const mine = await lab.api("POST", "/api/v1/labs/[labId]/batches", {
       json: { target: "one-specimen", studyId: study.id, condition: "treated", specimenLabel: "E9", pixelSizeUm: 1 },

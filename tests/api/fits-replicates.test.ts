@@ -137,7 +137,7 @@ describe("a fit counts specimens, not images", () => {
     const bad = await lab.api("POST", FITS, { json: body(ids, { replicates: "embryos" }) });
     expect(bad.status).toBe(400);
     expect((bad.body as { error: { message: string } }).error.message).toBe(
-      'replicates must be "specimens" or "images"',
+      'Replicates must be "specimens" or "images"',
     );
   });
 });

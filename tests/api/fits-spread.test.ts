@@ -74,7 +74,7 @@ describe("fit uncertainty with the spread between specimens", () => {
     const bad = await start(body("guess"));
     expect(bad.status).toBe(400);
     expect(((await bad.json()) as { error: { message: string } }).error.message).toBe(
-      'uncertainty must be "per-readout" or "with-specimen-spread"',
+      'Uncertainty of each condition must be "per-readout" or "with-specimen-spread"',
     );
   });
 

@@ -15,7 +15,7 @@ describe("analyses", () => {
       "dispersion",
       { kinetics: "schnakenberg", parameters: { a: "NaN" } },
       400,
-      'parameters.a: each parameter value must be a finite number (text such as "NaN" is not a number)',
+      'Parameter a: each parameter value must be a finite number (text such as "NaN" is not a number)',
     ],
     [
       "a parameter out of range",
@@ -43,14 +43,14 @@ describe("analyses", () => {
       "dispersion",
       { kinetics: "schnakenberg", domain: { kind: "interval", length: -3 } },
       400,
-      "domain.length must be above 0",
+      "Domain length must be above 0",
     ],
     [
       "a map too large",
       "turing-map",
       { kinetics: "schnakenberg", x: { name: "a", min: 0, max: 1, n: 201 }, y: { name: "b", min: 0, max: 1, n: 200 } },
       413,
-      "x.n × y.n = 40200 cells; an interactive map has at most 40000 cells (e.g. 200 × 200).",
+      "The map has 201 × 200 = 40200 cells; an interactive map has at most 40000 (e.g. 200 × 200).",
     ],
     [
       "too many wavenumbers",
@@ -62,7 +62,7 @@ describe("analyses", () => {
         wavenumbers: 500,
       },
       413,
-      "wavenumbers: 500 asked; an interactive map has at most 200 per cell.",
+      "Wavenumbers per cell: 500 asked; an interactive map has at most 200 per cell.",
     ],
     [
       "one parameter on both axes",
@@ -94,14 +94,14 @@ describe("analyses", () => {
         samples: 500,
       },
       413,
-      "samples: 500 positions asked; the limit is 201.",
+      "Positions along the tissue: 500 positions asked; the limit is 201.",
     ],
     [
       "a bad table row",
       "gradient",
       { kinetics: "schnakenberg", parameter: "d", profile: { kind: "table", text: "0,2\n5;x\n" }, length: 10 },
       400,
-      'profile.text line 2: expected two numbers "position,value" (got “5;x”)',
+      'Position, value table line 2: expected two numbers "position,value" (got “5;x”)',
     ],
   ])("refuses %s", async (_what, name, body, status, message) => {
     const r = await analysis(name, body);

@@ -55,7 +55,7 @@ describe("the tissue region of a readout", () => {
     );
     expect(bad.status).toBe(400);
     expect(((await bad.json()) as { error: { message: string } }).error.message).toContain(
-      'tissueMask must be "auto" or "off"',
+      'Tissue region must be "auto" or "off"',
     );
   });
 });

@@ -151,6 +151,8 @@ describe("a run started from a fit", () => {
         fit: { fitId: fit.id, condition: "treated" },
       },
     });
-    expect(missing.body.error.message).toBe("fit.condition: the fit has no condition “treated” (it has “control”).");
+    expect(missing.body.error.message).toBe(
+      "Condition of the fit: the fit has no condition “treated” (it has “control”).",
+    );
   }, 60_000);
 });

@@ -121,13 +121,13 @@ describe("a chosen initial field: the final pattern of an earlier run", () => {
       "an unknown run",
       () => "00000000-0000-4000-8000-000000000000",
       {},
-      "startFrom.runId: there is no run with this id in this lab.",
+      "Start from (an earlier run): there is no run with this id in this lab.",
     ],
     [
       "another grid",
       () => firstId,
       { grid: { lengthUm: [60], cells: [128] } },
-      /^startFrom\.runId: the run “.*” has 64 cells; this run asks for 128\. A chosen initial field needs the same cells: choose the same grid\.$/,
+      /^Start from \(an earlier run\): the run “.*” has 64 cells; this run asks for 128\. A chosen initial field needs the same cells: choose the same grid\.$/,
     ],
   ])(
     "refuses %s before any job exists",

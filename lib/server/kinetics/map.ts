@@ -46,7 +46,7 @@ export async function analyseTuringMap(ctx: LabContext, req: TuringMapRequest): 
   if (cells > MAX_INTERACTIVE_MAP_CELLS) {
     throw new AppError(
       "too_large",
-      `x.n × y.n = ${cells} cells; an interactive map has at most ${MAX_INTERACTIVE_MAP_CELLS} cells (e.g. 200 × 200).`,
+      `The map has ${req.x.n} × ${req.y.n} = ${cells} cells; an interactive map has at most ${MAX_INTERACTIVE_MAP_CELLS} (e.g. 200 × 200).`,
       { field: "x.n" },
     );
   }

@@ -35,7 +35,7 @@ describe("compileKinetics errors", () => {
     [
       { reactions: ["a - u", "u - v", "v"] },
       "reactions",
-      "reactions has 3 entries but there are 2 species; give one reaction term per species.",
+      "reactions: 3 given but there are 2 species; give one reaction term per species.",
     ],
     [{ reactions: ["a +* u", "u - v"] }, "reactions[0]", "reactions[0] does not parse: Value expected (char 4)."],
     [{ reactions: ["a - u", ""] }, "reactions[1]", "reactions[1] is empty."],
@@ -75,7 +75,7 @@ describe("compileKinetics errors", () => {
       "diffusion[1]",
       "diffusion[1] refers to species v; diffusivities may depend on parameters only.",
     ],
-    [{ diffusion: [1, 2, 3] }, "diffusion", "diffusion has 3 diagonal entries but there are 2 species."],
+    [{ diffusion: [1, 2, 3] }, "diffusion", "diffusion: 3 diagonal entries given but there are 2 species."],
     [{ diffusion: [[1, 0], [0]] }, "diffusion", "diffusion must be a list of 2 diagonal entries or a 2×2 matrix."],
     [
       { parameters: [{ name: "a", default: 20, min: 0, max: 10 }] },
@@ -85,7 +85,7 @@ describe("compileKinetics errors", () => {
     [
       { species: ["u", "v", "w", "x", "y", "z", "s"] },
       "definition.species",
-      "definition.species: Too big: expected array to have <=6 items.",
+      "definition.species: give at most 6 species.",
     ],
   ])("%j → %s", (patch, field, message) => {
     expect(failure(patch)).toEqual({ field, message });
