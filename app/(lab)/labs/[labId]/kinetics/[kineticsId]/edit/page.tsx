@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { forbidden, notFound } from "next/navigation";
+import { forbidden } from "next/navigation";
 import { PageHeader } from "@/components/ui/panel";
 import { loadKineticsEditPage } from "@/lib/server/kinetics/pages";
 import { orNotFound, pageLab } from "@/lib/server/web/page-access";
