@@ -1,6 +1,7 @@
 import sharp, { type Metadata } from "sharp";
 import type { GreyImage } from "./grey-image";
 import { ImagingError } from "./errors";
+import { sharpInput, type ImageInput } from "./image-input";
 import { readPixelSize, type PixelSizeSource } from "./pixel-size";
 import { readPlainTiff16 } from "./read-plain-tiff16";
 import { isFloatDepth, isSixteen, readPagePixels, type PixelRegion } from "./read-page-pixels";
@@ -62,7 +63,7 @@ export interface DecodedImage {
   info: DecodedInfo;
 }
 
-async function readMetadata(input: Buffer): Promise<Metadata> {
+async function readMetadata(input: Buffer | string): Promise<Metadata> {
   try {
     return await sharp(input, { limitInputPixels: false }).metadata();
   } catch (e) {
@@ -92,10 +93,11 @@ function clampRegion(region: PixelRegion | null | undefined, width: number, heig
  * Decodes PNG, JPEG or TIFF (8/16-bit, 32-bit float; grey or multi-channel; multi-page, OME-TIFF
  * and ImageJ stacks) into one Float32 channel, upright (EXIF orientation applied). The size is
  * checked from the header first, so an oversized file is refused without decoding; a region and
- * `maxSidePx` read a large image without holding it at full resolution.
+ * `maxSidePx` read a large image without holding it at full resolution; a large file is given as
+ * an ImageFile (image-input.ts), so its bytes are never held either.
  * @throws ImagingError: too_large, corrupt, unsupported, bad_option
  */
-export async function decodeImage(bytes: Uint8Array, options: DecodeOptions = {}): Promise<DecodedImage> {
+export async function decodeImage(source: ImageInput, options: DecodeOptions = {}): Promise<DecodedImage> {
   const maxPixels = options.maxPixels ?? MAX_DECODE_PIXELS;
   const requested = options.channel ?? "luminance";
   if (requested !== "luminance" && !(Number.isInteger(requested) && requested >= 0)) {
@@ -105,9 +107,9 @@ export async function decodeImage(bytes: Uint8Array, options: DecodeOptions = {}
       "channel",
     );
   }
-  const fast = readWholePlainTiff16(bytes, options, requested, maxPixels);
+  const fast = readWholePlainTiff16(source, options, requested, maxPixels);
   if (fast) return fast;
-  const input = Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
+  const input = sharpInput(source);
   const meta = await readMetadata(input);
   const format = meta.format;
   if (format !== "png" && format !== "jpeg" && format !== "tiff") {
@@ -123,7 +125,7 @@ export async function decodeImage(bytes: Uint8Array, options: DecodeOptions = {}
     );
   }
   const samples = meta.channels ?? 1;
-  const tiff = format === "tiff" ? readTiffPages(bytes) : null;
+  const tiff = format === "tiff" ? readTiffPages(source) : null;
   const stack = describeStack(tiff, format === "tiff" ? (meta.pages ?? 1) : 1, samples);
   const choice = {
     channel: requested,
@@ -197,7 +199,7 @@ export async function decodeImage(bytes: Uint8Array, options: DecodeOptions = {}
     notes.push(
       `The image was read reduced ${factor}×${factor} (each pixel the mean of ${factor}×${factor} source pixels, the readout's own binning) to fit the ${side} px analysis limit without holding it at full resolution.`,
     );
-  const px = readPixelSize(bytes, format, meta.density);
+  const px = readPixelSize(source, format, meta.density);
   // Orientations 5–8 turn the image a quarter: the stored Y pixel size becomes the upright X size.
   const turned = orientation >= 5 && orientation <= 8;
   if (turned && px.pixelSizeSource === "ome-xml" && stack.pixelSizeYUm) px.pixelSizeUm = stack.pixelSizeYUm;
@@ -232,14 +234,14 @@ export async function decodeImage(bytes: Uint8Array, options: DecodeOptions = {}
  * general path gives for it. Anything else returns null.
  */
 function readWholePlainTiff16(
-  bytes: Uint8Array,
+  source: ImageInput,
   options: DecodeOptions,
   channel: number | "luminance",
   maxPixels: number,
 ): DecodedImage | null {
   if (options.region || (options.plane ?? 0) !== 0 || (options.timePoint ?? 0) !== 0) return null;
   if ((options.projection ?? "none") !== "none") return null;
-  const plain = readPlainTiff16(bytes, channel, Math.min(maxPixels, MAX_FULL_RESOLUTION_PIXELS));
+  const plain = readPlainTiff16(source, channel, Math.min(maxPixels, MAX_FULL_RESOLUTION_PIXELS));
   if (!plain) return null;
   const { width, height } = plain.info;
   if (options.maxSidePx != null && Math.max(width, height) > options.maxSidePx) return null;
@@ -247,7 +249,7 @@ function readWholePlainTiff16(
     image: plain.image,
     info: {
       ...plain.info,
-      stack: describeStack(readTiffPages(bytes), 1, 1),
+      stack: describeStack(readTiffPages(source), 1, 1),
       planeUsed: 0,
       timePointUsed: 0,
       projection: "none",
