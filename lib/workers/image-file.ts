@@ -33,12 +33,12 @@ export function openImageFile(file: string): ImageFile & { close(): void } {
   };
 }
 
-/** Runs `use` on the file's bytes (small file) or on the file read by ranges (large), closing it after. */
-export async function withImageInput<T>(file: string, use: (input: ImageInput) => Promise<T>): Promise<T> {
+/** Runs `read` on the file's bytes (small file) or on the file read by ranges (large), closing it after. */
+export async function withImageInput<T>(file: string, read: (input: ImageInput) => Promise<T>): Promise<T> {
   const opened = openImageFile(file);
   try {
-    if (opened.size <= READ_WHOLE_MAX_BYTES) return await use(readFileSync(file));
-    return await use(opened);
+    if (opened.size <= READ_WHOLE_MAX_BYTES) return await read(readFileSync(file));
+    return await read(opened);
   } finally {
     opened.close();
   }

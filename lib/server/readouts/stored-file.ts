@@ -6,41 +6,14 @@
  */
 import "server-only";
 import { createHash } from "node:crypto";
-import { createWriteStream, statfsSync } from "node:fs";
+import { createWriteStream } from "node:fs";
 import path from "node:path";
 import { Transform } from "node:stream";
 import { pipeline } from "node:stream/promises";
 import type { ObjectStore } from "@/storage/object-store";
 import { AppError } from "../errors";
 import { JobCancelledError } from "../jobs/types";
-
-/** Free space kept on the temporary disk besides the file (design choice: the child's derived products and the system). */
-export const TEMP_SPARE_BYTES = 256 * 1024 * 1024;
-
-const gib = (bytes: number) => `${(bytes / 2 ** 30).toFixed(bytes < 2 ** 30 ? 2 : 1)} GiB`;
-
-/** Free bytes for an unprivileged process on the disk of `dir`, or null when the system cannot tell. */
-export function freeBytesAt(dir: string): number | null {
-  try {
-    const s = statfsSync(dir);
-    return Number(s.bavail) * Number(s.bsize);
-  } catch {
-    return null;
-  }
-}
-
-/**
- * Refuses, in the user's words, a file that does not fit on the disk that must hold it for a while.
- * @param what e.g. "reading this upload" or "this upload"
- */
-export function checkRoomFor(sizeBytes: number, dir: string, what: string, then: string): void {
-  const free = freeBytesAt(dir);
-  if (free === null || sizeBytes + TEMP_SPARE_BYTES <= free) return;
-  throw new AppError(
-    "too_large",
-    `${what} needs ${gib(sizeBytes + TEMP_SPARE_BYTES)} of free disk space on the server (the file is ${gib(sizeBytes)}, plus ${gib(TEMP_SPARE_BYTES)} to work in), but only ${gib(free)} is free now; ${then}`,
-  );
-}
+import { checkRoomFor, gib } from "../uploads/disk-space";
 
 /**
  * Streams the object to `<dir>/input`, checking its SHA-256 against the one recorded at upload.
@@ -57,7 +30,7 @@ export async function fetchStoredFile(
   checkRoomFor(
     expected.sizeBytes,
     dir,
-    "Reading this upload",
+    "reading this upload",
     "ask the lab's server administrator to free disk space, then start the readout again",
   );
   const file = path.join(dir, "input");
