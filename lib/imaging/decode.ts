@@ -3,7 +3,8 @@ import type { GreyImage } from "./grey-image";
 import { ImagingError } from "./errors";
 import { sharpInput, type ImageInput } from "./image-input";
 import { readPixelSize, type PixelSizeSource } from "./pixel-size";
-import { readPlainTiff16 } from "./read-plain-tiff16";
+import { readPlainTiff16, readPlainTiff16Layout } from "./read-plain-tiff16";
+import { readPlainTiff16Region } from "./read-plain-tiff16-region";
 import { isFloatDepth, isSixteen, readPagePixels, type PixelRegion } from "./read-page-pixels";
 import { readTiffPages } from "./read-tiff-pages";
 import { checkStackChoice, describeStack, pageOf, type StackLayout } from "./stack-layout";
@@ -163,6 +164,11 @@ export async function decodeImage(source: ImageInput, options: DecodeOptions = {
       "too_large",
       `The region to read is ${region.width}×${region.height} pixels, above the ${MAX_FULL_RESOLUTION_PIXELS} pixels held at full resolution; read a smaller region or a reduced image.`,
     );
+  // A plain 16-bit grey TIFF (one page, no compression, upright) is read from its strips directly.
+  const plain =
+    format === "tiff" && stack.pageCount === 1 && orientation === 1 && (channel === "luminance" || channel === 0)
+      ? readPlainTiff16Layout(source)
+      : null;
   let data: Float32Array | null = null;
   for (const z of planes) {
     const page = pageOf(stack, channel === "luminance" ? 0 : channel, z, choice.timePoint);
@@ -179,17 +185,19 @@ export async function decodeImage(source: ImageInput, options: DecodeOptions = {
         `Page ${page + 1} of the TIFF is ${described.width}×${described.height} pixels but page 1 is ${tiff!.pages[0].width}×${tiff!.pages[0].height}; the pages are not one stack.`,
       );
     if (format !== "tiff" && page > 0) throw new ImagingError("bad_option", `${where} has one page.`, "plane");
-    const plane = await readPagePixels({
-      input,
-      page,
-      format,
-      depth: meta.depth,
-      samples,
-      channel: sampleChannel,
-      region,
-      factor,
-      where,
-    });
+    const plane = plain
+      ? readPlainTiff16Region(source, plain, region, factor)
+      : await readPagePixels({
+          input,
+          page,
+          format,
+          depth: meta.depth,
+          samples,
+          channel: sampleChannel,
+          region,
+          factor,
+          where,
+        });
     if (!data) data = plane;
     else for (let i = 0; i < data.length; i++) if (plane[i] > data[i]) data[i] = plane[i];
   }

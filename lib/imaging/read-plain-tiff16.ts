@@ -29,35 +29,16 @@ export function readPlainTiff16(
   maxPixels: number,
 ): PlainTiff16 | null {
   if (channel !== "luminance" && channel !== 0) return null;
-  const ifd = readFirstIfd(byteViewOf(input));
-  if (!ifd) return null;
-  const { view, le, entries } = ifd;
-  const one = (tag: number, absent: number) => entries.get(tag)?.[0] ?? absent;
-  const width = one(256, 0),
-    height = one(257, 0);
-  if (!(width > 0 && height > 0) || width * height > maxPixels) return null;
-  const plain =
-    one(258, 1) === 16 && // BitsPerSample
-    one(259, 1) === 1 && // Compression: none
-    one(262, -1) === 1 && // PhotometricInterpretation: BlackIsZero
-    one(277, 1) === 1 && // SamplesPerPixel
-    one(284, 1) === 1 && // PlanarConfiguration
-    one(317, 1) === 1 && // Predictor
-    one(339, 1) === 1 && // SampleFormat: unsigned integer
-    one(274, 1) === 1 && // Orientation: rows top to bottom
-    !entries.has(322); // TileWidth: tiled files go through sharp
-  const offsets = entries.get(273),
-    counts = entries.get(279);
-  if (!plain || !offsets || !counts || offsets.length !== counts.length) return null;
-  const rowsPerStrip = Math.min(one(278, height), height);
-  if (offsets.length !== Math.ceil(height / rowsPerStrip)) return null;
+  const layout = readPlainTiff16Layout(input);
+  if (!layout) return null;
+  const { le, width, height, offsets, rowsPerStrip } = layout;
+  if (width * height > maxPixels) return null;
   const data = new Float32Array(width * height);
   const scale = 1 / 65535;
   for (let s = 0; s < offsets.length; s++) {
     const rows = Math.min(rowsPerStrip, height - s * rowsPerStrip);
     const n = rows * width,
       at = offsets[s];
-    if (counts[s] < 2 * n || at + 2 * n > view.length) return null;
     const out = s * rowsPerStrip * width;
     // A file's strip is read by itself (a fresh, aligned array); bytes in memory are read in place.
     const bytes = isImageFile(input) ? input.read(at, 2 * n) : input;
@@ -77,7 +58,49 @@ export function readPlainTiff16(
   };
 }
 
-const littleEndianHost = new Uint8Array(new Uint16Array([1]).buffer)[0] === 1;
+/** Where the rows of a single-page, uncompressed, 16-bit grey TIFF in strips lie in the file. */
+export interface PlainTiff16Layout {
+  view: ByteView;
+  le: boolean;
+  width: number;
+  height: number;
+  /** Byte offset of each strip; every strip holds `rowsPerStrip` whole rows (the last one fewer), inside the file. */
+  offsets: number[];
+  rowsPerStrip: number;
+}
+
+/** The layout, or null unless the input is such a TIFF and every strip lies whole inside it. */
+export function readPlainTiff16Layout(input: ImageInput): PlainTiff16Layout | null {
+  const ifd = readFirstIfd(byteViewOf(input));
+  if (!ifd) return null;
+  const { view, le, entries } = ifd;
+  const one = (tag: number, absent: number) => entries.get(tag)?.[0] ?? absent;
+  const width = one(256, 0),
+    height = one(257, 0);
+  if (!(width > 0 && height > 0)) return null;
+  const plain =
+    one(258, 1) === 16 && // BitsPerSample
+    one(259, 1) === 1 && // Compression: none
+    one(262, -1) === 1 && // PhotometricInterpretation: BlackIsZero
+    one(277, 1) === 1 && // SamplesPerPixel
+    one(284, 1) === 1 && // PlanarConfiguration
+    one(317, 1) === 1 && // Predictor
+    one(339, 1) === 1 && // SampleFormat: unsigned integer
+    one(274, 1) === 1 && // Orientation: rows top to bottom
+    !entries.has(322); // TileWidth: tiled files go through sharp
+  const offsets = entries.get(273),
+    counts = entries.get(279);
+  if (!plain || !offsets || !counts || offsets.length !== counts.length) return null;
+  const rowsPerStrip = Math.min(one(278, height), height);
+  if (offsets.length !== Math.ceil(height / rowsPerStrip)) return null;
+  for (let s = 0; s < offsets.length; s++) {
+    const n = Math.min(rowsPerStrip, height - s * rowsPerStrip) * width;
+    if (counts[s] < 2 * n || offsets[s] + 2 * n > view.length) return null;
+  }
+  return { view, le, width, height, offsets, rowsPerStrip };
+}
+
+export const littleEndianHost = new Uint8Array(new Uint16Array([1]).buffer)[0] === 1;
 const TYPE_SIZE: Record<number, number> = { 3: 2, 4: 4 };
 
 /** The first IFD's SHORT and LONG entries (all values), or null unless it is the only IFD of a classic TIFF. */
