@@ -65,8 +65,8 @@ describe("room on the server's disk for large files", () => {
       });
       expect(res.status).toBe(413);
       const { error } = (await res.json()) as { error: { message: string } };
-      expect(error.message).toMatch(/this upload \(0\.00 GiB\) needs 0\.25 GiB of free disk space on the server/);
-      expect(error.message).toMatch(/only 0\.10 GiB is free now; try again later/);
+      expect(error.message).toMatch(/this upload \(1 MiB\) needs 256 MiB of free disk space on the server/);
+      expect(error.message).toMatch(/only 100 MiB is free now; try again later/);
     } finally {
       fakeFreeBytes = null;
     }
@@ -103,7 +103,7 @@ describe("room on the server's disk for large files", () => {
       await expect(
         fetchStoredFile(store, "tests/room/original", full, { sha256, sizeBytes: 2 * 2 ** 30 }, signal),
       ).rejects.toThrow(
-        /reading this upload needs 2\.3 GiB of free disk space on the server \(the file is 2\.0 GiB, plus 0\.25 GiB to work in\), but only 0\.20 GiB is free now; ask the lab's server administrator to free disk space/,
+        /reading this upload needs 2\.3 GiB of free disk space on the server \(the file is 2\.0 GiB, plus 256 MiB to work in\), but only 200 MiB is free now; ask the lab's server administrator to free disk space/,
       );
     } finally {
       fakeFreeBytes = null;

@@ -10,7 +10,9 @@ import { AppError } from "../errors";
 /** Free space kept on the temporary disk besides the file (design choice: the child's derived products and the system). */
 export const TEMP_SPARE_BYTES = 256 * 1024 * 1024;
 
-export const gib = (bytes: number) => `${(bytes / 2 ** 30).toFixed(bytes < 2 ** 30 ? 2 : 1)} GiB`;
+/** A size as a person reads it: MiB below 1 GiB, else GiB with one decimal. */
+export const gib = (bytes: number) =>
+  bytes < 2 ** 30 ? `${Math.max(1, Math.round(bytes / 2 ** 20))} MiB` : `${(bytes / 2 ** 30).toFixed(1)} GiB`;
 
 /** Free bytes for an unprivileged process on the disk of `dir`, or null when the system cannot tell. */
 export function freeBytesAt(dir: string): number | null {
