@@ -1,8 +1,10 @@
 import sharp, { type Metadata } from "sharp";
 import type { GreyImage } from "./grey-image";
 import { ImagingError } from "./errors";
+import { sharpInput, type ImageInput } from "./image-input";
 import { readPixelSize, type PixelSizeSource } from "./pixel-size";
-import { readPlainTiff16 } from "./read-plain-tiff16";
+import { readPlainTiff16, readPlainTiff16Layout } from "./read-plain-tiff16";
+import { readPlainTiff16Region } from "./read-plain-tiff16-region";
 import { isFloatDepth, isSixteen, readPagePixels, type PixelRegion } from "./read-page-pixels";
 import { readTiffPages } from "./read-tiff-pages";
 import { checkStackChoice, describeStack, pageOf, type StackLayout } from "./stack-layout";
@@ -62,7 +64,7 @@ export interface DecodedImage {
   info: DecodedInfo;
 }
 
-async function readMetadata(input: Buffer): Promise<Metadata> {
+async function readMetadata(input: Buffer | string): Promise<Metadata> {
   try {
     return await sharp(input, { limitInputPixels: false }).metadata();
   } catch (e) {
@@ -92,10 +94,11 @@ function clampRegion(region: PixelRegion | null | undefined, width: number, heig
  * Decodes PNG, JPEG or TIFF (8/16-bit, 32-bit float; grey or multi-channel; multi-page, OME-TIFF
  * and ImageJ stacks) into one Float32 channel, upright (EXIF orientation applied). The size is
  * checked from the header first, so an oversized file is refused without decoding; a region and
- * `maxSidePx` read a large image without holding it at full resolution.
+ * `maxSidePx` read a large image without holding it at full resolution; a large file is given as
+ * an ImageFile (image-input.ts), so its bytes are never held either.
  * @throws ImagingError: too_large, corrupt, unsupported, bad_option
  */
-export async function decodeImage(bytes: Uint8Array, options: DecodeOptions = {}): Promise<DecodedImage> {
+export async function decodeImage(source: ImageInput, options: DecodeOptions = {}): Promise<DecodedImage> {
   const maxPixels = options.maxPixels ?? MAX_DECODE_PIXELS;
   const requested = options.channel ?? "luminance";
   if (requested !== "luminance" && !(Number.isInteger(requested) && requested >= 0)) {
@@ -105,9 +108,9 @@ export async function decodeImage(bytes: Uint8Array, options: DecodeOptions = {}
       "channel",
     );
   }
-  const fast = readWholePlainTiff16(bytes, options, requested, maxPixels);
+  const fast = readWholePlainTiff16(source, options, requested, maxPixels);
   if (fast) return fast;
-  const input = Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
+  const input = sharpInput(source);
   const meta = await readMetadata(input);
   const format = meta.format;
   if (format !== "png" && format !== "jpeg" && format !== "tiff") {
@@ -123,7 +126,7 @@ export async function decodeImage(bytes: Uint8Array, options: DecodeOptions = {}
     );
   }
   const samples = meta.channels ?? 1;
-  const tiff = format === "tiff" ? readTiffPages(bytes) : null;
+  const tiff = format === "tiff" ? readTiffPages(source) : null;
   const stack = describeStack(tiff, format === "tiff" ? (meta.pages ?? 1) : 1, samples);
   const choice = {
     channel: requested,
@@ -161,6 +164,11 @@ export async function decodeImage(bytes: Uint8Array, options: DecodeOptions = {}
       "too_large",
       `The region to read is ${region.width}×${region.height} pixels, above the ${MAX_FULL_RESOLUTION_PIXELS} pixels held at full resolution; read a smaller region or a reduced image.`,
     );
+  // A plain 16-bit grey TIFF (one page, no compression, upright) is read from its strips directly.
+  const plain =
+    format === "tiff" && stack.pageCount === 1 && orientation === 1 && (channel === "luminance" || channel === 0)
+      ? readPlainTiff16Layout(source)
+      : null;
   let data: Float32Array | null = null;
   for (const z of planes) {
     const page = pageOf(stack, channel === "luminance" ? 0 : channel, z, choice.timePoint);
@@ -177,17 +185,19 @@ export async function decodeImage(bytes: Uint8Array, options: DecodeOptions = {}
         `Page ${page + 1} of the TIFF is ${described.width}×${described.height} pixels but page 1 is ${tiff!.pages[0].width}×${tiff!.pages[0].height}; the pages are not one stack.`,
       );
     if (format !== "tiff" && page > 0) throw new ImagingError("bad_option", `${where} has one page.`, "plane");
-    const plane = await readPagePixels({
-      input,
-      page,
-      format,
-      depth: meta.depth,
-      samples,
-      channel: sampleChannel,
-      region,
-      factor,
-      where,
-    });
+    const plane = plain
+      ? readPlainTiff16Region(source, plain, region, factor)
+      : await readPagePixels({
+          input,
+          page,
+          format,
+          depth: meta.depth,
+          samples,
+          channel: sampleChannel,
+          region,
+          factor,
+          where,
+        });
     if (!data) data = plane;
     else for (let i = 0; i < data.length; i++) if (plane[i] > data[i]) data[i] = plane[i];
   }
@@ -197,7 +207,7 @@ export async function decodeImage(bytes: Uint8Array, options: DecodeOptions = {}
     notes.push(
       `The image was read reduced ${factor}×${factor} (each pixel the mean of ${factor}×${factor} source pixels, the readout's own binning) to fit the ${side} px analysis limit without holding it at full resolution.`,
     );
-  const px = readPixelSize(bytes, format, meta.density);
+  const px = readPixelSize(source, format, meta.density);
   // Orientations 5–8 turn the image a quarter: the stored Y pixel size becomes the upright X size.
   const turned = orientation >= 5 && orientation <= 8;
   if (turned && px.pixelSizeSource === "ome-xml" && stack.pixelSizeYUm) px.pixelSizeUm = stack.pixelSizeYUm;
@@ -232,14 +242,14 @@ export async function decodeImage(bytes: Uint8Array, options: DecodeOptions = {}
  * general path gives for it. Anything else returns null.
  */
 function readWholePlainTiff16(
-  bytes: Uint8Array,
+  source: ImageInput,
   options: DecodeOptions,
   channel: number | "luminance",
   maxPixels: number,
 ): DecodedImage | null {
   if (options.region || (options.plane ?? 0) !== 0 || (options.timePoint ?? 0) !== 0) return null;
   if ((options.projection ?? "none") !== "none") return null;
-  const plain = readPlainTiff16(bytes, channel, Math.min(maxPixels, MAX_FULL_RESOLUTION_PIXELS));
+  const plain = readPlainTiff16(source, channel, Math.min(maxPixels, MAX_FULL_RESOLUTION_PIXELS));
   if (!plain) return null;
   const { width, height } = plain.info;
   if (options.maxSidePx != null && Math.max(width, height) > options.maxSidePx) return null;
@@ -247,7 +257,7 @@ function readWholePlainTiff16(
     image: plain.image,
     info: {
       ...plain.info,
-      stack: describeStack(readTiffPages(bytes), 1, 1),
+      stack: describeStack(readTiffPages(source), 1, 1),
       planeUsed: 0,
       timePointUsed: 0,
       projection: "none",

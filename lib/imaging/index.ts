@@ -14,3 +14,4 @@ export { readImageLayout, type ImageLayout } from "./read-image-layout";
 export { checkStackChoice, pageOf, type StackLayout, type StackChoice } from "./stack-layout";
 export { sniffFileKind, type FileKind } from "./sniff-file-kind";
 export { readPixelSize, readOmePixelSize, type PixelSizeInfo, type PixelSizeSource } from "./pixel-size";
+export { isImageFile, type ImageFile, type ImageInput } from "./image-input";

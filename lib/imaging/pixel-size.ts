@@ -1,3 +1,4 @@
+import { headOf, type ImageInput } from "./image-input";
 import { readTiffPages } from "./read-tiff-pages";
 import { readTiffTags } from "./read-tiff-tags";
 
@@ -51,6 +52,9 @@ export function readOmePixelSize(xml: string): number | null {
   return Number.isFinite(v) && v > 0 && scale ? v * scale : null;
 }
 
+/** Bytes of a PNG file searched for pHYs (design choice: ancillary chunks before the pixels are small). */
+const PNG_HEAD_BYTES = 1024 * 1024;
+
 /** PNG pHYs chunk (PNG spec §11.3.5.3): pixels per unit, unit 1 = metre. */
 function readPngPhys(b: Uint8Array): { x: number; unit: number } | null {
   const view = new DataView(b.buffer, b.byteOffset, b.byteLength);
@@ -65,12 +69,12 @@ function readPngPhys(b: Uint8Array): { x: number; unit: number } | null {
 }
 
 /** Pixel size from the file's own metadata, most specific source first. */
-export function readPixelSize(bytes: Uint8Array, format: string, density?: number): PixelSizeInfo {
+export function readPixelSize(input: ImageInput, format: string, density?: number): PixelSizeInfo {
   if (format === "tiff") {
-    const tags = readTiffTags(bytes);
+    const tags = readTiffTags(input);
     if (!tags) {
       // BigTIFF: only OME-XML is read from it (the resolution tags of large scans are rarely set).
-      const description = readTiffPages(bytes)?.description;
+      const description = readTiffPages(input)?.description;
       const um = description?.includes("<OME") ? readOmePixelSize(description) : null;
       return um ? { pixelSizeUm: um, pixelSizeSource: "ome-xml", pixelSizeNote: null } : none();
     }
@@ -97,7 +101,8 @@ export function readPixelSize(bytes: Uint8Array, format: string, density?: numbe
     return none("The TIFF resolution has no unit (ResolutionUnit = 1).");
   }
   if (format === "png") {
-    const phys = readPngPhys(bytes);
+    // pHYs comes before the first IDAT (PNG spec §5.6): the file's head holds it.
+    const phys = readPngPhys(headOf(input, PNG_HEAD_BYTES));
     if (!phys || phys.unit !== 1 || !(phys.x > 0)) return none();
     return fromDpi(phys.x * 0.0254, "png-phys");
   }

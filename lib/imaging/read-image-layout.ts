@@ -1,5 +1,6 @@
 import sharp from "sharp";
 import { ImagingError } from "./errors";
+import { sharpInput, type ImageInput } from "./image-input";
 import { readTiffPages } from "./read-tiff-pages";
 import { describeStack } from "./stack-layout";
 
@@ -26,9 +27,8 @@ export interface ImageLayout {
 }
 
 /** Reads the layout of an image file from its headers; null when sharp cannot read the header. */
-export async function readImageLayout(bytes: Uint8Array): Promise<ImageLayout | null> {
-  const input = Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
-  const meta = await sharp(input, { limitInputPixels: false })
+export async function readImageLayout(input: ImageInput): Promise<ImageLayout | null> {
+  const meta = await sharp(sharpInput(input), { limitInputPixels: false })
     .metadata()
     .catch(() => null);
   if (!meta || !meta.format) return null;
@@ -50,7 +50,7 @@ export async function readImageLayout(bytes: Uint8Array): Promise<ImageLayout | 
     damagedPages: [],
   };
   if (meta.format !== "tiff") return layout;
-  const tiff = readTiffPages(bytes);
+  const tiff = readTiffPages(input);
   try {
     const s = describeStack(tiff, meta.pages ?? 1, samples);
     Object.assign(layout, {

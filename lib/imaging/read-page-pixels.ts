@@ -10,7 +10,8 @@ export interface PixelRegion {
 }
 
 export interface PageRequest {
-  input: Buffer;
+  /** The bytes, or a file's path (libvips then reads only the strips or tiles of each band). */
+  input: Buffer | string;
   /** 0-based page (TIFF). */
   page: number;
   format: string;

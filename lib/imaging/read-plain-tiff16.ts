@@ -1,4 +1,5 @@
 import type { GreyImage } from "./grey-image";
+import { byteViewOf, isImageFile, type ByteView, type ImageInput } from "./image-input";
 import { readPixelSize, type PixelSizeInfo } from "./pixel-size";
 
 /** What decodeImage returns, for this one kind of file. */
@@ -23,18 +24,60 @@ export interface PlainTiff16 {
  * through sharp, which also gives the errors.
  */
 export function readPlainTiff16(
-  bytes: Uint8Array,
+  input: ImageInput,
   channel: number | "luminance",
   maxPixels: number,
 ): PlainTiff16 | null {
   if (channel !== "luminance" && channel !== 0) return null;
-  const ifd = readFirstIfd(bytes);
+  const layout = readPlainTiff16Layout(input);
+  if (!layout) return null;
+  const { le, width, height, offsets, rowsPerStrip } = layout;
+  if (width * height > maxPixels) return null;
+  const data = new Float32Array(width * height);
+  const scale = 1 / 65535;
+  for (let s = 0; s < offsets.length; s++) {
+    const rows = Math.min(rowsPerStrip, height - s * rowsPerStrip);
+    const n = rows * width,
+      at = offsets[s];
+    const out = s * rowsPerStrip * width;
+    // A file's strip is read by itself (a fresh, aligned array); bytes in memory are read in place.
+    const bytes = isImageFile(input) ? input.read(at, 2 * n) : input;
+    const from = isImageFile(input) ? 0 : at;
+    if (le && (bytes.byteOffset + from) % 2 === 0 && littleEndianHost) {
+      const samples = new Uint16Array(bytes.buffer, bytes.byteOffset + from, n);
+      for (let i = 0; i < n; i++) data[out + i] = samples[i] * scale;
+    } else {
+      const strip = new DataView(bytes.buffer, bytes.byteOffset + from, 2 * n);
+      for (let i = 0; i < n; i++) data[out + i] = strip.getUint16(2 * i, le) * scale;
+    }
+  }
+  const px = readPixelSize(input, "tiff");
+  return {
+    image: { width, height, data },
+    info: { width, height, channels: 1, bitDepth: 16, format: "tiff", ...px, channelUsed: channel },
+  };
+}
+
+/** Where the rows of a single-page, uncompressed, 16-bit grey TIFF in strips lie in the file. */
+export interface PlainTiff16Layout {
+  view: ByteView;
+  le: boolean;
+  width: number;
+  height: number;
+  /** Byte offset of each strip; every strip holds `rowsPerStrip` whole rows (the last one fewer), inside the file. */
+  offsets: number[];
+  rowsPerStrip: number;
+}
+
+/** The layout, or null unless the input is such a TIFF and every strip lies whole inside it. */
+export function readPlainTiff16Layout(input: ImageInput): PlainTiff16Layout | null {
+  const ifd = readFirstIfd(byteViewOf(input));
   if (!ifd) return null;
   const { view, le, entries } = ifd;
   const one = (tag: number, absent: number) => entries.get(tag)?.[0] ?? absent;
   const width = one(256, 0),
     height = one(257, 0);
-  if (!(width > 0 && height > 0) || width * height > maxPixels) return null;
+  if (!(width > 0 && height > 0)) return null;
   const plain =
     one(258, 1) === 16 && // BitsPerSample
     one(259, 1) === 1 && // Compression: none
@@ -50,42 +93,28 @@ export function readPlainTiff16(
   if (!plain || !offsets || !counts || offsets.length !== counts.length) return null;
   const rowsPerStrip = Math.min(one(278, height), height);
   if (offsets.length !== Math.ceil(height / rowsPerStrip)) return null;
-  const data = new Float32Array(width * height);
-  const scale = 1 / 65535;
   for (let s = 0; s < offsets.length; s++) {
-    const rows = Math.min(rowsPerStrip, height - s * rowsPerStrip);
-    const n = rows * width,
-      at = offsets[s];
-    if (counts[s] < 2 * n || at + 2 * n > bytes.length) return null;
-    const out = s * rowsPerStrip * width;
-    if (le && (bytes.byteOffset + at) % 2 === 0 && littleEndianHost) {
-      const samples = new Uint16Array(bytes.buffer, bytes.byteOffset + at, n);
-      for (let i = 0; i < n; i++) data[out + i] = samples[i] * scale;
-    } else for (let i = 0; i < n; i++) data[out + i] = view.getUint16(at + 2 * i, le) * scale;
+    const n = Math.min(rowsPerStrip, height - s * rowsPerStrip) * width;
+    if (counts[s] < 2 * n || offsets[s] + 2 * n > view.length) return null;
   }
-  const px = readPixelSize(bytes, "tiff");
-  return {
-    image: { width, height, data },
-    info: { width, height, channels: 1, bitDepth: 16, format: "tiff", ...px, channelUsed: channel },
-  };
+  return { view, le, width, height, offsets, rowsPerStrip };
 }
 
-const littleEndianHost = new Uint8Array(new Uint16Array([1]).buffer)[0] === 1;
+export const littleEndianHost = new Uint8Array(new Uint16Array([1]).buffer)[0] === 1;
 const TYPE_SIZE: Record<number, number> = { 3: 2, 4: 4 };
 
 /** The first IFD's SHORT and LONG entries (all values), or null unless it is the only IFD of a classic TIFF. */
-function readFirstIfd(bytes: Uint8Array): { view: DataView; le: boolean; entries: Map<number, number[]> } | null {
-  if (bytes.length < 8) return null;
-  const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
+function readFirstIfd(view: ByteView): { view: ByteView; le: boolean; entries: Map<number, number[]> } | null {
+  if (view.length < 8) return null;
   const order = view.getUint16(0, false);
   if (order !== 0x4949 && order !== 0x4d4d) return null;
   const le = order === 0x4949;
   if (view.getUint16(2, le) !== 42) return null;
   const ifd = view.getUint32(4, le);
-  if (ifd + 2 > bytes.length) return null;
+  if (ifd + 2 > view.length) return null;
   const count = view.getUint16(ifd, le);
   const end = ifd + 2 + count * 12;
-  if (end + 4 > bytes.length || view.getUint32(end, le) !== 0) return null; // several pages: sharp's path
+  if (end + 4 > view.length || view.getUint32(end, le) !== 0) return null; // several pages: sharp's path
   const entries = new Map<number, number[]>();
   for (let e = 0; e < count; e++) {
     const at = ifd + 2 + e * 12;
@@ -94,7 +123,7 @@ function readFirstIfd(bytes: Uint8Array): { view: DataView; le: boolean; entries
     if (!size) continue;
     const n = view.getUint32(at + 4, le);
     const off = n * size <= 4 ? at + 8 : view.getUint32(at + 8, le);
-    if (off + n * size > bytes.length) return null;
+    if (off + n * size > view.length) return null;
     const values: number[] = new Array<number>(n);
     for (let i = 0; i < n; i++)
       values[i] = size === 2 ? view.getUint16(off + 2 * i, le) : view.getUint32(off + 4 * i, le);

@@ -6,6 +6,8 @@
  * inside the file. BigTIFF (version 43: 8-byte offsets and counts, 20-byte entries) is walked the
  * same way (BigTIFF format description, Aware Systems / libtiff, 2006).
  */
+import { byteViewOf, type ImageInput } from "./image-input";
+
 export interface TiffPage {
   width: number;
   height: number;
@@ -46,17 +48,17 @@ const TYPE_SIZE: Record<number, number> = {
   18: 8,
 };
 
-/** Returns the pages, or null when the bytes are not a TIFF or BigTIFF. */
-export function readTiffPages(bytes: Uint8Array): TiffPages | null {
-  if (bytes.length < 8) return null;
-  const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
+/** Returns the pages, or null when the input is not a TIFF or BigTIFF (a file is read by ranges). */
+export function readTiffPages(input: ImageInput): TiffPages | null {
+  const view = byteViewOf(input);
+  if (view.length < 8) return null;
   const order = view.getUint16(0, false);
   if (order !== 0x4949 && order !== 0x4d4d) return null;
   const le = order === 0x4949;
   const version = view.getUint16(2, le);
   if (version !== 42 && version !== 43) return null;
   const big = version === 43;
-  if (big && bytes.length < 16) return null;
+  if (big && view.length < 16) return null;
   // Offsets, entry counts and entry sizes differ between TIFF and BigTIFF; nothing else does here.
   const offsetAt = (at: number) => (big ? Number(view.getBigUint64(at, le)) : view.getUint32(at, le));
   const countAt = (at: number) => (big ? Number(view.getBigUint64(at, le)) : view.getUint16(at, le));
@@ -74,7 +76,7 @@ export function readTiffPages(bytes: Uint8Array): TiffPages | null {
       break;
     }
     seen.add(ifd);
-    if (ifd + countSize > bytes.length || ifd + countSize + countAt(ifd) * entrySize + inline > bytes.length) {
+    if (ifd + countSize > view.length || ifd + countSize + countAt(ifd) * entrySize + inline > view.length) {
       chainError = `Page ${pageNo} of the TIFF is damaged: its header lies beyond the end of the file (the file may be truncated).`;
       break;
     }
@@ -91,7 +93,7 @@ export function readTiffPages(bytes: Uint8Array): TiffPages | null {
       if (size === 0) continue;
       const valueAt = at + (big ? 12 : 8);
       const off = size <= inline ? valueAt : offsetAt(valueAt);
-      if (off + size > bytes.length) {
+      if (off + size > view.length) {
         if (tag === 273 || tag === 279 || tag === 324 || tag === 325)
           page.damage = `Page ${pageNo} of the TIFF is damaged: its list of pixel blocks lies beyond the end of the file.`;
         continue;
@@ -116,9 +118,9 @@ export function readTiffPages(bytes: Uint8Array): TiffPages | null {
       else if (tag === 273 || tag === 324) offsets.push(...values());
       else if (tag === 279 || tag === 325) lengths.push(...values());
       else if (tag === 270 && type === 2 && pages.length === 0)
-        description = new TextDecoder("utf-8").decode(bytes.subarray(off, off + size)).replace(/\0+$/, "");
+        description = new TextDecoder("utf-8").decode(view.bytes(off, size)).replace(/\0+$/, "");
     }
-    if (!page.damage && offsets.length > 0 && offsets.some((o, i) => o + (lengths[i] ?? 0) > bytes.length))
+    if (!page.damage && offsets.length > 0 && offsets.some((o, i) => o + (lengths[i] ?? 0) > view.length))
       page.damage = `Page ${pageNo} of the TIFF is damaged: its pixel data lies beyond the end of the file (the file may be truncated).`;
     pages.push(page);
     ifd = offsetAt(ifd + countSize + count * entrySize);

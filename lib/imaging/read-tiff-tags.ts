@@ -3,6 +3,8 @@
  * resolution (as the stored rationals, not sharp's rounded DPI) and ImageDescription (where
  * OME-TIFF keeps its XML). TIFF 6.0 specification (Adobe 1992), sections 2 and 8.
  */
+import { byteViewOf, type ImageInput } from "./image-input";
+
 export interface TiffTags {
   width?: number;
   height?: number;
@@ -30,18 +32,18 @@ const TAG = {
 } as const;
 const TYPE_SIZE: Record<number, number> = { 1: 1, 2: 1, 3: 2, 4: 4, 5: 8, 6: 1, 7: 1, 8: 2, 9: 4, 10: 8, 11: 4, 12: 8 };
 
-/** Returns the tags, or null when the bytes are not a readable classic TIFF (BigTIFF included). */
-export function readTiffTags(bytes: Uint8Array): TiffTags | null {
-  if (bytes.length < 8) return null;
-  const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
+/** Returns the tags, or null when the input is not a readable classic TIFF (BigTIFF included); a file is read by ranges. */
+export function readTiffTags(input: ImageInput): TiffTags | null {
+  const view = byteViewOf(input);
+  if (view.length < 8) return null;
   const order = view.getUint16(0, false);
   if (order !== 0x4949 && order !== 0x4d4d) return null;
   const le = order === 0x4949;
   if (view.getUint16(2, le) !== 42) return null;
   const ifd = view.getUint32(4, le);
-  if (ifd + 2 > bytes.length) return null;
+  if (ifd + 2 > view.length) return null;
   const count = view.getUint16(ifd, le);
-  if (ifd + 2 + count * 12 > bytes.length) return null;
+  if (ifd + 2 + count * 12 > view.length) return null;
   const tags: TiffTags = {};
   for (let e = 0; e < count; e++) {
     const at = ifd + 2 + e * 12;
@@ -51,7 +53,7 @@ export function readTiffTags(bytes: Uint8Array): TiffTags | null {
     const size = (TYPE_SIZE[type] ?? 0) * n;
     if (size === 0) continue;
     const off = size <= 4 ? at + 8 : view.getUint32(at + 8, le);
-    if (off + size > bytes.length) continue;
+    if (off + size > view.length) continue;
     const num = (): number =>
       type === 3
         ? view.getUint16(off, le)
@@ -94,7 +96,7 @@ export function readTiffTags(bytes: Uint8Array): TiffTags | null {
         break;
       case TAG.description:
         if (type === 2)
-          tags.imageDescription = new TextDecoder("utf-8").decode(bytes.subarray(off, off + size)).replace(/\0+$/, "");
+          tags.imageDescription = new TextDecoder("utf-8").decode(view.bytes(off, size)).replace(/\0+$/, "");
         break;
     }
   }

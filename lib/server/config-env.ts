@@ -119,7 +119,9 @@ export const envSchema = z.object({
   LOCKOUT_FAILURES: whole(1, 10),
   LOCKOUT_MINUTES: amount(0, 15),
   SIGNUP_LINK_HOURS: amount(0, 24),
-  MAX_UPLOAD_BYTES: whole(1, 200 * 1024 * 1024),
+  // 2000 MiB: a 30 000 × 30 000 16-bit slide scan (1.8 GB) fits, streamed to disk, never held;
+  // below 2³¹ bytes, the largest size PostgreSQL's integer column uploads.size_bytes holds.
+  MAX_UPLOAD_BYTES: whole(1, 2000 * 1024 * 1024),
   UPLOADS_IN_FLIGHT: whole(1, 8),
   UPLOADS_WAITING: whole(0, 16),
   UPLOAD_WAIT_MS: amount(0, 10_000),

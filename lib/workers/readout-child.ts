@@ -14,6 +14,7 @@ import path from "node:path";
 import { setSpectrumExecutor } from "../fft";
 import { createSpectrumThreads, type SpectrumThreads } from "../parallel/spectrum-threads";
 import { toAppError } from "../server/core-errors";
+import { withImageInput } from "./image-file";
 import { runImageReadout } from "../server/readouts/image";
 import type { StoredImageSettings, StoredReadoutSettings, StoredTableSettings } from "../server/readouts/settings";
 import { runTableReadout } from "../server/readouts/table";
@@ -37,17 +38,20 @@ function installSpectrumThreads(): void {
 
 async function main() {
   installSpectrumThreads();
-  const bytes = readFileSync(arg("--input"));
+  const input = arg("--input");
   const settings = JSON.parse(readFileSync(arg("--settings"), "utf8")) as StoredReadoutSettings;
   if (settings.kind === "table") {
-    const result = await runTableReadout(bytes, settings as StoredTableSettings);
+    const result = await runTableReadout(readFileSync(input), settings as StoredTableSettings);
     process.stdout.write(JSON.stringify(result) + "\n");
     return;
   }
   const out = arg("--out");
-  const r = await runImageReadout(bytes, settings as StoredImageSettings, async (fraction, note) => {
-    process.stderr.write(`progress ${JSON.stringify({ fraction, note })}\n`);
-  });
+  // A large image is read by ranges from its file, never whole (lib/workers/image-file.ts).
+  const r = await withImageInput(input, (image) =>
+    runImageReadout(image, settings as StoredImageSettings, async (fraction, note) => {
+      process.stderr.write(`progress ${JSON.stringify({ fraction, note })}\n`);
+    }),
+  );
   for (const [name, body] of Object.entries(r.derived)) writeFileSync(path.join(out, name), body);
   process.stdout.write(JSON.stringify(r.result) + "\n");
 }

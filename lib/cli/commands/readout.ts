@@ -5,10 +5,21 @@ import { setSpectrumExecutor } from "../../fft";
 import { createSpectrumThreads, type SpectrumThreads } from "../../parallel/spectrum-threads";
 import { CliError, parseOptions, type CliCommand } from "../command";
 import { toCliError } from "../core-errors";
-import { decodeImage, MAX_FULL_RESOLUTION_PIXELS, readImageLayout, sniffFileKind } from "../../imaging";
+import {
+  decodeImage,
+  isImageFile,
+  MAX_FULL_RESOLUTION_PIXELS,
+  readImageLayout,
+  sniffFileKind,
+  type ImageFile,
+} from "../../imaging";
+import { openImageFile, READ_WHOLE_MAX_BYTES } from "../../workers/image-file";
 import { DEFAULT_MAX_ANALYSIS_SIDE_PX, readWavelength } from "../../readout";
 import { readSpacingFromGrid, readTableGrid, type TableUnit } from "../../spacing";
 import { isFolder, readFolder, SOME_FILES_FAILED_EXIT } from "../readout-folder";
+
+/** Bytes of a large file judged for its kind (magic bytes, or a text's first lines). */
+const SNIFF_BYTES = 64 * 1024;
 
 const help = `readout FILE [options] [--json]
 readout FOLDER [options] [--csv OUT.csv] [--json]
@@ -68,108 +79,124 @@ const command: CliCommand = {
   async run(args, ctx) {
     const { options, positional } = parseOptions(args, ["invert"]);
     if (positional.length !== 1) throw new CliError("Give exactly one FILE or FOLDER.");
-    if (isFolder(positional[0]))
-      return readFolder(positional[0], args, str(options.csv, "csv"), (a) => command.run(a, ctx));
-    let bytes: Buffer;
+    const path = positional[0];
+    if (isFolder(path)) return readFolder(path, args, str(options.csv, "csv"), (a) => command.run(a, ctx));
+    let file: ReturnType<typeof openImageFile>;
+    let bytes: Buffer | null;
     try {
-      bytes = readFileSync(positional[0]);
+      file = openImageFile(path);
+      // A large file (a slide scan) is read by ranges, never whole; a small one whole, as always.
+      bytes = file.size <= READ_WHOLE_MAX_BYTES ? readFileSync(path) : null;
     } catch (e) {
-      throw new CliError(`Cannot read ${positional[0]}: ${(e as Error).message}`);
+      throw new CliError(`Cannot read ${path}: ${(e as Error).message}`);
     }
-    const kind = sniffFileKind(bytes);
-    const pixelSize = num(options["pixel-size"], "pixel-size");
     try {
-      if (kind === "csv" || kind === "tsv" || kind === "xlsx") {
-        const read = readSpacingFromGrid(await readTableGrid(bytes, str(options.sheet, "sheet")), {
-          columns: {
-            x: str(options.x, "x"),
-            y: str(options.y, "y"),
-            position: str(options.position, "position"),
-            spacing: str(options.spacing, "spacing"),
-          },
-          unit: str(options.unit, "unit") as TableUnit | undefined,
-          pixelSizeUm: pixelSize,
-        });
-        const table = { ...read.table, columnsTaken: read.columnsTaken, unit: read.mapping.unit };
-        return { json: { file: positional[0], fileKind: kind, ...table }, text: JSON.stringify(table, null, 2) };
-      }
-      if (!kind)
-        throw new CliError("The file is neither a PNG, JPEG or TIFF image nor a CSV/TSV or XLSX table.", "unsupported");
-      const ch = str(options.channel, "channel");
-      const channel = ch === undefined || ch === "luminance" ? "luminance" : num(ch, "channel")!;
-      let roi;
-      const roiText = str(options.roi, "roi");
-      if (roiText) {
-        const p = roiText.split(",").map(Number);
-        if (p.length !== 4 || p.some((v) => !Number.isFinite(v)))
-          throw new CliError(`--roi needs x,y,w,h in pixels (got ${roiText}).`);
-        roi = { kind: "rect" as const, x: p[0], y: p[1], width: p[2], height: p[3] };
-      }
-      // Above what is held at full resolution, the ROI (or the whole image) is read reduced by the
-      // readout's own binning factor, as the server does; lengths in pixels are given back in source pixels.
-      const layout = await readImageLayout(bytes);
-      const large = !!layout && layout.width * layout.height > MAX_FULL_RESOLUTION_PIXELS;
-      const { image, info } = await decodeImage(
-        bytes,
-        large
-          ? {
-              channel,
-              region: roi ? { x: roi.x, y: roi.y, width: roi.width, height: roi.height } : null,
-              maxSidePx: DEFAULT_MAX_ANALYSIS_SIDE_PX,
-            }
-          : { channel },
-      );
-      const factor = large ? info.reduceFactor : 1;
-      const pixelSizeUm = pixelSize ?? info.pixelSizeUm;
-      installSpectrumThreads(options.threads);
-      const read = readWavelength(image, {
-        pixelSizeUm: pixelSizeUm === null || pixelSizeUm === undefined ? pixelSizeUm : pixelSizeUm * factor,
-        roi: large ? undefined : roi,
-        invert: options.invert === true,
-      });
-      const inSource = (v: number | null) => (v === null ? null : v * factor);
-      const r = {
-        ...read,
-        wavelengthPx: inSource(read.wavelengthPx),
-        uncertaintyPx: inSource(read.uncertaintyPx),
-        warnings: [...info.notes, ...read.warnings],
-      };
-      const json = {
-        file: positional[0],
-        fileKind: kind,
-        format: info.format,
-        widthPx: info.width,
-        heightPx: info.height,
-        channels: info.channels,
-        bitDepth: info.bitDepth,
-        pixelSizeUm,
-        pixelSizeSource: pixelSize !== undefined ? "option" : info.pixelSizeSource,
-        periodFound: r.periodFound,
-        wavelengthUm: r.wavelengthUm,
-        wavelengthPx: r.wavelengthPx,
-        uncertaintyUm: r.uncertaintyUm,
-        uncertaintyPx: r.uncertaintyPx,
-        uncertaintyMethod: r.uncertaintyMethod,
-        significance: r.significance,
-        significanceThreshold: r.significanceThreshold,
-        orientationDeg: r.orientationDeg,
-        anisotropy: r.anisotropy,
-        symmetry: r.symmetry,
-        symmetryScores: r.symmetryScores,
-        nearestNeighbourUm: r.nearestNeighbourUm,
-        nearestNeighbourUncertaintyUm: r.nearestNeighbourUncertaintyUm,
-        autocorrelation: r.autocorrelation,
-        warnings: [...(info.pixelSizeNote ? [info.pixelSizeNote] : []), ...r.warnings],
-      };
-      const text = r.periodFound
-        ? `λ = ${formatPlusMinus(r.wavelengthUm!, r.uncertaintyUm, "µm")} (${formatPlusMinus(r.wavelengthPx!, r.uncertaintyPx, "px")}), 95 % interval ± ${formatPlain(r.expandedUncertainty95Um!, 2)} µm, ${r.symmetry}, significance ${formatPlain(r.significance, 3)}` +
-          (r.nearestNeighbourUm ? `, nearest-neighbour a = ${r.nearestNeighbourUm.toPrecision(4)} µm` : "")
-        : `No significant period (significance ${formatPlain(r.significance, 3)} < ${r.significanceThreshold}).`;
-      return { json, text: [text, ...json.warnings.map((w) => `warning: ${w}`)].join("\n") };
-    } catch (e) {
-      throw toCliError(e);
+      return await readOne(path, bytes ?? file, options);
+    } finally {
+      file.close();
     }
   },
 };
+
+async function readOne(
+  name: string,
+  input: Uint8Array | ImageFile,
+  options: ReturnType<typeof parseOptions>["options"],
+) {
+  const whole = () => (isImageFile(input) ? readFileSync(input.path) : input);
+  const kind = sniffFileKind(isImageFile(input) ? input.read(0, SNIFF_BYTES) : input);
+  const pixelSize = num(options["pixel-size"], "pixel-size");
+  try {
+    if (kind === "csv" || kind === "tsv" || kind === "xlsx") {
+      const read = readSpacingFromGrid(await readTableGrid(whole(), str(options.sheet, "sheet")), {
+        columns: {
+          x: str(options.x, "x"),
+          y: str(options.y, "y"),
+          position: str(options.position, "position"),
+          spacing: str(options.spacing, "spacing"),
+        },
+        unit: str(options.unit, "unit") as TableUnit | undefined,
+        pixelSizeUm: pixelSize,
+      });
+      const table = { ...read.table, columnsTaken: read.columnsTaken, unit: read.mapping.unit };
+      return { json: { file: name, fileKind: kind, ...table }, text: JSON.stringify(table, null, 2) };
+    }
+    if (!kind)
+      throw new CliError("The file is neither a PNG, JPEG or TIFF image nor a CSV/TSV or XLSX table.", "unsupported");
+    const ch = str(options.channel, "channel");
+    const channel = ch === undefined || ch === "luminance" ? "luminance" : num(ch, "channel")!;
+    let roi;
+    const roiText = str(options.roi, "roi");
+    if (roiText) {
+      const p = roiText.split(",").map(Number);
+      if (p.length !== 4 || p.some((v) => !Number.isFinite(v)))
+        throw new CliError(`--roi needs x,y,w,h in pixels (got ${roiText}).`);
+      roi = { kind: "rect" as const, x: p[0], y: p[1], width: p[2], height: p[3] };
+    }
+    // Above what is held at full resolution, the ROI (or the whole image) is read reduced by the
+    // readout's own binning factor, as the server does; lengths in pixels are given back in source pixels.
+    const layout = await readImageLayout(input);
+    const large = !!layout && layout.width * layout.height > MAX_FULL_RESOLUTION_PIXELS;
+    const { image, info } = await decodeImage(
+      input,
+      large
+        ? {
+            channel,
+            region: roi ? { x: roi.x, y: roi.y, width: roi.width, height: roi.height } : null,
+            maxSidePx: DEFAULT_MAX_ANALYSIS_SIDE_PX,
+          }
+        : { channel },
+    );
+    const factor = large ? info.reduceFactor : 1;
+    const pixelSizeUm = pixelSize ?? info.pixelSizeUm;
+    installSpectrumThreads(options.threads);
+    const read = readWavelength(image, {
+      pixelSizeUm: pixelSizeUm === null || pixelSizeUm === undefined ? pixelSizeUm : pixelSizeUm * factor,
+      roi: large ? undefined : roi,
+      invert: options.invert === true,
+    });
+    const inSource = (v: number | null) => (v === null ? null : v * factor);
+    const r = {
+      ...read,
+      wavelengthPx: inSource(read.wavelengthPx),
+      uncertaintyPx: inSource(read.uncertaintyPx),
+      warnings: [...info.notes, ...read.warnings],
+    };
+    const json = {
+      file: name,
+      fileKind: kind,
+      format: info.format,
+      widthPx: info.width,
+      heightPx: info.height,
+      channels: info.channels,
+      bitDepth: info.bitDepth,
+      pixelSizeUm,
+      pixelSizeSource: pixelSize !== undefined ? "option" : info.pixelSizeSource,
+      periodFound: r.periodFound,
+      wavelengthUm: r.wavelengthUm,
+      wavelengthPx: r.wavelengthPx,
+      uncertaintyUm: r.uncertaintyUm,
+      uncertaintyPx: r.uncertaintyPx,
+      uncertaintyMethod: r.uncertaintyMethod,
+      significance: r.significance,
+      significanceThreshold: r.significanceThreshold,
+      orientationDeg: r.orientationDeg,
+      anisotropy: r.anisotropy,
+      symmetry: r.symmetry,
+      symmetryScores: r.symmetryScores,
+      nearestNeighbourUm: r.nearestNeighbourUm,
+      nearestNeighbourUncertaintyUm: r.nearestNeighbourUncertaintyUm,
+      autocorrelation: r.autocorrelation,
+      warnings: [...(info.pixelSizeNote ? [info.pixelSizeNote] : []), ...r.warnings],
+    };
+    const text = r.periodFound
+      ? `λ = ${formatPlusMinus(r.wavelengthUm!, r.uncertaintyUm, "µm")} (${formatPlusMinus(r.wavelengthPx!, r.uncertaintyPx, "px")}), 95 % interval ± ${formatPlain(r.expandedUncertainty95Um!, 2)} µm, ${r.symmetry}, significance ${formatPlain(r.significance, 3)}` +
+        (r.nearestNeighbourUm ? `, nearest-neighbour a = ${r.nearestNeighbourUm.toPrecision(4)} µm` : "")
+      : `No significant period (significance ${formatPlain(r.significance, 3)} < ${r.significanceThreshold}).`;
+    return { json, text: [text, ...json.warnings.map((w) => `warning: ${w}`)].join("\n") };
+  } catch (e) {
+    throw toCliError(e);
+  }
+}
 
 export default command;

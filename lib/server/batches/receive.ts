@@ -6,7 +6,7 @@
  * only a rejection row with its name and the reason for the batch's summary.
  */
 import "server-only";
-import { readFile } from "node:fs/promises";
+import { openImageFile } from "@/lib/workers/image-file";
 import { readPixelSize, sniffFileKind } from "@/lib/imaging";
 import { authorize, type LabContext } from "../access";
 import { AppError, forbidden, notFound } from "../errors";
@@ -41,7 +41,13 @@ async function applyBatchPixelSize(batch: BatchRow, parsed: ParsedUpload): Promi
   const kind = sniffFileKind(parsed.head);
   const image = kind === "png" || kind === "jpeg" || kind === "tiff";
   if (!batch.pixelSizeOverride && image) {
-    const own = readPixelSize(await readFile(parsed.file.path), kind);
+    const file = openImageFile(parsed.file.path); // headers only, read by ranges
+    let own: ReturnType<typeof readPixelSize>;
+    try {
+      own = readPixelSize(file, kind);
+    } finally {
+      file.close();
+    }
     if (own.pixelSizeUm !== null) return;
   }
   parsed.fields.pixelSizeUm = String(batch.pixelSizeUm);

@@ -3,7 +3,8 @@
  * point (or the maximum over z), upright. A large image (above 8192² px) is never held at full
  * resolution: only the ROI's bounding box is read, reduced by the integer factor the readout would
  * bin it by (a box average, lib/imaging/read-page-pixels.ts), and the ROI and the pixel sizes are
- * mapped onto that reduced grid; `toSourcePx` maps lengths back.
+ * mapped onto that reduced grid; `toSourcePx` maps lengths back. A large file comes as an ImageFile
+ * (read by ranges), so its bytes are not held either.
  */
 import "server-only";
 import { DEFAULT_MAX_ANALYSIS_SIDE_PX } from "@/lib/readout";
@@ -13,6 +14,7 @@ import {
   readImageLayout,
   type DecodedInfo,
   type GreyImage,
+  type ImageInput,
   type PixelRegion,
 } from "@/lib/imaging";
 import type { ImageReadoutSettings, RoiInput } from "@/lib/contracts/readout";
@@ -50,21 +52,21 @@ function boundsOf(roi: RoiInput, width: number, height: number): PixelRegion {
   };
 }
 
-export async function readReadoutSource(bytes: Uint8Array, settings: ImageReadoutSettings): Promise<ReadoutSource> {
+export async function readReadoutSource(input: ImageInput, settings: ImageReadoutSettings): Promise<ReadoutSource> {
   const choice = {
     channel: settings.channel,
     plane: settings.plane,
     timePoint: settings.timePoint,
     projection: settings.projection,
   };
-  const layout = await readImageLayout(bytes);
+  const layout = await readImageLayout(input);
   if (!layout || layout.width * layout.height <= MAX_FULL_RESOLUTION_PIXELS) {
     // As before: the whole image at full resolution; the readout crops and bins it.
-    const { image, info } = await decodeImage(bytes, choice);
+    const { image, info } = await decodeImage(input, choice);
     return { image, info, roi: settings.roi, factor: 1, x0: 0, y0: 0, whole: image };
   }
   const region = settings.roi ? boundsOf(settings.roi, layout.width, layout.height) : null;
-  const { image, info } = await decodeImage(bytes, { ...choice, region, maxSidePx: ANALYSIS_SIDE_PX });
+  const { image, info } = await decodeImage(input, { ...choice, region, maxSidePx: ANALYSIS_SIDE_PX });
   const f = info.reduceFactor,
     x0 = info.region.x,
     y0 = info.region.y;
@@ -72,6 +74,6 @@ export async function readReadoutSource(bytes: Uint8Array, settings: ImageReadou
     settings.roi?.kind === "polygon"
       ? { kind: "polygon", points: settings.roi.points.map(([x, y]) => [(x - x0) / f, (y - y0) / f]) }
       : null;
-  const whole = region ? (await decodeImage(bytes, { ...choice, maxSidePx: PREVIEW_MAX_SIDE })).image : image;
+  const whole = region ? (await decodeImage(input, { ...choice, maxSidePx: PREVIEW_MAX_SIDE })).image : image;
   return { image, info, roi, factor: f, x0, y0, whole };
 }

@@ -5,7 +5,7 @@
  */
 import "server-only";
 import sharp from "sharp";
-import { encodePng } from "@/lib/imaging";
+import { encodePng, type ImageInput } from "@/lib/imaging";
 import {
   mapLocalWavelength,
   readWavelength,
@@ -26,11 +26,11 @@ export interface ImageReadoutOutput {
 }
 
 export async function runImageReadout(
-  bytes: Uint8Array,
+  input: ImageInput,
   settings: ImageReadoutSettings & { pixelSizeUm: number; pixelSizeSource: string | null },
   step: (fraction: number, note: string) => Promise<void>,
 ): Promise<ImageReadoutOutput> {
-  const source = await readReadoutSource(bytes, settings);
+  const source = await readReadoutSource(input, settings);
   const { image, info, factor, x0, y0 } = source;
   await step(0.15, "decoded");
   const options: ReadoutOptions = {

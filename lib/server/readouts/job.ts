@@ -1,8 +1,9 @@
 /**
  * Job kind "readout": reads one upload with the settings stored on its readout row.
  *
- * Images and tables are read in a child process (data/readout-process.ts), so a large image or a
- * table of a million rows never holds the server's event loop.
+ * Images and tables are read in a child process (process.ts), so a large image or a table of a
+ * million rows never holds the server's event loop. The stored file reaches the child as a file
+ * (stored-file.ts: streamed, hashed on the way), never as one buffer.
  *
  * Nothing half-written: derived objects are put first, then the row becomes "succeeded" with its
  * result in one conditional update; if that update finds no running row (the upload was deleted
@@ -10,7 +11,9 @@
  * reason and no result, and never touches the upload.
  */
 import "server-only";
-import { createHash } from "node:crypto";
+import { mkdtempSync, rmSync } from "node:fs";
+import { tmpdir } from "node:os";
+import path from "node:path";
 import { readoutDerivedKey } from "@/storage/keys";
 import { StorageUnavailableError } from "@/storage/object-store";
 import { DERIVED_PRODUCTS, type DerivedProduct } from "@/lib/contracts/readout";
@@ -18,6 +21,7 @@ import { AppError } from "../errors";
 import { database, services } from "../services";
 import { toAppError } from "../core-errors";
 import { readImage, readTable } from "./process";
+import { fetchStoredFile } from "./stored-file";
 import { headlineOf, type ReadoutResult } from "./result";
 import type { StoredImageSettings, StoredReadoutSettings, StoredTableSettings } from "./settings";
 import { JobCancelledError, type JobCleanup, type JobHandler } from "../jobs/types";
@@ -41,24 +45,27 @@ export const runReadoutJob: JobHandler = async (job, ctx) => {
     if (ctx.signal.aborted) throw new JobCancelledError();
   };
   const written: string[] = [];
+  // The original is streamed to a file here (never held whole: a slide scan may be 1.8 GB) and
+  // read by the child from there; the folder goes with the job, whatever its end.
+  const dir = mkdtempSync(path.join(tmpdir(), "morphokin-readout-"));
   try {
     await row.update({ status: "running" });
     const upload = await m.Upload.findByPk(row.uploadId);
     if (!upload) throw new AppError("not_found", GONE);
-    const bytes = await store.getBuffer(upload.storageKey);
-    const digest = createHash("sha256").update(bytes).digest("hex");
-    if (digest !== row.inputSha256)
-      throw new AppError(
-        "conflict",
-        `the stored file's SHA-256 (${digest.slice(0, 12)}…) differs from the one recorded at upload (${row.inputSha256.slice(0, 12)}…); the original was changed or damaged`,
-      );
+    const input = await fetchStoredFile(
+      store,
+      upload.storageKey,
+      dir,
+      { sha256: row.inputSha256, sizeBytes: upload.sizeBytes },
+      ctx.signal,
+    );
     await ctx.progress(0.1, "file read");
     check();
     const settings = row.settings as unknown as StoredReadoutSettings;
     let result: ReadoutResult;
     const derivedKeys: Record<string, string> = {};
     if (settings.kind === "image") {
-      const out = await readImage(bytes, settings as StoredImageSettings, ctx.signal, async (f, note) => {
+      const out = await readImage(input, settings as StoredImageSettings, ctx.signal, async (f, note) => {
         check();
         await ctx.progress(f, note);
       });
@@ -71,7 +78,7 @@ export const runReadoutJob: JobHandler = async (job, ctx) => {
       }
       result = out.result;
     } else {
-      result = await readTable(bytes, settings as StoredTableSettings, ctx.signal);
+      result = await readTable(input, settings as StoredTableSettings, ctx.signal);
     }
     await ctx.progress(0.95, "saving");
     const h = headlineOf(result);
@@ -109,6 +116,8 @@ export const runReadoutJob: JobHandler = async (job, ctx) => {
     ).catch(() => undefined);
     if (cancelled) throw new JobCancelledError();
     throw app ?? err;
+  } finally {
+    rmSync(dir, { recursive: true, force: true });
   }
 };
 

@@ -9,11 +9,13 @@
  */
 import "server-only";
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
+import { readFile } from "node:fs/promises";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { readConfig } from "../config";
 import { AppError, type ErrorCode } from "../errors";
 import { parseProtocolLine, startChild } from "@/lib/workers/start-child";
+import { withImageInput } from "@/lib/workers/image-file";
 import { JobCancelledError } from "../jobs/types";
 import { runImageReadout, type ImageReadoutOutput } from "./image";
 import type { ImageReadoutResult, TableReadoutResult } from "./result";
@@ -28,15 +30,22 @@ export const readoutRunner = (): "child-process" | "in-process" =>
 
 const DERIVED = ["spectrum.json", "preview.png", "fft.png"] as const;
 
+/**
+ * An image readout of the stored file: its path (the child reads it by ranges, never whole when
+ * large) or its bytes (written to the child's folder first).
+ */
 export async function readImage(
-  bytes: Uint8Array,
+  input: string | Uint8Array,
   settings: StoredImageSettings,
   signal: AbortSignal,
   step: (fraction: number, note: string) => Promise<void>,
 ): Promise<ImageReadoutOutput> {
   if (signal.aborted) throw new JobCancelledError();
-  if (readoutRunner() === "in-process") return runImageReadout(bytes, settings, step);
-  return inChild(bytes, settings, signal, step, (stdout, dir) => {
+  if (readoutRunner() === "in-process")
+    return typeof input === "string"
+      ? withImageInput(input, (image) => runImageReadout(image, settings, step))
+      : runImageReadout(input, settings, step);
+  return inChild(input, settings, signal, step, (stdout, dir) => {
     const result = JSON.parse(stdout) as ImageReadoutResult;
     const derived = Object.fromEntries(
       DERIVED.map((name) => [name, readFileSync(path.join(dir, name))]),
@@ -47,14 +56,15 @@ export async function readImage(
 
 /** A CSV/TSV or XLSX table readout (parsing, column guess, spacing statistics); no derived objects. */
 export async function readTable(
-  bytes: Uint8Array,
+  input: string | Uint8Array,
   settings: StoredTableSettings,
   signal: AbortSignal,
 ): Promise<TableReadoutResult> {
   if (signal.aborted) throw new JobCancelledError();
-  if (readoutRunner() === "in-process") return runTableReadout(bytes, settings);
+  if (readoutRunner() === "in-process")
+    return runTableReadout(typeof input === "string" ? await readFile(input) : input, settings);
   return inChild(
-    bytes,
+    input,
     settings,
     signal,
     async () => undefined,
@@ -62,9 +72,9 @@ export async function readTable(
   );
 }
 
-/** Runs readout-child.ts on the bytes and settings; `read` turns its stdout (and out folder) into the result. */
+/** Runs readout-child.ts on the file (or bytes) and settings; `read` turns its stdout (and out folder) into the result. */
 async function inChild<T>(
-  bytes: Uint8Array,
+  file: string | Uint8Array,
   settings: StoredImageSettings | StoredTableSettings,
   signal: AbortSignal,
   step: (fraction: number, note: string) => Promise<void>,
@@ -72,9 +82,9 @@ async function inChild<T>(
 ): Promise<T> {
   const dir = mkdtempSync(path.join(tmpdir(), "morphokin-readout-"));
   try {
-    const input = path.join(dir, "input"),
+    const input = typeof file === "string" ? file : path.join(dir, "input"),
       settingsFile = path.join(dir, "settings.json");
-    writeFileSync(input, bytes);
+    if (typeof file !== "string") writeFileSync(input, file);
     writeFileSync(settingsFile, JSON.stringify(settings));
     type Failure = { code: ErrorCode; message: string; details: unknown };
     let failure: Failure | null = null;

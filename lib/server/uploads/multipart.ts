@@ -12,6 +12,7 @@ import path from "node:path";
 import { Readable } from "node:stream";
 import formidable, { errors as formidableErrors } from "formidable";
 import { AppError } from "../errors";
+import { checkRoomFor, gib } from "./disk-space";
 
 export interface ParsedUpload {
   fields: Record<string, string>;
@@ -57,6 +58,14 @@ export async function parseUpload(request: Request, maxBytes: number, tempRoot: 
     );
   if (!request.body) throw new AppError("bad_input", "the request has no body");
   mkdirSync(tempRoot, { recursive: true });
+  // The file is streamed to disk (never held whole in memory): it must fit there first.
+  if (declared > 0)
+    checkRoomFor(
+      declared,
+      tempRoot,
+      `this upload (${gib(declared)})`,
+      "try again later, or ask the lab's server administrator to free disk space",
+    );
   const dir = mkdtempSync(path.join(tempRoot, `${process.pid}-`));
   const active = activeUploadTemps() as Set<string>;
   active.add(dir);
@@ -121,6 +130,11 @@ export async function parseUpload(request: Request, maxBytes: number, tempRoot: 
         `the file is too large: the limit is ${maxBytes} bytes (${(maxBytes / 1048576).toFixed(0)} MiB)`,
       );
     }
+    if ((e as { code?: unknown }).code === "ENOSPC")
+      throw new AppError(
+        "too_large",
+        "the server's disk filled up while the file was being received, so it was not saved; try again later, or ask the lab's server administrator to free disk space",
+      );
     if (e.code === formidableErrors.smallerThanMinFileSize || e.code === formidableErrors.noEmptyFiles) {
       throw new AppError("bad_input", "the file is empty (0 bytes)");
     }

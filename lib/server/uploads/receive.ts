@@ -4,6 +4,7 @@
  */
 import "server-only";
 import { readFile } from "node:fs/promises";
+import { openImageFile, READ_WHOLE_MAX_BYTES } from "@/lib/workers/image-file";
 import sharp from "sharp";
 import {
   MAX_DECODE_PIXELS,
@@ -89,8 +90,10 @@ export async function storeParsed(
   parsed: ParsedUpload,
   extra: { batchId?: string } = {},
 ): Promise<ReceivedUpload> {
-  // A workbook's parts may lie beyond the first kilobytes: a ZIP is judged by its central directory.
-  const kind = sniffFileKind(isZip(parsed.head) ? await readFile(parsed.file.path) : parsed.head);
+  // A workbook's parts may lie beyond the first kilobytes: a ZIP is judged by its central directory
+  // (a very large one by its local headers: its bytes are not held whole).
+  const wholeZip = isZip(parsed.head) && parsed.file.sizeBytes <= READ_WHOLE_MAX_BYTES;
+  const kind = sniffFileKind(wholeZip ? await readFile(parsed.file.path) : parsed.head);
   if (!kind) {
     throw new AppError(
       "bad_input",
@@ -108,11 +111,17 @@ export async function storeParsed(
   let pixelSizeUm: number | null = typed;
   let pixelSizeSource: string | null = typed === null ? null : "uploader";
   let imageLayout: ImageLayout | null = null;
-  const bytes = isImage(kind) ? await readFile(parsed.file.path) : null;
-  // Headers only: channels, planes and time points, shown with the upload and checked before a readout.
-  if (bytes) imageLayout = await readImageLayout(bytes);
-  if (bytes && typed === null) {
-    const fromFile = readPixelSize(bytes, kind);
+  // Headers only, read by ranges (a slide scan is never held whole): channels, planes and time
+  // points, shown with the upload and checked before a readout, and the pixel size.
+  const image = isImage(kind) ? openImageFile(parsed.file.path) : null;
+  let fromFile: ReturnType<typeof readPixelSize> | null = null;
+  try {
+    if (image) imageLayout = await readImageLayout(image);
+    if (image && typed === null) fromFile = readPixelSize(image, kind);
+  } finally {
+    image?.close();
+  }
+  if (fromFile) {
     if (fromFile.pixelSizeUm === null) {
       throw new AppError(
         "bad_input",
