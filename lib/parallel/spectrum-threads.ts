@@ -32,8 +32,9 @@ export function createSpectrumThreads(): SpectrumThreads {
   let generation = 0;
   // The working buffers (half spectrum, the worker's rows) are reused by the next job of the same
   // size, as in realPowerSpectrum2d: fresh ones cost their page faults every readout. WeakRefs, so
-  // they never keep memory the collector wants back. The power array is the caller's and always new.
-  const kept: Array<WeakRef<SharedArrayBuffer> | null> = [null, null];
+  // they never keep memory the collector wants back. The power array is the caller's and new,
+  // unless the caller keeps nothing of it (reusePower): then it is reused too.
+  const kept: Array<WeakRef<SharedArrayBuffer> | null> = [null, null, null];
   const reuse = (slot: number, byteLength: number): SharedArrayBuffer => {
     const old = kept[slot]?.deref();
     if (old && old.byteLength === byteLength) return old;
@@ -55,14 +56,18 @@ export function createSpectrumThreads(): SpectrumThreads {
       const halfBuffer = reuse(0, bytes * 2 * halfWidth * height);
       const half = bytes === 8 ? new Float64Array(halfBuffer) : new Float32Array(halfBuffer);
       half.fill(0, 2 * halfWidth * srcHeight); // the zero padding's rows (a reused buffer may hold an older transform)
-      const power = new Float32Array(new SharedArrayBuffer(4 * halfWidth * height));
+      const power = new Float32Array(
+        job.reusePower ? reuse(2, 4 * halfWidth * height) : new SharedArrayBuffer(4 * halfWidth * height),
+      );
       // Rows are transformed in pairs, so the split falls on an even row; the worker's rows are
-      // copied into shared memory (the caller's image is an ordinary array).
+      // copied into shared memory, unless the image is in shared memory already (readWavelength's).
       const rowSplit = 2 * Math.ceil(srcHeight / 4);
-      const shared = new Float32Array(reuse(1, 4 * (srcHeight - rowSplit) * srcWidth));
-      shared.set(src.subarray(rowSplit * srcWidth));
+      const inShared = src.buffer instanceof SharedArrayBuffer;
+      const shared = inShared ? src : new Float32Array(reuse(1, 4 * (srcHeight - rowSplit) * srcWidth));
+      if (!inShared) shared.set(src.subarray(rowSplit * srcWidth));
+      const srcFirstRow = inShared ? 0 : rowSplit;
       const colSplit = Math.ceil(halfWidth / 2);
-      worker.postMessage({ ...job, src: shared, rowOffset: rowSplit, half, power, colSplit });
+      worker.postMessage({ ...job, src: shared, rowOffset: rowSplit, srcFirstRow, half, power, colSplit });
       start();
       transformRows(src, srcWidth, srcHeight, width, half, job.windowX, job.windowY, 0, rowSplit);
       awaitWord(ctrl, DONE, generation, FAIL);
