@@ -243,7 +243,7 @@ describe("what may be changed from", () => {
       });
       expect(r.status).toBe(422);
       const body = (await r.res.json()) as { error: { message: string; details: { field: string } } };
-      expect(body.error.message).toBe("changedFrom: there is no fit with this id in this lab");
+      expect(body.error.message).toBe("Changed from: there is no fit with this id in this lab");
       expect(body.error.details.field).toBe("changedFrom");
     }
     expect(await m.Fit.count({ where: { labId: lab.w.labId } })).toBe(before);

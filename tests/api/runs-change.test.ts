@@ -141,7 +141,7 @@ describe("what may be changed from", () => {
     for (const id of [foreign.id, randomUUID()]) {
       const r = await api("POST", RUNS, { json: { ...FIRST, changedFrom: id } });
       expect(r.status).toBe(422);
-      expect(r.body.error.message).toBe("changedFrom: there is no run with this id in this lab");
+      expect(r.body.error.message).toBe("Changed from: there is no run with this id in this lab");
       expect(r.body.error.details.field).toBe("changedFrom");
     }
     expect(await m.SimulationRun.count({ where: { labId: lab.w.labId } })).toBe(before);
