@@ -9,17 +9,61 @@ export { blur };
  */
 export type FlattenMethod = "auto" | "plane" | "blur" | "none";
 
+type PlaneSums = { sumZ: number; sumXZ: number; sumYZ: number };
+type Plane = { c0: number; c1: number; c2: number };
+
+/** Σx, Σy, Σx², Σy², Σxy over a full width × height grid, in closed form. */
+function gridMoments(width: number, height: number) {
+  const Sx = ((width - 1) * width) / 2,
+    Sxx = ((width - 1) * width * (2 * width - 1)) / 6;
+  const Sy = ((height - 1) * height) / 2,
+    Syy = ((height - 1) * height * (2 * height - 1)) / 6;
+  return { n: width * height, sx: Sx * height, sxx: Sxx * height, sy: Sy * width, syy: Syy * width, sxy: Sx * Sy };
+}
+
+/** The normal equations solved by Cramer's rule; null when they are singular. */
+function solvePlane(
+  n: number,
+  sx: number,
+  sy: number,
+  sxx: number,
+  syy: number,
+  sxy: number,
+  sz: number,
+  sxz: number,
+  syz: number,
+): Plane | null {
+  const det3 = (a: number[]) =>
+    a[0] * (a[4] * a[8] - a[5] * a[7]) - a[1] * (a[3] * a[8] - a[5] * a[6]) + a[2] * (a[3] * a[7] - a[4] * a[6]);
+  const m = [n, sx, sy, sx, sxx, sxy, sy, sxy, syy];
+  const d = det3(m);
+  if (!(Math.abs(d) > 1e-9 * Math.max(1, n) ** 3)) return null;
+  const c0 = det3([sz, sx, sy, sxz, sxx, sxy, syz, sxy, syy]) / d;
+  const c1 = det3([n, sz, sy, sx, sxz, sxy, sy, syz, syy]) / d;
+  const c2 = det3([n, sx, sz, sx, sxx, sxz, sy, sxy, syz]) / d;
+  return { c0, c1, c2 };
+}
+
+/** The least-squares plane of a full grid from its sums Σz, Σx·z, Σy·z (as subtractPlane fits it); null when singular. */
+export function planeCoefficients(width: number, height: number, sums: PlaneSums): Plane | null {
+  const g = gridMoments(width, height);
+  return solvePlane(g.n, g.sx, g.sy, g.sxx, g.syy, g.sxy, sums.sumZ, sums.sumXZ, sums.sumYZ);
+}
+
 /**
  * Least-squares plane z = c₀ + c₁x + c₂y over the included pixels, subtracted in place
  * (normal equations, 3×3, solved by Cramer's rule). Without a mask, returns the residual's SD
  * (n − 1) when its mean is zero to rounding, so the caller can skip subtractMean; else null.
+ * With `from` (full grid and `sums` only), the pixels are read from there and `data` only
+ * written: a copy and the subtraction in one pass.
  */
 export function subtractPlane(
   data: Float32Array,
   width: number,
   height: number,
   included: Uint8Array | null,
-  sums?: { sumZ: number; sumXZ: number; sumYZ: number },
+  sums?: PlaneSums,
+  from: Float32Array = data,
 ): number | null {
   let n = 0,
     sx = 0,
@@ -35,7 +79,7 @@ export function subtractPlane(
       const row = y * width;
       for (let x = 0; x < width; x++) {
         if (!included[row + x]) continue;
-        const z = data[row + x];
+        const z = from[row + x];
         n++;
         sx += x;
         sy += y;
@@ -49,16 +93,7 @@ export function subtractPlane(
     }
   } else {
     // Full grid: the coordinate sums have closed forms, so one pass only sums z and x·z per row.
-    n = width * height;
-    const Sx = ((width - 1) * width) / 2,
-      Sxx = ((width - 1) * width * (2 * width - 1)) / 6;
-    const Sy = ((height - 1) * height) / 2,
-      Syy = ((height - 1) * height * (2 * height - 1)) / 6;
-    sx = Sx * height;
-    sxx = Sxx * height;
-    sy = Sy * width;
-    syy = Syy * width;
-    sxy = Sx * Sy;
+    ({ n, sx, sxx, sy, syy, sxy } = gridMoments(width, height));
     // Sums taken by the pass that copied the region (extractRoi's stats) spare this one.
     if (sums) ({ sumZ: sz, sumXZ: sxz, sumYZ: syz } = sums);
     else
@@ -67,7 +102,7 @@ export function subtractPlane(
         let rz = 0,
           rxz = 0;
         for (let x = 0; x < width; x++) {
-          const z = data[row + x];
+          const z = from[row + x];
           rz += z;
           rxz += x * z;
         }
@@ -76,14 +111,12 @@ export function subtractPlane(
         syz += y * rz;
       }
   }
-  const det3 = (a: number[]) =>
-    a[0] * (a[4] * a[8] - a[5] * a[7]) - a[1] * (a[3] * a[8] - a[5] * a[6]) + a[2] * (a[3] * a[7] - a[4] * a[6]);
-  const m = [n, sx, sy, sx, sxx, sxy, sy, sxy, syy];
-  const d = det3(m);
-  if (!(Math.abs(d) > 1e-9 * Math.max(1, n) ** 3)) return subtractMean(data, included);
-  const c0 = det3([sz, sx, sy, sxz, sxx, sxy, syz, sxy, syy]) / d;
-  const c1 = det3([n, sz, sy, sx, sxz, sxy, sy, syz, syy]) / d;
-  const c2 = det3([n, sx, sz, sx, sxx, sxz, sy, sxy, syz]) / d;
+  const plane = solvePlane(n, sx, sy, sxx, syy, sxy, sz, sxz, syz);
+  if (!plane) {
+    if (from !== data) data.set(from);
+    return subtractMean(data, included);
+  }
+  const { c0, c1, c2 } = plane;
   let s = 0,
     ss = 0;
   for (let y = 0; y < height; y++) {
@@ -92,7 +125,8 @@ export function subtractPlane(
     let rowS = 0,
       rowSs = 0;
     for (let x = 0; x < width; x++) {
-      const v = (data[row + x] -= base + c1 * x);
+      const v = from[row + x] - (base + c1 * x);
+      data[row + x] = v;
       rowS += v;
       rowSs += v * v;
     }

@@ -50,10 +50,30 @@ export function findSaturated(
 
 /** The values of every k-th included pixel, sorted (k chosen for at most ~100 000 values). */
 function sampleSorted(data: Float32Array, included: Uint8Array | null, skip: Uint8Array | null): Float32Array {
-  const step = Math.max(1, Math.floor(data.length / 100_000));
+  const step = outlierSampleStep(data.length);
   const out: number[] = [];
   for (let i = 0; i < data.length; i += step) if ((!included || included[i]) && !(skip && skip[i])) out.push(data[i]);
   return Float32Array.from(out).sort();
+}
+
+/** Every k-th index of a region of n pixels that the outlier limits are estimated from (at most ~100 000). */
+export function outlierSampleStep(n: number): number {
+  return Math.max(1, Math.floor(n / 100_000));
+}
+
+/**
+ * The limits beyond which a flattened value is an outlier (see findOutliers), from a sorted
+ * sample of the analysed values; null when there are too few values or no spread.
+ */
+export function outlierLimits(s: Float32Array): { upper: number; lower: number } | null {
+  if (s.length < 16) return null;
+  const q = (f: number) => s[Math.min(s.length - 1, Math.floor(f * s.length))];
+  const median = q(0.5);
+  const dev = Float32Array.from(s, (v) => Math.abs(v - median)).sort();
+  const sd = 1.4826 * dev[Math.floor(dev.length / 2)];
+  const upper = median + Math.max(OUTLIER_Z * sd, 2 * (q(0.98) - median));
+  const lower = median - Math.max(OUTLIER_Z * sd, 2 * (median - q(0.02)));
+  return upper > median && lower < median ? { upper, lower } : null;
 }
 
 /** Outliers of a flattened image on either side: 1 = treat; and which of them were dark. */
@@ -77,15 +97,9 @@ export function findOutliers(
   included: Uint8Array | null,
   already: Uint8Array | null,
 ): FoundOutliers | null {
-  const s = sampleSorted(residual, included, already);
-  if (s.length < 16) return null;
-  const q = (f: number) => s[Math.min(s.length - 1, Math.floor(f * s.length))];
-  const median = q(0.5);
-  const dev = Float32Array.from(s, (v) => Math.abs(v - median)).sort();
-  const sd = 1.4826 * dev[Math.floor(dev.length / 2)];
-  const upper = median + Math.max(OUTLIER_Z * sd, 2 * (q(0.98) - median));
-  const lower = median - Math.max(OUTLIER_Z * sd, 2 * (median - q(0.02)));
-  if (!(upper > median && lower < median)) return null;
+  const limits = outlierLimits(sampleSorted(residual, included, already));
+  if (!limits) return null;
+  const { upper, lower } = limits;
   let mask: Uint8Array | null = null,
     dark: Uint8Array | null = null;
   for (let i = 0; i < residual.length; i++) {

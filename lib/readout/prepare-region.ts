@@ -7,30 +7,10 @@ import { findSaturated } from "./outliers";
 import { treatOutliers } from "./treat-outliers";
 import { extractRoi, type RegionStats } from "./roi";
 import { findTissueRegion } from "./tissue-mask";
+import { prepareWholeFrame } from "./prepare-whole-frame";
+import type { PreparedRegion } from "./prepared-region";
 
-/** The region after ROI, inversion, binning, outlier treatment, tissue mask and background flattening (not yet windowed). */
-export interface PreparedRegion {
-  data: Float32Array;
-  width: number;
-  height: number;
-  /** 1 = analysed (inside the ROI and the tissue, not excluded); null = every pixel. */
-  included: Uint8Array | null;
-  /** Integer binning applied to fit the analysis limit (1 = none). */
-  binFactor: number;
-  /** Pixel size of `data` (µm/px) = source pixel size × binFactor. */
-  pixelSizeUm: number;
-  /** Top-left of the region in source pixels. */
-  x0: number;
-  y0: number;
-  /** The tissue found inside the region (analysed grid), or null: the whole region is analysed. */
-  tissueMask: Uint8Array | null;
-  /** Fraction of the region's pixels analysed after the tissue mask (1 without one). */
-  tissueFraction: number;
-  /** Source pixels replaced by their surroundings: saturated, and bright and dark outliers with their rim. */
-  treatedSaturatedPx: number;
-  treatedBrightPx: number;
-  treatedDarkPx: number;
-}
+export type { PreparedRegion };
 
 export const MIN_REGION_SIDE_PX = 16;
 
@@ -43,6 +23,12 @@ function binMask(mask: Uint8Array, width: number, f: number, w: number, h: numbe
 }
 
 export function prepareRegion(image: GreyImage, settings: ResolvedReadoutOptions): PreparedRegion {
+  // A whole frame with the defaults: the same numbers in three passes over the pixels.
+  return prepareWholeFrame(image, settings) ?? prepareRegionStepByStep(image, settings);
+}
+
+/** Every case, one step after another (prepareWholeFrame gives the same numbers where it applies). */
+export function prepareRegionStepByStep(image: GreyImage, settings: ResolvedReadoutOptions): PreparedRegion {
   const roi = extractRoi(image, settings.roi ?? undefined, settings.excludeMask ?? undefined);
   let { data, width, height, included } = roi;
   if (width < MIN_REGION_SIDE_PX || height < MIN_REGION_SIDE_PX) {

@@ -106,10 +106,38 @@ export function findTissueRegion(
 ): TissueRegion {
   // Large regions are searched on a grid binned to at most SEARCH_SIDE_PX (a pattern shorter than
   // about 3 bins then shows no texture, and the whole region is analysed).
-  const f = Math.ceil(Math.max(width, height) / SEARCH_SIDE_PX);
+  const f = tissueSearchFactor(width, height);
   if (f <= 1) return findTissueOnGrid(residual, intensity, width, height, included);
   const r = binPixels(residual, width, height, included, f);
   const b = binPixels(intensity, width, height, included, f);
+  return findTissueOnBinned(r, b, f, width, height, included);
+}
+
+/** The binning of a region's grid that the tissue is searched on (1 = none). */
+export function tissueSearchFactor(width: number, height: number): number {
+  return Math.ceil(Math.max(width, height) / SEARCH_SIDE_PX);
+}
+
+/** A region binned by `tissueSearchFactor` (binPixels' result). */
+export interface BinnedGrid {
+  data: Float32Array;
+  width: number;
+  height: number;
+  included: Uint8Array | null;
+}
+
+/**
+ * findTissueRegion on the residual `r` and the intensity `b` already binned by f (as binPixels
+ * bins them), the mask brought back to the width × height grid.
+ */
+export function findTissueOnBinned(
+  r: BinnedGrid,
+  b: BinnedGrid,
+  f: number,
+  width: number,
+  height: number,
+  included: Uint8Array | null,
+): TissueRegion {
   const coarse = findTissueOnGrid(r.data, b.data, r.width, r.height, r.included);
   if (!coarse.mask) return coarse;
   const mask = new Uint8Array(width * height);

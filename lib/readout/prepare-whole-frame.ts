@@ -1,0 +1,228 @@
+import type { GreyImage } from "../imaging/grey-image";
+import {
+  addCoarseRow,
+  COARSE_SIGMA_PX,
+  coarseFactor,
+  emptyCoarseSums,
+  gridRow,
+  interpolateCoarseBackground,
+  type CoarseBackground,
+} from "./coarse-background";
+import { MESSAGES, ReadoutError } from "./errors";
+import { planeCoefficients, subtractBlur, subtractMean, subtractPlane } from "./flatten";
+import type { ResolvedReadoutOptions } from "./options";
+import { findSaturated, outlierLimits, outlierSampleStep } from "./outliers";
+import type { PreparedRegion } from "./prepared-region";
+import { takeRegionStats } from "./region-stats";
+import { findTissueOnBinned, tissueSearchFactor, type TissueRegion } from "./tissue-mask";
+
+/** What the background pass computes per pixel: the value before and after the background. */
+interface Source {
+  src: Float32Array;
+  /** Plane subtracted from the stored values first ("auto" flattening), else null. */
+  plane: { c0: number; c1: number; c2: number } | null;
+}
+
+/** The value `prepareRegion` holds at pixel (x, y) before the background: stored, or minus the plane (rounded as it stores it). */
+function sourceRow(s: Source, y: number, width: number, out: Float32Array): void {
+  const row = y * width;
+  if (!s.plane) {
+    out.set(s.src.subarray(row, row + width));
+    return;
+  }
+  const { c0, c1, c2 } = s.plane;
+  const base = c0 + c2 * y;
+  for (let x = 0; x < width; x++) out[x] = s.src[row + x] - (base + c1 * x);
+}
+
+/**
+ * prepareRegion for the commonest case, a whole frame (no ROI, no mask, no inversion, no
+ * binning) with the robust defaults, in three passes over the pixels instead of about nine: the
+ * region's statistics with the background's grid sums; the residual (data − background)
+ * computed on the fly, checked against the outlier limits and binned for the tissue search
+ * without being stored; then the flattened copy. Every number is the one the general path
+ * gives (the same sums in the same order, the same float32 roundings). Returns null where
+ * that path must run instead: clipped pixels or outliers to treat, a small frame, other options.
+ */
+export function prepareWholeFrame(image: GreyImage, settings: ResolvedReadoutOptions): PreparedRegion | null {
+  const { width, height, data: src } = image;
+  if (settings.roi || settings.excludeMask || settings.invert) return null;
+  if (Math.max(width, height) > settings.maxAnalysisSidePx) return null;
+  const auto = settings.outliers === "auto";
+  const wantTissue = settings.tissueMask === "auto";
+  if (!(auto || wantTissue || settings.flatten === "auto")) return null;
+  const sigmaPx = settings.blurSigmaPx ?? Math.min(width, height) / 8;
+  const tf = tissueSearchFactor(width, height);
+  if (sigmaPx < COARSE_SIGMA_PX || (wantTissue && tf <= 1)) return null;
+  const grid = emptyCoarseSums(width, height, coarseFactor(sigmaPx));
+  // Pass 1: the region's statistics (and, without the plane first, the grid sums on the way).
+  const plain = settings.flatten !== "auto";
+  const stats = takeRegionStats(src, width, height, plain ? (row, y) => addCoarseRow(grid, src, row, y, width) : null);
+  if (auto && findSaturated(src, width, height, stats)) return null;
+  const planeSums = { sumZ: stats.sumZ, sumXZ: stats.sumXZ, sumYZ: stats.sumYZ };
+  const source: Source = { src, plane: plain ? null : planeCoefficients(width, height, planeSums) };
+  if (!plain && !source.plane) return null;
+  const line = new Float32Array(width);
+  if (!plain)
+    for (let y = 0; y < height; y++) {
+      sourceRow(source, y, width, line);
+      addCoarseRow(grid, line, 0, y, width);
+    }
+  const bg = interpolateCoarseBackground(grid, width, height, sigmaPx, true);
+  const limits = auto ? outlierLimits(sampleResidual(source, bg, width, height)) : null;
+  // Pass 2: the residual, on the fly.
+  const pass = residualPass(source, bg, width, height, limits, wantTissue ? tf : 0, line);
+  if (!pass) return null; // outliers to treat: the general path replaces them
+  const tissue: TissueRegion =
+    wantTissue && pass.binned
+      ? findTissueOnBinned(pass.binned.residual, pass.binned.intensity, tf, width, height, null)
+      : { mask: null, fraction: 1 };
+  let scale = 0;
+  for (let i = 0; i < src.length; i += 97) scale = Math.max(scale, Math.abs(src[i]));
+  // Pass 3: the flattened copy.
+  const data = new Float32Array(width * height);
+  const included = tissue.mask;
+  let known: number | null = null;
+  if (settings.flatten === "auto" && !included) known = writeResidual(source, bg, width, height, data);
+  else if (settings.flatten === "plane" && !included) known = subtractPlane(data, width, height, null, planeSums, src);
+  else {
+    for (let y = 0; y < height; y++) {
+      sourceRow(source, y, width, line);
+      data.set(line, y * width);
+    }
+    if (settings.flatten === "plane") subtractPlane(data, width, height, included);
+    else if (settings.flatten !== "none") subtractBlur(data, width, height, included, sigmaPx);
+  }
+  const sd = known !== null && !included ? known : subtractMean(data, included);
+  if (!(sd > 1e-6 * Math.max(1, scale))) throw new ReadoutError("no_variation", MESSAGES.noVariation, "image");
+  return {
+    data,
+    width,
+    height,
+    included,
+    binFactor: 1,
+    pixelSizeUm: settings.pixelSizeUm,
+    x0: 0,
+    y0: 0,
+    tissueMask: tissue.mask,
+    tissueFraction: tissue.fraction,
+    treatedSaturatedPx: 0,
+    treatedBrightPx: 0,
+    treatedDarkPx: 0,
+  };
+}
+
+/** The residual at every k-th pixel (outlierSampleStep), sorted: findOutliers' sample, without the residual stored. */
+function sampleResidual(s: Source, bg: CoarseBackground, width: number, height: number): Float32Array {
+  const n = width * height,
+    step = outlierSampleStep(n);
+  const out = new Float32Array(Math.ceil(n / step));
+  const line = new Float32Array(width);
+  let k = 0,
+    lastY = -1;
+  for (let i = 0; i < n; i += step) {
+    const y = (i / width) | 0,
+      x = i - y * width;
+    if (y !== lastY) {
+      sourceRow(s, y, width, line);
+      lastY = y;
+    }
+    const { y0, y1, ty } = gridRow(y, bg.f, bg.bh);
+    out[k++] = line[x] - (bg.rows[y0 * width + x] * (1 - ty) + bg.rows[y1 * width + x] * ty) - bg.offset;
+  }
+  return out.sort();
+}
+
+interface ResidualPass {
+  /** The residual and the intensity binned by the tissue search's factor, as binPixels bins them. */
+  binned: {
+    residual: { data: Float32Array; width: number; height: number; included: null };
+    intensity: { data: Float32Array; width: number; height: number; included: null };
+  } | null;
+}
+
+/**
+ * One pass computing the residual (rounded to float32 as the general path stores it), returning
+ * null at the first value beyond the outlier limits, and binning the residual and the intensity
+ * by `tf` (0: no binning) in binPixels' order.
+ */
+function residualPass(
+  s: Source,
+  bg: CoarseBackground,
+  width: number,
+  height: number,
+  limits: { upper: number; lower: number } | null,
+  tf: number,
+  line: Float32Array,
+): ResidualPass | null {
+  const upper = limits ? limits.upper : Infinity,
+    lower = limits ? limits.lower : -Infinity;
+  const res = new Float32Array(width);
+  const w = tf > 0 ? Math.floor(width / tf) : 0,
+    h = tf > 0 ? Math.floor(height / tf) : 0;
+  const outR = new Float32Array(w * h),
+    outI = new Float32Array(w * h);
+  const accR = new Float64Array(w),
+    accI = new Float64Array(w);
+  const norm = tf > 0 ? 1 / (tf * tf) : 0;
+  const { rows, offset } = bg;
+  for (let y = 0; y < height; y++) {
+    sourceRow(s, y, width, line);
+    const { y0, y1, ty } = gridRow(y, bg.f, bg.bh);
+    const uy = 1 - ty,
+      top = y0 * width,
+      bottom = y1 * width;
+    for (let x = 0; x < width; x++) {
+      const v = Math.fround(line[x] - (rows[top + x] * uy + rows[bottom + x] * ty) - offset);
+      if (v > upper || v < lower) return null;
+      res[x] = v;
+    }
+    if (tf > 0 && y < h * tf) {
+      for (let bx = 0, i = 0; bx < w; bx++) {
+        let sr = 0,
+          si = 0;
+        for (const end = i + tf; i < end; i++) {
+          sr += res[i];
+          si += line[i];
+        }
+        accR[bx] += sr;
+        accI[bx] += si;
+      }
+      if ((y + 1) % tf === 0) {
+        const by = (y + 1) / tf - 1;
+        for (let bx = 0; bx < w; bx++) {
+          outR[by * w + bx] = accR[bx] * norm;
+          outI[by * w + bx] = accI[bx] * norm;
+        }
+        accR.fill(0);
+        accI.fill(0);
+      }
+    }
+  }
+  const grid = (data: Float32Array) => ({ data, width: w, height: h, included: null });
+  return { binned: tf > 0 ? { residual: grid(outR), intensity: grid(outI) } : null };
+}
+
+/** data = the centred residual, as subtractCoarseBackground writes it; returns its SD (n − 1). */
+function writeResidual(s: Source, bg: CoarseBackground, width: number, height: number, data: Float32Array): number {
+  const line = new Float32Array(width);
+  const { rows, offset } = bg;
+  let ss = 0;
+  for (let y = 0; y < height; y++) {
+    sourceRow(s, y, width, line);
+    const { y0, y1, ty } = gridRow(y, bg.f, bg.bh);
+    const uy = 1 - ty,
+      top = y0 * width,
+      bottom = y1 * width,
+      row = y * width;
+    let rowSs = 0;
+    for (let x = 0; x < width; x++) {
+      const v = line[x] - (rows[top + x] * uy + rows[bottom + x] * ty) - offset;
+      data[row + x] = v;
+      rowSs += v * v;
+    }
+    ss += rowSs;
+  }
+  const n = width * height;
+  return n > 1 ? Math.sqrt(ss / (n - 1)) : 0;
+}
