@@ -13,6 +13,12 @@ export interface RealPowerSpectrumOptions {
    * bits as realFft2d then halfPowerSpectrum.
    */
   precision?: SpectrumPrecision;
+  /**
+   * The caller keeps nothing of the result after its own synchronous call: |F|² may be an array
+   * reused by the next such transform of the same size (the page faults of a fresh 32 MiB array
+   * for a 4096² frame cost more than the radial average that reads it).
+   */
+  reusePower?: boolean;
 }
 
 /** |F|² of the non-redundant half plane: `height` rows of `halfWidth` = width/2 + 1 bins. */
@@ -46,13 +52,15 @@ export function realPowerSpectrum2d(
   if (executor && width * height >= MIN_PARALLEL_BINS) {
     const { windowX, windowY } = options;
     const precision = options.precision ?? "float32";
-    const power = executor.halfPower({ src, srcWidth, srcHeight, width, height, windowX, windowY, precision });
+    const reusePower = options.reusePower ?? false;
+    const job = { src, srcWidth, srcHeight, width, height, windowX, windowY, precision, reusePower };
+    const power = executor.halfPower(job);
     if (power) return { halfWidth, power };
   }
   const half = halfScratch(2 * halfWidth * height, options.precision ?? "float32");
   half.fill(0, 2 * halfWidth * srcHeight); // the zero padding's rows: a reused array may hold an older transform
   transformRows(src, srcWidth, srcHeight, width, half, options.windowX, options.windowY, 0, srcHeight);
-  const power = new Float32Array(halfWidth * height);
+  const power = options.reusePower ? powerScratch(halfWidth * height) : new Float32Array(halfWidth * height);
   transformColumnsToPower(half, halfWidth, height, power, 0, halfWidth);
   return { halfWidth, power };
 }
@@ -72,6 +80,17 @@ function halfScratch(n: number, precision: SpectrumPrecision): Float32Array | Fl
   const half = new wanted(n);
   scratch = new WeakRef(half);
   return half;
+}
+
+let powerKept: WeakRef<Float32Array> | null = null;
+
+/** |F|² for a caller that keeps nothing of it (reusePower); every value is overwritten by the column stage. */
+function powerScratch(n: number): Float32Array {
+  const kept = powerKept?.deref();
+  if (kept && kept.length === n) return kept;
+  const power = new Float32Array(n);
+  powerKept = new WeakRef(power);
+  return power;
 }
 
 /**

@@ -11,6 +11,8 @@ export interface HalfPowerJob {
   windowX?: Float64Array;
   windowY?: Float64Array;
   precision: SpectrumPrecision;
+  /** |F|² may be an array reused by the executor's next such job (see RealPowerSpectrumOptions). */
+  reusePower?: boolean;
 }
 
 /**

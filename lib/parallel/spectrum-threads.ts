@@ -32,8 +32,9 @@ export function createSpectrumThreads(): SpectrumThreads {
   let generation = 0;
   // The working buffers (half spectrum, the worker's rows) are reused by the next job of the same
   // size, as in realPowerSpectrum2d: fresh ones cost their page faults every readout. WeakRefs, so
-  // they never keep memory the collector wants back. The power array is the caller's and always new.
-  const kept: Array<WeakRef<SharedArrayBuffer> | null> = [null, null];
+  // they never keep memory the collector wants back. The power array is the caller's and new,
+  // unless the caller keeps nothing of it (reusePower): then it is reused too.
+  const kept: Array<WeakRef<SharedArrayBuffer> | null> = [null, null, null];
   const reuse = (slot: number, byteLength: number): SharedArrayBuffer => {
     const old = kept[slot]?.deref();
     if (old && old.byteLength === byteLength) return old;
@@ -55,7 +56,9 @@ export function createSpectrumThreads(): SpectrumThreads {
       const halfBuffer = reuse(0, bytes * 2 * halfWidth * height);
       const half = bytes === 8 ? new Float64Array(halfBuffer) : new Float32Array(halfBuffer);
       half.fill(0, 2 * halfWidth * srcHeight); // the zero padding's rows (a reused buffer may hold an older transform)
-      const power = new Float32Array(new SharedArrayBuffer(4 * halfWidth * height));
+      const power = new Float32Array(
+        job.reusePower ? reuse(2, 4 * halfWidth * height) : new SharedArrayBuffer(4 * halfWidth * height),
+      );
       // Rows are transformed in pairs, so the split falls on an even row; the worker's rows are
       // copied into shared memory (the caller's image is an ordinary array).
       const rowSplit = 2 * Math.ceil(srcHeight / 4);

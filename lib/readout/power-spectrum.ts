@@ -19,6 +19,8 @@ export interface SpectrumWindow {
   window: WindowKind;
   tukeyAlpha?: number;
   precision?: SpectrumPrecision;
+  /** The caller keeps nothing of the spectrum after its own synchronous call: |F|² may be a reused array. */
+  reusePower?: boolean;
 }
 
 /**
@@ -38,6 +40,7 @@ export function computePowerSpectrum(
     windowX: taper ? makeWindow1d(window.window, width, window.tukeyAlpha) : undefined,
     windowY: taper ? makeWindow1d(window.window, height, window.tukeyAlpha) : undefined,
     precision: window?.precision,
+    reusePower: window?.reusePower,
   });
   return { padWidth, padHeight, halfWidth: half.halfWidth, power: half.power, ringN: Math.min(width, height) };
 }

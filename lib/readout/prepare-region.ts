@@ -22,9 +22,13 @@ function binMask(mask: Uint8Array, width: number, f: number, w: number, h: numbe
   return out;
 }
 
-export function prepareRegion(image: GreyImage, settings: ResolvedReadoutOptions): PreparedRegion {
+/**
+ * The region ready for the FFT. `reuse`: the caller keeps nothing of the result after its own
+ * synchronous call (readWavelength), so a whole frame's flattened copy may be a reused array.
+ */
+export function prepareRegion(image: GreyImage, settings: ResolvedReadoutOptions, reuse = false): PreparedRegion {
   // A whole frame with the defaults: the same numbers in three passes over the pixels.
-  return prepareWholeFrame(image, settings) ?? prepareRegionStepByStep(image, settings);
+  return prepareWholeFrame(image, settings, reuse) ?? prepareRegionStepByStep(image, settings);
 }
 
 /** Every case, one step after another (prepareWholeFrame gives the same numbers where it applies). */

@@ -14,6 +14,7 @@ import type { ResolvedReadoutOptions } from "./options";
 import { findSaturated, outlierLimits, outlierSampleStep } from "./outliers";
 import type { PreparedRegion } from "./prepared-region";
 import { takeRegionStats } from "./region-stats";
+import { reusedFloat32 } from "./reused-buffer";
 import { findTissueOnBinned, tissueSearchFactor, type TissueRegion } from "./tissue-mask";
 
 /** What the background pass computes per pixel: the value before and after the background. */
@@ -41,10 +42,15 @@ function sourceRow(s: Source, y: number, width: number, out: Float32Array): void
  * region's statistics with the background's grid sums; the residual (data − background)
  * computed on the fly, checked against the outlier limits and binned for the tissue search
  * without being stored; then the flattened copy. Every number is the one the general path
- * gives (the same sums in the same order, the same float32 roundings). Returns null where
+ * gives (the same sums in the same order, the same float32 roundings). With `reuse`, the
+ * flattened copy is an array reused by the next call (reusedFloat32). Returns null where
  * that path must run instead: clipped pixels or outliers to treat, a small frame, other options.
  */
-export function prepareWholeFrame(image: GreyImage, settings: ResolvedReadoutOptions): PreparedRegion | null {
+export function prepareWholeFrame(
+  image: GreyImage,
+  settings: ResolvedReadoutOptions,
+  reuse = false,
+): PreparedRegion | null {
   const { width, height, data: src } = image;
   if (settings.roi || settings.excludeMask || settings.invert) return null;
   if (Math.max(width, height) > settings.maxAnalysisSidePx) return null;
@@ -57,7 +63,7 @@ export function prepareWholeFrame(image: GreyImage, settings: ResolvedReadoutOpt
   const grid = emptyCoarseSums(width, height, coarseFactor(sigmaPx));
   // Pass 1: the region's statistics (and, without the plane first, the grid sums on the way).
   const plain = settings.flatten !== "auto";
-  const stats = takeRegionStats(src, width, height, plain ? (row, y) => addCoarseRow(grid, src, row, y, width) : null);
+  const stats = takeRegionStats(src, width, height, plain ? grid : null);
   if (auto && findSaturated(src, width, height, stats)) return null;
   const planeSums = { sumZ: stats.sumZ, sumXZ: stats.sumXZ, sumYZ: stats.sumYZ };
   const source: Source = { src, plane: plain ? null : planeCoefficients(width, height, planeSums) };
@@ -80,7 +86,8 @@ export function prepareWholeFrame(image: GreyImage, settings: ResolvedReadoutOpt
   let scale = 0;
   for (let i = 0; i < src.length; i += 97) scale = Math.max(scale, Math.abs(src[i]));
   // Pass 3: the flattened copy.
-  const data = new Float32Array(width * height);
+  // Reused across readouts when the caller keeps nothing of the region after its call (readWavelength).
+  const data = reuse ? reusedFloat32("prepared-region", width * height) : new Float32Array(width * height);
   const included = tissue.mask;
   let known: number | null = null;
   if (settings.flatten === "auto" && !included) known = writeResidual(source, bg, width, height, data);
@@ -172,22 +179,19 @@ function residualPass(
     const uy = 1 - ty,
       top = y0 * width,
       bottom = y1 * width;
+    // The row's extremes, checked once per row: the stored (float32) residual is beyond a limit
+    // exactly when the rounded extreme is (rounding is monotone).
+    let hi = -Infinity,
+      lo = Infinity;
     for (let x = 0; x < width; x++) {
-      const v = Math.fround(line[x] - (rows[top + x] * uy + rows[bottom + x] * ty) - offset);
-      if (v > upper || v < lower) return null;
+      const v = line[x] - (rows[top + x] * uy + rows[bottom + x] * ty) - offset;
       res[x] = v;
+      if (v > hi) hi = v;
+      if (v < lo) lo = v;
     }
+    if (Math.fround(hi) > upper || Math.fround(lo) < lower) return null;
     if (tf > 0 && y < h * tf) {
-      for (let bx = 0, i = 0; bx < w; bx++) {
-        let sr = 0,
-          si = 0;
-        for (const end = i + tf; i < end; i++) {
-          sr += res[i];
-          si += line[i];
-        }
-        accR[bx] += sr;
-        accI[bx] += si;
-      }
+      addBlockSums(res, line, accR, accI, w, tf);
       if ((y + 1) % tf === 0) {
         const by = (y + 1) / tf - 1;
         for (let bx = 0; bx < w; bx++) {
@@ -201,6 +205,41 @@ function residualPass(
   }
   const grid = (data: Float32Array) => ({ data, width: w, height: h, included: null });
   return { binned: tf > 0 ? { residual: grid(outR), intensity: grid(outI) } : null };
+}
+
+/**
+ * Adds each block of tf values of `a` and of `b` to its slot (binPixels' order: a sum per block in
+ * double from 0, then added to the slot); the common factors 2 and 4 written out.
+ */
+function addBlockSums(
+  a: Float32Array,
+  b: Float32Array,
+  accA: Float64Array,
+  accB: Float64Array,
+  w: number,
+  tf: number,
+): void {
+  if (tf === 4)
+    for (let bx = 0, i = 0; bx < w; bx++, i += 4) {
+      accA[bx] += a[i] + a[i + 1] + a[i + 2] + a[i + 3];
+      accB[bx] += b[i] + b[i + 1] + b[i + 2] + b[i + 3];
+    }
+  else if (tf === 2)
+    for (let bx = 0, i = 0; bx < w; bx++, i += 2) {
+      accA[bx] += a[i] + a[i + 1];
+      accB[bx] += b[i] + b[i + 1];
+    }
+  else
+    for (let bx = 0, i = 0; bx < w; bx++) {
+      let sa = 0,
+        sb = 0;
+      for (const end = i + tf; i < end; i++) {
+        sa += a[i];
+        sb += b[i];
+      }
+      accA[bx] += sa;
+      accB[bx] += sb;
+    }
 }
 
 /** data = the centred residual, as subtractCoarseBackground writes it; returns its SD (n − 1). */

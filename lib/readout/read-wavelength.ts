@@ -38,7 +38,8 @@ function searchFromRing(ringN: number, region: PreparedRegion, includedCount: nu
  */
 export function readWavelength(image: GreyImage, options: ReadoutOptions): WavelengthReadout {
   const settings = resolveReadoutOptions(options, image.width, image.height);
-  const region = prepareRegion(image, settings);
+  // Nothing of the region or its spectrum outlives this call: their large arrays may be reused ones.
+  const region = prepareRegion(image, settings, true);
   // Pixels inside the mask, counted once (the peak search and the uncertainty both use it).
   const includedCount = countIncluded(region.included, region.width * region.height);
   // The flattened region stays unwindowed for the sub-regions and the spot search: the separable
@@ -50,7 +51,7 @@ export function readWavelength(image: GreyImage, options: ReadoutOptions): Wavel
     const copy = region.data.slice();
     applyMaskTaper(copy, region.width, region.height, region.included!);
     spec = computePowerSpectrum(copy, region.width, region.height, { ...settings, window: "none" });
-  } else spec = computePowerSpectrum(region.data, region.width, region.height, settings);
+  } else spec = computePowerSpectrum(region.data, region.width, region.height, { ...settings, reusePower: true });
   const a = analyseSpectrum(spec, settings.lowCutCycles, [searchFromRing(spec.ringN, region, includedCount), Infinity]);
   const px = region.pixelSizeUm; // µm per analysed pixel
   const periodFound = a.significance >= settings.significanceThreshold;

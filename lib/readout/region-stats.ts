@@ -1,17 +1,18 @@
+import type { CoarseSums } from "./coarse-background";
 import type { RegionStats } from "./roi";
 
 export type { RegionStats };
 
 /**
  * The RegionStats of a whole width × height image, read without copying it (the same sums in the
- * same order as extractRoi's copying pass). `eachRow(row, y)`, when given, is called after each
- * row is read, so another sum over the rows can ride on the same pass while the row is in cache.
+ * same order as extractRoi's copying pass). With `grid`, the background's grid sums ride on the
+ * same pass (addCoarseRow's sums, in its order), so the pixels are read once for both.
  */
 export function takeRegionStats(
   src: Float32Array,
   width: number,
   height: number,
-  eachRow: ((row: number, y: number) => void) | null,
+  grid: CoarseSums | null,
 ): RegionStats {
   let min = Infinity,
     max = -Infinity,
@@ -24,30 +25,41 @@ export function takeRegionStats(
     const from = y * width;
     let rz = 0,
       rxz = 0;
-    for (let x = 0; x < width; x++) {
-      const v = src[from + x];
-      // Written so, the counts compile to plain branches (a conditional expression made this loop 4× slower).
-      if (v >= max) {
-        if (v > max) {
-          max = v;
-          atMax = 0;
+    const f = grid ? grid.f : width,
+      cells = grid ? grid.bw : 1,
+      brow = grid ? ((y / f) | 0) * cells : 0;
+    for (let bx = 0; bx < cells; bx++) {
+      const x1 = Math.min(width, (bx + 1) * f);
+      let s = 0;
+      for (let x = bx * f; x < x1; x++) {
+        const v = src[from + x];
+        s += v;
+        // Written so, the counts compile to plain branches (a conditional expression made this loop 4× slower).
+        if (v >= max) {
+          if (v > max) {
+            max = v;
+            atMax = 0;
+          }
+          atMax++;
         }
-        atMax++;
-      }
-      if (v <= min) {
-        if (v < min) {
-          min = v;
-          atMin = 0;
+        if (v <= min) {
+          if (v < min) {
+            min = v;
+            atMin = 0;
+          }
+          atMin++;
         }
-        atMin++;
+        rz += v;
+        rxz += x * v;
       }
-      rz += v;
-      rxz += x * v;
+      if (grid) {
+        grid.sum[brow + bx] += s;
+        grid.count[brow + bx] += x1 - bx * f;
+      }
     }
     sumZ += rz;
     sumXZ += rxz;
     sumYZ += y * rz;
-    eachRow?.(from, y);
   }
   return { min, max, atMin, atMax, sumZ, sumXZ, sumYZ };
 }
