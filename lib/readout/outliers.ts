@@ -48,12 +48,12 @@ export function findSaturated(
   return mask;
 }
 
-/** The values of every k-th included pixel, sorted (k chosen for at most ~100 000 values). */
-function sampleSorted(data: Float32Array, included: Uint8Array | null, skip: Uint8Array | null): Float32Array {
+/** The values of every k-th included pixel (k chosen for at most ~100 000 values). */
+function sampleValues(data: Float32Array, included: Uint8Array | null, skip: Uint8Array | null): Float32Array {
   const step = outlierSampleStep(data.length);
   const out: number[] = [];
   for (let i = 0; i < data.length; i += step) if ((!included || included[i]) && !(skip && skip[i])) out.push(data[i]);
-  return Float32Array.from(out).sort();
+  return Float32Array.from(out);
 }
 
 /** Every k-th index of a region of n pixels that the outlier limits are estimated from (at most ~100 000). */
@@ -62,18 +62,64 @@ export function outlierSampleStep(n: number): number {
 }
 
 /**
- * The limits beyond which a flattened value is an outlier (see findOutliers), from a sorted
- * sample of the analysed values; null when there are too few values or no spread.
+ * The limits beyond which a flattened value is an outlier (see findOutliers), from a sample of the
+ * analysed values in any order (reordered in place); null when there are too few values or no spread.
  */
 export function outlierLimits(s: Float32Array): { upper: number; lower: number } | null {
   if (s.length < 16) return null;
-  const q = (f: number) => s[Math.min(s.length - 1, Math.floor(f * s.length))];
+  // Order statistics by selection, not a sort: the same elements a sort would put there (NaN aside).
+  const q = (f: number) => selectKth(s, Math.min(s.length - 1, Math.floor(f * s.length)));
   const median = q(0.5);
-  const dev = Float32Array.from(s, (v) => Math.abs(v - median)).sort();
-  const sd = 1.4826 * dev[Math.floor(dev.length / 2)];
+  const dev = new Float32Array(s.length);
+  for (let i = 0; i < s.length; i++) dev[i] = Math.abs(s[i] - median);
+  const sd = 1.4826 * selectKth(dev, Math.floor(dev.length / 2));
   const upper = median + Math.max(OUTLIER_Z * sd, 2 * (q(0.98) - median));
   const lower = median - Math.max(OUTLIER_Z * sd, 2 * (median - q(0.02)));
   return upper > median && lower < median ? { upper, lower } : null;
+}
+
+/**
+ * The k-th smallest value of `a` (0-based), reordering `a` in place: Hoare's selection (Hoare 1961,
+ * CACM 4:321, "Algorithm 65: FIND") with a median-of-three pivot, O(n) on average. With a NaN in
+ * `a` it sorts instead (a NaN compares false both ways), so the answer is always the sort's.
+ */
+export function selectKth(a: Float32Array, k: number): number {
+  for (let i = 0; i < a.length; i++)
+    if (a[i] !== a[i]) {
+      a.sort();
+      return a[k];
+    }
+  let lo = 0,
+    hi = a.length - 1;
+  while (hi > lo) {
+    const mid = (lo + hi) >>> 1;
+    // Median of three into a[mid], as the pivot.
+    if (a[mid] < a[lo]) swap(a, mid, lo);
+    if (a[hi] < a[lo]) swap(a, hi, lo);
+    if (a[hi] < a[mid]) swap(a, hi, mid);
+    const pivot = a[mid];
+    let i = lo,
+      j = hi;
+    while (i <= j) {
+      while (a[i] < pivot) i++;
+      while (a[j] > pivot) j--;
+      if (i <= j) {
+        swap(a, i, j);
+        i++;
+        j--;
+      }
+    }
+    if (k <= j) hi = j;
+    else if (k >= i) lo = i;
+    else return a[k];
+  }
+  return a[k];
+}
+
+function swap(a: Float32Array, i: number, j: number): void {
+  const t = a[i];
+  a[i] = a[j];
+  a[j] = t;
 }
 
 /** Outliers of a flattened image on either side: 1 = treat; and which of them were dark. */
@@ -97,7 +143,7 @@ export function findOutliers(
   included: Uint8Array | null,
   already: Uint8Array | null,
 ): FoundOutliers | null {
-  const limits = outlierLimits(sampleSorted(residual, included, already));
+  const limits = outlierLimits(sampleValues(residual, included, already));
   if (!limits) return null;
   const { upper, lower } = limits;
   let mask: Uint8Array | null = null,

@@ -119,7 +119,7 @@ export function prepareWholeFrame(
   };
 }
 
-/** The residual at every k-th pixel (outlierSampleStep), sorted: findOutliers' sample, without the residual stored. */
+/** The residual at every k-th pixel (outlierSampleStep): findOutliers' sample, without the residual stored. */
 function sampleResidual(s: Source, bg: CoarseBackground, width: number, height: number): Float32Array {
   const n = width * height,
     step = outlierSampleStep(n);
@@ -137,7 +137,7 @@ function sampleResidual(s: Source, bg: CoarseBackground, width: number, height: 
     const { y0, y1, ty } = gridRow(y, bg.f, bg.bh);
     out[k++] = line[x] - (bg.rows[y0 * width + x] * (1 - ty) + bg.rows[y1 * width + x] * ty) - bg.offset;
   }
-  return out.sort();
+  return out;
 }
 
 interface ResidualPass {
