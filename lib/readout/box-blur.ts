@@ -54,6 +54,19 @@ function boxPassColumns(src: Float32Array, dst: Float32Array, width: number, hei
       hi = k + r;
     const n = Math.min(hi, height - 1) - Math.max(lo, 0) + 1;
     const out = k * width;
+    if (hi + 1 < height && lo >= 0) {
+      // Inside the column the three steps in one loop, each column's sum in the same order.
+      const add = (hi + 1) * width,
+        sub = lo * width;
+      for (let x = 0; x < width; x++) {
+        let v = acc[x];
+        dst[out + x] = v / n;
+        v += src[add + x];
+        v -= src[sub + x];
+        acc[x] = v;
+      }
+      continue;
+    }
     for (let x = 0; x < width; x++) dst[out + x] = acc[x] / n;
     if (hi + 1 < height) {
       const add = (hi + 1) * width;
@@ -66,13 +79,96 @@ function boxPassColumns(src: Float32Array, dst: Float32Array, width: number, hei
   }
 }
 
+/** The start of a row's running box (boxPass with step 1): the first sum and the clamped head; returns the sum. */
+function rowHead(
+  src: Float32Array,
+  dst: Float32Array,
+  base: number,
+  len: number,
+  r: number,
+  innerFrom: number,
+): number {
+  let acc = 0;
+  for (let k = 0; k <= Math.min(r, len - 1); k++) acc += src[base + k];
+  for (let k = 0; k < innerFrom; k++) {
+    const lo = k - r,
+      hi = k + r;
+    dst[base + k] = acc / (Math.min(hi, len - 1) - Math.max(lo, 0) + 1);
+    if (hi + 1 < len) acc += src[base + hi + 1];
+    if (lo >= 0) acc -= src[base + lo];
+  }
+  return acc;
+}
+
+/** The clamped end of a row's running box, from its sum after the whole boxes. */
+function rowTail(
+  src: Float32Array,
+  dst: Float32Array,
+  base: number,
+  len: number,
+  r: number,
+  innerTo: number,
+  acc: number,
+): void {
+  for (let k = innerTo; k < len; k++) {
+    const lo = k - r,
+      hi = k + r;
+    dst[base + k] = acc / (Math.min(hi, len - 1) - Math.max(lo, 0) + 1);
+    if (hi + 1 < len) acc += src[base + hi + 1];
+    if (lo >= 0) acc -= src[base + lo];
+  }
+}
+
+/**
+ * boxPass along rows, four rows at a time through the whole boxes: each row's running sum is a
+ * chain of dependent additions, and four independent chains keep the processor busy where one
+ * waits on each addition. Every row's sums are the same, in the same order, as boxPass's.
+ */
+function boxPassRows(src: Float32Array, dst: Float32Array, width: number, height: number, r: number): void {
+  const innerFrom = Math.min(width, r),
+    innerTo = Math.max(innerFrom, width - r - 1),
+    full = 2 * r + 1;
+  let line = 0;
+  for (; line + 4 <= height; line += 4) {
+    const b0 = line * width,
+      b1 = b0 + width,
+      b2 = b1 + width,
+      b3 = b2 + width;
+    let a0 = rowHead(src, dst, b0, width, r, innerFrom),
+      a1 = rowHead(src, dst, b1, width, r, innerFrom),
+      a2 = rowHead(src, dst, b2, width, r, innerFrom),
+      a3 = rowHead(src, dst, b3, width, r, innerFrom);
+    for (let k = innerFrom; k < innerTo; k++) {
+      const add = k + r + 1,
+        sub = k - r;
+      dst[b0 + k] = a0 / full;
+      dst[b1 + k] = a1 / full;
+      dst[b2 + k] = a2 / full;
+      dst[b3 + k] = a3 / full;
+      a0 += src[b0 + add];
+      a1 += src[b1 + add];
+      a2 += src[b2 + add];
+      a3 += src[b3 + add];
+      a0 -= src[b0 + sub];
+      a1 -= src[b1 + sub];
+      a2 -= src[b2 + sub];
+      a3 -= src[b3 + sub];
+    }
+    rowTail(src, dst, b0, width, r, innerTo, a0);
+    rowTail(src, dst, b1, width, r, innerTo, a1);
+    rowTail(src, dst, b2, width, r, innerTo, a2);
+    rowTail(src, dst, b3, width, r, innerTo, a3);
+  }
+  if (line < height) boxPass(src.subarray(line * width), dst.subarray(line * width), width, height - line, 1, width, r);
+}
+
 /** Three box passes per axis approximate a Gaussian of SD σ (Wells 1986, IEEE PAMI 8:234). */
 export function blur(data: Float32Array, width: number, height: number, sigmaPx: number): Float32Array {
   const r = Math.max(1, Math.round(Math.sqrt(sigmaPx * sigmaPx + 1) - 0.5)); // 3 boxes of width 2r+1: σ² = 3·((2r+1)²−1)/12 ≈ r²
   let a = Float32Array.from(data);
   let b = new Float32Array(data.length);
   for (let p = 0; p < 3; p++) {
-    boxPass(a, b, width, height, 1, width, r);
+    boxPassRows(a, b, width, height, r);
     [a, b] = [b, a];
     boxPassColumns(a, b, width, height, r);
     [a, b] = [b, a];
