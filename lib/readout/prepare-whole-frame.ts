@@ -173,23 +173,16 @@ function residualPass(
     accI = new Float64Array(w);
   const norm = tf > 0 ? 1 / (tf * tf) : 0;
   const { rows, offset } = bg;
+  const extremes = new Float64Array(2);
   for (let y = 0; y < height; y++) {
     sourceRow(s, y, width, line);
     const { y0, y1, ty } = gridRow(y, bg.f, bg.bh);
     const uy = 1 - ty,
       top = y0 * width,
       bottom = y1 * width;
-    // The row's extremes, checked once per row: the stored (float32) residual is beyond a limit
-    // exactly when the rounded extreme is (rounding is monotone).
-    let hi = -Infinity,
-      lo = Infinity;
-    for (let x = 0; x < width; x++) {
-      const v = line[x] - (rows[top + x] * uy + rows[bottom + x] * ty) - offset;
-      res[x] = v;
-      if (v > hi) hi = v;
-      if (v < lo) lo = v;
-    }
-    if (Math.fround(hi) > upper || Math.fround(lo) < lower) return null;
+    residualRow(line, rows, top, bottom, uy, ty, offset, res, width, extremes);
+    // The stored (float32) residual is beyond a limit exactly when its rounded extreme is (rounding is monotone).
+    if (Math.fround(extremes[0]) > upper || Math.fround(extremes[1]) < lower) return null;
     if (tf > 0 && y < h * tf) {
       addBlockSums(res, line, accR, accI, w, tf);
       if ((y + 1) % tf === 0) {
@@ -205,6 +198,36 @@ function residualPass(
   }
   const grid = (data: Float32Array) => ({ data, width: w, height: h, included: null });
   return { binned: tf > 0 ? { residual: grid(outR), intensity: grid(outI) } : null };
+}
+
+/**
+ * One row of the residual into `res` (each value rounded to float32 as stored), its largest and
+ * smallest value before rounding into `extremes`. A function per row, not a loop inside the pass:
+ * V8 optimises a small function called thousands of times for good, where a long loop compiled
+ * on the fly (on-stack replacement) was thrown back to the baseline compiler at its first exit.
+ */
+function residualRow(
+  line: Float32Array,
+  rows: Float32Array,
+  top: number,
+  bottom: number,
+  uy: number,
+  ty: number,
+  offset: number,
+  res: Float32Array,
+  width: number,
+  extremes: Float64Array,
+): void {
+  let hi = -Infinity,
+    lo = Infinity;
+  for (let x = 0; x < width; x++) {
+    const v = line[x] - (rows[top + x] * uy + rows[bottom + x] * ty) - offset;
+    res[x] = v;
+    if (v > hi) hi = v;
+    if (v < lo) lo = v;
+  }
+  extremes[0] = hi;
+  extremes[1] = lo;
 }
 
 /**
