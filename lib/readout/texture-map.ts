@@ -42,6 +42,38 @@ function noiseGains(): { smoothGain: number; fineGain: number } {
 }
 
 /**
+ * Adds one image row to its cells' sums. A function per row, not a loop inside computeTextureMap:
+ * V8 optimises a small function called a thousand times for good, where a long loop compiled on
+ * the fly (on-stack replacement) was thrown back to the baseline compiler at its first exit.
+ */
+function accumulateRow(
+  residual: Float32Array,
+  intensity: Float32Array,
+  smooth: Float32Array,
+  slow: Float32Array,
+  included: Uint8Array | null,
+  row: number,
+  crow: number,
+  xs: number,
+  cellOf: Int32Array,
+  sums: { m1: Float32Array; m2: Float32Array; f2: Float32Array; mb: Float32Array; w: Float32Array },
+): void {
+  const { m1, m2, f2, mb, w } = sums;
+  for (let x = 0; x < xs; x++) {
+    const i = row + x;
+    if (included && !included[i]) continue;
+    const j = crow + cellOf[x];
+    const band = smooth[i] - slow[i],
+      fine = residual[i] - smooth[i];
+    m1[j] += band;
+    m2[j] += band * band;
+    f2[j] += fine * fine;
+    mb[j] += intensity[i];
+    w[j]++;
+  }
+}
+
+/**
  * The texture map behind the tissue search. The flattened image is smoothed lightly (σ 1.5 px,
  * against pixel noise) and band-passed (minus a blur of the window's σ, so that a residual slow
  * background or the tissue's edge is not texture); its variance in a Gaussian window of σ =
@@ -70,21 +102,9 @@ export function computeTextureMap(
     w = new Float32Array(cw * ch);
   const cellOf = new Int32Array(cw * c);
   for (let x = 0; x < cw * c; x++) cellOf[x] = (x / c) | 0;
-  for (let y = 0; y < ch * c; y++) {
-    const crow = ((y / c) | 0) * cw;
-    for (let x = 0; x < cw * c; x++) {
-      const i = y * width + x;
-      if (included && !included[i]) continue;
-      const j = crow + cellOf[x];
-      const band = smooth[i] - slow[i],
-        fine = residual[i] - smooth[i];
-      m1[j] += band;
-      m2[j] += band * band;
-      f2[j] += fine * fine;
-      mb[j] += intensity[i];
-      w[j]++;
-    }
-  }
+  const sums = { m1, m2, f2, mb, w };
+  for (let y = 0; y < ch * c; y++)
+    accumulateRow(residual, intensity, smooth, slow, included, y * width, ((y / c) | 0) * cw, cw * c, cellOf, sums);
   const windowCells = windowPx / c;
   const [b1, b2, bf, bb, bw] = [m1, m2, f2, mb, w].map((m) => blur(m, cw, ch, windowCells));
   const { smoothGain, fineGain } = noiseGains();
