@@ -60,12 +60,14 @@ export function createSpectrumThreads(): SpectrumThreads {
         job.reusePower ? reuse(2, 4 * halfWidth * height) : new SharedArrayBuffer(4 * halfWidth * height),
       );
       // Rows are transformed in pairs, so the split falls on an even row; the worker's rows are
-      // copied into shared memory (the caller's image is an ordinary array).
+      // copied into shared memory, unless the image is in shared memory already (readWavelength's).
       const rowSplit = 2 * Math.ceil(srcHeight / 4);
-      const shared = new Float32Array(reuse(1, 4 * (srcHeight - rowSplit) * srcWidth));
-      shared.set(src.subarray(rowSplit * srcWidth));
+      const inShared = src.buffer instanceof SharedArrayBuffer;
+      const shared = inShared ? src : new Float32Array(reuse(1, 4 * (srcHeight - rowSplit) * srcWidth));
+      if (!inShared) shared.set(src.subarray(rowSplit * srcWidth));
+      const srcFirstRow = inShared ? 0 : rowSplit;
       const colSplit = Math.ceil(halfWidth / 2);
-      worker.postMessage({ ...job, src: shared, rowOffset: rowSplit, half, power, colSplit });
+      worker.postMessage({ ...job, src: shared, rowOffset: rowSplit, srcFirstRow, half, power, colSplit });
       start();
       transformRows(src, srcWidth, srcHeight, width, half, job.windowX, job.windowY, 0, rowSplit);
       awaitWord(ctrl, DONE, generation, FAIL);

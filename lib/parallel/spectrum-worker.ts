@@ -9,8 +9,10 @@ const GEN = 0,
 const SPIN_LOOPS = 200_000;
 
 interface Job extends HalfPowerJob {
-  /** `src` holds source rows from this row on. */
+  /** The worker's rows start at this row. */
   rowOffset: number;
+  /** `src` holds source rows from this row on (0: the whole image, shared). */
+  srcFirstRow: number;
   half: Float32Array | Float64Array;
   power: Float32Array;
   colSplit: number;
@@ -30,8 +32,19 @@ function serve({ ctrl }: { ctrl: Int32Array }): void {
   for (;;) {
     next();
     const job = receiveMessageOnPort(parentPort!)?.message as Job;
-    const { srcWidth, srcHeight, width, height, rowOffset, half, power, colSplit } = job;
-    transformRows(job.src, srcWidth, srcHeight, width, half, job.windowX, job.windowY, rowOffset, srcHeight, rowOffset);
+    const { srcWidth, srcHeight, width, height, rowOffset, srcFirstRow, half, power, colSplit } = job;
+    transformRows(
+      job.src,
+      srcWidth,
+      srcHeight,
+      width,
+      half,
+      job.windowX,
+      job.windowY,
+      rowOffset,
+      srcHeight,
+      srcFirstRow,
+    );
     done();
     next();
     transformColumnsToPower(half, width / 2 + 1, height, power, colSplit, width / 2 + 1);

@@ -10,7 +10,8 @@ const slots = new Map<string, WeakRef<Float32Array>>();
 export function reusedFloat32(slot: string, length: number): Float32Array {
   const kept = slots.get(slot)?.deref();
   if (kept && kept.length === length) return kept;
-  const fresh = new Float32Array(length);
+  // In shared memory: a worker thread (lib/parallel/spectrum-threads.ts) reads it without a copy.
+  const fresh = new Float32Array(new SharedArrayBuffer(4 * length));
   slots.set(slot, new WeakRef(fresh));
   return fresh;
 }

@@ -37,4 +37,25 @@ describe("the readout's 2-D FFT on two threads", () => {
     expect(two.power.length).toBe(one.power.length);
     expect(differing(two.power, one.power)).toBe(0);
   });
+
+  // An image already in shared memory (readWavelength's reused region) is read by the worker in
+  // place; its |F|² may be a reused array too: the same bits, twice over the same arrays.
+  it("gives the same |F|² as one thread from an image in shared memory, into a reused |F|²", () => {
+    const w = 1000,
+      h = 1030;
+    const rng = createRng(9);
+    const img = new Float32Array(new SharedArrayBuffer(4 * w * h));
+    for (let i = 0; i < img.length; i++) img[i] = rng.normal();
+    const opts = { windowX: makeWindow1d("hann", w), windowY: makeWindow1d("hann", h), precision: "float32" as const };
+    setSpectrumExecutor(null);
+    const one = realPowerSpectrum2d(img, w, h, 1024, 2048, opts);
+    setSpectrumExecutor(threads);
+    const first = realPowerSpectrum2d(img, w, h, 1024, 2048, { ...opts, reusePower: true });
+    const firstBits = first.power.slice();
+    const again = realPowerSpectrum2d(img, w, h, 1024, 2048, { ...opts, reusePower: true });
+    setSpectrumExecutor(null);
+    expect(again.power.buffer).toBe(first.power.buffer); // the same memory, overwritten
+    expect(differing(firstBits, one.power)).toBe(0);
+    expect(differing(again.power, one.power)).toBe(0);
+  });
 });
