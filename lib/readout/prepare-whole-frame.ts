@@ -175,16 +175,19 @@ function residualPass(
   const { rows, offset } = bg;
   const extremes = new Float64Array(2);
   for (let y = 0; y < height; y++) {
-    sourceRow(s, y, width, line);
+    // The stored values are read in place; with the plane first, a row of them less the plane.
+    const v = s.plane ? line : s.src,
+      at = s.plane ? 0 : y * width;
+    if (s.plane) sourceRow(s, y, width, line);
     const { y0, y1, ty } = gridRow(y, bg.f, bg.bh);
     const uy = 1 - ty,
       top = y0 * width,
       bottom = y1 * width;
-    residualRow(line, rows, top, bottom, uy, ty, offset, res, width, extremes);
+    residualRow(v, at, rows, top, bottom, uy, ty, offset, res, width, extremes);
     // The stored (float32) residual is beyond a limit exactly when its rounded extreme is (rounding is monotone).
     if (Math.fround(extremes[0]) > upper || Math.fround(extremes[1]) < lower) return null;
     if (tf > 0 && y < h * tf) {
-      addBlockSums(res, line, accR, accI, w, tf);
+      addBlockSums(res, v, at, accR, accI, w, tf);
       if ((y + 1) % tf === 0) {
         const by = (y + 1) / tf - 1;
         for (let bx = 0; bx < w; bx++) {
@@ -208,6 +211,7 @@ function residualPass(
  */
 function residualRow(
   line: Float32Array,
+  at: number,
   rows: Float32Array,
   top: number,
   bottom: number,
@@ -221,7 +225,7 @@ function residualRow(
   let hi = -Infinity,
     lo = Infinity;
   for (let x = 0; x < width; x++) {
-    const v = line[x] - (rows[top + x] * uy + rows[bottom + x] * ty) - offset;
+    const v = line[at + x] - (rows[top + x] * uy + rows[bottom + x] * ty) - offset;
     res[x] = v;
     if (v > hi) hi = v;
     if (v < lo) lo = v;
@@ -231,12 +235,13 @@ function residualRow(
 }
 
 /**
- * Adds each block of tf values of `a` and of `b` to its slot (binPixels' order: a sum per block in
- * double from 0, then added to the slot); the common factors 2 and 4 written out.
+ * Adds each block of tf values of `a` (from 0) and of `b` (from bAt) to its slot (binPixels' order:
+ * a sum per block in double from 0, then added to the slot); the common factors 2 and 4 written out.
  */
 function addBlockSums(
   a: Float32Array,
   b: Float32Array,
+  bAt: number,
   accA: Float64Array,
   accB: Float64Array,
   w: number,
@@ -244,13 +249,15 @@ function addBlockSums(
 ): void {
   if (tf === 4)
     for (let bx = 0, i = 0; bx < w; bx++, i += 4) {
+      const k = bAt + i;
       accA[bx] += a[i] + a[i + 1] + a[i + 2] + a[i + 3];
-      accB[bx] += b[i] + b[i + 1] + b[i + 2] + b[i + 3];
+      accB[bx] += b[k] + b[k + 1] + b[k + 2] + b[k + 3];
     }
   else if (tf === 2)
     for (let bx = 0, i = 0; bx < w; bx++, i += 2) {
+      const k = bAt + i;
       accA[bx] += a[i] + a[i + 1];
-      accB[bx] += b[i] + b[i + 1];
+      accB[bx] += b[k] + b[k + 1];
     }
   else
     for (let bx = 0, i = 0; bx < w; bx++) {
@@ -258,7 +265,7 @@ function addBlockSums(
         sb = 0;
       for (const end = i + tf; i < end; i++) {
         sa += a[i];
-        sb += b[i];
+        sb += b[bAt + i];
       }
       accA[bx] += sa;
       accB[bx] += sb;

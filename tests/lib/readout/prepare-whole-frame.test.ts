@@ -69,6 +69,17 @@ describe("prepareWholeFrame", () => {
       expect(slow.tissueMask).not.toBeNull();
     });
   }
+  it.each([
+    [3, 2100],
+    [4, 3100],
+  ])("gives the same numbers when the tissue search bins by %i (a frame %i px wide)", (_, width) => {
+    const wide = frame({ width, height: 1030, tissue: { shape: "ellipse", coverage: 0.5, slide: "dark" } });
+    for (const flatten of ["auto", "plane"] as const) {
+      const { fast, slow } = both(wide, { flatten });
+      expectSame(fast, slow);
+      expect(slow.tissueMask).not.toBeNull();
+    }
+  });
   it("gives the same numbers with the tissue search or the outlier treatment off", () => {
     for (const o of [{ tissueMask: "off" }, { outliers: "off" }, { outliers: "off", flatten: "plane" }] as const) {
       const { fast, slow } = both(onSlide, o);
