@@ -27,7 +27,7 @@ function binMask(mask: Uint8Array, width: number, f: number, w: number, h: numbe
  * synchronous call (readWavelength), so a whole frame's flattened copy may be a reused array.
  */
 export function prepareRegion(image: GreyImage, settings: ResolvedReadoutOptions, reuse = false): PreparedRegion {
-  // A whole frame with the defaults: the same numbers in three passes over the pixels.
+  // A whole frame with the defaults: the same numbers in two or three passes over the pixels.
   return prepareWholeFrame(image, settings, reuse) ?? prepareRegionStepByStep(image, settings);
 }
 

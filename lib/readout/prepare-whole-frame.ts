@@ -15,6 +15,7 @@ import { findSaturated, outlierLimits, outlierSampleStep } from "./outliers";
 import type { PreparedRegion } from "./prepared-region";
 import { takeRegionStats } from "./region-stats";
 import { reusedFloat32 } from "./reused-buffer";
+import { addBlockSums, planeRow, residualRow } from "./whole-frame-rows";
 import { findTissueOnBinned, tissueSearchFactor, type TissueRegion } from "./tissue-mask";
 
 /** What the background pass computes per pixel: the value before and after the background. */
@@ -38,13 +39,15 @@ function sourceRow(s: Source, y: number, width: number, out: Float32Array): void
 
 /**
  * prepareRegion for the commonest case, a whole frame (no ROI, no mask, no inversion, no
- * binning) with the robust defaults, in three passes over the pixels instead of about nine: the
- * region's statistics with the background's grid sums; the residual (data − background)
- * computed on the fly, checked against the outlier limits and binned for the tissue search
- * without being stored; then the flattened copy. Every number is the one the general path
- * gives (the same sums in the same order, the same float32 roundings). With `reuse`, the
- * flattened copy is an array reused by the next call (reusedFloat32). Returns null where
- * that path must run instead: clipped pixels or outliers to treat, a small frame, other options.
+ * binning) with the robust defaults, in two passes over the pixels instead of about nine: the
+ * region's statistics with the background's grid sums; then the residual (data − background),
+ * checked against the outlier limits and binned for the tissue search, with the flattened copy
+ * written on the way ("auto": the residual itself; "plane": the pixels less the plane). A third
+ * pass rewrites the copy where that could not be done (a tissue found, "blur" or "none"). Every
+ * number is the one the general path gives (the same sums in the same order, the same float32
+ * roundings). With `reuse`, the flattened copy is an array reused by the next call
+ * (reusedFloat32). Returns null where that path must run instead: clipped pixels or outliers to
+ * treat, a small frame, other options.
  */
 export function prepareWholeFrame(
   image: GreyImage,
@@ -76,8 +79,16 @@ export function prepareWholeFrame(
     }
   const bg = interpolateCoarseBackground(grid, width, height, sigmaPx, true);
   const limits = auto ? outlierLimits(sampleResidual(source, bg, width, height)) : null;
-  // Pass 2: the residual, on the fly.
-  const pass = residualPass(source, bg, width, height, limits, wantTissue ? tf : 0, line);
+  // Pass 2: the residual, on the fly; and the flattened copy, which stands unless a tissue is found.
+  // Reused across readouts when the caller keeps nothing of the region after its call (readWavelength).
+  const data = reuse ? reusedFloat32("prepared-region", width * height) : new Float32Array(width * height);
+  const write: Write =
+    settings.flatten === "auto"
+      ? { kind: "residual" }
+      : settings.flatten === "plane"
+        ? { kind: "plane", plane: planeCoefficients(width, height, planeSums) }
+        : { kind: "none" };
+  const pass = residualPass(source, bg, width, height, limits, wantTissue ? tf : 0, line, data, write);
   if (!pass) return null; // outliers to treat: the general path replaces them
   const tissue: TissueRegion =
     wantTissue && pass.binned
@@ -85,12 +96,10 @@ export function prepareWholeFrame(
       : { mask: null, fraction: 1 };
   let scale = 0;
   for (let i = 0; i < src.length; i += 97) scale = Math.max(scale, Math.abs(src[i]));
-  // Pass 3: the flattened copy.
-  // Reused across readouts when the caller keeps nothing of the region after its call (readWavelength).
-  const data = reuse ? reusedFloat32("prepared-region", width * height) : new Float32Array(width * height);
+  // Pass 3, only where pass 2 could not write the flattened copy: inside a tissue, or another flattening.
   const included = tissue.mask;
   let known: number | null = null;
-  if (settings.flatten === "auto" && !included) known = writeResidual(source, bg, width, height, data);
+  if (pass.wrote && !included) known = pass.known;
   else if (settings.flatten === "plane" && !included) known = subtractPlane(data, width, height, null, planeSums, src);
   else {
     for (let y = 0; y < height; y++) {
@@ -146,6 +155,9 @@ interface ResidualPass {
     residual: { data: Float32Array; width: number; height: number; included: null };
     intensity: { data: Float32Array; width: number; height: number; included: null };
   } | null;
+  /** Whether `data` now holds the flattened copy for a region without a tissue mask, and its SD if known. */
+  wrote: boolean;
+  known: number | null;
 }
 
 /**
@@ -161,6 +173,8 @@ function residualPass(
   limits: { upper: number; lower: number } | null,
   tf: number,
   line: Float32Array,
+  data: Float32Array,
+  write: Write,
 ): ResidualPass | null {
   const upper = limits ? limits.upper : Infinity,
     lower = limits ? limits.lower : -Infinity;
@@ -173,7 +187,13 @@ function residualPass(
     accI = new Float64Array(w);
   const norm = tf > 0 ? 1 / (tf * tf) : 0;
   const { rows, offset } = bg;
-  const extremes = new Float64Array(2);
+  // [largest, smallest, Σv²] of a row's residual; [Σv, Σv²] of a row less the plane.
+  const extremes = new Float64Array(3),
+    planeSums = new Float64Array(2);
+  const toData = write.kind === "residual",
+    plane = write.kind === "plane" ? write.plane : null;
+  let s1 = 0,
+    s2 = 0;
   for (let y = 0; y < height; y++) {
     // The stored values are read in place; with the plane first, a row of them less the plane.
     const v = s.plane ? line : s.src,
@@ -183,11 +203,20 @@ function residualPass(
     const uy = 1 - ty,
       top = y0 * width,
       bottom = y1 * width;
-    residualRow(v, at, rows, top, bottom, uy, ty, offset, res, width, extremes);
+    // With "auto" flattening the residual is the flattened copy: written there, not to a scratch row.
+    const out = toData ? data : res,
+      outAt = toData ? y * width : 0;
+    residualRow(v, at, rows, top, bottom, uy, ty, offset, out, outAt, width, extremes);
     // The stored (float32) residual is beyond a limit exactly when its rounded extreme is (rounding is monotone).
     if (Math.fround(extremes[0]) > upper || Math.fround(extremes[1]) < lower) return null;
+    if (toData) s2 += extremes[2];
+    else if (plane) {
+      planeRow(s.src, y * width, data, plane.c0 + plane.c2 * y, plane.c1, width, planeSums);
+      s1 += planeSums[0];
+      s2 += planeSums[1];
+    }
     if (tf > 0 && y < h * tf) {
-      addBlockSums(res, v, at, accR, accI, w, tf);
+      addBlockSums(out, outAt, v, at, accR, accI, w, tf);
       if ((y + 1) % tf === 0) {
         const by = (y + 1) / tf - 1;
         for (let bx = 0; bx < w; bx++) {
@@ -199,99 +228,24 @@ function residualPass(
       }
     }
   }
-  const grid = (data: Float32Array) => ({ data, width: w, height: h, included: null });
-  return { binned: tf > 0 ? { residual: grid(outR), intensity: grid(outI) } : null };
-}
-
-/**
- * One row of the residual into `res` (each value rounded to float32 as stored), its largest and
- * smallest value before rounding into `extremes`. A function per row, not a loop inside the pass:
- * V8 optimises a small function called thousands of times for good, where a long loop compiled
- * on the fly (on-stack replacement) was thrown back to the baseline compiler at its first exit.
- */
-function residualRow(
-  line: Float32Array,
-  at: number,
-  rows: Float32Array,
-  top: number,
-  bottom: number,
-  uy: number,
-  ty: number,
-  offset: number,
-  res: Float32Array,
-  width: number,
-  extremes: Float64Array,
-): void {
-  let hi = -Infinity,
-    lo = Infinity;
-  for (let x = 0; x < width; x++) {
-    const v = line[at + x] - (rows[top + x] * uy + rows[bottom + x] * ty) - offset;
-    res[x] = v;
-    if (v > hi) hi = v;
-    if (v < lo) lo = v;
-  }
-  extremes[0] = hi;
-  extremes[1] = lo;
-}
-
-/**
- * Adds each block of tf values of `a` (from 0) and of `b` (from bAt) to its slot (binPixels' order:
- * a sum per block in double from 0, then added to the slot); the common factors 2 and 4 written out.
- */
-function addBlockSums(
-  a: Float32Array,
-  b: Float32Array,
-  bAt: number,
-  accA: Float64Array,
-  accB: Float64Array,
-  w: number,
-  tf: number,
-): void {
-  if (tf === 4)
-    for (let bx = 0, i = 0; bx < w; bx++, i += 4) {
-      const k = bAt + i;
-      accA[bx] += a[i] + a[i + 1] + a[i + 2] + a[i + 3];
-      accB[bx] += b[k] + b[k + 1] + b[k + 2] + b[k + 3];
-    }
-  else if (tf === 2)
-    for (let bx = 0, i = 0; bx < w; bx++, i += 2) {
-      const k = bAt + i;
-      accA[bx] += a[i] + a[i + 1];
-      accB[bx] += b[k] + b[k + 1];
-    }
-  else
-    for (let bx = 0, i = 0; bx < w; bx++) {
-      let sa = 0,
-        sb = 0;
-      for (const end = i + tf; i < end; i++) {
-        sa += a[i];
-        sb += b[bAt + i];
-      }
-      accA[bx] += sa;
-      accB[bx] += sb;
-    }
-}
-
-/** data = the centred residual, as subtractCoarseBackground writes it; returns its SD (n − 1). */
-function writeResidual(s: Source, bg: CoarseBackground, width: number, height: number, data: Float32Array): number {
-  const line = new Float32Array(width);
-  const { rows, offset } = bg;
-  let ss = 0;
-  for (let y = 0; y < height; y++) {
-    sourceRow(s, y, width, line);
-    const { y0, y1, ty } = gridRow(y, bg.f, bg.bh);
-    const uy = 1 - ty,
-      top = y0 * width,
-      bottom = y1 * width,
-      row = y * width;
-    let rowSs = 0;
-    for (let x = 0; x < width; x++) {
-      const v = line[x] - (rows[top + x] * uy + rows[bottom + x] * ty) - offset;
-      data[row + x] = v;
-      rowSs += v * v;
-    }
-    ss += rowSs;
-  }
+  const grid = (g: Float32Array) => ({ data: g, width: w, height: h, included: null });
   const n = width * height;
-  return n > 1 ? Math.sqrt(ss / (n - 1)) : 0;
+  let known: number | null = null;
+  if (toData)
+    known = n > 1 ? Math.sqrt(s2 / (n - 1)) : 0; // as writeResidual
+  else if (plane && n >= 2) {
+    // As subtractPlane: the residual's SD when its mean is zero to rounding, else null (centre it then).
+    const mean = s1 / n;
+    const sd = Math.sqrt(Math.max(0, (s2 - n * mean * mean) / (n - 1)));
+    known = Math.abs(mean) <= 1e-6 * sd ? sd : null;
+  }
+  return {
+    binned: tf > 0 ? { residual: grid(outR), intensity: grid(outI) } : null,
+    wrote: toData || (plane !== null && n >= 2),
+    known,
+  };
 }
+
+/** What pass 2 also writes: the flattened copy of "auto" (the residual) or of "plane", or nothing. */
+type Write =
+  { kind: "residual" } | { kind: "plane"; plane: { c0: number; c1: number; c2: number } | null } | { kind: "none" };
