@@ -1,6 +1,6 @@
 /**
  * Morphokin beside the numpy script a modeller would write (`../shared/bench/numpy_reference.py`),
- * on the same inputs in one run: medians of 3 after a warm-up on each side, the ratio
+ * on the same inputs in one run: medians of 3 after a warm-up on each side (two on Morphokin's), the ratio
  * Morphokin ÷ numpy beside its goal, and the number each side computed (so a fast wrong answer
  * shows). Needs Debian's python3-numpy and python3-tifffile; as root it installs them when
  * missing, otherwise it says so and prints Morphokin's figures alone.
@@ -52,9 +52,17 @@ function numpy(...args: string[]): NumpyFigure {
   return JSON.parse(r.stdout.trim().split("\n").pop()!) as NumpyFigure;
 }
 
-/** Median of REPS timed calls after one warm-up call (ms), and the last call's value. */
+/**
+ * Two untimed calls before the timed ones: V8 is still compiling the readout's loops during the
+ * first 4096² readouts of a process (measured: the first took about 1.5× the later ones, the
+ * second up to 1.4×), and numpy's side needs no compiler. Numpy's script keeps its one warm-up.
+ */
+const WARM_UPS = 2;
+
+/** Median of REPS timed calls after WARM_UPS untimed ones (ms), and the last call's value. */
 async function medianMs<T>(fn: () => T | Promise<T>): Promise<{ ms: number; min: number; max: number; value: T }> {
   let value = await fn();
+  for (let i = 1; i < WARM_UPS; i++) value = await fn();
   const t: number[] = [];
   for (let i = 0; i < REPS; i++) {
     const s = performance.now();
