@@ -1,5 +1,5 @@
 "use client";
-/** Simulated wavelength ± 2u (green, read the tissue way) beside the linear prediction 2π/k* (violet) and, from a fit, the tissue's measured mean (dark green). */
+/** Simulated wavelength ± 2u (green, read the tissue way) beside the linear prediction 2π/k* (violet; the box's fastest mode outlined in violet) and, from a fit, the tissue's measured mean (dark green). */
 import { formatSig } from "./spectrum-format";
 
 export interface RunWavelengthBarsProps {
@@ -27,7 +27,7 @@ export function RunWavelengthBars({
   if (values.length === 0) return null;
   const hi = Math.max(...values, (simulated ?? 0) + 2 * (uncertainty ?? 0)) * 1.15;
   const x = (v: number) => `${(v / hi) * 100}%`;
-  const row = (label: string, v: number | null, colour: string, u?: number | null) =>
+  const row = (label: string, v: number | null, colour: string, u?: number | null, text = "text-card") =>
     v === null ? null : (
       <div className="grid grid-cols-[11rem_1fr] items-center gap-2 text-xs">
         <span className="text-ink-soft">{label}</span>
@@ -39,7 +39,7 @@ export function RunWavelengthBars({
               style={{ left: x(Math.max(0, v - 2 * u)), width: x(4 * u) }}
             />
           ) : null}
-          <span className="num absolute left-1 top-0 text-[11px] text-card">
+          <span className={`num absolute left-1 top-0 text-[11px] ${text}`}>
             {formatSig(v, 4)} {unit}
           </span>
         </div>
@@ -49,7 +49,8 @@ export function RunWavelengthBars({
     <div className="space-y-1.5" data-testid="wavelength-bars">
       {row("simulated λ (readout) ± 2u", simulated, "bg-moss", uncertainty)}
       {row("linear prediction 2π/k*", predicted, "bg-iris")}
-      {row("fastest mode of this box", domainMode, "bg-iris/60")}
+      {/* Outlined, with dark figures: a paler fill behind light figures fails WCAG 1.4.3 contrast. */}
+      {row("fastest mode of this box", domainMode, "border-2 border-iris bg-iris-soft", null, "text-ink")}
       {measured && row("measured (fit's readouts) ± 2 SE", measured.value, "bg-moss-dark", measured.se)}
       <p className="text-xs text-ink-soft">
         Axis from 0 to{" "}

@@ -3,13 +3,15 @@ import Link from "next/link";
 /**
  * A name that may be long (a study, specimen, file or kinetics name of 100+ characters): cut to
  * one line with an ellipsis at a width that keeps a table's other columns on screen (about a third
- * of a phone's width, 20rem from 640 px up; "short" for a second name in the same row), the whole
+ * of a phone's width, 20rem from 640 px up; "short", 11rem, for a second name in the same row), the whole
  * name on hover (title) and for screen readers (the text itself stays in the page, only clipped).
  * Tailwind needs the class names spelled out.
  */
 const CUT = {
   name: "inline-block max-w-[36vw] truncate align-bottom sm:max-w-[20rem]",
-  short: "inline-block max-w-[24vw] truncate align-bottom sm:max-w-[12rem]",
+  short: "inline-block max-w-[24vw] truncate align-bottom sm:max-w-[11rem]",
+  /** As wide as its flex row leaves it (a list item's name beside a status): a flex item that may shrink. */
+  fill: "min-w-0 max-w-full truncate",
 };
 
 export function LongName({

@@ -39,7 +39,7 @@ export function PageHeader({
         {crumbs && <div className="mb-1 text-xs text-ink-soft">{crumbs}</div>}
         {/* A name of 120 characters without spaces wraps anywhere instead of widening the page. */}
         <h1 className="text-2xl font-semibold text-ink [overflow-wrap:anywhere]">{title}</h1>
-        {subtitle && <p className="mt-1 text-sm text-ink-soft">{subtitle}</p>}
+        {subtitle && <p className="mt-1 text-sm text-ink-soft [overflow-wrap:anywhere]">{subtitle}</p>}
       </div>
       {actions && <div className="flex items-center gap-2">{actions}</div>}
     </div>

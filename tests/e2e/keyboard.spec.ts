@@ -11,9 +11,10 @@ import { expect, test } from "@playwright/test";
 import { KeyboardPath } from "./pages/keyboard";
 import { LoginPage } from "./pages/login-page";
 
-// The seeded study and specimen (lib/cli/seed-demo.ts), written out on purpose.
-const STUDY = "Dorsal placode spacing under a signalling inhibitor";
-const SPECIMEN = "DS-03";
+// The seeded study and specimen (lib/cli/seed-demo.ts), written out on purpose. Not the placode
+// study: readouts.spec.ts counts its uploads per condition.
+const STUDY = "Palatal ridge stripes in two genotypes";
+const SPECIMEN = "PR-21";
 
 test("a bench scientist signs in, uploads, reads and starts a fit with the keyboard alone", async ({ page }) => {
   test.setTimeout(120_000);

@@ -2,8 +2,8 @@
  * Live status, as a bench scientist: the readouts list, left open in one tab, shows a readout
  * started in another tab and then its end without being reloaded; the new readout's page goes
  * from queued or running to finished by itself.
- * Seeded facts (lib/cli/seed-demo.ts): specimen DS-01 of the study below holds one readout of a
- * 512 × 512 image. Expected behaviour is the product's own (common practice, no source).
+ * Seeded facts (lib/cli/seed-demo.ts): specimen PR-11 of the study below holds one readout of a
+ * 640 × 480 image. (Not DS-01: readouts.spec.ts counts that specimen's readouts.) Expected behaviour is the product's own (common practice, no source).
  */
 import { expect, test } from "./pages/fixtures";
 import { Lab } from "./pages/lab";
@@ -13,7 +13,7 @@ import { SpecimenPage } from "./pages/specimen-page";
 import { StudiesPage } from "./pages/studies-page";
 import { StudyPage } from "./pages/study-page";
 
-const STUDY = "Dorsal placode spacing under a signalling inhibitor";
+const STUDY = "Palatal ridge stripes in two genotypes";
 const ROI = { x: 96, y: 96, width: 256, height: 256 };
 const ROI_WORDS = "ROI 256×256 px at (96, 96)";
 
@@ -34,7 +34,7 @@ test("a readout started elsewhere appears in the open list and finishes there wi
   const other = await context.newPage();
   const there = new Lab(other, lab.labId);
   await there.open(StudiesPage).then((s) => s.open(STUDY));
-  await there.on(StudyPage).openSpecimen("DS-01");
+  await there.on(StudyPage).openSpecimen("PR-11");
   await there.on(SpecimenPage).openReadout(0);
   const readout = there.on(ReadoutPage);
   await readout.enterRoi(ROI);

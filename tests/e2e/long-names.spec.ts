@@ -1,12 +1,13 @@
 /**
  * Names of 120 characters (a study, its tissue, a specimen, its condition and a file) are cut to
- * one line with the whole name on hover, and never push a table's columns off-screen, at 1280 px
- * and on a 390 px phone.
+ * one line with the whole name on hover, and never push a table's columns (or the dashboard's
+ * lists) off-screen, at 1280 px and on a 390 px phone.
  */
 import sharp from "sharp";
 import type { Locator, Page } from "@playwright/test";
 import { unique } from "./support/demo";
 import { expect, test } from "./pages/fixtures";
+import { DashboardPage } from "./pages/dashboard-page";
 import { SpecimenPage } from "./pages/specimen-page";
 import { StudiesPage } from "./pages/studies-page";
 import { StudyPage } from "./pages/study-page";
@@ -75,6 +76,16 @@ test("120-character names are cut with the full name on hover and keep tables on
     await expectCutWithTitle(study.specimens.rows.getByTitle(condition), condition);
     await expectWithinViewport(page, study.specimens.root.locator("table"), width);
     await page.screenshot({ path: `test-results/long-names-study-${width}.png`, fullPage: true });
+
+    // The dashboard's recent lists (the study is the newest, so it is listed).
+    const dashboard = await lab.open(DashboardPage);
+    await expectCutWithTitle(dashboard.recentStudies.getByTitle(studyName), studyName);
+    await expectCutWithTitle(dashboard.recentStudies.getByTitle(tissue), tissue);
+    expect(
+      await page.evaluate(() => document.documentElement.scrollWidth),
+      "the dashboard's width",
+    ).toBeLessThanOrEqual(width);
+    await page.screenshot({ path: `test-results/long-names-dashboard-${width}.png`, fullPage: true });
 
     await page.goto(specimenUrl);
     await expectCutWithTitle(specimen.uploadRow(filename).getByTestId("download-link"), filename);

@@ -27,7 +27,9 @@ test.describe("modeller", () => {
     // A grid that is not allowed is refused with the solver's limit before any job starts.
     await form.endTime.fill("3000000");
     await form.start();
-    await expect(form.error).toHaveText("endTimeS / dtS needs 30000000 steps; the limit is 10000000.");
+    await expect(form.error).toHaveText(
+      "Simulated time divided by the step cap needs 30000000 steps; the limit is 10000000.",
+    );
     await page.screenshot({ path: "test-results/run-form.png", fullPage: true });
 
     await form.endTime.fill("400");

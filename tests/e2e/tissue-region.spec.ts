@@ -11,8 +11,9 @@ import { StudyPage } from "./pages/study-page";
 import { encodePng } from "../../lib/imaging";
 import { makeTissueFrame } from "../../lib/synthetic";
 
-// Seeded study and specimen (lib/cli/seed-demo.ts).
-const STUDY = "Dorsal placode spacing under a signalling inhibitor";
+// Seeded study and specimen (lib/cli/seed-demo.ts). Not the placode study: readouts.spec.ts counts
+// its uploads per condition.
+const STUDY = "Palatal ridge stripes in two genotypes";
 
 /** Hexagonal spots of Fourier wavelength 16 px on an ellipse of tissue covering 40 % of a dark slide, with debris. */
 async function tissuePng(): Promise<Buffer> {
@@ -41,7 +42,7 @@ test.use({ role: "scientist" });
 test("the tissue region is shown, and correcting it makes a readout with that polygon ROI", async ({ lab, page }) => {
   const studies = await lab.open(StudiesPage);
   await studies.open(STUDY);
-  await lab.on(StudyPage).openSpecimen("DS-01");
+  await lab.on(StudyPage).openSpecimen("PR-12");
   const specimen = lab.on(SpecimenPage);
   await specimen.upload({ name: "tissue-spots.png", mimeType: "image/png", buffer: await tissuePng() }, "0.5");
   // Wait for this file's own row (a count taken before the list has loaded would race with it).

@@ -1,6 +1,7 @@
 import { formatPlusMinus } from "@/lib/format/measurement";
 import Link from "next/link";
 import { OpenDiscussions } from "@/components/discussion/open-discussions";
+import { LongName } from "@/components/ui/long-name";
 import { EmptyState, PageHeader, Panel } from "@/components/ui/panel";
 import { can } from "@/lib/access/permissions";
 import { ROLE_LABELS } from "@/lib/access/roles";
@@ -18,7 +19,7 @@ export default async function Dashboard({ params }: { params: Promise<{ labId: s
   return (
     <div className="space-y-6">
       <PageHeader title={ctx.labName} subtitle={`You are ${ROLE_LABELS[ctx.role].toLowerCase()} here.`} />
-      <div className="grid gap-6 lg:grid-cols-[2fr_1fr]">
+      <div className="grid gap-6 lg:grid-cols-[minmax(0,2fr)_minmax(0,1fr)]">
         <Panel
           title="Recent studies"
           actions={
@@ -40,12 +41,16 @@ export default async function Dashboard({ params }: { params: Promise<{ labId: s
           ) : (
             <ul className="divide-y divide-rule" data-testid="recent-studies">
               {studies.items.map((s) => (
-                <li key={s.id} className="flex items-baseline justify-between gap-4 py-2">
-                  <Link href={`/labs/${labId}/studies/${s.id}`} className="font-medium text-ink hover:text-moss">
-                    {s.name}
-                  </Link>
-                  <span className="text-sm text-ink-soft">
-                    {s.tissue} · {s.organism} · <span className="num">{s.specimenCount}</span> specimens
+                <li key={s.id} className="flex flex-wrap items-baseline justify-between gap-x-4 py-2">
+                  <LongName
+                    size="fill"
+                    href={`/labs/${labId}/studies/${s.id}`}
+                    className="font-medium text-ink hover:text-moss"
+                    text={s.name}
+                  />
+                  <span className="text-right text-sm text-ink-soft">
+                    <LongName size="short" text={s.tissue} /> · <LongName size="short" text={s.organism} /> ·{" "}
+                    <span className="num">{s.specimenCount}</span> specimens
                   </span>
                 </li>
               ))}
@@ -107,7 +112,7 @@ export default async function Dashboard({ params }: { params: Promise<{ labId: s
           </ul>
         </Panel>
       </div>
-      <div className="grid gap-6 lg:grid-cols-[1fr_1fr_20rem]">
+      <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,1fr)_20rem]">
         <Panel
           title="Recent fits"
           actions={
@@ -131,9 +136,12 @@ export default async function Dashboard({ params }: { params: Promise<{ labId: s
             <ul className="divide-y divide-rule text-sm" data-testid="recent-fits">
               {fits.items.map((f) => (
                 <li key={f.id} className="flex items-baseline justify-between gap-3 py-1.5">
-                  <Link href={`/labs/${labId}/fits/${f.id}`} className="font-medium text-ink hover:text-moss">
-                    {f.name}
-                  </Link>
+                  <LongName
+                    size="fill"
+                    href={`/labs/${labId}/fits/${f.id}`}
+                    className="font-medium text-ink hover:text-moss"
+                    text={f.name}
+                  />
                   <span className="shrink-0 text-xs text-ink-soft">{f.verdict ?? f.status}</span>
                 </li>
               ))}
@@ -156,9 +164,12 @@ export default async function Dashboard({ params }: { params: Promise<{ labId: s
             <ul className="divide-y divide-rule text-sm" data-testid="recent-readouts">
               {readouts.items.map((r) => (
                 <li key={r.id} className="flex items-baseline justify-between gap-3 py-1.5">
-                  <Link href={`/labs/${labId}/readouts/${r.id}`} className="font-medium text-ink hover:text-moss">
-                    {r.filename}
-                  </Link>
+                  <LongName
+                    size="fill"
+                    href={`/labs/${labId}/readouts/${r.id}`}
+                    className="font-medium text-ink hover:text-moss"
+                    text={r.filename}
+                  />
                   <span className="num shrink-0 text-xs text-moss">
                     {r.headline?.wavelengthUm != null && r.headline.periodFound ? (
                       formatPlusMinus(r.headline.wavelengthUm, r.headline.uncertaintyUm, "µm")
@@ -191,7 +202,7 @@ export default async function Dashboard({ params }: { params: Promise<{ labId: s
             {audit.items.map((e) => (
               <li key={e.id} className="flex gap-3">
                 <span className="num shrink-0 text-xs text-ink-soft">{formatDateTime(e.at)}</span>
-                <span>{e.summary}</span>
+                <span className="min-w-0 [overflow-wrap:anywhere]">{e.summary}</span>
               </li>
             ))}
           </ul>

@@ -67,7 +67,12 @@ export function StudiesView({ labId, canCreate }: { labId: string; canCreate: bo
       header: "Created by",
       enableSorting: false,
       meta: { hideBelow: "sm" },
-      cell: ({ row }) => <span className="text-ink-soft">{row.original.createdByEmail ?? "—"}</span>,
+      cell: ({ row }) =>
+        row.original.createdByEmail ? (
+          <LongName size="short" className="text-ink-soft" text={row.original.createdByEmail} />
+        ) : (
+          <span className="text-ink-soft">—</span>
+        ),
     },
     {
       id: "updatedAt",

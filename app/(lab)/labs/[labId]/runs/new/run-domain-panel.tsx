@@ -56,7 +56,7 @@ export function RunDomainPanel({ d }: { d: RunDraft }) {
             ))}
           </select>
         </Label>
-        <Label text={`end time (${timeUnit})`}>
+        <Label text={`simulated time (${timeUnit})`}>
           <input
             className={field}
             value={d.endTime}

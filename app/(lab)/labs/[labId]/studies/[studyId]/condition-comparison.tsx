@@ -90,7 +90,7 @@ export function ConditionComparison({ labId, studyId }: { labId: string; studyId
                 <tbody>
                   {data.groups.map((g) => (
                     <tr key={g.condition} className="border-b border-rule/60" data-testid="comparison-row">
-                      <td className="py-1.5 pr-3 font-medium">{g.condition}</td>
+                      <td className="max-w-[12rem] py-1.5 pr-3 font-medium [overflow-wrap:anywhere]">{g.condition}</td>
                       <td className="num py-1.5 pr-3" data-testid="comparison-n">
                         {g.n}
                       </td>

@@ -61,7 +61,7 @@ export function StudyConditions({
         <ul className="divide-y divide-rule text-sm" data-testid="study-conditions">
           {items.map((c) => (
             <li key={c.name} className="flex flex-wrap items-center gap-3 py-1.5">
-              <span className="font-medium">{c.name}</span>
+              <span className="min-w-0 font-medium [overflow-wrap:anywhere]">{c.name}</span>
               <span className="num text-ink-soft">
                 {c.specimens} specimen{c.specimens === 1 ? "" : "s"}
               </span>

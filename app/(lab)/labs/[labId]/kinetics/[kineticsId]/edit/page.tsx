@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { forbidden } from "next/navigation";
+import { can } from "@/lib/access/permissions";
 import { PageHeader } from "@/components/ui/panel";
 import { loadKineticsEditPage } from "@/lib/server/kinetics/pages";
 import { orNotFound, pageLab } from "@/lib/server/web/page-access";
@@ -12,9 +13,10 @@ export const dynamic = "force-dynamic";
 
 export default async function EditKineticsPage({ params }: { params: Promise<{ labId: string; kineticsId: string }> }) {
   const { labId, kineticsId } = await params;
-  const ctx = await pageLab(labId, "kinetics.edit");
+  // A kinetics that does not exist is a 404 for everyone; one that exists and may not be edited, a 403.
+  const ctx = await pageLab(labId);
   const { kinetics, latest } = await orNotFound(loadKineticsEditPage(ctx, kineticsId));
-  if (!kinetics.canEdit) forbidden();
+  if (!can(ctx.role, "kinetics.edit") || !kinetics.canEdit) forbidden();
   return (
     <>
       <PageHeader
