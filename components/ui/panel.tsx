@@ -36,7 +36,7 @@ export function PageHeader({
   return (
     <div className="mb-6 flex flex-wrap items-end justify-between gap-4">
       <div className="min-w-0 max-w-full">
-        {crumbs && <div className="mb-1 text-xs text-ink-soft">{crumbs}</div>}
+        {crumbs && <div className="mb-1 text-xs text-ink-soft [overflow-wrap:anywhere]">{crumbs}</div>}
         {/* A name of 120 characters without spaces wraps anywhere instead of widening the page. */}
         <h1 className="text-2xl font-semibold text-ink [overflow-wrap:anywhere]">{title}</h1>
         {subtitle && <p className="mt-1 text-sm text-ink-soft [overflow-wrap:anywhere]">{subtitle}</p>}

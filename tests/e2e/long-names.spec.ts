@@ -32,8 +32,12 @@ async function expectWithinViewport(page: Page, table: Locator, width: number) {
 /** The name is cut (drawn narrower than its text) and its whole text is on hover. */
 async function expectCutWithTitle(name: Locator, text: string) {
   await expect(name).toHaveAttribute("title", text);
-  const cut = await name.evaluate((el) => el.scrollWidth > el.clientWidth);
-  expect(cut, `“${text.slice(0, 20)}…” is cut with an ellipsis`).toBe(true);
+  // Polled: a page that streams in lays its lists out after the names are in the document.
+  await expect
+    .poll(() => name.evaluate((el) => el.scrollWidth > el.clientWidth), {
+      message: `“${text.slice(0, 20)}…” is cut with an ellipsis`,
+    })
+    .toBe(true);
 }
 
 test("120-character names are cut with the full name on hover and keep tables on screen", async ({ lab, page }) => {

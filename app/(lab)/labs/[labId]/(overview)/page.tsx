@@ -19,7 +19,7 @@ export default async function Dashboard({ params }: { params: Promise<{ labId: s
   return (
     <div className="space-y-6">
       <PageHeader title={ctx.labName} subtitle={`You are ${ROLE_LABELS[ctx.role].toLowerCase()} here.`} />
-      <div className="grid gap-6 lg:grid-cols-[minmax(0,2fr)_minmax(0,1fr)]">
+      <div className="grid grid-cols-1 gap-6 lg:grid-cols-[minmax(0,2fr)_minmax(0,1fr)]">
         <Panel
           title="Recent studies"
           actions={
@@ -112,7 +112,7 @@ export default async function Dashboard({ params }: { params: Promise<{ labId: s
           </ul>
         </Panel>
       </div>
-      <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,1fr)_20rem]">
+      <div className="grid grid-cols-1 gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,1fr)_20rem]">
         <Panel
           title="Recent fits"
           actions={

@@ -11,6 +11,12 @@ export const dynamic = "force-dynamic";
 
 type Search = Record<string, string | string[] | undefined>;
 
+/** 8 measured wavelengths, in model lengths when there is a length scale (µm), to 3 significant figures. */
+function sideHolding8Periods(measuredMeanUm: number, lengthScaleUm: number | undefined): string | undefined {
+  const side = (8 * measuredMeanUm) / (lengthScaleUm ?? 1);
+  return Number.isFinite(side) && side > 0 ? String(Number(side.toPrecision(3))) : undefined;
+}
+
 export default async function NewRunPage({
   params,
   searchParams,
@@ -46,6 +52,7 @@ export default async function NewRunPage({
           lengthScaleUm: f.lengthScaleUm !== undefined ? String(f.lengthScaleUm) : undefined,
           timeScaleS: f.timeScaleS !== undefined ? String(f.timeScaleS) : undefined,
           startFrom: change && earlierRuns.some((r) => r.id === startFrom) ? startFrom : undefined,
+          sideLength: sideHolding8Periods(f.fromFit.measuredMeanUm, f.lengthScaleUm),
           fit: {
             fitId: f.fromFit.fitId,
             condition: f.fromFit.condition,

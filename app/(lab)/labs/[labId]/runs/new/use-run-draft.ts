@@ -15,6 +15,12 @@ export interface RunPrefill {
   startFrom?: string;
   /** Start from a finished fit: kinetics, parameters and scales come from it. */
   fit?: { fitId: string; condition: string; model: string; label: string };
+  /**
+   * From a fit: a side that holds about 8 of the condition's measured wavelengths (in model lengths
+   * when the kinetics has a length scale), so the box neither cuts the pattern to one or two periods
+   * nor needs a grid far beyond the cells offered (8 cells per period at 64 cells per axis).
+   */
+  sideLength?: string;
   /** "Change and run again": the earlier run's grid, time and initial state, and the run it links back to. */
   change?: Omit<
     RunChangePrefill,
@@ -43,8 +49,8 @@ export function startingRunFields(kinetics: KineticsInfoDto[], prefill: RunPrefi
     ) as Record<string, string>,
     startFrom: source0?.id ?? "",
     dims: (g?.dims ?? (source0 ? (source0.cells.length === 2 ? "2" : "1") : "2")) as "1" | "2",
-    lx: g?.lx ?? (source0 ? String(source0.lengthUm[0]) : "100"),
-    ly: g?.ly ?? (source0?.lengthUm[1] !== undefined ? String(source0.lengthUm[1]) : "100"),
+    lx: g?.lx ?? (source0 ? String(source0.lengthUm[0]) : (prefill.sideLength ?? "100")),
+    ly: g?.ly ?? (source0?.lengthUm[1] !== undefined ? String(source0.lengthUm[1]) : (prefill.sideLength ?? "100")),
     cells: g?.cells ?? (source0 ? String(source0.cells[0]) : "64"),
     boundary: (g?.boundary ?? source0?.boundary ?? "zero-flux") as "zero-flux" | "periodic",
     endTime: c?.endTime ?? "300",
