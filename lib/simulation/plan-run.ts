@@ -8,6 +8,7 @@
  * (the caller picks the seed). Refusals throw SimulationOptionError with the field; kinetics
  * errors pass through as the kinetics core throws them.
  */
+import { KineticsLimitError } from "../kinetics/errors";
 import { resolveParameters } from "../kinetics/parameters";
 import { computeDispersion, computeGradientDispersion, type DomainSpec } from "../stability";
 import { failOption } from "./errors";
@@ -44,7 +45,7 @@ export function planRunSteadyState(request: RunRequest): RunSteadyState {
       : grid.dimensions === 1
         ? { kind: "interval", length: grid.lengthXUm, units }
         : { kind: "rectangle", lx: grid.lengthXUm, ly: grid.lengthYUm, units };
-  const dispersion = computeDispersion(compiled, params, { ...scales, domain });
+  const dispersion = dispersionInBox(compiled, params, scales, domain);
   const steadyState = compiled.species.map((s) => dispersion.steadyState.values[s]);
   const rates = new Float64Array(compiled.species.length);
   compiled.rates(Float64Array.from(steadyState), values, rates);
@@ -55,6 +56,37 @@ export function planRunSteadyState(request: RunRequest): RunSteadyState {
     );
   }
   return { request, dimensional, scales, values, params, grid, dispersion, steadyState };
+}
+
+/**
+ * The dispersion relation with the box's admissible modes; a box so large against the pattern that
+ * it holds more modes than are counted is, for linear theory, unbounded: its fastest mode is then
+ * left out and 2π/k* stands alone (the run is not refused for it).
+ */
+function dispersionInBox(
+  compiled: RunRequest["kinetics"],
+  params: Record<string, number>,
+  scales: { lengthScaleUm?: number; timeScaleS?: number },
+  domain: DomainSpec | undefined,
+) {
+  try {
+    return computeDispersion(compiled, params, { ...scales, domain });
+  } catch (err) {
+    if (!(err instanceof KineticsLimitError && err.field === "domain")) throw err;
+    return computeDispersion(compiled, params, scales);
+  }
+}
+
+/** Fewer cells per fastest wavelength than a spectral method resolves a pattern with (common practice, no source). */
+const MIN_CELLS_PER_WAVELENGTH = 4;
+
+/** A warning when the grid has fewer than 4 cells per 2π/k* along an axis, else null. */
+function coarseGridWarning(grid: RunSteadyState["grid"], wavelength: number | undefined): string | null {
+  if (wavelength === undefined || !Number.isFinite(wavelength) || wavelength <= 0) return null;
+  const cellSize = Math.max(grid.lengthXUm / grid.nx, grid.dimensions === 2 ? grid.lengthYUm / grid.ny : 0);
+  const perWavelength = wavelength / cellSize;
+  if (perWavelength >= MIN_CELLS_PER_WAVELENGTH) return null;
+  return `The grid has ${perWavelength.toPrecision(2)} cells per predicted wavelength 2π/k* = ${wavelength.toPrecision(4)} (the box is about ${Math.round(grid.lengthXUm / wavelength)} wavelengths across); at least ${MIN_CELLS_PER_WAVELENGTH} are needed to resolve the pattern, so its wavelength will not be read reliably. Use a smaller box or more cells per axis.`;
 }
 
 /** Step 2: the instability class, diffusion, gradient, step rule and limits; the spec and the plan. */
@@ -81,6 +113,8 @@ export function planRun(state: RunSteadyState, context: RunPlanContext): { spec:
       `The steady state is ${r.classification.label}, not Turing-unstable, at these parameter values: the run is started, but 2π/k* of the fastest-growing mode is not a Turing prediction and the final pattern may oscillate or leave the steady state altogether.`,
     );
   }
+  const coarse = coarseGridWarning(grid, r.fastest?.wavelength);
+  if (coarse) warnings.push(coarse);
   const diffusion = readKineticsDiffusion(compiled, values);
 
   let spatialParameters: Record<string, SpatialParameterField> | undefined;

@@ -103,3 +103,38 @@ describe("planRun (pure: no database, no clock, no randomness)", () => {
     expect(p.gradientPrediction!.positions).toHaveLength(101);
   });
 });
+
+describe("planRun: a box large against the pattern", () => {
+  // γ = 179.5 is about the demo fit's γ for its control condition; with a = 0.1, b = 0.9, d = 20 the
+  // fastest wavelength 2π/k* is below one model length (computed by the stability core, which the
+  // tests compare with), so a 100 × 100 box holds more admissible modes than are counted.
+  const big = () => plan({ parameters: { a: 0.1, b: 0.9, d: 20, gamma: 179.5 }, endTimeS: 8 });
+
+  it("is planned, not refused for counting more admissible modes than the limit; 2π/k* stands alone", () => {
+    const { plan: p } = big();
+    const wavelength = computeDispersion(schnakenberg, { a: 0.1, b: 0.9, d: 20, gamma: 179.5 }).fastest!.wavelength;
+    expect(p.prediction!.wavelength).toBeCloseTo(wavelength, 12);
+    expect(p.prediction!.domainMode).toBeNull();
+  });
+
+  it("warns that 64 cells over 100 model lengths do not resolve the pattern (fewer than 4 cells per 2π/k*)", () => {
+    const { plan: p } = big();
+    const cellsPerWavelength = p.prediction!.wavelength / (100 / 64);
+    expect(cellsPerWavelength).toBeLessThan(4);
+    expect(p.warnings.join(" ")).toContain(
+      `The grid has ${cellsPerWavelength.toPrecision(2)} cells per predicted wavelength`,
+    );
+  });
+
+  it("gives no such warning at 8 wavelengths across on 64 cells", () => {
+    const wavelength = computeDispersion(schnakenberg, { a: 0.1, b: 0.9, d: 20, gamma: 179.5 }).fastest!.wavelength;
+    const side = 8 * wavelength;
+    const { plan: p } = plan({
+      parameters: { a: 0.1, b: 0.9, d: 20, gamma: 179.5 },
+      grid: { lengthUm: [side, side], cells: [64, 64] },
+      endTimeS: 8,
+    });
+    expect(p.warnings.join(" ")).not.toContain("cells per predicted wavelength");
+    expect(p.prediction!.domainMode).not.toBeNull();
+  });
+});
