@@ -45,6 +45,8 @@ test("seeded readout with µm, ROI re-run makes a second readout, study comparis
   await expect(page.getByTestId("spectrum-plot")).toBeVisible();
   await expect(page.getByTestId("orientation-rose")).toBeVisible();
   await expect(page.getByTestId("readout-fft")).toBeVisible();
+  // The Fourier image marks the peak ring (the readout found a period).
+  await expect(page.getByTestId("readout-fft-ring")).toBeVisible();
   const firstUrl = page.url();
 
   // Enter a rectangle ROI (pixels of the 512 × 512 original) and read again.

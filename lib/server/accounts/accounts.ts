@@ -6,14 +6,9 @@ import type { Actor } from "./actor";
 import { ACCOUNT_MAIL_SUBJECTS } from "./account-mail";
 import { AppError } from "../errors";
 import { createSignInLink, sendInBackground, SIGN_IN_LINK_MINUTES } from "./auth";
-import { hashPassword, verifyPassword } from "./passwords";
-import {
-  enforceRateLimit,
-  lockedForS,
-  lockoutMessage,
-  RateLimitedError,
-  recordFailedPassword,
-} from "../web/rate-limit";
+import { hashPassword } from "./passwords";
+import { checkPasswordOrRefuse } from "./password-check";
+import { enforceRateLimit } from "../web/rate-limit";
 import { newSecret, sha256Hex } from "../secrets";
 import { closeOtherSessions } from "./sessions";
 import { changeDisplayName } from "./profile";
@@ -156,12 +151,12 @@ export async function describeSignupRequest(token: string): Promise<{ email: str
  */
 export async function confirmSignup(token: string, password: string) {
   const request = await findSignupRequest(token);
-  const locked = await lockedForS(request.email);
-  if (locked > 0) throw new RateLimitedError(lockoutMessage(locked), locked);
-  if (!(await verifyPassword(password, request.passwordHash))) {
-    await recordFailedPassword(request.email);
-    throw new AppError("unauthenticated", "password: this is not the password you chose when you signed up");
-  }
+  await checkPasswordOrRefuse(
+    request.email,
+    password,
+    request.passwordHash,
+    "password: this is not the password you chose when you signed up",
+  );
   const m = await database();
   // Claim the link first, so two clicks cannot both create the account.
   const [claimed] = await m.SignupRequest.update(
@@ -193,12 +188,12 @@ export async function changePassword(
   const m = await database();
   const user = await m.User.findByPk(actor.userId);
   if (!user) throw new AppError("unauthenticated", "your account no longer exists");
-  const locked = await lockedForS(user.email);
-  if (locked > 0) throw new RateLimitedError(lockoutMessage(locked), locked);
-  if (!(await verifyPassword(input.currentPassword, user.passwordHash))) {
-    await recordFailedPassword(user.email);
-    throw new AppError("unauthenticated", "current password: that is not your current password");
-  }
+  await checkPasswordOrRefuse(
+    user.email,
+    input.currentPassword,
+    user.passwordHash,
+    "current password: that is not your current password",
+  );
   if (input.currentPassword === input.newPassword)
     throw new AppError("bad_input", "new password: choose a password different from the current one");
   await services().db.sequelize.transaction(async (transaction) => {

@@ -11,7 +11,6 @@ import type { Actor } from "./actor-type";
 import { AppError } from "../errors";
 import { recordAccountEvent } from "../audit";
 import { database, services } from "../services";
-import { lockedForS, lockoutMessage, RateLimitedError, recordFailedPassword } from "../web/rate-limit";
 import { ACCOUNT_LINK_PATHS, ACCOUNT_MAIL_SUBJECTS } from "./account-mail";
 import {
   appBase,
@@ -22,7 +21,7 @@ import {
   retireAccountLinks,
 } from "./account-links";
 import { sendInBackground } from "./auth";
-import { verifyPassword } from "./passwords";
+import { checkPasswordOrRefuse } from "./password-check";
 
 export async function changeDisplayName(actor: Actor, name: string) {
   const m = await database();
@@ -50,12 +49,12 @@ export async function requestEmailChange(actor: Actor, input: { newEmail: string
   const m = await database();
   const user = await m.User.findByPk(actor.userId);
   if (!user) throw new AppError("unauthenticated", "your account no longer exists");
-  const locked = await lockedForS(user.email);
-  if (locked > 0) throw new RateLimitedError(lockoutMessage(locked), locked);
-  if (!(await verifyPassword(input.currentPassword, user.passwordHash))) {
-    await recordFailedPassword(user.email);
-    throw new AppError("unauthenticated", "current password: that is not your current password");
-  }
+  await checkPasswordOrRefuse(
+    user.email,
+    input.currentPassword,
+    user.passwordHash,
+    "current password: that is not your current password",
+  );
   const newEmail = input.newEmail;
   if (newEmail === user.email)
     throw new AppError("bad_input", "new e-mail address: that is already your address; type the new one");
