@@ -14,7 +14,18 @@ export async function startServer(stack: TestStack, env: Record<string, string> 
   const c = stack.services.config;
   const child = spawn(
     process.execPath,
-    [path.join(ROOT, "node_modules/next/dist/bin/next"), "start", "-H", "127.0.0.1", "-p", String(port)],
+    [
+      // BENCH_SERVER_CPU_PROF=DIR writes the server's V8 CPU profile there when it stops (node --cpu-prof).
+      ...(process.env.BENCH_SERVER_CPU_PROF
+        ? ["--cpu-prof", `--cpu-prof-dir=${process.env.BENCH_SERVER_CPU_PROF}`]
+        : []),
+      path.join(ROOT, "node_modules/next/dist/bin/next"),
+      "start",
+      "-H",
+      "127.0.0.1",
+      "-p",
+      String(port),
+    ],
     {
       cwd: ROOT,
       stdio: ["ignore", "ignore", "inherit"],
