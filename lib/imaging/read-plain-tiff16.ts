@@ -33,7 +33,8 @@ export function readPlainTiff16(
   if (!layout) return null;
   const { le, width, height, offsets, rowsPerStrip } = layout;
   if (width * height > maxPixels) return null;
-  const data = new Float32Array(width * height);
+  // In shared memory: a second thread of the readout (lib/parallel/spectrum-threads.ts) reads its rows in place.
+  const data = new Float32Array(new SharedArrayBuffer(4 * width * height));
   const scale = 1 / 65535;
   for (let s = 0; s < offsets.length; s++) {
     const rows = Math.min(rowsPerStrip, height - s * rowsPerStrip);

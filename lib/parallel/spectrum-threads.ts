@@ -1,7 +1,8 @@
 /**
  * A SpectrumExecutor that splits the readout's 2-D FFT with one worker thread: the worker takes
  * the second half of the rows, then the second half of the columns, while the calling thread
- * does the first halves; between the two stages both wait for each other. Like the solver's
+ * does the first halves; between the two stages both wait for each other. A pass over an image's
+ * rows (splitRows: the whole-frame residual pass) is split the same way. Like the solver's
  * executor (worker-executor.ts) it stays synchronous: the caller wakes the worker through a
  * shared word and blocks in Atomics.wait (allowed on Node's main thread), and the worker takes
  * the job's buffers with receiveMessageOnPort(parentPort), so readWavelength stays synchronous.
@@ -9,14 +10,21 @@
  * bit-identical to one thread (tests/lib/parallel/spectrum-threads.test.ts).
  */
 import type { Worker } from "node:worker_threads";
-import { transformColumnsToPower, transformRows, type HalfPowerJob, type SpectrumExecutor } from "../fft";
+import {
+  transformColumnsToPower,
+  transformRows,
+  type HalfPowerJob,
+  type RowKernel,
+  type SpectrumExecutor,
+} from "../fft";
 import { startWorker } from "./start-worker";
 import { awaitWord } from "./worker-executor";
 
-/** Control words: [0] generation (caller → worker), [1] stage done (worker → caller), [2] failure. */
+/** Control words: [0] generation (caller → worker), [1] stage done (worker → caller), [2] failure, [3] a row kernel's result. */
 const GEN = 0,
   DONE = 1,
-  FAIL = 2;
+  FAIL = 2,
+  RESULT = 3;
 
 export interface SpectrumThreads extends SpectrumExecutor {
   /** Stops the worker thread; later jobs run on the calling thread. */
@@ -25,7 +33,7 @@ export interface SpectrumThreads extends SpectrumExecutor {
 
 /** Starts the worker thread (it does not keep the process alive). */
 export function createSpectrumThreads(): SpectrumThreads {
-  const ctrl = new Int32Array(new SharedArrayBuffer(4 * 3));
+  const ctrl = new Int32Array(new SharedArrayBuffer(4 * 4));
   let worker: Worker | null = startWorker("spectrum-worker", { ctrl, failure: { words: ctrl, index: FAIL } });
   worker.unref();
   worker.on("error", (err) => console.error("spectrum worker failed:", err));
@@ -75,6 +83,19 @@ export function createSpectrumThreads(): SpectrumThreads {
       transformColumnsToPower(half, halfWidth, height, power, 0, colSplit);
       awaitWord(ctrl, DONE, generation, FAIL);
       return power;
+    },
+    splitRows(kernel: RowKernel, job: object, split: number, end: number, own: () => boolean): boolean | null {
+      if (!worker || Atomics.load(ctrl, FAIL) !== 0) return null;
+      worker.postMessage({ kernel, job, from: split, to: end });
+      start();
+      let mine: boolean;
+      try {
+        mine = own();
+      } finally {
+        // Whatever the caller's part did, the worker finishes its rows before the arrays are reused.
+        awaitWord(ctrl, DONE, generation, FAIL);
+      }
+      return mine && Atomics.load(ctrl, RESULT) === 1;
     },
     dispose() {
       if (!worker) return;
