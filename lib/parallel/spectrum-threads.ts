@@ -27,6 +27,7 @@ const GEN = 0,
   RESULT = 3;
 
 export interface SpectrumThreads extends SpectrumExecutor {
+  splitRows: NonNullable<SpectrumExecutor["splitRows"]>;
   /** Stops the worker thread; later jobs run on the calling thread. */
   dispose(): void;
 }
@@ -102,5 +103,18 @@ export function createSpectrumThreads(): SpectrumThreads {
       void worker.terminate();
       worker = null;
     },
+  };
+}
+
+/**
+ * The executor a readout process installs: its thread starts with the first job large enough to be
+ * split (the FFT of ≥ 2²⁰ bins, the whole-frame pass of ≥ 2²⁰ pixels), so a small image costs none.
+ */
+export function startSpectrumThreadsOnDemand(): SpectrumExecutor {
+  let threads: SpectrumThreads | null = null;
+  const started = () => (threads ??= createSpectrumThreads());
+  return {
+    halfPower: (job) => started().halfPower(job),
+    splitRows: (kernel, job, split, end, own) => started().splitRows(kernel, job, split, end, own),
   };
 }

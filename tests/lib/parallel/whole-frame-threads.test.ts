@@ -8,7 +8,7 @@
 import { afterAll, describe, expect, it } from "vitest";
 import { setSpectrumExecutor, type SpectrumExecutor } from "@/lib/fft";
 import type { GreyImage } from "@/lib/imaging";
-import { createSpectrumThreads } from "@/lib/parallel/spectrum-threads";
+import { createSpectrumThreads, startSpectrumThreadsOnDemand } from "@/lib/parallel/spectrum-threads";
 import { resolveReadoutOptions, type ReadoutOptions } from "@/lib/readout";
 import { prepareWholeFrame } from "@/lib/readout/prepare-whole-frame";
 import { makeTissueFrame, type TissueFrameOptions } from "@/lib/synthetic";
@@ -45,7 +45,7 @@ function oneAndTwo(image: GreyImage, options: ReadoutOptions) {
   let splits = 0;
   const counting: SpectrumExecutor = {
     halfPower: (job) => threads.halfPower(job),
-    splitRows: (...args) => (splits++, threads.splitRows!(...args)),
+    splitRows: (...args) => (splits++, threads.splitRows(...args)),
   };
   setSpectrumExecutor(counting);
   const two = prepareWholeFrame(image, settings);
@@ -89,5 +89,22 @@ describe("the whole-frame residual pass on two threads", () => {
     expect(splits).toBe(1);
     expect(one).toBeNull();
     expect(two).toBeNull();
+  });
+
+  // What the readout child installs with --threads 2 (the server's default): both parts split.
+  it("splits the pass with the executor a readout process installs (its thread started on demand)", () => {
+    const settings = resolveReadoutOptions({ pixelSizeUm: 1, flatten: "plane" }, plain.width, plain.height);
+    setSpectrumExecutor(null);
+    const one = prepareWholeFrame(plain, settings)!;
+    const onDemand = startSpectrumThreadsOnDemand();
+    let splits = 0;
+    setSpectrumExecutor({
+      halfPower: onDemand.halfPower,
+      splitRows: (...args) => (splits++, onDemand.splitRows!(...args)),
+    });
+    const two = prepareWholeFrame(plain, settings)!;
+    setSpectrumExecutor(null);
+    expect(splits).toBe(1);
+    expect(bits(two.data).equals(bits(one.data))).toBe(true);
   });
 });
