@@ -3,8 +3,10 @@
  * SpectrumExecutor.splitRows): the very functions the calling thread runs on its own rows.
  */
 import type { RowKernel } from "../fft";
+import { runRegionStatsRows, type RegionStatsJob } from "../readout/region-stats";
 import { runResidualRows, type ResidualRowsJob } from "../readout/residual-rows";
 
 export const ROW_KERNELS: Record<RowKernel, (job: never, from: number, to: number) => boolean> = {
   "residual-rows": (job: ResidualRowsJob, from, to) => runResidualRows(job, from, to),
+  "region-stats": (job: RegionStatsJob, from, to) => runRegionStatsRows(job, from, to),
 };
