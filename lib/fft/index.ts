@@ -17,4 +17,5 @@ export {
   MIN_PARALLEL_BINS,
   type SpectrumExecutor,
   type HalfPowerJob,
+  type RowKernel,
 } from "./spectrum-executor";

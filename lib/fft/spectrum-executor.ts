@@ -25,7 +25,18 @@ export interface HalfPowerJob {
 export interface SpectrumExecutor {
   /** |F|² (rows of width/2 + 1), or null to let the caller compute it serially. */
   halfPower(job: HalfPowerJob): Float32Array | null;
+  /**
+   * A pass over an image's rows split between the threads: the other thread runs `kernel` (a row
+   * kernel its worker knows, lib/parallel/row-kernels.ts) on rows [split, end) of `job` while the
+   * caller runs `own` (the rows before split). True when both parts returned true, false when
+   * either did not; null when it cannot (the caller then runs every row itself). Whatever the
+   * kernel writes must be in shared memory, and so should any large input (others are copied).
+   */
+  splitRows?(kernel: RowKernel, job: object, split: number, end: number, own: () => boolean): boolean | null;
 }
+
+/** The row kernels an executor's worker can run (each computes its rows exactly as the caller would). */
+export type RowKernel = "residual-rows" | "region-stats" | "scale-samples" | "box-rows" | "box-columns";
 
 /** Transforms smaller than this (bins) stay on the calling thread: waking a thread costs more. */
 export const MIN_PARALLEL_BINS = 1 << 20;

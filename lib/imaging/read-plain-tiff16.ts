@@ -1,6 +1,7 @@
 import type { GreyImage } from "./grey-image";
 import { byteViewOf, isImageFile, type ByteView, type ImageInput } from "./image-input";
 import { readPixelSize, type PixelSizeInfo } from "./pixel-size";
+import { currentSpectrumExecutor, MIN_PARALLEL_BINS } from "../fft";
 
 /** What decodeImage returns, for this one kind of file. */
 export interface PlainTiff16 {
@@ -33,23 +34,27 @@ export function readPlainTiff16(
   if (!layout) return null;
   const { le, width, height, offsets, rowsPerStrip } = layout;
   if (width * height > maxPixels) return null;
-  const data = new Float32Array(width * height);
+  // In shared memory: a second thread of the readout (lib/parallel/spectrum-threads.ts) reads its rows in place.
+  const data = new Float32Array(new SharedArrayBuffer(4 * width * height));
   const scale = 1 / 65535;
-  for (let s = 0; s < offsets.length; s++) {
-    const rows = Math.min(rowsPerStrip, height - s * rowsPerStrip);
-    const n = rows * width,
-      at = offsets[s];
-    const out = s * rowsPerStrip * width;
-    // A file's strip is read by itself (a fresh, aligned array); bytes in memory are read in place.
-    const bytes = isImageFile(input) ? input.read(at, 2 * n) : input;
-    const from = isImageFile(input) ? 0 : at;
-    if (le && (bytes.byteOffset + from) % 2 === 0 && littleEndianHost) {
-      scaleSamples(new Uint16Array(bytes.buffer, bytes.byteOffset + from, n), data, out, scale);
-    } else {
-      const strip = new DataView(bytes.buffer, bytes.byteOffset + from, 2 * n);
-      for (let i = 0; i < n; i++) data[out + i] = strip.getUint16(2 * i, le) * scale;
+  const convert = (fromStrip: number, toStrip: number) => {
+    for (let s = fromStrip; s < toStrip; s++) {
+      const rows = Math.min(rowsPerStrip, height - s * rowsPerStrip);
+      const n = rows * width,
+        at = offsets[s];
+      const out = s * rowsPerStrip * width;
+      // A file's strip is read by itself (a fresh, aligned array); bytes in memory are read in place.
+      const bytes = isImageFile(input) ? input.read(at, 2 * n) : input;
+      const from = isImageFile(input) ? 0 : at;
+      if (le && (bytes.byteOffset + from) % 2 === 0 && littleEndianHost) {
+        scaleSamples(new Uint16Array(bytes.buffer, bytes.byteOffset + from, n), data, out, scale);
+      } else {
+        const strip = new DataView(bytes.buffer, bytes.byteOffset + from, 2 * n);
+        for (let i = 0; i < n; i++) data[out + i] = strip.getUint16(2 * i, le) * scale;
+      }
     }
-  }
+  };
+  if (!convertOnTwoThreads(input, layout, data, scale, convert)) convert(0, offsets.length);
   const px = readPixelSize(input, "tiff");
   return {
     image: { width, height, data },
@@ -106,6 +111,60 @@ export function readPlainTiff16Layout(input: ImageInput): PlainTiff16Layout | nu
  */
 function scaleSamples(samples: Uint16Array, data: Float32Array, out: number, scale: number): void {
   for (let i = 0; i < samples.length; i++) data[out + i] = samples[i] * scale;
+}
+
+/** The second thread's part of the conversion: samples[i − base] × scale into data[i], i in [from, to). */
+export interface ScaleSamplesJob {
+  samples: Uint16Array;
+  data: Float32Array;
+  base: number;
+  scale: number;
+}
+
+/** Values [from, to) of a ScaleSamplesJob (a row kernel, SpectrumExecutor.splitRows). */
+export function runScaleSamples(job: ScaleSamplesJob, from: number, to: number): boolean {
+  scaleSamples(job.samples.subarray(from - job.base, to - job.base), job.data, from, job.scale);
+  return true;
+}
+
+/** The second thread's samples, in shared memory reused by the next frame of the same size (its page faults once). */
+let kept: WeakRef<Uint16Array> | null = null;
+
+/**
+ * With a second thread (SpectrumExecutor.splitRows) and the file's bytes in memory, little-endian
+ * and aligned: the later half of the strips is copied into shared memory and converted by the
+ * other thread while this one converts the first half (by `convert`). False when it cannot: then
+ * nothing is converted yet. The same multiplication either way, so the same values.
+ */
+function convertOnTwoThreads(
+  input: ImageInput,
+  { le, width, height, offsets, rowsPerStrip }: PlainTiff16Layout,
+  data: Float32Array,
+  scale: number,
+  convert: (fromStrip: number, toStrip: number) => void,
+): boolean {
+  const executor = currentSpectrumExecutor();
+  if (!executor?.splitRows || isImageFile(input) || !le || !littleEndianHost || offsets.length < 2) return false;
+  if (width * height < MIN_PARALLEL_BINS || offsets.some((at) => (input.byteOffset + at) % 2 !== 0)) return false;
+  const first = Math.ceil(offsets.length / 2);
+  const base = first * rowsPerStrip * width,
+    end = width * height;
+  let samples = kept?.deref();
+  if (!samples || samples.length !== end - base) {
+    samples = new Uint16Array(new SharedArrayBuffer(2 * (end - base)));
+    kept = new WeakRef(samples);
+  }
+  for (let s = first; s < offsets.length; s++) {
+    const n = Math.min(rowsPerStrip, height - s * rowsPerStrip) * width;
+    samples.set(new Uint16Array(input.buffer, input.byteOffset + offsets[s], n), s * rowsPerStrip * width - base);
+  }
+  const job: ScaleSamplesJob = { samples, data, base, scale };
+  return (
+    executor.splitRows("scale-samples", job, base, end, () => {
+      convert(0, first);
+      return true;
+    }) !== null
+  );
 }
 
 export const littleEndianHost = new Uint8Array(new Uint16Array([1]).buffer)[0] === 1;

@@ -1,7 +1,8 @@
 /**
  * A SpectrumExecutor that splits the readout's 2-D FFT with one worker thread: the worker takes
  * the second half of the rows, then the second half of the columns, while the calling thread
- * does the first halves; between the two stages both wait for each other. Like the solver's
+ * does the first halves; between the two stages both wait for each other. A pass over an image's
+ * rows (splitRows: the whole-frame residual pass) is split the same way. Like the solver's
  * executor (worker-executor.ts) it stays synchronous: the caller wakes the worker through a
  * shared word and blocks in Atomics.wait (allowed on Node's main thread), and the worker takes
  * the job's buffers with receiveMessageOnPort(parentPort), so readWavelength stays synchronous.
@@ -9,23 +10,31 @@
  * bit-identical to one thread (tests/lib/parallel/spectrum-threads.test.ts).
  */
 import type { Worker } from "node:worker_threads";
-import { transformColumnsToPower, transformRows, type HalfPowerJob, type SpectrumExecutor } from "../fft";
+import {
+  transformColumnsToPower,
+  transformRows,
+  type HalfPowerJob,
+  type RowKernel,
+  type SpectrumExecutor,
+} from "../fft";
 import { startWorker } from "./start-worker";
 import { awaitWord } from "./worker-executor";
 
-/** Control words: [0] generation (caller → worker), [1] stage done (worker → caller), [2] failure. */
+/** Control words: [0] generation (caller → worker), [1] stage done (worker → caller), [2] failure, [3] a row kernel's result. */
 const GEN = 0,
   DONE = 1,
-  FAIL = 2;
+  FAIL = 2,
+  RESULT = 3;
 
 export interface SpectrumThreads extends SpectrumExecutor {
+  splitRows: NonNullable<SpectrumExecutor["splitRows"]>;
   /** Stops the worker thread; later jobs run on the calling thread. */
   dispose(): void;
 }
 
 /** Starts the worker thread (it does not keep the process alive). */
 export function createSpectrumThreads(): SpectrumThreads {
-  const ctrl = new Int32Array(new SharedArrayBuffer(4 * 3));
+  const ctrl = new Int32Array(new SharedArrayBuffer(4 * 4));
   let worker: Worker | null = startWorker("spectrum-worker", { ctrl, failure: { words: ctrl, index: FAIL } });
   worker.unref();
   worker.on("error", (err) => console.error("spectrum worker failed:", err));
@@ -76,10 +85,36 @@ export function createSpectrumThreads(): SpectrumThreads {
       awaitWord(ctrl, DONE, generation, FAIL);
       return power;
     },
+    splitRows(kernel: RowKernel, job: object, split: number, end: number, own: () => boolean): boolean | null {
+      if (!worker || Atomics.load(ctrl, FAIL) !== 0) return null;
+      worker.postMessage({ kernel, job, from: split, to: end });
+      start();
+      let mine: boolean;
+      try {
+        mine = own();
+      } finally {
+        // Whatever the caller's part did, the worker finishes its rows before the arrays are reused.
+        awaitWord(ctrl, DONE, generation, FAIL);
+      }
+      return mine && Atomics.load(ctrl, RESULT) === 1;
+    },
     dispose() {
       if (!worker) return;
       void worker.terminate();
       worker = null;
     },
+  };
+}
+
+/**
+ * The executor a readout process installs: its thread starts with the first job large enough to be
+ * split (the FFT of ≥ 2²⁰ bins, the whole-frame pass of ≥ 2²⁰ pixels), so a small image costs none.
+ */
+export function startSpectrumThreadsOnDemand(): SpectrumExecutor {
+  let threads: SpectrumThreads | null = null;
+  const started = () => (threads ??= createSpectrumThreads());
+  return {
+    halfPower: (job) => started().halfPower(job),
+    splitRows: (kernel, job, split, end, own) => started().splitRows(kernel, job, split, end, own),
   };
 }

@@ -1,10 +1,12 @@
-/** Worker side of createSpectrumThreads: the second half of the rows, then of the columns, of each job. */
+/** Worker side of createSpectrumThreads: the second half of the rows, then of the columns, of each job; or its rows of a row kernel. */
 import { parentPort, receiveMessageOnPort, workerData } from "node:worker_threads";
-import { transformColumnsToPower, transformRows, type HalfPowerJob } from "../fft";
+import { transformColumnsToPower, transformRows, type HalfPowerJob, type RowKernel } from "../fft";
+import { ROW_KERNELS } from "./row-kernels";
 import { raiseFailureWord, type FailureWord } from "./start-worker";
 
 const GEN = 0,
-  DONE = 1;
+  DONE = 1,
+  RESULT = 3;
 /** Busy-wait iterations before sleeping, as in diffusion-worker.ts. */
 const SPIN_LOOPS = 200_000;
 
@@ -16,6 +18,14 @@ interface Job extends HalfPowerJob {
   half: Float32Array | Float64Array;
   power: Float32Array;
   colSplit: number;
+}
+
+/** Rows [from, to) of a row kernel's job (SpectrumExecutor.splitRows). */
+interface RowsJob {
+  kernel: RowKernel;
+  job: never;
+  from: number;
+  to: number;
 }
 
 function serve({ ctrl }: { ctrl: Int32Array }): void {
@@ -31,7 +41,14 @@ function serve({ ctrl }: { ctrl: Int32Array }): void {
   };
   for (;;) {
     next();
-    const job = receiveMessageOnPort(parentPort!)?.message as Job;
+    const message = receiveMessageOnPort(parentPort!)?.message as Job | RowsJob;
+    if ("kernel" in message) {
+      const ok = ROW_KERNELS[message.kernel](message.job, message.from, message.to);
+      Atomics.store(ctrl, RESULT, ok ? 1 : 0);
+      done();
+      continue;
+    }
+    const job = message;
     const { srcWidth, srcHeight, width, height, rowOffset, srcFirstRow, half, power, colSplit } = job;
     transformRows(
       job.src,

@@ -1,3 +1,5 @@
+import { currentSpectrumExecutor, MIN_PARALLEL_BINS } from "../fft";
+
 /** One pass of a running-box mean of half-width r along rows (stride 1) or columns (stride width). */
 function boxPass(
   src: Float32Array,
@@ -43,22 +45,32 @@ function boxPass(
  * whole and in order (a column at a time would read one value per cache line), the same sums as
  * boxPass with stride `width`.
  */
-function boxPassColumns(src: Float32Array, dst: Float32Array, width: number, height: number, r: number): void {
-  const acc = new Float64Array(width);
+function boxPassColumns(
+  src: Float32Array,
+  dst: Float32Array,
+  width: number,
+  height: number,
+  r: number,
+  x0 = 0,
+  x1 = width,
+): void {
+  // Columns [x0, x1) only (a thread's share): acc[i] is column x0 + i.
+  const acc = new Float64Array(x1 - x0);
   for (let k = 0; k <= Math.min(r, height - 1); k++) {
-    const row = k * width;
-    for (let x = 0; x < width; x++) acc[x] += src[row + x];
+    const row = k * width + x0;
+    for (let x = 0; x < x1 - x0; x++) acc[x] += src[row + x];
   }
   for (let k = 0; k < height; k++) {
     const lo = k - r,
       hi = k + r;
     const n = Math.min(hi, height - 1) - Math.max(lo, 0) + 1;
-    const out = k * width;
+    const out = k * width + x0;
+    const m = x1 - x0;
     if (hi + 1 < height && lo >= 0) {
       // Inside the column the three steps in one loop, each column's sum in the same order.
-      const add = (hi + 1) * width,
-        sub = lo * width;
-      for (let x = 0; x < width; x++) {
+      const add = (hi + 1) * width + x0,
+        sub = lo * width + x0;
+      for (let x = 0; x < m; x++) {
         let v = acc[x];
         dst[out + x] = v / n;
         v += src[add + x];
@@ -67,14 +79,14 @@ function boxPassColumns(src: Float32Array, dst: Float32Array, width: number, hei
       }
       continue;
     }
-    for (let x = 0; x < width; x++) dst[out + x] = acc[x] / n;
+    for (let x = 0; x < m; x++) dst[out + x] = acc[x] / n;
     if (hi + 1 < height) {
-      const add = (hi + 1) * width;
-      for (let x = 0; x < width; x++) acc[x] += src[add + x];
+      const add = (hi + 1) * width + x0;
+      for (let x = 0; x < m; x++) acc[x] += src[add + x];
     }
     if (lo >= 0) {
-      const sub = lo * width;
-      for (let x = 0; x < width; x++) acc[x] -= src[sub + x];
+      const sub = lo * width + x0;
+      for (let x = 0; x < m; x++) acc[x] -= src[sub + x];
     }
   }
 }
@@ -162,16 +174,53 @@ function boxPassRows(src: Float32Array, dst: Float32Array, width: number, height
   if (line < height) boxPass(src.subarray(line * width), dst.subarray(line * width), width, height - line, 1, width, r);
 }
 
-/** Three box passes per axis approximate a Gaussian of SD σ (Wells 1986, IEEE PAMI 8:234). */
+/**
+ * Three box passes per axis approximate a Gaussian of SD σ (Wells 1986, IEEE PAMI 8:234). With a
+ * second thread (SpectrumExecutor.splitRows) and at least 2²⁰ px, each pass is split: the rows'
+ * passes by rows, the columns' by columns; every row and column is the same sums either way.
+ */
 export function blur(data: Float32Array, width: number, height: number, sigmaPx: number): Float32Array {
   const r = Math.max(1, Math.round(Math.sqrt(sigmaPx * sigmaPx + 1) - 0.5)); // 3 boxes of width 2r+1: σ² = 3·((2r+1)²−1)/12 ≈ r²
-  let a = Float32Array.from(data);
-  let b = new Float32Array(data.length);
+  const executor = currentSpectrumExecutor();
+  const split = executor?.splitRows && width * height >= MIN_PARALLEL_BINS && width >= 2 && height >= 2;
+  let a = split ? new Float32Array(new SharedArrayBuffer(4 * data.length)) : Float32Array.from(data);
+  let b = split ? new Float32Array(new SharedArrayBuffer(4 * data.length)) : new Float32Array(data.length);
+  if (split) a.set(data);
   for (let p = 0; p < 3; p++) {
-    boxPassRows(a, b, width, height, r);
+    const job: BoxJob = { src: a, dst: b, width, height, r };
+    const rowAt = height >> 1;
+    if (!split || executor.splitRows!("box-rows", job, rowAt, height, () => runBoxRows(job, 0, rowAt)) === null)
+      boxPassRows(a, b, width, height, r);
     [a, b] = [b, a];
-    boxPassColumns(a, b, width, height, r);
+    const columns: BoxJob = { src: a, dst: b, width, height, r };
+    const columnAt = width >> 1;
+    if (
+      !split ||
+      executor.splitRows!("box-columns", columns, columnAt, width, () => runBoxColumns(columns, 0, columnAt)) === null
+    )
+      boxPassColumns(a, b, width, height, r);
     [a, b] = [b, a];
   }
   return a;
+}
+
+/** One box pass of a blur as a row kernel (SpectrumExecutor.splitRows). */
+export interface BoxJob {
+  src: Float32Array;
+  dst: Float32Array;
+  width: number;
+  height: number;
+  r: number;
+}
+
+/** Rows [from, to) of a box pass along the rows. */
+export function runBoxRows({ src, dst, width, r }: BoxJob, from: number, to: number): boolean {
+  boxPassRows(src.subarray(from * width, to * width), dst.subarray(from * width, to * width), width, to - from, r);
+  return true;
+}
+
+/** Columns [from, to) of a box pass down the columns. */
+export function runBoxColumns({ src, dst, width, height, r }: BoxJob, from: number, to: number): boolean {
+  boxPassColumns(src, dst, width, height, r, from, to);
+  return true;
 }

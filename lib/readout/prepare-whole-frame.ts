@@ -8,6 +8,7 @@ import {
   interpolateCoarseBackground,
   type CoarseBackground,
 } from "./coarse-background";
+import { currentSpectrumExecutor, MIN_PARALLEL_BINS, type SpectrumExecutor } from "../fft";
 import { MESSAGES, ReadoutError } from "./errors";
 import { planeCoefficients, subtractBlur, subtractMean, subtractPlane } from "./flatten";
 import type { ResolvedReadoutOptions } from "./options";
@@ -15,7 +16,7 @@ import { findSaturated, outlierLimits, outlierSampleStep } from "./outliers";
 import type { PreparedRegion } from "./prepared-region";
 import { takeRegionStats } from "./region-stats";
 import { reusedFloat32 } from "./reused-buffer";
-import { addBlockSums, planeRow, residualRow } from "./whole-frame-rows";
+import { runResidualRows, WRITE_NONE, WRITE_PLANE, WRITE_RESIDUAL, type ResidualRowsJob } from "./residual-rows";
 import { findTissueOnBinned, tissueSearchFactor, type TissueRegion } from "./tissue-mask";
 
 /** What the background pass computes per pixel: the value before and after the background. */
@@ -81,14 +82,24 @@ export function prepareWholeFrame(
   const limits = auto ? outlierLimits(sampleResidual(source, bg, width, height)) : null;
   // Pass 2: the residual, on the fly; and the flattened copy, which stands unless a tissue is found.
   // Reused across readouts when the caller keeps nothing of the region after its call (readWavelength).
-  const data = reuse ? reusedFloat32("prepared-region", width * height) : new Float32Array(width * height);
+  // With a second thread (and the pixels in shared memory, as the TIFF reader leaves them) pass 2 is split by rows.
+  const executor = currentSpectrumExecutor();
+  const split =
+    executor?.splitRows && src.buffer instanceof SharedArrayBuffer && width * height >= MIN_PARALLEL_BINS
+      ? executor
+      : null;
+  const data = reuse
+    ? reusedFloat32("prepared-region", width * height)
+    : split
+      ? new Float32Array(new SharedArrayBuffer(4 * width * height))
+      : new Float32Array(width * height);
   const write: Write =
     settings.flatten === "auto"
       ? { kind: "residual" }
       : settings.flatten === "plane"
         ? { kind: "plane", plane: planeCoefficients(width, height, planeSums) }
         : { kind: "none" };
-  const pass = residualPass(source, bg, width, height, limits, wantTissue ? tf : 0, line, data, write);
+  const pass = residualPass(source, bg, width, height, limits, wantTissue ? tf : 0, data, write, split);
   if (!pass) return null; // outliers to treat: the general path replaces them
   const tissue: TissueRegion =
     wantTissue && pass.binned
@@ -162,72 +173,56 @@ interface ResidualPass {
 
 /**
  * One pass computing the residual (rounded to float32 as the general path stores it), returning
- * null at the first value beyond the outlier limits, and binning the residual and the intensity
- * by `tf` (0: no binning) in binPixels' order.
+ * null if a value lies beyond the outlier limits, and binning the residual and the intensity
+ * by `tf` (0: no binning) in binPixels' order (residual-rows.ts, per row).
  */
 function residualPass(
-  s: Source,
+  { src, plane: sourcePlane }: Source,
   bg: CoarseBackground,
   width: number,
   height: number,
   limits: { upper: number; lower: number } | null,
   tf: number,
-  line: Float32Array,
   data: Float32Array,
   write: Write,
+  split: SpectrumExecutor | null,
 ): ResidualPass | null {
-  const upper = limits ? limits.upper : Infinity,
-    lower = limits ? limits.lower : -Infinity;
-  const res = new Float32Array(width);
   const w = tf > 0 ? Math.floor(width / tf) : 0,
     h = tf > 0 ? Math.floor(height / tf) : 0;
-  const outR = new Float32Array(w * h),
-    outI = new Float32Array(w * h);
-  const accR = new Float64Array(w),
-    accI = new Float64Array(w);
-  const norm = tf > 0 ? 1 / (tf * tf) : 0;
-  const { rows, offset } = bg;
-  // [largest, smallest, Σv²] of a row's residual; [Σv, Σv²] of a row less the plane.
-  const extremes = new Float64Array(3),
-    planeSums = new Float64Array(2);
-  const toData = write.kind === "residual",
-    plane = write.kind === "plane" ? write.plane : null;
+  const plane = write.kind === "plane" ? write.plane : null;
+  const shared = (n: number) => (split ? new Float32Array(new SharedArrayBuffer(4 * n)) : new Float32Array(n));
+  const job: ResidualRowsJob = {
+    src,
+    width,
+    height,
+    sourcePlane: sourcePlane ? Float64Array.of(sourcePlane.c0, sourcePlane.c1, sourcePlane.c2) : new Float64Array(0),
+    bgRows: bg.rows,
+    bgF: bg.f,
+    bgBh: bg.bh,
+    bgOffset: bg.offset,
+    upper: limits ? limits.upper : Infinity,
+    lower: limits ? limits.lower : -Infinity,
+    tf,
+    binnedResidual: shared(w * h),
+    binnedIntensity: shared(w * h),
+    data,
+    write: write.kind === "residual" ? WRITE_RESIDUAL : plane ? WRITE_PLANE : WRITE_NONE,
+    writePlane: plane ? Float64Array.of(plane.c0, plane.c1, plane.c2) : new Float64Array(0),
+    rowSums: split ? new Float64Array(new SharedArrayBuffer(16 * height)) : new Float64Array(2 * height),
+  };
+  // The split falls on a whole row of the tissue search's blocks, so each thread bins whole blocks.
+  const block = tf > 0 ? tf : 1;
+  const at = block * Math.round(height / 2 / block);
+  const both = split ? split.splitRows!("residual-rows", job, at, height, () => runResidualRows(job, 0, at)) : null;
+  if (!(both ?? runResidualRows(job, 0, height))) return null;
+  // [Σv, Σv²] added row after row, in row order.
   let s1 = 0,
     s2 = 0;
   for (let y = 0; y < height; y++) {
-    // The stored values are read in place; with the plane first, a row of them less the plane.
-    const v = s.plane ? line : s.src,
-      at = s.plane ? 0 : y * width;
-    if (s.plane) sourceRow(s, y, width, line);
-    const { y0, y1, ty } = gridRow(y, bg.f, bg.bh);
-    const uy = 1 - ty,
-      top = y0 * width,
-      bottom = y1 * width;
-    // With "auto" flattening the residual is the flattened copy: written there, not to a scratch row.
-    const out = toData ? data : res,
-      outAt = toData ? y * width : 0;
-    residualRow(v, at, rows, top, bottom, uy, ty, offset, out, outAt, width, extremes);
-    // The stored (float32) residual is beyond a limit exactly when its rounded extreme is (rounding is monotone).
-    if (Math.fround(extremes[0]) > upper || Math.fround(extremes[1]) < lower) return null;
-    if (toData) s2 += extremes[2];
-    else if (plane) {
-      planeRow(s.src, y * width, data, plane.c0 + plane.c2 * y, plane.c1, width, planeSums);
-      s1 += planeSums[0];
-      s2 += planeSums[1];
-    }
-    if (tf > 0 && y < h * tf) {
-      addBlockSums(out, outAt, v, at, accR, accI, w, tf);
-      if ((y + 1) % tf === 0) {
-        const by = (y + 1) / tf - 1;
-        for (let bx = 0; bx < w; bx++) {
-          outR[by * w + bx] = accR[bx] * norm;
-          outI[by * w + bx] = accI[bx] * norm;
-        }
-        accR.fill(0);
-        accI.fill(0);
-      }
-    }
+    s1 += job.rowSums[2 * y];
+    s2 += job.rowSums[2 * y + 1];
   }
+  const toData = write.kind === "residual";
   const grid = (g: Float32Array) => ({ data: g, width: w, height: h, included: null });
   const n = width * height;
   let known: number | null = null;
@@ -240,7 +235,7 @@ function residualPass(
     known = Math.abs(mean) <= 1e-6 * sd ? sd : null;
   }
   return {
-    binned: tf > 0 ? { residual: grid(outR), intensity: grid(outI) } : null,
+    binned: tf > 0 ? { residual: grid(job.binnedResidual), intensity: grid(job.binnedIntensity) } : null,
     wrote: toData || (plane !== null && n >= 2),
     known,
   };

@@ -12,7 +12,7 @@ import "server-only";
 import { readFileSync, writeFileSync } from "node:fs";
 import path from "node:path";
 import { setSpectrumExecutor } from "../fft";
-import { createSpectrumThreads, type SpectrumThreads } from "../parallel/spectrum-threads";
+import { startSpectrumThreadsOnDemand } from "../parallel/spectrum-threads";
 import { toAppError } from "../server/core-errors";
 import { withImageInput } from "./image-file";
 import { runImageReadout } from "../server/readouts/image";
@@ -26,14 +26,14 @@ function arg(name: string): string {
 }
 
 /**
- * The readout's 2-D FFT on two threads when the parent gives `--threads 2` (bit-identical to one).
- * The thread starts with the first transform large enough to be split, so a small image costs none.
+ * The readout's 2-D FFT and its whole-frame pass on two threads when the parent gives `--threads 2`
+ * (the server's default, READOUT_THREADS; bit-identical to one). The thread starts with the first
+ * job large enough to be split, so a small image costs none.
  */
 function installSpectrumThreads(): void {
   const i = process.argv.indexOf("--threads");
   if (i < 0 || process.argv[i + 1] !== "2") return;
-  let threads: SpectrumThreads | null = null;
-  setSpectrumExecutor({ halfPower: (job) => (threads ??= createSpectrumThreads()).halfPower(job) });
+  setSpectrumExecutor(startSpectrumThreadsOnDemand());
 }
 
 async function main() {
