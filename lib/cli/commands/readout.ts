@@ -2,7 +2,7 @@ import { formatPlain, formatPlusMinus } from "@/lib/format/measurement";
 import { readFileSync } from "node:fs";
 import { availableParallelism } from "node:os";
 import { setSpectrumExecutor } from "../../fft";
-import { createSpectrumThreads, type SpectrumThreads } from "../../parallel/spectrum-threads";
+import { startSpectrumThreadsOnDemand } from "../../parallel/spectrum-threads";
 import { CliError, parseOptions, type CliCommand } from "../command";
 import { toCliError } from "../core-errors";
 import {
@@ -39,7 +39,7 @@ Image options:
   --channel N|luminance  channel index from 0, or luminance (default luminance)
   --roi x,y,w,h        rectangle in pixels (default: whole image)
   --invert             dark-on-light pattern (negates intensities)
-  --threads 1|2        threads of the 2-D FFT (default 2 on a machine with 2 or more cores; same numbers)
+  --threads 1|2        threads of the 2-D FFT and the row passes (default 2 on a machine with 2 or more cores; same numbers)
 Table options (give one of, or none to take the columns from the header; COL is a header or a letter):
   --x COL --y COL      2-D centroids: nearest-neighbour statistics, Clark-Evans R
   --position COL       1-D positions: successive spacings
@@ -61,15 +61,14 @@ function str(v: string | true | undefined, name: string): string | undefined {
 }
 
 /** One spectrum thread for the whole command (a FOLDER reads many files with it). */
-let spectrumThreads: SpectrumThreads | null = null;
+let spectrumThreads: ReturnType<typeof startSpectrumThreadsOnDemand> | null = null;
 
 function installSpectrumThreads(value: string | true | undefined): void {
   const threads = value === undefined ? (availableParallelism() >= 2 ? 2 : 1) : value === true ? NaN : Number(value);
   if (threads !== 1 && threads !== 2) throw new CliError(`--threads must be 1 or 2 (got ${String(value)}).`);
   // The thread starts with the first transform large enough to be split (small images cost none).
-  if (threads === 2)
-    setSpectrumExecutor({ halfPower: (job) => (spectrumThreads ??= createSpectrumThreads()).halfPower(job) });
-  else setSpectrumExecutor(null);
+  // With two, the row passes (decode, statistics, residual, blurs) are split too, as in the server's child.
+  setSpectrumExecutor(threads === 2 ? (spectrumThreads ??= startSpectrumThreadsOnDemand()) : null);
 }
 
 const command: CliCommand = {
