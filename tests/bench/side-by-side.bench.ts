@@ -150,7 +150,7 @@ async function readoutRows(np: NumpyFigure | null): Promise<BenchRow[]> {
       `Morphokin ${core.ms.toFixed(0)} ms (${core.min.toFixed(0)}–${core.max.toFixed(0)}), ${said(core.value)}; ${npNote}`,
     ),
     ratioRow(
-      "side by side: decode + core readout 4096², FFT on 2 threads",
+      "side by side: decode + core readout 4096², on 2 threads",
       core2.ms,
       np,
       "≤ 0.75, 32 px ± 2 %",
