@@ -87,8 +87,8 @@ export function OpenDiscussions({ labId }: { labId: string }) {
                 }}
               />
             ) : (
-              <div className="flex items-baseline justify-between gap-4 py-2">
-                <div className="min-w-0">
+              <div className="flex flex-wrap items-baseline justify-between gap-x-4 gap-y-1 py-2">
+                <div className="min-w-0 flex-1 basis-48">
                   <div className="text-sm">
                     {t.target.path ? (
                       <Link href={t.target.path} className="font-medium text-ink hover:text-moss">

@@ -94,3 +94,41 @@ test("collaborator asks about a readout, the scientist is e-mailed and replies, 
   await mine.close();
   await expect(dashboard.thread(question)).toHaveCount(0);
 });
+
+test("on a 390 px phone an open discussion's row keeps its name, first words and counts apart", async ({
+  lab,
+  page,
+}) => {
+  const labId = lab.labId;
+  const readouts = await (
+    await page.request.get(`/api/v1/labs/${labId}/readouts?pageSize=1&sort=createdAt&dir=asc`)
+  ).json();
+  const readout = readouts.items[0] as { id: string; filename: string };
+  const question = unique("Does the row spacing change along the flank");
+  const started = await page.request.post(`/api/v1/labs/${labId}/threads`, {
+    headers: { origin: BASE_URL },
+    data: { targetType: "readout", targetId: readout.id, body: `${question}?` },
+  });
+  expect(started.status()).toBe(201);
+
+  await page.setViewportSize({ width: 390, height: 800 });
+  const dashboard = await lab.open(DashboardPage);
+  const row = dashboard.thread(question);
+  await expect(row).toContainText(`the readout of “${readout.filename}”`);
+  const name = await row.getByRole("link", { name: `the readout of “${readout.filename}”` }).boundingBox();
+  const counts = await row.getByText(/comments?$/).boundingBox();
+  const open = await row.getByTestId("open-thread").boundingBox();
+  expect(name && counts && open).toBeTruthy();
+  // The counts and the Open button sit on their own line below the name, never across it.
+  for (const box of [counts!, open!]) {
+    const overlaps =
+      box.x < name!.x + name!.width &&
+      name!.x < box.x + box.width &&
+      box.y < name!.y + name!.height &&
+      name!.y < box.y + box.height;
+    expect(overlaps).toBe(false);
+  }
+  expect(open!.x + open!.width).toBeLessThanOrEqual(390);
+  expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+  await row.screenshot({ path: "test-results/open-discussions-390.png" });
+});
