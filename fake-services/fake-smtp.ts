@@ -71,10 +71,16 @@ export async function startFakeSmtp(options: { smtpPort: number; httpPort: numbe
     res.writeHead(404, { "content-type": "application/json" });
     res.end(JSON.stringify({ error: "not found" }));
   });
-  await new Promise<void>((resolve, reject) => {
-    web.once("error", reject);
-    web.listen(options.httpPort, "127.0.0.1", () => resolve());
-  });
+  try {
+    await new Promise<void>((resolve, reject) => {
+      web.once("error", reject);
+      web.listen(options.httpPort, "127.0.0.1", () => resolve());
+    });
+  } catch (err) {
+    // The mail listing's port was taken: leave nothing listening behind the refusal.
+    await new Promise<void>((r) => smtp.close(() => r()));
+    throw err;
+  }
   return {
     close: async () => {
       await new Promise<void>((r) => smtp.close(() => r()));

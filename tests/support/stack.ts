@@ -48,12 +48,33 @@ export function stackChildEnv(stack: TestStack): NodeJS.ProcessEnv {
   };
 }
 
+function isPortTaken(err: unknown): boolean {
+  return (err as NodeJS.ErrnoException)?.code === "EADDRINUSE";
+}
+
+/**
+ * The fake object store and mail server on free ports. A port `freePort()` found free can be taken by
+ * a parallel test before the fake listens on it; then the fakes start again on new ports.
+ */
+async function startFakes(dir: string, attempts = 5) {
+  for (let attempt = 1; ; attempt++) {
+    const [s3Port, smtpPort, httpPort] = [await freePort(), await freePort(), await freePort()];
+    let s3: Awaited<ReturnType<typeof startFakeS3>> | undefined;
+    try {
+      s3 = await startFakeS3({ port: s3Port, directory: path.join(dir, "s3"), bucket: "morphokin-test" });
+      const smtp = await startFakeSmtp({ smtpPort, httpPort, directory: path.join(dir, "mail") });
+      return { s3, smtp, s3Port, smtpPort, httpPort };
+    } catch (err) {
+      await s3?.close().catch(() => undefined);
+      if (!isPortTaken(err) || attempt >= attempts) throw err;
+    }
+  }
+}
+
 /** `database`: "sqlite" forces the SQLite file even in the postgres project (e.g. as a copy's source). */
 export async function startTestStack(options: { database?: "sqlite" } = {}): Promise<TestStack> {
   const dir = mkdtempSync(path.join(tmpdir(), "morphokin-test-"));
-  const [s3Port, smtpPort, httpPort] = [await freePort(), await freePort(), await freePort()];
-  const s3 = await startFakeS3({ port: s3Port, directory: path.join(dir, "s3"), bucket: "morphokin-test" });
-  const smtp = await startFakeSmtp({ smtpPort, httpPort, directory: path.join(dir, "mail") });
+  const { s3, smtp, s3Port, smtpPort, httpPort } = await startFakes(dir);
   // MORPHOKIN_TEST_DB=postgres: a database of its own on the run's test server (tests/support/postgres.ts).
   const onPostgres = process.env.MORPHOKIN_TEST_DB === "postgres" && options.database !== "sqlite";
   const pgDatabase = onPostgres ? await createTestDatabase() : null;
