@@ -135,7 +135,13 @@ export function appEnv(): NodeJS.ProcessEnv {
  * stops both, and the process exits with Next's exit code.
  */
 export function serveNext(mode: "start" | "dev", env: NodeJS.ProcessEnv, fakes: ChildProcess | null): ChildProcess {
-  const app = spawn(process.execPath, [nextBin(), mode, "-H", "127.0.0.1", "-p", env.PORT ?? "3000"], {
+  const address = ["-H", "127.0.0.1", "-p", env.PORT ?? "3000"];
+  // Production: Next's server on every core (web-processes.ts); development: one `next dev`.
+  const args =
+    mode === "start"
+      ? ["--conditions=react-server", "--import", "tsx", path.join(ROOT, "lib/cli/web-processes.ts"), ...address]
+      : [nextBin(), mode, ...address];
+  const app = spawn(process.execPath, args, {
     cwd: ROOT,
     env,
     stdio: "inherit",

@@ -132,6 +132,8 @@ export const envSchema = z.object({
   READOUT_THREADS: oneOf(["1", "2"], "2"),
   JOB_CONCURRENCY: whole(1, 1),
   JOBS_IN_WEB: oneOf(["0", "1"], "1"),
+  // 0 (unset): one web process per core, at most 4 (lib/cli/web-processes.ts).
+  WEB_PROCESSES: whole(1, 0),
   WORKER_CONCURRENCY: whole(1, 1),
   JOB_MAIL_AFTER_S: amount(0, 10),
   READOUT_IN_PROCESS: flag(),

@@ -96,6 +96,8 @@ export function parseConfig(env: Record<string, string | undefined>) {
     fitInProcess: e.FIT_IN_PROCESS,
     /** JOBS_IN_WEB=0: the web server runs no jobs itself; `npm run worker` processes do. */
     jobsInWeb: e.JOBS_IN_WEB !== "0",
+    /** Copies of the web server sharing its port (`npm start`); null: one per core, at most 4. */
+    webProcesses: e.WEB_PROCESSES === 0 ? null : e.WEB_PROCESSES,
     /** Jobs one worker runs at once (`npm run worker`; the web server's own worker: JOB_CONCURRENCY). */
     workerConcurrency: e.WORKER_CONCURRENCY,
   };

@@ -1,4 +1,4 @@
-/** A real `next start` of this checkout for the benches that measure the server over HTTP (needs `npx next build`). */
+/** A real `next start` (in WEB_PROCESSES copies, as `npm start` runs it) of this checkout for the benches that measure the server over HTTP (needs `npx next build`). */
 import { spawn } from "node:child_process";
 import path from "node:path";
 import { freePort, type TestStack } from "../support/stack";
@@ -12,15 +12,14 @@ const ROOT = path.resolve(import.meta.dirname, "../..");
 export async function startServer(stack: TestStack, env: Record<string, string> = {}) {
   const port = await freePort();
   const c = stack.services.config;
+  // As `npm start` serves: Next's server in WEB_PROCESSES copies on one port (lib/cli/web-processes.ts).
   const child = spawn(
     process.execPath,
     [
-      // BENCH_SERVER_CPU_PROF=DIR writes the server's V8 CPU profile there when it stops (node --cpu-prof).
-      ...(process.env.BENCH_SERVER_CPU_PROF
-        ? ["--cpu-prof", `--cpu-prof-dir=${process.env.BENCH_SERVER_CPU_PROF}`]
-        : []),
-      path.join(ROOT, "node_modules/next/dist/bin/next"),
-      "start",
+      "--conditions=react-server",
+      "--import",
+      "tsx",
+      path.join(ROOT, "lib/cli/web-processes.ts"),
       "-H",
       "127.0.0.1",
       "-p",
@@ -44,6 +43,10 @@ export async function startServer(stack: TestStack, env: Record<string, string> 
         DEV_MAILBOX_URL: c.devMailboxUrl,
         MAX_UPLOAD_BYTES: String(c.maxUploadBytes),
         JOB_CONCURRENCY: "1",
+        // BENCH_SERVER_CPU_PROF=DIR: each web process writes its V8 CPU profile there when it stops.
+        NODE_OPTIONS: process.env.BENCH_SERVER_CPU_PROF
+          ? `--cpu-prof --cpu-prof-dir=${process.env.BENCH_SERVER_CPU_PROF}`
+          : "",
         ...env,
       },
     },

@@ -1,0 +1,94 @@
+/**
+ * The production web server on every core: WEB_PROCESSES copies of Next's own `next start`
+ * (default one per core, at most 4) share one port through node:cluster, whose primary (this
+ * file) hands each new connection to the next copy in turn. One Node process answers on one core
+ * only; with a second copy the API keeps answering while the first is busy (a large list, a JSON
+ * body, a garbage collection).
+ *
+ * Only the first copy runs jobs (unless JOBS_IN_WEB=0 leaves them to `npm run worker`), so jobs
+ * still run `JOB_CONCURRENCY` at a time as with one process. A job queued or a cancellation asked
+ * for in another copy reaches it through this primary at once (lib/server/jobs/local-bus.ts);
+ * without that relay it would wait for the worker's next heartbeat. A copy that stops unasked is
+ * started again; Ctrl+C or SIGTERM stops them all, and the primary exits when they have.
+ *
+ * Usage (from local-stack.ts): `node --conditions=react-server --import tsx lib/cli/web-processes.ts -H 127.0.0.1 -p 3000`.
+ */
+import cluster, { type Worker } from "node:cluster";
+import { availableParallelism } from "node:os";
+import path from "node:path";
+import { parseConfig } from "@/lib/server/config";
+import { isSiblingMessage } from "@/lib/server/jobs/sibling-messages";
+
+const ROOT = path.resolve(import.meta.dirname, "../..");
+
+/** Copies by default: one per core, at most this many (design choice: SQLite has one writer at a time). */
+export const MAX_DEFAULT_WEB_PROCESSES = 4;
+
+/** WEB_PROCESSES, or one per core up to MAX_DEFAULT_WEB_PROCESSES. */
+export function webProcessCount(configured: number | null, cores = availableParallelism()): number {
+  return configured ?? Math.max(1, Math.min(cores, MAX_DEFAULT_WEB_PROCESSES));
+}
+
+/** The environment of copy `index`: its number, and jobs in the first copy only. */
+export function copyEnv(index: number, jobsInWeb: boolean): Record<string, string> {
+  return { MORPHOKIN_WEB_PROCESS: String(index), JOBS_IN_WEB: jobsInWeb && index === 0 ? "1" : "0" };
+}
+
+/** A copy that stops unasked more often than this (ms) is not started again: something is wrong. */
+const RESTART_AT_MOST_EVERY_MS = 5000;
+
+function main() {
+  const args = process.argv.slice(2); // -H host -p port, as for `next start`
+  const config = parseConfig(process.env);
+  const count = webProcessCount(config.webProcesses);
+  cluster.setupPrimary({
+    exec: path.join(ROOT, "node_modules/next/dist/bin/next"),
+    args: ["start", ...args],
+    execArgv: [], // Next's own server, without this launcher's TypeScript loader or conditions
+  });
+  let stopping = false;
+  const lastStart = new Map<number, number>();
+  const byWorker = new Map<Worker, number>();
+  const start = (index: number) => {
+    lastStart.set(index, Date.now());
+    const worker = cluster.fork(copyEnv(index, config.jobsInWeb));
+    byWorker.set(worker, index);
+    worker.on("message", (message: unknown) => {
+      if (!isSiblingMessage(message)) return;
+      for (const other of Object.values(cluster.workers ?? {})) if (other && other !== worker) other.send(message);
+    });
+  };
+  cluster.on("exit", (worker, code, signal) => {
+    const index = byWorker.get(worker) ?? 0;
+    byWorker.delete(worker);
+    if (stopping) {
+      if (Object.keys(cluster.workers ?? {}).length === 0) process.exit(0);
+      return;
+    }
+    const soon = Date.now() - (lastStart.get(index) ?? 0) < RESTART_AT_MOST_EVERY_MS;
+    process.stderr.write(
+      `web process ${index + 1} of ${count} stopped (${signal ?? `exit code ${code}`})${soon ? "" : "; starting it again"}\n`,
+    );
+    if (soon) {
+      process.stderr.write(
+        `it stopped within ${RESTART_AT_MOST_EVERY_MS / 1000} s of its start; stopping the server\n`,
+      );
+      stopping = true;
+      for (const w of Object.values(cluster.workers ?? {})) w?.process.kill("SIGTERM");
+      if (Object.keys(cluster.workers ?? {}).length === 0) process.exit(1);
+      return;
+    }
+    start(index);
+  });
+  const stop = () => {
+    stopping = true;
+    for (const w of Object.values(cluster.workers ?? {})) w?.process.kill("SIGTERM");
+    if (Object.keys(cluster.workers ?? {}).length === 0) process.exit(0);
+  };
+  process.on("SIGINT", stop);
+  process.on("SIGTERM", stop);
+  process.stdout.write(`web server: ${count} process${count === 1 ? "" : "es"} (WEB_PROCESSES)\n`);
+  for (let i = 0; i < count; i++) start(i);
+}
+
+if (cluster.isPrimary && process.argv[1] && path.resolve(process.argv[1]) === import.meta.filename) main();
