@@ -26,10 +26,14 @@ export function isUuid(s: string): boolean {
 export async function requireLab(actor: Actor, labId: string): Promise<LabContext> {
   if (!isUuid(labId)) throw notFound("lab");
   const m = await database();
-  const membership = await m.Membership.findOne({ where: { labId, userId: actor.userId } });
-  if (!membership) throw notFound("lab");
-  const lab = await m.Lab.findByPk(labId);
-  if (!lab) throw notFound("lab");
+  // One query for the membership and its lab's name: every lab request starts here.
+  const membership = await m.Membership.findOne({
+    where: { labId, userId: actor.userId },
+    attributes: ["role"],
+    include: [{ model: m.Lab, as: "lab", attributes: ["name"], required: true }],
+  });
+  const lab = membership?.get("lab") as { name: string } | undefined;
+  if (!membership || !lab) throw notFound("lab");
   return { actor, labId, labName: lab.name, role: membership.role };
 }
 
