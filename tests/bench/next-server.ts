@@ -24,6 +24,8 @@ export async function startServer(stack: TestStack, env: Record<string, string> 
       "127.0.0.1",
       "-p",
       String(port),
+      // BENCH_SERVER_CPU_PROF=1: each web process writes its V8 CPU profile to .next-profiles/ when it stops.
+      ...(process.env.BENCH_SERVER_CPU_PROF ? ["--experimental-cpu-prof"] : []),
     ],
     {
       cwd: ROOT,
@@ -43,10 +45,7 @@ export async function startServer(stack: TestStack, env: Record<string, string> 
         DEV_MAILBOX_URL: c.devMailboxUrl,
         MAX_UPLOAD_BYTES: String(c.maxUploadBytes),
         JOB_CONCURRENCY: "1",
-        // BENCH_SERVER_CPU_PROF=DIR: each web process writes its V8 CPU profile there when it stops.
-        NODE_OPTIONS: process.env.BENCH_SERVER_CPU_PROF
-          ? `--cpu-prof --cpu-prof-dir=${process.env.BENCH_SERVER_CPU_PROF}`
-          : "",
+        NODE_OPTIONS: "",
         ...env,
       },
     },
