@@ -46,45 +46,41 @@ function main() {
     args: ["start", ...args],
     execArgv: [], // Next's own server, without this launcher's TypeScript loader or conditions
   });
-  let stopping = false;
+  /** Set once the server stops: the exit code of the primary when the last copy has gone. */
+  let stopping: number | null = null;
   const lastStart = new Map<number, number>();
   const byWorker = new Map<Worker, number>();
+  const copies = () => Object.values(cluster.workers ?? {}).filter((w): w is Worker => !!w);
+  const exitWhenAllGone = () => {
+    if (copies().length === 0) process.exit(stopping ?? 0);
+  };
+  const stopAll = (code: number) => {
+    stopping = code;
+    for (const w of copies()) w.process.kill("SIGTERM");
+    exitWhenAllGone();
+  };
   const start = (index: number) => {
     lastStart.set(index, Date.now());
     const worker = cluster.fork(copyEnv(index, config.jobsInWeb));
     byWorker.set(worker, index);
     worker.on("message", (message: unknown) => {
       if (!isSiblingMessage(message)) return;
-      for (const other of Object.values(cluster.workers ?? {})) if (other && other !== worker) other.send(message);
+      for (const other of copies()) if (other !== worker) other.send(message);
     });
   };
   cluster.on("exit", (worker, code, signal) => {
     const index = byWorker.get(worker) ?? 0;
     byWorker.delete(worker);
-    if (stopping) {
-      if (Object.keys(cluster.workers ?? {}).length === 0) process.exit(0);
-      return;
-    }
+    if (stopping !== null) return exitWhenAllGone();
     const soon = Date.now() - (lastStart.get(index) ?? 0) < RESTART_AT_MOST_EVERY_MS;
     process.stderr.write(
       `web process ${index + 1} of ${count} stopped (${signal ?? `exit code ${code}`})${soon ? "" : "; starting it again"}\n`,
     );
-    if (soon) {
-      process.stderr.write(
-        `it stopped within ${RESTART_AT_MOST_EVERY_MS / 1000} s of its start; stopping the server\n`,
-      );
-      stopping = true;
-      for (const w of Object.values(cluster.workers ?? {})) w?.process.kill("SIGTERM");
-      if (Object.keys(cluster.workers ?? {}).length === 0) process.exit(1);
-      return;
-    }
-    start(index);
+    if (!soon) return start(index);
+    process.stderr.write(`it stopped within ${RESTART_AT_MOST_EVERY_MS / 1000} s of its start; stopping the server\n`);
+    stopAll(1);
   });
-  const stop = () => {
-    stopping = true;
-    for (const w of Object.values(cluster.workers ?? {})) w?.process.kill("SIGTERM");
-    if (Object.keys(cluster.workers ?? {}).length === 0) process.exit(0);
-  };
+  const stop = () => stopAll(0);
   process.on("SIGINT", stop);
   process.on("SIGTERM", stop);
   process.stdout.write(`web server: ${count} process${count === 1 ? "" : "es"} (WEB_PROCESSES)\n`);
