@@ -8,6 +8,7 @@
  */
 import { BASE_URL, DEMO, DEMO_LAB, unique } from "./support/demo";
 import { linkTo, mailIds, waitForMail } from "./support/mailbox";
+import type { Page } from "@playwright/test";
 import { expect, test } from "./pages/fixtures";
 import { DashboardPage } from "./pages/dashboard-page";
 import { DiscussionPanel } from "./pages/discussion-panel";
@@ -18,16 +19,21 @@ const SCIENTIST_NAME = "Teodor Varga";
 
 test.use({ role: "collaborator" });
 
+/** The lab's oldest readout (a seeded one), for a thread to be about. */
+async function firstReadout(page: Page, labId: string): Promise<{ id: string; filename: string }> {
+  const readouts = await (
+    await page.request.get(`/api/v1/labs/${labId}/readouts?pageSize=1&sort=createdAt&dir=asc`)
+  ).json();
+  return readouts.items[0] as { id: string; filename: string };
+}
+
 test("collaborator asks about a readout, the scientist is e-mailed and replies, the collaborator resolves", async ({
   lab,
   page,
   signInAs,
 }) => {
   const labId = lab.labId;
-  const readouts = await (
-    await page.request.get(`/api/v1/labs/${labId}/readouts?pageSize=1&sort=createdAt&dir=asc`)
-  ).json();
-  const readout = readouts.items[0] as { id: string; filename: string };
+  const readout = await firstReadout(page, labId);
   expect(readout).toBeDefined();
 
   const question = unique("Is the spacing narrower near the midline");
@@ -100,10 +106,7 @@ test("on a 390 px phone an open discussion's row keeps its name, first words and
   page,
 }) => {
   const labId = lab.labId;
-  const readouts = await (
-    await page.request.get(`/api/v1/labs/${labId}/readouts?pageSize=1&sort=createdAt&dir=asc`)
-  ).json();
-  const readout = readouts.items[0] as { id: string; filename: string };
+  const readout = await firstReadout(page, labId);
   const question = unique("Does the row spacing change along the flank");
   const started = await page.request.post(`/api/v1/labs/${labId}/threads`, {
     headers: { origin: BASE_URL },
