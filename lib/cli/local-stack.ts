@@ -113,6 +113,25 @@ export function nextBin(): string {
   return path.join(ROOT, "node_modules/next/dist/bin/next");
 }
 
+/**
+ * Node's arguments for the production server as `npm start` runs it: lib/cli/web-processes.ts
+ * (TypeScript, with the react-server condition of the other lib/cli entries) on 127.0.0.1:`port`;
+ * `extra` goes on to each `next start`.
+ */
+export function webProcessesArgs(port: string, extra: string[] = []): string[] {
+  return [
+    "--conditions=react-server",
+    "--import",
+    "tsx",
+    path.join(ROOT, "lib/cli/web-processes.ts"),
+    "-H",
+    "127.0.0.1",
+    "-p",
+    port,
+    ...extra,
+  ];
+}
+
 export function appEnv(): NodeJS.ProcessEnv {
   // Parsed, not read once: dev.ts and start.ts change process.env after this for the seed.
   const config = parseConfig(process.env);
@@ -135,12 +154,9 @@ export function appEnv(): NodeJS.ProcessEnv {
  * stops both, and the process exits with Next's exit code.
  */
 export function serveNext(mode: "start" | "dev", env: NodeJS.ProcessEnv, fakes: ChildProcess | null): ChildProcess {
-  const address = ["-H", "127.0.0.1", "-p", env.PORT ?? "3000"];
+  const port = env.PORT ?? "3000";
   // Production: Next's server on every core (web-processes.ts); development: one `next dev`.
-  const args =
-    mode === "start"
-      ? ["--conditions=react-server", "--import", "tsx", path.join(ROOT, "lib/cli/web-processes.ts"), ...address]
-      : [nextBin(), mode, ...address];
+  const args = mode === "start" ? webProcessesArgs(port) : [nextBin(), mode, "-H", "127.0.0.1", "-p", port];
   const app = spawn(process.execPath, args, {
     cwd: ROOT,
     env,

@@ -17,9 +17,8 @@ import cluster, { type Worker } from "node:cluster";
 import { availableParallelism } from "node:os";
 import path from "node:path";
 import { parseConfig } from "@/lib/server/config";
+import { nextBin } from "./local-stack";
 import { isSiblingMessage } from "@/lib/server/jobs/sibling-messages";
-
-const ROOT = path.resolve(import.meta.dirname, "../..");
 
 /** Copies by default: one per core, at most this many (design choice: SQLite has one writer at a time). */
 export const MAX_DEFAULT_WEB_PROCESSES = 4;
@@ -42,14 +41,14 @@ function main() {
   const config = parseConfig(process.env);
   const count = webProcessCount(config.webProcesses);
   cluster.setupPrimary({
-    exec: path.join(ROOT, "node_modules/next/dist/bin/next"),
+    exec: nextBin(),
     args: ["start", ...args],
     execArgv: [], // Next's own server, without this launcher's TypeScript loader or conditions
   });
   /** Set once the server stops: the exit code of the primary when the last copy has gone. */
   let stopping: number | null = null;
-  const lastStart = new Map<number, number>();
-  const byWorker = new Map<Worker, number>();
+  /** Each copy's number and when it started. */
+  const started = new Map<Worker, { index: number; at: number }>();
   const copies = () => Object.values(cluster.workers ?? {}).filter((w): w is Worker => !!w);
   const exitWhenAllGone = () => {
     if (copies().length === 0) process.exit(stopping ?? 0);
@@ -60,19 +59,18 @@ function main() {
     exitWhenAllGone();
   };
   const start = (index: number) => {
-    lastStart.set(index, Date.now());
     const worker = cluster.fork(copyEnv(index, config.jobsInWeb));
-    byWorker.set(worker, index);
+    started.set(worker, { index, at: Date.now() });
     worker.on("message", (message: unknown) => {
       if (!isSiblingMessage(message)) return;
       for (const other of copies()) if (other !== worker) other.send(message);
     });
   };
   cluster.on("exit", (worker, code, signal) => {
-    const index = byWorker.get(worker) ?? 0;
-    byWorker.delete(worker);
+    const { index, at } = started.get(worker) ?? { index: 0, at: 0 };
+    started.delete(worker);
     if (stopping !== null) return exitWhenAllGone();
-    const soon = Date.now() - (lastStart.get(index) ?? 0) < RESTART_AT_MOST_EVERY_MS;
+    const soon = Date.now() - at < RESTART_AT_MOST_EVERY_MS;
     process.stderr.write(
       `web process ${index + 1} of ${count} stopped (${signal ?? `exit code ${code}`})${soon ? "" : "; starting it again"}\n`,
     );

@@ -1,6 +1,7 @@
 /** A real `next start` (in WEB_PROCESSES copies, as `npm start` runs it) of this checkout for the benches that measure the server over HTTP (needs `npx next build`). */
 import { spawn } from "node:child_process";
 import path from "node:path";
+import { webProcessesArgs } from "@/lib/cli/local-stack";
 import { freePort, type TestStack } from "../support/stack";
 
 const ROOT = path.resolve(import.meta.dirname, "../..");
@@ -15,18 +16,8 @@ export async function startServer(stack: TestStack, env: Record<string, string> 
   // As `npm start` serves: Next's server in WEB_PROCESSES copies on one port (lib/cli/web-processes.ts).
   const child = spawn(
     process.execPath,
-    [
-      "--conditions=react-server",
-      "--import",
-      "tsx",
-      path.join(ROOT, "lib/cli/web-processes.ts"),
-      "-H",
-      "127.0.0.1",
-      "-p",
-      String(port),
-      // BENCH_SERVER_CPU_PROF=1: each web process writes its V8 CPU profile to .next-profiles/ when it stops.
-      ...(process.env.BENCH_SERVER_CPU_PROF ? ["--experimental-cpu-prof"] : []),
-    ],
+    // BENCH_SERVER_CPU_PROF=1: each web process writes its V8 CPU profile to .next-profiles/ when it stops.
+    webProcessesArgs(String(port), process.env.BENCH_SERVER_CPU_PROF ? ["--experimental-cpu-prof"] : []),
     {
       cwd: ROOT,
       stdio: ["ignore", "ignore", "inherit"],
