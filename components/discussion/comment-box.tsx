@@ -1,6 +1,6 @@
 "use client";
 /** A textarea for a comment with a simple "@" hint listing lab members. */
-import { useRef, useState } from "react";
+import { useLayoutEffect, useRef, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { ApiError } from "@/lib/client/api";
 import { MAX_COMMENT_CHARS } from "@/lib/contracts/discussion";
@@ -34,6 +34,16 @@ export function CommentBox({
   );
   const [busy, setBusy] = useState(false);
   const [error, setError] = useState<string | null>(null);
+  // Where the caret goes after a picked mention. Placed as soon as React has written the new text, before the
+  // browser handles the next key; an animation frame could come after it and pull the caret back.
+  const caretAfterPick = useRef<number | null>(null);
+  useLayoutEffect(() => {
+    const caret = caretAfterPick.current;
+    if (caret === null || !ref.current) return;
+    caretAfterPick.current = null;
+    ref.current.focus();
+    ref.current.setSelectionRange(caret, caret);
+  }, [text]);
 
   function refreshHint(value: string, caret: number) {
     const q = mentionQueryAt(value, caret);
@@ -43,12 +53,9 @@ export function CommentBox({
   function pick(member: MemberOption) {
     if (!hint) return;
     const next = insertMention(text, hint.start, hint.caret, member);
+    caretAfterPick.current = next.caret;
     setText(next.text);
     setHint(null);
-    requestAnimationFrame(() => {
-      ref.current?.focus();
-      ref.current?.setSelectionRange(next.caret, next.caret);
-    });
   }
   function onKeyDown(e: React.KeyboardEvent<HTMLTextAreaElement>) {
     if (!hint) return;

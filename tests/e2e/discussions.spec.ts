@@ -135,3 +135,45 @@ test("on a 390 px phone an open discussion's row keeps its name, first words and
   expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
   await row.screenshot({ path: "test-results/open-discussions-390.png" });
 });
+
+test("a picked mention leaves the caret after it even when the next key comes before the next frame", async ({
+  lab,
+  page,
+}) => {
+  const labId = lab.labId;
+  const readout = await firstReadout(page, labId);
+  const question = unique("Is the third row fainter");
+  const started = await page.request.post(`/api/v1/labs/${labId}/threads`, {
+    headers: { origin: BASE_URL },
+    data: { targetType: "readout", targetId: readout.id, body: `${question}?` },
+  });
+  expect(started.status()).toBe(201);
+
+  await (await lab.open(DashboardPage)).openThread(question);
+  const panel = new DiscussionPanel(page);
+  await panel.openReply();
+  await panel.replyBox.pressSequentially("Thanks @Sam");
+  await expect(panel.mentionHint).toContainText(COLLABORATOR_NAME);
+
+  // Pick the member and type "i" in the same frame: a fast typist's next key can come before the browser
+  // paints. React writes the picked text in a microtask after the click; the key lands after that.
+  const typed = await page.evaluate(async (name) => {
+    const box = document.querySelector<HTMLTextAreaElement>('[data-testid="thread"] [data-testid="reply-box-text"]')!;
+    const option = [...document.querySelectorAll<HTMLButtonElement>('[data-testid="mention-hint"] button')].find((b) =>
+      b.textContent?.includes(name),
+    )!;
+    option.click();
+    await Promise.resolve();
+    const at = box.selectionStart;
+    box.setRangeText("i", at, box.selectionEnd, "end");
+    box.dispatchEvent(new Event("input", { bubbles: true }));
+    // Two frames: anything the pick left for the next frame has run by then.
+    await new Promise((done) => requestAnimationFrame(() => requestAnimationFrame(done)));
+    return { value: box.value, caret: box.selectionStart };
+  }, COLLABORATOR_NAME);
+  expect(typed.value).toBe(`Thanks @"${COLLABORATOR_NAME}" i`);
+  expect(typed.caret).toBe(typed.value.length);
+
+  await panel.replyBox.pressSequentially("t is narrower.");
+  await expect(panel.replyBox).toHaveValue(`Thanks @"${COLLABORATOR_NAME}" it is narrower.`);
+});
