@@ -7,6 +7,7 @@ import { can, type Action } from "@/lib/access/permissions";
 import { describeRefusal } from "@/lib/access/refusals";
 import type { Role } from "@/lib/access/roles";
 import type { Actor } from "./accounts/actor-type";
+import { select, tableOf } from "./db-read";
 import { AppError, forbidden, notFound } from "./errors";
 import { database } from "./services";
 
@@ -26,14 +27,16 @@ export function isUuid(s: string): boolean {
 export async function requireLab(actor: Actor, labId: string): Promise<LabContext> {
   if (!isUuid(labId)) throw notFound("lab");
   const m = await database();
-  // One query for the membership and its lab's name: every lab request starts here.
-  const membership = await m.Membership.findOne({
-    where: { labId, userId: actor.userId },
-    attributes: ["role"],
-    include: [{ model: m.Lab, as: "lab", attributes: ["name"], required: true }],
-  });
-  const lab = membership?.get("lab") as { name: string } | undefined;
-  if (!membership || !lab) throw notFound("lab");
+  // One SELECT for the membership and its lab's name: every lab request starts here.
+  const [row] = await select(
+    `SELECT "ms"."role" AS "role", "l"."name" AS "labName"
+       FROM ${tableOf(m.Membership)} "ms" JOIN ${tableOf(m.Lab)} "l" ON "l"."id" = "ms"."lab_id"
+      WHERE "ms"."lab_id" = $1 AND "ms"."user_id" = $2`,
+    [labId, actor.userId],
+  );
+  if (!row) throw notFound("lab");
+  const membership = { role: row.role as Role };
+  const lab = { name: row.labName as string };
   return { actor, labId, labName: lab.name, role: membership.role };
 }
 

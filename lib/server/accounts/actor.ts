@@ -5,10 +5,10 @@
 import "server-only";
 import { getServerSession } from "next-auth";
 import { cache } from "react";
-import { Op } from "sequelize";
 import { authOptions } from "./auth";
 import { expiryDate, isExpired, recordTokenExpiry } from "./tokens";
 import { AppError } from "../errors";
+import { select, selectList, rowOf, tableOf } from "../db-read";
 import { sha256Hex } from "../secrets";
 import type { Actor } from "./actor-type";
 import { database } from "../services";
@@ -17,17 +17,29 @@ export type { Actor } from "./actor-type";
 
 /** A token's lastUsedAt is written at most once per this interval (ms). */
 const LAST_USED_EVERY_MS = 60_000;
+const TOKEN_COLUMNS = ["id", "lastUsedAt", "expiresAt", "expiryRecordedAt"] as const;
+const USER_COLUMNS = ["id", "email", "name"] as const;
+interface TokenRow {
+  id: string;
+  lastUsedAt: Date | null;
+  expiresAt: Date | null;
+  expiryRecordedAt: Date | null;
+}
+
 /** When this process last wrote each token's lastUsedAt: concurrent requests write it once. */
 const lastUsedWrites = new Map<string, number>();
 
 async function actorFromToken(secret: string): Promise<Actor | null> {
   const m = await database();
-  // The token and its user in one query: every API request with a token starts here.
-  const token = await m.ApiToken.findOne({
-    where: { tokenHash: sha256Hex(secret), revokedAt: { [Op.is]: null } },
-    include: [{ model: m.User, as: "user", attributes: ["id", "email", "name"], required: false }],
-  });
-  if (!token) return null;
+  // The token and its user in one SELECT: every API request with a token starts here.
+  const [row] = await select(
+    `SELECT ${selectList(m.ApiToken, "t", "", TOKEN_COLUMNS)}, ${selectList(m.User, "u", "user.", USER_COLUMNS)}
+       FROM ${tableOf(m.ApiToken)} "t" LEFT JOIN ${tableOf(m.User)} "u" ON "u"."id" = "t"."user_id"
+      WHERE "t"."token_hash" = $1 AND "t"."revoked_at" IS NULL`,
+    [sha256Hex(secret)],
+  );
+  if (!row) return null;
+  const token = rowOf<TokenRow>(m.ApiToken, row);
   if (isExpired(token)) {
     if (!token.expiryRecordedAt) await recordTokenExpiry(token.id); // once per token
     throw new AppError(
@@ -35,17 +47,17 @@ async function actorFromToken(secret: string): Promise<Actor | null> {
       `that API token expired on ${expiryDate(token.expiresAt!)}; create a new one on your account page`,
     );
   }
-  const user = token.get("user") as { id: string; email: string; name: string | null } | null | undefined;
-  if (!user) return null;
+  if (row["user.id"] == null) return null;
+  const user = rowOf<{ id: string; email: string; name: string | null }>(m.User, row, "user.");
   // lastUsedAt is for people ("used 3 minutes ago"), so a minute's precision is enough: writing it
   // on every request made every API call a write and queued behind uploads.
   const now = Date.now();
   const last = Math.max(token.lastUsedAt?.getTime() ?? 0, lastUsedWrites.get(token.id) ?? 0);
   if (now - last >= LAST_USED_EVERY_MS) {
     lastUsedWrites.set(token.id, now);
-    await token
-      .update({ lastUsedAt: new Date(now) })
-      .catch((err) => console.error(`could not record the last use of token ${token.id}`, err));
+    await m.ApiToken.update({ lastUsedAt: new Date(now) }, { where: { id: token.id } }).catch((err) =>
+      console.error(`could not record the last use of token ${token.id}`, err),
+    );
   }
   return { userId: user.id, email: user.email, name: user.name, via: "token" };
 }
