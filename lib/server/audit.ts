@@ -1,9 +1,10 @@
 import "server-only";
-import { Op, type Transaction } from "sequelize";
+import type { Transaction } from "sequelize";
 import type { Models } from "@/models";
 import type { Actor } from "./accounts/actor-type";
 import { authorize, type LabContext } from "./access";
-import { containsText, type ListQuery, type ListResult } from "./web/list";
+import type { ListQuery, ListResult } from "./web/list";
+import { CONTAINS_TEXT, readPage } from "./db-read";
 import { database } from "./services";
 
 export interface AuditEntry {
@@ -49,15 +50,12 @@ export async function listAudit(
   q: ListQuery<(typeof AUDIT_SORTS)[number]>,
 ): Promise<ListResult<AuditEventDto>> {
   const m = await database();
-  const where = {
-    labId: ctx.labId,
-    ...(q.q
-      ? { [Op.or]: [{ summary: containsText(q.q) }, { action: containsText(q.q) }, { actorEmail: containsText(q.q) }] }
-      : {}),
-  };
   const column = q.sort === "at" ? "createdAt" : q.sort;
-  const { rows, count } = await m.AuditEvent.findAndCountAll({
-    where,
+  const { rows, count } = await readPage(m.AuditEvent, {
+    where: {
+      labId: ctx.labId,
+      ...(q.q ? { [CONTAINS_TEXT]: { attributes: ["summary", "action", "actorEmail"], text: q.q } } : {}),
+    },
     order: [
       [column, q.dir],
       ["id", "asc"],

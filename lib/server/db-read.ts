@@ -14,7 +14,7 @@
  * PostgreSQL driver already does.
  */
 import "server-only";
-import { DataTypes, QueryTypes, type Model, type ModelStatic } from "sequelize";
+import { DataTypes, Op, QueryTypes, type InferAttributes, type Model, type ModelStatic } from "sequelize";
 import { database, services } from "./services";
 
 type Kind = "date" | "boolean" | "json" | "number" | "plain";
@@ -105,4 +105,159 @@ export async function select(sql: string, bind: unknown[]): Promise<Record<strin
 export function tableOf(model: ModelStatic<Model>): string {
   const t = model.getTableName();
   return typeof t === "string" ? `"${t}"` : `"${t.tableName}"`;
+}
+
+/** A where-clause key: rows whose text in any of `attributes` contains `text` (see `likePattern`). */
+export const CONTAINS_TEXT = Symbol("contains text");
+
+/** The escape character of LIKE patterns: not a backslash, which SQL dialects treat differently. */
+export const LIKE_ESCAPE = "!";
+
+/** A LIKE pattern matching text that contains `q` literally (`%` and `_` typed by the user escaped). */
+export function likePattern(q: string): string {
+  return `%${q.replace(/[!%_]/g, (c) => LIKE_ESCAPE + c)}%`;
+}
+
+type Scalar = string | number | boolean;
+type Condition = Scalar | null | readonly Scalar[] | { [op: symbol]: Scalar | null | readonly Scalar[] };
+/**
+ * The where clauses the hot paths use: attribute = value, IN (an array), IS NULL (null), a few
+ * operators (Op.ne, Op.in, Op.notIn, Op.is, Op.not, Op.gt, Op.gte, Op.lt, Op.lte), Op.or / Op.and
+ * of such clauses, and CONTAINS_TEXT. Anything else throws, so a clause is never dropped silently.
+ */
+export type ReadWhere = {
+  [attribute: string]: Condition;
+} & {
+  [Op.or]?: ReadWhere[];
+  [Op.and]?: ReadWhere[];
+  [CONTAINS_TEXT]?: { attributes: readonly string[]; text: string };
+};
+
+export interface ReadOptions {
+  where: ReadWhere;
+  attributes?: readonly string[];
+  order?: readonly (readonly [string, "asc" | "desc" | "ASC" | "DESC"])[];
+  limit?: number;
+  offset?: number;
+}
+
+const COMPARISONS = new Map<symbol, string>([
+  [Op.eq, "="],
+  [Op.ne, "<>"],
+  [Op.gt, ">"],
+  [Op.gte, ">="],
+  [Op.lt, "<"],
+  [Op.lte, "<="],
+]);
+
+class Sql {
+  readonly bind: unknown[] = [];
+  constructor(
+    readonly model: ModelStatic<Model>,
+    readonly alias: string,
+  ) {}
+
+  param(v: unknown): string {
+    if (v instanceof Date || (typeof v === "object" && v !== null))
+      throw new Error("db-read: bind a string, number or boolean (dates are stored per dialect)");
+    this.bind.push(v);
+    return `$${this.bind.length}`;
+  }
+
+  column(attribute: string): string {
+    const c = columnsOf(this.model).find((x) => x.attribute === attribute);
+    if (!c) throw new Error(`db-read: ${this.model.name} has no attribute ${attribute}`);
+    return `"${this.alias}"."${c.field}"`;
+  }
+
+  list(values: readonly unknown[]): string {
+    return values.map((v) => this.param(v)).join(", ");
+  }
+
+  condition(col: string, v: Condition): string {
+    if (v === null) return `${col} IS NULL`;
+    if (Array.isArray(v)) return v.length ? `${col} IN (${this.list(v)})` : "1 = 0";
+    if (typeof v !== "object") return `${col} = ${this.param(v)}`;
+    const parts = Object.getOwnPropertySymbols(v).map((op) => {
+      const x = (v as Record<symbol, Scalar | null | readonly Scalar[]>)[op];
+      if (op === Op.in) return this.condition(col, x as readonly Scalar[]);
+      if (op === Op.notIn)
+        return (x as readonly Scalar[]).length ? `${col} NOT IN (${this.list(x as readonly Scalar[])})` : "1 = 1";
+      if (op === Op.is && x === null) return `${col} IS NULL`;
+      if (op === Op.not && x === null) return `${col} IS NOT NULL`;
+      if (op === Op.ne && x === null) return `${col} IS NOT NULL`;
+      const cmp = COMPARISONS.get(op);
+      if (cmp && x !== null && !Array.isArray(x)) return `${col} ${cmp} ${this.param(x)}`;
+      throw new Error(`db-read: the operator ${String(op)} is not supported here`);
+    });
+    if (!parts.length || Object.keys(v).length) throw new Error("db-read: a condition object needs operators");
+    return parts.join(" AND ");
+  }
+
+  where(w: ReadWhere): string {
+    const parts: string[] = [];
+    for (const [attribute, v] of Object.entries(w)) parts.push(this.condition(this.column(attribute), v));
+    for (const key of Object.getOwnPropertySymbols(w)) {
+      if (key === Op.or || key === Op.and) {
+        const subs = ((w as Record<symbol, ReadWhere[] | undefined>)[key] ?? []).map((x) => `(${this.where(x)})`);
+        parts.push(
+          subs.length ? `(${subs.join(key === Op.or ? " OR " : " AND ")})` : key === Op.or ? "1 = 0" : "1 = 1",
+        );
+      } else if (key === CONTAINS_TEXT) {
+        const { attributes, text } = w[CONTAINS_TEXT]!;
+        // SQLite's LIKE ignores the case of ASCII letters; PostgreSQL's ILIKE is its case-insensitive form.
+        const like = sqlite() ? "LIKE" : "ILIKE";
+        const p = this.param(likePattern(text));
+        parts.push(`(${attributes.map((a) => `${this.column(a)} ${like} ${p} ESCAPE '${LIKE_ESCAPE}'`).join(" OR ")})`);
+      } else throw new Error(`db-read: the where key ${String(key)} is not supported here`);
+    }
+    return parts.length ? parts.join(" AND ") : "1 = 1";
+  }
+}
+
+type Attributes<M extends Model> = InferAttributes<M>;
+
+/** Like `model.findAll` for the options above, with plain objects back (only `attributes`, when given). */
+export async function readAll<M extends Model>(model: ModelStatic<M>, o: ReadOptions): Promise<Attributes<M>[]> {
+  const q = new Sql(model as ModelStatic<Model>, "r");
+  const cond = q.where(o.where);
+  const order = o.order?.length
+    ? ` ORDER BY ${o.order.map(([a, dir]) => `${q.column(a)} ${dir.toUpperCase() === "DESC" ? "DESC" : "ASC"}`).join(", ")}`
+    : "";
+  const page =
+    (o.limit !== undefined ? ` LIMIT ${Math.trunc(o.limit)}` : "") +
+    (o.offset ? ` OFFSET ${Math.trunc(o.offset)}` : "");
+  const rows = await select(
+    `SELECT ${selectList(model as ModelStatic<Model>, "r", "", o.attributes)} FROM ${tableOf(model as ModelStatic<Model>)} "r" WHERE ${cond}${order}${page}`,
+    q.bind,
+  );
+  return rows.map((row) => rowOf<Attributes<M>>(model as ModelStatic<Model>, row));
+}
+
+/** Like `model.findOne`: the first row or null. */
+export async function readOne<M extends Model>(
+  model: ModelStatic<M>,
+  o: Omit<ReadOptions, "limit" | "offset">,
+): Promise<Attributes<M> | null> {
+  return (await readAll(model, { ...o, limit: 1 }))[0] ?? null;
+}
+
+/** Like `model.count`. */
+export async function readCount<M extends Model>(model: ModelStatic<M>, where: ReadWhere): Promise<number> {
+  const q = new Sql(model as ModelStatic<Model>, "r");
+  const cond = q.where(where);
+  const [row] = await select(
+    `SELECT count(*) AS "count" FROM ${tableOf(model as ModelStatic<Model>)} "r" WHERE ${cond}`,
+    q.bind,
+  );
+  return Number(row.count); // PostgreSQL's count is a bigint, given as a string
+}
+
+/** Like `model.findAndCountAll`: one page of rows and the count of all that match. */
+export async function readPage<M extends Model>(
+  model: ModelStatic<M>,
+  o: ReadOptions,
+): Promise<{ rows: Attributes<M>[]; count: number }> {
+  const [rows, count] = await Promise.all([readAll(model, o), readCount(model, o.where)]);
+  return { rows, count };
 }

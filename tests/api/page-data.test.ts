@@ -11,7 +11,7 @@ import { createLabKinetics, updateLabKinetics } from "@/lib/server/kinetics/kine
 import { loadKineticsEditPage, loadLabKineticsPage } from "@/lib/server/kinetics/pages";
 import { loadDashboard } from "@/lib/server/labs/dashboard";
 import { loadNewRunPage } from "@/lib/server/runs/pages";
-import { database } from "@/lib/server/services";
+import { database, services } from "@/lib/server/services";
 import { startTestStack, type TestStack } from "../support/stack";
 import { makeWorld, type World } from "../support/world";
 import { labSchnakenberg } from "./permission-cases/kinetics";
@@ -105,23 +105,26 @@ describe("kinetics pages", () => {
 
 describe("dashboard", () => {
   it("reads its four lists at the same time: all four start before the first one ends", async () => {
-    const m = await database();
+    // The lists are read by written-out SELECTs (lib/server/db-read.ts); each list's first query marks its start.
+    const sequelize = services().db.sequelize;
+    const tables: Record<string, string> = {
+      studies: "studies",
+      fits: "fits",
+      readouts: "readouts",
+      audit_events: "audit",
+    };
     const started: string[] = [];
     let firstDone = -1;
-    for (const [name, model] of [
-      ["studies", m.Study],
-      ["fits", m.Fit],
-      ["readouts", m.Readout],
-      ["audit", m.AuditEvent],
-    ] as const) {
-      const original = model.findAndCountAll.bind(model);
-      vi.spyOn(model, "findAndCountAll").mockImplementation(((...args: Parameters<typeof original>) => {
-        started.push(name);
-        return original(...args).finally(() => {
-          if (firstDone < 0) firstDone = started.length;
-        });
-      }) as typeof original);
-    }
+    const original = sequelize.query.bind(sequelize);
+    vi.spyOn(sequelize, "query").mockImplementation(((sql: unknown, ...rest: unknown[]) => {
+      const table = /\bFROM "(\w+)" "r"/.exec(String(sql))?.[1];
+      const name = table ? tables[table] : undefined;
+      if (!name) return (original as (...a: unknown[]) => Promise<unknown>)(sql, ...rest);
+      if (!started.includes(name)) started.push(name);
+      return (original as (...a: unknown[]) => Promise<unknown>)(sql, ...rest).finally(() => {
+        if (firstDone < 0) firstDone = started.length;
+      });
+    }) as typeof sequelize.query);
     const data = await loadDashboard(manager);
     expect(data.studies.total).toBe(0);
     expect(data.audit).not.toBeNull();

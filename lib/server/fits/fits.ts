@@ -8,11 +8,14 @@ import "server-only";
 import { randomUUID } from "node:crypto";
 import { can } from "@/lib/access/permissions";
 import type { FitCreate } from "@/lib/contracts/fit";
+import type { InferAttributes } from "sequelize";
+import type { Fit } from "@/models/fit";
 import type { JobStatus } from "@/models/job";
 import { authorize, isUuid, type LabContext } from "../access";
 import { AppError, notFound } from "../errors";
 import { enqueueJob } from "../jobs/queue";
-import { containsText, type ListQuery, type ListResult, pageResult } from "../web/list";
+import { type ListQuery, type ListResult, pageResult } from "../web/list";
+import { CONTAINS_TEXT, readAll, readOne, readPage } from "../db-read";
 import { database, services } from "../services";
 import { recordAudit } from "../audit";
 import { fitRunner } from "./process";
@@ -63,11 +66,13 @@ export interface FitLinkDto {
 
 type Row = InstanceType<Awaited<ReturnType<typeof database>>["Fit"]>;
 
-async function toSummaries(rows: Row[]): Promise<FitSummaryDto[]> {
+type FitAttributes = InferAttributes<Fit>;
+
+async function toSummaries(rows: FitAttributes[]): Promise<FitSummaryDto[]> {
   const m = await database();
   const jobIds = rows.filter((r) => r.jobId).map((r) => r.jobId!);
-  const jobs = new Map((jobIds.length ? await m.Job.findAll({ where: { id: jobIds } }) : []).map((j) => [j.id, j]));
-  const users = await m.User.findAll({
+  const jobs = new Map((jobIds.length ? await readAll(m.Job, { where: { id: jobIds } }) : []).map((j) => [j.id, j]));
+  const users = await readAll(m.User, {
     where: { id: rows.map((r) => r.createdBy).filter((x): x is string => !!x) },
     attributes: ["id", "email"],
   });
@@ -111,9 +116,8 @@ export async function listFits(
   q: ListQuery<"createdAt" | "name" | "status">,
 ): Promise<ListResult<FitSummaryDto>> {
   const m = await database();
-  const where = { labId: ctx.labId, ...(q.q ? { name: containsText(q.q) } : {}) };
-  const { rows, count } = await m.Fit.findAndCountAll({
-    where,
+  const { rows, count } = await readPage(m.Fit, {
+    where: { labId: ctx.labId, ...(q.q ? { [CONTAINS_TEXT]: { attributes: ["name"], text: q.q } } : {}) },
     order: [
       [q.sort, q.dir],
       ["createdAt", "desc"],
@@ -134,7 +138,10 @@ export async function findFit(ctx: LabContext, fitId: string): Promise<Row> {
 }
 
 export async function getFit(ctx: LabContext, fitId: string): Promise<FitDetailDto> {
-  const r = await findFit(ctx, fitId);
+  if (!isUuid(fitId)) throw notFound("fit");
+  const m = await database();
+  const r = await readOne(m.Fit, { where: { id: fitId, labId: ctx.labId } });
+  if (!r) throw notFound("fit");
   const [[s], links] = await Promise.all([toSummaries([r]), readFitLinks(ctx, r)]);
   return {
     ...s,
@@ -242,12 +249,15 @@ async function findChangedFrom(ctx: LabContext, fitId: string): Promise<Row> {
 }
 
 /** Both directions of "Change and re-run" for one fit, in one query each (newest change first). */
-async function readFitLinks(ctx: LabContext, r: Row): Promise<Pick<FitDetailDto, "changedFrom" | "changedInto">> {
+async function readFitLinks(
+  ctx: LabContext,
+  r: FitAttributes,
+): Promise<Pick<FitDetailDto, "changedFrom" | "changedInto">> {
   const m = await database();
   const attributes = ["id", "name", "status"];
   const [from, into] = await Promise.all([
-    r.changedFrom ? m.Fit.findOne({ where: { id: r.changedFrom, labId: ctx.labId }, attributes }) : null,
-    m.Fit.findAll({
+    r.changedFrom ? readOne(m.Fit, { where: { id: r.changedFrom, labId: ctx.labId }, attributes }) : null,
+    readAll(m.Fit, {
       where: { changedFrom: r.id, labId: ctx.labId },
       attributes,
       order: [
@@ -256,6 +266,10 @@ async function readFitLinks(ctx: LabContext, r: Row): Promise<Pick<FitDetailDto,
       ],
     }),
   ]);
-  const link = (x: Row): FitLinkDto => ({ id: x.id, name: x.name, status: x.status });
+  const link = (x: Pick<FitAttributes, "id" | "name" | "status">): FitLinkDto => ({
+    id: x.id,
+    name: x.name,
+    status: x.status,
+  });
   return { changedFrom: from ? link(from) : null, changedInto: into.map(link) };
 }

@@ -6,7 +6,7 @@
  */
 import "server-only";
 import { randomUUID } from "node:crypto";
-import type { Transaction, WhereOptions } from "sequelize";
+import type { InferAttributes, Transaction } from "sequelize";
 import packageJson from "@/package.json";
 import { DERIVED_PRODUCTS, type DerivedProduct } from "@/lib/contracts/readout";
 import type { JobStatus } from "@/models/job";
@@ -16,11 +16,12 @@ import { StorageUnavailableError } from "@/storage/object-store";
 import { authorize, type LabContext } from "../access";
 import { AppError, notFound } from "../errors";
 import { enqueueJob } from "../jobs/queue";
-import { containsText, type ListQuery, type ListResult, pageResult } from "../web/list";
+import { type ListQuery, type ListResult, pageResult } from "../web/list";
+import { CONTAINS_TEXT, readAll, readOne, readPage, type ReadWhere } from "../db-read";
 import { database, services } from "../services";
 import { headlineOf, type ReadoutHeadline, type ReadoutResult } from "./result";
 import { resolveStartSettings, type StoredReadoutSettings } from "./settings";
-import { findUpload } from "../uploads/uploads";
+import { findUpload, readUpload } from "../uploads/uploads";
 
 export const SOFTWARE_VERSION = `morphokin ${packageJson.version}`;
 export const READOUT_SORTS = ["createdAt", "status", "wavelengthUm"] as const;
@@ -62,18 +63,18 @@ export interface ReadoutDetailDto extends ReadoutDto {
 
 type Row = InstanceType<Awaited<ReturnType<typeof database>>["Readout"]>;
 
-async function toDtos(rows: Row[]): Promise<ReadoutDto[]> {
+async function toDtos(rows: InferAttributes<Readout>[]): Promise<ReadoutDto[]> {
   const m = await database();
   const uploads = rows.length
-    ? await m.Upload.findAll({
+    ? await readAll(m.Upload, {
         where: { id: [...new Set(rows.map((r) => r.uploadId))] },
         attributes: ["id", "filename"],
       })
     : [];
   const names = new Map(uploads.map((u) => [u.id, u.filename]));
   const jobIds = rows.filter((r) => r.jobId && (r.status === "queued" || r.status === "running")).map((r) => r.jobId!);
-  const jobs = new Map((jobIds.length ? await m.Job.findAll({ where: { id: jobIds } }) : []).map((j) => [j.id, j]));
-  const users = await m.User.findAll({
+  const jobs = new Map((jobIds.length ? await readAll(m.Job, { where: { id: jobIds } }) : []).map((j) => [j.id, j]));
+  const users = await readAll(m.User, {
     where: { id: rows.map((r) => r.createdBy).filter((x): x is string => !!x) },
     attributes: ["id", "email"],
   });
@@ -119,15 +120,15 @@ export async function listReadouts(
   q: ListQuery<(typeof READOUT_SORTS)[number]>,
 ): Promise<ListResult<ReadoutDto>> {
   const m = await database();
-  if (filter.uploadId) await findUpload(ctx, filter.uploadId);
-  const where: WhereOptions<Readout> = {
+  if (filter.uploadId) await readUpload(ctx, filter.uploadId);
+  const where: ReadWhere = {
     labId: ctx.labId,
     ...(filter.uploadId ? { uploadId: filter.uploadId } : {}),
     ...(filter.specimenId ? { specimenId: filter.specimenId } : {}),
   };
   if (q.q) {
-    const uploads = await m.Upload.findAll({
-      where: { labId: ctx.labId, filename: containsText(q.q) },
+    const uploads = await readAll(m.Upload, {
+      where: { labId: ctx.labId, [CONTAINS_TEXT]: { attributes: ["filename"], text: q.q } },
       attributes: ["id"],
     });
     Object.assign(where, {
@@ -136,7 +137,7 @@ export async function listReadouts(
         : uploads.map((u) => u.id),
     });
   }
-  const { rows, count } = await m.Readout.findAndCountAll({
+  const { rows, count } = await readPage(m.Readout, {
     where,
     order: [
       [q.sort, q.dir],
@@ -158,11 +159,17 @@ async function findReadout(ctx: LabContext, readoutId: string): Promise<Row> {
 
 export async function getReadout(ctx: LabContext, readoutId: string): Promise<ReadoutDetailDto> {
   const m = await database();
-  const r = await findReadout(ctx, readoutId);
+  const r = await readOne(m.Readout, { where: { id: readoutId, labId: ctx.labId } });
+  if (!r) throw notFound("readout");
   const [dto] = await toDtos([r]);
-  const specimen = await m.Specimen.findByPk(r.specimenId, { attributes: ["id", "label", "condition", "studyId"] });
-  const study = specimen ? await m.Study.findByPk(specimen.studyId, { attributes: ["id", "name"] }) : null;
-  const upload = await m.Upload.findByPk(r.uploadId, { attributes: ["id", "imageLayout"] });
+  const specimen = await readOne(m.Specimen, {
+    where: { id: r.specimenId },
+    attributes: ["id", "label", "condition", "studyId"],
+  });
+  const study = specimen
+    ? await readOne(m.Study, { where: { id: specimen.studyId }, attributes: ["id", "name"] })
+    : null;
+  const upload = await readOne(m.Upload, { where: { id: r.uploadId }, attributes: ["id", "imageLayout"] });
   const base = `/api/v1/labs/${ctx.labId}/readouts/${r.id}/derived`;
   const derived = Object.fromEntries(
     Object.keys(r.status === "succeeded" ? (r.derivedKeys ?? {}) : {}).map((k) => [k, `${base}/${k}`]),

@@ -8,15 +8,17 @@
  */
 import "server-only";
 import { randomUUID } from "node:crypto";
-import { Op } from "sequelize";
+import type { InferAttributes } from "sequelize";
 import { can } from "@/lib/access/permissions";
 import type { SimulationRunRequest } from "@/lib/contracts/simulation-run";
 import type { JobStatus } from "@/models/job";
+import type { SimulationRun } from "@/models/simulation-run";
 import { StorageUnavailableError } from "@/storage/object-store";
 import { authorize, isUuid, type LabContext } from "../access";
 import { AppError, notFound } from "../errors";
 import { cancelJob, enqueueJob } from "../jobs/queue";
-import { containsText, type ListQuery, type ListResult, pageResult } from "../web/list";
+import { type ListQuery, type ListResult, pageResult } from "../web/list";
+import { CONTAINS_TEXT, readAll, readOne, readPage } from "../db-read";
 import { database, services } from "../services";
 import { recordAudit } from "../audit";
 import { SOFTWARE_VERSION } from "../readouts/readouts";
@@ -32,11 +34,11 @@ type Row = InstanceType<Awaited<ReturnType<typeof database>>["SimulationRun"]>;
 const gridLabel = (s: RunSpec, dimensional: boolean) =>
   `${s.grid.cells.join(" × ")} cells on ${s.grid.lengthUm.join(" × ")} ${dimensional ? "µm" : "model length"}, ${s.grid.boundary}`;
 
-async function toDtos(rows: Row[]): Promise<RunDto[]> {
+async function toDtos(rows: InferAttributes<SimulationRun>[]): Promise<RunDto[]> {
   const m = await database();
   const jobIds = rows.filter((r) => r.jobId && (r.status === "queued" || r.status === "running")).map((r) => r.jobId!);
-  const jobs = new Map((jobIds.length ? await m.Job.findAll({ where: { id: jobIds } }) : []).map((j) => [j.id, j]));
-  const users = await m.User.findAll({
+  const jobs = new Map((jobIds.length ? await readAll(m.Job, { where: { id: jobIds } }) : []).map((j) => [j.id, j]));
+  const users = await readAll(m.User, {
     where: { id: rows.map((r) => r.createdBy).filter((x): x is string => !!x) },
     attributes: ["id", "email"],
   });
@@ -80,12 +82,11 @@ async function toDtos(rows: Row[]): Promise<RunDto[]> {
 
 export async function listRuns(ctx: LabContext, q: ListQuery<(typeof RUN_SORTS)[number]>): Promise<ListResult<RunDto>> {
   const m = await database();
-  const where = {
-    labId: ctx.labId,
-    ...(q.q ? { [Op.or]: [{ name: containsText(q.q) }, { kineticsName: containsText(q.q) }] } : {}),
-  };
-  const { rows, count } = await m.SimulationRun.findAndCountAll({
-    where,
+  const { rows, count } = await readPage(m.SimulationRun, {
+    where: {
+      labId: ctx.labId,
+      ...(q.q ? { [CONTAINS_TEXT]: { attributes: ["name", "kineticsName"], text: q.q } } : {}),
+    },
     order: [
       [q.sort, q.dir],
       ["createdAt", "desc"],
@@ -106,7 +107,10 @@ export async function findRun(ctx: LabContext, runId: string): Promise<Row> {
 }
 
 export async function getRun(ctx: LabContext, runId: string): Promise<RunDetailDto> {
-  const r = await findRun(ctx, runId);
+  if (!isUuid(runId)) throw notFound("run");
+  const m = await database();
+  const r = await readOne(m.SimulationRun, { where: { id: runId, labId: ctx.labId } });
+  if (!r) throw notFound("run");
   const [[dto], links] = await Promise.all([toDtos([r]), readRunLinks(ctx, r.id, r.changedFrom)]);
   const base = `/api/v1/labs/${ctx.labId}/runs/${r.id}/files`;
   const files = Object.fromEntries(

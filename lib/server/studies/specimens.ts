@@ -1,14 +1,16 @@
 /** Specimens: one sample under one condition, with a stage, genotype and notes. */
 import "server-only";
-import { Op } from "sequelize";
+import type { InferAttributes } from "sequelize";
+import type { Specimen } from "@/models/specimen";
 import { can } from "@/lib/access/permissions";
 import type { LabContext } from "../access";
 import { authorize } from "../access";
 import { AppError, notFound } from "../errors";
-import { containsText, type ListQuery, type ListResult, pageOptions, pageResult } from "../web/list";
+import { type ListQuery, type ListResult, pageResult, readPageOptions } from "../web/list";
+import { CONTAINS_TEXT, readAll, readOne, readPage } from "../db-read";
 import { database, services } from "../services";
 import { changedFields, describeChanges, fitSummary, recordAudit } from "../audit";
-import { findStudy } from "./studies";
+import { findStudy, readStudy } from "./studies";
 
 export interface SpecimenDto {
   id: string;
@@ -35,13 +37,11 @@ export interface SpecimenFields {
 
 export const SPECIMEN_SORTS = ["label", "condition", "stage", "genotype", "createdAt"] as const;
 
-type SpecimenRow = InstanceType<Awaited<ReturnType<typeof database>>["Specimen"]>;
-
-async function toDtos(ctx: LabContext, rows: SpecimenRow[]): Promise<SpecimenDto[]> {
+async function toDtos(ctx: LabContext, rows: InferAttributes<Specimen>[]): Promise<SpecimenDto[]> {
   const m = await database();
   const ids = rows.map((r) => r.id);
-  const uploads = ids.length ? await m.Upload.findAll({ where: { specimenId: ids }, attributes: ["specimenId"] }) : [];
-  const studies = await m.Study.findAll({
+  const uploads = ids.length ? await readAll(m.Upload, { where: { specimenId: ids }, attributes: ["specimenId"] }) : [];
+  const studies = await readAll(m.Study, {
     where: { id: [...new Set(rows.map((r) => r.studyId))] },
     attributes: ["id", "name"],
   });
@@ -68,16 +68,14 @@ export async function listSpecimens(
   q: ListQuery<(typeof SPECIMEN_SORTS)[number]>,
 ): Promise<ListResult<SpecimenDto>> {
   const m = await database();
-  await findStudy(ctx, studyId);
-  const like = containsText(q.q);
-  const where = {
-    labId: ctx.labId,
-    studyId,
-    ...(q.q ? { [Op.or]: [{ label: like }, { condition: like }, { stage: like }, { genotype: like }] } : {}),
-  };
-  const { rows, count } = await m.Specimen.findAndCountAll({
-    where,
-    ...pageOptions(q),
+  await readStudy(ctx, studyId);
+  const { rows, count } = await readPage(m.Specimen, {
+    where: {
+      labId: ctx.labId,
+      studyId,
+      ...(q.q ? { [CONTAINS_TEXT]: { attributes: ["label", "condition", "stage", "genotype"], text: q.q } } : {}),
+    },
+    ...readPageOptions(q),
   });
   return pageResult(q, await toDtos(ctx, rows), count);
 }
@@ -89,8 +87,16 @@ export async function findSpecimen(ctx: LabContext, specimenId: string) {
   return s;
 }
 
+/** The specimen's attributes, for reading (findSpecimen gives the row to change). */
+export async function readSpecimen(ctx: LabContext, specimenId: string): Promise<InferAttributes<Specimen>> {
+  const m = await database();
+  const s = await readOne(m.Specimen, { where: { id: specimenId, labId: ctx.labId } });
+  if (!s) throw notFound("specimen");
+  return s;
+}
+
 export async function getSpecimen(ctx: LabContext, specimenId: string): Promise<SpecimenDto> {
-  return (await toDtos(ctx, [await findSpecimen(ctx, specimenId)]))[0];
+  return (await toDtos(ctx, [await readSpecimen(ctx, specimenId)]))[0];
 }
 
 export async function createSpecimen(ctx: LabContext, studyId: string, input: SpecimenFields): Promise<SpecimenDto> {

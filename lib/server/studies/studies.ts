@@ -1,11 +1,13 @@
 /** Studies of a lab: one tissue and organism, many specimens. */
 import "server-only";
-import { Op, fn, col } from "sequelize";
+import { fn, col, type InferAttributes } from "sequelize";
+import type { Study } from "@/models/study";
 import { can } from "@/lib/access/permissions";
 import type { LabContext } from "../access";
 import { authorize } from "../access";
 import { AppError, notFound } from "../errors";
-import { containsText, type ListQuery, type ListResult, pageOptions, pageResult } from "../web/list";
+import { type ListQuery, type ListResult, pageResult, readPageOptions } from "../web/list";
+import { CONTAINS_TEXT, readAll, readOne, readPage } from "../db-read";
 import { database, services } from "../services";
 import { changedFields, describeChanges, fitSummary, recordAudit } from "../audit";
 
@@ -27,16 +29,13 @@ export interface StudyDto {
 
 export const STUDY_SORTS = ["name", "tissue", "organism", "createdAt", "updatedAt"] as const;
 
-async function toDtos(
-  ctx: LabContext,
-  studies: InstanceType<Awaited<ReturnType<typeof database>>["Study"]>[],
-): Promise<StudyDto[]> {
+async function toDtos(ctx: LabContext, studies: InferAttributes<Study>[]): Promise<StudyDto[]> {
   const m = await database();
   const ids = studies.map((s) => s.id);
   const specimens = ids.length
-    ? await m.Specimen.findAll({ where: { studyId: ids }, attributes: ["studyId", "condition"] })
+    ? await readAll(m.Specimen, { where: { studyId: ids }, attributes: ["studyId", "condition"] })
     : [];
-  const users = await m.User.findAll({
+  const users = await readAll(m.User, {
     where: { id: studies.map((s) => s.createdBy).filter((x): x is string => !!x) },
     attributes: ["id", "email"],
   });
@@ -66,14 +65,12 @@ export async function listStudies(
   q: ListQuery<(typeof STUDY_SORTS)[number]>,
 ): Promise<ListResult<StudyDto>> {
   const m = await database();
-  const like = containsText(q.q);
-  const where = {
-    labId: ctx.labId,
-    ...(q.q ? { [Op.or]: [{ name: like }, { tissue: like }, { organism: like }] } : {}),
-  };
-  const { rows, count } = await m.Study.findAndCountAll({
-    where,
-    ...pageOptions(q),
+  const { rows, count } = await readPage(m.Study, {
+    where: {
+      labId: ctx.labId,
+      ...(q.q ? { [CONTAINS_TEXT]: { attributes: ["name", "tissue", "organism"], text: q.q } } : {}),
+    },
+    ...readPageOptions(q),
   });
   return pageResult(q, await toDtos(ctx, rows), count);
 }
@@ -85,8 +82,16 @@ export async function findStudy(ctx: LabContext, studyId: string) {
   return study;
 }
 
+/** The study's attributes, for reading (findStudy gives the row to change). */
+export async function readStudy(ctx: LabContext, studyId: string): Promise<InferAttributes<Study>> {
+  const m = await database();
+  const study = await readOne(m.Study, { where: { id: studyId, labId: ctx.labId } });
+  if (!study) throw notFound("study");
+  return study;
+}
+
 export async function getStudy(ctx: LabContext, studyId: string): Promise<StudyDto> {
-  return (await toDtos(ctx, [await findStudy(ctx, studyId)]))[0];
+  return (await toDtos(ctx, [await readStudy(ctx, studyId)]))[0];
 }
 
 export async function createStudy(

@@ -7,20 +7,21 @@
 import "server-only";
 import { createReadStream } from "node:fs";
 import { randomUUID } from "node:crypto";
-import type { Transaction } from "sequelize";
+import type { InferAttributes, Transaction } from "sequelize";
 import { can } from "@/lib/access/permissions";
 import { uploadOriginalKey } from "@/storage/keys";
 import { StorageUnavailableError } from "@/storage/object-store";
-import type { UploadKind } from "@/models/upload";
+import type { Upload, UploadKind } from "@/models/upload";
 import type { ImageLayout } from "@/lib/imaging";
 import type { LabContext } from "../access";
 import { authorize } from "../access";
 import { auditRefusal, findDependents, refuseWithDependents } from "../dependents";
 import { AppError, notFound } from "../errors";
-import { containsText, type ListQuery, type ListResult, pageOptions, pageResult } from "../web/list";
+import { type ListQuery, type ListResult, pageResult, readPageOptions } from "../web/list";
+import { CONTAINS_TEXT, readAll, readOne, readPage } from "../db-read";
 import { database, services } from "../services";
 import { recordAudit } from "../audit";
-import { findSpecimen } from "../studies/specimens";
+import { findSpecimen, readSpecimen } from "../studies/specimens";
 
 export interface UploadDto {
   id: string;
@@ -49,24 +50,24 @@ export const UPLOAD_SORTS = ["filename", "kind", "sizeBytes", "createdAt"] as co
 
 type UploadRow = InstanceType<Awaited<ReturnType<typeof database>>["Upload"]>;
 
-async function toDtos(ctx: LabContext, rows: UploadRow[]): Promise<UploadDto[]> {
+async function toDtos(ctx: LabContext, rows: InferAttributes<Upload>[]): Promise<UploadDto[]> {
   const m = await database();
-  const users = await m.User.findAll({
+  const users = await readAll(m.User, {
     where: { id: rows.map((r) => r.createdBy).filter((x): x is string => !!x) },
     attributes: ["id", "email"],
   });
   const emails = new Map(users.map((u) => [u.id, u.email]));
   // Earlier uploads of the same file to the same specimen, in one query.
   const same = rows.length
-    ? await m.Upload.findAll({
+    ? await readAll(m.Upload, {
         where: {
           specimenId: [...new Set(rows.map((r) => r.specimenId))],
           sha256: [...new Set(rows.map((r) => r.sha256))],
         },
         attributes: ["id", "filename", "specimenId", "sha256", "createdAt"],
         order: [
-          ["createdAt", "ASC"],
-          ["id", "ASC"],
+          ["createdAt", "asc"],
+          ["id", "asc"],
         ],
       })
     : [];
@@ -102,11 +103,14 @@ export async function listUploads(
   q: ListQuery<(typeof UPLOAD_SORTS)[number]>,
 ): Promise<ListResult<UploadDto>> {
   const m = await database();
-  await findSpecimen(ctx, specimenId);
-  const where = { labId: ctx.labId, specimenId, ...(q.q ? { filename: containsText(q.q) } : {}) };
-  const { rows, count } = await m.Upload.findAndCountAll({
-    where,
-    ...pageOptions(q),
+  await readSpecimen(ctx, specimenId);
+  const { rows, count } = await readPage(m.Upload, {
+    where: {
+      labId: ctx.labId,
+      specimenId,
+      ...(q.q ? { [CONTAINS_TEXT]: { attributes: ["filename"], text: q.q } } : {}),
+    },
+    ...readPageOptions(q),
   });
   return pageResult(q, await toDtos(ctx, rows), count);
 }
@@ -118,8 +122,16 @@ export async function findUpload(ctx: LabContext, uploadId: string) {
   return u;
 }
 
+/** The upload's attributes, for reading (findUpload gives the row to change). */
+export async function readUpload(ctx: LabContext, uploadId: string): Promise<InferAttributes<Upload>> {
+  const m = await database();
+  const u = await readOne(m.Upload, { where: { id: uploadId, labId: ctx.labId } });
+  if (!u) throw notFound("upload");
+  return u;
+}
+
 export async function getUpload(ctx: LabContext, uploadId: string): Promise<UploadDto> {
-  return (await toDtos(ctx, [await findUpload(ctx, uploadId)]))[0];
+  return (await toDtos(ctx, [await readUpload(ctx, uploadId)]))[0];
 }
 
 export interface IncomingFile {

@@ -40,6 +40,18 @@ export function pageOptions(q: ListQuery<string>, order?: Order) {
   };
 }
 
+/** One page of a list query for db-read's `readPage`: the sort, ties broken by id, the size and offset. */
+export function readPageOptions(q: ListQuery<string>) {
+  return {
+    order: [
+      [q.sort, q.dir],
+      ["id", "asc"],
+    ] as [string, "asc" | "desc"][],
+    limit: q.pageSize,
+    offset: (q.page - 1) * q.pageSize,
+  };
+}
+
 /** A list answer: one page of items with the page, its size and the total count. */
 export function pageResult<T>(q: ListQuery<string>, items: T[], total: number): ListResult<T> {
   return { items, page: q.page, pageSize: q.pageSize, total };
