@@ -7,14 +7,15 @@
  * SELECT in sqlite3 (measured on this machine; the server-load bench's figures are in issue
  * "Speed"). Writes, and reads off the hot paths, keep the models.
  *
- * The SQL runs through `sequelize.query` with `$1`-style bind parameters, so it is portable to
- * PostgreSQL (the same statements, the same models' tables), and the values come back as the models
+ * The SQL runs with `$1`-style bind parameters (Database.select in db.ts: SQLite's own connection, or
+ * `sequelize.query` on PostgreSQL), portable to both (the same statements, the same models' tables),
+ * and the values come back as the models
  * would give them: `rowOf` maps each column to its attribute name (the tables are `underscored`) and
  * turns SQLite's text dates, 0/1 booleans and JSON text into Date, boolean and parsed JSON, as the
  * PostgreSQL driver already does.
  */
 import "server-only";
-import { DataTypes, Op, QueryTypes, type InferAttributes, type Model, type ModelStatic } from "sequelize";
+import { DataTypes, Op, type InferAttributes, type Model, type ModelStatic } from "sequelize";
 import { database, services } from "./services";
 
 type Kind = "date" | "boolean" | "json" | "number" | "plain";
@@ -98,7 +99,7 @@ export function rowOf<T>(model: ModelStatic<Model>, row: Record<string, unknown>
 /** Runs a SELECT with `$1`… bind parameters; rows as the driver gives them. */
 export async function select(sql: string, bind: unknown[]): Promise<Record<string, unknown>[]> {
   await database();
-  return services().db.sequelize.query<Record<string, unknown>>(sql, { bind, type: QueryTypes.SELECT, raw: true });
+  return services().db.select(sql, bind);
 }
 
 /** The table of a model, quoted. */

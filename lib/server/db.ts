@@ -30,6 +30,13 @@ export interface Database {
   ready: Promise<void>;
   /** The queue this process's writes take turns in (SQLite); null where the database needs none. */
   writeQueue: WriteQueue | null;
+  /**
+   * Runs a SELECT with `$1`… bind parameters outside any transaction; rows as the driver gives them
+   * (lib/server/db-read.ts turns them into attributes). SQLite: straight on Sequelize's own default
+   * connection, past its query class, which builds an Error (and its stack text) for every statement
+   * — a tenth of a web process's CPU under load. PostgreSQL: through `sequelize.query`.
+   */
+  select(sql: string, bind: unknown[]): Promise<Record<string, unknown>[]>;
 }
 
 /** How long a write waits for its turn in the write queue before a 503 (ms), unless configured. */
@@ -123,7 +130,9 @@ function createPostgres(url: string, options: Options): Database {
   const ready = (async () => {
     if (options.migrate !== false) await migrateUp(sequelize);
   })();
-  return { sequelize, models, ready, writeQueue: null };
+  const select = (sql: string, bind: unknown[]) =>
+    sequelize.query<Record<string, unknown>>(sql, { bind, type: QueryTypes.SELECT, raw: true });
+  return { sequelize, models, ready, writeQueue: null, select };
 }
 
 function createSqlite(storage: string, options: Options): Database {
@@ -151,5 +160,23 @@ function createSqlite(storage: string, options: Options): Database {
     await sequelize.query("PRAGMA foreign_keys = ON;");
     if (options.migrate !== false) await migrateUp(sequelize);
   })();
-  return { sequelize, models, ready, writeQueue };
+  const connections = sequelize.connectionManager as unknown as {
+    getConnection(options: { type: string }): Promise<sqlite3.Database>;
+  };
+  const select = async (sql: string, bind: unknown[]) => {
+    // Sequelize's default connection (the one its own queries outside a transaction use), opened
+    // with the busy timeout and foreign keys like every other.
+    const connection = await connections.getConnection({ type: QueryTypes.SELECT });
+    // Named $1… parameters, as Sequelize binds them for SQLite; booleans as SQLite stores them.
+    const params: Record<string, unknown> = {};
+    bind.forEach((v, i) => (params[`$${i + 1}`] = typeof v === "boolean" ? Number(v) : v));
+    return new Promise<Record<string, unknown>[]>((resolve, reject) =>
+      connection.all(sql, params, (err: Error | null, rows: Record<string, unknown>[]) =>
+        err
+          ? reject(Object.assign(new Error(`${err.message} (in ${sql.slice(0, 200)})`), { cause: err }))
+          : resolve(rows),
+      ),
+    );
+  };
+  return { sequelize, models, ready, writeQueue, select };
 }

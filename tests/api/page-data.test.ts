@@ -106,7 +106,7 @@ describe("kinetics pages", () => {
 describe("dashboard", () => {
   it("reads its four lists at the same time: all four start before the first one ends", async () => {
     // The lists are read by written-out SELECTs (lib/server/db-read.ts); each list's first query marks its start.
-    const sequelize = services().db.sequelize;
+    const db = services().db;
     const tables: Record<string, string> = {
       studies: "studies",
       fits: "fits",
@@ -115,16 +115,16 @@ describe("dashboard", () => {
     };
     const started: string[] = [];
     let firstDone = -1;
-    const original = sequelize.query.bind(sequelize);
-    vi.spyOn(sequelize, "query").mockImplementation(((sql: unknown, ...rest: unknown[]) => {
-      const table = /\bFROM "(\w+)" "r"/.exec(String(sql))?.[1];
+    const original = db.select.bind(db);
+    vi.spyOn(db, "select").mockImplementation((sql, bind) => {
+      const table = /\bFROM "(\w+)" "r"/.exec(sql)?.[1];
       const name = table ? tables[table] : undefined;
-      if (!name) return (original as (...a: unknown[]) => Promise<unknown>)(sql, ...rest);
+      if (!name) return original(sql, bind);
       if (!started.includes(name)) started.push(name);
-      return (original as (...a: unknown[]) => Promise<unknown>)(sql, ...rest).finally(() => {
+      return original(sql, bind).finally(() => {
         if (firstDone < 0) firstDone = started.length;
       });
-    }) as typeof sequelize.query);
+    });
     const data = await loadDashboard(manager);
     expect(data.studies.total).toBe(0);
     expect(data.audit).not.toBeNull();
