@@ -8,7 +8,7 @@ import { cache } from "react";
 import { authOptions } from "./auth";
 import { expiryDate, isExpired, recordTokenExpiry } from "./tokens";
 import { AppError } from "../errors";
-import { select, selectList, rowOf, tableOf } from "../db-read";
+import { readOne, select, selectList, rowOf, tableOf } from "../db-read";
 import { sha256Hex } from "../secrets";
 import type { Actor } from "./actor-type";
 import { database } from "../services";
@@ -72,7 +72,7 @@ const actorFromSession = cache(async (): Promise<(Actor & { sid: string | null }
   const id = session?.user?.id;
   if (!id) return null;
   const m = await database();
-  const user = await m.User.findByPk(id);
+  const user = await readOne(m.User, { where: { id }, attributes: ["id", "email", "name"] });
   return user
     ? { userId: user.id, email: user.email, name: user.name, via: "session", sid: session.sid ?? null }
     : null;

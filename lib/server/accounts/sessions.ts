@@ -7,6 +7,7 @@
 import "server-only";
 import { randomBytes } from "node:crypto";
 import { Op } from "sequelize";
+import { readOne } from "../db-read";
 import { database } from "../services";
 
 export const SESSION_DAYS = 30;
@@ -34,7 +35,11 @@ export async function openSession(userId: string): Promise<string> {
 export async function sessionIsOpen(sid: unknown, userId: string): Promise<boolean> {
   if (typeof sid !== "string" || !sid) return false;
   const m = await database();
-  const row = (await m.AuthSession.findOne({ where: { sessionToken: sid } })) as unknown as SessionRow | null;
+  // Every signed-in page and request asks this: a written-out SELECT (db-read.ts), no model instance.
+  const row = (await readOne(m.AuthSession, {
+    where: { sessionToken: sid },
+    attributes: ["userId", "expires"],
+  })) as unknown as Pick<SessionRow, "userId" | "expires"> | null;
   return !!row && row.userId === userId && new Date(row.expires).getTime() > Date.now();
 }
 
