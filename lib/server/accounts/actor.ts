@@ -10,6 +10,7 @@ import { expiryDate, isExpired, recordTokenExpiry } from "./tokens";
 import { AppError } from "../errors";
 import { readOne, select, selectList, rowOf, tableOf } from "../db-read";
 import { sha256Hex } from "../secrets";
+import type { Role } from "@/lib/access/roles";
 import type { Actor } from "./actor-type";
 import { database } from "../services";
 
@@ -29,14 +30,33 @@ interface TokenRow {
 /** When this process last wrote each token's lastUsedAt: concurrent requests write it once. */
 const lastUsedWrites = new Map<string, number>();
 
-async function actorFromToken(secret: string): Promise<Actor | null> {
+/** The caller's membership of one lab, read together with the token (see `tokenActorInLab`). */
+export interface TokenMembership {
+  role: Role;
+  labName: string;
+}
+
+/**
+ * The token's actor, and with `labId` its membership of that lab (null when not a member), in one
+ * SELECT: every API request with a token starts here.
+ */
+async function actorFromToken(
+  secret: string,
+  labId: string | null = null,
+): Promise<{ actor: Actor; membership: TokenMembership | null } | null> {
   const m = await database();
-  // The token and its user in one SELECT: every API request with a token starts here.
+  const lab = labId
+    ? {
+        columns: `, "ms"."role" AS "ms.role", "l"."name" AS "ms.labName"`,
+        joins: ` LEFT JOIN ${tableOf(m.Membership)} "ms" ON "ms"."user_id" = "t"."user_id" AND "ms"."lab_id" = $2
+                 LEFT JOIN ${tableOf(m.Lab)} "l" ON "l"."id" = "ms"."lab_id"`,
+      }
+    : { columns: "", joins: "" };
   const [row] = await select(
-    `SELECT ${selectList(m.ApiToken, "t", "", TOKEN_COLUMNS)}, ${selectList(m.User, "u", "user.", USER_COLUMNS)}
-       FROM ${tableOf(m.ApiToken)} "t" LEFT JOIN ${tableOf(m.User)} "u" ON "u"."id" = "t"."user_id"
+    `SELECT ${selectList(m.ApiToken, "t", "", TOKEN_COLUMNS)}, ${selectList(m.User, "u", "user.", USER_COLUMNS)}${lab.columns}
+       FROM ${tableOf(m.ApiToken)} "t" LEFT JOIN ${tableOf(m.User)} "u" ON "u"."id" = "t"."user_id"${lab.joins}
       WHERE "t"."token_hash" = $1 AND "t"."revoked_at" IS NULL`,
-    [sha256Hex(secret)],
+    labId ? [sha256Hex(secret), labId] : [sha256Hex(secret)],
   );
   if (!row) return null;
   const token = rowOf<TokenRow>(m.ApiToken, row);
@@ -59,7 +79,36 @@ async function actorFromToken(secret: string): Promise<Actor | null> {
       console.error(`could not record the last use of token ${token.id}`, err),
     );
   }
-  return { userId: user.id, email: user.email, name: user.name, via: "token" };
+  // A membership counts with its lab (an inner join in requireLab).
+  const membership =
+    row["ms.role"] != null && row["ms.labName"] != null
+      ? { role: row["ms.role"] as Role, labName: row["ms.labName"] as string }
+      : null;
+  return { actor: { userId: user.id, email: user.email, name: user.name, via: "token" }, membership };
+}
+
+/** The token of a `Bearer` header, or null without an Authorization header. */
+function bearerSecret(request?: Request): string | null {
+  const header = request?.headers.get("authorization");
+  if (!header) return null;
+  const match = /^Bearer\s+(\S+)$/i.exec(header);
+  if (!match) throw new AppError("unauthenticated", "the Authorization header must be `Bearer <token>`");
+  return match[1];
+}
+
+/**
+ * For a request with a token: its actor and membership of `labId` (null for a lab id that is not a
+ * UUID or a lab the actor is not in), with the same 401s as `requireActor`. Null without a token.
+ */
+export async function tokenActorInLab(
+  request: Request,
+  labId: string | null,
+): Promise<{ actor: Actor; membership: TokenMembership | null } | null> {
+  const secret = bearerSecret(request);
+  if (secret === null) return null;
+  const found = await actorFromToken(secret, labId);
+  if (!found) throw new AppError("unauthenticated", "that API token is unknown or revoked");
+  return found;
 }
 
 /**
@@ -86,14 +135,7 @@ export async function currentSessionId(request?: Request): Promise<string | null
 
 /** The actor or null. With a request, a Bearer header wins over the cookie. */
 export async function getActor(request?: Request): Promise<Actor | null> {
-  const header = request?.headers.get("authorization");
-  if (header) {
-    const match = /^Bearer\s+(\S+)$/i.exec(header);
-    if (!match) throw new AppError("unauthenticated", "the Authorization header must be `Bearer <token>`");
-    const actor = await actorFromToken(match[1]);
-    if (!actor) throw new AppError("unauthenticated", "that API token is unknown or revoked");
-    return actor;
-  }
+  if (request?.headers.get("authorization")) return (await tokenActorInLab(request, null))!.actor;
   const s = await actorFromSession();
   return s ? { userId: s.userId, email: s.email, name: s.name, via: s.via } : null;
 }

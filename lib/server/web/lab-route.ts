@@ -5,8 +5,9 @@
  */
 import "server-only";
 import type { Action } from "@/lib/access/permissions";
-import { authorize, requireLab, type LabContext } from "../access";
-import { requireActor, type Actor } from "../accounts/actor";
+import { authorize, isUuid, requireLab, type LabContext } from "../access";
+import { requireActor, tokenActorInLab, type Actor } from "../accounts/actor";
+import { notFound } from "../errors";
 import { route } from "./http";
 
 export function labRoute<P extends { labId: string }>(
@@ -15,11 +16,22 @@ export function labRoute<P extends { labId: string }>(
 ) {
   return route<P>(async (request, { params }) => {
     const p = await params;
-    const actor = await requireActor(request);
-    const ctx = await requireLab(actor, p.labId);
+    const ctx = await requireLabOf(request, p.labId);
     authorize(ctx, action);
     return fn(ctx, request, p);
   });
+}
+
+/**
+ * The lab context of a request: with a token, the token, its user and the membership in one query
+ * (every API script's request); with a browser session, the session's actor and then the membership.
+ * 401 before 404, as before: a bad token answers 401 whatever the lab id.
+ */
+async function requireLabOf(request: Request, labId: string): Promise<LabContext> {
+  const viaToken = await tokenActorInLab(request, isUuid(labId) ? labId : null);
+  if (!viaToken) return requireLab(await requireActor(request), labId);
+  if (!viaToken.membership) throw notFound("lab");
+  return { actor: viaToken.actor, labId, labName: viaToken.membership.labName, role: viaToken.membership.role };
 }
 
 export function userRoute<P = Record<string, never>>(
