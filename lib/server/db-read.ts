@@ -220,7 +220,13 @@ type Attributes<M extends Model> = InferAttributes<M>;
 
 /** Like `model.findAll` for the options above, with plain objects back (only `attributes`, when given). */
 export async function readAll<M extends Model>(model: ModelStatic<M>, o: ReadOptions): Promise<Attributes<M>[]> {
-  const q = new Sql(model as ModelStatic<Model>, "r");
+  const rows = await selectRows(model as ModelStatic<Model>, o, "");
+  return rows.map((row) => rowOf<Attributes<M>>(model as ModelStatic<Model>, row));
+}
+
+/** The SELECT of `readAll`, with `extra` columns after the model's. */
+function selectRows(model: ModelStatic<Model>, o: ReadOptions, extra: string) {
+  const q = new Sql(model, "r");
   const cond = q.where(o.where);
   const order = o.order?.length
     ? ` ORDER BY ${o.order.map(([a, dir]) => `${q.column(a)} ${dir.toUpperCase() === "DESC" ? "DESC" : "ASC"}`).join(", ")}`
@@ -228,11 +234,10 @@ export async function readAll<M extends Model>(model: ModelStatic<M>, o: ReadOpt
   const page =
     (o.limit !== undefined ? ` LIMIT ${Math.trunc(o.limit)}` : "") +
     (o.offset ? ` OFFSET ${Math.trunc(o.offset)}` : "");
-  const rows = await select(
-    `SELECT ${selectList(model as ModelStatic<Model>, "r", "", o.attributes)} FROM ${tableOf(model as ModelStatic<Model>)} "r" WHERE ${cond}${order}${page}`,
+  return select(
+    `SELECT ${selectList(model, "r", "", o.attributes)}${extra} FROM ${tableOf(model)} "r" WHERE ${cond}${order}${page}`,
     q.bind,
   );
-  return rows.map((row) => rowOf<Attributes<M>>(model as ModelStatic<Model>, row));
 }
 
 /** Like `model.findOne`: the first row or null. */
@@ -254,11 +259,19 @@ export async function readCount<M extends Model>(model: ModelStatic<M>, where: R
   return Number(row.count); // PostgreSQL's count is a bigint, given as a string
 }
 
-/** Like `model.findAndCountAll`: one page of rows and the count of all that match. */
+/**
+ * Like `model.findAndCountAll`: one page of rows and the count of all that match, in one SELECT
+ * (`count(*) OVER ()`, a window function of SQLite ≥ 3.25 and PostgreSQL, counted before LIMIT).
+ * A page past the end has no row to carry the count; only then is it counted on its own.
+ */
 export async function readPage<M extends Model>(
   model: ModelStatic<M>,
   o: ReadOptions,
 ): Promise<{ rows: Attributes<M>[]; count: number }> {
-  const [rows, count] = await Promise.all([readAll(model, o), readCount(model, o.where)]);
-  return { rows, count };
+  const raw = await selectRows(model as ModelStatic<Model>, o, `, count(*) OVER () AS "${TOTAL}"`);
+  const count = raw.length ? Number(raw[0][TOTAL]) : o.offset ? await readCount(model, o.where) : 0;
+  return { rows: raw.map((row) => rowOf<Attributes<M>>(model as ModelStatic<Model>, row)), count };
 }
+
+/** The column of readPage's count; no attribute starts with a space. */
+const TOTAL = " total";

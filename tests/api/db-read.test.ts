@@ -118,6 +118,34 @@ describe("written-out reads", () => {
     });
     expect(page.count).toBe(3);
     expect(page.rows.map((s) => s.label)).toEqual(["BF-1", "BF-2"]);
+    // A page past the end: no rows, and still the count of all (3 specimens written above).
+    expect(await readPage(m.Specimen, { where: { studyId: study.id }, limit: 2, offset: 10 })).toEqual({
+      rows: [],
+      count: 3,
+    });
+    expect(await readPage(m.Specimen, { where: { studyId: "00000000-0000-4000-8000-000000000000" } })).toEqual({
+      rows: [],
+      count: 0,
+    });
+    const theirs = await m.Readout.findAndCountAll({
+      where: { labId: ctx.labId },
+      order: [
+        ["createdAt", "desc"],
+        ["id", "asc"],
+      ],
+      limit: 3,
+      offset: 1,
+    });
+    const mine = await readPage(m.Readout, {
+      where: { labId: ctx.labId },
+      order: [
+        ["createdAt", "desc"],
+        ["id", "asc"],
+      ],
+      limit: 3,
+      offset: 1,
+    });
+    expect(mine).toEqual({ rows: theirs.rows.map((r) => r.get({ plain: true })), count: theirs.count });
     expect((await readOne(m.Study, { where: { id: study.id } }))?.name).toBe("Bracken leaves, all of the time");
     expect(await readOne(m.Study, { where: { id: specimens[0].id } })).toBeNull();
   });
