@@ -127,24 +127,17 @@ describe("written-out reads", () => {
       rows: [],
       count: 0,
     });
-    const theirs = await m.Readout.findAndCountAll({
+    const newestFirst = {
       where: { labId: ctx.labId },
       order: [
         ["createdAt", "desc"],
         ["id", "asc"],
-      ],
+      ] as [string, "asc" | "desc"][],
       limit: 3,
       offset: 1,
-    });
-    const mine = await readPage(m.Readout, {
-      where: { labId: ctx.labId },
-      order: [
-        ["createdAt", "desc"],
-        ["id", "asc"],
-      ],
-      limit: 3,
-      offset: 1,
-    });
+    };
+    const theirs = await m.Readout.findAndCountAll(newestFirst);
+    const mine = await readPage(m.Readout, newestFirst);
     expect(mine).toEqual({ rows: theirs.rows.map((r) => r.get({ plain: true })), count: theirs.count });
     expect((await readOne(m.Study, { where: { id: study.id } }))?.name).toBe("Bracken leaves, all of the time");
     expect(await readOne(m.Study, { where: { id: specimens[0].id } })).toBeNull();

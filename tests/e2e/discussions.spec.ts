@@ -27,6 +27,17 @@ async function firstReadout(page: Page, labId: string): Promise<{ id: string; fi
   return readouts.items[0] as { id: string; filename: string };
 }
 
+/** Starts a thread on the lab's first readout with `${question}?`, as the Discussion component would. */
+async function startThreadOnFirstReadout(page: Page, labId: string, question: string) {
+  const readout = await firstReadout(page, labId);
+  const started = await page.request.post(`/api/v1/labs/${labId}/threads`, {
+    headers: { origin: BASE_URL },
+    data: { targetType: "readout", targetId: readout.id, body: `${question}?` },
+  });
+  expect(started.status()).toBe(201);
+  return readout;
+}
+
 test("collaborator asks about a readout, the scientist is e-mailed and replies, the collaborator resolves", async ({
   lab,
   page,
@@ -106,13 +117,8 @@ test("on a 390 px phone an open discussion's row keeps its name, first words and
   page,
 }) => {
   const labId = lab.labId;
-  const readout = await firstReadout(page, labId);
   const question = unique("Does the row spacing change along the flank");
-  const started = await page.request.post(`/api/v1/labs/${labId}/threads`, {
-    headers: { origin: BASE_URL },
-    data: { targetType: "readout", targetId: readout.id, body: `${question}?` },
-  });
-  expect(started.status()).toBe(201);
+  const readout = await startThreadOnFirstReadout(page, labId, question);
 
   await page.setViewportSize({ width: 390, height: 800 });
   const dashboard = await lab.open(DashboardPage);
@@ -140,14 +146,8 @@ test("a picked mention leaves the caret after it even when the next key comes be
   lab,
   page,
 }) => {
-  const labId = lab.labId;
-  const readout = await firstReadout(page, labId);
   const question = unique("Is the third row fainter");
-  const started = await page.request.post(`/api/v1/labs/${labId}/threads`, {
-    headers: { origin: BASE_URL },
-    data: { targetType: "readout", targetId: readout.id, body: `${question}?` },
-  });
-  expect(started.status()).toBe(201);
+  await startThreadOnFirstReadout(page, lab.labId, question);
 
   await (await lab.open(DashboardPage)).openThread(question);
   const panel = new DiscussionPanel(page);

@@ -2,6 +2,7 @@
 import "server-only";
 import { literal, Op, type Order } from "sequelize";
 import { z } from "zod";
+import { LIKE_ESCAPE, likePattern } from "../db-read";
 import { AppError } from "../errors";
 import { services } from "../services";
 import { describeIssue } from "./http";
@@ -85,9 +86,6 @@ export function parseListQuery<S extends string>(
   return parsed.data as ListQuery<S>;
 }
 
-/** The escape character of {@link containsText}: not a backslash, which SQL dialects treat differently. */
-const LIKE_ESCAPE = "!";
-
 /**
  * A where-clause value matching text that contains `q` literally, ignoring letter case: `%` and
  * `_` in what the user typed are escaped, so `?q=_` finds an underscore rather than every row.
@@ -101,7 +99,7 @@ const LIKE_ESCAPE = "!";
  * value cannot lower-case the column it is compared with, so each gets its own operator.
  */
 export function containsText(q: string) {
-  const pattern = `%${q.replace(/[!%_]/g, (c) => LIKE_ESCAPE + c)}%`;
+  const pattern = likePattern(q);
   const op = services().db.sequelize.getDialect() === "postgres" ? Op.iLike : Op.like;
   return { [op]: literal(`'${pattern.replace(/'/g, "''")}' ESCAPE '${LIKE_ESCAPE}'`) };
 }
