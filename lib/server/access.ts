@@ -7,7 +7,8 @@ import { can, type Action } from "@/lib/access/permissions";
 import { describeRefusal } from "@/lib/access/refusals";
 import type { Role } from "@/lib/access/roles";
 import type { Actor } from "./accounts/actor-type";
-import { select, tableOf } from "./db-read";
+import type { InferAttributes, Model, ModelStatic } from "sequelize";
+import { readOne, select, tableOf } from "./db-read";
 import { AppError, forbidden, notFound } from "./errors";
 import { database } from "./services";
 
@@ -52,6 +53,21 @@ export function authorize(ctx: LabContext, action: Action, ownerId?: string | nu
       ? forbidden(describeRefusal(ctx.role, action))
       : forbidden("only its creator or a lab manager may change or delete this");
   }
+}
+
+/**
+ * One row of the lab by id, as plain attributes for reading (db-read.ts); 404 naming `what` when
+ * it is not in the lab — or the id is no UUID, which no row has.
+ */
+export async function readInLab<M extends Model>(
+  ctx: LabContext,
+  model: ModelStatic<M>,
+  id: string,
+  what: string,
+): Promise<InferAttributes<M>> {
+  const row = isUuid(id) ? await readOne(model, { where: { id, labId: ctx.labId } }) : null;
+  if (!row) throw notFound(what);
+  return row;
 }
 
 export async function requireLabAction(actor: Actor, labId: string, action: Action): Promise<LabContext> {

@@ -27,10 +27,11 @@ interface Column {
 
 const columnsByModel = new WeakMap<object, Column[]>();
 
-function kindOf(type: unknown): Kind {
+/** How a column's value comes back; JSON is text only on SQLite (the PostgreSQL driver parses it). */
+function kindOf(type: unknown, sqlite: boolean): Kind {
   if (type instanceof DataTypes.DATE) return "date";
   if (type instanceof DataTypes.BOOLEAN) return "boolean";
-  if (type instanceof DataTypes.JSON) return "json";
+  if (type instanceof DataTypes.JSON) return sqlite ? "json" : "plain";
   // PostgreSQL gives BIGINT and DECIMAL as strings; the models use numbers.
   if (type instanceof DataTypes.BIGINT || type instanceof DataTypes.DECIMAL) return "number";
   return "plain";
@@ -40,10 +41,11 @@ function kindOf(type: unknown): Kind {
 function columnsOf(model: ModelStatic<Model>): Column[] {
   let columns = columnsByModel.get(model);
   if (!columns) {
+    const sqlite = isSqlite(model);
     columns = Object.entries(model.getAttributes()).map(([attribute, def]) => ({
       attribute,
       field: def.field ?? attribute,
-      kind: kindOf(def.type),
+      kind: kindOf(def.type, sqlite),
     }));
     columnsByModel.set(model, columns);
   }
@@ -58,8 +60,7 @@ function valueOf(kind: Kind, v: unknown): unknown {
     case "boolean":
       return typeof v === "boolean" ? v : Number(v) !== 0;
     case "json":
-      // SQLite keeps JSON as text; the PostgreSQL driver parses it already (and a JSON string stays a string).
-      return typeof v === "string" && sqlite() ? JSON.parse(v) : v;
+      return typeof v === "string" ? JSON.parse(v) : v;
     case "number":
       return typeof v === "number" ? v : Number(v);
     default:
@@ -67,7 +68,8 @@ function valueOf(kind: Kind, v: unknown): unknown {
   }
 }
 
-const sqlite = () => services().db.sequelize.getDialect() === "sqlite";
+/** A model's dialect is its Sequelize instance's, fixed for the model's life. */
+const isSqlite = (model: ModelStatic<Model>) => model.sequelize?.getDialect() === "sqlite";
 
 /** SQLite keeps Sequelize's dates as "2026-12-04 19:40:00.123 +00:00"; Date parses the ISO form. */
 function sqliteDate(s: string): string {
@@ -207,7 +209,7 @@ class Sql {
       } else if (key === CONTAINS_TEXT) {
         const { attributes, text } = w[CONTAINS_TEXT]!;
         // SQLite's LIKE ignores the case of ASCII letters; PostgreSQL's ILIKE is its case-insensitive form.
-        const like = sqlite() ? "LIKE" : "ILIKE";
+        const like = isSqlite(this.model) ? "LIKE" : "ILIKE";
         const p = this.param(likePattern(text));
         parts.push(`(${attributes.map((a) => `${this.column(a)} ${like} ${p} ESCAPE '${LIKE_ESCAPE}'`).join(" OR ")})`);
       } else throw new Error(`db-read: the where key ${String(key)} is not supported here`);

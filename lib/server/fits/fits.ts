@@ -11,11 +11,12 @@ import type { FitCreate } from "@/lib/contracts/fit";
 import type { InferAttributes } from "sequelize";
 import type { Fit } from "@/models/fit";
 import type { JobStatus } from "@/models/job";
-import { authorize, isUuid, type LabContext } from "../access";
+import { authorize, isUuid, readInLab, type LabContext } from "../access";
 import { AppError, notFound } from "../errors";
 import { enqueueJob } from "../jobs/queue";
 import { type ListQuery, type ListResult, pageResult } from "../web/list";
 import { CONTAINS_TEXT, readAll, readOne, readPage } from "../db-read";
+import { emailsOf } from "../accounts/emails";
 import { database, services } from "../services";
 import { recordAudit } from "../audit";
 import { fitRunner } from "./process";
@@ -72,11 +73,7 @@ async function toSummaries(rows: FitAttributes[]): Promise<FitSummaryDto[]> {
   const m = await database();
   const jobIds = rows.filter((r) => r.jobId).map((r) => r.jobId!);
   const jobs = new Map((jobIds.length ? await readAll(m.Job, { where: { id: jobIds } }) : []).map((j) => [j.id, j]));
-  const users = await readAll(m.User, {
-    where: { id: rows.map((r) => r.createdBy).filter((x): x is string => !!x) },
-    attributes: ["id", "email"],
-  });
-  const emails = new Map(users.map((u) => [u.id, u.email]));
+  const emails = await emailsOf(rows.map((r) => r.createdBy));
   return rows.map((r) => {
     const spec = r.spec as unknown as StoredFitSpec;
     const prov = r.provenance as unknown as FitProvenance;
@@ -138,10 +135,7 @@ export async function findFit(ctx: LabContext, fitId: string): Promise<Row> {
 }
 
 export async function getFit(ctx: LabContext, fitId: string): Promise<FitDetailDto> {
-  if (!isUuid(fitId)) throw notFound("fit");
-  const m = await database();
-  const r = await readOne(m.Fit, { where: { id: fitId, labId: ctx.labId } });
-  if (!r) throw notFound("fit");
+  const r = await readInLab(ctx, (await database()).Fit, fitId, "fit");
   const [[s], links] = await Promise.all([toSummaries([r]), readFitLinks(ctx, r)]);
   return {
     ...s,

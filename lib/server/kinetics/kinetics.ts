@@ -12,6 +12,7 @@ import type { LabContext } from "../access";
 import { authorize, isUuid } from "../access";
 import { AppError, notFound } from "../errors";
 import { containsText, type ListQuery, type ListResult, pageOptions, pageResult } from "../web/list";
+import { emailsOf } from "../accounts/emails";
 import { database, services } from "../services";
 import { recordAudit } from "../audit";
 import { toAppError } from "../core-errors";
@@ -41,15 +42,6 @@ export interface KineticsVersionDto {
 export const LAB_KINETICS_SORTS = ["name", "latestVersion", "createdAt", "updatedAt"] as const;
 
 type Row = InstanceType<Awaited<ReturnType<typeof database>>["LabKinetics"]>;
-
-async function emailsOf(ids: (string | null)[]): Promise<Map<string, string>> {
-  const m = await database();
-  const users = await m.User.findAll({
-    where: { id: ids.filter((x): x is string => !!x) },
-    attributes: ["id", "email"],
-  });
-  return new Map(users.map((u) => [u.id, u.email]));
-}
 
 async function toDtos(ctx: LabContext, rows: Row[]): Promise<LabKineticsDto[]> {
   const m = await database();

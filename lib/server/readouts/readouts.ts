@@ -13,11 +13,12 @@ import type { JobStatus } from "@/models/job";
 import type { Readout } from "@/models/readout";
 import type { ImageLayout } from "@/lib/imaging";
 import { StorageUnavailableError } from "@/storage/object-store";
-import { authorize, type LabContext } from "../access";
+import { authorize, readInLab, type LabContext } from "../access";
 import { AppError, notFound } from "../errors";
 import { enqueueJob } from "../jobs/queue";
 import { type ListQuery, type ListResult, pageResult } from "../web/list";
 import { CONTAINS_TEXT, readAll, readOne, readPage, type ReadWhere } from "../db-read";
+import { emailsOf } from "../accounts/emails";
 import { database, services } from "../services";
 import { headlineOf, type ReadoutHeadline, type ReadoutResult } from "./result";
 import { resolveStartSettings, type StoredReadoutSettings } from "./settings";
@@ -74,11 +75,7 @@ async function toDtos(rows: InferAttributes<Readout>[]): Promise<ReadoutDto[]> {
   const names = new Map(uploads.map((u) => [u.id, u.filename]));
   const jobIds = rows.filter((r) => r.jobId && (r.status === "queued" || r.status === "running")).map((r) => r.jobId!);
   const jobs = new Map((jobIds.length ? await readAll(m.Job, { where: { id: jobIds } }) : []).map((j) => [j.id, j]));
-  const users = await readAll(m.User, {
-    where: { id: rows.map((r) => r.createdBy).filter((x): x is string => !!x) },
-    attributes: ["id", "email"],
-  });
-  const emails = new Map(users.map((u) => [u.id, u.email]));
+  const emails = await emailsOf(rows.map((r) => r.createdBy));
   return rows.map((r) => {
     const settings = r.settings as unknown as StoredReadoutSettings;
     const job = r.jobId ? jobs.get(r.jobId) : undefined;
@@ -159,8 +156,7 @@ async function findReadout(ctx: LabContext, readoutId: string): Promise<Row> {
 
 export async function getReadout(ctx: LabContext, readoutId: string): Promise<ReadoutDetailDto> {
   const m = await database();
-  const r = await readOne(m.Readout, { where: { id: readoutId, labId: ctx.labId } });
-  if (!r) throw notFound("readout");
+  const r = await readInLab(ctx, m.Readout, readoutId, "readout");
   const [dto] = await toDtos([r]);
   const specimen = await readOne(m.Specimen, {
     where: { id: r.specimenId },

@@ -14,11 +14,12 @@ import type { SimulationRunRequest } from "@/lib/contracts/simulation-run";
 import type { JobStatus } from "@/models/job";
 import type { SimulationRun } from "@/models/simulation-run";
 import { StorageUnavailableError } from "@/storage/object-store";
-import { authorize, isUuid, type LabContext } from "../access";
+import { authorize, isUuid, readInLab, type LabContext } from "../access";
 import { AppError, notFound } from "../errors";
 import { cancelJob, enqueueJob } from "../jobs/queue";
 import { type ListQuery, type ListResult, pageResult } from "../web/list";
-import { CONTAINS_TEXT, readAll, readOne, readPage } from "../db-read";
+import { CONTAINS_TEXT, readAll, readPage } from "../db-read";
+import { emailsOf } from "../accounts/emails";
 import { database, services } from "../services";
 import { recordAudit } from "../audit";
 import { SOFTWARE_VERSION } from "../readouts/readouts";
@@ -38,11 +39,7 @@ async function toDtos(rows: InferAttributes<SimulationRun>[]): Promise<RunDto[]>
   const m = await database();
   const jobIds = rows.filter((r) => r.jobId && (r.status === "queued" || r.status === "running")).map((r) => r.jobId!);
   const jobs = new Map((jobIds.length ? await readAll(m.Job, { where: { id: jobIds } }) : []).map((j) => [j.id, j]));
-  const users = await readAll(m.User, {
-    where: { id: rows.map((r) => r.createdBy).filter((x): x is string => !!x) },
-    attributes: ["id", "email"],
-  });
-  const emails = new Map(users.map((u) => [u.id, u.email]));
+  const emails = await emailsOf(rows.map((r) => r.createdBy));
   return rows.map((r) => {
     const job = r.jobId ? jobs.get(r.jobId) : undefined;
     // A job cancelled or lost before its handler ran never touched the row: show the job's end.
@@ -107,10 +104,7 @@ export async function findRun(ctx: LabContext, runId: string): Promise<Row> {
 }
 
 export async function getRun(ctx: LabContext, runId: string): Promise<RunDetailDto> {
-  if (!isUuid(runId)) throw notFound("run");
-  const m = await database();
-  const r = await readOne(m.SimulationRun, { where: { id: runId, labId: ctx.labId } });
-  if (!r) throw notFound("run");
+  const r = await readInLab(ctx, (await database()).SimulationRun, runId, "run");
   const [[dto], links] = await Promise.all([toDtos([r]), readRunLinks(ctx, r.id, r.changedFrom)]);
   const base = `/api/v1/labs/${ctx.labId}/runs/${r.id}/files`;
   const files = Object.fromEntries(

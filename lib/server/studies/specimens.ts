@@ -4,10 +4,10 @@ import type { InferAttributes } from "sequelize";
 import type { Specimen } from "@/models/specimen";
 import { can } from "@/lib/access/permissions";
 import type { LabContext } from "../access";
-import { authorize } from "../access";
+import { authorize, readInLab } from "../access";
 import { AppError, notFound } from "../errors";
 import { type ListQuery, type ListResult, pageResult, readPageOptions } from "../web/list";
-import { CONTAINS_TEXT, readAll, readOne, readPage } from "../db-read";
+import { CONTAINS_TEXT, readAll, readPage } from "../db-read";
 import { database, services } from "../services";
 import { changedFields, describeChanges, fitSummary, recordAudit } from "../audit";
 import { findStudy, readStudy } from "./studies";
@@ -89,10 +89,7 @@ export async function findSpecimen(ctx: LabContext, specimenId: string) {
 
 /** The specimen's attributes, for reading (findSpecimen gives the row to change). */
 export async function readSpecimen(ctx: LabContext, specimenId: string): Promise<InferAttributes<Specimen>> {
-  const m = await database();
-  const s = await readOne(m.Specimen, { where: { id: specimenId, labId: ctx.labId } });
-  if (!s) throw notFound("specimen");
-  return s;
+  return readInLab(ctx, (await database()).Specimen, specimenId, "specimen");
 }
 
 export async function getSpecimen(ctx: LabContext, specimenId: string): Promise<SpecimenDto> {

@@ -4,10 +4,11 @@ import { fn, col, type InferAttributes } from "sequelize";
 import type { Study } from "@/models/study";
 import { can } from "@/lib/access/permissions";
 import type { LabContext } from "../access";
-import { authorize } from "../access";
+import { authorize, readInLab } from "../access";
 import { AppError, notFound } from "../errors";
 import { type ListQuery, type ListResult, pageResult, readPageOptions } from "../web/list";
-import { CONTAINS_TEXT, readAll, readOne, readPage } from "../db-read";
+import { CONTAINS_TEXT, readAll, readPage } from "../db-read";
+import { emailsOf } from "../accounts/emails";
 import { database, services } from "../services";
 import { changedFields, describeChanges, fitSummary, recordAudit } from "../audit";
 
@@ -35,11 +36,7 @@ async function toDtos(ctx: LabContext, studies: InferAttributes<Study>[]): Promi
   const specimens = ids.length
     ? await readAll(m.Specimen, { where: { studyId: ids }, attributes: ["studyId", "condition"] })
     : [];
-  const users = await readAll(m.User, {
-    where: { id: studies.map((s) => s.createdBy).filter((x): x is string => !!x) },
-    attributes: ["id", "email"],
-  });
-  const emails = new Map(users.map((u) => [u.id, u.email]));
+  const emails = await emailsOf(studies.map((s) => s.createdBy));
   return studies.map((s) => {
     const mine = specimens.filter((x) => x.studyId === s.id);
     return {
@@ -84,10 +81,7 @@ export async function findStudy(ctx: LabContext, studyId: string) {
 
 /** The study's attributes, for reading (findStudy gives the row to change). */
 export async function readStudy(ctx: LabContext, studyId: string): Promise<InferAttributes<Study>> {
-  const m = await database();
-  const study = await readOne(m.Study, { where: { id: studyId, labId: ctx.labId } });
-  if (!study) throw notFound("study");
-  return study;
+  return readInLab(ctx, (await database()).Study, studyId, "study");
 }
 
 export async function getStudy(ctx: LabContext, studyId: string): Promise<StudyDto> {

@@ -14,11 +14,12 @@ import { StorageUnavailableError } from "@/storage/object-store";
 import type { Upload, UploadKind } from "@/models/upload";
 import type { ImageLayout } from "@/lib/imaging";
 import type { LabContext } from "../access";
-import { authorize } from "../access";
+import { authorize, readInLab } from "../access";
 import { auditRefusal, findDependents, refuseWithDependents } from "../dependents";
 import { AppError, notFound } from "../errors";
 import { type ListQuery, type ListResult, pageResult, readPageOptions } from "../web/list";
-import { CONTAINS_TEXT, readAll, readOne, readPage } from "../db-read";
+import { CONTAINS_TEXT, readAll, readPage } from "../db-read";
+import { emailsOf } from "../accounts/emails";
 import { database, services } from "../services";
 import { recordAudit } from "../audit";
 import { findSpecimen, readSpecimen } from "../studies/specimens";
@@ -52,11 +53,7 @@ type UploadRow = InstanceType<Awaited<ReturnType<typeof database>>["Upload"]>;
 
 async function toDtos(ctx: LabContext, rows: InferAttributes<Upload>[]): Promise<UploadDto[]> {
   const m = await database();
-  const users = await readAll(m.User, {
-    where: { id: rows.map((r) => r.createdBy).filter((x): x is string => !!x) },
-    attributes: ["id", "email"],
-  });
-  const emails = new Map(users.map((u) => [u.id, u.email]));
+  const emails = await emailsOf(rows.map((r) => r.createdBy));
   // Earlier uploads of the same file to the same specimen, in one query.
   const same = rows.length
     ? await readAll(m.Upload, {
@@ -124,10 +121,7 @@ export async function findUpload(ctx: LabContext, uploadId: string) {
 
 /** The upload's attributes, for reading (findUpload gives the row to change). */
 export async function readUpload(ctx: LabContext, uploadId: string): Promise<InferAttributes<Upload>> {
-  const m = await database();
-  const u = await readOne(m.Upload, { where: { id: uploadId, labId: ctx.labId } });
-  if (!u) throw notFound("upload");
-  return u;
+  return readInLab(ctx, (await database()).Upload, uploadId, "upload");
 }
 
 export async function getUpload(ctx: LabContext, uploadId: string): Promise<UploadDto> {

@@ -25,23 +25,9 @@ export interface ListResult<T> {
 export const MAX_PAGE_SIZE = 200;
 
 /**
- * One page of a list query as Sequelize options: its sort with ties broken by id (so pages never
- * overlap or skip a row), its size and offset. `order` replaces the sort where a list needs its own.
+ * One page of a list query for db-read's `readPage`: its sort with ties broken by id (so pages never
+ * overlap or skip a row), its size and offset.
  */
-export function pageOptions(q: ListQuery<string>, order?: Order) {
-  return {
-    order:
-      order ??
-      ([
-        [q.sort, q.dir],
-        ["id", "asc"],
-      ] as Order),
-    limit: q.pageSize,
-    offset: (q.page - 1) * q.pageSize,
-  };
-}
-
-/** One page of a list query for db-read's `readPage`: the sort, ties broken by id, the size and offset. */
 export function readPageOptions(q: ListQuery<string>) {
   return {
     order: [
@@ -51,6 +37,15 @@ export function readPageOptions(q: ListQuery<string>) {
     limit: q.pageSize,
     offset: (q.page - 1) * q.pageSize,
   };
+}
+
+/**
+ * One page of a list query as Sequelize options: readPageOptions' sort, size and offset. `order`
+ * replaces the sort where a list needs its own.
+ */
+export function pageOptions(q: ListQuery<string>, order?: Order) {
+  const page = readPageOptions(q);
+  return { ...page, order: order ?? (page.order as Order) };
 }
 
 /** A list answer: one page of items with the page, its size and the total count. */
