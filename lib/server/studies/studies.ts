@@ -33,10 +33,11 @@ export const STUDY_SORTS = ["name", "tissue", "organism", "createdAt", "updatedA
 async function toDtos(ctx: LabContext, studies: InferAttributes<Study>[]): Promise<StudyDto[]> {
   const m = await database();
   const ids = studies.map((s) => s.id);
-  const specimens = ids.length
-    ? await readAll(m.Specimen, { where: { studyId: ids }, attributes: ["studyId", "condition"] })
-    : [];
-  const emails = await emailsOf(studies.map((s) => s.createdBy));
+  // Independent reads, sent together: one wait for the database instead of two in a row.
+  const [specimens, emails] = await Promise.all([
+    ids.length ? readAll(m.Specimen, { where: { studyId: ids }, attributes: ["studyId", "condition"] }) : [],
+    emailsOf(studies.map((s) => s.createdBy)),
+  ]);
   return studies.map((s) => {
     const mine = specimens.filter((x) => x.studyId === s.id);
     return {
