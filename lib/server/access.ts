@@ -70,6 +70,23 @@ export async function readInLab<M extends Model>(
   return row;
 }
 
+/**
+ * A read and the check of its parent (e.g. the study whose specimens are listed), sent together:
+ * one wait for the database instead of two in a row. The check's error wins — the 404 for a parent
+ * that is not the lab's — even when the read fails first on the same id (PostgreSQL refuses a
+ * non-UUID id in a query; readInLab answers 404 for it without one).
+ */
+export async function readAfterCheck<T>(check: Promise<unknown>, read: Promise<T>): Promise<T> {
+  const [, value] = await Promise.all([
+    check,
+    read.catch(async (err: unknown) => {
+      await check;
+      throw err;
+    }),
+  ]);
+  return value;
+}
+
 export async function requireLabAction(actor: Actor, labId: string, action: Action): Promise<LabContext> {
   const ctx = await requireLab(actor, labId);
   authorize(ctx, action);

@@ -14,7 +14,7 @@ import { StorageUnavailableError } from "@/storage/object-store";
 import type { Upload, UploadKind } from "@/models/upload";
 import type { ImageLayout } from "@/lib/imaging";
 import type { LabContext } from "../access";
-import { authorize, readInLab } from "../access";
+import { authorize, readAfterCheck, readInLab } from "../access";
 import { auditRefusal, findDependents, refuseWithDependents } from "../dependents";
 import { AppError, notFound } from "../errors";
 import { type ListQuery, type ListResult, pageResult, readPageOptions } from "../web/list";
@@ -103,15 +103,17 @@ export async function listUploads(
   q: ListQuery<(typeof UPLOAD_SORTS)[number]>,
 ): Promise<ListResult<UploadDto>> {
   const m = await database();
-  await readSpecimen(ctx, specimenId);
-  const { rows, count } = await readPage(m.Upload, {
-    where: {
-      labId: ctx.labId,
-      specimenId,
-      ...(q.q ? { [CONTAINS_TEXT]: { attributes: ["filename"], text: q.q } } : {}),
-    },
-    ...readPageOptions(q),
-  });
+  const { rows, count } = await readAfterCheck(
+    readSpecimen(ctx, specimenId),
+    readPage(m.Upload, {
+      where: {
+        labId: ctx.labId,
+        specimenId,
+        ...(q.q ? { [CONTAINS_TEXT]: { attributes: ["filename"], text: q.q } } : {}),
+      },
+      ...readPageOptions(q),
+    }),
+  );
   return pageResult(q, await toDtos(ctx, rows), count);
 }
 
