@@ -10,11 +10,6 @@
  * The same load runs once untimed before the image is uploaded (a warm-up: Next loads a route's
  * code at its first request, V8 optimises hot functions after many calls).
  * BENCH_LOAD_CLIENTS and BENCH_LOAD_ROUNDS change the counts (defaults 50 and 4).
- *
- * Then the floor: the same load on the same URLs without a token, while the readout still runs.
- * Each is answered 401 by the same route wrapper before any database read (Next's routing, the
- * wrapper, next-auth's cookie check), so its answer times are what Next alone costs on this
- * machine under this load; the lists and details cannot be answered faster than that.
  */
 import { existsSync } from "node:fs";
 import http from "node:http";
@@ -52,11 +47,11 @@ interface Answer {
  * the status. node:http rather than fetch: on a 2-core machine the load script shares the CPU with
  * the server, and fetch's streams cost the client about 0.9 ms of CPU per request.
  */
-function getStatus(agent: http.Agent, url: string, token: string | null): Promise<number> {
+function getStatus(agent: http.Agent, url: string, token: string): Promise<number> {
   return new Promise((resolve, reject) => {
     const req = http.get(
       url,
-      { agent, headers: { ...(token ? { authorization: `Bearer ${token}` } : {}), "accept-encoding": "gzip" } },
+      { agent, headers: { authorization: `Bearer ${token}`, "accept-encoding": "gzip" } },
       (res) => {
         res.on("data", () => undefined);
         res.on("end", () => resolve(res.statusCode ?? 0));
@@ -163,40 +158,33 @@ export default async function bench(): Promise<BenchRow[]> {
       const answers: Answer[] = [];
       const loadT0 = performance.now();
       const deadline = Date.now() + LOAD_WITHIN_MS;
-      /** CLIENTS clients, each sending its ROUNDS rounds one after another, into `into`. */
-      const load = (into: Answer[], withToken: boolean) =>
-        Promise.all(
-          Array.from({ length: CLIENTS }, async (_, i) => {
-            const mine = endpoints(i);
-            for (let k = 0; k < ROUNDS * mine.length; k++) {
-              const [endpoint, url] = mine[(i + k) % mine.length]; // clients start on different endpoints
-              if (Date.now() > deadline) {
-                into.push({ endpoint, status: 0, ms: NaN, duringReadout: false });
-                continue;
-              }
-              const runningBefore = state === "running";
-              const t = performance.now();
-              let status = 0; // no answer within REQUEST_TIMEOUT_MS, or a reset
-              try {
-                status = await getStatus(agent, url, withToken ? token : null);
-              } catch {
-                // counted below as an answer other than 2xx
-              }
-              into.push({
-                endpoint,
-                status,
-                ms: performance.now() - t,
-                duringReadout: runningBefore && state === "running",
-              });
-            }
-          }),
-        );
-      await load(answers, true);
+      const client = async (i: number) => {
+        const mine = endpoints(i);
+        for (let k = 0; k < ROUNDS * mine.length; k++) {
+          const [endpoint, url] = mine[(i + k) % mine.length]; // clients start on different endpoints
+          if (Date.now() > deadline) {
+            answers.push({ endpoint, status: 0, ms: NaN, duringReadout: false });
+            continue;
+          }
+          const runningBefore = state === "running";
+          const t = performance.now();
+          let status = 0; // no answer within REQUEST_TIMEOUT_MS, or a reset
+          try {
+            status = await get(url);
+          } catch {
+            // counted below as an answer other than 2xx
+          }
+          answers.push({
+            endpoint,
+            status,
+            ms: performance.now() - t,
+            duringReadout: runningBefore && state === "running",
+          });
+        }
+      };
+      await Promise.all(Array.from({ length: CLIENTS }, (_, i) => client(i)));
       const loadS = (performance.now() - loadT0) / 1000;
       const finishedDuringLoad = state === "succeeded";
-      process.stderr.write(`server-load: the floor, the same load without a token, the readout ${state} …\n`);
-      const floor: Answer[] = [];
-      await load(floor, false);
       // The readout's own end, within the same bound, to say whether it finished at all.
       const readoutUntil = Date.now() + LOAD_WITHIN_MS;
       while (Number.isNaN(readoutWallS) && Date.now() < readoutUntil)
@@ -204,7 +192,7 @@ export default async function bench(): Promise<BenchRow[]> {
       watching.on = false;
       await watcher;
       const final = await readoutRow();
-      return rows(answers, floor, { loadS, finishedDuringLoad, readoutWallS, final });
+      return rows(answers, { loadS, finishedDuringLoad, readoutWallS, final });
     } finally {
       agent.destroy();
       server.stop();
@@ -216,7 +204,6 @@ export default async function bench(): Promise<BenchRow[]> {
 
 function rows(
   answers: Answer[],
-  floor: Answer[],
   o: {
     loadS: number;
     finishedDuringLoad: boolean;
@@ -264,18 +251,6 @@ function rows(
       unit: "",
       target: "1",
       note: `${o.final?.status ?? "missing"} after ${o.readoutWallS.toFixed(1)} s; λ ${o.final?.wavelengthUm?.toFixed(3)} µm vs ${expectedUm.toFixed(3)} expected`,
-    },
-    {
-      name: name("floor: p95 of 401s without a token, readout running"),
-      value: quantile(times(floor.filter((a) => a.duringReadout)), 0.95),
-      unit: "ms",
-      note: `${floor.filter((a) => a.duringReadout).length} of ${floor.length} answers; p50 ${quantile(times(floor.filter((a) => a.duringReadout)), 0.5).toFixed(1)} ms; the same URLs answered before any database read`,
-    },
-    {
-      name: name("floor: answers other than 401"),
-      value: floor.filter((a) => a.status !== 401).length,
-      unit: `of ${floor.length}`,
-      target: "0",
     },
     ...endpointNames.map((e) => {
       const t = times(answers.filter((a) => a.endpoint === e));
