@@ -27,6 +27,12 @@ export class Fit extends Model<InferAttributes<Fit>, InferCreationAttributes<Fit
   declare inputSha256: string;
   declare result: CreationOptional<Record<string, unknown> | null>;
   declare error: CreationOptional<string | null>;
+  /**
+   * What lists show of the fit (lib/server/fits/fits.ts, fitSummaryOf): kinetics, conditions and
+   * data count from its creation, best model and verdict once it succeeds; null for fits made
+   * before this column.
+   */
+  declare summary: CreationOptional<Record<string, unknown> | null>;
   declare softwareVersion: string;
   declare rerunOf: string | null;
   /** The fit whose filled-in builder this one was changed from ("Change and re-run"). */
@@ -51,6 +57,7 @@ export function initFit(sequelize: Sequelize) {
       inputSha256: { type: DataTypes.STRING(64), allowNull: false },
       result: { type: DataTypes.JSON },
       error: { type: DataTypes.TEXT },
+      summary: { type: DataTypes.JSON },
       softwareVersion: { type: DataTypes.STRING(40), allowNull: false },
       rerunOf: { type: DataTypes.UUID },
       changedFrom: { type: DataTypes.UUID },

@@ -34,6 +34,11 @@ export class Readout extends Model<InferAttributes<Readout>, InferCreationAttrib
   declare softwareVersion: string;
   /** Object keys of derived products: spectrum JSON, preview and FFT PNGs. */
   declare derivedKeys: CreationOptional<Record<string, string> | null>;
+  /**
+   * What lists show of the result (lib/server/readouts/result.ts, headlineOf), written with it;
+   * null until it succeeds, and for readouts finished before this column.
+   */
+  declare headline: CreationOptional<Record<string, unknown> | null>;
   declare createdBy: string | null;
   declare createdAt: CreationOptional<Date>;
 }
@@ -59,6 +64,7 @@ export function initReadout(sequelize: Sequelize) {
       inputSha256: { type: DataTypes.STRING(64), allowNull: false },
       softwareVersion: { type: DataTypes.STRING(40), allowNull: false },
       derivedKeys: { type: DataTypes.JSON },
+      headline: { type: DataTypes.JSON },
       createdBy: { type: DataTypes.UUID },
       createdAt: DataTypes.DATE,
     },

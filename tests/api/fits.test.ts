@@ -45,6 +45,35 @@ describe("fitting", () => {
     expect(m.predictions[0].elasticities.map((e) => e.name)).toContain("gamma");
   });
 
+  it("the fits list shows the fit's kinetics, conditions, data, best kinetics and verdict, also for a fit made before its stored summary", async () => {
+    const listed = async () => {
+      const r = await api("GET", FITS, { query: "pageSize=200" });
+      const items = ((await r.res.json()) as { items: { id: string }[] }).items;
+      return items.find((f) => f.id === first.id);
+    };
+    // The round trip (tests/support/fits.ts): Schnakenberg alone, two measurements per condition.
+    const verdict = first.result!.models[0].fit.verdict;
+    const expected = {
+      kinetics: ["Schnakenberg"],
+      conditions: ["control", "inhibitor"],
+      n: 4,
+      best: "Schnakenberg",
+      verdict,
+    };
+    expect(verdict).toBe("fits");
+    expect(await listed()).toMatchObject(expected);
+    const m = await database();
+    const stored = (await m.Fit.findByPk(first.id))!.summary;
+    expect(stored).toEqual(expected);
+    // A fit made before the summary column has none: the list reads its spec, provenance and result.
+    await m.Fit.update({ summary: null }, { where: { id: first.id } });
+    try {
+      expect(await listed()).toMatchObject(expected);
+    } finally {
+      await m.Fit.update({ summary: stored }, { where: { id: first.id } });
+    }
+  });
+
   it("records provenance: kinetics and its source, settings, software version, input hash, and the runner", () => {
     expect(first.status).toBe("succeeded");
     expect(first.softwareVersion).toBe(`morphokin ${packageJson.version}`);

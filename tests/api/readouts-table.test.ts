@@ -4,6 +4,7 @@
  */
 import { describe, expect, it } from "vitest";
 import type { ReadoutDto } from "@/lib/server/readouts/readouts";
+import { database } from "@/lib/server/services";
 import { setupReadoutLab } from "../support/readouts";
 
 const { api, newSpecimen, uploadFile, finished } = setupReadoutLab();
@@ -30,6 +31,24 @@ describe("table readouts", () => {
     expect(s.ci95[0]).toBeCloseTo(8.726528, 4);
     expect(s.ci95[1]).toBeCloseTo(11.773472, 4);
     expect(r.headline).toMatchObject({ measure: "mean-spacing-1d", wavelengthUm: 10.25 });
+
+    // The readouts list shows the same headline: stored with the result, and for a readout finished
+    // before that column (headline null), read from its result.
+    const listed = async () => {
+      const res = await api("GET /api/v1/labs/[labId]/readouts", {}, { query: `uploadId=${up.body.id}` });
+      const items = ((await res.json()) as { items: ReadoutDto[] }).items;
+      return items.find((x) => x.id === r.id)!.headline;
+    };
+    expect(await listed()).toEqual(r.headline);
+    const m = await database();
+    const stored = (await m.Readout.findByPk(r.id))!.headline;
+    expect(stored).toEqual(r.headline);
+    await m.Readout.update({ headline: null }, { where: { id: r.id } });
+    try {
+      expect(await listed()).toEqual(r.headline);
+    } finally {
+      await m.Readout.update({ headline: stored }, { where: { id: r.id } });
+    }
   });
 
   it("2-D centroids of a square lattice: NN distance, Clark–Evans R and the hexagonal-equivalent wavelength", async () => {

@@ -20,6 +20,7 @@ import { emailsOf } from "../accounts/emails";
 import { database, services } from "../services";
 import { recordAudit } from "../audit";
 import { fitRunner } from "./process";
+import { fitSummaryOf, type FitSummary } from "./summary";
 import type { StoredFitResult } from "./result";
 import { buildFitSpec, type BuiltFit } from "./spec";
 import type { FitProvenance, StoredFitSpec } from "./spec-types";
@@ -69,6 +70,39 @@ type Row = InstanceType<Awaited<ReturnType<typeof database>>["Fit"]>;
 
 type FitAttributes = InferAttributes<Fit>;
 
+/** The columns a list reads instead of these, which hold the whole fit. */
+const FULL_ATTRIBUTES = ["spec", "provenance", "result"] as const;
+const LIST_ATTRIBUTES = [
+  "id",
+  "labId",
+  "name",
+  "kind",
+  "status",
+  "jobId",
+  "summary",
+  "error",
+  "rerunOf",
+  "createdBy",
+  "createdAt",
+] as const;
+
+/** A stored summary that says all a list shows (a succeeded fit's names its best kinetics). */
+const hasUsableSummary = (r: Partial<FitAttributes>) =>
+  !!r.summary && (r.status !== "succeeded" || (r.summary as unknown as FitSummary).best !== null);
+
+/**
+ * The stored summary of a fit, or for a fit made before that column, the same computed from its
+ * full spec, provenance and result (a list reads those only for such fits, see listFits).
+ */
+function summaryOfRow(r: Partial<FitAttributes>): FitSummary {
+  if (hasUsableSummary(r)) return r.summary as unknown as FitSummary;
+  return fitSummaryOf(
+    r.spec as unknown as StoredFitSpec,
+    r.provenance as unknown as FitProvenance,
+    r.status === "succeeded" ? (r.result as unknown as StoredFitResult | null) : null,
+  );
+}
+
 async function toSummaries(rows: FitAttributes[]): Promise<FitSummaryDto[]> {
   const m = await database();
   const jobIds = rows.filter((r) => r.jobId).map((r) => r.jobId!);
@@ -79,17 +113,14 @@ async function toSummaries(rows: FitAttributes[]): Promise<FitSummaryDto[]> {
   ]);
   const jobs = new Map(jobRows.map((j) => [j.id, j]));
   return rows.map((r) => {
-    const spec = r.spec as unknown as StoredFitSpec;
-    const prov = r.provenance as unknown as FitProvenance;
     const job = r.jobId ? jobs.get(r.jobId) : undefined;
     // A job cancelled or lost before its handler ran never touched the row: show the job's end.
     const ended =
       job &&
       (job.status === "failed" || job.status === "cancelled") &&
       (r.status === "queued" || r.status === "running");
-    const result = r.status === "succeeded" ? (r.result as unknown as StoredFitResult | null) : null;
-    const bestLabel = result ? (result.comparison?.ranking[0]?.label ?? result.models[0]?.label ?? null) : null;
-    const best = result?.models.find((x) => x.label === bestLabel) ?? null;
+    const summary = summaryOfRow(r);
+    const succeeded = r.status === "succeeded";
     return {
       id: r.id,
       name: r.name,
@@ -99,11 +130,11 @@ async function toSummaries(rows: FitAttributes[]): Promise<FitSummaryDto[]> {
       progressNote: job?.progressNote ?? null,
       error: ended ? job.error : r.error,
       jobId: r.jobId,
-      kinetics: prov.kinetics.map((k) => k.label),
-      conditions: [...new Set(spec.data.map((d) => d.condition))],
-      n: spec.data.length,
-      verdict: best?.fit.verdict ?? null,
-      best: bestLabel,
+      kinetics: summary.kinetics,
+      conditions: summary.conditions,
+      n: summary.n,
+      verdict: succeeded ? summary.verdict : null,
+      best: succeeded ? summary.best : null,
       rerunOf: r.rerunOf,
       createdBy: r.createdBy,
       createdByEmail: r.createdBy ? (emails.get(r.createdBy) ?? null) : null,
@@ -119,6 +150,8 @@ export async function listFits(
   const m = await database();
   const { rows, count } = await readPage(m.Fit, {
     where: { labId: ctx.labId, ...(q.q ? { [CONTAINS_TEXT]: { attributes: ["name"], text: q.q } } : {}) },
+    // The stored summary instead of the spec, provenance and result (tens of kB per fit).
+    attributes: LIST_ATTRIBUTES,
     order: [
       [q.sort, q.dir],
       ["createdAt", "desc"],
@@ -127,6 +160,14 @@ export async function listFits(
     limit: q.pageSize,
     offset: (q.page - 1) * q.pageSize,
   });
+  // Fits made before the summary column: their full columns, for these rows only.
+  const older = rows.filter((r) => !hasUsableSummary(r)).map((r) => r.id);
+  if (older.length) {
+    const full = new Map(
+      (await readAll(m.Fit, { where: { id: older }, attributes: ["id", ...FULL_ATTRIBUTES] })).map((f) => [f.id, f]),
+    );
+    rows.forEach((r, i) => (rows[i] = { ...r, ...full.get(r.id) }));
+  }
   return pageResult(q, await toSummaries(rows), count);
 }
 
@@ -182,6 +223,7 @@ async function queueFit(
         jobId: job.id,
         spec: built.spec as unknown as Record<string, unknown>,
         provenance: built.provenance as unknown as Record<string, unknown>,
+        summary: fitSummaryOf(built.spec, built.provenance, null) as unknown as Record<string, unknown>,
         inputSha256: built.inputSha256,
         softwareVersion: SOFTWARE_VERSION,
         rerunOf,

@@ -13,6 +13,7 @@ import { AppError } from "../errors";
 import { database } from "../services";
 import { fitModel, fitRunner } from "./process";
 import { predictAtFit } from "./predictions";
+import { fitSummaryOf } from "./summary";
 import type { FittedModelResult, StoredFitResult } from "./result";
 import type { FitProvenance, StoredFitSpec } from "./spec-types";
 import { JobCancelledError, type JobHandler } from "../jobs/types";
@@ -67,7 +68,12 @@ export const runFitJob: JobHandler = async (job, ctx) => {
     // JSON round trip first, so what is stored is exactly what is returned (∞ → null as in JSON).
     const stored = JSON.parse(JSON.stringify(result)) as Record<string, unknown>;
     const [updated] = await m.Fit.update(
-      { status: "succeeded", result: stored, error: null },
+      {
+        status: "succeeded",
+        result: stored,
+        summary: fitSummaryOf(spec, prov, stored as unknown as StoredFitResult) as unknown as Record<string, unknown>,
+        error: null,
+      },
       { where: { id: row.id, status: "running" } },
     );
     if (updated === 0) throw new AppError("not_found", GONE);

@@ -89,6 +89,7 @@ export const runReadoutJob: JobHandler = async (job, ctx) => {
         wavelengthUm: h.wavelengthUm,
         uncertaintyUm: h.uncertaintyUm,
         periodFound: h.periodFound,
+        headline: h as unknown as Record<string, unknown>,
         derivedKeys,
         error: null,
       },

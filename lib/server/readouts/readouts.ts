@@ -64,6 +64,18 @@ export interface ReadoutDetailDto extends ReadoutDto {
 
 type Row = InstanceType<Awaited<ReturnType<typeof database>>["Readout"]>;
 
+/** The columns a list reads instead of these, which hold the whole result and its files. */
+const FULL_ATTRIBUTES = ["result", "derivedKeys"] as const;
+
+/**
+ * A succeeded readout's headline: stored beside the result, or for a readout finished before that
+ * column, computed from the result (a list reads it only for such readouts, see listReadouts).
+ */
+function headlineOfRow(r: Partial<InferAttributes<Readout>>): ReadoutHeadline | null {
+  if (r.headline) return r.headline as unknown as ReadoutHeadline;
+  return r.result ? headlineOf(r.result as unknown as ReadoutResult) : null;
+}
+
 async function toDtos(rows: InferAttributes<Readout>[]): Promise<ReadoutDto[]> {
   const m = await database();
   const jobIds = rows.filter((r) => r.jobId && (r.status === "queued" || r.status === "running")).map((r) => r.jobId!);
@@ -99,7 +111,7 @@ async function toDtos(rows: InferAttributes<Readout>[]): Promise<ReadoutDto[]> {
       pixelSizeSource: settings.pixelSizeSource ?? null,
       softwareVersion: r.softwareVersion,
       inputSha256: r.inputSha256,
-      headline: r.status === "succeeded" && r.result ? headlineOf(r.result as unknown as ReadoutResult) : null,
+      headline: r.status === "succeeded" ? headlineOfRow(r) : null,
       createdBy: r.createdBy,
       createdByEmail: r.createdBy ? (emails.get(r.createdBy) ?? null) : null,
       createdAt: r.createdAt.toISOString(),
@@ -137,6 +149,10 @@ export async function listReadouts(
   }
   const { rows, count } = await readPage(m.Readout, {
     where,
+    // The stored headline instead of the whole result.
+    attributes: Object.keys(m.Readout.getAttributes()).filter(
+      (a) => !(FULL_ATTRIBUTES as readonly string[]).includes(a),
+    ),
     order: [
       [q.sort, q.dir],
       ["createdAt", "desc"],
@@ -145,6 +161,14 @@ export async function listReadouts(
     limit: q.pageSize,
     offset: (q.page - 1) * q.pageSize,
   });
+  // Readouts finished before the headline column: their results, for these rows only.
+  const older = rows.filter((r) => r.status === "succeeded" && !r.headline).map((r) => r.id);
+  if (older.length) {
+    const full = new Map(
+      (await readAll(m.Readout, { where: { id: older }, attributes: ["id", "result"] })).map((r) => [r.id, r]),
+    );
+    rows.forEach((r, i) => (rows[i] = { ...r, ...full.get(r.id) }));
+  }
   return pageResult(q, await toDtos(rows), count);
 }
 
