@@ -242,6 +242,31 @@ function selectRows(model: ModelStatic<Model>, o: ReadOptions, extra: string) {
   );
 }
 
+/** Every attribute of `model` but `except`: for a list that leaves out the columns holding a whole object. */
+export function attributesExcept(model: ModelStatic<Model>, except: readonly string[]): string[] {
+  return columnsOf(model)
+    .map((c) => c.attribute)
+    .filter((a) => !except.includes(a));
+}
+
+/**
+ * `rows` read without the `attributes` columns, with them added (one query) to the rows `needs`
+ * picks: a list reads a stored summary, and only rows written before it had one read the whole.
+ */
+export async function withColumns<M extends Model>(
+  model: ModelStatic<M>,
+  rows: Attributes<M>[],
+  needs: (row: Attributes<M>) => boolean,
+  attributes: readonly string[],
+): Promise<Attributes<M>[]> {
+  const idOf = (row: unknown) => (row as { id: string }).id;
+  const ids = rows.filter(needs).map(idOf);
+  if (!ids.length) return rows;
+  const read = await readAll(model, { where: { id: ids }, attributes: ["id", ...attributes] });
+  const full = new Map(read.map((row) => [idOf(row), row]));
+  return rows.map((row) => ({ ...row, ...full.get(idOf(row)) }));
+}
+
 /** Like `model.findOne`: the first row or null. */
 export async function readOne<M extends Model>(
   model: ModelStatic<M>,

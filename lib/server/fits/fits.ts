@@ -15,7 +15,7 @@ import { authorize, isUuid, readInLab, type LabContext } from "../access";
 import { AppError, notFound } from "../errors";
 import { enqueueJob } from "../jobs/queue";
 import { type ListQuery, type ListResult, pageResult } from "../web/list";
-import { CONTAINS_TEXT, readAll, readOne, readPage } from "../db-read";
+import { attributesExcept, CONTAINS_TEXT, readAll, readOne, readPage, withColumns } from "../db-read";
 import { emailsOf } from "../accounts/emails";
 import { database, services } from "../services";
 import { recordAudit } from "../audit";
@@ -72,20 +72,6 @@ type FitAttributes = InferAttributes<Fit>;
 
 /** The columns a list reads instead of these, which hold the whole fit. */
 const FULL_ATTRIBUTES = ["spec", "provenance", "result"] as const;
-const LIST_ATTRIBUTES = [
-  "id",
-  "labId",
-  "name",
-  "kind",
-  "status",
-  "jobId",
-  "summary",
-  "error",
-  "rerunOf",
-  "createdBy",
-  "createdAt",
-] as const;
-
 /** A stored summary that says all a list shows (a succeeded fit's names its best kinetics). */
 const hasUsableSummary = (r: Partial<FitAttributes>) =>
   !!r.summary && (r.status !== "succeeded" || (r.summary as unknown as FitSummary).best !== null);
@@ -151,7 +137,7 @@ export async function listFits(
   const { rows, count } = await readPage(m.Fit, {
     where: { labId: ctx.labId, ...(q.q ? { [CONTAINS_TEXT]: { attributes: ["name"], text: q.q } } : {}) },
     // The stored summary instead of the spec, provenance and result (tens of kB per fit).
-    attributes: LIST_ATTRIBUTES,
+    attributes: attributesExcept(m.Fit, FULL_ATTRIBUTES),
     order: [
       [q.sort, q.dir],
       ["createdAt", "desc"],
@@ -161,14 +147,8 @@ export async function listFits(
     offset: (q.page - 1) * q.pageSize,
   });
   // Fits made before the summary column: their full columns, for these rows only.
-  const older = rows.filter((r) => !hasUsableSummary(r)).map((r) => r.id);
-  if (older.length) {
-    const full = new Map(
-      (await readAll(m.Fit, { where: { id: older }, attributes: ["id", ...FULL_ATTRIBUTES] })).map((f) => [f.id, f]),
-    );
-    rows.forEach((r, i) => (rows[i] = { ...r, ...full.get(r.id) }));
-  }
-  return pageResult(q, await toSummaries(rows), count);
+  const full = await withColumns(m.Fit, rows, (r) => !hasUsableSummary(r), FULL_ATTRIBUTES);
+  return pageResult(q, await toSummaries(full), count);
 }
 
 export async function findFit(ctx: LabContext, fitId: string): Promise<Row> {

@@ -17,7 +17,7 @@ import { authorize, readInLab, type LabContext } from "../access";
 import { AppError, notFound } from "../errors";
 import { enqueueJob } from "../jobs/queue";
 import { type ListQuery, type ListResult, pageResult } from "../web/list";
-import { CONTAINS_TEXT, readAll, readOne, readPage, type ReadWhere } from "../db-read";
+import { attributesExcept, CONTAINS_TEXT, readAll, readOne, readPage, withColumns, type ReadWhere } from "../db-read";
 import { emailsOf } from "../accounts/emails";
 import { database, services } from "../services";
 import { headlineOf, type ReadoutHeadline, type ReadoutResult } from "./result";
@@ -150,9 +150,7 @@ export async function listReadouts(
   const { rows, count } = await readPage(m.Readout, {
     where,
     // The stored headline instead of the whole result.
-    attributes: Object.keys(m.Readout.getAttributes()).filter(
-      (a) => !(FULL_ATTRIBUTES as readonly string[]).includes(a),
-    ),
+    attributes: attributesExcept(m.Readout, FULL_ATTRIBUTES),
     order: [
       [q.sort, q.dir],
       ["createdAt", "desc"],
@@ -162,14 +160,8 @@ export async function listReadouts(
     offset: (q.page - 1) * q.pageSize,
   });
   // Readouts finished before the headline column: their results, for these rows only.
-  const older = rows.filter((r) => r.status === "succeeded" && !r.headline).map((r) => r.id);
-  if (older.length) {
-    const full = new Map(
-      (await readAll(m.Readout, { where: { id: older }, attributes: ["id", "result"] })).map((r) => [r.id, r]),
-    );
-    rows.forEach((r, i) => (rows[i] = { ...r, ...full.get(r.id) }));
-  }
-  return pageResult(q, await toDtos(rows), count);
+  const full = await withColumns(m.Readout, rows, (r) => r.status === "succeeded" && !r.headline, ["result"]);
+  return pageResult(q, await toDtos(full), count);
 }
 
 async function findReadout(ctx: LabContext, readoutId: string): Promise<Row> {
