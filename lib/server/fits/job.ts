@@ -67,23 +67,14 @@ export const runFitJob: JobHandler = async (job, ctx) => {
     const result: StoredFitResult = { models, comparison, runner: fitRunner(), elapsedMs: Date.now() - t0 };
     // JSON round trip first, so what is stored is exactly what is returned (∞ → null as in JSON).
     const stored = JSON.parse(JSON.stringify(result)) as Record<string, unknown>;
+    // The list's summary, also the job's own answer: one place picks the best kinetics and its verdict.
+    const summary = fitSummaryOf(spec, prov, stored as unknown as StoredFitResult);
     const [updated] = await m.Fit.update(
-      {
-        status: "succeeded",
-        result: stored,
-        summary: fitSummaryOf(spec, prov, stored as unknown as StoredFitResult) as unknown as Record<string, unknown>,
-        error: null,
-      },
+      { status: "succeeded", result: stored, summary: summary as unknown as Record<string, unknown>, error: null },
       { where: { id: row.id, status: "running" } },
     );
     if (updated === 0) throw new AppError("not_found", GONE);
-    const best = comparison?.ranking[0]?.label ?? models[0].label;
-    return {
-      fitId: row.id,
-      best,
-      verdict: models.find((x) => x.label === best)!.fit.verdict,
-      elapsedMs: result.elapsedMs,
-    };
+    return { fitId: row.id, best: summary.best, verdict: summary.verdict, elapsedMs: result.elapsedMs };
   } catch (err) {
     if (ticker) clearInterval(ticker);
     const cancelled = err instanceof JobCancelledError || ctx.signal.aborted;
