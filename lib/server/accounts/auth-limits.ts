@@ -13,14 +13,12 @@ import {
   type LimitName,
 } from "../web/rate-limit";
 import { services } from "../services";
+import { json } from "../web/http";
 
 function limitedAnswer(code: "Locked" | "RateLimited", retryAfterS: number, message: string): Response {
   const minutes = Math.max(1, Math.ceil(retryAfterS / 60));
   const url = `${services().config.appUrl.replace(/\/$/, "")}/login?error=${code}:${minutes}`;
-  return Response.json(
-    { url, error: { code: "rate_limited", message } },
-    { status: 429, headers: { "retry-after": String(retryAfterS), "cache-control": "no-store" } },
-  );
+  return json({ url, error: { code: "rate_limited", message } }, 429, { "retry-after": String(retryAfterS) });
 }
 
 async function emailOf(request: Request): Promise<string | null> {

@@ -27,14 +27,14 @@ export function errorResponse(err: unknown): Response {
     // The message names its field in the form's words; `details.field` keeps the JSON name for the forms.
     const field = (app.details as { field?: unknown } | undefined)?.field;
     const message = typeof field === "string" ? renameFieldInMessage(field, app.message) : app.message;
-    return jsonAnswer(
+    return json(
       { error: { code: app.code, message, ...(app.details ? { details: app.details } : {}) } },
       app.status,
       headers,
     );
   }
   console.error(err);
-  return jsonAnswer(
+  return json(
     { error: { code: "internal", message: "something went wrong on the server; the error was logged" } },
     500,
   );
@@ -200,13 +200,9 @@ export const GZIP_JSON_FROM_BYTES = 14_600;
  * than GZIP_JSON_FROM_BYTES also says `no-transform` (RFC 9111 §5.2.2.6), which keeps Next's
  * compression from gzipping it: Next drops a route answer's Content-Length, so the compression's
  * own threshold (1 KiB) never applies and every answer, even one of 300 bytes, would be gzipped.
+ * `headers` adds others (an error's Retry-After).
  */
-export function json(data: unknown, status = 200): Response {
-  return jsonAnswer(data, status);
-}
-
-/** json() with more headers (an error's Retry-After). */
-function jsonAnswer(data: unknown, status: number, headers: Record<string, string> = {}): Response {
+export function json(data: unknown, status = 200, headers: Record<string, string> = {}): Response {
   const body = JSON.stringify(data);
   const small = Buffer.byteLength(body) < GZIP_JSON_FROM_BYTES;
   return new Response(body, {
