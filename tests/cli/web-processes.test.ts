@@ -30,7 +30,7 @@ describe("how many web processes", () => {
   });
 
   it("starts each copy with a young generation sized for many requests in flight", () => {
-    // Measured in issue "Speed" (the server under load); V8's flag, semi-space size in MB.
+    // A design choice measured in issue "Speed" (the server under load), no outside source; V8's flag, in MB.
     expect(COPY_NODE_FLAGS).toEqual(["--max-semi-space-size=64"]);
   });
 });
