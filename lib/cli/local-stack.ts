@@ -116,7 +116,7 @@ export function nextBin(): string {
 /**
  * Node's arguments for the production server as `npm start` runs it: lib/cli/web-processes.ts
  * (TypeScript, with the react-server condition of the other lib/cli entries) on 127.0.0.1:`port`;
- * `extra` goes on to each `next start`.
+ * `extra` goes on to each `next start`, except Node's `--cpu-prof…` flags, which go to each copy's Node.
  */
 export function webProcessesArgs(port: string, extra: string[] = []): string[] {
   return [

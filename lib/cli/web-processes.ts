@@ -47,14 +47,23 @@ export const COPY_NODE_FLAGS = ["--max-semi-space-size=64"];
 /** A copy that stops unasked more often than this (ms) is not started again: something is wrong. */
 const RESTART_AT_MOST_EVERY_MS = 5000;
 
+/**
+ * The launcher's arguments split: Node's `--cpu-prof…` flags go to each copy's Node (each writes
+ * its own profile, named by its process id), the rest (-H host -p port) to `next start`.
+ */
+export function splitArgs(args: readonly string[]): { nodeFlags: string[]; nextArgs: string[] } {
+  const isNodeFlag = (a: string) => a === "--cpu-prof" || a.startsWith("--cpu-prof-");
+  return { nodeFlags: args.filter(isNodeFlag), nextArgs: args.filter((a) => !isNodeFlag(a)) };
+}
+
 function main() {
-  const args = process.argv.slice(2); // -H host -p port, as for `next start`
+  const { nodeFlags, nextArgs: args } = splitArgs(process.argv.slice(2)); // -H host -p port, as for `next start`
   const config = parseConfig(process.env);
   const count = webProcessCount(config.webProcesses);
   cluster.setupPrimary({
     exec: nextBin(),
     args: ["start", ...args],
-    execArgv: COPY_NODE_FLAGS, // Next's own server with these flags, without this launcher's TypeScript loader or conditions
+    execArgv: [...COPY_NODE_FLAGS, ...nodeFlags], // Next's own server with these flags, without this launcher's TypeScript loader or conditions
   });
   /** Set once the server stops: the exit code of the primary when the last copy has gone. */
   let stopping: number | null = null;

@@ -17,7 +17,12 @@ export async function startServer(stack: TestStack, env: Record<string, string> 
   const child = spawn(
     process.execPath,
     // BENCH_SERVER_CPU_PROF=1: each web process writes its V8 CPU profile to .next-profiles/ when it stops.
-    webProcessesArgs(String(port), process.env.BENCH_SERVER_CPU_PROF ? ["--experimental-cpu-prof"] : []),
+    // (Node's own flag, not `next start --experimental-cpu-prof`: that names its file by the second, so
+    // the copies, stopped together, overwrote each other's.)
+    webProcessesArgs(
+      String(port),
+      process.env.BENCH_SERVER_CPU_PROF ? ["--cpu-prof", `--cpu-prof-dir=${path.join(ROOT, ".next-profiles")}`] : [],
+    ),
     {
       cwd: ROOT,
       stdio: ["ignore", "ignore", "inherit"],

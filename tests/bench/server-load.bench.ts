@@ -10,8 +10,10 @@
  * The same load runs once untimed before the image is uploaded (a warm-up: Next loads a route's
  * code at its first request, V8 optimises hot functions after many calls).
  * BENCH_LOAD_CLIENTS and BENCH_LOAD_ROUNDS change the counts (defaults 50 and 4).
+ * BENCH_LOAD_ANSWERS=<file> writes every timed answer there (JSON: when it was sent after the
+ * load's start, its time, client, endpoint and status), to see when and where the slow ones were.
  */
-import { existsSync } from "node:fs";
+import { existsSync, writeFileSync } from "node:fs";
 import http from "node:http";
 import path from "node:path";
 import type { BenchRow } from "./run";
@@ -35,6 +37,10 @@ const TARGET_P95_MS = 100;
 const ROOT = path.resolve(import.meta.dirname, "../..");
 
 interface Answer {
+  /** The client that sent it (0 … CLIENTS − 1). */
+  client: number;
+  /** When it was sent, ms after the load's start (NaN when not sent within the bound). */
+  sentMs: number;
   endpoint: string;
   status: number;
   ms: number;
@@ -163,7 +169,7 @@ export default async function bench(): Promise<BenchRow[]> {
         for (let k = 0; k < ROUNDS * mine.length; k++) {
           const [endpoint, url] = mine[(i + k) % mine.length]; // clients start on different endpoints
           if (Date.now() > deadline) {
-            answers.push({ endpoint, status: 0, ms: NaN, duringReadout: false });
+            answers.push({ client: i, sentMs: NaN, endpoint, status: 0, ms: NaN, duringReadout: false });
             continue;
           }
           const runningBefore = state === "running";
@@ -175,6 +181,8 @@ export default async function bench(): Promise<BenchRow[]> {
             // counted below as an answer other than 2xx
           }
           answers.push({
+            client: i,
+            sentMs: t - loadT0,
             endpoint,
             status,
             ms: performance.now() - t,
@@ -184,6 +192,7 @@ export default async function bench(): Promise<BenchRow[]> {
       };
       await Promise.all(Array.from({ length: CLIENTS }, (_, i) => client(i)));
       const loadS = (performance.now() - loadT0) / 1000;
+      if (process.env.BENCH_LOAD_ANSWERS) writeFileSync(process.env.BENCH_LOAD_ANSWERS, JSON.stringify(answers));
       const finishedDuringLoad = state === "succeeded";
       // The readout's own end, within the same bound, to say whether it finished at all.
       const readoutUntil = Date.now() + LOAD_WITHIN_MS;
@@ -219,6 +228,10 @@ function rows(
       .sort((a, b) => a - b);
   const all = times(answers);
   const during = times(answers.filter((a) => a.duringReadout));
+  const clientMedians = [...new Set(answers.map((a) => a.client))]
+    .map((c) => quantile(times(answers.filter((a) => a.client === c)), 0.5))
+    .filter((m) => !Number.isNaN(m))
+    .sort((a, b) => a - b);
   const target = `< ${TARGET_P95_MS} ms`;
   const endpointNames = [...new Set(answers.map((a) => a.endpoint))];
   const expectedUm = (Math.sqrt(3) / 2) * 24 * 0.5; // hexagonal lattice, SCIENCE.md §5 (λ = √3/2 · spacing)
@@ -226,6 +239,15 @@ function rows(
     { name: name("p50 answer time"), value: quantile(all, 0.5), unit: "ms" },
     { name: name("p95 answer time"), value: quantile(all, 0.95), unit: "ms", target },
     { name: name("slowest answer"), value: all.at(-1) ?? NaN, unit: "ms" },
+    {
+      // A client's next request nearly always goes out on the connection that just answered (the
+      // agent hands back the socket freed last), so one web process serves it throughout: a wide
+      // gap here is one process carrying more clients than the other.
+      name: name("median answer time of the slowest client"),
+      value: clientMedians.at(-1) ?? NaN,
+      unit: "ms",
+      note: `fastest client's ${clientMedians[0]?.toFixed(1)} ms`,
+    },
     {
       name: name("answers other than 2xx (incl. none)"),
       value: answers.filter((a) => a.status < 200 || a.status > 299).length,

@@ -5,7 +5,7 @@
  * app this way on the CI machine's 2 cores.
  */
 import { afterEach, describe, expect, it, vi } from "vitest";
-import { COPY_NODE_FLAGS, copyEnv, webProcessCount } from "@/lib/cli/web-processes";
+import { COPY_NODE_FLAGS, copyEnv, splitArgs, webProcessCount } from "@/lib/cli/web-processes";
 import { parseConfig } from "@/lib/server/config";
 
 describe("how many web processes", () => {
@@ -27,6 +27,15 @@ describe("how many web processes", () => {
     expect(copyEnv(0, true)).toEqual({ MORPHOKIN_WEB_PROCESS: "0", JOBS_IN_WEB: "1" });
     expect(copyEnv(1, true)).toEqual({ MORPHOKIN_WEB_PROCESS: "1", JOBS_IN_WEB: "0" });
     expect(copyEnv(0, false)).toEqual({ MORPHOKIN_WEB_PROCESS: "0", JOBS_IN_WEB: "0" });
+  });
+
+  it("gives Node's CPU-profile flags to each copy's Node and the rest to next start", () => {
+    // Each copy then writes its own profile (Node names it by process id); design choice, no outside source.
+    expect(splitArgs(["-H", "127.0.0.1", "-p", "3000", "--cpu-prof", "--cpu-prof-dir=/tmp/p"])).toEqual({
+      nodeFlags: ["--cpu-prof", "--cpu-prof-dir=/tmp/p"],
+      nextArgs: ["-H", "127.0.0.1", "-p", "3000"],
+    });
+    expect(splitArgs(["-p", "3000"])).toEqual({ nodeFlags: [], nextArgs: ["-p", "3000"] });
   });
 
   it("starts each copy with a young generation sized for many requests in flight", () => {
