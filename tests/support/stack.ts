@@ -2,6 +2,7 @@
  * A real, isolated back end for API tests: SQLite in a temp folder, the fake S3 server and the
  * fake SMTP server on free ports, wired in through the composition root.
  */
+import { spawn } from "node:child_process";
 import { mkdtempSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
@@ -71,10 +72,63 @@ async function startFakes(dir: string, attempts = 5) {
   }
 }
 
-/** `database`: "sqlite" forces the SQLite file even in the postgres project (e.g. as a copy's source). */
-export async function startTestStack(options: { database?: "sqlite" } = {}): Promise<TestStack> {
+const ROOT = path.resolve(import.meta.dirname, "../..");
+
+/**
+ * The same fakes as startFakes, run by fake-services/run.ts in a process of their own (as `npm start`
+ * runs them), for a measurement whose clients share this process: the fake object store hashing
+ * and streaming a 32 MB image would otherwise hold the clients' event loop, and time its work as theirs.
+ */
+async function startFakesInChild(dir: string, attempts = 5) {
+  for (let attempt = 1; ; attempt++) {
+    const [s3Port, smtpPort, httpPort] = [await freePort(), await freePort(), await freePort()];
+    const child = spawn(process.execPath, ["--import", "tsx", path.join(ROOT, "fake-services/run.ts")], {
+      cwd: ROOT,
+      stdio: ["ignore", "pipe", "pipe"],
+      env: {
+        ...process.env,
+        NODE_OPTIONS: "",
+        MORPHOKIN_DATA_DIR: dir,
+        S3_ENDPOINT: `http://127.0.0.1:${s3Port}`,
+        S3_BUCKET: "morphokin-test",
+        SMTP_URL: `smtp://127.0.0.1:${smtpPort}`,
+        DEV_MAILBOX_URL: `http://127.0.0.1:${httpPort}`,
+      },
+    });
+    let output = "";
+    const ready = await new Promise<boolean>((resolve) => {
+      const seen = (chunk: Buffer) => {
+        output += chunk.toString();
+        if (output.includes("fake services ready")) resolve(true);
+      };
+      child.stdout.on("data", seen);
+      child.stderr.on("data", seen);
+      child.on("exit", () => resolve(false));
+    });
+    if (ready) {
+      const exited = new Promise<void>((resolve) => child.on("exit", () => resolve()));
+      const close = async () => {
+        if (child.exitCode === null) child.kill("SIGTERM");
+        await exited;
+      };
+      return { s3: { close }, smtp: { close }, s3Port, smtpPort, httpPort };
+    }
+    if (!output.includes("EADDRINUSE") || attempt >= attempts)
+      throw new Error(`the fake services did not start: ${output.trim().slice(-500)}`);
+  }
+}
+
+export interface TestStackOptions {
+  /** "sqlite" forces the SQLite file even in the postgres project (e.g. as a copy's source). */
+  database?: "sqlite";
+  /** "child-process": the fakes in a process of their own (startFakesInChild); else in this one. */
+  fakes?: "in-process" | "child-process";
+}
+
+export async function startTestStack(options: TestStackOptions = {}): Promise<TestStack> {
   const dir = mkdtempSync(path.join(tmpdir(), "morphokin-test-"));
-  const { s3, smtp, s3Port, smtpPort, httpPort } = await startFakes(dir);
+  const { s3, smtp, s3Port, smtpPort, httpPort } =
+    options.fakes === "child-process" ? await startFakesInChild(dir) : await startFakes(dir);
   // MORPHOKIN_TEST_DB=postgres: a database of its own on the run's test server (tests/support/postgres.ts).
   const onPostgres = process.env.MORPHOKIN_TEST_DB === "postgres" && options.database !== "sqlite";
   const pgDatabase = onPostgres ? await createTestDatabase() : null;
