@@ -37,6 +37,15 @@ export interface Database {
    * — a tenth of a web process's CPU under load. PostgreSQL: through `sequelize.query`.
    */
   select(sql: string, bind: unknown[]): Promise<Record<string, unknown>[]>;
+  /**
+   * A mark that changes whenever anything was written to the database since it was last read, by
+   * any connection of any process; null where the database has no such mark (PostgreSQL).
+   * SQLite: `PRAGMA data_version` counts the commits of every other connection (other processes,
+   * and this process's transactions, each on a connection of its own) as seen from the default
+   * connection, and `total_changes()` the rows that connection itself changed (SQLite docs,
+   * pragma.html#pragma_data_version and lang_corefunc.html#total_changes).
+   */
+  changeMark(): Promise<string | null>;
 }
 
 /** How long a write waits for its turn in the write queue before a 503 (ms), unless configured. */
@@ -191,7 +200,7 @@ function createPostgres(url: string, options: Options): Database {
   })();
   const select = (sql: string, bind: unknown[]) =>
     sequelize.query<Record<string, unknown>>(sql, { bind, type: QueryTypes.SELECT, raw: true });
-  return { sequelize, models, ready, writeQueue: null, select };
+  return { sequelize, models, ready, writeQueue: null, select, changeMark: async () => null };
 }
 
 function createSqlite(storage: string, options: Options): Database {
@@ -233,5 +242,9 @@ function createSqlite(storage: string, options: Options): Database {
       throw Object.assign(new Error(`${err.message} (in ${sql.slice(0, 200)})`), { cause: err });
     });
   };
-  return { sequelize, models, ready, writeQueue, select };
+  const changeMark = async () => {
+    const [row] = await select("SELECT (SELECT data_version FROM pragma_data_version) AS v, total_changes() AS t", []);
+    return `${row.v}.${row.t}`;
+  };
+  return { sequelize, models, ready, writeQueue, select, changeMark };
 }

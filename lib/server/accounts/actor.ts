@@ -36,14 +36,18 @@ export interface TokenMembership {
   labName: string;
 }
 
+/** A token's actor, its membership of the lab asked about, and when the token expires (null: never). */
+export interface TokenActor {
+  actor: Actor;
+  membership: TokenMembership | null;
+  expiresAt: Date | null;
+}
+
 /**
  * The token's actor, and with `labId` its membership of that lab (null when not a member), in one
  * SELECT: every API request with a token starts here.
  */
-async function actorFromToken(
-  secret: string,
-  labId: string | null = null,
-): Promise<{ actor: Actor; membership: TokenMembership | null } | null> {
+async function actorFromToken(secret: string, labId: string | null = null): Promise<TokenActor | null> {
   const m = await database();
   const lab = labId
     ? {
@@ -84,7 +88,11 @@ async function actorFromToken(
     row["ms.role"] != null && row["ms.labName"] != null
       ? { role: row["ms.role"] as Role, labName: row["ms.labName"] as string }
       : null;
-  return { actor: { userId: user.id, email: user.email, name: user.name, via: "token" }, membership };
+  return {
+    actor: { userId: user.id, email: user.email, name: user.name, via: "token" },
+    membership,
+    expiresAt: token.expiresAt,
+  };
 }
 
 /** The token of a `Bearer` header, or null without an Authorization header. */
@@ -100,10 +108,7 @@ function bearerSecret(request?: Request): string | null {
  * For a request with a token: its actor and membership of `labId` (null for a lab id that is not a
  * UUID or a lab the actor is not in), with the same 401s as `requireActor`. Null without a token.
  */
-export async function tokenActorInLab(
-  request: Request,
-  labId: string | null,
-): Promise<{ actor: Actor; membership: TokenMembership | null } | null> {
+export async function tokenActorInLab(request: Request, labId: string | null): Promise<TokenActor | null> {
   const secret = bearerSecret(request);
   if (secret === null) return null;
   const found = await actorFromToken(secret, labId);

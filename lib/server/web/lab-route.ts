@@ -8,6 +8,10 @@ import type { Action } from "@/lib/access/permissions";
 import { authorize, isUuid, requireLab, type LabContext } from "../access";
 import { requireActor, tokenActorInLab, type Actor } from "../accounts/actor";
 import { notFound } from "../errors";
+import type { Database } from "../db";
+import { sha256Hex } from "../secrets";
+import { services } from "../services";
+import { AnswerCache } from "./answer-cache";
 import { route } from "./http";
 
 export function labRoute<P extends { labId: string }>(
@@ -16,9 +20,47 @@ export function labRoute<P extends { labId: string }>(
 ) {
   return route<P>(async (request, { params }) => {
     const p = await params;
-    const ctx = await requireLabOf(request, p.labId);
+    const { ctx } = await requireLabOf(request, p.labId);
     authorize(ctx, action);
     return fn(ctx, request, p);
+  });
+}
+
+/** Each database's kept answers (a test's stack has a database of its own). */
+const answersOf = new WeakMap<Database, AnswerCache>();
+
+/** The kept answers of this process's database, for tests and the bench. */
+export function labAnswers(): AnswerCache {
+  const db = services().db;
+  let answers = answersOf.get(db);
+  if (!answers) answersOf.set(db, (answers = new AnswerCache()));
+  return answers;
+}
+
+/**
+ * labRoute for a GET of a list or a detail whose JSON answer depends only on the lab's data, the
+ * asker's role and the URL: an API script's answer is kept and given again while the database is
+ * unchanged (answer-cache.ts says exactly when). Browser sessions, and PostgreSQL (no change mark),
+ * always get a fresh answer.
+ */
+export function labReadRoute<P extends { labId: string }>(
+  action: Action,
+  fn: (ctx: LabContext, request: Request, params: P) => Promise<Response>,
+) {
+  return route<P>(async (request, { params }) => {
+    const p = await params;
+    const authorization = request.headers.get("authorization");
+    const db = services().db;
+    await db.ready;
+    const mark = authorization ? await db.changeMark() : null;
+    const make = async () => {
+      const { ctx, tokenExpiresAt } = await requireLabOf(request, p.labId);
+      authorize(ctx, action);
+      return { response: await fn(ctx, request, p), validUntil: tokenExpiresAt?.getTime() };
+    };
+    if (mark === null) return (await make()).response;
+    const url = new URL(request.url);
+    return labAnswers().answer(`${sha256Hex(authorization!)} ${url.pathname}${url.search}`, mark, make);
   });
 }
 
@@ -27,11 +69,17 @@ export function labRoute<P extends { labId: string }>(
  * (every API script's request); with a browser session, the session's actor and then the membership.
  * 401 before 404, as before: a bad token answers 401 whatever the lab id.
  */
-async function requireLabOf(request: Request, labId: string): Promise<LabContext> {
+async function requireLabOf(
+  request: Request,
+  labId: string,
+): Promise<{ ctx: LabContext; tokenExpiresAt: Date | null }> {
   const viaToken = await tokenActorInLab(request, isUuid(labId) ? labId : null);
-  if (!viaToken) return requireLab(await requireActor(request), labId);
+  if (!viaToken) return { ctx: await requireLab(await requireActor(request), labId), tokenExpiresAt: null };
   if (!viaToken.membership) throw notFound("lab");
-  return { actor: viaToken.actor, labId, labName: viaToken.membership.labName, role: viaToken.membership.role };
+  return {
+    ctx: { actor: viaToken.actor, labId, labName: viaToken.membership.labName, role: viaToken.membership.role },
+    tokenExpiresAt: viaToken.expiresAt,
+  };
 }
 
 export function userRoute<P = Record<string, never>>(

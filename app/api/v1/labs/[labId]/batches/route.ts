@@ -1,12 +1,12 @@
 import { BATCH_SORTS, createBatch, listBatches } from "@/lib/server/batches/batches";
 import { json, readJsonValue } from "@/lib/server/web/http";
-import { labRoute } from "@/lib/server/web/lab-route";
+import { labReadRoute, labRoute } from "@/lib/server/web/lab-route";
 import { parseListQuery } from "@/lib/server/web/list";
 
 export const runtime = "nodejs";
 
 /** The lab's batches, newest first, so a summary can be reopened. */
-export const GET = labRoute("upload.read", async (ctx, request) =>
+export const GET = labReadRoute("upload.read", async (ctx, request) =>
   json(await listBatches(ctx, parseListQuery(request.url, BATCH_SORTS, "createdAt", "desc"))),
 );
 

@@ -1,12 +1,12 @@
 import { labKineticsCreateSchema } from "@/lib/contracts/kinetics";
 import { createLabKinetics, LAB_KINETICS_SORTS, listLabKinetics } from "@/lib/server/kinetics/kinetics";
 import { json, readJson } from "@/lib/server/web/http";
-import { labRoute } from "@/lib/server/web/lab-route";
+import { labReadRoute, labRoute } from "@/lib/server/web/lab-route";
 import { parseListQuery } from "@/lib/server/web/list";
 
 export const runtime = "nodejs";
 
-export const GET = labRoute("lab.read", async (ctx, request) =>
+export const GET = labReadRoute("lab.read", async (ctx, request) =>
   json(await listLabKinetics(ctx, parseListQuery(request.url, LAB_KINETICS_SORTS, "updatedAt", "desc"))),
 );
 

@@ -2,7 +2,7 @@ import { z } from "zod";
 import { listReadouts, READOUT_SORTS } from "@/lib/server/readouts/readouts";
 import { AppError } from "@/lib/server/errors";
 import { json } from "@/lib/server/web/http";
-import { labRoute } from "@/lib/server/web/lab-route";
+import { labReadRoute } from "@/lib/server/web/lab-route";
 import { parseListQuery } from "@/lib/server/web/list";
 
 export const runtime = "nodejs";
@@ -13,7 +13,7 @@ const filterSchema = z.object({
 });
 
 /** Readouts of the lab, newest first; `?specimenId=` or `?uploadId=` narrows them. */
-export const GET = labRoute<{ labId: string }>("upload.read", async (ctx, request) => {
+export const GET = labReadRoute<{ labId: string }>("upload.read", async (ctx, request) => {
   const params = new URL(request.url).searchParams;
   const filter = filterSchema.safeParse({
     specimenId: params.get("specimenId") ?? undefined,

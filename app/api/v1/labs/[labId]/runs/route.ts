@@ -1,13 +1,13 @@
 import { simulationRunRequestSchema } from "@/lib/contracts/simulation-run";
 import { listRuns, RUN_SORTS, startRun } from "@/lib/server/runs/runs";
 import { json, readJson } from "@/lib/server/web/http";
-import { labRoute } from "@/lib/server/web/lab-route";
+import { labReadRoute, labRoute } from "@/lib/server/web/lab-route";
 import { parseListQuery } from "@/lib/server/web/list";
 
 export const runtime = "nodejs";
 
 /** Verification runs of the lab, newest first. */
-export const GET = labRoute<{ labId: string }>("lab.read", async (ctx, request) =>
+export const GET = labReadRoute<{ labId: string }>("lab.read", async (ctx, request) =>
   json(await listRuns(ctx, parseListQuery(request.url, RUN_SORTS, "createdAt", "desc"))),
 );
 

@@ -1,13 +1,13 @@
 import { threadCreateSchema, threadFilterSchema } from "@/lib/contracts/discussion";
 import { createThread, listThreads, THREAD_SORTS } from "@/lib/server/discussions/discussions";
 import { json, readJson } from "@/lib/server/web/http";
-import { labRoute } from "@/lib/server/web/lab-route";
+import { labReadRoute, labRoute } from "@/lib/server/web/lab-route";
 import { parseListQuery } from "@/lib/server/web/list";
 
 export const runtime = "nodejs";
 
 /** ?targetType=&targetId= : one target's threads with comments, open first. ?status=open : the lab's open discussions. */
-export const GET = labRoute("lab.read", async (ctx, request) => {
+export const GET = labReadRoute("lab.read", async (ctx, request) => {
   const p = new URL(request.url).searchParams;
   const filter = threadFilterSchema.parse({
     targetType: p.get("targetType") ?? undefined,

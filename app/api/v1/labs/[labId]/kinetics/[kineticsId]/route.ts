@@ -9,7 +9,7 @@ import {
 import { definitionInfo } from "@/lib/server/kinetics/catalogue";
 import { AppError } from "@/lib/server/errors";
 import { json, readJson } from "@/lib/server/web/http";
-import { labRoute } from "@/lib/server/web/lab-route";
+import { labReadRoute, labRoute } from "@/lib/server/web/lab-route";
 
 export const runtime = "nodejs";
 
@@ -18,7 +18,7 @@ type P = { labId: string; kineticsId: string };
 const versionQuery = z.coerce.number().int().min(1).optional();
 
 /** The kinetics and the definition of one version (`?version=N`, default the latest). */
-export const GET = labRoute<P>("lab.read", async (ctx, request, p) => {
+export const GET = labReadRoute<P>("lab.read", async (ctx, request, p) => {
   const raw = new URL(request.url).searchParams.get("version");
   const parsed = versionQuery.safeParse(raw ?? undefined);
   if (!parsed.success) throw new AppError("bad_input", "version: must be a whole number from 1");

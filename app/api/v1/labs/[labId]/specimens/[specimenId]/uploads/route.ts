@@ -1,6 +1,6 @@
 import { listUploads, UPLOAD_SORTS } from "@/lib/server/uploads/uploads";
 import { json } from "@/lib/server/web/http";
-import { labRoute } from "@/lib/server/web/lab-route";
+import { labReadRoute, labRoute } from "@/lib/server/web/lab-route";
 import { parseListQuery } from "@/lib/server/web/list";
 import { receiveUpload } from "@/lib/server/uploads/receive";
 
@@ -8,7 +8,7 @@ export const runtime = "nodejs";
 
 type P = { labId: string; specimenId: string };
 
-export const GET = labRoute<P>("upload.read", async (ctx, request, p) =>
+export const GET = labReadRoute<P>("upload.read", async (ctx, request, p) =>
   json(await listUploads(ctx, p.specimenId, parseListQuery(request.url, UPLOAD_SORTS, "createdAt", "desc"))),
 );
 

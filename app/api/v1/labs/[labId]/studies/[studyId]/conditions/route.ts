@@ -1,13 +1,13 @@
 import { conditionRenameSchema } from "@/lib/contracts/study";
 import { listStudyConditions, renameStudyCondition } from "@/lib/server/studies/conditions";
 import { json, readJson } from "@/lib/server/web/http";
-import { labRoute } from "@/lib/server/web/lab-route";
+import { labReadRoute, labRoute } from "@/lib/server/web/lab-route";
 
 export const runtime = "nodejs";
 
 type P = { labId: string; studyId: string };
 
-export const GET = labRoute<P>("lab.read", async (ctx, _request, p) =>
+export const GET = labReadRoute<P>("lab.read", async (ctx, _request, p) =>
   json({ items: await listStudyConditions(ctx, p.studyId) }),
 );
 

@@ -1,6 +1,6 @@
 import { listReadouts, READOUT_SORTS, startReadout } from "@/lib/server/readouts/readouts";
 import { json, readJsonValue } from "@/lib/server/web/http";
-import { labRoute } from "@/lib/server/web/lab-route";
+import { labReadRoute, labRoute } from "@/lib/server/web/lab-route";
 import { parseListQuery } from "@/lib/server/web/list";
 
 export const runtime = "nodejs";
@@ -8,7 +8,7 @@ export const runtime = "nodejs";
 type P = { labId: string; uploadId: string };
 
 /** Every readout of one upload, newest first (old ones stay: readouts are immutable). */
-export const GET = labRoute<P>("upload.read", async (ctx, request, p) =>
+export const GET = labReadRoute<P>("upload.read", async (ctx, request, p) =>
   json(
     await listReadouts(ctx, { uploadId: p.uploadId }, parseListQuery(request.url, READOUT_SORTS, "createdAt", "desc")),
   ),
