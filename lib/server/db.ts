@@ -32,20 +32,28 @@ export interface Database {
   writeQueue: WriteQueue | null;
   /**
    * Runs a SELECT with `$1`… bind parameters outside any transaction; rows as the driver gives them
-   * (lib/server/db-read.ts turns them into attributes). SQLite: straight on Sequelize's own default
-   * connection, past its query class, which builds an Error (and its stack text) for every statement
-   * — a tenth of a web process's CPU under load. PostgreSQL: through `sequelize.query`.
+   * (lib/server/db-read.ts turns them into attributes). SQLite: on a connection of its own (the
+   * reading connection), past Sequelize's query class, which builds an Error (and its stack text) for
+   * every statement — a tenth of a web process's CPU under load. Not on Sequelize's default
+   * connection: Sequelize runs each of its statements in sqlite3's serialized mode, where a
+   * statement waits until no other statement of its connection is running; with these reads on the
+   * same connection, a lab under steady load never let it run (a model's query waited until the
+   * load stopped: 0.6–3 s on the server-load bench, for ever in tests/api/db-prepared.test.ts).
+   * PostgreSQL: through `sequelize.query`.
    */
   select(sql: string, bind: unknown[]): Promise<Record<string, unknown>[]>;
   /**
    * A mark that changes whenever anything was written to the database since it was last read, by
    * any connection of any process; null where the database has no such mark (PostgreSQL).
-   * SQLite: `PRAGMA data_version` counts the commits of every other connection (other processes,
-   * and this process's transactions, each on a connection of its own) as seen from the default
-   * connection, and `total_changes()` the rows that connection itself changed (SQLite docs,
-   * pragma.html#pragma_data_version and lang_corefunc.html#total_changes).
+   * SQLite: `PRAGMA data_version` on the reading connection counts the commits of every other
+   * connection (other processes, and all of this process's writes, which are on Sequelize's
+   * connections), and `total_changes()` the rows the reading connection itself changed (none; it
+   * counts for an in-memory database, where reads and writes share one connection). SQLite docs,
+   * pragma.html#pragma_data_version and lang_corefunc.html#total_changes.
    */
   changeMark(): Promise<string | null>;
+  /** SQLite: how many SELECTs the reading connection keeps prepared (for tests). */
+  preparedCount?(): Promise<number>;
 }
 
 /** How long a write waits for its turn in the write queue before a 503 (ms), unless configured. */
@@ -231,10 +239,32 @@ function createSqlite(storage: string, options: Options): Database {
   const connections = sequelize.connectionManager as unknown as {
     getConnection(options: { type: string }): Promise<sqlite3.Database>;
   };
+  // The reading connection (see Database.select), opened at the first read, query-only, closed
+  // with Sequelize. An in-memory database is one per connection: there reads use Sequelize's.
+  let reader: Promise<BusyWaitingDatabase> | null = null;
+  const readingConnection = () =>
+    (reader ??= new Promise<BusyWaitingDatabase>((resolve, reject) => {
+      const c: BusyWaitingDatabase = new BusyWaitingDatabase(
+        storage,
+        sqlite3.OPEN_READWRITE | sqlite3.OPEN_FULLMUTEX,
+        (err) => (err ? reject(err) : c.exec("PRAGMA query_only = ON", (e) => (e ? reject(e) : resolve(c)))),
+      );
+    }));
+  const sequelizeClose = sequelize.close.bind(sequelize);
+  Object.assign(sequelize, {
+    close: async () => {
+      await sequelizeClose();
+      const opened = reader;
+      reader = null;
+      const c = await opened?.catch(() => null);
+      if (c) await new Promise<void>((resolve) => c.close(() => resolve()));
+    },
+  });
   const select = async (sql: string, bind: unknown[]) => {
-    // Sequelize's default connection (the one its own queries outside a transaction use), opened
-    // with the busy timeout and foreign keys like every other.
-    const connection = (await connections.getConnection({ type: QueryTypes.SELECT })) as BusyWaitingDatabase;
+    const connection =
+      storage === ":memory:"
+        ? ((await connections.getConnection({ type: QueryTypes.SELECT })) as BusyWaitingDatabase)
+        : await readingConnection();
     // Named $1… parameters, as Sequelize binds them for SQLite; booleans as SQLite stores them.
     const params: Record<string, unknown> = {};
     bind.forEach((v, i) => (params[`$${i + 1}`] = typeof v === "boolean" ? Number(v) : v));
@@ -246,5 +276,9 @@ function createSqlite(storage: string, options: Options): Database {
     const [row] = await select("SELECT (SELECT data_version FROM pragma_data_version) AS v, total_changes() AS t", []);
     return `${row.v}.${row.t}`;
   };
-  return { sequelize, models, ready, writeQueue, select, changeMark };
+  const preparedCount = async () =>
+    storage === ":memory:"
+      ? ((await connections.getConnection({ type: QueryTypes.SELECT })) as BusyWaitingDatabase).preparedCount
+      : (await readingConnection()).preparedCount;
+  return { sequelize, models, ready, writeQueue, select, changeMark, preparedCount };
 }
