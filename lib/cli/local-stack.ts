@@ -41,6 +41,9 @@ export async function waitForPort(port: number, what: string, ms = 30_000) {
 
 const portOf = (url: string) => Number(new URL(url).port);
 
+/** Node's arguments for fake-services/run.ts: the fakes in a process of their own. */
+export const fakeServicesArgs = () => ["--import", "tsx", path.join(ROOT, "fake-services/run.ts")];
+
 /** Starts the fakes unless something already listens on their ports. */
 export async function startFakes(env: NodeJS.ProcessEnv): Promise<ChildProcess | null> {
   const config = readConfig();
@@ -49,7 +52,7 @@ export async function startFakes(env: NodeJS.ProcessEnv): Promise<ChildProcess |
     process.stdout.write(`fake services: already running on port ${s3Port}, reusing them\n`);
     return null;
   }
-  const child = spawn(process.execPath, ["--import", "tsx", path.join(ROOT, "fake-services/run.ts")], {
+  const child = spawn(process.execPath, fakeServicesArgs(), {
     cwd: ROOT,
     env,
     stdio: ["ignore", "inherit", "inherit"],

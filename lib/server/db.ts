@@ -260,11 +260,12 @@ function createSqlite(storage: string, options: Options): Database {
       if (c) await new Promise<void>((resolve) => c.close(() => resolve()));
     },
   });
+  const selectConnection = async () =>
+    storage === ":memory:"
+      ? ((await connections.getConnection({ type: QueryTypes.SELECT })) as BusyWaitingDatabase)
+      : readingConnection();
   const select = async (sql: string, bind: unknown[]) => {
-    const connection =
-      storage === ":memory:"
-        ? ((await connections.getConnection({ type: QueryTypes.SELECT })) as BusyWaitingDatabase)
-        : await readingConnection();
+    const connection = await selectConnection();
     // Named $1… parameters, as Sequelize binds them for SQLite; booleans as SQLite stores them.
     const params: Record<string, unknown> = {};
     bind.forEach((v, i) => (params[`$${i + 1}`] = typeof v === "boolean" ? Number(v) : v));
@@ -276,9 +277,6 @@ function createSqlite(storage: string, options: Options): Database {
     const [row] = await select("SELECT (SELECT data_version FROM pragma_data_version) AS v, total_changes() AS t", []);
     return `${row.v}.${row.t}`;
   };
-  const preparedCount = async () =>
-    storage === ":memory:"
-      ? ((await connections.getConnection({ type: QueryTypes.SELECT })) as BusyWaitingDatabase).preparedCount
-      : (await readingConnection()).preparedCount;
+  const preparedCount = async () => (await selectConnection()).preparedCount;
   return { sequelize, models, ready, writeQueue, select, changeMark, preparedCount };
 }

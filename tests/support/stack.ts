@@ -12,6 +12,7 @@ import { readConfig } from "@/lib/server/config";
 import { createServices, setServicesForTest, type Services } from "@/lib/server/services";
 import { stopJobs } from "@/lib/server/jobs/worker";
 import { startJobs } from "@/lib/server/jobs/wiring";
+import { fakeServicesArgs, ROOT } from "@/lib/cli/local-stack";
 import { freePort } from "./free-port";
 import { createTestDatabase } from "./postgres";
 
@@ -54,35 +55,44 @@ function isPortTaken(err: unknown): boolean {
 }
 
 /**
- * The fake object store and mail server on free ports. A port `freePort()` found free can be taken by
- * a parallel test before the fake listens on it; then the fakes start again on new ports.
+ * `start` on three free ports (object store, SMTP, mailbox over HTTP). A port `freePort()` found free
+ * can be taken by a parallel test before the fake listens on it; then `start` runs again on new ports.
  */
-async function startFakes(dir: string, attempts = 5) {
+async function onFreePorts<T>(
+  start: (ports: { s3Port: number; smtpPort: number; httpPort: number }) => Promise<T>,
+  attempts = 5,
+): Promise<T & { s3Port: number; smtpPort: number; httpPort: number }> {
   for (let attempt = 1; ; attempt++) {
-    const [s3Port, smtpPort, httpPort] = [await freePort(), await freePort(), await freePort()];
-    let s3: Awaited<ReturnType<typeof startFakeS3>> | undefined;
+    const ports = { s3Port: await freePort(), smtpPort: await freePort(), httpPort: await freePort() };
     try {
-      s3 = await startFakeS3({ port: s3Port, directory: path.join(dir, "s3"), bucket: "morphokin-test" });
-      const smtp = await startFakeSmtp({ smtpPort, httpPort, directory: path.join(dir, "mail") });
-      return { s3, smtp, s3Port, smtpPort, httpPort };
+      return { ...(await start(ports)), ...ports };
     } catch (err) {
-      await s3?.close().catch(() => undefined);
       if (!isPortTaken(err) || attempt >= attempts) throw err;
     }
   }
 }
 
-const ROOT = path.resolve(import.meta.dirname, "../..");
+/** The fake object store and mail server in this process. */
+const startFakes = (dir: string) =>
+  onFreePorts(async ({ s3Port, smtpPort, httpPort }) => {
+    const s3 = await startFakeS3({ port: s3Port, directory: path.join(dir, "s3"), bucket: "morphokin-test" });
+    try {
+      const smtp = await startFakeSmtp({ smtpPort, httpPort, directory: path.join(dir, "mail") });
+      return { s3, smtp };
+    } catch (err) {
+      await s3.close().catch(() => undefined);
+      throw err;
+    }
+  });
 
 /**
- * The same fakes as startFakes, run by fake-services/run.ts in a process of their own (as `npm start`
- * runs them), for a measurement whose clients share this process: the fake object store hashing
- * and streaming a 32 MB image would otherwise hold the clients' event loop, and time its work as theirs.
+ * The same fakes, run by fake-services/run.ts in a process of their own (as `npm start` runs them),
+ * for a measurement whose clients share this process: the fake object store hashing and streaming a
+ * 32 MB image would otherwise hold the clients' event loop, and time its work as theirs.
  */
-async function startFakesInChild(dir: string, attempts = 5) {
-  for (let attempt = 1; ; attempt++) {
-    const [s3Port, smtpPort, httpPort] = [await freePort(), await freePort(), await freePort()];
-    const child = spawn(process.execPath, ["--import", "tsx", path.join(ROOT, "fake-services/run.ts")], {
+const startFakesInChild = (dir: string) =>
+  onFreePorts(async ({ s3Port, smtpPort, httpPort }) => {
+    const child = spawn(process.execPath, fakeServicesArgs(), {
       cwd: ROOT,
       stdio: ["ignore", "pipe", "pipe"],
       env: {
@@ -96,6 +106,7 @@ async function startFakesInChild(dir: string, attempts = 5) {
       },
     });
     let output = "";
+    const exited = new Promise<void>((resolve) => child.on("exit", () => resolve()));
     const ready = await new Promise<boolean>((resolve) => {
       const seen = (chunk: Buffer) => {
         output += chunk.toString();
@@ -103,20 +114,18 @@ async function startFakesInChild(dir: string, attempts = 5) {
       };
       child.stdout.on("data", seen);
       child.stderr.on("data", seen);
-      child.on("exit", () => resolve(false));
+      void exited.then(() => resolve(false));
     });
-    if (ready) {
-      const exited = new Promise<void>((resolve) => child.on("exit", () => resolve()));
-      const close = async () => {
-        if (child.exitCode === null) child.kill("SIGTERM");
-        await exited;
-      };
-      return { s3: { close }, smtp: { close }, s3Port, smtpPort, httpPort };
-    }
-    if (!output.includes("EADDRINUSE") || attempt >= attempts)
-      throw new Error(`the fake services did not start: ${output.trim().slice(-500)}`);
-  }
-}
+    if (!ready)
+      throw Object.assign(new Error(`the fake services did not start: ${output.trim().slice(-500)}`), {
+        code: output.includes("EADDRINUSE") ? "EADDRINUSE" : undefined,
+      });
+    const close = async () => {
+      if (child.exitCode === null) child.kill("SIGTERM");
+      await exited;
+    };
+    return { s3: { close }, smtp: { close } };
+  });
 
 export interface TestStackOptions {
   /** "sqlite" forces the SQLite file even in the postgres project (e.g. as a copy's source). */
