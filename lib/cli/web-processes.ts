@@ -1,6 +1,7 @@
 /**
- * The production web server on every core: WEB_PROCESSES copies of Next's own `next start`
- * (default one per core, at most 4) share one port through node:cluster, whose primary (this
+ * The production web server on every core: WEB_PROCESSES copies of Next's own server
+ * (web-copy.ts: Next's request handling behind the front door of kept answers; default one per
+ * core, at most 4) share one port through node:cluster, whose primary (this
  * file) hands each new connection to the next copy in turn. One Node process answers on one core
  * only; with a second copy the API keeps answering while the first is busy (a large list, a JSON
  * body, a garbage collection).
@@ -17,7 +18,6 @@ import cluster, { type Worker } from "node:cluster";
 import { availableParallelism } from "node:os";
 import path from "node:path";
 import { parseConfig } from "@/lib/server/config";
-import { nextBin } from "./local-stack";
 import { isSiblingMessage } from "@/lib/server/jobs/sibling-messages";
 
 /** Copies by default: one per core, at most this many (design choice: SQLite has one writer at a time). */
@@ -49,7 +49,7 @@ const RESTART_AT_MOST_EVERY_MS = 5000;
 
 /**
  * The launcher's arguments split: Node's `--cpu-prof…` flags go to each copy's Node (each writes
- * its own profile, named by its process id), the rest (-H host -p port) to `next start`.
+ * its own profile, named by its process id), the rest (-H host -p port) to each copy (web-copy.ts).
  */
 export function splitArgs(args: readonly string[]): { nodeFlags: string[]; nextArgs: string[] } {
   const isNodeFlag = (a: string) => a === "--cpu-prof" || a.startsWith("--cpu-prof-");
@@ -61,9 +61,10 @@ function main() {
   const config = parseConfig(process.env);
   const count = webProcessCount(config.webProcesses);
   cluster.setupPrimary({
-    exec: nextBin(),
-    args: ["start", ...args],
-    execArgv: [...COPY_NODE_FLAGS, ...nodeFlags], // Next's own server with these flags, without this launcher's TypeScript loader or conditions
+    exec: path.join(import.meta.dirname, "web-copy.ts"),
+    args,
+    // TypeScript through tsx, without this launcher's react-server condition (web-copy.ts says why).
+    execArgv: [...COPY_NODE_FLAGS, "--import", "tsx", ...nodeFlags],
   });
   /** Set once the server stops: the exit code of the primary when the last copy has gone. */
   let stopping: number | null = null;

@@ -39,6 +39,23 @@ test("create a token, call the API with it, revoke it", async ({ lab, page }) =>
   expect(body.labs.map((l: { name: string; role: string }) => [l.name, l.role])).toContainEqual([DEMO_LAB, "modeller"]);
   expect((await me(`${secret}x`)).status).toBe(401);
 
+  // A lab's list asked again and again (an API script polling): each answer the same, with the
+  // API's security headers, whether the route made it or the web process gave it again from the
+  // kept answers (lib/cli/front-door.ts).
+  const labId = (body.labs as { id: string; name: string }[]).find((l) => l.name === DEMO_LAB)!.id;
+  const studies = () =>
+    fetch(`${BASE_URL}/api/v1/labs/${labId}/studies`, { headers: { authorization: `Bearer ${secret}` } });
+  const answers = [];
+  for (let i = 0; i < 4; i++) answers.push(await studies());
+  const texts = await Promise.all(answers.map((a) => a.text()));
+  expect(answers.map((a) => a.status)).toEqual([200, 200, 200, 200]);
+  expect(new Set(texts).size).toBe(1);
+  for (const a of answers) {
+    expect(a.headers.get("content-security-policy")).toContain("default-src 'none'");
+    expect(a.headers.get("x-frame-options")).toBe("DENY");
+    expect(a.headers.get("content-type")).toBe("application/json");
+  }
+
   // Shown once: after a reload only the prefix remains, and "last used" is filled in.
   await page.reload();
   await expect(account.tokenSecret).toHaveCount(0);
@@ -50,4 +67,6 @@ test("create a token, call the API with it, revoke it", async ({ lab, page }) =>
   const gone = await me(secret);
   expect(gone.status).toBe(401);
   expect((await gone.json()).error.code).toBe("unauthenticated");
+  // The revocation ends the kept answers of the token at once, in every web process.
+  for (let i = 0; i < 4; i++) expect((await studies()).status).toBe(401);
 });

@@ -16,6 +16,7 @@
  * server CPU per request without, 1.4–1.6 ms with (issue "Speed").
  */
 import "server-only";
+import type { KeptAnswer } from "@/lib/web/kept-answers";
 
 /** Longest an answer is given again, ms: a time-derived field ("expired") is never older than this. */
 export const ANSWER_MAX_AGE_MS = 1000;
@@ -24,11 +25,8 @@ export const ANSWER_MAX_BYTES = 1024 * 1024;
 /** All answers kept by one process, bytes; the least recently given go first. */
 export const ANSWERS_MAX_BYTES = 16 * 1024 * 1024;
 
-interface Kept {
+interface Kept extends KeptAnswer {
   mark: string;
-  status: number;
-  headers: [string, string][];
-  body: Uint8Array<ArrayBuffer>;
   /** Given again until then (ms since the epoch). */
   until: number;
 }
@@ -74,23 +72,12 @@ export class AnswerCache {
    * key and mark, else `make`'s (kept when it qualifies). A thrown error is `make`'s caller's.
    */
   async answer(key: string, mark: string, make: () => Promise<Made>): Promise<Response> {
-    const kept = this.kept.get(key);
-    if (kept) {
-      this.forget(key, kept);
-      if (kept.mark === mark && this.now() < kept.until) {
-        this.keep(key, kept); // most recently given last
-        this.counts.given++;
-        return responseOf(kept);
-      }
-    }
-    const making = this.making.get(key);
-    if (making && making.mark === mark) {
-      const made = await making.done;
-      if (made && this.now() < made.until) {
-        this.counts.given++;
-        return responseOf(made);
-      }
-    }
+    const kept = this.givenAgain(key, mark);
+    if (kept) return responseOf(kept);
+    // With nothing being made, no await before `making` is set: requests arriving together make it once.
+    const meanwhile = this.madeMeanwhile(key, mark);
+    const given = meanwhile && (await meanwhile);
+    if (given) return responseOf(given);
     let settle!: (k: Kept | null) => void;
     const done = new Promise<Kept | null>((resolve) => (settle = resolve));
     this.making.set(key, { mark, done });
@@ -127,6 +114,37 @@ export class AnswerCache {
     }
   }
 
+  /**
+   * The answer answer() would give without making it: the kept one, or the one being made for the
+   * same key and mark, once made (counted as given); null when it must be made. What each web
+   * process's front door (lib/cli/front-door.ts) gives before Next routes the request.
+   */
+  async keptOrBeingMade(key: string, mark: string): Promise<KeptAnswer | null> {
+    return this.givenAgain(key, mark) ?? (await this.madeMeanwhile(key, mark));
+  }
+
+  /** The answer being made for `key` at `mark`, once made and if it may be given (counted as given); null when none is. */
+  private madeMeanwhile(key: string, mark: string): Promise<Kept | null> | null {
+    const making = this.making.get(key);
+    if (!making || making.mark !== mark) return null;
+    return making.done.then((made) => {
+      if (!made || this.now() >= made.until) return null;
+      this.counts.given++;
+      return made;
+    });
+  }
+
+  /** The kept answer for `key` with the database at `mark`, when it may be given again (counted as given). */
+  private givenAgain(key: string, mark: string): Kept | null {
+    const kept = this.kept.get(key);
+    if (!kept) return null;
+    this.forget(key, kept);
+    if (kept.mark !== mark || this.now() >= kept.until) return null;
+    this.keep(key, kept); // most recently given last
+    this.counts.given++;
+    return kept;
+  }
+
   private keep(key: string, k: Kept) {
     this.kept.set(key, k);
     this.bytes += k.body.byteLength;
@@ -147,4 +165,4 @@ export class AnswerCache {
 }
 
 // Response copies a Uint8Array body (undici), so the kept bytes stay whole.
-const responseOf = (k: Kept) => new Response(k.body, { status: k.status, headers: k.headers });
+const responseOf = (k: KeptAnswer) => new Response(k.body, { status: k.status, headers: k.headers });

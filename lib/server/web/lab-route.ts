@@ -11,8 +11,11 @@ import { notFound } from "../errors";
 import type { Database } from "../db";
 import { sha256Hex } from "../secrets";
 import { services } from "../services";
+import { answerPath, offerKeptAnswers, type KeptAnswer } from "@/lib/web/kept-answers";
 import { AnswerCache } from "./answer-cache";
 import { route } from "./http";
+
+const ANSWERS_OF = Symbol.for("morphokin.answers-of");
 
 export function labRoute<P extends { labId: string }>(
   action: Action,
@@ -26,8 +29,13 @@ export function labRoute<P extends { labId: string }>(
   });
 }
 
-/** Each database's kept answers (a test's stack has a database of its own). */
-const answersOf = new WeakMap<Database, AnswerCache>();
+/**
+ * Each database's kept answers (a test's stack has a database of its own), on globalThis: one map
+ * for the process even where the server bundle holds a copy of this module per route, so the
+ * front door's lookup sees every route's answers.
+ */
+const g = globalThis as { [ANSWERS_OF]?: WeakMap<Database, AnswerCache> };
+const answersOf = (g[ANSWERS_OF] ??= new WeakMap<Database, AnswerCache>());
 
 /** The kept answers of this process's database, for tests and the bench. */
 export function labAnswers(): AnswerCache {
@@ -59,10 +67,24 @@ export function labReadRoute<P extends { labId: string }>(
       return { response: await fn(ctx, request, p), validUntil: tokenExpiresAt?.getTime() };
     };
     if (mark === null) return (await make()).response;
-    const url = new URL(request.url);
-    return labAnswers().answer(`${sha256Hex(authorization!)} ${url.pathname}${url.search}`, mark, make);
+    return labAnswers().answer(answerKey(authorization!, answerPath(request.url)), mark, make);
   });
 }
+
+/** An answer's key: the token's SHA-256 and the path and query. */
+const answerKey = (authorization: string, pathAndQuery: string) => `${sha256Hex(authorization)} ${pathAndQuery}`;
+
+/**
+ * The front door's lookup (lib/web/kept-answers.ts): the kept answer for this token and URL, when
+ * labReadRoute would give it again now (or the one being made, once made), without Next's routing.
+ */
+async function keptAnswerFor(authorization: string, pathAndQuery: string): Promise<KeptAnswer | null> {
+  const db = services().db;
+  await db.ready;
+  const mark = await db.changeMark();
+  return mark === null ? null : labAnswers().keptOrBeingMade(answerKey(authorization, pathAndQuery), mark);
+}
+offerKeptAnswers(keptAnswerFor);
 
 /**
  * The lab context of a request: with a token, the token, its user and the membership in one query
