@@ -201,7 +201,8 @@ export default async function bench(): Promise<BenchRow[]> {
       const loadS = (performance.now() - loadT0) / 1000;
       stalls.disable();
       if (process.env.BENCH_LOAD_ANSWERS) writeFileSync(process.env.BENCH_LOAD_ANSWERS, JSON.stringify(answers));
-      const finishedDuringLoad = state === "succeeded";
+      // Read before waiting for the readout's end below: was the whole load timed while it ran?
+      const runningAtLoadEnd = state === "running";
       // The readout's own end, within the same bound, to say whether it finished at all.
       const readoutUntil = Date.now() + LOAD_WITHIN_MS;
       while (Number.isNaN(readoutWallS) && Date.now() < readoutUntil)
@@ -209,7 +210,7 @@ export default async function bench(): Promise<BenchRow[]> {
       watching.on = false;
       await watcher;
       const final = await readoutRow();
-      return rows(answers, { loadS, finishedDuringLoad, readoutWallS, final, clientStallMs: stalls.max / 1e6 });
+      return rows(answers, { loadS, runningAtLoadEnd, readoutWallS, final, clientStallMs: stalls.max / 1e6 });
     } finally {
       agent.destroy();
       server.stop();
@@ -223,7 +224,7 @@ function rows(
   answers: Answer[],
   o: {
     loadS: number;
-    finishedDuringLoad: boolean;
+    runningAtLoadEnd: boolean;
     readoutWallS: number;
     final: { status: string; wavelengthUm: number | null } | null;
     clientStallMs: number;
@@ -278,8 +279,8 @@ function rows(
       unit: "ms",
     },
     {
-      name: name("4096² readout still running at the end (1 = yes)"),
-      value: o.finishedDuringLoad || o.final?.status !== "running" ? 0 : 1,
+      name: name("4096² readout still running when the load ended (1 = yes)"),
+      value: o.runningAtLoadEnd ? 1 : 0,
       unit: "",
     },
     {
