@@ -56,22 +56,23 @@ const routeHeader = (kept: KeptAnswer, name: string) =>
 
 /**
  * Answers `req` with its kept answer and resolves true, or resolves false without touching `res`
- * (nothing kept, not a kept kind of request, or a compressible answer to a client whose codings
- * only Next's compression negotiates).
+ * (nothing kept, not a kept kind of request, or a client whose codings only Next's compression
+ * negotiates).
  */
 export async function giveKeptAnswer(req: IncomingMessage, res: ServerResponse): Promise<boolean> {
   const url = req.url;
   const authorization = req.headers.authorization;
   if (req.method !== "GET" || !url?.startsWith(KEPT_PREFIX) || !authorization) return false;
+  const acceptEncoding = req.headers["accept-encoding"];
+  const gzipOk = acceptsGzip(acceptEncoding);
+  // Only other codings (deflate, br): Next's compression chooses among them; leave it to Next.
+  if (acceptEncoding && !gzipOk && !/^\s*identity\s*$/i.test(acceptEncoding)) return false;
   const lookup = keptAnswerLookup();
   if (!lookup || answerPath(url) !== url) return false;
   const kept = await lookup(authorization, url);
   if (!kept) return false;
   const compressible = !/\bno-transform\b/i.test(routeHeader(kept, "cache-control") ?? "");
-  const acceptEncoding = req.headers["accept-encoding"];
-  const zip = compressible && acceptsGzip(acceptEncoding);
-  // Another coding (deflate, br): Next's compression chooses; leave it to Next.
-  if (compressible && !zip && acceptEncoding && !/^\s*identity\s*$/i.test(acceptEncoding)) return false;
+  const zip = compressible && gzipOk;
   const body = zip ? await gzipOf(kept.body) : kept.body;
   const headers: OutgoingHttpHeaders = { ...Object.fromEntries(kept.headers), ...SECURITY_HEADERS };
   if (compressible) headers.vary = "Accept-Encoding";

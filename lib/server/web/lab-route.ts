@@ -31,8 +31,8 @@ export function labRoute<P extends { labId: string }>(
 
 /**
  * Each database's kept answers (a test's stack has a database of its own), on globalThis: one map
- * for the process even where the server bundle holds a copy of this module per route, so the
- * front door's lookup sees every route's answers.
+ * for the process whichever copy of this module a route's bundle loaded, so the front door's
+ * lookup sees every route's answers.
  */
 const g = globalThis as { [ANSWERS_OF]?: WeakMap<Database, AnswerCache> };
 const answersOf = (g[ANSWERS_OF] ??= new WeakMap<Database, AnswerCache>());
