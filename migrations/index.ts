@@ -13,6 +13,7 @@ import * as m1400batches from "./20261203-1400-batches";
 import * as m1820changed from "./20261203-1820-changed-from";
 import * as m1830links from "./20261203-1830-account-links";
 import * as m2330summaries from "./20261204-2330-list-summaries";
+import * as m2130counts from "./20261205-2130-change-counts";
 
 export const migrationModules = [
   { name: "20261201-0001-foundation", module: m0001 },
@@ -29,4 +30,5 @@ export const migrationModules = [
   { name: "20261203-1820-changed-from", module: m1820changed },
   { name: "20261203-1830-account-links", module: m1830links },
   { name: "20261204-2330-list-summaries", module: m2330summaries },
+  { name: "20261205-2130-change-counts", module: m2130counts },
 ];

@@ -19,7 +19,16 @@ import path from "node:path";
 import { QueryTypes, Sequelize, Transaction } from "sequelize";
 import pg from "pg";
 import sqlite3 from "sqlite3";
+import { AsyncLocalStorage } from "node:async_hooks";
 import { createModels, type Models } from "@/models";
+import {
+  CHANGE_COUNTS,
+  countedTables,
+  SCHEMA_OBJECTS_SQL,
+  tableNamer,
+  tablesOf,
+  type SchemaObject,
+} from "./change-counts";
 import { migrateUp } from "./migrate";
 import { createWriteQueue, type WriteQueue } from "./write-queue";
 
@@ -43,17 +52,34 @@ export interface Database {
    */
   select(sql: string, bind: unknown[]): Promise<Record<string, unknown>[]>;
   /**
-   * A mark that changes whenever anything was written to the database since it was last read, by
-   * any connection of any process; null where the database has no such mark (PostgreSQL).
-   * SQLite: `PRAGMA data_version` on the reading connection counts the commits of every other
-   * connection (other processes, and all of this process's writes, which are on Sequelize's
-   * connections), and `total_changes()` the rows the reading connection itself changed (none; it
-   * counts for an in-memory database, where reads and writes share one connection). SQLite docs,
-   * pragma.html#pragma_data_version and lang_corefunc.html#total_changes.
+   * The database's state of writes, to tell whether what was read since may have changed; null
+   * where the database has no such mark (PostgreSQL). See ChangeMark.
    */
-  changeMark(): Promise<string | null>;
+  changeMark(): Promise<ChangeMark | null>;
+  /**
+   * Runs `fn` and names the tables its statements named: every Database.select and Sequelize query
+   * issued while `fn` runs, in its async context (change-counts.ts, tableNamer). Null where the
+   * tables are not known (PostgreSQL; SQLite before its first change mark).
+   */
+  tablesReadBy<T>(fn: () => Promise<T>): Promise<{ value: T; tables: string[] | null }>;
   /** SQLite: how many SELECTs the reading connection keeps prepared (for tests). */
   preparedCount?(): Promise<number>;
+}
+
+/**
+ * Where the database's writes stand (Database.changeMark). SQLite: `version` is `PRAGMA
+ * data_version` on the reading connection, which counts the commits of every other connection
+ * (other processes, and all of this process's writes, which are on Sequelize's connections), with
+ * `total_changes()`, the rows the reading connection itself changed (none; it counts for an
+ * in-memory database, where reads and writes share one connection), and the schema's version.
+ * SQLite docs, pragma.html#pragma_data_version and lang_corefunc.html#total_changes. `tables`:
+ * the rows written so far to each counted table (change-counts.ts), all from one snapshot.
+ */
+export interface ChangeMark {
+  /** Differs from an earlier mark's whenever anything was written in between, to any table. */
+  version: string;
+  /** Rows written so far to each counted table; a table not in it is not counted. */
+  tables: ReadonlyMap<string, number>;
 }
 
 /** How long a write waits for its turn in the write queue before a 503 (ms), unless configured. */
@@ -138,10 +164,14 @@ const READ_TYPES = new Set<string>([
   QueryTypes.FOREIGNKEYS,
 ]);
 
+/** The text of a statement as sequelize.query takes it (a string, or an object with `query`). */
+const sqlText = (sql: unknown): string =>
+  typeof sql === "string" ? sql : ((sql as { query?: string } | null)?.query ?? "");
+
 /** A statement that only reads: SELECT, or a PRAGMA that sets nothing. */
 function isRead(sql: unknown, options: { type?: string } | undefined): boolean {
   if (options?.type && READ_TYPES.has(options.type)) return true;
-  const text = typeof sql === "string" ? sql : ((sql as { query?: string } | null)?.query ?? "");
+  const text = sqlText(sql);
   return /^\s*SELECT\b/i.test(text) || /^\s*PRAGMA\s+[\w.]+\s*;?\s*$/i.test(text);
 }
 
@@ -208,7 +238,15 @@ function createPostgres(url: string, options: Options): Database {
   })();
   const select = (sql: string, bind: unknown[]) =>
     sequelize.query<Record<string, unknown>>(sql, { bind, type: QueryTypes.SELECT, raw: true });
-  return { sequelize, models, ready, writeQueue: null, select, changeMark: async () => null };
+  return {
+    sequelize,
+    models,
+    ready,
+    writeQueue: null,
+    select,
+    changeMark: async () => null,
+    tablesReadBy: async (fn) => ({ value: await fn(), tables: null }),
+  };
 }
 
 function createSqlite(storage: string, options: Options): Database {
@@ -264,7 +302,7 @@ function createSqlite(storage: string, options: Options): Database {
     storage === ":memory:"
       ? ((await connections.getConnection({ type: QueryTypes.SELECT })) as BusyWaitingDatabase)
       : readingConnection();
-  const select = async (sql: string, bind: unknown[]) => {
+  const readOnly = async (sql: string, bind: unknown[]) => {
     const connection = await selectConnection();
     // Named $1… parameters, as Sequelize binds them for SQLite; booleans as SQLite stores them.
     const params: Record<string, unknown> = {};
@@ -273,10 +311,61 @@ function createSqlite(storage: string, options: Options): Database {
       throw Object.assign(new Error(`${err.message} (in ${sql.slice(0, 200)})`), { cause: err });
     });
   };
-  const changeMark = async () => {
-    const [row] = await select("SELECT (SELECT data_version FROM pragma_data_version) AS v, total_changes() AS t", []);
-    return `${row.v}.${row.t}`;
+  // The statements of each Database.tablesReadBy (and of those it runs within), whichever way they are sent.
+  type Noting = { statements: string[]; within: Noting | undefined };
+  const noting = new AsyncLocalStorage<Noting>();
+  const note = (sql: string) => {
+    for (let n = noting.getStore(); n; n = n.within) n.statements.push(sql);
+  };
+  const queued = sequelize.query.bind(sequelize) as (sql: unknown, options?: unknown) => Promise<unknown>;
+  Object.assign(sequelize, {
+    query: (sql: unknown, options?: unknown) => {
+      note(sqlText(sql));
+      return queued(sql, options);
+    },
+  });
+  const select = async (sql: string, bind: unknown[]) => {
+    note(sql);
+    return readOnly(sql, bind);
+  };
+  // What the schema says of tables and their counting, read again when the schema's version changes.
+  let schema: { version: number; counted: Set<string>; name: (sqlTexts: readonly string[]) => string[] } | null = null;
+  let last: ChangeMark | null = null;
+  const changeMark = async (): Promise<ChangeMark> => {
+    let row: Record<string, unknown>;
+    try {
+      [row] = await readOnly(
+        "SELECT (SELECT data_version FROM pragma_data_version) AS v, total_changes() AS t, " +
+          "(SELECT schema_version FROM pragma_schema_version) AS s, " +
+          `(SELECT group_concat(table_name || ' ' || changes, ' ') FROM ${CHANGE_COUNTS}) AS c`,
+        [],
+      );
+    } catch {
+      // No counts (a database not migrated that far): the version alone, no table counted.
+      [row] = await readOnly(
+        "SELECT (SELECT data_version FROM pragma_data_version) AS v, total_changes() AS t, " +
+          "(SELECT schema_version FROM pragma_schema_version) AS s",
+        [],
+      );
+    }
+    const version = `${row.v}.${row.t}.${row.s}`;
+    if (last?.version === version) return last;
+    let known = schema;
+    if (known?.version !== Number(row.s)) {
+      const objects = (await readOnly(SCHEMA_OBJECTS_SQL, [])) as unknown as SchemaObject[];
+      known = schema = { version: Number(row.s), counted: countedTables(objects), name: tableNamer(tablesOf(objects)) };
+    }
+    const tables = new Map<string, number>();
+    const words = typeof row.c === "string" ? row.c.split(" ") : [];
+    for (let i = 0; i + 1 < words.length; i += 2)
+      if (known.counted.has(words[i])) tables.set(words[i], Number(words[i + 1]));
+    return (last = { version, tables });
+  };
+  const tablesReadBy = async <T>(fn: () => Promise<T>) => {
+    const mine: Noting = { statements: [], within: noting.getStore() };
+    const value = await noting.run(mine, fn);
+    return { value, tables: schema ? schema.name(mine.statements) : null };
   };
   const preparedCount = async () => (await selectConnection()).preparedCount;
-  return { sequelize, models, ready, writeQueue, select, changeMark, preparedCount };
+  return { sequelize, models, ready, writeQueue, select, changeMark, tablesReadBy, preparedCount };
 }

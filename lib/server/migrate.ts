@@ -2,6 +2,7 @@ import "server-only";
 import { QueryTypes, type QueryInterface, type Sequelize } from "sequelize";
 import { MigrationError, SequelizeStorage, Umzug, type MigrationFn } from "umzug";
 import { migrationModules } from "@/migrations";
+import { countChangesOfEveryTable } from "./change-counts";
 
 /** Any fixed number: the PostgreSQL advisory lock that lets one process migrate at a time. */
 const MIGRATION_LOCK_KEY = 7_240_331;
@@ -88,14 +89,17 @@ async function migrateSqlite(sequelize: Sequelize, modules: MigrationModule[]): 
     open = false;
   });
   await sequelize.query("PRAGMA foreign_keys = OFF");
+  let applied: string[];
   try {
-    return (await migrator.up()).map((m) => m.name);
+    applied = (await migrator.up()).map((m) => m.name);
   } catch (err) {
     if (open) await sequelize.query("ROLLBACK");
     throw explain(sequelize, err);
   } finally {
     await sequelize.query("PRAGMA foreign_keys = ON");
   }
+  await countChangesOfEveryTable(sequelize);
+  return applied;
 }
 
 /**

@@ -7,10 +7,13 @@
 import { afterEach, describe, expect, it, vi } from "vitest";
 import { AnswerCache } from "@/lib/server/web/answer-cache";
 import { labAnswers } from "@/lib/server/web/lab-route";
-import { createDatabase } from "@/lib/server/db";
+import { createDatabase, type ChangeMark } from "@/lib/server/db";
 import { database, services } from "@/lib/server/services";
 import { stopJobs } from "@/lib/server/jobs/worker";
 import { setupLabApi } from "../support/lab-api";
+
+/** A change mark at `version` with no table counted. */
+const at = (version: string): ChangeMark => ({ version, tables: new Map() });
 
 const json = (body: unknown, status = 200) =>
   new Response(JSON.stringify(body), { status, headers: { "content-type": "application/json" } });
@@ -22,15 +25,39 @@ describe("AnswerCache", () => {
     let n = 0;
     const make = async () => ({ response: json({ n: ++n }), validUntil: 1_000_600 });
     const body = async (r: Promise<Response>) => (await r).json();
-    expect(await body(cache.answer("k", "1.0", make))).toEqual({ n: 1 });
-    expect(await body(cache.answer("k", "1.0", make))).toEqual({ n: 1 }); // given again
-    expect(await body(cache.answer("other", "1.0", make))).toEqual({ n: 2 }); // another key
-    expect(await body(cache.answer("k", "2.0", make))).toEqual({ n: 3 }); // the database changed
+    expect(await body(cache.answer("k", at("1.0"), make))).toEqual({ n: 1 });
+    expect(await body(cache.answer("k", at("1.0"), make))).toEqual({ n: 1 }); // given again
+    expect(await body(cache.answer("other", at("1.0"), make))).toEqual({ n: 2 }); // another key
+    expect(await body(cache.answer("k", at("2.0"), make))).toEqual({ n: 3 }); // the database changed
     now += 599;
-    expect(await body(cache.answer("k", "2.0", make))).toEqual({ n: 3 });
+    expect(await body(cache.answer("k", at("2.0"), make))).toEqual({ n: 3 });
     now += 1; // validUntil (a token's expiry) reached before the age
-    expect(await body(cache.answer("k", "2.0", make))).toEqual({ n: 4 });
+    expect(await body(cache.answer("k", at("2.0"), make))).toEqual({ n: 4 });
     expect(cache.counts).toEqual({ given: 2, made: 4 });
+  });
+
+  it("keeps an answer across writes to tables it did not read, not across one to a table it read", async () => {
+    const cache = new AnswerCache();
+    const mark = (version: string, studies: number, jobs: number): ChangeMark => ({
+      version,
+      tables: new Map([
+        ["studies", studies],
+        ["jobs", jobs],
+      ]),
+    });
+    let n = 0;
+    const made = (reads?: string[] | null) => async () => ({ response: json({ n: ++n }), reads });
+    const body = async (r: Promise<Response>) => (await r).json();
+    expect(await body(cache.answer("k", mark("1", 5, 7), made(["studies"])))).toEqual({ n: 1 });
+    expect(await body(cache.answer("k", mark("2", 5, 8), made(["studies"])))).toEqual({ n: 1 }); // jobs written
+    expect(await body(cache.answer("k", mark("3", 5, 9), made(["studies"])))).toEqual({ n: 1 });
+    expect(await body(cache.answer("k", mark("4", 6, 9), made(["studies"])))).toEqual({ n: 2 }); // studies written
+    // Made from a table not counted, or from tables not known: any write ends it.
+    expect(await body(cache.answer("u", mark("4", 6, 9), made(["studies", "uncounted"])))).toEqual({ n: 3 });
+    expect(await body(cache.answer("u", mark("5", 6, 10), made(["studies", "uncounted"])))).toEqual({ n: 4 });
+    expect(await body(cache.answer("v", mark("5", 6, 10), made(null)))).toEqual({ n: 5 });
+    expect(await body(cache.answer("v", mark("5", 6, 10), made(null)))).toEqual({ n: 5 });
+    expect(await body(cache.answer("v", mark("6", 6, 11), made(null)))).toEqual({ n: 6 });
   });
 
   it("ends an answer at its age", async () => {
@@ -38,29 +65,29 @@ describe("AnswerCache", () => {
     const cache = new AnswerCache({ maxAgeMs: 1000, now: () => now });
     let n = 0;
     const make = async () => ({ response: json({ n: ++n }) });
-    await cache.answer("k", "1.0", make);
+    await cache.answer("k", at("1.0"), make);
     now = 999;
-    expect(await (await cache.answer("k", "1.0", make)).json()).toEqual({ n: 1 });
+    expect(await (await cache.answer("k", at("1.0"), make)).json()).toEqual({ n: 1 });
     now = 1000;
-    expect(await (await cache.answer("k", "1.0", make)).json()).toEqual({ n: 2 });
+    expect(await (await cache.answer("k", at("1.0"), make)).json()).toEqual({ n: 2 });
   });
 
   it("keeps only 200 JSON answers, each with its status and headers", async () => {
     const cache = new AnswerCache();
     let n = 0;
     const notFound = async () => ({ response: json({ error: { code: "not_found", n: ++n } }, 404) });
-    expect((await cache.answer("k", "1.0", notFound)).status).toBe(404);
-    expect(await (await cache.answer("k", "1.0", notFound)).json()).toEqual({ error: { code: "not_found", n: 2 } });
+    expect((await cache.answer("k", at("1.0"), notFound)).status).toBe(404);
+    expect(await (await cache.answer("k", at("1.0"), notFound)).json()).toEqual({ error: { code: "not_found", n: 2 } });
     const csv = async () => ({ response: new Response(`n\n${++n}\n`, { headers: { "content-type": "text/csv" } }) });
-    await cache.answer("c", "1.0", csv);
-    expect(await (await cache.answer("c", "1.0", csv)).text()).toBe("n\n4\n");
+    await cache.answer("c", at("1.0"), csv);
+    expect(await (await cache.answer("c", at("1.0"), csv)).text()).toBe("n\n4\n");
     const withHeaders = async () => ({
       response: new Response('{"n":1}', {
         headers: { "content-type": "application/json", "cache-control": "no-store" },
       }),
     });
-    await cache.answer("h", "1.0", withHeaders);
-    const again = await cache.answer("h", "1.0", async () => {
+    await cache.answer("h", at("1.0"), withHeaders);
+    const again = await cache.answer("h", at("1.0"), async () => {
       throw new Error("should have been given again");
     });
     expect(again.headers.get("cache-control")).toBe("no-store");
@@ -71,18 +98,18 @@ describe("AnswerCache", () => {
   it("keeps at most its bytes, the least recently given going first, and no answer above its limit", async () => {
     const cache = new AnswerCache({ maxBytes: 3 * 100, maxAnswerBytes: 150 });
     const of = (bytes: number) => async () => ({ response: json("x".repeat(bytes - 2)) }); // JSON quotes: 2 bytes
-    for (const k of ["a", "b", "c"]) await cache.answer(k, "1", of(100));
+    for (const k of ["a", "b", "c"]) await cache.answer(k, at("1"), of(100));
     expect(cache.size).toEqual({ answers: 3, bytes: 300 });
-    await cache.answer("a", "1", of(100)); // given again: now the most recent
-    await cache.answer("d", "1", of(100)); // "b" goes
+    await cache.answer("a", at("1"), of(100)); // given again: now the most recent
+    await cache.answer("d", at("1"), of(100)); // "b" goes
     expect(cache.size).toEqual({ answers: 3, bytes: 300 });
     const made = cache.counts.made;
-    await cache.answer("a", "1", of(100));
+    await cache.answer("a", at("1"), of(100));
     expect(cache.counts.made).toBe(made);
-    await cache.answer("b", "1", of(100));
+    await cache.answer("b", at("1"), of(100));
     expect(cache.counts.made).toBe(made + 1);
-    await cache.answer("big", "1", of(151));
-    await cache.answer("big", "1", of(151));
+    await cache.answer("big", at("1"), of(151));
+    await cache.answer("big", at("1"), of(151));
     expect(cache.counts.made).toBe(made + 3);
     expect(cache.size.bytes).toBeLessThanOrEqual(300);
   });
@@ -97,7 +124,7 @@ describe("AnswerCache", () => {
       await gate;
       return { response: json({ n }) };
     };
-    const all = Promise.all(Array.from({ length: 5 }, () => cache.answer("k", "1.0", slow)));
+    const all = Promise.all(Array.from({ length: 5 }, () => cache.answer("k", at("1.0"), slow)));
     release();
     expect(await Promise.all((await all).map((r) => r.json()))).toEqual(Array(5).fill({ n: 1 }));
     expect(n).toBe(1);
@@ -111,7 +138,7 @@ describe("AnswerCache", () => {
       throw new Error("the database went away");
     };
     const tries = Array.from({ length: 3 }, () =>
-      cache.answer("f", "1.0", failing).then(
+      cache.answer("f", at("1.0"), failing).then(
         () => "ok",
         (e: Error) => e.message,
       ),
@@ -142,7 +169,7 @@ describe("lab lists and details for API scripts", () => {
     expect(labAnswers().counts.given).toBe(given + 1);
   });
 
-  it("are made again after any write, by any connection", async () => {
+  it("are made again after any write to what they show, by any connection", async () => {
     const created = await lab.api("POST", "/api/v1/labs/[labId]/studies", { json: study("Kept answers A") });
     expect(created.status).toBe(201);
     expect(names((await studies()).body)).toContain("Kept answers A");

@@ -61,12 +61,16 @@ export function labReadRoute<P extends { labId: string }>(
     const db = services().db;
     await db.ready;
     const mark = authorization ? await db.changeMark() : null;
-    const make = async () => {
+    const answer = async () => {
       const { ctx, tokenExpiresAt } = await requireLabOf(request, p.labId);
       authorize(ctx, action);
       return { response: await fn(ctx, request, p), validUntil: tokenExpiresAt?.getTime() };
     };
-    if (mark === null) return (await make()).response;
+    if (mark === null) return (await answer()).response;
+    const make = async () => {
+      const { value, tables } = await db.tablesReadBy(answer);
+      return { ...value, reads: tables };
+    };
     return labAnswers().answer(answerKey(authorization!, answerPath(request.url)), mark, make);
   });
 }
