@@ -94,6 +94,10 @@ describe("fitting", () => {
     expect(first.spec.kinetics).toBe("schnakenberg");
   });
 
+  it("says of a finished fit what its row says, as of a finished readout or run: no job progress note", () => {
+    expect(first).toMatchObject({ status: "succeeded", progress: 1, progressNote: null, error: null });
+  });
+
   it("re-run gives the same numbers, as a new fit pointing at the original", async () => {
     const r = await api("POST", `${FITS}/[fitId]/rerun`, { params: { fitId: first.id } });
     expect(r.status).toBe(202);

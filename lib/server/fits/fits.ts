@@ -91,7 +91,9 @@ function summaryOfRow(r: Partial<FitAttributes>): FitSummary {
 
 async function toSummaries(rows: FitAttributes[]): Promise<FitSummaryDto[]> {
   const m = await database();
-  const jobIds = rows.filter((r) => r.jobId).map((r) => r.jobId!);
+  // A fit's job says more than its row only while the row is queued or running (as for readouts
+  // and runs): then its progress, or its end when it ended before its handler touched the row.
+  const jobIds = rows.filter((r) => r.jobId && (r.status === "queued" || r.status === "running")).map((r) => r.jobId!);
   // Independent reads, sent together: one wait for the database instead of two in a row.
   const [jobRows, emails] = await Promise.all([
     jobIds.length ? readAll(m.Job, { where: { id: jobIds } }) : [],
