@@ -174,13 +174,60 @@ function boxPassRows(src: Float32Array, dst: Float32Array, width: number, height
   if (line < height) boxPass(src.subarray(line * width), dst.subarray(line * width), width, height - line, 1, width, r);
 }
 
+/** The half-width r of blur's boxes for a Gaussian of SD σ: 3 boxes of width 2r+1 have σ² = 3·((2r+1)²−1)/12 ≈ r². */
+export const boxHalfWidth = (sigmaPx: number) => Math.max(1, Math.round(Math.sqrt(sigmaPx * sigmaPx + 1) - 0.5));
+
+/**
+ * The weights of blur's three box passes along one axis of `len` pixels: for output position p,
+ * weights[p·(6r+1) + j] is the weight of input p − 3r + j (0 outside the line). Each pass is the
+ * mean over the part of [k − r, k + r] inside the line, as boxPass; interior positions share one
+ * kernel, the 3r positions at each end get their own.
+ */
+export function boxBlurWeights(len: number, r: number): Float64Array {
+  const reach = 3 * r,
+    span = 2 * reach + 1;
+  const weights = new Float64Array(len * span);
+  const count = (k: number) => Math.min(k + r, len - 1) - Math.max(k - r, 0) + 1;
+  // One pass of an impulse response restricted to [from, to], from the previous pass's values on [from − r, to + r].
+  const pass = (prev: Float64Array, prevFrom: number, from: number, to: number) => {
+    const out = new Float64Array(to - from + 1);
+    for (let k = from; k <= to; k++) {
+      let acc = 0;
+      for (let q = Math.max(k - r, 0, prevFrom); q <= Math.min(k + r, len - 1, prevFrom + prev.length - 1); q++)
+        acc += prev[q - prevFrom];
+      out[k - from] = acc / count(k);
+    }
+    return out;
+  };
+  let interior: Float64Array | null = null;
+  for (let p = 0; p < len; p++) {
+    const edge = p < reach || p > len - 1 - reach;
+    if (!edge && interior) {
+      weights.set(interior, p * span);
+      continue;
+    }
+    const kernel = new Float64Array(span);
+    for (let j = 0; j < span; j++) {
+      const q = p - reach + j;
+      if (q < 0 || q >= len) continue;
+      const impulse = new Float64Array([1]);
+      const a = pass(impulse, q, Math.max(0, p - 2 * r), Math.min(len - 1, p + 2 * r));
+      const b = pass(a, Math.max(0, p - 2 * r), Math.max(0, p - r), Math.min(len - 1, p + r));
+      kernel[j] = pass(b, Math.max(0, p - r), p, p)[0];
+    }
+    weights.set(kernel, p * span);
+    if (!edge) interior = kernel;
+  }
+  return weights;
+}
+
 /**
  * Three box passes per axis approximate a Gaussian of SD σ (Wells 1986, IEEE PAMI 8:234). With a
  * second thread (SpectrumExecutor.splitRows) and at least 2²⁰ px, each pass is split: the rows'
  * passes by rows, the columns' by columns; every row and column is the same sums either way.
  */
 export function blur(data: Float32Array, width: number, height: number, sigmaPx: number): Float32Array {
-  const r = Math.max(1, Math.round(Math.sqrt(sigmaPx * sigmaPx + 1) - 0.5)); // 3 boxes of width 2r+1: σ² = 3·((2r+1)²−1)/12 ≈ r²
+  const r = boxHalfWidth(sigmaPx);
   const executor = currentSpectrumExecutor();
   const split = executor?.splitRows && width * height >= MIN_PARALLEL_BINS && width >= 2 && height >= 2;
   let a = split ? new Float32Array(new SharedArrayBuffer(4 * data.length)) : Float32Array.from(data);

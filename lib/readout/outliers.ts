@@ -1,3 +1,4 @@
+import { boxBlurWeights, boxHalfWidth } from "./box-blur";
 import { blur } from "./flatten";
 
 /** Pixels replaced by their local surroundings before the spectrum, and why. */
@@ -175,18 +176,40 @@ export function growByOne(mask: Uint8Array, width: number, height: number): Uint
   return out;
 }
 
+/** σ of the inpainting's Gaussian-weighted mean, px. */
+const INPAINT_SIGMA_PX = 2;
+
+/**
+ * Above this share of treated pixels, blurring the whole frame twice costs less than the sums
+ * around each treated pixel (measured on 4096²: 0.9 s for the two blurs on one thread; the sums,
+ * 169 terms per pixel, about 10 ms per 20 000 treated pixels).
+ */
+const LOCAL_INPAINT_MAX_SHARE = 1 / 16;
+
 /**
  * Replaces treated pixels by the Gaussian-weighted mean (σ = 2 px) of the untreated pixels
  * around them (normalised convolution, Knutsson & Westin 1993, CVPR); where none are near,
- * by `background`. Holes then carry the local level, neither a spike nor a step.
+ * by the background under them (`data` − `residual`, the flattening's level). Holes then carry the
+ * local level, neither a spike nor a step; `residual` stays `data` minus that background there.
+ * The weights are those of `blur` (three running boxes per axis, edge-clamped). When few pixels
+ * are treated, the sums are taken around each of them (boxBlurWeights) instead of blurring the
+ * whole frame: the same weighted mean, in float64 throughout rather than rounded to float32
+ * after each pass (tests/lib/readout-inpaint.test.ts bounds the difference).
  */
 export function inpaintTreated(
   data: Float32Array,
   width: number,
   height: number,
   treated: Uint8Array,
-  background: Float32Array,
+  residual: Float32Array,
 ): void {
+  let count = 0;
+  for (let i = 0; i < treated.length; i++) count += treated[i];
+  if (count === 0) return;
+  if (count <= data.length * LOCAL_INPAINT_MAX_SHARE) {
+    inpaintAround(data, width, height, treated, residual);
+    return;
+  }
   const kept = new Float32Array(data.length),
     weight = new Float32Array(data.length);
   for (let i = 0; i < data.length; i++)
@@ -194,7 +217,59 @@ export function inpaintTreated(
       kept[i] = data[i];
       weight[i] = 1;
     }
-  const num = blur(kept, width, height, 2),
-    den = blur(weight, width, height, 2);
-  for (let i = 0; i < data.length; i++) if (treated[i]) data[i] = den[i] > 1e-3 ? num[i] / den[i] : background[i];
+  const num = blur(kept, width, height, INPAINT_SIGMA_PX),
+    den = blur(weight, width, height, INPAINT_SIGMA_PX);
+  for (let i = 0; i < data.length; i++)
+    if (treated[i]) replace(data, residual, i, den[i] > 1e-3 ? num[i] / den[i] : null);
+}
+
+/** data[i] := `value` (null: the background, data[i] − residual[i] in float32), and residual[i] := data[i] − background. */
+function replace(data: Float32Array, residual: Float32Array, i: number, value: number | null): void {
+  const background = Math.fround(data[i] - residual[i]);
+  data[i] = value ?? background;
+  residual[i] = data[i] - background;
+}
+
+/** inpaintTreated's weighted means, summed around each treated pixel (untreated pixels are only read). */
+function inpaintAround(
+  data: Float32Array,
+  width: number,
+  height: number,
+  treated: Uint8Array,
+  residual: Float32Array,
+): void {
+  const r = boxHalfWidth(INPAINT_SIGMA_PX);
+  const reach = 3 * r,
+    span = 2 * reach + 1;
+  const kx = boxBlurWeights(width, r),
+    ky = boxBlurWeights(height, r);
+  for (let y = 0; y < height; y++) {
+    const row = y * width;
+    for (let x = 0; x < width; x++) {
+      if (!treated[row + x]) continue;
+      let num = 0,
+        den = 0;
+      const y0 = Math.max(0, y - reach),
+        y1 = Math.min(height - 1, y + reach),
+        x0 = Math.max(0, x - reach),
+        x1 = Math.min(width - 1, x + reach);
+      for (let yy = y0; yy <= y1; yy++) {
+        const wy = ky[y * span + (yy - y + reach)];
+        if (wy === 0) continue;
+        const line = yy * width;
+        let rowNum = 0,
+          rowDen = 0;
+        for (let xx = x0; xx <= x1; xx++) {
+          const i = line + xx;
+          if (treated[i]) continue;
+          const w = kx[x * span + (xx - x + reach)];
+          rowNum += w * data[i];
+          rowDen += w;
+        }
+        num += wy * rowNum;
+        den += wy * rowDen;
+      }
+      replace(data, residual, row + x, den > 1e-3 ? num / den : null);
+    }
+  }
 }

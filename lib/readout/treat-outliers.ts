@@ -16,22 +16,28 @@ export function treatOutliers(
 ): { changed: boolean; saturated: number; bright: number; dark: number } {
   const found = findOutliers(residual, included, saturated);
   if (!found && !saturated) return { changed: false, saturated: 0, bright: 0, dark: 0 };
-  const union = new Uint8Array(data.length);
-  for (let i = 0; i < union.length; i++) union[i] = (saturated?.[i] ?? 0) | (found?.mask[i] ?? 0);
+  const n = data.length;
+  const union = saturated ? saturated.slice() : new Uint8Array(n);
+  if (found) {
+    const mask = found.mask;
+    for (let i = 0; i < n; i++) union[i] |= mask[i];
+  }
   const treated = growByOne(union, width, height);
   const darkGrown = found?.dark ? growByOne(found.dark, width, height) : null;
   let nSat = 0,
     nBright = 0,
     nDark = 0;
-  for (let i = 0; i < treated.length; i++) {
-    if (included && !included[i]) treated[i] = 0;
-    if (saturated?.[i]) nSat++;
-    else if (treated[i] && darkGrown?.[i]) nDark++;
-    else if (treated[i]) nBright++;
+  // A saturated pixel is always in `treated` (grown from the union): skipping untreated ones skips no count.
+  for (let i = 0; i < n; i++) {
+    if (treated[i] === 0) continue;
+    const sat = saturated !== null && saturated[i] !== 0;
+    if (sat) nSat++;
+    if (included !== null && included[i] === 0) treated[i] = 0;
+    else if (!sat) {
+      if (darkGrown !== null && darkGrown[i] !== 0) nDark++;
+      else nBright++;
+    }
   }
-  const background = new Float32Array(data.length);
-  for (let i = 0; i < data.length; i++) background[i] = data[i] - residual[i];
-  inpaintTreated(data, width, height, treated, background);
-  for (let i = 0; i < data.length; i++) if (treated[i]) residual[i] = data[i] - background[i];
+  inpaintTreated(data, width, height, treated, residual);
   return { changed: true, saturated: nSat, bright: nBright, dark: nDark };
 }
