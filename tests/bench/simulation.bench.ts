@@ -138,8 +138,9 @@ function stepRows(): BenchRow[] {
       name: `256² Schnakenberg ETD2, ${label}: 10 000 steps`,
       value: (10_000 / r.steps) * s,
       unit: "s",
-      target: "< 10 s",
-      note: steps === 10_000 ? "measured" : "extrapolated",
+      // No target: fixed steps of a fixed size measure the wrong thing; the verification run's
+      // speed is the side-by-side row (adaptive steps to the stationary pattern, against numpy).
+      note: `${steps === 10_000 ? "measured" : "extrapolated"}; speed goal: "side by side: verification run"`,
     });
   }
   return rows;
