@@ -194,7 +194,7 @@ const LOCAL_INPAINT_MAX_SHARE = 1 / 16;
  * The weights are those of `blur` (three running boxes per axis, edge-clamped). When few pixels
  * are treated, the sums are taken around each of them (boxBlurWeights) instead of blurring the
  * whole frame: the same weighted mean, in float64 throughout rather than rounded to float32
- * after each pass (tests/lib/readout-inpaint.test.ts bounds the difference).
+ * after each pass (tests/lib/readout/inpaint.test.ts bounds the difference).
  */
 export function inpaintTreated(
   data: Float32Array,
