@@ -7,6 +7,7 @@
  * reads each by its column's type (SQLite's 0/1 into boolean, its date text into timestamptz).
  */
 import { QueryTypes, type Sequelize, type Transaction } from "sequelize";
+import { CHANGE_COUNTS } from "@/lib/server/change-counts";
 import { createDatabase, describeLocation, isPostgresUrl } from "@/lib/server/db";
 import { migrationModules } from "@/migrations";
 
@@ -26,7 +27,8 @@ async function sqliteTables(sqlite: Sequelize): Promise<string[]> {
     "SELECT name FROM sqlite_master WHERE type = 'table' AND name NOT LIKE 'sqlite_%' ORDER BY name",
     { type: QueryTypes.SELECT },
   );
-  return rows.map((r) => r.name).filter((n) => n !== META_TABLE);
+  // SQLite's own bookkeeping of writes per table (change-counts.ts): PostgreSQL has none.
+  return rows.map((r) => r.name).filter((n) => n !== META_TABLE && n !== CHANGE_COUNTS);
 }
 
 /** Tables ordered so that every table comes after the tables its foreign keys point at. */
