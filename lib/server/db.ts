@@ -312,10 +312,12 @@ function createSqlite(storage: string, options: Options): Database {
     });
   };
   // The statements of each Database.tablesReadBy (and of those it runs within), whichever way they are sent.
-  type Noting = { statements: string[]; within: Noting | undefined };
+  // `done`: work `fn` started but did not await (a timer, a write left to finish) keeps its
+  // context; what it sends after `fn` returned is not noted, so nothing grows for it.
+  type Noting = { statements: string[]; within: Noting | undefined; done: boolean };
   const noting = new AsyncLocalStorage<Noting>();
   const note = (sql: string) => {
-    for (let n = noting.getStore(); n; n = n.within) n.statements.push(sql);
+    for (let n = noting.getStore(); n; n = n.within) if (!n.done) n.statements.push(sql);
   };
   const queued = sequelize.query.bind(sequelize) as (sql: unknown, options?: unknown) => Promise<unknown>;
   Object.assign(sequelize, {
@@ -362,9 +364,13 @@ function createSqlite(storage: string, options: Options): Database {
     return (last = { version, tables });
   };
   const tablesReadBy = async <T>(fn: () => Promise<T>) => {
-    const mine: Noting = { statements: [], within: noting.getStore() };
-    const value = await noting.run(mine, fn);
-    return { value, tables: schema ? schema.name(mine.statements) : null };
+    const mine: Noting = { statements: [], within: noting.getStore(), done: false };
+    try {
+      const value = await noting.run(mine, fn);
+      return { value, tables: schema ? schema.name(mine.statements) : null };
+    } finally {
+      mine.done = true;
+    }
   };
   const preparedCount = async () => (await selectConnection()).preparedCount;
   return { sequelize, models, ready, writeQueue, select, changeMark, tablesReadBy, preparedCount };
