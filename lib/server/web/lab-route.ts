@@ -61,14 +61,14 @@ export function labReadRoute<P extends { labId: string }>(
     const db = services().db;
     await db.ready;
     const mark = authorization ? await db.changeMark() : null;
-    const answer = async () => {
+    const respond = async () => {
       const { ctx, tokenExpiresAt } = await requireLabOf(request, p.labId);
       authorize(ctx, action);
       return { response: await fn(ctx, request, p), validUntil: tokenExpiresAt?.getTime() };
     };
-    if (mark === null) return (await answer()).response;
+    if (mark === null) return (await respond()).response;
     const make = async () => {
-      const { value, tables } = await db.tablesReadBy(answer);
+      const { value, tables } = await db.tablesReadBy(respond);
       return { ...value, reads: tables };
     };
     return labAnswers().answer(answerKey(authorization!, answerPath(request.url)), mark, make);
