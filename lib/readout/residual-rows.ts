@@ -8,7 +8,7 @@
  * first exit, every readout.
  */
 import { gridRow } from "./coarse-background";
-import { addBlockSums, planeRow, residualRow } from "./whole-frame-rows";
+import { addBlockSums, autoResidualRow4, planeResidualRow4, planeRow, residualRow } from "./whole-frame-rows";
 
 /** What the pass writes into `data` as well: nothing, the residual ("auto"), or the pixels less the plane ("plane"). */
 export const WRITE_NONE = 0,
@@ -76,8 +76,11 @@ function residualPassRow(
   planeSums: Float64Array,
 ): boolean {
   const { src, width, sourcePlane, bgRows, bgF, bgBh, tf, data, write } = job;
-  // The stored values are read in place; with the plane first, a row of them less the plane.
+  // The commonest rows, a whole row of blocks of four, in one loop (the same numbers).
   const withPlane = sourcePlane.length === 3;
+  if (tf === 4 && width === 4 * w && y < 4 * h && (withPlane ? write === WRITE_RESIDUAL : write === WRITE_PLANE))
+    return fusedRow(job, y, accR, accI, w, extremes, planeSums);
+  // The stored values are read in place; with the plane first, a row of them less the plane.
   const v = withPlane ? line : src,
     at = withPlane ? 0 : y * width;
   if (withPlane) sourceRowLessPlane(src, y * width, sourcePlane[0] + sourcePlane[2] * y, sourcePlane[1], width, line);
@@ -102,6 +105,69 @@ function residualPassRow(
     addBlockSums(out, outAt, v, at, accR, accI, w, tf);
     if ((y + 1) % tf === 0) storeBlockRow(job, (y + 1) / tf - 1, accR, accI, w, 1 / (tf * tf));
   }
+  return true;
+}
+
+/**
+ * A row of blocks of four (tf = 4, width = 4w) with the residual written ("auto") or the pixels
+ * less the plane ("plane"): residualPassRow's steps in one loop (whole-frame-rows.ts).
+ */
+function fusedRow(
+  job: ResidualRowsJob,
+  y: number,
+  accR: Float64Array,
+  accI: Float64Array,
+  w: number,
+  extremes: Float64Array,
+  planeSums: Float64Array,
+): boolean {
+  const { src, width, sourcePlane, bgRows, data } = job;
+  const { y0, y1, ty } = gridRow(y, job.bgF, job.bgBh);
+  const row = y * width;
+  if (job.write === WRITE_RESIDUAL) {
+    const [c0, c1, c2] = sourcePlane;
+    autoResidualRow4(
+      src,
+      row,
+      c0 + c2 * y,
+      c1,
+      bgRows,
+      y0 * width,
+      y1 * width,
+      1 - ty,
+      ty,
+      job.bgOffset,
+      data,
+      accR,
+      accI,
+      w,
+      extremes,
+    );
+  } else {
+    const p = job.writePlane;
+    planeResidualRow4(
+      src,
+      row,
+      bgRows,
+      y0 * width,
+      y1 * width,
+      1 - ty,
+      ty,
+      job.bgOffset,
+      data,
+      p[0] + p[2] * y,
+      p[1],
+      accR,
+      accI,
+      w,
+      extremes,
+      planeSums,
+    );
+  }
+  if (Math.fround(extremes[0]) > job.upper || Math.fround(extremes[1]) < job.lower) return false;
+  job.rowSums[2 * y] = job.write === WRITE_RESIDUAL ? 0 : planeSums[0];
+  job.rowSums[2 * y + 1] = job.write === WRITE_RESIDUAL ? extremes[2] : planeSums[1];
+  if ((y + 1) % 4 === 0) storeBlockRow(job, (y + 1) / 4 - 1, accR, accI, w, 1 / 16);
   return true;
 }
 

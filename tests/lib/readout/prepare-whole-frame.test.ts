@@ -80,6 +80,17 @@ describe("prepareWholeFrame", () => {
       expect(slow.tissueMask).not.toBeNull();
     }
   });
+  it.each([3100, 3102])(
+    "gives the same numbers on a frame %i px wide filled by the pattern (binning by 4: rows of blocks in one loop, or not)",
+    (width) => {
+      const wide = frame({ width, height: 1030 });
+      for (const flatten of ["auto", "plane"] as const) {
+        const { fast, slow } = both(wide, { flatten });
+        expectSame(fast, slow);
+        expect(slow.tissueMask).toBeNull();
+      }
+    },
+  );
   it("gives the same numbers with the tissue search or the outlier treatment off", () => {
     for (const o of [{ tissueMask: "off" }, { outliers: "off" }, { outliers: "off", flatten: "plane" }] as const) {
       const { fast, slow } = both(onSlide, o);
