@@ -5,6 +5,7 @@
 import type { RowKernel } from "../fft";
 import { runScaleSamples, type ScaleSamplesJob } from "../imaging/read-plain-tiff16";
 import { runBoxColumns, runBoxRows, type BoxJob } from "../readout/box-blur";
+import { runRadialRows, type RadialRowsJob } from "../readout/radial-spectrum";
 import { runRegionStatsRows, type RegionStatsJob } from "../readout/region-stats";
 import { runResidualRows, type ResidualRowsJob } from "../readout/residual-rows";
 
@@ -14,4 +15,5 @@ export const ROW_KERNELS: Record<RowKernel, (job: never, from: number, to: numbe
   "scale-samples": (job: ScaleSamplesJob, from, to) => runScaleSamples(job, from, to),
   "box-rows": (job: BoxJob, from, to) => runBoxRows(job, from, to),
   "box-columns": (job: BoxJob, from, to) => runBoxColumns(job, from, to),
+  "radial-rows": (job: RadialRowsJob, from, to) => runRadialRows(job, from, to),
 };

@@ -1,7 +1,8 @@
 /**
  * The readout with a second thread (SpectrumExecutor: the FFT, the whole-frame passes, the blurs)
  * must give one thread's numbers to the last bit: every row and column is computed by the same
- * function on either thread, and sums across rows are added in row order (the requirement
+ * function on either thread, and sums across rows are added in row order (the radial average's in
+ * two fixed halves, on one thread too) (the requirement
  * "identical numbers on one and two threads"; common practice, no source).
  */
 import { afterAll, describe, expect, it } from "vitest";
@@ -66,6 +67,7 @@ describe("the readout on two threads", () => {
     const two = readWavelength(frame, { pixelSizeUm: 1 });
     setSpectrumExecutor(null);
     expect(kernels).toContain("residual-rows");
+    expect(kernels).toContain("radial-rows");
     expect(one.periodFound).toBe(true);
     expect(two).toEqual(one);
     expect(Object.is(two.wavelengthUm, one.wavelengthUm)).toBe(true);
