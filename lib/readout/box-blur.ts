@@ -1,4 +1,5 @@
 import { currentSpectrumExecutor, MIN_PARALLEL_BINS } from "../fft";
+import { reusedFloat32 } from "./reused-buffer";
 
 /** One pass of a running-box mean of half-width r along rows (stride 1) or columns (stride width). */
 function boxPass(
@@ -226,13 +227,19 @@ export function boxBlurWeights(len: number, r: number): Float64Array {
  * second thread (SpectrumExecutor.splitRows) and at least 2²⁰ px, each pass is split: the rows'
  * passes by rows, the columns' by columns; every row and column is the same sums either way.
  */
-export function blur(data: Float32Array, width: number, height: number, sigmaPx: number): Float32Array {
+export function blur(data: Float32Array, width: number, height: number, sigmaPx: number, reuse?: string): Float32Array {
   const r = boxHalfWidth(sigmaPx);
   const executor = currentSpectrumExecutor();
   const split = executor?.splitRows && width * height >= MIN_PARALLEL_BINS && width >= 2 && height >= 2;
-  let a = split ? new Float32Array(new SharedArrayBuffer(4 * data.length)) : Float32Array.from(data);
-  let b = split ? new Float32Array(new SharedArrayBuffer(4 * data.length)) : new Float32Array(data.length);
-  if (split) a.set(data);
+  // With `reuse`, the two working arrays are reusedFloat32's slots `reuse`-a and -b (their page
+  // faults once, not every readout): the result is then one of them, kept only by a caller that
+  // keeps nothing of it after its own synchronous call.
+  const n = data.length;
+  let a = reuse ? reusedFloat32(`${reuse}-a`, n) : split ? new Float32Array(new SharedArrayBuffer(4 * n)) : null;
+  let b = reuse ? reusedFloat32(`${reuse}-b`, n) : split ? new Float32Array(new SharedArrayBuffer(4 * n)) : null;
+  if (a) a.set(data);
+  else a = Float32Array.from(data);
+  b ??= new Float32Array(n);
   for (let p = 0; p < 3; p++) {
     const job: BoxJob = { src: a, dst: b, width, height, r };
     const rowAt = height >> 1;

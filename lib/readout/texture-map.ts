@@ -1,3 +1,4 @@
+import { currentSpectrumExecutor, MIN_PARALLEL_BINS } from "../fft";
 import { blur } from "./flatten";
 
 /** Local texture and brightness of a region on a coarse grid of c × c px cells. */
@@ -73,6 +74,29 @@ function accumulateRow(
   }
 }
 
+/** computeTextureMap's sums over the cells as a row kernel (SpectrumExecutor.splitRows). */
+export interface TextureRowsJob {
+  residual: Float32Array;
+  intensity: Float32Array;
+  smooth: Float32Array;
+  slow: Float32Array;
+  included: Uint8Array | null;
+  width: number;
+  cellPx: number;
+  columns: number;
+  /** The cell column of each pixel column. */
+  cellOf: Int32Array;
+  sums: { m1: Float32Array; m2: Float32Array; f2: Float32Array; mb: Float32Array; w: Float32Array };
+}
+
+/** Image rows [from, to) of the cells' sums (from a multiple of the cell side). */
+export function runTextureRows(job: TextureRowsJob, from: number, to: number): boolean {
+  const { residual, intensity, smooth, slow, included, width, cellPx: c, columns: cw, cellOf, sums } = job;
+  for (let y = from; y < to; y++)
+    accumulateRow(residual, intensity, smooth, slow, included, y * width, ((y / c) | 0) * cw, cw * c, cellOf, sums);
+  return true;
+}
+
 /**
  * The texture map behind the tissue search. The flattened image is smoothed lightly (σ 1.5 px,
  * against pixel noise) and band-passed (minus a blur of the window's σ, so that a residual slow
@@ -93,18 +117,37 @@ export function computeTextureMap(
     ch = Math.floor(height / c);
   if (cw < 8 || ch < 8) return null;
   const windowPx = Math.max(3, Math.min(width, height) / 40);
-  const smooth = blur(residual, width, height, SMOOTH_SIGMA_PX);
-  const slow = blur(smooth, width, height, windowPx);
-  const m1 = new Float32Array(cw * ch),
-    m2 = new Float32Array(cw * ch),
-    f2 = new Float32Array(cw * ch),
-    mb = new Float32Array(cw * ch),
-    w = new Float32Array(cw * ch);
+  // Neither blur outlives this call: their working arrays are reused by the next readout.
+  const smooth = blur(residual, width, height, SMOOTH_SIGMA_PX, "texture-smooth");
+  const slow = blur(smooth, width, height, windowPx, "texture-slow");
+  // The cells' sums: with a second thread (SpectrumExecutor.splitRows) it takes the lower rows of
+  // cells, from a whole row of cells on; each cell's sums are added by one thread in row order.
+  const executor = currentSpectrumExecutor();
+  const shared = (a: Float32Array | Uint8Array | null) => !a || a.buffer instanceof SharedArrayBuffer;
+  const split =
+    executor?.splitRows &&
+    width * height >= MIN_PARALLEL_BINS &&
+    [residual, intensity, smooth, slow, included].every(shared);
+  const cells = () => (split ? new Float32Array(new SharedArrayBuffer(4 * cw * ch)) : new Float32Array(cw * ch));
   const cellOf = new Int32Array(cw * c);
   for (let x = 0; x < cw * c; x++) cellOf[x] = (x / c) | 0;
-  const sums = { m1, m2, f2, mb, w };
-  for (let y = 0; y < ch * c; y++)
-    accumulateRow(residual, intensity, smooth, slow, included, y * width, ((y / c) | 0) * cw, cw * c, cellOf, sums);
+  const job: TextureRowsJob = {
+    residual,
+    intensity,
+    smooth,
+    slow,
+    included,
+    width,
+    cellPx: c,
+    columns: cw,
+    cellOf,
+    sums: { m1: cells(), m2: cells(), f2: cells(), mb: cells(), w: cells() },
+  };
+  const at = c * (ch >> 1),
+    end = ch * c;
+  const both = split ? executor.splitRows!("texture-rows", job, at, end, () => runTextureRows(job, 0, at)) : null;
+  if (both === null) runTextureRows(job, 0, end);
+  const { m1, m2, f2, mb, w } = job.sums;
   const windowCells = windowPx / c;
   const [b1, b2, bf, bb, bw] = [m1, m2, f2, mb, w].map((m) => blur(m, cw, ch, windowCells));
   const { smoothGain, fineGain } = noiseGains();

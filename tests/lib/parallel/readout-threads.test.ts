@@ -1,5 +1,5 @@
 /**
- * The readout with a second thread (SpectrumExecutor: the FFT, the whole-frame passes, the blurs)
+ * The readout with a second thread (SpectrumExecutor: the FFT, the whole-frame passes, the blurs, the texture map, the radial average)
  * must give one thread's numbers to the last bit: every row and column is computed by the same
  * function on either thread, and sums across rows are added in row order (the radial average's in
  * two fixed halves, on one thread too) (the requirement
@@ -10,6 +10,7 @@ import { setSpectrumExecutor, type RowKernel, type SpectrumExecutor } from "@/li
 import { createSpectrumThreads } from "@/lib/parallel/spectrum-threads";
 import { readWavelength } from "@/lib/readout";
 import { blur } from "@/lib/readout/box-blur";
+import { computeTextureMap } from "@/lib/readout/texture-map";
 import { createRng, makeTissueFrame } from "@/lib/synthetic";
 
 const threads = createSpectrumThreads();
@@ -43,6 +44,32 @@ describe("the readout on two threads", () => {
     setSpectrumExecutor(null);
     expect(kernels).toEqual(["box-rows", "box-columns", "box-rows", "box-columns", "box-rows", "box-columns"]);
     expect(bits(two).equals(bits(one))).toBe(true);
+  });
+
+  it("makes the tissue search's texture map bit for bit as one thread does", () => {
+    // A grid of 2²⁰ cells and more is split (a 2048² frame binned by 2); odd sizes, so the rows of cells do not halve evenly.
+    const width = 1030,
+      height = 1022;
+    const rng = createRng(12);
+    const shared = () => new Float32Array(new SharedArrayBuffer(4 * width * height));
+    const residual = shared(),
+      intensity = shared();
+    for (let i = 0; i < residual.length; i++) {
+      const x = i % width;
+      residual[i] = (x < width / 2 ? Math.sin(x / 3) : 0) + 0.3 * rng.normal();
+      intensity[i] = 1 + 0.1 * rng.normal();
+    }
+    setSpectrumExecutor(null);
+    const one = computeTextureMap(residual, intensity, width, height, null)!;
+    const kernels: RowKernel[] = [];
+    setSpectrumExecutor(counting(kernels));
+    const two = computeTextureMap(residual, intensity, width, height, null)!;
+    setSpectrumExecutor(null);
+    expect(kernels).toContain("texture-rows");
+    for (const key of ["logSnr", "brightness", "sd"] as const) expect(bits(two[key]).equals(bits(one[key]))).toBe(true);
+    expect(Buffer.from(two.use).equals(Buffer.from(one.use))).toBe(true);
+    // The textured half and the flat half differ (the map is not trivially equal).
+    expect(one.logSnr[10 * one.columns + 5]).toBeGreaterThan(one.logSnr[10 * one.columns + one.columns - 5] + 2);
   });
 
   it("reads a tissue frame with the same numbers as one thread (the default readout)", () => {
