@@ -139,23 +139,23 @@ export function prepareWholeFrame(
   };
 }
 
-/** The residual at every k-th pixel (outlierSampleStep): findOutliers' sample, without the residual stored. */
+/**
+ * The residual at every k-th pixel (outlierSampleStep): findOutliers' sample, without the residual
+ * stored. Each sampled value is computed where it lies (sourceRow's value there, the same rounding),
+ * without copying the rows it falls in.
+ */
 function sampleResidual(s: Source, bg: CoarseBackground, width: number, height: number): Float32Array {
   const n = width * height,
     step = outlierSampleStep(n);
   const out = new Float32Array(Math.ceil(n / step));
-  const line = new Float32Array(width);
-  let k = 0,
-    lastY = -1;
+  const { src, plane } = s;
+  let k = 0;
   for (let i = 0; i < n; i += step) {
     const y = (i / width) | 0,
       x = i - y * width;
-    if (y !== lastY) {
-      sourceRow(s, y, width, line);
-      lastY = y;
-    }
+    const v = plane ? Math.fround(src[i] - (plane.c0 + plane.c2 * y + plane.c1 * x)) : src[i];
     const { y0, y1, ty } = gridRow(y, bg.f, bg.bh);
-    out[k++] = line[x] - (bg.rows[y0 * width + x] * (1 - ty) + bg.rows[y1 * width + x] * ty) - bg.offset;
+    out[k++] = v - (bg.rows[y0 * width + x] * (1 - ty) + bg.rows[y1 * width + x] * ty) - bg.offset;
   }
   return out;
 }
