@@ -1,5 +1,12 @@
 import { computeAngularStats, classifySymmetry, type AngularStats, type PatternSymmetry } from "./angular";
-import { evaluatePowerLaw, fitPowerLaw, localLogQuadraticAt, type PowerLaw } from "./background-fit";
+import {
+  evaluatePowerLaw,
+  fitPowerLaw,
+  localLogQuadraticAt,
+  ringLogs,
+  type PowerLaw,
+  type RingLogs,
+} from "./background-fit";
 import { findPeakRing, peakHalfWidthRings, refinePeak2d, refineRing, type Peak2d } from "./peak";
 import type { PowerSpectrum } from "./power-spectrum";
 import { computeRadialSpectrum, type RadialSpectrum } from "./radial-spectrum";
@@ -35,13 +42,20 @@ function isLocalMaximum(radial: RadialSpectrum, r: number): boolean {
  * is not one power law over the whole spectrum (a residual illumination at low frequencies, a
  * blur roll-off at high ones) does not lift noise to a "peak".
  */
-function localBackground(radial: RadialSpectrum, r: number, fitFrom: number, last: number, global: PowerLaw): number {
+function localBackground(
+  radial: RadialSpectrum,
+  logs: RingLogs,
+  r: number,
+  fitFrom: number,
+  last: number,
+  global: PowerLaw,
+): number {
   const ex = Math.max(3, Math.ceil(r / 4));
   // An octave either side, but at least 8 rings beyond the left-out band on each side.
   const from = Math.max(fitFrom, Math.min(Math.floor(r / 2), r - ex - 8)),
     to = Math.min(last, Math.max(Math.ceil(2 * r), r + ex + 8));
   if (r - ex - from < 4 || to - (r + ex) < 4) return evaluatePowerLaw(global, radial.frequencyPerPx[r]);
-  const bent = localLogQuadraticAt(radial.frequencyPerPx, radial.power, from, to, r - ex, r + ex, r);
+  const bent = localLogQuadraticAt(logs, from, to, r - ex, r + ex, r);
   return Number.isFinite(bent) ? bent : evaluatePowerLaw(global, radial.frequencyPerPx[r]);
 }
 
@@ -63,8 +77,9 @@ export function analyseSpectrum(
   // The peak: the local maximum of the radial spectrum that stands highest above a background
   // fitted around it without it (a slope of the background is never a peak).
   const global = fitPowerLaw(radial.frequencyPerPx, radial.power, fitFrom, last, -1, -1);
+  const logs = ringLogs(radial.frequencyPerPx, radial.power);
   const peakRing = findPeakRing(radial, searchFrom, Math.max(searchFrom, searchTo), (r) =>
-    localBackground(radial, r, fitFrom, last, global),
+    localBackground(radial, logs, r, fitFrom, last, global),
   );
   // The background of the whole spectrum without the peak, for its width, the angular statistics and the plot.
   let bg = fitPowerLaw(radial.frequencyPerPx, radial.power, fitFrom, last, peakRing - 3, peakRing + 3);
@@ -80,7 +95,7 @@ export function analyseSpectrum(
   const fRing = refinedRing / s.ringN;
   const f2d = peak2d ? Math.hypot(peak2d.fx, peak2d.fy) : fRing;
   const frequencyPerPx = symmetry === "labyrinth" ? fRing : f2d;
-  const local = localBackground(radial, peakRing, fitFrom, last, bg);
+  const local = localBackground(radial, logs, peakRing, fitFrom, last, bg);
   const significance = isLocalMaximum(radial, peakRing) ? radial.power[peakRing] / local : 0;
   return {
     radial,

@@ -56,22 +56,40 @@ export function fitPowerLaw(
   return fit;
 }
 
+/** ln f and ln P of a radial spectrum's rings, NaN where either is not positive (unusable in a log fit). */
+export interface RingLogs {
+  lnFreq: Float64Array;
+  lnPower: Float64Array;
+}
+
+/** The logarithms localLogQuadraticAt takes, each computed once for all its calls on one spectrum. */
+export function ringLogs(freq: Float64Array, power: Float64Array): RingLogs {
+  const lnFreq = new Float64Array(freq.length),
+    lnPower = new Float64Array(freq.length);
+  for (let k = 0; k < freq.length; k++) {
+    const usable = power[k] > 0 && freq[k] > 0;
+    lnFreq[k] = freq[k] > 0 ? Math.log(freq[k]) : NaN;
+    lnPower[k] = usable ? Math.log(power[k]) : NaN;
+  }
+  return { lnFreq, lnPower };
+}
+
 /**
  * log P = c₀ + c₁ ln f + c₂ (ln f)² fitted by least squares over rings [from, to] without
  * [excludeFrom, excludeTo]: a local background that also follows a bent spectrum (a blur's
  * roll-off, a residual illumination), where one power law would leave the middle above its chord.
- * Returns the background at ring r's frequency, or NaN with fewer than 4 usable rings.
+ * Returns the background at ring r's frequency, or NaN with fewer than 4 usable rings. The
+ * rings' logarithms (ringLogs) are taken once per spectrum, not once per call.
  */
 export function localLogQuadraticAt(
-  freq: Float64Array,
-  power: Float64Array,
+  { lnFreq, lnPower }: RingLogs,
   from: number,
   to: number,
   excludeFrom: number,
   excludeTo: number,
   r: number,
 ): number {
-  const x0 = Math.log(freq[r]);
+  const x0 = lnFreq[r];
   // Normal equations of the centred fit (x = ln f − ln f_r), so the value at r is c₀.
   let n = 0,
     s1 = 0,
@@ -82,9 +100,9 @@ export function localLogQuadraticAt(
     t1 = 0,
     t2 = 0;
   for (let k = from; k <= to; k++) {
-    if ((k >= excludeFrom && k <= excludeTo) || !(power[k] > 0) || !(freq[k] > 0)) continue;
-    const x = Math.log(freq[k]) - x0,
-      y = Math.log(power[k]),
+    const y = lnPower[k];
+    if ((k >= excludeFrom && k <= excludeTo) || Number.isNaN(y)) continue;
+    const x = lnFreq[k] - x0,
       x2 = x * x;
     n++;
     s1 += x;
