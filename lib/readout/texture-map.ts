@@ -45,7 +45,9 @@ function noiseGains(): { smoothGain: number; fineGain: number } {
 /**
  * Adds one image row to its cells' sums. A function per row, not a loop inside computeTextureMap:
  * V8 optimises a small function called a thousand times for good, where a long loop compiled on
- * the fly (on-stack replacement) was thrown back to the baseline compiler at its first exit.
+ * the fly (on-stack replacement) was thrown back to the baseline compiler at its first exit. A
+ * cell's c pixels are added in registers, rounded to float32 after each addition as the sums'
+ * arrays store them, so the sums are those of adding pixel by pixel into the arrays.
  */
 function accumulateRow(
   residual: Float32Array,
@@ -55,22 +57,34 @@ function accumulateRow(
   included: Uint8Array | null,
   row: number,
   crow: number,
-  xs: number,
-  cellOf: Int32Array,
+  columns: number,
+  c: number,
   sums: { m1: Float32Array; m2: Float32Array; f2: Float32Array; mb: Float32Array; w: Float32Array },
 ): void {
   const { m1, m2, f2, mb, w } = sums;
-  for (let x = 0; x < xs; x++) {
-    const i = row + x;
-    if (included && !included[i]) continue;
-    const j = crow + cellOf[x];
-    const band = smooth[i] - slow[i],
-      fine = residual[i] - smooth[i];
-    m1[j] += band;
-    m2[j] += band * band;
-    f2[j] += fine * fine;
-    mb[j] += intensity[i];
-    w[j]++;
+  const fround = Math.fround;
+  for (let cx = 0, i = row; cx < columns; cx++) {
+    const j = crow + cx;
+    let s1 = m1[j],
+      s2 = m2[j],
+      sf = f2[j],
+      sb = mb[j],
+      n = w[j];
+    for (const end = i + c; i < end; i++) {
+      if (included && !included[i]) continue;
+      const band = smooth[i] - slow[i],
+        fine = residual[i] - smooth[i];
+      s1 = fround(s1 + band);
+      s2 = fround(s2 + band * band);
+      sf = fround(sf + fine * fine);
+      sb = fround(sb + intensity[i]);
+      n = fround(n + 1);
+    }
+    m1[j] = s1;
+    m2[j] = s2;
+    f2[j] = sf;
+    mb[j] = sb;
+    w[j] = n;
   }
 }
 
@@ -84,16 +98,14 @@ export interface TextureRowsJob {
   width: number;
   cellPx: number;
   columns: number;
-  /** The cell column of each pixel column. */
-  cellOf: Int32Array;
   sums: { m1: Float32Array; m2: Float32Array; f2: Float32Array; mb: Float32Array; w: Float32Array };
 }
 
 /** Image rows [from, to) of the cells' sums (from a multiple of the cell side). */
 export function runTextureRows(job: TextureRowsJob, from: number, to: number): boolean {
-  const { residual, intensity, smooth, slow, included, width, cellPx: c, columns: cw, cellOf, sums } = job;
+  const { residual, intensity, smooth, slow, included, width, cellPx: c, columns: cw, sums } = job;
   for (let y = from; y < to; y++)
-    accumulateRow(residual, intensity, smooth, slow, included, y * width, ((y / c) | 0) * cw, cw * c, cellOf, sums);
+    accumulateRow(residual, intensity, smooth, slow, included, y * width, ((y / c) | 0) * cw, cw, c, sums);
   return true;
 }
 
@@ -129,8 +141,6 @@ export function computeTextureMap(
     width * height >= MIN_PARALLEL_BINS &&
     [residual, intensity, smooth, slow, included].every(shared);
   const cells = () => (split ? new Float32Array(new SharedArrayBuffer(4 * cw * ch)) : new Float32Array(cw * ch));
-  const cellOf = new Int32Array(cw * c);
-  for (let x = 0; x < cw * c; x++) cellOf[x] = (x / c) | 0;
   const job: TextureRowsJob = {
     residual,
     intensity,
@@ -140,7 +150,6 @@ export function computeTextureMap(
     width,
     cellPx: c,
     columns: cw,
-    cellOf,
     sums: { m1: cells(), m2: cells(), f2: cells(), mb: cells(), w: cells() },
   };
   const at = c * (ch >> 1),
