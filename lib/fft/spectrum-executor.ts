@@ -37,7 +37,14 @@ export interface SpectrumExecutor {
 
 /** The row kernels an executor's worker can run (each computes its rows exactly as the caller would). */
 export type RowKernel =
-  "residual-rows" | "region-stats" | "scale-samples" | "box-rows" | "box-columns" | "radial-rows" | "texture-rows";
+  | "residual-rows"
+  | "region-stats"
+  | "scale-samples"
+  | "box-rows"
+  | "box-columns"
+  | "radial-rows"
+  | "texture-rows"
+  | "blur-grids";
 
 /** Transforms smaller than this (bins) stay on the calling thread: waking a thread costs more. */
 export const MIN_PARALLEL_BINS = 1 << 20;

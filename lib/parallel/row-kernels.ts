@@ -7,7 +7,7 @@ import { runScaleSamples, type ScaleSamplesJob } from "../imaging/read-plain-tif
 import { runBoxColumns, runBoxRows, type BoxJob } from "../readout/box-blur";
 import { runRadialRows, type RadialRowsJob } from "../readout/radial-spectrum";
 import { runRegionStatsRows, type RegionStatsJob } from "../readout/region-stats";
-import { runTextureRows, type TextureRowsJob } from "../readout/texture-map";
+import { runBlurGrids, runTextureRows, type BlurGridsJob, type TextureRowsJob } from "../readout/texture-map";
 import { runResidualRows, type ResidualRowsJob } from "../readout/residual-rows";
 
 export const ROW_KERNELS: Record<RowKernel, (job: never, from: number, to: number) => boolean> = {
@@ -18,4 +18,5 @@ export const ROW_KERNELS: Record<RowKernel, (job: never, from: number, to: numbe
   "box-columns": (job: BoxJob, from, to) => runBoxColumns(job, from, to),
   "radial-rows": (job: RadialRowsJob, from, to) => runRadialRows(job, from, to),
   "texture-rows": (job: TextureRowsJob, from, to) => runTextureRows(job, from, to),
+  "blur-grids": (job: BlurGridsJob, from, to) => runBlurGrids(job, from, to),
 };

@@ -109,6 +109,22 @@ export function runTextureRows(job: TextureRowsJob, from: number, to: number): b
   return true;
 }
 
+/** Blurs of several grids of one size as a row kernel, a grid per "row" (SpectrumExecutor.splitRows). */
+export interface BlurGridsJob {
+  grids: Float32Array[];
+  /** Each grid's blur is written here. */
+  out: Float32Array[];
+  width: number;
+  height: number;
+  sigma: number;
+}
+
+/** Grids [from, to) of a BlurGridsJob. */
+export function runBlurGrids(job: BlurGridsJob, from: number, to: number): boolean {
+  for (let i = from; i < to; i++) job.out[i].set(blur(job.grids[i], job.width, job.height, job.sigma));
+  return true;
+}
+
 /**
  * The texture map behind the tissue search. The flattened image is smoothed lightly (σ 1.5 px,
  * against pixel noise) and band-passed (minus a blur of the window's σ, so that a residual slow
@@ -158,7 +174,17 @@ export function computeTextureMap(
   if (both === null) runTextureRows(job, 0, end);
   const { m1, m2, f2, mb, w } = job.sums;
   const windowCells = windowPx / c;
-  const [b1, b2, bf, bb, bw] = [m1, m2, f2, mb, w].map((m) => blur(m, cw, ch, windowCells));
+  // The five window sums are blurred two and three to a thread when the cells' sums were split.
+  const blurJob: BlurGridsJob = {
+    grids: [m1, m2, f2, mb, w],
+    out: [m1, m2, f2, mb, w].map(() => cells()),
+    width: cw,
+    height: ch,
+    sigma: windowCells,
+  };
+  const blurred = split ? executor.splitRows!("blur-grids", blurJob, 3, 5, () => runBlurGrids(blurJob, 0, 3)) : null;
+  if (blurred === null) runBlurGrids(blurJob, 0, 5);
+  const [b1, b2, bf, bb, bw] = blurJob.out;
   const { smoothGain, fineGain } = noiseGains();
   const logSnr = new Float32Array(cw * ch),
     brightness = new Float32Array(cw * ch),

@@ -66,6 +66,7 @@ describe("the readout on two threads", () => {
     const two = computeTextureMap(residual, intensity, width, height, null)!;
     setSpectrumExecutor(null);
     expect(kernels).toContain("texture-rows");
+    expect(kernels).toContain("blur-grids");
     for (const key of ["logSnr", "brightness", "sd"] as const) expect(bits(two[key]).equals(bits(one[key]))).toBe(true);
     expect(Buffer.from(two.use).equals(Buffer.from(one.use))).toBe(true);
     // The textured half and the flat half differ (the map is not trivially equal).
