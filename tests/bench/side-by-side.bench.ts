@@ -24,6 +24,13 @@ const SHARED_BENCH = path.resolve(import.meta.dirname, "../../../shared/bench");
 const PYTHON = "/usr/bin/python3";
 const WORK = path.join(tmpdir(), "morphokin-side-by-side");
 const REPS = 3;
+/**
+ * The 4096² readout's medians are of 7 runs a side: a run is about half a second on either side,
+ * and on this shared machine single runs of either side vary by up to a quarter (numpy's median of
+ * 3 ranged from 465 to 583 ms in one day), so a median of 3 moved the ratio by more than the
+ * distance to its goal.
+ */
+const READOUT_REPS = 7;
 
 interface NumpyFigure {
   median: number;
@@ -60,12 +67,15 @@ function numpy(...args: string[]): NumpyFigure {
  */
 const WARM_UPS = 2;
 
-/** Median of REPS timed calls after WARM_UPS untimed ones (ms), and the last call's value. */
-async function medianMs<T>(fn: () => T | Promise<T>): Promise<{ ms: number; min: number; max: number; value: T }> {
+/** Median of `reps` timed calls after WARM_UPS untimed ones (ms), and the last call's value. */
+async function medianMs<T>(
+  fn: () => T | Promise<T>,
+  reps = REPS,
+): Promise<{ ms: number; min: number; max: number; value: T }> {
   let value = await fn();
   for (let i = 1; i < WARM_UPS; i++) value = await fn();
   const t: number[] = [];
-  for (let i = 0; i < REPS; i++) {
+  for (let i = 0; i < reps; i++) {
     const s = performance.now();
     value = await fn();
     t.push(performance.now() - s);
@@ -131,10 +141,16 @@ async function readoutRows(np: NumpyFigure | null): Promise<BenchRow[]> {
   if (!existsSync(file)) return [];
   const bytes = readFileSync(file);
   // The same work as numpy_reference.py's readout (core-readout.ts), then the full default readout.
-  const core = await medianMs(async () => readWavelength((await decodeImage(bytes, {})).image, CORE_READOUT));
+  const core = await medianMs(
+    async () => readWavelength((await decodeImage(bytes, {})).image, CORE_READOUT),
+    READOUT_REPS,
+  );
   const threads = createSpectrumThreads();
   setSpectrumExecutor(threads);
-  const core2 = await medianMs(async () => readWavelength((await decodeImage(bytes, {})).image, CORE_READOUT));
+  const core2 = await medianMs(
+    async () => readWavelength((await decodeImage(bytes, {})).image, CORE_READOUT),
+    READOUT_REPS,
+  );
   setSpectrumExecutor(null);
   threads.dispose();
   const full = await medianMs(async () => readWavelength((await decodeImage(bytes, {})).image, { pixelSizeUm: 1 }));
@@ -190,7 +206,7 @@ export default async function bench(parts: string[] = []): Promise<BenchRow[]> {
     spawnSync(PYTHON, [path.join(SHARED_BENCH, "make_frame.py"), WORK], { stdio: "ignore" });
   const rows: BenchRow[] = [];
   if (want("map")) rows.push(...(await mapRows(python ? numpy("map", String(REPS)) : null)));
-  if (want("readout")) rows.push(...(await readoutRows(python ? numpy("readout", String(REPS)) : null)));
+  if (want("readout")) rows.push(...(await readoutRows(python ? numpy("readout", String(READOUT_REPS)) : null)));
   if (want("sim")) rows.push(...simRows(python ? (numpy(...SIM_NUMPY_ARGS) as NumpySimFigure) : null));
   return rows;
 }
