@@ -5,6 +5,7 @@ export { DctPlan } from "./dct-plan";
 export { RealFftPlan, halfComplexFrequency } from "./real-fft-plan";
 export {
   realPowerSpectrum2d,
+  halfSpectrumLength,
   transformRows,
   transformColumnsToPower,
   type HalfPower,

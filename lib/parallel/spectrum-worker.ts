@@ -64,7 +64,7 @@ function serve({ ctrl }: { ctrl: Int32Array }): void {
     );
     done();
     next();
-    transformColumnsToPower(half, width / 2 + 1, height, power, colSplit, width / 2 + 1);
+    transformColumnsToPower(half, width / 2 + 1, height, srcHeight, power, colSplit, width / 2 + 1);
     done();
   }
 }
