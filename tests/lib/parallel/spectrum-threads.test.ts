@@ -19,7 +19,7 @@ describe("the readout's 2-D FFT on two threads", () => {
   it.each([
     ["1024 × 1024, float32", 1024, 1024, "float32"],
     ["1000 × 1030 padded to 1024 × 2048, odd rows per thread, float64", 1000, 1030, "float64"],
-    // After the first case: its reused half spectrum must have its zero-padding rows cleared.
+    // After the first case: its reused half spectrum still holds that transform in the zero-padding rows, which must read as zeros.
     ["1024 × 1000 padded to 1024 × 1024, after a 1024 × 1024 image, float32", 1024, 1000, "float32"],
   ] as const)("gives the same |F|² as one thread, bit for bit: %s", (_, w, h, precision) => {
     const rng = createRng(w + h);
