@@ -52,7 +52,7 @@ describe("float32 half spectrum between the row and column transforms", () => {
 });
 
 describe("realPowerSpectrum2d reusing its working memory", () => {
-  it("gives the same |F|² for a short image after a taller one of the same padded size (zero padding cleared)", () => {
+  it("gives the same |F|² for a short image after a taller one of the same padded size (zero padding read as zeros)", () => {
     const rng = createRng(9);
     const tall = Float32Array.from({ length: 64 * 60 }, () => rng.normal());
     const short = Float32Array.from({ length: 64 * 33 }, () => rng.normal());
